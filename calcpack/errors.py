@@ -1,0 +1,111 @@
+"""The whole calcpack exception hierarchy.
+
+Every error calcpack raises on purpose is a :class:`CalcpackError`. Messages follow one shape:
+what is wrong, the name of the input, the rule, what was given -- and the fix when it is obvious,
+e.g. ``"Span L must be positive (got L = -3 m)"``.
+"""
+
+from __future__ import annotations
+
+from typing import Any
+
+__all__ = [
+    "BuildError",
+    "CalcpackError",
+    "DimensionError",
+    "InputError",
+    "NotebookExecutionError",
+    "OutOfScopeError",
+    "SigningError",
+    "UndefinedSymbolError",
+    "UnstableStructureError",
+    "VerificationError",
+]
+
+
+class CalcpackError(Exception):
+    """Root of every error raised by calcpack on purpose."""
+
+
+class InputError(CalcpackError, ValueError):
+    """A bad input value: names the input, the value given and what would be valid.
+
+    Args:
+        message: the full, human-readable message.
+        name: the name of the offending input (``"L"``, ``"t_w"``, ``"sheets[2]"``).
+        value: the offending value as given (a quantity, number or string).
+        expected: what would have been valid, in words.
+    """
+
+    def __init__(
+        self,
+        message: str,
+        *,
+        name: str | None = None,
+        value: Any = None,
+        expected: str | None = None,
+    ) -> None:
+        super().__init__(message)
+        self.name = name
+        self.value = value
+        self.expected = expected
+
+
+class DimensionError(InputError):
+    """A quantity of the wrong physical dimension, or a formula whose units do not agree."""
+
+
+class UndefinedSymbolError(InputError):
+    """A formula refers to a symbol that has no value on the sheet."""
+
+
+class UnstableStructureError(CalcpackError):
+    """The structure cannot carry the load: a mechanism, too few or ill-placed supports.
+
+    Args:
+        message: what is unstable, why, and what would fix it.
+        part: the support, hinge, joint or mode at fault, when one can be named.
+    """
+
+    def __init__(self, message: str, *, part: str | None = None) -> None:
+        super().__init__(message)
+        self.part = part
+
+
+class OutOfScopeError(CalcpackError):
+    """The method asked for does not cover this case (slender section, unsupported load type...).
+
+    calcpack refuses rather than return a number it cannot stand behind.
+    """
+
+
+class BuildError(CalcpackError):
+    """The calc package could not be built (project file, templates, layout, output)."""
+
+
+class NotebookExecutionError(BuildError):
+    """A sheet notebook failed while executing.
+
+    Args:
+        sheet: the notebook path as named in the project file.
+        cell_index: the 1-based number of the failing code cell as shown in JupyterLab's order.
+        source_excerpt: the first line of the failing cell's source.
+        error: the error name and message raised in the kernel.
+    """
+
+    def __init__(self, sheet: str, cell_index: int, source_excerpt: str, error: str) -> None:
+        super().__init__(
+            f"Sheet {sheet!r} failed in cell {cell_index} ({source_excerpt!r}): {error}"
+        )
+        self.sheet = sheet
+        self.cell_index = cell_index
+        self.source_excerpt = source_excerpt
+        self.error = error
+
+
+class SigningError(CalcpackError):
+    """A package could not be signed (key, password, certificate, order of roles, tampering)."""
+
+
+class VerificationError(CalcpackError):
+    """A package could not be verified (not a calcpack package, unreadable manifest...)."""

@@ -1,0 +1,261 @@
+"""The one unit registry calcpack uses everywhere, with the trade's units and display presets.
+
+``ureg`` is also set as pint's application registry, so quantities made with ``pint.Quantity``
+elsewhere interoperate. Inputs are pint quantities; use :func:`require` at an API boundary to
+check the dimension and finiteness of an input and :func:`si` to take its SI magnitude for a
+numeric core.
+
+Display presets map a physical dimension to the unit a sheet shows it in (``"SI"``: kN, kN·m,
+MPa, mm⁴...; ``"US"``: kip, kip·ft, ksi, in⁴...). The significant figures shown default to three
+and are configurable globally with :func:`set_display` or per sheet.
+"""
+
+from __future__ import annotations
+
+import math
+from collections.abc import Mapping
+from dataclasses import dataclass, field
+from typing import Any
+
+import pint
+
+from calcpack.errors import DimensionError, InputError
+
+__all__ = [
+    "PRESETS",
+    "Q_",
+    "DisplayPreset",
+    "DisplaySettings",
+    "Quantity",
+    "get_display",
+    "is_quantity",
+    "require",
+    "set_display",
+    "si",
+    "ureg",
+]
+
+ureg: pint.UnitRegistry = pint.UnitRegistry(
+    autoconvert_offset_to_baseunit=True,
+    on_redefinition="raise",
+)
+# The trade's US customary units that pint does not define by these names.
+for _definition in (
+    "psf = force_pound / foot ** 2",
+    "ksf = kip / foot ** 2",
+    "plf = force_pound / foot",
+    "klf = kip / foot",
+    "pcf = force_pound / foot ** 3",
+    "kcf = kip / foot ** 3",
+    "kipf = kip",
+):
+    ureg.define(_definition)
+ureg.formatter.default_format = "~P"
+pint.set_application_registry(ureg)
+
+Q_ = ureg.Quantity
+Quantity = pint.Quantity
+"""The quantity type, for annotations."""
+
+
+def is_quantity(value: object) -> bool:
+    """True if ``value`` is a pint quantity."""
+    return isinstance(value, pint.Quantity)
+
+
+def _dimensionality(reference: str | pint.Unit | pint.Quantity) -> Any:
+    if isinstance(reference, str) and reference.startswith("["):
+        return ureg.get_dimensionality(reference)
+    if isinstance(reference, str):
+        return ureg.Unit(reference).dimensionality
+    return reference.dimensionality
+
+
+def require(
+    value: object,
+    dimension: str,
+    name: str,
+    *,
+    positive: bool = False,
+    nonnegative: bool = False,
+) -> pint.Quantity:
+    """Check an input quantity at an API boundary and return it.
+
+    Args:
+        value: the input as given.
+        dimension: a pint dimension such as ``"[length]"`` or ``"[force] / [length]"``, or a
+            unit of the wanted dimension such as ``"kN/m"``.
+        name: the input's name as the user knows it, used in messages.
+        positive: also require value > 0.
+        nonnegative: also require value >= 0.
+
+    Raises:
+        DimensionError: not a quantity, or a quantity of another dimension.
+        InputError: not finite, or not positive / non-negative when required.
+    """
+    want = _dimensionality(dimension)
+    if not isinstance(value, pint.Quantity):
+        raise DimensionError(
+            f"Input {name} must be a quantity with units of {dimension} (got {value!r}, a bare "
+            f"{type(value).__name__}); write e.g. {name} = 3.2 * ureg.m",
+            name=name,
+            value=value,
+            expected=f"a quantity of {dimension}",
+        )
+    if value.dimensionality != want:
+        raise DimensionError(
+            f"Input {name} must have units of {dimension} (got {value:~P}, which is "
+            f"{value.dimensionality})",
+            name=name,
+            value=value,
+            expected=f"a quantity of {dimension}",
+        )
+    mag = value.magnitude
+    try:
+        finite = bool(math.isfinite(float(mag)))
+    except TypeError:
+        import numpy as np
+
+        finite = bool(np.all(np.isfinite(np.asarray(mag, dtype=float))))
+    if not finite:
+        raise InputError(
+            f"Input {name} must be a finite number (got {value:~P})",
+            name=name,
+            value=value,
+            expected="a finite value",
+        )
+    if positive and not float(mag) > 0:
+        raise InputError(
+            f"Input {name} must be positive (got {name} = {value:~P})",
+            name=name,
+            value=value,
+            expected="a value > 0",
+        )
+    if nonnegative and not float(mag) >= 0:
+        raise InputError(
+            f"Input {name} must not be negative (got {name} = {value:~P})",
+            name=name,
+            value=value,
+            expected="a value >= 0",
+        )
+    return value
+
+
+def si(value: pint.Quantity) -> float:
+    """The magnitude of ``value`` in coherent SI base units (m, N, Pa, N·m...), as a float."""
+    return float(value.to_base_units().magnitude)
+
+
+@dataclass(frozen=True)
+class DisplayPreset:
+    """Which unit each physical dimension is shown in.
+
+    Args:
+        name: the preset's name (``"SI"``, ``"US"``).
+        units: dimension string (pint form, e.g. ``"[length] ** 4"``) to unit string.
+    """
+
+    name: str
+    units: Mapping[str, str]
+
+    def unit_for(self, quantity: pint.Quantity) -> pint.Unit | None:
+        """The preset unit for ``quantity``'s dimension, or None if the preset has none."""
+        want = quantity.dimensionality
+        for reference, unit in self.units.items():
+            if _dimensionality(reference) == want:
+                return ureg.Unit(unit)
+        return None
+
+
+PRESETS: dict[str, DisplayPreset] = {
+    "SI": DisplayPreset(
+        "SI",
+        {
+            "N": "kN",
+            "N*m": "kN*m",
+            "N/m": "kN/m",
+            "Pa": "MPa",
+            "m": "m",
+            "m**2": "mm**2",
+            "m**3": "mm**3",
+            "m**4": "mm**4",
+            "m**6": "mm**6",
+            "N/m**3": "kN/m**3",
+            "kg/m**3": "kg/m**3",
+            "N*m**2": "kN*m**2",
+            "rad": "rad",
+        },
+    ),
+    "US": DisplayPreset(
+        "US",
+        {
+            "N": "kip",
+            "N*m": "kip*ft",
+            "N/m": "klf",
+            "Pa": "ksi",
+            "m": "ft",
+            "m**2": "inch**2",
+            "m**3": "inch**3",
+            "m**4": "inch**4",
+            "m**6": "inch**6",
+            "N/m**3": "pcf",
+            "kg/m**3": "lb/ft**3",
+            "N*m**2": "kip*inch**2",
+            "rad": "rad",
+        },
+    ),
+}
+
+
+@dataclass
+class DisplaySettings:
+    """Global display defaults: unit system and significant figures (stored values keep full
+    precision; only the display is rounded)."""
+
+    system: str = "SI"
+    sig_figs: int = 3
+    extra: dict[str, str] = field(default_factory=dict)
+
+    @property
+    def preset(self) -> DisplayPreset:
+        return PRESETS[self.system]
+
+
+_SETTINGS = DisplaySettings()
+
+
+def _check_settings(system: str | None, sig_figs: int | None) -> None:
+    if system is not None and system not in PRESETS:
+        raise InputError(
+            f"Unit system must be one of {sorted(PRESETS)} (got {system!r})",
+            name="system",
+            value=system,
+            expected=" or ".join(sorted(PRESETS)),
+        )
+    if sig_figs is not None and (not isinstance(sig_figs, int) or not 1 <= sig_figs <= 12):
+        raise InputError(
+            f"sig_figs must be an integer from 1 to 12 (got {sig_figs!r})",
+            name="sig_figs",
+            value=sig_figs,
+            expected="an integer 1..12",
+        )
+
+
+def set_display(*, system: str | None = None, sig_figs: int | None = None) -> DisplaySettings:
+    """Set the global display defaults and return them. Sheets may override both."""
+    _check_settings(system, sig_figs)
+    if system is not None:
+        _SETTINGS.system = system
+    if sig_figs is not None:
+        _SETTINGS.sig_figs = sig_figs
+    return _SETTINGS
+
+
+def get_display() -> DisplaySettings:
+    """The global display defaults."""
+    return _SETTINGS
+
+
+def validate_display(system: str | None, sig_figs: int | None) -> None:
+    """Raise InputError if ``system`` or ``sig_figs`` is not a valid display setting."""
+    _check_settings(system, sig_figs)
