@@ -1,0 +1,1 @@
+"""Design checks: one module per design standard behind one small common interface."""

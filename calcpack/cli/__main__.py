@@ -1,0 +1,3 @@
+from calcpack.cli import main
+
+raise SystemExit(main())

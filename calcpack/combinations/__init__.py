@@ -1,0 +1,1 @@
+"""Load combinations as data, superposition and envelopes."""

@@ -1,0 +1,1 @@
+"""Load types, resultants and load cases."""

@@ -1,0 +1,1 @@
+"""The calc package build: project file, execution, conversion, pagination, manifest."""

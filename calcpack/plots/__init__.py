@@ -1,0 +1,1 @@
+"""Figures (matplotlib, SVG) that read results only. Imported lazily, never by computation."""

@@ -1,0 +1,1 @@
+"""Cross-section shapes, composite assembly and section properties."""

@@ -1,0 +1,1 @@
+"""Keys, signatures by role and verification of calc packages."""

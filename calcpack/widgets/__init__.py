@@ -1,0 +1,1 @@
+"""ipywidgets input panels (imported lazily, never by computation)."""
