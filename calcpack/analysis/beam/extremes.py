@@ -187,6 +187,7 @@ def find_extremes(result: BeamResult) -> BeamExtremes:
     if core.v is not None and core.T is not None:
         xv, _, sv, vv = _candidates(X, core.v, core.T)
         delta = -vv
+        sv = np.full(sv.shape, "")  # v is continuous: no sides to tell apart
         down = _pick(xv, sv, delta, "max", X, "m", "mm")
         if not float(down.value.magnitude) > 0:
             down = None
