@@ -4,10 +4,11 @@ Method: on each interval the function is interpolated at Chebyshev points of the
 (degree :data:`DEGREE`), and the interpolant is compared with the function at check points
 placed between the nodes (Chebyshev points of the first kind of twice the degree). If the
 largest deviation exceeds ``rtol × max|w|`` (max over all samples), the interval is halved.
-The intervals are refused beyond :data:`MAX_PIECES`: such a load (a step, a spike, a
-singularity) cannot be represented to the accuracy asked and is reported, not approximated.
-Chebyshev interpolation of a smooth function converges geometrically (Trefethen, Approximation
-Theory and Approximation Practice, SIAM 2013, ch. 8 -- from memory), so few pieces suffice.
+More than :data:`MAX_PIECES` intervals, or one narrower than :data:`MIN_WIDTH` of the load,
+is refused: such a load (a step, a spike, a singularity) cannot be represented to the
+accuracy asked and is reported, not approximated. Chebyshev interpolation of a smooth
+function converges geometrically (Trefethen, Approximation Theory and Approximation Practice,
+SIAM 2013, ch. 8 -- from memory), so few pieces suffice.
 """
 
 from __future__ import annotations
@@ -25,6 +26,7 @@ __all__ = ["DEGREE", "MAX_PIECES", "fit_function_load"]
 
 DEGREE = 8
 MAX_PIECES = 64
+MIN_WIDTH = 1e-6  # smallest interval, as a fraction of the load's length
 
 _NODES = np.cos(np.pi * np.arange(DEGREE + 1) / DEGREE)[::-1]  # on [-1, 1], ascending
 _CHECK = np.cos(np.pi * (np.arange(2 * DEGREE) + 0.5) / (2 * DEGREE))[::-1]
@@ -70,14 +72,14 @@ def fit_function_load(load: FunctionLoad, a_m: float, b_m: float) -> tuple[SIPie
         if err <= rtol * scale:
             accepted.append((a, b, coeffs))
             continue
-        if len(accepted) + len(pending) + 2 > MAX_PIECES:
+        if len(accepted) + len(pending) + 2 > MAX_PIECES or half < MIN_WIDTH * (b_m - a_m):
             worst = max(worst, err / scale)
             raise OutOfScopeError(
                 f"Function load {load.description!r} on x = {a_m:.6g} m to {b_m:.6g} m cannot be "
                 f"integrated to the accuracy asked (rtol = {rtol:.1e}): near x = {mid:.6g} m the "
-                f"fit is still off by {worst:.1e} × max|w| after {MAX_PIECES} pieces. A step, "
-                "spike or singularity in w does this; split the load at the discontinuity into "
-                "separate loads, or loosen rtol"
+                f"fit is still off by {worst:.1e} × max|w| after halving to {2 * half:.2g} m. "
+                "A step, spike or singularity in w does this; split the load at the "
+                "discontinuity into separate loads, or loosen rtol"
             )
         pending.extend([(mid, b), (a, mid)])
     accepted.sort(key=lambda item: item[0])

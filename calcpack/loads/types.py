@@ -59,7 +59,7 @@ class SIPiece:
 
 @dataclass(frozen=True)
 class SIPoint:
-    """A point action in SI at x: downward force P (N), axial force H (N, +x), couple C (N·m, cw)."""
+    """A point action in SI at x: force P (N, down +), axial H (N, +x), couple C (N·m, cw +)."""
 
     x_m: float
     P_N: float = 0.0

@@ -14,6 +14,7 @@ any engineering significance) with an absolute floor of 1e-9 × the largest valu
 
 from __future__ import annotations
 
+import itertools
 from dataclasses import dataclass, field
 from fractions import Fraction
 
@@ -63,7 +64,9 @@ def to_calcpack(spec: Spec) -> Beam:
             )
         elif kind == "poly":
             coeffs = tuple(Q_(c, f"N/m**{k + 1}") for k, c in enumerate(ld[3]))
-            loads.append(PolynomialLoad(coefficients=coeffs, start=Q_(ld[1], "m"), end=Q_(ld[2], "m")))
+            loads.append(
+                PolynomialLoad(coefficients=coeffs, start=Q_(ld[1], "m"), end=Q_(ld[2], "m"))
+            )
     return Beam(
         length=Q_(spec.L, "m"),
         supports=[kinds[k](Q_(x, "m")) for k, x in spec.supports],
@@ -114,42 +117,105 @@ SPECS = [
     Spec("simple span, off-centre point", 6, [("pin", 0), ("roller", 6)], [("P", 2, 12000)]),
     Spec("simple span, partial uniform", 10, [("pin", 0), ("roller", 10)], [("w", 3, 7, 4000)]),
     Spec("simple span, triangular", 9, [("pin", 0), ("roller", 9)], [("lin", 0, 9, 0, 6000)]),
-    Spec("simple span, trapezoidal partial", 9, [("pin", 0), ("roller", 9)],
-         [("lin", 2, 8, 3000, 7000)]),
+    Spec(
+        "simple span, trapezoidal partial",
+        9,
+        [("pin", 0), ("roller", 9)],
+        [("lin", 2, 8, 3000, 7000)],
+    ),
     Spec("simple span, couple", 7, [("pin", 0), ("roller", 7)], [("C", 3, 15000)]),
-    Spec("overhang both ends", 12, [("pin", 2), ("roller", 9)],
-         [("w", 0, 12, 3000), ("P", 0, 5000), ("P", 12, 4000)]),
-    Spec("overhang right with couple", 10, [("pin", 0), ("roller", 7)],
-         [("w", 0, 7, 6000), ("P", 10, 8000), ("C", 5, -9000)]),
+    Spec(
+        "overhang both ends",
+        12,
+        [("pin", 2), ("roller", 9)],
+        [("w", 0, 12, 3000), ("P", 0, 5000), ("P", 12, 4000)],
+    ),
+    Spec(
+        "overhang right with couple",
+        10,
+        [("pin", 0), ("roller", 7)],
+        [("w", 0, 7, 6000), ("P", 10, 8000), ("C", 5, -9000)],
+    ),
     Spec("cantilever, uniform", 4, [("fixed", 0)], [("w", 0, 4, 5000)]),
     Spec("cantilever, tip point and couple", 3, [("fixed", 0)], [("P", 3, 7000), ("C", 3, 2000)]),
     Spec("cantilever fixed at right, triangular", 5, [("fixed", 5)], [("lin", 0, 5, 4000, 0)]),
     Spec("propped cantilever, uniform", 8, [("fixed", 0), ("roller", 8)], [("w", 0, 8, 10000)]),
-    Spec("propped cantilever, point and partial", 7, [("fixed", 0), ("roller", 7)],
-         [("P", 2, 9000), ("w", 4, 7, 3000)]),
+    Spec(
+        "propped cantilever, point and partial",
+        7,
+        [("fixed", 0), ("roller", 7)],
+        [("P", 2, 9000), ("w", 4, 7, 3000)],
+    ),
     Spec("fixed-fixed, uniform", 6, [("fixed", 0), ("fixed", 6)], [("w", 0, 6, 12000)]),
-    Spec("fixed-fixed, point and couple", 8, [("fixed", 0), ("fixed", 8)],
-         [("P", 3, 20000), ("C", 6, 5000)]),
-    Spec("two equal spans, uniform", 12, [("pin", 0), ("roller", 6), ("roller", 12)],
-         [("w", 0, 12, 10000)]),
-    Spec("three spans, mixed", 18, [("pin", 0), ("roller", 5), ("roller", 12), ("roller", 18)],
-         [("w", 0, 18, 2000), ("P", 8, 15000), ("lin", 12, 18, 0, 6000), ("C", 2, 4000)]),
-    Spec("continuous with overhang", 14, [("pin", 0), ("roller", 6), ("roller", 12)],
-         [("w", 0, 14, 4000), ("P", 14, 6000)]),
-    Spec("fixed and two rollers", 13, [("fixed", 0), ("roller", 6), ("roller", 13)],
-         [("w", 2, 11, 5000), ("P", 9, 10000)]),
-    Spec("cantilever with hinge and prop", 12, [("fixed", 0), ("roller", 12)],
-         [("w", 0, 12, 3000), ("P", 6, 8000)], hinges=[4]),
-    Spec("Gerber beam, two hinges", 20, [("pin", 0), ("roller", 6), ("roller", 14), ("roller", 20)],
-         [("w", 0, 20, 2500), ("P", 10, 12000)], hinges=[8, 12]),
-    Spec("indeterminate with hinge", 15, [("fixed", 0), ("roller", 8), ("fixed", 15)],
-         [("w", 0, 15, 3000), ("C", 11, 6000)], hinges=[5]),
-    Spec("polynomial load, simple span", 6, [("pin", 0), ("roller", 6)],
-         [("poly", 0, 6, [1000, 500, -60])]),
-    Spec("polynomial partial on propped cantilever", 9, [("fixed", 0), ("roller", 9)],
-         [("poly", 1, 7, [2000, 0, 100])]),
-    Spec("point load at a support and overhang", 10, [("roller", 0), ("pin", 8)],
-         [("P", 8, 7000), ("P", 4, 3000), ("w", 8, 10, 2000)]),
+    Spec(
+        "fixed-fixed, point and couple",
+        8,
+        [("fixed", 0), ("fixed", 8)],
+        [("P", 3, 20000), ("C", 6, 5000)],
+    ),
+    Spec(
+        "two equal spans, uniform",
+        12,
+        [("pin", 0), ("roller", 6), ("roller", 12)],
+        [("w", 0, 12, 10000)],
+    ),
+    Spec(
+        "three spans, mixed",
+        18,
+        [("pin", 0), ("roller", 5), ("roller", 12), ("roller", 18)],
+        [("w", 0, 18, 2000), ("P", 8, 15000), ("lin", 12, 18, 0, 6000), ("C", 2, 4000)],
+    ),
+    Spec(
+        "continuous with overhang",
+        14,
+        [("pin", 0), ("roller", 6), ("roller", 12)],
+        [("w", 0, 14, 4000), ("P", 14, 6000)],
+    ),
+    Spec(
+        "fixed and two rollers",
+        13,
+        [("fixed", 0), ("roller", 6), ("roller", 13)],
+        [("w", 2, 11, 5000), ("P", 9, 10000)],
+    ),
+    Spec(
+        "cantilever with hinge and prop",
+        12,
+        [("fixed", 0), ("roller", 12)],
+        [("w", 0, 12, 3000), ("P", 6, 8000)],
+        hinges=[4],
+    ),
+    Spec(
+        "Gerber beam, two hinges",
+        20,
+        [("pin", 0), ("roller", 6), ("roller", 14), ("roller", 20)],
+        [("w", 0, 20, 2500), ("P", 10, 12000)],
+        hinges=[8, 12],
+    ),
+    Spec(
+        "indeterminate with hinge",
+        15,
+        [("fixed", 0), ("roller", 8), ("fixed", 15)],
+        [("w", 0, 15, 3000), ("C", 11, 6000)],
+        hinges=[5],
+    ),
+    Spec(
+        "polynomial load, simple span",
+        6,
+        [("pin", 0), ("roller", 6)],
+        [("poly", 0, 6, [1000, 500, -60])],
+    ),
+    Spec(
+        "polynomial partial on propped cantilever",
+        9,
+        [("fixed", 0), ("roller", 9)],
+        [("poly", 1, 7, [2000, 0, 100])],
+    ),
+    Spec(
+        "point load at a support and overhang",
+        10,
+        [("roller", 0), ("pin", 8)],
+        [("P", 8, 7000), ("P", 4, 3000), ("w", 8, 10, 2000)],
+    ),
 ]
 
 
@@ -219,12 +285,12 @@ def _segment_extremes(spec: Spec, expr, res) -> tuple[float, float]:
     xs = sympy.Symbol("x")
     X = res.core.X
     vals = []
-    for a, b in zip(X[:-1], X[1:], strict=True):
+    for a, b in itertools.pairwise(X):
         mid = R((a + b) / 2)
         # On (a, b) every singularity function is a plain polynomial: evaluate them there.
         poly = expr.replace(
             lambda e: isinstance(e, sympy.SingularityFunction),
-            lambda e: (
+            lambda e, mid=mid: (
                 (xs - e.args[1]) ** e.args[2] if (e.args[2] >= 0 and mid > e.args[1]) else 0
             ),
         )

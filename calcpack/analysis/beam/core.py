@@ -107,7 +107,7 @@ def integrate(
     Returns:
         (B, n, K) coefficients of g.
     """
-    B, n, K = f.shape
+    _B, n, K = f.shape
     k = np.arange(1, K)
     g = np.zeros_like(f)
     g[:, :, 1:] = sign * f[:, :, :-1] / k
@@ -277,7 +277,7 @@ def solve_si(beam: SIBeam) -> SIResult:
         vb = integrate(Tb, h, V0, np.zeros((Bn, n + 1)))
         Tend = end_values(Tb, h)
         vend = end_values(vb, h)
-        for name, x in beam.hinges:
+        for _name, x in beam.hinges:
             rows.append(at_node(Mb, Mend, _node(X, x)))
         col = {(u.kind, u.owner): b for b, u in enumerate(unknowns, start=1)}
         for name, x, rv, rr, fv, fr, _ in beam.supports:
@@ -291,7 +291,7 @@ def solve_si(beam: SIBeam) -> SIResult:
                 row[col[("C", name)]] -= fr
                 rows.append(row)
     else:
-        for name, x in beam.hinges:
+        for _name, x in beam.hinges:
             rows.append(at_node(Mb, Mend, _node(X, x)))
     A = np.array(rows)
     rhs = -A[:, 0]

@@ -89,7 +89,7 @@ def _dedupe(x: np.ndarray, tol: float) -> np.ndarray:
         return x
     x = np.sort(x)
     keep = np.concatenate([[True], np.diff(x) > tol])
-    return x[keep]
+    return np.asarray(x[keep], dtype=float)
 
 
 def _value(g: np.ndarray, X: np.ndarray, x: np.ndarray, seg: np.ndarray) -> np.ndarray:
@@ -97,7 +97,7 @@ def _value(g: np.ndarray, X: np.ndarray, x: np.ndarray, seg: np.ndarray) -> np.n
     out = np.zeros_like(xi)
     for k in range(g.shape[1] - 1, -1, -1):
         out = out * xi + g[seg, k]
-    return out
+    return np.asarray(out, dtype=float)
 
 
 def _candidates(X: np.ndarray, g: np.ndarray, dg: np.ndarray | None) -> tuple[np.ndarray, ...]:

@@ -11,6 +11,7 @@ inside it).
 
 from __future__ import annotations
 
+import itertools
 import string
 from collections.abc import Sequence
 from dataclasses import dataclass, field, replace
@@ -255,7 +256,7 @@ class Beam:
                 )
             if not -tol <= s.x_m <= L_m + tol:
                 raise InputError(
-                    f"Support {s.name or i} must lie on the beam, 0 <= x <= L (got x = "
+                    f"Support supports[{i}] ({s.kind}) must lie on the beam, 0 <= x <= L (got x = "
                     f"{s.x:~P}, L = {L:~P})",
                     name=f"supports[{i}].x",
                     value=s.x,
@@ -273,7 +274,7 @@ class Beam:
                 used.add(label)
                 s = replace(s, name=label)
             named.append(s)
-        for s0, s1 in zip(named, named[1:], strict=False):
+        for s0, s1 in itertools.pairwise(named):
             if s1.x_m - s0.x_m <= tol:
                 raise InputError(
                     f"Supports {s0.name} and {s1.name} overlap: two supports at one position "
@@ -322,7 +323,7 @@ class Beam:
                         value=h.x,
                         expected="a position away from fixed supports",
                     )
-        for h0, h1 in zip(hinges, hinges[1:], strict=False):
+        for h0, h1 in itertools.pairwise(hinges):
             if h1.x_m - h0.x_m <= tol:
                 raise InputError(
                     f"Two hinges at one position (got x = {h0.x:~P} and {h1.x:~P})",
@@ -445,7 +446,7 @@ class Beam:
 
 def _parts(beam: Beam) -> list[tuple[float, float]]:
     edges = [0.0, *(h.x_m for h in beam.hinges), beam.L_m]
-    return list(zip(edges, edges[1:], strict=False))
+    return list(itertools.pairwise(edges))
 
 
 def classify(beam: Beam) -> BeamClassification:

@@ -235,17 +235,20 @@ class BeamResult:
             if ga is None or gb is None:
                 return None
             K = max(ga.shape[1], gb.shape[1])
-            return refine(a.X, ga, X, K) + refine(b.X, gb, X, K)
+            return np.asarray(refine(a.X, ga, X, K) + refine(b.X, gb, X, K), dtype=float)
 
         def add1(na: np.ndarray, nb: np.ndarray) -> np.ndarray:
-            return refine(a.X, na[:, None], X, 1)[:, 0] + refine(b.X, nb[:, None], X, 1)[:, 0]
+            out = refine(a.X, na[:, None], X, 1)[:, 0] + refine(b.X, nb[:, None], X, 1)[:, 0]
+            return np.asarray(out, dtype=float)
 
         keys = set(a.reactions) | set(b.reactions)
         hk = set(a.hinge_rotation) | set(b.hinge_rotation)
         w = add(a.w, b.w)
         V = add(a.V, b.V)
         M = add(a.M, b.M)
-        assert w is not None and V is not None and M is not None
+        assert w is not None
+        assert V is not None
+        assert M is not None
         core = SIResult(
             X,
             w,
