@@ -33,7 +33,8 @@ def _result(with_EI: bool = True):
 def test_figure_is_svg_with_four_panels_and_units():
     fig = _result().figure()
     svg = fig.svg
-    assert svg.lstrip().startswith("<?xml") and "<svg" in svg
+    assert svg.lstrip().startswith("<?xml")
+    assert "<svg" in svg
     assert len(fig.figure.axes) == 4
     labels = [ax.get_ylabel() for ax in fig.figure.axes[1:]]
     assert labels[0].startswith("V (kN)")

@@ -287,14 +287,14 @@ class BeamResult:
         return self + (-1.0) * other
 
     # -- display (built lazily, never on the numeric path) -------------------------------------
-    def working(self, **options: Any) -> list[Any]:
+    def working(self, **options: Any) -> Any:
         """The working for a sheet: model, classification, load resultants, equilibrium (or
         the compatibility method), reactions and extremes, as calcpack.working steps."""
         from calcpack.analysis.beam.working import beam_working
 
         return beam_working(self, **options)
 
-    def cut(self, x: Quantity, side: str = "left") -> list[Any]:
+    def cut(self, x: Quantity, side: str = "left") -> Any:
         """The cut-section working at ``x``: the free body of the part left of the cut, its
         ΣFy = 0 and ΣM = 0 equations giving V and M from first principles."""
         from calcpack.analysis.beam.working import cut_working
