@@ -156,6 +156,7 @@ class Recorder:
         unit: str | None = None,
         ref: str | None = None,
         note: str | None = None,
+        latex: str | None = None,
     ) -> Any:
         q = _q(formula)
         q = q.to(unit) if unit is not None else q.to_reduced_units()
@@ -286,13 +287,21 @@ class SheetRecorder(Recorder):
         unit: str | None = None,
         ref: str | None = None,
         note: str | None = None,
+        latex: str | None = None,
     ) -> Any:
         from calcpack.working import Derived, Term
 
         if not isinstance(formula, Term) and not is_quantity(formula):
             formula = Q_(float(formula), "")
         step = Derived(
-            name, formula, description, unit=unit, ref=ref, note=note, settings=self.settings
+            name,
+            formula,
+            description,
+            unit=unit,
+            ref=ref,
+            note=note,
+            latex=latex,
+            settings=self.settings,
         )
         self.values[name] = step.quantity
         self.steps.append(step)

@@ -48,7 +48,7 @@ def _points(result: Any, a_m: float, b_m: float) -> np.ndarray:
     core = getattr(result, "core", None)
     if core is not None and hasattr(core, "X"):
         X = np.asarray(core.X, dtype=float)
-        pts.append(X[(X >= a_m) & (X <= b_m)])
+        pts.append(X[(a_m <= X) & (b_m >= X)])
     ex = getattr(result, "extremes", None)
     if ex is not None:
         zs = np.array([float(z.to("m").magnitude) for z in ex.zero_shear])
@@ -57,7 +57,9 @@ def _points(result: Any, a_m: float, b_m: float) -> np.ndarray:
     return np.unique(np.concatenate(pts))
 
 
-def max_abs(result: Any, what: str, a_m: float = 0.0, b_m: float | None = None) -> tuple[Quantity, Quantity]:
+def max_abs(
+    result: Any, what: str, a_m: float = 0.0, b_m: float | None = None
+) -> tuple[Quantity, Quantity]:
     """(max |value|, position) of ``what`` ("moment" or "shear") on a <= x <= b (m)."""
     L_m = float(result.beam.length.to("m").magnitude)
     b = L_m if b_m is None else b_m
