@@ -109,7 +109,14 @@ def size_factor(grade: str, nominal_thickness: int, nominal_width: int) -> float
             "timbers use NDS Supplement Table 4D -- give CF= with its source"
         )
     col = 0 if t <= 3 else 1
-    return _CF_FB.get(w, _CF_FB_WIDE if w >= 14 else _CF_FB[min(k for k in _CF_FB if k > w)])[col]
+    if w in _CF_FB:
+        return _CF_FB[w][col]
+    if w >= 14:
+        return _CF_FB_WIDE[col]
+    raise OutOfScopeError(
+        f"Size factor C_F: nominal width {w} in is not a width of Table 4A (2-6, 8, 10, 12, 14 "
+        "and wider); give CF= with its source"
+    )
 
 
 def flat_use_factor(nominal_thickness: int, nominal_width: int) -> float:
@@ -121,9 +128,14 @@ def flat_use_factor(nominal_thickness: int, nominal_width: int) -> float:
             f'Flat use factor C_fu: nominal thickness {t} in is not dimension lumber (2" to 4")'
         )
     col = 0 if t <= 3 else 1
+    if w in _CFU:
+        return _CFU[w][col]
     if w >= 10:
         return _CFU_WIDE[col]
-    return _CFU.get(w, _CFU[min(k for k in _CFU if k > w)])[col]
+    raise OutOfScopeError(
+        f"Flat use factor C_fu: nominal width {w} in is not a width of Table 4A (2-6, 8, 10 and "
+        "wider)"
+    )
 
 
 def wet_service_factor(prop: str, *, wet: bool, Fb_CF: Quantity | None = None) -> float:
