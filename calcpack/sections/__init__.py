@@ -9,6 +9,12 @@ parallel-axis working for a sheet, and ``.figure()`` sketches the section (both 
 from __future__ import annotations
 
 from calcpack.sections.composite import CompositeSection, Part, composite
+from calcpack.sections.integrals import (
+    BoundedRegion,
+    RadiusOfGyration,
+    RegionIntegrals,
+    second_moment_from_radius,
+)
 from calcpack.sections.properties import PartRow, SectionProperties
 from calcpack.sections.shapes import (
     Angle,
@@ -23,22 +29,31 @@ from calcpack.sections.shapes import (
     Tee,
     Triangle,
 )
+from calcpack.sections.timber import DRESSED_SIZE_TABLE, DressedSize, dressed_size, sawn_timber
 
 __all__ = [
+    "DRESSED_SIZE_TABLE",
     "Angle",
+    "BoundedRegion",
     "Channel",
     "Circle",
     "CompositeSection",
+    "DressedSize",
     "HollowCircle",
     "ISection",
     "Part",
     "PartRow",
     "Polygon",
+    "RadiusOfGyration",
     "Rectangle",
     "RectangularHollow",
+    "RegionIntegrals",
     "SectionProperties",
     "Shape",
     "Tee",
     "Triangle",
     "composite",
+    "dressed_size",
+    "sawn_timber",
+    "second_moment_from_radius",
 ]
