@@ -339,6 +339,8 @@ def part_rows(groups: Sequence[tuple[str, float, Sequence[Region]]]) -> list[Par
     for name, w, regs in groups:
         ms = [r.moments() for r in regs]
         a = sum(m.A for m in ms)
+        if not a > 0:
+            continue  # e.g. a fillet of vanishing radius: nothing to tabulate
         cx = sum(m.A * m.cx for m in ms) / a
         cy = sum(m.A * m.cy for m in ms) / a
         ix = sum(m.Ix + m.A * (m.cy - cy) ** 2 for m in ms)
