@@ -259,8 +259,14 @@ def compute_properties(
         )
     xb = sum(r.A * r.x for r in rows) / A
     yb = sum(r.A * r.y for r in rows) / A
+    size = max(max(abs(r.x), abs(r.y)) for r in rows) or 1.0
+
+    def snap(d: float) -> float:
+        # distances that are zero but for rounding (a part on the axis of symmetry)
+        return 0.0 if abs(d) < 1e-12 * size else d
+
     rows = tuple(
-        PartRow(r.name, r.weight, r.A, r.x, r.y, r.Ix, r.Iy, r.Ixy, r.x - xb, r.y - yb)
+        PartRow(r.name, r.weight, r.A, r.x, r.y, r.Ix, r.Iy, r.Ixy, snap(r.x - xb), snap(r.y - yb))
         for r in rows
     )
     Ix = sum(r.Ix + r.A * r.dy**2 for r in rows)
