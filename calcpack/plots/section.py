@@ -14,8 +14,8 @@ if TYPE_CHECKING:
     from matplotlib.axes import Axes
     from matplotlib.figure import Figure
 
+    from calcpack.sections.base import Section as SectionLike
     from calcpack.sections.properties import SectionProperties
-    from calcpack.sections.shapes import SectionLike
 
 __all__ = ["section_figure", "section_svg"]
 
@@ -26,7 +26,7 @@ _SCALE = {"SI": (1000.0, "mm"), "US": (1000.0 / 25.4, "in")}
 def _fmt(value: float) -> str:
     if value == 0:
         return "0"
-    digits = max(0, 2 - int(math.floor(math.log10(abs(value)))))
+    digits = max(0, 2 - math.floor(math.log10(abs(value))))
     return f"{value:.{digits}f}"
 
 
@@ -129,7 +129,12 @@ def section_figure(
 
     xb, yb = props.x_bar.to(unit).magnitude, props.y_bar.to(unit).magnitude
     ext = 0.12 * span
-    axis_style = {"color": "#b2182b", "lw": 0.8, "ls": (0, (8, 3, 1, 3)), "zorder": 4}
+    axis_style: dict[str, Any] = {
+        "color": "#b2182b",
+        "lw": 0.8,
+        "ls": (0, (8, 3, 1, 3)),
+        "zorder": 4,
+    }
     ax.plot([x0 - ext, x1 + ext], [yb, yb], **axis_style)
     ax.plot([xb, xb], [y0 - ext, y1 + ext], **axis_style)
     ax.text(x1 + ext, yb, " x", va="center", fontsize=9, color="#b2182b")

@@ -11,6 +11,7 @@ from calcpack.units import Q_, Quantity, require, si
 
 if TYPE_CHECKING:
     from calcpack.sections.properties import PartRow, SectionProperties, WeightedRegion
+    from calcpack.working import Block
 
 __all__ = ["Section", "validate_length"]
 
@@ -147,7 +148,7 @@ class Section:
 
         return section_svg(self, **options)
 
-    def working(self, **options: Any) -> list[Any]:
+    def working(self, **options: Any) -> Block:
         """The working (parts table, centroid, parallel-axis theorem) as calcpack.working steps."""
         return self.properties().working(**options)
 

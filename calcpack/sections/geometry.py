@@ -22,13 +22,13 @@ from collections.abc import Sequence
 from dataclasses import dataclass
 
 __all__ = [
+    "CircleRegion",
     "Cut",
     "Moments",
     "PolygonRegion",
-    "CircleRegion",
     "Region",
-    "self_intersection",
     "arc_points",
+    "self_intersection",
 ]
 
 Point = tuple[float, float]
@@ -227,7 +227,7 @@ def arc_points(
 
 
 class Region:
-    """A primitive region in SI floats. Subclasses: :class:`PolygonRegion`, :class:`CircleRegion`."""
+    """A primitive region in SI floats (see :class:`PolygonRegion`, :class:`CircleRegion`)."""
 
     label: str
 
@@ -340,8 +340,7 @@ class PolygonRegion(Region):
                 return False
             n = len(self.points)
             nearest = min(
-                _dist_to_segment(centre, self.points[i], self.points[(i + 1) % n])
-                for i in range(n)
+                _dist_to_segment(centre, self.points[i], self.points[(i + 1) % n]) for i in range(n)
             )
             return nearest >= other.r - tol
         return False

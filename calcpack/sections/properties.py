@@ -28,7 +28,8 @@ from calcpack.sections.geometry import Region
 from calcpack.units import Q_, Quantity
 
 if TYPE_CHECKING:
-    from calcpack.sections.shapes import SectionLike
+    from calcpack.sections.base import Section as SectionLike
+    from calcpack.working import Block
 
 __all__ = ["PartRow", "SectionProperties", "WeightedRegion", "compute_properties"]
 
@@ -180,7 +181,7 @@ class SectionProperties:
         """Width b of the (transformed) section cut along level ``y``."""
         return self.section.width_at(y=y)
 
-    def working(self, **options: Any) -> list[Any]:
+    def working(self, **options: Any) -> Block:
         """The working for display: parts table, sums, centroid and parallel-axis steps."""
         from calcpack.sections.working import section_working
 
@@ -211,9 +212,9 @@ def _find_level(regions: Sequence[WeightedRegion], axis: str, target: float) -> 
     return 0.5 * (lo + hi)
 
 
-def first_moment_below(regions: Sequence[WeightedRegion], level: float, axis: str) -> tuple[
-    float, float
-]:
+def first_moment_below(
+    regions: Sequence[WeightedRegion], level: float, axis: str
+) -> tuple[float, float]:
     """Weighted area on the low side of ``level`` and its first moment about ``level``."""
     area = 0.0
     moment = 0.0

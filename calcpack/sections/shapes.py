@@ -15,7 +15,7 @@ import math
 from collections.abc import Sequence
 from dataclasses import dataclass, field
 from functools import cached_property
-from typing import TYPE_CHECKING, Any, Union
+from typing import TYPE_CHECKING, Any
 
 from calcpack.errors import InputError
 from calcpack.sections.base import Section, fmt_len, saint_venant_rectangle, validate_length
@@ -29,7 +29,7 @@ from calcpack.sections.geometry import (
 from calcpack.units import Q_, Quantity, require, si
 
 if TYPE_CHECKING:
-    from calcpack.sections.composite import CompositeSection, Part
+    from calcpack.sections.composite import Part
     from calcpack.sections.properties import PartRow, WeightedRegion
 
 __all__ = [
@@ -56,7 +56,11 @@ def _rect(x0: float, y0: float, x1: float, y1: float, label: str) -> PolygonRegi
 
 
 def _fillet(
-    corner: tuple[float, float], a: tuple[float, float], b: tuple[float, float], r: float, label: str
+    corner: tuple[float, float],
+    a: tuple[float, float],
+    b: tuple[float, float],
+    r: float,
+    label: str,
 ) -> PolygonRegion:
     """The fillet of radius r in the re-entrant corner where faces along unit vectors a and b
     meet: the square r x r at the corner less the quarter circle tangent to both faces."""
@@ -391,7 +395,9 @@ class ISection(Shape):
         r = _optional_radius(self.r, "r", "Root fillet radius")
         bfb = bf if self.bf_bot is None else validate_length(self.bf_bot, "bf_bot", "Flange width")
         tfb = (
-            tf if self.tf_bot is None else validate_length(self.tf_bot, "tf_bot", "Flange thickness")
+            tf
+            if self.tf_bot is None
+            else validate_length(self.tf_bot, "tf_bot", "Flange thickness")
         )
         for b, name in ((bf, "bf"), (bfb, "bf_bot")):
             if not tw < b:
@@ -436,19 +442,19 @@ class ISection(Shape):
 
     @property
     def doubly_symmetric(self) -> bool:
-        d, bf, tf, tw, r, bfb, tfb = self._dims()
+        _d, bf, tf, _tw, _r, bfb, tfb = self._dims()
         return math.isclose(bf, bfb) and math.isclose(tf, tfb)
 
     @property
     def h(self) -> Quantity:
         """Clear depth of the web between the fillets (or flanges), d - tf - tf_bot - 2r."""
-        d, bf, tf, tw, r, bfb, tfb = self._dims()
+        d, _bf, tf, _tw, r, _bfb, tfb = self._dims()
         return Q_(d - tf - tfb - 2 * r, "m").to("mm")
 
     @property
     def h0(self) -> Quantity:
         """Distance between the flange centroids, d - (tf + tf_bot)/2."""
-        d, bf, tf, tw, r, bfb, tfb = self._dims()
+        d, _bf, tf, _tw, _r, _bfb, tfb = self._dims()
         return Q_(d - (tf + tfb) / 2, "m").to("mm")
 
     @property
@@ -482,7 +488,7 @@ class ISection(Shape):
         return out
 
     def torsion_constant_m4(self) -> tuple[float | None, str]:
-        d, bf, tf, tw, r, bfb, tfb = self._dims()
+        d, bf, tf, tw, _r, bfb, tfb = self._dims()
         h0 = d - (tf + tfb) / 2
         return _thin_plates_J(
             [(bf, tf, "top flange"), (bfb, tfb, "bottom flange"), (h0, tw, "web")]
@@ -492,7 +498,7 @@ class ISection(Shape):
         """Cw = Iy h0² / 4 for a doubly symmetric I; h0² I_top I_bot / (I_top + I_bot) with the
         flanges' own second moments for a singly symmetric I (AISC Design Guide 9, common
         practice); web and fillets neglected in the latter."""
-        d, bf, tf, tw, r, bfb, tfb = self._dims()
+        d, bf, tf, _tw, _r, bfb, tfb = self._dims()
         h0 = d - (tf + tfb) / 2
         if self.doubly_symmetric:
             B = max(bf, bfb)
@@ -637,7 +643,9 @@ class Channel(Shape):
     def torsion_constant_m4(self) -> tuple[float | None, str]:
         d, bf, tf, tw = si(self.d), si(self.bf), si(self.tf), si(self.tw)
         b = bf - tw / 2
-        return _thin_plates_J([(b, tf, "top flange"), (b, tf, "bottom flange"), (d - tf, tw, "web")])
+        return _thin_plates_J(
+            [(b, tf, "top flange"), (b, tf, "bottom flange"), (d - tf, tw, "web")]
+        )
 
     def warping_constant_m6(self) -> tuple[float | None, str]:
         """Cw = tf b³ h0² / 12 · (3 b tf + 2 h0 tw) / (6 b tf + h0 tw) on centre-line dimensions
@@ -801,7 +809,7 @@ class Polygon(Shape):
                 "a simple polygon",
             )
         region = PolygonRegion(pts, self.name or "polygon")
-        if not region.moments().A > 1e-18 * region.extent() ** 2:
+        if not 1e-18 * region.extent() ** 2 < region.moments().A:
             raise _fail(
                 "Polygon vertices enclose zero area (all on one line?)",
                 "vertices",
@@ -822,4 +830,5 @@ class Polygon(Shape):
         )
 
 
-SectionLike = Union[Shape, "CompositeSection"]
+SectionLike = Section
+"""Any section: a single shape or a composite."""

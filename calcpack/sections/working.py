@@ -103,7 +103,9 @@ def section_working(
                 cells.append(abs(r.weight))
             vals = [r.A, pos, r.A * pos, own, d, r.A * d * d]
             powers = [2, 1, 3, 4, 1, 4]
-            cells += [float(_num(v, p, sysname).magnitude) for v, p in zip(vals, powers, strict=True)]
+            cells += [
+                float(_num(v, p, sysname).magnitude) for v, p in zip(vals, powers, strict=True)
+            ]
             body.append(cells)
             sums[0] += r.A
             sums[1] += r.A * pos
@@ -218,15 +220,21 @@ def section_working(
     if props.Zx_value is not None and props.y_pna_value is not None:
         steps.append(
             Derived(
-                "y_p", props.y_pna_value, "plastic neutral axis: equal area above and below",
-                unit=u1, ref="A_above = A_below = A/2",
-            )  # fmt: skip
+                "y_p",
+                props.y_pna_value,
+                "plastic neutral axis: equal area above and below",
+                unit=u1,
+                ref="A_above = A_below = A/2",
+            )
         )
         steps.append(
             Derived(
-                "Z_x", props.Zx_value, "plastic modulus about x", unit=u3,
+                "Z_x",
+                props.Zx_value,
+                "plastic modulus about x",
+                unit=u3,
                 ref="Z = ∫|y − y_p| dA",
-            )  # fmt: skip
+            )
         )
     elif props.Zx_value is None:
         steps.append(
@@ -236,15 +244,16 @@ def section_working(
             )
         )
     if props.J_value is not None:
-        steps.append(
-            Derived("J", props.J_value, "torsion constant", unit=u4, ref=_j_ref(props))
-        )
+        steps.append(Derived("J", props.J_value, "torsion constant", unit=u4, ref=_j_ref(props)))
     if props.Cw_value is not None:
         steps.append(
             Derived(
-                "C_w", props.Cw_value, "warping constant", unit=_PINT[sysname][3].replace("4", "6"),
+                "C_w",
+                props.Cw_value,
+                "warping constant",
+                unit=_PINT[sysname][3].replace("4", "6"),
                 ref="Cw = Iy h0²/4 (doubly symmetric I)",
-            )  # fmt: skip
+            )
         )
     return Block(steps=steps, title=title or f"Section properties: {name}")
 
@@ -282,7 +291,7 @@ def region_working(r: RegionIntegrals, *, system: str | None = None) -> Block:
     """The integral forms for a region bounded by functions, with their exact values."""
     import sympy
 
-    from calcpack.working import Block, Derived, Text
+    from calcpack.working import Block, Derived, Step, Text
 
     region = r.region
     u, l = region.expressions
@@ -294,7 +303,7 @@ def region_working(r: RegionIntegrals, *, system: str | None = None) -> Block:
         return rf"\int_{{{sympy.latex(a)}}}^{{{sympy.latex(b)}}} {sympy.latex(f)}\,dx"
 
     ints = region.integrands()
-    lines = [
+    lines: list[Step] = [
         Text(
             f"Region between $y = {sympy.latex(l)}$ and $y = {sympy.latex(u)}$ for "
             f"${sympy.latex(a)} \\le x \\le {sympy.latex(b)}$ ({unit}); integrals evaluated "

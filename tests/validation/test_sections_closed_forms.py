@@ -88,8 +88,7 @@ def test_rectangle_shear_first_moment():
 def test_polygon_agrees_with_composite_of_rectangles():
     # the same channel-like outline as one polygon and as three rectangles
     poly = Polygon(
-        vertices=[(0, 0), (90, 0), (90, 12), (8, 12), (8, 188), (90, 188), (90, 200), (0, 200)]
-        * mm
+        vertices=[(0, 0), (90, 0), (90, 12), (8, 12), (8, 188), (90, 188), (90, 200), (0, 200)] * mm
     ).properties()
     parts = composite(
         Rectangle(b=8 * mm, d=200 * mm).at(x=0 * mm, y=0 * mm),
