@@ -154,14 +154,32 @@ def section_figure(
     ax.text(xb + 0.03 * span, yb + 0.03 * span, "C", fontsize=9, color="#b2182b", zorder=6)
 
     if label_parts and not single:
-        rows = {r.name: r for r in props.rows}
-        if len(rows) > 1:
-            for name, row in rows.items():
-                ax.text(
-                    row.x * k, row.y * k, name, ha="center", va="center", fontsize=7,
-                    zorder=6, bbox={"fc": "white", "ec": "0.6", "lw": 0.4, "pad": 1.2,
-                                    "alpha": 0.85},
-                )  # fmt: skip
+        sizes: dict[str, list[float]] = {}
+        for wr in regions:
+            bx0, by0, bx1, by1 = (v * k for v in wr.region.bbox())
+            box = sizes.setdefault(wr.part, [bx0, by0, bx1, by1])
+            box[:] = [min(box[0], bx0), min(box[1], by0), max(box[2], bx1), max(box[3], by1)]
+        label_box = {"fc": "white", "ec": "0.6", "lw": 0.4, "pad": 1.2, "alpha": 0.9}
+        outside = 0
+        for row in props.rows:
+            bx0, by0, bx1, by1 = sizes[row.name]
+            at = (row.x * k, row.y * k)
+            if min(bx1 - bx0, by1 - by0) > 0.12 * span:
+                ax.text(*at, row.name, ha="center", va="center", fontsize=7, zorder=6,
+                        bbox=label_box)  # fmt: skip
+                continue
+            # a thin part: label it outside the section with a leader, staggered upwards
+            outside += 1
+            side = 1 if at[0] >= (x0 + x1) / 2 else -1
+            spot = (
+                (x1 + 0.18 * span) if side > 0 else (x0 - 0.18 * span),
+                y1 + 0.06 * span * outside,
+            )
+            ax.annotate(
+                row.name, xy=at, xytext=spot, fontsize=7, zorder=6,
+                ha="left" if side > 0 else "right", va="center", bbox=label_box,
+                arrowprops={"arrowstyle": "-", "color": "0.4", "lw": 0.5},
+            )  # fmt: skip
 
     if dimensions:
         gap = 0.09 * span
