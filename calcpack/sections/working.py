@@ -134,7 +134,7 @@ def section_working(
     steps.append(table("x"))
     A = Derived("A", q(sum_A, 2), "area, Σ Aᵢ", ref="parts table", unit=u2)
     S_Ay = Derived(
-        "Sum_Ay", q(sum(r.A * r.y for r in rows), 3), "Σ Aᵢȳᵢ", ref="parts table", unit=u3,
+        "Sigma_Ay", q(sum(r.A * r.y for r in rows), 3), "Σ Aᵢȳᵢ", ref="parts table", unit=u3,
         latex=r"\Sigma A_i \bar{y}_i",
     )  # fmt: skip
     y_bar = Derived(
@@ -142,11 +142,11 @@ def section_working(
         ref="first moment of area",
     )  # fmt: skip
     S_Ix = Derived(
-        "Sum_Ix", q(sum(r.Ix for r in rows), 4), "Σ Īₓᵢ, own second moments", unit=u4,
+        "Sigma_Ix", q(sum(r.Ix for r in rows), 4), "Σ Īₓᵢ, own second moments", unit=u4,
         ref="parts table", latex=r"\Sigma \bar{I}_{x,i}",
     )  # fmt: skip
     S_Ady2 = Derived(
-        "Sum_Ady2", q(sum(r.A * r.dy**2 for r in rows), 4), "Σ Aᵢdᵢ²", unit=u4,
+        "Sigma_Ady2", q(sum(r.A * r.dy**2 for r in rows), 4), "Σ Aᵢdᵢ²", unit=u4,
         ref="parts table", latex=r"\Sigma A_i d_{i}^2",
     )  # fmt: skip
     I_x = Derived(
@@ -159,7 +159,7 @@ def section_working(
     if axes == "both":
         steps.append(table("y"))
         S_Ax = Derived(
-            "Sum_Ax", q(sum(r.A * r.x for r in rows), 3), "Σ Aᵢx̄ᵢ", ref="parts table", unit=u3,
+            "Sigma_Ax", q(sum(r.A * r.x for r in rows), 3), "Σ Aᵢx̄ᵢ", ref="parts table", unit=u3,
             latex=r"\Sigma A_i \bar{x}_i",
         )  # fmt: skip
         x_bar = Derived(
@@ -167,11 +167,11 @@ def section_working(
             ref="first moment of area",
         )  # fmt: skip
         S_Iy = Derived(
-            "Sum_Iy", q(sum(r.Iy for r in rows), 4), "Σ Īᵧᵢ", unit=u4, ref="parts table",
+            "Sigma_Iy", q(sum(r.Iy for r in rows), 4), "Σ Īᵧᵢ", unit=u4, ref="parts table",
             latex=r"\Sigma \bar{I}_{y,i}",
         )  # fmt: skip
         S_Adx2 = Derived(
-            "Sum_Adx2", q(sum(r.A * r.dx**2 for r in rows), 4), "Σ Aᵢdᵢ² (x distances)",
+            "Sigma_Adx2", q(sum(r.A * r.dx**2 for r in rows), 4), "Σ Aᵢdᵢ² (x distances)",
             unit=u4, ref="parts table", latex=r"\Sigma A_i d_{x,i}^2",
         )  # fmt: skip
         I_y = Derived(

@@ -61,7 +61,7 @@ def test_parts_table_lists_every_part_and_the_sums():
     assert tables[0].rows[-1][1] == pytest.approx(sum(r[1] for r in tables[0].rows[:-1]))
     text = block.text()
     assert "parallel-axis theorem" in text
-    assert "Sum_Ay/A" in text
+    assert "Σ_Ay/A" in text
 
 
 def test_working_shows_principal_axes_when_the_product_is_not_zero():
