@@ -23,11 +23,23 @@ _UNITS = {"SI": ("mm", "mm²", "mm³", "mm⁴"), "US": ("in", "in²", "in³", "i
 _PINT = {"SI": ("mm", "mm**2", "mm**3", "mm**4"), "US": ("inch", "inch**2", "inch**3", "inch**4")}
 
 
-def _system(system: str | None) -> str:
+def _system(system: str | None, sheet: Any = None) -> str:
     from calcpack.units import get_display, validate_display
 
     validate_display(system, None)
+    if system is None and sheet is not None:
+        return str(sheet.settings.system)
     return system or get_display().system
+
+
+def _finish(block: Block, sheet: Any) -> Block:
+    """Give the steps the sheet's display settings and add the block to it, if one is given."""
+    if sheet is not None:
+        for step in [block, *block.steps]:
+            if getattr(step, "settings", None) is None:
+                step.settings = sheet.settings
+        sheet.add(block)
+    return block
 
 
 def _num(value_si: float, power: int, system: str) -> Quantity:
@@ -40,6 +52,7 @@ def section_working(
     system: str | None = None,
     axes: str = "both",
     title: str | None = None,
+    sheet: Any = None,
 ) -> Block:
     """The parts table and the property working of a section.
 
@@ -48,6 +61,8 @@ def section_working(
         system: "SI" (mm) or "US" (in); default the global display setting.
         axes: "x" for the table about the x axis only, "both" to add the y-axis table.
         title: the block title (default: "Section properties: <name>").
+        sheet: a :class:`calcpack.working.Sheet`: its unit system and figures are used (unless
+            ``system`` is given) and the block is added to it.
 
     Returns:
         a :class:`calcpack.working.Block` to ``sheet.add(...)`` or display.
@@ -62,7 +77,7 @@ def section_working(
             value=axes,
             expected="'x' or 'both'",
         )
-    sysname = _system(system)
+    sysname = _system(system, sheet)
     L, L2, L3, L4 = _UNITS[sysname]
     u1, u2, u3, u4 = _PINT[sysname]
     rows = props.rows
@@ -255,7 +270,7 @@ def section_working(
                 ref="Cw = Iy h0²/4 (doubly symmetric I)",
             )
         )
-    return Block(steps=steps, title=title or f"Section properties: {name}")
+    return _finish(Block(steps=steps, title=title or f"Section properties: {name}"), sheet)
 
 
 def si_of(q: Quantity) -> float:
@@ -275,19 +290,19 @@ def _j_ref(props: SectionProperties) -> str:
     return "thin-walled open section, J = Σ b t³/3"
 
 
-def radius_working(r: RadiusOfGyration, *, system: str | None = None) -> Block:
+def radius_working(r: RadiusOfGyration, *, system: str | None = None, sheet: Any = None) -> Block:
     """Given k and A, derive I = k² A (the definition of the radius of gyration)."""
     from calcpack.working import Block, Derived, Given
 
-    sysname = _system(system)
+    sysname = _system(system, sheet)
     u1, u2, _, u4 = _PINT[sysname]
     k = Given("k", r.k, "radius of gyration", unit=u1)
     A = Given("A", r.A, "area", unit=u2)
     I = Derived("I", k**2 * A, "second moment of area", unit=u4, ref="I = k²A")
-    return Block(steps=[k, A, I], title="Second moment from the radius of gyration")
+    return _finish(Block(steps=[k, A, I], title="Second moment from the radius of gyration"), sheet)
 
 
-def region_working(r: RegionIntegrals, *, system: str | None = None) -> Block:
+def region_working(r: RegionIntegrals, *, system: str | None = None, sheet: Any = None) -> Block:
     """The integral forms for a region bounded by functions, with their exact values."""
     import sympy
 
@@ -334,7 +349,7 @@ def region_working(r: RegionIntegrals, *, system: str | None = None) -> Block:
             f"$I_y = I_{{y,0}} - A\\bar{{x}}^2 = {sympy.latex(ex['Iy'])}$ {unit}⁴"
         ),
     ]
-    sysname = _system(system)
+    sysname = _system(system, sheet)
     u1, u2, _, u4 = _PINT[sysname]
     lines += [
         Derived("A", r.A, "area", unit=u2, ref="∫ dA"),
@@ -343,4 +358,6 @@ def region_working(r: RegionIntegrals, *, system: str | None = None) -> Block:
         Derived("I_x", r.Ix, "about the centroidal x axis", unit=u4, ref="∫ y² dA − Aȳ²"),
         Derived("I_y", r.Iy, "about the centroidal y axis", unit=u4, ref="∫ x² dA − Ax̄²"),
     ]
-    return Block(steps=lines, title=f"Section properties by integration: {region.name}")
+    return _finish(
+        Block(steps=lines, title=f"Section properties by integration: {region.name}"), sheet
+    )

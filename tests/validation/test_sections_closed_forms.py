@@ -100,3 +100,16 @@ def test_polygon_agrees_with_composite_of_rectangles():
             getattr(parts, key).magnitude, rel=1e-9
         ), key
     assert poly.Ixy.magnitude == pytest.approx(parts.Ixy.magnitude, abs=1e-3)
+
+
+def test_i_section_first_moment_at_the_neutral_axis():
+    # Q_NA = bf tf (d - tf)/2 + tw (d/2 - tf)²/2 for a plate I (common practice); b = tw there
+    from calcpack.sections import ISection
+
+    d, bf, tf, tw = 400.0, 180.0, 14.0, 9.0
+    s = ISection(d=d * mm, bf=bf * mm, tf=tf * mm, tw=tw * mm)
+    want = bf * tf * (d - tf) / 2 + tw * (d / 2 - tf) ** 2 / 2
+    assert s.Q(y=d / 2 * mm).to("mm**3").magnitude == pytest.approx(want, rel=EXACT)
+    assert s.width_at(y=d / 2 * mm).to("mm").magnitude == pytest.approx(tw, rel=EXACT)
+    # Z = 2 Q_NA for a doubly symmetric section (common practice)
+    assert s.properties().Zx.to("mm**3").magnitude == pytest.approx(2 * want, rel=1e-9)

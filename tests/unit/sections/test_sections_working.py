@@ -110,3 +110,12 @@ def test_working_renders_html_and_latex():
     block = _chord().working()
     assert "cp-table" in block._repr_html_()
     assert r"\bar{y}" in block._repr_latex_()
+
+
+def test_working_with_a_sheet_uses_its_units_and_adds_the_block():
+    sheet = Sheet("S2", system="US", auto_display=False)
+    block = Rectangle(b=4 * ureg.inch, d=10 * ureg.inch).working(sheet=sheet)
+    assert sheet.steps[-1] is block
+    records = {r["name"]: r for r in block.records()["values"]}
+    assert records["I_x"]["unit"] == "in⁴"
+    assert all(step.settings is sheet.settings for step in block.steps)
