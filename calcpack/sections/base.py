@@ -65,10 +65,6 @@ class Section:
         """(Cw in m⁶, or None with the reason it is not available)."""
         return None, "no warping formula is coded for this kind of section"
 
-    @property
-    def title(self) -> str:
-        return self.name
-
     # -- shared behaviour -------------------------------------------------------------------
     @cached_property
     def _props(self) -> SectionProperties:

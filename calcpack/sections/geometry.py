@@ -29,6 +29,7 @@ __all__ = [
     "PolygonRegion",
     "Region",
     "arc_points",
+    "overlap_area",
     "self_intersection",
 ]
 
