@@ -1,6 +1,6 @@
 """Sections compared with an independent mesh-based section library.
 
-Source: R. van Leeuwen et al., *sectionproperties* (MIT licence, PyPI, version 3.x), a
+Source: *sectionproperties* (MIT licence, PyPI, version 3.x), an open-source
 finite-element cross-section analysis library, used here as a second independent reference.
 Its geometric properties integrate the mesh exactly for polygons, so straight-sided shapes agree
 to rounding; fillets use the same chord count on both sides. Note the library's naming:
