@@ -294,8 +294,24 @@ def _trust_words(status: Any, trusted: bool) -> str:
     return f"untrusted ({name.lower().replace('_', ' ') if name else 'no trust path'})"
 
 
+def _outside_validity(cert: Any, moment: dt.datetime) -> str | None:
+    validity = cert["tbs_certificate"]["validity"]
+    start, end = validity["not_before"].native, validity["not_after"].native
+    if moment > end:
+        return f"expired certificate (valid until {end:%Y-%m-%d %H:%M} UTC)"
+    if moment < start:
+        return f"certificate not yet valid (valid from {start:%Y-%m-%d %H:%M} UTC)"
+    return None
+
+
 def _signature_report(
-    sig: Any, signer_vc: Any, ts_vc: Any, later_roles: list[str], *, certification: bool
+    sig: Any,
+    signer_vc: Any,
+    ts_vc: Any,
+    later_roles: list[str],
+    *,
+    certification: bool,
+    at: dt.datetime | None,
 ) -> SignatureReport:
     from pyhanko.sign.validation import validate_pdf_signature
     from pyhanko.sign.validation.settings import KeyUsageConstraints
@@ -343,6 +359,12 @@ def _signature_report(
     ts_ok = ts is None or bool(ts.valid and ts.intact and ts.trusted)
     trusted = bool(status.trusted) and ts_ok
     trust = _trust_words(status, bool(status.trusted))
+    # A self-signed certificate given as its own trust root is a path of one trust anchor,
+    # which the path validator does not date-check; so check the signer's validity here.
+    moment = timestamp if (timestamp is not None and ts_ok) else (at or dt.datetime.now(dt.UTC))
+    outside = _outside_validity(sig.signer_cert, moment)
+    if outside and trusted:
+        trusted, trust = False, outside
     if not ts_ok:
         trust += "; timestamp NOT trusted"
     return SignatureReport(
@@ -428,7 +450,9 @@ def verify_package(
     for i, sig in enumerate(embedded):
         later = [role_of_field(s.field_name) or str(s.field_name) for s in embedded[i + 1 :]]
         reports.append(
-            _signature_report(sig, context(), context(), later, certification=i == 0 and certified)
+            _signature_report(
+                sig, context(), context(), later, certification=i == 0 and certified, at=at
+            )
         )
 
     problems: list[str] = []
