@@ -5,21 +5,25 @@ a quantity, has a status that moves open -> answered -> closed (and may be reope
 a history of who said what when. The checker's signature is refused while any comment is not
 closed, unless an explicit override is given; every override is recorded in the file.
 
-File layout (``review.toml``)::
+File layout (``review.toml``); ``by``, ``date`` and ``text`` are the opening entry, ``history``
+lists what followed::
 
-    [[comment]]
+    [[comments]]
     id = "C1"
     sheet = "sheets/02-lintel.ipynb"
     quantity = "M_max"
     status = "answered"
-
-    [[comment.history]]
-    when = "2026-03-02T10:14:00+00:00"
-    who = "T. Redfern"
-    action = "opened"
+    by = "T. Redfern"
+    date = "2026-03-02T10:14:00+00:00"
     text = "Check the load width used for w."
 
-    [[override]]
+    [[comments.history]]
+    when = "2026-03-03T09:01:00+00:00"
+    who = "I. Calloway"
+    action = "answered"
+    text = "Revised to 1.5 m."
+
+    [[overrides]]
     when = "..."
     who = "..."
     reason = "..."
@@ -138,23 +142,24 @@ class ReviewLog:
 
     def to_data(self) -> dict[str, Any]:
         """The log as plain data (the TOML file's content; also for the package manifest)."""
-        data: dict[str, Any] = {
-            "comment": [
-                {
-                    "id": c.id,
-                    "sheet": c.sheet,
-                    **({"quantity": c.quantity} if c.quantity else {}),
-                    "status": c.status,
-                    "history": [
-                        {"when": e.when, "who": e.who, "action": e.action, "text": e.text}
-                        for e in c.history
-                    ],
-                }
-                for c in self.comments
-            ]
-        }
+        comments = []
+        for c in self.comments:
+            opening, later = (c.history[0], c.history[1:]) if c.history else (None, ())
+            item: dict[str, Any] = {"id": c.id, "sheet": c.sheet}
+            if c.quantity:
+                item["quantity"] = c.quantity
+            item["status"] = c.status
+            if opening is not None:
+                item.update(by=opening.who, date=opening.when, text=opening.text)
+            if later:
+                item["history"] = [
+                    {"when": e.when, "who": e.who, "action": e.action, "text": e.text}
+                    for e in later
+                ]
+            comments.append(item)
+        data: dict[str, Any] = {"comments": comments}
         if self.overrides:
-            data["override"] = [
+            data["overrides"] = [
                 {"when": o.when, "who": o.who, "reason": o.reason, "comments": list(o.comments)}
                 for o in self.overrides
             ]
@@ -184,7 +189,7 @@ def _str(item: dict[str, Any], key: str, where: str) -> str:
 
 def _parse(data: dict[str, Any], source: str) -> ReviewLog:
     comments: list[Comment] = []
-    for i, item in enumerate(data.get("comment", [])):
+    for i, item in enumerate(data.get("comments", [])):
         where = f"{source}, comment {i + 1}"
         status = _str(item, "status", where)
         if status not in STATUSES:
@@ -194,7 +199,13 @@ def _parse(data: dict[str, Any], source: str) -> ReviewLog:
                 value=status,
                 expected=" | ".join(STATUSES),
             )
-        history = tuple(
+        opening = Entry(
+            when=_str(item, "date", where),
+            who=_str(item, "by", where),
+            action="opened",
+            text=_str(item, "text", where),
+        )
+        later = tuple(
             Entry(
                 when=_str(h, "when", where),
                 who=_str(h, "who", where),
@@ -203,6 +214,7 @@ def _parse(data: dict[str, Any], source: str) -> ReviewLog:
             )
             for h in item.get("history", [])
         )
+        history = (opening, *later)
         quantity = item.get("quantity")
         comments.append(
             Comment(
@@ -220,7 +232,7 @@ def _parse(data: dict[str, Any], source: str) -> ReviewLog:
             reason=_str(o, "reason", f"{source}, override"),
             comments=tuple(str(c) for c in o.get("comments", [])),
         )
-        for o in data.get("override", [])
+        for o in data.get("overrides", [])
     )
     return ReviewLog(comments=tuple(comments), overrides=overrides)
 

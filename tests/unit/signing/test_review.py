@@ -75,8 +75,20 @@ def test_review_file_is_plain_toml(project: Path) -> None:
     raw = (project / REVIEW_FILE).read_text(encoding="utf-8")
     assert raw.startswith("# Review comments")
     data = tomllib.loads(raw)
-    assert data["comment"][0]["sheet"] == "sheets/01-lintel.ipynb"
-    assert data["comment"][0]["history"][0]["text"] == "Line one.\nLine two."
+    assert data["comments"][0]["sheet"] == "sheets/01-lintel.ipynb"
+    assert data["comments"][0]["text"] == "Line one.\nLine two."
+    assert data["comments"][0]["by"] == "TR"
+    assert "history" not in data["comments"][0]  # nothing has happened since it was opened
+    answer_comment(project, "C1", text="Done.", who="IC")
+    data = tomllib.loads((project / REVIEW_FILE).read_text(encoding="utf-8"))
+    assert data["comments"][0]["history"] == [
+        {
+            "when": data["comments"][0]["history"][0]["when"],
+            "who": "IC",
+            "action": "answered",
+            "text": "Done.",
+        }
+    ]
     assert '"""' in raw  # multi-line text stays readable in a diff
     assert not [p for p in project.iterdir() if p.name.endswith(".tmp")]
 
@@ -97,7 +109,9 @@ def test_bad_inputs_name_what_is_wrong(project: Path) -> None:
 
 
 def test_malformed_review_file(project: Path) -> None:
-    (project / REVIEW_FILE).write_text('[[comment]]\nid = "C1"\nsheet = "s"\nstatus = "done"\n')
+    (project / REVIEW_FILE).write_text(
+        '[[comments]]\nid = "C1"\nsheet = "s"\nstatus = "done"\nby = "TR"\ndate = "x"\ntext = "?"\n'
+    )
     with pytest.raises(InputError, match="status = 'done'"):
         load_review(project)
     (project / REVIEW_FILE).write_text("[[comment]\n")
