@@ -404,7 +404,7 @@ def load_certificates(paths: Iterable[str | os.PathLike[str]]) -> list[Any]:
                 expected="a PEM or DER certificate file",
             )
         try:
-            loaded = list(load_certs_from_pemder([str(path)]))  # type: ignore[no-untyped-call]
+            loaded = list(load_certs_from_pemder([str(path)]))
         except (OSError, ValueError, TypeError) as exc:
             raise InputError(
                 f"Certificate file {str(path)!r} holds no readable certificate ({exc})",
@@ -486,10 +486,10 @@ def _load_pem_signer(path: Path, cert_path: Path, pw: bytes | None, extra: list[
             f"Could not open key file {str(path)!r}: wrong password, or not a private key"
         ) from None
     try:
-        cert = load_cert_from_pemder(str(cert_path))  # type: ignore[no-untyped-call]
+        cert = load_cert_from_pemder(str(cert_path))
     except (ValueError, TypeError) as exc:
         raise SigningError(f"Certificate file {str(cert_path)!r} is unreadable ({exc})") from None
-    store = SimpleCertificateStore()  # type: ignore[no-untyped-call]
+    store = SimpleCertificateStore()
     store.register_multiple(extra)
     return SimpleSigner(signing_cert=cert, signing_key=private, cert_registry=store)
 

@@ -78,7 +78,7 @@ def _embedded_files(reader: Any) -> dict[str, Any]:
 
     def walk(node: Any) -> None:
         if isinstance(node, generic.IndirectObject):
-            node = node.get_object()  # type: ignore[no-untyped-call]
+            node = node.get_object()
         names = node.get("/Names")
         if names is not None:
             items = list(names)

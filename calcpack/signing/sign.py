@@ -161,7 +161,7 @@ def _stamp_style(font: Path | None) -> Any:
         inner_content_layout=SimpleBoxLayoutRule(
             x_align=AxisAlignment.ALIGN_MIN,
             y_align=AxisAlignment.ALIGN_MID,
-            margins=Margins.uniform(6),  # type: ignore[no-untyped-call]
+            margins=Margins.uniform(6),
             inner_content_scaling=InnerScaling.SHRINK_TO_FIT,
         ),
     )
@@ -187,7 +187,7 @@ def _timestamper(url: str | None, timestamper: Any) -> Any:
         )
     from pyhanko.sign.timestamps.requests_client import RequestsHTTPTimeStamper
 
-    return RequestsHTTPTimeStamper(url, timeout=10)  # type: ignore[no-untyped-call]
+    return RequestsHTTPTimeStamper(url, timeout=10)
 
 
 @quiet_library_logs()
