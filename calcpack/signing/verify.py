@@ -227,19 +227,49 @@ def check_project_files(
 
 
 def _default_reproducer(project: Path) -> dict[str, Any]:
-    """Re-execute the project's notebooks through the package build and return its manifest."""
+    """Re-execute the project's notebooks (no execution cache) and return their records.
+
+    Uses ``calcpack.package.reproduce_manifest(project)`` when the build provides it, else
+    composes the build's own stages: ``load_project`` -> ``execute_sheets(use_cache=False)``
+    -> ``collect_records`` per executed notebook.
+
+    Raises:
+        VerificationError: the package build offers neither.
+    """
+    from calcpack import package
+
+    whole = getattr(package, "reproduce_manifest", None)
+    if whole is not None:
+        return dict(whole(project))
+    import importlib
+
     try:
-        from calcpack import package
-    except ImportError as exc:  # pragma: no cover - the subpackage always exists
-        raise VerificationError(f"--reproduce needs calcpack.package ({exc})") from exc
-    execute = getattr(package, "reproduce_manifest", None)
-    if execute is None:
+        import nbformat
+
+        # by name: the stages live in the build's modules, imported only when reproducing
+        execute_sheets = importlib.import_module("calcpack.package.execute").execute_sheets
+        load_project = importlib.import_module("calcpack.package.project").load_project
+        collect_records = importlib.import_module("calcpack.package.records").collect_records
+    except (ImportError, AttributeError) as exc:
         raise VerificationError(
             "--reproduce needs the package build's execution API "
-            "(calcpack.package.reproduce_manifest), which this version does not provide"
+            "(calcpack.package.reproduce_manifest, or load_project / execute_sheets / "
+            f"collect_records), which this version does not provide ({exc})"
+        ) from exc
+    loaded = load_project(project)
+    sheets = []
+    for item in execute_sheets(loaded, use_cache=False):
+        records = collect_records(nbformat.reads(item.notebook_json, as_version=4))
+        sheets.append(
+            {
+                "number": item.entry.number,
+                "title": item.entry.title,
+                "path": item.entry.path,
+                "values": list(records.values),
+                "checks": list(records.checks),
+            }
         )
-    result = execute(project)
-    return dict(result)
+    return {"format": "calcpack-manifest/1", "sheets": sheets}
 
 
 def _reproduce(
@@ -248,6 +278,10 @@ def _reproduce(
     from calcpack.signing.diff import diff_manifests
 
     fresh = (reproducer or _default_reproducer)(project)
+    titles = {s.get("path"): s.get("title") for s in manifest.get("sheets", [])}
+    for sheet in fresh.get("sheets", []):
+        if not sheet.get("title"):
+            sheet["title"] = titles.get(sheet.get("path"))
     diff = diff_manifests(manifest, fresh)
     return tuple(
         f"{c.sheet}: {c.kind} {c.name}: package {c.old or '-'}, now {c.new or '-'}"

@@ -9,6 +9,7 @@ import json
 import random
 import re
 import shutil
+import sys
 from pathlib import Path
 from typing import Any
 
@@ -248,5 +249,6 @@ def test_reproduce_without_the_build_api_says_what_is_missing(
     monkeypatch.delattr(calcpack.package, "reproduce_manifest", raising=False)
     copy = tmp_path / "p.pdf"
     shutil.copy(signed_package, copy)
+    monkeypatch.setitem(sys.modules, "calcpack.package.execute", None)  # no build stages
     with pytest.raises(VerificationError, match=r"calcpack\.package\.reproduce_manifest"):
         verify_package(copy, [demo.root], project=tmp_path, reproduce=True)
