@@ -11,7 +11,7 @@ from __future__ import annotations
 import math
 import os
 from collections.abc import Iterable
-from dataclasses import dataclass
+from dataclasses import dataclass, field, replace
 from typing import Any
 
 __all__ = ["Change", "ManifestDiff", "diff_manifests", "diff_packages"]
@@ -32,6 +32,8 @@ class Change:
         old: old value as displayed (``None`` when added).
         new: new value as displayed (``None`` when removed).
         verdict_changed: for checks, the verdict (OK / NOT OK / NOT COVERED) changed.
+        path: the sheet's notebook path (or other key) in the manifests, for the build to mark
+            changed sheets; not part of equality.
     """
 
     sheet: str
@@ -40,6 +42,7 @@ class Change:
     old: str | None
     new: str | None
     verdict_changed: bool = False
+    path: str | None = field(default=None, compare=False)
 
 
 @dataclass(frozen=True)
@@ -58,6 +61,13 @@ class ManifestDiff:
     def changed_sheets(self) -> tuple[str, ...]:
         """Sheets (as named in :attr:`Change.sheet`) with at least one change, in order."""
         return tuple(dict.fromkeys(c.sheet for c in self.changes))
+
+    def changed_paths(self) -> tuple[str, ...]:
+        """Notebook paths (manifest keys) of the sheets with a change, in order.
+
+        For the build: the sheets to mark as changed since the last issued revision.
+        """
+        return tuple(dict.fromkeys(c.path for c in self.changes if c.path is not None))
 
     def of_kind(self, kind: str) -> tuple[Change, ...]:
         """The changes of one kind (``"input"``, ``"result"``, ``"check"``, ``"sheet"``)."""
@@ -232,17 +242,20 @@ def diff_manifests(
     for key in [*new_sheets, *(k for k in old_sheets if k not in new_sheets)]:
         if key not in old_sheets:
             i, s = new_sheets[key]
-            changes.append(Change(_sheet_label(s, i), "sheet", "sheet added", None, key))
+            changes.append(Change(_sheet_label(s, i), "sheet", "sheet added", None, key, path=key))
             continue
         if key not in new_sheets:
             i, s = old_sheets[key]
-            changes.append(Change(_sheet_label(s, i), "sheet", "sheet removed", key, None))
+            changes.append(
+                Change(_sheet_label(s, i), "sheet", "sheet removed", key, None, path=key)
+            )
             continue
         i, sa = old_sheets[key]
         j, sb = new_sheets[key]
         label = _sheet_label(sb, j)
-        changes += _diff_values(label, sa.get("values", []), sb.get("values", []), rel_tol)
-        changes += _diff_checks(label, sa.get("checks", []), sb.get("checks", []), rel_tol)
+        found = _diff_values(label, sa.get("values", []), sb.get("values", []), rel_tol)
+        found += _diff_checks(label, sa.get("checks", []), sb.get("checks", []), rel_tol)
+        changes += [replace(c, path=key) for c in found]
 
     def revision(m: dict[str, Any]) -> str | None:
         rev = (m.get("project") or {}).get("revision")

@@ -58,6 +58,7 @@ def test_one_changed_input_lists_exactly_its_consequences() -> None:
         ),
     )
     assert diff.changed_sheets() == ("1 Lintel L1",)
+    assert diff.changed_paths() == ("sheets/01-lintel.ipynb",)
     table = diff.table()
     assert table.splitlines()[0] == "Revision A -> B"
     assert "check (verdict)" in table
