@@ -119,6 +119,40 @@ class IShape:
                 expected="Zx >= Sx",
             )
 
+    @classmethod
+    def from_section(cls, shape: Any, *, source: str = "", rolled: bool = True) -> IShape:
+        """The properties of a :class:`calcpack.sections.ISection` (computed by calcpack).
+
+        Raises:
+            OutOfScopeError: the I-section is not doubly symmetric (§F2 covers doubly symmetric
+                members only).
+        """
+        if not getattr(shape, "doubly_symmetric", False):
+            raise OutOfScopeError(
+                f"Section {getattr(shape, 'name', '') or 'I'} is not doubly symmetric: AISC "
+                "360-16 §F2 covers doubly symmetric I-shapes only (§F4/§F5 are not implemented)"
+            )
+        p = shape.properties()
+        name = getattr(shape, "name", "") or "I-section"
+        return cls(
+            name,
+            source or f"calcpack section properties of {name}",
+            d=shape.d,
+            bf=shape.bf,
+            tf=shape.tf,
+            tw=shape.tw,
+            h_tw=float((shape.h / shape.tw).to("").magnitude),
+            Ix=p.Ix,
+            Sx=p.Sx,
+            Zx=p.Zx,
+            Iy=p.Iy,
+            ry=p.ry,
+            J=p.J,
+            Cw=p.Cw,
+            h0=shape.h0,
+            rolled=rolled,
+        )
+
     @property
     def h0_value(self) -> Quantity:
         return self.h0 if self.h0 is not None else self.d - self.tf
@@ -330,7 +364,7 @@ class _Logic:
             "F_y",
             self.Fy,
             f"specified minimum yield stress{mat}",
-            source=self.material or None,
+            source=self.material or "input (steel grade not named)",
             unit="ksi",
         )
         E = c.given(
