@@ -449,6 +449,12 @@ class MemberChecks:
         self.logic(rec)
         return rec.steps
 
+    def add_to(self, sheet: Any) -> MemberChecks:
+        """Add the working to ``sheet`` step by step (so the sheet's summary sees each check)."""
+        for step in self.working(settings=getattr(sheet, "settings", None)):
+            sheet.add(step)
+        return self
+
     def records(self) -> list[Any]:
         """The checks as :class:`calcpack.working.CheckRecord` for the summary of checks."""
         return [r.record() for r in self.results]

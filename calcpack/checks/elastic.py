@@ -14,7 +14,7 @@ from typing import Any
 from calcpack.checks.base import MemberChecks, Recorder, Standard, run_checks
 from calcpack.checks.demand import as_combinations, max_abs
 from calcpack.errors import InputError
-from calcpack.units import Quantity, require
+from calcpack.units import Quantity, require, ureg
 
 __all__ = ["ELASTIC", "check_deflection", "check_elastic_beam"]
 
@@ -287,12 +287,16 @@ def check_deflection(
     assert best is not None
     dq, combo = best
 
+    # show the deflection in the span's family of units (inches for a span in feet)
+    us = any(span.units == ureg.Unit(u) for u in ("foot", "inch", "yard", "mile"))
+    dunit = "inch" if us else "mm"
+
     def logic(rec: Recorder) -> None:
         rec.heading(f"Deflection ({label})", 3)
-        d = rec.given("delta", dq, f"largest deflection ({label})", source=combo)
+        d = rec.given("delta", dq, f"largest deflection ({label})", source=combo, unit=dunit)
         Lh = rec.given("L_span", span, "span for the limit", source="geometry")
         n = rec.given("n_lim", float(limit), "deflection limit ratio", source=ref)
-        lim = rec.derive("delta_lim", Lh / n, f"limit span/{limit:g}", unit=str(dq.units), ref=ref)
+        lim = rec.derive("delta_lim", Lh / n, f"limit span/{limit:g}", unit=dunit, ref=ref)
         rec.check(f"Deflection ({label})", d, lim, ref=ref, combination=combo)
 
     return run_checks(member, f"{member}: deflection ({label})", ELASTIC, logic)

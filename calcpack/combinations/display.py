@@ -14,18 +14,40 @@ if TYPE_CHECKING:
 __all__ = ["combinations_working", "envelope_table"]
 
 
-def envelope_table(envelope: Envelope, caption: str = "Envelope over all combinations") -> Any:
+def _disp(q: Any, settings: Any) -> Any:
+    """``q`` in the display preset's unit for its dimension (sheet settings or global)."""
+    from calcpack.units import get_display
+
+    unit = (settings or get_display()).preset.unit_for(q)
+    return q.to(unit) if unit is not None else q
+
+
+def envelope_table(
+    envelope: Envelope, caption: str = "Envelope over all combinations", settings: Any = None
+) -> Any:
     """A table of the envelope: quantity, extreme value, where, governing combination."""
-    from calcpack.working import Table
+    from calcpack.units import get_display
+    from calcpack.working import Table, format_quantity_text
 
     rows = []
     for e in envelope.entries:
-        where = e.where or (f"x = {e.x:~.4g}" if e.x is not None else "")
-        rows.append([e.quantity, e.value, where, e.combination])
-    return Table(["Quantity", "Extreme", "Where", "Governing combination"], rows, caption=caption)
+        x = "" if e.x is None else f"x = {format_quantity_text(_disp(e.x, settings), 3)}"
+        value = _disp(e.value, settings)
+        if e.quantity.startswith("δ"):  # deflections in in or mm, not in the length unit
+            us = (settings.system if settings is not None else get_display().system) == "US"
+            value = e.value.to("inch" if us else "mm")
+        rows.append([e.quantity, value, e.where or x, e.combination])
+    return Table(
+        ["Quantity", "Extreme", "Where", "Governing combination"],
+        rows,
+        caption=caption,
+        settings=settings,
+    )
 
 
-def combinations_working(cr: CombinedResults, *, values: bool = True) -> list[Any]:
+def combinations_working(
+    cr: CombinedResults, *, values: bool = True, settings: Any = None
+) -> list[Any]:
     from calcpack.working import Caution, Heading, Table, Text
 
     cs = cr.combination_set
@@ -52,17 +74,14 @@ def combinations_working(cr: CombinedResults, *, values: bool = True) -> list[An
             vrows = []
             for name, r in cr.results.items():
                 ex = r.extremes
-                row: list[Any] = [
-                    name,
-                    ex.M_max.value,
-                    ex.M_min.value,
-                    ex.V_max.value,
-                    ex.V_min.value,
+                row: list[Any] = [name] + [
+                    _disp(v, settings)
+                    for v in (ex.M_max.value, ex.M_min.value, ex.V_max.value, ex.V_min.value)
                 ]
-                row += [rea.Fy for rea in r.reactions]
+                row += [_disp(rea.Fy, settings) for rea in r.reactions]
                 vrows.append(row)
             steps.append(Table(cols, vrows, caption="Factored results of each combination"))
-        steps.append(envelope_table(cr.envelope()))
+        steps.append(envelope_table(cr.envelope(), settings=settings))
     if cs.standard:
         steps.append(
             Caution(

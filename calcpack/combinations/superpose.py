@@ -157,6 +157,12 @@ class Envelope:
             expected="a quantity of the envelope",
         )
 
+    def table(self, caption: str = "Envelope over all combinations", settings: Any = None) -> Any:
+        """The envelope as a working table (quantity, extreme, where, governing combination)."""
+        from calcpack.combinations.display import envelope_table
+
+        return envelope_table(self, caption, settings)
+
     @property
     def quantities(self) -> tuple[str, ...]:
         return tuple(e.quantity for e in self.entries)
@@ -259,12 +265,23 @@ class CombinedResults:
         """Extremes over all combinations with the governing combination of each."""
         return _envelope(self.results)
 
-    def working(self, *, values: bool = True) -> list[Any]:
+    def working(self, *, values: bool = True, settings: Any = None) -> list[Any]:
         """The combinations used (clause, factors) and, if ``values``, the factored extremes of
-        each combination, as working steps for a sheet."""
+        each combination, as working steps for a sheet (``settings``: the sheet's display
+        settings, for the units shown)."""
         from calcpack.combinations.display import combinations_working
 
-        return combinations_working(self, values=values)
+        return combinations_working(self, values=values, settings=settings)
+
+    def add_to(self, sheet: Any, *, values: bool = True) -> CombinedResults:
+        """Add the combinations working to ``sheet`` step by step."""
+        _add_steps(self.working(values=values, settings=getattr(sheet, "settings", None)), sheet)
+        return self
+
+
+def _add_steps(steps: list[Any], sheet: Any) -> None:
+    for step in steps:
+        sheet.add(step)
 
 
 def analyse_combinations(
