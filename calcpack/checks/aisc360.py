@@ -249,7 +249,8 @@ def check_aisc_beam(
     cases: list[tuple[str, Any, float, float]] = []  # (combination, result, a_m, b_m)
     direct: dict[str, Any] | None = None
     if demand is not None:
-        combos = as_combinations(demand)
+        kinds = ("strength", "user") if method == "LRFD" else ("allowable stress", "user")
+        combos = as_combinations(demand, kinds=kinds, method=f"{AISC360_EDITION} {method}")
         first = next(iter(combos.values()))
         L_m = si(first.beam.length)
         if Lb is not None:

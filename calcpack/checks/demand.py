@@ -19,9 +19,25 @@ from calcpack.units import Q_, Quantity
 __all__ = ["SegmentMoments", "as_combinations", "max_abs", "segment_moments"]
 
 
-def as_combinations(demand: Any, name: str = "demand") -> dict[str, Any]:
-    """Combination name -> result, from a CombinedResults, a mapping, or one result."""
+def as_combinations(
+    demand: Any, name: str = "demand", *, kinds: tuple[str, ...] | None = None, method: str = ""
+) -> dict[str, Any]:
+    """Combination name -> result, from a CombinedResults, a mapping, or one result.
+
+    Args:
+        kinds: the combination-set kinds the check accepts (e.g. strength for LRFD); a
+            CombinedResults of another kind is refused, naming both.
+    """
     if hasattr(demand, "results") and hasattr(demand, "combination_set"):
+        kind = demand.combination_set.kind
+        if kinds is not None and kind not in kinds:
+            raise InputError(
+                f"{method} checks need {' or '.join(kinds)} combinations, but {name} comes from "
+                f"{demand.combination_set.name!r} ({kind})",
+                name=name,
+                value=demand.combination_set.name,
+                expected=" or ".join(kinds) + " combinations",
+            )
         return dict(demand.results)
     if isinstance(demand, Mapping):
         if not demand:

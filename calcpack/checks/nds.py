@@ -400,7 +400,9 @@ def check_nds_beam(
     """
     cond = conditions or ServiceConditions()
     durs = {**DEFAULT_DURATIONS, **dict(durations or {})}
-    combos = as_combinations(demand)
+    combos = as_combinations(
+        demand, kinds=("allowable stress", "user"), method=f"{NDS_EDITION} (ASD)"
+    )
     items: list[dict[str, Any]] = []
     for name, r in combos.items():
         cases = [c for c, f in getattr(r, "cases", ((name, 1.0),)) if f != 0.0]

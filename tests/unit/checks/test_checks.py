@@ -334,3 +334,34 @@ def test_summary_table_of_sheets_and_member_checks(steel_cases):
     assert flex[7].startswith("2a")
     with pytest.raises(InputError, match="summary"):
         summary_table([42])
+
+
+def test_design_method_and_combination_kind_must_match(steel_cases):
+    asd = analyse_combinations(steel_cases, asce7_allowable_stress())
+    with pytest.raises(InputError, match="LRFD checks need strength") as e:
+        check_aisc_beam(W18X50, Fy=50 * ksi, demand=asd, continuous_bracing=True)
+    assert e.value.name == "demand"
+    strength = analyse_combinations(_joist_results(), asce7_strength())
+    with pytest.raises(InputError, match="allowable stress"):
+        check_nds_beam(SawnMember.dimension("2x10"), DFL2, demand=strength)
+
+
+def test_every_step_renders_in_html_latex_and_text(steel_cases):
+    cr = analyse_combinations(steel_cases, asce7_strength())
+    steps = [
+        *cr.working(),
+        *check_aisc_beam(W18X50, Fy=50 * ksi, demand=cr, braces=[17.5 * ft]).working(),
+        *check_nds_beam(
+            SawnMember.dimension("2x12"), DFL2,
+            demand=analyse_combinations(_joist_results(), asce7_allowable_stress()),
+            conditions=ServiceConditions(compression_edge_braced=False, lu=6 * ft),
+        ).working(),
+        summary_table([]),
+    ]  # fmt: skip
+    for step in steps:
+        assert step.html()
+        assert step.latex()
+        assert step.text()
+    html = "".join(s.html() for s in steps)
+    assert "Eq. (F2-4)" in html
+    assert "Eq. (3.3-6)" in html
