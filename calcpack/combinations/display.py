@@ -45,6 +45,43 @@ def envelope_table(
     )
 
 
+def _factored_uniform_loads(cr: CombinedResults, settings: Any) -> list[list[Any]]:
+    """Rows "1.2(0.530 klf) + 1.6(1.50 klf) = 2.84 klf" when every case is uniform loads over
+    the whole beam; empty otherwise (other loads are shown by the beam's own working)."""
+    from calcpack.loads import AreaLoad, UniformLoad
+    from calcpack.working import format_quantity_text
+
+    w_case: dict[str, Any] = {}
+    for case, r in cr.case_results.items():
+        beam = getattr(r, "beam", None)
+        if beam is None:
+            return []
+        L_m = float(beam.length.to("m").magnitude)
+        total = None
+        for ld in beam.loads:
+            if ld.case != case:
+                continue
+            full = (
+                isinstance(ld, UniformLoad | AreaLoad)
+                and ld.a_m == 0.0
+                and (ld.end is None or abs(ld.b_m - L_m) <= 1e-9 * L_m)
+            )
+            if not full:
+                return []
+            total = ld.w if total is None else total + ld.w
+        if total is None:
+            return []
+        w_case[case] = _disp(total, settings)
+    rows = []
+    for c in cr.combinations:
+        terms = " + ".join(
+            f"{f:g}({format_quantity_text(w_case[k], 3)})" for k, f in c.factors.items()
+        )
+        w = sum((f * w_case[k] for k, f in c.factors.items()), 0 * next(iter(w_case.values())))
+        rows.append([c.name, f"{terms} = {format_quantity_text(w, 3)}"])
+    return rows
+
+
 def combinations_working(
     cr: CombinedResults, *, values: bool = True, settings: Any = None
 ) -> list[Any]:
@@ -67,6 +104,16 @@ def combinations_working(
     )
     if values and cr.results:
         first = next(iter(cr.results.values()))
+        loads_row = _factored_uniform_loads(cr, settings)
+        if loads_row:
+            steps.append(
+                Table(
+                    ["Combination", "Factored line load"],
+                    loads_row,
+                    caption="Factored uniform line loads (each case's full-length uniform loads)",
+                    settings=settings,
+                )
+            )
         if _is_beam(first):
             cols = ["Combination", "M_max", "M_min", "V_max", "V_min"]
             sup = [r.support for r in first.reactions]

@@ -163,3 +163,29 @@ def test_working_shows_each_combination_with_clause_and_caution():
     assert any(isinstance(s, Caution) and "ASCE/SEI 7-16" in s.body for s in steps)
     env = tables[-1]
     assert env.columns[-1] == "Governing combination"
+
+
+def test_factored_line_loads_are_shown():
+    from calcpack.working import Table
+
+    cr = analyse_combinations(solve_cases(_beam()), asce7_strength())
+    t = next(s for s in cr.working() if isinstance(s, Table) and "Factored line load" in s.columns)
+    # 1.2 × 2 + 1.6 × 3 = 7.2 kN/m
+    assert t.rows[1][1] == "1.2(2.00 kN/m) + 1.6(3.00 kN/m) = 7.20 kN/m"
+
+
+def test_en1990_and_asnzs_sets_on_a_beam():
+    from calcpack.combinations import asnzs1170_strength
+
+    r = solve_cases(_beam(("G", "Q", "W")))
+    cr = analyse_combinations(r, en1990_combinations(variable={"Q": "B", "W": "wind"}))
+    env = cr.envelope()
+    # w = 2, 3, 4 kN/m for G, Q, W: 6.10 with Q leading 1.35·2 + 1.5·3 + 0.9·4 = 10.8 kN/m;
+    # W leading 1.35·2 + 1.5·4 + 1.05·3 = 11.85 kN/m governs; M = wL²/8 on 4 m
+    assert env["M_max"].combination == "6.10 (W leading): 1.35G + 1.5W + 1.05Q"
+    assert env["M_max"].value.to("kN*m").magnitude == pytest.approx(11.85 * 2, rel=1e-9)
+    rz = solve_cases(_beam(("G", "Q", "Wu")))
+    cz = analyse_combinations(rz, asnzs1170_strength("office"))
+    assert cz.envelope()["M_max"].combination.startswith(
+        "d"
+    )  # 1.2G + Wu + 0.4Q = 7.6 kN/m > 1.2G + 1.5Q = 6.9 kN/m
