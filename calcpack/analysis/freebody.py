@@ -298,9 +298,9 @@ class FreeBody:
         return [ld for ld in self.loads if isinstance(ld, Couple)]
 
     def named_points(self) -> list[tuple[str, tuple[float, float]]]:
-        """Support points, then the extra named points, as (name, (x, y) in metres)."""
-        out = [(s.name, (si(s.x), si(s.y))) for s in self.supports]
-        out += [(n, (si(x), si(y))) for n, x, y in self.points]
+        """The extra named points, then the support points, as (name, (x, y) in metres)."""
+        out = [(n, (si(x), si(y))) for n, x, y in self.points]
+        out += [(s.name, (si(s.x), si(s.y))) for s in self.supports]
         return out
 
     def scale_m(self) -> float:
@@ -407,20 +407,17 @@ class FreeBodyResult:
             )
         return self.reactions[name]
 
-    def working(self) -> list[Any]:
-        """The free-body working: loads and resultants, each equation substituted and solved."""
+    def working(self) -> Any:
+        """The free-body working (a :class:`calcpack.working.Block`): loads and resultants,
+        each equation written, substituted and solved."""
         return free_body_working(self)
 
-    def _repr_html_(self) -> str:
-        from calcpack.analysis.truss_working import render_html
-
-        return render_html(self.working())
+    def _repr_mimebundle_(self, include: Any = None, exclude: Any = None) -> Any:
+        return self.working()._repr_mimebundle_(include, exclude)
 
     def text(self) -> str:
         """Plain-text working."""
-        from calcpack.analysis.truss_working import render_text
-
-        return render_text(self.working())
+        return str(self.working().text())
 
 
 def _diagnose(body: FreeBody, unknowns: Sequence[UnknownAction], rank: int) -> str:
@@ -476,6 +473,22 @@ def solve_free_body(body: FreeBody) -> FreeBodyResult:
         UnstableStructureError: the unknowns cannot hold the body (parallel, concurrent, too
             few), naming them.
     """
+    return _solve(body, partial=False)
+
+
+def solve_section(body: FreeBody) -> FreeBodyResult:
+    """Like :func:`solve_free_body`, for a part of a structure known to be in equilibrium
+    (a truss section): one to three unknowns, independent of each other.
+
+    Raises:
+        OutOfScopeError: more than three unknowns.
+        UnstableStructureError: the unknowns' lines of action make them dependent (e.g. three
+            cut members meeting at one point), naming them.
+    """
+    return _solve(body, partial=True)
+
+
+def _solve(body: FreeBody, *, partial: bool) -> FreeBodyResult:
     unknowns = body.unknowns()
     if len(unknowns) > 3:
         raise OutOfScopeError(
@@ -488,12 +501,18 @@ def solve_free_body(body: FreeBody) -> FreeBodyResult:
     sv = np.linalg.svd(C, compute_uv=False) if unknowns else np.zeros(0)
     scaled = np.abs(sv) / (float(sv[0]) if sv.size and sv[0] > 0 else 1.0)
     rank = int(np.sum(scaled > _RANK_REL))
-    if rank < 3:
+    part = ", ".join(u.name for u in unknowns) or body.name
+    if partial and (rank < len(unknowns) or not unknowns):
         raise UnstableStructureError(
-            _diagnose(body, unknowns, rank), part=", ".join(u.name for u in unknowns) or body.name
+            f"The unknowns {part} on {body.name} are not independent (rank {rank} of "
+            f"{len(unknowns)}: their lines of action are parallel or meet at one point), so "
+            "equilibrium of this free body cannot separate them; choose another cut",
+            part=part,
         )
+    if not partial and rank < 3:
+        raise UnstableStructureError(_diagnose(body, unknowns, rank), part=part)
     b = np.array(body.known_totals())
-    x = np.linalg.solve(C, -b)
+    x = np.linalg.lstsq(C, -b, rcond=None)[0]
     values = {u.name: float(v) for u, v in zip(unknowns, x, strict=True)}
     equations = _plan(body, unknowns, values)
     reactions: dict[str, Qty] = {}
@@ -539,10 +558,18 @@ def _terms(
             if Fx != 0 and abs(ry) > tiny:
                 out.append(EquationTerm(f"{f.label}_x" if both else f.label, False, -ry, Fx, True))
             continue
-        comp = Fx * dx + Fy * dy
-        if abs(comp) > 0:
-            label = f"{f.label}_{axis}" if both and axis else f.label
-            out.append(EquationTerm(label, False, 1.0, comp, False))
+        if axis:
+            comp = Fx if axis == "x" else Fy
+            if comp != 0:
+                label = f"{f.label}_{axis}" if both else f.label
+                out.append(EquationTerm(label, False, 1.0, comp, False))
+            continue
+        # An inclined direction: each component times its direction cosine.
+        for comp, cos, sub in ((Fx, dx, "x"), (Fy, dy, "y")):
+            if comp != 0 and abs(cos) > _GEOM_REL:
+                out.append(
+                    EquationTerm(f"{f.label}_{sub}" if both else f.label, False, cos, comp, False)
+                )
     if kind == "M":
         for c in body.couples():
             out.append(EquationTerm(c.label, False, 1.0, si(c.M), False))
@@ -601,13 +628,13 @@ def _plan(
 
     def force_eq(rest: list[UnknownAction]) -> EquilibriumEquation | None:
         forces = [u for u in rest if u.direction is not None]
-        options = [("Fx", (1.0, 0.0)), ("Fy", (0.0, 1.0))]
-        options += [("F", (-_dir(u)[1], _dir(u)[0])) for u in forces]
-        for kind, d in options:
+        perp = [("F", (-_dir(u)[1], _dir(u)[0]), u.name) for u in forces]
+        for kind, d, across in [("Fx", (1.0, 0.0), ""), ("Fy", (0.0, 1.0), ""), *perp]:
             live = [u for u in forces if abs(_dir(u)[0] * d[0] + _dir(u)[1] * d[1]) > _GEOM_REL]
             if len(live) == 1:
                 terms = _terms(body, unknowns, solved, kind, direction=d)
-                return EquilibriumEquation(kind, None, "", d, terms, (live[0].name,))
+                where = f"perpendicular to {across}" if kind == "F" else ""
+                return EquilibriumEquation(kind, None, where, d, terms, (live[0].name,))
         return None
 
     while remaining:
@@ -629,3 +656,172 @@ def _plan(
         solved.update({n: values[n] for n in choice.solves})
         remaining = [u for u in remaining if u.name not in choice.solves]
     return plan
+
+
+# -- working (built only when displayed) ------------------------------------------------------
+
+
+def _display(q: Qty) -> Qty:
+    from calcpack.units import get_display
+
+    unit = get_display().preset.unit_for(q)
+    return q.to(unit) if unit is not None else q
+
+
+def free_body_working(
+    result: FreeBodyResult,
+    *,
+    member_names: dict[str, str] | None = None,
+    tension_tol_N: float | None = None,
+) -> Any:
+    """The working of a free body as a :class:`calcpack.working.Block`: the loads (with the
+    resultants of distributed loads), then each equation symbolically and substituted, and the
+    unknown it gives.
+
+    Args:
+        result: the solved free body.
+        member_names: unknown name -> truss member name, for a section (the unknowns are then
+            described as member forces, tension positive, marked T or C).
+        tension_tol_N: forces below this (N) are called zero-force members.
+    """
+    from calcpack.working import Block, Derived, Equation, Given, Table, Term, Text, Unknown
+
+    body = result.body
+    members = member_names or {}
+    steps: list[Any] = [
+        Text(
+            "Sign convention: forces positive along +x (right) and +y (up), moments "
+            "counter-clockwise positive; each unknown is drawn in its positive sense."
+        )
+    ]
+    rows = []
+    for ld in body.loads:
+        if isinstance(ld, DistributedLoad):
+            L = math.hypot(si(ld.x2) - si(ld.x1), si(ld.y2) - si(ld.y1)) * ureg.m
+            Lg = Given(f"L_{ld.label}", _display(L), f"length of {ld.label}")
+            w1 = Given(
+                f"{ld.label}_1" if ld.w2 is not None else ld.label,
+                ld.w1,
+                f"intensity of {ld.label}" + (" at its start" if ld.w2 is not None else ""),
+            )
+            if ld.w2 is None:
+                W = Derived(f"W_{ld.label}", w1 * Lg, f"resultant of {ld.label}")
+                a = Derived(f"a_{ld.label}", Lg / 2, "resultant's distance from the start")
+                steps += [Lg, w1, W, a]
+            else:
+                w2 = Given(f"{ld.label}_2", ld.w2, f"intensity of {ld.label} at its end")
+                W = Derived(f"W_{ld.label}", (w1 + w2) / 2 * Lg, f"resultant of {ld.label}")
+                a = Derived(
+                    f"a_{ld.label}",
+                    Lg * (w1 + 2 * w2) / ((w1 + w2) * 3),
+                    "resultant's distance from the start (centroid of the trapezoid)",
+                )
+                steps += [Lg, w1, w2, W, a]
+    for f in body.point_loads():
+        rows.append([f.label, _display(f.x), _display(f.y), _display(f.Fx), _display(f.Fy)])
+    for c in body.couples():
+        rows.append([c.label, "", "", f"couple {_display(c.M):~P}", ""])
+    if rows:
+        steps.append(
+            Table(["Load", "x", "y", "Fx", "Fy"], rows, caption=f"Known loads on {body.name}")
+        )
+    known_values: dict[str, Any] = {}
+    for f in body.point_loads():
+        fx, fy = f.Fx, f.Fy
+        both = fx.magnitude != 0 and fy.magnitude != 0
+        if both:
+            known_values[f"{f.label}_x"] = Given(f"{f.label}_x", _display(fx), f"{f.label}, x")
+            known_values[f"{f.label}_y"] = Given(f"{f.label}_y", _display(fy), f"{f.label}, y")
+        known_values[f.label] = Given(f.label, _display(fy if fy.magnitude != 0 else fx), f.label)
+    for c in body.couples():
+        known_values[c.label] = Given(c.label, _display(c.M), c.label)
+    unknown_terms = {u.name: Unknown(u.name) for u in result.unknowns}
+    solved: dict[str, Any] = {}
+
+    def term_of(t: EquationTerm, kind: str) -> Term:
+        if t.unknown:
+            base: Term = unknown_terms[t.name]
+        elif t.name in solved:
+            base = solved[t.name]
+        elif t.name in known_values:
+            base = known_values[t.name]
+        else:
+            base = Given(t.name, _display((t.value or 0.0) * ureg.N), t.name)
+        if kind == "M" and t.lever:
+            out: Term = base * _display(t.factor * ureg.m)
+            return out
+        if t.factor == 1.0:
+            return base
+        if t.factor == -1.0:
+            return -base
+        return base * t.factor
+
+    def describe(name: str, value: Qty) -> str:
+        if name in members:
+            f = float(value.to("N").magnitude)
+            tol = tension_tol_N if tension_tol_N is not None else 0.0
+            nat = (
+                "zero-force member"
+                if abs(f) <= tol
+                else "tension (T)"
+                if f > 0
+                else "compression (C)"
+            )
+            return f"force in member {members[name]}: {nat}"
+        return f"{'moment' if name.startswith('M_') else 'reaction'} {name}"
+
+    for eq in result.equations:
+        parts = [term_of(t, eq.kind) for t in eq.terms]
+        if not parts:
+            continue
+        lhs = parts[0]
+        for p in parts[1:]:
+            lhs = lhs + p
+        if eq.kind == "M":
+            label = (
+                rf"\Sigma M_{{{eq.point_name if not eq.point_name.startswith('O ') else 'O'}}} = 0"
+            )
+            where = ""
+            if eq.point_name.startswith("O ") and eq.point is not None:
+                where = (
+                    f"O = ({_display(eq.point[0] * ureg.m):.3g~P}, "
+                    f"{_display(eq.point[1] * ureg.m):.3g~P}), " + eq.point_name[2:].strip("()")
+                )
+            desc = "moments about " + (where or f"{eq.point_name}")
+        elif eq.kind == "F" and eq.direction is not None:
+            label = r"\Sigma F_{\perp} = 0"
+            desc = f"forces resolved {eq.point_name}" if eq.point_name else "forces resolved"
+        else:
+            label = rf"\Sigma F_{eq.kind[1]} = 0"
+            desc = ""
+        steps.append(Equation(lhs, 0, label=label, description=desc))
+        if len(eq.solves) == 1:
+            target = eq.solves[0]
+            own = next(t for t in eq.terms if t.unknown and t.name == target)
+            rest_terms = [term_of(t, eq.kind) for t in eq.terms if t is not own]
+            value = result.reactions[target]
+            if rest_terms:
+                rest = rest_terms[0]
+                for p in rest_terms[1:]:
+                    rest = rest + p
+                coef: Any = (
+                    _display(own.factor * ureg.m) if (eq.kind == "M" and own.lever) else own.factor
+                )
+                formula: Any = -rest if coef == 1.0 else rest if coef == -1.0 else -rest / coef
+            else:
+                formula = 0.0 * value
+            d = Derived(target, formula, describe(target, value), note=f"from ${label}$")
+            steps.append(d)
+            solved[target] = d
+    group = [n for eq in result.equations if len(eq.solves) > 1 for n in eq.solves]
+    for name in dict.fromkeys(group):
+        value = result.reactions[name]
+        d = Derived(
+            name,
+            _display(value),
+            describe(name, value),
+            note="from the equations above, solved together",
+        )
+        steps.append(d)
+        solved[name] = d
+    return Block(steps=steps, title=f"Free body: {body.name}")

@@ -234,7 +234,7 @@ class Truss:
 
         def ea_for(member: str) -> Qty | None:
             if EA is None or is_quantity(EA):
-                return EA  # type: ignore[return-value]
+                return EA
             assert isinstance(EA, Mapping)
             return EA.get(member)
 

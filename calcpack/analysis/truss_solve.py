@@ -356,15 +356,17 @@ class TrussResult:
 
     # -- display and working (built lazily) -----------------------------------------------
 
-    def working(self) -> list[Any]:
-        """Summary working steps: determinacy, reactions and the member force table."""
+    def working(self) -> Any:
+        """Summary working (a :class:`calcpack.working.Block`): determinacy, reactions, the
+        member force table with T/C, zero-force members, the stiffness cross-check."""
         from calcpack.analysis.truss_working import summary_working
 
         return summary_working(self)
 
-    def joint_working(self, node: str) -> list[Any]:
-        """The method of joints at ``node``: ΣFx = 0 and ΣFy = 0 with direction cosines,
-        members found at earlier joints substituted, solved for the rest."""
+    def joint_working(self, node: str) -> Any:
+        """The method of joints at ``node`` (a Block): ΣFx = 0 and ΣFy = 0 with direction
+        cosines, members found at earlier joints (in :meth:`joint_order`) substituted, solved
+        for the rest."""
         from calcpack.analysis.truss_working import joint_working
 
         return joint_working(self, node)
@@ -376,15 +378,16 @@ class TrussResult:
 
         return joint_order(self)
 
-    def section_working(self, cut: list[str], *, keep: str | None = None) -> list[Any]:
-        """The method of sections through the members ``cut`` (at most three), with the free
-        body on the side holding node ``keep`` (default: the side with fewer loads)."""
+    def section_working(self, cut: list[str], *, keep: str | None = None) -> Any:
+        """The method of sections through the members ``cut`` (one to three), with the free
+        body on the side holding node ``keep`` (default: the side with fewer loads and
+        supports): moments about where two cut members meet, ΣF for parallel ones."""
         from calcpack.analysis.truss_working import section_working
 
         return section_working(self, cut, keep=keep)
 
-    def reactions_working(self) -> list[Any]:
-        """The whole truss as a free body: reactions from ΣFx, ΣFy and ΣM."""
+    def reactions_working(self) -> Any:
+        """The whole truss as a free body (a Block): reactions from ΣM, ΣFx and ΣFy."""
         from calcpack.analysis.truss_working import reactions_working
 
         return reactions_working(self)
@@ -396,21 +399,12 @@ class TrussResult:
 
         return TrussDiagram(self, **options)
 
-    def _repr_html_(self) -> str:
-        from calcpack.analysis.truss_working import render_html
-
-        return render_html(self.working())
-
-    def _repr_latex_(self) -> str:
-        from calcpack.analysis.truss_working import render_latex
-
-        return render_latex(self.working())
+    def _repr_mimebundle_(self, include: Any = None, exclude: Any = None) -> Any:
+        return self.working()._repr_mimebundle_(include, exclude)
 
     def text(self) -> str:
         """A plain-text summary of the working."""
-        from calcpack.analysis.truss_working import render_text
-
-        return render_text(self.working())
+        return str(self.working().text())
 
 
 def _stiffness(truss: Truss, p: FloatArray) -> tuple[FloatArray, FloatArray, FloatArray]:
@@ -538,6 +532,10 @@ def _result(
     u: FloatArray | None,
     check: float | None,
 ) -> TrussResult:
+    # Round-off zeros (1e-15 of the loads) are stored as exact zeros so they show as 0.
+    scale = max(float(np.max(np.abs(p), initial=0.0)), float(np.max(np.abs(N), initial=0.0)))
+    N = np.where(np.abs(N) <= 1e-11 * scale, 0.0, N)
+    R = np.where(np.abs(R) <= 1e-11 * scale, 0.0, R)
     kN = ureg.kN
     forces = {m.name: (float(N[k]) / 1e3) * kN for k, m in enumerate(truss.members)}
     reactions = {
