@@ -88,3 +88,22 @@ def test_us_units_give_the_same_forces(truss: Truss) -> None:
     )
     a, b = solve_truss(truss), solve_truss(us)
     assert np.allclose(a.forces_N(), b.forces_N(), rtol=0, atol=1e-9 * scale_of(truss))
+
+
+@settings(max_examples=8, deadline=None)
+@given(parallel_chord_truss())
+def test_joint_working_reproduces_the_solver(truss: Truss) -> None:
+    from calcpack.working import Derived
+
+    r = solve_truss(truss)
+    scale = max(float(np.max(np.abs(r.forces_N()))), 1.0) / 1e3  # kN
+    symbol = {f"F_{mb.name}": mb.name for mb in truss.members}
+    seen = set()
+    for node in r.joint_order():
+        for step in r.joint_working(node).steps:
+            if isinstance(step, Derived) and step.name in symbol:
+                name = symbol[step.name]
+                got = step.quantity.to("kN").magnitude
+                assert abs(got - r.force(name).to("kN").magnitude) <= 1e-9 * scale
+                seen.add(name)
+    assert seen == set(symbol.values())
