@@ -514,7 +514,7 @@ def _solve(body: FreeBody, *, partial: bool) -> FreeBodyResult:
     b = np.array(body.known_totals())
     x = np.linalg.lstsq(C, -b, rcond=None)[0]
     values = {u.name: float(v) for u, v in zip(unknowns, x, strict=True)}
-    equations = _plan(body, unknowns, values)
+    equations = _plan(body, unknowns, values, moments_first=partial)
     reactions: dict[str, Qty] = {}
     for u in unknowns:
         q = values[u.name] * (ureg.N if u.direction is not None else ureg.N * ureg.m)
@@ -604,10 +604,16 @@ def _moment_points(
 
 
 def _plan(
-    body: FreeBody, unknowns: list[UnknownAction], values: dict[str, float]
+    body: FreeBody,
+    unknowns: list[UnknownAction],
+    values: dict[str, float],
+    *,
+    moments_first: bool = False,
 ) -> list[EquilibriumEquation]:
     """Choose the equations in the order an engineer would take them: with three unknowns
-    left, moments about where two of them meet; then force sums that hold one unknown."""
+    left, moments about where two unknown lines meet; then force sums that hold one unknown.
+    With ``moments_first`` (a truss section) moments are preferred throughout: about where two
+    cut members meet, ΣF only for parallel ones."""
     tiny = _GEOM_REL * body.scale_m()
     named = body.named_points()
     remaining = list(unknowns)
@@ -615,8 +621,9 @@ def _plan(
     solved: dict[str, float] = {}
 
     def moment_eq(rest: list[UnknownAction]) -> EquilibriumEquation | None:
-        forces = [u for u in rest if u.direction is not None]
-        points = _moment_points(forces, named, tiny)
+        # Crossings of any two unknown lines (found ones too: moments about where a found
+        # member meets an unknown one leave the other unknown alone).
+        points = _moment_points([u for u in unknowns if u.direction is not None], named, tiny)
         if len(rest) == 1 and rest[0].direction is None:
             points = [(named[0][1], named[0][0])] if named else [((0.0, 0.0), "origin")]
         for p, pname in points:
@@ -629,16 +636,23 @@ def _plan(
     def force_eq(rest: list[UnknownAction]) -> EquilibriumEquation | None:
         forces = [u for u in rest if u.direction is not None]
         perp = [("F", (-_dir(u)[1], _dir(u)[0]), u.name) for u in forces]
+        best: EquilibriumEquation | None = None
         for kind, d, across in [("Fx", (1.0, 0.0), ""), ("Fy", (0.0, 1.0), ""), *perp]:
             live = [u for u in forces if abs(_dir(u)[0] * d[0] + _dir(u)[1] * d[1]) > _GEOM_REL]
             if len(live) == 1:
                 terms = _terms(body, unknowns, solved, kind, direction=d)
                 where = f"perpendicular to {across}" if kind == "F" else ""
-                return EquilibriumEquation(kind, None, where, d, terms, (live[0].name,))
-        return None
+                eq = EquilibriumEquation(kind, None, where, d, terms, (live[0].name,))
+                # Of the sums that isolate one unknown, take the one with the fewest forces
+                # found earlier in it (ΣFy for the diagonal between parallel chords).
+                if best is None or sum(t.name in solved for t in eq.terms) < sum(
+                    t.name in solved for t in best.terms
+                ):
+                    best = eq
+        return best
 
     while remaining:
-        if len(remaining) >= 3:
+        if len(remaining) >= 3 or moments_first:
             choice = moment_eq(remaining) or force_eq(remaining)
         else:
             choice = force_eq(remaining) or moment_eq(remaining)

@@ -251,6 +251,13 @@ class Truss:
         """The same truss carrying ``loads`` instead of its own."""
         return Truss(self.nodes, self.members, self.supports, tuple(loads), self.name)
 
+    def diagram(self, **options: Any) -> Any:
+        """The truss drawn to scale with its supports and loads (a
+        :class:`calcpack.plots.truss.TrussDiagram`, shown inline as SVG)."""
+        from calcpack.plots.truss import TrussDiagram
+
+        return TrussDiagram(self, **options)
+
     # -- lookups --------------------------------------------------------------------------
 
     @cached_property

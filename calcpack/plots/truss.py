@@ -225,6 +225,8 @@ class TrussDiagram:
         length: float,
         colour: str,
         text: str,
+        *,
+        label_at_tip: bool = False,
     ) -> None:
         tail = (tip[0] - d[0] * length, tip[1] - d[1] * length)
         ax.annotate(
@@ -234,12 +236,17 @@ class TrussDiagram:
             zorder=4,
             arrowprops={"arrowstyle": "-|>", "color": colour, "lw": 1.6},
         )
-        ha = "right" if d[0] > 0.5 else "left" if d[0] < -0.5 else "center"
-        va = "top" if d[1] > 0.5 else "bottom" if d[1] < -0.5 else "center"
-        at = (tail[0] - d[0] * 0.05 * length, tail[1] - d[1] * 0.05 * length)
+        # The label sits beyond the arrow's outer end, on the side away from the joint.
+        out = (-d[0], -d[1]) if not label_at_tip else d
+        end = tail if not label_at_tip else tip
+        ha = "right" if out[0] < -0.5 else "left" if out[0] > 0.5 else "center"
+        va = "top" if out[1] < -0.5 else "bottom" if out[1] > 0.5 else "center"
+        at = (end[0] + out[0] * 0.05 * length, end[1] + out[1] * 0.05 * length)
         ax.text(at[0], at[1], text, fontsize=7, color=colour, ha=ha, va=va, zorder=6)
-        # Annotations do not widen the axes; the arrow's tail and label must stay in view.
-        ax.update_datalim([tail, (at[0] - d[0] * 0.3 * length, at[1] - d[1] * 0.3 * length)])
+        # Annotations do not widen the axes; the arrow's ends and label must stay in view.
+        ax.update_datalim(
+            [tail, tip, (at[0] + out[0] * 0.3 * length, at[1] + out[1] * 0.3 * length)]
+        )
 
     def _loads(self, ax: Any, arrow: float) -> None:
         truss = self.truss
@@ -252,14 +259,22 @@ class TrussDiagram:
                 continue
             d = (fx / mag, fy / mag)
             value = self._kN_to_unit(mag / 1e3)
-            self._arrow(
-                ax,
-                (float(xy[i, 0]), float(xy[i, 1])),
-                d,
-                arrow,
-                _LOAD,
-                _fmt_force(value, self.force_unit, self.sig),
+            node = (float(xy[i, 0]), float(xy[i, 1]))
+            # Draw the arrow on the outside of the truss: ending at the joint (pushing) when
+            # its tail then lies away from the centre, else leaving the joint (pulling, e.g.
+            # a load hung under the bottom chord).
+            cx, cy = (float(v) for v in xy.mean(axis=0))
+            push_tail = (node[0] - d[0] * arrow, node[1] - d[1] * arrow)
+            pull_tip = (node[0] + d[0] * arrow, node[1] + d[1] * arrow)
+            pulling = (
+                math.hypot(pull_tip[0] - cx, pull_tip[1] - cy)
+                > math.hypot(push_tail[0] - cx, push_tail[1] - cy) + 1e-9 * arrow
             )
+            if pulling:
+                text = _fmt_force(value, self.force_unit, self.sig)
+                self._arrow(ax, pull_tip, d, arrow, _LOAD, text, label_at_tip=True)
+                continue
+            self._arrow(ax, node, d, arrow, _LOAD, _fmt_force(value, self.force_unit, self.sig))
 
     def _reactions(self, ax: Any, arrow: float) -> None:
         if self.result is None:
