@@ -37,6 +37,7 @@ __all__ = ["STYLE", "mimebundle", "step_html", "step_latex", "step_text"]
 STYLE = """<style class="cp-style">
 .cp-step{display:grid;grid-template-columns:minmax(8em,22%) 1fr minmax(6em,18%);gap:0 1em;
 align-items:baseline;padding:.15em 0;border-bottom:1px dotted #c8ccd2;font-size:0.95em}
+.cp-body mjx-container[display="true"]{text-align:left!important;margin:.2em 0!important}
 .cp-desc{color:#333}.cp-ref{color:#555;font-size:.85em;text-align:right}
 .cp-src{color:#666;font-size:.85em}.cp-note{color:#555;font-size:.85em;font-style:italic}
 .cp-verdict{font-weight:bold;padding:0 .4em;border:1.5px solid;border-radius:2px}
