@@ -608,7 +608,9 @@ def combine_results(
     )
 
 
-def zero_force_by_inspection(truss: Truss, case: str | None = None) -> dict[str, str]:
+def zero_force_by_inspection(
+    truss: Truss, case: str | None = None, *, result: TrussResult | None = None
+) -> dict[str, str]:
     """Zero-force members found by the two rules of inspection, applied repeatedly.
 
     1. At an unloaded, unsupported joint with two non-collinear members, both carry no force.
@@ -617,10 +619,15 @@ def zero_force_by_inspection(truss: Truss, case: str | None = None) -> dict[str,
 
     Members found zero are then ignored at their other joints, and the rules applied again.
 
+    Args:
+        truss: the truss.
+        case: the load case whose loaded joints count (None: every load).
+        result: alternatively, a result (e.g. a combination) whose applied loads count.
+
     Returns:
         member name -> the reason, e.g. ``"joint F: two non-collinear members, no load"``.
     """
-    p = truss.load_vector(case)
+    p = result.loads_N() if result is not None else truss.load_vector(case)
     loaded = {
         n.name for i, n in enumerate(truss.nodes) if abs(p[2 * i]) > 0 or abs(p[2 * i + 1]) > 0
     }

@@ -138,7 +138,7 @@ def summary_working(result: TrussResult) -> Block:
         )
     )
     zero = result.zero_force_members
-    rules = zero_force_by_inspection(truss, None)
+    rules = zero_force_by_inspection(truss, result=result)
     if zero:
         why = "; ".join(f"{m} ({rules[m]})" if m in rules else m for m in zero)
         steps.append(Text(f"Zero-force members under this loading: {why}."))
@@ -313,7 +313,7 @@ def joint_working(result: TrussResult, node: str) -> Block:
         if first != node and first in earlier:
             v = Given(sym, _disp(result.forces[m.name]), f"force in {m.name}, from joint {first}")
             entries.append((m.name, v, c, False))
-            notes.append(f"${v.latex_symbol}$ = {v.result_text()} (joint {first})")
+            notes.append(f"{v.text_symbol} = {v.result_text()} (joint {first})")
         else:
             entries.append((m.name, Unknown(sym, unit="kN"), c, True))
         del k
@@ -324,7 +324,7 @@ def joint_working(result: TrussResult, node: str) -> Block:
         if known_reactions or node in earlier:
             v = Given(name, _disp(r.value), f"reaction {r.name}")
             entries.append((r.name, v, r.direction, False))
-            notes.append(f"${v.latex_symbol}$ = {v.result_text()} (reactions)")
+            notes.append(f"{v.text_symbol} = {v.result_text()} (reactions)")
         else:
             entries.append((r.name, Unknown(name, unit="kN"), r.direction, True))
     fx, fy = result.applied[node]
@@ -350,7 +350,7 @@ def joint_working(result: TrussResult, node: str) -> Block:
             )
             entries[entries.index(e)] = (e[0], v, e[2], False)
             notes.append(
-                f"${v.latex_symbol}$ = {v.result_text()} (joint equations solved "
+                f"{v.text_symbol} = {v.result_text()} (joint equations solved "
                 "together: no joint is left with two unknowns)"
             )
         unknown = unknown[:2]
