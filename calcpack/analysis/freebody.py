@@ -412,6 +412,13 @@ class FreeBodyResult:
         each equation written, substituted and solved."""
         return free_body_working(self)
 
+    def sketch(self, **options: Any) -> Any:
+        """A sketch of the free body with its loads and reactions (a
+        :class:`calcpack.plots.truss.FreeBodySketch`, shown inline as SVG)."""
+        from calcpack.plots.truss import FreeBodySketch
+
+        return FreeBodySketch(self, **options)
+
     def _repr_mimebundle_(self, include: Any = None, exclude: Any = None) -> Any:
         return self.working()._repr_mimebundle_(include, exclude)
 

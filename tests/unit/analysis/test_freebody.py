@@ -143,3 +143,17 @@ def test_bad_inputs_name_themselves() -> None:
         DistributedLoad(0 * m, 0 * m, 1 * m, 0 * m, 2 * kN)
     with pytest.raises(InputError, match="used twice"):
         beam(BodySupport("A", 0 * m, 0 * m), BodySupport("A", 1 * m, 0 * m))
+
+
+def test_sketch_is_svg_with_reaction_labels() -> None:
+    r = solve_free_body(
+        beam(
+            BodySupport("A", 0 * m, 0 * m, "pin"),
+            BodySupport("B", 6 * m, 0 * m, "roller", 30 * deg),
+        )
+    )
+    svg = r.sketch().svg()
+    assert svg.lstrip().startswith("<?xml")
+    # matplotlib writes each text's string as an SVG comment beside its glyphs.
+    assert "<!-- R_B = 9.81 kN -->" in svg
+    assert "<!-- R_Ay = 13.5 kN -->" in svg
