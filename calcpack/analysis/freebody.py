@@ -23,11 +23,14 @@ from __future__ import annotations
 import math
 from collections.abc import Sequence
 from dataclasses import dataclass, field
-from typing import Any, Literal
+from typing import TYPE_CHECKING, Any, Literal
 
 import numpy as np
 
 from calcpack.analysis.truss_model import FloatArray, Qty
+
+if TYPE_CHECKING:
+    from calcpack.analysis.freebody_plan import EquilibriumEquation
 from calcpack.errors import InputError, OutOfScopeError, UnstableStructureError
 from calcpack.units import require, si, ureg
 
@@ -35,8 +38,6 @@ __all__ = [
     "BodySupport",
     "Couple",
     "DistributedLoad",
-    "EquationTerm",
-    "EquilibriumEquation",
     "FreeBody",
     "FreeBodyResult",
     "PointForce",
@@ -338,47 +339,6 @@ def line_intersection(
     return p1[0] + t * d1[0], p1[1] + t * d1[1]
 
 
-@dataclass(frozen=True)
-class EquationTerm:
-    """One term of an equilibrium equation, for the working.
-
-    Attributes:
-        name: the unknown's name, or the load's label.
-        unknown: True for an unknown (value None), False for a known load.
-        factor: the multiplier: a direction cosine (force equations) or a signed lever arm in
-            metres (moment equations; 1 for a couple or an unknown moment).
-        value: the known force (N) or couple (N·m); None for an unknown.
-        lever: True when ``factor`` is a lever arm in metres.
-    """
-
-    name: str
-    unknown: bool
-    factor: float
-    value: float | None
-    lever: bool
-
-
-@dataclass(frozen=True)
-class EquilibriumEquation:
-    """One equilibrium equation as taken, with the unknown it gives.
-
-    Attributes:
-        kind: ``"Fx"``, ``"Fy"``, ``"F"`` (along ``direction``) or ``"M"`` (about ``point``).
-        point: the moment point (x, y) in metres, for ``"M"``.
-        point_name: the moment point's name, or a description of where it is.
-        direction: the unit direction of a ``"F"`` equation.
-        terms: the terms, unknowns and known loads.
-        solves: the unknown(s) this equation (or group of equations) gives.
-    """
-
-    kind: str
-    point: tuple[float, float] | None
-    point_name: str
-    direction: tuple[float, float] | None
-    terms: tuple[EquationTerm, ...]
-    solves: tuple[str, ...]
-
-
 @dataclass(frozen=True, eq=False)
 class FreeBodyResult:
     """The reactions of a free body and the equations that found them.
@@ -410,6 +370,8 @@ class FreeBodyResult:
     def working(self) -> Any:
         """The free-body working (a :class:`calcpack.working.Block`): loads and resultants,
         each equation written, substituted and solved."""
+        from calcpack.analysis.freebody_working import free_body_working
+
         return free_body_working(self)
 
     def sketch(self, **options: Any) -> Any:
@@ -425,6 +387,11 @@ class FreeBodyResult:
     def text(self) -> str:
         """Plain-text working."""
         return str(self.working().text())
+
+
+def _dir(u: UnknownAction) -> tuple[float, float]:
+    assert u.direction is not None
+    return u.direction
 
 
 def _diagnose(body: FreeBody, unknowns: Sequence[UnknownAction], rank: int) -> str:
@@ -521,328 +488,11 @@ def _solve(body: FreeBody, *, partial: bool) -> FreeBodyResult:
     b = np.array(body.known_totals())
     x = np.linalg.lstsq(C, -b, rcond=None)[0]
     values = {u.name: float(v) for u, v in zip(unknowns, x, strict=True)}
-    equations = _plan(body, unknowns, values, moments_first=partial)
+    from calcpack.analysis.freebody_plan import plan_equations
+
+    equations = plan_equations(body, unknowns, values, moments_first=partial)
     reactions: dict[str, Qty] = {}
     for u in unknowns:
         q = values[u.name] * (ureg.N if u.direction is not None else ureg.N * ureg.m)
         reactions[u.name] = q.to("kN" if u.direction is not None else "kN*m")
     return FreeBodyResult(body, reactions, tuple(unknowns), tuple(equations))
-
-
-def _terms(
-    body: FreeBody,
-    unknowns: Sequence[UnknownAction],
-    solved: dict[str, float],
-    kind: str,
-    point: tuple[float, float] = (0.0, 0.0),
-    direction: tuple[float, float] = (1.0, 0.0),
-) -> tuple[EquationTerm, ...]:
-    """The non-zero terms of one equation: reactions first (those already found carry their
-    value), then the known loads."""
-    tiny = _GEOM_REL * body.scale_m()
-    dx, dy = direction
-    axis = "x" if abs(dx) == 1.0 else ("y" if abs(dy) == 1.0 else "")
-    out: list[EquationTerm] = []
-    for u in unknowns:
-        if kind == "M":
-            coef = u.row(point)[2]
-            if abs(coef) <= tiny:
-                continue
-        else:
-            if u.direction is None:
-                continue
-            coef = u.direction[0] * dx + u.direction[1] * dy
-            if abs(coef) <= _GEOM_REL:
-                continue
-        lever = kind == "M" and u.direction is not None
-        out.append(EquationTerm(u.name, u.name not in solved, coef, solved.get(u.name), lever))
-    for f in body.point_loads():
-        rx, ry, Fx, Fy = si(f.x) - point[0], si(f.y) - point[1], si(f.Fx), si(f.Fy)
-        both = Fx != 0 and Fy != 0
-        if kind == "M":
-            if Fy != 0 and abs(rx) > tiny:
-                out.append(EquationTerm(f"{f.label}_y" if both else f.label, False, rx, Fy, True))
-            if Fx != 0 and abs(ry) > tiny:
-                out.append(EquationTerm(f"{f.label}_x" if both else f.label, False, -ry, Fx, True))
-            continue
-        if axis:
-            comp = Fx if axis == "x" else Fy
-            if comp != 0:
-                label = f"{f.label}_{axis}" if both else f.label
-                out.append(EquationTerm(label, False, 1.0, comp, False))
-            continue
-        # An inclined direction: each component times its direction cosine.
-        for comp, cos, sub in ((Fx, dx, "x"), (Fy, dy, "y")):
-            if comp != 0 and abs(cos) > _GEOM_REL:
-                out.append(
-                    EquationTerm(f"{f.label}_{sub}" if both else f.label, False, cos, comp, False)
-                )
-    if kind == "M":
-        for c in body.couples():
-            out.append(EquationTerm(c.label, False, 1.0, si(c.M), False))
-    return tuple(out)
-
-
-def _dir(u: UnknownAction) -> tuple[float, float]:
-    assert u.direction is not None
-    return u.direction
-
-
-def _moment_points(
-    forces: Sequence[UnknownAction], named: Sequence[tuple[str, tuple[float, float]]], tiny: float
-) -> list[tuple[tuple[float, float], str]]:
-    """Points where two unknown lines of action meet; named points (supports) first."""
-    found: list[tuple[int, tuple[float, float], str]] = []
-    for i in range(len(forces)):
-        for j in range(i + 1, len(forces)):
-            a, b = forces[i], forces[j]
-            p = line_intersection(a.point, _dir(a), b.point, _dir(b))
-            if p is None:
-                continue
-            pname = next(
-                (n for n, q in named if math.hypot(p[0] - q[0], p[1] - q[1]) <= tiny), None
-            )
-            if pname is None:
-                found.append((1, p, f"O (where the lines of {a.name} and {b.name} meet)"))
-            else:
-                found.append((0, p, pname))
-    found.sort(key=lambda c: c[0])
-    return [(p, n) for _, p, n in found]
-
-
-def _plan(
-    body: FreeBody,
-    unknowns: list[UnknownAction],
-    values: dict[str, float],
-    *,
-    moments_first: bool = False,
-) -> list[EquilibriumEquation]:
-    """Choose the equations in the order an engineer would take them: with three unknowns
-    left, moments about where two unknown lines meet; then force sums that hold one unknown.
-    With ``moments_first`` (a truss section) moments are preferred throughout: about where two
-    cut members meet, ΣF only for parallel ones."""
-    tiny = _GEOM_REL * body.scale_m()
-    named = body.named_points()
-    remaining = list(unknowns)
-    plan: list[EquilibriumEquation] = []
-    solved: dict[str, float] = {}
-
-    def moment_eq(rest: list[UnknownAction]) -> EquilibriumEquation | None:
-        # Crossings of any two unknown lines (found ones too: moments about where a found
-        # member meets an unknown one leave the other unknown alone).
-        points = _moment_points([u for u in unknowns if u.direction is not None], named, tiny)
-        if len(rest) == 1 and rest[0].direction is None:
-            points = [(named[0][1], named[0][0])] if named else [((0.0, 0.0), "origin")]
-        for p, pname in points:
-            live = [u for u in rest if abs(u.row(p)[2]) > tiny]
-            if len(live) == 1:
-                terms = _terms(body, unknowns, solved, "M", point=p)
-                return EquilibriumEquation("M", p, pname, None, terms, (live[0].name,))
-        return None
-
-    def force_eq(rest: list[UnknownAction]) -> EquilibriumEquation | None:
-        forces = [u for u in rest if u.direction is not None]
-        perp = [("F", (-_dir(u)[1], _dir(u)[0]), u.name) for u in forces]
-        best: EquilibriumEquation | None = None
-        for kind, d, across in [("Fx", (1.0, 0.0), ""), ("Fy", (0.0, 1.0), ""), *perp]:
-            live = [u for u in forces if abs(_dir(u)[0] * d[0] + _dir(u)[1] * d[1]) > _GEOM_REL]
-            if len(live) == 1:
-                terms = _terms(body, unknowns, solved, kind, direction=d)
-                where = f"perpendicular to {across}" if kind == "F" else ""
-                eq = EquilibriumEquation(kind, None, where, d, terms, (live[0].name,))
-                # Of the sums that isolate one unknown, take the one with the fewest forces
-                # found earlier in it (ΣFy for the diagonal between parallel chords).
-                if best is None or sum(t.name in solved for t in eq.terms) < sum(
-                    t.name in solved for t in best.terms
-                ):
-                    best = eq
-        return best
-
-    while remaining:
-        if len(remaining) >= 3 or moments_first:
-            choice = moment_eq(remaining) or force_eq(remaining)
-        else:
-            choice = force_eq(remaining) or moment_eq(remaining)
-        if choice is None:
-            # No equation isolates one unknown: the remaining ones are solved together.
-            names = tuple(u.name for u in remaining)
-            for k, d in (("Fx", (1.0, 0.0)), ("Fy", (0.0, 1.0))):
-                terms = _terms(body, unknowns, solved, k, direction=d)
-                plan.append(EquilibriumEquation(k, None, "", d, terms, names))
-            p, pname = (named[0][1], named[0][0]) if named else ((0.0, 0.0), "origin")
-            terms = _terms(body, unknowns, solved, "M", point=p)
-            plan.append(EquilibriumEquation("M", p, pname, None, terms, names))
-            break
-        plan.append(choice)
-        solved.update({n: values[n] for n in choice.solves})
-        remaining = [u for u in remaining if u.name not in choice.solves]
-    return plan
-
-
-# -- working (built only when displayed) ------------------------------------------------------
-
-
-def _display(q: Qty) -> Qty:
-    from calcpack.units import get_display
-
-    unit = get_display().preset.unit_for(q)
-    return q.to(unit) if unit is not None else q
-
-
-def free_body_working(
-    result: FreeBodyResult,
-    *,
-    member_names: dict[str, str] | None = None,
-    tension_tol_N: float | None = None,
-) -> Any:
-    """The working of a free body as a :class:`calcpack.working.Block`: the loads (with the
-    resultants of distributed loads), then each equation symbolically and substituted, and the
-    unknown it gives.
-
-    Args:
-        result: the solved free body.
-        member_names: unknown name -> truss member name, for a section (the unknowns are then
-            described as member forces, tension positive, marked T or C).
-        tension_tol_N: forces below this (N) are called zero-force members.
-    """
-    from calcpack.working import Block, Derived, Equation, Given, Table, Term, Text, Unknown
-
-    body = result.body
-    members = member_names or {}
-    steps: list[Any] = [
-        Text(
-            "Sign convention: forces positive along +x (right) and +y (up), moments "
-            "counter-clockwise positive; each unknown is drawn in its positive sense."
-        )
-    ]
-    rows = []
-    for ld in body.loads:
-        if isinstance(ld, DistributedLoad):
-            L = math.hypot(si(ld.x2) - si(ld.x1), si(ld.y2) - si(ld.y1)) * ureg.m
-            Lg = Given(f"L_{ld.label}", _display(L), f"length of {ld.label}")
-            w1 = Given(
-                f"{ld.label}_1" if ld.w2 is not None else ld.label,
-                ld.w1,
-                f"intensity of {ld.label}" + (" at its start" if ld.w2 is not None else ""),
-            )
-            if ld.w2 is None:
-                W = Derived(f"W_{ld.label}", w1 * Lg, f"resultant of {ld.label}")
-                a = Derived(f"a_{ld.label}", Lg / 2, "resultant's distance from the start")
-                steps += [Lg, w1, W, a]
-            else:
-                w2 = Given(f"{ld.label}_2", ld.w2, f"intensity of {ld.label} at its end")
-                W = Derived(f"W_{ld.label}", (w1 + w2) / 2 * Lg, f"resultant of {ld.label}")
-                a = Derived(
-                    f"a_{ld.label}",
-                    Lg * (w1 + 2 * w2) / ((w1 + w2) * 3),
-                    "resultant's distance from the start (centroid of the trapezoid)",
-                )
-                steps += [Lg, w1, w2, W, a]
-    for f in body.point_loads():
-        rows.append([f.label, _display(f.x), _display(f.y), _display(f.Fx), _display(f.Fy)])
-    for c in body.couples():
-        rows.append([c.label, "", "", f"couple {_display(c.M):~P}", ""])
-    if rows:
-        steps.append(
-            Table(["Load", "x", "y", "Fx", "Fy"], rows, caption=f"Known loads on {body.name}")
-        )
-    known_values: dict[str, Any] = {}
-    for f in body.point_loads():
-        fx, fy = f.Fx, f.Fy
-        both = fx.magnitude != 0 and fy.magnitude != 0
-        if both:
-            known_values[f"{f.label}_x"] = Given(f"{f.label}_x", _display(fx), f"{f.label}, x")
-            known_values[f"{f.label}_y"] = Given(f"{f.label}_y", _display(fy), f"{f.label}, y")
-        known_values[f.label] = Given(f.label, _display(fy if fy.magnitude != 0 else fx), f.label)
-    for c in body.couples():
-        known_values[c.label] = Given(c.label, _display(c.M), c.label)
-    unknown_terms = {u.name: Unknown(u.name) for u in result.unknowns}
-    solved: dict[str, Any] = {}
-
-    def term_of(t: EquationTerm, kind: str) -> Term:
-        if t.unknown:
-            base: Term = unknown_terms[t.name]
-        elif t.name in solved:
-            base = solved[t.name]
-        elif t.name in known_values:
-            base = known_values[t.name]
-        else:
-            base = Given(t.name, _display((t.value or 0.0) * ureg.N), t.name)
-        if kind == "M" and t.lever:
-            out: Term = base * _display(t.factor * ureg.m)
-            return out
-        if t.factor == 1.0:
-            return base
-        if t.factor == -1.0:
-            return -base
-        return base * t.factor
-
-    def describe(name: str, value: Qty) -> str:
-        if name in members:
-            f = float(value.to("N").magnitude)
-            tol = tension_tol_N if tension_tol_N is not None else 0.0
-            nat = (
-                "zero-force member"
-                if abs(f) <= tol
-                else "tension (T)"
-                if f > 0
-                else "compression (C)"
-            )
-            return f"force in member {members[name]}: {nat}"
-        return f"{'moment' if name.startswith('M_') else 'reaction'} {name}"
-
-    for eq in result.equations:
-        parts = [term_of(t, eq.kind) for t in eq.terms]
-        if not parts:
-            continue
-        lhs = parts[0]
-        for p in parts[1:]:
-            lhs = lhs + p
-        if eq.kind == "M":
-            label = (
-                rf"\Sigma M_{{{eq.point_name if not eq.point_name.startswith('O ') else 'O'}}} = 0"
-            )
-            where = ""
-            if eq.point_name.startswith("O ") and eq.point is not None:
-                where = (
-                    f"O = ({_display(eq.point[0] * ureg.m):.3g~P}, "
-                    f"{_display(eq.point[1] * ureg.m):.3g~P}), " + eq.point_name[2:].strip("()")
-                )
-            desc = "moments about " + (where or f"{eq.point_name}")
-        elif eq.kind == "F" and eq.direction is not None:
-            label = r"\Sigma F_{\perp} = 0"
-            desc = f"forces resolved {eq.point_name}" if eq.point_name else "forces resolved"
-        else:
-            label = rf"\Sigma F_{eq.kind[1]} = 0"
-            desc = ""
-        steps.append(Equation(lhs, 0, label=label, description=desc))
-        if len(eq.solves) == 1:
-            target = eq.solves[0]
-            own = next(t for t in eq.terms if t.unknown and t.name == target)
-            rest_terms = [term_of(t, eq.kind) for t in eq.terms if t is not own]
-            value = result.reactions[target]
-            if rest_terms:
-                rest = rest_terms[0]
-                for p in rest_terms[1:]:
-                    rest = rest + p
-                coef: Any = (
-                    _display(own.factor * ureg.m) if (eq.kind == "M" and own.lever) else own.factor
-                )
-                formula: Any = -rest if coef == 1.0 else rest if coef == -1.0 else -rest / coef
-            else:
-                formula = 0.0 * value
-            d = Derived(target, formula, describe(target, value), note=f"from ${label}$")
-            steps.append(d)
-            solved[target] = d
-    group = [n for eq in result.equations if len(eq.solves) > 1 for n in eq.solves]
-    for name in dict.fromkeys(group):
-        value = result.reactions[name]
-        d = Derived(
-            name,
-            _display(value),
-            describe(name, value),
-            note="from the equations above, solved together",
-        )
-        steps.append(d)
-        solved[name] = d
-    return Block(steps=steps, title=f"Free body: {body.name}")

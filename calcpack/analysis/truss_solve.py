@@ -25,6 +25,8 @@ from typing import Any, Literal
 import numpy as np
 
 from calcpack.analysis.truss_model import FloatArray, Member, Qty, Truss
+from calcpack.analysis.truss_stiffness import stiffness_solve
+from calcpack.analysis.truss_zero import zero_force_by_inspection
 from calcpack.errors import InputError, UnstableStructureError
 from calcpack.units import ureg
 
@@ -407,34 +409,6 @@ class TrussResult:
         return str(self.working().text())
 
 
-def _stiffness(truss: Truss, p: FloatArray) -> tuple[FloatArray, FloatArray, FloatArray]:
-    """Direct stiffness method with the supports as constraints (Lagrange multipliers, which
-    handles inclined rollers exactly). Returns displacements (m), member forces (N), reactions
-    (N)."""
-    nj, nm = len(truss.nodes), len(truss.members)
-    K = np.zeros((2 * nj, 2 * nj))
-    k_axial = np.array([m.EA.to("N").magnitude for m in truss.members if m.EA is not None])
-    k_axial = k_axial / truss.lengths_m
-    for k, (s, e) in enumerate(truss.member_ends):
-        c = truss.unit_vectors[k]
-        kc = k_axial[k] * np.outer(c, c)
-        for a, b, sign in ((s, s, 1), (e, e, 1), (s, e, -1), (e, s, -1)):
-            K[2 * a : 2 * a + 2, 2 * b : 2 * b + 2] += sign * kc
-    nr = len(truss.reactions)
-    C = np.zeros((nr, 2 * nj))
-    for r, (_, i, d) in enumerate(truss.reactions):
-        C[r, 2 * i : 2 * i + 2] = d
-    # K u = p + C^T R  and  C u = 0 (supports do not move along their reactions).
-    big = np.block([[K, -C.T], [C, np.zeros((nr, nr))]])
-    sol = np.linalg.solve(big, np.concatenate([p, np.zeros(nr)]))
-    u, R = sol[: 2 * nj], sol[2 * nj :]
-    N = np.zeros(nm)
-    for k, (s, e) in enumerate(truss.member_ends):
-        c = truss.unit_vectors[k]
-        N[k] = k_axial[k] * float(c @ (u[2 * e : 2 * e + 2] - u[2 * s : 2 * s + 2]))
-    return u, N, R
-
-
 def _missing_ea(truss: Truss) -> list[Member]:
     return [m for m in truss.members if m.EA is None]
 
@@ -512,11 +486,11 @@ def solve_truss(
         N, R = x[:nm], x[nm:]
         used = "equilibrium"
         if not missing:
-            u, N_k, _ = _stiffness(truss, p)
+            u, N_k, _ = stiffness_solve(truss, p)
             scale = max(float(np.max(np.abs(N), initial=0.0)), 1e-300)
             check = float(np.max(np.abs(N - N_k), initial=0.0)) / scale
     else:
-        u, N, R = _stiffness(truss, p)
+        u, N, R = stiffness_solve(truss, p)
         used = "stiffness"
     return _result(truss, "all loads" if case is None else case, det, used, N, R, p, u, check)
 
@@ -606,61 +580,3 @@ def combine_results(
         total.displacements,
         total.stiffness_check,
     )
-
-
-def zero_force_by_inspection(
-    truss: Truss, case: str | None = None, *, result: TrussResult | None = None
-) -> dict[str, str]:
-    """Zero-force members found by the two rules of inspection, applied repeatedly.
-
-    1. At an unloaded, unsupported joint with two non-collinear members, both carry no force.
-    2. At an unloaded, unsupported joint with three members, two of them collinear, the third
-       carries no force.
-
-    Members found zero are then ignored at their other joints, and the rules applied again.
-
-    Args:
-        truss: the truss.
-        case: the load case whose loaded joints count (None: every load).
-        result: alternatively, a result (e.g. a combination) whose applied loads count.
-
-    Returns:
-        member name -> the reason, e.g. ``"joint F: two non-collinear members, no load"``.
-    """
-    p = result.loads_N() if result is not None else truss.load_vector(case)
-    loaded = {
-        n.name for i, n in enumerate(truss.nodes) if abs(p[2 * i]) > 0 or abs(p[2 * i + 1]) > 0
-    }
-    supported = {s.node for s in truss.supports}
-    found: dict[str, str] = {}
-    changed = True
-    while changed:
-        changed = False
-        for n in truss.nodes:
-            if n.name in loaded or n.name in supported:
-                continue
-            live = [m for m in truss.members_at(n.name) if m.name not in found]
-            dirs = [_away(truss, m, n.name) for m in live]
-            if len(live) == 2 and abs(_cross(dirs[0], dirs[1])) > 1e-9:
-                for m in live:
-                    found[m.name] = f"joint {n.name}: two non-collinear members, no load"
-                changed = True
-            elif len(live) == 3:
-                for a, b, c in ((0, 1, 2), (0, 2, 1), (1, 2, 0)):
-                    collinear = abs(_cross(dirs[a], dirs[b])) <= 1e-9
-                    if collinear and abs(_cross(dirs[a], dirs[c])) > 1e-9:
-                        found[live[c].name] = (
-                            f"joint {n.name}: {live[a].name} and {live[b].name} collinear, no load"
-                        )
-                        changed = True
-                        break
-    return found
-
-
-def _away(truss: Truss, member: Member, node: str) -> FloatArray:
-    c: FloatArray = truss.unit_vectors[truss.member_index[member.name]]
-    return c if member.start == node else -c
-
-
-def _cross(a: FloatArray, b: FloatArray) -> float:
-    return float(a[0] * b[1] - a[1] * b[0])

@@ -21,13 +21,8 @@ from typing import TYPE_CHECKING, Any
 
 import numpy as np
 
-from calcpack.analysis.freebody import (
-    BodySupport,
-    FreeBody,
-    PointForce,
-    free_body_working,
-    solve_section,
-)
+from calcpack.analysis.freebody import BodySupport, FreeBody, PointForce, solve_section
+from calcpack.analysis.freebody_working import free_body_working
 from calcpack.errors import InputError
 from calcpack.units import get_display, ureg
 from calcpack.working import Block, Derived, Equation, Given, Table, Term, Text, Unknown
@@ -97,7 +92,7 @@ def _fmt(x: float) -> str:
 
 def summary_working(result: TrussResult) -> Block:
     """Determinacy, reactions, member forces with T/C, zero-force members."""
-    from calcpack.analysis.truss_solve import zero_force_by_inspection
+    from calcpack.analysis.truss_zero import zero_force_by_inspection
 
     truss = result.truss
     steps: list[Any] = [Text(f"Determinacy: {result.determinacy.describe()}.")]
