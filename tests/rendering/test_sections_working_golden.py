@@ -53,7 +53,7 @@ def test_centroid_with_substitution(block):
 def test_parallel_axis_theorem_with_substitution(block):
     assert _derived(block, "I_x").latex() == (
         r"$$I_{x} = \Sigma \bar{I}_{x,i} + \Sigma A_i d_{i}^2 = "
-        r"4.45 \times 10^{6}\ \mathrm{mm^{4}} + \left(8.19 \times 10^{6}\ \mathrm{mm^{4}}\right)"
+        r"4.45 \times 10^{6}\ \mathrm{mm^{4}} + 8.19 \times 10^{6}\ \mathrm{mm^{4}}"
         r" = 12.6 \times 10^{6}\ \mathrm{mm^{4}}$$"
     )
     assert _derived(block, "I_x").text() == (
