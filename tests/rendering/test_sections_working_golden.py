@@ -57,6 +57,6 @@ def test_parallel_axis_theorem_with_substitution(block):
         r" = 12.6 \times 10^{6}\ \mathrm{mm^{4}}$$"
     )
     assert _derived(block, "I_x").text() == (
-        "I_x = Σ_Ix + Σ_Ady2 = 4.45×10⁶ mm⁴ + (8.19×10⁶ mm⁴) = 12.6×10⁶ mm⁴  "
+        "I_x = Σ_Ix + Σ_Ady2 = 4.45×10⁶ mm⁴ + 8.19×10⁶ mm⁴ = 12.6×10⁶ mm⁴  "
         "(second moment about the centroidal x axis)  [parallel-axis theorem]"
     )
