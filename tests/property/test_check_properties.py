@@ -1,7 +1,8 @@
 """Properties of the design checks: the AISC 360-16 §F2 strength does not rise with the
 unbraced length and is continuous at L_p and (to the rounding of Eq. F2-6) at L_r: Eq. F2-2
-meets F2-1 at L_p and F2-3 at L_r, which is how L_r is defined -- common practice; results do not depend on the input units; the
-NDS beam stability factor lies in (0, 1] and falls as the unsupported length grows."""
+meets F2-1 at L_p and F2-3 at L_r, which is how L_r is defined (common practice); results do
+not depend on the input units; the NDS beam stability factor lies in (0, 1] and falls as the
+unsupported length grows."""
 
 from __future__ import annotations
 
