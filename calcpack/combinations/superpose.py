@@ -2,8 +2,9 @@
 
 Each load case is analysed once; a combination's result is Σ factor × case result (linear
 analysis). Results may be anything that can be scaled and added: beam results
-(:class:`calcpack.analysis.beam.BeamResult`, which offers ``scaled`` and ``+``), quantities, or
-mappings of named quantities (``{"N_AB": -12 kN, ...}``, e.g. truss member forces).
+(:class:`calcpack.analysis.beam.BeamResult`, which offers ``scaled`` and ``+``), truss results
+(member forces, tension +, and reactions), quantities, or mappings of named quantities
+(``{"N_AB": -12 kN, ...}``).
 
 The envelope of beam results gives the largest and smallest moment and shear (with their
 position), each support reaction's extremes and the largest deflection, each with the
@@ -123,6 +124,23 @@ def _beam_candidates(r: Any) -> list[tuple[str, Quantity, Quantity | None, str, 
     return out
 
 
+def _is_truss(r: Any) -> bool:
+    return hasattr(r, "truss") and isinstance(getattr(r, "forces", None), Mapping)
+
+
+def _truss_candidates(r: Any) -> list[tuple[str, Quantity, Quantity | None, str, int]]:
+    """Member forces (tension +) and reactions of a truss result, largest and smallest."""
+    out: list[tuple[str, Quantity, Quantity | None, str, int]] = []
+    for name, N in r.forces.items():
+        out.append((f"N_{name},max", N, None, f"member {name}", 1))
+        out.append((f"N_{name},min", N, None, f"member {name}", -1))
+    for name, rea in r.reactions.items():
+        v = rea.value
+        out.append((f"R_{name},max", v, None, f"reaction {name}", 1))
+        out.append((f"R_{name},min", v, None, f"reaction {name}", -1))
+    return out
+
+
 def _scalar_candidates(r: Any) -> list[tuple[str, Quantity, Quantity | None, str, int]]:
     if isinstance(r, Mapping):
         out: list[tuple[str, Quantity, Quantity | None, str, int]] = []
@@ -205,7 +223,12 @@ def _envelope(results: Mapping[str, Any]) -> Envelope:
     best: dict[str, Governing] = {}
     signs: dict[str, int] = {}
     for name, r in results.items():
-        cands = _beam_candidates(r) if _is_beam(r) else _scalar_candidates(r)
+        if _is_beam(r):
+            cands = _beam_candidates(r)
+        elif _is_truss(r):
+            cands = _truss_candidates(r)
+        else:
+            cands = _scalar_candidates(r)
         for quantity, value, x, where, sign in cands:
             if not is_quantity(value):
                 raise InputError(

@@ -189,3 +189,24 @@ def test_en1990_and_asnzs_sets_on_a_beam():
     assert cz.envelope()["M_max"].combination.startswith(
         "d"
     )  # 1.2G + Wu + 0.4Q = 7.6 kN/m > 1.2G + 1.5Q = 6.9 kN/m
+
+
+def test_envelope_of_truss_member_forces():
+    from calcpack.analysis.truss_model import JointLoad, Truss
+    from calcpack.analysis.truss_solve import solve_truss_cases
+
+    truss = Truss.build(
+        nodes={"A": (0 * m, 0 * m), "B": (4 * m, 0 * m), "C": (2 * m, 2 * m)},
+        members=[("A", "B"), ("A", "C"), ("B", "C")],
+        supports={"A": "pin", "B": "roller"},
+        loads=[JointLoad("C", Fy=-10 * kN, case="D"), JointLoad("C", Fy=8 * kN, case="W")],
+    )
+    r = solve_truss_cases(truss)
+    env = analyse_combinations(r, asce7_strength()).envelope()
+    # symmetric 45° truss: N_AC = -P/√2 per unit downward P at C (method of joints)
+    down = r["D"].force("AC").to("kN").magnitude  # compression under D
+    assert env["N_AC,min"].value.to("kN").magnitude == pytest.approx(1.4 * down, rel=1e-9)
+    assert env["N_AC,min"].combination.startswith("1")
+    up = 0.9 * down + r["W"].force("AC").to("kN").magnitude
+    assert env["N_AC,max"].value.to("kN").magnitude == pytest.approx(up, rel=1e-9)
+    assert env["N_AC,max"].combination.startswith("5")
