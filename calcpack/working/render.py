@@ -37,6 +37,7 @@ __all__ = ["STYLE", "mimebundle", "step_html", "step_latex", "step_text"]
 STYLE = """<style class="cp-style">
 .cp-step{display:grid;grid-template-columns:minmax(8em,22%) 1fr minmax(6em,18%);gap:0 1em;
 align-items:baseline;padding:.15em 0;border-bottom:1px dotted #c8ccd2;font-size:0.95em}
+.cp-body mjx-container[display="true"]{text-align:left!important;margin:.2em 0!important}
 .cp-desc{color:#333}.cp-ref{color:#555;font-size:.85em;text-align:right}
 .cp-src{color:#666;font-size:.85em}.cp-note{color:#555;font-size:.85em;font-style:italic}
 .cp-verdict{font-weight:bold;padding:0 .4em;border:1.5px solid;border-radius:2px}
@@ -296,7 +297,11 @@ def _latex_body(step: Step) -> str:
         return f"\\text{{{step.name}: {step.verdict}}}"
     if isinstance(step, Heading | Text):
         body = step.title if isinstance(step, Heading) else step.body
-        return f"\\text{{{_prose_latex(re.sub(r'[$]', '', body))}}}"
+        parts = re.split(r"(?<!\\)\$(.+?)(?<!\\)\$", body)
+        return "".join(
+            part if i % 2 else (f"\\text{{{_prose_latex(part)}}}" if part else "")
+            for i, part in enumerate(parts)
+        )
     if isinstance(step, Table):
         return f"\\text{{[table: {len(step.rows)} rows]}}"
     if isinstance(step, Block):

@@ -91,9 +91,7 @@ class Sheet:
         if isinstance(step, Value):
             self._names[step.name] = step
         if self.auto_display and _in_kernel():
-            from IPython.display import display
-
-            display(step)
+            step._ipython_display_()
         return step
 
     def given(

@@ -153,6 +153,20 @@ class Step:
 
         return render.mimebundle(self)
 
+    # The cell in which a sheet already showed this step; a second showing in the same cell
+    # (the cell's last line returning the step) is skipped so nothing is shown or recorded twice.
+    _shown_in: int | None = None
+
+    def _ipython_display_(self) -> None:
+        import IPython
+        from IPython.display import publish_display_data
+
+        count = getattr(IPython.get_ipython(), "execution_count", None)
+        if self._shown_in is not None and self._shown_in == count:
+            return
+        self._shown_in = count
+        publish_display_data(self._repr_mimebundle_())
+
     def __str__(self) -> str:
         return self.text()
 
