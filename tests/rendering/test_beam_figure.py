@@ -72,7 +72,7 @@ def test_beam_and_loads_import_without_plotting():
         "r = solve_beam(Beam(length=4 * ureg.m, supports=[Pin(0 * ureg.m), Roller(4 * ureg.m)],"
         " loads=[UniformLoad(w=1 * ureg.kN / ureg.m)]))\n"
         "r.extremes.M_max\n"
-        "print(json.dumps([h for h in ('matplotlib', 'calcpack.plots', 'calcpack.working',"
+        "print(json.dumps([h for h in ('matplotlib', 'calcpack.plots', 'calcpack.analysis.beam.working',"
         " 'IPython') if h in sys.modules]))\n"
     )
     out = subprocess.run(
