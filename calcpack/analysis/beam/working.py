@@ -35,7 +35,7 @@ from calcpack.loads.types import (
     SIPiece,
     UniformLoad,
 )
-from calcpack.units import Q_, ureg
+from calcpack.units import Q_, DisplaySettings, get_display, ureg
 from calcpack.working import (
     Block,
     Derived,
@@ -67,9 +67,57 @@ SIGN_CONVENTION = (
 )
 
 
+# The display settings of the sheet the working is for: set on entry to beam_working and
+# cut_working (the working is built in one call, never concurrently with itself).
+_SETTINGS: list[DisplaySettings] = []
+
+_UNITS = {
+    "SI": {
+        "force": "kN",
+        "moment": "kN*m",
+        "line": "kN/m",
+        "area": "kPa",
+        "length": "m",
+        "deflection": "mm",
+    },
+    "US": {
+        "force": "kip",
+        "moment": "kip*ft",
+        "line": "klf",
+        "area": "psf",
+        "length": "ft",
+        "deflection": "inch",
+    },
+}
+
+
+def _settings() -> DisplaySettings:
+    return _SETTINGS[-1] if _SETTINGS else get_display()
+
+
+def _u(kind: str) -> str:
+    return _UNITS.get(_settings().system, _UNITS["SI"])[kind]
+
+
+def _given_step(*args: Any, **kw: Any) -> Given:
+    return Given(*args, settings=_settings(), **kw)
+
+
+def _derived_step(*args: Any, **kw: Any) -> Derived:
+    return Derived(*args, settings=_settings(), **kw)
+
+
+def _equation_step(*args: Any, **kw: Any) -> Equation:
+    return Equation(*args, settings=_settings(), **kw)
+
+
+def _table_step(*args: Any, **kw: Any) -> Table:
+    return Table(*args, settings=_settings(), **kw)
+
+
 def _lit(x_m: float) -> Term:
     """A length literal as a term (shown as its value, e.g. (2.00 m))."""
-    return as_term(Q_(round(x_m, 12), _M))
+    return as_term(Q_(round(x_m, 12), _M).to(_u("length")))
 
 
 def _acc(expr: Any, sign: float, term: Any) -> Any:
@@ -137,27 +185,30 @@ class _Loads:
             if isinstance(load, PointLoad):
                 n_p += 1
                 if load.P.magnitude != 0:
-                    P = Given(
-                        f"P_{n_p}", f * load.P, f"point load at x = {load.x:~.4g}{how}", unit="kN"
+                    P = _given_step(
+                        f"P_{n_p}",
+                        f * load.P,
+                        f"point load at x = {load.x:~.4g}{how}",
+                        unit=_u("force"),
                     )
                     steps.append(P)
                     self.points.append((load, f, P))
                 if load.H.magnitude != 0:
-                    H = Given(
+                    H = _given_step(
                         f"H_{n_p}",
                         f * load.H,
                         f"axial component at x = {load.x:~.4g} (+ toward +x){how}",
-                        unit="kN",
+                        unit=_u("force"),
                     )
                     steps.append(H)
                     self.axial.append((load, H))
             elif isinstance(load, PointMoment):
                 n_c += 1
-                C = Given(
+                C = _given_step(
                     f"C_{n_c}",
                     f * load.C,
                     f"couple at x = {load.x:~.4g}, clockwise +{how}",
-                    unit="kN*m",
+                    unit=_u("moment"),
                 )
                 steps.append(C)
                 self.couples.append((load, f, C))
@@ -193,34 +244,40 @@ class _Loads:
         if whole and isinstance(load, UniformLoad | AreaLoad):
             w: Any
             if isinstance(load, AreaLoad):
-                q = Given(f"q_{k}", load.q, f"area load{how}", unit="kPa")
-                bt = Given(f"b_{k}", load.width, "tributary width", unit="m")
-                w = Derived(
+                q = _given_step(f"q_{k}", load.q, f"area load{how}", unit=_u("area"))
+                bt = _given_step(f"b_{k}", load.width, "tributary width", unit=_u("length"))
+                w = _derived_step(
                     f"w_{k}",
                     f * q * bt if f != 1.0 else q * bt,
                     "line load = area load × tributary width",
-                    unit="kN/m",
+                    unit=_u("line"),
                 )
                 self.steps += [q, bt, w]
             else:
-                w = Given(f"w_{k}", f * load.w, f"uniform line load, {where}{how}", unit="kN/m")
+                w = _given_step(
+                    f"w_{k}", f * load.w, f"uniform line load, {where}{how}", unit=_u("line")
+                )
                 self.steps.append(w)
             formula_W = w * _lit(b - a)
             formula_x = _lit((a + b) / 2)
         elif whole and isinstance(load, LinearLoad):
-            w1 = Given(f"w_{k}a", f * load.w_start, f"line load at x = {a:.4g} m{how}", unit="kN/m")
-            w2 = Given(f"w_{k}b", f * load.w_end, f"line load at x = {b:.4g} m{how}", unit="kN/m")
+            w1 = _given_step(
+                f"w_{k}a", f * load.w_start, f"line load at x = {a:.4g} m{how}", unit=_u("line")
+            )
+            w2 = _given_step(
+                f"w_{k}b", f * load.w_end, f"line load at x = {b:.4g} m{how}", unit=_u("line")
+            )
             self.steps += [w1, w2]
             formula_W = (w1 + w2) / 2 * _lit(b - a)
             if abs(W_N) > 1e-12 * (
                 abs(w1.quantity.to("N/m").magnitude) + abs(w2.quantity.to("N/m").magnitude)
             ) * (b - a):
                 formula_x = _lit(a) + _lit(b - a) * (w1 + 2 * w2) / (3 * (w1 + w2))
-        W = Derived(
+        W = _derived_step(
             name_W,
             formula_W if formula_W is not None else Q_(W_N, "N"),
             f"resultant W = ∫w dx of {load.describe() if whole else 'the part ' + where}",
-            unit="kN",
+            unit=_u("force"),
             note=None
             if formula_W is not None
             else "∫w dx integrated exactly (polynomial) or to the load's stated accuracy",
@@ -230,11 +287,11 @@ class _Loads:
         x_m = float("nan")
         if abs(W_N) > 1e-12 * max(abs(first), 1.0):
             x_m = first / W_N
-            xbar = Derived(
+            xbar = _derived_step(
                 name_x,
                 formula_x if formula_x is not None else Q_(x_m, "m"),
                 "its position x̄ = ∫x·w dx / W from the left end",
-                unit="m",
+                unit=_u("length"),
                 latex=latex_x,
             )
             self.steps.append(xbar)
@@ -402,7 +459,7 @@ def _emit(
     steps: list[Any],
     result: BeamResult,
 ) -> None:
-    unit = "kN*m" if target[2].startswith("M_") else "kN"
+    unit = _u("moment") if target[2].startswith("M_") else _u("force")
     U = Unknown(target[2], unit=unit)
     lhs: Any = None
     rest: Any = None
@@ -422,12 +479,12 @@ def _emit(
         rest = _acc(rest, -sign, t)
     if rest is None:
         rest = Q_(0.0, unit)
-    steps.append(Equation(lhs, 0, label=eq.label, description=eq.description))
+    steps.append(_equation_step(lhs, 0, label=eq.label, description=eq.description))
     cterm = target[1]
     formula = rest if cterm == 1 else (-rest if cterm == -1 else rest / cterm)
     name, comp = target[2].split("_", 1)
     what = {"R": "vertical reaction at", "M": "moment reaction (clockwise +) at"}[name]
-    value = Derived(target[2], formula, f"{what} support {comp}", unit=unit)
+    value = _derived_step(target[2], formula, f"{what} support {comp}", unit=unit)
     steps.append(value)
     solved[target[2]] = value
 
@@ -542,13 +599,18 @@ def _flexibility(result: BeamResult, solved: dict[str, Any], steps: list[Any]) -
     A = F + np.diag(flex)
     X = np.linalg.solve(A, -D0)
 
-    du = {"Fy": ("m", "mm", "kN", "mm/kN"), "C": ("rad", "rad", "kN*m", "rad/(kN*m)")}
+    # (internal unit of the movement, its display unit, internal unit of the redundant,
+    # its display unit); unit redundants were applied as 1 kN and 1 kN·m.
+    du = {
+        "Fy": ("m", _u("deflection"), "kN", _u("force")),
+        "C": ("rad", "rad", "kN*m", _u("moment")),
+    }
     d_terms = []
     f_terms: list[list[Any]] = []
     for i, ki in enumerate(redundants):
         base_u, show_u, _, _ = du[ki[1]]
         move = "upward movement" if ki[1] == "Fy" else "clockwise rotation"
-        d = Derived(
+        d = _derived_step(
             f"Delta_{ki[0]}0",
             Q_(D0[i], base_u).to(show_u),
             f"{move} of the released beam at {ki[0]} under the loads",
@@ -559,9 +621,9 @@ def _flexibility(result: BeamResult, solved: dict[str, Any], steps: list[Any]) -
         row = []
         for j, kj in enumerate(redundants):
             unit_of_x = du[kj[1]][2]
-            show = f"{show_u}/({unit_of_x})"
+            show = f"{show_u}/({du[kj[1]][3]})"
             val = (Q_(F[i, j], base_u) / Q_(1.0, unit_of_x)).to(show)
-            fij = Derived(
+            fij = _derived_step(
                 f"f_{ki[0]}{kj[0]}",
                 val,
                 f"{move} at {ki[0]} due to a unit {names[j]} on the released beam",
@@ -570,7 +632,7 @@ def _flexibility(result: BeamResult, solved: dict[str, Any], steps: list[Any]) -
             steps.append(fij)
             row.append(fij)
         f_terms.append(row)
-    unknowns = [Unknown(nm, unit=du[k[1]][2]) for nm, k in zip(names, redundants, strict=True)]
+    unknowns = [Unknown(nm, unit=du[k[1]][3]) for nm, k in zip(names, redundants, strict=True)]
     for i, ki in enumerate(redundants):
         lhs: Any = d_terms[i]
         for j in range(n):
@@ -578,11 +640,11 @@ def _flexibility(result: BeamResult, solved: dict[str, Any], steps: list[Any]) -
         if flex[i]:
             s = beam.support(ki[0])
             k = s.k if ki[1] == "Fy" else s.k_theta  # type: ignore[attr-defined]
-            kk = Given(f"k_{ki[0]}", k, f"spring stiffness at {ki[0]}")
+            kk = _given_step(f"k_{ki[0]}", k, f"spring stiffness at {ki[0]}")
             steps.append(kk)
             lhs = lhs + unknowns[i] / kk
         steps.append(
-            Equation(
+            _equation_step(
                 lhs,
                 0,
                 label=rf"\Delta_{{{ki[0]}}} = 0",
@@ -590,15 +652,15 @@ def _flexibility(result: BeamResult, solved: dict[str, Any], steps: list[Any]) -
             )
         )
     for i, ki in enumerate(redundants):
-        unit = du[ki[1]][2]
+        unit = du[ki[1]][3]
         if n == 1 and not flex[0]:
-            value = Derived(
+            value = _derived_step(
                 names[0], -d_terms[0] / f_terms[0][0], "redundant from compatibility", unit=unit
             )
         else:
-            value = Derived(
+            value = _derived_step(
                 names[i],
-                Q_(X[i], unit),
+                Q_(X[i], du[ki[1]][2]),
                 f"redundant, from the compatibility equations solved together ({n} equations)",
                 unit=unit,
             )
@@ -608,15 +670,43 @@ def _flexibility(result: BeamResult, solved: dict[str, Any], steps: list[Any]) -
 
 
 # -- public --------------------------------------------------------------------------------------
-def beam_working(result: BeamResult, *, title: str | None = None) -> Any:
-    """The working of ``result`` as a titled Block of steps (add it to a Sheet with ``add``)."""
+def beam_working(
+    result: BeamResult, *, title: str | None = None, sheet: Any = None, system: str | None = None
+) -> Any:
+    """The working of ``result`` as a titled Block of steps (add it to a Sheet with ``add``).
+
+    Args:
+        title: the block's title. sheet: the Sheet it is for (its unit system and significant
+            figures are used). system: "SI" or "US" when no sheet is given.
+    """
+    _SETTINGS.append(_pick_settings(sheet, system))
+    try:
+        return _beam_working(result, title)
+    finally:
+        _SETTINGS.pop()
+
+
+def _pick_settings(sheet: Any, system: str | None) -> DisplaySettings:
+    if sheet is not None and getattr(sheet, "settings", None) is not None:
+        out: DisplaySettings = sheet.settings
+        return out
+    base = get_display()
+    if system is None:
+        return base
+    from calcpack.units import validate_display
+
+    validate_display(system, None)
+    return DisplaySettings(system=system, sig_figs=base.sig_figs)
+
+
+def _beam_working(result: BeamResult, title: str | None) -> Any:
     beam = result.beam
     steps: list[Any] = [
         Heading(title or f"Beam {beam.name}: reactions ({result.label})", 2),
         Text(SIGN_CONVENTION),
     ]
     steps.append(
-        Table(
+        _table_step(
             columns=["support", "type", "x"],
             rows=[[s.label, s.kind, s.x] for s in beam.supports]
             + [[h.name or "", "internal hinge", h.x] for h in beam.hinges],
@@ -639,17 +729,22 @@ def beam_working(result: BeamResult, *, title: str | None = None) -> Any:
     hx = [s for s in beam.supports if s.restrains_h]
     if loads.axial:
         if len(hx) == 1:
-            H = Unknown(f"H_{hx[0].label}", unit="kN")
+            H = Unknown(f"H_{hx[0].label}", unit=_u("force"))
             total: Any = H
             for _, h in loads.axial:
                 total = total + h
-            steps.append(Equation(total, 0, label=r"\Sigma F_x = 0", description="+ toward +x"))
+            steps.append(
+                _equation_step(total, 0, label=r"\Sigma F_x = 0", description="+ toward +x")
+            )
             rest: Any = 0
             for _, h in loads.axial:
                 rest = rest - h
             steps.append(
-                Derived(
-                    f"H_{hx[0].label}", rest, f"horizontal reaction at {hx[0].label}", unit="kN"
+                _derived_step(
+                    f"H_{hx[0].label}",
+                    rest,
+                    f"horizontal reaction at {hx[0].label}",
+                    unit=_u("force"),
                 )
             )
         else:
@@ -693,8 +788,17 @@ def beam_working(result: BeamResult, *, title: str | None = None) -> Any:
 def _reaction_table(result: BeamResult) -> Any:
     rows = []
     for r in result.reactions:
-        rows.append([r.support, r.kind, r.x, r.Fy, r.Fx, r.C])
-    return Table(
+        rows.append(
+            [
+                r.support,
+                r.kind,
+                r.x.to(_u("length")),
+                r.Fy.to(_u("force")),
+                r.Fx.to(_u("force")),
+                r.C.to(_u("moment")),
+            ]
+        )
+    return _table_step(
         columns=["support", "type", "x", "R (up +)", "H (+x)", "M (clockwise +)"],
         rows=rows,
         caption=f"Reactions, {result.label}",
@@ -705,62 +809,79 @@ def extremes_steps(result: BeamResult) -> list[Any]:
     """Heading, a table of the extremes and the key values as Derived records."""
     e = result.extremes
     steps: list[Any] = [Heading("Shear, moment and deflection", 3)]
+    F, Mu, D, Lu = _u("force"), _u("moment"), _u("deflection"), _u("length")
     rows: list[list[Any]] = [
-        ["V max", e.V_max.value, e.V_max.x, e.V_max.side],
-        ["V min", e.V_min.value, e.V_min.x, e.V_min.side],
-        ["M max (sagging)", e.M_max.value, e.M_max.x, e.M_max.side],
-        ["M min (hogging if < 0)", e.M_min.value, e.M_min.x, e.M_min.side],
+        ["V max", e.V_max.value.to(F), e.V_max.x.to(Lu), e.V_max.side],
+        ["V min", e.V_min.value.to(F), e.V_min.x.to(Lu), e.V_min.side],
+        ["M max (sagging)", e.M_max.value.to(Mu), e.M_max.x.to(Lu), e.M_max.side],
+        ["M min (hogging if < 0)", e.M_min.value.to(Mu), e.M_min.x.to(Lu), e.M_min.side],
     ]
     if e.deflection_down is not None:
-        rows.append(["δ max, down", e.deflection_down.value, e.deflection_down.x, ""])
+        rows.append(["δ max, down", e.deflection_down.value.to(D), e.deflection_down.x.to(Lu), ""])
     if e.deflection_up is not None:
-        rows.append(["upward movement max", e.deflection_up.value, e.deflection_up.x, ""])
+        rows.append(
+            ["upward movement max", e.deflection_up.value.to(D), e.deflection_up.x.to(Lu), ""]
+        )
     if e.slope_left is not None and e.slope_right is not None:
-        rows.append(["slope at x = 0 (ccw +)", e.slope_left, Q_(0.0, "m"), ""])
-        rows.append(["slope at x = L (ccw +)", e.slope_right, result.beam.length, ""])
+        rows.append(["slope at x = 0 (ccw +)", e.slope_left, Q_(0.0, Lu), ""])
+        rows.append(["slope at x = L (ccw +)", e.slope_right, result.beam.length.to(Lu), ""])
     steps.append(
-        Table(
+        _table_step(
             columns=["quantity", "value", "at x", "side"],
             rows=rows,
             caption=f"Extremes, {result.label} (exact)",
         )
     )
-    zs = ", ".join(f"{x:~.3g}" for x in e.zero_shear) or "none inside the beam"
-    cf = ", ".join(f"{x:~.3g}" for x in e.contraflexure) or "none"
+    zs = ", ".join(f"{x.to(Lu):~.3g}" for x in e.zero_shear) or "none inside the beam"
+    cf = ", ".join(f"{x.to(Lu):~.3g}" for x in e.contraflexure) or "none"
     steps.append(Text(f"Zero shear at x = {zs}. Points of contraflexure at x = {cf}."))
     steps.append(
-        Derived("M_max", e.M_max.value, f"largest sagging moment, {result.beam.name}", unit="kN*m")
+        _derived_step(
+            "M_max", e.M_max.value, f"largest sagging moment, {result.beam.name}", unit=_u("moment")
+        )
     )
     steps.append(
-        Derived("M_min", e.M_min.value, f"most hogging moment, {result.beam.name}", unit="kN*m")
+        _derived_step(
+            "M_min", e.M_min.value, f"most hogging moment, {result.beam.name}", unit=_u("moment")
+        )
     )
     vabs = e.V_max if abs(e.V_max.value_si) >= abs(e.V_min.value_si) else e.V_min
     steps.append(
-        Derived(
+        _derived_step(
             "V_max",
             Q_(abs(vabs.value_si), "N"),
             f"largest shear magnitude, {result.beam.name}",
-            unit="kN",
+            unit=_u("force"),
         )
     )
     if e.deflection_down is not None:
         steps.append(
-            Derived(
+            _derived_step(
                 "delta_max",
                 e.deflection_down.value,
                 f"largest downward deflection, {result.beam.name}",
-                unit="mm",
+                unit=_u("deflection"),
             )
         )
     return steps
 
 
-def cut_working(result: BeamResult, x: Any, *, side: str = "left") -> Any:
+def cut_working(
+    result: BeamResult, x: Any, *, side: str = "left", sheet: Any = None, system: str | None = None
+) -> Any:
     """Cut-section working at ``x``: the free body of the part of the beam left of the cut,
     ΣFy = 0 and ΣM about the cut = 0 giving V and M from first principles.
 
     ``side="left"`` cuts just left of x (actions at x excluded), ``"right"`` just right of it.
     """
+    _SETTINGS.append(_pick_settings(sheet, system))
+    try:
+        return _cut_working(result, x, side)
+    finally:
+        _SETTINGS.pop()
+
+
+def _cut_working(result: BeamResult, x: Any, side: str) -> Any:
     from calcpack.loads._si import check
 
     beam = result.beam
@@ -794,12 +915,14 @@ def cut_working(result: BeamResult, x: Any, *, side: str = "left") -> Any:
             continue
         r = react[s.label]
         if s.restrains_v:
-            R = Given(f"R_{s.label}", r.Fy, f"reaction at {s.label} (from the analysis)", unit="kN")
+            R = _given_step(
+                f"R_{s.label}", r.Fy, f"reaction at {s.label} (from the analysis)", unit=_u("force")
+            )
             steps.append(R)
             rterms.append(("F", s.x_m, R))
         if s.restrains_rotation:
-            Mr = Given(
-                f"M_{s.label}", r.C, f"moment reaction at {s.label}, clockwise +", unit="kN*m"
+            Mr = _given_step(
+                f"M_{s.label}", r.C, f"moment reaction at {s.label}, clockwise +", unit=_u("moment")
             )
             steps.append(Mr)
             rterms.append(("C", s.x_m, Mr))
@@ -817,8 +940,8 @@ def cut_working(result: BeamResult, x: Any, *, side: str = "left") -> Any:
         "c",
         cut_side=side,
     )
-    V = Unknown("V", unit="kN")
-    M = Unknown("M", unit="kN*m")
+    V = Unknown("V", unit=_u("force"))
+    M = Unknown("M", unit=_u("moment"))
     lhsV: Any = None
     restV: Any = None
     for kind, _xs, t in rterms:
@@ -829,13 +952,13 @@ def cut_working(result: BeamResult, x: Any, *, side: str = "left") -> Any:
         lhsV = _acc(lhsV, sign, term)
         restV = _acc(restV, sign, term)
     lhsV = _acc(lhsV, -1.0, V)
-    steps.append(Equation(lhsV, 0, label=eqV.label, description=eqV.description))
+    steps.append(_equation_step(lhsV, 0, label=eqV.label, description=eqV.description))
     steps.append(
-        Derived(
+        _derived_step(
             "V",
             restV if restV is not None else Q_(0.0, "kN"),
             f"shear at x = {xq:~.4g} ({side})",
-            unit="kN",
+            unit=_u("force"),
         )
     )
     lhsM: Any = None
@@ -851,13 +974,13 @@ def cut_working(result: BeamResult, x: Any, *, side: str = "left") -> Any:
         lhsM = _acc(lhsM, sign, term)
         restM = _acc(restM, -sign, term)
     lhsM = _acc(lhsM, 1.0, M)
-    steps.append(Equation(lhsM, 0, label=eqM.label, description=eqM.description))
+    steps.append(_equation_step(lhsM, 0, label=eqM.label, description=eqM.description))
     steps.append(
-        Derived(
+        _derived_step(
             "M",
             restM if restM is not None else Q_(0.0, "kN*m"),
             f"bending moment at x = {xq:~.4g} ({side}), sagging +",
-            unit="kN*m",
+            unit=_u("moment"),
         )
     )
     return Block(steps=steps[1:], title=f"Cut at x = {xq:~.4g} ({side}), beam {beam.name}")
