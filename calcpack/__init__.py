@@ -17,6 +17,15 @@ from calcpack.errors import (
     VerificationError,
 )
 from calcpack.units import Q_, get_display, set_display, ureg
+from calcpack.working import (
+    Check,
+    Derived,
+    Equation,
+    Given,
+    Sheet,
+    Unknown,
+    sqrt,
+)
 
 try:
     __version__ = version("calcpack")
@@ -27,16 +36,23 @@ __all__ = [
     "Q_",
     "BuildError",
     "CalcpackError",
+    "Check",
+    "Derived",
     "DimensionError",
+    "Equation",
+    "Given",
     "InputError",
     "NotebookExecutionError",
     "OutOfScopeError",
+    "Sheet",
     "SigningError",
     "UndefinedSymbolError",
+    "Unknown",
     "UnstableStructureError",
     "VerificationError",
     "__version__",
     "get_display",
     "set_display",
+    "sqrt",
     "ureg",
 ]

@@ -183,7 +183,6 @@ PRESETS: dict[str, DisplayPreset] = {
             "N/m**3": "kN/m**3",
             "kg/m**3": "kg/m**3",
             "N*m**2": "kN*m**2",
-            "rad": "rad",
         },
     ),
     "US": DisplayPreset(
@@ -201,7 +200,6 @@ PRESETS: dict[str, DisplayPreset] = {
             "N/m**3": "pcf",
             "kg/m**3": "lb/ft**3",
             "N*m**2": "kip*inch**2",
-            "rad": "rad",
         },
     ),
 }

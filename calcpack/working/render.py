@@ -1,0 +1,386 @@
+"""Renderers for sheet steps: LaTeX (Jupyter), HTML with TeX math (Jupyter and the PDF
+pipeline) and plain text. They read steps; steps never format themselves.
+
+HTML contract (the package build relies on it): each step is a ``<div class="cp-step cp-KIND">``;
+math is TeX inside ``<span class="cp-math cp-math-display">\\[...\\]</span>`` or
+``<span class="cp-math cp-math-inline">\\(...\\)</span>``, HTML-escaped. A ``<style
+class="cp-style">`` block travels with each output so JupyterLab shows the layout; the PDF build
+drops it and uses its own stylesheet.
+"""
+
+from __future__ import annotations
+
+import html
+import re
+from typing import Any
+
+from calcpack.working.expr import Term, to_latex, to_text
+from calcpack.working.format import format_number, format_quantity_latex, format_quantity_text
+from calcpack.working.steps import (
+    RECORDS_MIMETYPE,
+    Block,
+    Check,
+    Derived,
+    Equation,
+    Given,
+    Heading,
+    NotCovered,
+    Step,
+    Table,
+    Text,
+    Value,
+    Verdict,
+)
+
+__all__ = ["STYLE", "mimebundle", "step_html", "step_latex", "step_text"]
+
+STYLE = """<style class="cp-style">
+.cp-step{display:grid;grid-template-columns:minmax(8em,22%) 1fr minmax(6em,18%);gap:0 1em;
+align-items:baseline;padding:.15em 0;border-bottom:1px dotted #c8ccd2;font-size:0.95em}
+.cp-body mjx-container[display="true"]{text-align:left!important;margin:.2em 0!important}
+.cp-desc{color:#333}.cp-ref{color:#555;font-size:.85em;text-align:right}
+.cp-src{color:#666;font-size:.85em}.cp-note{color:#555;font-size:.85em;font-style:italic}
+.cp-verdict{font-weight:bold;padding:0 .4em;border:1.5px solid;border-radius:2px}
+.cp-ok{color:#1d5e2a}.cp-notok{color:#a01010}.cp-nc{color:#7a5a00}
+.cp-heading{display:block;border-bottom:1.5px solid #333;margin-top:.6em}
+.cp-heading h2,.cp-heading h3,.cp-heading h4{margin:.2em 0}
+.cp-text,.cp-assume,.cp-caution,.cp-table,.cp-block{display:block}
+.cp-caution{border-left:4px solid #a06000;padding-left:.6em}
+.cp-assume{border-left:4px solid #4a6a8a;padding-left:.6em}
+.cp-table table{border-collapse:collapse;margin:.3em 0}
+.cp-table th,.cp-table td{border:1px solid #aab;padding:.1em .5em;text-align:right}
+.cp-table th{background:#eef0f3}
+</style>"""
+
+_WIDE = 60  # visible characters beyond which a derivation is broken over aligned lines
+
+
+def _esc(text: str) -> str:
+    return html.escape(text, quote=False)
+
+
+def _display_math(tex: str) -> str:
+    return f'<span class="cp-math cp-math-display">\\[{_esc(tex)}\\]</span>'
+
+
+def _inline_math(tex: str) -> str:
+    return f'<span class="cp-math cp-math-inline">\\({_esc(tex)}\\)</span>'
+
+
+def _visible_length(tex: str) -> int:
+    stripped = re.sub(r"\\(left|right|mathrm|mathit|frac|cdot|times|sqrt|,|\s)", "", tex)
+    stripped = re.sub(r"[{}^_\\ ]", "", stripped)
+    return len(stripped)
+
+
+def _prose_html(text: str) -> str:
+    """Escape prose and turn ``$...$`` into inline math spans, ``**x**`` into bold."""
+    parts = re.split(r"(?<!\\)\$(.+?)(?<!\\)\$", text)
+    out = []
+    for i, part in enumerate(parts):
+        if i % 2:
+            out.append(_inline_math(part))
+        else:
+            esc = _esc(part)
+            esc = re.sub(r"\*\*(.+?)\*\*", r"<strong>\1</strong>", esc)
+            out.append(esc)
+    return "".join(out)
+
+
+def _prose_latex(text: str) -> str:
+    return re.sub(r"([%#&])", r"\\\1", text)
+
+
+# -- derivation lines -----------------------------------------------------------------------
+
+
+def _derived_lines(step: Derived) -> list[str]:
+    """The right-hand sides after the symbol: formula, substitution, result (as applicable)."""
+    sig = step.sig
+    result = format_quantity_latex(step.display_quantity, sig)
+    if step.formula is None:
+        return [result]
+    symbolic = to_latex(step.formula, sig=sig)
+    lines = [symbolic]
+    if _has_values(step.formula):
+        subst = to_latex(step.formula, substitute=True, sig=sig)
+        if subst != symbolic:
+            lines.append(subst)
+    if lines[-1] != result:
+        lines.append(result)
+    return lines
+
+
+def _has_values(term: Term) -> bool:
+    return any(isinstance(b, Value) for b in term.bindings.values())
+
+
+def _equation_tex(lhs: str, rhs_lines: list[str]) -> str:
+    total = _visible_length(lhs) + sum(_visible_length(r) for r in rhs_lines)
+    if total <= _WIDE or len(rhs_lines) == 1:
+        return lhs + " = " + " = ".join(rhs_lines)
+    body = " \\\\ ".join(f"&= {r}" for r in rhs_lines)
+    return f"\\begin{{aligned}} {lhs} {body} \\end{{aligned}}"
+
+
+def _given_tex(step: Given) -> str:
+    return f"{step.latex_symbol} = {format_quantity_latex(step.display_quantity, step.sig)}"
+
+
+def _equation_lines(step: Equation) -> tuple[str, str]:
+    sig = step.sig
+    sym = f"{to_latex(step.lhs, sig=sig)} = {to_latex(step.rhs, sig=sig)}"
+    sub = (
+        f"{to_latex(step.lhs, substitute=True, sig=sig)} = "
+        f"{to_latex(step.rhs, substitute=True, sig=sig)}"
+    )
+    return sym, sub
+
+
+def _check_tex(step: Check) -> tuple[str, str]:
+    sig = step.sig
+    d = format_quantity_latex(step.demand_q, sig)
+    c = format_quantity_latex(step.capacity_q, sig)
+    dsym = step.demand.latex_symbol if isinstance(step.demand, Value) else ""
+    csym = step.capacity.latex_symbol if isinstance(step.capacity, Value) else ""
+    rel = r"\le" if step.passed else r">"
+    left = f"\\left|{dsym}\\right| = {d}" if dsym else d
+    if dsym and float(step.demand_q.magnitude) >= 0:
+        left = f"{dsym} = {d}"
+    right = f"{csym} = {c}" if csym else c
+    comparison = f"{left} \\;{rel}\\; {right}"
+    num = format_number(abs(float(step.demand_q.magnitude)), sig, latex=True)
+    den = format_number(float(step.capacity_q.magnitude), sig, latex=True)
+    util = format_number(step.utilisation, sig, latex=True)
+    ratio = f"\\eta = \\frac{{{num}}}{{{den}}} = {util}"
+    return comparison, ratio
+
+
+def _verdict_html(verdict: str) -> str:
+    cls = {Verdict.OK: "cp-ok", Verdict.NOT_OK: "cp-notok"}.get(verdict, "cp-nc")
+    return f'<span class="cp-verdict {cls}">{_esc(verdict)}</span>'
+
+
+# -- HTML ------------------------------------------------------------------------------------
+
+
+def _row(kind: str, desc: str, body: str, ref: str = "", name: str | None = None) -> str:
+    attr = f' data-name="{html.escape(name)}"' if name else ""
+    return (
+        f'<div class="cp-step cp-{kind}"{attr}><div class="cp-desc">{desc}</div>'
+        f'<div class="cp-body">{body}</div><div class="cp-ref">{ref}</div></div>'
+    )
+
+
+def _step_html_body(step: Step) -> str:
+    if isinstance(step, Given):
+        src = f'<div class="cp-src">{_esc(step.source)}</div>' if step.source else ""
+        return _row(
+            "given", _prose_html(step.description), _display_math(_given_tex(step)), src, step.name
+        )
+    if isinstance(step, Derived):
+        tex = _equation_tex(step.latex_symbol, _derived_lines(step))
+        note = f'<div class="cp-note">{_prose_html(step.note)}</div>' if step.note else ""
+        return _row(
+            "derived",
+            _prose_html(step.description),
+            _display_math(tex) + note,
+            _esc(step.ref or ""),
+            step.name,
+        )
+    if isinstance(step, Equation):
+        sym, sub = _equation_lines(step)
+        label = _inline_math(step.label) if step.label else ""
+        desc = _prose_html(step.description) + (" " if step.description else "") + label
+        body = _display_math(sym) + (_display_math(sub) if sub != sym else "")
+        return _row("equation", desc, body)
+    if isinstance(step, Check):
+        comparison, ratio = _check_tex(step)
+        body = (
+            _display_math(comparison)
+            + _display_math(ratio)
+            + f'<div class="cp-vline">{_verdict_html(step.verdict)}</div>'
+        )
+        member = f"{_esc(step.member)}: " if step.member else ""
+        combo = f'<div class="cp-note">{_esc(step.combination)}</div>' if step.combination else ""
+        desc = f"<strong>{member}{_esc(step.name)}</strong> {_prose_html(step.description)}"
+        return _row("check", desc, body + combo, _esc(step.ref or ""), step.name)
+    if isinstance(step, NotCovered):
+        body = f"{_verdict_html(step.verdict)} {_prose_html(step.reason)}"
+        return _row("check", f"<strong>{_esc(step.name)}</strong>", body, _esc(step.ref or ""))
+    if isinstance(step, Heading):
+        lvl = min(step.level + 1, 4)
+        return f'<div class="cp-step cp-heading"><h{lvl}>{_prose_html(step.title)}</h{lvl}></div>'
+    if isinstance(step, Text):
+        labels = {
+            "assume": "<strong>Assumption.</strong> ",
+            "caution": "<strong>Caution.</strong> ",
+        }
+        paras = [p for p in re.split(r"\n\s*\n", step.body.strip()) if p.strip()]
+        inner = "".join(
+            f"<p>{labels.get(step.kind, '') if i == 0 else ''}{_prose_html(p)}</p>"
+            for i, p in enumerate(paras)
+        )
+        return f'<div class="cp-step cp-{step.kind}">{inner}</div>'
+    if isinstance(step, Table):
+        head = "".join(f"<th>{_prose_html(c)}</th>" for c in step.columns)
+        body = "".join(
+            "<tr>" + "".join(f"<td>{_cell_html(c, step.sig)}</td>" for c in r) + "</tr>"
+            for r in step.rows
+        )
+        cap = f"<caption>{_prose_html(step.caption)}</caption>" if step.caption else ""
+        return (
+            f'<div class="cp-step cp-table"><table>{cap}<thead><tr>{head}</tr></thead>'
+            f"<tbody>{body}</tbody></table></div>"
+        )
+    if isinstance(step, Block):
+        title = f'<div class="cp-step cp-heading"><h4>{_esc(step.title or "")}</h4></div>'
+        inner = "".join(_step_html_body(s) for s in step.steps)
+        return f'<div class="cp-step cp-block">{title if step.title else ""}{inner}</div>'
+    raise TypeError(f"no HTML renderer for {type(step).__name__}")
+
+
+def _cell_html(cell: Any, sig: int) -> str:
+    import pint
+
+    if isinstance(cell, Value):
+        return _esc(format_quantity_text(cell.display_quantity, sig))
+    if isinstance(cell, pint.Quantity):
+        return _esc(format_quantity_text(cell, sig))
+    if isinstance(cell, bool) or cell is None:
+        return _esc("" if cell is None else str(cell))
+    if isinstance(cell, int | float):
+        return _esc(format_number(float(cell), sig))
+    return _prose_html(str(cell))
+
+
+def _cell_text(cell: Any, sig: int) -> str:
+    import pint
+
+    if isinstance(cell, Value):
+        return format_quantity_text(cell.display_quantity, sig)
+    if isinstance(cell, pint.Quantity):
+        return format_quantity_text(cell, sig)
+    if isinstance(cell, bool) or cell is None:
+        return "" if cell is None else str(cell)
+    if isinstance(cell, int | float):
+        return format_number(float(cell), sig)
+    return str(cell)
+
+
+def step_html(step: Step) -> str:
+    """One step (or block) as HTML with its style block, ready for Jupyter or the build."""
+    return STYLE + _step_html_body(step)
+
+
+def steps_html(steps: list[Step]) -> str:
+    """Several steps as one HTML fragment with a single style block."""
+    return STYLE + "".join(_step_html_body(s) for s in steps)
+
+
+# -- LaTeX -----------------------------------------------------------------------------------
+
+
+def _latex_body(step: Step) -> str:
+    if isinstance(step, Given):
+        return _given_tex(step)
+    if isinstance(step, Derived):
+        return _equation_tex(step.latex_symbol, _derived_lines(step))
+    if isinstance(step, Equation):
+        sym, sub = _equation_lines(step)
+        lab = f"{step.label}:\\quad " if step.label else ""
+        return lab + sym + (f" \\;\\Rightarrow\\; {sub}" if sub != sym else "")
+    if isinstance(step, Check):
+        comparison, ratio = _check_tex(step)
+        return f"{comparison},\\quad {ratio}\\quad \\text{{{step.verdict}}}"
+    if isinstance(step, NotCovered):
+        return f"\\text{{{step.name}: {step.verdict}}}"
+    if isinstance(step, Heading | Text):
+        body = step.title if isinstance(step, Heading) else step.body
+        return f"\\text{{{_prose_latex(re.sub(r'[$]', '', body))}}}"
+    if isinstance(step, Table):
+        return f"\\text{{[table: {len(step.rows)} rows]}}"
+    if isinstance(step, Block):
+        return " \\\\ ".join(_latex_body(s) for s in step.steps)
+    raise TypeError(f"no LaTeX renderer for {type(step).__name__}")
+
+
+def step_latex(step: Step) -> str:
+    """One step as display LaTeX (``$$...$$``) for Jupyter's text/latex output."""
+    if isinstance(step, Block):
+        return "$$\\begin{gathered}" + _latex_body(step) + "\\end{gathered}$$"
+    return f"$${_latex_body(step)}$$"
+
+
+# -- plain text ------------------------------------------------------------------------------
+
+
+def step_text(step: Step) -> str:
+    """One step as plain text, one or more lines."""
+    sig = step.sig
+    if isinstance(step, Given):
+        src = f"  [{step.source}]" if step.source else ""
+        desc = f"  ({step.description})" if step.description else ""
+        return f"{step.text_symbol} = {step.result_text()}{desc}{src}"
+    if isinstance(step, Derived):
+        parts = [step.text_symbol]
+        if step.formula is not None:
+            parts.append(to_text(step.formula, sig=sig))
+            if _has_values(step.formula):
+                parts.append(to_text(step.formula, substitute=True, sig=sig))
+        parts.append(step.result_text())
+        dedup = [parts[0]] + [p for i, p in enumerate(parts[1:], 1) if p != parts[i - 1]]
+        ref = f"  [{step.ref}]" if step.ref else ""
+        desc = f"  ({step.description})" if step.description else ""
+        return " = ".join(dedup) + desc + ref
+    if isinstance(step, Equation):
+        lab = f"{_plain_label(step.label)}: " if step.label else ""
+        sym = f"{to_text(step.lhs, sig=sig)} = {to_text(step.rhs, sig=sig)}"
+        sub = (
+            f"{to_text(step.lhs, substitute=True, sig=sig)} = "
+            f"{to_text(step.rhs, substitute=True, sig=sig)}"
+        )
+        return lab + sym + (f"  →  {sub}" if sub != sym else "")
+    if isinstance(step, Check):
+        rel = "≤" if step.passed else ">"
+        d = format_quantity_text(step.demand_q, sig)
+        c = format_quantity_text(step.capacity_q, sig)
+        who = f"{step.member}: " if step.member else ""
+        ref = f"  [{step.ref}]" if step.ref else ""
+        util = format_number(step.utilisation, sig)
+        return f"{who}{step.name}: {d} {rel} {c}, utilisation {util}  {step.verdict}{ref}"
+    if isinstance(step, NotCovered):
+        return f"{step.name}: {step.verdict} — {step.reason}"
+    if isinstance(step, Heading):
+        return step.title.upper() if step.level <= 2 else step.title
+    if isinstance(step, Text):
+        prefix = {"assume": "Assumption: ", "caution": "Caution: "}.get(step.kind, "")
+        return prefix + step.body
+    if isinstance(step, Table):
+        rows = [step.columns] + [[_cell_text(c, sig) for c in r] for r in step.rows]
+        widths = [max(len(str(r[i])) for r in rows) for i in range(len(step.columns))]
+        lines = [" | ".join(str(c).rjust(w) for c, w in zip(r, widths, strict=True)) for r in rows]
+        lines.insert(1, "-+-".join("-" * w for w in widths))
+        return "\n".join(([step.caption] if step.caption else []) + lines)
+    if isinstance(step, Block):
+        head = [step.title] if step.title else []
+        return "\n".join(head + [step_text(s) for s in step.steps])
+    raise TypeError(f"no text renderer for {type(step).__name__}")
+
+
+def _plain_label(tex: str) -> str:
+    out = re.sub(r"\\(Sigma|sum)\s*", "Σ", tex).replace("\\", "")
+    return re.sub(r"[{}]", "", out)
+
+
+def mimebundle(step: Step) -> dict[str, Any]:
+    """The rich-display bundle: HTML, LaTeX, plain text and the step's records."""
+    bundle: dict[str, Any] = {
+        "text/html": step_html(step),
+        "text/latex": step_latex(step),
+        "text/plain": step_text(step),
+    }
+    records = step.records()
+    if records:
+        bundle[RECORDS_MIMETYPE] = records
+    return bundle

@@ -1,0 +1,252 @@
+"""A calculation sheet: steps in order, its display settings, and its values as data.
+
+Inside a Jupyter kernel each step a sheet method creates is displayed at once, so a cell like
+``M = s.derive("M", w * L**2 / 8)`` shows its working; assign the result to keep the cell's
+last line from displaying it a second time. Outside a kernel nothing is displayed.
+"""
+
+from __future__ import annotations
+
+import sys
+from typing import Any
+
+import pint
+
+from calcpack.units import DisplaySettings, get_display, validate_display
+from calcpack.working.expr import Term
+from calcpack.working.steps import (
+    Assume,
+    Caution,
+    Check,
+    CheckRecord,
+    Derived,
+    Equation,
+    Given,
+    Heading,
+    NotCovered,
+    Record,
+    Step,
+    Table,
+    Text,
+    Value,
+)
+
+__all__ = ["Sheet"]
+
+
+def _in_kernel() -> bool:
+    ipython = sys.modules.get("IPython")
+    if ipython is None:
+        return False
+    shell = ipython.get_ipython()
+    return shell is not None and getattr(shell, "kernel", None) is not None
+
+
+class Sheet:
+    """An ordered calculation sheet.
+
+    Args:
+        title: the sheet title (the package's project file may also give one).
+        system: display unit system, ``"SI"`` or ``"US"`` (default: the global setting).
+        sig_figs: significant figures shown (default: the global setting, 3).
+        standards: design standards the sheet applies (collected into the design basis).
+        auto_display: show each new step when running in a Jupyter kernel.
+    """
+
+    def __init__(
+        self,
+        title: str = "",
+        *,
+        system: str | None = None,
+        sig_figs: int | None = None,
+        standards: list[str] | None = None,
+        auto_display: bool = True,
+    ) -> None:
+        validate_display(system, sig_figs)
+        base = get_display()
+        self.title = title
+        self.settings = DisplaySettings(
+            system=system or base.system, sig_figs=sig_figs or base.sig_figs
+        )
+        self.steps: list[Step] = []
+        self.standards = list(standards or [])
+        self.auto_display = auto_display
+        self._names: dict[str, Value] = {}
+
+    # -- adding steps --------------------------------------------------------------------
+    def add(self, step: Step) -> Step:
+        """Append any step (or a block of steps from an analysis) and show it in a kernel."""
+        if not isinstance(step, Step):
+            from calcpack.errors import InputError
+
+            raise InputError(
+                f"Sheet.add takes a working step (got {type(step).__name__})",
+                name="step",
+                value=step,
+                expected="a calcpack.working Step",
+            )
+        if getattr(step, "settings", None) is None and hasattr(step, "settings"):
+            step.settings = self.settings
+        self.steps.append(step)
+        if isinstance(step, Value):
+            self._names[step.name] = step
+        if self.auto_display and _in_kernel():
+            step._ipython_display_()
+        return step
+
+    def given(
+        self,
+        name: str,
+        value: pint.Quantity | float | int,
+        description: str = "",
+        *,
+        source: str | None = None,
+        unit: str | None = None,
+        latex: str | None = None,
+    ) -> Given:
+        """Add an input value; see :class:`~calcpack.working.steps.Given`."""
+        step = Given(
+            name, value, description, source=source, unit=unit, latex=latex, settings=self.settings
+        )
+        self.add(step)
+        return step
+
+    def derive(
+        self,
+        name: str,
+        formula: Term | pint.Quantity,
+        description: str = "",
+        *,
+        unit: str | None = None,
+        ref: str | None = None,
+        note: str | None = None,
+        latex: str | None = None,
+    ) -> Derived:
+        """Add a derived value; see :class:`~calcpack.working.steps.Derived`."""
+        step = Derived(
+            name,
+            formula,
+            description,
+            unit=unit,
+            ref=ref,
+            note=note,
+            latex=latex,
+            settings=self.settings,
+        )
+        self.add(step)
+        return step
+
+    def check(
+        self,
+        name: str,
+        demand: Value | pint.Quantity,
+        capacity: Value | pint.Quantity,
+        *,
+        ref: str | None = None,
+        member: str | None = None,
+        combination: str | None = None,
+        description: str = "",
+    ) -> Check:
+        """Add a check of demand against capacity; see :class:`~calcpack.working.steps.Check`."""
+        step = Check(
+            name,
+            demand,
+            capacity,
+            ref=ref,
+            member=member,
+            combination=combination,
+            description=description,
+            settings=self.settings,
+        )
+        self.add(step)
+        return step
+
+    def not_covered(
+        self, name: str, reason: str, *, ref: str | None = None, member: str | None = None
+    ) -> NotCovered:
+        """Record a check this method cannot make (verdict NOT COVERED, with the reason)."""
+        step = NotCovered(name, reason, ref=ref, member=member, settings=self.settings)
+        self.add(step)
+        return step
+
+    def equation(
+        self,
+        lhs: Term | pint.Quantity | float,
+        rhs: Term | pint.Quantity | float = 0,
+        *,
+        label: str | None = None,
+        description: str = "",
+    ) -> Equation:
+        """Add an equation with knowns substituted; see :class:`~calcpack.working.Equation`."""
+        step = Equation(lhs, rhs, label=label, description=description, settings=self.settings)
+        self.add(step)
+        return step
+
+    def heading(self, text: str, level: int = 2) -> Heading:
+        """Add a heading."""
+        step = Heading(text, level)
+        self.add(step)
+        return step
+
+    def text(self, body: str) -> Text:
+        """Add a paragraph (``$...$`` for inline TeX)."""
+        step = Text(body)
+        self.add(step)
+        return step
+
+    def assume(self, body: str) -> Assume:
+        """Declare an assumption (also listed in the package's assumptions block)."""
+        step = Assume(body)
+        self.add(step)
+        return step
+
+    def caution(self, body: str) -> Caution:
+        """Declare a caution (also listed in the package's caution block)."""
+        step = Caution(body)
+        self.add(step)
+        return step
+
+    def table(
+        self, columns: list[str], rows: list[list[Any]], *, caption: str | None = None
+    ) -> Table:
+        """Add a table."""
+        step = Table(columns, rows, caption=caption, settings=self.settings)
+        self.add(step)
+        return step
+
+    # -- data ---------------------------------------------------------------------------
+    def __getitem__(self, name: str) -> Value:
+        return self._names[name]
+
+    def values(self) -> list[Record]:
+        """Every given and derived value as data (name, value, unit, description, kind)."""
+        return [s.record() for s in self.steps if isinstance(s, Value)]
+
+    def checks(self) -> list[CheckRecord]:
+        """Every check as data, in sheet order."""
+        return [s.record() for s in self.steps if isinstance(s, Check | NotCovered)]
+
+    def records(self) -> dict[str, list[Any]]:
+        """All records of the sheet, as the package manifest stores them."""
+        out: dict[str, list[Any]] = {"standards": list(self.standards)}
+        for s in self.steps:
+            for k, v in s.records().items():
+                out.setdefault(k, []).extend(v)
+        return out
+
+    # -- display ------------------------------------------------------------------------
+    def text_report(self) -> str:
+        """The whole sheet as plain text."""
+        head = [self.title, "=" * len(self.title)] if self.title else []
+        return "\n".join(head + [s.text() for s in self.steps])
+
+    def _repr_mimebundle_(self, include: Any = None, exclude: Any = None) -> dict[str, Any]:
+        from calcpack.working import render
+
+        return {
+            "text/html": render.steps_html(self.steps),
+            "text/plain": self.text_report(),
+        }
+
+    def __repr__(self) -> str:
+        return f"Sheet({self.title!r}, {len(self.steps)} steps)"

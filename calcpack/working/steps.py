@@ -1,0 +1,689 @@
+"""The steps of a calculation sheet: inputs, derived values, equations, checks and text.
+
+Each step is data; renderers in :mod:`calcpack.working.render` read it. Every step shows itself
+in Jupyter (``_repr_mimebundle_``: HTML with TeX math, LaTeX, plain text and the step's records
+for the package manifest) and as ``text()``.
+"""
+
+from __future__ import annotations
+
+import math
+from collections.abc import Iterable, Sequence
+from dataclasses import dataclass, field
+from typing import Any
+
+import pint
+import sympy
+
+from calcpack.errors import DimensionError, InputError
+from calcpack.units import DisplaySettings, get_display, ureg
+from calcpack.working.expr import (
+    Literal,
+    Term,
+    as_term,
+    evaluate,
+    symbol_latex,
+    symbol_text,
+)
+from calcpack.working.format import format_quantity_text, format_unit_text
+
+__all__ = [
+    "RECORDS_MIMETYPE",
+    "Assume",
+    "Block",
+    "Caution",
+    "Check",
+    "CheckRecord",
+    "Derived",
+    "Equation",
+    "Given",
+    "Heading",
+    "Record",
+    "Step",
+    "Table",
+    "Text",
+    "Unknown",
+    "Value",
+    "Verdict",
+]
+
+RECORDS_MIMETYPE = "application/vnd.calcpack.records+json"
+
+
+class Verdict:
+    """The verdict words of a check."""
+
+    OK = "OK"
+    NOT_OK = "NOT OK"
+    NOT_COVERED = "NOT COVERED"
+
+
+@dataclass(frozen=True)
+class Record:
+    """A named value as data, for manifests and revision comparisons.
+
+    ``value`` is the full-precision magnitude in ``unit`` (the unit the sheet displays).
+    """
+
+    name: str
+    symbol: str
+    value: float
+    unit: str
+    description: str
+    kind: str
+
+    def to_json(self) -> dict[str, Any]:
+        return {
+            "name": self.name,
+            "symbol": self.symbol,
+            "value": self.value,
+            "unit": self.unit,
+            "description": self.description,
+            "kind": self.kind,
+        }
+
+
+@dataclass(frozen=True)
+class CheckRecord:
+    """A check as data: demand and capacity in ``unit``, utilisation = |demand| / capacity."""
+
+    name: str
+    member: str | None
+    demand: float | None
+    capacity: float | None
+    unit: str
+    utilisation: float | None
+    verdict: str
+    ref: str | None
+    combination: str | None
+    description: str
+
+    def to_json(self) -> dict[str, Any]:
+        return {
+            "name": self.name,
+            "member": self.member,
+            "demand": self.demand,
+            "capacity": self.capacity,
+            "unit": self.unit,
+            "utilisation": self.utilisation,
+            "verdict": self.verdict,
+            "ref": self.ref,
+            "combination": self.combination,
+            "description": self.description,
+        }
+
+
+class Step:
+    """Base of every sheet step. ``settings`` are the owning sheet's display settings."""
+
+    kind = "step"
+    settings: DisplaySettings | None = None
+
+    @property
+    def sig(self) -> int:
+        return (self.settings or get_display()).sig_figs
+
+    def records(self) -> dict[str, list[Any]]:
+        """This step's contribution to the manifest (values, checks, assumptions, cautions)."""
+        return {}
+
+    def latex(self) -> str:
+        from calcpack.working import render
+
+        return render.step_latex(self)
+
+    def html(self) -> str:
+        from calcpack.working import render
+
+        return render.step_html(self)
+
+    def text(self) -> str:
+        from calcpack.working import render
+
+        return render.step_text(self)
+
+    def _repr_latex_(self) -> str:
+        return self.latex()
+
+    def _repr_html_(self) -> str:
+        return self.html()
+
+    def _repr_mimebundle_(self, include: Any = None, exclude: Any = None) -> dict[str, Any]:
+        from calcpack.working import render
+
+        return render.mimebundle(self)
+
+    # The cell in which a sheet already showed this step; a second showing in the same cell
+    # (the cell's last line returning the step) is skipped so nothing is shown or recorded twice.
+    _shown_in: int | None = None
+
+    def _ipython_display_(self) -> None:
+        import IPython
+        from IPython.display import publish_display_data
+
+        count = getattr(IPython.get_ipython(), "execution_count", None)
+        if self._shown_in is not None and self._shown_in == count:
+            return
+        self._shown_in = count
+        publish_display_data(self._repr_mimebundle_())
+
+    def __str__(self) -> str:
+        return self.text()
+
+
+def _settings_or_global(settings: DisplaySettings | None) -> DisplaySettings:
+    return settings or get_display()
+
+
+def _check_name(name: object) -> str:
+    if not isinstance(name, str) or not name or not name.replace("_", "a").isalnum():
+        raise InputError(
+            f"A value's name must be a symbol like 'L', 'M_max' or 'sigma_b' (got {name!r})",
+            name="name",
+            value=name,
+            expected="letters and digits joined by underscores",
+        )
+    return name
+
+
+class Value(Step, Term):
+    """A named quantity that can appear in formulas (base of :class:`Given` and :class:`Derived`).
+
+    Attributes:
+        name: the symbol name (``"M_max"``); ``latex_symbol`` and ``text_symbol`` its forms.
+        quantity: the value at full precision, in the units it was computed in.
+        display_unit: the unit the sheet shows it in.
+    """
+
+    def __init__(
+        self,
+        name: str,
+        quantity: pint.Quantity,
+        description: str = "",
+        *,
+        unit: str | pint.Unit | None = None,
+        latex: str | None = None,
+        settings: DisplaySettings | None = None,
+    ) -> None:
+        self.name = _check_name(name)
+        self.description = description
+        self.settings = settings
+        self._latex = latex
+        sym = sympy.Dummy(name)
+        Term.__init__(self, sym, {sym: self})
+        self.quantity = quantity
+        self.display_unit = _display_unit(quantity, unit, name, settings)
+
+    @property
+    def value(self) -> pint.Quantity:
+        """The full-precision quantity (same as ``quantity``)."""
+        return self.quantity
+
+    @property
+    def display_quantity(self) -> pint.Quantity:
+        return self.quantity.to(self.display_unit)
+
+    @property
+    def latex_symbol(self) -> str:
+        return self._latex or symbol_latex(self.name)
+
+    @property
+    def text_symbol(self) -> str:
+        return symbol_text(self.name)
+
+    def to(self, unit: str | pint.Unit) -> pint.Quantity:
+        """The value converted to ``unit``."""
+        return self.quantity.to(unit)
+
+    @property
+    def magnitude(self) -> float:
+        """The magnitude in the display unit."""
+        return float(self.display_quantity.magnitude)
+
+    def record(self) -> Record:
+        return Record(
+            name=self.name,
+            symbol=self.latex_symbol,
+            value=self.magnitude,
+            unit=format_unit_text(self.display_unit),
+            description=self.description,
+            kind=self.kind,
+        )
+
+    def records(self) -> dict[str, list[Any]]:
+        return {"values": [self.record().to_json()]}
+
+    def __repr__(self) -> str:
+        return f"{type(self).__name__}({self.text_symbol} = {self.result_text()})"
+
+    def result_text(self) -> str:
+        return format_quantity_text(self.display_quantity, self.sig)
+
+    __hash__ = object.__hash__
+
+    def __format__(self, spec: str) -> str:
+        return format(self.display_quantity, spec) if spec else self.result_text()
+
+
+def _display_unit(
+    quantity: pint.Quantity,
+    unit: str | pint.Unit | None,
+    name: str,
+    settings: DisplaySettings | None,
+) -> pint.Unit:
+    if unit is not None:
+        try:
+            target = ureg.Unit(unit) if isinstance(unit, str) else unit
+        except (pint.UndefinedUnitError, ValueError, AttributeError) as exc:
+            raise InputError(
+                f"Display unit for {name} is not a known unit (got {unit!r})",
+                name=name,
+                value=unit,
+                expected="a unit such as 'kN*m', 'MPa', 'mm**4'",
+            ) from exc
+        if target.dimensionality != quantity.dimensionality:
+            raise DimensionError(
+                f"{name} cannot be shown in {target:~P}: its value {quantity:~P} has dimension "
+                f"{quantity.dimensionality}, {target:~P} has {target.dimensionality}",
+                name=name,
+                value=quantity,
+                expected=f"a unit of {quantity.dimensionality}",
+            )
+        return target
+    return quantity.units
+
+
+def _check_finite(name: str, quantity: pint.Quantity) -> None:
+    try:
+        ok = math.isfinite(float(quantity.magnitude))
+    except TypeError as exc:
+        raise InputError(
+            f"{name} must be a single number with units (got {quantity!r})",
+            name=name,
+            value=quantity,
+            expected="a scalar quantity",
+        ) from exc
+    if not ok:
+        raise InputError(
+            f"{name} must be finite (got {name} = {quantity:~P})",
+            name=name,
+            value=quantity,
+            expected="a finite value",
+        )
+
+
+class Given(Value):
+    """An input value: symbol, value with unit, description and optional source.
+
+    Args:
+        name: symbol name (``"L"``, ``"f_y"``, ``"sigma_allow"``).
+        value: a pint quantity; a bare number is a dimensionless input.
+        description: words for the checker (``"clear span"``).
+        source: where the value comes from (drawing, code table, manufacturer's data).
+        unit: optional display unit (default: the unit as entered).
+    """
+
+    kind = "given"
+
+    def __init__(
+        self,
+        name: str,
+        value: pint.Quantity | float | int,
+        description: str = "",
+        *,
+        source: str | None = None,
+        unit: str | pint.Unit | None = None,
+        latex: str | None = None,
+        settings: DisplaySettings | None = None,
+    ) -> None:
+        if isinstance(value, bool) or not isinstance(value, pint.Quantity | int | float):
+            raise InputError(
+                f"Given {name} must be a quantity such as 3.2 * ureg.m (got {value!r})",
+                name=name,
+                value=value,
+                expected="a pint Quantity or a number",
+            )
+        q = value if isinstance(value, pint.Quantity) else ureg.Quantity(value, "dimensionless")
+        _check_finite(f"Given {name}", q)
+        super().__init__(name, q, description, unit=unit, latex=latex, settings=settings)
+        self.source = source
+
+
+class Derived(Value):
+    """A value computed from a formula over earlier values, evaluated with pint.
+
+    Args:
+        name: symbol name of the result.
+        formula: a :class:`~calcpack.working.expr.Term` built from earlier values (or a pint
+            quantity computed elsewhere, e.g. by an analysis, which then shows no formula).
+        description: what the value is.
+        unit: display unit (default: the sheet's preset for the dimension, else as computed).
+        ref: code clause, handbook or sheet reference shown beside the step.
+        note: a short remark shown under the step.
+
+    Raises:
+        DimensionError: a unit error inside the formula (naming the formula and both units), or a
+            display unit of another dimension.
+        InputError: the formula evaluates to NaN or infinity.
+    """
+
+    kind = "derived"
+
+    def __init__(
+        self,
+        name: str,
+        formula: Term | pint.Quantity,
+        description: str = "",
+        *,
+        unit: str | pint.Unit | None = None,
+        ref: str | None = None,
+        note: str | None = None,
+        latex: str | None = None,
+        settings: DisplaySettings | None = None,
+    ) -> None:
+        _check_name(name)
+        if isinstance(formula, pint.Quantity):
+            self.formula: Term | None = None
+            q = formula
+        elif isinstance(formula, Term):
+            self.formula = formula
+            q = evaluate(formula, name=name)
+        else:
+            raise InputError(
+                f"Formula for {name} must be built from calcpack values or be a quantity "
+                f"(got {formula!r})",
+                name=name,
+                value=formula,
+                expected="a Term (e.g. w * L**2 / 8) or a pint Quantity",
+            )
+        if unit is None:
+            q = q.to_reduced_units()
+        _check_finite(f"{name} = {self._formula_text() if self.formula else 'value'}", q)
+        if unit is None:
+            preset = _settings_or_global(settings).preset.unit_for(q)
+            unit = preset
+        super().__init__(name, q, description, unit=unit, latex=latex, settings=settings)
+        self.ref = ref
+        self.note = note
+
+    def _formula_text(self) -> str:
+        from calcpack.working.expr import to_text
+
+        return to_text(self.formula) if self.formula is not None else ""
+
+
+class Unknown(Term):
+    """A symbol with no value yet, used in equilibrium and compatibility equations.
+
+    Args:
+        name: symbol name (``"R_A"``).
+        unit: the unit its solution will be shown in (informative).
+    """
+
+    def __init__(self, name: str, *, unit: str | None = None, latex: str | None = None) -> None:
+        self.name = _check_name(name)
+        self.unit = unit
+        self._latex = latex
+        sym = sympy.Dummy(name)
+        super().__init__(sym, {sym: self})
+
+    @property
+    def latex_symbol(self) -> str:
+        return self._latex or symbol_latex(self.name)
+
+    @property
+    def text_symbol(self) -> str:
+        return symbol_text(self.name)
+
+    __hash__ = object.__hash__
+
+
+class Equation(Step):
+    """An equation written symbolically, then with known values substituted (unknowns kept).
+
+    Args:
+        lhs, rhs: the two sides (terms, quantities or numbers; ``rhs`` defaults to 0).
+        label: a heading for the equation, e.g. ``r"\\Sigma M_A = 0"`` (TeX).
+        description: words for the checker.
+    """
+
+    kind = "equation"
+
+    def __init__(
+        self,
+        lhs: Term | pint.Quantity | float,
+        rhs: Term | pint.Quantity | float = 0,
+        *,
+        label: str | None = None,
+        description: str = "",
+        settings: DisplaySettings | None = None,
+    ) -> None:
+        self.lhs = as_term(lhs)
+        self.rhs = as_term(rhs)
+        self.label = label
+        self.description = description
+        self.settings = settings
+
+
+class Check(Step):
+    """A check of demand against capacity: utilisation |demand| / capacity and a verdict.
+
+    Args:
+        name: what is checked (``"Bending"``).
+        demand, capacity: values or quantities of one dimension; capacity must be positive.
+        ref: the clause that sets the capacity or the limit.
+        member: the member checked.
+        combination: the governing load combination.
+        description: words for the checker.
+
+    Raises:
+        DimensionError: demand and capacity of different dimensions.
+        InputError: capacity not positive, or either value not finite.
+    """
+
+    kind = "check"
+
+    def __init__(
+        self,
+        name: str,
+        demand: Value | pint.Quantity,
+        capacity: Value | pint.Quantity,
+        *,
+        ref: str | None = None,
+        member: str | None = None,
+        combination: str | None = None,
+        description: str = "",
+        settings: DisplaySettings | None = None,
+    ) -> None:
+        self.name = name
+        self.ref = ref
+        self.member = member
+        self.combination = combination
+        self.description = description
+        self.settings = settings
+        self.demand = demand
+        self.capacity = capacity
+        dq = demand.quantity if isinstance(demand, Value) else demand
+        cq = capacity.quantity if isinstance(capacity, Value) else capacity
+        for label, q in (("demand", dq), ("capacity", cq)):
+            if not isinstance(q, pint.Quantity):
+                raise InputError(
+                    f"Check {name!r}: {label} must be a quantity or a calcpack value (got {q!r})",
+                    name=label,
+                    value=q,
+                    expected="a pint Quantity or Value",
+                )
+            _check_finite(f"Check {name!r} {label}", q)
+        if dq.dimensionality != cq.dimensionality:
+            raise DimensionError(
+                f"Check {name!r} compares quantities of different dimensions: demand {dq:~P} "
+                f"({dq.dimensionality}) against capacity {cq:~P} ({cq.dimensionality})",
+                name=name,
+                value=(dq, cq),
+                expected="demand and capacity of one dimension",
+            )
+        if not float(cq.magnitude) > 0:
+            raise InputError(
+                f"Check {name!r}: capacity must be positive (got {cq:~P})",
+                name="capacity",
+                value=cq,
+                expected="a capacity > 0",
+            )
+        unit = capacity.display_unit if isinstance(capacity, Value) else cq.units
+        self.unit: pint.Unit = unit
+        self.demand_q: pint.Quantity = dq.to(unit)
+        self.capacity_q: pint.Quantity = cq.to(unit)
+        self.utilisation = float(abs(self.demand_q.magnitude) / self.capacity_q.magnitude)
+        # A utilisation within rounding of 1.000 passes only if it is truly not over 1.
+        self.verdict = Verdict.OK if self.utilisation <= 1.0 + 1e-12 else Verdict.NOT_OK
+
+    @property
+    def passed(self) -> bool:
+        return self.verdict == Verdict.OK
+
+    def record(self) -> CheckRecord:
+        return CheckRecord(
+            name=self.name,
+            member=self.member,
+            demand=float(self.demand_q.magnitude),
+            capacity=float(self.capacity_q.magnitude),
+            unit=format_unit_text(self.unit),
+            utilisation=self.utilisation,
+            verdict=self.verdict,
+            ref=self.ref,
+            combination=self.combination,
+            description=self.description,
+        )
+
+    def records(self) -> dict[str, list[Any]]:
+        return {"checks": [self.record().to_json()]}
+
+
+class NotCovered(Step):
+    """A check the method cannot make here: shown as NOT COVERED with the reason, never a number."""
+
+    kind = "check"
+
+    def __init__(
+        self,
+        name: str,
+        reason: str,
+        *,
+        ref: str | None = None,
+        member: str | None = None,
+        settings: DisplaySettings | None = None,
+    ) -> None:
+        self.name = name
+        self.reason = reason
+        self.ref = ref
+        self.member = member
+        self.settings = settings
+        self.verdict = Verdict.NOT_COVERED
+
+    def record(self) -> CheckRecord:
+        return CheckRecord(
+            name=self.name,
+            member=self.member,
+            demand=None,
+            capacity=None,
+            unit="",
+            utilisation=None,
+            verdict=self.verdict,
+            ref=self.ref,
+            combination=None,
+            description=self.reason,
+        )
+
+    def records(self) -> dict[str, list[Any]]:
+        return {"checks": [self.record().to_json()]}
+
+
+class Heading(Step):
+    """A heading inside a sheet (level 2 = section, 3 = subsection)."""
+
+    kind = "heading"
+
+    def __init__(self, text: str, level: int = 2) -> None:
+        if level not in (1, 2, 3, 4):
+            raise InputError(
+                f"Heading level must be 1 to 4 (got {level!r})",
+                name="level",
+                value=level,
+                expected="1, 2, 3 or 4",
+            )
+        self.title = text
+        self.level = level
+
+
+class Text(Step):
+    """A paragraph of prose; ``$...$`` marks inline TeX math, blank lines separate paragraphs."""
+
+    kind = "text"
+
+    def __init__(self, body: str) -> None:
+        self.body = body
+
+
+class Assume(Text):
+    """An assumption the sheet declares; collected into the package's assumptions block."""
+
+    kind = "assume"
+
+    def records(self) -> dict[str, list[Any]]:
+        return {"assumptions": [self.body]}
+
+
+class Caution(Text):
+    """A caution the sheet declares; collected into the package's caution block."""
+
+    kind = "caution"
+
+    def records(self) -> dict[str, list[Any]]:
+        return {"cautions": [self.body]}
+
+
+class Table(Step):
+    """A table: cells may be text (``$...$`` for TeX), numbers, quantities or values."""
+
+    kind = "table"
+
+    def __init__(
+        self,
+        columns: Sequence[str],
+        rows: Iterable[Sequence[Any]],
+        *,
+        caption: str | None = None,
+        settings: DisplaySettings | None = None,
+    ) -> None:
+        self.columns = list(columns)
+        self.rows = [list(r) for r in rows]
+        for i, r in enumerate(self.rows):
+            if len(r) != len(self.columns):
+                raise InputError(
+                    f"Table row {i + 1} has {len(r)} cells but there are {len(self.columns)} "
+                    "columns",
+                    name=f"rows[{i}]",
+                    value=r,
+                    expected=f"{len(self.columns)} cells",
+                )
+        self.caption = caption
+        self.settings = settings
+
+
+@dataclass
+class Block(Step):
+    """A titled group of steps, e.g. the reaction working an analysis produces."""
+
+    steps: list[Step] = field(default_factory=list)
+    title: str | None = None
+    kind = "block"
+
+    def records(self) -> dict[str, list[Any]]:
+        out: dict[str, list[Any]] = {}
+        for s in self.steps:
+            for k, v in s.records().items():
+                out.setdefault(k, []).extend(v)
+        return out
+
+
+__all__ += ["Literal", "NotCovered"]
