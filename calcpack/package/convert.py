@@ -21,7 +21,7 @@ from pathlib import Path
 from typing import Any
 
 from nbconvert.exporters import Exporter, HTMLExporter
-from traitlets import Bool, default
+from traitlets import Bool, Unicode
 
 from calcpack.package.mathsvg import markdown_math_to_spans
 
@@ -79,25 +79,18 @@ class CalcpackHTMLExporter(HTMLExporter):  # type: ignore[misc]
         config=True
     )
 
-    @default("template_name")
-    def _template_name_default(self) -> str:
-        return "calcpack"
+    # Trait defaults are redefined rather than set with traitlets' (untyped) decorators.
+    template_name = Unicode("calcpack", help="nbconvert template folder name").tag(config=True)
+    exclude_input = Bool(True, help="Hide code input (the working is the output)").tag(config=True)
+    exclude_input_prompt = Bool(True).tag(config=True)
+    exclude_output_prompt = Bool(True).tag(config=True)
 
-    @default("exclude_input")
-    def _exclude_input_default(self) -> bool:
-        return True
-
-    @default("exclude_input_prompt")
-    def _exclude_input_prompt_default(self) -> bool:
-        return True
-
-    @default("exclude_output_prompt")
-    def _exclude_output_prompt_default(self) -> bool:
-        return True
-
-    @default("extra_template_basedirs")
-    def _extra_template_basedirs_default(self) -> list[str]:
-        return [*super()._default_extra_template_basedirs(), *template_dirs()]
+    def __init__(self, **kwargs: Any) -> None:
+        super().__init__(**kwargs)
+        current: list[str] = list(getattr(self, "extra_template_basedirs"))  # noqa: B009 - untyped trait
+        extra = [d for d in template_dirs() if d not in current]
+        if extra:
+            self.extra_template_basedirs = [*current, *extra]
 
     def default_filters(self) -> Any:
         yield from super().default_filters()
@@ -132,9 +125,7 @@ class CalcpackPDFExporter(Exporter):  # type: ignore[misc]
     export_from_notebook = "calcpack sheet (PDF)"
     output_mimetype = "application/pdf"
 
-    @default("file_extension")
-    def _file_extension_default(self) -> str:
-        return ".pdf"
+    file_extension = Unicode(".pdf").tag(config=True)
 
     def from_notebook_node(
         self, nb: Any, resources: dict[str, Any] | None = None, **kw: Any

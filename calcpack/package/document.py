@@ -132,25 +132,25 @@ def _inline_markdown(text: str) -> str:
 def _titleblock(project: Project, *, sheet_no: str, title: str, pages: int | None) -> str:
     rev = project.revision
     firm = project.firm or "Structural calculations"
-    sheet_page = (
-        f'<span class="cp-sheetpage" data-pages="{pages}"></span>' if pages else "&#8212;"
-    )
+    sheet_page = f'<span class="cp-sheetpage" data-pages="{pages}"></span>' if pages else "&#8212;"
     if pages == 0:
         sheet_page = '<span class="cp-sheetpage" data-pages="00"></span>'
     return f"""
 <div class="cp-titleblock"><table>
-<colgroup><col style="width:23%"><col style="width:11%"><col style="width:30%">
+<colgroup><col style="width:21%"><col style="width:9%"><col style="width:34%">
 <col style="width:12%"><col style="width:12%"><col style="width:12%"></colgroup>
 <tr>
 <td class="firm" rowspan="2"><div class="firmname">{_e(firm)}</div>
 <div class="firmsub">{_e(project.firm_address)}</div></td>
 <td><span class="lbl">Job no.</span><span class="val">{_e(project.job_number)}</span></td>
-<td colspan="3"><span class="lbl">Job title</span><span class="val">{_e(project.job_title)}</span></td>
-<td><span class="lbl">Revision</span><span class="val">{_e(rev.rev)} &#183; {_e(_date(rev.date))}</span></td>
+<td colspan="3"><span class="lbl">Job title</span>
+<span class="val wrap">{_e(project.job_title)}</span></td>
+<td><span class="lbl">Revision</span>
+<span class="val">{_e(rev.rev)} &#183; {_e(_date(rev.date))}</span></td>
 </tr>
 <tr>
 <td><span class="lbl">Sheet no.</span><span class="val">{_e(sheet_no)}</span></td>
-<td><span class="lbl">Sheet title</span><span class="val">{_e(title)}</span></td>
+<td><span class="lbl">Sheet title</span><span class="val wrap">{_e(title)}</span></td>
 <td><span class="lbl">By &#183; date</span><span class="val">{_e(project.preparer.name)}</span>
 <span class="lbl">{_e(_person_date(project.preparer, rev.date))}</span></td>
 <td><span class="lbl">Checked &#183; date</span><span class="val">{_e(project.checker.name)}</span>
@@ -177,7 +177,7 @@ def _cover(project: Project, sheets: Sequence[SheetDoc]) -> str:
 <div class="sig" id="cp-sign-{role}"><div class="hint">Signature</div></div></td>""")
     status = f" &#183; {_e(rev.status)}" if rev.status else ""
     return f"""
-<section class="cp-cover" id="cover">
+<section class="cp-cover" id="cover"><!--strings-->
 <div class="band"><div><div class="firmname">{_e(project.firm or "")}</div>
 <div class="firmaddr">{_e(project.firm_address)}</div></div>
 <div class="doctype">Structural calculations<br>Job {_e(project.job_number)}</div></div>
@@ -187,7 +187,8 @@ def _cover(project: Project, sheets: Sequence[SheetDoc]) -> str:
 <table class="facts">
 <tr><th>Client</th><td>{_e(project.client)}</td></tr>
 <tr><th>Site</th><td>{_e(project.site)}</td></tr>
-<tr><th>Revision</th><td>{_e(rev.rev)} &#8212; {_e(_date(rev.date))} &#8212; {_e(rev.description)}</td></tr>
+<tr><th>Revision</th>
+<td>{_e(rev.rev)} &#8212; {_e(_date(rev.date))} &#8212; {_e(rev.description)}</td></tr>
 <tr><th>Design standards</th><td>{standards}</td></tr>
 <tr><th>Unit system</th><td>{_e(project.units)}</td></tr>
 <tr><th>Extent</th><td>{len(sheets)} sheets, <span class="totalpages"></span> pages</td></tr>
@@ -200,21 +201,32 @@ signatures embedded in this file take precedence over any printed or scanned cop
 </section>"""
 
 
-def _toc(project: Project, sheets: Sequence[SheetDoc], back: Sequence[tuple[str, str]],
-         front: Sequence[tuple[str, str]]) -> str:
+def _toc(
+    project: Project,
+    sheets: Sequence[SheetDoc],
+    back: Sequence[tuple[str, str]],
+    front: Sequence[tuple[str, str]],
+) -> str:
     items = ['<li class="group">Front matter</li>']
-    items += [f'<li><span class="no"></span><a href="#{ident}">{_e(t)}</a></li>'
-              for ident, t in front]
+    items += [
+        f'<li><span class="no"></span><a href="#{ident}">{_e(t)}</a></li>' for ident, t in front
+    ]
     items.append('<li class="group">Calculation sheets</li>')
     for i, sheet in enumerate(sheets, start=1):
-        items.append(f'<li><span class="no">{_e(sheet.entry.number)}</span>'
-                     f'<a href="#sheet-{i}">{_e(sheet.title)}</a></li>')
+        items.append(
+            f'<li><span class="no">{_e(sheet.entry.number)}</span>'
+            f'<a href="#sheet-{i}">{_e(sheet.title)}</a></li>'
+        )
     items.append('<li class="group">Back matter</li>')
-    items += [f'<li><span class="no"></span><a href="#{ident}">{_e(t)}</a></li>'
-              for ident, t in back]
-    return (_titleblock(project, sheet_no="—", title="Contents", pages=None)
-            + '<h1 class="cp-h cp-bm1">Contents</h1><ol class="cp-toc">' + "".join(items)
-            + "</ol>")
+    items += [
+        f'<li><span class="no"></span><a href="#{ident}">{_e(t)}</a></li>' for ident, t in back
+    ]
+    return (
+        _titleblock(project, sheet_no="—", title="Contents", pages=None)
+        + '<h1 class="cp-h cp-bm1">Contents</h1><ol class="cp-toc">'
+        + "".join(items)
+        + "</ol>"
+    )
 
 
 def _list(items: Sequence[str], ordered: bool = False) -> str:
@@ -224,18 +236,27 @@ def _list(items: Sequence[str], ordered: bool = False) -> str:
 
 def _design_basis(project: Project, sheets: Sequence[SheetDoc]) -> str:
     d = project.design
-    parts = [_titleblock(project, sheet_no="—", title="Design basis", pages=None),
-             '<h1 class="cp-h cp-bm1">Design basis</h1>']
+    parts = [
+        _titleblock(project, sheet_no="—", title="Design basis", pages=None),
+        '<h1 class="cp-h cp-bm1">Design basis</h1>',
+    ]
     sheet_standards = [
         (s, sheet) for sheet in sheets for s in sheet.records.standards if s not in d.standards
     ]
     parts.append('<h2 class="cp-h">Design standards</h2>')
-    parts.append(_list([_e(s) for s in d.standards] + [
-        f'{_e(s)} <span class="cp-src">(sheet {_e(sheet.entry.number)})</span>'
-        for s, sheet in sheet_standards]))
+    parts.append(
+        _list(
+            [_e(s) for s in d.standards]
+            + [
+                f'{_e(s)} <span class="cp-src">(sheet {_e(sheet.entry.number)})</span>'
+                for s, sheet in sheet_standards
+            ]
+        )
+    )
     if d.materials:
-        parts.append('<h2 class="cp-h">Materials</h2>' + _list([_inline_markdown(m)
-                                                                  for m in d.materials]))
+        parts.append(
+            '<h2 class="cp-h">Materials</h2>' + _list([_inline_markdown(m) for m in d.materials])
+        )
     if d.loads:
         parts.append('<h2 class="cp-h">Loads</h2>' + _list([_inline_markdown(m) for m in d.loads]))
     if d.basis:
@@ -246,21 +267,30 @@ def _design_basis(project: Project, sheets: Sequence[SheetDoc]) -> str:
 def _assumptions(project: Project, sheets: Sequence[SheetDoc]) -> str:
     assumptions = [_inline_markdown(a) for a in project.design.assumptions]
     for sheet in sheets:
-        assumptions += [f'{_inline_markdown(a)} <span class="cp-src">(sheet '
-                        f"{_e(sheet.entry.number)})</span>" for a in sheet.records.assumptions]
+        assumptions += [
+            f'{_inline_markdown(a)} <span class="cp-src">(sheet {_e(sheet.entry.number)})</span>'
+            for a in sheet.records.assumptions
+        ]
     cautions = [_e(c) for c in STANDARD_CAUTIONS]
     cautions += [_inline_markdown(c) for c in project.design.cautions]
     for sheet in sheets:
-        cautions += [f'{_inline_markdown(c)} <span class="cp-src">(sheet '
-                     f"{_e(sheet.entry.number)})</span>" for c in sheet.records.cautions]
-    body = _list(assumptions, ordered=True) if assumptions else (
-        '<p class="cp-empty">No assumptions were declared.</p>')
+        cautions += [
+            f'{_inline_markdown(c)} <span class="cp-src">(sheet {_e(sheet.entry.number)})</span>'
+            for c in sheet.records.cautions
+        ]
+    body = (
+        _list(assumptions, ordered=True)
+        if assumptions
+        else ('<p class="cp-empty">No assumptions were declared.</p>')
+    )
     return (
         _titleblock(project, sheet_no="—", title="Assumptions and cautions", pages=None)
         + '<h1 class="cp-h cp-bm1">Assumptions and cautions</h1>'
-        + '<h2 class="cp-h">Assumptions</h2>' + body
+        + '<h2 class="cp-h">Assumptions</h2>'
+        + body
         + '<div class="cp-cautions" id="cautions"><div class="cp-cautions-title">Cautions</div>'
-        + _list(cautions, ordered=True) + "</div>"
+        + _list(cautions, ordered=True)
+        + "</div>"
     )
 
 
@@ -290,35 +320,53 @@ def _summary(project: Project, sheets: Sequence[SheetDoc]) -> str:
             f"<td>{_verdict(c['verdict'])}</td><td>{_e(c.get('ref') or '')}</td></tr>"
         )
     if rows:
-        table = ('<table class="cp-table"><thead><tr><th>Sheet</th><th>Member</th><th>Check</th>'
-                 "<th>Combination</th><th>Demand</th><th>Capacity</th><th>Utilisation</th>"
-                 "<th>Verdict</th><th>Reference</th></tr></thead><tbody>" + "".join(rows)
-                 + "</tbody></table>")
+        table = (
+            '<table class="cp-table"><thead><tr><th>Sheet</th><th>Member</th><th>Check</th>'
+            "<th>Combination</th><th>Demand</th><th>Capacity</th><th>Utilisation</th>"
+            "<th>Verdict</th><th>Reference</th></tr></thead><tbody>"
+            + "".join(rows)
+            + "</tbody></table>"
+        )
     else:
         table = '<p class="cp-empty">The sheets record no design checks.</p>'
-    counts = {v: sum(1 for _, c in entries if c["verdict"] == v)
-              for v in ("OK", "NOT OK", "NOT COVERED")}
-    line = (f"<p>{len(entries)} checks: {counts['OK']} OK, {counts['NOT OK']} NOT OK, "
-            f"{counts['NOT COVERED']} NOT COVERED. Worst first.</p>")
-    return (_titleblock(project, sheet_no="—", title="Summary of checks", pages=None)
-            + '<h1 class="cp-h cp-bm1">Summary of checks</h1>' + line + table)
+    counts = {
+        v: sum(1 for _, c in entries if c["verdict"] == v) for v in ("OK", "NOT OK", "NOT COVERED")
+    }
+    line = (
+        f"<p>{len(entries)} checks: {counts['OK']} OK, {counts['NOT OK']} NOT OK, "
+        f"{counts['NOT COVERED']} NOT COVERED. Worst first.</p>"
+    )
+    return (
+        _titleblock(project, sheet_no="—", title="Summary of checks", pages=None)
+        + '<h1 class="cp-h cp-bm1">Summary of checks</h1>'
+        + line
+        + table
+    )
 
 
 def _revisions(project: Project) -> str:
     rows = []
     for rev in project.revisions:
         cls = ' class="current"' if rev is project.revision else ""
-        rows.append(f"<tr{cls}><td>{_e(rev.rev)}</td><td>{_e(_date(rev.date))}</td>"
-                    f"<td>{_e(rev.description)}</td><td>{_e(rev.status)}</td></tr>")
-    return (_titleblock(project, sheet_no="—", title="Revision history", pages=None)
-            + '<h1 class="cp-h cp-bm1">Revision history</h1>'
-            + '<table class="cp-table"><thead><tr><th>Rev</th><th>Date</th><th>Description</th>'
-            + "<th>Status</th></tr></thead><tbody>" + "".join(rows) + "</tbody></table>")
+        rows.append(
+            f"<tr{cls}><td>{_e(rev.rev)}</td><td>{_e(_date(rev.date))}</td>"
+            f"<td>{_e(rev.description)}</td><td>{_e(rev.status)}</td></tr>"
+        )
+    return (
+        _titleblock(project, sheet_no="—", title="Revision history", pages=None)
+        + '<h1 class="cp-h cp-bm1">Revision history</h1>'
+        + '<table class="cp-table"><thead><tr><th>Rev</th><th>Date</th><th>Description</th>'
+        + "<th>Status</th></tr></thead><tbody>"
+        + "".join(rows)
+        + "</tbody></table>"
+    )
 
 
 def _review(project: Project, review: tuple[ReviewRow, ...] | None) -> str:
-    head = (_titleblock(project, sheet_no="—", title="Review log", pages=None)
-            + '<h1 class="cp-h cp-bm1">Review log</h1>')
+    head = (
+        _titleblock(project, sheet_no="—", title="Review log", pages=None)
+        + '<h1 class="cp-h cp-bm1">Review log</h1>'
+    )
     if review is None:
         return head + '<p class="cp-empty">No review record is held with this project.</p>'
     if not review:
@@ -326,19 +374,26 @@ def _review(project: Project, review: tuple[ReviewRow, ...] | None) -> str:
     rows = "".join(
         f"<tr><td>{_e(r.ident)}</td><td>{_e(r.sheet)}</td><td>{_e(r.quantity)}</td>"
         f"<td>{_e(r.text)}</td><td>{_e(r.by)}</td><td>{_e(r.date)}</td><td>{_e(r.status)}</td></tr>"
-        for r in review)
-    return (head + '<table class="cp-table"><thead><tr><th>No.</th><th>Sheet</th>'
-            "<th>Quantity</th><th>Comment</th><th>By</th><th>Date</th><th>Status</th></tr>"
-            "</thead><tbody>" + rows + "</tbody></table>")
+        for r in review
+    )
+    return (
+        head + '<table class="cp-table"><thead><tr><th>No.</th><th>Sheet</th>'
+        "<th>Quantity</th><th>Comment</th><th>By</th><th>Date</th><th>Status</th></tr>"
+        "</thead><tbody>" + rows + "</tbody></table>"
+    )
 
 
 def _appendix(project: Project, sheets: Sequence[SheetDoc]) -> str:
-    parts = [_titleblock(project, sheet_no="—", title="Appendix: sheet source", pages=None),
-             '<h1 class="cp-h cp-bm1">Appendix: sheet source</h1>']
+    parts = [
+        _titleblock(project, sheet_no="—", title="Appendix: sheet source", pages=None),
+        '<h1 class="cp-h cp-bm1">Appendix: sheet source</h1>',
+    ]
     for sheet in sheets:
-        parts.append(f'<h2 class="cp-h">Sheet {_e(sheet.entry.number)}: {_e(sheet.title)} '
-                     f'<span class="cp-src">({_e(sheet.entry.path)})</span></h2>'
-                     '<div class="cp-source">')
+        parts.append(
+            f'<h2 class="cp-h">Sheet {_e(sheet.entry.number)}: {_e(sheet.title)} '
+            f'<span class="cp-src">({_e(sheet.entry.path)})</span></h2>'
+            '<div class="cp-source">'
+        )
         for number, source in sheet.source_cells:
             parts.append(f'<div class="cell-no">Cell {number}</div><pre>{_e(source)}</pre>')
         parts.append("</div>")
@@ -350,14 +405,18 @@ def page_name(index: int) -> str:
     return f"sheet{index}"
 
 
-def document_html(project: Project, sheets: Sequence[SheetDoc], options: DocumentOptions,
-                  *, created: _dt.datetime) -> str:
+def document_html(
+    project: Project, sheets: Sequence[SheetDoc], options: DocumentOptions, *, created: _dt.datetime
+) -> str:
     """The whole package as one HTML document for WeasyPrint."""
     from calcpack.package.convert import package_css
 
     front = [("design-basis", "Design basis"), ("assumptions", "Assumptions and cautions")]
-    back = [("summary", "Summary of checks"), ("revisions", "Revision history"),
-            ("review-log", "Review log")]
+    back = [
+        ("summary", "Summary of checks"),
+        ("revisions", "Revision history"),
+        ("review-log", "Review log"),
+    ]
     if options.reviewer_copy:
         back.append(("appendix-source", "Appendix: sheet source"))
     size = "A4" if options.paper == "A4" else "letter"
@@ -366,8 +425,7 @@ def document_html(project: Project, sheets: Sequence[SheetDoc], options: Documen
         rules.append(f"@page :nth(1 of {page_name(i)}) {{ counter-reset: sheetpage 0; }}")
     stamp = created.isoformat()
     rev = project.revision
-    issue = f"Job {project.job_number} · Rev {rev.rev}" + (f" · {rev.status}" if rev.status
-                                                             else "")
+    issue = f"Job {project.job_number} · Rev {rev.rev}" + (f" · {rev.status}" if rev.status else "")
     firmline = " · ".join(p for p in (project.firm, project.firm_address) if p)
     out = [
         '<!DOCTYPE html><html lang="en"><head><meta charset="utf-8">',
@@ -380,23 +438,31 @@ def document_html(project: Project, sheets: Sequence[SheetDoc], options: Documen
         f'<meta name="generator" content="calcpack {_e(options.calcpack_version)}">',
         f'<meta name="dcterms.created" content="{stamp}">',
         f'<meta name="dcterms.modified" content="{stamp}">',
-        "<style>", package_css(), "\n".join(rules), "</style></head><body>",
-        f'<div class="cp-strings" data-firm="{_e(firmline)}" data-issue="{_e(issue)}"></div>',
+        "<style>",
+        package_css(),
+        "\n".join(rules),
+        "</style></head><body>",
     ]
+    strings = f'<div class="cp-strings" data-firm="{_e(firmline)}" data-issue="{_e(issue)}"></div>'
+
     if not options.sheets_only:
         out += [
-            _cover(project, sheets),
+            _cover(project, sheets).replace("<!--strings-->", strings),
             '<section class="cp-section cp-front" id="contents">',
-            _toc(project, sheets, back, front), "</section>",
+            _toc(project, sheets, back, front),
+            "</section>",
             '<section class="cp-section cp-front" id="design-basis">',
-            _design_basis(project, sheets), "</section>",
+            _design_basis(project, sheets),
+            "</section>",
             '<section class="cp-section cp-front" id="assumptions">',
-            _assumptions(project, sheets), "</section>",
+            _assumptions(project, sheets),
+            "</section>",
         ]
     for i, sheet in enumerate(sheets, start=1):
         pages = options.sheet_pages.get(sheet.entry.path, 0)
         out.append(
             f'<section class="cp-sheet" id="sheet-{i}" style="page: {page_name(i)}">'
+            + (strings if options.sheets_only and i == 1 else "")
             + _titleblock(project, sheet_no=sheet.entry.number, title=sheet.title, pages=pages)
             + f'<div class="cp-sheet-head"><span class="no">Sheet {_e(sheet.entry.number)}</span>'
             f'<h1 class="cp-bm1" style="bookmark-label: '
@@ -408,14 +474,21 @@ def document_html(project: Project, sheets: Sequence[SheetDoc], options: Documen
         out.append("</body></html>")
         return "\n".join(out)
     out += [
-        '<section class="cp-section cp-back" id="summary">', _summary(project, sheets),
+        '<section class="cp-section cp-back" id="summary">',
+        _summary(project, sheets),
         "</section>",
-        '<section class="cp-section cp-back" id="revisions">', _revisions(project), "</section>",
-        '<section class="cp-section cp-back" id="review-log">', _review(project, options.review),
+        '<section class="cp-section cp-back" id="revisions">',
+        _revisions(project),
+        "</section>",
+        '<section class="cp-section cp-back" id="review-log">',
+        _review(project, options.review),
         "</section>",
     ]
     if options.reviewer_copy:
-        out += ['<section class="cp-section cp-back" id="appendix-source">',
-                _appendix(project, sheets), "</section>"]
+        out += [
+            '<section class="cp-section cp-back" id="appendix-source">',
+            _appendix(project, sheets),
+            "</section>",
+        ]
     out.append("</body></html>")
     return "\n".join(out)

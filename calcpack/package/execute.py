@@ -210,7 +210,7 @@ def _execute(path: str, sheet: str, timeout: float) -> tuple[Any, ...]:
             try:
                 if km.has_kernel:
                     km.shutdown_kernel(now=True)
-            except Exception:  # noqa: BLE001 - best effort on the way out of a failure
+            except Exception:
                 pass
     return ("ok", nbformat.writes(nb))
 
@@ -300,8 +300,7 @@ def execute_sheets(
             starts: dict[str, float] = {}
             for sheet, key in pending:
                 starts[sheet.path] = time.perf_counter()
-                future = pool.submit(_execute, str(project.sheet_path(sheet)), sheet.path,
-                                     timeout)
+                future = pool.submit(_execute, str(project.sheet_path(sheet)), sheet.path, timeout)
                 futures[future] = (sheet, key)
             if progress:
                 for sheet, _ in pending[: min(workers, len(pending))]:

@@ -30,8 +30,18 @@ __all__ = [
 MANIFEST_FORMAT = "calcpack-manifest/1"
 MANIFEST_ATTACHMENT_NAME = "calcpack-manifest.json"
 KEY_DEPENDENCIES = (
-    "numpy", "sympy", "pint", "ipykernel", "nbformat", "nbclient", "nbconvert", "weasyprint",
-    "pydyf", "ziamath", "ziafont", "matplotlib",
+    "numpy",
+    "sympy",
+    "pint",
+    "ipykernel",
+    "nbformat",
+    "nbclient",
+    "nbconvert",
+    "weasyprint",
+    "pydyf",
+    "ziamath",
+    "ziafont",
+    "matplotlib",
 )
 
 
@@ -53,18 +63,23 @@ def project_files(project: Project, review_file: Path | None) -> list[dict[str, 
     ]
     seen = {project.path.name}
     for sheet in project.sheets:
-        entries.append({"path": sheet.path, "sha256": file_sha256(project.sheet_path(sheet)),
-                        "role": "sheet"})
+        entries.append(
+            {"path": sheet.path, "sha256": file_sha256(project.sheet_path(sheet)), "role": "sheet"}
+        )
         seen.add(sheet.path)
     for name in [*project.inputs, *(i for s in project.sheets for i in s.inputs)]:
         if name in seen:
             continue
         seen.add(name)
-        entries.append({"path": name, "sha256": file_sha256(project.root / name),
-                        "role": "inputs"})
+        entries.append({"path": name, "sha256": file_sha256(project.root / name), "role": "inputs"})
     if review_file is not None and review_file.is_file():
-        entries.append({"path": review_file.relative_to(project.root).as_posix(),
-                        "sha256": file_sha256(review_file), "role": "review"})
+        entries.append(
+            {
+                "path": review_file.relative_to(project.root).as_posix(),
+                "sha256": file_sha256(review_file),
+                "role": "review",
+            }
+        )
     return entries
 
 

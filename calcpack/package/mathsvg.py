@@ -108,8 +108,10 @@ def fix_tex(tex: str) -> str:
             den_start += 1
         den_end = _group_end(tex, den_start)
         denominator = tex[den_start:den_end]
-        if "\\sqrt" in denominator and denominator.startswith("{") and not denominator.startswith(
-            "{{}^{}"
+        if (
+            "\\sqrt" in denominator
+            and denominator.startswith("{")
+            and not denominator.startswith("{{}^{}")
         ):
             out.append(tex[pos:den_start])
             out.append("{{}^{}" + denominator[1:])
@@ -143,21 +145,26 @@ def tex_to_svg(tex: str, *, display: bool = False, size_px: float = MATH_PX_PER_
         svg = math.svg()
         width, height = math.getsize()
         offset = float(math.getyofst())
-    except Exception as exc:  # noqa: BLE001 - any typesetting failure names the formula
-        raise BuildError(f"Formula could not be typeset: {tex!r} ({type(exc).__name__}: {exc})"
-                         ) from exc
+    except Exception as exc:
+        raise BuildError(
+            f"Formula could not be typeset: {tex!r} ({type(exc).__name__}: {exc})"
+        ) from exc
     image = MathImage(tex, svg, float(width), float(height), -offset)
     _cache[key] = image
     return image
 
 
 def _strip_delimiters(body: str) -> tuple[str, bool | None]:
-    """TeX without its \\[..\\], \\(..\\), $$..$$ or $..$ delimiters, and whether it said display."""
+    """TeX without its delimiters (\\[..\\], \\(..\\), $$..$$, $..$); whether they said display."""
     text = body.strip()
-    for left, right, display in (("\\[", "\\]", True), ("\\(", "\\)", False),
-                                 ("$$", "$$", True), ("$", "$", False)):
+    for left, right, display in (
+        ("\\[", "\\]", True),
+        ("\\(", "\\)", False),
+        ("$$", "$$", True),
+        ("$", "$", False),
+    ):
         if text.startswith(left) and text.endswith(right) and len(text) >= len(left + right):
-            return text[len(left): len(text) - len(right)].strip(), display
+            return text[len(left) : len(text) - len(right)].strip(), display
     return text, None
 
 
@@ -186,7 +193,9 @@ def math_spans_to_images(markup: str) -> str:
         display = m.group("kind") == "cp-math-display" if said_display is None else said_display
         if not tex:
             return ""
-        return f'<span class="cp-math {m.group("kind")}{m.group("extra")}">{_img(tex, display)}</span>'
+        return (
+            f'<span class="cp-math {m.group("kind")}{m.group("extra")}">{_img(tex, display)}</span>'
+        )
 
     return MATH_SPAN_RE.sub(replace, markup)
 

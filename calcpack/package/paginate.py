@@ -64,13 +64,18 @@ def _find_boxes(document: Any, ids: Sequence[str]) -> dict[str, tuple[int, Any, 
             if element is None or getattr(box, "element_tag", None) is None:
                 continue
             ident = element.get("id") if hasattr(element, "get") else None
-            if ident in ids and ident not in found:
+            if isinstance(ident, str) and ident in ids and ident not in found:
                 found[ident] = (index, page, box)
     return found
 
 
-def layout_html(html: str, *, base_url: str | None = None,
-                section_ids: Sequence[str] = (), roles: Sequence[str] = ()) -> Layout:
+def layout_html(
+    html: str,
+    *,
+    base_url: str | None = None,
+    section_ids: Sequence[str] = (),
+    roles: Sequence[str] = (),
+) -> Layout:
     """Lay out the HTML; find each section's pages and each role's signature box.
 
     Raises:
@@ -105,17 +110,29 @@ def layout_html(html: str, *, base_url: str | None = None,
         x2 = x1 + box.border_width() * PX_TO_PT
         bottom = top + box.border_height() * PX_TO_PT
         height = page.height * PX_TO_PT
-        fields.append({
-            "role": role,
-            "page": index,
-            "box": [round(x1, 2), round(height - bottom, 2), round(x2, 2), round(height - top, 2)],
-        })
+        fields.append(
+            {
+                "role": role,
+                "page": index,
+                "box": [
+                    round(x1, 2),
+                    round(height - bottom, 2),
+                    round(x2, 2),
+                    round(height - top, 2),
+                ],
+            }
+        )
     return Layout(document, len(document.pages), sections, tuple(fields))
 
 
-def paginate(make_html: Callable[[dict[str, int]], str], *, sheet_ids: dict[str, str],
-             section_ids: Sequence[str], roles: Sequence[str],
-             base_url: str | None = None) -> tuple[Layout, str]:
+def paginate(
+    make_html: Callable[[dict[str, int]], str],
+    *,
+    sheet_ids: dict[str, str],
+    section_ids: Sequence[str],
+    roles: Sequence[str],
+    base_url: str | None = None,
+) -> tuple[Layout, str]:
     """Lay out until the per-sheet page counts written into the title blocks are stable.
 
     Args:
@@ -141,18 +158,32 @@ def paginate(make_html: Callable[[dict[str, int]], str], *, sheet_ids: dict[str,
     raise BuildError("Page counts of the sheets did not settle after four layout passes")
 
 
-def write_pdf(layout: Layout, *, created: _dt.datetime,
-              attachments: Sequence[PdfAttachment] = (), identifier_seed: bytes = b"") -> bytes:
+def write_pdf(
+    layout: Layout,
+    *,
+    created: _dt.datetime,
+    attachments: Sequence[PdfAttachment] = (),
+    identifier_seed: bytes = b"",
+) -> bytes:
     """The PDF bytes of a layout, with attachments; reproducible for the same inputs."""
     from weasyprint import Attachment
 
     items = [
-        Attachment(file_obj=io.BytesIO(a.data), name=a.name, description=a.description,
-                   created=created, modified=created, relationship="Data")
+        Attachment(
+            file_obj=io.BytesIO(a.data),
+            name=a.name,
+            description=a.description,
+            created=created,
+            modified=created,
+            relationship="Data",
+        )
         for a in attachments
     ]
-    identifier = hashlib.sha256(identifier_seed + b"".join(a.data for a in attachments)
-                                ).hexdigest()[:32].encode()
+    identifier = (
+        hashlib.sha256(identifier_seed + b"".join(a.data for a in attachments))
+        .hexdigest()[:32]
+        .encode()
+    )
     pdf: bytes = layout.document.write_pdf(
         attachments=items,
         pdf_identifier=identifier,

@@ -122,15 +122,17 @@ def _load_review(project: Project) -> tuple[tuple[ReviewRow, ...] | None, Path |
     for i, item in enumerate(comments, start=1):
         if not isinstance(item, dict):
             continue
-        rows.append(ReviewRow(
-            ident=str(item.get("id", i)),
-            sheet=str(item.get("sheet", "")),
-            quantity=str(item.get("quantity", "") or ""),
-            status=str(item.get("status", "")),
-            by=str(item.get("by", item.get("author", ""))),
-            date=str(item.get("date", "")),
-            text=str(item.get("text", item.get("comment", ""))),
-        ))
+        rows.append(
+            ReviewRow(
+                ident=str(item.get("id", i)),
+                sheet=str(item.get("sheet", "")),
+                quantity=str(item.get("quantity", "") or ""),
+                status=str(item.get("status", "")),
+                by=str(item.get("by", item.get("author", ""))),
+                date=str(item.get("date", "")),
+                text=str(item.get("text", item.get("comment", ""))),
+            )
+        )
     return tuple(rows), path
 
 
@@ -145,8 +147,26 @@ def _sheet_title(entry: SheetEntry, nb: Any) -> str:
     return Path(entry.path).stem.replace("_", " ")
 
 
-def prepare_sheet(entry: SheetEntry, executed: ExecutedSheet | Any, *, source: bool = False
-                  ) -> SheetDoc:
+_FIRST_H1_RE = re.compile(r"<h1[^>]*>(.*?)</h1>", re.DOTALL)
+
+
+def _drop_title_heading(body: str, title: str) -> str:
+    """Drop the first level-1 heading if it repeats the sheet title (the sheet head shows it)."""
+    m = _FIRST_H1_RE.search(body)
+    if m is None:
+        return body
+
+    def norm(text: str) -> str:
+        return " ".join(re.sub(r"<[^>]+>", "", text).split()).casefold()
+
+    if norm(m.group(1)) == norm(title):
+        return body[: m.start()] + body[m.end() :]
+    return body
+
+
+def prepare_sheet(
+    entry: SheetEntry, executed: ExecutedSheet | Any, *, source: bool = False
+) -> SheetDoc:
     """Convert one executed sheet to HTML with its math as SVG images, and read its records.
 
     Raises:
@@ -157,25 +177,44 @@ def prepare_sheet(entry: SheetEntry, executed: ExecutedSheet | Any, *, source: b
     from calcpack.package.convert import sheet_fragment
     from calcpack.package.mathsvg import math_spans_to_images
 
-    nb = (nbformat.reads(executed.notebook_json, as_version=4)
-          if isinstance(executed, ExecutedSheet) else executed)
+    nb = (
+        nbformat.reads(executed.notebook_json, as_version=4)
+        if isinstance(executed, ExecutedSheet)
+        else executed
+    )
+    title = _sheet_title(entry, nb)
     try:
-        body = math_spans_to_images(sheet_fragment(nb))
+        body = _drop_title_heading(sheet_fragment(nb), title)
+        body = math_spans_to_images(body)
     except BuildError as exc:
         raise BuildError(f"Sheet {entry.path!r}: {exc}") from exc
-    cells = tuple(
-        (i, cell.source) for i, cell in enumerate(nb.cells, start=1)
-        if cell.cell_type == "code" and cell.source.strip()
-    ) if source else ()
-    return SheetDoc(entry, _sheet_title(entry, nb), body, collect_records(nb), cells)
+    cells = (
+        tuple(
+            (i, cell.source)
+            for i, cell in enumerate(nb.cells, start=1)
+            if cell.cell_type == "code" and cell.source.strip()
+        )
+        if source
+        else ()
+    )
+    return SheetDoc(entry, title, body, collect_records(nb), cells)
 
 
-def _build_key(project: Project, executed_keys: list[str], options: DocumentOptions,
-               review_file: Path | None, created: _dt.datetime) -> str:
+def _build_key(
+    project: Project,
+    executed_keys: list[str],
+    options: DocumentOptions,
+    review_file: Path | None,
+    created: _dt.datetime,
+) -> str:
     digest = hashlib.sha256()
     for part in (
-        _package_code_hash(), project.path.read_bytes().decode("utf-8", "replace"),
-        *executed_keys, options.paper, str(options.reviewer_copy), created.isoformat(),
+        _package_code_hash(),
+        project.path.read_bytes().decode("utf-8", "replace"),
+        *executed_keys,
+        options.paper,
+        str(options.reviewer_copy),
+        created.isoformat(),
         review_file.read_text("utf-8") if review_file else "",
     ):
         digest.update(part.encode() + b"\0")
@@ -235,8 +274,9 @@ def build(
         raise BuildError(f"Paper size must be 'A4' or 'Letter' (got paper = {paper!r})")
     from calcpack import __version__
 
-    options = DocumentOptions(paper=paper or project.paper, reviewer_copy=reviewer_copy,
-                              calcpack_version=__version__)
+    options = DocumentOptions(
+        paper=paper or project.paper, reviewer_copy=reviewer_copy, calcpack_version=__version__
+    )
     review, review_file = _load_review(project)
     options = replace(options, review=review)
     created = build_created(project)
@@ -259,16 +299,24 @@ def build(
         except ValueError:
             previous = {}
         if previous.get("build", {}).get("build_key") == build_key:
-            return BuildResult(pdf_path, manifest_path, previous,
-                               int(previous.get("build", {}).get("pages", 0)), (), (), True,
-                               time.perf_counter() - start)
+            return BuildResult(
+                pdf_path,
+                manifest_path,
+                previous,
+                int(previous.get("build", {}).get("pages", 0)),
+                (),
+                (),
+                True,
+                time.perf_counter() - start,
+            )
 
     def on_sheet(stage: str, sheet: SheetEntry) -> None:
         if report:
             report(stage, sheet.path)
 
-    executed = execute_sheets(project, workers=workers, timeout=timeout, use_cache=use_cache,
-                              progress=on_sheet)
+    executed = execute_sheets(
+        project, workers=workers, timeout=timeout, use_cache=use_cache, progress=on_sheet
+    )
     docs = []
     for item in executed:
         if report:
@@ -276,16 +324,27 @@ def build(
         docs.append(prepare_sheet(item.entry, item, source=reviewer_copy))
 
     sheet_ids = {doc.entry.path: f"sheet-{i}" for i, doc in enumerate(docs, start=1)}
-    section_ids = ["cover", "contents", "design-basis", "assumptions", *sheet_ids.values(),
-                   "summary", "revisions", "review-log"]
+    section_ids = [
+        "cover",
+        "contents",
+        "design-basis",
+        "assumptions",
+        *sheet_ids.values(),
+        "summary",
+        "revisions",
+        "review-log",
+    ]
     if reviewer_copy:
         section_ids.append("appendix-source")
     if report:
         report("layout", f"{len(docs)} sheets")
     layout, _html = paginate(
-        lambda counts: document_html(project, docs, replace(options, sheet_pages=counts),
-                                     created=created),
-        sheet_ids=sheet_ids, section_ids=section_ids, roles=ROLES,
+        lambda counts: document_html(
+            project, docs, replace(options, sheet_pages=counts), created=created
+        ),
+        sheet_ids=sheet_ids,
+        section_ids=section_ids,
+        roles=ROLES,
         base_url=str(project.root),
     )
     manifest: dict[str, Any] = {
@@ -322,9 +381,13 @@ def build(
     if report:
         report("writing", pdf_path.name)
     pdf = write_pdf(
-        layout, created=created,
-        attachments=[PdfAttachment(MANIFEST_ATTACHMENT_NAME, data,
-                                   "calcpack build manifest: inputs, versions, results")],
+        layout,
+        created=created,
+        attachments=[
+            PdfAttachment(
+                MANIFEST_ATTACHMENT_NAME, data, "calcpack build manifest: inputs, versions, results"
+            )
+        ],
         identifier_seed=build_key.encode(),
     )
     out.mkdir(parents=True, exist_ok=True)
@@ -337,10 +400,14 @@ def build(
     os.replace(tmp_manifest, manifest_path)
     os.replace(tmp_pdf, pdf_path)
     return BuildResult(
-        pdf_path, manifest_path, manifest, layout.page_count,
+        pdf_path,
+        manifest_path,
+        manifest,
+        layout.page_count,
         tuple(i.entry.path for i in executed if not i.from_cache),
         tuple(i.entry.path for i in executed if i.from_cache),
-        False, time.perf_counter() - start,
+        False,
+        time.perf_counter() - start,
     )
 
 
@@ -350,7 +417,7 @@ def single_sheet_pdf(nb: Any, *, name: str = "sheet") -> bytes:
     Job fields come from the notebook's ``metadata.calcpack`` when present.
     """
     meta = dict(nb.metadata.get("calcpack", {}) or {})
-    today = _dt.date(2000, 1, 1)
+    today = _dt.date.today()
     project = Project(
         path=Path(name).resolve(),
         job_number=str(meta.get("job_number", "—")),
@@ -371,13 +438,15 @@ def single_sheet_pdf(nb: Any, *, name: str = "sheet") -> bytes:
     from calcpack import __version__
 
     doc = prepare_sheet(project.sheets[0], nb)
-    created = _dt.datetime(2000, 1, 1, tzinfo=_dt.UTC)
-    options = DocumentOptions(paper=project.paper, calcpack_version=__version__,
-                              sheets_only=True)
+    created = _dt.datetime(today.year, today.month, today.day, tzinfo=_dt.UTC)
+    options = DocumentOptions(paper=project.paper, calcpack_version=__version__, sheets_only=True)
     layout, _ = paginate(
-        lambda counts: document_html(project, [doc], replace(options, sheet_pages=counts),
-                                     created=created),
-        sheet_ids={doc.entry.path: "sheet-1"}, section_ids=["sheet-1"], roles=(),
+        lambda counts: document_html(
+            project, [doc], replace(options, sheet_pages=counts), created=created
+        ),
+        sheet_ids={doc.entry.path: "sheet-1"},
+        section_ids=["sheet-1"],
+        roles=(),
     )
     return write_pdf(layout, created=created, identifier_seed=name.encode())
 

@@ -220,8 +220,9 @@ class _Reader:
             expected=expected,
         )
 
-    def table(self, data: Mapping[str, Any], key: str, where: str, *, required: bool = True
-              ) -> Mapping[str, Any]:
+    def table(
+        self, data: Mapping[str, Any], key: str, where: str, *, required: bool = True
+    ) -> Mapping[str, Any]:
         if key not in data:
             if required:
                 self.fail(where, None, "a table [" + where + "]", "is missing")
@@ -229,10 +230,18 @@ class _Reader:
         value = data[key]
         if not isinstance(value, Mapping):
             self.fail(where, value, "a table [" + where + "]")
-        return value
+        table: Mapping[str, Any] = value
+        return table
 
-    def text(self, data: Mapping[str, Any], key: str, where: str, expected: str, *,
-             default: str | None = None) -> str:
+    def text(
+        self,
+        data: Mapping[str, Any],
+        key: str,
+        where: str,
+        expected: str,
+        *,
+        default: str | None = None,
+    ) -> str:
         if key not in data:
             if default is not None:
                 return default
@@ -244,16 +253,23 @@ class _Reader:
             self.fail(where, value, expected, "is empty")
         return str(value).strip()
 
-    def choice(self, data: Mapping[str, Any], key: str, where: str, options: tuple[str, ...],
-               default: str | None = None) -> str:
+    def choice(
+        self,
+        data: Mapping[str, Any],
+        key: str,
+        where: str,
+        options: tuple[str, ...],
+        default: str | None = None,
+    ) -> str:
         expected = " or ".join(repr(o) for o in options)
         value = self.text(data, key, where, expected, default=default)
         if value not in options:
             self.fail(where, value, expected)
         return value
 
-    def date(self, data: Mapping[str, Any], key: str, where: str, *, required: bool = True
-             ) -> _dt.date | None:
+    def date(
+        self, data: Mapping[str, Any], key: str, where: str, *, required: bool = True
+    ) -> _dt.date | None:
         expected = "a TOML date such as 2026-11-20 (no quotes)"
         if key not in data:
             if required:
@@ -272,8 +288,9 @@ class _Reader:
         self.fail(where, value, expected)
         return None  # pragma: no cover - fail() raises
 
-    def texts(self, data: Mapping[str, Any], key: str, where: str, *, required: bool = False
-              ) -> tuple[str, ...]:
+    def texts(
+        self, data: Mapping[str, Any], key: str, where: str, *, required: bool = False
+    ) -> tuple[str, ...]:
         expected = 'a list of strings such as ["..."]'
         if key not in data:
             if required:
@@ -292,7 +309,7 @@ class _Reader:
         return tuple(out)
 
     def person(self, data: Mapping[str, Any], key: str, where: str) -> Person:
-        expected = f'a name such as "A. Okafor" or {{ name = "...", date = 2026-11-18 }}'
+        expected = 'a name such as "A. Okafor" or { name = "...", date = 2026-11-18 }'
         if key not in data:
             self.fail(where, None, expected, "is missing")
         value = data[key]
@@ -343,8 +360,12 @@ def load_project(location: str | Path) -> Project:
 
     raw_revisions = data.get("revisions")
     if not isinstance(raw_revisions, list) or not raw_revisions:
-        r.fail("revisions", raw_revisions, 'at least one [[revisions]] table with rev, date '
-               "and description", "is missing" if raw_revisions is None else None)
+        r.fail(
+            "revisions",
+            raw_revisions,
+            "at least one [[revisions]] table with rev, date and description",
+            "is missing" if raw_revisions is None else None,
+        )
     revisions = []
     assert isinstance(raw_revisions, list)
     for i, item in enumerate(raw_revisions, start=1):
@@ -358,25 +379,37 @@ def load_project(location: str | Path) -> Project:
             rev = r.text(item, "rev", f"{where}.rev", 'a revision letter or number such as "A"')
         date = r.date(item, "date", f"{where}.date")
         assert date is not None
-        description = r.text(item, "description", f"{where}.description",
-                             "what the revision changed")
+        description = r.text(
+            item, "description", f"{where}.description", "what the revision changed"
+        )
         status = r.text(item, "status", f"{where}.status", "a status", default="")
         revisions.append(Revision(rev, date, description, status))
     seen: set[str] = set()
     for i, revision in enumerate(revisions, start=1):
         if revision.rev in seen:
-            r.fail(f"revisions[{i}].rev", revision.rev, "a revision not listed before",
-                   f"repeats revision {revision.rev!r}")
+            r.fail(
+                f"revisions[{i}].rev",
+                revision.rev,
+                "a revision not listed before",
+                f"repeats revision {revision.rev!r}",
+            )
         seen.add(revision.rev)
         if i > 1 and revision.date < revisions[i - 2].date:
-            r.fail(f"revisions[{i}].date", revision.date.isoformat(),
-                   f"a date on or after {revisions[i - 2].date.isoformat()} (oldest first)",
-                   "is earlier than the revision before it")
+            r.fail(
+                f"revisions[{i}].date",
+                revision.date.isoformat(),
+                f"a date on or after {revisions[i - 2].date.isoformat()} (oldest first)",
+                "is earlier than the revision before it",
+            )
 
     raw_sheets = data.get("sheets")
     if not isinstance(raw_sheets, list) or not raw_sheets:
-        r.fail("sheets", raw_sheets, "at least one [[sheets]] table with a path",
-               "is missing" if raw_sheets is None else None)
+        r.fail(
+            "sheets",
+            raw_sheets,
+            "at least one [[sheets]] table with a path",
+            "is missing" if raw_sheets is None else None,
+        )
     assert isinstance(raw_sheets, list)
     sheets = []
     paths: set[str] = set()
@@ -392,8 +425,12 @@ def load_project(location: str | Path) -> Project:
             r.fail(f"{where}.path", path, "each notebook listed once", "repeats a sheet")
         paths.add(path)
         if not (file.parent / path).is_file():
-            r.fail(f"{where}.path", path, "an existing notebook in the project folder",
-                   "names a notebook that does not exist")
+            r.fail(
+                f"{where}.path",
+                path,
+                "an existing notebook in the project folder",
+                "names a notebook that does not exist",
+            )
         title = item.get("title")
         if title is not None and (not isinstance(title, str) or not title.strip()):
             r.fail(f"{where}.title", title, "the sheet title as a non-empty string")
@@ -405,10 +442,13 @@ def load_project(location: str | Path) -> Project:
         inputs = r.texts(item, "inputs", f"{where}.inputs")
         for k, inp in enumerate(inputs, start=1):
             if not (file.parent / inp).is_file():
-                r.fail(f"{where}.inputs[{k}]", inp, "an existing file in the project folder",
-                       "names a file that does not exist")
-        sheets.append(SheetEntry(number.strip(), path, title.strip() if title else None,
-                                 inputs))
+                r.fail(
+                    f"{where}.inputs[{k}]",
+                    inp,
+                    "an existing file in the project folder",
+                    "names a file that does not exist",
+                )
+        sheets.append(SheetEntry(number.strip(), path, title.strip() if title else None, inputs))
 
     design_table = r.table(data, "design", "design")
     design = Design(
@@ -425,8 +465,12 @@ def load_project(location: str | Path) -> Project:
     inputs = r.texts(data, "inputs", "inputs")
     for k, inp in enumerate(inputs, start=1):
         if not (file.parent / inp).is_file():
-            r.fail(f"inputs[{k}]", inp, "an existing file in the project folder",
-                   "names a file that does not exist")
+            r.fail(
+                f"inputs[{k}]",
+                inp,
+                "an existing file in the project folder",
+                "names a file that does not exist",
+            )
 
     known = {"job", "people", "revisions", "sheets", "design", "inputs", "review"}
     for key in data:

@@ -13,7 +13,7 @@ import math
 from dataclasses import dataclass, field
 from typing import Any
 
-__all__ = ["RECORDS_MIMETYPE", "SheetRecords", "collect_records", "check_sort_key"]
+__all__ = ["RECORDS_MIMETYPE", "SheetRecords", "check_sort_key", "collect_records"]
 
 RECORDS_MIMETYPE = "application/vnd.calcpack.records+json"
 
@@ -105,13 +105,17 @@ def collect_records(nb: Any) -> SheetRecords:
     for payload in _payloads(nb):
         values += [_clean_value(v) for v in payload.get("values", []) if isinstance(v, dict)]
         checks += [_clean_check(c) for c in payload.get("checks", []) if isinstance(c, dict)]
-        for key, target in (("assumptions", assumptions), ("cautions", cautions),
-                            ("standards", standards)):
+        for key, target in (
+            ("assumptions", assumptions),
+            ("cautions", cautions),
+            ("standards", standards),
+        ):
             for text in payload.get(key, []):
                 if isinstance(text, str) and text.strip() and text.strip() not in target:
                     target.append(text.strip())
-    return SheetRecords(tuple(values), tuple(checks), tuple(assumptions), tuple(cautions),
-                        tuple(standards))
+    return SheetRecords(
+        tuple(values), tuple(checks), tuple(assumptions), tuple(cautions), tuple(standards)
+    )
 
 
 def check_sort_key(check: dict[str, Any]) -> tuple[int, float]:
