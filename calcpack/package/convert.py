@@ -14,6 +14,7 @@ is the rendered output.
 from __future__ import annotations
 
 import base64
+import os
 import re
 from functools import cache
 from importlib import resources
@@ -86,11 +87,10 @@ class CalcpackHTMLExporter(HTMLExporter):  # type: ignore[misc]
     exclude_output_prompt = Bool(True).tag(config=True)
 
     def __init__(self, **kwargs: Any) -> None:
+        # The template folder must be on the search path before nbconvert reads its conf.json
+        # (inside the base initialiser).
+        kwargs.setdefault("extra_template_basedirs", [os.getcwd(), *template_dirs()])
         super().__init__(**kwargs)
-        current: list[str] = list(getattr(self, "extra_template_basedirs"))  # noqa: B009 - untyped trait
-        extra = [d for d in template_dirs() if d not in current]
-        if extra:
-            self.extra_template_basedirs = [*current, *extra]
 
     def default_filters(self) -> Any:
         yield from super().default_filters()

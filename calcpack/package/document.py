@@ -134,7 +134,7 @@ def _titleblock(project: Project, *, sheet_no: str, title: str, pages: int | Non
     firm = project.firm or "Structural calculations"
     sheet_page = f'<span class="cp-sheetpage" data-pages="{pages}"></span>' if pages else "&#8212;"
     if pages == 0:
-        sheet_page = '<span class="cp-sheetpage" data-pages="00"></span>'
+        sheet_page = 'sheet <span class="cp-sheetpage" data-pages="00"></span>'
     return f"""
 <div class="cp-titleblock"><table>
 <colgroup><col style="width:21%"><col style="width:9%"><col style="width:34%">
@@ -155,8 +155,8 @@ def _titleblock(project: Project, *, sheet_no: str, title: str, pages: int | Non
 <span class="lbl">{_e(_person_date(project.preparer, rev.date))}</span></td>
 <td><span class="lbl">Checked &#183; date</span><span class="val">{_e(project.checker.name)}</span>
 <span class="lbl">{_e(_person_date(project.checker, None))}</span></td>
-<td class="pg"><span class="lbl">Page (sheet)</span><span class="val">{sheet_page}</span>
-<span class="lbl">Package <span class="cp-pkgpage"></span></span></td>
+<td class="pg"><span class="lbl">Page</span><span class="val">{sheet_page}</span>
+<span class="sub">package <span class="cp-pkgpage"></span></span></td>
 </tr>
 </table></div>"""
 
@@ -248,7 +248,7 @@ def _design_basis(project: Project, sheets: Sequence[SheetDoc]) -> str:
         _list(
             [_e(s) for s in d.standards]
             + [
-                f'{_e(s)} <span class="cp-src">(sheet {_e(sheet.entry.number)})</span>'
+                f'{_e(s)} <span class="cpd-src">(sheet {_e(sheet.entry.number)})</span>'
                 for s, sheet in sheet_standards
             ]
         )
@@ -268,14 +268,14 @@ def _assumptions(project: Project, sheets: Sequence[SheetDoc]) -> str:
     assumptions = [_inline_markdown(a) for a in project.design.assumptions]
     for sheet in sheets:
         assumptions += [
-            f'{_inline_markdown(a)} <span class="cp-src">(sheet {_e(sheet.entry.number)})</span>'
+            f'{_inline_markdown(a)} <span class="cpd-src">(sheet {_e(sheet.entry.number)})</span>'
             for a in sheet.records.assumptions
         ]
     cautions = [_e(c) for c in STANDARD_CAUTIONS]
     cautions += [_inline_markdown(c) for c in project.design.cautions]
     for sheet in sheets:
         cautions += [
-            f'{_inline_markdown(c)} <span class="cp-src">(sheet {_e(sheet.entry.number)})</span>'
+            f'{_inline_markdown(c)} <span class="cpd-src">(sheet {_e(sheet.entry.number)})</span>'
             for c in sheet.records.cautions
         ]
     body = (
@@ -296,7 +296,7 @@ def _assumptions(project: Project, sheets: Sequence[SheetDoc]) -> str:
 
 def _verdict(verdict: str) -> str:
     cls = {"OK": "ok", "NOT OK": "notok"}.get(verdict, "nc")
-    return f'<span class="cp-verdict {cls}">{_e(verdict)}</span>'
+    return f'<span class="cpd-verdict {cls}">{_e(verdict)}</span>'
 
 
 def _summary(project: Project, sheets: Sequence[SheetDoc]) -> str:
@@ -309,7 +309,7 @@ def _summary(project: Project, sheets: Sequence[SheetDoc]) -> str:
         if u is not None:
             width = min(u, 1.5) / 1.5 * 14
             over = " over" if u > 1 else ""
-            bar = f' <span class="cp-ubar{over}" style="width:{width:.1f}mm"></span>'
+            bar = f' <span class="cpd-ubar{over}" style="width:{width:.1f}mm"></span>'
         unit = f" {_e(c['unit'])}" if c.get("unit") else ""
         rows.append(
             f"<tr><td>{_e(sheet.entry.number)}</td><td>{_e(c.get('member') or '')}</td>"
@@ -321,7 +321,7 @@ def _summary(project: Project, sheets: Sequence[SheetDoc]) -> str:
         )
     if rows:
         table = (
-            '<table class="cp-table"><thead><tr><th>Sheet</th><th>Member</th><th>Check</th>'
+            '<table class="cpd-table"><thead><tr><th>Sheet</th><th>Member</th><th>Check</th>'
             "<th>Combination</th><th>Demand</th><th>Capacity</th><th>Utilisation</th>"
             "<th>Verdict</th><th>Reference</th></tr></thead><tbody>"
             + "".join(rows)
@@ -355,7 +355,7 @@ def _revisions(project: Project) -> str:
     return (
         _titleblock(project, sheet_no="—", title="Revision history", pages=None)
         + '<h1 class="cp-h cp-bm1">Revision history</h1>'
-        + '<table class="cp-table"><thead><tr><th>Rev</th><th>Date</th><th>Description</th>'
+        + '<table class="cpd-table"><thead><tr><th>Rev</th><th>Date</th><th>Description</th>'
         + "<th>Status</th></tr></thead><tbody>"
         + "".join(rows)
         + "</tbody></table>"
@@ -377,7 +377,7 @@ def _review(project: Project, review: tuple[ReviewRow, ...] | None) -> str:
         for r in review
     )
     return (
-        head + '<table class="cp-table"><thead><tr><th>No.</th><th>Sheet</th>'
+        head + '<table class="cpd-table"><thead><tr><th>No.</th><th>Sheet</th>'
         "<th>Quantity</th><th>Comment</th><th>By</th><th>Date</th><th>Status</th></tr>"
         "</thead><tbody>" + rows + "</tbody></table>"
     )
@@ -391,7 +391,7 @@ def _appendix(project: Project, sheets: Sequence[SheetDoc]) -> str:
     for sheet in sheets:
         parts.append(
             f'<h2 class="cp-h">Sheet {_e(sheet.entry.number)}: {_e(sheet.title)} '
-            f'<span class="cp-src">({_e(sheet.entry.path)})</span></h2>'
+            f'<span class="cpd-src">({_e(sheet.entry.path)})</span></h2>'
             '<div class="cp-source">'
         )
         for number, source in sheet.source_cells:

@@ -147,6 +147,8 @@ def _sheet_title(entry: SheetEntry, nb: Any) -> str:
     return Path(entry.path).stem.replace("_", " ")
 
 
+_JUPYTER_STYLE_RE = re.compile(r'<style class="cp-style">.*?</style>', re.DOTALL)
+"""The working module's style block for JupyterLab; the PDF uses the package stylesheet."""
 _FIRST_H1_RE = re.compile(r"<h1[^>]*>(.*?)</h1>", re.DOTALL)
 
 
@@ -184,7 +186,7 @@ def prepare_sheet(
     )
     title = _sheet_title(entry, nb)
     try:
-        body = _drop_title_heading(sheet_fragment(nb), title)
+        body = _drop_title_heading(_JUPYTER_STYLE_RE.sub("", sheet_fragment(nb)), title)
         body = math_spans_to_images(body)
     except BuildError as exc:
         raise BuildError(f"Sheet {entry.path!r}: {exc}") from exc
