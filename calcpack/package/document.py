@@ -132,7 +132,9 @@ def _inline_markdown(text: str) -> str:
 def _titleblock(project: Project, *, sheet_no: str, title: str, pages: int | None) -> str:
     rev = project.revision
     firm = project.firm or "Structural calculations"
-    sheet_page = f'<span class="cp-sheetpage" data-pages="{pages}"></span>' if pages else "&#8212;"
+    sheet_page = (
+        f'sheet <span class="cp-sheetpage" data-pages="{pages}"></span>' if pages else "&#8212;"
+    )
     if pages == 0:
         sheet_page = 'sheet <span class="cp-sheetpage" data-pages="00"></span>'
     return f"""

@@ -102,7 +102,7 @@ def _first_line(source: str) -> str:
     return ""
 
 
-def _failure(nb: Any, sheet: str, exc: BaseException) -> tuple[str, int, str, str]:
+def _failure(nb: Any, sheet: str, exc: BaseException, timeout: float) -> tuple[str, int, str, str]:
     """(sheet, 1-based cell number, first source line, error) for a failed execution."""
     from nbclient.exceptions import CellTimeoutError, DeadKernelError
 
@@ -118,7 +118,7 @@ def _failure(nb: Any, sheet: str, exc: BaseException) -> tuple[str, int, str, st
     if ename:
         error = f"{ename}: {evalue}"
     elif isinstance(exc, CellTimeoutError):
-        error = "the cell timed out"
+        error = f"the cell timed out after {timeout:g} s (raise --timeout if it needs longer)"
     elif isinstance(exc, DeadKernelError):
         error = "the kernel died"
     else:
@@ -172,7 +172,8 @@ def _execute(path: str, sheet: str, timeout: float) -> tuple[Any, ...]:
     """Run one notebook; ('ok', json) or ('error', sheet, cell, excerpt, error). Picklable."""
     import nbformat
     from jupyter_client.kernelspec import KernelSpec, KernelSpecManager
-    from jupyter_client.manager import KernelManager
+    from jupyter_client.manager import AsyncKernelManager
+    from jupyter_core.utils import run_sync
     from nbclient import NotebookClient
     from nbclient.exceptions import CellControlSignal, CellExecutionError, DeadKernelError
 
@@ -187,7 +188,9 @@ def _execute(path: str, sheet: str, timeout: float) -> tuple[Any, ...]:
 
     nb = nbformat.read(path, as_version=4)
     with tempfile.TemporaryDirectory(prefix="calcpack-kernel-") as sockets:
-        km = KernelManager(
+        # An asynchronous manager, as nbclient makes for itself: with a blocking one nbclient
+        # does not enforce the per-cell timeout.
+        km = AsyncKernelManager(
             kernel_name="python3",
             kernel_spec_manager=SamePython(),
             transport="ipc",
@@ -204,12 +207,12 @@ def _execute(path: str, sheet: str, timeout: float) -> tuple[Any, ...]:
         try:
             client.execute()
         except (CellExecutionError, CellControlSignal, DeadKernelError, RuntimeError) as exc:
-            return ("error", *_failure(nb, sheet, exc))
+            return ("error", *_failure(nb, sheet, exc, timeout))
         finally:
             # nbclient leaves a kernel manager it was given running: shut it down here.
             try:
                 if km.has_kernel:
-                    km.shutdown_kernel(now=True)
+                    run_sync(km.shutdown_kernel)(now=True)
             except Exception:
                 pass
     return ("ok", nbformat.writes(nb))

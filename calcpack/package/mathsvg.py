@@ -23,6 +23,7 @@ from __future__ import annotations
 import base64
 import html
 import re
+import warnings
 from dataclasses import dataclass
 
 from calcpack.errors import BuildError
@@ -120,6 +121,7 @@ def fix_tex(tex: str) -> str:
     return "".join(out)
 
 
+_UNKNOWN_COMMAND_RE = re.compile(r"<m[ion]>(\\[A-Za-z]+)</m[ion]>")
 _cache: dict[tuple[str, bool, float], MathImage] = {}
 
 
@@ -138,10 +140,27 @@ def tex_to_svg(tex: str, *, display: bool = False, size_px: float = MATH_PX_PER_
     hit = _cache.get(key)
     if hit is not None:
         return hit
-    import ziamath
+    with warnings.catch_warnings():
+        # ziamath 0.13 loads its font at import with a deprecated importlib.resources call.
+        warnings.simplefilter("ignore", DeprecationWarning)
+        import ziamath
+        from ziamath.tex import tex2mml
 
     try:
-        math = ziamath.Latex(fix_tex(tex), size=size_px, inline=not display)
+        mathml = tex2mml(fix_tex(tex), inline=not display)
+    except Exception as exc:
+        raise BuildError(
+            f"Formula could not be typeset: {tex!r} ({type(exc).__name__}: {exc})"
+        ) from exc
+    unknown = _UNKNOWN_COMMAND_RE.search(mathml)
+    if unknown:
+        # The TeX converter passes unknown commands through as text: refuse rather than print
+        # a misspelt command into an issued document.
+        raise BuildError(
+            f"Formula could not be typeset: {tex!r} (unknown command {unknown.group(1)})"
+        )
+    try:
+        math = ziamath.Math(mathml, size=size_px)
         svg = math.svg()
         width, height = math.getsize()
         offset = float(math.getyofst())
