@@ -22,9 +22,12 @@ from __future__ import annotations
 
 import base64
 import html
+import json
+import os
 import re
 import warnings
 from dataclasses import dataclass
+from pathlib import Path
 
 from calcpack.errors import BuildError
 
@@ -32,8 +35,10 @@ __all__ = [
     "MATH_SPAN_RE",
     "MathImage",
     "fix_tex",
+    "load_math_cache",
     "markdown_math_to_spans",
     "math_spans_to_images",
+    "save_math_cache",
     "tex_to_svg",
 ]
 
@@ -125,6 +130,51 @@ _UNKNOWN_COMMAND_RE = re.compile(r"<m[ion]>(\\[A-Za-z]+)</m[ion]>")
 _cache: dict[tuple[str, bool, float], MathImage] = {}
 
 
+_CACHE_FORMAT = "calcpack-math-cache/1"
+
+
+def load_math_cache(path: Path) -> int:
+    """Read typeset formulas saved by an earlier build into the in-memory cache; returns count.
+
+    A missing or unreadable file is ignored (the formulas are typeset again).
+    """
+    try:
+        data = json.loads(path.read_text("utf-8"))
+    except (OSError, ValueError):
+        return 0
+    if not isinstance(data, dict) or data.get("format") != _CACHE_FORMAT:
+        return 0
+    loaded = 0
+    for item in data.get("formulas", []):
+        try:
+            tex, display, size, svg, width, height, baseline = item
+            key = (str(tex), bool(display), float(size))
+            _cache.setdefault(
+                key, MathImage(key[0], str(svg), float(width), float(height), float(baseline))
+            )
+            loaded += 1
+        except (TypeError, ValueError):
+            continue
+    return loaded
+
+
+def save_math_cache(path: Path, used: set[tuple[str, bool, float]] | None = None) -> None:
+    """Write the in-memory formula cache (only ``used`` keys when given) to ``path``."""
+    items = [
+        [k[0], k[1], k[2], v.svg, v.width_px, v.height_px, v.baseline_px]
+        for k, v in sorted(_cache.items())
+        if used is None or k in used
+    ]
+    path.parent.mkdir(parents=True, exist_ok=True)
+    tmp = path.with_suffix(".tmp")
+    tmp.write_text(json.dumps({"format": _CACHE_FORMAT, "formulas": items}), "utf-8")
+    os.replace(tmp, path)
+
+
+used_keys: set[tuple[str, bool, float]] = set()
+"""Keys looked up since the process started (the build saves only these)."""
+
+
 def tex_to_svg(tex: str, *, display: bool = False, size_px: float = MATH_PX_PER_EM) -> MathImage:
     """Typeset one TeX formula as SVG (cached by TeX source, style and size).
 
@@ -136,7 +186,8 @@ def tex_to_svg(tex: str, *, display: bool = False, size_px: float = MATH_PX_PER_
     Raises:
         BuildError: ziamath cannot typeset the formula (the message quotes the TeX).
     """
-    key = (tex, display, size_px)
+    key = (tex, display, float(size_px))
+    used_keys.add(key)
     hit = _cache.get(key)
     if hit is not None:
         return hit
