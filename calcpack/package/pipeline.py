@@ -237,21 +237,22 @@ def _previous_manifest(path: Path) -> dict[str, Any]:
 def _page_guess(
     previous: dict[str, Any], executed: list[ExecutedSheet], options: DocumentOptions
 ) -> dict[str, int]:
-    """Page counts of sheets unchanged since the previous build (same cache key and paper).
+    """Expected page count per sheet: the previous build's for unchanged sheets, else 1.
 
-    A sheet's page count depends only on its own content and the paper, so when every sheet is
-    known the layout needs one pass instead of two.
+    A sheet's page count depends only on its own content and the paper, so when the guess is
+    right the layout needs one pass instead of two.
     """
     if previous.get("build", {}).get("paper") != options.paper:
-        return {}
+        previous = {}
     known = {s.get("path"): s for s in previous.get("sheets", []) if isinstance(s, dict)}
     guess = {}
     for item in executed:
         old = known.get(item.entry.path)
-        if not old or old.get("cache_key") != item.cache_key:
-            return {}
-        first, last = old.get("pages", [0, -1])
-        guess[item.entry.path] = int(last) - int(first) + 1
+        if old and old.get("cache_key") == item.cache_key:
+            first, last = old.get("pages", [1, 1])
+            guess[item.entry.path] = int(last) - int(first) + 1
+        else:
+            guess[item.entry.path] = 1  # most sheets fit one page; a wrong guess costs a pass
     return guess
 
 
