@@ -14,7 +14,7 @@ from collections.abc import Sequence
 
 from calcpack.errors import CalcpackError
 
-COMMAND_MODULES: tuple[str, ...] = ("build", "demo", "new")
+COMMAND_MODULES: tuple[str, ...] = ("build", "demo", "new", "keys", "sign", "verify", "review", "diff")
 
 
 def build_parser() -> argparse.ArgumentParser:
