@@ -169,9 +169,8 @@ def _cover(project: Project, sheets: Sequence[SheetDoc]) -> str:
     boxes = []
     for role in ROLES:
         person: Person = getattr(project, role)
-        when = _date(person.date) if role != "checker" else _date(project.checker.date)
-        if role == "preparer":
-            when = _person_date(person, rev.date)
+        # The preparer's date defaults to the revision's; the others only show a date given.
+        when = _person_date(person, rev.date if role == "preparer" else None)
         boxes.append(f"""
 <td><div class="role">{ROLE_TITLES[role]}</div>
 <div class="who"><span class="lbl">Name</span>{_e(person.name)}</div>
