@@ -1,0 +1,358 @@
+"""Numeric core of the beam solver: exact piecewise polynomials in SI floats.
+
+Method (exact for polynomial loads). The beam is cut at every breakpoint (ends, supports,
+hinges, point actions, ends of distributed loads, changes of EI). On each segment the line load
+w is a polynomial in the local coordinate ξ = x − x_j, and
+
+    dV/dx = −w,   dM/dx = V,   dθ/dx = M/EI,   dv/dx = θ        (v upward, θ counter-clockwise)
+
+are integrated term by term, with jumps at breakpoints: V jumps by the upward point force, M by
+the clockwise couple, θ by the hinge rotation. The unknowns -- the reaction components, the hinge
+rotations, and θ and v at x = 0 -- enter all four functions linearly, so each is integrated once
+for the loads and once per unknown (vectorised over that batch), and the unknowns follow from
+one square linear system:
+
+* equilibrium of the whole beam: V(L⁺) = 0 and M(L⁺) = 0;
+* each hinge: M = 0;
+* each support: v = 0 (or v = −R/k on a spring) and, where rotation is restrained, θ = 0 (or
+  θ = C/k_θ) -- the compatibility conditions.
+
+This is the compatibility (integration) form of the flexibility method. Without EI, a
+determinate beam is solved from the equilibrium and hinge equations alone.
+"""
+
+from __future__ import annotations
+
+from dataclasses import dataclass
+
+import numpy as np
+
+from calcpack.errors import InputError
+
+__all__ = [
+    "SIBeam",
+    "SIResult",
+    "Unknown",
+    "evaluate",
+    "integrate",
+    "refine",
+    "solve_si",
+]
+
+
+@dataclass(frozen=True)
+class Unknown:
+    """One unknown of the linear system: ``kind`` in {"R", "C", "hinge", "theta0", "v0"}."""
+
+    kind: str
+    index: int  # breakpoint index
+    owner: str  # support or hinge name ("" for theta0, v0)
+    flexibility: float = 0.0  # 1/k or 1/k_theta for springs (m/N or 1/(N·m))
+
+
+@dataclass(frozen=True)
+class SIBeam:
+    """The beam in SI, as the core reads it.
+
+    Attributes:
+        L_m: length. supports: (name, x_m, restrains_v, restrains_rotation, 1/k or 0,
+            1/k_theta or 0, restrains_h). hinges: (name, x_m). pieces: (a, b, coeffs) line
+            loads N/m downward. points: (x, P down N, H N, C cw N·m). EI: (a, b, EI N·m²) or
+            None. EA_uniform: True (only the distribution of EA matters).
+    """
+
+    L_m: float
+    supports: tuple[tuple[str, float, bool, bool, float, float, bool], ...]
+    hinges: tuple[tuple[str, float], ...]
+    pieces: tuple[tuple[float, float, tuple[float, ...]], ...]
+    points: tuple[tuple[float, float, float, float], ...]
+    EI: tuple[tuple[float, float, float], ...] | None
+
+
+@dataclass(frozen=True, eq=False)
+class SIResult:
+    """Piecewise polynomials on the breakpoints ``X`` (n+1 values, n segments).
+
+    ``w, V, M, T, v`` have shape (n, K): ascending coefficients in ξ = x − X[j] on segment j
+    (w in N/m down +, V in N, M in N·m sagging +, T = θ in rad ccw +, v in m upward +;
+    T and v are None without EI). ``N`` (n,) is the axial force on each segment (tension +).
+    ``reactions`` maps (support name, component) -> value, component in {"Fy", "Fx", "C"}.
+    ``hinge_rotation`` maps a hinge name to its rotation jump θ⁺ − θ⁻ (rad).
+    """
+
+    X: np.ndarray
+    w: np.ndarray
+    V: np.ndarray
+    M: np.ndarray
+    T: np.ndarray | None
+    v: np.ndarray | None
+    N: np.ndarray
+    reactions: dict[tuple[str, str], float]
+    hinge_rotation: dict[str, float]
+
+
+def _powers(h: np.ndarray, K: int) -> np.ndarray:
+    return np.asarray(h[:, None] ** np.arange(K)[None, :], dtype=float)
+
+
+def integrate(
+    f: np.ndarray, h: np.ndarray, start: np.ndarray, jumps: np.ndarray, sign: float = 1.0
+) -> np.ndarray:
+    """Integrate piecewise polynomials batch-wise: g' = sign·f, g(0⁻) = start, jumps at nodes.
+
+    Args:
+        f: (B, n, K) coefficients of the derivative; the top coefficient must be zero.
+        h: (n,) segment lengths. start: (B,) value before x = 0. jumps: (B, n+1) jump of g at
+            each breakpoint (the jump at the last node is not included in the segments).
+    Returns:
+        (B, n, K) coefficients of g.
+    """
+    _B, n, K = f.shape
+    k = np.arange(1, K)
+    g = np.zeros_like(f)
+    g[:, :, 1:] = sign * f[:, :, :-1] / k
+    ends = np.einsum("bnk,nk->bn", g, _powers(h, K))
+    increments = jumps[:, :n].copy()
+    increments[:, 1:] += ends[:, :-1]
+    g[:, :, 0] = start[:, None] + np.cumsum(increments, axis=1)
+    return g
+
+
+def end_values(g: np.ndarray, h: np.ndarray) -> np.ndarray:
+    """(…, n) value of each segment polynomial at its right end."""
+    return np.asarray(np.einsum("...nk,nk->...n", g, _powers(h, g.shape[-1])), dtype=float)
+
+
+def evaluate(X: np.ndarray, g: np.ndarray, x: np.ndarray, side: str = "right") -> np.ndarray:
+    """Evaluate piecewise polynomial ``g`` (n, K) at positions ``x`` (m).
+
+    At a breakpoint, ``side="right"`` gives the value just to the right, ``"left"`` just to the
+    left. At the beam ends both give the value inside the beam.
+    """
+    n = g.shape[0]
+    if side == "right":
+        seg = np.searchsorted(X, x, side="right") - 1
+    elif side == "left":
+        seg = np.searchsorted(X, x, side="left") - 1
+    else:
+        raise InputError(
+            f"side must be 'left' or 'right' (got side = {side!r})",
+            name="side",
+            value=side,
+            expected="'left' or 'right'",
+        )
+    seg = np.clip(seg, 0, n - 1)
+    xi = x - X[seg]
+    coeffs = g[seg]
+    out = np.zeros_like(xi, dtype=float)
+    for k in range(g.shape[1] - 1, -1, -1):
+        out = out * xi + coeffs[..., k]
+    return out
+
+
+def _shift(c: np.ndarray, s: np.ndarray) -> np.ndarray:
+    """Coefficients of p(ξ + s) for each row of c (ascending), s per row."""
+    K = c.shape[-1]
+    out = np.zeros_like(c)
+    from math import comb
+
+    for i in range(K):
+        for k in range(i + 1):
+            out[..., k] += c[..., i] * comb(i, k) * s ** (i - k)
+    return out
+
+
+def refine(X: np.ndarray, g: np.ndarray, Xnew: np.ndarray, K: int) -> np.ndarray:
+    """Re-express piecewise polynomial ``g`` on breakpoints X on the finer breakpoints Xnew."""
+    seg = np.clip(np.searchsorted(X, Xnew[:-1], side="right") - 1, 0, g.shape[0] - 1)
+    c = np.zeros((len(Xnew) - 1, K))
+    c[:, : g.shape[1]] = g[seg]
+    return _shift(c, Xnew[:-1] - X[seg])
+
+
+def _breakpoints(beam: SIBeam) -> np.ndarray:
+    xs = [0.0, beam.L_m]
+    xs += [s[1] for s in beam.supports]
+    xs += [h[1] for h in beam.hinges]
+    xs += [p[0] for p in beam.points]
+    for a, b, _ in beam.pieces:
+        xs += [a, b]
+    if beam.EI is not None:
+        for a, b, _ in beam.EI:
+            xs += [a, b]
+    X = np.unique(np.clip(np.asarray(xs, dtype=float), 0.0, beam.L_m))
+    keep = np.concatenate([[True], np.diff(X) > 1e-9 * beam.L_m])
+    return np.asarray(X[keep], dtype=float)
+
+
+def _node(X: np.ndarray, x: float) -> int:
+    return int(np.argmin(np.abs(X - x)))
+
+
+def solve_si(beam: SIBeam) -> SIResult:
+    """Solve the beam exactly; see the module docstring for the method.
+
+    The caller has checked stability (:func:`calcpack.analysis.beam.model.classify`) and that
+    EI is given where it is needed.
+    """
+    X = _breakpoints(beam)
+    n = len(X) - 1
+    h = np.diff(X)
+    deg = max((len(c) - 1 for _, _, c in beam.pieces), default=0)
+    K = deg + 5
+
+    # -- the loads ----------------------------------------------------------------------------
+    w = np.zeros((n, K))
+    mids = 0.5 * (X[:-1] + X[1:])
+    for a, b, coeffs in beam.pieces:
+        on = (mids > a) & (mids < b)
+        if not np.any(on):
+            continue
+        c = np.zeros((int(on.sum()), K))
+        c[:, : len(coeffs)] = coeffs
+        w[on] += _shift(c, X[:-1][on] - a)
+    jP = np.zeros(n + 1)  # downward point forces
+    jC = np.zeros(n + 1)  # clockwise couples
+    jH = np.zeros(n + 1)  # axial, +x
+    for x, P, H, C in beam.points:
+        i = _node(X, x)
+        jP[i] += P
+        jC[i] += C
+        jH[i] += H
+
+    # -- the unknowns --------------------------------------------------------------------------
+    unknowns: list[Unknown] = []
+    for name, x, rv, rr, fv, fr, _ in beam.supports:
+        i = _node(X, x)
+        if rv:
+            unknowns.append(Unknown("R", i, name, fv))
+        if rr:
+            unknowns.append(Unknown("C", i, name, fr))
+    with_ei = beam.EI is not None
+    if with_ei:
+        for name, x in beam.hinges:
+            unknowns.append(Unknown("hinge", _node(X, x), name))
+        unknowns.append(Unknown("theta0", 0, ""))
+        unknowns.append(Unknown("v0", 0, ""))
+    nu = len(unknowns)
+    Bn = nu + 1
+
+    W = np.zeros((Bn, n, K))
+    W[0] = w
+    JV = np.zeros((Bn, n + 1))
+    JM = np.zeros((Bn, n + 1))
+    JT = np.zeros((Bn, n + 1))
+    T0 = np.zeros(Bn)
+    V0 = np.zeros(Bn)
+    JV[0] = -jP
+    JM[0] = jC
+    for b, u in enumerate(unknowns, start=1):
+        if u.kind == "R":
+            JV[b, u.index] = 1.0
+        elif u.kind == "C":
+            JM[b, u.index] = 1.0
+        elif u.kind == "hinge":
+            JT[b, u.index] = 1.0
+        elif u.kind == "theta0":
+            T0[b] = 1.0
+        else:
+            V0[b] = 1.0
+    zero = np.zeros(Bn)
+    Vb = integrate(W, h, zero, JV, sign=-1.0)
+    Mb = integrate(Vb, h, zero, JM)
+    Vend = end_values(Vb, h)
+    Mend = end_values(Mb, h)
+
+    def at_node(g: np.ndarray, gend: np.ndarray, i: int) -> np.ndarray:
+        return g[:, i, 0] if i < n else gend[:, n - 1]
+
+    rows = [Vend[:, -1] + JV[:, n], Mend[:, -1] + JM[:, n]]
+    Tb = vb = None
+    if with_ei:
+        assert beam.EI is not None
+        EI = np.zeros(n)
+        for a, b_, value in beam.EI:
+            EI[(mids > a) & (mids < b_)] = value
+        Tb = integrate(Mb / EI[None, :, None], h, T0, JT)
+        vb = integrate(Tb, h, V0, np.zeros((Bn, n + 1)))
+        Tend = end_values(Tb, h)
+        vend = end_values(vb, h)
+        for _name, x in beam.hinges:
+            rows.append(at_node(Mb, Mend, _node(X, x)))
+        col = {(u.kind, u.owner): b for b, u in enumerate(unknowns, start=1)}
+        for name, x, rv, rr, fv, fr, _ in beam.supports:
+            i = _node(X, x)
+            if rv:
+                row = at_node(vb, vend, i).copy()
+                row[col[("R", name)]] += fv
+                rows.append(row)
+            if rr:
+                row = at_node(Tb, Tend, i).copy()
+                row[col[("C", name)]] -= fr
+                rows.append(row)
+    else:
+        for _name, x in beam.hinges:
+            rows.append(at_node(Mb, Mend, _node(X, x)))
+    A = np.array(rows)
+    rhs = -A[:, 0]
+    A = A[:, 1:]
+    if nu:
+        # Equilibrate rows and columns: unknowns mix newtons, radians and metres.
+        cs = np.max(np.abs(A), axis=0)
+        cs[cs == 0] = 1.0
+        As = A / cs
+        rs = np.max(np.abs(As), axis=1)
+        rs[rs == 0] = 1.0
+        u_vals = np.linalg.solve(As / rs[:, None], rhs / rs) / cs
+    else:
+        u_vals = np.zeros(0)
+    coef = np.concatenate([[1.0], u_vals])
+    V = np.einsum("b,bnk->nk", coef, Vb)
+    M = np.einsum("b,bnk->nk", coef, Mb)
+    T = np.einsum("b,bnk->nk", coef, Tb) if Tb is not None else None
+    v = np.einsum("b,bnk->nk", coef, vb) if vb is not None else None
+
+    reactions: dict[tuple[str, str], float] = {}
+    hinge_rotation: dict[str, float] = {}
+    for u, val in zip(unknowns, u_vals, strict=True):
+        if u.kind == "R":
+            reactions[(u.owner, "Fy")] = float(val)
+        elif u.kind == "C":
+            reactions[(u.owner, "C")] = float(val)
+        elif u.kind == "hinge":
+            hinge_rotation[u.owner] = float(val)
+
+    N, Hreact = _axial(beam, X, jH)
+    reactions.update(Hreact)
+    return SIResult(X, w, V, M, T, v, N, reactions, hinge_rotation)
+
+
+def _axial(
+    beam: SIBeam, X: np.ndarray, jH: np.ndarray
+) -> tuple[np.ndarray, dict[tuple[str, str], float]]:
+    """Axial force per segment (tension +) and horizontal reactions.
+
+    With several horizontal restraints, the axial load is shared so that the axial
+    displacement is zero at each restraint, taking EA uniform (only its distribution matters).
+    """
+    n = len(X) - 1
+    h = np.diff(X)
+    restraints = [(name, _node(X, x)) for name, x, *_, rh in beam.supports if rh]
+    reactions: dict[tuple[str, str], float] = {}
+    base = -np.cumsum(jH)[:n]  # N on each segment from the applied axial loads alone
+    if not restraints:
+        return base, reactions
+    m = len(restraints)
+    units = np.zeros((m, n))
+    for r, (_, i) in enumerate(restraints):
+        units[r, i:] = -1.0  # a unit +x reaction at node i
+    rows = [np.append(np.ones(m), -jH.sum())]  # ΣFx = 0: Σ H_r = −Σ applied
+    for r in range(m - 1):
+        i0, i1 = restraints[r][1], restraints[r + 1][1]
+        sl = slice(i0, i1)
+        rows.append(np.append(units[:, sl] @ h[sl], -(base[sl] @ h[sl])))
+    A = np.array(rows)
+    H = np.linalg.solve(A[:, :-1], A[:, -1])
+    for (name, _), value in zip(restraints, H, strict=True):
+        reactions[(name, "Fx")] = float(value)
+    return base + H @ units, reactions

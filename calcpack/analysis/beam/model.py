@@ -1,0 +1,575 @@
+"""The beam model: a straight member on the x axis, its supports, hinges, stiffness and loads.
+
+Model objects hold data and are checked when built; solving is done by
+:func:`calcpack.analysis.beam.solve_beam`.
+
+Sign convention: x from the left end (x = 0) to the right end (x = L). Loads are positive
+downward; reactions positive upward (forces) and clockwise (moments, the same sense as applied
+couples, so a fixed support's moment reaction at the left end equals the bending moment just
+inside it).
+"""
+
+from __future__ import annotations
+
+import itertools
+import string
+from collections.abc import Sequence
+from dataclasses import dataclass, field, replace
+
+import numpy as np
+
+from calcpack.errors import InputError, UnstableStructureError
+from calcpack.loads.types import DistributedLoad, Load, PointMoment, as_loads
+from calcpack.units import Quantity, require, si
+
+__all__ = [
+    "Beam",
+    "BeamClassification",
+    "EISegment",
+    "Fixed",
+    "Hinge",
+    "Pin",
+    "Roller",
+    "Spring",
+    "Support",
+    "classify",
+]
+
+_LENGTH = "[length]"
+
+
+@dataclass(frozen=True)
+class Support:
+    """Base of supports at position ``x`` [length]. ``name`` defaults to A, B, C... by position.
+
+    Attributes (class level): ``restrains_v``, ``restrains_h``, ``restrains_rotation``.
+    """
+
+    x: Quantity
+    name: str | None = field(default=None, kw_only=True)
+
+    kind = "support"
+    restrains_v = True
+    restrains_h = False
+    restrains_rotation = False
+
+    def __post_init__(self) -> None:
+        require(self.x, _LENGTH, "x")
+
+    @property
+    def x_m(self) -> float:
+        return si(self.x)
+
+    @property
+    def label(self) -> str:
+        return self.name or "?"
+
+
+@dataclass(frozen=True)
+class Pin(Support):
+    """A pin: restrains both translations (vertical and horizontal), free to rotate."""
+
+    kind = "pin"
+    restrains_h = True
+
+
+@dataclass(frozen=True)
+class Roller(Support):
+    """A roller: restrains translation perpendicular to the beam only."""
+
+    kind = "roller"
+
+
+@dataclass(frozen=True)
+class Fixed(Support):
+    """A fixed support: restrains both translations and the rotation."""
+
+    kind = "fixed"
+    restrains_h = True
+    restrains_rotation = True
+
+
+@dataclass(frozen=True)
+class Spring(Support):
+    """An elastic support: a vertical spring ``k`` [force/length] and/or a rotational spring
+    ``k_theta`` [force·length/angle]. Give at least one. It gives no horizontal restraint.
+
+    The spring force is R = −k·v (v upward), the spring moment C = k_theta·θ (clockwise +, θ
+    counter-clockwise +), both resisting the movement.
+    """
+
+    k: Quantity | None = None
+    k_theta: Quantity | None = None
+
+    kind = "spring"
+
+    def __post_init__(self) -> None:
+        super().__post_init__()
+        if self.k is None and self.k_theta is None:
+            raise InputError(
+                f"Spring support at x = {self.x:~P} needs k (vertical) or k_theta (rotational) "
+                "(got neither)",
+                name="k",
+                value=None,
+                expected="a stiffness",
+            )
+        if self.k is not None:
+            require(self.k, "[force] / [length]", "k", positive=True)
+        if self.k_theta is not None:
+            require(self.k_theta, "[force] * [length]", "k_theta", positive=True)
+
+    @property
+    def restrains_v(self) -> bool:  # type: ignore[override]
+        return self.k is not None
+
+    @property
+    def restrains_rotation(self) -> bool:  # type: ignore[override]
+        return self.k_theta is not None
+
+
+@dataclass(frozen=True)
+class Hinge:
+    """An internal hinge at ``x`` [length]: the bending moment there is zero and the slope may
+    jump. It passes shear and axial force."""
+
+    x: Quantity
+    name: str | None = field(default=None, kw_only=True)
+
+    def __post_init__(self) -> None:
+        require(self.x, _LENGTH, "x")
+
+    @property
+    def x_m(self) -> float:
+        return si(self.x)
+
+
+@dataclass(frozen=True)
+class EISegment:
+    """Flexural stiffness ``EI`` [force·length²] on ``start`` <= x <= ``end``."""
+
+    start: Quantity
+    end: Quantity
+    EI: Quantity
+
+    def __post_init__(self) -> None:
+        require(self.start, _LENGTH, "start")
+        require(self.end, _LENGTH, "end")
+        require(self.EI, "[force] * [length] ** 2", "EI", positive=True)
+        if not si(self.end) > si(self.start):
+            raise InputError(
+                f"EI segment end must be greater than its start (got start = {self.start:~P}, "
+                f"end = {self.end:~P})",
+                name="end",
+                value=self.end,
+                expected="end > start",
+            )
+
+
+def _fmt(x_m: float) -> str:
+    return f"{x_m:.4g} m"
+
+
+@dataclass(frozen=True)
+class BeamClassification:
+    """The beam's static classification.
+
+    Attributes:
+        kind: ``"determinate"``, ``"indeterminate"`` or ``"unstable"``.
+        degree: total degree of static indeterminacy (bending + axial); 0 if determinate.
+        degree_bending: redundant transverse reactions (vertical forces and moments).
+        degree_axial: redundant horizontal reactions.
+        axially_restrained: at least one support restrains horizontal movement. If False the
+            beam is stable for transverse loads only, and an axial load is refused.
+        reason: why the beam is unstable, and what would fix it ("" otherwise).
+        part: the support, hinge or part at fault when unstable.
+    """
+
+    kind: str
+    degree: int
+    degree_bending: int
+    degree_axial: int
+    axially_restrained: bool
+    reason: str = ""
+    part: str | None = None
+
+    def describe(self) -> str:
+        """One line for a sheet, e.g. ``"statically indeterminate to degree 1"``."""
+        if self.kind == "unstable":
+            return f"unstable: {self.reason}"
+        if self.kind == "determinate":
+            text = "stable and statically determinate"
+        else:
+            text = f"statically indeterminate to degree {self.degree}"
+            if self.degree_axial:
+                text += (
+                    f" ({self.degree_bending} in bending, {self.degree_axial} in the axial "
+                    "direction)"
+                )
+        if not self.axially_restrained:
+            text += "; no horizontal restraint, so for loads perpendicular to the beam only"
+        return text
+
+
+@dataclass(frozen=True)
+class Beam:
+    """A straight beam on the x axis, from x = 0 (left end) to x = ``length``.
+
+    Args:
+        length: span L [length], > 0.
+        supports: :class:`Pin`, :class:`Roller`, :class:`Fixed` or :class:`Spring` supports,
+            at distinct positions on the beam. Names default to A, B, C... from the left.
+        loads: the loads, each with its load case name (see :mod:`calcpack.loads`).
+        EI: flexural stiffness [force·length²]: one quantity for the whole beam, a sequence of
+            :class:`EISegment` covering 0..L without gaps, or None. EI is needed for deflections
+            and for indeterminate or spring-supported beams.
+        hinges: internal :class:`Hinge` positions, strictly inside the beam.
+        EA: axial stiffness [force]; only its distribution matters, so None means "uniform",
+            which is used to share an axial load between several horizontal restraints.
+        name: the member mark, e.g. ``"B1"``.
+
+    Raises:
+        InputError: non-positive length, a support, hinge or load off the beam, two supports
+            (or two hinges) at one position, a couple or a fixed support at a hinge, EI
+            segments that do not cover the beam.
+    """
+
+    length: Quantity
+    supports: Sequence[Support]
+    loads: Sequence[Load] = ()
+    EI: Quantity | Sequence[EISegment] | None = None
+    hinges: Sequence[Hinge] = ()
+    EA: Quantity | None = None
+    name: str = "Beam"
+
+    def __post_init__(self) -> None:
+        L = require(self.length, _LENGTH, "length", positive=True)
+        L_m = si(L)
+        tol = 1e-9 * L_m
+        supports = tuple(self.supports)
+        for i, s in enumerate(supports):
+            if not isinstance(s, Support):
+                raise InputError(
+                    f"supports[{i}] must be a Pin, Roller, Fixed or Spring (got {s!r})",
+                    name=f"supports[{i}]",
+                    value=s,
+                    expected="a Support",
+                )
+            if not -tol <= s.x_m <= L_m + tol:
+                raise InputError(
+                    f"Support supports[{i}] ({s.kind}) must lie on the beam, 0 <= x <= L (got x = "
+                    f"{s.x:~P}, L = {L:~P})",
+                    name=f"supports[{i}].x",
+                    value=s.x,
+                    expected=f"0 to {L:~P}",
+                )
+        supports = tuple(sorted(supports, key=lambda s: s.x_m))
+        letters = iter(string.ascii_uppercase)
+        named = []
+        used = {s.name for s in supports if s.name}
+        for s in supports:
+            if s.name is None:
+                label = next(letters)
+                while label in used:
+                    label = next(letters)
+                used.add(label)
+                s = replace(s, name=label)
+            named.append(s)
+        for s0, s1 in itertools.pairwise(named):
+            if s1.x_m - s0.x_m <= tol:
+                raise InputError(
+                    f"Supports {s0.name} and {s1.name} overlap: two supports at one position "
+                    f"(got x = {s0.x:~P} and {s1.x:~P}); use one support of the right kind",
+                    name=f"supports[{s1.name}].x",
+                    value=s1.x,
+                    expected="distinct support positions",
+                )
+        names = [s.name for s in named]
+        if len(set(names)) != len(names):
+            raise InputError(
+                f"Support names must be distinct (got {names})",
+                name="supports.name",
+                value=names,
+                expected="distinct names",
+            )
+        object.__setattr__(self, "supports", tuple(named))
+
+        hinges = tuple(sorted(self.hinges, key=lambda h: h.x_m))
+        hinges = tuple(
+            replace(h, name=f"H{i + 1}") if isinstance(h, Hinge) and h.name is None else h
+            for i, h in enumerate(hinges)
+        )
+        for i, h in enumerate(hinges):
+            if not isinstance(h, Hinge):
+                raise InputError(
+                    f"hinges[{i}] must be a Hinge (got {h!r})",
+                    name=f"hinges[{i}]",
+                    value=h,
+                    expected="a Hinge",
+                )
+            if not tol < h.x_m < L_m - tol:
+                raise InputError(
+                    f"Hinge must lie strictly inside the beam, 0 < x < L (got x = {h.x:~P}, "
+                    f"L = {L:~P}); an end is already free to rotate",
+                    name=f"hinges[{i}].x",
+                    value=h.x,
+                    expected=f"between 0 and {L:~P}",
+                )
+            for s in named:
+                if s.restrains_rotation and abs(s.x_m - h.x_m) <= tol:
+                    raise InputError(
+                        f"A hinge cannot sit at the rotation-restraining support {s.name} (got "
+                        f"hinge at x = {h.x:~P}); move the hinge or use a pin",
+                        name=f"hinges[{i}].x",
+                        value=h.x,
+                        expected="a position away from fixed supports",
+                    )
+        for h0, h1 in itertools.pairwise(hinges):
+            if h1.x_m - h0.x_m <= tol:
+                raise InputError(
+                    f"Two hinges at one position (got x = {h0.x:~P} and {h1.x:~P})",
+                    name="hinges.x",
+                    value=h1.x,
+                    expected="distinct hinge positions",
+                )
+        object.__setattr__(self, "hinges", hinges)
+
+        loads = tuple(load.resolved(L) for load in as_loads(self.loads))
+        for i, load in enumerate(loads):
+            for pos in load.positions():
+                if not -tol <= si(pos) <= L_m + tol:
+                    raise InputError(
+                        f"Load loads[{i}] ({load.describe()}) lies off the beam: positions "
+                        f"must be within 0 to L = {L:~P} (got {pos:~P})",
+                        name=f"loads[{i}]",
+                        value=pos,
+                        expected=f"0 to {L:~P}",
+                    )
+            if isinstance(load, PointMoment):
+                for h in hinges:
+                    if abs(si(load.x) - h.x_m) <= tol:
+                        raise InputError(
+                            f"A couple at a hinge is ambiguous: which side carries it? (got "
+                            f"loads[{i}] at x = {load.x:~P}, hinge {h.name}); apply it just "
+                            "to one side of the hinge",
+                            name=f"loads[{i}].x",
+                            value=load.x,
+                            expected="a position away from hinges",
+                        )
+            if isinstance(load, DistributedLoad):
+                load.si_pieces()  # a function load that cannot be fitted is refused now
+        object.__setattr__(self, "loads", loads)
+
+        ei = self.EI
+        if ei is not None and not isinstance(ei, Quantity):
+            segs = tuple(sorted(ei, key=lambda s: si(s.start)))
+            for i, seg in enumerate(segs):
+                if not isinstance(seg, EISegment):
+                    raise InputError(
+                        f"EI[{i}] must be an EISegment(start, end, EI) (got {seg!r})",
+                        name=f"EI[{i}]",
+                        value=seg,
+                        expected="an EISegment",
+                    )
+            edges = [0.0] + [v for s in segs for v in (si(s.start), si(s.end))] + [L_m]
+            for j in range(0, len(edges), 2):
+                if abs(edges[j + 1] - edges[j]) > tol:
+                    raise InputError(
+                        f"EI segments must cover the beam from 0 to L = {L:~P} without gaps "
+                        f"or overlaps (got a mismatch at x = {edges[j]:.6g} m / "
+                        f"{edges[j + 1]:.6g} m)",
+                        name="EI",
+                        value=[(s.start, s.end) for s in segs],
+                        expected="contiguous segments from 0 to L",
+                    )
+            object.__setattr__(self, "EI", segs)
+        elif ei is not None:
+            require(ei, "[force] * [length] ** 2", "EI", positive=True)
+        if self.EA is not None:
+            require(self.EA, "[force]", "EA", positive=True)
+
+    # -- derived data ------------------------------------------------------------------------
+    @property
+    def L_m(self) -> float:
+        return si(self.length)
+
+    @property
+    def cases(self) -> tuple[str, ...]:
+        """The load case names in order of first appearance."""
+        seen: dict[str, None] = {}
+        for load in self.loads:
+            seen.setdefault(load.case, None)
+        return tuple(seen)
+
+    def support(self, name: str) -> Support:
+        """The support called ``name``."""
+        for s in self.supports:
+            if s.name == name:
+                return s
+        raise InputError(
+            f"No support named {name!r} on beam {self.name} (supports are "
+            f"{[s.name for s in self.supports]})",
+            name="name",
+            value=name,
+            expected="a support name",
+        )
+
+    def EI_segments_si(self) -> tuple[tuple[float, float, float], ...] | None:
+        """(start m, end m, EI N·m²) for each stiffness segment, or None if EI is not given."""
+        if self.EI is None:
+            return None
+        if isinstance(self.EI, Quantity):
+            return ((0.0, self.L_m, si(self.EI)),)
+        segs: Sequence[EISegment] = self.EI
+        return tuple((si(s.start), si(s.end), si(s.EI)) for s in segs)
+
+    def same_structure(self, other: Beam) -> bool:
+        """True if ``other`` has the same length, supports, hinges and stiffness (loads aside)."""
+        return (
+            abs(self.L_m - other.L_m) <= 1e-12 * self.L_m
+            and [(s.kind, s.name, s.x_m) for s in self.supports]
+            == [(s.kind, s.name, s.x_m) for s in other.supports]
+            and [h.x_m for h in self.hinges] == [h.x_m for h in other.hinges]
+            and self.EI_segments_si() == other.EI_segments_si()
+        )
+
+    def classify(self) -> BeamClassification:
+        """Determinate, indeterminate (degree n) or unstable (see :func:`classify`)."""
+        return classify(self)
+
+    def check_stable(self) -> BeamClassification:
+        """The classification, or raise :class:`UnstableStructureError` saying why and the fix."""
+        c = classify(self)
+        if c.kind == "unstable":
+            raise UnstableStructureError(f"Beam {self.name} is unstable: {c.reason}", part=c.part)
+        return c
+
+
+def _parts(beam: Beam) -> list[tuple[float, float]]:
+    edges = [0.0, *(h.x_m for h in beam.hinges), beam.L_m]
+    return list(itertools.pairwise(edges))
+
+
+def classify(beam: Beam) -> BeamClassification:
+    """Classify ``beam`` by its supports and hinges (loads aside, except axial components).
+
+    Stability is decided kinematically: each rigid part between hinges has two freedoms
+    (translation and rotation), tied at the hinges and restrained by the supports; the beam is
+    stable if no movement is left (the rank of the constraint matrix equals the freedoms).
+    Degree of indeterminacy = reactions − 2 − hinges (bending) plus horizontal restraints − 1.
+    """
+    parts = _parts(beam)
+    n = len(parts)
+    rows: list[np.ndarray] = []
+    scale = beam.L_m
+    tol = 1e-9 * scale
+
+    def part_of(x: float) -> int:
+        for p, (a, b) in enumerate(parts):
+            if a - tol <= x <= b + tol:
+                return p
+        return n - 1
+
+    for i in range(n - 1):  # hinge continuity of displacement
+        row = np.zeros(2 * n)
+        a0, b0 = parts[i]
+        row[2 * i] = 1.0
+        row[2 * i + 1] = (b0 - a0) / scale
+        row[2 * (i + 1)] = -1.0
+        rows.append(row)
+    n_v = 0
+    n_rot = 0
+    for s in beam.supports:
+        p = part_of(s.x_m)
+        a = parts[p][0]
+        if s.restrains_v:
+            n_v += 1
+            row = np.zeros(2 * n)
+            row[2 * p] = 1.0
+            row[2 * p + 1] = (s.x_m - a) / scale
+            rows.append(row)
+        if s.restrains_rotation:
+            n_rot += 1
+            row = np.zeros(2 * n)
+            row[2 * p + 1] = 1.0
+            rows.append(row)
+    n_h = sum(1 for s in beam.supports if s.restrains_h)
+    axial_load = any(p.H_N != 0.0 for load in beam.loads for p in load.si_points())
+    degree_bending = n_v + n_rot - 2 - len(beam.hinges)
+    degree_axial = max(n_h - 1, 0)
+    B = np.array(rows) if rows else np.zeros((0, 2 * n))
+    rank = int(np.linalg.matrix_rank(B)) if rows else 0
+    if not beam.supports:
+        return BeamClassification(
+            "unstable",
+            0,
+            degree_bending,
+            0,
+            False,
+            reason="it has no supports; add a fixed support, or a pin and a roller",
+            part=None,
+        )
+    if rank < 2 * n:
+        reason, part = _describe_mechanism(beam, B, parts)
+        return BeamClassification(
+            "unstable", 0, degree_bending, degree_axial, n_h > 0, reason=reason, part=part
+        )
+    if axial_load and n_h == 0:
+        return BeamClassification(
+            "unstable",
+            0,
+            degree_bending,
+            0,
+            False,
+            reason=(
+                "a load has a component along the beam but no support restrains horizontal "
+                "movement (rollers and springs only); make one support a pin or fixed"
+            ),
+            part=None,
+        )
+    degree = degree_bending + degree_axial
+    kind = "determinate" if degree == 0 else "indeterminate"
+    return BeamClassification(kind, degree, degree_bending, degree_axial, n_h > 0)
+
+
+def _describe_mechanism(
+    beam: Beam, B: np.ndarray, parts: list[tuple[float, float]]
+) -> tuple[str, str | None]:
+    _, sv, vt = np.linalg.svd(B) if B.size else (None, np.zeros(0), np.eye(B.shape[1]))
+    rank = int(np.sum(sv > 1e-9 * (sv[0] if sv.size else 1.0)))
+    mode = vt[rank]
+    scale = beam.L_m
+    moving = []
+    for p, (a, b) in enumerate(parts):
+        v0, th = mode[2 * p], mode[2 * p + 1] / scale
+        if abs(v0) < 1e-9 and abs(th * scale) < 1e-9:
+            continue
+        if abs(th * scale) < 1e-9:
+            motion = "can move up and down as a rigid body"
+        else:
+            pivot = a - v0 / th
+            motion = f"can rotate about x = {_fmt(pivot)}"
+        moving.append((a, b, motion))
+    a, b, motion = moving[0]
+    hinge_names = {round(h.x_m, 9): h.name for h in beam.hinges}
+    ends = []
+    for x in (a, b):
+        if round(x, 9) in hinge_names:
+            ends.append(f"hinge {hinge_names[round(x, 9)]} at x = {_fmt(x)}")
+        else:
+            ends.append(f"x = {_fmt(x)}")
+    where = f"the part from {ends[0]} to {ends[1]}"
+    part = next((hinge_names[round(x, 9)] for x in (a, b) if round(x, 9) in hinge_names), None)
+    if not beam.hinges:
+        where = "the beam"
+        if len(beam.supports) == 1:
+            s = beam.supports[0]
+            return (
+                f"the beam {motion} (only {s.kind} support {s.name}); add a second support or "
+                "make it fixed",
+                s.name,
+            )
+    return (
+        f"{where} {motion}: the supports and hinges form a mechanism; add a support to that "
+        "part, or remove a hinge",
+        part,
+    )
