@@ -1,0 +1,303 @@
+"""The beam panel: edit a beam sheet's inputs file and watch the diagrams and checks move.
+
+Every edit is validated (:func:`calcpack.inputs.beam_inputs`), written to the inputs file
+(comments kept) and re-evaluated with :func:`calcpack.inputs.evaluate_beam` -- the same
+functions the sheet's calc cells call -- so re-running the sheet, or building the package,
+reproduces what the panel shows. An edit that does not validate is shown with its error and not
+written; the file keeps the last valid values.
+"""
+
+from __future__ import annotations
+
+import copy
+import time
+from html import escape
+from pathlib import Path
+from typing import Any
+
+import ipywidgets as W
+
+from calcpack.errors import CalcpackError
+from calcpack.inputs import (
+    SHAPES,
+    SUPPORT_KINDS,
+    BeamOutcome,
+    beam_inputs,
+    evaluate_beam,
+    load_inputs,
+    update_inputs,
+)
+from calcpack.inputs.file import _split_key
+from calcpack.units import Q_, Quantity
+from calcpack.widgets.fields import QuantityField, css_key, interactive_session, label
+from calcpack.widgets.svg import beam_diagrams_svg
+
+__all__ = ["BeamPanel", "beam_panel", "outcome_table_html"]
+
+
+def _set(data: dict[str, Any], key: str, value: Any) -> None:
+    node: Any = data
+    parts = _split_key(key)
+    for p in parts[:-1]:
+        node = node[p]
+    node[parts[-1]] = value
+
+
+def _fmt(q: Quantity, unit: str, sig: int = 3) -> str:
+    return f"{q.to(unit).magnitude:.{sig}g} {Q_(1, unit).units:~P}"
+
+
+def _verdict(u: float) -> str:
+    ok = u <= 1.0
+    colour = "#1d6b2f" if ok else "#a31515"
+    return (
+        f'<span class="cp-verdict {"cp-ok" if ok else "cp-notok"}" style="color:{colour};'
+        f'font-weight:bold">{"OK" if ok else "NOT OK"}</span>'
+    )
+
+
+def outcome_table_html(outcome: BeamOutcome) -> str:
+    """Reactions and checks as an HTML table (values carry ``data-value`` for tests)."""
+    inp = outcome.inputs
+    rows = []
+    for r in outcome.strength.reactions:
+        rows.append(
+            f'<tr><td>Reaction R<sub>{escape(r.support)}</sub> ({escape(outcome.strength.label)})'
+            f'</td><td class="cp-out" data-out="R_{escape(r.support)}" '
+            f'data-value="{r.Fy.to("kN").magnitude!r}">{_fmt(r.Fy, "kN")}</td><td></td></tr>'
+        )
+    u_b = outcome.bending_utilisation
+    rows.append(
+        f'<tr><td>Design moment |M| at x = {_fmt(outcome.x_M, "m")}</td>'
+        f'<td class="cp-out" data-out="M_design" '
+        f'data-value="{outcome.M_design.to("kN*m").magnitude!r}">'
+        f'{_fmt(outcome.M_design, "kN*m")}</td><td></td></tr>'
+        f'<tr><td>Bending stress σ = M / S<sub>x</sub></td><td class="cp-out" data-out="sigma" '
+        f'data-value="{outcome.sigma.to("MPa").magnitude!r}">{_fmt(outcome.sigma, "MPa")}</td>'
+        f"<td>f<sub>b</sub> = {_fmt(inp.f_b, 'MPa')}</td></tr>"
+        f'<tr><td><b>Bending utilisation</b></td><td class="cp-out" data-out="bending_utilisation"'
+        f' data-value="{u_b!r}">{u_b:.3f}</td><td>{_verdict(u_b)}</td></tr>'
+    )
+    for d in outcome.deflections:
+        rows.append(
+            f"<tr><td>Span {d.span}: deflection δ ({escape(outcome.service.label)})</td>"
+            f'<td class="cp-out" data-out="delta_{d.span}" '
+            f'data-value="{d.delta.to("mm").magnitude!r}">{_fmt(d.delta, "mm")}</td>'
+            f"<td>limit L/{inp.deflection_ratio:g} = {_fmt(d.limit, 'mm')}, "
+            f'utilisation <span class="cp-out" data-out="deflection_utilisation_{d.span}" '
+            f'data-value="{d.utilisation!r}">{d.utilisation:.3f}</span> '
+            f"{_verdict(d.utilisation)}</td></tr>"
+        )
+    return (
+        '<table class="cp-panel-results" style="border-collapse:collapse;font-size:13px">'
+        + "".join(rows)
+        + "</table>"
+    )
+
+
+class BeamPanel:
+    """An interactive editor for a beam sheet's inputs file.
+
+    Args:
+        path: the inputs file (``<sheet>.inputs.toml``), relative to the kernel's folder (the
+            notebook's) or absolute.
+
+    Attributes:
+        widget: the ipywidgets box displayed in the notebook.
+        outcome: the last successful evaluation, or None.
+        last_update_s: seconds spent on the last edit (validate, write, solve, redraw).
+    """
+
+    def __init__(self, path: str | Path) -> None:
+        self.path = Path(path)
+        self.data = load_inputs(self.path)
+        self.outcome: BeamOutcome | None = None
+        self.last_update_s = 0.0
+        self.fields: dict[str, QuantityField] = {}
+        self.status = W.HTML(layout=W.Layout(min_height="20px"))
+        self.status.add_class("cp-panel-status")
+        self.diagrams = W.HTML()
+        self.diagrams.add_class("cp-panel-diagrams")
+        self.results = W.HTML()
+        self.results.add_class("cp-panel-results-box")
+        self.form = W.VBox()
+        reload = W.Button(description="Reload file", tooltip=f"Read {self.path.name} again")
+        reload.on_click(lambda _b: self.reload())
+        title = W.HTML(
+            f"<b>Beam panel</b> — edits <code>{escape(self.path.name)}</code>; "
+            "re-run the sheet's cells to update its working."
+        )
+        self.widget = W.VBox(
+            [
+                W.HBox([title, reload]),
+                W.HBox([self.form, W.VBox([self.diagrams, self.results])]),
+                self.status,
+            ]
+        )
+        self.widget.add_class("cp-beam-panel")
+        self._build_form()
+        self._refresh()
+
+    # -- display ------------------------------------------------------------------------------
+    def _ipython_display_(self) -> None:
+        if interactive_session():
+            from IPython.display import display
+
+            display(self.widget)
+
+    def __repr__(self) -> str:
+        return f"BeamPanel({str(self.path)!r})"
+
+    # -- form -----------------------------------------------------------------------------------
+    def _field(self, key: str, text: str, value: Quantity) -> W.Widget:
+        f = QuantityField(key, text, value, self._edit_one)
+        self.fields[key] = f
+        return f.widget
+
+    def _build_form(self) -> None:
+        self.fields = {}
+        d = self.data
+        beam, section, material = d["beam"], d["section"], d["material"]
+        parts: list[W.Widget] = [W.HTML("<b>Spans</b>")]
+        for i, s in enumerate(beam["spans"], start=1):
+            parts.append(self._field(f"beam.spans[{i}]", f"Span {i}", s))
+        add = W.Button(description="+ span", layout=W.Layout(width="80px"))
+        drop = W.Button(description="− span", layout=W.Layout(width="80px"),
+                        disabled=len(beam["spans"]) < 2)
+        add.on_click(lambda _b: self._spans(+1))
+        drop.on_click(lambda _b: self._spans(-1))
+        parts.append(W.HBox([add, drop]))
+        parts.append(W.HTML("<b>Supports</b> (left to right)"))
+        for i, kind in enumerate(beam["supports"], start=1):
+            dd = W.Dropdown(options=list(SUPPORT_KINDS), value=kind,
+                            layout=W.Layout(width="110px"))
+            dd.add_class(css_key(f"beam.supports[{i}]"))
+            dd.observe(lambda ch, k=f"beam.supports[{i}]": self._edit({k: ch["new"]}),
+                       names="value")
+            parts.append(W.HBox([label(f"Support line {i}"), dd]))
+        parts.append(W.HTML("<b>Section</b>"))
+        shape = W.Dropdown(options=[(f.label, k) for k, f in SHAPES.items()],
+                           value=section["shape"], layout=W.Layout(width="170px"))
+        shape.add_class(css_key("section.shape"))
+        shape.observe(lambda ch: self._shape(ch["new"]), names="value")
+        parts.append(W.HBox([label("Shape"), shape]))
+        form = SHAPES[section["shape"]]
+        for dim in form.dims:
+            if dim in section:
+                parts.append(self._field(f"section.{dim}",
+                                         f"{dim} ({form.descriptions.get(dim, '')})",
+                                         section[dim]))
+        parts.append(W.HTML("<b>Material</b>"))
+        parts.append(self._field("material.E", "E (modulus)", material["E"]))
+        parts.append(self._field("material.f_b", "f_b (bending strength)", material["f_b"]))
+        parts.append(W.HTML("<b>Loads</b>"))
+        for i, ld in enumerate(d.get("loads", []), start=1):
+            head = f"{i}: {ld.get('type', '?')} ({ld.get('case', 'D')})"
+            if ld.get("type") == "uniform":
+                parts.append(self._field(f"loads[{i}].w", f"{head} w", ld["w"]))
+                for k in ("start", "end"):
+                    if k in ld:
+                        parts.append(self._field(f"loads[{i}].{k}", f"    {k}", ld[k]))
+            elif ld.get("type") == "point":
+                parts.append(self._field(f"loads[{i}].P", f"{head} P", ld["P"]))
+                parts.append(self._field(f"loads[{i}].x", "    at x", ld["x"]))
+        parts.append(W.HTML("<b>Load factors</b>"))
+        for combo in ("strength", "service"):
+            for case, factor in d.get("combinations", {}).get(combo, {}).items():
+                box = W.FloatText(value=float(factor), layout=W.Layout(width="80px"),
+                                  continuous_update=False)
+                key = f"combinations.{combo}.{case}"
+                box.add_class(css_key(key))
+                box.observe(lambda ch, k=key: self._edit({k: float(ch["new"])}), names="value")
+                parts.append(W.HBox([label(f"{combo}: {case}"), box]))
+        ratio = W.FloatText(value=float(d.get("limits", {}).get("deflection_ratio", 360)),
+                            layout=W.Layout(width="80px"), continuous_update=False)
+        ratio.add_class(css_key("limits.deflection_ratio"))
+        ratio.observe(lambda ch: self._edit({"limits.deflection_ratio": float(ch["new"])}),
+                      names="value")
+        parts.append(W.HBox([label("Deflection limit L /"), ratio]))
+        self.form.children = parts
+
+    # -- edits ----------------------------------------------------------------------------------
+    def _edit_one(self, key: str, value: Any) -> None:
+        self._edit({key: value})
+
+    def set(self, key: str, value: Any) -> None:
+        """Edit one value as if typed in the panel (e.g. ``set("beam.spans[2]", 5 * ureg.m)``)."""
+        if key == "section.shape":
+            self._shape(value)
+        elif key in self.fields and isinstance(value, Quantity):
+            self.fields[key].box.value = float(value.to(self.fields[key].unit).magnitude)
+        else:
+            self._edit({key: value})
+
+    def _edit(self, changes: dict[str, Any]) -> None:
+        t0 = time.perf_counter()
+        candidate = copy.deepcopy(self.data)
+        try:
+            for k, v in changes.items():
+                _set(candidate, k, v)
+            validated = beam_inputs(candidate, path=self.path)
+        except CalcpackError as exc:
+            self._error(f"Not saved: {exc}")
+            return
+        except (KeyError, IndexError, TypeError) as exc:
+            self._error(f"Not saved: no value {exc} in {self.path.name}")
+            return
+        self.data = update_inputs(self.path, changes)
+        self._refresh(validated)
+        self.last_update_s = time.perf_counter() - t0
+
+    def _spans(self, step: int) -> None:
+        spans = list(self.data["beam"]["spans"])
+        supports = list(self.data["beam"]["supports"])
+        if step > 0:
+            spans.append(spans[-1])
+            supports.append("roller")
+        elif len(spans) > 1:
+            spans.pop()
+            supports.pop()
+        self._edit({"beam.spans": spans, "beam.supports": supports})
+        self._build_form()
+
+    def _shape(self, shape: str) -> None:
+        from calcpack.inputs import parse_quantity
+
+        form = SHAPES[shape]
+        table: dict[str, Any] = {"shape": shape}
+        for dim in form.dims:
+            table[dim] = parse_quantity(form.defaults[dim], f"section.{dim}")
+        self._edit({"section": table})
+        self._build_form()
+
+    def reload(self) -> None:
+        """Read the inputs file again (after editing it by hand) and redraw."""
+        self.data = load_inputs(self.path)
+        self._build_form()
+        self._refresh()
+
+    # -- output ---------------------------------------------------------------------------------
+    def _error(self, message: str) -> None:
+        self.status.value = f'<span style="color:#a31515">{escape(message)}</span>'
+
+    def _refresh(self, validated: Any = None) -> None:
+        try:
+            inputs = validated if validated is not None else beam_inputs(self.data, path=self.path)
+            self.outcome = evaluate_beam(inputs)
+        except CalcpackError as exc:
+            self.outcome = None
+            self.diagrams.value = ""
+            self.results.value = ""
+            self._error(str(exc))
+            return
+        self.diagrams.value = beam_diagrams_svg(self.outcome)
+        self.results.value = outcome_table_html(self.outcome)
+        self.status.value = (
+            f'<span style="color:#555">Saved to {escape(self.path.name)} at '
+            f"{time.strftime('%H:%M:%S')}</span>"
+        )
+
+
+def beam_panel(path: str | Path) -> BeamPanel:
+    """Show the beam panel for the inputs file ``path`` (nothing is shown during a build)."""
+    return BeamPanel(path)
