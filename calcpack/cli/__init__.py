@@ -14,7 +14,7 @@ from collections.abc import Sequence
 
 from calcpack.errors import CalcpackError
 
-COMMAND_MODULES: tuple[str, ...] = ()
+COMMAND_MODULES: tuple[str, ...] = ("keys", "sign", "verify", "review", "diff")
 
 
 def build_parser() -> argparse.ArgumentParser:

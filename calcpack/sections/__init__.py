@@ -16,17 +16,14 @@ from calcpack.sections.integrals import (
     second_moment_from_radius,
 )
 from calcpack.sections.properties import PartRow, SectionProperties
+from calcpack.sections.rolled import Angle, Channel, ISection, Tee
 from calcpack.sections.shapes import (
-    Angle,
-    Channel,
     Circle,
     HollowCircle,
-    ISection,
     Polygon,
     Rectangle,
     RectangularHollow,
     Shape,
-    Tee,
     Triangle,
 )
 from calcpack.sections.timber import DRESSED_SIZE_TABLE, DressedSize, dressed_size, sawn_timber

@@ -11,6 +11,7 @@ from calcpack.units import Q_, Quantity, require, si
 
 if TYPE_CHECKING:
     from calcpack.sections.properties import PartRow, SectionProperties, WeightedRegion
+    from calcpack.working import Block
 
 __all__ = ["Section", "validate_length"]
 
@@ -63,10 +64,6 @@ class Section:
     def warping_constant_m6(self) -> tuple[float | None, str]:
         """(Cw in m⁶, or None with the reason it is not available)."""
         return None, "no warping formula is coded for this kind of section"
-
-    @property
-    def title(self) -> str:
-        return self.name
 
     # -- shared behaviour -------------------------------------------------------------------
     @cached_property
@@ -147,7 +144,7 @@ class Section:
 
         return section_svg(self, **options)
 
-    def working(self, **options: Any) -> list[Any]:
+    def working(self, **options: Any) -> Block:
         """The working (parts table, centroid, parallel-axis theorem) as calcpack.working steps."""
         return self.properties().working(**options)
 

@@ -3,8 +3,9 @@
 A part of another material enters with its modular ratio n = E_part / E_reference: its area
 (and so its second moments) count n times, which is the transformed-section method (common
 practice), e.g. a steel flitch plate bolted between timbers with n = E_steel / E_timber.
-Holes are cut from the one solid part that contains them and take that part's modular ratio.
-Solid parts must not overlap (they are not checked for overlap, only holes are checked).
+Holes are cut from the solid part (or touching parts of one material) that wholly cover them
+and take that material's modular ratio. Solid parts may touch but must not overlap: an
+overlap is refused, since its area would count twice.
 """
 
 from __future__ import annotations
@@ -16,7 +17,7 @@ from typing import Any
 
 from calcpack.errors import InputError
 from calcpack.sections.base import Section, fmt_len
-from calcpack.sections.geometry import Region
+from calcpack.sections.geometry import Region, overlap_area
 from calcpack.sections.properties import PartRow, WeightedRegion, part_rows
 from calcpack.sections.shapes import Shape
 from calcpack.units import require, si
@@ -161,13 +162,16 @@ class CompositeSection(Section):
     def _weighted(self) -> list[WeightedRegion]:
         solids: list[WeightedRegion] = []
         voids: list[WeightedRegion] = []
+        by_part: list[tuple[Part, list[tuple[Region, float]]]] = []
         for part in self.parts:
             if part.hole:
                 continue
             n = part.modular_ratio
+            by_part.append((part, part.regions))
             for region, w in part.regions:
                 target = solids if w > 0 else voids
                 target.append(WeightedRegion(region, w * n, part.name))
+        self._check_overlaps(by_part)
         holes: list[WeightedRegion] = []
         for part in self.parts:
             if not part.hole:
@@ -175,22 +179,72 @@ class CompositeSection(Section):
             for region, w in part.regions:
                 if w < 0:
                     continue  # a void inside a hole part (e.g. a tube used as a hole): no effect
-                parent = next((s for s in solids if s.region.contains(region)), None)
-                c = region.moments()
-                in_void = any(v.region.contains_point(c.cx, c.cy) for v in voids)
-                if parent is None or in_void:
-                    x0, y0, x1, y1 = region.bbox()
-                    raise InputError(
-                        f"Hole {part.name!r} must lie wholly inside one solid part of section "
-                        f"{self.name!r}; it lies outside or is larger than its parent (hole spans "
-                        f"x = {fmt_len(x0)} to {fmt_len(x1)}, y = {fmt_len(y0)} to "
-                        f"{fmt_len(y1)})",
-                        name=part.name,
-                        value=part,
-                        expected="a hole inside one solid part",
-                    )
-                holes.append(WeightedRegion(region, -parent.weight, part.name))
+                holes.append(self._place_hole(part, region, solids, voids))
         return solids + voids + holes
+
+    def _check_overlaps(self, by_part: list[tuple[Part, list[tuple[Region, float]]]]) -> None:
+        """Refuse solid parts that overlap: their common area would count twice."""
+        for i, (p, p_regions) in enumerate(by_part):
+            for q, q_regions in by_part[i + 1 :]:
+                common = sum(
+                    wa * wb * overlap_area(ra, rb) for ra, wa in p_regions for rb, wb in q_regions
+                )
+                smaller = min(
+                    sum(w * r.moments().A for r, w in p_regions),
+                    sum(w * r.moments().A for r, w in q_regions),
+                )
+                if common > 1e-9 * smaller:
+                    raise InputError(
+                        f"Parts {p.name!r} and {q.name!r} of section {self.name!r} overlap "
+                        f"(common area {common * 1e6:.4g} mm²): solid parts must not overlap, "
+                        "or that area counts twice; move or trim one of them",
+                        name=q.name,
+                        value=q,
+                        expected="parts that touch but do not overlap",
+                    )
+
+    def _place_hole(
+        self,
+        part: Part,
+        region: Region,
+        solids: list[WeightedRegion],
+        voids: list[WeightedRegion],
+    ) -> WeightedRegion:
+        """The hole's weighted region: cut from the solid part(s) that wholly cover it."""
+        c = region.moments()
+        in_void = any(v.region.contains_point(c.cx, c.cy) for v in voids)
+        parent = next((s for s in solids if s.region.contains(region)), None)
+        if parent is not None and not in_void:
+            return WeightedRegion(region, -parent.weight, part.name)
+        # a hole through several touching parts (a bolt through a plate and a flange):
+        # the parts must cover it wholly, and be of one material
+        cover = {s.weight: 0.0 for s in solids}
+        for s in solids:
+            cover[s.weight] += overlap_area(region, s.region)
+        for v in voids:
+            cover[-v.weight] -= overlap_area(region, v.region)
+        covering = {w: a for w, a in cover.items() if a > 1e-9 * c.A}
+        total = sum(covering.values())
+        if total < c.A * (1 - 1e-9):
+            x0, y0, x1, y1 = region.bbox()
+            raise InputError(
+                f"Hole {part.name!r} must lie wholly inside the solid parts of section "
+                f"{self.name!r}; it lies outside or is larger than its parent (hole spans "
+                f"x = {fmt_len(x0)} to {fmt_len(x1)}, y = {fmt_len(y0)} to {fmt_len(y1)}; "
+                f"{100 * (1 - total / c.A):.3g} % of it is outside)",
+                name=part.name,
+                value=part,
+                expected="a hole inside the solid parts",
+            )
+        if len(covering) > 1:
+            raise InputError(
+                f"Hole {part.name!r} of section {self.name!r} crosses parts of different "
+                "modular ratios; split it into one hole per part",
+                name=part.name,
+                value=part,
+                expected="a hole within parts of one material",
+            )
+        return WeightedRegion(region, -next(iter(covering)), part.name)
 
     def weighted_regions(self) -> list[WeightedRegion]:
         return self._weighted

@@ -13,10 +13,13 @@ and the centroidal values by the parallel-axis theorem (Ix = I_x,origin - A ȳ²
 from __future__ import annotations
 
 from dataclasses import dataclass
-from typing import Any
+from typing import TYPE_CHECKING, Any
 
 from calcpack.errors import InputError
 from calcpack.units import Q_, Quantity, require
+
+if TYPE_CHECKING:
+    from calcpack.working import Block
 
 __all__ = ["BoundedRegion", "RegionIntegrals", "second_moment_from_radius"]
 
@@ -45,7 +48,7 @@ class RegionIntegrals:
     exact: dict[str, Any]
     region: BoundedRegion
 
-    def working(self, **options: Any) -> list[Any]:
+    def working(self, **options: Any) -> Block:
         """The integral forms with their exact values, as calcpack.working steps."""
         from calcpack.sections.working import region_working
 
@@ -206,7 +209,7 @@ class RadiusOfGyration:
     A: Quantity
     I: Quantity
 
-    def working(self, **options: Any) -> list[Any]:
+    def working(self, **options: Any) -> Block:
         """The I = k²A step with substitution, as calcpack.working steps."""
         from calcpack.sections.working import radius_working
 

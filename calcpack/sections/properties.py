@@ -28,7 +28,8 @@ from calcpack.sections.geometry import Region
 from calcpack.units import Q_, Quantity
 
 if TYPE_CHECKING:
-    from calcpack.sections.shapes import SectionLike
+    from calcpack.sections.base import Section as SectionLike
+    from calcpack.working import Block
 
 __all__ = ["PartRow", "SectionProperties", "WeightedRegion", "compute_properties"]
 
@@ -180,7 +181,7 @@ class SectionProperties:
         """Width b of the (transformed) section cut along level ``y``."""
         return self.section.width_at(y=y)
 
-    def working(self, **options: Any) -> list[Any]:
+    def working(self, **options: Any) -> Block:
         """The working for display: parts table, sums, centroid and parallel-axis steps."""
         from calcpack.sections.working import section_working
 
@@ -211,9 +212,9 @@ def _find_level(regions: Sequence[WeightedRegion], axis: str, target: float) -> 
     return 0.5 * (lo + hi)
 
 
-def first_moment_below(regions: Sequence[WeightedRegion], level: float, axis: str) -> tuple[
-    float, float
-]:
+def first_moment_below(
+    regions: Sequence[WeightedRegion], level: float, axis: str
+) -> tuple[float, float]:
     """Weighted area on the low side of ``level`` and its first moment about ``level``."""
     area = 0.0
     moment = 0.0
@@ -259,8 +260,14 @@ def compute_properties(
         )
     xb = sum(r.A * r.x for r in rows) / A
     yb = sum(r.A * r.y for r in rows) / A
+    size = max(max(abs(r.x), abs(r.y)) for r in rows) or 1.0
+
+    def snap(d: float) -> float:
+        # distances that are zero but for rounding (a part on the axis of symmetry)
+        return 0.0 if abs(d) < 1e-12 * size else d
+
     rows = tuple(
-        PartRow(r.name, r.weight, r.A, r.x, r.y, r.Ix, r.Iy, r.Ixy, r.x - xb, r.y - yb)
+        PartRow(r.name, r.weight, r.A, r.x, r.y, r.Ix, r.Iy, r.Ixy, snap(r.x - xb), snap(r.y - yb))
         for r in rows
     )
     Ix = sum(r.Ix + r.A * r.dy**2 for r in rows)
@@ -339,6 +346,8 @@ def part_rows(groups: Sequence[tuple[str, float, Sequence[Region]]]) -> list[Par
     for name, w, regs in groups:
         ms = [r.moments() for r in regs]
         a = sum(m.A for m in ms)
+        if not a > 0:
+            continue  # e.g. a fillet of vanishing radius: nothing to tabulate
         cx = sum(m.A * m.cx for m in ms) / a
         cy = sum(m.A * m.cy for m in ms) / a
         ix = sum(m.Ix + m.A * (m.cy - cy) ** 2 for m in ms)

@@ -23,8 +23,7 @@ from calcpack.units import Q_, Quantity
 __all__ = ["DRESSED_SIZE_TABLE", "DressedSize", "dressed_size", "sawn_timber"]
 
 DRESSED_SIZE_TABLE = (
-    "US DOC PS 20, American Softwood Lumber Standard (dressed sizes, as in NDS Supplement "
-    "Table 1B)"
+    "US DOC PS 20, American Softwood Lumber Standard (dressed sizes, as in NDS Supplement Table 1B)"
 )
 """The published table the dressed sizes follow."""
 
@@ -95,7 +94,5 @@ def sawn_timber(nominal: str, *, name: str | None = None) -> Rectangle:
     """A rectangle with the dressed size of nominal sawn timber, on edge (thickness b along x,
     depth d along y), e.g. ``sawn_timber("2x10")`` is 1-1/2 in × 9-1/4 in."""
     size = dressed_size(nominal)
-    label = name or (
-        f"{size.nominal} (dressed {size.b.magnitude:g} in × {size.d.magnitude:g} in)"
-    )
+    label = name or (f"{size.nominal} (dressed {size.b.magnitude:g} in × {size.d.magnitude:g} in)")
     return Rectangle(b=size.b, d=size.d, name=label)

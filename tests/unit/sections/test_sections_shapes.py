@@ -54,7 +54,8 @@ def test_web_thicker_than_flange_is_wide():
         ISection(d=300 * mm, bf=10 * mm, tf=10 * mm, tw=12 * mm)
     msg = str(info.value)
     assert "Web thickness tw must be less than flange width bf" in msg
-    assert "tw = 12 mm" in msg and "bf = 10 mm" in msg
+    assert "tw = 12 mm" in msg
+    assert "bf = 10 mm" in msg
     assert info.value.name == "tw"
 
 
@@ -104,7 +105,8 @@ def test_i_section_exposes_plate_dimensions_for_compactness():
     assert s.h.to("mm").magnitude == pytest.approx(300 - 2 * 10.7 - 2 * 15)
     assert s.h0.to("mm").magnitude == pytest.approx(300 - 10.7)
     assert s.doubly_symmetric
-    assert s.bf_bottom == s.bf and s.tf_bottom == s.tf
+    assert s.bf_bottom == s.bf
+    assert s.tf_bottom == s.tf
     p = s.properties()
     # Cw = Iy h0² / 4 (AISC Design Guide 9, common practice)
     assert p.Cw.to("mm**6").magnitude == pytest.approx(
@@ -113,9 +115,7 @@ def test_i_section_exposes_plate_dimensions_for_compactness():
 
 
 def test_singly_symmetric_i_centroid_moves_towards_the_larger_flange():
-    s = ISection(
-        d=400 * mm, bf=200 * mm, tf=20 * mm, tw=10 * mm, bf_bot=100 * mm, tf_bot=10 * mm
-    )
+    s = ISection(d=400 * mm, bf=200 * mm, tf=20 * mm, tw=10 * mm, bf_bot=100 * mm, tf_bot=10 * mm)
     assert not s.doubly_symmetric
     p = s.properties()
     assert p.y_bar > 200 * mm

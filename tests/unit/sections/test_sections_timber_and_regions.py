@@ -26,7 +26,8 @@ def test_dressed_size_names_its_table():
 
 def test_timbers_are_half_an_inch_under_nominal():
     size = dressed_size("6 x 10")
-    assert size.b == 5.5 * ureg.inch and size.d == 9.5 * ureg.inch
+    assert size.b == 5.5 * ureg.inch
+    assert size.d == 9.5 * ureg.inch
 
 
 @pytest.mark.parametrize("bad", ["2x7", "2 by 4", "20x20"])
@@ -38,7 +39,8 @@ def test_unknown_nominal_size_is_refused(bad):
 
 def test_sawn_timber_is_a_rectangle_on_edge():
     r = sawn_timber("2x12")
-    assert r.b == 1.5 * ureg.inch and r.d == 11.25 * ureg.inch
+    assert r.b == 1.5 * ureg.inch
+    assert r.d == 11.25 * ureg.inch
     assert "2x12" in r.name
 
 

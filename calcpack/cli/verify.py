@@ -1,0 +1,41 @@
+"""``calcpack verify``: check a package's signatures, project files and results."""
+
+from __future__ import annotations
+
+import argparse
+from typing import Any
+
+
+def register(subparsers: Any) -> None:
+    """Add the ``verify`` command."""
+    parser = subparsers.add_parser(
+        "verify",
+        help="verify a package's signatures (and its project files and results)",
+        description=(
+            "Print, per signature, the signer, role and time, whether the signed bytes are "
+            "intact, what was changed after it, and whether the signer is trusted. Exits "
+            "non-zero on any failure. Nothing is fetched from the network: only the "
+            "certificates given with --trust are trusted."
+        ),
+    )
+    parser.add_argument("package", help="the package PDF")
+    parser.add_argument(
+        "--trust", action="append", default=[], metavar="CERT", help="trusted root (repeatable)"
+    )
+    parser.add_argument("--project", help="project directory: check the files' hashes")
+    parser.add_argument(
+        "--reproduce",
+        action="store_true",
+        help="re-execute the notebooks in --project and compare every recorded result",
+    )
+    parser.set_defaults(func=_verify)
+
+
+def _verify(args: argparse.Namespace) -> int:
+    from calcpack.signing.verify import verify_package
+
+    report = verify_package(
+        args.package, args.trust, project=args.project, reproduce=args.reproduce
+    )
+    print(report.text())
+    return 0 if report.ok else 1

@@ -1,0 +1,369 @@
+"""Signing a calc package by role, into the sign-off block of its cover.
+
+Each signature is a PAdES baseline signature (B-B; B-T when a timestamp server is configured)
+in the form field of its role, placed in the box the manifest's ``signature_fields`` gives,
+with a visible stamp (name, role, date, reason). The preparer's signature certifies the
+document and allows further signatures and form filling; the checker and approver add approval
+signatures as incremental updates, so earlier signatures stay valid.
+
+Rules enforced: roles sign in order (preparer, checker, approver); a role signs once; a package
+changed since its last signature is refused; the checker cannot sign while review comments are
+not closed, unless an override reason is given (recorded in the review file and the signature's
+reason). The signed package is written to a new file atomically; the input is never modified
+(signing in place replaces the file only after the new one is complete).
+"""
+
+from __future__ import annotations
+
+import datetime as dt
+import io
+import os
+from dataclasses import dataclass
+from pathlib import Path
+from typing import Any, cast
+
+from calcpack.errors import SigningError, VerificationError
+from calcpack.signing._util import quiet_library_logs, write_atomically
+from calcpack.signing.keys import ROLES, Credentials, check_role, load_credentials
+from calcpack.signing.manifest import (
+    field_name,
+    read_embedded_manifest,
+    role_of_field,
+    signature_boxes,
+)
+from calcpack.signing.review import REVIEW_FILE, record_override, require_closed
+
+__all__ = ["TIMESTAMP_URL_ENV", "SignResult", "sign_package"]
+
+#: Environment variable giving the RFC 3161 timestamp server URL, when not passed explicitly.
+TIMESTAMP_URL_ENV = "CALCPACK_TIMESTAMP_URL"
+
+_ROLE_TITLES = {"preparer": "Prepared by", "checker": "Checked by", "approver": "Approved by"}
+_DEFAULT_REASONS = {
+    "preparer": "Prepared",
+    "checker": "Checked",
+    "approver": "Approved for issue",
+}
+
+
+@dataclass(frozen=True)
+class SignResult:
+    """What a signing did.
+
+    Attributes:
+        output: the signed package written.
+        role: the role signed as.
+        signer: the signer's name from the certificate.
+        signed_at: the signing time (UTC) recorded in the stamp and signature.
+        certified: the signature is the document's certification signature.
+        timestamped: an RFC 3161 timestamp token was added.
+        overridden: ids of review comments the checker signed over (empty otherwise).
+    """
+
+    output: Path
+    role: str
+    signer: str
+    signed_at: dt.datetime
+    certified: bool
+    timestamped: bool
+    overridden: tuple[str, ...] = ()
+
+
+@dataclass(frozen=True)
+class _Existing:
+    role: str | None
+    field: str
+    signer: str
+
+
+def _find_project(pdf: Path) -> Path | None:
+    """The nearest directory at or above the package holding a review file."""
+    for directory in [pdf.resolve().parent, *pdf.resolve().parents][:4]:
+        if (directory / REVIEW_FILE).is_file():
+            return directory
+    return None
+
+
+def _existing_signatures(reader: Any, source: str) -> list[_Existing]:
+    """Check every signature already in the package; refuse if anything changed since."""
+    from pyhanko.sign.diff_analysis import ModificationLevel
+    from pyhanko.sign.validation import SignatureCoverageLevel, validate_pdf_signature
+    from pyhanko_certvalidator import ValidationContext
+
+    from calcpack.signing.keys import certificate_name
+
+    found: list[_Existing] = []
+    signatures = list(reader.embedded_regular_signatures)
+    context = ValidationContext(trust_roots=[], allow_fetching=False)
+    for i, sig in enumerate(signatures):
+        status = validate_pdf_signature(sig, context)
+        who = certificate_name(sig.signer_cert)
+        if not (status.intact and status.valid):
+            raise SigningError(
+                f"{source} was modified after {who} signed it (field {sig.field_name}): "
+                "the signed bytes no longer match; it cannot be signed again"
+            )
+        last = i == len(signatures) - 1
+        if last and status.coverage != SignatureCoverageLevel.ENTIRE_FILE:
+            raise SigningError(
+                f"{source} was changed after its last signature (by {who}); "
+                "rebuild and sign the package again instead of signing a modified file"
+            )
+        level = status.modification_level
+        if level is not None and level > ModificationLevel.FORM_FILLING:
+            raise SigningError(
+                f"{source} holds changes after {who}'s signature that are not signatures or "
+                f"form filling ({level.name.lower()}); it cannot be signed again"
+            )
+        found.append(
+            _Existing(role=role_of_field(sig.field_name), field=sig.field_name, signer=who)
+        )
+    return found
+
+
+def _check_order(
+    role: str, existing: list[_Existing], roles_in_block: list[str], source: str
+) -> None:
+    signed = {e.role: e for e in existing if e.role}
+    if role in signed:
+        raise SigningError(
+            f"{source} is already signed as {role} (by {signed[role].signer}); a role signs once"
+        )
+    for earlier in ROLES[: ROLES.index(role)]:
+        if earlier in roles_in_block and earlier not in signed:
+            raise SigningError(
+                f"{source} cannot be signed as {role} before it is signed as {earlier} "
+                f"(order: {' -> '.join(r for r in ROLES if r in roles_in_block)})"
+            )
+    if role == "preparer" and existing:
+        raise SigningError(f"{source} already carries signatures; the preparer signs first")
+
+
+def _stamp_style(font: Path | None) -> Any:
+    from pyhanko.pdf_utils.layout import AxisAlignment, InnerScaling, Margins, SimpleBoxLayoutRule
+    from pyhanko.pdf_utils.text import TextBoxStyle
+    from pyhanko.stamp import TextStampStyle
+
+    if font is not None:
+        from pyhanko.pdf_utils.font.opentype import GlyphAccumulatorFactory
+
+        box_style = TextBoxStyle(font=GlyphAccumulatorFactory(str(font)), font_size=9, leading=12)
+    else:
+        box_style = TextBoxStyle(font_size=9, leading=12)
+    return TextStampStyle(
+        stamp_text=(
+            "%(title)s: %(signer)s\n%(firm)sRole: %(role)s\nDate: %(date)s\nReason: %(reason)s"
+        ),
+        text_box_style=box_style,
+        border_width=1,
+        background=None,
+        # same type size in every box; shrink only a stamp that would not fit
+        inner_content_layout=SimpleBoxLayoutRule(
+            x_align=AxisAlignment.ALIGN_MIN,
+            y_align=AxisAlignment.ALIGN_MID,
+            margins=Margins.uniform(6),
+            inner_content_scaling=InnerScaling.SHRINK_TO_FIT,
+        ),
+    )
+
+
+def _stamp_lines(text: str, width: int = 40, lines: int = 3) -> str:
+    """The reason wrapped for the stamp: a few short lines, shortened with an ellipsis."""
+    import textwrap
+
+    wrapped = textwrap.wrap(text, width=width, max_lines=lines, placeholder=" ...")
+    return "\n        ".join(wrapped)
+
+
+def _timestamper(url: str | None, timestamper: Any) -> Any:
+    if timestamper is not None:
+        return timestamper
+    url = url or os.environ.get(TIMESTAMP_URL_ENV) or None
+    if not url:
+        return None
+    if not url.startswith(("http://", "https://")):
+        raise SigningError(
+            f"Timestamp server URL must start with http:// or https:// (got {url!r})"
+        )
+    from pyhanko.sign.timestamps.requests_client import RequestsHTTPTimeStamper
+
+    return RequestsHTTPTimeStamper(url, timeout=10)
+
+
+@quiet_library_logs()
+def sign_package(
+    pdf: str | os.PathLike[str],
+    role: str,
+    key: str | os.PathLike[str] | Credentials,
+    password: str | None = None,
+    *,
+    out: str | os.PathLike[str] | None = None,
+    certificate: str | os.PathLike[str] | None = None,
+    reason: str | None = None,
+    location: str | None = None,
+    timestamp_url: str | None = None,
+    timestamper: Any = None,
+    project: str | os.PathLike[str] | None = None,
+    override_open_comments: str | None = None,
+    certify: bool = True,
+) -> SignResult:
+    """Sign a calc package as ``role`` into its sign-off block.
+
+    Args:
+        pdf: the package PDF built by calcpack (it carries ``calcpack-manifest.json``).
+        role: ``"preparer"``, ``"checker"`` or ``"approver"``.
+        key: a PKCS#12 or PEM key file, or already loaded :class:`Credentials`.
+        password: the key's password (read it with :func:`read_password`; never log it).
+        out: where to write the signed package (default: replace ``pdf`` atomically).
+        certificate: the certificate file when ``key`` is a PEM key.
+        reason: the reason shown in the stamp and signature (a default per role).
+        location: optional signing location.
+        timestamp_url: RFC 3161 timestamp server (default ``$CALCPACK_TIMESTAMP_URL``; none).
+        timestamper: a pyHanko ``TimeStamper`` to use instead of a URL (tests, custom clients).
+        project: the project directory holding the review file (checker only; found beside
+            the package when omitted).
+        override_open_comments: the checker's reason for signing with comments not closed.
+        certify: the preparer's signature is a certification signature (allowing further
+            signatures and form filling).
+
+    Returns:
+        A :class:`SignResult`.
+
+    Raises:
+        InputError: unknown role.
+        SigningError: missing package or key, wrong password, unusable certificate, role
+            already signed, out of order, package modified since its last signature, open
+            review comments without override, timestamp server failure.
+        VerificationError: the PDF is not a calcpack package or has no box for the role.
+    """
+    from pyhanko.pdf_utils.incremental_writer import IncrementalPdfFileWriter
+    from pyhanko.pdf_utils.misc import PdfError
+    from pyhanko.sign import fields, signers
+    from pyhanko.sign.general import SigningError as LibrarySigningError
+
+    from calcpack.signing.fonts import stamp_font
+
+    check_role(role)
+    source_path = Path(pdf)
+    source = repr(str(source_path))
+    if not source_path.is_file():
+        raise SigningError(f"Package {source} does not exist")
+    original = source_path.read_bytes()
+    if not original.startswith(b"%PDF-"):
+        raise VerificationError(f"{source} is not a calcpack package: it is not a PDF")
+    try:
+        writer = IncrementalPdfFileWriter(io.BytesIO(original), strict=False)
+    except (PdfError, ValueError) as exc:
+        raise VerificationError(f"{source} is not a readable PDF ({exc})") from exc
+    manifest = read_embedded_manifest(writer.prev, source)
+    boxes = signature_boxes(manifest, source)
+    if role not in boxes:
+        raise VerificationError(
+            f"{source} has no {role} box in its sign-off block "
+            f"(boxes: {', '.join(boxes) or 'none'})"
+        )
+    existing = _existing_signatures(writer.prev, source)
+    _check_order(role, existing, [r for r in ROLES if r in boxes], source)
+
+    overridden: tuple[str, ...] = ()
+    project_dir = Path(project) if project is not None else None
+    if role == "checker":
+        if project_dir is None:
+            project_dir = _find_project(source_path)
+        if project_dir is None:
+            if any(f.get("role") == "review" for f in manifest.get("files", [])):
+                raise SigningError(
+                    f"The manifest of {source} lists a review file, but no {REVIEW_FILE} was "
+                    "found beside the package; give the project directory (--project DIR)"
+                )
+        else:
+            overridden = require_closed(project_dir, override_open_comments)
+
+    creds = (
+        key
+        if isinstance(key, Credentials)
+        else load_credentials(key, password, certificate=certificate)
+    )
+
+    for r in ROLES:
+        if r in boxes and not _has_field(writer, field_name(r)):
+            b = boxes[r]
+            try:
+                fields.append_signature_field(
+                    writer,
+                    fields.SigFieldSpec(
+                        sig_field_name=field_name(r), on_page=b.page, box=cast(Any, b.box)
+                    ),
+                )
+            except (PdfError, IndexError, ValueError) as exc:
+                raise VerificationError(
+                    f"Cannot place the {r} signature field on page {b.page + 1} of {source} ({exc})"
+                ) from exc
+
+    signed_at = dt.datetime.now(dt.UTC).replace(microsecond=0)
+    why = (reason or _DEFAULT_REASONS[role]).strip()
+    if overridden:
+        why += (
+            f" (signed with review comments {', '.join(overridden)} not closed: "
+            f"{override_open_comments})"
+        )
+    certified = role == "preparer" and certify
+    meta = signers.PdfSignatureMetadata(
+        field_name=field_name(role),
+        reason=why,
+        location=location,
+        name=creds.name,
+        md_algorithm="sha256",
+        subfilter=fields.SigSeedSubFilter.PADES,
+        certify=certified,
+        docmdp_permissions=fields.MDPPerm.FILL_FORMS,
+    )
+    firm = creds.firm
+    text_params = {
+        "title": _ROLE_TITLES[role],
+        "signer": creds.name,
+        "firm": f"{firm}\n" if firm else "",
+        "role": role,
+        "date": f"{signed_at:%Y-%m-%d %H:%M} UTC",
+        "reason": _stamp_lines(why),
+    }
+    stamper = _timestamper(timestamp_url, timestamper)
+    pdf_signer = signers.PdfSigner(
+        meta, signer=creds.signer, timestamper=stamper, stamp_style=_stamp_style(stamp_font())
+    )
+    try:
+        output = pdf_signer.sign_pdf(
+            writer, existing_fields_only=True, appearance_text_params=text_params
+        )
+    except LibrarySigningError as exc:
+        raise SigningError(f"Signing {source} as {role} failed: {exc}") from exc
+    except (OSError, ValueError, PdfError) as exc:
+        what = "the timestamp server" if stamper is not None else "the signing library"
+        raise SigningError(f"Signing {source} as {role} failed in {what}: {exc}") from exc
+    data = output.getvalue()
+    if not data.startswith(original):  # an incremental update keeps every earlier byte
+        raise SigningError(f"Signing {source} did not produce an incremental update; not written")
+    target = Path(out) if out is not None else source_path
+    write_atomically(target, data)
+    if overridden and project_dir is not None:
+        record_override(
+            project_dir,
+            who=creds.name,
+            reason=str(override_open_comments),
+            comments=overridden,
+        )
+    return SignResult(
+        output=target,
+        role=role,
+        signer=creds.name,
+        signed_at=signed_at,
+        certified=certified,
+        timestamped=stamper is not None,
+        overridden=overridden,
+    )
+
+
+def _has_field(writer: Any, name: str) -> bool:
+    from pyhanko.sign.fields import enumerate_sig_fields
+
+    return any(True for _ in enumerate_sig_fields(writer, with_name=name))
