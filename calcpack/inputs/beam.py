@@ -353,6 +353,20 @@ class BeamOutcome:
     def governing_deflection(self) -> SpanDeflection:
         return max(self.deflections, key=lambda d: d.utilisation)
 
+    def working(self, sheet: Any, *, source: str = "inputs file") -> None:
+        """Add the working (inputs, section, analysis, checks) to ``sheet``, a
+        :class:`calcpack.working.Sheet`; built lazily, never on the panel's path."""
+        from calcpack.inputs.beam_working import beam_working
+
+        beam_working(self, sheet, source=source)
+
+    def diagrams(self) -> Any:
+        """The loading / V / M / δ diagrams -- the drawing the beam panel shows -- for display
+        (SVG)."""
+        from calcpack.inputs.beam_working import BeamDiagrams
+
+        return BeamDiagrams(self)
+
 
 # Samples per span when looking for each span's largest deflection. The deflected shape is a
 # smooth polynomial between load points; the sampled peak is refined by the vertex of the
@@ -433,3 +447,4 @@ def evaluate_beam(inputs: BeamInputs) -> BeamOutcome:
         bending_utilisation=util,
         deflections=tuple(defl),
     )
+
