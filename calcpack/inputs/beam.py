@@ -447,4 +447,3 @@ def evaluate_beam(inputs: BeamInputs) -> BeamOutcome:
         bending_utilisation=util,
         deflections=tuple(defl),
     )
-

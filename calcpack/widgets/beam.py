@@ -15,7 +15,7 @@ from html import escape
 from pathlib import Path
 from typing import Any
 
-import ipywidgets as W
+import ipywidgets as ipw
 
 from calcpack.errors import CalcpackError
 from calcpack.inputs import (
@@ -62,16 +62,16 @@ def outcome_table_html(outcome: BeamOutcome) -> str:
     rows = []
     for r in outcome.strength.reactions:
         rows.append(
-            f'<tr><td>Reaction R<sub>{escape(r.support)}</sub> ({escape(outcome.strength.label)})'
+            f"<tr><td>Reaction R<sub>{escape(r.support)}</sub> ({escape(outcome.strength.label)})"
             f'</td><td class="cp-out" data-out="R_{escape(r.support)}" '
             f'data-value="{r.Fy.to("kN").magnitude!r}">{_fmt(r.Fy, "kN")}</td><td></td></tr>'
         )
     u_b = outcome.bending_utilisation
     rows.append(
-        f'<tr><td>Design moment |M| at x = {_fmt(outcome.x_M, "m")}</td>'
+        f"<tr><td>Design moment |M| at x = {_fmt(outcome.x_M, 'm')}</td>"
         f'<td class="cp-out" data-out="M_design" '
         f'data-value="{outcome.M_design.to("kN*m").magnitude!r}">'
-        f'{_fmt(outcome.M_design, "kN*m")}</td><td></td></tr>'
+        f"{_fmt(outcome.M_design, 'kN*m')}</td><td></td></tr>"
         f'<tr><td>Bending stress σ = M / S<sub>x</sub></td><td class="cp-out" data-out="sigma" '
         f'data-value="{outcome.sigma.to("MPa").magnitude!r}">{_fmt(outcome.sigma, "MPa")}</td>'
         f"<td>f<sub>b</sub> = {_fmt(inp.f_b, 'MPa')}</td></tr>"
@@ -114,23 +114,23 @@ class BeamPanel:
         self.outcome: BeamOutcome | None = None
         self.last_update_s = 0.0
         self.fields: dict[str, QuantityField] = {}
-        self.status = W.HTML(layout=W.Layout(min_height="20px"))
+        self.status = ipw.HTML(layout=ipw.Layout(min_height="20px"))
         self.status.add_class("cp-panel-status")
-        self.diagrams = W.HTML()
+        self.diagrams = ipw.HTML()
         self.diagrams.add_class("cp-panel-diagrams")
-        self.results = W.HTML()
+        self.results = ipw.HTML()
         self.results.add_class("cp-panel-results-box")
-        self.form = W.VBox()
-        reload = W.Button(description="Reload file", tooltip=f"Read {self.path.name} again")
+        self.form = ipw.VBox()
+        reload = ipw.Button(description="Reload file", tooltip=f"Read {self.path.name} again")
         reload.on_click(lambda _b: self.reload())
-        title = W.HTML(
+        title = ipw.HTML(
             f"<b>Beam panel</b> — edits <code>{escape(self.path.name)}</code>; "
             "re-run the sheet's cells to update its working."
         )
-        self.widget = W.VBox(
+        self.widget = ipw.VBox(
             [
-                W.HBox([title, reload]),
-                W.HBox([self.form, W.VBox([self.diagrams, self.results])]),
+                ipw.HBox([title, reload]),
+                ipw.HBox([self.form, ipw.VBox([self.diagrams, self.results])]),
                 self.status,
             ]
         )
@@ -149,7 +149,7 @@ class BeamPanel:
         return f"BeamPanel({str(self.path)!r})"
 
     # -- form -----------------------------------------------------------------------------------
-    def _field(self, key: str, text: str, value: Quantity) -> W.Widget:
+    def _field(self, key: str, text: str, value: Quantity) -> ipw.Widget:
         f = QuantityField(key, text, value, self._edit_one)
         self.fields[key] = f
         return f.widget
@@ -158,39 +158,47 @@ class BeamPanel:
         self.fields = {}
         d = self.data
         beam, section, material = d["beam"], d["section"], d["material"]
-        parts: list[W.Widget] = [W.HTML("<b>Spans</b>")]
+        parts: list[ipw.Widget] = [ipw.HTML("<b>Spans</b>")]
         for i, s in enumerate(beam["spans"], start=1):
             parts.append(self._field(f"beam.spans[{i}]", f"Span {i}", s))
-        add = W.Button(description="+ span", layout=W.Layout(width="80px"))
-        drop = W.Button(description="− span", layout=W.Layout(width="80px"),
-                        disabled=len(beam["spans"]) < 2)
+        add = ipw.Button(description="+ span", layout=ipw.Layout(width="80px"))
+        drop = ipw.Button(
+            description="− span", layout=ipw.Layout(width="80px"), disabled=len(beam["spans"]) < 2
+        )
         add.on_click(lambda _b: self._spans(+1))
         drop.on_click(lambda _b: self._spans(-1))
-        parts.append(W.HBox([add, drop]))
-        parts.append(W.HTML("<b>Supports</b> (left to right)"))
+        parts.append(ipw.HBox([add, drop]))
+        parts.append(ipw.HTML("<b>Supports</b> (left to right)"))
         for i, kind in enumerate(beam["supports"], start=1):
-            dd = W.Dropdown(options=list(SUPPORT_KINDS), value=kind,
-                            layout=W.Layout(width="110px"))
+            dd = ipw.Dropdown(
+                options=list(SUPPORT_KINDS), value=kind, layout=ipw.Layout(width="110px")
+            )
             dd.add_class(css_key(f"beam.supports[{i}]"))
-            dd.observe(lambda ch, k=f"beam.supports[{i}]": self._edit({k: ch["new"]}),
-                       names="value")
-            parts.append(W.HBox([label(f"Support line {i}"), dd]))
-        parts.append(W.HTML("<b>Section</b>"))
-        shape = W.Dropdown(options=[(f.label, k) for k, f in SHAPES.items()],
-                           value=section["shape"], layout=W.Layout(width="170px"))
+            dd.observe(
+                lambda ch, k=f"beam.supports[{i}]": self._edit({k: ch["new"]}), names="value"
+            )
+            parts.append(ipw.HBox([label(f"Support line {i}"), dd]))
+        parts.append(ipw.HTML("<b>Section</b>"))
+        shape = ipw.Dropdown(
+            options=[(f.label, k) for k, f in SHAPES.items()],
+            value=section["shape"],
+            layout=ipw.Layout(width="170px"),
+        )
         shape.add_class(css_key("section.shape"))
         shape.observe(lambda ch: self._shape(ch["new"]), names="value")
-        parts.append(W.HBox([label("Shape"), shape]))
+        parts.append(ipw.HBox([label("Shape"), shape]))
         form = SHAPES[section["shape"]]
         for dim in form.dims:
             if dim in section:
-                parts.append(self._field(f"section.{dim}",
-                                         f"{dim} ({form.descriptions.get(dim, '')})",
-                                         section[dim]))
-        parts.append(W.HTML("<b>Material</b>"))
+                parts.append(
+                    self._field(
+                        f"section.{dim}", f"{dim} ({form.descriptions.get(dim, '')})", section[dim]
+                    )
+                )
+        parts.append(ipw.HTML("<b>Material</b>"))
         parts.append(self._field("material.E", "E (modulus)", material["E"]))
         parts.append(self._field("material.f_b", "f_b (bending strength)", material["f_b"]))
-        parts.append(W.HTML("<b>Loads</b>"))
+        parts.append(ipw.HTML("<b>Loads</b>"))
         for i, ld in enumerate(d.get("loads", []), start=1):
             head = f"{i}: {ld.get('type', '?')} ({ld.get('case', 'D')})"
             if ld.get("type") == "uniform":
@@ -201,21 +209,26 @@ class BeamPanel:
             elif ld.get("type") == "point":
                 parts.append(self._field(f"loads[{i}].P", f"{head} P", ld["P"]))
                 parts.append(self._field(f"loads[{i}].x", "    at x", ld["x"]))
-        parts.append(W.HTML("<b>Load factors</b>"))
+        parts.append(ipw.HTML("<b>Load factors</b>"))
         for combo in ("strength", "service"):
             for case, factor in d.get("combinations", {}).get(combo, {}).items():
-                box = W.FloatText(value=float(factor), layout=W.Layout(width="80px"),
-                                  continuous_update=False)
+                box = ipw.FloatText(
+                    value=float(factor), layout=ipw.Layout(width="80px"), continuous_update=False
+                )
                 key = f"combinations.{combo}.{case}"
                 box.add_class(css_key(key))
                 box.observe(lambda ch, k=key: self._edit({k: float(ch["new"])}), names="value")
-                parts.append(W.HBox([label(f"{combo}: {case}"), box]))
-        ratio = W.FloatText(value=float(d.get("limits", {}).get("deflection_ratio", 360)),
-                            layout=W.Layout(width="80px"), continuous_update=False)
+                parts.append(ipw.HBox([label(f"{combo}: {case}"), box]))
+        ratio = ipw.FloatText(
+            value=float(d.get("limits", {}).get("deflection_ratio", 360)),
+            layout=ipw.Layout(width="80px"),
+            continuous_update=False,
+        )
         ratio.add_class(css_key("limits.deflection_ratio"))
-        ratio.observe(lambda ch: self._edit({"limits.deflection_ratio": float(ch["new"])}),
-                      names="value")
-        parts.append(W.HBox([label("Deflection limit L /"), ratio]))
+        ratio.observe(
+            lambda ch: self._edit({"limits.deflection_ratio": float(ch["new"])}), names="value"
+        )
+        parts.append(ipw.HBox([label("Deflection limit L /"), ratio]))
         self.form.children = parts
 
     # -- edits ----------------------------------------------------------------------------------

@@ -7,7 +7,7 @@ import os
 from collections.abc import Callable
 from typing import Any
 
-import ipywidgets as W
+import ipywidgets as ipw
 
 from calcpack.units import Q_, Quantity
 
@@ -28,8 +28,8 @@ def interactive_session() -> bool:
     return bool(os.environ.get("JPY_SESSION_NAME")) or os.environ.get("CALCPACK_PANELS") == "1"
 
 
-def label(text: str, width: str = LABEL_WIDTH) -> W.Label:
-    return W.Label(text, layout=W.Layout(width=width))
+def label(text: str, width: str = LABEL_WIDTH) -> ipw.Label:
+    return ipw.Label(text, layout=ipw.Layout(width=width))
 
 
 class QuantityField:
@@ -52,16 +52,16 @@ class QuantityField:
     ) -> None:
         self.key = key
         self.unit = value.units
-        self.box = W.FloatText(
+        self.box = ipw.FloatText(
             value=float(value.magnitude),
-            layout=W.Layout(width="110px"),
+            layout=ipw.Layout(width="110px"),
             continuous_update=False,
         )
         self.box.add_class("cp-field")
         self.box.add_class(css_key(key))
-        self.widget = W.HBox(
-            [label(text, width), self.box, W.Label(f"{value.units:~P}")],
-            layout=W.Layout(margin="0 0 2px 0"),
+        self.widget = ipw.HBox(
+            [label(text, width), self.box, ipw.Label(f"{value.units:~P}")],
+            layout=ipw.Layout(margin="0 0 2px 0"),
         )
         self._on_change = on_change
         self.box.observe(self._changed, names="value")

@@ -12,7 +12,7 @@ from html import escape
 from pathlib import Path
 from typing import Any
 
-import ipywidgets as W
+import ipywidgets as ipw
 
 from calcpack.errors import CalcpackError
 from calcpack.inputs import SHAPES, load_inputs, parse_quantity, section_from_inputs, update_inputs
@@ -72,17 +72,19 @@ class SectionPanel:
         self.properties: Any = None
         self.last_update_s = 0.0
         self.fields: dict[str, QuantityField] = {}
-        self.form = W.VBox()
-        self.sketch = W.HTML()
+        self.form = ipw.VBox()
+        self.sketch = ipw.HTML()
         self.sketch.add_class("cp-panel-diagrams")
-        self.table = W.HTML()
-        self.status = W.HTML()
+        self.table = ipw.HTML()
+        self.status = ipw.HTML()
         self.status.add_class("cp-panel-status")
-        self.widget = W.VBox(
+        self.widget = ipw.VBox(
             [
-                W.HTML(f"<b>Section panel</b> — edits <code>{escape(self.path.name)}</code> "
-                       f"[{escape(key)}]"),
-                W.HBox([self.form, self.sketch, self.table]),
+                ipw.HTML(
+                    f"<b>Section panel</b> — edits <code>{escape(self.path.name)}</code> "
+                    f"[{escape(key)}]"
+                ),
+                ipw.HBox([self.form, self.sketch, self.table]),
                 self.status,
             ]
         )
@@ -102,17 +104,24 @@ class SectionPanel:
     def _build_form(self) -> None:
         table = self.data[self.key]
         form = SHAPES[table["shape"]]
-        shape = W.Dropdown(options=[(f.label, k) for k, f in SHAPES.items()],
-                           value=table["shape"], layout=W.Layout(width="170px"))
+        shape = ipw.Dropdown(
+            options=[(f.label, k) for k, f in SHAPES.items()],
+            value=table["shape"],
+            layout=ipw.Layout(width="170px"),
+        )
         shape.add_class(css_key(f"{self.key}.shape"))
         shape.observe(lambda ch: self.set_shape(ch["new"]), names="value")
-        parts: list[W.Widget] = [W.HBox([label("Shape"), shape])]
+        parts: list[ipw.Widget] = [ipw.HBox([label("Shape"), shape])]
         self.fields = {}
         for dim in form.dims:
             if dim in table:
                 key = f"{self.key}.{dim}"
-                f = QuantityField(key, f"{dim} ({form.descriptions.get(dim, '')})",
-                                  table[dim], lambda k, v: self._edit({k: v}))
+                f = QuantityField(
+                    key,
+                    f"{dim} ({form.descriptions.get(dim, '')})",
+                    table[dim],
+                    lambda k, v: self._edit({k: v}),
+                )
                 self.fields[key] = f
                 parts.append(f.widget)
         self.form.children = parts

@@ -248,12 +248,34 @@ def beam_diagrams_svg(outcome: Any) -> str:
     return "".join(
         (
             beam_sketch_svg(inputs),
-            diagram_svg(xv, v, L_m=L_m, title=f"Shear V — {strength}", unit="kN",
-                        colour="#1f5fa8", supports_x=sx),
-            diagram_svg(xm, m, L_m=L_m, title=f"Moment M (sagging +) — {strength}",
-                        unit="kN·m", colour="#b0441c", supports_x=sx),
-            diagram_svg(xd, d, L_m=L_m, title=f"Deflection δ (down +) — {service}", unit="mm",
-                        colour="#2b7a3d", supports_x=sx, down_positive=True),
+            diagram_svg(
+                xv,
+                v,
+                L_m=L_m,
+                title=f"Shear V — {strength}",
+                unit="kN",
+                colour="#1f5fa8",
+                supports_x=sx,
+            ),
+            diagram_svg(
+                xm,
+                m,
+                L_m=L_m,
+                title=f"Moment M (sagging +) — {strength}",
+                unit="kN·m",
+                colour="#b0441c",
+                supports_x=sx,
+            ),
+            diagram_svg(
+                xd,
+                d,
+                L_m=L_m,
+                title=f"Deflection δ (down +) — {service}",
+                unit="mm",
+                colour="#2b7a3d",
+                supports_x=sx,
+                down_positive=True,
+            ),
         )
     )
 
@@ -287,12 +309,13 @@ def section_sketch_svg(section: Any, props: Any, *, size: int = 240) -> str:
         reg = wr.region
         if isinstance(reg, PolygonRegion):
             pts = " ".join(P(x, y) for x, y in reg.points)
-            parts.append(f'<polygon points="{pts}" fill="{fill}" stroke="#234" '
-                         'stroke-width="1"/>')
+            parts.append(f'<polygon points="{pts}" fill="{fill}" stroke="#234" stroke-width="1"/>')
         elif isinstance(reg, CircleRegion):
             cx, cy = P(reg.cx, reg.cy).split(",")
-            parts.append(f'<circle cx="{cx}" cy="{cy}" r="{reg.r * scale:.1f}" fill="{fill}" '
-                         'stroke="#234" stroke-width="1"/>')
+            parts.append(
+                f'<circle cx="{cx}" cy="{cy}" r="{reg.r * scale:.1f}" fill="{fill}" '
+                'stroke="#234" stroke-width="1"/>'
+            )
     cx_m, cy_m = si(props.x_bar), si(props.y_bar)
     gx, gy = (float(v) for v in P(cx_m, cy_m).split(","))
     parts.append(

@@ -39,9 +39,10 @@ def _three_equal_spans() -> dict[str, Any]:
 def test_three_equal_spans_against_beam_table() -> None:
     out = evaluate_beam(beam_inputs(_three_equal_spans()))
     w, L = 5.0, 4.0  # kN/m, m
-    R = [r.Fy.to("kN").magnitude for r in out.strength.reactions]
+    reactions = [r.Fy.to("kN").magnitude for r in out.strength.reactions]
     # Tolerance 1e-9 relative: the solver is exact, the table coefficients are exact fractions.
-    assert R == pytest.approx([0.4 * w * L, 1.1 * w * L, 1.1 * w * L, 0.4 * w * L], rel=1e-9)
+    expected = [0.4 * w * L, 1.1 * w * L, 1.1 * w * L, 0.4 * w * L]
+    assert reactions == pytest.approx(expected, rel=1e-9)
     assert out.M_design.to("kN*m").magnitude == pytest.approx(0.1 * w * L**2, rel=1e-9)
     assert out.x_M.to("m").magnitude == pytest.approx(4.0, abs=1e-9)
     S = 0.1 * 0.3**2 / 6  # m³, rectangle b d²/6 (common practice)
@@ -125,5 +126,5 @@ def test_no_loads_is_refused() -> None:
     data = _three_equal_spans()
     data["loads"] = []
     data["combinations"] = {"strength": {}, "service": {}}
-    with pytest.raises(InputsFileError, match="combinations.strength"):
+    with pytest.raises(InputsFileError, match=r"combinations\.strength"):
         beam_inputs(data)
