@@ -27,9 +27,10 @@ class BeamDiagrams:
 
     def _repr_mimebundle_(self, include: Any = None, exclude: Any = None) -> dict[str, Any]:
         svg = self.svg()
+        # SVG only: JupyterLab shows it as an image, and the package build turns it into a
+        # vector figure the same way.
         return {
             "image/svg+xml": svg,
-            "text/html": f'<div class="cp-figure cp-beam-diagrams">{svg}</div>',
             "text/plain": f"Beam diagrams: {self.outcome.inputs.name}",
         }
 

@@ -19,7 +19,13 @@ import numpy as np
 
 from calcpack.units import Q_, si
 
-__all__ = ["beam_diagrams_svg", "beam_sketch_svg", "diagram_svg", "section_sketch_svg"]
+__all__ = [
+    "beam_diagrams_svg",
+    "beam_sketch_svg",
+    "diagram_svg",
+    "section_sketch_svg",
+    "stack_svg",
+]
 
 WIDTH = 640
 MARGIN_L = 70
@@ -208,17 +214,18 @@ def beam_sketch_svg(inputs: Any, *, height: int = 150) -> str:
                 f"w = {_num(float(ld.w.to('kN/m').magnitude))} kN/m ({escape(ld.case)})</text>"
             )
             level = top - 14
+    arrow_top = max(min(level, beam_y - 40), 30)
     for ld in inputs.loads:
         if hasattr(ld, "P"):
             c = colour[ld.case]
             x = X(si(ld.x))
             tip = beam_y - 2
             parts.append(
-                f'<line x1="{x:.1f}" y1="{tip - 34:.1f}" x2="{x:.1f}" y2="{tip - 6:.1f}" '
+                f'<line x1="{x:.1f}" y1="{arrow_top:.1f}" x2="{x:.1f}" y2="{tip - 6:.1f}" '
                 f'stroke="{c}" stroke-width="2"/>'
                 f'<polygon points="{x:.1f},{tip:.1f} {x - 4:.1f},{tip - 8:.1f} '
                 f'{x + 4:.1f},{tip - 8:.1f}" fill="{c}"/>'
-                f'<text x="{x + 5:.1f}" y="{tip - 26:.1f}" fill="{c}">'
+                f'<text x="{x:.1f}" y="{arrow_top - 3:.1f}" text-anchor="middle" fill="{c}">'
                 f"P = {_num(float(ld.P.to('kN').magnitude))} kN ({escape(ld.case)})</text>"
             )
     parts.append("</svg>")
@@ -245,38 +252,51 @@ def beam_diagrams_svg(outcome: Any) -> str:
     xv, v = _sample(outcome.strength, "shear", L_m, br)
     xm, m = _sample(outcome.strength, "moment", L_m, br)
     xd, d = _sample(outcome.service, "deflection", L_m, br)
-    return "".join(
-        (
-            beam_sketch_svg(inputs),
-            diagram_svg(
-                xv,
-                v,
-                L_m=L_m,
-                title=f"Shear V — {strength}",
-                unit="kN",
-                colour="#1f5fa8",
-                supports_x=sx,
-            ),
-            diagram_svg(
-                xm,
-                m,
-                L_m=L_m,
-                title=f"Moment M (sagging +) — {strength}",
-                unit="kN·m",
-                colour="#b0441c",
-                supports_x=sx,
-            ),
-            diagram_svg(
-                xd,
-                d,
-                L_m=L_m,
-                title=f"Deflection δ (down +) — {service}",
-                unit="mm",
-                colour="#2b7a3d",
-                supports_x=sx,
-                down_positive=True,
-            ),
-        )
+    parts = (
+        beam_sketch_svg(inputs),
+        diagram_svg(
+            xv,
+            v,
+            L_m=L_m,
+            title=f"Shear V — {strength}",
+            unit="kN",
+            colour="#1f5fa8",
+            supports_x=sx,
+        ),
+        diagram_svg(
+            xm,
+            m,
+            L_m=L_m,
+            title=f"Moment M (sagging +) — {strength}",
+            unit="kN·m",
+            colour="#b0441c",
+            supports_x=sx,
+        ),
+        diagram_svg(
+            xd,
+            d,
+            L_m=L_m,
+            title=f"Deflection δ (down +) — {service}",
+            unit="mm",
+            colour="#2b7a3d",
+            supports_x=sx,
+            down_positive=True,
+        ),
+    )
+    return stack_svg(parts)
+
+
+def stack_svg(parts: Sequence[str]) -> str:
+    """One SVG document holding ``parts`` (each a whole ``<svg>``) one below the other."""
+    y = 0
+    inner = []
+    for p in parts:
+        h = int(p.split('height="', 1)[1].split('"', 1)[0])
+        inner.append(p.replace("<svg ", f'<svg y="{y}" ', 1))
+        y += h
+    return (
+        f'<svg xmlns="http://www.w3.org/2000/svg" class="cp-diagrams" width="{WIDTH}" '
+        f'height="{y}" viewBox="0 0 {WIDTH} {y}">' + "".join(inner) + "</svg>"
     )
 
 
