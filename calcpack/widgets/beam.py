@@ -89,6 +89,7 @@ def outcome_table_html(outcome: BeamOutcome) -> str:
             f"{_verdict(d.utilisation)}</td></tr>"
         )
     return (
+        "<style>.cp-panel-results td{padding:1px 8px 1px 0}</style>"
         '<table class="cp-panel-results" style="border-collapse:collapse;font-size:13px">'
         + "".join(rows)
         + "</table>"
@@ -203,6 +204,17 @@ class BeamPanel:
             head = f"{i}: {ld.get('type', '?')} ({ld.get('case', 'D')})"
             if ld.get("type") == "uniform":
                 parts.append(self._field(f"loads[{i}].w", f"{head} w", ld["w"]))
+                if "span" in ld:
+                    n_spans = len(beam["spans"])
+                    dd = ipw.Dropdown(
+                        options=list(range(1, n_spans + 1)),
+                        value=int(ld["span"]) if 1 <= ld["span"] <= n_spans else 1,
+                        layout=ipw.Layout(width="70px"),
+                    )
+                    key = f"loads[{i}].span"
+                    dd.add_class(css_key(key))
+                    dd.observe(lambda ch, k=key: self._edit({k: int(ch["new"])}), names="value")
+                    parts.append(ipw.HBox([label("    on span"), dd]))
                 for k in ("start", "end"):
                     if k in ld:
                         parts.append(self._field(f"loads[{i}].{k}", f"    {k}", ld[k]))

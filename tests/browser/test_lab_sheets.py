@@ -36,3 +36,66 @@ def test_lintel_sheet_renders_math(lab: LabServer, page: Any) -> None:
     verdicts = page.locator(".cp-verdict").all_inner_texts()
     assert any("OK" in v for v in verdicts)
     save_screenshot(page, "lintel_check.png")
+
+
+GARDEN = REPO / "example_projects" / "garden_studio" / "sheets"
+BEAM_SHEET = GARDEN / "01_ridge_beam.ipynb"
+BEAM_INPUTS = GARDEN / "01_ridge_beam.inputs.toml"
+
+
+def _out(page: Any, name: str) -> float:
+    return float(
+        page.locator(f".cp-beam-panel [data-out='{name}']").first.get_attribute("data-value")
+    )
+
+
+def test_beam_panel_edits_inputs_and_updates_display(lab: LabServer, page: Any) -> None:
+    from calcpack.inputs import beam_inputs, evaluate_beam, load_inputs
+
+    copy_into(lab.root, BEAM_SHEET, BEAM_INPUTS)
+    inputs_file = lab.root / BEAM_INPUTS.name
+    open_notebook(page, lab, BEAM_SHEET.name)
+    run_all_cells(page)
+    assert cell_errors(page) == []
+    # Math typeset by JupyterLab's MathJax in the working.
+    page.wait_for_selector(".cp-math mjx-container", timeout=60_000)
+    assert page.locator(".cp-step .cp-math mjx-container").count() >= 20
+    # The panel rendered (ipywidgets front end) with its live diagrams ...
+    panel = page.locator(".cp-beam-panel")
+    panel.wait_for(timeout=60_000)
+    assert panel.locator(".cp-panel-diagrams svg.cp-diagrams svg.cp-diagram").count() == 4
+    # ... and the sheet's own diagram output (an SVG image) appeared below the working.
+    figures = page.locator(".jp-OutputArea-output[data-mime-type='image/svg+xml'] img")
+    assert figures.count() == 1
+    assert figures.first.evaluate("img => img.naturalWidth") > 0
+
+    before_u = _out(page, "bending_utilisation")
+    before_text = inputs_file.read_text(encoding="utf-8")
+    expected_before = evaluate_beam(beam_inputs(load_inputs(inputs_file)))
+    assert before_u == pytest.approx(expected_before.bending_utilisation, rel=1e-12)
+
+    box = panel.locator(".cp-key-beam-spans-2 input")
+    box.fill("5.5")
+    box.press("Enter")
+    page.wait_for_function(
+        """([sel, old]) => {
+            const e = document.querySelector(sel);
+            return e && parseFloat(e.getAttribute('data-value')) !== old;
+        }""",
+        arg=[".cp-beam-panel [data-out='bending_utilisation']", before_u],
+        timeout=30_000,
+    )
+    after_u = _out(page, "bending_utilisation")
+    after_text = inputs_file.read_text(encoding="utf-8")
+    assert after_text != before_text
+    assert 'spans = ["3.2 m", "5.5 m", "3.2 m"]' in after_text
+    assert "# Ridge beam RB1 — inputs." in after_text  # the file's comments are kept
+    # The panel shows what the sheet's calc cells compute from the file it wrote.
+    expected = evaluate_beam(beam_inputs(load_inputs(inputs_file)))
+    assert after_u == pytest.approx(expected.bending_utilisation, rel=1e-12)
+    assert after_u > before_u  # a longer middle span carries more moment
+    assert _out(page, "M_design") == pytest.approx(
+        expected.M_design.to("kN*m").magnitude, rel=1e-12
+    )
+    panel.scroll_into_view_if_needed()
+    save_screenshot(page, "beam_panel.png")
