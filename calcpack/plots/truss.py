@@ -1,0 +1,500 @@
+"""Truss diagrams: the truss drawn to scale with supports, loads, reactions and member forces.
+
+Reads a :class:`~calcpack.analysis.truss_solve.TrussResult` (or a bare
+:class:`~calcpack.analysis.truss_model.Truss` for its geometry and loads). Drawn with
+matplotlib's object interface on an Agg canvas (no pyplot, no GUI backend) and written as SVG;
+in Jupyter the diagram shows inline through ``_repr_svg_``.
+
+Colour and line code (stated in the legend): tension members solid blue, compression members
+solid red, zero-force members dashed grey; loads dark arrows ending at their joint, reactions
+green arrows. Arrow lengths are a fixed fraction of the truss size (the labels carry the
+values); the geometry is to scale.
+"""
+
+from __future__ import annotations
+
+import io
+import math
+from pathlib import Path
+from typing import TYPE_CHECKING, Any
+
+if TYPE_CHECKING:
+    from calcpack.analysis.freebody import FreeBody, FreeBodyResult
+    from calcpack.analysis.truss_model import Truss
+    from calcpack.analysis.truss_solve import TrussResult
+
+__all__ = ["FreeBodySketch", "TrussDiagram"]
+
+_TENSION = "#1f5fa8"
+_COMPRESSION = "#c0392b"
+_ZERO = "#8a8f96"
+_LOAD = "#222222"
+_REACTION = "#1e8449"
+
+
+def _fmt_force(value_kN: float, unit: str, sig: int) -> str:
+    if value_kN == 0:
+        return f"0 {unit}"
+    digits = max(sig - 1 - math.floor(math.log10(abs(value_kN))), 0)
+    return f"{abs(value_kN):.{digits}f} {unit}"
+
+
+def _draw_support(ax: Any, kind: str, theta: float, at: tuple[float, float], size: float) -> None:
+    """A pin (triangle), roller (triangle on wheels, surface at theta) or fixed support."""
+    from matplotlib.patches import Circle, Polygon, Rectangle
+
+    if kind == "fixed":
+        t = 0.035 * size
+        ax.add_patch(
+            Rectangle(
+                (at[0] - 0.6 * t, at[1] - 1.5 * t),
+                0.6 * t,
+                3 * t,
+                fc="#dddddd",
+                ec="#333333",
+                lw=1,
+                hatch="///",
+                zorder=1,
+            )
+        )
+        return
+
+    c, s = math.cos(theta), math.sin(theta)
+    t = 0.035 * size
+
+    def rot(px: float, py: float) -> tuple[float, float]:
+        return float(at[0] + c * px - s * py), float(at[1] + s * px + c * py)
+
+    tri = [rot(0, 0), rot(-t, -1.4 * t), rot(t, -1.4 * t)]
+    ax.add_patch(Polygon(tri, closed=True, fc="#dddddd", ec="#333333", lw=1, zorder=1))
+    base = -1.4 * t
+    if kind == "roller":
+        r = 0.28 * t
+        for px in (-0.55 * t, 0.55 * t):
+            ax.add_patch(Circle(rot(px, base - r), r, fc="white", ec="#333333", lw=1, zorder=1))
+        base -= 2 * r
+    g0, g1 = rot(-1.5 * t, base), rot(1.5 * t, base)
+    ax.plot([g0[0], g1[0]], [g0[1], g1[1]], color="#333333", lw=1.2, zorder=1)
+
+
+class TrussDiagram:
+    """A to-scale drawing of a truss and, when given a result, its member forces.
+
+    Args:
+        subject: a :class:`TrussResult` (forces and reactions labelled) or a :class:`Truss`.
+        title: the figure title (default: the truss name and load case).
+        width_in: figure width in inches (height follows the truss's proportions).
+        show_forces: label members with force and T/C.
+        show_names: label joints and members by name.
+        force_unit: the unit member forces and loads are labelled in (default kN, or kip when
+            the display system is US).
+    """
+
+    def __init__(
+        self,
+        subject: TrussResult | Truss,
+        *,
+        title: str | None = None,
+        width_in: float = 9.0,
+        show_forces: bool = True,
+        show_names: bool = True,
+        force_unit: str | None = None,
+    ) -> None:
+        from calcpack.analysis.truss_model import Truss
+        from calcpack.units import get_display
+
+        if isinstance(subject, Truss):
+            self.truss = subject
+            self.result: TrussResult | None = None
+        else:
+            self.truss = subject.truss
+            self.result = subject
+        self.title = title
+        self.width_in = width_in
+        self.show_forces = show_forces
+        self.show_names = show_names
+        self.force_unit = force_unit or ("kip" if get_display().system == "US" else "kN")
+        self.sig = get_display().sig_figs
+
+    # -- output ---------------------------------------------------------------------------
+
+    def figure(self) -> Any:
+        """The diagram as a matplotlib Figure (Agg canvas)."""
+        from matplotlib.backends.backend_agg import FigureCanvasAgg
+        from matplotlib.figure import Figure
+
+        xy = self.truss.xy_m
+        span = xy.max(axis=0) - xy.min(axis=0)
+        size = max(float(math.hypot(*span)), 1e-9)
+        w = max(float(span[0]), 0.3 * size)
+        h = max(float(span[1]), 0.3 * size)
+        aspect = (h + 0.7 * size) / (w + 0.7 * size)
+        fig = Figure(figsize=(self.width_in, max(self.width_in * aspect, 3.0)))
+        FigureCanvasAgg(fig)
+        ax = fig.add_subplot(1, 1, 1)
+        ax.set_aspect("equal")
+        ax.axis("off")
+        self._draw(ax, size)
+        ax.margins(0.12)
+        ax.autoscale_view()
+        label = self.title
+        if label is None:
+            label = self.truss.name + (f" — {self.result.label}" if self.result else "")
+        ax.set_title(label, fontsize=11)
+        fig.tight_layout()
+        return fig
+
+    def svg(self) -> str:
+        """The diagram as an SVG document."""
+        buf = io.StringIO()
+        self.figure().savefig(buf, format="svg", bbox_inches="tight")
+        return buf.getvalue()
+
+    def save(self, path: str | Path) -> Path:
+        """Write the diagram (SVG, or PNG/PDF by the file's suffix) and return the path."""
+        out = Path(path)
+        self.figure().savefig(out, bbox_inches="tight")
+        return out
+
+    def _repr_svg_(self) -> str:
+        return self.svg()
+
+    # -- drawing ----------------------------------------------------------------------------
+
+    def _kN_to_unit(self, kN: float) -> float:
+        from calcpack.units import ureg
+
+        return float((kN * ureg.kN).to(self.force_unit).magnitude)
+
+    def _draw(self, ax: Any, size: float) -> None:
+        truss, result = self.truss, self.result
+        xy = truss.xy_m
+        arrow = 0.12 * size
+        seen: set[str] = set()
+        for k, m in enumerate(truss.members):
+            s, e = truss.member_ends[k]
+            (x0, y0), (x1, y1) = xy[s], xy[e]
+            colour, style, nat = _ZERO, "-", ""
+            if result is not None:
+                nat = result.nature(m.name)
+                colour = {"T": _TENSION, "C": _COMPRESSION, "0": _ZERO}[nat]
+                style = "--" if nat == "0" else "-"
+            legend = {"T": "tension", "C": "compression", "0": "zero force"}.get(nat)
+            ax.plot(
+                [x0, x1],
+                [y0, y1],
+                style,
+                color=colour,
+                lw=2.2,
+                zorder=2,
+                label=legend if legend and legend not in seen else None,
+            )
+            if legend:
+                seen.add(legend)
+            parts = []
+            if self.show_names:
+                parts.append(m.name)
+            if result is not None and self.show_forces:
+                f = self._kN_to_unit(float(result.forces[m.name].to("kN").magnitude))
+                parts.append(f"{_fmt_force(f, self.force_unit, self.sig)} {nat}".strip())
+            if parts:
+                angle = math.degrees(math.atan2(y1 - y0, x1 - x0))
+                if angle > 90:
+                    angle -= 180
+                if angle < -90:
+                    angle += 180
+                ax.text(
+                    (x0 + x1) / 2,
+                    (y0 + y1) / 2,
+                    "\n".join(parts),
+                    rotation=angle,
+                    rotation_mode="anchor",
+                    ha="center",
+                    va="center",
+                    fontsize=7,
+                    color=colour,
+                    zorder=5,
+                    bbox={"boxstyle": "round,pad=0.15", "fc": "white", "ec": "none", "alpha": 0.85},
+                )
+        ax.plot(xy[:, 0], xy[:, 1], "o", color="#333333", ms=4, zorder=3)
+        if self.show_names:
+            for i, n in enumerate(truss.nodes):
+                ax.annotate(
+                    n.name,
+                    (xy[i, 0], xy[i, 1]),
+                    textcoords="offset points",
+                    xytext=(5, 5),
+                    fontsize=8,
+                    color="#333333",
+                    zorder=6,
+                )
+        for sup in truss.supports:
+            self._support(ax, sup, xy[truss.node_index[sup.node]], size)
+        self._loads(ax, arrow)
+        self._reactions(ax, arrow)
+        if seen:
+            ax.legend(loc="upper right", fontsize=7, frameon=False)
+
+    def _support(self, ax: Any, sup: Any, at: Any, size: float) -> None:
+        theta = float(sup.surface.to("radian").magnitude) if sup.kind == "roller" else 0.0
+        _draw_support(ax, sup.kind, theta, (float(at[0]), float(at[1])), size)
+
+    @staticmethod
+    def _arrow(
+        ax: Any,
+        tip: tuple[float, float],
+        d: tuple[float, float],
+        length: float,
+        colour: str,
+        text: str,
+        *,
+        label_at_tip: bool = False,
+    ) -> None:
+        tail = (tip[0] - d[0] * length, tip[1] - d[1] * length)
+        ax.annotate(
+            "",
+            xy=tip,
+            xytext=tail,
+            zorder=4,
+            arrowprops={"arrowstyle": "-|>", "color": colour, "lw": 1.6},
+        )
+        # The label sits beyond the arrow's outer end, on the side away from the joint.
+        out = (-d[0], -d[1]) if not label_at_tip else d
+        end = tail if not label_at_tip else tip
+        ha = "right" if out[0] < -0.5 else "left" if out[0] > 0.5 else "center"
+        va = "top" if out[1] < -0.5 else "bottom" if out[1] > 0.5 else "center"
+        at = (end[0] + out[0] * 0.05 * length, end[1] + out[1] * 0.05 * length)
+        ax.text(at[0], at[1], text, fontsize=7, color=colour, ha=ha, va=va, zorder=6)
+        # Annotations do not widen the axes; the arrow's ends and label must stay in view.
+        ax.update_datalim(
+            [tail, tip, (at[0] + out[0] * 0.3 * length, at[1] + out[1] * 0.3 * length)]
+        )
+
+    def _loads(self, ax: Any, arrow: float) -> None:
+        truss = self.truss
+        xy = truss.xy_m
+        p = self.result.loads_N() if self.result is not None else truss.load_vector()
+        for i in range(len(truss.nodes)):
+            fx, fy = float(p[2 * i]), float(p[2 * i + 1])
+            mag = math.hypot(fx, fy)
+            if mag == 0:
+                continue
+            d = (fx / mag, fy / mag)
+            value = self._kN_to_unit(mag / 1e3)
+            node = (float(xy[i, 0]), float(xy[i, 1]))
+            # Draw the arrow on the outside of the truss: ending at the joint (pushing) when
+            # its tail then lies away from the centre, else leaving the joint (pulling, e.g.
+            # a load hung under the bottom chord).
+            cx, cy = (float(v) for v in xy.mean(axis=0))
+            push_tail = (node[0] - d[0] * arrow, node[1] - d[1] * arrow)
+            pull_tip = (node[0] + d[0] * arrow, node[1] + d[1] * arrow)
+            pulling = (
+                math.hypot(pull_tip[0] - cx, pull_tip[1] - cy)
+                > math.hypot(push_tail[0] - cx, push_tail[1] - cy) + 1e-9 * arrow
+            )
+            if pulling:
+                text = _fmt_force(value, self.force_unit, self.sig)
+                self._arrow(ax, pull_tip, d, arrow, _LOAD, text, label_at_tip=True)
+                continue
+            self._arrow(ax, node, d, arrow, _LOAD, _fmt_force(value, self.force_unit, self.sig))
+
+    def _reactions(self, ax: Any, arrow: float) -> None:
+        if self.result is None:
+            return
+        truss = self.truss
+        xy = truss.xy_m
+        for rec in self.result.reactions.values():
+            v = float(rec.value.to("kN").magnitude)
+            if v == 0:
+                continue
+            i = truss.node_index[rec.node]
+            sign = 1.0 if v > 0 else -1.0
+            d = (sign * rec.direction[0], sign * rec.direction[1])
+            # Drawn pushing on the joint from outside, set off below the support symbol.
+            tip = (
+                float(xy[i, 0]) - d[0] * 0.06 * arrow * 8,
+                float(xy[i, 1]) - d[1] * 0.06 * arrow * 8,
+            )
+            label = (
+                f"{rec.name} = {_fmt_force(self._kN_to_unit(abs(v)), self.force_unit, self.sig)}"
+            )
+            self._arrow(ax, tip, d, arrow, _REACTION, label)
+
+
+def _hull(points: list[tuple[float, float]]) -> list[tuple[float, float]]:
+    """Convex hull (monotone chain), counter-clockwise."""
+    pts = sorted(set(points))
+    if len(pts) < 3:
+        return pts
+
+    def cross(o: tuple[float, float], a: tuple[float, float], b: tuple[float, float]) -> float:
+        return (a[0] - o[0]) * (b[1] - o[1]) - (a[1] - o[1]) * (b[0] - o[0])
+
+    lower: list[tuple[float, float]] = []
+    for p in pts:
+        while len(lower) >= 2 and cross(lower[-2], lower[-1], p) <= 0:
+            lower.pop()
+        lower.append(p)
+    upper: list[tuple[float, float]] = []
+    for p in reversed(pts):
+        while len(upper) >= 2 and cross(upper[-2], upper[-1], p) <= 0:
+            upper.pop()
+        upper.append(p)
+    return lower[:-1] + upper[:-1]
+
+
+class FreeBodySketch:
+    """A sketch of a free body: its outline (through its support and load points), known loads
+    (dark), distributed loads with their resultants (dashed), couples, and the unknown
+    reactions in their positive sense (green), labelled with their values when solved.
+
+    Args:
+        subject: a :class:`FreeBodyResult` or a :class:`FreeBody`.
+        width_in: figure width in inches.
+    """
+
+    def __init__(self, subject: FreeBodyResult | FreeBody, *, width_in: float = 7.0) -> None:
+        from calcpack.analysis.freebody import FreeBody
+
+        if isinstance(subject, FreeBody):
+            self.body, self.result = subject, None
+        else:
+            self.body, self.result = subject.body, subject
+        self.width_in = width_in
+
+    def figure(self) -> Any:
+        """The sketch as a matplotlib Figure (Agg canvas)."""
+        from matplotlib.backends.backend_agg import FigureCanvasAgg
+        from matplotlib.figure import Figure
+        from matplotlib.patches import Polygon
+
+        from calcpack.analysis.freebody import DistributedLoad
+        from calcpack.units import get_display, si
+
+        sig = get_display().sig_figs
+        body = self.body
+        pts = [p for _, p in body.named_points()]
+        pts += [(si(f.x), si(f.y)) for f in body.point_loads()]
+        for ld in body.loads:
+            if isinstance(ld, DistributedLoad):
+                pts += [(si(ld.x1), si(ld.y1)), (si(ld.x2), si(ld.y2))]
+        size = body.scale_m()
+        arrow = 0.15 * size
+        fig = Figure(figsize=(self.width_in, self.width_in * 0.6))
+        FigureCanvasAgg(fig)
+        ax = fig.add_subplot(1, 1, 1)
+        ax.set_aspect("equal")
+        ax.axis("off")
+        hull = _hull(pts)
+        area = 0.0
+        if len(hull) >= 3:
+            area = (
+                abs(
+                    sum(
+                        hull[i][0] * hull[i - 1][1] - hull[i - 1][0] * hull[i][1]
+                        for i in range(len(hull))
+                    )
+                )
+                / 2
+            )
+        if area > 1e-3 * size**2:
+            ax.add_patch(Polygon(hull, closed=True, fc="#eef1f4", ec="#555555", lw=1.5, zorder=0))
+        elif hull:
+            xs, ys = zip(*hull, strict=True)
+            ax.plot(
+                [min(xs), max(xs)],
+                [ys[xs.index(min(xs))], ys[xs.index(max(xs))]],
+                color="#555555",
+                lw=4,
+                solid_capstyle="butt",
+                zorder=0,
+            )
+        for sup in body.supports:
+            at = (si(sup.x), si(sup.y))
+            theta = float(sup.angle.to("radian").magnitude)
+            if sup.kind in ("pin", "roller", "fixed"):
+                _draw_support(ax, sup.kind, theta if sup.kind == "roller" else 0.0, at, size)
+            ax.annotate(sup.name, at, textcoords="offset points", xytext=(6, 6), fontsize=8)
+        for ld in body.loads:
+            if isinstance(ld, DistributedLoad):
+                a, b = (si(ld.x1), si(ld.y1)), (si(ld.x2), si(ld.y2))
+                th = float(ld.angle.to("radian").magnitude)
+                d = (math.cos(th), math.sin(th))
+                for k in range(7):
+                    t = k / 6
+                    tip = (a[0] + t * (b[0] - a[0]), a[1] + t * (b[1] - a[1]))
+                    TrussDiagram._arrow(ax, tip, d, 0.5 * arrow, _LOAD, "")
+                ax.text(
+                    a[0] + 0.25 * (b[0] - a[0]) - d[0] * 0.6 * arrow,
+                    a[1] + 0.25 * (b[1] - a[1]) - d[1] * 0.6 * arrow,
+                    f"{ld.label} = {ld.w1:.{sig}g~P}",
+                    fontsize=8,
+                    ha="center",
+                    va="bottom",
+                    color=_LOAD,
+                )
+        for f in body.point_loads():
+            fx, fy = si(f.Fx), si(f.Fy)
+            mag = math.hypot(fx, fy)
+            if mag == 0:
+                continue
+            dashed = f.label.startswith("W_")
+            colour = "#7a7f87" if dashed else _LOAD
+            TrussDiagram._arrow(
+                ax,
+                (si(f.x), si(f.y)),
+                (fx / mag, fy / mag),
+                arrow * (1.3 if dashed else 1.0),
+                colour,
+                f"{f.label} = {_fmt_force(mag / 1e3, 'kN', sig)}",
+            )
+        cx = float(sum(p[0] for p in pts) / len(pts))
+        cy = float(sum(p[1] for p in pts) / len(pts))
+        for n, c in enumerate(body.couples()):
+            ax.text(
+                cx,
+                cy - (0.45 + 0.25 * n) * arrow,
+                f"↺ {c.label} = {c.M.to('kN*m'):.{sig}g~P}",
+                fontsize=8,
+                ha="center",
+                va="top",
+                color=_LOAD,
+            )
+        for u in body.unknowns():
+            value = self.result.reactions[u.name] if self.result is not None else None
+            text = u.name if value is None else f"{u.name} = {value:.{sig}g~P}"
+            if u.direction is None:
+                ax.annotate(
+                    f"↺ {text}",
+                    u.point,
+                    textcoords="offset points",
+                    xytext=(-10, -28),
+                    fontsize=8,
+                    color=_REACTION,
+                )
+                continue
+            tip = (
+                u.point[0] - u.direction[0] * 0.25 * arrow,
+                u.point[1] - u.direction[1] * 0.25 * arrow,
+            )
+            TrussDiagram._arrow(ax, tip, u.direction, arrow, _REACTION, text)
+        ax.margins(0.15)
+        ax.autoscale_view()
+        ax.set_title(f"Free body: {body.name}", fontsize=10)
+        fig.tight_layout()
+        return fig
+
+    def svg(self) -> str:
+        """The sketch as an SVG document."""
+        buf = io.StringIO()
+        self.figure().savefig(buf, format="svg", bbox_inches="tight")
+        return buf.getvalue()
+
+    def save(self, path: str | Path) -> Path:
+        """Write the sketch (format by the file's suffix) and return the path."""
+        out = Path(path)
+        self.figure().savefig(out, bbox_inches="tight")
+        return out
+
+    def _repr_svg_(self) -> str:
+        return self.svg()
