@@ -26,7 +26,9 @@ from typing import Any
 import numpy as np
 
 from calcpack.errors import InputError
-from calcpack.units import Q_, Quantity, require, si
+from calcpack.loads._si import check as require
+from calcpack.loads._si import fast_si as si
+from calcpack.units import Q_, Quantity
 
 __all__ = [
     "AreaLoad",
@@ -42,6 +44,8 @@ __all__ = [
     "UniformLoad",
 ]
 
+_ZERO_KN = Q_(0.0, "kN")  # shared defaults: quantities are not mutated
+_ZERO_M = Q_(0.0, "m")
 _FORCE = "[force]"
 _LINE = "[force] / [length]"
 _LENGTH = "[length]"
@@ -125,7 +129,7 @@ class PointLoad(Load):
 
     x: Quantity
     P: Quantity
-    H: Quantity = field(default_factory=lambda: Q_(0.0, "kN"))
+    H: Quantity = field(default_factory=lambda: _ZERO_KN)
 
     def __post_init__(self) -> None:
         super().__post_init__()
@@ -189,7 +193,7 @@ class PointMoment(Load):
 class DistributedLoad(Load):
     """Base of loads spread over ``start`` <= x <= ``end``; ``end=None`` runs to the beam end."""
 
-    start: Quantity = field(default_factory=lambda: Q_(0.0, "m"), kw_only=True)
+    start: Quantity = field(default_factory=lambda: _ZERO_M, kw_only=True)
     end: Quantity | None = field(default=None, kw_only=True)
 
     def __post_init__(self) -> None:

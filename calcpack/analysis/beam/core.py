@@ -23,6 +23,7 @@ determinate beam is solved from the equilibrium and hinge equations alone.
 
 from __future__ import annotations
 
+import bisect
 from dataclasses import dataclass
 
 import numpy as np
@@ -111,7 +112,7 @@ def integrate(
     k = np.arange(1, K)
     g = np.zeros_like(f)
     g[:, :, 1:] = sign * f[:, :, :-1] / k
-    ends = np.einsum("bnk,nk->bn", g, _powers(h, K))
+    ends = (g * _powers(h, K)).sum(axis=-1)
     increments = jumps[:, :n].copy()
     increments[:, 1:] += ends[:, :-1]
     g[:, :, 0] = start[:, None] + np.cumsum(increments, axis=1)
@@ -120,7 +121,7 @@ def integrate(
 
 def end_values(g: np.ndarray, h: np.ndarray) -> np.ndarray:
     """(…, n) value of each segment polynomial at its right end."""
-    return np.asarray(np.einsum("...nk,nk->...n", g, _powers(h, g.shape[-1])), dtype=float)
+    return np.asarray((g * _powers(h, g.shape[-1])).sum(axis=-1), dtype=float)
 
 
 def evaluate(X: np.ndarray, g: np.ndarray, x: np.ndarray, side: str = "right") -> np.ndarray:
@@ -150,16 +151,25 @@ def evaluate(X: np.ndarray, g: np.ndarray, x: np.ndarray, side: str = "right") -
     return out
 
 
-def _shift(c: np.ndarray, s: np.ndarray) -> np.ndarray:
-    """Coefficients of p(ξ + s) for each row of c (ascending), s per row."""
-    K = c.shape[-1]
-    out = np.zeros_like(c)
-    from math import comb
+_BINOM: dict[int, tuple[np.ndarray, np.ndarray]] = {}
 
-    for i in range(K):
-        for k in range(i + 1):
-            out[..., k] += c[..., i] * comb(i, k) * s ** (i - k)
-    return out
+
+def _binomials(K: int) -> tuple[np.ndarray, np.ndarray]:
+    if K not in _BINOM:
+        from math import comb
+
+        i = np.arange(K)[:, None]
+        k = np.arange(K)[None, :]
+        C = np.array([[comb(a, b) if a >= b else 0 for b in range(K)] for a in range(K)], float)
+        _BINOM[K] = (C, np.clip(i - k, 0, None))
+    return _BINOM[K]
+
+
+def _shift(c: np.ndarray, s: np.ndarray) -> np.ndarray:
+    """Coefficients of p(ξ + s) for each row of c (ascending), s per row (binomial expansion)."""
+    C, e = _binomials(c.shape[-1])
+    spow = np.asarray(s, dtype=float)[:, None, None] ** e[None, :, :]
+    return np.asarray(np.einsum("mi,ik,mik->mk", c, C, spow), dtype=float)
 
 
 def refine(X: np.ndarray, g: np.ndarray, Xnew: np.ndarray, K: int) -> np.ndarray:
@@ -186,7 +196,24 @@ def _breakpoints(beam: SIBeam) -> np.ndarray:
 
 
 def _node(X: np.ndarray, x: float) -> int:
-    return int(np.argmin(np.abs(X - x)))
+    """Index of the breakpoint nearest x (positions were merged to the breakpoints)."""
+    i = bisect.bisect_left(_as_list(X), x)
+    if i == 0:
+        return 0
+    if i >= len(X):
+        return len(X) - 1
+    return i if X[i] - x < x - X[i - 1] else i - 1
+
+
+_LIST_CACHE: list[tuple[np.ndarray, list[float]]] = []
+
+
+def _as_list(X: np.ndarray) -> list[float]:
+    if _LIST_CACHE and _LIST_CACHE[0][0] is X:
+        return _LIST_CACHE[0][1]
+    values = X.tolist()
+    _LIST_CACHE[:] = [(X, values)]
+    return values
 
 
 def solve_si(beam: SIBeam) -> SIResult:
@@ -204,13 +231,19 @@ def solve_si(beam: SIBeam) -> SIResult:
     # -- the loads ----------------------------------------------------------------------------
     w = np.zeros((n, K))
     mids = 0.5 * (X[:-1] + X[1:])
+    rows: list[np.ndarray] = []
+    segs: list[np.ndarray] = []
+    shifts: list[np.ndarray] = []
     for a, b, coeffs in beam.pieces:
-        on = (mids > a) & (mids < b)
-        if not np.any(on):
-            continue
-        c = np.zeros((int(on.sum()), K))
+        on = np.nonzero((mids > a) & (mids < b))[0]
+        c = np.zeros((on.size, K))
         c[:, : len(coeffs)] = coeffs
-        w[on] += _shift(c, X[:-1][on] - a)
+        rows.append(c)
+        segs.append(on)
+        shifts.append(X[on] - a)
+    if rows:
+        seg_all = np.concatenate(segs)
+        np.add.at(w, seg_all, _shift(np.concatenate(rows), np.concatenate(shifts)))
     jP = np.zeros(n + 1)  # downward point forces
     jC = np.zeros(n + 1)  # clockwise couples
     jH = np.zeros(n + 1)  # axial, +x
@@ -266,7 +299,7 @@ def solve_si(beam: SIBeam) -> SIResult:
     def at_node(g: np.ndarray, gend: np.ndarray, i: int) -> np.ndarray:
         return g[:, i, 0] if i < n else gend[:, n - 1]
 
-    rows = [Vend[:, -1] + JV[:, n], Mend[:, -1] + JM[:, n]]
+    rows = [Vend[:, -1] + JV[:, n], Mend[:, -1] + JM[:, n]]  # ΣFy = 0, ΣM = 0
     Tb = vb = None
     if with_ei:
         assert beam.EI is not None
@@ -307,10 +340,14 @@ def solve_si(beam: SIBeam) -> SIResult:
     else:
         u_vals = np.zeros(0)
     coef = np.concatenate([[1.0], u_vals])
-    V = np.einsum("b,bnk->nk", coef, Vb)
-    M = np.einsum("b,bnk->nk", coef, Mb)
-    T = np.einsum("b,bnk->nk", coef, Tb) if Tb is not None else None
-    v = np.einsum("b,bnk->nk", coef, vb) if vb is not None else None
+
+    def mix(g: np.ndarray) -> np.ndarray:
+        return np.asarray((coef @ g.reshape(Bn, -1)).reshape(n, K), dtype=float)
+
+    V = mix(Vb)
+    M = mix(Mb)
+    T = mix(Tb) if Tb is not None else None
+    v = mix(vb) if vb is not None else None
 
     reactions: dict[tuple[str, str], float] = {}
     hinge_rotation: dict[str, float] = {}
@@ -342,6 +379,8 @@ def _axial(
     base = -np.cumsum(jH)[:n]  # N on each segment from the applied axial loads alone
     if not restraints:
         return base, reactions
+    if not jH.any():
+        return base, {(name, "Fx"): 0.0 for name, _ in restraints}
     m = len(restraints)
     units = np.zeros((m, n))
     for r, (_, i) in enumerate(restraints):

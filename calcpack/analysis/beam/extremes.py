@@ -6,82 +6,201 @@ polished by Newton steps. Round-off is the only error."""
 from __future__ import annotations
 
 from dataclasses import dataclass
+from functools import cached_property
 from typing import TYPE_CHECKING
 
 import numpy as np
 
-from calcpack.units import Q_, Quantity
+from calcpack.analysis.beam.core import SIResult, evaluate
+from calcpack.units import Quantity
+
+
+def out_q(value: float, kind: str) -> Quantity:
+    from calcpack.analysis.beam.result import out_q as _out
+
+    return _out(value, kind)
+
 
 if TYPE_CHECKING:
     from calcpack.analysis.beam.result import BeamResult
 
-__all__ = ["BeamExtremes", "Extreme", "find_extremes", "roots_in_segments"]
+__all__ = ["BeamExtremes", "Extreme", "batch_roots", "find_extremes", "roots_in_segments"]
 
 
 @dataclass(frozen=True)
 class Extreme:
-    """A value and where it occurs; ``side`` is "left"/"right" at a discontinuity, else ""."""
+    """A value and where it occurs; ``side`` is "left"/"right" at a discontinuity, else "".
 
-    value: Quantity
-    x: Quantity
+    Stored in SI (``value_si``, ``x_m``); :attr:`value` and :attr:`x` are quantities in the
+    display units (kN, kN·m, mm, m), made when read.
+    """
+
+    value_si: float
+    x_m: float
     side: str = ""
+    kind: str = "force"
+
+    @property
+    def value(self) -> Quantity:
+        return out_q(self.value_si, self.kind)
+
+    @property
+    def x(self) -> Quantity:
+        return out_q(self.x_m, "length")
 
 
-@dataclass(frozen=True)
 class BeamExtremes:
     """Extremes of one result (sign convention as in :mod:`calcpack.analysis.beam.result`).
 
     Attributes:
         V_max, V_min: largest and smallest shear. M_max, M_min: largest sagging and most
         hogging moment (M_min < 0 is hogging). zero_shear: positions where V is zero or changes
-        sign across a point load. contraflexure: positions inside the beam where M changes sign.
-        deflection_down: largest downward deflection (δ > 0) or None. deflection_up: largest
-        upward movement (as a positive magnitude) or None. slope_left, slope_right: θ at x = 0
-        and x = L (ccw +), or None without EI.
+        sign across a point load. contraflexure: positions inside the beam where M changes sign
+        (found when first read). deflection_down: largest downward deflection (δ > 0) or None.
+        deflection_up: largest upward movement (as a positive magnitude) or None. slope_left,
+        slope_right: θ at x = 0 and x = L (ccw +), or None without EI.
     """
 
-    V_max: Extreme
-    V_min: Extreme
-    M_max: Extreme
-    M_min: Extreme
-    zero_shear: tuple[Quantity, ...]
-    contraflexure: tuple[Quantity, ...]
-    deflection_down: Extreme | None
-    deflection_up: Extreme | None
-    slope_left: Quantity | None
-    slope_right: Quantity | None
+    def __init__(
+        self,
+        core: SIResult,
+        V: tuple[Extreme, Extreme],
+        M: tuple[Extreme, Extreme],
+        V_roots: np.ndarray,
+        deflection: tuple[Extreme | None, Extreme | None],
+        slopes: tuple[float | None, float | None],
+    ) -> None:
+        self._core = core
+        self.V_max, self.V_min = V
+        self.M_max, self.M_min = M
+        self._V_roots = V_roots
+        self.deflection_down, self.deflection_up = deflection
+        self.slope_left_rad, self.slope_right_rad = slopes
+
+    def __repr__(self) -> str:
+        return (
+            f"BeamExtremes(V_max={self.V_max}, V_min={self.V_min}, M_max={self.M_max}, "
+            f"M_min={self.M_min}, deflection_down={self.deflection_down}, "
+            f"deflection_up={self.deflection_up})"
+        )
+
+    @cached_property
+    def zero_shear_m(self) -> tuple[float, ...]:
+        core = self._core
+        X = core.X
+        n = len(X) - 1
+        L = X[-1]
+        tol = 1e-9 * L
+        Vleft = np.concatenate([[0.0], _value(core.V, X, X[1:], np.arange(n))])
+        Vright = np.concatenate([core.V[:, 0], [0.0]])
+        scale = max(float(np.max(np.abs(np.concatenate([Vleft, Vright])))), 1e-300)
+        cross = (
+            (Vleft * Vright < 0)
+            & (np.abs(Vleft) > 1e-12 * scale)
+            & (np.abs(Vright) > 1e-12 * scale)
+        )
+        zs = _dedupe(np.concatenate([self._V_roots, X[cross]]), tol)
+        return tuple(float(x) for x in zs[(zs > tol) & (zs < L - tol)])
+
+    @cached_property
+    def contraflexure_m(self) -> tuple[float, ...]:
+        core = self._core
+        X = core.X
+        L = X[-1]
+        tol = 1e-9 * L
+        scale = max(
+            float(np.max(np.abs(core.M[:, 0]))),
+            abs(self.M_max.value_si),
+            abs(self.M_min.value_si),
+            1e-300,
+        )
+        cand = _dedupe(roots_in_segments(X, core.M), tol)
+        cand = cand[(cand > tol) & (cand < L - tol)]
+        eps = 1e-6 * L
+        ml = evaluate(X, core.M, cand - eps)
+        mr = evaluate(X, core.M, cand + eps)
+        keep = (ml * mr < 0) & (np.minimum(np.abs(ml), np.abs(mr)) > 1e-12 * scale)
+        return tuple(float(x) for x in cand[keep])
+
+    @property
+    def zero_shear(self) -> tuple[Quantity, ...]:
+        return tuple(out_q(x, "length") for x in self.zero_shear_m)
+
+    @property
+    def contraflexure(self) -> tuple[Quantity, ...]:
+        return tuple(out_q(x, "length") for x in self.contraflexure_m)
+
+    @property
+    def slope_left(self) -> Quantity | None:
+        return None if self.slope_left_rad is None else out_q(self.slope_left_rad, "angle")
+
+    @property
+    def slope_right(self) -> Quantity | None:
+        return None if self.slope_right_rad is None else out_q(self.slope_right_rad, "angle")
 
 
-def _poly_roots(c: np.ndarray, h: float) -> np.ndarray:
-    """Real roots ξ in [0, h] of the ascending polynomial c (empty if c is identically 0)."""
-    d = c * h ** np.arange(len(c))  # in t = ξ/h
-    size = np.max(np.abs(d))
-    if size == 0.0:
-        return np.zeros(0)
-    nz = np.nonzero(np.abs(d) > 1e-13 * size)[0]
-    top = nz[-1]
-    if top == 0:
-        return np.zeros(0)
-    d = d[: top + 1]
-    r = np.polynomial.polynomial.polyroots(d)
-    r = r[np.abs(r.imag) < 1e-6].real
-    r = r[(r > -1e-9) & (r < 1 + 1e-9)]
-    if r.size:
-        dd = np.polynomial.polynomial.polyder(d)
-        for _ in range(3):  # Newton polish in t, guarded against flat spots
-            f = np.polynomial.polynomial.polyval(r, d)
-            fp = np.polynomial.polynomial.polyval(r, dd)
-            step = np.where(np.abs(fp) > 1e-14 * size, f / np.where(fp == 0, 1, fp), 0.0)
-            r = r - np.clip(step, -1e-3, 1e-3)
-        r = np.clip(r, 0.0, 1.0)
-    return np.asarray(r * h, dtype=float)
+def batch_roots(g: np.ndarray, h: np.ndarray) -> tuple[np.ndarray, np.ndarray]:
+    """Real roots of every segment polynomial inside its segment, all segments at once.
+
+    Each row of ``g`` (n, K) is scaled to t = ξ/h ∈ [0, 1]; terms below 1e-13 of the row's
+    largest are dropped (round-off). Rows of lower degree are multiplied by (t − 2) until all
+    have the top degree -- the added roots lie outside [0, 1] -- so one eigenvalue call on the
+    stacked companion matrices finds every root; the real roots in [0, 1] are then polished by
+    Newton steps. Identically zero and constant rows have no roots.
+
+    Returns:
+        (segment index, ξ) arrays of the roots.
+    """
+    K = g.shape[1]
+    d = g * h[:, None] ** np.arange(K)[None, :]
+    size = np.max(np.abs(d), axis=1)
+    d = np.where(np.abs(d) > 1e-13 * size[:, None], d, 0.0)
+    nz = d != 0
+    deg = np.where(nz.any(axis=1), K - 1 - np.argmax(nz[:, ::-1], axis=1), 0)
+    rows = np.nonzero(deg >= 1)[0]
+    if rows.size == 0:
+        return np.zeros(0, dtype=int), np.zeros(0)
+    D = int(deg[rows].max())
+    c = d[rows, : D + 1].copy()
+    pad = D - deg[rows]
+    for _ in range(int(pad.max())):
+        more = pad > 0
+        shifted = np.zeros_like(c)
+        shifted[:, 1:] = c[:, :-1]
+        c = np.where(more[:, None], shifted - 2.0 * c, c)
+        pad = pad - more
+    c = c[:, :D] / c[:, D : D + 1]  # monic
+    comp = np.zeros((rows.size, D, D))
+    if D > 1:
+        idx = np.arange(D - 1)
+        comp[:, idx + 1, idx] = 1.0
+    comp[:, :, -1] = -c
+    ev = np.linalg.eigvals(comp)
+    t = ev.real
+    ok = (np.abs(ev.imag) < 1e-6) & (t > -1e-9) & (t < 1 + 1e-9)
+    r_idx, col = np.nonzero(ok)
+    if r_idx.size == 0:
+        return np.zeros(0, dtype=int), np.zeros(0)
+    # polish on the original (unpadded) scaled polynomial
+    seg = rows[r_idx]
+    cc = d[seg]
+    tt = t[r_idx, col]
+    powers = np.arange(K)
+    for _ in range(3):  # Newton steps, guarded against flat spots
+        tp = tt[:, None] ** powers
+        f = np.sum(cc * tp, axis=1)
+        fp = np.sum(cc[:, 1:] * powers[1:] * tp[:, :-1], axis=1)
+        good = np.abs(fp) > 1e-12 * size[seg]
+        step = np.where(good, f / np.where(good, fp, 1.0), 0.0)
+        tt = tt - np.clip(step, -1e-3, 1e-3)
+    tt = np.clip(tt, 0.0, 1.0)
+    return seg, tt * h[seg]
 
 
 def roots_in_segments(X: np.ndarray, g: np.ndarray) -> np.ndarray:
     """Sorted x (m) of all real roots of piecewise polynomial ``g`` inside its segments."""
-    h = np.diff(X)
-    out = [X[j] + _poly_roots(g[j], h[j]) for j in range(len(h))]
-    return np.sort(np.concatenate(out)) if out else np.zeros(0)
+    seg, xi = batch_roots(g, np.diff(X))
+    return np.sort(X[seg] + xi)
 
 
 def _dedupe(x: np.ndarray, tol: float) -> np.ndarray:
@@ -100,42 +219,34 @@ def _value(g: np.ndarray, X: np.ndarray, x: np.ndarray, seg: np.ndarray) -> np.n
     return np.asarray(out, dtype=float)
 
 
-def _candidates(X: np.ndarray, g: np.ndarray, dg: np.ndarray | None) -> tuple[np.ndarray, ...]:
-    """Positions, segment index and value of every candidate for the extremes of g."""
+def _candidates(
+    X: np.ndarray, g: np.ndarray, roots: tuple[np.ndarray, np.ndarray]
+) -> tuple[np.ndarray, ...]:
+    """Positions, side and value of every candidate for the extremes of g, given the roots
+    (segment, ξ) of its derivative."""
     n = len(X) - 1
     h = np.diff(X)
-    xs = [X[:-1], X[1:]]
-    segs = [np.arange(n), np.arange(n)]
-    sides = [np.full(n, "right"), np.full(n, "left")]
-    if dg is not None:
-        for j in range(n):
-            r = _poly_roots(dg[j], h[j])
-            r = r[(r > 0) & (r < h[j])]
-            xs.append(X[j] + r)
-            segs.append(np.full(r.size, j))
-            sides.append(np.full(r.size, ""))
-    x = np.concatenate(xs)
-    seg = np.concatenate(segs)
-    side = np.concatenate(sides)
+    rseg, rxi = roots
+    inside = (rxi > 0) & (rxi < h[rseg])
+    rseg, rxi = rseg[inside], rxi[inside]
+    ar = np.arange(n)
+    x = np.concatenate([X[:-1], X[1:], X[rseg] + rxi])
+    seg = np.concatenate([ar, ar, rseg])
+    side = np.concatenate([np.ones(n, int), np.full(n, 2), np.zeros(rseg.size, int)])
     return x, seg, side, _value(g, X, x, seg)
 
 
+_SIDES = ("", "right", "left")
+
+
 def _pick(
-    x: np.ndarray,
-    side: np.ndarray,
-    val: np.ndarray,
-    which: str,
-    X: np.ndarray,
-    unit: str,
-    show: str,
+    x: np.ndarray, side: np.ndarray, val: np.ndarray, which: str, X: np.ndarray, kind: str
 ) -> Extreme:
     i = int(np.argmax(val) if which == "max" else np.argmin(val))
-    s = str(side[i])
-    at_node = np.any(np.isclose(x[i], X, rtol=0, atol=1e-12 * X[-1]))
-    at_end = np.isclose(x[i], X[0]) or np.isclose(x[i], X[-1])
-    return Extreme(
-        Q_(float(val[i]), unit).to(show), Q_(float(x[i]), "m"), s if at_node and not at_end else ""
-    )
+    s = _SIDES[int(side[i])]
+    L = X[-1]
+    at_end = abs(x[i]) <= 1e-12 * L or abs(x[i] - L) <= 1e-12 * L
+    return Extreme(float(val[i]), float(x[i]), "" if at_end else s, kind)
 
 
 def find_extremes(result: BeamResult) -> BeamExtremes:
@@ -143,69 +254,41 @@ def find_extremes(result: BeamResult) -> BeamExtremes:
     core = result.core
     X = core.X
     L = X[-1]
-    tol = 1e-9 * L
     n = len(X) - 1
-    dV = -core.w  # V' = −w
-    xV, _, sV, vV = _candidates(X, core.V, dV)
-    xM, _, sM, vM = _candidates(X, core.M, core.V)
-
-    # points of zero shear: roots of V in segments, and sign changes across point loads
-    zs = [roots_in_segments(X, core.V)]
-    Vleft = np.concatenate([[0.0], _value(core.V, X, X[1:], np.arange(n))])
-    Vright = np.concatenate([core.V[:, 0], [0.0]])
-    scaleV = max(float(np.max(np.abs(vV))), 1e-300)
-    cross = (
-        (Vleft * Vright < 0) & (np.abs(Vleft) > 1e-12 * scaleV) & (np.abs(Vright) > 1e-12 * scaleV)
-    )
-    zs.append(X[cross])
-    zero_shear = _dedupe(np.concatenate(zs), tol)
-    zero_shear = zero_shear[(zero_shear > tol) & (zero_shear < L - tol)]
-
-    # contraflexure: M changes sign inside the beam
-    scaleM = max(float(np.max(np.abs(vM))), 1e-300)
-    cand = _dedupe(roots_in_segments(X, core.M), tol)
-    cand = cand[(cand > tol) & (cand < L - tol)]
-    eps = 1e-6 * L
-    contra = []
-    for x0 in cand:
-        lo = result.core.M
-        ml = float(
-            _value(
-                lo, X, np.array([x0 - eps]), np.clip(np.searchsorted(X, [x0 - eps]) - 1, 0, n - 1)
-            )[0]
-        )
-        mr = float(
-            _value(
-                lo, X, np.array([x0 + eps]), np.clip(np.searchsorted(X, [x0 + eps]) - 1, 0, n - 1)
-            )[0]
-        )
-        if ml * mr < 0 and min(abs(ml), abs(mr)) > 1e-12 * scaleM:
-            contra.append(x0)
+    # One batch of root finding: w (turning points of V), V (of M), θ (of v).
+    h = np.diff(X)
+    stack = [core.w, core.V] + ([core.T] if core.T is not None else [])
+    K = max(g.shape[1] for g in stack)
+    G = np.zeros((len(stack) * n, K))
+    for i, g in enumerate(stack):
+        G[i * n : (i + 1) * n, : g.shape[1]] = g
+    seg_all, xi_all = batch_roots(G, np.tile(h, len(stack)))
+    found = []
+    for i in range(len(stack)):
+        sel = (seg_all >= i * n) & (seg_all < (i + 1) * n)
+        found.append((seg_all[sel] - i * n, xi_all[sel]))
+    xV, _, sV, vV = _candidates(X, core.V, found[0])  # V' = −w
+    xM, _, sM, vM = _candidates(X, core.M, found[1])  # M' = V
 
     down = up = None
     sl = sr = None
     if core.v is not None and core.T is not None:
-        xv, _, sv, vv = _candidates(X, core.v, core.T)
-        delta = -vv
-        sv = np.full(sv.shape, "")  # v is continuous: no sides to tell apart
-        down = _pick(xv, sv, delta, "max", X, "m", "mm")
-        if not float(down.value.magnitude) > 0:
+        xv, _, sv, vv = _candidates(X, core.v, found[2])
+        sv = np.zeros(sv.shape, int)  # v is continuous: no sides to tell apart
+        size = max(float(np.max(np.abs(vv))), 1e-300)
+        down = _pick(xv, sv, -vv, "max", X, "deflection")
+        up = _pick(xv, sv, vv, "max", X, "deflection")
+        if not down.value_si > 1e-12 * size:
             down = None
-        up_e = _pick(xv, sv, vv, "max", X, "m", "mm")
-        up = up_e if float(up_e.value.magnitude) > 1e-12 * max(abs(delta).max(), 1e-300) else None
-        if down is not None and not float(down.value.magnitude) > 1e-12 * abs(delta).max():
-            down = None
-        sl = Q_(float(core.T[0, 0]), "rad")
-        sr = Q_(float(_value(core.T, X, np.array([L]), np.array([n - 1]))[0]), "rad")
+        if not up.value_si > 1e-12 * size:
+            up = None
+        sl = float(core.T[0, 0])
+        sr = float(_value(core.T, X, np.array([L]), np.array([n - 1]))[0])
     return BeamExtremes(
-        V_max=_pick(xV, sV, vV, "max", X, "N", "kN"),
-        V_min=_pick(xV, sV, vV, "min", X, "N", "kN"),
-        M_max=_pick(xM, sM, vM, "max", X, "N*m", "kN*m"),
-        M_min=_pick(xM, sM, vM, "min", X, "N*m", "kN*m"),
-        zero_shear=tuple(Q_(float(x), "m") for x in zero_shear),
-        contraflexure=tuple(Q_(float(x), "m") for x in contra),
-        deflection_down=down,
-        deflection_up=up,
-        slope_left=sl,
-        slope_right=sr,
+        core,
+        (_pick(xV, sV, vV, "max", X, "force"), _pick(xV, sV, vV, "min", X, "force")),
+        (_pick(xM, sM, vM, "max", X, "moment"), _pick(xM, sM, vM, "min", X, "moment")),
+        X[found[1][0]] + found[1][1],
+        (down, up),
+        (sl, sr),
     )

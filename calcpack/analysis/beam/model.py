@@ -19,8 +19,10 @@ from dataclasses import dataclass, field, replace
 import numpy as np
 
 from calcpack.errors import InputError, UnstableStructureError
+from calcpack.loads._si import check as require
+from calcpack.loads._si import fast_si as si
 from calcpack.loads.types import DistributedLoad, Load, PointMoment, as_loads
-from calcpack.units import Quantity, require, si
+from calcpack.units import Quantity
 
 __all__ = [
     "Beam",

@@ -28,7 +28,25 @@ import numpy as np
 from calcpack.analysis.beam.core import SIResult, evaluate, refine
 from calcpack.analysis.beam.extremes import BeamExtremes, find_extremes
 from calcpack.errors import InputError, OutOfScopeError
-from calcpack.units import Q_, Quantity, require
+from calcpack.units import Q_, Quantity, require, ureg
+
+# Display units of results, with the factor from SI (made once: building a quantity from a unit
+# string parses it every time, which dominated a live solve).
+_OUT = {
+    "force": (1e-3, ureg.Unit("kN")),
+    "moment": (1e-3, ureg.Unit("kN*m")),
+    "line": (1e-3, ureg.Unit("kN/m")),
+    "angle": (1.0, ureg.Unit("rad")),
+    "deflection": (1e3, ureg.Unit("mm")),
+    "length": (1.0, ureg.Unit("m")),
+}
+
+
+def out_q(value_si: Any, kind: str) -> Quantity:
+    """A result quantity in its display unit from an SI value (float or array)."""
+    f, unit = _OUT[kind]
+    return Q_(value_si * f, unit)
+
 
 if TYPE_CHECKING:
     from calcpack.analysis.beam.model import Beam, BeamClassification
@@ -115,9 +133,9 @@ class BeamResult:
                     support=name,
                     kind=s.kind,
                     x=s.x,
-                    Fy=Q_(r.get((name, "Fy"), 0.0) + 0.0, "N").to("kN"),
-                    Fx=Q_(r.get((name, "Fx"), 0.0) + 0.0, "N").to("kN"),
-                    C=Q_(r.get((name, "C"), 0.0) + 0.0, "N*m").to("kN*m"),
+                    Fy=out_q(r.get((name, "Fy"), 0.0) + 0.0, "force"),
+                    Fx=out_q(r.get((name, "Fx"), 0.0) + 0.0, "force"),
+                    C=out_q(r.get((name, "C"), 0.0) + 0.0, "moment"),
                 )
             )
         return tuple(out)
@@ -155,28 +173,28 @@ class BeamResult:
 
     def load_intensity(self, x: Any, side: str = "right") -> Quantity:
         """Line load w at x, downward + [kN/m]."""
-        return Q_(self._at(self.core.w, x, side, "Load"), "N/m").to("kN/m")
+        return out_q(self._at(self.core.w, x, side, "Load"), "line")
 
     def shear(self, x: Any, side: str = "right") -> Quantity:
         """Shear force V at x [kN] (left face upward +, dV/dx = −w)."""
-        return Q_(self._at(self.core.V, x, side, "Shear"), "N").to("kN")
+        return out_q(self._at(self.core.V, x, side, "Shear"), "force")
 
     def moment(self, x: Any, side: str = "right") -> Quantity:
         """Bending moment M at x [kN·m], sagging + (dM/dx = V)."""
-        return Q_(self._at(self.core.M, x, side, "Moment"), "N*m").to("kN*m")
+        return out_q(self._at(self.core.M, x, side, "Moment"), "moment")
 
     def slope(self, x: Any, side: str = "right") -> Quantity:
         """Slope θ at x [rad], counter-clockwise + (θ = dv/dx, v upward). Jumps at hinges."""
-        return Q_(self._at(self.core.T, x, side, "Slope"), "rad")
+        return out_q(self._at(self.core.T, x, side, "Slope"), "angle")
 
     def deflection(self, x: Any) -> Quantity:
         """Deflection δ at x [mm], **positive downward** (δ = −v)."""
-        return Q_(-self._at(self.core.v, x, "right", "Deflection"), "m").to("mm")
+        return out_q(-self._at(self.core.v, x, "right", "Deflection"), "deflection")
 
     def axial(self, x: Any, side: str = "right") -> Quantity:
         """Axial force N at x [kN], tension +."""
         N = self.core.N[:, None]
-        return Q_(self._at(N, x, side, "Axial force"), "N").to("kN")
+        return out_q(self._at(N, x, side, "Axial force"), "force")
 
     # -- extremes ----------------------------------------------------------------------------
     @cached_property
