@@ -18,12 +18,12 @@ import os
 import re
 from functools import cache
 from importlib import resources
-from pathlib import Path
 from typing import Any
 
 from nbconvert.exporters import Exporter, HTMLExporter
 from traitlets import Bool, Unicode
 
+from calcpack.package.locations import template_dirs
 from calcpack.package.mathsvg import markdown_math_to_spans
 
 __all__ = [
@@ -39,18 +39,6 @@ __all__ = [
 def package_css() -> str:
     """The package stylesheet (shipped inside calcpack)."""
     return (resources.files("calcpack.package") / "assets" / "calcpack.css").read_text("utf-8")
-
-
-def template_dirs() -> list[str]:
-    """Extra template folders: the source tree's ``templates/`` when running from a checkout.
-
-    An installed calcpack has its templates in ``share/jupyter/nbconvert/templates``, which
-    nbconvert searches by itself.
-    """
-    import calcpack
-
-    source = Path(calcpack.__file__).resolve().parent.parent / "templates"
-    return [str(source)] if (source / "calcpack" / "conf.json").is_file() else []
 
 
 _ANCHOR_RE = re.compile(r'<a class="anchor-link" href="[^"]*">[^<]*</a>')

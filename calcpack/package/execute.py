@@ -17,7 +17,9 @@ sheet is read back from ``.calcpack-cache/`` in the project folder instead of be
 from __future__ import annotations
 
 import concurrent.futures
+import concurrent.futures.process
 import hashlib
+import logging
 import multiprocessing
 import os
 import re
@@ -193,6 +195,7 @@ def _execute(path: str, sheet: str, timeout: float) -> tuple[Any, ...]:
         # An asynchronous manager, as nbclient makes for itself: with a blocking one nbclient
         # does not enforce the per-cell timeout.
         km = AsyncKernelManager(
+            log=_QUIET_LOG,
             kernel_name="python3",
             kernel_spec_manager=SamePython(),
             transport="ipc",
@@ -200,6 +203,7 @@ def _execute(path: str, sheet: str, timeout: float) -> tuple[Any, ...]:
         )
         client = NotebookClient(
             nb,
+            log=_QUIET_LOG,
             km=km,
             timeout=timeout,
             allow_errors=False,
@@ -218,6 +222,13 @@ def _execute(path: str, sheet: str, timeout: float) -> tuple[Any, ...]:
             except Exception:
                 pass
     return ("ok", nbformat.writes(nb))
+
+
+_QUIET_LOG = logging.getLogger("calcpack.kernel")
+"""Kernel plumbing messages (a zmq context left to the garbage collector...) stay out of the
+build's output; a failing cell is reported by the build itself."""
+_QUIET_LOG.setLevel(logging.ERROR)
+_QUIET_LOG.propagate = False
 
 
 def _cache_file(cache_dir: Path, sheet: SheetEntry, key: str) -> Path:
@@ -315,7 +326,14 @@ def execute_sheets(
             next_up = min(workers, len(pending))
             for future in concurrent.futures.as_completed(futures):
                 sheet, key = futures[future]
-                outcome = future.result()
+                try:
+                    outcome = future.result()
+                except concurrent.futures.process.BrokenProcessPool as exc:
+                    raise BuildError(
+                        f"A worker process executing sheet {sheet.path!r} stopped abruptly "
+                        "(out of memory, or a script that starts the build without an "
+                        "`if __name__ == '__main__':` guard); try --workers 1"
+                    ) from exc
                 if outcome[0] == "error":
                     failures.append((order[sheet.path], outcome))
                     for other in futures:

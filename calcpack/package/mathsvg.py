@@ -3,12 +3,12 @@
 WeasyPrint runs no JavaScript and does not lay out MathML, so every formula is typeset before
 layout. calcpack uses ziamath (pure Python, glyph outlines from the STIX Two Math font, so every
 glyph stays a vector path and no font has to be embedded for math). Two layout defects of
-ziamath 0.13 are worked around by rewriting the TeX before typesetting (see DEVELOPERS.md, "Math
+ziamath 0.13 are worked around (see DEVELOPERS.md, "Math
 in the PDF"):
 
-- a root in a denominator is drawn with its overbar touching the fraction bar: an empty
-  superscript group ``{}^{}`` is put in front of the root, which gives the denominator the
-  clearance of a script and keeps the bar clear of the radical;
+- a root in a denominator is drawn with its overbar touching the fraction bar, because the
+  root's bounding box leaves out the rule's thickness: the box is enlarged by two rule
+  thicknesses (:func:`_clear_radical_rule`, applied once when ziamath is first used);
 - a superscript on an accented symbol (``\\bar{x}^{2}``) is raised above the accent, unlike TeX
   which attaches it to the nucleus: the script is attached to an empty group after the accent
   (``\\bar{x}{}^{2}``), which puts it at the normal height.
@@ -22,9 +22,13 @@ from __future__ import annotations
 
 import base64
 import html
+import json
+import os
 import re
 import warnings
 from dataclasses import dataclass
+from pathlib import Path
+from typing import Any
 
 from calcpack.errors import BuildError
 
@@ -32,8 +36,10 @@ __all__ = [
     "MATH_SPAN_RE",
     "MathImage",
     "fix_tex",
+    "load_math_cache",
     "markdown_math_to_spans",
     "math_spans_to_images",
+    "save_math_cache",
     "tex_to_svg",
 ]
 
@@ -68,61 +74,89 @@ _ACCENT_SCRIPT_RE = re.compile(
     r"(\\(?:bar|hat|tilde|dot|ddot|vec|check|breve|acute|grave|widehat|widetilde|overline)"
     r"\s*(?:\{(?:[^{}]|\{[^{}]*\})*\}|\\[A-Za-z]+|[A-Za-z0-9]))(\s*)(?=[\^_])"
 )
-_FRAC_RE = re.compile(r"\\[dt]?frac\s*")
-
-
-def _group_end(tex: str, start: int) -> int:
-    """Index just after the brace group (or single token) starting at ``start``."""
-    if start >= len(tex):
-        return start
-    if tex[start] != "{":
-        if tex[start] == "\\":
-            m = re.match(r"\\[A-Za-z]+|\\.", tex[start:])
-            return start + (m.end() if m else 1)
-        return start + 1
-    depth = 0
-    for i in range(start, len(tex)):
-        ch = tex[i]
-        if ch == "\\":
-            continue
-        if ch == "{" and (i == 0 or tex[i - 1] != "\\"):
-            depth += 1
-        elif ch == "}" and tex[i - 1] != "\\":
-            depth -= 1
-            if depth == 0:
-                return i + 1
-    return len(tex)
 
 
 def fix_tex(tex: str) -> str:
-    """Rewrite TeX around ziamath's known layout defects (see the module docstring)."""
+    """Rewrite TeX around ziamath's accent-script defect (see the module docstring)."""
     tex = _ACCENT_SCRIPT_RE.sub(lambda m: m.group(1) + "{}", tex)
-    out: list[str] = []
-    pos = 0
-    for m in _FRAC_RE.finditer(tex):
-        if m.start() < pos:
-            continue
-        num_start = m.end()
-        num_end = _group_end(tex, num_start)
-        den_start = num_end
-        while den_start < len(tex) and tex[den_start].isspace():
-            den_start += 1
-        den_end = _group_end(tex, den_start)
-        denominator = tex[den_start:den_end]
-        if (
-            "\\sqrt" in denominator
-            and denominator.startswith("{")
-            and not denominator.startswith("{{}^{}")
-        ):
-            out.append(tex[pos:den_start])
-            out.append("{{}^{}" + denominator[1:])
-            pos = den_end
-    out.append(tex[pos:])
-    return "".join(out)
+    return tex
 
 
 _UNKNOWN_COMMAND_RE = re.compile(r"<m[ion]>(\\[A-Za-z]+)</m[ion]>")
+_patched = False
+
+
+def _clear_radical_rule() -> None:
+    """Make ziamath count the radical's rule in the root's height (ziamath 0.13 defect).
+
+    Without it a fraction places its bar on the overbar of a root in the denominator. The
+    root's box is grown by two rule thicknesses, which gives the clearance TeX leaves.
+    """
+    global _patched
+    if _patched:
+        return
+    from ziafont.fonttypes import BBox
+    from ziamath.nodes.mroot import Mroot
+
+    original = Mroot._setup
+
+    def setup(self: Any, **kwargs: Any) -> None:
+        original(self, **kwargs)
+        rule = self.units_to_points(self.font.math.consts.radicalRuleThickness)
+        box = self.bbox
+        self.bbox = BBox(box.xmin, box.xmax, box.ymin, box.ymax + 2 * rule)
+
+    setup.__wrapped__ = original  # type: ignore[attr-defined]
+    Mroot._setup = setup
+    _patched = True
+
+
 _cache: dict[tuple[str, bool, float], MathImage] = {}
+
+
+_CACHE_FORMAT = "calcpack-math-cache/1"
+
+
+def load_math_cache(path: Path) -> int:
+    """Read typeset formulas saved by an earlier build into the in-memory cache; returns count.
+
+    A missing or unreadable file is ignored (the formulas are typeset again).
+    """
+    try:
+        data = json.loads(path.read_text("utf-8"))
+    except (OSError, ValueError):
+        return 0
+    if not isinstance(data, dict) or data.get("format") != _CACHE_FORMAT:
+        return 0
+    loaded = 0
+    for item in data.get("formulas", []):
+        try:
+            tex, display, size, svg, width, height, baseline = item
+            key = (str(tex), bool(display), float(size))
+            _cache.setdefault(
+                key, MathImage(key[0], str(svg), float(width), float(height), float(baseline))
+            )
+            loaded += 1
+        except (TypeError, ValueError):
+            continue
+    return loaded
+
+
+def save_math_cache(path: Path, used: set[tuple[str, bool, float]] | None = None) -> None:
+    """Write the in-memory formula cache (only ``used`` keys when given) to ``path``."""
+    items = [
+        [k[0], k[1], k[2], v.svg, v.width_px, v.height_px, v.baseline_px]
+        for k, v in sorted(_cache.items())
+        if used is None or k in used
+    ]
+    path.parent.mkdir(parents=True, exist_ok=True)
+    tmp = path.with_suffix(".tmp")
+    tmp.write_text(json.dumps({"format": _CACHE_FORMAT, "formulas": items}), "utf-8")
+    os.replace(tmp, path)
+
+
+used_keys: set[tuple[str, bool, float]] = set()
+"""Keys looked up since the process started (the build saves only these)."""
 
 
 def tex_to_svg(tex: str, *, display: bool = False, size_px: float = MATH_PX_PER_EM) -> MathImage:
@@ -136,7 +170,8 @@ def tex_to_svg(tex: str, *, display: bool = False, size_px: float = MATH_PX_PER_
     Raises:
         BuildError: ziamath cannot typeset the formula (the message quotes the TeX).
     """
-    key = (tex, display, size_px)
+    key = (tex, display, float(size_px))
+    used_keys.add(key)
     hit = _cache.get(key)
     if hit is not None:
         return hit
@@ -145,6 +180,7 @@ def tex_to_svg(tex: str, *, display: bool = False, size_px: float = MATH_PX_PER_
         warnings.simplefilter("ignore", DeprecationWarning)
         import ziamath
         from ziamath.tex import tex2mml
+    _clear_radical_rule()
 
     try:
         mathml = tex2mml(fix_tex(tex), inline=not display)

@@ -132,6 +132,7 @@ def paginate(
     section_ids: Sequence[str],
     roles: Sequence[str],
     base_url: str | None = None,
+    guess: dict[str, int] | None = None,
 ) -> tuple[Layout, str]:
     """Lay out until the per-sheet page counts written into the title blocks are stable.
 
@@ -140,11 +141,17 @@ def paginate(
         sheet_ids: sheet path -> its section id.
         section_ids: every section id in the document.
         roles: the sign-off roles whose boxes to measure.
+        guess: page counts expected (from an earlier build of the same sheets); when right,
+            one layout pass is enough.
+        guess: page counts expected (from an earlier build of the same sheets); when right,
+            one layout pass is enough.
 
     Returns:
         The final layout and the HTML it was made from.
     """
-    counts: dict[str, int] = {}
+    counts: dict[str, int] = dict(guess or {})
+    if set(counts) != set(sheet_ids):
+        counts = {}
     for _ in range(4):
         html = make_html(counts)
         result = layout_html(html, base_url=base_url, section_ids=section_ids, roles=roles)

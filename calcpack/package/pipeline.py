@@ -93,7 +93,7 @@ def build_created(project: Project) -> _dt.datetime:
 def _package_code_hash() -> str:
     """Hash of the build code and templates, so a changed layout is never skipped as current."""
     import calcpack
-    from calcpack.package.convert import template_dirs
+    from calcpack.package.locations import template_dirs
 
     here = Path(__file__).resolve().parent
     digest = hashlib.sha256(calcpack.__version__.encode())
@@ -223,6 +223,39 @@ def _build_key(
     return digest.hexdigest()
 
 
+def _previous_manifest(path: Path) -> dict[str, Any]:
+    """The manifest of the package already in the output folder ({} if none or unreadable)."""
+    import json
+
+    try:
+        data = json.loads(path.read_text("utf-8"))
+    except (OSError, ValueError):
+        return {}
+    return data if isinstance(data, dict) else {}
+
+
+def _page_guess(
+    previous: dict[str, Any], executed: list[ExecutedSheet], options: DocumentOptions
+) -> dict[str, int]:
+    """Expected page count per sheet: the previous build's for unchanged sheets, else 1.
+
+    A sheet's page count depends only on its own content and the paper, so when the guess is
+    right the layout needs one pass instead of two.
+    """
+    if previous.get("build", {}).get("paper") != options.paper:
+        previous = {}
+    known = {s.get("path"): s for s in previous.get("sheets", []) if isinstance(s, dict)}
+    guess = {}
+    for item in executed:
+        old = known.get(item.entry.path)
+        if old and old.get("cache_key") == item.cache_key:
+            first, last = old.get("pages", [1, 1])
+            guess[item.entry.path] = int(last) - int(first) + 1
+        else:
+            guess[item.entry.path] = 1  # most sheets fit one page; a wrong guess costs a pass
+    return guess
+
+
 def _safe_name(text: str) -> str:
     return re.sub(r"[^A-Za-z0-9._-]+", "-", text).strip("-") or "package"
 
@@ -293,24 +326,18 @@ def build(
 
     keys = [sheet_cache_key(project, s) for s in project.sheets]
     build_key = _build_key(project, keys, options, review_file, created)
-    if not force and pdf_path.is_file() and manifest_path.is_file():
-        import json
-
-        try:
-            previous = json.loads(manifest_path.read_text("utf-8"))
-        except ValueError:
-            previous = {}
-        if previous.get("build", {}).get("build_key") == build_key:
-            return BuildResult(
-                pdf_path,
-                manifest_path,
-                previous,
-                int(previous.get("build", {}).get("pages", 0)),
-                (),
-                (),
-                True,
-                time.perf_counter() - start,
-            )
+    previous = _previous_manifest(manifest_path)
+    if not force and pdf_path.is_file() and previous.get("build", {}).get("build_key") == build_key:
+        return BuildResult(
+            pdf_path,
+            manifest_path,
+            previous,
+            int(previous.get("build", {}).get("pages", 0)),
+            (),
+            (),
+            True,
+            time.perf_counter() - start,
+        )
 
     def on_sheet(stage: str, sheet: SheetEntry) -> None:
         if report:
@@ -319,6 +346,13 @@ def build(
     executed = execute_sheets(
         project, workers=workers, timeout=timeout, use_cache=use_cache, progress=on_sheet
     )
+    from calcpack.package.execute import CACHE_DIR_NAME
+    from calcpack.package.mathsvg import load_math_cache, save_math_cache, used_keys
+
+    math_cache = project.root / CACHE_DIR_NAME / "math.json"
+    if use_cache:
+        load_math_cache(math_cache)
+    used_keys.clear()
     docs = []
     for item in executed:
         if report:
@@ -348,7 +382,10 @@ def build(
         section_ids=section_ids,
         roles=ROLES,
         base_url=str(project.root),
+        guess=_page_guess(previous, executed, options),
     )
+    if use_cache:
+        save_math_cache(math_cache, set(used_keys))
     manifest: dict[str, Any] = {
         "format": MANIFEST_FORMAT,
         "calcpack_version": __version__,

@@ -52,11 +52,26 @@ def test_cache_returns_the_same_image() -> None:
     assert tex_to_svg(r"M_{max}", display=True) is not tex_to_svg(r"M_{max}")
 
 
-def test_fix_tex_spaces_root_from_fraction_bar() -> None:
-    assert fix_tex(r"\frac{1}{\sqrt{2 g h}}") == r"\frac{1}{{}^{}\sqrt{2 g h}}"
-    assert fix_tex(r"\frac{a}{b + \sqrt{c}}") == r"\frac{a}{{}^{}b + \sqrt{c}}"
-    assert fix_tex(r"\frac{\sqrt{a}}{b}") == r"\frac{\sqrt{a}}{b}"  # numerator is fine
-    assert fix_tex(fix_tex(r"\frac{1}{\sqrt{x}}")) == fix_tex(r"\frac{1}{\sqrt{x}}")
+def test_root_in_denominator_clears_the_fraction_bar() -> None:
+    # The root's box must include its rule, so the fraction grows by the clearance; compared
+    # with the same formula typeset by ziamath as it ships (the defect).
+    import ziamath
+    from ziamath.tex import tex2mml
+
+    from calcpack.package.mathsvg import _cache
+
+    tex = r"\frac{1}{\sqrt{2 g h}}"
+    fixed = tex_to_svg(tex, display=True, size_px=28.0)
+    _cache.clear()
+    import ziamath.nodes.mroot as mroot
+
+    patched = mroot.Mroot._setup
+    try:
+        mroot.Mroot._setup = patched.__wrapped__  # the method as shipped
+        as_shipped = ziamath.Math(tex2mml(tex), size=28.0).getsize()[1]
+    finally:
+        mroot.Mroot._setup = patched
+    assert fixed.height_px > as_shipped + 1.0
 
 
 def test_fix_tex_moves_script_off_accent() -> None:
