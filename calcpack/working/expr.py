@@ -502,12 +502,12 @@ class _Printer:
             negated = _negated(arg)
             if negated is not None and i > 0:
                 text, prec = self.pr(negated)
-                if prec <= _NEG:
+                if prec <= _ADD or text.startswith(("-", "−")):
                     text = self.paren(text)
                 out += (" - " if self.s.latex else " − ") + text
                 continue
             text, prec = self.pr(arg)
-            if i > 0 and prec <= _NEG:
+            if i > 0 and (prec <= _ADD or text.startswith(("-", "−"))):
                 text = self.paren(text)
                 out += " + " + text
             elif i > 0:
@@ -545,7 +545,10 @@ class _Printer:
             b = bottom[0] if (bottom[1] >= _POW and len(den) == 1) else self.paren(bottom[0])
             return sign + f"{t}/{b}", (_NEG if sign else _MUL)
         if sign:
-            return sign + top[0] if top[1] > _ADD else sign + self.paren(top[0]), _NEG
+            inner = top[0]
+            if top[1] <= _ADD or inner.startswith(("-", "−")):
+                inner = self.paren(inner)
+            return sign + inner, _NEG
         return top
 
     def product(self, factors: list[sympy.Basic]) -> tuple[str, int]:

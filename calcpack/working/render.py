@@ -297,7 +297,11 @@ def _latex_body(step: Step) -> str:
         return f"\\text{{{step.name}: {step.verdict}}}"
     if isinstance(step, Heading | Text):
         body = step.title if isinstance(step, Heading) else step.body
-        return f"\\text{{{_prose_latex(re.sub(r'[$]', '', body))}}}"
+        parts = re.split(r"(?<!\\)\$(.+?)(?<!\\)\$", body)
+        return "".join(
+            part if i % 2 else (f"\\text{{{_prose_latex(part)}}}" if part else "")
+            for i, part in enumerate(parts)
+        )
     if isinstance(step, Table):
         return f"\\text{{[table: {len(step.rows)} rows]}}"
     if isinstance(step, Block):

@@ -53,10 +53,10 @@ def test_centroid_with_substitution(block):
 def test_parallel_axis_theorem_with_substitution(block):
     assert _derived(block, "I_x").latex() == (
         r"$$I_{x} = \Sigma \bar{I}_{x,i} + \Sigma A_i d_{i}^2 = "
-        r"4.45 \times 10^{6}\ \mathrm{mm^{4}} + \left(8.19 \times 10^{6}\ \mathrm{mm^{4}}\right)"
+        r"4.45 \times 10^{6}\ \mathrm{mm^{4}} + 8.19 \times 10^{6}\ \mathrm{mm^{4}}"
         r" = 12.6 \times 10^{6}\ \mathrm{mm^{4}}$$"
     )
     assert _derived(block, "I_x").text() == (
-        "I_x = Σ_Ix + Σ_Ady2 = 4.45×10⁶ mm⁴ + (8.19×10⁶ mm⁴) = 12.6×10⁶ mm⁴  "
+        "I_x = Σ_Ix + Σ_Ady2 = 4.45×10⁶ mm⁴ + 8.19×10⁶ mm⁴ = 12.6×10⁶ mm⁴  "
         "(second moment about the centroidal x axis)  [parallel-axis theorem]"
     )

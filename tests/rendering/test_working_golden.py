@@ -104,3 +104,18 @@ def test_long_derivation_breaks_into_aligned_lines(sheet):
     tex = d.latex()
     assert tex.startswith(r"$$\begin{aligned} \delta &= \frac{5 \cdot w L^{4}}{384 \cdot E I_{x}}")
     assert tex.endswith(r"\\ &= 0.247\ \mathrm{mm} \end{aligned}$$")
+
+
+def test_negation_of_negative_value_is_bracketed(sheet):
+    F = sheet.given("F", -45 * ureg.kN)
+    G = sheet.given("G", 10 * ureg.kN)
+    x = sheet.derive("x", -F + G, unit="kN")
+    assert x.text() == "x = −F + G = −(−45.0 kN) + 10.0 kN = 55.0 kN"
+    assert r"-\left(-45.0\ \mathrm{kN}\right)" in x.latex()
+
+
+def test_prose_math_in_block_latex_is_not_wrapped_in_text():
+    from calcpack.working import Block, Text
+
+    tex = Block([Text("Take moments about $A$ first.")]).latex()
+    assert r"\text{Take moments about }A\text{ first.}" in tex

@@ -1,0 +1,123 @@
+"""Demands for member checks, read from combined beam results (any object with ``moment(x)``,
+``shear(x)`` and ``beam.length``, e.g. :class:`calcpack.analysis.beam.BeamResult`).
+
+Moments and shears are taken as magnitudes (a check compares |demand| with capacity); their
+signs follow the beam results (M sagging +, V left face up +).
+"""
+
+from __future__ import annotations
+
+from collections.abc import Mapping
+from dataclasses import dataclass
+from typing import Any
+
+import numpy as np
+
+from calcpack.errors import InputError
+from calcpack.units import Q_, Quantity
+
+__all__ = ["SegmentMoments", "as_combinations", "max_abs", "segment_moments"]
+
+
+def as_combinations(
+    demand: Any, name: str = "demand", *, kinds: tuple[str, ...] | None = None, method: str = ""
+) -> dict[str, Any]:
+    """Combination name -> result, from a CombinedResults, a mapping, or one result.
+
+    Args:
+        kinds: the combination-set kinds the check accepts (e.g. strength for LRFD); a
+            CombinedResults of another kind is refused, naming both.
+    """
+    if hasattr(demand, "results") and hasattr(demand, "combination_set"):
+        kind = demand.combination_set.kind
+        if kinds is not None and kind not in kinds:
+            raise InputError(
+                f"{method} checks need {' or '.join(kinds)} combinations, but {name} comes from "
+                f"{demand.combination_set.name!r} ({kind})",
+                name=name,
+                value=demand.combination_set.name,
+                expected=" or ".join(kinds) + " combinations",
+            )
+        return dict(demand.results)
+    if isinstance(demand, Mapping):
+        if not demand:
+            raise InputError(
+                f"{name} has no combinations (got an empty mapping)",
+                name=name,
+                value={},
+                expected="combination name -> result",
+            )
+        return dict(demand)
+    if hasattr(demand, "moment") and hasattr(demand, "shear"):
+        return {getattr(demand, "label", "result"): demand}
+    raise InputError(
+        f"{name} must be combined results (analyse_combinations), a mapping of combination "
+        f"name to beam result, or one beam result (got {type(demand).__name__})",
+        name=name,
+        value=demand,
+        expected="CombinedResults or beam results",
+    )
+
+
+def _points(result: Any, a_m: float, b_m: float) -> np.ndarray:
+    pts = [np.linspace(a_m, b_m, 241)]
+    core = getattr(result, "core", None)
+    if core is not None and hasattr(core, "X"):
+        X = np.asarray(core.X, dtype=float)
+        pts.append(X[(a_m <= X) & (b_m >= X)])
+    ex = getattr(result, "extremes", None)
+    if ex is not None:
+        zs = np.array([float(z.to("m").magnitude) for z in ex.zero_shear])
+        if zs.size:
+            pts.append(zs[(zs >= a_m) & (zs <= b_m)])
+    return np.unique(np.concatenate(pts))
+
+
+def max_abs(
+    result: Any, what: str, a_m: float = 0.0, b_m: float | None = None
+) -> tuple[Quantity, Quantity]:
+    """(max |value|, position) of ``what`` ("moment" or "shear") on a <= x <= b (m)."""
+    L_m = float(result.beam.length.to("m").magnitude)
+    b = L_m if b_m is None else b_m
+    x = _points(result, a_m, b)
+    fn = result.moment if what == "moment" else result.shear
+    vals = []
+    for side in ("left", "right"):
+        vals.append(np.abs(np.atleast_1d(fn(Q_(x, "m"), side=side).to_base_units().magnitude)))
+    v = np.maximum(vals[0], vals[1])
+    i = int(np.argmax(v))
+    unit = "N*m" if what == "moment" else "N"
+    out_unit = "kN*m" if what == "moment" else "kN"
+    return Q_(float(v[i]), unit).to(out_unit), Q_(float(x[i]), "m")
+
+
+@dataclass(frozen=True)
+class SegmentMoments:
+    """Moments on one unbraced segment (magnitudes): M_max, and at the quarter, centre and
+    three-quarter points M_A, M_B, M_C (AISC 360 Eq. F1-1), with the segment ends."""
+
+    start: Quantity
+    end: Quantity
+    M_max: Quantity
+    M_A: Quantity
+    M_B: Quantity
+    M_C: Quantity
+
+
+def segment_moments(result: Any, a_m: float, b_m: float) -> SegmentMoments:
+    """The moments of ``result`` on the segment a..b (m) for C_b."""
+    M_max, _ = max_abs(result, "moment", a_m, b_m)
+    h = b_m - a_m
+
+    def at(x: float) -> Quantity:
+        m = result.moment(Q_(x, "m"))
+        return abs(m.to("kN*m"))
+
+    return SegmentMoments(
+        Q_(a_m, "m"),
+        Q_(b_m, "m"),
+        M_max,
+        at(a_m + 0.25 * h),
+        at(a_m + 0.5 * h),
+        at(a_m + 0.75 * h),
+    )

@@ -1,0 +1,302 @@
+"""Generic elastic checks for any material with a stated allowable: bending stress M·c/I (or
+M/S), shear stress V·Q/(I·t) (1.5·V/A for a rectangle), bearing R/A, and deflection against
+span/limit (span/360 live and span/240 total are the usual building-code limits, e.g. IBC
+Table 1604.3 for floor members; the ratio is an input).
+
+Allowable values are inputs with their source; nothing is assumed. Demands come from combined
+beam results (the governing combination is named) or are given directly.
+"""
+
+from __future__ import annotations
+
+from typing import Any
+
+from calcpack.checks.base import MemberChecks, Recorder, Standard, run_checks
+from calcpack.checks.demand import as_combinations, max_abs
+from calcpack.errors import InputError
+from calcpack.units import Quantity, require, ureg
+
+__all__ = ["ELASTIC", "check_deflection", "check_elastic_beam"]
+
+ELASTIC = Standard(
+    "elastic stress checks against stated allowable values",
+    "first principles (M·c/I, V·Q/(I·t), R/A, span/limit)",
+)
+
+
+def _need_source(source: str | None, what: str) -> str:
+    if not source or not str(source).strip():
+        raise InputError(
+            f"The source of the {what} must be given (got allowable_source = {source!r})",
+            name="allowable_source",
+            value=source,
+            expected="e.g. 'BS 5268-2 Table 17' or 'client specification §4'",
+        )
+    return str(source)
+
+
+def _governing(demand: Any, what: str) -> tuple[Quantity, str]:
+    best: tuple[Quantity, str] | None = None
+    for name, r in as_combinations(demand).items():
+        v, _ = max_abs(r, what)
+        if best is None or v > best[0]:
+            best = (v, name)
+    assert best is not None
+    return best
+
+
+def check_elastic_beam(
+    *,
+    member: str,
+    allowable_source: str,
+    demand: Any = None,
+    M: Quantity | None = None,
+    V: Quantity | None = None,
+    combination: str | None = None,
+    S: Quantity | None = None,
+    I: Quantity | None = None,
+    c: Quantity | None = None,
+    sigma_allow: Quantity | None = None,
+    A_rect: Quantity | None = None,
+    Q: Quantity | None = None,
+    t: Quantity | None = None,
+    tau_allow: Quantity | None = None,
+    R: Quantity | None = None,
+    bearing_area: Quantity | None = None,
+    bearing_allow: Quantity | None = None,
+) -> MemberChecks:
+    """Bending, shear and bearing stresses against stated allowables.
+
+    Args:
+        member: member mark. allowable_source: where the allowable stresses come from.
+        demand: combined beam results (governing |M|, |V| and largest reaction found), or
+            give ``M``, ``V``, ``R`` directly with ``combination``.
+        S, or I and c: section modulus, or second moment and extreme-fibre distance.
+        sigma_allow: allowable bending stress.
+        A_rect: area of a rectangular section (τ = 1.5·V/A), or Q, I and t (τ = V·Q/(I·t)).
+        tau_allow: allowable shear stress.
+        R: bearing force (default: the largest reaction), bearing_area, bearing_allow.
+
+    Raises:
+        InputError: a stress check with missing section values or allowable, no check asked.
+    """
+    src = _need_source(allowable_source, "allowable stresses")
+    combos = as_combinations(demand) if demand is not None else None
+
+    def logic(rec: Recorder) -> None:
+        made = False
+        if sigma_allow is not None:
+            require(sigma_allow, "[pressure]", "sigma_allow", positive=True)
+            if combos is not None:
+                Mq, combo_s = _governing(combos, "moment")
+                combo: str | None = combo_s
+            elif M is not None:
+                Mq, combo = require(M, "[force]*[length]", "M"), combination
+            else:
+                raise InputError(
+                    "Bending check needs demand= or M=", name="M", value=None, expected="a moment"
+                )
+            rec.heading("Bending stress", 3)
+            Mh = rec.given("M", Mq, "largest |M|", source=combo or "given")
+            if S is not None:
+                Sh = rec.given(
+                    "S",
+                    require(S, "[length]**3", "S", positive=True),
+                    "section modulus",
+                    source="section properties",
+                )
+                sig = rec.derive(
+                    "sigma_b", Mh / Sh, "bending stress", ref="M/S", unit=str(sigma_allow.units)
+                )
+            elif I is not None and c is not None:
+                Ih = rec.given(
+                    "I",
+                    require(I, "[length]**4", "I", positive=True),
+                    "second moment of area",
+                    source="section properties",
+                )
+                ch = rec.given(
+                    "c",
+                    require(c, "[length]", "c", positive=True),
+                    "extreme fibre distance",
+                    source="section properties",
+                )
+                sig = rec.derive(
+                    "sigma_b",
+                    Mh * ch / Ih,
+                    "bending stress",
+                    ref="M·c/I",
+                    unit=str(sigma_allow.units),
+                )
+            else:
+                raise InputError(
+                    "Bending check needs S, or I and c (got neither)",
+                    name="S",
+                    value=None,
+                    expected="S or I and c",
+                )
+            al = rec.given("sigma_allow", sigma_allow, "allowable bending stress", source=src)
+            rec.check("Bending stress", sig, al, ref=src, combination=combo)
+            made = True
+        if tau_allow is not None:
+            require(tau_allow, "[pressure]", "tau_allow", positive=True)
+            if combos is not None:
+                Vq, combo_s = _governing(combos, "shear")
+                combo = combo_s
+            elif V is not None:
+                Vq, combo = require(V, "[force]", "V"), combination
+            else:
+                raise InputError(
+                    "Shear check needs demand= or V=", name="V", value=None, expected="a force"
+                )
+            rec.heading("Shear stress", 3)
+            Vh = rec.given("V", Vq, "largest |V|", source=combo or "given")
+            if A_rect is not None:
+                Ah = rec.given(
+                    "A",
+                    require(A_rect, "[length]**2", "A_rect", positive=True),
+                    "area of the rectangular section",
+                    source="section properties",
+                )
+                tau = rec.derive(
+                    "tau",
+                    1.5 * Vh / Ah,
+                    "peak shear stress, rectangle",
+                    ref="1.5·V/A",
+                    unit=str(tau_allow.units),
+                )
+            elif Q is not None and I is not None and t is not None:
+                Qh = rec.given(
+                    "Q",
+                    require(Q, "[length]**3", "Q", positive=True),
+                    "first moment of area above the neutral axis",
+                    source="section properties",
+                )
+                Ih = rec.given("I", I, "second moment of area", source="section properties")
+                th = rec.given(
+                    "t",
+                    require(t, "[length]", "t", positive=True),
+                    "width at the neutral axis",
+                    source="section properties",
+                )
+                tau = rec.derive(
+                    "tau",
+                    Vh * Qh / (Ih * th),
+                    "peak shear stress",
+                    ref="V·Q/(I·t)",
+                    unit=str(tau_allow.units),
+                )
+            else:
+                raise InputError(
+                    "Shear check needs A_rect (rectangle), or Q, I and t",
+                    name="A_rect",
+                    value=None,
+                    expected="A_rect or Q, I, t",
+                )
+            al = rec.given("tau_allow", tau_allow, "allowable shear stress", source=src)
+            rec.check("Shear stress", tau, al, ref=src, combination=combo)
+            made = True
+        if bearing_allow is not None:
+            require(bearing_allow, "[pressure]", "bearing_allow", positive=True)
+            if bearing_area is None:
+                raise InputError(
+                    "Bearing check needs bearing_area",
+                    name="bearing_area",
+                    value=None,
+                    expected="an area",
+                )
+            require(bearing_area, "[length]**2", "bearing_area", positive=True)
+            if R is not None:
+                Rq, combo = require(R, "[force]", "R"), combination
+            elif combos is not None:
+                best: tuple[Quantity, str] | None = None
+                for name, r in combos.items():
+                    for rea in r.reactions:
+                        if best is None or abs(rea.Fy) > best[0]:
+                            best = (abs(rea.Fy), f"{name}, support {rea.support}")
+                assert best is not None
+                Rq, combo = best[0], best[1]
+            else:
+                raise InputError(
+                    "Bearing check needs demand= or R=", name="R", value=None, expected="a force"
+                )
+            rec.heading("Bearing", 3)
+            Rh = rec.given("R", Rq, "largest reaction", source=combo or "given")
+            Ab = rec.given("A_b", bearing_area, "bearing area", source="detail")
+            fbr = rec.derive(
+                "sigma_br", Rh / Ab, "bearing stress", ref="R/A", unit=str(bearing_allow.units)
+            )
+            al = rec.given("sigma_br_allow", bearing_allow, "allowable bearing stress", source=src)
+            rec.check("Bearing", fbr, al, ref=src, combination=combo)
+            made = True
+        if not made:
+            raise InputError(
+                "No check asked for: give sigma_allow, tau_allow and/or bearing_allow",
+                name="sigma_allow",
+                value=None,
+                expected="at least one allowable",
+            )
+
+    return run_checks(member, f"{member}: elastic stress checks", ELASTIC, logic)
+
+
+def check_deflection(
+    *,
+    member: str,
+    demand: Any,
+    span: Quantity,
+    limit: float = 360.0,
+    label: str = "live",
+    ref: str = "span/limit (usual building-code limit, e.g. IBC Table 1604.3)",
+) -> MemberChecks:
+    """Largest deflection of the results against span/limit.
+
+    Args:
+        member: member mark. demand: serviceability results (combined results, a mapping, or
+            one result such as the live-load case alone) with deflection (EI given).
+        span: the span the limit refers to (for a cantilever, twice its length is the usual
+            convention -- give it explicitly). limit: the ratio (360 for span/360).
+        label: what deflects ("live", "total"). ref: the limit's source.
+
+    Raises:
+        InputError: limit not positive, a result without deflection (no EI).
+    """
+    require(span, "[length]", "span", positive=True)
+    if isinstance(limit, bool) or not isinstance(limit, int | float) or limit <= 0:
+        raise InputError(
+            f"Deflection limit must be a positive ratio such as 360 (got limit = {limit!r})",
+            name="limit",
+            value=limit,
+            expected="a number > 0",
+        )
+    combos = as_combinations(demand)
+    best: tuple[Quantity, str] | None = None
+    for name, r in combos.items():
+        if not getattr(r, "has_deflection", True):
+            raise InputError(
+                f"Result {name!r} has no deflection: give EI when building the beam",
+                name="EI",
+                value=None,
+                expected="a flexural stiffness",
+            )
+        ex = r.extremes
+        cands = [e.value for e in (ex.deflection_down, ex.deflection_up) if e is not None]
+        for v in cands:
+            if best is None or abs(v) > best[0]:
+                best = (abs(v), name)
+    assert best is not None
+    dq, combo = best
+
+    # show the deflection in the span's family of units (inches for a span in feet)
+    us = any(span.units == ureg.Unit(u) for u in ("foot", "inch", "yard", "mile"))
+    dunit = "inch" if us else "mm"
+
+    def logic(rec: Recorder) -> None:
+        rec.heading(f"Deflection ({label})", 3)
+        d = rec.given("delta", dq, f"largest deflection ({label})", source=combo, unit=dunit)
+        Lh = rec.given("L_span", span, "span for the limit", source="geometry")
+        n = rec.given("n_lim", float(limit), "deflection limit ratio", source=ref)
+        lim = rec.derive("delta_lim", Lh / n, f"limit span/{limit:g}", unit=dunit, ref=ref)
+        rec.check(f"Deflection ({label})", d, lim, ref=ref, combination=combo)
+
+    return run_checks(member, f"{member}: deflection ({label})", ELASTIC, logic)

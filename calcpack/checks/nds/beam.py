@@ -1,0 +1,382 @@
+"""NDS 2018 (ASD) bending and shear checks of sawn-lumber members, every factor shown."""
+
+from __future__ import annotations
+
+from collections.abc import Mapping
+from typing import Any
+
+from calcpack.checks.base import MemberChecks, Recorder, Standard, run_checks
+from calcpack.checks.demand import as_combinations, max_abs
+from calcpack.checks.nds.factors import (
+    _TITLE,
+    DEFAULT_DURATIONS,
+    DURATION_FACTORS,
+    NDS_EDITION,
+    ReferenceDesignValues,
+    SawnMember,
+    ServiceConditions,
+    effective_length,
+    flat_use_factor,
+    size_factor,
+    temperature_factor,
+    wet_service_factor,
+)
+from calcpack.errors import InputError, OutOfScopeError
+
+__all__ = ["check_nds_beam"]
+
+
+def _duration_of(case: str, durations: Mapping[str, str]) -> str:
+    base = case.split("#")[0]
+    for key in (case, base):
+        if key in durations:
+            d = durations[key]
+            if d not in DURATION_FACTORS:
+                raise InputError(
+                    f"Load duration {d!r} for case {key!r} is not one of "
+                    f"{list(DURATION_FACTORS)} (NDS 2018 Table 2.3.2)",
+                    name=f"durations[{key!r}]",
+                    value=d,
+                    expected=" / ".join(DURATION_FACTORS),
+                )
+            return d
+    raise InputError(
+        f"Load case {case!r} has no load duration: give durations={{{base!r}: 'ten years'}} "
+        f"or another of {list(DURATION_FACTORS)} (NDS 2018 Table 2.3.2)",
+        name="durations",
+        value=case,
+        expected=f"a duration for {base!r}",
+    )
+
+
+def check_nds_beam(
+    member_size: SawnMember,
+    reference: ReferenceDesignValues,
+    *,
+    demand: Any,
+    conditions: ServiceConditions | None = None,
+    durations: Mapping[str, str] | None = None,
+    member: str = "J1",
+) -> MemberChecks:
+    """Check a sawn-lumber bending member to NDS 2018 (ASD) in bending and shear.
+
+    Args:
+        member_size: the :class:`SawnMember`. reference: the :class:`ReferenceDesignValues`
+            with their source. conditions: :class:`ServiceConditions` (default: dry, normal
+            temperature, not incised, not repetitive, edgewise, compression edge braced).
+        demand: ASD combined results (e.g. ASCE/SEI 7 §2.4 through analyse_combinations), a
+            mapping of combination -> beam result, or one result. Each result must carry its
+            load-case factors (``cases``) so C_D can be found; a plain result is taken as one
+            case named by its label.
+        durations: load case -> duration name of Table 2.3.2 (defaults for D, L, Lr, S, R, W,
+            Eh, Ev; pattern cases "L#2" use their base case).
+
+    Raises:
+        InputError: a load case without a duration, bad inputs. OutOfScopeError: R_B > 50,
+            T > 150 °F, a grade or size outside the C_F rule without CF given.
+    """
+    cond = conditions or ServiceConditions()
+    durs = {**DEFAULT_DURATIONS, **dict(durations or {})}
+    combos = as_combinations(
+        demand, kinds=("allowable stress", "user"), method=f"{NDS_EDITION} (ASD)"
+    )
+    items: list[dict[str, Any]] = []
+    for name, r in combos.items():
+        cases = [c for c, f in getattr(r, "cases", ((name, 1.0),)) if f != 0.0]
+        ds = [(DURATION_FACTORS[_duration_of(c, durs)], c) for c in cases]
+        CD, governing_case = max(ds)
+        M, xM = max_abs(r, "moment")
+        V, xV = max_abs(r, "shear")
+        items.append({"combination": name, "CD": CD, "CD_case": governing_case,
+                      "CD_name": _duration_of(governing_case, durs), "M": M.to("lbf*ft"),
+                      "V": V.to("lbf"),
+                      "xM": xM, "xV": xV})  # fmt: skip
+    if cond.CF is None:
+        size_factor(reference.grade, member_size.nominal_thickness, member_size.nominal_width)
+    logic = _NDSLogic(member_size, reference, cond, items)
+    title = (f"{member_size.name} {reference.species_grade} to {NDS_EDITION} (ASD), "
+             "bending and shear")  # fmt: skip
+    return run_checks(member, title, Standard(NDS_EDITION, _TITLE, "ASD"), logic)
+
+
+class _NDSLogic:
+    def __init__(
+        self,
+        m: SawnMember,
+        ref: ReferenceDesignValues,
+        cond: ServiceConditions,
+        items: list[dict[str, Any]],
+    ) -> None:
+        self.m, self.ref, self.cond, self.items = m, ref, cond, items
+
+    def __call__(self, c: Recorder) -> None:
+        m, ref, cond = self.m, self.ref, self.cond
+        c.heading("Section and reference design values", 3)
+        b = c.given("b", m.b, "breadth", source=m.size_source, unit="inch")
+        d = c.given("d", m.d, "depth (in the plane of bending)", source=m.size_source, unit="inch")
+        S = c.derive("S", b * d**2 / 6, "section modulus", unit="inch**3", ref="b·d²/6")
+        A = c.derive("A", b * d, "area", unit="inch**2", ref="b·d")
+        src = f"{ref.source} ({ref.species_grade})"
+        Fb = c.given("F_b", ref.Fb, "reference bending design value", source=src, unit="psi")
+        Fv = c.given("F_v", ref.Fv, "reference shear design value", source=src, unit="psi")
+        E = c.given("E", ref.E, "reference modulus of elasticity", source=src, unit="psi")
+        Emin = c.given("E_min", ref.Emin, "reference E for stability", source=src, unit="psi")
+
+        c.heading("Adjustment factors (NDS 2018 Table 4.3.1)", 3)
+        if cond.CF is not None:
+            CF = c.given("C_F", cond.CF, "size factor", source=cond.CF_source)
+        else:
+            CF = c.given(
+                "C_F",
+                size_factor(ref.grade, m.nominal_thickness, m.nominal_width),
+                f"size factor, {ref.grade}, {m.name}",
+                source="NDS Supplement Table 4A size factors (§4.3.6)",
+            )
+        state = "wet service, MC > 19 %" if cond.wet else "dry service, MC ≤ 19 %"
+        CMb = c.given(
+            "C_Mb",
+            wet_service_factor("Fb", wet=cond.wet, Fb_CF=c.q(Fb) * c.f(CF)),
+            f"wet service factor on F_b ({state})",
+            source="NDS Supplement Table 4A (§4.3.3)",
+        )
+        CMv = c.given(
+            "C_Mv",
+            wet_service_factor("Fv", wet=cond.wet),
+            f"wet service factor on F_v ({state})",
+            source="NDS Supplement Table 4A",
+        )
+        CME = c.given(
+            "C_ME",
+            wet_service_factor("E", wet=cond.wet),
+            f"wet service factor on E, E_min ({state})",
+            source="NDS Supplement Table 4A",
+        )
+        t_txt = "T ≤ 100 °F" if cond.temperature is None else f"T = {cond.temperature:~P}"
+        Ctb = c.given(
+            "C_tb",
+            temperature_factor("Fb", cond.temperature, wet=cond.wet),
+            f"temperature factor on F_b, F_v ({t_txt})",
+            source="NDS 2018 Table 2.3.3",
+        )
+        CtE = c.given(
+            "C_tE",
+            temperature_factor("E", cond.temperature, wet=cond.wet),
+            f"temperature factor on E, E_min ({t_txt})",
+            source="NDS 2018 Table 2.3.3",
+        )
+        Cfu = c.given(
+            "C_fu",
+            flat_use_factor(m.nominal_thickness, m.nominal_width) if cond.flat_use else 1.0,
+            "flat use factor" + ("" if cond.flat_use else " (edgewise bending)"),
+            source="NDS Supplement Table 4A (§4.3.7)",
+        )
+        Cib = c.given(
+            "C_ib",
+            0.80 if cond.incised else 1.0,
+            "incising factor on F_b, F_v" + ("" if cond.incised else " (not incised)"),
+            source="NDS 2018 Table 4.3.8",
+        )
+        CiE = c.given(
+            "C_iE",
+            0.95 if cond.incised else 1.0,
+            "incising factor on E, E_min",
+            source="NDS 2018 Table 4.3.8",
+        )
+        Cr = c.given(
+            "C_r",
+            1.15 if cond.repetitive else 1.0,
+            "repetitive member factor" + ("" if cond.repetitive else " (not repetitive)"),
+            source="NDS 2018 §4.3.9",
+        )
+        Ep = c.derive(
+            "E_prime",
+            E * CME * CtE * CiE,
+            "adjusted modulus of elasticity E'",
+            unit="psi",
+            ref="NDS 2018 Table 4.3.1",
+            latex="E'",
+        )
+        Eminp = c.derive(
+            "E_min_prime",
+            Emin * CME * CtE * CiE,
+            "adjusted E'_min",
+            unit="psi",
+            ref="NDS 2018 Table 4.3.1",
+            latex="E'_{min}",
+        )
+        del Ep
+
+        # screen every combination with numbers, then work the governing one in full
+        best_b: tuple[float, int] | None = None
+        best_v: tuple[float, int] | None = None
+        rows = []
+        for i, it in enumerate(self.items):
+            n = Recorder(c.member)
+            Fbp = self._Fbp(
+                n,
+                c.q(Fb),
+                c.q(CMb),
+                c.q(Ctb),
+                c.q(CF),
+                c.q(Cfu),
+                c.q(Cib),
+                c.q(Cr),
+                c.q(Eminp),
+                c.q(b),
+                c.q(d),
+                it,
+            )
+            Fvp = c.q(Fv) * it["CD"] * c.f(CMv) * c.f(Ctb) * c.f(Cib)
+            ub = float((it["M"] / c.q(S) / n.q(Fbp)).to("").magnitude)
+            uv = float((1.5 * it["V"] / c.q(A) / Fvp).to("").magnitude)
+            rows.append(
+                [
+                    it["combination"],
+                    f"{it['CD']:g} ({it['CD_name']}, {it['CD_case']})",
+                    it["M"],
+                    round(ub, 3),
+                    it["V"],
+                    round(uv, 3),
+                ]
+            )
+            if best_b is None or ub > best_b[0]:
+                best_b = (ub, i)
+            if best_v is None or uv > best_v[0]:
+                best_v = (uv, i)
+        assert best_b is not None
+        assert best_v is not None
+        if len(self.items) > 1:
+            c.table(
+                ["Combination", "C_D", "M", "Bending utilisation", "V", "Shear utilisation"],
+                rows,
+                caption="Every ASD combination (C_D from the "
+                "shortest-duration load, NDS 2018 §2.3.2); the governing ones are worked "
+                "below",
+            )
+
+        it = self.items[best_b[1]]
+        c.heading(f"Bending, NDS 2018 §3.3 (governing: {it['combination']})", 3)
+        Fbp = self._Fbp(c, Fb, CMb, Ctb, CF, Cfu, Cib, Cr, Eminp, b, d, it)
+        M = c.given(
+            "M", it["M"], "largest |M| of the combination", source=it["combination"], unit="lbf*ft"
+        )
+        fb = c.derive("f_b", M / S, "bending stress", unit="psi", ref="NDS 2018 §3.3.2, M/S")
+        c.check("Bending", fb, Fbp, ref="NDS 2018 §3.3", combination=it["combination"])
+
+        it = self.items[best_v[1]]
+        c.heading(f"Shear, NDS 2018 §3.4 (governing: {it['combination']})", 3)
+        CD = c.given(
+            "C_D",
+            it["CD"],
+            f"load duration factor ({it['CD_name']}, case {it['CD_case']})",
+            source="NDS 2018 Table 2.3.2",
+        )
+        Fvp = c.derive(
+            "F_v_prime",
+            Fv * CD * CMv * Ctb * Cib,
+            "adjusted shear design value F'_v",
+            unit="psi",
+            ref="NDS 2018 Table 4.3.1",
+            latex="F'_v",
+        )
+        V = c.given(
+            "V", it["V"], "largest |V| of the combination", source=it["combination"], unit="lbf"
+        )
+        fv = c.derive(
+            "f_v",
+            3 * V / (2 * A),
+            "shear stress, rectangular section",
+            unit="psi",
+            ref="NDS 2018 Eq. (3.4-2)",
+        )
+        c.assume(
+            "Shear is taken at the support face without the reduction of NDS 2018 §3.4.3.1 "
+            "for loads within a depth d of the support (conservative)."
+        )
+        c.check("Shear", fv, Fvp, ref="NDS 2018 §3.4", combination=it["combination"])
+
+    def _Fbp(
+        self,
+        c: Recorder,
+        Fb: Any,
+        CMb: Any,
+        Ctb: Any,
+        CF: Any,
+        Cfu: Any,
+        Cib: Any,
+        Cr: Any,
+        Eminp: Any,
+        b: Any,
+        d: Any,
+        it: dict[str, Any],
+    ) -> Any:
+        cond = self.cond
+        CD = c.given(
+            "C_D",
+            it["CD"],
+            f"load duration factor ({it['CD_name']}, case {it['CD_case']})",
+            source="NDS 2018 Table 2.3.2",
+        )
+        Fbs = c.derive(
+            "F_b_star",
+            Fb * CD * CMb * Ctb * CF * Cib * Cr,
+            "F_b with all factors except C_L, C_fu",
+            unit="psi",
+            ref="NDS 2018 §3.3.3.8",
+            latex="F_b^{*}",
+        )
+        ratio = c.f(c.q(d) / c.q(b))
+        if cond.compression_edge_braced:
+            CL = c.given(
+                "C_L",
+                1.0,
+                "beam stability factor: compression edge braced",
+                source="NDS 2018 §3.3.3.3",
+            )
+        elif ratio <= 2.0:
+            CL = c.given(
+                "C_L", 1.0, "beam stability factor: d/b ≤ 2", source="NDS 2018 §4.4.1.2(a)"
+            )
+        else:
+            assert cond.lu is not None
+            lu = c.given(
+                "l_u", cond.lu, "laterally unsupported length", source="bracing layout", unit="ft"
+            )
+            le_q, rule = effective_length(c.q(lu), c.q(d), cond.loading)
+            le = c.derive(
+                "l_e",
+                le_q,
+                f"effective length, {rule} ({cond.loading} load)",
+                unit="ft",
+                ref="NDS 2018 Table 3.3.3",
+            )
+            RB = c.derive(
+                "R_B", c.sqrt(le * d / b**2), "slenderness ratio", ref="NDS 2018 Eq. (3.3-5)"
+            )
+            if c.f(RB) > 50:
+                raise OutOfScopeError(
+                    f"Beam slenderness R_B = {c.f(RB):.3g} exceeds 50 (NDS 2018 §3.3.3.7): "
+                    "brace the compression edge or choose a wider member"
+                )
+            FbE = c.derive(
+                "F_bE",
+                1.20 * Eminp / RB**2,
+                "critical buckling design value",
+                unit="psi",
+                ref="NDS 2018 §3.3.3.8",
+            )
+            a = FbE / Fbs
+            CL = c.derive(
+                "C_L",
+                (1 + a) / 1.9 - c.sqrt(((1 + a) / 1.9) ** 2 - a / 0.95),
+                "beam stability factor",
+                ref="NDS 2018 Eq. (3.3-6)",
+            )
+        return c.derive(
+            "F_b_prime",
+            Fbs * CL * Cfu,
+            "adjusted bending design value F'_b",
+            unit="psi",
+            ref="NDS 2018 Table 4.3.1",
+            latex="F'_b",
+        )

@@ -1,0 +1,331 @@
+"""NDS 2018 adjustment factors for sawn lumber (Tables 2.3.2, 2.3.3, 3.3.3, 4.3.1, 4.3.8 and
+the Supplement's Table 4A rules), reference design values, member sizes and service
+conditions."""
+
+from __future__ import annotations
+
+from dataclasses import dataclass
+
+from calcpack.errors import InputError, OutOfScopeError
+from calcpack.units import Q_, Quantity, require, si
+
+__all__ = [
+    "DEFAULT_DURATIONS",
+    "DURATION_FACTORS",
+    "NDS_EDITION",
+    "ReferenceDesignValues",
+    "SawnMember",
+    "ServiceConditions",
+    "beam_stability_factor",
+    "effective_length",
+    "flat_use_factor",
+    "size_factor",
+    "temperature_factor",
+    "wet_service_factor",
+]
+
+NDS_EDITION = "ANSI/AWC NDS-2018"
+_TITLE = "National Design Specification for Wood Construction"
+
+# NDS 2018 Table 2.3.2 (frequently used load duration factors)
+DURATION_FACTORS: dict[str, float] = {
+    "permanent": 0.9,
+    "ten years": 1.0,
+    "two months": 1.15,
+    "seven days": 1.25,
+    "ten minutes": 1.6,
+    "impact": 2.0,
+}
+# Typical design loads of Table 2.3.2 for the ASCE/SEI 7 load symbols (roof live load as a
+# construction load, seven days: common practice).
+DEFAULT_DURATIONS: dict[str, str] = {
+    "D": "permanent",
+    "L": "ten years",
+    "Lr": "seven days",
+    "S": "two months",
+    "R": "seven days",
+    "W": "ten minutes",
+    "Eh": "ten minutes",
+    "Ev": "ten minutes",
+}
+
+_MAIN_GRADES = ("Select Structural", "No.1 & Btr", "No.1", "No.2", "No.3")
+# NDS Supplement Table 4A size factors C_F for F_b: nominal width -> (thickness 2"&3", 4")
+_CF_FB = {2: (1.5, 1.5), 3: (1.5, 1.5), 4: (1.5, 1.5), 5: (1.4, 1.4), 6: (1.3, 1.3),
+          8: (1.2, 1.3), 10: (1.1, 1.2), 12: (1.0, 1.1)}  # fmt: skip
+_CF_FB_WIDE = (0.9, 1.0)  # 14" and wider
+# NDS Supplement Table 4A flat use factors C_fu: nominal width -> (thickness 2"&3", 4")
+_CFU = {2: (1.0, 1.0), 3: (1.0, 1.0), 4: (1.1, 1.0), 5: (1.1, 1.05), 6: (1.15, 1.05),
+        8: (1.15, 1.05)}  # fmt: skip
+_CFU_WIDE = (1.2, 1.1)  # 10" and wider
+
+
+def _nominal(value: object, name: str) -> int:
+    if isinstance(value, bool) or not isinstance(value, int) or not 2 <= value <= 24:
+        raise InputError(
+            f"Nominal size {name} must be a whole number of inches from 2 to 24 (got "
+            f"{name} = {value!r})",
+            name=name,
+            value=value,
+            expected="2, 3, 4, 6, 8, 10, 12...",
+        )
+    return value
+
+
+def size_factor(grade: str, nominal_thickness: int, nominal_width: int) -> float:
+    """C_F for F_b of visually graded dimension lumber (NDS Supplement Table 4A).
+
+    Raises:
+        OutOfScopeError: a grade or thickness the table rule here does not cover (give CF).
+    """
+    t = _nominal(nominal_thickness, "nominal_thickness")
+    w = _nominal(nominal_width, "nominal_width")
+    if grade not in _MAIN_GRADES:
+        raise OutOfScopeError(
+            f"Size factor C_F: grade {grade!r} is not one of {list(_MAIN_GRADES)}; give CF= "
+            "with its source (NDS Supplement Table 4A footnotes)"
+        )
+    if t > 4:
+        raise OutOfScopeError(
+            f'Size factor C_F: nominal thickness {t} in is not dimension lumber (2" to 4"); '
+            "timbers use NDS Supplement Table 4D -- give CF= with its source"
+        )
+    col = 0 if t <= 3 else 1
+    if w in _CF_FB:
+        return _CF_FB[w][col]
+    if w >= 14:
+        return _CF_FB_WIDE[col]
+    raise OutOfScopeError(
+        f"Size factor C_F: nominal width {w} in is not a width of Table 4A (2-6, 8, 10, 12, 14 "
+        "and wider); give CF= with its source"
+    )
+
+
+def flat_use_factor(nominal_thickness: int, nominal_width: int) -> float:
+    """C_fu for F_b of dimension lumber loaded on the wide face (NDS Supplement Table 4A)."""
+    t = _nominal(nominal_thickness, "nominal_thickness")
+    w = _nominal(nominal_width, "nominal_width")
+    if t > 4:
+        raise OutOfScopeError(
+            f'Flat use factor C_fu: nominal thickness {t} in is not dimension lumber (2" to 4")'
+        )
+    col = 0 if t <= 3 else 1
+    if w in _CFU:
+        return _CFU[w][col]
+    if w >= 10:
+        return _CFU_WIDE[col]
+    raise OutOfScopeError(
+        f"Flat use factor C_fu: nominal width {w} in is not a width of Table 4A (2-6, 8, 10 and "
+        "wider)"
+    )
+
+
+def wet_service_factor(prop: str, *, wet: bool, Fb_CF: Quantity | None = None) -> float:
+    """C_M for dimension lumber (NDS Supplement Table 4A): 1.0 dry (MC <= 19 %); wet:
+    F_b 0.85 (1.0 where F_b·C_F <= 1150 psi), F_v 0.97, E and E_min 0.9, F_c⊥ 0.67."""
+    if not wet:
+        return 1.0
+    if prop == "Fb":
+        if Fb_CF is None:
+            raise InputError(
+                "C_M for F_b needs F_b·C_F", name="Fb_CF", value=None, expected="a stress"
+            )
+        return 1.0 if float(Fb_CF.to("psi").magnitude) <= 1150.0 else 0.85
+    table = {"Fv": 0.97, "E": 0.9, "Emin": 0.9, "Fc_perp": 0.67}
+    return table[prop]
+
+
+def temperature_factor(prop: str, temperature: Quantity | None, *, wet: bool) -> float:
+    """C_t (NDS 2018 Table 2.3.3) for sustained temperature T: 1.0 for T <= 100 °F; for
+    100 < T <= 125 °F and 125 < T <= 150 °F: E, E_min 0.9, 0.9; F_b, F_v dry 0.8, 0.7 and wet
+    0.7, 0.5.
+
+    Raises:
+        OutOfScopeError: T > 150 °F (§2.3.3: not covered).
+    """
+    if temperature is None:
+        return 1.0
+    T = float(temperature.to("degF").magnitude)
+    if T <= 100.0:
+        return 1.0
+    if T > 150.0:
+        raise OutOfScopeError(
+            f"Temperature factor C_t: sustained temperature {T:.4g} °F exceeds 150 °F, beyond "
+            "NDS 2018 Table 2.3.3"
+        )
+    band = 0 if T <= 125.0 else 1
+    if prop in ("E", "Emin"):
+        return 0.9
+    return ((0.7, 0.5) if wet else (0.8, 0.7))[band]
+
+
+def beam_stability_factor(Fb_star: Quantity, Emin_prime: Quantity, RB: float) -> float:
+    """C_L by NDS 2018 Eq. (3.3-6) with F_bE = 1.20·E'_min/R_B² (§3.3.3.8)."""
+    FbE = 1.20 * si(Emin_prime) / RB**2
+    a = FbE / si(Fb_star)
+    return float((1 + a) / 1.9 - (((1 + a) / 1.9) ** 2 - a / 0.95) ** 0.5)
+
+
+def effective_length(lu: Quantity, d: Quantity, loading: str) -> tuple[Quantity, str]:
+    """ℓ_e from ℓ_u (NDS 2018 Table 3.3.3) for ``loading`` "uniform", "center point",
+    "cantilever uniform" or "any"; returns (ℓ_e, the rule used)."""
+    r = si(lu) / si(d)
+    if loading == "uniform":
+        return (2.06 * lu, "2.06ℓu (ℓu/d < 7)") if r < 7 else (1.63 * lu + 3 * d, "1.63ℓu + 3d")
+    if loading == "center point":
+        return (1.80 * lu, "1.80ℓu (ℓu/d < 7)") if r < 7 else (1.37 * lu + 3 * d, "1.37ℓu + 3d")
+    if loading == "cantilever uniform":
+        return (1.33 * lu, "1.33ℓu (ℓu/d < 7)") if r < 7 else (0.90 * lu + 3 * d, "0.90ℓu + 3d")
+    if loading == "any":
+        if r < 7:
+            return 2.06 * lu, "2.06ℓu (ℓu/d < 7)"
+        if r <= 14.3:
+            return 1.63 * lu + 3 * d, "1.63ℓu + 3d (7 ≤ ℓu/d ≤ 14.3)"
+        return 1.84 * lu, "1.84ℓu (ℓu/d > 14.3)"
+    raise InputError(
+        f"Beam stability loading must be 'uniform', 'center point', 'cantilever uniform' or "
+        f"'any' (got loading = {loading!r})",
+        name="loading",
+        value=loading,
+        expected="uniform / center point / cantilever uniform / any",
+    )
+
+
+@dataclass(frozen=True)
+class ReferenceDesignValues:
+    """Reference design values of a species and grade, with their source (never assumed).
+
+    Args:
+        species_grade: e.g. ``"Douglas Fir-Larch No.2"``. grade: the grade for the Table 4A
+            size factor (``"No.2"``...). source: where the values are from (required).
+        Fb: bending. Fv: shear parallel to grain. E: modulus of elasticity. Emin: for beam
+            and column stability.
+    """
+
+    species_grade: str
+    grade: str
+    source: str
+    Fb: Quantity
+    Fv: Quantity
+    E: Quantity
+    Emin: Quantity
+
+    def __post_init__(self) -> None:
+        if not isinstance(self.source, str) or not self.source.strip():
+            raise InputError(
+                f"Reference design values for {self.species_grade}: the source must be given "
+                f"(got source = {self.source!r})",
+                name="source",
+                value=self.source,
+                expected="e.g. 'NDS Supplement 2018 Table 4A'",
+            )
+        for nm in ("Fb", "Fv", "E", "Emin"):
+            v = getattr(self, nm)
+            if v is None:
+                raise InputError(
+                    f"Reference design value {nm} of {self.species_grade} is missing (got "
+                    f"{nm} = None); take it from {self.source}",
+                    name=nm,
+                    value=None,
+                    expected="a stress",
+                )
+            require(v, "[pressure]", nm, positive=True)
+
+
+@dataclass(frozen=True)
+class SawnMember:
+    """A sawn-lumber member: nominal sizes (inches, as named) and actual dressed sizes.
+
+    Args:
+        nominal_thickness, nominal_width: e.g. 2 and 10 for a 2x10.
+        b, d: actual breadth and depth in the plane of bending (for edgewise bending b is
+            the thickness; with flat use d is the thickness).
+        size_source: where the actual sizes are from.
+    """
+
+    nominal_thickness: int
+    nominal_width: int
+    b: Quantity
+    d: Quantity
+    size_source: str = "NDS Supplement Table 1B, dressed (dry) size"
+
+    def __post_init__(self) -> None:
+        _nominal(self.nominal_thickness, "nominal_thickness")
+        _nominal(self.nominal_width, "nominal_width")
+        require(self.b, "[length]", "b", positive=True)
+        require(self.d, "[length]", "d", positive=True)
+
+    @classmethod
+    def dimension(cls, nominal: str, *, flat: bool = False) -> SawnMember:
+        """Dimension lumber by its name, e.g. ``"2x10"``, with the standard dressed dry sizes
+        (thickness 2, 3, 4 in -> 1.5, 2.5, 3.5 in; width −0.5 in up to 6 in, −0.75 in from 8 in;
+        NDS Supplement Table 1B, from memory)."""
+        try:
+            t_s, w_s = nominal.lower().replace("×", "x").split("x")
+            t, w = int(t_s), int(w_s)
+        except ValueError as exc:
+            raise InputError(
+                f"Nominal size must read like '2x10' (got {nominal!r})",
+                name="nominal",
+                value=nominal,
+                expected="'<thickness>x<width>' in inches",
+            ) from exc
+        tt = Q_(t - 0.5, "inch")
+        ww = Q_(w - (0.5 if w <= 6 else 0.75), "inch")
+        b, d = (ww, tt) if flat else (tt, ww)
+        return cls(t, w, b, d)
+
+    @property
+    def name(self) -> str:
+        return f"{self.nominal_thickness}x{self.nominal_width}"
+
+
+@dataclass(frozen=True)
+class ServiceConditions:
+    """Conditions that set the adjustment factors.
+
+    Args:
+        wet: in-service moisture content above 19 % (C_M of Table 4A).
+        temperature: sustained temperature (None: up to 100 °F, C_t = 1.0).
+        incised: incised for preservative treatment (C_i, §4.3.8).
+        repetitive: repetitive members (C_r = 1.15, §4.3.9): ≥ 3 members at ≤ 24 in centres
+            joined by load-distributing elements.
+        flat_use: loaded on the wide face (C_fu).
+        compression_edge_braced: compression edge held throughout its length and ends held
+            against rotation: C_L = 1.0 (§3.3.3.3). Otherwise give ``lu``.
+        lu: laterally unsupported length of the compression edge. loading: for Table 3.3.3.
+        CF, CF_source: a size factor from another table, with its source.
+    """
+
+    wet: bool = False
+    temperature: Quantity | None = None
+    incised: bool = False
+    repetitive: bool = False
+    flat_use: bool = False
+    compression_edge_braced: bool = True
+    lu: Quantity | None = None
+    loading: str = "any"
+    CF: float | None = None
+    CF_source: str | None = None
+
+    def __post_init__(self) -> None:
+        if self.temperature is not None:
+            require(self.temperature, "[temperature]", "temperature")
+        if self.lu is not None:
+            require(self.lu, "[length]", "lu", positive=True)
+        if not self.compression_edge_braced and self.lu is None:
+            raise InputError(
+                "The compression edge is not braced, so the unsupported length lu is needed "
+                "for C_L (got lu = None)",
+                name="lu",
+                value=None,
+                expected="a length",
+            )
+        if self.CF is not None and not self.CF_source:
+            raise InputError(
+                f"A size factor CF = {self.CF} needs its source (got CF_source = "
+                f"{self.CF_source!r})",
+                name="CF_source",
+                value=self.CF_source,
+                expected="e.g. 'NDS Supplement Table 4D'",
+            )

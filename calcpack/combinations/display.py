@@ -1,0 +1,139 @@
+"""Working for combinations: the set, each combination with its clause and factors, the
+factored results of each, and the envelope with the governing combinations. Imported lazily
+by :meth:`CombinedResults.working`; it builds :mod:`calcpack.working` steps."""
+
+from __future__ import annotations
+
+from typing import TYPE_CHECKING, Any
+
+from calcpack.combinations.superpose import _is_beam
+
+if TYPE_CHECKING:
+    from calcpack.combinations.superpose import CombinedResults, Envelope
+
+__all__ = ["combinations_working", "envelope_table"]
+
+
+def _disp(q: Any, settings: Any) -> Any:
+    """``q`` in the display preset's unit for its dimension (sheet settings or global)."""
+    from calcpack.units import get_display
+
+    unit = (settings or get_display()).preset.unit_for(q)
+    return q.to(unit) if unit is not None else q
+
+
+def envelope_table(
+    envelope: Envelope, caption: str = "Envelope over all combinations", settings: Any = None
+) -> Any:
+    """A table of the envelope: quantity, extreme value, where, governing combination."""
+    from calcpack.units import get_display
+    from calcpack.working import Table, format_quantity_text
+
+    rows = []
+    for e in envelope.entries:
+        x = "" if e.x is None else f"x = {format_quantity_text(_disp(e.x, settings), 3)}"
+        value = _disp(e.value, settings)
+        if e.quantity.startswith("δ"):  # deflections in in or mm, not in the length unit
+            us = (settings.system if settings is not None else get_display().system) == "US"
+            value = e.value.to("inch" if us else "mm")
+        rows.append([e.quantity, value, e.where or x, e.combination])
+    return Table(
+        ["Quantity", "Extreme", "Where", "Governing combination"],
+        rows,
+        caption=caption,
+        settings=settings,
+    )
+
+
+def _factored_uniform_loads(cr: CombinedResults, settings: Any) -> list[list[Any]]:
+    """Rows "1.2(0.530 klf) + 1.6(1.50 klf) = 2.84 klf" when every case is uniform loads over
+    the whole beam; empty otherwise (other loads are shown by the beam's own working)."""
+    from calcpack.loads import AreaLoad, UniformLoad
+    from calcpack.working import format_quantity_text
+
+    w_case: dict[str, Any] = {}
+    for case, r in cr.case_results.items():
+        beam = getattr(r, "beam", None)
+        if beam is None:
+            return []
+        L_m = float(beam.length.to("m").magnitude)
+        total = None
+        for ld in beam.loads:
+            if ld.case != case:
+                continue
+            full = (
+                isinstance(ld, UniformLoad | AreaLoad)
+                and ld.a_m == 0.0
+                and (ld.end is None or abs(ld.b_m - L_m) <= 1e-9 * L_m)
+            )
+            if not full:
+                return []
+            total = ld.w if total is None else total + ld.w
+        if total is None:
+            return []
+        w_case[case] = _disp(total, settings)
+    rows = []
+    for c in cr.combinations:
+        terms = " + ".join(
+            f"{f:g}({format_quantity_text(w_case[k], 3)})" for k, f in c.factors.items()
+        )
+        w = sum((f * w_case[k] for k, f in c.factors.items()), 0 * next(iter(w_case.values())))
+        rows.append([c.name, f"{terms} = {format_quantity_text(w, 3)}"])
+    return rows
+
+
+def combinations_working(
+    cr: CombinedResults, *, values: bool = True, settings: Any = None
+) -> list[Any]:
+    from calcpack.working import Caution, Heading, Table, Text
+
+    cs = cr.combination_set
+    steps: list[Any] = [Heading(f"Load combinations: {cs.name}", 3)]
+    syms = ", ".join(f"{k} = {v}" for k, v in cs.symbols.items() if k in cr.case_results)
+    if syms:
+        steps.append(Text(f"Load cases: {syms}."))
+    extra = [k for k in cr.case_results if k not in cs.symbols]
+    if extra:
+        steps.append(Text(f"Cases standing for a symbol (groups, patterns): {', '.join(extra)}."))
+    rows = [
+        [c.name, c.expression, c.clause + (f" ({c.source.note})" if c.source.note else "")]
+        for c in cr.combinations
+    ]
+    steps.append(
+        Table(["Combination", "Factors", "Clause"], rows, caption=f"{cs.kind} combinations")
+    )
+    if values and cr.results:
+        first = next(iter(cr.results.values()))
+        loads_row = _factored_uniform_loads(cr, settings)
+        if loads_row:
+            steps.append(
+                Table(
+                    ["Combination", "Factored line load"],
+                    loads_row,
+                    caption="Factored uniform line loads (each case's full-length uniform loads)",
+                    settings=settings,
+                )
+            )
+        if _is_beam(first):
+            cols = ["Combination", "M_max", "M_min", "V_max", "V_min"]
+            sup = [r.support for r in first.reactions]
+            cols += [f"R_{s}" for s in sup]
+            vrows = []
+            for name, r in cr.results.items():
+                ex = r.extremes
+                row: list[Any] = [name] + [
+                    _disp(v, settings)
+                    for v in (ex.M_max.value, ex.M_min.value, ex.V_max.value, ex.V_min.value)
+                ]
+                row += [_disp(rea.Fy, settings) for rea in r.reactions]
+                vrows.append(row)
+            steps.append(Table(cols, vrows, caption="Factored results of each combination"))
+        steps.append(envelope_table(cr.envelope(), settings=settings))
+    if cs.standard:
+        steps.append(
+            Caution(
+                f"Load combinations follow {cs.standard}; confirm them against the edition "
+                "(and national annex or amendments) adopted locally."
+            )
+        )
+    return steps
