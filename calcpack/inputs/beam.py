@@ -285,6 +285,15 @@ def beam_inputs(data: Mapping[str, Any], *, path: Path | str | None = None) -> B
                     value=factors[case],
                     expected=f"one of {sorted(cases)}",
                 )
+        # A case left out of a combination would silently drop its loads from the checks.
+        for case in sorted(cases - set(factors)):
+            raise InputsFileError(
+                f"{_where(path)}combinations.{combo_key} has no factor for load case {case!r}; "
+                f"add {case} = <factor> (0 if the case does not act in this combination)",
+                name=f"combinations.{combo_key}.{case}",
+                value=None,
+                expected="a load factor for every load case",
+            )
     limits = data.get("limits", {})
     ratio = require_input(
         limits.get("deflection_ratio", 360) if isinstance(limits, Mapping) else limits,

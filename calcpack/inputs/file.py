@@ -15,6 +15,7 @@ so a build executes exactly the values the panel last showed.
 
 from __future__ import annotations
 
+import contextlib
 import math
 import os
 import re
@@ -340,6 +341,9 @@ def _walk_set(doc: Any, parts: Sequence[str | int], value: Any, key: str) -> Non
                 expected="a key that exists in the file",
             ) from None
     last = parts[-1]
+    if isinstance(last, int) and last == len(node) and value is not None:
+        node.append(value)  # one past the end appends (e.g. a new [[loads]] table)
+        return
     if isinstance(last, int) and not 0 <= last < len(node):
         raise InputsFileError(
             f"Cannot set {key}: index {last + 1} is past the end (the list has {len(node)})",
@@ -347,6 +351,10 @@ def _walk_set(doc: Any, parts: Sequence[str | int], value: Any, key: str) -> Non
             value=value,
             expected=f"an index from 1 to {len(node)}",
         )
+    if value is None:  # TOML has no null: None removes the key
+        with contextlib.suppress(KeyError, IndexError):
+            del node[last]
+        return
     node[last] = value
 
 
@@ -356,7 +364,8 @@ def update_inputs(path: Path | str, changes: Mapping[str, Any]) -> dict[str, Any
     Args:
         path: an existing inputs file.
         changes: dotted key (``"beam.spans[2]"``, list indices 1-based) to new value; a value
-            may be a whole table or list (``"loads"`` -> list of dicts) to replace it.
+            may be a whole table or list (``"loads"`` -> list of dicts) to replace it, or None
+            to remove the key; a list index one past the end appends.
 
     Returns:
         The file as :func:`load_inputs` reads it after the change.

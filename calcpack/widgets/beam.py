@@ -40,7 +40,16 @@ def _set(data: dict[str, Any], key: str, value: Any) -> None:
     parts = _split_key(key)
     for p in parts[:-1]:
         node = node[p]
-    node[parts[-1]] = value
+    last = parts[-1]
+    if value is None:  # as update_inputs: None removes the key or list item
+        if isinstance(node, list):
+            del node[last]
+        else:
+            node.pop(last, None)
+    elif isinstance(node, list) and last == len(node):
+        node.append(value)
+    else:
+        node[last] = value
 
 
 def _fmt(q: Quantity, unit: str, sig: int = 3) -> str:
@@ -199,9 +208,19 @@ class BeamPanel:
         parts.append(ipw.HTML("<b>Material</b>"))
         parts.append(self._field("material.E", "E (modulus)", material["E"]))
         parts.append(self._field("material.f_b", "f_b (bending strength)", material["f_b"]))
-        parts.append(ipw.HTML("<b>Loads</b>"))
+        parts.append(ipw.HTML("<b>Loads</b> (by case)"))
         for i, ld in enumerate(d.get("loads", []), start=1):
-            head = f"{i}: {ld.get('type', '?')} ({ld.get('case', 'D')})"
+            head = f"{i}: {ld.get('type', '?')}"
+            case = ipw.Text(
+                value=str(ld.get("case", "D")),
+                layout=ipw.Layout(width="60px"),
+                continuous_update=False,
+            )
+            case.add_class(css_key(f"loads[{i}].case"))
+            case.observe(lambda ch, k=i: self._case(k, ch["new"]), names="value")
+            remove = ipw.Button(description="remove", layout=ipw.Layout(width="70px"))
+            remove.on_click(lambda _b, k=i: self._remove_load(k))
+            parts.append(ipw.HBox([label(f"Load {i}, case"), case, remove]))
             if ld.get("type") == "uniform":
                 parts.append(self._field(f"loads[{i}].w", f"{head} w", ld["w"]))
                 if "span" in ld:
@@ -221,6 +240,12 @@ class BeamPanel:
             elif ld.get("type") == "point":
                 parts.append(self._field(f"loads[{i}].P", f"{head} P", ld["P"]))
                 parts.append(self._field(f"loads[{i}].x", "    at x", ld["x"]))
+        add_case = ipw.Text(value="L", layout=ipw.Layout(width="60px"))
+        add_u = ipw.Button(description="+ uniform", layout=ipw.Layout(width="90px"))
+        add_p = ipw.Button(description="+ point", layout=ipw.Layout(width="80px"))
+        add_u.on_click(lambda _b: self._add_load("uniform", add_case.value))
+        add_p.on_click(lambda _b: self._add_load("point", add_case.value))
+        parts.append(ipw.HBox([label("New load, case"), add_case, add_u, add_p]))
         parts.append(ipw.HTML("<b>Load factors</b>"))
         for combo in ("strength", "service"):
             for case, factor in d.get("combinations", {}).get(combo, {}).items():
@@ -283,6 +308,47 @@ class BeamPanel:
             spans.pop()
             supports.pop()
         self._edit({"beam.spans": spans, "beam.supports": supports})
+        self._build_form()
+
+    def _factor_changes(self, loads: list[dict[str, Any]]) -> dict[str, Any]:
+        """Key changes that make both combinations cover exactly the cases of ``loads``: a new
+        case starts with factor 1.0 (shown in the panel, to be set), a case no load has any more
+        is removed."""
+        cases = {str(ld.get("case", "D")) for ld in loads}
+        changes: dict[str, Any] = {}
+        for combo in ("strength", "service"):
+            old = self.data.get("combinations", {}).get(combo, {})
+            for c in sorted(cases - set(old)):
+                changes[f"combinations.{combo}.{c}"] = 1.0
+            for c in sorted(set(old) - cases):
+                changes[f"combinations.{combo}.{c}"] = None
+        return changes
+
+    def _case(self, index: int, case: str) -> None:
+        loads = copy.deepcopy(self.data.get("loads", []))
+        loads[index - 1]["case"] = case.strip() or "D"
+        self._edit(
+            {f"loads[{index}].case": loads[index - 1]["case"], **self._factor_changes(loads)}
+        )
+        self._build_form()
+
+    def _add_load(self, kind: str, case: str) -> None:
+        loads = copy.deepcopy(self.data.get("loads", []))
+        total = sum((s.to("m") for s in self.data["beam"]["spans"]), Q_(0.0, "m"))
+        case = case.strip() or "L"
+        new: dict[str, Any]
+        if kind == "uniform":
+            new = {"case": case, "type": "uniform", "w": Q_(1.0, "kN/m")}
+        else:
+            new = {"case": case, "type": "point", "P": Q_(1.0, "kN"), "x": (total / 2).to("m")}
+        loads.append(new)
+        self._edit({f"loads[{len(loads)}]": new, **self._factor_changes(loads)})
+        self._build_form()
+
+    def _remove_load(self, index: int) -> None:
+        loads = copy.deepcopy(self.data.get("loads", []))
+        del loads[index - 1]
+        self._edit({f"loads[{index}]": None, **self._factor_changes(loads)})
         self._build_form()
 
     def _shape(self, shape: str) -> None:

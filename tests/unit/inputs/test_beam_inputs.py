@@ -128,3 +128,12 @@ def test_no_loads_is_refused() -> None:
     data["combinations"] = {"strength": {}, "service": {}}
     with pytest.raises(InputsFileError, match=r"combinations\.strength"):
         beam_inputs(data)
+
+
+def test_a_case_missing_from_a_combination_is_refused() -> None:
+    data = _three_equal_spans()
+    data["loads"].append({"case": "L", "type": "uniform", "w": Q_(2, "kN/m")})
+    data["combinations"]["strength"]["L"] = 1.6  # service has no factor for L
+    with pytest.raises(InputsFileError, match=r"combinations\.service has no factor for") as info:
+        beam_inputs(data)
+    assert info.value.name == "combinations.service.L"

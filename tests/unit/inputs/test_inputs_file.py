@@ -148,3 +148,13 @@ def test_format_parse_round_trip(mag: float, unit: str) -> None:
     back = parse_quantity(format_quantity(q), "x")
     assert back.magnitude == mag
     assert back.units == q.units
+
+
+def test_update_removes_with_none_and_appends_past_the_end(tmp_path: Path) -> None:
+    p = _write(tmp_path)
+    after = update_inputs(p, {"beam.factor": None, "beam.spans[3]": Q_(1.5, "m")})
+    assert "factor" not in after["beam"]
+    assert after["beam"]["spans"][2] == Q_(1.5, "m")
+    after = update_inputs(p, {"beam.spans[1]": None})
+    assert after["beam"]["spans"] == [Q_(3000, "mm"), Q_(1.5, "m")]
+    assert "# clear opening plus bearings" in p.read_text(encoding="utf-8")

@@ -145,3 +145,23 @@ def test_panels_display_nothing_outside_an_interactive_session(
     assert interactive_session()
     monkeypatch.setenv("CALCPACK_BUILDING", "1")
     assert not interactive_session()  # a build's kernel never shows panels
+
+
+def test_beam_panel_adds_removes_and_recases_loads(beam_file: Path) -> None:
+    panel = BeamPanel(beam_file)
+    panel._add_load("point", "W")
+    data = load_inputs(beam_file)
+    assert data["loads"][-1]["case"] == "W"
+    # A new case gets a factor in both combinations, shown in the panel to be set.
+    assert data["combinations"]["strength"]["W"] == 1.0
+    assert "combinations.strength.W" not in panel.fields  # factor boxes are plain numbers
+    panel._case(4, "S")
+    data = load_inputs(beam_file)
+    assert "W" not in data["combinations"]["service"]
+    assert data["combinations"]["service"]["S"] == 1.0
+    panel._remove_load(4)
+    data = load_inputs(beam_file)
+    assert len(data["loads"]) == 3
+    assert set(data["combinations"]["strength"]) == {"D", "L"}
+    text = beam_file.read_text(encoding="utf-8")
+    assert "# live load on the middle span only" in text  # other loads keep their comments
