@@ -42,7 +42,7 @@ def _set(data: dict[str, Any], key: str, value: Any) -> None:
         node = node[p]
     last = parts[-1]
     if value is None:  # as update_inputs: None removes the key or list item
-        if isinstance(node, list):
+        if isinstance(node, list) and isinstance(last, int):
             del node[last]
         else:
             node.pop(last, None)
