@@ -38,6 +38,7 @@ _ROWS = (
 
 def properties_table_html(props: Any) -> str:
     """The main properties as an HTML table (values carry ``data-value`` in the shown unit)."""
+    from calcpack.working import format_number
     rows = []
     for attr, sym, unit, what in _ROWS:
         try:
@@ -49,7 +50,7 @@ def properties_table_html(props: Any) -> str:
         unit_text = f"{q.to(unit).units:~P}"
         rows.append(
             f'<tr><td>{sym}</td><td class="cp-out" data-out="{attr}" data-value="{mag!r}" '
-            f'style="text-align:right;padding:0 8px">{mag:.4g}</td><td>{unit_text}</td>'
+            f'style="text-align:right;padding:0 8px">{format_number(mag, 4)}</td><td>{unit_text}</td>'
             f'<td style="color:#555">{what}</td></tr>'
         )
     return f'<table class="cp-panel-results">{"".join(rows)}</table>'
