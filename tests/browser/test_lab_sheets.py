@@ -121,6 +121,9 @@ def test_section_panel_edits_inputs(lab: LabServer, page: Any, tmp_path: Path) -
     open_notebook(page, lab, f"section_job/{added.notebook.as_posix()}")
     run_all_cells(page)
     assert cell_errors(page) == []
+    # The section's own working (parts table, parallel-axis steps) typeset by MathJax.
+    page.wait_for_selector(".cp-math mjx-container", timeout=60_000)
+    assert page.locator(".cp-math:not(:has(mjx-container))").count() == 0
     panel = page.locator(".cp-section-panel")
     panel.wait_for(timeout=60_000)
     assert panel.locator("svg[data-diagram='section']").count() == 1
@@ -147,3 +150,21 @@ def test_section_panel_edits_inputs(lab: LabServer, page: Any, tmp_path: Path) -
     assert after == pytest.approx(expected.Ix.to("mm**4").magnitude, rel=1e-12)
     panel.scroll_into_view_if_needed()
     save_screenshot(page, "section_panel.png")
+
+
+def test_preview_shows_pages_inline(lab: LabServer, page: Any) -> None:
+    """One call in a cell renders the saved sheet as the package lays it out."""
+    import nbformat
+
+    nb = nbformat.read(LINTEL, as_version=4)
+    nb.cells.append(nbformat.v4.new_code_cell("from calcpack.widgets import preview\n\npreview()"))
+    nbformat.write(nb, lab.root / "lintel_preview.ipynb")
+    open_notebook(page, lab, "lintel_preview.ipynb")
+    run_all_cells(page)
+    assert cell_errors(page) == []
+    pages = page.locator(".cp-preview img.cp-preview-page")
+    pages.first.wait_for(timeout=120_000)
+    assert pages.count() >= 1
+    assert pages.first.evaluate("img => img.naturalWidth") > 100
+    pages.first.scroll_into_view_if_needed()
+    save_screenshot(page, "preview.png")
