@@ -50,7 +50,8 @@ def properties_table_html(props: Any) -> str:
         unit_text = f"{q.to(unit).units:~P}"
         rows.append(
             f'<tr><td>{sym}</td><td class="cp-out" data-out="{attr}" data-value="{mag!r}" '
-            f'style="text-align:right;padding:0 8px">{format_number(mag, 4)}</td><td>{unit_text}</td>'
+            f'style="text-align:right;padding:0 8px">{format_number(mag, 4)}</td>'
+            f"<td>{unit_text}</td>"
             f'<td style="color:#555">{what}</td></tr>'
         )
     return f'<table class="cp-panel-results">{"".join(rows)}</table>'
