@@ -39,6 +39,7 @@ _ROWS = (
 def properties_table_html(props: Any) -> str:
     """The main properties as an HTML table (values carry ``data-value`` in the shown unit)."""
     from calcpack.working import format_number
+
     rows = []
     for attr, sym, unit, what in _ROWS:
         try:
