@@ -148,7 +148,7 @@ def _titleblock(project: Project, *, sheet_no: str, title: str, pages: int | Non
 <td colspan="3"><span class="lbl">Job title</span>
 <span class="val wrap">{_e(project.job_title)}</span></td>
 <td><span class="lbl">Revision</span>
-<span class="val">{_e(rev.rev)} &#183; {_e(_date(rev.date))}</span></td>
+<span class="val">{_e(rev.rev)}</span><span class="sub">{_e(_date(rev.date))}</span></td>
 </tr>
 <tr>
 <td><span class="lbl">Sheet no.</span><span class="val">{_e(sheet_no)}</span></td>
