@@ -1,7 +1,8 @@
 """The bundled demo project and new-project scaffolding.
 
-The demo project (the first example job) lives in ``example_projects/alteration_ashgrove_lane`` of the source tree and is installed as
-data files under ``share/calcpack/example_projects/alteration_ashgrove_lane`` of the environment, so it is found
+The demo project (the first example job) lives in ``example_projects/alteration_ashgrove_lane``
+of the source tree and is installed as data files under
+``share/calcpack/example_projects/alteration_ashgrove_lane`` of the environment, so it is found
 from a wheel install as well as from a checkout.
 """
 
