@@ -245,10 +245,10 @@ def solve_si(beam: SIBeam) -> SIResult:
     if beam.pieces:
         # every (piece, segment) pair at once: shift each piece's polynomial to the segment
         # start, then sum the pieces on each segment
-        P = len(beam.pieces)
+        n_pieces = len(beam.pieces)
         A = np.array([p[0] for p in beam.pieces])
         B = np.array([p[1] for p in beam.pieces])
-        coef = np.zeros((P, K))
+        coef = np.zeros((n_pieces, K))
         for i, p in enumerate(beam.pieces):
             coef[i, : len(p[2])] = p[2]
         pi, seg = np.nonzero((mids[None, :] > A[:, None]) & (mids[None, :] < B[:, None]))

@@ -173,7 +173,7 @@ def _companion_roots(d: np.ndarray, rows: np.ndarray, D: int) -> tuple[np.ndarra
     cc = d[seg, : D + 1]
     tt = t[r_idx, col]
     size = np.max(np.abs(cc), axis=1)
-    for _ in range(2):  # Newton steps (Horner for p and p'), guarded against flat spots
+    for _ in range(1):  # a Newton step (Horner for p and p'), guarded against flat spots
         f = np.zeros_like(tt)
         fp = np.zeros_like(tt)
         for k in range(D, -1, -1):
@@ -205,11 +205,28 @@ def batch_roots(g: np.ndarray, h: np.ndarray) -> tuple[np.ndarray, np.ndarray]:
     deg = np.where(nz.any(axis=1), K - 1 - np.argmax(nz[:, ::-1], axis=1), 0)
     segs: list[np.ndarray] = []
     ts: list[np.ndarray] = []
-    for D in np.unique(deg).tolist():
-        if D < 1:
-            continue
+    for D in (1, 2):
         rows = np.nonzero(deg == D)[0]
-        seg, t = _closed_roots(d, rows, D) if D <= 2 else _companion_roots(d, rows, D)
+        if rows.size:
+            seg, t = _closed_roots(d, rows, D)
+            segs.append(seg)
+            ts.append(t)
+    rows = np.nonzero(deg >= 3)[0]
+    if rows.size:
+        # one eigenvalue call: lower degrees are multiplied by (t − 2), whose root lies
+        # outside [0, 1], up to the top degree
+        D = int(deg[rows].max())
+        c = d[rows, : D + 1].copy()
+        pad = D - deg[rows]
+        while pad.max() > 0:
+            more = pad > 0
+            shifted = np.zeros_like(c)
+            shifted[:, 1:] = c[:, :-1]
+            c = np.where(more[:, None], shifted - 2.0 * c, c)
+            pad = pad - more.astype(int)
+        padded = np.zeros_like(d)
+        padded[rows, : D + 1] = c
+        seg, t = _companion_roots(padded, rows, D)
         segs.append(seg)
         ts.append(t)
     if not segs:
