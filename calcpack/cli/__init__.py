@@ -14,7 +14,17 @@ from collections.abc import Sequence
 
 from calcpack.errors import CalcpackError
 
-COMMAND_MODULES: tuple[str, ...] = ("keys", "sign", "verify", "review", "diff")
+COMMAND_MODULES: tuple[str, ...] = (
+    "build",
+    "demo",
+    "new",
+    "add_sheet",
+    "keys",
+    "sign",
+    "verify",
+    "review",
+    "diff",
+)
 
 
 def build_parser() -> argparse.ArgumentParser:

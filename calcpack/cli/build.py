@@ -1,0 +1,128 @@
+"""``calcpack build PROJECT``: execute the sheets and write the paginated PDF and manifest."""
+
+from __future__ import annotations
+
+import argparse
+from collections.abc import Iterator
+from contextlib import contextmanager
+from pathlib import Path
+from typing import Any
+
+__all__ = ["add_build_options", "progress_reporter", "register"]
+
+
+def add_build_options(parser: argparse.ArgumentParser) -> None:
+    """Options shared by ``build`` and ``demo``."""
+    parser.add_argument(
+        "--workers",
+        type=int,
+        default=2,
+        metavar="N",
+        help="worker processes executing sheets (default 2)",
+    )
+    parser.add_argument(
+        "--timeout",
+        type=float,
+        default=120.0,
+        metavar="SECONDS",
+        help="time limit per cell (default 120 s)",
+    )
+    parser.add_argument(
+        "--no-cache", action="store_true", help="execute every sheet even if unchanged"
+    )
+    parser.add_argument(
+        "--paper",
+        choices=("A4", "Letter"),
+        default=None,
+        help="paper size (default: the project file's)",
+    )
+    parser.add_argument("--quiet", action="store_true", help="no progress display (for CI)")
+
+
+def register(subparsers: Any) -> None:
+    """Add the ``build`` command."""
+    parser = subparsers.add_parser(
+        "build",
+        help="build the calc package (PDF + manifest) of a project",
+        description="Execute every sheet notebook of a project (unchanged sheets come from the "
+        "cache) and write the paginated PDF and its manifest.",
+    )
+    parser.add_argument("project", metavar="PROJECT", help="project folder (or its calcpack.toml)")
+    parser.add_argument(
+        "--out", metavar="DIR", default=None, help="output folder (default PROJECT/build)"
+    )
+    parser.add_argument(
+        "--reviewer-copy",
+        action="store_true",
+        help="append the source of every sheet as an appendix",
+    )
+    parser.add_argument(
+        "--force", action="store_true", help="rebuild even when the package is up to date"
+    )
+    add_build_options(parser)
+    parser.set_defaults(func=handler)
+
+
+@contextmanager
+def progress_reporter(quiet: bool) -> Iterator[Any]:
+    """A rich progress display naming the sheet being executed and rendered (None if quiet)."""
+    if quiet:
+        yield None
+        return
+    from rich.console import Console
+    from rich.progress import Progress, SpinnerColumn, TextColumn, TimeElapsedColumn
+
+    console = Console(stderr=True)
+    labels = {
+        "executing": "Executing",
+        "cached": "Unchanged, from cache",
+        "executed": "Executed",
+        "rendering": "Rendering",
+        "layout": "Laying out",
+        "writing": "Writing",
+    }
+    with Progress(
+        SpinnerColumn(),
+        TextColumn("{task.description}"),
+        TimeElapsedColumn(),
+        console=console,
+        transient=True,
+    ) as progress:
+        task = progress.add_task("Reading project", total=None)
+
+        def report(stage: str, detail: str) -> None:
+            text = f"{labels.get(stage, stage)} {detail}"
+            if stage in ("executed", "cached"):
+                console.print(f"  {text}")
+            else:
+                progress.update(task, description=text)
+
+        yield report
+
+
+def handler(args: argparse.Namespace) -> int:
+    """Run ``calcpack build``."""
+    from calcpack.package.pipeline import build
+
+    with progress_reporter(args.quiet) as report:
+        result = build(
+            Path(args.project),
+            out_dir=args.out,
+            workers=args.workers,
+            timeout=args.timeout,
+            use_cache=not args.no_cache,
+            paper=args.paper,
+            reviewer_copy=args.reviewer_copy,
+            force=args.force,
+            report=report,
+        )
+    if result.up_to_date:
+        print(f"Up to date: {result.pdf_path}")
+    else:
+        print(
+            f"Wrote {result.pdf_path} ({result.page_count} pages; "
+            f"{len(result.executed)} sheets executed, {len(result.cached)} from cache, "
+            f"{result.seconds:.1f} s)"
+        )
+    print(f"Manifest {result.manifest_path}")
+    return 0

@@ -1,0 +1,495 @@
+"""Assemble the package HTML: cover, contents, design basis, cautions, sheets, back matter.
+
+Pure string assembly from typed inputs; the layout itself is the stylesheet in
+``assets/calcpack.css``. Every page after the cover carries a running title block: each section
+and sheet starts with its own ``.cp-titleblock`` element, which WeasyPrint repeats on the
+section's following pages.
+"""
+
+from __future__ import annotations
+
+import datetime as _dt
+import math
+from collections.abc import Sequence
+from dataclasses import dataclass, field
+from html import escape
+from typing import Any
+
+from calcpack.package.project import Person, Project, SheetEntry
+from calcpack.package.records import SheetRecords, check_sort_key
+
+__all__ = [
+    "ROLES",
+    "STANDARD_CAUTIONS",
+    "DocumentOptions",
+    "ReviewRow",
+    "SheetDoc",
+    "document_html",
+    "format_sig",
+]
+
+ROLES = ("preparer", "checker", "approver")
+ROLE_TITLES = {"preparer": "Prepared by", "checker": "Checked by", "approver": "Approved by"}
+
+STANDARD_CAUTIONS = (
+    "The results in this package follow from the inputs and assumptions stated in it and hold "
+    "only while those inputs and assumptions hold.",
+    "Every design provision cited must be confirmed against the edition of the code or standard "
+    "adopted by the authority having jurisdiction where the work is built.",
+    "This package must be reviewed, and sealed or signed, by an engineer licensed for the work "
+    "under the rules of practice that apply before anyone relies on it.",
+)
+
+
+@dataclass(frozen=True)
+class SheetDoc:
+    """One sheet ready for layout."""
+
+    entry: SheetEntry
+    title: str
+    body_html: str
+    """The sheet's converted HTML, math already as images."""
+    records: SheetRecords
+    source_cells: tuple[tuple[int, str], ...] = ()
+    """(1-based cell number, source) of every code cell, for the reviewer's appendix."""
+
+
+@dataclass(frozen=True)
+class ReviewRow:
+    """One comment of the review log (the review file's format belongs to the review feature)."""
+
+    ident: str
+    sheet: str
+    quantity: str
+    status: str
+    by: str
+    date: str
+    text: str
+
+
+@dataclass(frozen=True)
+class DocumentOptions:
+    """How to lay out the package."""
+
+    paper: str = "A4"
+    reviewer_copy: bool = False
+    """Append the source of every sheet as an appendix."""
+    sheet_pages: dict[str, int] = field(default_factory=dict)
+    """Page count per sheet path, from a first layout pass (blank until known)."""
+    calcpack_version: str = ""
+    review: tuple[ReviewRow, ...] | None = None
+    """The review log; None when the project has no review file."""
+    sheets_only: bool = False
+    """Only the sheets, no cover, front or back matter (one notebook through nbconvert)."""
+
+
+def format_sig(value: float | None, sig_figs: int = 3) -> str:
+    """A number to ``sig_figs`` significant figures without exponent for everyday magnitudes."""
+    if value is None or not math.isfinite(value):
+        return "—"
+    if value == 0:
+        return "0"
+    magnitude = math.floor(math.log10(abs(value)))
+    if magnitude >= 7 or magnitude <= -5:
+        return f"{value:.{sig_figs - 1}e}"
+    decimals = sig_figs - 1 - magnitude
+    rounded = round(value, decimals)
+    return f"{rounded:.{max(decimals, 0)}f}"
+
+
+def _e(text: Any) -> str:
+    return escape(str(text), quote=True)
+
+
+def _css_string(text: str) -> str:
+    """A CSS string literal, HTML-escaped for use inside a style attribute."""
+    quoted = '"' + text.replace("\\", "\\\\").replace('"', '\\"').replace("\n", " ") + '"'
+    return _e(quoted)
+
+
+def _date(value: _dt.date | None) -> str:
+    return value.isoformat() if value else ""
+
+
+def _person_date(person: Person, fallback: _dt.date | None) -> str:
+    return _date(person.date or fallback)
+
+
+def _markdown(text: str) -> str:
+    from calcpack.package.convert import _cp_markdown
+    from calcpack.package.mathsvg import math_spans_to_images
+
+    return math_spans_to_images(_cp_markdown(text))
+
+
+def _inline_markdown(text: str) -> str:
+    html = _markdown(text).strip()
+    if html.startswith("<p>") and html.endswith("</p>") and html.count("<p>") == 1:
+        html = html[3:-4]
+    return html
+
+
+def _titleblock(project: Project, *, sheet_no: str, title: str, pages: int | None) -> str:
+    rev = project.revision
+    firm = project.firm or "Structural calculations"
+    sheet_page = (
+        f'sheet <span class="cp-sheetpage" data-pages="{pages}"></span>' if pages else "&#8212;"
+    )
+    if pages == 0:
+        sheet_page = 'sheet <span class="cp-sheetpage" data-pages="00"></span>'
+    return f"""
+<div class="cp-titleblock"><table>
+<colgroup><col style="width:21%"><col style="width:9%"><col style="width:34%">
+<col style="width:12%"><col style="width:12%"><col style="width:12%"></colgroup>
+<tr>
+<td class="firm" rowspan="2"><div class="firmname">{_e(firm)}</div>
+<div class="firmsub">{_e(project.firm_address)}</div></td>
+<td><span class="lbl">Job no.</span><span class="val">{_e(project.job_number)}</span></td>
+<td colspan="3"><span class="lbl">Job title</span>
+<span class="val wrap">{_e(project.job_title)}</span></td>
+<td><span class="lbl">Revision</span>
+<span class="val">{_e(rev.rev)}</span><span class="sub">{_e(_date(rev.date))}</span></td>
+</tr>
+<tr>
+<td><span class="lbl">Sheet no.</span><span class="val">{_e(sheet_no)}</span></td>
+<td><span class="lbl">Sheet title</span><span class="val wrap">{_e(title)}</span></td>
+<td><span class="lbl">By &#183; date</span><span class="val">{_e(project.preparer.name)}</span>
+<span class="lbl">{_e(_person_date(project.preparer, rev.date))}</span></td>
+<td><span class="lbl">Checked &#183; date</span><span class="val">{_e(project.checker.name)}</span>
+<span class="lbl">{_e(_person_date(project.checker, None))}</span></td>
+<td class="pg"><span class="lbl">Page</span><span class="val">{sheet_page}</span>
+<span class="sub">package <span class="cp-pkgpage"></span></span></td>
+</tr>
+</table></div>"""
+
+
+def _cover(project: Project, sheets: Sequence[SheetDoc]) -> str:
+    rev = project.revision
+    standards = "<br>".join(_e(s) for s in project.design.standards)
+    boxes = []
+    for role in ROLES:
+        person: Person = getattr(project, role)
+        # The preparer's date defaults to the revision's; the others only show a date given.
+        when = _person_date(person, rev.date if role == "preparer" else None)
+        boxes.append(f"""
+<td><div class="role">{ROLE_TITLES[role]}</div>
+<div class="who"><span class="lbl">Name</span>{_e(person.name)}</div>
+<div class="who"><span class="lbl">Date</span>{_e(when) or "&#160;"}</div>
+<div class="sig" id="cp-sign-{role}"><div class="hint">Signature</div></div></td>""")
+    status = f" &#183; {_e(rev.status)}" if rev.status else ""
+    return f"""
+<section class="cp-cover" id="cover"><!--strings-->
+<div class="band"><div><div class="firmname">{_e(project.firm or "")}</div>
+<div class="firmaddr">{_e(project.firm_address)}</div></div>
+<div class="doctype">Structural calculations<br>Job {_e(project.job_number)}</div></div>
+<div class="kind cp-bm1" style="bookmark-label: 'Cover'">Calculation package</div>
+<h1 class="title">{_e(project.job_title)}</h1>
+<div class="jobno">Job {_e(project.job_number)} &#183; Revision {_e(rev.rev)}{status}</div>
+<table class="facts">
+<tr><th>Client</th><td>{_e(project.client)}</td></tr>
+<tr><th>Site</th><td>{_e(project.site)}</td></tr>
+<tr><th>Revision</th>
+<td>{_e(rev.rev)} &#8212; {_e(_date(rev.date))} &#8212; {_e(rev.description)}</td></tr>
+<tr><th>Design standards</th><td>{standards}</td></tr>
+<tr><th>Unit system</th><td>{_e(project.units)}</td></tr>
+<tr><th>Extent</th><td>{len(sheets)} sheets, <span class="totalpages"></span> pages</td></tr>
+</table>
+<div class="cp-signoff"><div class="heading">Sign-off</div>
+<table><tr>{"".join(boxes)}</tr></table>
+<div class="note">The package is issued when it carries the signatures of all three roles. Digital
+signatures embedded in this file take precedence over any printed or scanned copy.</div>
+</div>
+</section>"""
+
+
+def _toc(
+    project: Project,
+    sheets: Sequence[SheetDoc],
+    back: Sequence[tuple[str, str]],
+    front: Sequence[tuple[str, str]],
+) -> str:
+    items = ['<li class="group">Front matter</li>']
+    items += [
+        f'<li><span class="no"></span><a href="#{ident}">{_e(t)}</a></li>' for ident, t in front
+    ]
+    items.append('<li class="group">Calculation sheets</li>')
+    for i, sheet in enumerate(sheets, start=1):
+        items.append(
+            f'<li><span class="no">{_e(sheet.entry.number)}</span>'
+            f'<a href="#sheet-{i}">{_e(sheet.title)}</a></li>'
+        )
+    items.append('<li class="group">Back matter</li>')
+    items += [
+        f'<li><span class="no"></span><a href="#{ident}">{_e(t)}</a></li>' for ident, t in back
+    ]
+    return (
+        _titleblock(project, sheet_no="—", title="Contents", pages=None)
+        + '<h1 class="cp-h cp-bm1">Contents</h1><ol class="cp-toc">'
+        + "".join(items)
+        + "</ol>"
+    )
+
+
+def _list(items: Sequence[str], ordered: bool = False) -> str:
+    tag = "ol" if ordered else "ul"
+    return f'<{tag} class="cp-list">' + "".join(f"<li>{i}</li>" for i in items) + f"</{tag}>"
+
+
+def _design_basis(project: Project, sheets: Sequence[SheetDoc]) -> str:
+    d = project.design
+    parts = [
+        _titleblock(project, sheet_no="—", title="Design basis", pages=None),
+        '<h1 class="cp-h cp-bm1">Design basis</h1>',
+    ]
+    sheet_standards = [
+        (s, sheet) for sheet in sheets for s in sheet.records.standards if s not in d.standards
+    ]
+    parts.append('<h2 class="cp-h">Design standards</h2>')
+    parts.append(
+        _list(
+            [_e(s) for s in d.standards]
+            + [
+                f'{_e(s)} <span class="cpd-src">(sheet {_e(sheet.entry.number)})</span>'
+                for s, sheet in sheet_standards
+            ]
+        )
+    )
+    if d.materials:
+        parts.append(
+            '<h2 class="cp-h">Materials</h2>' + _list([_inline_markdown(m) for m in d.materials])
+        )
+    if d.loads:
+        parts.append('<h2 class="cp-h">Loads</h2>' + _list([_inline_markdown(m) for m in d.loads]))
+    if d.basis:
+        parts.append('<h2 class="cp-h">Basis of design</h2>' + _markdown(d.basis))
+    return "".join(parts)
+
+
+def _assumptions(project: Project, sheets: Sequence[SheetDoc]) -> str:
+    assumptions = [_inline_markdown(a) for a in project.design.assumptions]
+    for sheet in sheets:
+        assumptions += [
+            f'{_inline_markdown(a)} <span class="cpd-src">(sheet {_e(sheet.entry.number)})</span>'
+            for a in sheet.records.assumptions
+        ]
+    cautions = [_e(c) for c in STANDARD_CAUTIONS]
+    cautions += [_inline_markdown(c) for c in project.design.cautions]
+    for sheet in sheets:
+        cautions += [
+            f'{_inline_markdown(c)} <span class="cpd-src">(sheet {_e(sheet.entry.number)})</span>'
+            for c in sheet.records.cautions
+        ]
+    body = (
+        _list(assumptions, ordered=True)
+        if assumptions
+        else ('<p class="cp-empty">No assumptions were declared.</p>')
+    )
+    return (
+        _titleblock(project, sheet_no="—", title="Assumptions and cautions", pages=None)
+        + '<h1 class="cp-h cp-bm1">Assumptions and cautions</h1>'
+        + '<h2 class="cp-h">Assumptions</h2>'
+        + body
+        + '<div class="cp-cautions" id="cautions"><div class="cp-cautions-title">Cautions</div>'
+        + _list(cautions, ordered=True)
+        + "</div>"
+    )
+
+
+def _verdict(verdict: str) -> str:
+    cls = {"OK": "ok", "NOT OK": "notok"}.get(verdict, "nc")
+    return f'<span class="cpd-verdict {cls}">{_e(verdict)}</span>'
+
+
+def _summary(project: Project, sheets: Sequence[SheetDoc]) -> str:
+    rows = []
+    entries = [(sheet, c) for sheet in sheets for c in sheet.records.checks]
+    entries.sort(key=lambda item: check_sort_key(item[1]))
+    for sheet, c in entries:
+        u = c.get("utilisation")
+        bar = ""
+        if u is not None:
+            width = min(u, 1.5) / 1.5 * 14
+            over = " over" if u > 1 else ""
+            bar = f' <span class="cpd-ubar{over}" style="width:{width:.1f}mm"></span>'
+        unit = f" {_e(c['unit'])}" if c.get("unit") else ""
+        rows.append(
+            f"<tr><td>{_e(sheet.entry.number)}</td><td>{_e(c.get('member') or '')}</td>"
+            f"<td>{_e(c['name'])}</td><td>{_e(c.get('combination') or '')}</td>"
+            f'<td class="num">{format_sig(c.get("demand"))}{unit}</td>'
+            f'<td class="num">{format_sig(c.get("capacity"))}{unit}</td>'
+            f'<td class="num">{"—" if u is None else f"{u:.2f}"}{bar}</td>'
+            f"<td>{_verdict(c['verdict'])}</td><td>{_e(c.get('ref') or '')}</td></tr>"
+        )
+    if rows:
+        table = (
+            '<table class="cpd-table"><thead><tr><th>Sheet</th><th>Member</th><th>Check</th>'
+            "<th>Combination</th><th>Demand</th><th>Capacity</th><th>Utilisation</th>"
+            "<th>Verdict</th><th>Reference</th></tr></thead><tbody>"
+            + "".join(rows)
+            + "</tbody></table>"
+        )
+    else:
+        table = '<p class="cp-empty">The sheets record no design checks.</p>'
+    counts = {
+        v: sum(1 for _, c in entries if c["verdict"] == v) for v in ("OK", "NOT OK", "NOT COVERED")
+    }
+    line = (
+        f"<p>{len(entries)} checks: {counts['OK']} OK, {counts['NOT OK']} NOT OK, "
+        f"{counts['NOT COVERED']} NOT COVERED. Worst first.</p>"
+    )
+    return (
+        _titleblock(project, sheet_no="—", title="Summary of checks", pages=None)
+        + '<h1 class="cp-h cp-bm1">Summary of checks</h1>'
+        + line
+        + table
+    )
+
+
+def _revisions(project: Project) -> str:
+    rows = []
+    for rev in project.revisions:
+        cls = ' class="current"' if rev is project.revision else ""
+        rows.append(
+            f"<tr{cls}><td>{_e(rev.rev)}</td><td>{_e(_date(rev.date))}</td>"
+            f"<td>{_e(rev.description)}</td><td>{_e(rev.status)}</td></tr>"
+        )
+    return (
+        _titleblock(project, sheet_no="—", title="Revision history", pages=None)
+        + '<h1 class="cp-h cp-bm1">Revision history</h1>'
+        + '<table class="cpd-table"><thead><tr><th>Rev</th><th>Date</th><th>Description</th>'
+        + "<th>Status</th></tr></thead><tbody>"
+        + "".join(rows)
+        + "</tbody></table>"
+    )
+
+
+def _review(project: Project, review: tuple[ReviewRow, ...] | None) -> str:
+    head = (
+        _titleblock(project, sheet_no="—", title="Review log", pages=None)
+        + '<h1 class="cp-h cp-bm1">Review log</h1>'
+    )
+    if review is None:
+        return head + '<p class="cp-empty">No review record is held with this project.</p>'
+    if not review:
+        return head + '<p class="cp-empty">The review record holds no comments.</p>'
+    rows = "".join(
+        f"<tr><td>{_e(r.ident)}</td><td>{_e(r.sheet)}</td><td>{_e(r.quantity)}</td>"
+        f"<td>{_e(r.text)}</td><td>{_e(r.by)}</td><td>{_e(r.date)}</td><td>{_e(r.status)}</td></tr>"
+        for r in review
+    )
+    return (
+        head + '<table class="cpd-table"><thead><tr><th>No.</th><th>Sheet</th>'
+        "<th>Quantity</th><th>Comment</th><th>By</th><th>Date</th><th>Status</th></tr>"
+        "</thead><tbody>" + rows + "</tbody></table>"
+    )
+
+
+def _appendix(project: Project, sheets: Sequence[SheetDoc]) -> str:
+    parts = [
+        _titleblock(project, sheet_no="—", title="Appendix: sheet source", pages=None),
+        '<h1 class="cp-h cp-bm1">Appendix: sheet source</h1>',
+    ]
+    for sheet in sheets:
+        parts.append(
+            f'<h2 class="cp-h">Sheet {_e(sheet.entry.number)}: {_e(sheet.title)} '
+            f'<span class="cpd-src">({_e(sheet.entry.path)})</span></h2>'
+            '<div class="cp-source">'
+        )
+        for number, source in sheet.source_cells:
+            parts.append(f'<div class="cell-no">Cell {number}</div><pre>{_e(source)}</pre>')
+        parts.append("</div>")
+    return "".join(parts)
+
+
+def page_name(index: int) -> str:
+    """The CSS named page of the ``index``-th sheet (1-based)."""
+    return f"sheet{index}"
+
+
+def document_html(
+    project: Project, sheets: Sequence[SheetDoc], options: DocumentOptions, *, created: _dt.datetime
+) -> str:
+    """The whole package as one HTML document for WeasyPrint."""
+    from calcpack.package.convert import package_css
+
+    front = [("design-basis", "Design basis"), ("assumptions", "Assumptions and cautions")]
+    back = [
+        ("summary", "Summary of checks"),
+        ("revisions", "Revision history"),
+        ("review-log", "Review log"),
+    ]
+    if options.reviewer_copy:
+        back.append(("appendix-source", "Appendix: sheet source"))
+    size = "A4" if options.paper == "A4" else "letter"
+    rules = [f"@page {{ size: {size}; }}"]
+    for i in range(1, len(sheets) + 1):
+        rules.append(f"@page :nth(1 of {page_name(i)}) {{ counter-reset: sheetpage 0; }}")
+    stamp = created.isoformat()
+    rev = project.revision
+    issue = f"Job {project.job_number} · Rev {rev.rev}" + (f" · {rev.status}" if rev.status else "")
+    firmline = " · ".join(p for p in (project.firm, project.firm_address) if p)
+    out = [
+        '<!DOCTYPE html><html lang="en"><head><meta charset="utf-8">',
+        f"<title>{_e(project.job_number)} {_e(project.job_title)} — calculations, revision "
+        f"{_e(rev.rev)}</title>",
+        f'<meta name="author" content="{_e(project.firm or project.preparer.name)}">',
+        f'<meta name="description" content="Structural calculations, job {_e(project.job_number)}'
+        f', revision {_e(rev.rev)}">',
+        f'<meta name="keywords" content="calculation package, {_e(project.job_number)}">',
+        f'<meta name="generator" content="calcpack {_e(options.calcpack_version)}">',
+        f'<meta name="dcterms.created" content="{stamp}">',
+        f'<meta name="dcterms.modified" content="{stamp}">',
+        "<style>",
+        package_css(),
+        "\n".join(rules),
+        "</style></head><body>",
+    ]
+    strings = f'<div class="cp-strings" data-firm="{_e(firmline)}" data-issue="{_e(issue)}"></div>'
+
+    if not options.sheets_only:
+        out += [
+            _cover(project, sheets).replace("<!--strings-->", strings),
+            '<section class="cp-section cp-front" id="contents">',
+            _toc(project, sheets, back, front),
+            "</section>",
+            '<section class="cp-section cp-front" id="design-basis">',
+            _design_basis(project, sheets),
+            "</section>",
+            '<section class="cp-section cp-front" id="assumptions">',
+            _assumptions(project, sheets),
+            "</section>",
+        ]
+    for i, sheet in enumerate(sheets, start=1):
+        pages = options.sheet_pages.get(sheet.entry.path, 0)
+        out.append(
+            f'<section class="cp-sheet" id="sheet-{i}" style="page: {page_name(i)}">'
+            + (strings if options.sheets_only and i == 1 else "")
+            + _titleblock(project, sheet_no=sheet.entry.number, title=sheet.title, pages=pages)
+            + f'<div class="cp-sheet-head"><span class="no">Sheet {_e(sheet.entry.number)}</span>'
+            f'<h1 class="cp-bm1" style="bookmark-label: '
+            f'{_css_string(f"Sheet {sheet.entry.number} — {sheet.title}")}">'
+            f"{_e(sheet.title)}</h1></div>"
+            f'<div class="cp-sheet-body">{sheet.body_html}</div></section>'
+        )
+    if options.sheets_only:
+        out.append("</body></html>")
+        return "\n".join(out)
+    out += [
+        '<section class="cp-section cp-back" id="summary">',
+        _summary(project, sheets),
+        "</section>",
+        '<section class="cp-section cp-back" id="revisions">',
+        _revisions(project),
+        "</section>",
+        '<section class="cp-section cp-back" id="review-log">',
+        _review(project, options.review),
+        "</section>",
+    ]
+    if options.reviewer_copy:
+        out += [
+            '<section class="cp-section cp-back" id="appendix-source">',
+            _appendix(project, sheets),
+            "</section>",
+        ]
+    out.append("</body></html>")
+    return "\n".join(out)

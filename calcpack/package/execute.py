@@ -1,0 +1,351 @@
+"""Execute sheet notebooks: a fresh kernel per sheet, parallel spawn workers, a content cache.
+
+Each sheet runs in its own kernel started from the *same* Python as the build
+(``sys.executable -m ipykernel_launcher``), so whatever environment runs ``calcpack build`` (a CI
+virtual environment, an editable checkout) is the environment the sheets see. Kernels talk over
+IPC sockets in a private temporary folder rather than TCP ports, so parallel builds never race for
+ports.
+
+Workers are processes started with the *spawn* method: forking a process that already holds
+running kernels can deadlock on the inherited ZMQ state; spawning cannot.
+
+The cache key of a sheet is the SHA-256 of the calcpack version, the notebook's bytes, the bytes
+of its inputs files and the project-wide inputs, and the project file's bytes: an unchanged
+sheet is read back from ``.calcpack-cache/`` in the project folder instead of being executed.
+"""
+
+from __future__ import annotations
+
+import concurrent.futures
+import concurrent.futures.process
+import hashlib
+import logging
+import multiprocessing
+import os
+import re
+import sys
+import tempfile
+import time
+from collections.abc import Callable, Sequence
+from dataclasses import dataclass
+from pathlib import Path
+from typing import Any
+
+from calcpack.errors import BuildError, NotebookExecutionError
+from calcpack.package.project import Project, SheetEntry
+
+__all__ = [
+    "CACHE_DIR_NAME",
+    "DEFAULT_CELL_TIMEOUT_S",
+    "ExecutedSheet",
+    "execute_notebook",
+    "execute_sheets",
+    "sheet_cache_key",
+]
+
+CACHE_DIR_NAME = ".calcpack-cache"
+DEFAULT_CELL_TIMEOUT_S = 120.0
+
+ProgressCallback = Callable[[str, SheetEntry], None]
+"""Called with ("executing" | "cached" | "executed", sheet) as execution proceeds."""
+
+
+@dataclass(frozen=True)
+class ExecutedSheet:
+    """A sheet notebook after execution (or read from the cache)."""
+
+    entry: SheetEntry
+    notebook_json: str
+    """The executed notebook, nbformat JSON."""
+    cache_key: str
+    from_cache: bool
+    seconds: float
+    """Wall time spent executing (0 when read from the cache)."""
+
+
+def _calcpack_version() -> str:
+    from calcpack import __version__
+
+    return __version__
+
+
+def sheet_cache_key(project: Project, sheet: SheetEntry) -> str:
+    """Hex SHA-256 identifying one sheet's execution: what it runs and everything it reads."""
+    digest = hashlib.sha256()
+
+    def feed(label: str, data: bytes) -> None:
+        digest.update(label.encode() + b"\0" + str(len(data)).encode() + b"\0" + data)
+
+    feed("calcpack", _calcpack_version().encode())
+    feed("project", project.path.read_bytes())
+    feed("notebook", project.sheet_path(sheet).read_bytes())
+    for name in (*sheet.inputs, *project.inputs):
+        feed("input:" + name, (project.root / name).read_bytes())
+    return digest.hexdigest()
+
+
+def _kernel_env() -> dict[str, str]:
+    """Environment for kernels: calcpack importable even from an uninstalled source tree."""
+    import calcpack
+
+    # CALCPACK_BUILDING: input panels and the preview show nothing in a build's kernel, even
+    # when the build is started from a notebook (whose kernel environment is inherited).
+    env = {"MPLBACKEND": "Agg", "PYDEVD_DISABLE_FILE_VALIDATION": "1", "CALCPACK_BUILDING": "1"}
+    source_root = str(Path(calcpack.__file__).resolve().parent.parent)
+    if not re.search(r"[\\/](site|dist)-packages$", source_root):
+        current = os.environ.get("PYTHONPATH", "")
+        parts = [source_root, *[p for p in current.split(os.pathsep) if p]]
+        env["PYTHONPATH"] = os.pathsep.join(dict.fromkeys(parts))
+    return env
+
+
+def _first_line(source: str) -> str:
+    for line in source.splitlines():
+        if line.strip():
+            return line.strip()[:120]
+    return ""
+
+
+def _failure(nb: Any, sheet: str, exc: BaseException, timeout: float) -> tuple[str, int, str, str]:
+    """(sheet, 1-based cell number, first source line, error) for a failed execution."""
+    from nbclient.exceptions import CellTimeoutError, DeadKernelError
+
+    index, excerpt = 0, ""
+    for i, cell in enumerate(nb.cells, start=1):
+        if cell.get("cell_type") != "code":
+            continue
+        if any(out.get("output_type") == "error" for out in cell.get("outputs", [])):
+            index, excerpt = i, _first_line(cell.source)
+            break
+    ename = getattr(exc, "ename", None)
+    evalue = getattr(exc, "evalue", None)
+    if ename:
+        error = f"{ename}: {evalue}"
+    elif isinstance(exc, CellTimeoutError):
+        error = f"the cell timed out after {timeout:g} s (raise --timeout if it needs longer)"
+    elif isinstance(exc, DeadKernelError):
+        error = "the kernel died"
+    else:
+        error = f"{type(exc).__name__}: {exc}"
+    if index == 0:
+        # A timeout or dead kernel leaves no error output: take the last cell that started.
+        started = [
+            i
+            for i, cell in enumerate(nb.cells, start=1)
+            if cell.get("cell_type") == "code" and cell.get("execution_count")
+        ]
+        running = [
+            i
+            for i, cell in enumerate(nb.cells, start=1)
+            if cell.get("cell_type") == "code"
+            and cell.get("metadata", {}).get("execution", {}).get("iopub.execute_input")
+        ]
+        candidates = running or started
+        if candidates:
+            index = candidates[-1]
+            excerpt = _first_line(nb.cells[index - 1].source)
+    return sheet, index, excerpt, error
+
+
+def execute_notebook(
+    path: Path,
+    *,
+    sheet: str,
+    timeout: float = DEFAULT_CELL_TIMEOUT_S,
+) -> Any:
+    """Execute one notebook in a fresh kernel (cwd = the notebook's folder); returns it.
+
+    Args:
+        path: the notebook file.
+        sheet: the sheet's name for messages (its path as listed in the project file).
+        timeout: per-cell limit in seconds.
+
+    Raises:
+        NotebookExecutionError: a cell raised, timed out or the kernel died; names the sheet,
+            the 1-based cell number, the first line of its source and the error.
+    """
+    outcome = _execute(str(path), sheet, timeout)
+    if outcome[0] == "error":
+        raise NotebookExecutionError(*outcome[1:])
+    import nbformat
+
+    return nbformat.reads(outcome[1], as_version=4)
+
+
+def _execute(path: str, sheet: str, timeout: float) -> tuple[Any, ...]:
+    """Run one notebook; ('ok', json) or ('error', sheet, cell, excerpt, error). Picklable."""
+    import nbformat
+    from jupyter_client.kernelspec import KernelSpec, KernelSpecManager
+    from jupyter_client.manager import AsyncKernelManager
+    from jupyter_core.utils import run_sync
+    from nbclient import NotebookClient
+    from nbclient.exceptions import CellControlSignal, CellExecutionError, DeadKernelError
+
+    class SamePython(KernelSpecManager):  # type: ignore[misc]
+        def get_kernel_spec(self, kernel_name: str) -> Any:
+            return KernelSpec(
+                argv=[sys.executable, "-m", "ipykernel_launcher", "-f", "{connection_file}"],
+                display_name="Python 3 (calcpack build)",
+                language="python",
+                env=_kernel_env(),
+            )
+
+    nb = nbformat.read(path, as_version=4)
+    with tempfile.TemporaryDirectory(prefix="calcpack-kernel-") as sockets:
+        # An asynchronous manager, as nbclient makes for itself: with a blocking one nbclient
+        # does not enforce the per-cell timeout.
+        km = AsyncKernelManager(
+            log=_QUIET_LOG,
+            kernel_name="python3",
+            kernel_spec_manager=SamePython(),
+            transport="ipc",
+            ip=os.path.join(sockets, "k"),
+        )
+        client = NotebookClient(
+            nb,
+            log=_QUIET_LOG,
+            km=km,
+            timeout=timeout,
+            allow_errors=False,
+            record_timing=True,
+            resources={"metadata": {"path": str(Path(path).parent)}},
+        )
+        try:
+            client.execute()
+        except (CellExecutionError, CellControlSignal, DeadKernelError, RuntimeError) as exc:
+            return ("error", *_failure(nb, sheet, exc, timeout))
+        finally:
+            # nbclient leaves a kernel manager it was given running: shut it down here.
+            try:
+                if km.has_kernel:
+                    run_sync(km.shutdown_kernel)(now=True)
+            except Exception:
+                pass
+    return ("ok", nbformat.writes(nb))
+
+
+_QUIET_LOG = logging.getLogger("calcpack.kernel")
+"""Kernel plumbing messages (a zmq context left to the garbage collector...) stay out of the
+build's output; a failing cell is reported by the build itself."""
+_QUIET_LOG.setLevel(logging.ERROR)
+_QUIET_LOG.propagate = False
+
+
+def _cache_file(cache_dir: Path, sheet: SheetEntry, key: str) -> Path:
+    slug = re.sub(r"[^A-Za-z0-9]+", "_", sheet.path).strip("_")
+    return cache_dir / f"{slug}-{key[:32]}.ipynb"
+
+
+def _store(cache_dir: Path, sheet: SheetEntry, key: str, notebook_json: str) -> None:
+    cache_dir.mkdir(parents=True, exist_ok=True)
+    target = _cache_file(cache_dir, sheet, key)
+    tmp = target.with_suffix(".tmp")
+    tmp.write_text(notebook_json, encoding="utf-8")
+    os.replace(tmp, target)
+    prefix = target.name.rsplit("-", 1)[0] + "-"
+    for old in cache_dir.glob(prefix + "*.ipynb"):
+        if old != target and len(old.name) == len(target.name):
+            old.unlink(missing_ok=True)
+
+
+def execute_sheets(
+    project: Project,
+    *,
+    workers: int = 2,
+    timeout: float = DEFAULT_CELL_TIMEOUT_S,
+    use_cache: bool = True,
+    cache_dir: Path | None = None,
+    progress: ProgressCallback | None = None,
+    sheets: Sequence[SheetEntry] | None = None,
+) -> list[ExecutedSheet]:
+    """Execute every sheet of a project (unchanged sheets come from the cache), in order.
+
+    Args:
+        project: the validated project.
+        workers: number of worker processes (1 runs in this process).
+        timeout: per-cell limit in seconds.
+        use_cache: read and write the execution cache.
+        cache_dir: cache folder (default ``PROJECT/.calcpack-cache``).
+        progress: optional callback for progress display.
+        sheets: a subset of the project's sheets (default all).
+
+    Raises:
+        NotebookExecutionError: the first sheet that failed (in project order), naming the
+            cell; the remaining executions are cancelled.
+    """
+    if workers < 1:
+        raise BuildError(f"Number of workers must be at least 1 (got workers = {workers})")
+    cache = cache_dir or project.root / CACHE_DIR_NAME
+    todo = list(sheets if sheets is not None else project.sheets)
+    results: dict[str, ExecutedSheet] = {}
+    pending: list[tuple[SheetEntry, str]] = []
+    for sheet in todo:
+        key = sheet_cache_key(project, sheet)
+        cached = _cache_file(cache, sheet, key)
+        if use_cache and cached.is_file():
+            results[sheet.path] = ExecutedSheet(
+                sheet, cached.read_text(encoding="utf-8"), key, True, 0.0
+            )
+            if progress:
+                progress("cached", sheet)
+        else:
+            pending.append((sheet, key))
+
+    def finish(sheet: SheetEntry, key: str, outcome: tuple[Any, ...], seconds: float) -> None:
+        if outcome[0] == "error":
+            raise NotebookExecutionError(*outcome[1:])
+        results[sheet.path] = ExecutedSheet(sheet, outcome[1], key, False, seconds)
+        if use_cache:
+            _store(cache, sheet, key, outcome[1])
+        if progress:
+            progress("executed", sheet)
+
+    if len(pending) <= 1 or workers == 1:
+        for sheet, key in pending:
+            if progress:
+                progress("executing", sheet)
+            start = time.perf_counter()
+            outcome = _execute(str(project.sheet_path(sheet)), sheet.path, timeout)
+            finish(sheet, key, outcome, time.perf_counter() - start)
+    else:
+        context = multiprocessing.get_context("spawn")
+        with concurrent.futures.ProcessPoolExecutor(
+            max_workers=min(workers, len(pending)), mp_context=context
+        ) as pool:
+            futures = {}
+            starts: dict[str, float] = {}
+            for sheet, key in pending:
+                starts[sheet.path] = time.perf_counter()
+                future = pool.submit(_execute, str(project.sheet_path(sheet)), sheet.path, timeout)
+                futures[future] = (sheet, key)
+            if progress:
+                for sheet, _ in pending[: min(workers, len(pending))]:
+                    progress("executing", sheet)
+            failures: list[tuple[int, tuple[Any, ...]]] = []
+            order = {s.path: i for i, s in enumerate(todo)}
+            next_up = min(workers, len(pending))
+            for future in concurrent.futures.as_completed(futures):
+                sheet, key = futures[future]
+                try:
+                    outcome = future.result()
+                except concurrent.futures.process.BrokenProcessPool as exc:
+                    raise BuildError(
+                        f"A worker process executing sheet {sheet.path!r} stopped abruptly "
+                        "(out of memory, or a script that starts the build without an "
+                        "`if __name__ == '__main__':` guard); try --workers 1"
+                    ) from exc
+                if outcome[0] == "error":
+                    failures.append((order[sheet.path], outcome))
+                    for other in futures:
+                        other.cancel()
+                    continue
+                if failures:
+                    continue
+                finish(sheet, key, outcome, time.perf_counter() - starts[sheet.path])
+                if progress and next_up < len(pending):
+                    progress("executing", pending[next_up][0])
+                    next_up += 1
+            if failures:
+                failures.sort(key=lambda item: item[0])
+                raise NotebookExecutionError(*failures[0][1][1:])
+    return [results[s.path] for s in todo]

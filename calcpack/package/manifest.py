@@ -1,0 +1,112 @@
+"""The package manifest: what the PDF was built from and what it records.
+
+Written beside the PDF and attached inside it as ``calcpack-manifest.json``. Its keys follow the
+build contract (``format`` "calcpack-manifest/1"): the calcpack and key dependency versions, the
+project block, SHA-256 of every project file, notebook, inputs file and review file, every sheet's
+recorded values and checks with its pages, and the sign-off boxes for the signing step.
+"""
+
+from __future__ import annotations
+
+import json
+import platform
+from collections.abc import Sequence
+from importlib import metadata
+from pathlib import Path
+from typing import Any
+
+from calcpack.package.project import Project, file_sha256
+
+__all__ = [
+    "KEY_DEPENDENCIES",
+    "MANIFEST_ATTACHMENT_NAME",
+    "MANIFEST_FORMAT",
+    "dependency_versions",
+    "manifest_bytes",
+    "project_files",
+    "read_manifest",
+]
+
+MANIFEST_FORMAT = "calcpack-manifest/1"
+MANIFEST_ATTACHMENT_NAME = "calcpack-manifest.json"
+KEY_DEPENDENCIES = (
+    "numpy",
+    "sympy",
+    "pint",
+    "ipykernel",
+    "nbformat",
+    "nbclient",
+    "nbconvert",
+    "weasyprint",
+    "pydyf",
+    "ziamath",
+    "ziafont",
+    "matplotlib",
+)
+
+
+def dependency_versions() -> dict[str, str]:
+    """Versions of Python and the libraries that shape the results and the document."""
+    versions = {"python": platform.python_version()}
+    for name in KEY_DEPENDENCIES:
+        try:
+            versions[name] = metadata.version(name)
+        except metadata.PackageNotFoundError:
+            versions[name] = "not installed"
+    return versions
+
+
+def project_files(project: Project, review_file: Path | None) -> list[dict[str, str]]:
+    """Hash of every file the package depends on, with its role (paths relative, '/')."""
+    entries: list[dict[str, str]] = [
+        {"path": project.path.name, "sha256": file_sha256(project.path), "role": "project"}
+    ]
+    seen = {project.path.name}
+    for sheet in project.sheets:
+        entries.append(
+            {"path": sheet.path, "sha256": file_sha256(project.sheet_path(sheet)), "role": "sheet"}
+        )
+        seen.add(sheet.path)
+    for name in [*project.inputs, *(i for s in project.sheets for i in s.inputs)]:
+        if name in seen:
+            continue
+        seen.add(name)
+        entries.append({"path": name, "sha256": file_sha256(project.root / name), "role": "inputs"})
+    if review_file is not None and review_file.is_file():
+        entries.append(
+            {
+                "path": review_file.relative_to(project.root).as_posix(),
+                "sha256": file_sha256(review_file),
+                "role": "review",
+            }
+        )
+    return entries
+
+
+def manifest_bytes(manifest: dict[str, Any]) -> bytes:
+    """Canonical JSON bytes of a manifest (stable key order, UTF-8, trailing newline)."""
+    return (json.dumps(manifest, indent=2, ensure_ascii=False) + "\n").encode("utf-8")
+
+
+def read_manifest(pdf: bytes | Path) -> dict[str, Any]:
+    """The manifest attached to a calcpack PDF.
+
+    Raises:
+        calcpack.errors.VerificationError: the PDF has no calcpack manifest.
+    """
+    import io
+
+    from pypdf import PdfReader
+
+    from calcpack.errors import VerificationError
+
+    data = pdf.read_bytes() if isinstance(pdf, Path) else pdf
+    reader = PdfReader(io.BytesIO(data))
+    attachments = reader.attachments
+    if MANIFEST_ATTACHMENT_NAME not in attachments:
+        raise VerificationError(
+            f"PDF has no attached {MANIFEST_ATTACHMENT_NAME} (not a calcpack package?)"
+        )
+    raw: Sequence[bytes] = attachments[MANIFEST_ATTACHMENT_NAME]
+    result: dict[str, Any] = json.loads(raw[0].decode("utf-8"))
+    return result

@@ -1,0 +1,294 @@
+"""TeX to vector SVG for the PDF, with the formula images cached by their TeX source.
+
+WeasyPrint runs no JavaScript and does not lay out MathML, so every formula is typeset before
+layout. calcpack uses ziamath (pure Python, glyph outlines from the STIX Two Math font, so every
+glyph stays a vector path and no font has to be embedded for math). Two layout defects of
+ziamath 0.13 are worked around (see DEVELOPERS.md, "Math
+in the PDF"):
+
+- a root in a denominator is drawn with its overbar touching the fraction bar, because the
+  root's bounding box leaves out the rule's thickness: the box is enlarged by two rule
+  thicknesses (:func:`_clear_radical_rule`, applied once when ziamath is first used);
+- a superscript on an accented symbol (``\\bar{x}^{2}``) is raised above the accent, unlike TeX
+  which attaches it to the nucleus: the script is attached to an empty group after the accent
+  (``\\bar{x}{}^{2}``), which puts it at the normal height.
+
+Each image is embedded as a ``data:`` URI ``<img>`` (WeasyPrint lays these out several times
+faster than inline ``<svg>``), its alternative text is the TeX source, and identical formulas
+reuse one cached image.
+"""
+
+from __future__ import annotations
+
+import base64
+import html
+import json
+import os
+import re
+import warnings
+from dataclasses import dataclass
+from pathlib import Path
+from typing import Any
+
+from calcpack.errors import BuildError
+
+__all__ = [
+    "MATH_SPAN_RE",
+    "MathImage",
+    "fix_tex",
+    "load_math_cache",
+    "markdown_math_to_spans",
+    "math_spans_to_images",
+    "save_math_cache",
+    "tex_to_svg",
+]
+
+MATH_SPAN_RE = re.compile(
+    r'<span class="cp-math (?P<kind>cp-math-display|cp-math-inline)(?P<extra>[^"]*)">'
+    r"(?P<body>.*?)</span>",
+    re.DOTALL,
+)
+"""A math span as emitted by calcpack.working (TeX HTML-escaped, inside \\[..\\] or \\(..\\))."""
+
+MATH_PX_PER_EM = 13.5
+"""Math font size in CSS px (body text is 9.5 pt = 12.7 px; math is set a little larger)."""
+
+
+@dataclass(frozen=True)
+class MathImage:
+    """A typeset formula: SVG text, its size in CSS px and the baseline offset from its bottom."""
+
+    tex: str
+    svg: str
+    width_px: float
+    height_px: float
+    baseline_px: float
+    """Distance from the image bottom up to the math baseline (>= 0), for vertical-align."""
+
+    def data_uri(self) -> str:
+        """The SVG as a base64 ``data:`` URI."""
+        return "data:image/svg+xml;base64," + base64.b64encode(self.svg.encode()).decode()
+
+
+_ACCENT_SCRIPT_RE = re.compile(
+    r"(\\(?:bar|hat|tilde|dot|ddot|vec|check|breve|acute|grave|widehat|widetilde|overline)"
+    r"\s*(?:\{(?:[^{}]|\{[^{}]*\})*\}|\\[A-Za-z]+|[A-Za-z0-9]))(\s*)(?=[\^_])"
+)
+
+
+def fix_tex(tex: str) -> str:
+    """Rewrite TeX around ziamath's accent-script defect (see the module docstring)."""
+    tex = _ACCENT_SCRIPT_RE.sub(lambda m: m.group(1) + "{}", tex)
+    return tex
+
+
+_UNKNOWN_COMMAND_RE = re.compile(r"<m[ion]>(\\[A-Za-z]+)</m[ion]>")
+_patched = False
+
+
+def _clear_radical_rule() -> None:
+    """Make ziamath count the radical's rule in the root's height (ziamath 0.13 defect).
+
+    Without it a fraction places its bar on the overbar of a root in the denominator. The
+    root's box is grown by two rule thicknesses, which gives the clearance TeX leaves.
+    """
+    global _patched
+    if _patched:
+        return
+    from ziafont.fonttypes import BBox
+    from ziamath.nodes.mroot import Mroot
+
+    original = Mroot._setup
+
+    def setup(self: Any, **kwargs: Any) -> None:
+        original(self, **kwargs)
+        rule = self.units_to_points(self.font.math.consts.radicalRuleThickness)
+        box = self.bbox
+        self.bbox = BBox(box.xmin, box.xmax, box.ymin, box.ymax + 2 * rule)
+
+    setup.__wrapped__ = original  # type: ignore[attr-defined]
+    Mroot._setup = setup
+    _patched = True
+
+
+_cache: dict[tuple[str, bool, float], MathImage] = {}
+
+
+_CACHE_FORMAT = "calcpack-math-cache/1"
+
+
+def load_math_cache(path: Path) -> int:
+    """Read typeset formulas saved by an earlier build into the in-memory cache; returns count.
+
+    A missing or unreadable file is ignored (the formulas are typeset again).
+    """
+    try:
+        data = json.loads(path.read_text("utf-8"))
+    except (OSError, ValueError):
+        return 0
+    if not isinstance(data, dict) or data.get("format") != _CACHE_FORMAT:
+        return 0
+    loaded = 0
+    for item in data.get("formulas", []):
+        try:
+            tex, display, size, svg, width, height, baseline = item
+            key = (str(tex), bool(display), float(size))
+            _cache.setdefault(
+                key, MathImage(key[0], str(svg), float(width), float(height), float(baseline))
+            )
+            loaded += 1
+        except (TypeError, ValueError):
+            continue
+    return loaded
+
+
+def save_math_cache(path: Path, used: set[tuple[str, bool, float]] | None = None) -> None:
+    """Write the in-memory formula cache (only ``used`` keys when given) to ``path``."""
+    items = [
+        [k[0], k[1], k[2], v.svg, v.width_px, v.height_px, v.baseline_px]
+        for k, v in sorted(_cache.items())
+        if used is None or k in used
+    ]
+    path.parent.mkdir(parents=True, exist_ok=True)
+    tmp = path.with_suffix(".tmp")
+    tmp.write_text(json.dumps({"format": _CACHE_FORMAT, "formulas": items}), "utf-8")
+    os.replace(tmp, path)
+
+
+used_keys: set[tuple[str, bool, float]] = set()
+"""Keys looked up since the process started (the build saves only these)."""
+
+
+def tex_to_svg(tex: str, *, display: bool = False, size_px: float = MATH_PX_PER_EM) -> MathImage:
+    """Typeset one TeX formula as SVG (cached by TeX source, style and size).
+
+    Args:
+        tex: the formula, without delimiters.
+        display: display style (limits above/below, full-size fractions) rather than inline.
+        size_px: math font size in CSS px.
+
+    Raises:
+        BuildError: ziamath cannot typeset the formula (the message quotes the TeX).
+    """
+    key = (tex, display, float(size_px))
+    used_keys.add(key)
+    hit = _cache.get(key)
+    if hit is not None:
+        return hit
+    with warnings.catch_warnings():
+        # ziamath 0.13 loads its font at import with a deprecated importlib.resources call.
+        warnings.simplefilter("ignore", DeprecationWarning)
+        import ziamath
+        from ziamath.tex import tex2mml
+    _clear_radical_rule()
+
+    try:
+        mathml = tex2mml(fix_tex(tex), inline=not display)
+    except Exception as exc:
+        raise BuildError(
+            f"Formula could not be typeset: {tex!r} ({type(exc).__name__}: {exc})"
+        ) from exc
+    unknown = _UNKNOWN_COMMAND_RE.search(mathml)
+    if unknown:
+        # The TeX converter passes unknown commands through as text: refuse rather than print
+        # a misspelt command into an issued document.
+        raise BuildError(
+            f"Formula could not be typeset: {tex!r} (unknown command {unknown.group(1)})"
+        )
+    try:
+        math = ziamath.Math(mathml, size=size_px)
+        svg = math.svg()
+        width, height = math.getsize()
+        offset = float(math.getyofst())
+    except Exception as exc:
+        raise BuildError(
+            f"Formula could not be typeset: {tex!r} ({type(exc).__name__}: {exc})"
+        ) from exc
+    image = MathImage(tex, svg, float(width), float(height), -offset)
+    _cache[key] = image
+    return image
+
+
+def _strip_delimiters(body: str) -> tuple[str, bool | None]:
+    """TeX without its delimiters (\\[..\\], \\(..\\), $$..$$, $..$); whether they said display."""
+    text = body.strip()
+    for left, right, display in (
+        ("\\[", "\\]", True),
+        ("\\(", "\\)", False),
+        ("$$", "$$", True),
+        ("$", "$", False),
+    ):
+        if text.startswith(left) and text.endswith(right) and len(text) >= len(left + right):
+            return text[len(left) : len(text) - len(right)].strip(), display
+    return text, None
+
+
+def _img(tex: str, display: bool) -> str:
+    image = tex_to_svg(tex, display=display)
+    style = (
+        f"width:{image.width_px:.2f}px;height:{image.height_px:.2f}px;"
+        f"vertical-align:{-image.baseline_px:.2f}px"
+    )
+    kind = "cp-math-display" if display else "cp-math-inline"
+    return (
+        f'<img class="cp-math-img {kind}" alt="{html.escape(tex, quote=True)}" '
+        f'style="{style}" src="{image.data_uri()}">'
+    )
+
+
+def math_spans_to_images(markup: str) -> str:
+    """Replace every calcpack math span in HTML by its SVG image (alt text = the TeX).
+
+    Raises:
+        BuildError: a formula cannot be typeset.
+    """
+
+    def replace(m: re.Match[str]) -> str:
+        tex, said_display = _strip_delimiters(html.unescape(m.group("body")))
+        display = m.group("kind") == "cp-math-display" if said_display is None else said_display
+        if not tex:
+            return ""
+        return (
+            f'<span class="cp-math {m.group("kind")}{m.group("extra")}">{_img(tex, display)}</span>'
+        )
+
+    return MATH_SPAN_RE.sub(replace, markup)
+
+
+_SKIP_RE = re.compile(r"(<pre\b.*?</pre>|<code\b.*?</code>|<[^>]+>)", re.DOTALL)
+_DISPLAY_DOLLAR_RE = re.compile(r"\$\$(.+?)\$\$", re.DOTALL)
+# Inline $..$ as in common Markdown math: no space just inside the dollars, no digit just after
+# the closing one (so "costs $5 and $6" stays text).
+_INLINE_DOLLAR_RE = re.compile(r"(?<![\\$])\$(?=\S)((?:[^$\\]|\\.)+?)(?<=\S)\$(?![$\d])")
+
+
+def markdown_math_to_spans(markup: str) -> str:
+    """Wrap ``$$..$$`` and ``$..$`` math in HTML rendered from markdown into calcpack math spans.
+
+    Text inside ``<pre>`` and ``<code>`` is left alone; the TeX stays HTML-escaped as the
+    contract for math spans requires.
+    """
+
+    def spans(text: str) -> str:
+        text = _DISPLAY_DOLLAR_RE.sub(
+            lambda m: f'<span class="cp-math cp-math-display">\\[{m.group(1).strip()}\\]</span>',
+            text,
+        )
+        return _INLINE_DOLLAR_RE.sub(
+            lambda m: f'<span class="cp-math cp-math-inline">\\({m.group(1)}\\)</span>', text
+        )
+
+    # Join text runs between tags so that math spanning inline markup boundaries is rare; math
+    # inside tags' attributes is never touched.
+    parts = _SKIP_RE.split(markup)
+    out = []
+    buffer = ""
+    for part in parts:
+        if _SKIP_RE.fullmatch(part or " ") and part:
+            out.append(spans(buffer))
+            buffer = ""
+            out.append(part)
+        else:
+            buffer += part
+    out.append(spans(buffer))
+    return "".join(out)

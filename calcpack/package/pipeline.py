@@ -1,0 +1,508 @@
+"""The build pipeline: project file -> executed sheets -> HTML -> paginated PDF + manifest.
+
+Stages are plain functions passing typed values::
+
+    load_project -> execute_sheets -> prepare_sheet (nbconvert + math to SVG)
+        -> document_html / paginate (WeasyPrint, two passes) -> manifest -> write_pdf
+
+Outputs are written to temporary files in the output folder and moved into place only when the
+whole build succeeded, so a failing or interrupted build leaves the previous package untouched.
+A build whose inputs (every sheet's cache key, the options, the review file and the package
+code) match the existing package's manifest is skipped outright.
+"""
+
+from __future__ import annotations
+
+import datetime as _dt
+import hashlib
+import os
+import re
+import tempfile
+import time
+from collections.abc import Callable
+from dataclasses import dataclass, replace
+from pathlib import Path
+from typing import Any
+
+from calcpack.errors import BuildError
+from calcpack.package.document import (
+    ROLES,
+    DocumentOptions,
+    ReviewRow,
+    SheetDoc,
+    document_html,
+)
+from calcpack.package.execute import DEFAULT_CELL_TIMEOUT_S, ExecutedSheet, execute_sheets
+from calcpack.package.manifest import (
+    MANIFEST_ATTACHMENT_NAME,
+    MANIFEST_FORMAT,
+    dependency_versions,
+    manifest_bytes,
+    project_files,
+)
+from calcpack.package.paginate import PdfAttachment, paginate, write_pdf
+from calcpack.package.project import Person, Project, Revision, SheetEntry, load_project
+from calcpack.package.records import collect_records
+
+__all__ = [
+    "BuildResult",
+    "build",
+    "build_created",
+    "prepare_sheet",
+    "sheet_title",
+    "single_sheet_pdf",
+]
+
+Reporter = Callable[[str, str], None]
+"""Progress hook: (stage, detail), stage in executing/cached/executed/rendering/layout/writing."""
+
+
+@dataclass(frozen=True)
+class BuildResult:
+    """What a build produced."""
+
+    pdf_path: Path
+    manifest_path: Path
+    manifest: dict[str, Any]
+    page_count: int
+    executed: tuple[str, ...]
+    """Sheets executed in this build (paths)."""
+    cached: tuple[str, ...]
+    """Sheets read from the execution cache."""
+    up_to_date: bool
+    """True when nothing changed and the existing package was kept."""
+    seconds: float
+
+
+def build_created(project: Project) -> _dt.datetime:
+    """The document date: SOURCE_DATE_EPOCH if set, else the issued revision's date (UTC)."""
+    epoch = os.environ.get("SOURCE_DATE_EPOCH")
+    if epoch:
+        try:
+            return _dt.datetime.fromtimestamp(int(epoch), tz=_dt.UTC)
+        except ValueError as exc:
+            raise BuildError(
+                f"SOURCE_DATE_EPOCH must be whole seconds since 1970 (got {epoch!r})"
+            ) from exc
+    d = project.revision.date
+    return _dt.datetime(d.year, d.month, d.day, tzinfo=_dt.UTC)
+
+
+def _package_code_hash() -> str:
+    """Hash of the build code and templates, so a changed layout is never skipped as current."""
+    import calcpack
+    from calcpack.package.locations import template_dirs
+
+    here = Path(__file__).resolve().parent
+    digest = hashlib.sha256(calcpack.__version__.encode())
+    files = sorted([*here.glob("*.py"), *here.glob("assets/*")])
+    for folder in template_dirs():
+        files += sorted(Path(folder, "calcpack").glob("*"))
+    for f in files:
+        if f.is_file():
+            digest.update(f.name.encode() + f.read_bytes())
+    return digest.hexdigest()
+
+
+def _load_review(project: Project) -> tuple[tuple[ReviewRow, ...] | None, Path | None]:
+    """The review log (``review.toml`` beside the project file, read by calcpack.signing.review).
+
+    Returns None when the project has no review file.
+    """
+    from calcpack.signing.review import load_review, review_path
+
+    path = review_path(project.root)
+    if not path.is_file():
+        return None, None
+    log = load_review(project.root)
+    rows = []
+    for c in log.comments:
+        opening, later = (c.history[0], c.history[1:]) if c.history else (None, ())
+        text = opening.text if opening else ""
+        for e in later:
+            text += f" — {e.action} by {e.who} ({e.when[:10]}): {e.text}"
+        rows.append(
+            ReviewRow(
+                ident=c.id,
+                sheet=c.sheet,
+                quantity=c.quantity or "",
+                status=c.status,
+                by=opening.who if opening else "",
+                date=opening.when[:10] if opening else "",
+                text=text,
+            )
+        )
+    for o in log.overrides:
+        rows.append(
+            ReviewRow(
+                ident="override",
+                sheet="",
+                quantity="",
+                status="OVERRIDE",
+                by=o.who,
+                date=o.when[:10],
+                text=f"Signed with {', '.join(o.comments)} not closed: {o.reason}",
+            )
+        )
+    return tuple(rows), path
+
+
+def sheet_title(entry: SheetEntry, nb: Any) -> str:
+    """The sheet's title: the project file's, else the notebook's first heading, else its name."""
+    if entry.title:
+        return entry.title
+    for cell in nb.cells:
+        if cell.cell_type == "markdown":
+            m = re.search(r"^#\s+(.+)$", cell.source, re.MULTILINE)
+            if m:
+                return m.group(1).strip()
+    return Path(entry.path).stem.replace("_", " ")
+
+
+_JUPYTER_STYLE_RE = re.compile(r'<style class="cp-style">.*?</style>', re.DOTALL)
+"""The working module's style block for JupyterLab; the PDF uses the package stylesheet."""
+_FIRST_H1_RE = re.compile(r"<h1[^>]*>(.*?)</h1>", re.DOTALL)
+
+
+def _drop_title_heading(body: str, title: str) -> str:
+    """Drop the first level-1 heading if it repeats the sheet title (the sheet head shows it)."""
+    m = _FIRST_H1_RE.search(body)
+    if m is None:
+        return body
+
+    def norm(text: str) -> str:
+        return " ".join(re.sub(r"<[^>]+>", "", text).split()).casefold()
+
+    if norm(m.group(1)) == norm(title):
+        return body[: m.start()] + body[m.end() :]
+    return body
+
+
+def prepare_sheet(
+    entry: SheetEntry, executed: ExecutedSheet | Any, *, source: bool = False
+) -> SheetDoc:
+    """Convert one executed sheet to HTML with its math as SVG images, and read its records.
+
+    Raises:
+        BuildError: a formula cannot be typeset (the message names the sheet).
+    """
+    import nbformat
+
+    from calcpack.package.convert import sheet_fragment
+    from calcpack.package.mathsvg import math_spans_to_images
+
+    nb = (
+        nbformat.reads(executed.notebook_json, as_version=4)
+        if isinstance(executed, ExecutedSheet)
+        else executed
+    )
+    title = sheet_title(entry, nb)
+    try:
+        body = _drop_title_heading(_JUPYTER_STYLE_RE.sub("", sheet_fragment(nb)), title)
+        body = math_spans_to_images(body)
+    except BuildError as exc:
+        raise BuildError(f"Sheet {entry.path!r}: {exc}") from exc
+    cells = (
+        tuple(
+            (i, cell.source)
+            for i, cell in enumerate(nb.cells, start=1)
+            if cell.cell_type == "code" and cell.source.strip()
+        )
+        if source
+        else ()
+    )
+    return SheetDoc(entry, title, body, collect_records(nb), cells)
+
+
+def _build_key(
+    project: Project,
+    executed_keys: list[str],
+    options: DocumentOptions,
+    review_file: Path | None,
+    created: _dt.datetime,
+) -> str:
+    digest = hashlib.sha256()
+    for part in (
+        _package_code_hash(),
+        project.path.read_bytes().decode("utf-8", "replace"),
+        *executed_keys,
+        options.paper,
+        str(options.reviewer_copy),
+        created.isoformat(),
+        review_file.read_text("utf-8") if review_file else "",
+    ):
+        digest.update(part.encode() + b"\0")
+    return digest.hexdigest()
+
+
+def _previous_manifest(path: Path) -> dict[str, Any]:
+    """The manifest of the package already in the output folder ({} if none or unreadable)."""
+    import json
+
+    try:
+        data = json.loads(path.read_text("utf-8"))
+    except (OSError, ValueError):
+        return {}
+    return data if isinstance(data, dict) else {}
+
+
+def _page_guess(
+    previous: dict[str, Any], executed: list[ExecutedSheet], options: DocumentOptions
+) -> dict[str, int]:
+    """Expected page count per sheet: the previous build's for unchanged sheets, else 1.
+
+    A sheet's page count depends only on its own content and the paper, so when the guess is
+    right the layout needs one pass instead of two.
+    """
+    if previous.get("build", {}).get("paper") != options.paper:
+        previous = {}
+    known = {s.get("path"): s for s in previous.get("sheets", []) if isinstance(s, dict)}
+    guess = {}
+    for item in executed:
+        old = known.get(item.entry.path)
+        if old and old.get("cache_key") == item.cache_key:
+            first, last = old.get("pages", [1, 1])
+            guess[item.entry.path] = int(last) - int(first) + 1
+        else:
+            guess[item.entry.path] = 1  # most sheets fit one page; a wrong guess costs a pass
+    return guess
+
+
+def _safe_name(text: str) -> str:
+    return re.sub(r"[^A-Za-z0-9._-]+", "-", text).strip("-") or "package"
+
+
+def _atomic_write(path: Path, data: bytes) -> Path:
+    """Write to a temporary file in the same folder; the caller moves it into place."""
+    handle, tmp = tempfile.mkstemp(dir=path.parent, prefix=f".{path.name}.", suffix=".tmp")
+    with os.fdopen(handle, "wb") as out:
+        out.write(data)
+        out.flush()
+        os.fsync(out.fileno())
+    return Path(tmp)
+
+
+def build(
+    location: str | Path,
+    *,
+    out_dir: str | Path | None = None,
+    workers: int = 2,
+    timeout: float = DEFAULT_CELL_TIMEOUT_S,
+    use_cache: bool = True,
+    paper: str | None = None,
+    reviewer_copy: bool = False,
+    force: bool = False,
+    report: Reporter | None = None,
+) -> BuildResult:
+    """Build the calc package of a project folder (or project file).
+
+    Args:
+        location: the project folder or its ``calcpack.toml``.
+        out_dir: where to write the PDF and manifest (default ``PROJECT/build``).
+        workers: worker processes executing sheets in parallel.
+        timeout: per-cell execution limit, seconds.
+        use_cache: reuse executed sheets whose inputs did not change.
+        paper: "A4" or "Letter" (default: the project file's).
+        reviewer_copy: append every sheet's source code as an appendix.
+        force: rebuild even when the existing package is up to date.
+        report: optional progress hook.
+
+    Returns:
+        The paths written and the manifest.
+
+    Raises:
+        ProjectFileError: the project file is missing or invalid.
+        NotebookExecutionError: a cell failed; nothing is written.
+        BuildError: conversion, typesetting or layout failed; nothing is written.
+    """
+    start = time.perf_counter()
+    project = load_project(location)
+    if paper is not None and paper not in ("A4", "Letter"):
+        raise BuildError(f"Paper size must be 'A4' or 'Letter' (got paper = {paper!r})")
+    from calcpack import __version__
+
+    options = DocumentOptions(
+        paper=paper or project.paper, reviewer_copy=reviewer_copy, calcpack_version=__version__
+    )
+    review, review_file = _load_review(project)
+    options = replace(options, review=review)
+    created = build_created(project)
+    out = Path(out_dir) if out_dir is not None else project.root / "build"
+    stem = _safe_name(f"{project.job_number}-calcs-rev{project.revision.rev}")
+    if options.paper != project.paper:
+        stem += f"-{options.paper.lower()}"
+    pdf_path = out / f"{stem}.pdf"
+    manifest_path = out / f"{stem}.manifest.json"
+
+    from calcpack.package.execute import sheet_cache_key
+
+    keys = [sheet_cache_key(project, s) for s in project.sheets]
+    build_key = _build_key(project, keys, options, review_file, created)
+    previous = _previous_manifest(manifest_path)
+    if not force and pdf_path.is_file() and previous.get("build", {}).get("build_key") == build_key:
+        return BuildResult(
+            pdf_path,
+            manifest_path,
+            previous,
+            int(previous.get("build", {}).get("pages", 0)),
+            (),
+            (),
+            True,
+            time.perf_counter() - start,
+        )
+
+    def on_sheet(stage: str, sheet: SheetEntry) -> None:
+        if report:
+            report(stage, sheet.path)
+
+    executed = execute_sheets(
+        project, workers=workers, timeout=timeout, use_cache=use_cache, progress=on_sheet
+    )
+    from calcpack.package.execute import CACHE_DIR_NAME
+    from calcpack.package.mathsvg import load_math_cache, save_math_cache, used_keys
+
+    math_cache = project.root / CACHE_DIR_NAME / "math.json"
+    if use_cache:
+        load_math_cache(math_cache)
+    used_keys.clear()
+    docs = []
+    for item in executed:
+        if report:
+            report("rendering", item.entry.path)
+        docs.append(prepare_sheet(item.entry, item, source=reviewer_copy))
+
+    sheet_ids = {doc.entry.path: f"sheet-{i}" for i, doc in enumerate(docs, start=1)}
+    section_ids = [
+        "cover",
+        "contents",
+        "design-basis",
+        "assumptions",
+        *sheet_ids.values(),
+        "summary",
+        "revisions",
+        "review-log",
+    ]
+    if reviewer_copy:
+        section_ids.append("appendix-source")
+    if report:
+        report("layout", f"{len(docs)} sheets")
+    layout, _html = paginate(
+        lambda counts: document_html(
+            project, docs, replace(options, sheet_pages=counts), created=created
+        ),
+        sheet_ids=sheet_ids,
+        section_ids=section_ids,
+        roles=ROLES,
+        base_url=str(project.root),
+        guess=_page_guess(previous, executed, options),
+    )
+    if use_cache:
+        save_math_cache(math_cache, set(used_keys))
+    manifest: dict[str, Any] = {
+        "format": MANIFEST_FORMAT,
+        "calcpack_version": __version__,
+        "dependencies": dependency_versions(),
+        "project": project.summary(),
+        "files": project_files(project, review_file),
+        "sheets": [
+            {
+                "number": doc.entry.number,
+                "title": doc.title,
+                "path": doc.entry.path,
+                "cache_key": item.cache_key,
+                "pages": list(layout.section_pages[sheet_ids[doc.entry.path]]),
+                "values": list(doc.records.values),
+                "checks": list(doc.records.checks),
+                "assumptions": list(doc.records.assumptions),
+                "cautions": list(doc.records.cautions),
+            }
+            for doc, item in zip(docs, executed, strict=True)
+        ],
+        "signature_fields": list(layout.signature_fields),
+        "sections": {k: list(v) for k, v in layout.section_pages.items()},
+        "build": {
+            "created": created.isoformat(),
+            "paper": options.paper,
+            "reviewer_copy": reviewer_copy,
+            "pages": layout.page_count,
+            "build_key": build_key,
+        },
+    }
+    data = manifest_bytes(manifest)
+    if report:
+        report("writing", pdf_path.name)
+    pdf = write_pdf(
+        layout,
+        created=created,
+        attachments=[
+            PdfAttachment(
+                MANIFEST_ATTACHMENT_NAME, data, "calcpack build manifest: inputs, versions, results"
+            )
+        ],
+        identifier_seed=build_key.encode(),
+    )
+    out.mkdir(parents=True, exist_ok=True)
+    tmp_manifest = _atomic_write(manifest_path, data)
+    try:
+        tmp_pdf = _atomic_write(pdf_path, pdf)
+    except BaseException:
+        tmp_manifest.unlink(missing_ok=True)
+        raise
+    os.replace(tmp_manifest, manifest_path)
+    os.replace(tmp_pdf, pdf_path)
+    return BuildResult(
+        pdf_path,
+        manifest_path,
+        manifest,
+        layout.page_count,
+        tuple(i.entry.path for i in executed if not i.from_cache),
+        tuple(i.entry.path for i in executed if i.from_cache),
+        False,
+        time.perf_counter() - start,
+    )
+
+
+def single_sheet_pdf(nb: Any, *, name: str = "sheet") -> bytes:
+    """One executed notebook as a paginated PDF with the package layout (no project folder).
+
+    Job fields come from the notebook's ``metadata.calcpack`` when present.
+    """
+    meta = dict(nb.metadata.get("calcpack", {}) or {})
+    today = _dt.date.today()
+    project = Project(
+        path=Path(name).resolve(),
+        job_number=str(meta.get("job_number", "—")),
+        job_title=str(meta.get("job_title", name)),
+        client=str(meta.get("client", "")),
+        site=str(meta.get("site", "")),
+        units=str(meta.get("units", "SI")),
+        paper=str(meta.get("paper", "A4")),
+        firm=str(meta.get("firm", "")),
+        firm_address="",
+        preparer=Person(str(meta.get("preparer", "—"))),
+        checker=Person(str(meta.get("checker", "—"))),
+        approver=Person(str(meta.get("approver", "—"))),
+        revisions=(Revision(str(meta.get("revision", "—")), today, "Single sheet"),),
+        sheets=(SheetEntry(str(meta.get("sheet_number", "1")), f"{name}.ipynb", None),),
+        design=_single_design(),
+    )
+    from calcpack import __version__
+
+    doc = prepare_sheet(project.sheets[0], nb)
+    created = _dt.datetime(today.year, today.month, today.day, tzinfo=_dt.UTC)
+    options = DocumentOptions(paper=project.paper, calcpack_version=__version__, sheets_only=True)
+    layout, _ = paginate(
+        lambda counts: document_html(
+            project, [doc], replace(options, sheet_pages=counts), created=created
+        ),
+        sheet_ids={doc.entry.path: "sheet-1"},
+        section_ids=["sheet-1"],
+        roles=(),
+    )
+    return write_pdf(layout, created=created, identifier_seed=name.encode())
+
+
+def _single_design() -> Any:
+    from calcpack.package.project import Design
+
+    return Design(standards=())

@@ -1,0 +1,497 @@
+"""The project file: one TOML file per job naming the sheets, the people and the design basis.
+
+A project folder holds ``calcpack.toml`` and the sheet notebooks it lists. :func:`load_project`
+reads and validates it; every problem is reported with the file, the field (as a dotted path such
+as ``sheets[2].path``) and what was expected, e.g.::
+
+    calcpack.toml: field 'job.number' is missing (expected a job number such as "2417")
+
+The file layout (every table below is required unless marked optional)::
+
+    [job]
+    number = "2417"                  # job number, printed on every page
+    title = "Rear extension, 14 Quarry Lane"
+    client = "Harrow & Finch Builders"
+    site = "14 Quarry Lane, Eastmoor"
+    units = "SI"                     # "SI" or "US"
+    paper = "A4"                     # optional: "A4" (default) or "Letter"
+    firm = "Northgate Structural"    # optional: the issuing practice
+    firm_address = "..."             # optional
+
+    [people]
+    preparer = "A. Okafor"           # or { name = "A. Okafor", date = 2026-11-18 }
+    checker = "J. Lindqvist"
+    approver = "R. Mbeki"
+
+    [[revisions]]                    # oldest first; the last one is the revision being issued
+    rev = "A"
+    date = 2026-11-20
+    description = "First issue"
+    status = "For comment"           # optional, e.g. "Preliminary", "For construction"
+
+    [[sheets]]                       # in issue order
+    path = "sheets/01_loads.ipynb"
+    title = "Loads"                  # optional: defaults to the notebook's first heading
+    inputs = ["inputs/loads.csv"]    # optional: files the sheet reads (hashed for the cache)
+
+    [design]
+    standards = ["EN 1990:2002 Basis of structural design"]
+    materials = ["Timber C24"]        # optional
+    loads = ["Imposed floor load 1.5 kN/m²"]  # optional
+    basis = "Markdown text"           # optional
+    assumptions = ["..."]             # optional
+    cautions = ["..."]                # optional
+"""
+
+from __future__ import annotations
+
+import datetime as _dt
+import hashlib
+import tomllib
+from collections.abc import Mapping
+from dataclasses import dataclass, field
+from pathlib import Path
+from typing import Any
+
+from calcpack.errors import BuildError, InputError
+
+__all__ = [
+    "PROJECT_FILE_NAME",
+    "Design",
+    "Person",
+    "Project",
+    "ProjectFileError",
+    "Revision",
+    "SheetEntry",
+    "file_sha256",
+    "find_project_file",
+    "load_project",
+]
+
+PROJECT_FILE_NAME = "calcpack.toml"
+PAPER_SIZES = ("A4", "Letter")
+UNIT_SYSTEMS = ("SI", "US")
+
+
+class ProjectFileError(InputError, BuildError):
+    """The project file is missing, unreadable, or a field in it is missing or malformed.
+
+    ``name`` is the dotted field path (``"sheets[2].path"``), ``value`` what was found and
+    ``expected`` what would be valid.
+    """
+
+
+@dataclass(frozen=True)
+class Person:
+    """A named person in a role (preparer, checker, approver) with the date of their part."""
+
+    name: str
+    date: _dt.date | None = None
+
+
+@dataclass(frozen=True)
+class Revision:
+    """One entry of the revision history; the last one is the revision being issued."""
+
+    rev: str
+    date: _dt.date
+    description: str
+    status: str = ""
+
+
+@dataclass(frozen=True)
+class SheetEntry:
+    """A sheet as listed in the project file: its notebook and the files it reads."""
+
+    number: str
+    path: str
+    """Notebook path relative to the project folder, with forward slashes."""
+    title: str | None
+    inputs: tuple[str, ...] = ()
+
+
+@dataclass(frozen=True)
+class Design:
+    """The project-wide design basis, printed before the sheets."""
+
+    standards: tuple[str, ...]
+    materials: tuple[str, ...] = ()
+    loads: tuple[str, ...] = ()
+    basis: str = ""
+    assumptions: tuple[str, ...] = ()
+    cautions: tuple[str, ...] = ()
+
+
+@dataclass(frozen=True)
+class Project:
+    """A validated project file."""
+
+    path: Path
+    """Absolute path of the project file."""
+    job_number: str
+    job_title: str
+    client: str
+    site: str
+    units: str
+    paper: str
+    firm: str
+    firm_address: str
+    preparer: Person
+    checker: Person
+    approver: Person
+    revisions: tuple[Revision, ...]
+    sheets: tuple[SheetEntry, ...]
+    design: Design
+    inputs: tuple[str, ...] = field(default=())
+    """Project-wide inputs files (relative paths), hashed into every sheet's cache key."""
+
+    @property
+    def root(self) -> Path:
+        """The project folder."""
+        return self.path.parent
+
+    @property
+    def revision(self) -> Revision:
+        """The revision being issued (the last in the history)."""
+        return self.revisions[-1]
+
+    def sheet_path(self, sheet: SheetEntry) -> Path:
+        """Absolute path of a sheet's notebook."""
+        return self.root / sheet.path
+
+    def summary(self) -> dict[str, Any]:
+        """The project block of the manifest (JSON-ready)."""
+        return {
+            "job_number": self.job_number,
+            "job_title": self.job_title,
+            "client": self.client,
+            "site": self.site,
+            "firm": self.firm,
+            "units": self.units,
+            "paper": self.paper,
+            "revision": self.revision.rev,
+            "revision_date": self.revision.date.isoformat(),
+            "revision_status": self.revision.status,
+            "preparer": self.preparer.name,
+            "checker": self.checker.name,
+            "approver": self.approver.name,
+            "standards": list(self.design.standards),
+        }
+
+
+def file_sha256(path: Path) -> str:
+    """Hex SHA-256 of a file's bytes."""
+    return hashlib.sha256(path.read_bytes()).hexdigest()
+
+
+def find_project_file(location: str | Path) -> Path:
+    """The project file for a folder or file path.
+
+    Raises:
+        ProjectFileError: there is no such file or folder, or the folder has no project file.
+    """
+    path = Path(location).expanduser()
+    if path.is_dir():
+        path = path / PROJECT_FILE_NAME
+    if not path.is_file():
+        raise ProjectFileError(
+            f"Project file {str(path)!r} not found (expected a folder holding "
+            f"{PROJECT_FILE_NAME} or the path of a project file)",
+            name="project",
+            value=str(location),
+            expected=f"a folder with {PROJECT_FILE_NAME}",
+        )
+    return path.resolve()
+
+
+class _Reader:
+    """Pulls typed fields out of the parsed TOML, naming the file and field on every error."""
+
+    def __init__(self, file: Path) -> None:
+        self.file = file
+
+    def fail(self, where: str, value: Any, expected: str, problem: str | None = None) -> None:
+        if problem is None:
+            problem = f"is {type(value).__name__} {value!r}"
+        raise ProjectFileError(
+            f"{self.file.name}: field {where!r} {problem} (expected {expected})",
+            name=where,
+            value=value,
+            expected=expected,
+        )
+
+    def table(
+        self, data: Mapping[str, Any], key: str, where: str, *, required: bool = True
+    ) -> Mapping[str, Any]:
+        if key not in data:
+            if required:
+                self.fail(where, None, "a table [" + where + "]", "is missing")
+            return {}
+        value = data[key]
+        if not isinstance(value, Mapping):
+            self.fail(where, value, "a table [" + where + "]")
+        table: Mapping[str, Any] = value
+        return table
+
+    def text(
+        self,
+        data: Mapping[str, Any],
+        key: str,
+        where: str,
+        expected: str,
+        *,
+        default: str | None = None,
+    ) -> str:
+        if key not in data:
+            if default is not None:
+                return default
+            self.fail(where, None, expected, "is missing")
+        value = data[key]
+        if not isinstance(value, str):
+            self.fail(where, value, expected)
+        if default is None and not str(value).strip():
+            self.fail(where, value, expected, "is empty")
+        return str(value).strip()
+
+    def choice(
+        self,
+        data: Mapping[str, Any],
+        key: str,
+        where: str,
+        options: tuple[str, ...],
+        default: str | None = None,
+    ) -> str:
+        expected = " or ".join(repr(o) for o in options)
+        value = self.text(data, key, where, expected, default=default)
+        if value not in options:
+            self.fail(where, value, expected)
+        return value
+
+    def date(
+        self, data: Mapping[str, Any], key: str, where: str, *, required: bool = True
+    ) -> _dt.date | None:
+        expected = "a TOML date such as 2026-11-20 (no quotes)"
+        if key not in data:
+            if required:
+                self.fail(where, None, expected, "is missing")
+            return None
+        value = data[key]
+        if isinstance(value, _dt.datetime):
+            return value.date()
+        if isinstance(value, _dt.date):
+            return value
+        if isinstance(value, str):
+            try:
+                return _dt.date.fromisoformat(value)
+            except ValueError:
+                pass
+        self.fail(where, value, expected)
+        return None  # pragma: no cover - fail() raises
+
+    def texts(
+        self, data: Mapping[str, Any], key: str, where: str, *, required: bool = False
+    ) -> tuple[str, ...]:
+        expected = 'a list of strings such as ["..."]'
+        if key not in data:
+            if required:
+                self.fail(where, None, expected, "is missing")
+            return ()
+        value = data[key]
+        if isinstance(value, str):
+            value = [value]
+        if not isinstance(value, list):
+            self.fail(where, value, expected)
+        out = []
+        for i, item in enumerate(value):
+            if not isinstance(item, str) or not item.strip():
+                self.fail(f"{where}[{i + 1}]", item, "a non-empty string")
+            out.append(item.strip())
+        return tuple(out)
+
+    def person(self, data: Mapping[str, Any], key: str, where: str) -> Person:
+        expected = 'a name such as "A. Okafor" or { name = "...", date = 2026-11-18 }'
+        if key not in data:
+            self.fail(where, None, expected, "is missing")
+        value = data[key]
+        if isinstance(value, str):
+            if not value.strip():
+                self.fail(where, value, expected, "is empty")
+            return Person(value.strip())
+        if isinstance(value, Mapping):
+            name = self.text(value, "name", f"{where}.name", "the person's name")
+            return Person(name, self.date(value, "date", f"{where}.date", required=False))
+        self.fail(where, value, expected)
+        raise AssertionError  # pragma: no cover
+
+
+def load_project(location: str | Path) -> Project:
+    """Read and validate a project file (or the ``calcpack.toml`` in a folder).
+
+    Raises:
+        ProjectFileError: the file is missing or is not valid TOML, a field is missing or
+            malformed, or a listed sheet notebook or inputs file does not exist.
+    """
+    file = find_project_file(location)
+    try:
+        data = tomllib.loads(file.read_text(encoding="utf-8"))
+    except (tomllib.TOMLDecodeError, UnicodeDecodeError) as exc:
+        raise ProjectFileError(
+            f"{file.name}: not valid TOML ({exc})",
+            name="project",
+            value=str(file),
+            expected="a TOML file",
+        ) from exc
+    r = _Reader(file)
+
+    job = r.table(data, "job", "job")
+    job_number = r.text(job, "number", "job.number", 'a job number such as "2417"')
+    job_title = r.text(job, "title", "job.title", "the job title")
+    client = r.text(job, "client", "job.client", "the client's name")
+    site = r.text(job, "site", "job.site", "the site address")
+    units = r.choice(job, "units", "job.units", UNIT_SYSTEMS)
+    paper = r.choice(job, "paper", "job.paper", PAPER_SIZES, default="A4")
+    firm = r.text(job, "firm", "job.firm", "the practice's name", default="")
+    firm_address = r.text(job, "firm_address", "job.firm_address", "an address", default="")
+
+    people = r.table(data, "people", "people")
+    preparer = r.person(people, "preparer", "people.preparer")
+    checker = r.person(people, "checker", "people.checker")
+    approver = r.person(people, "approver", "people.approver")
+
+    raw_revisions = data.get("revisions")
+    if not isinstance(raw_revisions, list) or not raw_revisions:
+        r.fail(
+            "revisions",
+            raw_revisions,
+            "at least one [[revisions]] table with rev, date and description",
+            "is missing" if raw_revisions is None else None,
+        )
+    revisions = []
+    assert isinstance(raw_revisions, list)
+    for i, item in enumerate(raw_revisions, start=1):
+        where = f"revisions[{i}]"
+        if not isinstance(item, Mapping):
+            r.fail(where, item, "a [[revisions]] table")
+        rev_value = item.get("rev")
+        if isinstance(rev_value, int) and not isinstance(rev_value, bool):
+            rev = str(rev_value)
+        else:
+            rev = r.text(item, "rev", f"{where}.rev", 'a revision letter or number such as "A"')
+        date = r.date(item, "date", f"{where}.date")
+        assert date is not None
+        description = r.text(
+            item, "description", f"{where}.description", "what the revision changed"
+        )
+        status = r.text(item, "status", f"{where}.status", "a status", default="")
+        revisions.append(Revision(rev, date, description, status))
+    seen: set[str] = set()
+    for i, revision in enumerate(revisions, start=1):
+        if revision.rev in seen:
+            r.fail(
+                f"revisions[{i}].rev",
+                revision.rev,
+                "a revision not listed before",
+                f"repeats revision {revision.rev!r}",
+            )
+        seen.add(revision.rev)
+        if i > 1 and revision.date < revisions[i - 2].date:
+            r.fail(
+                f"revisions[{i}].date",
+                revision.date.isoformat(),
+                f"a date on or after {revisions[i - 2].date.isoformat()} (oldest first)",
+                "is earlier than the revision before it",
+            )
+
+    raw_sheets = data.get("sheets")
+    if not isinstance(raw_sheets, list) or not raw_sheets:
+        r.fail(
+            "sheets",
+            raw_sheets,
+            "at least one [[sheets]] table with a path",
+            "is missing" if raw_sheets is None else None,
+        )
+    assert isinstance(raw_sheets, list)
+    sheets = []
+    paths: set[str] = set()
+    for i, item in enumerate(raw_sheets, start=1):
+        where = f"sheets[{i}]"
+        if not isinstance(item, Mapping):
+            r.fail(where, item, "a [[sheets]] table with a path")
+        path = r.text(item, "path", f"{where}.path", "a notebook path relative to the project")
+        path = path.replace("\\", "/")
+        if not path.endswith(".ipynb"):
+            r.fail(f"{where}.path", path, "a notebook path ending in .ipynb")
+        if path in paths:
+            r.fail(f"{where}.path", path, "each notebook listed once", "repeats a sheet")
+        paths.add(path)
+        if not (file.parent / path).is_file():
+            r.fail(
+                f"{where}.path",
+                path,
+                "an existing notebook in the project folder",
+                "names a notebook that does not exist",
+            )
+        title = item.get("title")
+        if title is not None and (not isinstance(title, str) or not title.strip()):
+            r.fail(f"{where}.title", title, "the sheet title as a non-empty string")
+        number = item.get("number", str(i))
+        if isinstance(number, int) and not isinstance(number, bool):
+            number = str(number)
+        if not isinstance(number, str) or not number.strip():
+            r.fail(f"{where}.number", number, 'a sheet number such as "3" or "L1"')
+        inputs = r.texts(item, "inputs", f"{where}.inputs")
+        for k, inp in enumerate(inputs, start=1):
+            if not (file.parent / inp).is_file():
+                r.fail(
+                    f"{where}.inputs[{k}]",
+                    inp,
+                    "an existing file in the project folder",
+                    "names a file that does not exist",
+                )
+        sheets.append(SheetEntry(number.strip(), path, title.strip() if title else None, inputs))
+
+    design_table = r.table(data, "design", "design")
+    design = Design(
+        standards=r.texts(design_table, "standards", "design.standards", required=True),
+        materials=r.texts(design_table, "materials", "design.materials"),
+        loads=r.texts(design_table, "loads", "design.loads"),
+        basis=r.text(design_table, "basis", "design.basis", "markdown text", default=""),
+        assumptions=r.texts(design_table, "assumptions", "design.assumptions"),
+        cautions=r.texts(design_table, "cautions", "design.cautions"),
+    )
+    if not design.standards:
+        r.fail("design.standards", [], "at least one design standard", "is empty")
+
+    inputs = r.texts(data, "inputs", "inputs")
+    for k, inp in enumerate(inputs, start=1):
+        if not (file.parent / inp).is_file():
+            r.fail(
+                f"inputs[{k}]",
+                inp,
+                "an existing file in the project folder",
+                "names a file that does not exist",
+            )
+
+    known = {"job", "people", "revisions", "sheets", "design", "inputs", "review"}
+    for key in data:
+        if key not in known:
+            r.fail(key, data[key], "one of " + ", ".join(sorted(known)), "is not a known table")
+
+    return Project(
+        path=file,
+        job_number=job_number,
+        job_title=job_title,
+        client=client,
+        site=site,
+        units=units,
+        paper=paper,
+        firm=firm,
+        firm_address=firm_address,
+        preparer=preparer,
+        checker=checker,
+        approver=approver,
+        revisions=tuple(revisions),
+        sheets=tuple(sheets),
+        design=design,
+        inputs=inputs,
+    )

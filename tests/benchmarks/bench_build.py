@@ -1,0 +1,186 @@
+"""Benchmark the package build against the bare pipeline on the same notebooks.
+
+Run from a checkout (not collected by pytest)::
+
+    python tests/benchmarks/bench_build.py            # 20 sheets
+    python tests/benchmarks/bench_build.py --sheets 200 --skip-bare --skip-serial
+
+It prints, for an N-sheet project made from the demo sheets:
+
+- cold build with 2 workers, and with 1 worker (serial execution), and their ratio;
+- the bare pipeline in the same run: stock nbclient execution + stock nbconvert HTML + WeasyPrint,
+  math left as TeX, one PDF per notebook -- and the ratio of the build to it;
+- a no-change rebuild as a fraction of the cold build;
+- peak resident memory of the build process and of its worker/kernel processes.
+
+Targets (issue 4): <= 1.3x the bare pipeline cold; <= 5 % of cold for a no-change rebuild;
+>= 1.7x from 2 workers; peak memory < 1 GB for 200 sheets.
+"""
+
+from __future__ import annotations
+
+import argparse
+import os
+import re
+import resource
+import shutil
+import sys
+import tempfile
+import time
+from pathlib import Path
+
+ROOT = Path(__file__).resolve().parents[2]
+sys.path.insert(0, str(ROOT))
+os.environ["PYTHONPATH"] = os.pathsep.join(
+    p for p in (str(ROOT), os.environ.get("PYTHONPATH", "")) if p
+)
+
+from calcpack.package.pipeline import build  # noqa: E402
+from calcpack.package.scaffold import demo_project_source  # noqa: E402
+
+
+def make_project(root: Path, sheets: int) -> Path:
+    """An N-sheet project cycling through the demo sheets (each copy its own notebook)."""
+    source = demo_project_source()
+    (root / "sheets").mkdir(parents=True)
+    notebooks = sorted((source / "sheets").glob("*.ipynb"))
+    toml = (source / "calcpack.toml").read_text("utf-8")
+    head = toml[: toml.index("[[sheets]]")]
+    tail = toml[toml.index("[design]") :]
+    entries = []
+    for i in range(sheets):
+        nb = notebooks[i % len(notebooks)]
+        name = f"sheets/{i + 1:03d}_{nb.stem}.ipynb"
+        text = nb.read_text("utf-8")
+        # Vary a value so sheets differ (different formulas and results per sheet).
+        text = re.sub(
+            r"(\d+\.\d+) \* ureg\.kN",
+            lambda m, i=i: f"{float(m.group(1)) + i:.2f} * ureg.kN",
+            text,
+            count=1,
+        )
+        (root / name).write_text(text, "utf-8")
+        entries.append(f'[[sheets]]\npath = "{name}"\ntitle = "Sheet {i + 1}: {nb.stem}"\n')
+    (root / "calcpack.toml").write_text(head + "\n".join(entries) + "\n" + tail, "utf-8")
+    return root
+
+
+def bare_pipeline(project: Path, out: Path) -> float:
+    """Stock nbclient + stock nbconvert HTML + WeasyPrint, serially; returns seconds."""
+    import nbformat
+    from nbclient import NotebookClient
+    from nbconvert import HTMLExporter
+    from weasyprint import HTML
+
+    start = time.perf_counter()
+    out.mkdir(parents=True, exist_ok=True)
+    exporter = HTMLExporter()
+    for path in sorted((project / "sheets").glob("*.ipynb")):
+        nb = nbformat.read(path, as_version=4)
+        NotebookClient(
+            nb, timeout=120, resources={"metadata": {"path": str(path.parent)}}
+        ).execute()
+        body, _ = exporter.from_notebook_node(nb)
+        HTML(string=body, base_url=str(path.parent)).write_pdf(out / f"{path.stem}.pdf")
+    return time.perf_counter() - start
+
+
+def _spin(_: int) -> int:
+    total = 0
+    for i in range(30_000_000):
+        total += i
+    return total
+
+
+def machine_parallelism() -> float:
+    """Speed-up of two CPU-bound processes over one on this machine (2.0 = two free cores)."""
+    import multiprocessing
+
+    t = time.perf_counter()
+    _spin(0)
+    one = time.perf_counter() - t
+    with multiprocessing.get_context("spawn").Pool(2) as pool:
+        pool.map(abs, [0, 1])  # let both workers finish starting before timing
+        t = time.perf_counter()
+        pool.map(_spin, [0, 1])
+        two = time.perf_counter() - t
+    return 2 * one / two
+
+
+def peak_mb() -> tuple[float, float]:
+    """Peak RSS (MB) of this process and of the largest finished child process."""
+    self_kb = resource.getrusage(resource.RUSAGE_SELF).ru_maxrss
+    child_kb = resource.getrusage(resource.RUSAGE_CHILDREN).ru_maxrss
+    return self_kb / 1024, child_kb / 1024
+
+
+def main() -> int:
+    parser = argparse.ArgumentParser(description=__doc__.splitlines()[0])
+    parser.add_argument("--sheets", type=int, default=20)
+    parser.add_argument("--skip-bare", action="store_true")
+    parser.add_argument("--skip-serial", action="store_true")
+    args = parser.parse_args()
+
+    work = Path(tempfile.mkdtemp(prefix="calcpack-bench-"))
+    try:
+        print(f"{args.sheets}-sheet project in {work}")
+        print(
+            f"machine: two CPU-bound processes run {machine_parallelism():.2f}x as fast as one"
+            " (the ceiling for the 2-worker speed-up)"
+        )
+        two = make_project(work / "two", args.sheets)
+        t = time.perf_counter()
+        result = build(two, workers=2)
+        cold2 = time.perf_counter() - t
+        print(f"build, cold, 2 workers:     {cold2:7.1f} s  ({result.page_count} pages)")
+
+        t = time.perf_counter()
+        again = build(two, workers=2)
+        nochange = time.perf_counter() - t
+        assert again.up_to_date
+        print(
+            f"build, no change:           {nochange:7.2f} s  = {nochange / cold2:.1%} of cold"
+            "  (target <= 5 %)"
+        )
+
+        path = two / "sheets" / sorted(p.name for p in (two / "sheets").iterdir())[0]
+        path.write_text(
+            path.read_text("utf-8").replace("floor dead load", "floor dead load "), "utf-8"
+        )
+        t = time.perf_counter()
+        one_changed = build(two, workers=2)
+        print(
+            f"build, one sheet changed:   {time.perf_counter() - t:7.1f} s  "
+            f"({len(one_changed.executed)} executed)"
+        )
+
+        if not args.skip_serial:
+            one = make_project(work / "one", args.sheets)
+            t = time.perf_counter()
+            build(one, workers=1)
+            cold1 = time.perf_counter() - t
+            print(
+                f"build, cold, 1 worker:      {cold1:7.1f} s  -> 2 workers are "
+                f"{cold1 / cold2:.2f}x faster (target >= 1.7x on 2 free cores)"
+            )
+
+        me, children = peak_mb()
+        print(
+            f"peak memory: build process {me:.0f} MB, largest child {children:.0f} MB"
+            "  (target < 1 GB for 200 sheets)"
+        )
+
+        if not args.skip_bare:
+            bare_project = make_project(work / "bare", args.sheets)
+            bare = bare_pipeline(bare_project, work / "bare-out")
+            print(f"bare pipeline, serial:      {bare:7.1f} s")
+            print(f"ratio build(2 workers)/bare: {cold2 / bare:.2f}  (target <= 1.3)")
+            if not args.skip_serial:
+                print(f"ratio build(1 worker)/bare:  {cold1 / bare:.2f}")
+    finally:
+        shutil.rmtree(work, ignore_errors=True)
+    return 0
+
+
+if __name__ == "__main__":
+    raise SystemExit(main())

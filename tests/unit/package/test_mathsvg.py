@@ -1,0 +1,117 @@
+"""TeX to SVG: the formula forms sympy, pint and calcpack.working emit typeset as vector paths."""
+
+from __future__ import annotations
+
+import base64
+import re
+import xml.etree.ElementTree as ET
+
+import pytest
+
+from calcpack.errors import BuildError
+from calcpack.package.mathsvg import (
+    fix_tex,
+    markdown_math_to_spans,
+    math_spans_to_images,
+    tex_to_svg,
+)
+
+# What the working module, sympy's latex() and pint's LaTeX formatter emit (checked by hand
+# against their output: sympy.latex(Integral(x, (x, 0, L))) gives \int\limits_{0}^{L} x\, dx;
+# pint's "~L" format gives \mathrm{kN} \cdot \mathrm{m}).
+FORMULAS = [
+    r"\frac{w L^{2}}{8}",
+    r"\sqrt{\frac{E I}{m}}",
+    r"x_{i}^{2} + \alpha \beta \gamma \Delta \sigma_{b}",
+    r"\left(\frac{a}{b}\right)^{2}",
+    r"\begin{aligned} M &= \frac{w L^{2}}{8} \\ &= 4.36\ \mathrm{kN} \cdot \mathrm{m}\end{aligned}",
+    r"\sum_{i=1}^{n} F_{i} = 0",
+    r"\int\limits_{0}^{L} w(x)\, dx",
+    r"\frac{1}{\sqrt{2 g h}}",
+    r"\bar{x}^{2}",
+    r"\sigma_{b} = 5.05\ \mathrm{MPa} \leq f_{b} = 11.0\ \mathrm{MPa}",
+]
+
+
+@pytest.mark.parametrize("tex", FORMULAS)
+def test_formula_is_vector_svg_with_size(tex: str) -> None:
+    image = tex_to_svg(tex, display=True)
+    root = ET.fromstring(image.svg)
+    assert root.tag.endswith("svg")
+    tags = {el.tag.rsplit("}", 1)[-1] for el in root.iter()}
+    assert "path" in tags  # glyphs are outlines
+    assert "image" not in tags  # never a raster
+    assert "text" not in tags  # no font needed to show it
+    assert image.width_px > 5
+    assert image.height_px > 5
+    assert 0 <= image.baseline_px < image.height_px
+
+
+def test_cache_returns_the_same_image() -> None:
+    assert tex_to_svg(r"M_{max}") is tex_to_svg(r"M_{max}")
+    assert tex_to_svg(r"M_{max}", display=True) is not tex_to_svg(r"M_{max}")
+
+
+def test_root_in_denominator_clears_the_fraction_bar() -> None:
+    # The root's box must include its rule, so the fraction grows by the clearance; compared
+    # with the same formula typeset by ziamath as it ships (the defect).
+    import ziamath
+    from ziamath.tex import tex2mml
+
+    from calcpack.package.mathsvg import _cache
+
+    tex = r"\frac{1}{\sqrt{2 g h}}"
+    fixed = tex_to_svg(tex, display=True, size_px=28.0)
+    _cache.clear()
+    import ziamath.nodes.mroot as mroot
+
+    patched = mroot.Mroot._setup
+    try:
+        mroot.Mroot._setup = patched.__wrapped__  # the method as shipped
+        as_shipped = ziamath.Math(tex2mml(tex), size=28.0).getsize()[1]
+    finally:
+        mroot.Mroot._setup = patched
+    assert fixed.height_px > as_shipped + 1.0
+
+
+def test_fix_tex_moves_script_off_accent() -> None:
+    assert fix_tex(r"\bar{x}^{2}") == r"\bar{x}{}^{2}"
+    assert fix_tex(r"\hat{M}_{c}^{2}") == r"\hat{M}{}_{c}^{2}"
+    assert fix_tex(r"\bar{x} + y^{2}") == r"\bar{x} + y^{2}"
+
+
+def test_script_on_accent_sits_at_normal_height() -> None:
+    # TeX attaches the script to the nucleus, so x̄² is no taller than x² plus the accent.
+    plain = tex_to_svg(r"x^{2}")
+    accented = tex_to_svg(r"\bar{x}^{2}")
+    assert accented.height_px <= plain.height_px * 1.25
+
+
+def test_unknown_command_names_the_formula() -> None:
+    with pytest.raises(BuildError, match=r"\\notacommand"):
+        tex_to_svg(r"\notacommand{x}")
+
+
+def test_spans_become_images_with_tex_alt_text() -> None:
+    html = (
+        '<div class="cp-step"><span class="cp-math cp-math-display">\\[a &lt; \\frac{b}{c}\\]'
+        '</span> and <span class="cp-math cp-math-inline">\\(x_{1}\\)</span></div>'
+    )
+    out = math_spans_to_images(html)
+    assert "\\frac" not in re.sub(r'alt="[^"]*"', "", out)
+    alts = re.findall(r'alt="([^"]*)"', out)
+    assert alts == ["a &lt; \\frac{b}{c}", "x_{1}"]
+    uris = re.findall(r'src="data:image/svg\+xml;base64,([^"]+)"', out)
+    assert len(uris) == 2
+    assert base64.b64decode(uris[0]).startswith(b"<svg")
+    assert 'class="cp-math-img cp-math-display"' in out
+    assert 'class="cp-math-img cp-math-inline"' in out
+
+
+def test_markdown_dollars_become_spans_but_prices_and_code_do_not() -> None:
+    html = "<p>Load $w = 5$ kN and $$M = \\frac{wL^2}{8}$$ cost $5 and $6 <code>$x$</code></p>"
+    out = markdown_math_to_spans(html)
+    assert '<span class="cp-math cp-math-inline">\\(w = 5\\)</span>' in out
+    assert '<span class="cp-math cp-math-display">\\[M = \\frac{wL^2}{8}\\]</span>' in out
+    assert "cost $5 and $6" in out
+    assert "<code>$x$</code>" in out
