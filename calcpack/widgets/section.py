@@ -39,6 +39,7 @@ _ROWS = (
 def properties_table_html(props: Any) -> str:
     """The main properties as an HTML table (values carry ``data-value`` in the shown unit)."""
     from calcpack.working import format_number
+
     rows = []
     for attr, sym, unit, what in _ROWS:
         try:
@@ -50,7 +51,8 @@ def properties_table_html(props: Any) -> str:
         unit_text = f"{q.to(unit).units:~P}"
         rows.append(
             f'<tr><td>{sym}</td><td class="cp-out" data-out="{attr}" data-value="{mag!r}" '
-            f'style="text-align:right;padding:0 8px">{format_number(mag, 4)}</td><td>{unit_text}</td>'
+            f'style="text-align:right;padding:0 8px">{format_number(mag, 4)}</td>'
+            f"<td>{unit_text}</td>"
             f'<td style="color:#555">{what}</td></tr>'
         )
     return f'<table class="cp-panel-results">{"".join(rows)}</table>'
@@ -158,7 +160,11 @@ class SectionPanel:
         except CalcpackError as exc:
             self.status.value = f'<span style="color:#a31515">Not saved: {escape(str(exc))}</span>'
             return
-        self.data = update_inputs(self.path, changes)
+        try:
+            self.data = update_inputs(self.path, changes)
+        except CalcpackError as exc:  # e.g. the file was edited by hand meanwhile
+            self.status.value = f'<span style="color:#a31515">Not saved: {escape(str(exc))}</span>'
+            return
         self._refresh(shape)
         self.last_update_s = time.perf_counter() - t0
 
