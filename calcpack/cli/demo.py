@@ -1,7 +1,7 @@
 """``calcpack demo``: build the bundled example project into a folder here and print the PDF.
 
-The command is a sequence of steps -- copy the demo project, build it, then any steps after the
-build (``AFTER_BUILD``) -- so that signing can be added as a step that takes the build result.
+The command is a sequence of steps: copy the demo project, build it, then the steps after the
+build (``AFTER_BUILD``: signing as preparer and checker with demo certificates).
 """
 
 from __future__ import annotations
@@ -18,15 +18,24 @@ __all__ = ["AFTER_BUILD", "DEFAULT_FOLDER", "register", "run_demo"]
 DEFAULT_FOLDER = "calcpack-demo"
 
 AfterBuild = Callable[[Any, Path, argparse.Namespace], None]
-AFTER_BUILD: list[AfterBuild] = []
-"""Steps run on the build result (BuildResult, demo folder, arguments), e.g. signing."""
+
+
+def _sign(result: Any, folder: Path, args: argparse.Namespace) -> None:
+    from calcpack.signing.demo import after_build_sign
+
+    after_build_sign(result, folder, args)
+
+
+AFTER_BUILD: list[AfterBuild] = [_sign]
+"""Steps run on the build result (BuildResult, demo folder, arguments): signing by the demo
+preparer and checker (calcpack.signing.demo)."""
 
 
 def register(subparsers: Any) -> None:
     """Add the ``demo`` command."""
     parser = subparsers.add_parser(
         "demo",
-        help="build the bundled demo package into ./calcpack-demo",
+        help="build and sign the bundled demo package in ./calcpack-demo",
         description="Copy the bundled demo project into a folder in the current directory, "
         "build its calc package there and print the path of the PDF.",
     )

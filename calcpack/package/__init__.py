@@ -1,1 +1,67 @@
-"""The calc package build: project file, execution, conversion, pagination, manifest."""
+"""The calc package build: project file, execution, conversion, pagination, manifest.
+
+Heavy libraries (nbclient, nbconvert, WeasyPrint, ziamath) are imported only when a build runs,
+so importing this package is cheap.
+"""
+
+from __future__ import annotations
+
+from pathlib import Path
+from typing import Any
+
+from calcpack.package.execute import ExecutedSheet, execute_notebook, execute_sheets
+from calcpack.package.manifest import MANIFEST_ATTACHMENT_NAME, read_manifest
+from calcpack.package.pipeline import BuildResult, build, single_sheet_pdf
+from calcpack.package.project import Project, ProjectFileError, load_project
+from calcpack.package.records import SheetRecords, collect_records
+from calcpack.package.scaffold import copy_demo_project, demo_project_source, new_project
+
+__all__ = [
+    "MANIFEST_ATTACHMENT_NAME",
+    "BuildResult",
+    "ExecutedSheet",
+    "Project",
+    "ProjectFileError",
+    "SheetRecords",
+    "build",
+    "collect_records",
+    "copy_demo_project",
+    "demo_project_source",
+    "execute_notebook",
+    "execute_sheets",
+    "load_project",
+    "new_project",
+    "read_manifest",
+    "reproduce_manifest",
+    "single_sheet_pdf",
+]
+
+
+def reproduce_manifest(project: str | Path, *, workers: int = 2) -> dict[str, Any]:
+    """Re-execute every sheet (no cache) and return the manifest's ``sheets`` records afresh.
+
+    The archive check: the result is comparable with a package's manifest (same keys for each
+    sheet: number, title, path, values, checks, assumptions, cautions).
+    """
+    import nbformat
+
+    from calcpack.package.manifest import MANIFEST_FORMAT
+    from calcpack.package.pipeline import sheet_title
+
+    loaded = load_project(project)
+    sheets = []
+    for item in execute_sheets(loaded, workers=workers, use_cache=False):
+        nb = nbformat.reads(item.notebook_json, as_version=4)
+        records = collect_records(nb)
+        sheets.append(
+            {
+                "number": item.entry.number,
+                "title": sheet_title(item.entry, nb),
+                "path": item.entry.path,
+                "values": list(records.values),
+                "checks": list(records.checks),
+                "assumptions": list(records.assumptions),
+                "cautions": list(records.cautions),
+            }
+        )
+    return {"format": MANIFEST_FORMAT, "sheets": sheets}

@@ -148,7 +148,7 @@ def _titleblock(project: Project, *, sheet_no: str, title: str, pages: int | Non
 <td colspan="3"><span class="lbl">Job title</span>
 <span class="val wrap">{_e(project.job_title)}</span></td>
 <td><span class="lbl">Revision</span>
-<span class="val">{_e(rev.rev)} &#183; {_e(_date(rev.date))}</span></td>
+<span class="val">{_e(rev.rev)}</span><span class="sub">{_e(_date(rev.date))}</span></td>
 </tr>
 <tr>
 <td><span class="lbl">Sheet no.</span><span class="val">{_e(sheet_no)}</span></td>
@@ -169,9 +169,8 @@ def _cover(project: Project, sheets: Sequence[SheetDoc]) -> str:
     boxes = []
     for role in ROLES:
         person: Person = getattr(project, role)
-        when = _date(person.date) if role != "checker" else _date(project.checker.date)
-        if role == "preparer":
-            when = _person_date(person, rev.date)
+        # The preparer's date defaults to the revision's; the others only show a date given.
+        when = _person_date(person, rev.date if role == "preparer" else None)
         boxes.append(f"""
 <td><div class="role">{ROLE_TITLES[role]}</div>
 <div class="who"><span class="lbl">Name</span>{_e(person.name)}</div>

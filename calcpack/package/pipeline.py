@@ -19,7 +19,6 @@ import os
 import re
 import tempfile
 import time
-import tomllib
 from collections.abc import Callable
 from dataclasses import dataclass, replace
 from pathlib import Path
@@ -46,15 +45,14 @@ from calcpack.package.project import Person, Project, Revision, SheetEntry, load
 from calcpack.package.records import collect_records
 
 __all__ = [
-    "REVIEW_FILE_NAME",
     "BuildResult",
     "build",
     "build_created",
     "prepare_sheet",
+    "sheet_title",
     "single_sheet_pdf",
 ]
 
-REVIEW_FILE_NAME = "review.toml"
 Reporter = Callable[[str, str], None]
 """Progress hook: (stage, detail), stage in executing/cached/executed/rendering/layout/writing."""
 
@@ -107,36 +105,50 @@ def _package_code_hash() -> str:
 
 
 def _load_review(project: Project) -> tuple[tuple[ReviewRow, ...] | None, Path | None]:
-    """The review log from ``review.toml`` beside the project file, if there is one."""
-    path = project.root / REVIEW_FILE_NAME
+    """The review log (``review.toml`` beside the project file, read by calcpack.signing.review).
+
+    Returns None when the project has no review file.
+    """
+    from calcpack.signing.review import load_review, review_path
+
+    path = review_path(project.root)
     if not path.is_file():
         return None, None
-    try:
-        data = tomllib.loads(path.read_text(encoding="utf-8"))
-    except (tomllib.TOMLDecodeError, UnicodeDecodeError) as exc:
-        raise BuildError(f"{REVIEW_FILE_NAME}: not valid TOML ({exc})") from exc
+    log = load_review(project.root)
     rows = []
-    comments = data.get("comments", [])
-    if not isinstance(comments, list):
-        raise BuildError(f"{REVIEW_FILE_NAME}: 'comments' must be a list of [[comments]] tables")
-    for i, item in enumerate(comments, start=1):
-        if not isinstance(item, dict):
-            continue
+    for c in log.comments:
+        opening, later = (c.history[0], c.history[1:]) if c.history else (None, ())
+        text = opening.text if opening else ""
+        for e in later:
+            text += f" — {e.action} by {e.who} ({e.when[:10]}): {e.text}"
         rows.append(
             ReviewRow(
-                ident=str(item.get("id", i)),
-                sheet=str(item.get("sheet", "")),
-                quantity=str(item.get("quantity", "") or ""),
-                status=str(item.get("status", "")),
-                by=str(item.get("by", item.get("author", ""))),
-                date=str(item.get("date", "")),
-                text=str(item.get("text", item.get("comment", ""))),
+                ident=c.id,
+                sheet=c.sheet,
+                quantity=c.quantity or "",
+                status=c.status,
+                by=opening.who if opening else "",
+                date=opening.when[:10] if opening else "",
+                text=text,
+            )
+        )
+    for o in log.overrides:
+        rows.append(
+            ReviewRow(
+                ident="override",
+                sheet="",
+                quantity="",
+                status="OVERRIDE",
+                by=o.who,
+                date=o.when[:10],
+                text=f"Signed with {', '.join(o.comments)} not closed: {o.reason}",
             )
         )
     return tuple(rows), path
 
 
-def _sheet_title(entry: SheetEntry, nb: Any) -> str:
+def sheet_title(entry: SheetEntry, nb: Any) -> str:
+    """The sheet's title: the project file's, else the notebook's first heading, else its name."""
     if entry.title:
         return entry.title
     for cell in nb.cells:
@@ -184,7 +196,7 @@ def prepare_sheet(
         if isinstance(executed, ExecutedSheet)
         else executed
     )
-    title = _sheet_title(entry, nb)
+    title = sheet_title(entry, nb)
     try:
         body = _drop_title_heading(_JUPYTER_STYLE_RE.sub("", sheet_fragment(nb)), title)
         body = math_spans_to_images(body)

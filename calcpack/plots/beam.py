@@ -135,7 +135,7 @@ def _loading(ax: Any, result: BeamResult, sig: int, aspect: float) -> None:
         wmax = max(wmax, float(np.max(np.abs(ws))))
     level = 0.6 * size
     height = 2.4 * size  # each distributed load in its own band, stacked like the trade does
-    for ld, xs, ws in shapes:
+    for _ld, xs, ws in shapes:
         top = level + height * ws / wmax if wmax else level + 0 * ws
         poly = np.column_stack(
             [np.concatenate([xs, xs[::-1]]), np.concatenate([top, np.full_like(xs, level)])]
@@ -172,14 +172,14 @@ def _loading(ax: Any, result: BeamResult, sig: int, aspect: float) -> None:
         level = float(max(np.max(top), level)) + 1.6 * size
     # point loads and couples
     ptop = level + 1.5 * size
-    for ld in beam.loads:
-        if ld.case not in factors:
+    for pl in beam.loads:
+        if pl.case not in factors:
             continue
-        f = factors[ld.case]
-        if isinstance(ld, PointLoad):
-            P = f * ld.P.to("kN").magnitude
-            H = f * ld.H.to("kN").magnitude
-            x = ld.x.to("m").magnitude
+        f = factors[pl.case]
+        if isinstance(pl, PointLoad):
+            P = f * pl.P.to("kN").magnitude
+            H = f * pl.H.to("kN").magnitude
+            x = pl.x.to("m").magnitude
             if P == 0 and H == 0:
                 continue
             length = max(level, 3.0 * size) + 0.8 * size
@@ -206,9 +206,9 @@ def _loading(ax: Any, result: BeamResult, sig: int, aspect: float) -> None:
                 fontsize=7,
                 color=_RED,
             )
-        elif isinstance(ld, PointMoment):
-            C = f * ld.C.to("kN*m").magnitude
-            x = ld.x.to("m").magnitude
+        elif isinstance(pl, PointMoment):
+            C = f * pl.C.to("kN*m").magnitude
+            x = pl.x.to("m").magnitude
             r = 1.6 * size
             # clockwise couple: arrow head at the right going down
             arc = Arc((x, 0.0), 2 * r, 2 * r * aspect, theta1=20, theta2=160, color=_GREEN, lw=1.2)

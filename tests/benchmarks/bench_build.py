@@ -87,7 +87,7 @@ def bare_pipeline(project: Path, out: Path) -> float:
 
 def _spin(_: int) -> int:
     total = 0
-    for i in range(10_000_000):
+    for i in range(30_000_000):
         total += i
     return total
 
@@ -100,6 +100,7 @@ def machine_parallelism() -> float:
     _spin(0)
     one = time.perf_counter() - t
     with multiprocessing.get_context("spawn").Pool(2) as pool:
+        pool.map(abs, [0, 1])  # let both workers finish starting before timing
         t = time.perf_counter()
         pool.map(_spin, [0, 1])
         two = time.perf_counter() - t

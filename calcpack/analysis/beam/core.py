@@ -211,7 +211,7 @@ _LIST_CACHE: list[tuple[np.ndarray, list[float]]] = []
 def _as_list(X: np.ndarray) -> list[float]:
     if _LIST_CACHE and _LIST_CACHE[0][0] is X:
         return _LIST_CACHE[0][1]
-    values = X.tolist()
+    values: list[float] = X.tolist()
     _LIST_CACHE[:] = [(X, values)]
     return values
 

@@ -168,13 +168,13 @@ def batch_roots(g: np.ndarray, h: np.ndarray) -> tuple[np.ndarray, np.ndarray]:
         shifted = np.zeros_like(c)
         shifted[:, 1:] = c[:, :-1]
         c = np.where(more[:, None], shifted - 2.0 * c, c)
-        pad = pad - more
-    c = c[:, :D] / c[:, D : D + 1]  # monic
+        pad = pad - more.astype(int)
+    monic = c[:, :D] / c[:, D : D + 1]
     comp = np.zeros((rows.size, D, D))
     if D > 1:
         idx = np.arange(D - 1)
         comp[:, idx + 1, idx] = 1.0
-    comp[:, :, -1] = -c
+    comp[:, :, -1] = -monic
     ev = np.linalg.eigvals(comp)
     t = ev.real
     ok = (np.abs(ev.imag) < 1e-6) & (t > -1e-9) & (t < 1 + 1e-9)
