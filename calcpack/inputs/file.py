@@ -38,6 +38,7 @@ __all__ = [
     "parse_quantity",
     "read_inputs_text",
     "require_input",
+    "split_key",
     "update_inputs",
     "write_inputs",
 ]
@@ -156,7 +157,7 @@ def load_inputs(path: Path | str) -> dict[str, Any]:
 _KEY_PART = re.compile(r"([^.\[\]]+)|\[(\d+)\]")
 
 
-def _split_key(key: str) -> list[str | int]:
+def split_key(key: str) -> list[str | int]:
     """``"beam.spans[2]"`` -> ``["beam", "spans", 1]`` (list indices are 1-based in keys)."""
     parts: list[str | int] = []
     for m in _KEY_PART.finditer(key):
@@ -170,7 +171,7 @@ def _split_key(key: str) -> list[str | int]:
 def get_path(data: Mapping[str, Any], key: str) -> Any:
     """The value at dotted ``key`` (``"beam.spans[2]"``, 1-based) or raise naming the key."""
     node: Any = data
-    for part in _split_key(key):
+    for part in split_key(key):
         try:
             node = node[part]
         except (KeyError, IndexError, TypeError):
@@ -379,7 +380,7 @@ def update_inputs(path: Path | str, changes: Mapping[str, Any]) -> dict[str, Any
     load_inputs(p)  # refuse to touch a file that does not read cleanly
     doc = tomlkit.parse(p.read_text(encoding="utf-8"))
     for key, value in changes.items():
-        _walk_set(doc, _split_key(key), _to_toml(value), key)
+        _walk_set(doc, split_key(key), _to_toml(value), key)
     text = tomlkit.dumps(doc)
     result = read_inputs_text(text, path=p)  # never write a file we could not read back
     _atomic_write(p, text)

@@ -27,7 +27,7 @@ from calcpack.inputs import (
     load_inputs,
     update_inputs,
 )
-from calcpack.inputs.file import _split_key
+from calcpack.inputs.file import split_key
 from calcpack.units import Q_, Quantity
 from calcpack.widgets.fields import QuantityField, css_key, interactive_session, label
 from calcpack.widgets.svg import beam_diagrams_svg
@@ -37,7 +37,7 @@ __all__ = ["BeamPanel", "beam_panel", "outcome_table_html"]
 
 def _set(data: dict[str, Any], key: str, value: Any) -> None:
     node: Any = data
-    parts = _split_key(key)
+    parts = split_key(key)
     for p in parts[:-1]:
         node = node[p]
     last = parts[-1]
@@ -294,7 +294,11 @@ class BeamPanel:
         except (KeyError, IndexError, TypeError) as exc:
             self._error(f"Not saved: no value {exc} in {self.path.name}")
             return
-        self.data = update_inputs(self.path, changes)
+        try:
+            self.data = update_inputs(self.path, changes)
+        except CalcpackError as exc:  # e.g. the file was edited by hand meanwhile
+            self._error(f"Not saved: {exc}; press 'Reload file'")
+            return
         self._refresh(validated)
         self.last_update_s = time.perf_counter() - t0
 

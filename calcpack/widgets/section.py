@@ -160,7 +160,11 @@ class SectionPanel:
         except CalcpackError as exc:
             self.status.value = f'<span style="color:#a31515">Not saved: {escape(str(exc))}</span>'
             return
-        self.data = update_inputs(self.path, changes)
+        try:
+            self.data = update_inputs(self.path, changes)
+        except CalcpackError as exc:  # e.g. the file was edited by hand meanwhile
+            self.status.value = f'<span style="color:#a31515">Not saved: {escape(str(exc))}</span>'
+            return
         self._refresh(shape)
         self.last_update_s = time.perf_counter() - t0
 
