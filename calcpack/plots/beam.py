@@ -21,7 +21,7 @@ from matplotlib.figure import Figure
 from matplotlib.patches import Arc, Circle, FancyArrowPatch, Polygon, Rectangle
 
 from calcpack.loads.types import DistributedLoad, PointLoad, PointMoment
-from calcpack.units import get_display
+from calcpack.units import get_display, ureg
 
 if TYPE_CHECKING:
     from calcpack.analysis.beam.result import BeamResult
@@ -51,6 +51,29 @@ class BeamFigure:
         """Write the SVG to ``path``."""
         with open(path, "w", encoding="utf-8") as fh:
             fh.write(self.svg)
+
+
+@dataclass(frozen=True)
+class _Units:
+    """Display units of the figure; each ``*_si`` is the size of one display unit in SI."""
+
+    length: str
+    force: str
+    moment: str
+    line: str
+    deflection: str
+
+    def si(self, unit: str) -> float:
+        return float(ureg.Quantity(1.0, unit).to_base_units().magnitude)
+
+    def label(self, unit: str) -> str:
+        return f"{ureg.Unit(unit):~P}".replace("ft·kip", "kip·ft").replace("in", "in")
+
+
+_SYSTEM_UNITS = {
+    "SI": _Units("m", "kN", "kN*m", "kN/m", "mm"),
+    "US": _Units("ft", "kip", "kip*ft", "klf", "inch"),
+}
 
 
 def _fmt(value: float, sig: int) -> str:
@@ -108,7 +131,7 @@ def _support(ax: Any, kind: str, x: float, size: float, at_left: bool, at_right:
         ax.plot([k, k + 0.25 * s], [base, base - 0.35 * s], color="black", lw=0.7)
 
 
-def _loading(ax: Any, result: BeamResult, sig: int, aspect: float) -> None:
+def _loading(ax: Any, result: BeamResult, sig: int, aspect: float, u: _Units) -> None:
     beam = result.beam
     L = beam.L_m
     factors = dict(result.cases)
@@ -154,11 +177,12 @@ def _loading(ax: Any, result: BeamResult, sig: int, aspect: float) -> None:
                         lw=0.6,
                     )
                 )
-        w1, w2 = ws[0] / 1e3, ws[-1] / 1e3
+        w1, w2 = ws[0] / u.si(u.line), ws[-1] / u.si(u.line)
+        wl = u.label(u.line)
         label = (
-            f"{_fmt(w1, sig)} kN/m"
+            f"{_fmt(w1, sig)} {wl}"
             if abs(w1 - w2) <= 1e-9 * max(abs(w1), abs(w2), 1)
-            else f"{_fmt(w1, sig)} → {_fmt(w2, sig)} kN/m"
+            else f"{_fmt(w1, sig)} → {_fmt(w2, sig)} {wl}"
         )
         ax.text(
             0.5 * (xs[0] + xs[-1]),
@@ -177,8 +201,8 @@ def _loading(ax: Any, result: BeamResult, sig: int, aspect: float) -> None:
             continue
         f = factors[pl.case]
         if isinstance(pl, PointLoad):
-            P = f * pl.P.to("kN").magnitude
-            H = f * pl.H.to("kN").magnitude
+            P = f * pl.P.to(u.force).magnitude
+            H = f * pl.H.to(u.force).magnitude
             x = pl.x.to("m").magnitude
             if P == 0 and H == 0:
                 continue
@@ -196,7 +220,7 @@ def _loading(ax: Any, result: BeamResult, sig: int, aspect: float) -> None:
                     zorder=6,
                 )
             )
-            text = f"{_fmt(np.hypot(P, H), sig)} kN"
+            text = f"{_fmt(np.hypot(P, H), sig)} {u.label(u.force)}"
             ax.text(
                 tail[0],
                 tail[1] + (0.3 * size if P >= 0 else -0.3 * size),
@@ -207,7 +231,7 @@ def _loading(ax: Any, result: BeamResult, sig: int, aspect: float) -> None:
                 color=_RED,
             )
         elif isinstance(pl, PointMoment):
-            C = f * pl.C.to("kN*m").magnitude
+            C = f * pl.C.to(u.moment).magnitude
             x = pl.x.to("m").magnitude
             r = 1.6 * size
             # clockwise couple: arrow head at the right going down
@@ -228,7 +252,8 @@ def _loading(ax: Any, result: BeamResult, sig: int, aspect: float) -> None:
             ax.text(
                 x,
                 r * aspect + 0.3 * size,
-                f"{_fmt(abs(C), sig)} kN·m {'clockwise' if C > 0 else 'anticlockwise'}",
+                f"{_fmt(abs(C), sig)} {u.label(u.moment)} "
+                f"{'clockwise' if C > 0 else 'anticlockwise'}",
                 ha="center",
                 va="bottom",
                 fontsize=7,
@@ -274,15 +299,27 @@ def _diagram(
 
 
 def beam_figure(
-    result: BeamResult, *, width_in: float = 7.0, sig_figs: int | None = None
+    result: BeamResult,
+    *,
+    width_in: float = 7.0,
+    sig_figs: int | None = None,
+    system: str | None = None,
 ) -> BeamFigure:
     """The stacked loading / shear / moment / deflection figure of ``result``, as SVG.
 
     Args:
         result: a solved beam. width_in: figure width in inches. sig_figs: digits shown
-            (default: the global display setting, 3).
+            (default: the global display setting, 3). system: ``"SI"`` (kN, kN·m, m, mm) or
+            ``"US"`` (kip, kip·ft, ft, in); default: the global display setting.
     """
-    sig = sig_figs or get_display().sig_figs
+    from matplotlib.ticker import FuncFormatter
+
+    display = get_display()
+    sig = sig_figs or display.sig_figs
+    u = _SYSTEM_UNITS.get(system or display.system, _SYSTEM_UNITS["SI"])
+    f_len, f_force, f_mom = u.si(u.length), u.si(u.force), u.si(u.moment)
+    f_defl = u.si(u.deflection)
+    lu, fu, mu, du = (u.label(x) for x in (u.length, u.force, u.moment, u.deflection))
     core = result.core
     X = core.X
     L = X[-1]
@@ -292,33 +329,34 @@ def beam_figure(
     axes = fig.subplots(
         panels, 1, sharex=True, gridspec_kw={"height_ratios": [1.3] + [1.0] * (panels - 1)}
     )
-    _loading(axes[0], result, sig, aspect=1.0)
+    _loading(axes[0], result, sig, aspect=1.0, u=u)
 
     notes_v: list[tuple[float, float, str]] = []
     for e in (ex.V_max, ex.V_min):
-        v = e.value_si / 1e3
-        notes_v.append((e.x_m, v, f"{_fmt(v, sig)} kN"))
+        v = e.value_si / f_force
+        notes_v.append((e.x_m, v, f"{_fmt(v, sig)} {fu}"))
     for s in result.beam.supports:  # shear either side of each support
         for side in ("left", "right"):
             if (side == "left" and s.x_m <= 0) or (side == "right" and s.x_m >= L):
                 continue
-            v = float(result.shear(s.x, side=side).magnitude)
+            v = float(result.shear(s.x, side=side).to(u.force).magnitude)
             if abs(v) > 1e-9 and all(
                 abs(v - n[1]) > 1e-9 or abs(s.x_m - n[0]) > 1e-9 for n in notes_v
             ):
                 notes_v.append((s.x_m, v, f"{_fmt(v, sig)}"))
-    _diagram(axes[1], X, core.V, 1e-3, _BLUE, "V (kN)\nleft face up +", notes_v)
+    _diagram(axes[1], X, core.V, 1 / f_force, _BLUE, f"V ({fu})\nleft face up +", notes_v)
     for x0 in ex.zero_shear_m:
         axes[1].axvline(x0, color=_BLUE, lw=0.5, ls=":")
 
     notes_m = []
     for e in (ex.M_max, ex.M_min):
-        mval = e.value_si / 1e3
+        mval = e.value_si / f_mom
         if abs(mval) > 1e-12:
-            notes_m.append((e.x_m, mval, f"{_fmt(mval, sig)} kN·m\nat x = {_fmt(e.x_m, sig)} m"))
+            at = _fmt(e.x_m / f_len, sig)
+            notes_m.append((e.x_m, mval, f"{_fmt(mval, sig)} {mu}\nat x = {at} {lu}"))
     for x0 in ex.contraflexure_m:
-        notes_m.append((x0, 0.0, f"M = 0 at {_fmt(x0, sig)} m"))
-    _diagram(axes[2], X, core.M, 1e-3, _RED, "M (kN·m)\nsagging +", notes_m)
+        notes_m.append((x0, 0.0, f"M = 0 at {_fmt(x0 / f_len, sig)} {lu}"))
+    _diagram(axes[2], X, core.M, 1 / f_mom, _RED, f"M ({mu})\nsagging +", notes_m)
 
     if result.has_deflection and core.v is not None:
         notes_d = []
@@ -327,15 +365,19 @@ def beam_figure(
             notes_d.append(
                 (
                     d.x_m,
-                    -d.value_si * 1e3,
-                    f"δ = {_fmt(d.value_si * 1e3, sig)} mm down\nat x = {_fmt(d.x_m, sig)} m",
+                    -d.value_si / f_defl,
+                    f"δ = {_fmt(d.value_si / f_defl, sig)} {du} down\n"
+                    f"at x = {_fmt(d.x_m / f_len, sig)} {lu}",
                 )
             )
         if ex.deflection_up is not None:
-            u = ex.deflection_up
-            notes_d.append((u.x_m, u.value_si * 1e3, f"{_fmt(u.value_si * 1e3, sig)} mm up"))
-        _diagram(axes[3], X, core.v, 1e3, _GREEN, "displacement (mm)\nup +", notes_d)
-    axes[-1].set_xlabel("x from left end (m)", fontsize=8)
+            up = ex.deflection_up
+            notes_d.append(
+                (up.x_m, up.value_si / f_defl, f"{_fmt(up.value_si / f_defl, sig)} {du} up")
+            )
+        _diagram(axes[3], X, core.v, 1 / f_defl, _GREEN, f"displacement ({du})\nup +", notes_d)
+    axes[-1].set_xlabel(f"x from left end ({lu})", fontsize=8)
+    axes[-1].xaxis.set_major_formatter(FuncFormatter(lambda v, _pos: f"{v / f_len:.3g}"))
     for ax in axes[1:]:
         for s in result.beam.supports:
             ax.axvline(s.x_m, color=_GREY, lw=0.5, ls="--")

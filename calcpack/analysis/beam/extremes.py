@@ -290,6 +290,13 @@ def _pick(
     return Extreme(float(val[i]), float(x[i]), "" if at_end else s, kind)
 
 
+def _snap_noise(values: np.ndarray) -> np.ndarray:
+    """Round-off left where the exact value is zero (e.g. M at a pinned end) is reported as 0,
+    not as a 10⁻¹⁵ "hogging moment": values below 1e-12 of the largest are set to zero."""
+    size = float(np.max(np.abs(values))) if values.size else 0.0
+    return np.where(np.abs(values) <= 1e-12 * size, 0.0, values)
+
+
 def find_extremes(result: BeamResult) -> BeamExtremes:
     """All extremes of ``result`` (see :class:`BeamExtremes`)."""
     core = result.core
@@ -310,6 +317,7 @@ def find_extremes(result: BeamResult) -> BeamExtremes:
         found.append((seg_all[sel] - i * n, xi_all[sel]))
     xV, _, sV, vV = _candidates(X, core.V, found[0])  # V' = −w
     xM, _, sM, vM = _candidates(X, core.M, found[1])  # M' = V
+    vV, vM = _snap_noise(vV), _snap_noise(vM)
 
     down = up = None
     sl = sr = None
