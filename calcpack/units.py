@@ -257,3 +257,45 @@ def get_display() -> DisplaySettings:
 def validate_display(system: str | None, sig_figs: int | None) -> None:
     """Raise InputError if ``system`` or ``sig_figs`` is not a valid display setting."""
     _check_settings(system, sig_figs)
+
+
+def utilisation(
+    demand: pint.Quantity, capacity: pint.Quantity, *, name: str
+) -> tuple[pint.Quantity, pint.Quantity, float]:
+    """The utilisation ratio |demand| / capacity of a check, with the rule every check follows.
+
+    Args:
+        demand: the action effect (any sign; its magnitude is compared).
+        capacity: the resistance or limit, of the same dimension, positive.
+        name: the check's name, used in messages.
+
+    Returns:
+        (demand in the capacity's unit, capacity, utilisation as a float).
+
+    Raises:
+        DimensionError: demand and capacity of different dimensions.
+        InputError: capacity not positive.
+    """
+    if demand.dimensionality != capacity.dimensionality:
+        raise DimensionError(
+            f"Check {name!r} compares quantities of different dimensions: demand {demand:~P} "
+            f"({demand.dimensionality}) against capacity {capacity:~P} "
+            f"({capacity.dimensionality})",
+            name=name,
+            value=(demand, capacity),
+            expected="demand and capacity of one dimension",
+        )
+    if not float(capacity.magnitude) > 0:
+        raise InputError(
+            f"Check {name!r}: capacity must be positive (got {capacity:~P})",
+            name="capacity",
+            value=capacity,
+            expected="a capacity > 0",
+        )
+    d = demand.to(capacity.units)
+    return d, capacity, float(abs(d.magnitude) / capacity.magnitude)
+
+
+def passes(utilisation_ratio: float) -> bool:
+    """True when a utilisation passes: not over 1 beyond floating-point rounding."""
+    return utilisation_ratio <= 1.0 + 1e-12

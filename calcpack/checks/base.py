@@ -24,7 +24,7 @@ from dataclasses import dataclass, field
 from typing import Any
 
 from calcpack.errors import InputError
-from calcpack.units import Q_, Quantity, is_quantity
+from calcpack.units import Q_, Quantity, is_quantity, passes, utilisation
 
 __all__ = [
     "NOT_COVERED",
@@ -199,30 +199,14 @@ class Recorder:
         combination: str | None = None,
         description: str = "",
     ) -> CheckResult:
-        d, c = _q(demand), _q(capacity)
-        if d.dimensionality != c.dimensionality:
-            raise InputError(
-                f"Check {name!r}: demand {d:~P} and capacity {c:~P} have different dimensions",
-                name=name,
-                value=(d, c),
-                expected="demand and capacity of one dimension",
-            )
-        if not float(c.magnitude) > 0:
-            raise InputError(
-                f"Check {name!r}: capacity must be positive (got {c:~P})",
-                name="capacity",
-                value=c,
-                expected="a capacity > 0",
-            )
-        d = d.to(c.units)
-        u = float(abs(d.magnitude) / c.magnitude)
+        d, c, u = utilisation(_q(demand), _q(capacity), name=name)
         res = CheckResult(
             name,
             self.member,
             d,
             c,
             u,
-            OK if u <= 1.0 + 1e-12 else NOT_OK,
+            OK if passes(u) else NOT_OK,
             ref,
             combination,
             description,

@@ -18,6 +18,7 @@ COMMAND_MODULES: tuple[str, ...] = (
     "build",
     "demo",
     "new",
+    "add_sheet",
     "keys",
     "sign",
     "verify",

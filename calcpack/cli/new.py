@@ -21,6 +21,11 @@ def register(subparsers: Any) -> None:
     parser.add_argument("--title", default="New job", help="job title")
     parser.add_argument("--units", choices=("SI", "US"), default="SI", help="unit system")
     parser.add_argument("--paper", choices=("A4", "Letter"), default="A4", help="paper size")
+    parser.add_argument(
+        "--sheet",
+        metavar="TEMPLATE",
+        help="also add a sheet from a template (beam, section, ...) with its inputs file",
+    )
     parser.set_defaults(func=handler)
 
 
@@ -36,5 +41,10 @@ def handler(args: argparse.Namespace) -> int:
         paper=args.paper,
     )
     print(f"Created {project_file}")
+    if args.sheet:
+        from calcpack.package.sheet_templates import add_sheet
+
+        added = add_sheet(Path(args.project), args.sheet)
+        print(f"Added sheet {added.number}: {added.notebook.as_posix()}")
     print(f"Edit it, write the sheets in JupyterLab, then: calcpack build {args.project}")
     return 0

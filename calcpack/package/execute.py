@@ -88,7 +88,9 @@ def _kernel_env() -> dict[str, str]:
     """Environment for kernels: calcpack importable even from an uninstalled source tree."""
     import calcpack
 
-    env = {"MPLBACKEND": "Agg", "PYDEVD_DISABLE_FILE_VALIDATION": "1"}
+    # CALCPACK_BUILDING: input panels and the preview show nothing in a build's kernel, even
+    # when the build is started from a notebook (whose kernel environment is inherited).
+    env = {"MPLBACKEND": "Agg", "PYDEVD_DISABLE_FILE_VALIDATION": "1", "CALCPACK_BUILDING": "1"}
     source_root = str(Path(calcpack.__file__).resolve().parent.parent)
     if not re.search(r"[\\/](site|dist)-packages$", source_root):
         current = os.environ.get("PYTHONPATH", "")

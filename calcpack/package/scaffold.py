@@ -1,7 +1,8 @@
 """The bundled demo project and new-project scaffolding.
 
-The demo project lives in ``example_projects/lintel_demo`` of the source tree and is installed as
-data files under ``share/calcpack/example_projects/lintel_demo`` of the environment, so it is found
+The demo project (the first example job) lives in ``example_projects/alteration_ashgrove_lane``
+of the source tree and is installed as data files under
+``share/calcpack/example_projects/alteration_ashgrove_lane`` of the environment, so it is found
 from a wheel install as well as from a checkout.
 """
 
@@ -19,7 +20,7 @@ from calcpack.package.project import PROJECT_FILE_NAME
 
 __all__ = ["DEMO_PROJECT_NAME", "copy_demo_project", "demo_project_source", "new_project"]
 
-DEMO_PROJECT_NAME = "lintel_demo"
+DEMO_PROJECT_NAME = "alteration_ashgrove_lane"
 
 
 def demo_project_source() -> Path:

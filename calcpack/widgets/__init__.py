@@ -1,1 +1,27 @@
-"""ipywidgets input panels (imported lazily, never by computation)."""
+"""ipywidgets input panels (imported lazily, never by computation).
+
+:func:`beam_panel` and :func:`section_panel` edit a sheet's inputs file; :func:`preview` shows
+the sheet as the issued PDF lays it out. Names load on first use so that importing
+``calcpack.widgets`` in a sheet costs nothing until a panel is made.
+"""
+
+from __future__ import annotations
+
+import importlib
+from typing import Any
+
+__all__ = ["BeamPanel", "SectionPanel", "beam_panel", "preview", "section_panel"]
+
+_WHERE = {
+    "BeamPanel": "calcpack.widgets.beam",
+    "beam_panel": "calcpack.widgets.beam",
+    "SectionPanel": "calcpack.widgets.section",
+    "section_panel": "calcpack.widgets.section",
+    "preview": "calcpack.widgets.pages",
+}
+
+
+def __getattr__(name: str) -> Any:
+    if name in _WHERE:
+        return getattr(importlib.import_module(_WHERE[name]), name)
+    raise AttributeError(f"module 'calcpack.widgets' has no attribute {name!r}")

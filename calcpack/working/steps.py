@@ -16,7 +16,7 @@ import pint
 import sympy
 
 from calcpack.errors import DimensionError, InputError
-from calcpack.units import DisplaySettings, get_display, ureg
+from calcpack.units import DisplaySettings, get_display, passes, ureg, utilisation
 from calcpack.working.expr import (
     Literal,
     Term,
@@ -514,28 +514,12 @@ class Check(Step):
                     expected="a pint Quantity or Value",
                 )
             _check_finite(f"Check {name!r} {label}", q)
-        if dq.dimensionality != cq.dimensionality:
-            raise DimensionError(
-                f"Check {name!r} compares quantities of different dimensions: demand {dq:~P} "
-                f"({dq.dimensionality}) against capacity {cq:~P} ({cq.dimensionality})",
-                name=name,
-                value=(dq, cq),
-                expected="demand and capacity of one dimension",
-            )
-        if not float(cq.magnitude) > 0:
-            raise InputError(
-                f"Check {name!r}: capacity must be positive (got {cq:~P})",
-                name="capacity",
-                value=cq,
-                expected="a capacity > 0",
-            )
         unit = capacity.display_unit if isinstance(capacity, Value) else cq.units
         self.unit: pint.Unit = unit
-        self.demand_q: pint.Quantity = dq.to(unit)
-        self.capacity_q: pint.Quantity = cq.to(unit)
-        self.utilisation = float(abs(self.demand_q.magnitude) / self.capacity_q.magnitude)
-        # A utilisation within rounding of 1.000 passes only if it is truly not over 1.
-        self.verdict = Verdict.OK if self.utilisation <= 1.0 + 1e-12 else Verdict.NOT_OK
+        d, c, self.utilisation = utilisation(dq, cq.to(unit), name=name)
+        self.demand_q: pint.Quantity = d
+        self.capacity_q: pint.Quantity = c
+        self.verdict = Verdict.OK if passes(self.utilisation) else Verdict.NOT_OK
 
     @property
     def passed(self) -> bool:

@@ -97,7 +97,12 @@ def _powers(h: np.ndarray, K: int) -> np.ndarray:
 
 
 def integrate(
-    f: np.ndarray, h: np.ndarray, start: np.ndarray, jumps: np.ndarray, sign: float = 1.0
+    f: np.ndarray,
+    h: np.ndarray,
+    start: np.ndarray,
+    jumps: np.ndarray,
+    sign: float = 1.0,
+    powers: np.ndarray | None = None,
 ) -> np.ndarray:
     """Integrate piecewise polynomials batch-wise: g' = sign·f, g(0⁻) = start, jumps at nodes.
 
@@ -112,7 +117,7 @@ def integrate(
     k = np.arange(1, K)
     g = np.zeros_like(f)
     g[:, :, 1:] = sign * f[:, :, :-1] / k
-    ends = (g * _powers(h, K)).sum(axis=-1)
+    ends = (g * (_powers(h, K) if powers is None else powers)).sum(axis=-1)
     increments = jumps[:, :n].copy()
     increments[:, 1:] += ends[:, :-1]
     g[:, :, 0] = start[:, None] + np.cumsum(increments, axis=1)
@@ -168,7 +173,8 @@ def _binomials(K: int) -> tuple[np.ndarray, np.ndarray]:
 def _shift(c: np.ndarray, s: np.ndarray) -> np.ndarray:
     """Coefficients of p(ξ + s) for each row of c (ascending), s per row (binomial expansion)."""
     C, e = _binomials(c.shape[-1])
-    spow = np.asarray(s, dtype=float)[:, None, None] ** e[None, :, :]
+    s_pow = np.asarray(s, dtype=float)[:, None] ** np.arange(c.shape[-1])[None, :]
+    spow = s_pow[:, e]  # s^(i-k), gathered rather than recomputed
     return np.asarray(np.einsum("mi,ik,mik->mk", c, C, spow), dtype=float)
 
 
@@ -190,9 +196,14 @@ def _breakpoints(beam: SIBeam) -> np.ndarray:
     if beam.EI is not None:
         for a, b, _ in beam.EI:
             xs += [a, b]
-    X = np.unique(np.clip(np.asarray(xs, dtype=float), 0.0, beam.L_m))
-    keep = np.concatenate([[True], np.diff(X) > 1e-9 * beam.L_m])
-    return np.asarray(X[keep], dtype=float)
+    L = beam.L_m
+    tol = 1e-9 * L
+    merged: list[float] = []
+    for x in sorted({min(max(x, 0.0), L) for x in xs}):  # plain Python: a few dozen values
+        if not merged or x - merged[-1] > tol:
+            merged.append(x)
+    merged[-1] = L  # an end within the tolerance of L is L
+    return np.array(merged)
 
 
 def _node(X: np.ndarray, x: float) -> int:
@@ -211,7 +222,7 @@ _LIST_CACHE: list[tuple[np.ndarray, list[float]]] = []
 def _as_list(X: np.ndarray) -> list[float]:
     if _LIST_CACHE and _LIST_CACHE[0][0] is X:
         return _LIST_CACHE[0][1]
-    values = X.tolist()
+    values: list[float] = X.tolist()
     _LIST_CACHE[:] = [(X, values)]
     return values
 
@@ -231,19 +242,20 @@ def solve_si(beam: SIBeam) -> SIResult:
     # -- the loads ----------------------------------------------------------------------------
     w = np.zeros((n, K))
     mids = 0.5 * (X[:-1] + X[1:])
-    rows: list[np.ndarray] = []
-    segs: list[np.ndarray] = []
-    shifts: list[np.ndarray] = []
-    for a, b, coeffs in beam.pieces:
-        on = np.nonzero((mids > a) & (mids < b))[0]
-        c = np.zeros((on.size, K))
-        c[:, : len(coeffs)] = coeffs
-        rows.append(c)
-        segs.append(on)
-        shifts.append(X[on] - a)
-    if rows:
-        seg_all = np.concatenate(segs)
-        np.add.at(w, seg_all, _shift(np.concatenate(rows), np.concatenate(shifts)))
+    if beam.pieces:
+        # every (piece, segment) pair at once: shift each piece's polynomial to the segment
+        # start, then sum the pieces on each segment
+        n_pieces = len(beam.pieces)
+        A = np.array([p[0] for p in beam.pieces])
+        B = np.array([p[1] for p in beam.pieces])
+        coef = np.zeros((n_pieces, K))
+        for i, p in enumerate(beam.pieces):
+            coef[i, : len(p[2])] = p[2]
+        pi, seg = np.nonzero((mids[None, :] > A[:, None]) & (mids[None, :] < B[:, None]))
+        shifted = _shift(coef[pi], X[seg] - A[pi])
+        gather = np.zeros((n, seg.size))
+        gather[seg, np.arange(seg.size)] = 1.0
+        w += gather @ shifted
     jP = np.zeros(n + 1)  # downward point forces
     jC = np.zeros(n + 1)  # clockwise couples
     jH = np.zeros(n + 1)  # axial, +x
@@ -291,8 +303,9 @@ def solve_si(beam: SIBeam) -> SIResult:
         else:
             V0[b] = 1.0
     zero = np.zeros(Bn)
-    Vb = integrate(W, h, zero, JV, sign=-1.0)
-    Mb = integrate(Vb, h, zero, JM)
+    hp = _powers(h, K)
+    Vb = integrate(W, h, zero, JV, sign=-1.0, powers=hp)
+    Mb = integrate(Vb, h, zero, JM, powers=hp)
     Vend = end_values(Vb, h)
     Mend = end_values(Mb, h)
 
@@ -306,8 +319,8 @@ def solve_si(beam: SIBeam) -> SIResult:
         EI = np.zeros(n)
         for a, b_, value in beam.EI:
             EI[(mids > a) & (mids < b_)] = value
-        Tb = integrate(Mb / EI[None, :, None], h, T0, JT)
-        vb = integrate(Tb, h, V0, np.zeros((Bn, n + 1)))
+        Tb = integrate(Mb / EI[None, :, None], h, T0, JT, powers=hp)
+        vb = integrate(Tb, h, V0, np.zeros((Bn, n + 1)), powers=hp)
         Tend = end_values(Tb, h)
         vend = end_values(vb, h)
         for _name, x in beam.hinges:

@@ -139,17 +139,63 @@ class BeamExtremes:
         return None if self.slope_right_rad is None else out_q(self.slope_right_rad, "angle")
 
 
+def _closed_roots(d: np.ndarray, rows: np.ndarray, degree: int) -> tuple[np.ndarray, np.ndarray]:
+    """Real roots of linear or quadratic rows (ascending coefficients in t) in closed form;
+    the quadratic by the cancellation-free form q = −(b + sign(b)·√disc)/2, t = q/a and c/q."""
+    if degree == 1:
+        return rows, -d[rows, 0] / d[rows, 1]
+    c0, b, a = d[rows, 0], d[rows, 1], d[rows, 2]
+    disc = b * b - 4.0 * a * c0
+    # a discriminant lost in round-off is a double root
+    disc = np.where(np.abs(disc) <= 1e-12 * (b * b + np.abs(4.0 * a * c0)), 0.0, disc)
+    ok = disc >= 0
+    rows, c0, b, a, disc = rows[ok], c0[ok], b[ok], a[ok], disc[ok]
+    q = -0.5 * (b + np.where(b >= 0, 1.0, -1.0) * np.sqrt(disc))
+    t1 = q / a
+    with np.errstate(divide="ignore", invalid="ignore"):
+        t2 = np.where(q != 0, c0 / np.where(q != 0, q, 1.0), t1)
+    return np.concatenate([rows, rows]), np.concatenate([t1, t2])
+
+
+def _companion_roots(d: np.ndarray, rows: np.ndarray, D: int) -> tuple[np.ndarray, np.ndarray]:
+    """Real roots of rows of degree D >= 3: eigenvalues of the stacked companion matrices,
+    polished by Newton steps."""
+    c = d[rows, :D] / d[rows, D : D + 1]  # monic
+    comp = np.zeros((rows.size, D, D))
+    idx = np.arange(D - 1)
+    comp[:, idx + 1, idx] = 1.0
+    comp[:, :, -1] = -c
+    ev = np.linalg.eigvals(comp)
+    t = ev.real
+    ok = (np.abs(ev.imag) < 1e-6) & (t > -1e-6) & (t < 1 + 1e-6)
+    r_idx, col = np.nonzero(ok)
+    seg = rows[r_idx]
+    cc = d[seg, : D + 1]
+    tt = t[r_idx, col]
+    size = np.max(np.abs(cc), axis=1)
+    for _ in range(1):  # a Newton step (Horner for p and p'), guarded against flat spots
+        f = np.zeros_like(tt)
+        fp = np.zeros_like(tt)
+        for k in range(D, -1, -1):
+            fp = fp * tt + f
+            f = f * tt + cc[:, k]
+        good = np.abs(fp) > 1e-12 * size
+        step = np.where(good, f / np.where(good, fp, 1.0), 0.0)
+        tt = tt - np.clip(step, -1e-3, 1e-3)
+    return seg, tt
+
+
 def batch_roots(g: np.ndarray, h: np.ndarray) -> tuple[np.ndarray, np.ndarray]:
     """Real roots of every segment polynomial inside its segment, all segments at once.
 
     Each row of ``g`` (n, K) is scaled to t = ξ/h ∈ [0, 1]; terms below 1e-13 of the row's
-    largest are dropped (round-off). Rows of lower degree are multiplied by (t − 2) until all
-    have the top degree -- the added roots lie outside [0, 1] -- so one eigenvalue call on the
-    stacked companion matrices finds every root; the real roots in [0, 1] are then polished by
-    Newton steps. Identically zero and constant rows have no roots.
+    largest are dropped (round-off). Rows are grouped by degree: linear and quadratic rows
+    are solved in closed form, higher degrees as eigenvalues of their companion matrices (one
+    stacked call per degree) polished by Newton steps. Identically zero and constant rows
+    have no roots.
 
     Returns:
-        (segment index, ξ) arrays of the roots.
+        (segment index, ξ) arrays of the roots in [0, h].
     """
     K = g.shape[1]
     d = g * h[:, None] ** np.arange(K)[None, :]
@@ -157,44 +203,39 @@ def batch_roots(g: np.ndarray, h: np.ndarray) -> tuple[np.ndarray, np.ndarray]:
     d = np.where(np.abs(d) > 1e-13 * size[:, None], d, 0.0)
     nz = d != 0
     deg = np.where(nz.any(axis=1), K - 1 - np.argmax(nz[:, ::-1], axis=1), 0)
-    rows = np.nonzero(deg >= 1)[0]
-    if rows.size == 0:
+    segs: list[np.ndarray] = []
+    ts: list[np.ndarray] = []
+    for D in (1, 2):
+        rows = np.nonzero(deg == D)[0]
+        if rows.size:
+            seg, t = _closed_roots(d, rows, D)
+            segs.append(seg)
+            ts.append(t)
+    rows = np.nonzero(deg >= 3)[0]
+    if rows.size:
+        # one eigenvalue call: lower degrees are multiplied by (t − 2), whose root lies
+        # outside [0, 1], up to the top degree
+        D = int(deg[rows].max())
+        c = d[rows, : D + 1].copy()
+        pad = D - deg[rows]
+        while pad.max() > 0:
+            more = pad > 0
+            shifted = np.zeros_like(c)
+            shifted[:, 1:] = c[:, :-1]
+            c = np.where(more[:, None], shifted - 2.0 * c, c)
+            pad = pad - more.astype(int)
+        padded = np.zeros_like(d)
+        padded[rows, : D + 1] = c
+        seg, t = _companion_roots(padded, rows, D)
+        segs.append(seg)
+        ts.append(t)
+    if not segs:
         return np.zeros(0, dtype=int), np.zeros(0)
-    D = int(deg[rows].max())
-    c = d[rows, : D + 1].copy()
-    pad = D - deg[rows]
-    for _ in range(int(pad.max())):
-        more = pad > 0
-        shifted = np.zeros_like(c)
-        shifted[:, 1:] = c[:, :-1]
-        c = np.where(more[:, None], shifted - 2.0 * c, c)
-        pad = pad - more
-    c = c[:, :D] / c[:, D : D + 1]  # monic
-    comp = np.zeros((rows.size, D, D))
-    if D > 1:
-        idx = np.arange(D - 1)
-        comp[:, idx + 1, idx] = 1.0
-    comp[:, :, -1] = -c
-    ev = np.linalg.eigvals(comp)
-    t = ev.real
-    ok = (np.abs(ev.imag) < 1e-6) & (t > -1e-9) & (t < 1 + 1e-9)
-    r_idx, col = np.nonzero(ok)
-    if r_idx.size == 0:
-        return np.zeros(0, dtype=int), np.zeros(0)
-    # polish on the original (unpadded) scaled polynomial
-    seg = rows[r_idx]
-    cc = d[seg]
-    tt = t[r_idx, col]
-    powers = np.arange(K)
-    for _ in range(3):  # Newton steps, guarded against flat spots
-        tp = tt[:, None] ** powers
-        f = np.sum(cc * tp, axis=1)
-        fp = np.sum(cc[:, 1:] * powers[1:] * tp[:, :-1], axis=1)
-        good = np.abs(fp) > 1e-12 * size[seg]
-        step = np.where(good, f / np.where(good, fp, 1.0), 0.0)
-        tt = tt - np.clip(step, -1e-3, 1e-3)
-    tt = np.clip(tt, 0.0, 1.0)
-    return seg, tt * h[seg]
+    seg_all = np.concatenate(segs)
+    t_all = np.concatenate(ts)
+    keep = (t_all > -1e-9) & (t_all < 1 + 1e-9)
+    seg_all = seg_all[keep]
+    return seg_all, np.clip(t_all[keep], 0.0, 1.0) * h[seg_all]
 
 
 def roots_in_segments(X: np.ndarray, g: np.ndarray) -> np.ndarray:

@@ -295,6 +295,14 @@ class Beam:
             )
         object.__setattr__(self, "supports", tuple(named))
 
+        for i, h in enumerate(self.hinges):
+            if not isinstance(h, Hinge):
+                raise InputError(
+                    f"hinges[{i}] must be a Hinge (got {h!r})",
+                    name=f"hinges[{i}]",
+                    value=h,
+                    expected="a Hinge",
+                )
         hinges = tuple(sorted(self.hinges, key=lambda h: h.x_m))
         hinges = tuple(
             replace(h, name=f"H{i + 1}") if isinstance(h, Hinge) and h.name is None else h
@@ -363,8 +371,15 @@ class Beam:
 
         ei = self.EI
         if ei is not None and not isinstance(ei, Quantity):
-            segs = tuple(sorted(ei, key=lambda s: si(s.start)))
-            for i, seg in enumerate(segs):
+            if isinstance(ei, int | float | str):
+                raise InputError(
+                    f"EI must be a quantity of force × length² or a list of EISegment (got "
+                    f"EI = {ei!r}); write e.g. EI = 200 * ureg.GPa * 40e6 * ureg.mm**4",
+                    name="EI",
+                    value=ei,
+                    expected="a quantity of [force]·[length]²",
+                )
+            for i, seg in enumerate(ei):
                 if not isinstance(seg, EISegment):
                     raise InputError(
                         f"EI[{i}] must be an EISegment(start, end, EI) (got {seg!r})",
@@ -372,6 +387,7 @@ class Beam:
                         value=seg,
                         expected="an EISegment",
                     )
+            segs = tuple(sorted(ei, key=lambda s: si(s.start)))
             edges = [0.0] + [v for s in segs for v in (si(s.start), si(s.end))] + [L_m]
             for j in range(0, len(edges), 2):
                 if abs(edges[j + 1] - edges[j]) > tol:

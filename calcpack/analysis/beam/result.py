@@ -287,19 +287,22 @@ class BeamResult:
         return self + (-1.0) * other
 
     # -- display (built lazily, never on the numeric path) -------------------------------------
-    def working(self, **options: Any) -> list[Any]:
+    def working(self, **options: Any) -> Any:
         """The working for a sheet: model, classification, load resultants, equilibrium (or
-        the compatibility method), reactions and extremes, as calcpack.working steps."""
+        the compatibility method), reactions and extremes, as a calcpack.working Block (add it
+        to a Sheet with ``sheet.add``). Options: ``sheet=`` (use its units and digits),
+        ``system="SI"``/``"US"``, ``title=``."""
         from calcpack.analysis.beam.working import beam_working
 
         return beam_working(self, **options)
 
-    def cut(self, x: Quantity, side: str = "left") -> list[Any]:
+    def cut(self, x: Quantity, side: str = "left", **options: Any) -> Any:
         """The cut-section working at ``x``: the free body of the part left of the cut, its
-        ΣFy = 0 and ΣM = 0 equations giving V and M from first principles."""
+        ΣFy = 0 and ΣM = 0 equations giving V and M from first principles. ``side`` "left"
+        cuts just left of x, "right" just right of it; options: ``sheet=`` or ``system=``."""
         from calcpack.analysis.beam.working import cut_working
 
-        return cut_working(self, x, side=side)
+        return cut_working(self, x, side=side, **options)
 
     def figure(self, **options: Any) -> Any:
         """The stacked loading / shear / moment / deflection figure (SVG, see calcpack.plots)."""

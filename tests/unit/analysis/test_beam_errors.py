@@ -193,3 +193,11 @@ def test_position_off_the_beam_when_evaluating():
     with pytest.raises(InputError, match="Position x must lie on the beam") as err:
         r.moment(7 * m)
     assert err.value.name == "x"
+
+
+def test_wrong_types_for_hinges_and_EI():
+    with pytest.raises(InputError, match=r"hinges\[0\] must be a Hinge"):
+        Beam(length=6 * m, supports=[Fixed(0 * m)], hinges=[3 * m])
+    with pytest.raises(InputError, match="EI must be a quantity") as err:
+        Beam(length=6 * m, supports=[Fixed(0 * m)], EI=20000.0)
+    assert err.value.name == "EI"

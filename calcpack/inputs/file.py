@@ -1,0 +1,399 @@
+"""A sheet's inputs file: a small TOML file beside the notebook holding the values it starts from.
+
+Quantities are written as strings with their unit, e.g. ``span = "3.2 m"`` or
+``w = "8.5 kN/m"``; bare numbers are dimensionless (load factors, ratios); other strings
+(``"pin"``, ``"B1"``) stay text. A string that starts with a number must carry a unit that pint
+knows, so ``"3.2"`` (a number written as text, unit forgotten) is refused rather than guessed.
+
+:func:`load_inputs` reads a file and returns plain dicts and lists with quantities in place of the
+unit strings; :func:`update_inputs` changes some values in place, keeping the file's comments and
+layout (through tomlkit), so a file edited by hand and then by a panel still reads as written.
+
+Pure: no Jupyter, no widgets. Both the input panels and the sheets' calc cells use this module,
+so a build executes exactly the values the panel last showed.
+"""
+
+from __future__ import annotations
+
+import contextlib
+import math
+import os
+import re
+import tempfile
+import tomllib
+from collections.abc import Iterator, Mapping, Sequence
+from dataclasses import dataclass
+from pathlib import Path
+from typing import Any
+
+from calcpack.errors import DimensionError, InputError
+from calcpack.units import Q_, Quantity, is_quantity
+
+__all__ = [
+    "InputsFileError",
+    "Spec",
+    "format_quantity",
+    "get_path",
+    "load_inputs",
+    "parse_quantity",
+    "read_inputs_text",
+    "require_input",
+    "split_key",
+    "update_inputs",
+    "write_inputs",
+]
+
+_NUMBER_START = re.compile(r"^\s*[-+]?(\d|\.\d)")
+
+
+class InputsFileError(InputError):
+    """The inputs file is missing, is not valid TOML, or a value in it is malformed.
+
+    ``name`` is the dotted key (``"beam.spans[2]"``), ``value`` what was found, ``expected``
+    what would be valid; the message also names the file.
+    """
+
+
+def _where(path: Path | str | None) -> str:
+    return f"{Path(path).name}: " if path is not None else ""
+
+
+def parse_quantity(text: str, key: str, *, path: Path | str | None = None) -> Quantity:
+    """Parse ``"3.2 m"`` into a quantity; ``key`` names the value in messages.
+
+    Raises:
+        InputsFileError: no unit given, or a unit pint does not know.
+    """
+    try:
+        q = Q_(text)
+    except Exception as exc:  # pint raises several unrelated types for bad units
+        raise InputsFileError(
+            f"{_where(path)}value {key} = {text!r} is not a number with a known unit "
+            f'({type(exc).__name__}: {exc}); write e.g. "3.2 m" or "8.5 kN/m"',
+            name=key,
+            value=text,
+            expected='a number and a unit, e.g. "3.2 m"',
+        ) from None
+    if not is_quantity(q) or (q.dimensionless and not str(q.units)):
+        raise InputsFileError(
+            f"{_where(path)}value {key} = {text!r} has no unit; write the unit (e.g. "
+            f'"{text.strip()} m"), or a bare number without quotes for a dimensionless value',
+            name=key,
+            value=text,
+            expected='a number and a unit, e.g. "3.2 m"',
+        )
+    if not math.isfinite(float(q.magnitude)):
+        raise InputsFileError(
+            f"{_where(path)}value {key} = {text!r} must be finite",
+            name=key,
+            value=text,
+            expected="a finite value",
+        )
+    return q
+
+
+def _convert(value: Any, key: str, path: Path | str | None) -> Any:
+    if isinstance(value, str):
+        return parse_quantity(value, key, path=path) if _NUMBER_START.match(value) else value
+    if isinstance(value, Mapping):
+        return {
+            str(k): _convert(v, f"{key}.{k}" if key else str(k), path) for k, v in value.items()
+        }
+    if isinstance(value, list):
+        return [_convert(v, f"{key}[{i}]", path) for i, v in enumerate(value, start=1)]
+    if isinstance(value, float) and not math.isfinite(value):
+        raise InputsFileError(
+            f"{_where(path)}value {key} = {value} must be finite",
+            name=key,
+            value=value,
+            expected="a finite number",
+        )
+    return value
+
+
+def read_inputs_text(text: str, *, path: Path | str | None = None) -> dict[str, Any]:
+    """Parse the TOML ``text`` of an inputs file (see :func:`load_inputs`)."""
+    try:
+        raw = tomllib.loads(text)
+    except tomllib.TOMLDecodeError as exc:
+        raise InputsFileError(
+            f"{_where(path)}not valid TOML ({exc})",
+            name=str(path) if path is not None else "inputs",
+            value=None,
+            expected="a TOML file of key = value lines",
+        ) from None
+    out: dict[str, Any] = _convert(raw, "", path)
+    return out
+
+
+def load_inputs(path: Path | str) -> dict[str, Any]:
+    """Read an inputs file.
+
+    Args:
+        path: the TOML file (usually ``<sheet>.inputs.toml`` beside the notebook).
+
+    Returns:
+        Tables as dicts, arrays as lists, unit strings as pint quantities, other values as
+        given.
+
+    Raises:
+        InputsFileError: the file is missing or not TOML, or a value starting with a number has
+            no unit or an unknown one; the message names the file and the key.
+    """
+    p = Path(path)
+    try:
+        text = p.read_text(encoding="utf-8")
+    except FileNotFoundError:
+        raise InputsFileError(
+            f"Inputs file {str(p)!r} does not exist (looked in {str(p.resolve().parent)!r}); "
+            "create it with `calcpack add-sheet` or copy a template",
+            name=str(p),
+            value=None,
+            expected="an existing TOML file",
+        ) from None
+    return read_inputs_text(text, path=p)
+
+
+_KEY_PART = re.compile(r"([^.\[\]]+)|\[(\d+)\]")
+
+
+def split_key(key: str) -> list[str | int]:
+    """``"beam.spans[2]"`` -> ``["beam", "spans", 1]`` (list indices are 1-based in keys)."""
+    parts: list[str | int] = []
+    for m in _KEY_PART.finditer(key):
+        if m.group(1) is not None:
+            parts.append(m.group(1))
+        else:
+            parts.append(int(m.group(2)) - 1)
+    return parts
+
+
+def get_path(data: Mapping[str, Any], key: str) -> Any:
+    """The value at dotted ``key`` (``"beam.spans[2]"``, 1-based) or raise naming the key."""
+    node: Any = data
+    for part in split_key(key):
+        try:
+            node = node[part]
+        except (KeyError, IndexError, TypeError):
+            raise InputsFileError(
+                f"Inputs have no value {key} (looked for {part!r})",
+                name=key,
+                value=None,
+                expected="a key present in the inputs file",
+            ) from None
+    return node
+
+
+@dataclass(frozen=True)
+class Spec:
+    """What a value in the inputs file must be.
+
+    Args:
+        dimension: a pint dimension (``"[length]"``) or unit (``"kN/m"``) for a quantity;
+            ``"number"`` for a bare number; ``"text"`` for a string.
+        positive, nonnegative: sign rules for numbers and quantities.
+        choices: allowed strings for ``"text"``.
+    """
+
+    dimension: str
+    positive: bool = False
+    nonnegative: bool = False
+    choices: tuple[str, ...] = ()
+
+
+def require_input(value: Any, spec: Spec | str, key: str, *, path: Path | str | None = None) -> Any:
+    """Check one value read from an inputs file against ``spec``; returns it.
+
+    Raises:
+        InputsFileError / DimensionError: the message names ``key`` and, when given, the file.
+    """
+    s = Spec(spec) if isinstance(spec, str) else spec
+    where = _where(path)
+    if s.dimension == "text":
+        if not isinstance(value, str):
+            raise InputsFileError(
+                f"{where}value {key} must be text (got {value!r})",
+                name=key,
+                value=value,
+                expected="a quoted string",
+            )
+        if s.choices and value not in s.choices:
+            raise InputsFileError(
+                f"{where}value {key} must be one of {', '.join(s.choices)} (got {value!r})",
+                name=key,
+                value=value,
+                expected=" or ".join(s.choices),
+            )
+        return value
+    if s.dimension == "number":
+        if isinstance(value, bool) or not isinstance(value, int | float):
+            raise InputsFileError(
+                f"{where}value {key} must be a bare number (got {value!r})",
+                name=key,
+                value=value,
+                expected="a number without quotes",
+            )
+        mag = float(value)
+    else:
+        from calcpack.units import require
+
+        try:
+            require(value, s.dimension, key)
+        except DimensionError as exc:
+            if is_quantity(value):
+                got = f"{value:~P}"
+                hint = ""
+            else:
+                got = repr(value)
+                hint = ' (write the value with its unit in quotes, e.g. "3.2 m")'
+            raise DimensionError(
+                f"{where}value {key} must have units of {s.dimension} (got {got}){hint}",
+                name=key,
+                value=value,
+                expected=exc.expected,
+            ) from None
+        mag = float(value.magnitude)
+    if s.positive and not mag > 0:
+        raise InputsFileError(
+            f"{where}value {key} must be positive (got {key} = {_show(value)})",
+            name=key,
+            value=value,
+            expected="a value > 0",
+        )
+    if s.nonnegative and not mag >= 0:
+        raise InputsFileError(
+            f"{where}value {key} must not be negative (got {key} = {_show(value)})",
+            name=key,
+            value=value,
+            expected="a value >= 0",
+        )
+    return value
+
+
+def _show(value: Any) -> str:
+    return f"{value:~P}" if is_quantity(value) else repr(value)
+
+
+# -- writing -------------------------------------------------------------------------------
+def format_quantity(q: Quantity) -> str:
+    """A quantity as the inputs file writes it: shortest exact magnitude, compact unit
+    (``"3.2 m"``, ``"8.5 kN/m"``, ``"11 GPa"``)."""
+    mag = float(q.magnitude)
+    text = repr(mag)
+    if text.endswith(".0"):
+        text = text[:-2]
+    unit = f"{q.units:~C}"
+    return f"{text} {unit}" if unit else text
+
+
+def _to_toml(value: Any) -> Any:
+    if is_quantity(value):
+        return format_quantity(value)
+    if isinstance(value, Mapping):
+        return {str(k): _to_toml(v) for k, v in value.items()}
+    if isinstance(value, list | tuple):
+        return [_to_toml(v) for v in value]
+    return value
+
+
+def _atomic_write(path: Path, text: str) -> None:
+    # Write beside the target and rename, so a reader (a kernel running the sheet) never sees a
+    # half-written file.
+    fd, tmp = tempfile.mkstemp(prefix=f".{path.name}.", dir=str(path.parent))
+    try:
+        with os.fdopen(fd, "w", encoding="utf-8", newline="\n") as fh:
+            fh.write(text)
+        os.replace(tmp, path)
+    except BaseException:
+        Path(tmp).unlink(missing_ok=True)
+        raise
+
+
+def write_inputs(path: Path | str, data: Mapping[str, Any], *, header: str = "") -> None:
+    """Write a whole inputs file from ``data`` (quantities become unit strings).
+
+    Args:
+        path: the file to create or replace.
+        data: tables (dicts), arrays (lists), quantities, numbers and text.
+        header: comment lines put at the top (without the ``#``).
+    """
+    import tomlkit
+
+    doc = tomlkit.document()
+    for line in header.splitlines():
+        doc.add(tomlkit.comment(line) if line.strip() else tomlkit.nl())
+    if header:
+        doc.add(tomlkit.nl())
+    for k, v in _to_toml(data).items():
+        doc[k] = v
+    _atomic_write(Path(path), tomlkit.dumps(doc))
+
+
+def _walk_set(doc: Any, parts: Sequence[str | int], value: Any, key: str) -> None:
+    node = doc
+    for part in parts[:-1]:
+        try:
+            node = node[part]
+        except (KeyError, IndexError, TypeError):
+            raise InputsFileError(
+                f"Cannot set {key}: the inputs file has no {part!r} there",
+                name=key,
+                value=value,
+                expected="a key that exists in the file",
+            ) from None
+    last = parts[-1]
+    if isinstance(last, int) and last == len(node) and value is not None:
+        node.append(value)  # one past the end appends (e.g. a new [[loads]] table)
+        return
+    if isinstance(last, int) and not 0 <= last < len(node):
+        raise InputsFileError(
+            f"Cannot set {key}: index {last + 1} is past the end (the list has {len(node)})",
+            name=key,
+            value=value,
+            expected=f"an index from 1 to {len(node)}",
+        )
+    if value is None:  # TOML has no null: None removes the key
+        with contextlib.suppress(KeyError, IndexError):
+            del node[last]
+        return
+    node[last] = value
+
+
+def update_inputs(path: Path | str, changes: Mapping[str, Any]) -> dict[str, Any]:
+    """Change values in an inputs file, keeping its comments, order and layout.
+
+    Args:
+        path: an existing inputs file.
+        changes: dotted key (``"beam.spans[2]"``, list indices 1-based) to new value; a value
+            may be a whole table or list (``"loads"`` -> list of dicts) to replace it, or None
+            to remove the key; a list index one past the end appends.
+
+    Returns:
+        The file as :func:`load_inputs` reads it after the change.
+
+    Raises:
+        InputsFileError: the file is missing or malformed, or a key's parent does not exist.
+    """
+    import tomlkit
+
+    p = Path(path)
+    load_inputs(p)  # refuse to touch a file that does not read cleanly
+    doc = tomlkit.parse(p.read_text(encoding="utf-8"))
+    for key, value in changes.items():
+        _walk_set(doc, split_key(key), _to_toml(value), key)
+    text = tomlkit.dumps(doc)
+    result = read_inputs_text(text, path=p)  # never write a file we could not read back
+    _atomic_write(p, text)
+    return result
+
+
+def iter_quantities(data: Any, key: str = "") -> Iterator[tuple[str, Quantity]]:
+    """Every quantity in loaded inputs with its dotted key, in file order."""
+    if is_quantity(data):
+        yield key, data
+    elif isinstance(data, Mapping):
+        for k, v in data.items():
+            yield from iter_quantities(v, f"{key}.{k}" if key else str(k))
+    elif isinstance(data, list):
+        for i, v in enumerate(data, start=1):
+            yield from iter_quantities(v, f"{key}[{i}]")

@@ -1,0 +1,398 @@
+"""The beam panel: edit a beam sheet's inputs file and watch the diagrams and checks move.
+
+Every edit is validated (:func:`calcpack.inputs.beam_inputs`), written to the inputs file
+(comments kept) and re-evaluated with :func:`calcpack.inputs.evaluate_beam` -- the same
+functions the sheet's calc cells call -- so re-running the sheet, or building the package,
+reproduces what the panel shows. An edit that does not validate is shown with its error and not
+written; the file keeps the last valid values.
+"""
+
+from __future__ import annotations
+
+import copy
+import time
+from html import escape
+from pathlib import Path
+from typing import Any
+
+import ipywidgets as ipw
+
+from calcpack.errors import CalcpackError
+from calcpack.inputs import (
+    SHAPES,
+    SUPPORT_KINDS,
+    BeamOutcome,
+    beam_inputs,
+    evaluate_beam,
+    load_inputs,
+    update_inputs,
+)
+from calcpack.inputs.file import split_key
+from calcpack.units import Q_, Quantity
+from calcpack.widgets.fields import QuantityField, css_key, interactive_session, label
+from calcpack.widgets.svg import beam_diagrams_svg
+
+__all__ = ["BeamPanel", "beam_panel", "outcome_table_html"]
+
+
+def _set(data: dict[str, Any], key: str, value: Any) -> None:
+    node: Any = data
+    parts = split_key(key)
+    for p in parts[:-1]:
+        node = node[p]
+    last = parts[-1]
+    if value is None:  # as update_inputs: None removes the key or list item
+        if isinstance(node, list) and isinstance(last, int):
+            del node[last]
+        else:
+            node.pop(last, None)
+    elif isinstance(node, list) and last == len(node):
+        node.append(value)
+    else:
+        node[last] = value
+
+
+def _fmt(q: Quantity, unit: str, sig: int = 3) -> str:
+    return f"{q.to(unit).magnitude:.{sig}g} {Q_(1, unit).units:~P}"
+
+
+def _verdict(u: float) -> str:
+    ok = u <= 1.0
+    colour = "#1d6b2f" if ok else "#a31515"
+    return (
+        f'<span class="cp-verdict {"cp-ok" if ok else "cp-notok"}" style="color:{colour};'
+        f'font-weight:bold">{"OK" if ok else "NOT OK"}</span>'
+    )
+
+
+def outcome_table_html(outcome: BeamOutcome) -> str:
+    """Reactions and checks as an HTML table (values carry ``data-value`` for tests)."""
+    inp = outcome.inputs
+    rows = []
+    for r in outcome.strength.reactions:
+        rows.append(
+            f"<tr><td>Reaction R<sub>{escape(r.support)}</sub> ({escape(outcome.strength.label)})"
+            f'</td><td class="cp-out" data-out="R_{escape(r.support)}" '
+            f'data-value="{r.Fy.to("kN").magnitude!r}">{_fmt(r.Fy, "kN")}</td><td></td></tr>'
+        )
+    u_b = outcome.bending_utilisation
+    rows.append(
+        f"<tr><td>Design moment |M| at x = {_fmt(outcome.x_M, 'm')}</td>"
+        f'<td class="cp-out" data-out="M_design" '
+        f'data-value="{outcome.M_design.to("kN*m").magnitude!r}">'
+        f"{_fmt(outcome.M_design, 'kN*m')}</td><td></td></tr>"
+        f'<tr><td>Bending stress σ = M / S<sub>x</sub></td><td class="cp-out" data-out="sigma" '
+        f'data-value="{outcome.sigma.to("MPa").magnitude!r}">{_fmt(outcome.sigma, "MPa")}</td>'
+        f"<td>f<sub>b</sub> = {_fmt(inp.f_b, 'MPa')}</td></tr>"
+        f'<tr><td><b>Bending utilisation</b></td><td class="cp-out" data-out="bending_utilisation"'
+        f' data-value="{u_b!r}">{u_b:.3f}</td><td>{_verdict(u_b)}</td></tr>'
+    )
+    for d in outcome.deflections:
+        rows.append(
+            f"<tr><td>Span {d.span}: deflection δ ({escape(outcome.service.label)})</td>"
+            f'<td class="cp-out" data-out="delta_{d.span}" '
+            f'data-value="{d.delta.to("mm").magnitude!r}">{_fmt(d.delta, "mm")}</td>'
+            f"<td>limit L/{inp.deflection_ratio:g} = {_fmt(d.limit, 'mm')}, "
+            f'utilisation <span class="cp-out" data-out="deflection_utilisation_{d.span}" '
+            f'data-value="{d.utilisation!r}">{d.utilisation:.3f}</span> '
+            f"{_verdict(d.utilisation)}</td></tr>"
+        )
+    return (
+        "<style>.cp-panel-results td{padding:1px 8px 1px 0}</style>"
+        '<table class="cp-panel-results" style="border-collapse:collapse;font-size:13px">'
+        + "".join(rows)
+        + "</table>"
+    )
+
+
+class BeamPanel:
+    """An interactive editor for a beam sheet's inputs file.
+
+    Args:
+        path: the inputs file (``<sheet>.inputs.toml``), relative to the kernel's folder (the
+            notebook's) or absolute.
+
+    Attributes:
+        widget: the ipywidgets box displayed in the notebook.
+        outcome: the last successful evaluation, or None.
+        last_update_s: seconds spent on the last edit (validate, write, solve, redraw).
+    """
+
+    def __init__(self, path: str | Path) -> None:
+        self.path = Path(path)
+        self.data = load_inputs(self.path)
+        self.outcome: BeamOutcome | None = None
+        self.last_update_s = 0.0
+        self.fields: dict[str, QuantityField] = {}
+        self.status = ipw.HTML(layout=ipw.Layout(min_height="20px"))
+        self.status.add_class("cp-panel-status")
+        self.diagrams = ipw.HTML()
+        self.diagrams.add_class("cp-panel-diagrams")
+        self.results = ipw.HTML()
+        self.results.add_class("cp-panel-results-box")
+        self.form = ipw.VBox()
+        reload = ipw.Button(description="Reload file", tooltip=f"Read {self.path.name} again")
+        reload.on_click(lambda _b: self.reload())
+        title = ipw.HTML(
+            f"<b>Beam panel</b> — edits <code>{escape(self.path.name)}</code>; "
+            "re-run the sheet's cells to update its working."
+        )
+        self.widget = ipw.VBox(
+            [
+                ipw.HBox([title, reload]),
+                ipw.HBox([self.form, ipw.VBox([self.diagrams, self.results])]),
+                self.status,
+            ]
+        )
+        self.widget.add_class("cp-beam-panel")
+        self._build_form()
+        self._refresh()
+
+    # -- display ------------------------------------------------------------------------------
+    def _ipython_display_(self) -> None:
+        if interactive_session():
+            from IPython.display import display
+
+            display(self.widget)
+
+    def __repr__(self) -> str:
+        return f"BeamPanel({str(self.path)!r})"
+
+    # -- form -----------------------------------------------------------------------------------
+    def _field(self, key: str, text: str, value: Quantity) -> ipw.Widget:
+        f = QuantityField(key, text, value, self._edit_one)
+        self.fields[key] = f
+        return f.widget
+
+    def _build_form(self) -> None:
+        self.fields = {}
+        d = self.data
+        beam, section, material = d["beam"], d["section"], d["material"]
+        parts: list[ipw.Widget] = [ipw.HTML("<b>Spans</b>")]
+        for i, s in enumerate(beam["spans"], start=1):
+            parts.append(self._field(f"beam.spans[{i}]", f"Span {i}", s))
+        add = ipw.Button(description="+ span", layout=ipw.Layout(width="80px"))
+        drop = ipw.Button(
+            description="− span", layout=ipw.Layout(width="80px"), disabled=len(beam["spans"]) < 2
+        )
+        add.on_click(lambda _b: self._spans(+1))
+        drop.on_click(lambda _b: self._spans(-1))
+        parts.append(ipw.HBox([add, drop]))
+        parts.append(ipw.HTML("<b>Supports</b> (left to right)"))
+        for i, kind in enumerate(beam["supports"], start=1):
+            dd = ipw.Dropdown(
+                options=list(SUPPORT_KINDS), value=kind, layout=ipw.Layout(width="110px")
+            )
+            dd.add_class(css_key(f"beam.supports[{i}]"))
+            dd.observe(
+                lambda ch, k=f"beam.supports[{i}]": self._edit({k: ch["new"]}), names="value"
+            )
+            parts.append(ipw.HBox([label(f"Support line {i}"), dd]))
+        parts.append(ipw.HTML("<b>Section</b>"))
+        shape = ipw.Dropdown(
+            options=[(f.label, k) for k, f in SHAPES.items()],
+            value=section["shape"],
+            layout=ipw.Layout(width="170px"),
+        )
+        shape.add_class(css_key("section.shape"))
+        shape.observe(lambda ch: self._shape(ch["new"]), names="value")
+        parts.append(ipw.HBox([label("Shape"), shape]))
+        form = SHAPES[section["shape"]]
+        for dim in form.dims:
+            if dim in section:
+                parts.append(
+                    self._field(
+                        f"section.{dim}", f"{dim} ({form.descriptions.get(dim, '')})", section[dim]
+                    )
+                )
+        parts.append(ipw.HTML("<b>Material</b>"))
+        parts.append(self._field("material.E", "E (modulus)", material["E"]))
+        parts.append(self._field("material.f_b", "f_b (bending strength)", material["f_b"]))
+        parts.append(ipw.HTML("<b>Loads</b> (by case)"))
+        for i, ld in enumerate(d.get("loads", []), start=1):
+            head = f"{i}: {ld.get('type', '?')}"
+            case = ipw.Text(
+                value=str(ld.get("case", "D")),
+                layout=ipw.Layout(width="60px"),
+                continuous_update=False,
+            )
+            case.add_class(css_key(f"loads[{i}].case"))
+            case.observe(lambda ch, k=i: self._case(k, ch["new"]), names="value")
+            remove = ipw.Button(description="remove", layout=ipw.Layout(width="70px"))
+            remove.on_click(lambda _b, k=i: self._remove_load(k))
+            parts.append(ipw.HBox([label(f"Load {i}, case"), case, remove]))
+            if ld.get("type") == "uniform":
+                parts.append(self._field(f"loads[{i}].w", f"{head} w", ld["w"]))
+                if "span" in ld:
+                    n_spans = len(beam["spans"])
+                    dd = ipw.Dropdown(
+                        options=list(range(1, n_spans + 1)),
+                        value=int(ld["span"]) if 1 <= ld["span"] <= n_spans else 1,
+                        layout=ipw.Layout(width="70px"),
+                    )
+                    key = f"loads[{i}].span"
+                    dd.add_class(css_key(key))
+                    dd.observe(lambda ch, k=key: self._edit({k: int(ch["new"])}), names="value")
+                    parts.append(ipw.HBox([label("    on span"), dd]))
+                for k in ("start", "end"):
+                    if k in ld:
+                        parts.append(self._field(f"loads[{i}].{k}", f"    {k}", ld[k]))
+            elif ld.get("type") == "point":
+                parts.append(self._field(f"loads[{i}].P", f"{head} P", ld["P"]))
+                parts.append(self._field(f"loads[{i}].x", "    at x", ld["x"]))
+        add_case = ipw.Text(value="L", layout=ipw.Layout(width="60px"))
+        add_u = ipw.Button(description="+ uniform", layout=ipw.Layout(width="90px"))
+        add_p = ipw.Button(description="+ point", layout=ipw.Layout(width="80px"))
+        add_u.on_click(lambda _b: self._add_load("uniform", add_case.value))
+        add_p.on_click(lambda _b: self._add_load("point", add_case.value))
+        parts.append(ipw.HBox([label("New load, case"), add_case, add_u, add_p]))
+        parts.append(ipw.HTML("<b>Load factors</b>"))
+        for combo in ("strength", "service"):
+            for case, factor in d.get("combinations", {}).get(combo, {}).items():
+                box = ipw.FloatText(
+                    value=float(factor), layout=ipw.Layout(width="80px"), continuous_update=False
+                )
+                key = f"combinations.{combo}.{case}"
+                box.add_class(css_key(key))
+                box.observe(lambda ch, k=key: self._edit({k: float(ch["new"])}), names="value")
+                parts.append(ipw.HBox([label(f"{combo}: {case}"), box]))
+        ratio = ipw.FloatText(
+            value=float(d.get("limits", {}).get("deflection_ratio", 360)),
+            layout=ipw.Layout(width="80px"),
+            continuous_update=False,
+        )
+        ratio.add_class(css_key("limits.deflection_ratio"))
+        ratio.observe(
+            lambda ch: self._edit({"limits.deflection_ratio": float(ch["new"])}), names="value"
+        )
+        parts.append(ipw.HBox([label("Deflection limit L /"), ratio]))
+        self.form.children = parts
+
+    # -- edits ----------------------------------------------------------------------------------
+    def _edit_one(self, key: str, value: Any) -> None:
+        self._edit({key: value})
+
+    def set(self, key: str, value: Any) -> None:
+        """Edit one value as if typed in the panel (e.g. ``set("beam.spans[2]", 5 * ureg.m)``)."""
+        if key == "section.shape":
+            self._shape(value)
+        elif key in self.fields and isinstance(value, Quantity):
+            self.fields[key].box.value = float(value.to(self.fields[key].unit).magnitude)
+        else:
+            self._edit({key: value})
+
+    def _edit(self, changes: dict[str, Any]) -> None:
+        t0 = time.perf_counter()
+        candidate = copy.deepcopy(self.data)
+        try:
+            for k, v in changes.items():
+                _set(candidate, k, v)
+            validated = beam_inputs(candidate, path=self.path)
+        except CalcpackError as exc:
+            self._error(f"Not saved: {exc}")
+            return
+        except (KeyError, IndexError, TypeError) as exc:
+            self._error(f"Not saved: no value {exc} in {self.path.name}")
+            return
+        try:
+            self.data = update_inputs(self.path, changes)
+        except CalcpackError as exc:  # e.g. the file was edited by hand meanwhile
+            self._error(f"Not saved: {exc}; press 'Reload file'")
+            return
+        self._refresh(validated)
+        self.last_update_s = time.perf_counter() - t0
+
+    def _spans(self, step: int) -> None:
+        spans = list(self.data["beam"]["spans"])
+        supports = list(self.data["beam"]["supports"])
+        if step > 0:
+            spans.append(spans[-1])
+            supports.append("roller")
+        elif len(spans) > 1:
+            spans.pop()
+            supports.pop()
+        self._edit({"beam.spans": spans, "beam.supports": supports})
+        self._build_form()
+
+    def _factor_changes(self, loads: list[dict[str, Any]]) -> dict[str, Any]:
+        """Key changes that make both combinations cover exactly the cases of ``loads``: a new
+        case starts with factor 1.0 (shown in the panel, to be set), a case no load has any more
+        is removed."""
+        cases = {str(ld.get("case", "D")) for ld in loads}
+        changes: dict[str, Any] = {}
+        for combo in ("strength", "service"):
+            old = self.data.get("combinations", {}).get(combo, {})
+            for c in sorted(cases - set(old)):
+                changes[f"combinations.{combo}.{c}"] = 1.0
+            for c in sorted(set(old) - cases):
+                changes[f"combinations.{combo}.{c}"] = None
+        return changes
+
+    def _case(self, index: int, case: str) -> None:
+        loads = copy.deepcopy(self.data.get("loads", []))
+        loads[index - 1]["case"] = case.strip() or "D"
+        self._edit(
+            {f"loads[{index}].case": loads[index - 1]["case"], **self._factor_changes(loads)}
+        )
+        self._build_form()
+
+    def _add_load(self, kind: str, case: str) -> None:
+        loads = copy.deepcopy(self.data.get("loads", []))
+        total = sum((s.to("m") for s in self.data["beam"]["spans"]), Q_(0.0, "m"))
+        case = case.strip() or "L"
+        new: dict[str, Any]
+        if kind == "uniform":
+            new = {"case": case, "type": "uniform", "w": Q_(1.0, "kN/m")}
+        else:
+            new = {"case": case, "type": "point", "P": Q_(1.0, "kN"), "x": (total / 2).to("m")}
+        loads.append(new)
+        self._edit({f"loads[{len(loads)}]": new, **self._factor_changes(loads)})
+        self._build_form()
+
+    def _remove_load(self, index: int) -> None:
+        loads = copy.deepcopy(self.data.get("loads", []))
+        del loads[index - 1]
+        self._edit({f"loads[{index}]": None, **self._factor_changes(loads)})
+        self._build_form()
+
+    def _shape(self, shape: str) -> None:
+        from calcpack.inputs import parse_quantity
+
+        form = SHAPES[shape]
+        table: dict[str, Any] = {"shape": shape}
+        for dim in form.dims:
+            table[dim] = parse_quantity(form.defaults[dim], f"section.{dim}")
+        self._edit({"section": table})
+        self._build_form()
+
+    def reload(self) -> None:
+        """Read the inputs file again (after editing it by hand) and redraw."""
+        self.data = load_inputs(self.path)
+        self._build_form()
+        self._refresh()
+
+    # -- output ---------------------------------------------------------------------------------
+    def _error(self, message: str) -> None:
+        self.status.value = f'<span style="color:#a31515">{escape(message)}</span>'
+
+    def _refresh(self, validated: Any = None) -> None:
+        try:
+            inputs = validated if validated is not None else beam_inputs(self.data, path=self.path)
+            self.outcome = evaluate_beam(inputs)
+        except CalcpackError as exc:
+            self.outcome = None
+            self.diagrams.value = ""
+            self.results.value = ""
+            self._error(str(exc))
+            return
+        self.diagrams.value = beam_diagrams_svg(self.outcome)
+        self.results.value = outcome_table_html(self.outcome)
+        self.status.value = (
+            f'<span style="color:#555">Saved to {escape(self.path.name)} at '
+            f"{time.strftime('%H:%M:%S')}</span>"
+        )
+
+
+def beam_panel(path: str | Path) -> BeamPanel:
+    """Show the beam panel for the inputs file ``path`` (nothing is shown during a build)."""
+    return BeamPanel(path)

@@ -1,0 +1,82 @@
+"""Small ipywidgets building blocks shared by the panels: a quantity field that keeps the unit
+the inputs file uses, and the interactive-session test."""
+
+from __future__ import annotations
+
+import os
+from collections.abc import Callable
+from typing import Any
+
+import ipywidgets as ipw
+
+from calcpack.units import Q_, Quantity
+
+__all__ = ["QuantityField", "interactive_session", "label"]
+
+LABEL_WIDTH = "150px"
+
+
+def interactive_session() -> bool:
+    """True when the kernel serves a person at a notebook front end.
+
+    A notebook server sets JPY_SESSION_NAME for the kernels it starts; a build (nbclient) does
+    not, and then panels display nothing, so the issued package holds only the calc cells'
+    output. CALCPACK_PANELS=1 forces panels on (other front ends), CALCPACK_BUILDING=1 off.
+    """
+    if os.environ.get("CALCPACK_BUILDING") == "1":
+        return False
+    return bool(os.environ.get("JPY_SESSION_NAME")) or os.environ.get("CALCPACK_PANELS") == "1"
+
+
+def label(text: str, width: str = LABEL_WIDTH) -> ipw.Label:
+    return ipw.Label(text, layout=ipw.Layout(width=width))
+
+
+class QuantityField:
+    """A number box for one quantity in the inputs file, shown in the unit the file uses.
+
+    Args:
+        key: the dotted key in the inputs file (``"beam.spans[2]"``), also set as the box's
+            ``data-key`` style class ``cp-key-...`` so tests and users can find it.
+        text: the label. value: the current quantity. on_change: called with (key, quantity).
+    """
+
+    def __init__(
+        self,
+        key: str,
+        text: str,
+        value: Quantity,
+        on_change: Callable[[str, Quantity], None],
+        *,
+        width: str = LABEL_WIDTH,
+    ) -> None:
+        self.key = key
+        self.unit = value.units
+        self.box = ipw.FloatText(
+            value=float(value.magnitude),
+            layout=ipw.Layout(width="110px"),
+            continuous_update=False,
+        )
+        self.box.add_class("cp-field")
+        self.box.add_class(css_key(key))
+        self.widget = ipw.HBox(
+            [label(text, width), self.box, ipw.Label(f"{value.units:~P}")],
+            layout=ipw.Layout(margin="0 0 2px 0"),
+        )
+        self._on_change = on_change
+        self.box.observe(self._changed, names="value")
+
+    @property
+    def quantity(self) -> Quantity:
+        return Q_(float(self.box.value), self.unit)
+
+    def _changed(self, change: dict[str, Any]) -> None:
+        self._on_change(self.key, Q_(float(change["new"]), self.unit))
+
+
+def css_key(key: str) -> str:
+    """A CSS class naming an inputs-file key: ``beam.spans[2]`` -> ``cp-key-beam-spans-2``."""
+    out = "".join(ch if ch.isalnum() else "-" for ch in key).strip("-")
+    while "--" in out:
+        out = out.replace("--", "-")
+    return f"cp-key-{out}"

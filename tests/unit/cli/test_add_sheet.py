@@ -1,0 +1,87 @@
+"""``calcpack add-sheet``: a sheet from a template, its inputs file, and its project entry."""
+
+from __future__ import annotations
+
+import json
+from pathlib import Path
+
+import pytest
+
+from calcpack.cli import main
+from calcpack.errors import InputError
+from calcpack.package.project import load_project
+from calcpack.package.scaffold import new_project
+from calcpack.package.sheet_templates import add_sheet, sheet_template_names
+
+
+@pytest.fixture
+def project(tmp_path: Path) -> Path:
+    folder = tmp_path / "job"
+    new_project(folder, number="2440", title="Test job")
+    return folder
+
+
+def test_templates_are_the_four_starting_points() -> None:
+    assert sheet_template_names() == ["beam", "free_body", "section", "truss"]
+
+
+def test_add_beam_sheet_with_inputs(project: Path, capsys: pytest.CaptureFixture[str]) -> None:
+    assert main(["add-sheet", "beam", "--title", "Floor beam B2", "--project", str(project)]) == 0
+    assert "Added sheet 2: sheets/02_floor_beam_b2.ipynb" in capsys.readouterr().out
+    nb_path = project / "sheets" / "02_floor_beam_b2.ipynb"
+    nb = json.loads(nb_path.read_text(encoding="utf-8"))
+    source = "".join("".join(c["source"]) for c in nb["cells"])
+    assert '"02_floor_beam_b2.inputs.toml"' in source
+    assert "Floor beam B2" in source
+    assert "__TITLE__" not in source
+    assert "__INPUTS__" not in source
+    assert nb["metadata"]["kernelspec"]["name"] == "python3"  # no kernel-selection dialog
+    assert (project / "sheets" / "02_floor_beam_b2.inputs.toml").is_file()
+    loaded = load_project(project)
+    entry = loaded.sheets[-1]
+    assert entry.path == "sheets/02_floor_beam_b2.ipynb"
+    assert entry.inputs == ("sheets/02_floor_beam_b2.inputs.toml",)
+    # The project file's own comments survive the edit.
+    assert "# calcpack project file." in (project / "calcpack.toml").read_text(encoding="utf-8")
+
+
+def test_add_sheet_numbers_follow_on(project: Path) -> None:
+    first = add_sheet(project, "section")
+    second = add_sheet(project, "truss", title="Roof truss T1")
+    assert (first.number, second.number) == (2, 3)
+    assert second.inputs is None  # the truss template writes its values in the sheet
+    assert [s.path for s in load_project(project).sheets][1:] == [
+        "sheets/02_section.ipynb",
+        "sheets/03_roof_truss_t1.ipynb",
+    ]
+
+
+def test_unknown_template_names_the_choices(project: Path) -> None:
+    with pytest.raises(InputError, match=r"Unknown sheet template 'girder'.*beam") as info:
+        add_sheet(project, "girder")
+    assert info.value.name == "template"
+
+
+def test_existing_sheet_file_is_not_overwritten(project: Path) -> None:
+    (project / "sheets" / "02_beam.ipynb").write_text("{}", encoding="utf-8")
+    with pytest.raises(InputError, match=r"02_beam\.ipynb' already exists") as info:
+        add_sheet(project, "beam")
+    assert info.value.name == "name"
+    assert (project / "sheets" / "02_beam.ipynb").read_text(encoding="utf-8") == "{}"
+
+
+def test_no_project_file_is_refused(tmp_path: Path, capsys: pytest.CaptureFixture[str]) -> None:
+    assert main(["add-sheet", "beam", "--project", str(tmp_path)]) == 1
+    assert "No calcpack.toml in" in capsys.readouterr().err
+
+
+def test_list_templates(capsys: pytest.CaptureFixture[str]) -> None:
+    assert main(["add-sheet", "--list"]) == 0
+    assert capsys.readouterr().out.split() == ["beam", "free_body", "section", "truss"]
+
+
+def test_new_with_a_sheet_template(tmp_path: Path) -> None:
+    folder = tmp_path / "job2"
+    assert main(["new", str(folder), "--sheet", "beam"]) == 0
+    assert (folder / "sheets" / "02_beam.inputs.toml").is_file()
+    assert load_project(folder).sheets[-1].inputs == ("sheets/02_beam.inputs.toml",)

@@ -1,0 +1,167 @@
+"""The beam and section panels, driven from Python: every valid edit is written to the inputs
+file (comments kept) and shown; an invalid one is shown with its error and not written."""
+
+from __future__ import annotations
+
+import shutil
+from pathlib import Path
+
+import pytest
+
+from calcpack.inputs import beam_inputs, evaluate_beam, load_inputs
+from calcpack.units import Q_
+from calcpack.widgets import BeamPanel, SectionPanel, beam_panel, section_panel
+from calcpack.widgets.fields import css_key, interactive_session
+
+TEMPLATES = Path(__file__).resolve().parents[3] / "templates" / "sheets"
+
+
+@pytest.fixture
+def beam_file(tmp_path: Path) -> Path:
+    p = tmp_path / "b.inputs.toml"
+    shutil.copy(TEMPLATES / "beam.inputs.toml", p)
+    return p
+
+
+@pytest.fixture
+def section_file(tmp_path: Path) -> Path:
+    p = tmp_path / "s.inputs.toml"
+    shutil.copy(TEMPLATES / "section.inputs.toml", p)
+    return p
+
+
+def _value(html: str, name: str) -> float:
+    marker = f'data-out="{name}" data-value="'
+    start = html.index(marker) + len(marker)
+    return float(html[start : html.index('"', start)])
+
+
+def test_beam_panel_edit_writes_file_and_matches_the_sheet(beam_file: Path) -> None:
+    panel = beam_panel(beam_file)
+    assert isinstance(panel, BeamPanel)
+    before = panel.outcome
+    assert before is not None
+    panel.set("beam.spans[2]", Q_(5.0, "m"))
+    text = beam_file.read_text(encoding="utf-8")
+    assert 'spans = ["3.6 m", "5 m", "3.6 m"]' in text
+    assert "# Inputs for the beam sheet." in text
+    # What the panel shows is what a sheet computes from the written file.
+    again = evaluate_beam(beam_inputs(load_inputs(beam_file)))
+    assert panel.outcome is not None
+    assert panel.outcome.bending_utilisation == again.bending_utilisation
+    assert _value(panel.results.value, "bending_utilisation") == again.bending_utilisation
+    assert again.bending_utilisation > before.bending_utilisation
+    assert panel.diagrams.value.count('class="cp-diagram"') == 4
+    assert "Saved to b.inputs.toml" in panel.status.value
+
+
+def test_beam_panel_field_edit_through_the_widget(beam_file: Path) -> None:
+    panel = BeamPanel(beam_file)
+    field = panel.fields["loads[1].w"]
+    assert field.box.value == pytest.approx(1.2)
+    assert css_key("loads[1].w") in field.box._dom_classes
+    field.box.value = 2.4  # as typed in the browser
+    assert load_inputs(beam_file)["loads"][0]["w"] == Q_(2.4, "kN/m")
+
+
+def test_beam_panel_refuses_invalid_edit_without_writing(beam_file: Path) -> None:
+    panel = BeamPanel(beam_file)
+    before = beam_file.read_text(encoding="utf-8")
+    panel.set("beam.spans[2]", Q_(-1.0, "m"))
+    assert beam_file.read_text(encoding="utf-8") == before
+    assert "Not saved" in panel.status.value
+    assert "beam.spans[2]" in panel.status.value
+    panel.set("combinations.strength.W", 1.5)
+    assert "combinations.strength.W" in panel.status.value
+    assert beam_file.read_text(encoding="utf-8") == before
+
+
+def test_beam_panel_unstable_supports_shown_as_error(beam_file: Path) -> None:
+    panel = BeamPanel(beam_file)
+    for i in (1, 2, 3):  # one roller left: the beam is a mechanism
+        panel.set(f"beam.supports[{i}]", "free")
+    assert panel.outcome is None
+    assert panel.diagrams.value == ""
+    assert "unstable" in panel.status.value.lower() or "mechanism" in panel.status.value.lower()
+
+
+def test_beam_panel_adds_and_removes_spans(beam_file: Path) -> None:
+    panel = BeamPanel(beam_file)
+    panel._spans(+1)
+    data = load_inputs(beam_file)
+    assert len(data["beam"]["spans"]) == 4
+    assert len(data["beam"]["supports"]) == 5
+    assert "beam.spans[4]" in panel.fields
+    panel._spans(-1)
+    assert len(load_inputs(beam_file)["beam"]["spans"]) == 3
+
+
+def test_beam_panel_changes_section_shape(beam_file: Path) -> None:
+    panel = BeamPanel(beam_file)
+    panel.set("section.shape", "i-section")
+    data = load_inputs(beam_file)
+    assert data["section"]["shape"] == "i-section"
+    assert "section.tw" in panel.fields
+    assert panel.outcome is not None
+
+
+def test_beam_panel_reload_reads_hand_edits(beam_file: Path) -> None:
+    panel = BeamPanel(beam_file)
+    text = beam_file.read_text(encoding="utf-8").replace('f_b = "16 MPa"', 'f_b = "8 MPa"')
+    beam_file.write_text(text, encoding="utf-8")
+    u = panel.outcome.bending_utilisation if panel.outcome else 0.0
+    panel.reload()
+    assert panel.outcome is not None
+    assert panel.outcome.bending_utilisation == pytest.approx(2 * u, rel=1e-12)
+
+
+def test_section_panel_edits_and_refuses(section_file: Path) -> None:
+    panel = section_panel(section_file)
+    assert isinstance(panel, SectionPanel)
+    Ix = panel.properties.Ix
+    panel.set("section.d", Q_(400, "mm"))
+    assert load_inputs(section_file)["section"]["d"] == Q_(400, "mm")
+    assert panel.properties.Ix > Ix
+    assert _value(panel.table.value, "Ix") == pytest.approx(
+        panel.properties.Ix.to("mm**4").magnitude, rel=1e-12
+    )
+    assert 'data-diagram="section"' in panel.sketch.value
+    before = section_file.read_text(encoding="utf-8")
+    panel.set("section.tw", Q_(300, "mm"))  # wider than the flange
+    assert section_file.read_text(encoding="utf-8") == before
+    assert "tw" in panel.status.value
+    panel.set("section.shape", "tube")
+    assert load_inputs(section_file)["section"]["shape"] == "tube"
+    assert set(panel.fields) == {"section.D", "section.t"}
+
+
+def test_panels_display_nothing_outside_an_interactive_session(
+    beam_file: Path, monkeypatch: pytest.MonkeyPatch
+) -> None:
+    monkeypatch.delenv("JPY_SESSION_NAME", raising=False)
+    monkeypatch.delenv("CALCPACK_PANELS", raising=False)
+    assert not interactive_session()
+    monkeypatch.setenv("JPY_SESSION_NAME", "/x/sheet.ipynb")
+    assert interactive_session()
+    monkeypatch.setenv("CALCPACK_BUILDING", "1")
+    assert not interactive_session()  # a build's kernel never shows panels
+
+
+def test_beam_panel_adds_removes_and_recases_loads(beam_file: Path) -> None:
+    panel = BeamPanel(beam_file)
+    panel._add_load("point", "W")
+    data = load_inputs(beam_file)
+    assert data["loads"][-1]["case"] == "W"
+    # A new case gets a factor in both combinations, shown in the panel to be set.
+    assert data["combinations"]["strength"]["W"] == 1.0
+    assert "combinations.strength.W" not in panel.fields  # factor boxes are plain numbers
+    panel._case(4, "S")
+    data = load_inputs(beam_file)
+    assert "W" not in data["combinations"]["service"]
+    assert data["combinations"]["service"]["S"] == 1.0
+    panel._remove_load(4)
+    data = load_inputs(beam_file)
+    assert len(data["loads"]) == 3
+    assert set(data["combinations"]["strength"]) == {"D", "L"}
+    text = beam_file.read_text(encoding="utf-8")
+    assert "# live load on the middle span only" in text  # other loads keep their comments
