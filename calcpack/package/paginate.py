@@ -162,6 +162,9 @@ def paginate(
         if new_counts == counts:
             return result, html
         counts = new_counts
+        # Free this layout before the next: a large package holds one document, not two.
+        del result
+        html = ""
     raise BuildError("Page counts of the sheets did not settle after four layout passes")
 
 

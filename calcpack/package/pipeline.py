@@ -249,10 +249,10 @@ def _previous_manifest(path: Path) -> dict[str, Any]:
 def _page_guess(
     previous: dict[str, Any], executed: list[ExecutedSheet], options: DocumentOptions
 ) -> dict[str, int]:
-    """Expected page count per sheet: the previous build's for unchanged sheets, else 1.
+    """Expected page count per sheet: the previous build's when there was one, else 1.
 
-    A sheet's page count depends only on its own content and the paper, so when the guess is
-    right the layout needs one pass instead of two.
+    A sheet's page count depends only on its own content and the paper, and an edit rarely
+    changes it, so the guess is usually right and the layout needs one pass instead of two.
     """
     if previous.get("build", {}).get("paper") != options.paper:
         previous = {}
@@ -260,7 +260,7 @@ def _page_guess(
     guess = {}
     for item in executed:
         old = known.get(item.entry.path)
-        if old and old.get("cache_key") == item.cache_key:
+        if old:  # changed or not, a sheet usually keeps its page count
             first, last = old.get("pages", [1, 1])
             guess[item.entry.path] = int(last) - int(first) + 1
         else:
@@ -386,7 +386,7 @@ def build(
         section_ids.append("appendix-source")
     if report:
         report("layout", f"{len(docs)} sheets")
-    layout, _html = paginate(
+    layout, _ = paginate(
         lambda counts: document_html(
             project, docs, replace(options, sheet_pages=counts), created=created
         ),
@@ -441,6 +441,8 @@ def build(
         ],
         identifier_seed=build_key.encode(),
     )
+    page_count = layout.page_count
+    del layout  # the laid-out document is the largest thing a build holds
     out.mkdir(parents=True, exist_ok=True)
     tmp_manifest = _atomic_write(manifest_path, data)
     try:
@@ -454,7 +456,7 @@ def build(
         pdf_path,
         manifest_path,
         manifest,
-        layout.page_count,
+        page_count,
         tuple(i.entry.path for i in executed if not i.from_cache),
         tuple(i.entry.path for i in executed if i.from_cache),
         False,
