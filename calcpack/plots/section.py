@@ -196,12 +196,17 @@ def section_figure(
         (title if title is not None else section.name) + f"  (dimensions in {unit})", fontsize=9
     )
     fig.tight_layout()
+    # Shown as SVG by Jupyter and by the package build without pyplot's display hooks.
+    setattr(fig, "_repr_svg_", lambda: _figure_svg(fig))  # noqa: B010 - instance hook
     return fig
+
+
+def _figure_svg(fig: Any) -> str:
+    buffer = io.StringIO()
+    fig.savefig(buffer, format="svg")
+    return buffer.getvalue()
 
 
 def section_svg(section: SectionLike, **options: Any) -> str:
     """The sketch of :func:`section_figure` as SVG text."""
-    fig = section_figure(section, **options)
-    buffer = io.StringIO()
-    fig.savefig(buffer, format="svg")
-    return buffer.getvalue()
+    return _figure_svg(section_figure(section, **options))

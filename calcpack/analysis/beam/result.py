@@ -310,6 +310,16 @@ class BeamResult:
 
         return beam_figure(self, **options)
 
+    def _repr_mimebundle_(self, include: Any = None, exclude: Any = None) -> dict[str, Any]:
+        """In Jupyter a result shows its diagrams (SVG) and a one-line text summary."""
+        ex = self.extremes
+        text = (
+            f"{self.beam.name}: {self.label}; M_max = {ex.M_max.value:~.4g} at "
+            f"x = {ex.M_max.x:~.4g}, M_min = {ex.M_min.value:~.4g}, "
+            f"V_max = {ex.V_max.value:~.4g}, V_min = {ex.V_min.value:~.4g}"
+        )
+        return {"image/svg+xml": self.figure().svg, "text/plain": text}
+
 
 def combine(results: Mapping[str, BeamResult], factors: Mapping[str, float]) -> BeamResult:
     """Σ factor × result over load cases: the result of a load combination by superposition.

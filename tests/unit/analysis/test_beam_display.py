@@ -45,3 +45,16 @@ def test_figure_defaults_to_global_display_system():
         assert "x from left end (ft)" in _simple_span().figure().svg
     finally:
         set_display(system=before)
+
+
+def test_result_displays_its_diagrams_in_jupyter():
+    bundle = _simple_span()._repr_mimebundle_()
+    assert bundle["image/svg+xml"].lstrip().startswith("<?xml")
+    assert "M_max" in bundle["text/plain"]
+
+
+def test_section_figure_displays_as_svg():
+    from calcpack.sections import Rectangle
+
+    fig = Rectangle(b=Q_(90, "mm"), d=Q_(240, "mm")).figure()
+    assert "<svg" in fig._repr_svg_()
