@@ -1,0 +1,211 @@
+"""The lintel demo job's package (example_projects/lintel_demo), opened with pypdf and checked.
+
+Engineering values in the manifest are compared with the closed forms of a simply supported
+beam under uniform load (M = wL²/8, V = wL/2, δ = 5wL⁴/384EI: common practice, any beam table).
+"""
+
+from __future__ import annotations
+
+import hashlib
+import io
+import json
+import re
+from pathlib import Path
+from typing import Any
+
+import pytest
+from pypdf import PdfReader
+
+from calcpack.package.document import STANDARD_CAUTIONS
+from calcpack.package.manifest import MANIFEST_FORMAT, read_manifest
+from calcpack.package.pipeline import build
+
+pytestmark = pytest.mark.build
+
+
+def test_page_count_agrees(demo_reader: PdfReader, demo_manifest: dict[str, Any]) -> None:
+    assert len(demo_reader.pages) == demo_manifest["build"]["pages"]
+    last = max(page for sheet in demo_manifest["sheets"] for page in sheet["pages"])
+    assert last < len(demo_reader.pages)  # back matter follows the sheets
+    assert demo_manifest["sections"]["cover"] == [1, 1]
+
+
+def test_title_block_on_every_sheet_page(
+    demo_texts: list[str], demo_manifest: dict[str, Any]
+) -> None:
+    total = len(demo_texts)
+    for sheet in demo_manifest["sheets"]:
+        first, last = sheet["pages"]
+        count = last - first + 1
+        for k, page in enumerate(range(first, last + 1), start=1):
+            text = demo_texts[page - 1]
+            assert "JOB NO. 2417" in text
+            assert "14 Quarry Row" in text
+            assert f"SHEET NO. {sheet['number']}" in text
+            assert sheet["title"] in text
+            assert "A. Okafor" in text
+            assert "J. Lindqvist" in text
+            assert f"sheet {k} of {count}" in text, (page, text[-400:])
+            assert f"package {page} of {total}" in text, (page, text[-400:])
+
+
+def test_every_page_after_cover_has_title_block(demo_texts: list[str]) -> None:
+    assert "JOB NO." not in demo_texts[0]  # the cover has its own layout
+    for number, text in enumerate(demo_texts[1:], start=2):
+        assert "JOB NO. 2417" in text, number
+        assert f"package {number} of {len(demo_texts)}" in text, number
+
+
+def test_contents_page_numbers_match_real_pages(
+    demo_texts: list[str], demo_manifest: dict[str, Any]
+) -> None:
+    contents = demo_texts[demo_manifest["sections"]["contents"][0] - 1]
+    for sheet in demo_manifest["sheets"]:
+        m = re.search(re.escape(sheet["title"]) + r" \.+ (\d+)", contents)
+        assert m, sheet["title"]
+        listed = int(m.group(1))
+        assert listed == sheet["pages"][0]
+        # ... and the sheet head really is on that page.
+        assert f"Sheet {sheet['number']} {sheet['title']}" in demo_texts[listed - 1]
+    for title, key in (("Summary of checks", "summary"), ("Revision history", "revisions")):
+        m = re.search(re.escape(title) + r" \.+ (\d+)", contents)
+        assert m
+        assert int(m.group(1)) == demo_manifest["sections"][key][0]
+
+
+def test_bookmarks_point_at_the_sections(
+    demo_reader: PdfReader, demo_manifest: dict[str, Any]
+) -> None:
+    marks = {o.title: demo_reader.get_destination_page_number(o) + 1 for o in demo_reader.outline}
+    assert marks["Contents"] == demo_manifest["sections"]["contents"][0]
+    for sheet in demo_manifest["sheets"]:
+        assert marks[f"Sheet {sheet['number']} — {sheet['title']}"] == sheet["pages"][0]
+    assert marks["Summary of checks"] == demo_manifest["sections"]["summary"][0]
+
+
+def test_caution_block_holds_standard_project_and_sheet_cautions(
+    demo_texts: list[str], demo_manifest: dict[str, Any]
+) -> None:
+    first, last = demo_manifest["sections"]["assumptions"]
+    text = " ".join(demo_texts[first - 1 : last])
+    assert "CAUTIONS" in text
+    for caution in STANDARD_CAUTIONS:
+        assert caution[:60] in text
+    assert "The grade values are for demonstration only" in text  # project file
+    assert "Confirm the lintel grade on delivery" in text  # sheet 2 declares it
+    assert "fully bedded; a padstone is not needed" in text  # a sheet's assumption
+
+
+def test_no_tex_or_raster_math_in_the_pdf(demo_reader: PdfReader, demo_texts: list[str]) -> None:
+    whole = " ".join(demo_texts)
+    for leftover in ("\\frac", "\\(", "\\[", "$", "\\mathrm"):
+        assert leftover not in whole
+    for page in demo_reader.pages:
+        assert list(page.images) == []  # math and rules are vector; no raster anywhere
+
+
+def test_fonts_are_embedded(demo_reader: PdfReader) -> None:
+    seen = 0
+    for page in demo_reader.pages:
+        fonts = page.get("/Resources", {}).get("/Font", {})
+        for ref in fonts.values():
+            font = ref.get_object()
+            descriptor = font.get("/FontDescriptor")
+            if descriptor is None:  # composite font: descriptor on the descendant
+                descriptor = font["/DescendantFonts"][0].get_object()["/FontDescriptor"]
+            descriptor = descriptor.get_object()
+            assert any(k in descriptor for k in ("/FontFile", "/FontFile2", "/FontFile3"))
+            seen += 1
+    assert seen > 0
+
+
+def test_manifest_attached_equals_the_one_beside(demo_pdf: Path, demo_dir: Path) -> None:
+    (beside,) = demo_dir.glob("*.manifest.json")
+    attached = PdfReader(io.BytesIO(demo_pdf.read_bytes())).attachments["calcpack-manifest.json"]
+    assert attached[0] == beside.read_bytes()
+    assert read_manifest(demo_pdf) == json.loads(beside.read_text("utf-8"))
+
+
+def test_manifest_hashes_and_versions(demo_manifest: dict[str, Any], demo_dir: Path) -> None:
+    assert demo_manifest["format"] == MANIFEST_FORMAT
+    assert demo_manifest["calcpack_version"]
+    for name in ("python", "nbclient", "weasyprint", "ziamath", "sympy", "pint"):
+        assert demo_manifest["dependencies"][name]
+    project = demo_dir / "project"
+    roles = {}
+    for entry in demo_manifest["files"]:
+        data = (project / entry["path"]).read_bytes()
+        assert hashlib.sha256(data).hexdigest() == entry["sha256"], entry["path"]
+        roles[entry["path"]] = entry["role"]
+    assert roles["calcpack.toml"] == "project"
+    assert roles["sheets/02_lintel.ipynb"] == "sheet"
+    assert demo_manifest["project"]["job_number"] == "2417"
+    assert demo_manifest["project"]["revision"] == "A"
+
+
+def test_manifest_records_values_and_checks(demo_manifest: dict[str, Any]) -> None:
+    sheet = next(s for s in demo_manifest["sheets"] if s["path"] == "sheets/02_lintel.ipynb")
+    values = {v["name"]: v for v in sheet["values"]}
+    w, L = values["w"]["value"], values["L"]["value"]  # kN/m, m
+    assert values["L"]["unit"] == "m"
+    # M = wL²/8 and V = wL/2 (common practice); exact to float rounding.
+    assert values["M_max"]["value"] == pytest.approx(w * L**2 / 8, rel=1e-9)
+    assert values["V_max"]["value"] == pytest.approx(w * L / 2, rel=1e-9)
+    checks = {c["name"]: c for c in sheet["checks"]}
+    assert set(checks) == {"Bending", "Shear", "Deflection"}
+    bending = checks["Bending"]
+    assert bending["verdict"] == "OK"
+    assert bending["utilisation"] == pytest.approx(bending["demand"] / bending["capacity"])
+
+
+def test_signature_fields_are_the_cover_boxes(demo_manifest: dict[str, Any]) -> None:
+    fields = demo_manifest["signature_fields"]
+    assert [f["role"] for f in fields] == ["preparer", "checker", "approver"]
+    width, height = 595.28, 841.89  # A4 in points
+    previous_right = 0.0
+    for f in fields:
+        x1, y1, x2, y2 = f["box"]
+        assert f["page"] == 0
+        assert 0 < x1 < x2 < width
+        assert 0 < y1 < y2 < height
+        assert x2 - x1 > 100
+        assert y2 - y1 > 60
+        assert x1 > previous_right  # side by side, not overlapping
+        previous_right = x2
+
+
+def test_summary_lists_checks_worst_first(
+    demo_texts: list[str], demo_manifest: dict[str, Any]
+) -> None:
+    text = demo_texts[demo_manifest["sections"]["summary"][0] - 1]
+    found = [float(u) for u in re.findall(r"(\d\.\d\d) (?:OK|NOT OK|NOT COVERED)\b", text)]
+    checks = [c for s in demo_manifest["sheets"] for c in s["checks"]]
+    assert len(found) == len(checks)
+    assert found == sorted(found, reverse=True)
+
+
+def test_rebuild_without_change_is_skipped(demo_dir: Path, demo_pdf: Path) -> None:
+    before = demo_pdf.read_bytes()
+    result = build(demo_dir / "project", out_dir=demo_dir)
+    assert result.up_to_date
+    assert result.seconds < 2.0
+    assert demo_pdf.read_bytes() == before
+
+
+def test_same_inputs_give_the_same_bytes(demo_dir: Path, tmp_path: Path) -> None:
+    # The demo folder's own PDF is signed by then; build twice afresh and compare.
+    first = build(demo_dir / "project", out_dir=tmp_path / "a", force=True)
+    second = build(demo_dir / "project", out_dir=tmp_path / "b", force=True)
+    assert first.executed == ()  # everything from the cache
+    assert first.pdf_path.read_bytes() == second.pdf_path.read_bytes()
+    assert first.manifest_path.read_bytes() == second.manifest_path.read_bytes()
+
+
+def test_letter_paper(demo_dir: Path, tmp_path: Path) -> None:
+    result = build(demo_dir / "project", out_dir=tmp_path, paper="Letter")
+    reader = PdfReader(str(result.pdf_path))
+    box = reader.pages[0].mediabox
+    assert (round(float(box.width)), round(float(box.height))) == (612, 792)
+    assert result.pdf_path.name.endswith("-letter.pdf")
+    for f in result.manifest["signature_fields"]:
+        assert f["box"][2] < 612
