@@ -22,7 +22,7 @@ the solver analyses one case, or all loads together, and results can be factored
 from __future__ import annotations
 
 import math
-from collections.abc import Iterable, Mapping
+from collections.abc import Iterable, Mapping, Sequence
 from dataclasses import dataclass, field
 from functools import cached_property
 from typing import Any, Literal, TypeAlias
@@ -387,23 +387,7 @@ class Truss:
                 value=(),
                 expected="two or more nodes",
             )
-        seen: dict[str, Node] = {}
-        for n in self.nodes:
-            if not isinstance(n, Node):
-                raise InputError(
-                    f"Truss nodes must be Node objects (got {n!r})",
-                    name="nodes",
-                    value=n,
-                    expected="Node(name, x, y)",
-                )
-            if n.name in seen:
-                raise InputError(
-                    f"Node name {n.name!r} is used twice; each node needs its own name",
-                    name=f"node {n.name}",
-                    value=n.name,
-                    expected="unique node names",
-                )
-            seen[n.name] = n
+        _require_unique_names(self.nodes, Node, "node", "Node(name, x, y)")
         xy = self.xy_m
         tol = _COINCIDENT_REL * self.size_m
         for i in range(len(self.nodes)):
@@ -423,24 +407,9 @@ class Truss:
         self._validate_connected()
 
     def _validate_members(self) -> None:
-        names: set[str] = set()
+        _require_unique_names(self.members, Member, "member", "Member(name, start, end)")
         pairs: dict[frozenset[str], str] = {}
         for m in self.members:
-            if not isinstance(m, Member):
-                raise InputError(
-                    f"Truss members must be Member objects (got {m!r})",
-                    name="members",
-                    value=m,
-                    expected="Member(name, start, end)",
-                )
-            if m.name in names:
-                raise InputError(
-                    f"Member name {m.name!r} is used twice; each member needs its own name",
-                    name=f"member {m.name}",
-                    value=m.name,
-                    expected="unique member names",
-                )
-            names.add(m.name)
             for end in (m.start, m.end):
                 if end not in self.node_index:
                     raise InputError(
@@ -543,3 +512,27 @@ class Truss:
             value=apart,
             expected="one connected truss",
         )
+
+
+def _require_unique_names(
+    items: Sequence[Node] | Sequence[Member], kind: type, what: str, form: str
+) -> None:
+    """Refuse an item of the wrong type or a name used twice (``what``: "node" or "member")."""
+    seen: set[str] = set()
+    for item in items:
+        if not isinstance(item, kind):
+            raise InputError(
+                f"Truss {what}s must be {kind.__name__} objects (got {item!r})",
+                name=f"{what}s",
+                value=item,
+                expected=form,
+            )
+        name: str = item.name
+        if name in seen:
+            raise InputError(
+                f"{what.capitalize()} name {name!r} is used twice; each {what} needs its own name",
+                name=f"{what} {name}",
+                value=name,
+                expected=f"unique {what} names",
+            )
+        seen.add(name)

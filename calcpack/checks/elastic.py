@@ -45,6 +45,32 @@ def _governing(demand: Any, what: str) -> tuple[Quantity, str]:
     return best
 
 
+def _demand_value(
+    combos: Any,
+    given: Any,
+    combination: str | None,
+    action: str,
+    name: str,
+    dimension: str,
+    check: str,
+) -> tuple[Quantity, str | None]:
+    """The governing action from the combinations, else the value given directly.
+
+    Returns the quantity and the combination it comes from (None when given without one).
+    Raises InputError naming ``name`` when neither is given.
+    """
+    if combos is not None:
+        return _governing(combos, action)
+    if given is not None:
+        return require(given, dimension, name), combination
+    raise InputError(
+        f"{check} check needs demand= or {name}=",
+        name=name,
+        value=None,
+        expected=f"a {'moment' if action == 'moment' else 'force'}",
+    )
+
+
 def check_elastic_beam(
     *,
     member: str,
@@ -87,15 +113,9 @@ def check_elastic_beam(
         made = False
         if sigma_allow is not None:
             require(sigma_allow, "[pressure]", "sigma_allow", positive=True)
-            if combos is not None:
-                Mq, combo_s = _governing(combos, "moment")
-                combo: str | None = combo_s
-            elif M is not None:
-                Mq, combo = require(M, "[force]*[length]", "M"), combination
-            else:
-                raise InputError(
-                    "Bending check needs demand= or M=", name="M", value=None, expected="a moment"
-                )
+            Mq, combo = _demand_value(
+                combos, M, combination, "moment", "M", "[force]*[length]", "Bending"
+            )
             rec.heading("Bending stress", 3)
             Mh = rec.given("M", Mq, "largest |M|", source=combo or "given")
             if S is not None:
@@ -140,15 +160,7 @@ def check_elastic_beam(
             made = True
         if tau_allow is not None:
             require(tau_allow, "[pressure]", "tau_allow", positive=True)
-            if combos is not None:
-                Vq, combo_s = _governing(combos, "shear")
-                combo = combo_s
-            elif V is not None:
-                Vq, combo = require(V, "[force]", "V"), combination
-            else:
-                raise InputError(
-                    "Shear check needs demand= or V=", name="V", value=None, expected="a force"
-                )
+            Vq, combo = _demand_value(combos, V, combination, "shear", "V", "[force]", "Shear")
             rec.heading("Shear stress", 3)
             Vh = rec.given("V", Vq, "largest |V|", source=combo or "given")
             if A_rect is not None:

@@ -24,6 +24,7 @@ from calcpack.sections.shapes import (
     _mm,
     _optional_radius,
     _rect,
+    _require_less,
     _set_name,
     _thin_plates_J,
 )
@@ -64,14 +65,7 @@ class ISection(Shape):
             else validate_length(self.tf_bot, "tf_bot", "Flange thickness")
         )
         for b, name in ((bf, "bf"), (bfb, "bf_bot")):
-            if not tw < b:
-                raise _fail(
-                    f"Web thickness tw must be less than flange width {name} (got tw = "
-                    f"{fmt_len(tw)}, {name} = {fmt_len(b)})",
-                    "tw",
-                    self.tw,
-                    f"tw < {name}",
-                )
+            _require_less("Web thickness", "tw", tw, self.tw, "flange width", name, b)
             _check_fits(
                 tw + 2 * r,
                 b + 1e-15,
@@ -197,22 +191,8 @@ class Tee(Shape):
         tf = validate_length(self.tf, "tf", "Flange thickness")
         tw = validate_length(self.tw, "tw", "Stem thickness")
         r = _optional_radius(self.r, "r", "Root fillet radius")
-        if not tw < bf:
-            raise _fail(
-                f"Stem thickness tw must be less than flange width bf (got tw = {fmt_len(tw)}, "
-                f"bf = {fmt_len(bf)})",
-                "tw",
-                self.tw,
-                "tw < bf",
-            )
-        if not tf < d:
-            raise _fail(
-                f"Flange thickness tf must be less than depth d (got tf = {fmt_len(tf)}, "
-                f"d = {fmt_len(d)})",
-                "tf",
-                self.tf,
-                "tf < d",
-            )
+        _require_less("Stem thickness", "tw", tw, self.tw, "flange width", "bf", bf)
+        _require_less("Flange thickness", "tf", tf, self.tf, "depth", "d", d)
         _check_fits(
             max(tw + 2 * r - bf, tf + r - d),
             1e-15,
@@ -265,22 +245,8 @@ class Channel(Shape):
         tf = validate_length(self.tf, "tf", "Flange thickness")
         tw = validate_length(self.tw, "tw", "Web thickness")
         r = _optional_radius(self.r, "r", "Root fillet radius")
-        if not tw < bf:
-            raise _fail(
-                f"Web thickness tw must be less than flange width bf (got tw = {fmt_len(tw)}, "
-                f"bf = {fmt_len(bf)})",
-                "tw",
-                self.tw,
-                "tw < bf",
-            )
-        if not 2 * tf < d:
-            raise _fail(
-                f"Flange thickness tf must be less than half the depth d (got tf = "
-                f"{fmt_len(tf)}, d = {fmt_len(d)})",
-                "tf",
-                self.tf,
-                "tf < d/2",
-            )
+        _require_less("Web thickness", "tw", tw, self.tw, "flange width", "bf", bf)
+        _require_less("Flange thickness", "tf", tf, self.tf, "depth", "d", d, half=True)
         _check_fits(
             max(tw + r - bf, 2 * tf + 2 * r - d),
             1e-15,
@@ -340,14 +306,7 @@ class Angle(Shape):
         t = validate_length(self.t, "t", "Leg thickness")
         r = _optional_radius(self.r, "r", "Root fillet radius")
         for leg, name in ((d, "d"), (b, "b")):
-            if not t < leg:
-                raise _fail(
-                    f"Leg thickness t must be less than leg length {name} (got t = "
-                    f"{fmt_len(t)}, {name} = {fmt_len(leg)})",
-                    "t",
-                    self.t,
-                    f"t < {name}",
-                )
+            _require_less("Leg thickness", "t", t, self.t, "leg length", name, leg)
         _check_fits(
             t + r,
             min(b, d) + 1e-15,

@@ -285,14 +285,17 @@ class HollowCircle(Shape):
     def __post_init__(self) -> None:
         D = validate_length(self.D, "D", "Outside diameter")
         t = validate_length(self.t, "t", "Wall thickness")
-        if not 2 * t < D:
-            raise _fail(
-                f"Wall thickness t must be less than half the outside diameter D (got t = "
-                f"{fmt_len(t)}, D = {fmt_len(D)}); for a solid bar use Circle",
-                "t",
-                self.t,
-                "t < D/2",
-            )
+        _require_less(
+            "Wall thickness",
+            "t",
+            t,
+            self.t,
+            "outside diameter",
+            "D",
+            D,
+            half=True,
+            hint="; for a solid bar use Circle",
+        )
         _set_name(self, f"tube ⌀{_mm(D)} × {_mm(t)} mm")
 
     def local_regions(self) -> list[tuple[Region, float]]:
@@ -327,14 +330,7 @@ class RectangularHollow(Shape):
         t = validate_length(self.t, "t", "Wall thickness")
         r = _optional_radius(self.r, "r", "Corner radius")
         for dim, name, what in ((b, "b", "width"), (d, "d", "depth")):
-            if not 2 * t < dim:
-                raise _fail(
-                    f"Wall thickness t must be less than half the {what} {name} (got t = "
-                    f"{fmt_len(t)}, {name} = {fmt_len(dim)})",
-                    "t",
-                    self.t,
-                    f"t < {name}/2",
-                )
+            _require_less("Wall thickness", "t", t, self.t, what, name, dim, half=True)
         if r > min(b, d) / 2:
             raise _fail(
                 f"Corner radius r must not exceed half the smaller side (got r = {fmt_len(r)}, "
@@ -362,6 +358,34 @@ class RectangularHollow(Shape):
 def _check_fits(value: float, limit: float, message: str, name: str, q: object) -> None:
     if not value < limit:
         raise _fail(message, name, q, "a smaller value")
+
+
+def _require_less(
+    what: str,
+    name: str,
+    value_m: float,
+    raw: object,
+    limit_what: str,
+    limit_name: str,
+    limit_m: float,
+    *,
+    half: bool = False,
+    hint: str = "",
+) -> None:
+    """Refuse a plate dimension that is not less than (half) another, naming both values.
+
+    ``what name must be less than [half the] limit_what limit_name (got ...)``; lengths in metres.
+    """
+    if not (2 * value_m if half else value_m) < limit_m:
+        rule = f"{name} < {limit_name}/2" if half else f"{name} < {limit_name}"
+        raise _fail(
+            f"{what} {name} must be less than {'half the ' if half else ''}{limit_what} "
+            f"{limit_name} (got {name} = {fmt_len(value_m)}, {limit_name} = {fmt_len(limit_m)})"
+            f"{hint}",
+            name,
+            raw,
+            rule,
+        )
 
 
 def _vertex_list(vertices: Any) -> list[tuple[float, float]]:
