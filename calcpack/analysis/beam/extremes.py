@@ -139,9 +139,7 @@ class BeamExtremes:
         return None if self.slope_right_rad is None else out_q(self.slope_right_rad, "angle")
 
 
-def _closed_roots(
-    d: np.ndarray, rows: np.ndarray, D: int = 2
-) -> tuple[np.ndarray, np.ndarray]:
+def _closed_roots(d: np.ndarray, rows: np.ndarray, D: int = 2) -> tuple[np.ndarray, np.ndarray]:
     """Real roots of linear or quadratic rows (ascending coefficients in t) in closed form, both
     degrees in one pass: q = −(b + sign(b)·√disc)/2 (free of cancellation), t = q/a and c/q.
 
@@ -315,7 +313,8 @@ def find_extremes(result: BeamResult) -> BeamExtremes:
     funcs = [core.V, core.M]
     derivs = [core.w, core.V]
     if with_v:
-        assert core.v is not None and core.T is not None
+        assert core.v is not None
+        assert core.T is not None
         funcs.append(core.v)
         derivs.append(core.T)
     nf = len(funcs)
