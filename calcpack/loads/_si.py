@@ -9,11 +9,12 @@ every number made the live solve slow.
 
 from __future__ import annotations
 
+from math import isfinite
 from typing import Any
 
 import numpy as np
 
-from calcpack.units import Q_, si, ureg
+from calcpack.units import Q_, require, si, ureg
 
 __all__ = ["check", "fast_si", "make_quantity"]
 
@@ -64,29 +65,27 @@ _FAST_OK = _fast_matches()
 
 
 _CHECKED: set[tuple[Any, str]] = set()
+_SCALARS = (float, int)  # exact types: bool and numpy scalars take the full check
 
 
 def check(value: Any, dimension: str, name: str, *, positive: bool = False) -> Any:
     """:func:`calcpack.units.require` with the dimension check cached per unit.
 
-    A unit already seen for ``dimension`` skips pint's dimensional analysis; anything unusual
-    (not a quantity, array magnitude, non-finite, wrong sign, new unit) goes through
+    A quantity of calcpack's registry with a float magnitude in a unit already seen for
+    ``dimension`` skips pint's dimensional analysis; anything else (another registry, not a
+    quantity, array magnitude, non-finite, wrong sign, new unit) goes through
     ``require``, which raises with its usual message.
     """
-    import math
-
-    from calcpack.units import Quantity, require
-
-    if isinstance(value, Quantity):
+    if type(value) is _QUANTITY:
         mag = value._magnitude
         if (
-            isinstance(mag, float | int)
+            type(mag) in _SCALARS
             and (value._units, dimension) in _CHECKED
-            and math.isfinite(mag)
+            and isfinite(mag)
             and (not positive or mag > 0)
         ):
             return value
     out = require(value, dimension, name, positive=positive)
-    if isinstance(out._magnitude, float | int):
+    if type(out) is _QUANTITY and isinstance(out._magnitude, float | int):
         _CHECKED.add((out._units, dimension))
     return out

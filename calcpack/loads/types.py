@@ -21,7 +21,7 @@ from __future__ import annotations
 import math
 from collections.abc import Callable, Sequence
 from dataclasses import dataclass, field, replace
-from typing import Any
+from typing import Any, NamedTuple
 
 import numpy as np
 
@@ -52,17 +52,17 @@ _LENGTH = "[length]"
 _MOMENT = "[force] * [length]"
 
 
-@dataclass(frozen=True)
-class SIPiece:
-    """A polynomial line load in SI: w(x) = Σ c_k (x - a)^k N/m on a <= x <= b (downward +)."""
+class SIPiece(NamedTuple):
+    """A polynomial line load in SI: w(x) = Σ c_k (x - a)^k N/m on a <= x <= b (downward +).
+
+    (A named tuple: the numeric core makes these for every load on every solve.)"""
 
     a_m: float
     b_m: float
     coeffs: tuple[float, ...]
 
 
-@dataclass(frozen=True)
-class SIPoint:
+class SIPoint(NamedTuple):
     """A point action in SI at x: force P (N, down +), axial H (N, +x), couple C (N·m, cw +)."""
 
     x_m: float
