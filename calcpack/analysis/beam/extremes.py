@@ -160,30 +160,31 @@ def _closed_roots(d: np.ndarray, rows: np.ndarray, D: int = 2) -> tuple[np.ndarr
     return np.concatenate([rows, rows]), np.concatenate([t1, t2])
 
 
-_COMPANION: dict[int, np.ndarray] = {}
+_COMPANION: dict[int, tuple[np.ndarray, np.ndarray, np.ndarray]] = {}
 
 
 def _companion_roots(d: np.ndarray, rows: np.ndarray, D: int) -> tuple[np.ndarray, np.ndarray]:
     """Real roots in [0, 1] of rows of degree D >= 3: eigenvalues of the stacked companion
     matrices, polished by a Newton step."""
-    base = _COMPANION.get(D)
-    if base is None:
-        base = np.eye(D, k=-1)
-        _COMPANION[D] = base
+    consts = _COMPANION.get(D)
+    if consts is None:
+        k = np.arange(D + 1.0)
+        consts = (np.eye(D, k=-1), k, k[1:])
+        _COMPANION[D] = consts
+    base, k, k1 = consts
     cc = d[rows, : D + 1]
     comp = np.repeat(base[None], rows.size, axis=0)
-    comp[:, :, -1] = -cc[:, :D] / cc[:, D : D + 1]  # monic
+    comp[:, :, -1] = cc[:, :D] / -cc[:, D : D + 1]  # monic
     ev = np.linalg.eigvals(comp)
     t = ev.real
-    ok = (np.abs(ev.imag) < 1e-6) & (t > -1e-6) & (t < 1 + 1e-6)
+    ok = (np.abs(ev.imag) < 1e-6) & (np.abs(t - 0.5) < 0.5 + 1e-6)
     r_idx, col = np.nonzero(ok)
     cc = cc[r_idx]
     tt = t[r_idx, col]
     # a Newton step (p and p' as power sums: t is in [0, 1]), guarded against flat spots
-    k = np.arange(D + 1)
     tp = tt[:, None] ** k
     f = (cc * tp).sum(axis=1)
-    fp = (cc[:, 1:] * k[1:] * tp[:, :-1]).sum(axis=1)
+    fp = (cc[:, 1:] * tp[:, :-1]) @ k1
     good = np.abs(fp) > 1e-12 * np.abs(cc).max(axis=1)
     step = np.where(good, f / np.where(good, fp, 1.0), 0.0)
     return rows[r_idx], tt - np.clip(step, -1e-3, 1e-3)
@@ -237,7 +238,7 @@ def batch_roots(
         return np.zeros(0, dtype=int), np.zeros(0)
     seg_all = np.concatenate(segs) if len(segs) > 1 else segs[0]
     t_all = np.concatenate(ts) if len(ts) > 1 else ts[0]
-    keep = (t_all > -1e-9) & (t_all < 1 + 1e-9)
+    keep = np.abs(t_all - 0.5) < 0.5 + 1e-9  # NaN (no root) fails too
     seg_all = seg_all[keep]
     return seg_all, np.clip(t_all[keep], 0.0, 1.0) * h[seg_all]
 
@@ -325,14 +326,12 @@ def find_extremes(result: BeamResult) -> BeamExtremes:
     seg, xi = batch_roots(_stack(derivs, K), hh, hp)
 
     # candidates: each segment's start and end, and the turning points strictly inside
-    inside = (xi > 0) & (xi < hh[seg])
+    inside = np.abs(xi - 0.5 * hh[seg]) < 0.5 * hh[seg]
     rseg, rxi = seg[inside], xi[inside]
-    c = F[rseg]
-    turning = c[:, K - 1]
-    ends = F[:, K - 1]
-    for k in range(K - 2, -1, -1):  # Horner
-        turning = turning * rxi + c[:, k]
-        ends = ends * hh + F[:, k]
+    m = rseg.size
+    at = np.concatenate([rxi, hh])
+    values = (F[np.concatenate([rseg, np.arange(nf * n)])] * at[:, None] ** np.arange(K)).sum(1)
+    turning, ends = values[:m], values[m:]
     starts = F[:, 0]
     x_turn = X[rseg % n] + rxi
     owner = rseg // n
