@@ -15,6 +15,7 @@ import itertools
 import string
 from collections.abc import Sequence
 from dataclasses import dataclass, field
+from functools import cached_property
 from typing import TypeVar
 
 import numpy as np
@@ -59,7 +60,7 @@ class Support:
     def __post_init__(self) -> None:
         require(self.x, _LENGTH, "x")
 
-    @property
+    @cached_property  # read many times on every solve; the position never changes
     def x_m(self) -> float:
         return si(self.x)
 
@@ -141,7 +142,7 @@ class Hinge:
     def __post_init__(self) -> None:
         require(self.x, _LENGTH, "x")
 
-    @property
+    @cached_property  # read many times on every solve; the position never changes
     def x_m(self) -> float:
         return si(self.x)
 
@@ -420,7 +421,7 @@ class Beam:
             require(self.EA, "[force]", "EA", positive=True)
 
     # -- derived data ------------------------------------------------------------------------
-    @property
+    @cached_property  # read many times on every solve; the length never changes
     def L_m(self) -> float:
         return si(self.length)
 
