@@ -160,11 +160,6 @@ def integrate(
     return _integrate(f, start, jumps, sign, hp[:, 1:] * _inverse_orders(K))[0]
 
 
-def end_values(g: np.ndarray, h: np.ndarray) -> np.ndarray:
-    """(…, n) value of each segment polynomial at its right end."""
-    return np.asarray((g * _powers(h, g.shape[-1])).sum(axis=-1), dtype=float)
-
-
 def evaluate(X: np.ndarray, g: np.ndarray, x: np.ndarray, side: str = "right") -> np.ndarray:
     """Evaluate piecewise polynomial ``g`` (n, K) at positions ``x`` (m).
 
