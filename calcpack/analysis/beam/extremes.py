@@ -139,15 +139,13 @@ class BeamExtremes:
         return None if self.slope_right_rad is None else out_q(self.slope_right_rad, "angle")
 
 
-def _closed_roots(d: np.ndarray, rows: np.ndarray, D: int = 2) -> tuple[np.ndarray, np.ndarray]:
+def _closed_roots(d: np.ndarray, rows: np.ndarray) -> tuple[np.ndarray, np.ndarray]:
     """Real roots of linear or quadratic rows (ascending coefficients in t) in closed form, both
     degrees in one pass: q = −(b + sign(b)·√disc)/2 (free of cancellation), t = q/a and c/q.
 
     A linear row (a = 0) has disc = b², q = −b and its root c/q = −c/b; its "root" q/a is
     made NaN (division by NaN, not by zero) and dropped by the caller's range test.
     """
-    if D == 1:
-        return rows, -d[rows, 0] / d[rows, 1]
     c0, b, a = d[rows, 0], d[rows, 1], d[rows, 2]
     disc = b * b - 4.0 * a * c0
     # a discriminant lost in round-off is a double root
@@ -204,6 +202,9 @@ def batch_roots(
     Returns:
         (segment index, ξ) arrays of the roots in [0, h].
     """
+    if g.shape[1] < 3:  # the closed form reads three coefficients
+        g = np.concatenate([g, np.zeros((g.shape[0], 3 - g.shape[1]))], axis=1)
+        powers = None
     K = g.shape[1]
     k = np.arange(K)
     d = g * (h[:, None] ** k if powers is None else powers)
