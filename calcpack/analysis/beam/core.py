@@ -128,7 +128,7 @@ def _integrate(
         tail = sign * tail
     increments = np.zeros(tail.shape) if jumps is None else jumps[:, :n].copy()
     increments[:, 1:] += tail[:, :-1]
-    g0 = np.cumsum(increments, axis=1)
+    g0 = np.add.accumulate(increments, axis=1)
     if start is not None:
         g0 += start[:, None]
     g = np.empty(f.shape)

@@ -185,7 +185,7 @@ def _companion_roots(d: np.ndarray, rows: np.ndarray, D: int) -> tuple[np.ndarra
     fp = (cc[:, 1:] * tp[:, :-1]) @ k1
     good = np.abs(fp) > 1e-12 * np.abs(cc).max(axis=1)
     step = np.where(good, f / np.where(good, fp, 1.0), 0.0)
-    return rows[r_idx], tt - np.clip(step, -1e-3, 1e-3)
+    return rows[r_idx], tt - np.minimum(np.maximum(step, -1e-3), 1e-3)
 
 
 def batch_roots(
@@ -214,12 +214,12 @@ def batch_roots(
     deg = (nz * k).max(axis=1)
     segs: list[np.ndarray] = []
     ts: list[np.ndarray] = []
-    rows = np.flatnonzero((deg == 1) | (deg == 2))
+    rows = ((deg == 1) | (deg == 2)).nonzero()[0]
     if rows.size:
         seg, t = _closed_roots(d, rows)
         segs.append(seg)
         ts.append(t)
-    rows = np.flatnonzero(deg >= 3)
+    rows = (deg >= 3).nonzero()[0]
     if rows.size:
         # one eigenvalue call: lower degrees are multiplied by (t − 2), whose root lies
         # outside [0, 1], up to the top degree
@@ -241,7 +241,7 @@ def batch_roots(
     t_all = np.concatenate(ts) if len(ts) > 1 else ts[0]
     keep = np.abs(t_all - 0.5) < 0.5 + 1e-9  # NaN (no root) fails too
     seg_all = seg_all[keep]
-    return seg_all, np.clip(t_all[keep], 0.0, 1.0) * h[seg_all]
+    return seg_all, np.minimum(np.maximum(t_all[keep], 0.0), 1.0) * h[seg_all]
 
 
 def roots_in_segments(X: np.ndarray, g: np.ndarray) -> np.ndarray:
@@ -322,7 +322,7 @@ def find_extremes(result: BeamResult) -> BeamExtremes:
     nf = len(funcs)
     K = max(g.shape[1] for g in funcs + derivs)
     F = _stack(funcs, K)
-    hh = np.tile(h, nf)
+    hh = np.concatenate([h] * nf)
     hp = hh[:, None] ** np.arange(K)
     seg, xi = batch_roots(_stack(derivs, K), hh, hp)
 
