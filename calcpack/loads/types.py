@@ -42,6 +42,7 @@ __all__ = [
     "SIPiece",
     "SIPoint",
     "UniformLoad",
+    "si_parts",
 ]
 
 _ZERO_KN = Q_(0.0, "kN")  # shared defaults: quantities are not mutated
@@ -449,6 +450,16 @@ class FunctionLoad(DistributedLoad):
 
     def describe(self) -> str:
         return f"{self.description}, {self._range_text()} ({self.case})"
+
+
+def si_parts(load: Load) -> tuple[tuple[SIPiece, ...], tuple[SIPoint, ...]]:
+    """``(load.si_pieces(), load.si_points())``, made once per load and kept on it (a load is
+    immutable; the beam solver reads these several times on every solve)."""
+    parts: tuple[tuple[SIPiece, ...], tuple[SIPoint, ...]] | None = load.__dict__.get("_si_parts")
+    if parts is None:
+        parts = (load.si_pieces(), load.si_points())
+        object.__setattr__(load, "_si_parts", parts)  # a cache, not state: frozen is kept
+    return parts
 
 
 def as_loads(loads: Sequence[Load] | Load) -> tuple[Load, ...]:

@@ -23,7 +23,7 @@ import numpy as np
 from calcpack.errors import InputError, UnstableStructureError
 from calcpack.loads._si import check as require
 from calcpack.loads._si import fast_si as si
-from calcpack.loads.types import FunctionLoad, Load, PointMoment, as_loads
+from calcpack.loads.types import FunctionLoad, Load, PointMoment, as_loads, si_parts
 from calcpack.units import Quantity
 
 __all__ = [
@@ -530,7 +530,7 @@ def classify(beam: Beam) -> BeamClassification:
             rows.append(row)
         if s.restrains_h:
             n_h += 1
-    axial_load = any(p.H_N != 0.0 for load in beam.loads for p in load.si_points())
+    axial_load = any(p.H_N != 0.0 for load in beam.loads for p in si_parts(load)[1])
     degree_bending = n_v + n_rot - 2 - len(beam.hinges)
     degree_axial = max(n_h - 1, 0)
     B = np.array(rows) if rows else np.zeros((0, 2 * n))
