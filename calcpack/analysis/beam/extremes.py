@@ -361,10 +361,7 @@ def find_extremes(result: BeamResult) -> BeamExtremes:
         if not up.value_si > 1e-12 * size:
             up = None
         sl = float(core.T[0, 0])
-        t_end = core.T[n - 1]
-        sr = float(t_end[-1])
-        for k in range(t_end.size - 2, -1, -1):
-            sr = sr * float(h[n - 1]) + float(t_end[k])
+        sr = float(core.T[n - 1] @ hp[n - 1, : core.T.shape[1]])  # θ at x = L
     V_roots = seg >= n
     if with_v:
         V_roots &= seg < 2 * n
