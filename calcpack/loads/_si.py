@@ -71,7 +71,7 @@ _SCALARS = (float, int)  # exact types: bool and numpy scalars take the full che
 def check(value: Any, dimension: str, name: str, *, positive: bool = False) -> Any:
     """:func:`calcpack.units.require` with the dimension check cached per unit.
 
-    A quantity of calcpack's registry with a float magnitude in a unit already seen for
+    A quantity of calcpack's registry with a float or int magnitude in a unit already seen for
     ``dimension`` skips pint's dimensional analysis; anything else (another registry, not a
     quantity, array magnitude, non-finite, wrong sign, new unit) goes through
     ``require``, which raises with its usual message.
