@@ -21,7 +21,7 @@ from __future__ import annotations
 import math
 from collections.abc import Callable, Sequence
 from dataclasses import dataclass, field, replace
-from typing import Any
+from typing import Any, NamedTuple
 
 import numpy as np
 
@@ -42,6 +42,7 @@ __all__ = [
     "SIPiece",
     "SIPoint",
     "UniformLoad",
+    "si_parts",
 ]
 
 _ZERO_KN = Q_(0.0, "kN")  # shared defaults: quantities are not mutated
@@ -52,17 +53,17 @@ _LENGTH = "[length]"
 _MOMENT = "[force] * [length]"
 
 
-@dataclass(frozen=True)
-class SIPiece:
-    """A polynomial line load in SI: w(x) = Σ c_k (x - a)^k N/m on a <= x <= b (downward +)."""
+class SIPiece(NamedTuple):
+    """A polynomial line load in SI: w(x) = Σ c_k (x - a)^k N/m on a <= x <= b (downward +).
+
+    (A named tuple: the numeric core makes these for every load on every solve.)"""
 
     a_m: float
     b_m: float
     coeffs: tuple[float, ...]
 
 
-@dataclass(frozen=True)
-class SIPoint:
+class SIPoint(NamedTuple):
     """A point action in SI at x: force P (N, down +), axial H (N, +x), couple C (N·m, cw +)."""
 
     x_m: float
@@ -449,6 +450,16 @@ class FunctionLoad(DistributedLoad):
 
     def describe(self) -> str:
         return f"{self.description}, {self._range_text()} ({self.case})"
+
+
+def si_parts(load: Load) -> tuple[tuple[SIPiece, ...], tuple[SIPoint, ...]]:
+    """``(load.si_pieces(), load.si_points())``, made once per load and kept on it (a load is
+    immutable; the beam solver reads these several times on every solve)."""
+    parts: tuple[tuple[SIPiece, ...], tuple[SIPoint, ...]] | None = load.__dict__.get("_si_parts")
+    if parts is None:
+        parts = (load.si_pieces(), load.si_points())
+        object.__setattr__(load, "_si_parts", parts)  # a cache, not state: frozen is kept
+    return parts
 
 
 def as_loads(loads: Sequence[Load] | Load) -> tuple[Load, ...]:

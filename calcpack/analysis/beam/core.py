@@ -25,6 +25,7 @@ from __future__ import annotations
 
 import bisect
 from dataclasses import dataclass
+from typing import NamedTuple
 
 import numpy as np
 
@@ -41,12 +42,11 @@ __all__ = [
 ]
 
 
-@dataclass(frozen=True)
-class Unknown:
+class Unknown(NamedTuple):
     """One unknown of the linear system: ``kind`` in {"R", "C", "hinge", "theta0", "v0"}."""
 
     kind: str
-    index: int  # breakpoint index
+    node: int  # breakpoint index
     owner: str  # support or hinge name ("" for theta0, v0)
     flexibility: float = 0.0  # 1/k or 1/k_theta for springs (m/N or 1/(N·m))
 
@@ -96,6 +96,47 @@ def _powers(h: np.ndarray, K: int) -> np.ndarray:
     return np.asarray(h[:, None] ** np.arange(K)[None, :], dtype=float)
 
 
+_INV_K: dict[int, np.ndarray] = {}
+
+
+def _inverse_orders(K: int) -> np.ndarray:
+    """1/k for k = 1..K−1 (the factors of term-by-term integration)."""
+    inv = _INV_K.get(K)
+    if inv is None:
+        inv = 1.0 / np.arange(1, K)
+        _INV_K[K] = inv
+    return inv
+
+
+def _integrate(
+    f: np.ndarray, start: np.ndarray | None, jumps: np.ndarray | None, sign: float, hq: np.ndarray
+) -> tuple[np.ndarray, np.ndarray]:
+    """Integrate piecewise polynomials batch-wise; also return each segment's end value.
+
+    Args:
+        f: (B, n, K) coefficients of the derivative; the top coefficient must be zero.
+        start: (B,) value before x = 0, or None for zero. jumps: (B, n+1) jump of g at each
+            breakpoint (the last is not included in the segments), or None for none.
+        sign: g' = sign·f. hq: (n, K−1) h^k / k for k = 1..K−1.
+    Returns:
+        ((B, n, K) coefficients of g, (B, n) values of g at the segment ends).
+    """
+    n = f.shape[1]
+    head = f[..., :-1]
+    tail = (head * hq).sum(axis=-1)  # ∫ f over each segment
+    if sign != 1.0:
+        tail = sign * tail
+    increments = np.zeros(tail.shape) if jumps is None else jumps[:, :n].copy()
+    increments[:, 1:] += tail[:, :-1]
+    g0 = np.add.accumulate(increments, axis=1)
+    if start is not None:
+        g0 += start[:, None]
+    g = np.empty(f.shape)
+    g[..., 0] = g0
+    g[..., 1:] = head * (sign * _inverse_orders(f.shape[2]))
+    return g, g0 + tail
+
+
 def integrate(
     f: np.ndarray,
     h: np.ndarray,
@@ -110,23 +151,13 @@ def integrate(
         f: (B, n, K) coefficients of the derivative; the top coefficient must be zero.
         h: (n,) segment lengths. start: (B,) value before x = 0. jumps: (B, n+1) jump of g at
             each breakpoint (the jump at the last node is not included in the segments).
+        powers: h^k (n, K), if already made.
     Returns:
         (B, n, K) coefficients of g.
     """
-    _B, n, K = f.shape
-    k = np.arange(1, K)
-    g = np.zeros_like(f)
-    g[:, :, 1:] = sign * f[:, :, :-1] / k
-    ends = (g * (_powers(h, K) if powers is None else powers)).sum(axis=-1)
-    increments = jumps[:, :n].copy()
-    increments[:, 1:] += ends[:, :-1]
-    g[:, :, 0] = start[:, None] + np.cumsum(increments, axis=1)
-    return g
-
-
-def end_values(g: np.ndarray, h: np.ndarray) -> np.ndarray:
-    """(…, n) value of each segment polynomial at its right end."""
-    return np.asarray((g * _powers(h, g.shape[-1])).sum(axis=-1), dtype=float)
+    K = f.shape[2]
+    hp = _powers(h, K) if powers is None else powers
+    return _integrate(f, start, jumps, sign, hp[:, 1:] * _inverse_orders(K))[0]
 
 
 def evaluate(X: np.ndarray, g: np.ndarray, x: np.ndarray, side: str = "right") -> np.ndarray:
@@ -186,7 +217,7 @@ def refine(X: np.ndarray, g: np.ndarray, Xnew: np.ndarray, K: int) -> np.ndarray
     return _shift(c, Xnew[:-1] - X[seg])
 
 
-def _breakpoints(beam: SIBeam) -> np.ndarray:
+def _breakpoints(beam: SIBeam) -> list[float]:
     xs = [0.0, beam.L_m]
     xs += [s[1] for s in beam.supports]
     xs += [h[1] for h in beam.hinges]
@@ -199,16 +230,19 @@ def _breakpoints(beam: SIBeam) -> np.ndarray:
     L = beam.L_m
     tol = 1e-9 * L
     merged: list[float] = []
-    for x in sorted({min(max(x, 0.0), L) for x in xs}):  # plain Python: a few dozen values
-        if not merged or x - merged[-1] > tol:
+    last = -np.inf
+    for x in sorted(set(xs)):  # plain Python: a few dozen values
+        x = 0.0 if x < 0.0 else (L if x > L else x)
+        if x - last > tol:
             merged.append(x)
+            last = x
     merged[-1] = L  # an end within the tolerance of L is L
-    return np.array(merged)
+    return merged
 
 
-def _node(X: np.ndarray, x: float) -> int:
+def _node(X: list[float], x: float) -> int:
     """Index of the breakpoint nearest x (positions were merged to the breakpoints)."""
-    i = bisect.bisect_left(_as_list(X), x)
+    i = bisect.bisect_left(X, x)
     if i == 0:
         return 0
     if i >= len(X):
@@ -216,15 +250,34 @@ def _node(X: np.ndarray, x: float) -> int:
     return i if X[i] - x < x - X[i - 1] else i - 1
 
 
-_LIST_CACHE: list[tuple[np.ndarray, list[float]]] = []
-
-
-def _as_list(X: np.ndarray) -> list[float]:
-    if _LIST_CACHE and _LIST_CACHE[0][0] is X:
-        return _LIST_CACHE[0][1]
-    values: list[float] = X.tolist()
-    _LIST_CACHE[:] = [(X, values)]
-    return values
+def _line_load(beam: SIBeam, X: np.ndarray, Xl: list[float], K: int) -> np.ndarray:
+    """(n, K) line load on each segment, N/m down +: each piece's polynomial shifted to the
+    start of every segment it covers, summed."""
+    n = len(Xl) - 1
+    w = np.zeros((n, K))
+    general: list[tuple[int, int, float, tuple[float, ...]]] = []
+    for a, b, coeffs in beam.pieces:
+        i, j = _node(Xl, a), _node(Xl, b)
+        if j <= i:
+            continue
+        if len(coeffs) == 1:  # uniform: the same on every segment
+            w[i:j, 0] += coeffs[0]
+        elif len(coeffs) == 2:  # linear: w(ξ + s) = (c0 + c1·s) + c1·ξ
+            c0, c1 = coeffs
+            w[i:j, 0] += c0 + c1 * (X[i:j] - a)
+            w[i:j, 1] += c1
+        else:
+            general.append((i, j, a, coeffs))
+    if general:
+        seg = np.concatenate([np.arange(i, j) for i, j, _, _ in general])
+        a_of = np.concatenate([np.full(j - i, a) for i, j, a, _ in general])
+        coef = np.zeros((seg.size, K))
+        row = 0
+        for i, j, _, c in general:
+            coef[row : row + j - i, : len(c)] = c
+            row += j - i
+        np.add.at(w, seg, _shift(coef, X[seg] - a_of))
+    return w
 
 
 def solve_si(beam: SIBeam) -> SIResult:
@@ -233,121 +286,109 @@ def solve_si(beam: SIBeam) -> SIResult:
     The caller has checked stability (:func:`calcpack.analysis.beam.model.classify`) and that
     EI is given where it is needed.
     """
-    X = _breakpoints(beam)
-    n = len(X) - 1
-    h = np.diff(X)
+    Xl = _breakpoints(beam)
+    X = np.array(Xl)
+    n = len(Xl) - 1
+    h = X[1:] - X[:-1]
     deg = max((len(c) - 1 for _, _, c in beam.pieces), default=0)
     K = deg + 5
+    hq = _powers(h, K)[:, 1:] * _inverse_orders(K)  # h^k / k
 
     # -- the loads ----------------------------------------------------------------------------
-    w = np.zeros((n, K))
-    mids = 0.5 * (X[:-1] + X[1:])
-    if beam.pieces:
-        # every (piece, segment) pair at once: shift each piece's polynomial to the segment
-        # start, then sum the pieces on each segment
-        n_pieces = len(beam.pieces)
-        A = np.array([p[0] for p in beam.pieces])
-        B = np.array([p[1] for p in beam.pieces])
-        coef = np.zeros((n_pieces, K))
-        for i, p in enumerate(beam.pieces):
-            coef[i, : len(p[2])] = p[2]
-        pi, seg = np.nonzero((mids[None, :] > A[:, None]) & (mids[None, :] < B[:, None]))
-        shifted = _shift(coef[pi], X[seg] - A[pi])
-        gather = np.zeros((n, seg.size))
-        gather[seg, np.arange(seg.size)] = 1.0
-        w += gather @ shifted
-    jP = np.zeros(n + 1)  # downward point forces
-    jC = np.zeros(n + 1)  # clockwise couples
-    jH = np.zeros(n + 1)  # axial, +x
+    w = _line_load(beam, X, Xl, K)
+    jP = [0.0] * (n + 1)  # downward point forces
+    jC = [0.0] * (n + 1)  # clockwise couples
+    jH = [0.0] * (n + 1)  # axial, +x
     for x, P, H, C in beam.points:
-        i = _node(X, x)
+        i = _node(Xl, x)
         jP[i] += P
         jC[i] += C
         jH[i] += H
 
     # -- the unknowns --------------------------------------------------------------------------
+    with_ei = beam.EI is not None
     unknowns: list[Unknown] = []
-    for name, x, rv, rr, fv, fr, _ in beam.supports:
-        i = _node(X, x)
+    support_nodes = [_node(Xl, sup[1]) for sup in beam.supports]
+    hinge_nodes = [_node(Xl, x) for _, x in beam.hinges]
+    for (name, _, rv, rr, fv, fr, _), i in zip(beam.supports, support_nodes, strict=True):
         if rv:
             unknowns.append(Unknown("R", i, name, fv))
         if rr:
             unknowns.append(Unknown("C", i, name, fr))
-    with_ei = beam.EI is not None
     if with_ei:
-        for name, x in beam.hinges:
-            unknowns.append(Unknown("hinge", _node(X, x), name))
+        for (name, _), i in zip(beam.hinges, hinge_nodes, strict=True):
+            unknowns.append(Unknown("hinge", i, name))
         unknowns.append(Unknown("theta0", 0, ""))
         unknowns.append(Unknown("v0", 0, ""))
     nu = len(unknowns)
     Bn = nu + 1
 
+    # batch 0 carries the loads, batch b the unit value of unknown b
     W = np.zeros((Bn, n, K))
     W[0] = w
     JV = np.zeros((Bn, n + 1))
     JM = np.zeros((Bn, n + 1))
-    JT = np.zeros((Bn, n + 1))
+    JV[0] = jP
+    JV[0] *= -1.0
+    JM[0] = jC
+    jt: list[int] = []
     T0 = np.zeros(Bn)
     V0 = np.zeros(Bn)
-    JV[0] = -jP
-    JM[0] = jC
     for b, u in enumerate(unknowns, start=1):
         if u.kind == "R":
-            JV[b, u.index] = 1.0
+            JV[b, u.node] = 1.0
         elif u.kind == "C":
-            JM[b, u.index] = 1.0
+            JM[b, u.node] = 1.0
         elif u.kind == "hinge":
-            JT[b, u.index] = 1.0
+            jt.append(b)
         elif u.kind == "theta0":
             T0[b] = 1.0
         else:
             V0[b] = 1.0
-    zero = np.zeros(Bn)
-    hp = _powers(h, K)
-    Vb = integrate(W, h, zero, JV, sign=-1.0, powers=hp)
-    Mb = integrate(Vb, h, zero, JM, powers=hp)
-    Vend = end_values(Vb, h)
-    Mend = end_values(Mb, h)
+    Vb, Vend = _integrate(W, None, JV, -1.0, hq)
+    Mb, Mend = _integrate(Vb, None, JM, 1.0, hq)
 
-    def at_node(g: np.ndarray, gend: np.ndarray, i: int) -> np.ndarray:
-        return g[:, i, 0] if i < n else gend[:, n - 1]
-
-    rows = [Vend[:, -1] + JV[:, n], Mend[:, -1] + JM[:, n]]  # ΣFy = 0, ΣM = 0
+    # the conditions, one row each: ΣFy = 0 and ΣM = 0 (V and M just right of x = L), M = 0 at
+    # each hinge, then v and θ at the supports (compatibility)
+    rows = [Vend[:, -1] + JV[:, n], Mend[:, -1] + JM[:, n]]
+    Mnode = np.concatenate([Mb[:, :, 0], Mend[:, -1:]], axis=1)  # M at every node (right)
+    rows += [Mnode[:, i] for i in hinge_nodes]
     Tb = vb = None
     if with_ei:
         assert beam.EI is not None
+        mids = 0.5 * (X[:-1] + X[1:])
         EI = np.zeros(n)
         for a, b_, value in beam.EI:
             EI[(mids > a) & (mids < b_)] = value
-        Tb = integrate(Mb / EI[None, :, None], h, T0, JT, powers=hp)
-        vb = integrate(Tb, h, V0, np.zeros((Bn, n + 1)), powers=hp)
-        Tend = end_values(Tb, h)
-        vend = end_values(vb, h)
-        for _name, x in beam.hinges:
-            rows.append(at_node(Mb, Mend, _node(X, x)))
-        col = {(u.kind, u.owner): b for b, u in enumerate(unknowns, start=1)}
-        for name, x, rv, rr, fv, fr, _ in beam.supports:
-            i = _node(X, x)
-            if rv:
-                row = at_node(vb, vend, i).copy()
-                row[col[("R", name)]] += fv
+        JT = None
+        if jt:
+            JT = np.zeros((Bn, n + 1))
+            JT[jt, [unknowns[b - 1].node for b in jt]] = 1.0
+        Tb, Tend = _integrate(Mb / EI[:, None], T0, JT, 1.0, hq)
+        vb, vend = _integrate(Tb, V0, None, 1.0, hq)
+        Tnode = np.concatenate([Tb[:, :, 0], Tend[:, -1:]], axis=1)
+        vnode = np.concatenate([vb[:, :, 0], vend[:, -1:]], axis=1)
+        b = 1
+        for sup, i in zip(beam.supports, support_nodes, strict=True):
+            if sup[2]:
+                row = vnode[:, i].copy()
+                row[b] += sup[4]  # spring: v = −R/k
                 rows.append(row)
-            if rr:
-                row = at_node(Tb, Tend, i).copy()
-                row[col[("C", name)]] -= fr
+                b += 1
+            if sup[3]:
+                row = Tnode[:, i].copy()
+                row[b] -= sup[5]  # rotational spring: θ = C/k_θ
                 rows.append(row)
-    else:
-        for _name, x in beam.hinges:
-            rows.append(at_node(Mb, Mend, _node(X, x)))
+                b += 1
     A = np.array(rows)
     rhs = -A[:, 0]
     A = A[:, 1:]
     if nu:
         # Equilibrate rows and columns: unknowns mix newtons, radians and metres.
-        cs = np.max(np.abs(A), axis=0)
+        cs = np.abs(A).max(axis=0)
         cs[cs == 0] = 1.0
         As = A / cs
-        rs = np.max(np.abs(As), axis=1)
+        rs = np.abs(As).max(axis=1)
         rs[rs == 0] = 1.0
         u_vals = np.linalg.solve(As / rs[:, None], rhs / rs) / cs
     else:
@@ -364,41 +405,41 @@ def solve_si(beam: SIBeam) -> SIResult:
 
     reactions: dict[tuple[str, str], float] = {}
     hinge_rotation: dict[str, float] = {}
-    for u, val in zip(unknowns, u_vals, strict=True):
+    for u, val in zip(unknowns, u_vals.tolist(), strict=True):
         if u.kind == "R":
-            reactions[(u.owner, "Fy")] = float(val)
+            reactions[(u.owner, "Fy")] = val
         elif u.kind == "C":
-            reactions[(u.owner, "C")] = float(val)
+            reactions[(u.owner, "C")] = val
         elif u.kind == "hinge":
-            hinge_rotation[u.owner] = float(val)
+            hinge_rotation[u.owner] = val
 
-    N, Hreact = _axial(beam, X, jH)
+    N, Hreact = _axial(beam, X, Xl, jH)
     reactions.update(Hreact)
     return SIResult(X, w, V, M, T, v, N, reactions, hinge_rotation)
 
 
 def _axial(
-    beam: SIBeam, X: np.ndarray, jH: np.ndarray
+    beam: SIBeam, X: np.ndarray, Xl: list[float], jH: list[float]
 ) -> tuple[np.ndarray, dict[tuple[str, str], float]]:
     """Axial force per segment (tension +) and horizontal reactions.
 
     With several horizontal restraints, the axial load is shared so that the axial
     displacement is zero at each restraint, taking EA uniform (only its distribution matters).
     """
-    n = len(X) - 1
-    h = np.diff(X)
-    restraints = [(name, _node(X, x)) for name, x, *_, rh in beam.supports if rh]
+    n = len(Xl) - 1
+    if not any(jH):
+        return np.zeros(n), {(s[0], "Fx"): 0.0 for s in beam.supports if s[6]}
+    h = X[1:] - X[:-1]
+    restraints = [(name, _node(Xl, x)) for name, x, *_, rh in beam.supports if rh]
     reactions: dict[tuple[str, str], float] = {}
     base = -np.cumsum(jH)[:n]  # N on each segment from the applied axial loads alone
     if not restraints:
         return base, reactions
-    if not jH.any():
-        return base, {(name, "Fx"): 0.0 for name, _ in restraints}
     m = len(restraints)
     units = np.zeros((m, n))
     for r, (_, i) in enumerate(restraints):
         units[r, i:] = -1.0  # a unit +x reaction at node i
-    rows = [np.append(np.ones(m), -jH.sum())]  # ΣFx = 0: Σ H_r = −Σ applied
+    rows = [np.append(np.ones(m), -sum(jH))]  # ΣFx = 0: Σ H_r = −Σ applied
     for r in range(m - 1):
         i0, i1 = restraints[r][1], restraints[r + 1][1]
         sl = slice(i0, i1)

@@ -139,11 +139,13 @@ class BeamExtremes:
         return None if self.slope_right_rad is None else out_q(self.slope_right_rad, "angle")
 
 
-def _closed_roots(d: np.ndarray, rows: np.ndarray, degree: int) -> tuple[np.ndarray, np.ndarray]:
-    """Real roots of linear or quadratic rows (ascending coefficients in t) in closed form;
-    the quadratic by the cancellation-free form q = −(b + sign(b)·√disc)/2, t = q/a and c/q."""
-    if degree == 1:
-        return rows, -d[rows, 0] / d[rows, 1]
+def _closed_roots(d: np.ndarray, rows: np.ndarray) -> tuple[np.ndarray, np.ndarray]:
+    """Real roots of linear or quadratic rows (ascending coefficients in t) in closed form, both
+    degrees in one pass: q = −(b + sign(b)·√disc)/2 (free of cancellation), t = q/a and c/q.
+
+    A linear row (a = 0) has disc = b², q = −b and its root c/q = −c/b; its "root" q/a is
+    made NaN (division by NaN, not by zero) and dropped by the caller's range test.
+    """
     c0, b, a = d[rows, 0], d[rows, 1], d[rows, 2]
     disc = b * b - 4.0 * a * c0
     # a discriminant lost in round-off is a double root
@@ -151,91 +153,95 @@ def _closed_roots(d: np.ndarray, rows: np.ndarray, degree: int) -> tuple[np.ndar
     ok = disc >= 0
     rows, c0, b, a, disc = rows[ok], c0[ok], b[ok], a[ok], disc[ok]
     q = -0.5 * (b + np.where(b >= 0, 1.0, -1.0) * np.sqrt(disc))
-    t1 = q / a
-    with np.errstate(divide="ignore", invalid="ignore"):
-        t2 = np.where(q != 0, c0 / np.where(q != 0, q, 1.0), t1)
+    t1 = q / np.where(a != 0, a, np.nan)
+    t2 = np.where(q != 0, c0 / np.where(q != 0, q, np.nan), t1)
     return np.concatenate([rows, rows]), np.concatenate([t1, t2])
 
 
+_COMPANION: dict[int, tuple[np.ndarray, np.ndarray, np.ndarray]] = {}
+
+
 def _companion_roots(d: np.ndarray, rows: np.ndarray, D: int) -> tuple[np.ndarray, np.ndarray]:
-    """Real roots of rows of degree D >= 3: eigenvalues of the stacked companion matrices,
-    polished by Newton steps."""
-    c = d[rows, :D] / d[rows, D : D + 1]  # monic
-    comp = np.zeros((rows.size, D, D))
-    idx = np.arange(D - 1)
-    comp[:, idx + 1, idx] = 1.0
-    comp[:, :, -1] = -c
+    """Real roots in [0, 1] of rows of degree D >= 3: eigenvalues of the stacked companion
+    matrices, polished by a Newton step."""
+    consts = _COMPANION.get(D)
+    if consts is None:
+        k = np.arange(D + 1.0)
+        consts = (np.eye(D, k=-1), k, k[1:])
+        _COMPANION[D] = consts
+    base, k, k1 = consts
+    cc = d[rows, : D + 1]
+    comp = np.repeat(base[None], rows.size, axis=0)
+    comp[:, :, -1] = cc[:, :D] / -cc[:, D : D + 1]  # monic
     ev = np.linalg.eigvals(comp)
     t = ev.real
-    ok = (np.abs(ev.imag) < 1e-6) & (t > -1e-6) & (t < 1 + 1e-6)
+    ok = (np.abs(ev.imag) < 1e-6) & (np.abs(t - 0.5) < 0.5 + 1e-6)
     r_idx, col = np.nonzero(ok)
-    seg = rows[r_idx]
-    cc = d[seg, : D + 1]
+    cc = cc[r_idx]
     tt = t[r_idx, col]
-    size = np.max(np.abs(cc), axis=1)
-    for _ in range(1):  # a Newton step (Horner for p and p'), guarded against flat spots
-        f = np.zeros_like(tt)
-        fp = np.zeros_like(tt)
-        for k in range(D, -1, -1):
-            fp = fp * tt + f
-            f = f * tt + cc[:, k]
-        good = np.abs(fp) > 1e-12 * size
-        step = np.where(good, f / np.where(good, fp, 1.0), 0.0)
-        tt = tt - np.clip(step, -1e-3, 1e-3)
-    return seg, tt
+    # a Newton step (p and p' as power sums: t is in [0, 1]), guarded against flat spots
+    tp = tt[:, None] ** k
+    f = (cc * tp).sum(axis=1)
+    fp = (cc[:, 1:] * tp[:, :-1]) @ k1
+    good = np.abs(fp) > 1e-12 * np.abs(cc).max(axis=1)
+    step = np.where(good, f / np.where(good, fp, 1.0), 0.0)
+    return rows[r_idx], tt - np.minimum(np.maximum(step, -1e-3), 1e-3)
 
 
-def batch_roots(g: np.ndarray, h: np.ndarray) -> tuple[np.ndarray, np.ndarray]:
+def batch_roots(
+    g: np.ndarray, h: np.ndarray, powers: np.ndarray | None = None
+) -> tuple[np.ndarray, np.ndarray]:
     """Real roots of every segment polynomial inside its segment, all segments at once.
 
-    Each row of ``g`` (n, K) is scaled to t = ξ/h ∈ [0, 1]; terms below 1e-13 of the row's
-    largest are dropped (round-off). Rows are grouped by degree: linear and quadratic rows
-    are solved in closed form, higher degrees as eigenvalues of their companion matrices (one
-    stacked call per degree) polished by Newton steps. Identically zero and constant rows
+    Each row of ``g`` (n, K) is scaled to t = ξ/h ∈ [0, 1] (``powers``, if given, is h^k
+    (n, K)); terms below 1e-13 of the row's largest are dropped (round-off). Linear and
+    quadratic rows are solved in closed form, higher degrees as eigenvalues of their companion
+    matrices (one stacked call) polished by a Newton step. Identically zero and constant rows
     have no roots.
 
     Returns:
         (segment index, ξ) arrays of the roots in [0, h].
     """
+    if g.shape[1] < 3:  # the closed form reads three coefficients
+        g = np.concatenate([g, np.zeros((g.shape[0], 3 - g.shape[1]))], axis=1)
+        powers = None
     K = g.shape[1]
-    d = g * h[:, None] ** np.arange(K)[None, :]
-    size = np.max(np.abs(d), axis=1)
-    d = np.where(np.abs(d) > 1e-13 * size[:, None], d, 0.0)
-    nz = d != 0
-    deg = np.where(nz.any(axis=1), K - 1 - np.argmax(nz[:, ::-1], axis=1), 0)
+    k = np.arange(K)
+    d = g * (h[:, None] ** k if powers is None else powers)
+    a = np.abs(d)
+    nz = a > 1e-13 * a.max(axis=1, keepdims=True)
+    d = d * nz
+    deg = (nz * k).max(axis=1)
     segs: list[np.ndarray] = []
     ts: list[np.ndarray] = []
-    for D in (1, 2):
-        rows = np.nonzero(deg == D)[0]
-        if rows.size:
-            seg, t = _closed_roots(d, rows, D)
-            segs.append(seg)
-            ts.append(t)
-    rows = np.nonzero(deg >= 3)[0]
+    rows = ((deg == 1) | (deg == 2)).nonzero()[0]
+    if rows.size:
+        seg, t = _closed_roots(d, rows)
+        segs.append(seg)
+        ts.append(t)
+    rows = (deg >= 3).nonzero()[0]
     if rows.size:
         # one eigenvalue call: lower degrees are multiplied by (t − 2), whose root lies
         # outside [0, 1], up to the top degree
         D = int(deg[rows].max())
-        c = d[rows, : D + 1].copy()
+        c = d[rows, : D + 1]
         pad = D - deg[rows]
         while pad.max() > 0:
             more = pad > 0
             shifted = np.zeros_like(c)
             shifted[:, 1:] = c[:, :-1]
             c = np.where(more[:, None], shifted - 2.0 * c, c)
-            pad = pad - more.astype(int)
-        padded = np.zeros_like(d)
-        padded[rows, : D + 1] = c
-        seg, t = _companion_roots(padded, rows, D)
-        segs.append(seg)
+            pad = pad - more
+        seg, t = _companion_roots(c, np.arange(rows.size), D)
+        segs.append(rows[seg])
         ts.append(t)
     if not segs:
         return np.zeros(0, dtype=int), np.zeros(0)
-    seg_all = np.concatenate(segs)
-    t_all = np.concatenate(ts)
-    keep = (t_all > -1e-9) & (t_all < 1 + 1e-9)
+    seg_all = np.concatenate(segs) if len(segs) > 1 else segs[0]
+    t_all = np.concatenate(ts) if len(ts) > 1 else ts[0]
+    keep = np.abs(t_all - 0.5) < 0.5 + 1e-9  # NaN (no root) fails too
     seg_all = seg_all[keep]
-    return seg_all, np.clip(t_all[keep], 0.0, 1.0) * h[seg_all]
+    return seg_all, np.minimum(np.maximum(t_all[keep], 0.0), 1.0) * h[seg_all]
 
 
 def roots_in_segments(X: np.ndarray, g: np.ndarray) -> np.ndarray:
@@ -260,84 +266,116 @@ def _value(g: np.ndarray, X: np.ndarray, x: np.ndarray, seg: np.ndarray) -> np.n
     return np.asarray(out, dtype=float)
 
 
-def _candidates(
-    X: np.ndarray, g: np.ndarray, roots: tuple[np.ndarray, np.ndarray]
-) -> tuple[np.ndarray, ...]:
-    """Positions, side and value of every candidate for the extremes of g, given the roots
-    (segment, ξ) of its derivative."""
-    n = len(X) - 1
-    h = np.diff(X)
-    rseg, rxi = roots
-    inside = (rxi > 0) & (rxi < h[rseg])
-    rseg, rxi = rseg[inside], rxi[inside]
-    ar = np.arange(n)
-    x = np.concatenate([X[:-1], X[1:], X[rseg] + rxi])
-    seg = np.concatenate([ar, ar, rseg])
-    side = np.concatenate([np.ones(n, int), np.full(n, 2), np.zeros(rseg.size, int)])
-    return x, seg, side, _value(g, X, x, seg)
+def _stack(parts: list[np.ndarray], K: int) -> np.ndarray:
+    """Piecewise polynomials (n, K_i) stacked into one (Σn, K) array, padded with zero terms."""
+    if all(g.shape[1] == K for g in parts):
+        return np.concatenate(parts)
+    out = np.zeros((sum(g.shape[0] for g in parts), K))
+    row = 0
+    for g in parts:
+        out[row : row + g.shape[0], : g.shape[1]] = g
+        row += g.shape[0]
+    return out
 
 
-_SIDES = ("", "right", "left")
+_SIDES = ("right", "left", "")  # segment start, segment end, turning point inside
 
 
 def _pick(
-    x: np.ndarray, side: np.ndarray, val: np.ndarray, which: str, X: np.ndarray, kind: str
+    values: np.ndarray, x: np.ndarray, n: int, which: str, L: float, kind: str, sides: bool
 ) -> Extreme:
-    i = int(np.argmax(val) if which == "max" else np.argmin(val))
-    s = _SIDES[int(side[i])]
-    L = X[-1]
-    at_end = abs(x[i]) <= 1e-12 * L or abs(x[i] - L) <= 1e-12 * L
-    return Extreme(float(val[i]), float(x[i]), "" if at_end else s, kind)
+    """The largest (``which="max"``) or smallest candidate; candidates are the n segment
+    starts, the n segment ends, then the turning points."""
+    i = int(values.argmax() if which == "max" else values.argmin())
+    xi = float(x[i])
+    at_end = abs(xi) <= 1e-12 * L or abs(xi - L) <= 1e-12 * L
+    side = _SIDES[min(i // n, 2)] if sides and not at_end else ""
+    return Extreme(float(values[i]), xi, side, kind)
 
 
 def _snap_noise(values: np.ndarray) -> np.ndarray:
     """Round-off left where the exact value is zero (e.g. M at a pinned end) is reported as 0,
     not as a 10⁻¹⁵ "hogging moment": values below 1e-12 of the largest are set to zero."""
-    size = float(np.max(np.abs(values))) if values.size else 0.0
+    size = float(np.abs(values).max()) if values.size else 0.0
     return np.where(np.abs(values) <= 1e-12 * size, 0.0, values)
 
 
 def find_extremes(result: BeamResult) -> BeamExtremes:
-    """All extremes of ``result`` (see :class:`BeamExtremes`)."""
+    """All extremes of ``result`` (see :class:`BeamExtremes`).
+
+    V, M and v (when EI is given) are handled as one stack of segment polynomials: one batch of
+    root finding for their derivatives (−w, V and θ), one evaluation of every candidate.
+    """
     core = result.core
     X = core.X
-    L = X[-1]
     n = len(X) - 1
-    # One batch of root finding: w (turning points of V), V (of M), θ (of v).
-    h = np.diff(X)
-    stack = [core.w, core.V] + ([core.T] if core.T is not None else [])
-    K = max(g.shape[1] for g in stack)
-    G = np.zeros((len(stack) * n, K))
-    for i, g in enumerate(stack):
-        G[i * n : (i + 1) * n, : g.shape[1]] = g
-    seg_all, xi_all = batch_roots(G, np.tile(h, len(stack)))
-    found = []
-    for i in range(len(stack)):
-        sel = (seg_all >= i * n) & (seg_all < (i + 1) * n)
-        found.append((seg_all[sel] - i * n, xi_all[sel]))
-    xV, _, sV, vV = _candidates(X, core.V, found[0])  # V' = −w
-    xM, _, sM, vM = _candidates(X, core.M, found[1])  # M' = V
+    L = float(X[-1])
+    h = X[1:] - X[:-1]
+    with_v = core.v is not None and core.T is not None
+    funcs = [core.V, core.M]
+    derivs = [core.w, core.V]
+    if with_v:
+        assert core.v is not None
+        assert core.T is not None
+        funcs.append(core.v)
+        derivs.append(core.T)
+    nf = len(funcs)
+    K = max(g.shape[1] for g in funcs + derivs)
+    F = _stack(funcs, K)
+    hh = np.concatenate([h] * nf)
+    hp = hh[:, None] ** np.arange(K)
+    seg, xi = batch_roots(_stack(derivs, K), hh, hp)
+
+    # candidates: each segment's start and end, and the turning points strictly inside
+    inside = np.abs(xi - 0.5 * hh[seg]) < 0.5 * hh[seg]
+    rseg, rxi = seg[inside], xi[inside]
+    m = rseg.size
+    at = np.concatenate([rxi, hh])
+    values = (F[np.concatenate([rseg, np.arange(nf * n)])] * at[:, None] ** np.arange(K)).sum(1)
+    turning, ends = values[:m], values[m:]
+    starts = F[:, 0]
+    x_turn = X[rseg % n] + rxi
+    owner = rseg // n
+    x_ends = np.concatenate([X[:-1], X[1:]])
+
+    def candidates(f: int) -> tuple[np.ndarray, np.ndarray]:
+        mine = owner == f
+        rows = slice(f * n, (f + 1) * n)
+        values = np.concatenate([starts[rows], ends[rows], turning[mine]])
+        return values, np.concatenate([x_ends, x_turn[mine]])
+
+    vV, xV = candidates(0)  # V' = −w
+    vM, xM = candidates(1)  # M' = V
     vV, vM = _snap_noise(vV), _snap_noise(vM)
 
     down = up = None
     sl = sr = None
-    if core.v is not None and core.T is not None:
-        xv, _, sv, vv = _candidates(X, core.v, found[2])
-        sv = np.zeros(sv.shape, int)  # v is continuous: no sides to tell apart
-        size = max(float(np.max(np.abs(vv))), 1e-300)
-        down = _pick(xv, sv, -vv, "max", X, "deflection")
-        up = _pick(xv, sv, vv, "max", X, "deflection")
+    if with_v:
+        assert core.T is not None
+        vv, xv = candidates(2)  # v' = θ; v is continuous: no sides to tell apart
+        size = max(float(np.abs(vv).max()), 1e-300)
+        down = _pick(-vv, xv, n, "max", L, "deflection", False)
+        up = _pick(vv, xv, n, "max", L, "deflection", False)
         if not down.value_si > 1e-12 * size:
             down = None
         if not up.value_si > 1e-12 * size:
             up = None
         sl = float(core.T[0, 0])
-        sr = float(_value(core.T, X, np.array([L]), np.array([n - 1]))[0])
+        sr = float(core.T[n - 1] @ hp[n - 1, : core.T.shape[1]])  # θ at x = L
+    V_roots = seg >= n
+    if with_v:
+        V_roots &= seg < 2 * n
     return BeamExtremes(
         core,
-        (_pick(xV, sV, vV, "max", X, "force"), _pick(xV, sV, vV, "min", X, "force")),
-        (_pick(xM, sM, vM, "max", X, "moment"), _pick(xM, sM, vM, "min", X, "moment")),
-        X[found[1][0]] + found[1][1],
+        (
+            _pick(vV, xV, n, "max", L, "force", True),
+            _pick(vV, xV, n, "min", L, "force", True),
+        ),
+        (
+            _pick(vM, xM, n, "max", L, "moment", True),
+            _pick(vM, xM, n, "min", L, "moment", True),
+        ),
+        X[seg[V_roots] - n] + xi[V_roots],
         (down, up),
         (sl, sr),
     )

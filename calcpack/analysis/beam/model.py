@@ -14,14 +14,16 @@ from __future__ import annotations
 import itertools
 import string
 from collections.abc import Sequence
-from dataclasses import dataclass, field, replace
+from dataclasses import dataclass, field
+from functools import cached_property
+from typing import TypeVar
 
 import numpy as np
 
 from calcpack.errors import InputError, UnstableStructureError
 from calcpack.loads._si import check as require
 from calcpack.loads._si import fast_si as si
-from calcpack.loads.types import DistributedLoad, Load, PointMoment, as_loads
+from calcpack.loads.types import FunctionLoad, Load, PointMoment, as_loads, si_parts
 from calcpack.units import Quantity
 
 __all__ = [
@@ -58,7 +60,7 @@ class Support:
     def __post_init__(self) -> None:
         require(self.x, _LENGTH, "x")
 
-    @property
+    @cached_property  # read many times on every solve; the position never changes
     def x_m(self) -> float:
         return si(self.x)
 
@@ -140,7 +142,7 @@ class Hinge:
     def __post_init__(self) -> None:
         require(self.x, _LENGTH, "x")
 
-    @property
+    @cached_property  # read many times on every solve; the position never changes
     def x_m(self) -> float:
         return si(self.x)
 
@@ -165,6 +167,19 @@ class EISegment:
                 value=self.end,
                 expected="end > start",
             )
+
+
+_Named = TypeVar("_Named", Support, Hinge)
+
+
+def _renamed(item: _Named, name: str) -> _Named:
+    """A copy of a support or hinge called ``name``. Its inputs were checked when it was made,
+    so the copy is not checked again (``dataclasses.replace`` would, for every support of every
+    live rebuild)."""
+    out = object.__new__(type(item))
+    out.__dict__.update(item.__dict__)
+    object.__setattr__(out, "name", name)
+    return out
 
 
 def _fmt(x_m: float) -> str:
@@ -274,7 +289,7 @@ class Beam:
                 while label in used:
                     label = next(letters)
                 used.add(label)
-                s = replace(s, name=label)
+                s = _renamed(s, label)
             named.append(s)
         for s0, s1 in itertools.pairwise(named):
             if s1.x_m - s0.x_m <= tol:
@@ -305,7 +320,7 @@ class Beam:
                 )
         hinges = tuple(sorted(self.hinges, key=lambda h: h.x_m))
         hinges = tuple(
-            replace(h, name=f"H{i + 1}") if isinstance(h, Hinge) and h.name is None else h
+            _renamed(h, f"H{i + 1}") if isinstance(h, Hinge) and h.name is None else h
             for i, h in enumerate(hinges)
         )
         for i, h in enumerate(hinges):
@@ -365,7 +380,7 @@ class Beam:
                             value=load.x,
                             expected="a position away from hinges",
                         )
-            if isinstance(load, DistributedLoad):
+            if isinstance(load, FunctionLoad):
                 load.si_pieces()  # a function load that cannot be fitted is refused now
         object.__setattr__(self, "loads", loads)
 
@@ -406,7 +421,7 @@ class Beam:
             require(self.EA, "[force]", "EA", positive=True)
 
     # -- derived data ------------------------------------------------------------------------
-    @property
+    @cached_property  # read many times on every solve; the length never changes
     def L_m(self) -> float:
         return si(self.length)
 
@@ -477,7 +492,6 @@ def classify(beam: Beam) -> BeamClassification:
     """
     parts = _parts(beam)
     n = len(parts)
-    rows: list[np.ndarray] = []
     scale = beam.L_m
     tol = 1e-9 * scale
 
@@ -487,8 +501,11 @@ def classify(beam: Beam) -> BeamClassification:
                 return p
         return n - 1
 
-    for i in range(n - 1):  # hinge continuity of displacement
-        row = np.zeros(2 * n)
+    # constraint rows (plain lists; numpy only for the rank): hinge continuity of displacement,
+    # then each support's restraints
+    rows: list[list[float]] = []
+    for i in range(n - 1):
+        row = [0.0] * (2 * n)
         a0, b0 = parts[i]
         row[2 * i] = 1.0
         row[2 * i + 1] = (b0 - a0) / scale
@@ -496,26 +513,33 @@ def classify(beam: Beam) -> BeamClassification:
         rows.append(row)
     n_v = 0
     n_rot = 0
+    n_h = 0
     for s in beam.supports:
         p = part_of(s.x_m)
         a = parts[p][0]
         if s.restrains_v:
             n_v += 1
-            row = np.zeros(2 * n)
+            row = [0.0] * (2 * n)
             row[2 * p] = 1.0
             row[2 * p + 1] = (s.x_m - a) / scale
             rows.append(row)
         if s.restrains_rotation:
             n_rot += 1
-            row = np.zeros(2 * n)
+            row = [0.0] * (2 * n)
             row[2 * p + 1] = 1.0
             rows.append(row)
-    n_h = sum(1 for s in beam.supports if s.restrains_h)
-    axial_load = any(p.H_N != 0.0 for load in beam.loads for p in load.si_points())
+        if s.restrains_h:
+            n_h += 1
+    axial_load = any(p.H_N != 0.0 for load in beam.loads for p in si_parts(load)[1])
     degree_bending = n_v + n_rot - 2 - len(beam.hinges)
     degree_axial = max(n_h - 1, 0)
     B = np.array(rows) if rows else np.zeros((0, 2 * n))
-    rank = int(np.linalg.matrix_rank(B)) if rows else 0
+    if n == 1:
+        # one rigid part (no hinge): two vertical restraints (at distinct positions, checked
+        # when the beam was made) or one vertical and one rotational restraint fix it
+        rank = min(n_v, 2) if n_rot == 0 else min(n_v, 1) + 1
+    else:
+        rank = int(np.linalg.matrix_rank(B)) if rows else 0
     if not beam.supports:
         return BeamClassification(
             "unstable",

@@ -28,7 +28,8 @@ import numpy as np
 from calcpack.analysis.beam.core import SIResult, evaluate, refine
 from calcpack.analysis.beam.extremes import BeamExtremes, find_extremes
 from calcpack.errors import InputError, OutOfScopeError
-from calcpack.units import Q_, Quantity, require, ureg
+from calcpack.loads._si import make_quantity
+from calcpack.units import Quantity, require, ureg
 
 # Display units of results, with the factor from SI (made once: building a quantity from a unit
 # string parses it every time, which dominated a live solve).
@@ -45,7 +46,7 @@ _OUT = {
 def out_q(value_si: Any, kind: str) -> Quantity:
     """A result quantity in its display unit from an SI value (float or array)."""
     f, unit = _OUT[kind]
-    return Q_(value_si * f, unit)
+    return make_quantity(value_si * f, unit)
 
 
 if TYPE_CHECKING:

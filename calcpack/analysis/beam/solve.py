@@ -6,7 +6,7 @@ from calcpack.analysis.beam.core import SIBeam, solve_si
 from calcpack.analysis.beam.model import Beam, Spring
 from calcpack.analysis.beam.result import BeamResult
 from calcpack.errors import InputError
-from calcpack.loads.types import Load
+from calcpack.loads.types import Load, si_parts
 
 __all__ = ["solve_beam", "solve_cases"]
 
@@ -31,8 +31,9 @@ def _si_beam(beam: Beam, loads: tuple[Load, ...]) -> SIBeam:
                 bool(s.restrains_h),
             )
         )
-    pieces = tuple((p.a_m, p.b_m, p.coeffs) for load in loads for p in load.si_pieces())
-    points = tuple((p.x_m, p.P_N, p.H_N, p.C_Nm) for load in loads for p in load.si_points())
+    parts = [si_parts(load) for load in loads]
+    pieces = tuple((p.a_m, p.b_m, p.coeffs) for pcs, _ in parts for p in pcs)
+    points = tuple((p.x_m, p.P_N, p.H_N, p.C_Nm) for _, pts in parts for p in pts)
     return SIBeam(
         L_m=beam.L_m,
         supports=tuple(supports),

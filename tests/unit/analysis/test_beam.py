@@ -152,6 +152,41 @@ def test_classification_degrees():
     assert gerber.classify().kind == "determinate"
 
 
+def _rank_of_restraints(beam: Beam) -> int:
+    """Rank of the restraint rows (vertical: [1, x/L], rotation: [0, 1]) of a beam without
+    hinges: the kinematic rule that the restraint count shortcut must equal."""
+    L = beam.L_m
+    rows = []
+    for s in beam.supports:
+        if s.restrains_v:
+            rows.append([1.0, s.x_m / L])
+        if s.restrains_rotation:
+            rows.append([0.0, 1.0])
+    return int(np.linalg.matrix_rank(np.array(rows))) if rows else 0
+
+
+@pytest.mark.parametrize(
+    "supports",
+    [
+        [Pin(0 * m)],
+        [Roller(2 * m)],
+        [Fixed(6 * m)],
+        [Roller(0 * m), Roller(6 * m)],
+        [Pin(1 * m), Roller(1.000001 * m)],
+        [Spring(0 * m, k_theta=Q_(1e3, "kN*m"))],
+        [Spring(0 * m, k_theta=Q_(1e3, "kN*m")), Spring(6 * m, k_theta=Q_(1e3, "kN*m"))],
+        [Spring(3 * m, k=Q_(1e3, "kN/m"), k_theta=Q_(1e3, "kN*m"))],
+        [Roller(3 * m), Spring(5 * m, k_theta=Q_(1e3, "kN*m"))],
+        [Spring(0 * m, k=Q_(1e3, "kN/m"))],
+        [Pin(0 * m), Roller(3 * m), Roller(6 * m)],
+    ],
+)
+def test_stability_without_hinges_follows_the_rank_of_the_restraints(supports):
+    beam = Beam(length=6 * m, supports=supports)
+    stable = beam.classify().kind != "unstable"
+    assert stable == (_rank_of_restraints(beam) == 2)
+
+
 def test_cases_and_combination():
     beam = Beam(
         length=6 * m,

@@ -92,3 +92,19 @@ def test_function_load_accepts_a_scalar_only_function():
         func=lambda x: Q_(math.exp(-x.to("m").magnitude), "kN/m"), start=0 * m, end=2 * m
     )
     assert resultant(load).P.to("kN").magnitude == pytest.approx(1 - math.exp(-2), rel=1e-9)
+
+
+def test_si_parts_are_made_once_and_follow_a_changed_copy():
+    from dataclasses import replace
+
+    from calcpack.loads.types import si_parts
+
+    load = LinearLoad(w_start=2 * kN / m, w_end=5 * kN / m, start=1 * m, end=5 * m)
+    parts = si_parts(load)
+    assert parts == (load.si_pieces(), load.si_points())
+    assert parts[0][0].coeffs == pytest.approx((2e3, 750.0), rel=1e-15)  # 2 kN/m + 3/4 kN/m²·ξ
+    assert si_parts(load) is parts
+    moved = replace(load, start=2 * m)
+    assert si_parts(moved)[0][0].a_m == pytest.approx(2.0, rel=1e-15)
+    assert si_parts(moved)[0][0].coeffs[1] == pytest.approx(1e3, rel=1e-15)
+    assert load == LinearLoad(w_start=2 * kN / m, w_end=5 * kN / m, start=1 * m, end=5 * m)
