@@ -3,6 +3,9 @@ diagrams and a section sketch, built as strings straight from the numeric result
 
 The panels redraw on every edit, so these avoid matplotlib (whose figure set-up alone costs
 more than the whole beam solve); the issued package uses the figures of :mod:`calcpack.plots`.
+Every edit sends the drawings from the kernel to the browser, so they are kept small: each
+diagram line is thinned to the points needed to draw it within a fraction of a pixel
+(:func:`thin`) and drawn as one path, filled and stroked.
 
 Sign conventions (as :mod:`calcpack.analysis.beam`): loads downward +; shear V and moment M
 (sagging +) are drawn upward when positive; deflection (downward +) is drawn downward, so the
@@ -12,19 +15,24 @@ line looks like the deflected beam.
 from __future__ import annotations
 
 from collections.abc import Sequence
+from functools import lru_cache
 from html import escape
 from typing import Any
 
 import numpy as np
+from pint import Unit
 
-from calcpack.units import Q_, si
+from calcpack.units import Q_, si, ureg
 
 __all__ = [
+    "beam_diagram_parts",
     "beam_diagrams_svg",
     "beam_sketch_svg",
+    "cached_unit",
     "diagram_svg",
     "section_sketch_svg",
     "stack_svg",
+    "thin",
 ]
 
 WIDTH = 640
@@ -32,6 +40,9 @@ MARGIN_L = 70
 MARGIN_R = 30
 CASE_COLOURS = ("#1f5fa8", "#b0441c", "#2b7a3d", "#7a3d8f", "#8a6d00", "#00707a")
 _SAMPLES = 241
+# Largest distance (px) between a diagram line as drawn and as sampled: well under the width of
+# the line itself (1.6 px), so thinning is invisible.
+THIN_TOLERANCE_PX = 0.25
 
 
 def _num(v: float, sig: int = 3) -> str:
@@ -57,21 +68,61 @@ class _Xmap:
         return MARGIN_L + self.w * x_m / self.L
 
 
+@lru_cache(maxsize=32)
+def cached_unit(text: str) -> Unit:
+    """The pint unit for ``text``, parsed once (parsing a unit string costs more than a
+    conversion)."""
+    return ureg.Unit(text)
+
+
 def _sample(result: Any, what: str, L_m: float, breaks: Sequence[float]) -> tuple[Any, Any]:
     """x (m) and values (SI) with both sides of each break, so steps are drawn vertical."""
     base = np.union1d(np.linspace(0.0, L_m, _SAMPLES), np.asarray(breaks, dtype=float))
-    xq = Q_(base, "m")
+    xq = Q_(base, cached_unit("m"))
     if what == "deflection":
-        return base, result.deflection(xq).to("mm").magnitude
+        return base, result.deflection(xq).to(cached_unit("mm")).magnitude
     fn = getattr(result, what)
-    unit = "kN" if what == "shear" else "kN*m"
-    left = fn(xq, side="left").to(unit).magnitude
-    right = fn(xq, side="right").to(unit).magnitude
+    to = cached_unit("kN" if what == "shear" else "kN*m")
+    left = fn(xq, side="left").to(to).magnitude
+    right = fn(xq, side="right").to(to).magnitude
     X = np.repeat(base, 2)
     Y = np.empty(2 * len(base))
     Y[0::2] = left
     Y[1::2] = right
     return X, Y
+
+
+def thin(x: Any, y: Any, tolerance: float = THIN_TOLERANCE_PX) -> Any:
+    """Indices of the points of the line ``x, y`` (px) to keep so that the line through them
+    stays within ``tolerance`` of every point left out (Ramer-Douglas-Peucker).
+
+    Straight runs (shear under uniform load, any diagram between loads) shrink to their ends;
+    curves keep about one point per few pixels of bend. The first and last points are kept.
+    """
+    px = np.asarray(x, dtype=float)
+    py = np.asarray(y, dtype=float)
+    n = len(px)
+    keep = np.zeros(n, dtype=bool)
+    keep[[0, n - 1]] = True
+    stack = [(0, n - 1)]
+    while stack:
+        i, j = stack.pop()
+        if j <= i + 1:
+            continue
+        dx, dy = px[j] - px[i], py[j] - py[i]
+        ux, uy = px[i + 1 : j] - px[i], py[i + 1 : j] - py[i]
+        chord = float(np.hypot(dx, dy))
+        dist = np.abs(dx * uy - dy * ux) / chord if chord > 0 else np.hypot(ux, uy)
+        k = int(np.argmax(dist))
+        if dist[k] > tolerance:
+            m = i + 1 + k
+            keep[m] = True
+            stack.extend(((i, m), (m, j)))
+    return np.flatnonzero(keep)
+
+
+def _pairs(px: Any, py: Any) -> str:
+    return " ".join(f"{a:.1f},{b:.1f}" for a, b in zip(px.tolist(), py.tolist(), strict=True))
 
 
 def diagram_svg(
@@ -106,14 +157,21 @@ def diagram_svg(
     def Y(v: float) -> float:
         return mid + sgn * v * scale
 
-    pts = " ".join(f"{X(a):.1f},{Y(b):.1f}" for a, b in zip(x, y, strict=True))
-    poly = f"{X(float(x[0])):.1f},{mid:.1f} {pts} {X(float(x[-1])):.1f},{mid:.1f}"
+    # On the 0.1 px grid the path is written in, before thinning: round-off in the values then
+    # cannot change which points are kept, so an edit that leaves the diagram as it was (a
+    # change of E for V and M) draws the same string, which is not sent again.
+    px = np.round(MARGIN_L + X.w * x / L_m, 1)
+    py = np.round(mid + sgn * y * scale, 1)
+    keep = thin(px, py)
+    # One open path from the axis, along the diagram and back to the axis: the fill closes it
+    # along the axis, the stroke does not.
+    path = f"M{px[0]:.1f},{mid:.1f}L{_pairs(px[keep], py[keep])} {px[-1]:.1f},{mid:.1f}"
     parts = [_open(height, title)]
     parts.append(f'<text x="4" y="12" font-weight="bold">{escape(title)}</text>')
     parts.append(f'<text x="4" y="{mid + 4:.1f}" fill="#555">{escape(unit)}</text>')
     parts.append(
-        f'<polygon points="{poly}" fill="{colour}" fill-opacity="0.18" stroke="none"/>'
-        f'<polyline points="{pts}" fill="none" stroke="{colour}" stroke-width="1.6"/>'
+        f'<path d="{path}" fill="{colour}" fill-opacity="0.18" stroke="{colour}" '
+        'stroke-width="1.6"/>'
         f'<line x1="{X(0):.1f}" y1="{mid:.1f}" x2="{X(L_m):.1f}" y2="{mid:.1f}" '
         'stroke="#222" stroke-width="1"/>'
     )
@@ -123,6 +181,8 @@ def diagram_svg(
             'stroke="#222"/>'
         )
     if span > 0:
+        # Values to 12 digits: round-off below that (e.g. from a change of EI, which leaves V
+        # and M unchanged) must not make the drawing differ and be sent again.
         marks = {int(np.argmax(y)), int(np.argmin(y))}
         for k in sorted(marks):
             v = float(y[k])
@@ -139,7 +199,7 @@ def diagram_svg(
             parts.append(
                 f'<circle cx="{xx:.1f}" cy="{yy:.1f}" r="2.2" fill="{colour}"/>'
                 f'<text x="{xx:.1f}" y="{yy + dy:.1f}" text-anchor="{anchor}" '
-                f'class="cp-diagram-extreme" data-value="{v!r}">{_num(v)}</text>'
+                f'class="cp-diagram-extreme" data-value="{v:.12g}">{_num(v)}</text>'
             )
     parts.append("</svg>")
     return "".join(parts)
@@ -243,7 +303,15 @@ def _breaks(inputs: Any) -> list[float]:
 
 
 def beam_diagrams_svg(outcome: Any) -> str:
-    """Loading sketch, then V and M for the strength combination and δ for the service one."""
+    """Loading sketch, then V and M for the strength combination and δ for the service one,
+    as one SVG."""
+    return stack_svg(beam_diagram_parts(outcome))
+
+
+def beam_diagram_parts(outcome: Any) -> tuple[str, str, str, str]:
+    """The four drawings of :func:`beam_diagrams_svg`, each a whole ``<svg>``: loading, shear,
+    moment, deflection. The beam panel shows them as separate outputs, so an edit re-sends only
+    the drawings it changed."""
     inputs = outcome.inputs
     L_m = si(inputs.length)
     sx = [si(x) for x in inputs.support_x]
@@ -283,7 +351,7 @@ def beam_diagrams_svg(outcome: Any) -> str:
             down_positive=True,
         ),
     )
-    return stack_svg(parts)
+    return parts
 
 
 def stack_svg(parts: Sequence[str]) -> str:
