@@ -64,7 +64,10 @@ def test_beam_panel_edits_inputs_and_updates_display(lab: LabServer, page: Any) 
     # The panel rendered (ipywidgets front end) with its live diagrams ...
     panel = page.locator(".cp-beam-panel")
     panel.wait_for(timeout=60_000)
-    assert panel.locator(".cp-panel-diagrams svg.cp-diagrams svg.cp-diagram").count() == 4
+    # (one output per drawing, so an edit re-sends only the drawings it changed)
+    drawings = panel.locator(".cp-panel-diagrams svg.cp-diagram")
+    assert drawings.count() == 4
+    assert drawings.first.get_attribute("data-diagram") == "loading"
     # ... and the sheet's own diagram output (an SVG image) appeared below the working.
     figures = page.locator(".jp-OutputArea-output[data-mime-type='image/svg+xml'] img")
     assert figures.count() == 1
