@@ -13,10 +13,12 @@ Edit to display is kept short (target under 100 ms for a three-span beam, see
   output is sent to the browser only when its content changed (traitlets sends nothing for an
   unchanged value): a change of f_b re-sends the table alone, one of E the deflection too;
 * the drawings are compact SVG (see :mod:`calcpack.widgets.svg`), never matplotlib;
-* the inputs file is written *after* the new display has been handed to the kernel's output
-  thread, so the browser redraws while the file is written. The write still happens inside the
-  same edit: the kernel reports idle, and runs any other cell (the sheet's calc cells, a build),
-  only once the file holds the values on screen. The status line says "Saved" after the write.
+* the inputs file is written *after* the kernel's output thread has sent the new display
+  (:func:`calcpack.widgets.fields.wait_for_output_sent`), so the browser redraws while the file
+  is written. The write still happens inside the same edit: the kernel reports idle, and runs
+  any other cell (the sheet's calc cells, a build), only once the file holds the values on
+  screen; nothing is left to write when the kernel shuts down. The status line says "Saved"
+  after the write.
 """
 
 from __future__ import annotations
@@ -40,10 +42,16 @@ from calcpack.inputs import (
     load_inputs,
     update_inputs,
 )
-from calcpack.inputs.file import split_key
+from calcpack.inputs.file import cached_unit, split_key
 from calcpack.units import Q_, Quantity
-from calcpack.widgets.fields import QuantityField, css_key, interactive_session, label
-from calcpack.widgets.svg import beam_diagram_parts, cached_unit
+from calcpack.widgets.fields import (
+    QuantityField,
+    css_key,
+    interactive_session,
+    label,
+    wait_for_output_sent,
+)
+from calcpack.widgets.svg import beam_diagram_parts
 
 __all__ = ["BeamPanel", "beam_panel", "outcome_table_html"]
 
@@ -328,7 +336,8 @@ class BeamPanel:
         self.data = candidate
         shown = self._refresh(validated, saved=False)
         self.last_update_s = time.perf_counter() - t0
-        # The display is on its way (the kernel's output thread sends it): now the file.
+        # The display is on its way: let the kernel's output thread send it, then write the file.
+        wait_for_output_sent()
         try:
             self.data = update_inputs(self.path, changes)
         except CalcpackError as exc:  # e.g. the file was edited by hand meanwhile

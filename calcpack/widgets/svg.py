@@ -15,20 +15,18 @@ line looks like the deflected beam.
 from __future__ import annotations
 
 from collections.abc import Sequence
-from functools import lru_cache
 from html import escape
 from typing import Any
 
 import numpy as np
-from pint import Unit
 
-from calcpack.units import Q_, si, ureg
+from calcpack.inputs.file import cached_unit
+from calcpack.units import Q_, si
 
 __all__ = [
     "beam_diagram_parts",
     "beam_diagrams_svg",
     "beam_sketch_svg",
-    "cached_unit",
     "diagram_svg",
     "section_sketch_svg",
     "stack_svg",
@@ -66,13 +64,6 @@ class _Xmap:
 
     def __call__(self, x_m: float) -> float:
         return MARGIN_L + self.w * x_m / self.L
-
-
-@lru_cache(maxsize=32)
-def cached_unit(text: str) -> Unit:
-    """The pint unit for ``text``, parsed once (parsing a unit string costs more than a
-    conversion)."""
-    return ureg.Unit(text)
 
 
 def _sample(result: Any, what: str, L_m: float, breaks: Sequence[float]) -> tuple[Any, Any]:

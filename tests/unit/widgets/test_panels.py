@@ -201,3 +201,38 @@ def test_beam_panel_writes_the_file_after_the_display_and_before_returning(
     _started, display_s, saved_s = panel.edit_times[-1]
     assert 0 < display_s <= saved_s
     assert "Saved to b.inputs.toml" in panel.status.value
+
+
+def test_waiting_for_the_output_thread(monkeypatch: pytest.MonkeyPatch) -> None:
+    import threading
+
+    from ipykernel.kernelbase import Kernel
+
+    from calcpack.widgets.fields import wait_for_output_sent
+
+    assert not Kernel.initialized()
+    assert wait_for_output_sent() is False  # no kernel: nothing to wait for
+
+    class OutputThread:
+        """Runs scheduled callbacks later, in order, as ipykernel's IOPub thread does."""
+
+        def __init__(self) -> None:
+            self.queue: list[object] = ["update 1", "update 2"]
+            self.sent: list[object] = []
+
+        def schedule(self, f: object) -> None:
+            def run() -> None:
+                self.sent.extend(self.queue)
+                f()  # type: ignore[operator]
+
+            threading.Timer(0.05, run).start()
+
+    thread = OutputThread()
+
+    class FakeKernel:
+        iopub_thread = thread
+
+    monkeypatch.setattr(Kernel, "initialized", classmethod(lambda cls: True))
+    monkeypatch.setattr(Kernel, "instance", classmethod(lambda cls: FakeKernel()))
+    assert wait_for_output_sent() is True
+    assert thread.sent == ["update 1", "update 2"]  # returned only after they were sent
