@@ -108,52 +108,6 @@ _WS_HOOK = """
 })();
 """
 
-# Stamps in the page: the Enter key in a panel field, and every change to the panel's diagrams
-# and results (the "updated display").
-_OBSERVE = """
-() => {
-  const panel = document.querySelector('.cp-beam-panel');
-  window.__cpEdit = {key: null, changes: []};
-  document.addEventListener('keydown', (e) => {
-    if (e.key === 'Enter' && e.target.closest('.cp-beam-panel')) {
-      window.__cpEdit = {key: performance.now(), changes: []};
-    }
-  }, true);
-  for (const sel of ['.cp-panel-diagrams', '.cp-panel-results-box']) {
-    const el = panel.querySelector(sel);
-    new MutationObserver(() => {
-      window.__cpEdit.changes.push({t: performance.now(), what: sel});
-    }).observe(el, {childList: true, subtree: true, characterData: true, attributes: true});
-  }
-}
-"""
-
-_SETTLED = """
-([quietMs]) => {
-  const e = window.__cpEdit;
-  if (!e || e.key === null || e.changes.length === 0) return false;
-  const last = e.changes[e.changes.length - 1].t;
-  const kinds = new Set(e.changes.map(c => c.what));
-  return kinds.size === 2 && performance.now() - last > quietMs;
-}
-"""
-
-_READ = """
-() => {
-  const e = window.__cpEdit;
-  const frames = window.__cpFrames.filter(f => f.t >= e.key);
-  const last = Math.max(...e.changes.map(c => c.t));
-  const first = Math.min(...e.changes.map(c => c.t));
-  const updates = frames.filter(f => f.t <= last);
-  return {origin: performance.timeOrigin, key: e.key, first_change: first, last_change: last,
-          n_changes: e.changes.length,
-          frames: updates.length, bytes: updates.reduce((a, f) => a + f.size, 0),
-          types: updates.map(f => f.type),
-          timeline: updates.map(f => [f.t - e.key, f.type, f.size]),
-          first_frame: updates.length ? updates[0].t : null};
-}
-"""
-
 _TIMES_CELL = (
     "import json as _json\n"
     "print('CP-KERNEL-TIMES', _json.dumps(list(getattr(panel, 'edit_times', [[]]))))"
@@ -185,8 +139,10 @@ def browser_side(repeat: int) -> dict[str, Any]:
         chromium_page,
         lab_server,
         open_notebook,
+        panel_edit_timing,
         run_all_cells,
         wait_idle,
+        watch_panel,
     )
 
     if not CHROMIUM.exists():
@@ -204,19 +160,15 @@ def browser_side(repeat: int) -> dict[str, Any]:
             if errors:
                 raise SystemExit("the sheet failed in JupyterLab:\n" + "\n".join(errors))
             page.locator(".cp-beam-panel .cp-panel-diagrams svg").first.wait_for()
-            page.evaluate(_OBSERVE)
+            watch_panel(page, ".cp-beam-panel", (".cp-panel-diagrams", ".cp-panel-results-box"))
             box = page.locator(".cp-beam-panel .cp-key-beam-spans-2 input")
             edits = []
             for i in range(repeat + 1):  # the first edit warms up and is not counted
                 box.fill(f"{SPANS_M[i % len(SPANS_M)]}")
                 box.press("Enter")
-                try:
-                    page.wait_for_function(_SETTLED, arg=[400], timeout=30_000)
-                except Exception:
-                    state = page.evaluate("() => JSON.stringify(window.__cpEdit)")
-                    raise SystemExit(f"edit {i}: the panel did not update ({state})") from None
+                edit = panel_edit_timing(page, quiet_ms=400)
                 if i:
-                    edits.append(page.evaluate(_READ))
+                    edits.append(edit)
             wait_idle(page)
             # Shift+Enter on the last cell adds a new one below: hold the cell by its index.
             cells = page.locator(".jp-NotebookPanel .jp-Cell")
