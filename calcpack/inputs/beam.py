@@ -44,6 +44,7 @@ from __future__ import annotations
 import itertools
 from collections.abc import Mapping, Sequence
 from dataclasses import dataclass
+from functools import cached_property
 from pathlib import Path
 from typing import Any
 
@@ -97,14 +98,21 @@ class BeamInputs:
     def length(self) -> Quantity:
         return self.support_x[-1]
 
-    @property
-    def support_x(self) -> tuple[Quantity, ...]:
-        """Position of each support line from the left end."""
+    @cached_property
+    def support_x_m(self) -> tuple[float, ...]:
+        """Position of each support line from the left end, in metres (worked out once: the
+        panel's drawings read them many times per edit)."""
         m = cached_unit("m")
         x_m = [0.0]
         for s in self.spans:
             x_m.append(x_m[-1] + float(s.to(m).magnitude))
-        return tuple(Q_(x, m) for x in x_m)
+        return tuple(x_m)
+
+    @property
+    def support_x(self) -> tuple[Quantity, ...]:
+        """Position of each support line from the left end."""
+        m = cached_unit("m")
+        return tuple(Q_(x, m) for x in self.support_x_m)
 
     def model(self, EI: Quantity) -> Any:
         """The :class:`calcpack.analysis.beam.Beam` with flexural stiffness ``EI``."""
@@ -438,7 +446,7 @@ def evaluate_beam(inputs: BeamInputs) -> BeamOutcome:
     M_abs = abs(M).to(u("kN*m"))
     sigma = (M_abs / props.Sx).to(u("MPa"))
     util = float((sigma / inputs.f_b).to(u("")).magnitude)
-    lines = [si(x) for x in inputs.support_x]
+    lines = inputs.support_x_m
     defl = []
     for i, (a, b) in enumerate(itertools.pairwise(lines), start=1):
         d_mm, x_m = _span_peak(service, a, b)

@@ -95,20 +95,28 @@ def thin(x: Any, y: Any, tolerance: float = THIN_TOLERANCE_PX) -> Any:
     n = len(px)
     keep = np.zeros(n, dtype=bool)
     keep[[0, n - 1]] = True
-    stack = [(0, n - 1)]
-    while stack:
-        i, j = stack.pop()
-        if j <= i + 1:
-            continue
-        dx, dy = px[j] - px[i], py[j] - py[i]
-        ux, uy = px[i + 1 : j] - px[i], py[i + 1 : j] - py[i]
-        chord = float(np.hypot(dx, dy))
-        dist = np.abs(dx * uy - dy * ux) / chord if chord > 0 else np.hypot(ux, uy)
-        k = int(np.argmax(dist))
-        if dist[k] > tolerance:
-            m = i + 1 + k
-            keep[m] = True
-            stack.extend(((i, m), (m, j)))
+    at = np.arange(n)
+    # Every segment between kept points is split at its farthest point, all segments at once
+    # (the result is the recursive algorithm's, in a few vectorised rounds instead of one small
+    # numpy call per segment).
+    while True:
+        kept = np.flatnonzero(keep)
+        seg = np.minimum(np.searchsorted(kept, at, side="right") - 1, len(kept) - 2)
+        i0, i1 = kept[seg], kept[seg + 1]
+        dx, dy = px[i1] - px[i0], py[i1] - py[i0]
+        ux, uy = px - px[i0], py - py[i0]
+        chord = np.hypot(dx, dy)
+        dist = np.where(
+            chord > 0, np.abs(dx * uy - dy * ux) / np.where(chord > 0, chord, 1.0), np.hypot(ux, uy)
+        )
+        dist[keep] = 0.0
+        farthest = np.maximum.reduceat(dist, kept[:-1])
+        if not np.any(farthest > tolerance):
+            break
+        split = (dist == farthest[seg]) & (dist > tolerance)
+        first = np.flatnonzero(split)
+        first = first[np.r_[True, seg[first][1:] != seg[first][:-1]]]  # first farthest per segment
+        keep[first] = True
     return np.flatnonzero(keep)
 
 
@@ -226,7 +234,7 @@ def _support_glyph(kind: str, x: float, y: float) -> str:
 
 def beam_sketch_svg(inputs: Any, *, height: int = 150) -> str:
     """The beam with its supports, spans and loads by case (magnitudes as given)."""
-    L_m = si(inputs.length)
+    L_m = inputs.support_x_m[-1]
     X = _Xmap(L_m)
     beam_y = height - 48
     parts = [_open(height, "loading")]
@@ -243,7 +251,7 @@ def beam_sketch_svg(inputs: Any, *, height: int = 150) -> str:
         f'<line x1="{X(0):.1f}" y1="{beam_y}" x2="{X(L_m):.1f}" y2="{beam_y}" '
         'stroke="#222" stroke-width="3"/>'
     )
-    xs = [si(x) for x in inputs.support_x]
+    xs = list(inputs.support_x_m)
     for kind, x in zip(inputs.supports, xs, strict=True):
         parts.append(_support_glyph(kind, X(x), beam_y + 2))
     for a, b, n in zip(xs[:-1], xs[1:], range(1, len(xs)), strict=False):
@@ -284,7 +292,7 @@ def beam_sketch_svg(inputs: Any, *, height: int = 150) -> str:
 
 
 def _breaks(inputs: Any) -> list[float]:
-    out = [si(x) for x in inputs.support_x]
+    out = list(inputs.support_x_m)
     for ld in inputs.loads:
         if hasattr(ld, "P"):
             out.append(si(ld.x))
@@ -304,8 +312,8 @@ def beam_diagram_parts(outcome: Any) -> tuple[str, str, str, str]:
     moment, deflection. The beam panel shows them as separate outputs, so an edit re-sends only
     the drawings it changed."""
     inputs = outcome.inputs
-    L_m = si(inputs.length)
-    sx = [si(x) for x in inputs.support_x]
+    L_m = inputs.support_x_m[-1]
+    sx = list(inputs.support_x_m)
     br = _breaks(inputs)
     strength, service = outcome.strength.label, outcome.service.label
     xv, v = _sample(outcome.strength, "shear", L_m, br)
