@@ -24,6 +24,7 @@ Edit to display is kept short (target under 100 ms for a three-span beam, see
 from __future__ import annotations
 
 import copy
+import dataclasses
 import time
 from collections import deque
 from html import escape
@@ -157,6 +158,7 @@ class BeamPanel:
         self.outcome: BeamOutcome | None = None
         self.last_update_s = 0.0
         self.edit_times: deque[tuple[float, float, float]] = deque(maxlen=100)
+        self._section: tuple[Any, Any] | None = None  # (the [section] table, its shape) shown
         self.fields: dict[str, QuantityField] = {}
         self.status = ipw.HTML(layout=ipw.Layout(min_height="20px"))
         self.status.add_class("cp-panel-status")
@@ -332,6 +334,10 @@ class BeamPanel:
         except (KeyError, IndexError, TypeError) as exc:
             self._error(f"Not saved: no value {exc} in {self.path.name}")
             return
+        if self._section is not None and self._section[0] == candidate.get("section"):
+            # Same section as on screen: keep its object, whose properties (a polygon
+            # integration costing about as much as the whole beam solve) are worked out.
+            validated = dataclasses.replace(validated, section=self._section[1])
         previous = self.data
         self.data = candidate
         shown = self._refresh(validated, saved=False)
@@ -429,11 +435,13 @@ class BeamPanel:
             self.outcome = evaluate_beam(inputs)
         except CalcpackError as exc:
             self.outcome = None
+            self._section = None
             for d in self.drawings:
                 d.value = ""
             self.results.value = ""
             self._error(str(exc))
             return False
+        self._section = (copy.deepcopy(self.data.get("section")), inputs.section)
         # Assigning an unchanged string sends nothing: only changed outputs travel.
         for d, svg in zip(self.drawings, beam_diagram_parts(self.outcome), strict=True):
             d.value = svg

@@ -74,11 +74,22 @@ def kernel_side(repeat: int) -> dict[str, float]:
 
         edit()  # warm caches (pint unit parsing, imports)
         t_edit = _median_time(edit, repeat)
-        inputs = beam_inputs(load_inputs(path))
-        t_solve = _median_time(lambda: evaluate_beam(inputs), repeat)
+        # An older panel (--source) keeps no split: its whole call is display and file.
+        timed = list(getattr(panel, "edit_times", []))[-repeat:] or [(0.0, t_edit, t_edit)]
+        data = load_inputs(path)
+        # A fresh validation each time, as a sheet run does (the section's properties included).
+        t_solve = _median_time(lambda: evaluate_beam(beam_inputs(data)), repeat)
         a = np.random.default_rng(1).random((200, 200))
         t_numpy = _median_time(lambda: a @ a, repeat * 4)
-    return {"edit": t_edit, "recorded": panel.last_update_s, "solve": t_solve, "numpy": t_numpy}
+        t_python = _median_time(lambda: sum(i * i for i in range(100_000)), repeat)
+    return {
+        "edit": t_edit,
+        "display": statistics.median(t[1] for t in timed),
+        "saved": statistics.median(t[2] for t in timed),
+        "solve": t_solve,
+        "numpy": t_numpy,
+        "python": t_python,
+    }
 
 
 # -- end to end in JupyterLab ---------------------------------------------------------------------
@@ -206,12 +217,15 @@ def main(argv: list[str] | None = None) -> int:
     print(f"calcpack from {Path(calcpack.__file__).parent}")
     k = kernel_side(args.repeat)
     print("Beam panel edit -> updated display (three-span beam, 3 loads, 2 cases)")
-    print(f"Kernel side, median of {args.repeat}:")
-    print(f"  edit (validate, solve, check, redraw): {_ms(k['edit'] * 1e3)}  (target < 100 ms)")
-    print(f"  reference: beam solve + checks:        {_ms(k['solve'] * 1e3)}")
+    print(f"Kernel side (in this process, no front end), median of {args.repeat}:")
+    print(f"  edit -> display ready:                 {_ms(k['display'] * 1e3)}  (target < 100 ms)")
+    print(f"  edit -> file written:                  {_ms(k['saved'] * 1e3)}")
+    print(f"  whole edit call:                       {_ms(k['edit'] * 1e3)}")
+    print(f"  reference: validate + solve + checks:  {_ms(k['solve'] * 1e3)}")
+    print(f"  reference: pure Python loop (1e5):     {_ms(k['python'] * 1e3)}")
     print(f"  reference: numpy 200x200 matmul:       {k['numpy'] * 1e3:8.3f} ms")
-    print(f"  ratio edit / beam solve:               {k['edit'] / k['solve']:8.2f}")
-    print(f"  ratio edit / numpy matmul:             {k['edit'] / k['numpy']:8.1f}")
+    print(f"  ratio display / solve:                 {k['display'] / k['solve']:8.2f}")
+    print(f"  ratio display / Python loop:           {k['display'] / k['python']:8.2f}")
     if args.no_browser:
         return 0
     b = browser_side(args.repeat)
@@ -222,8 +236,8 @@ def main(argv: list[str] | None = None) -> int:
     print(f"End to end in JupyterLab (chromium), median of {len(e)} edits of span 2:")
     print(f"  Enter -> panel display updated:        {_ms(total)}  (target < 100 ms)")
     print(f"  Enter -> first display change:         {_ms(first_change)}")
-    print(f"  ratio end to end / beam solve:         {total / (k['solve'] * 1e3):8.2f}")
-    print(f"  ratio end to end / numpy matmul:       {total / (k['numpy'] * 1e3):8.1f}")
+    print(f"  ratio end to end / solve:              {total / (k['solve'] * 1e3):8.2f}")
+    print(f"  ratio end to end / Python loop:        {total / (k['python'] * 1e3):8.2f}")
     # The panel's own wall-clock stamps, aligned with the page's clock (same machine).
     to_kernel, display, saved, to_page = [], [], [], []
     timed = [t for t in b["kernel"] if len(t) == 3]  # an older panel (--source) has none

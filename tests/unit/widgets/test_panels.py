@@ -236,3 +236,19 @@ def test_waiting_for_the_output_thread(monkeypatch: pytest.MonkeyPatch) -> None:
     monkeypatch.setattr(Kernel, "instance", classmethod(lambda cls: FakeKernel()))
     assert wait_for_output_sent() is True
     assert thread.sent == ["update 1", "update 2"]  # returned only after they were sent
+
+
+def test_beam_panel_keeps_an_unchanged_section_and_its_properties(beam_file: Path) -> None:
+    panel = BeamPanel(beam_file)
+    assert panel.outcome is not None
+    section = panel.outcome.inputs.section
+    panel.set("beam.spans[1]", Q_(4.0, "m"))
+    assert panel.outcome.inputs.section is section  # properties not worked out again
+    fresh = evaluate_beam(beam_inputs(load_inputs(beam_file)))
+    assert panel.outcome.sigma == fresh.sigma
+    assert panel.outcome.bending_utilisation == fresh.bending_utilisation
+    panel.set("section.d", Q_(240, "mm"))
+    assert panel.outcome.inputs.section is not section
+    fresh = evaluate_beam(beam_inputs(load_inputs(beam_file)))
+    assert panel.outcome.properties.Ix == fresh.properties.Ix
+    assert panel.outcome.bending_utilisation == fresh.bending_utilisation
