@@ -252,3 +252,15 @@ def test_beam_panel_keeps_an_unchanged_section_and_its_properties(beam_file: Pat
     fresh = evaluate_beam(beam_inputs(load_inputs(beam_file)))
     assert panel.outcome.properties.Ix == fresh.properties.Ix
     assert panel.outcome.bending_utilisation == fresh.bending_utilisation
+
+
+def test_beam_panel_does_not_overwrite_a_file_broken_by_hand(beam_file: Path) -> None:
+    panel = BeamPanel(beam_file)
+    before = panel.data
+    beam_file.write_text("[beam\nspans = ", encoding="utf-8")  # being edited in a text editor
+    panel.set("beam.spans[2]", Q_(5.0, "m"))
+    assert beam_file.read_text(encoding="utf-8") == "[beam\nspans = "
+    assert "Not saved" in panel.status.value
+    assert "not valid TOML" in panel.status.value
+    assert "Reload file" in panel.status.value
+    assert panel.data is before  # the next edit starts again from what the file last held
