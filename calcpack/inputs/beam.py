@@ -44,12 +44,13 @@ from __future__ import annotations
 import itertools
 from collections.abc import Mapping, Sequence
 from dataclasses import dataclass
+from functools import cached_property
 from pathlib import Path
 from typing import Any
 
 import numpy as np
 
-from calcpack.inputs.file import InputsFileError, Spec, require_input
+from calcpack.inputs.file import InputsFileError, Spec, cached_unit, require_input
 from calcpack.inputs.section import section_from_inputs
 from calcpack.units import Q_, Quantity, si
 
@@ -95,16 +96,23 @@ class BeamInputs:
 
     @property
     def length(self) -> Quantity:
-        total = sum((s.to("m") for s in self.spans), Q_(0.0, "m"))
-        return total
+        return self.support_x[-1]
+
+    @cached_property
+    def support_x_m(self) -> tuple[float, ...]:
+        """Position of each support line from the left end, in metres (worked out once: the
+        panel's drawings read them many times per edit)."""
+        m = cached_unit("m")
+        x_m = [0.0]
+        for s in self.spans:
+            x_m.append(x_m[-1] + float(s.to(m).magnitude))
+        return tuple(x_m)
 
     @property
     def support_x(self) -> tuple[Quantity, ...]:
         """Position of each support line from the left end."""
-        out = [Q_(0.0, "m")]
-        for s in self.spans:
-            out.append(out[-1] + s.to("m"))
-        return tuple(out)
+        m = cached_unit("m")
+        return tuple(Q_(x, m) for x in self.support_x_m)
 
     def model(self, EI: Quantity) -> Any:
         """The :class:`calcpack.analysis.beam.Beam` with flexural stiffness ``EI``."""
@@ -257,9 +265,9 @@ def beam_inputs(data: Mapping[str, Any], *, path: Path | str | None = None) -> B
     f_b = require_input(
         material.get("f_b"), Spec("[pressure]", positive=True), "material.f_b", path=path
     )
-    x_lines = [Q_(0.0, "m")]
+    x_lines = [Q_(0.0, cached_unit("m"))]
     for s in spans:
-        x_lines.append(x_lines[-1] + s.to("m"))
+        x_lines.append(x_lines[-1] + s.to(cached_unit("m")))
     loads_raw = data.get("loads", [])
     if not isinstance(loads_raw, list):
         raise InputsFileError(
@@ -386,8 +394,9 @@ _SAMPLES_PER_SPAN = 201
 
 def _span_peak(result: Any, a: float, b: float) -> tuple[float, float]:
     """Largest |deflection| on a <= x <= b (m): (deflection in mm, downward +, and x in m)."""
+    m, mm = cached_unit("m"), cached_unit("mm")
     x = np.linspace(a, b, _SAMPLES_PER_SPAN)
-    v = result.deflection(Q_(x, "m")).to("mm").magnitude
+    v = result.deflection(Q_(x, m)).to(mm).magnitude
     k = int(np.argmax(np.abs(v)))
     if 0 < k < len(x) - 1:
         y0, y1, y2 = float(v[k - 1]), float(v[k]), float(v[k + 1])
@@ -397,7 +406,7 @@ def _span_peak(result: Any, a: float, b: float) -> tuple[float, float]:
             shift = 0.5 * h * (y0 - y2) / curvature
             if abs(shift) <= h:
                 xv = float(x[k]) + shift
-                yv = float(result.deflection(Q_(xv, "m")).to("mm").magnitude)
+                yv = float(result.deflection(Q_(xv, m)).to(mm).magnitude)
                 if abs(yv) >= abs(y1):
                     return yv, xv
     return float(v[k]), float(x[k])
@@ -423,7 +432,8 @@ def evaluate_beam(inputs: BeamInputs) -> BeamOutcome:
             expected="at least one load",
         )
     props = inputs.section.properties()
-    EI = (inputs.E * props.Ix).to("kN*m**2")
+    u = cached_unit
+    EI = (inputs.E * props.Ix).to(u("kN*m**2"))
     beam = inputs.model(EI)
     cases = solve_cases(beam)
     strength = combine(cases, inputs.strength)
@@ -433,16 +443,16 @@ def evaluate_beam(inputs: BeamInputs) -> BeamOutcome:
         M, x_M = ext.M_max.value, ext.M_max.x
     else:
         M, x_M = ext.M_min.value, ext.M_min.x
-    M_abs = abs(M).to("kN*m")
-    sigma = (M_abs / props.Sx).to("MPa")
-    util = float((sigma / inputs.f_b).to("").magnitude)
-    lines = [si(x) for x in inputs.support_x]
+    M_abs = abs(M).to(u("kN*m"))
+    sigma = (M_abs / props.Sx).to(u("MPa"))
+    util = float((sigma / inputs.f_b).to(u("")).magnitude)
+    lines = inputs.support_x_m
     defl = []
     for i, (a, b) in enumerate(itertools.pairwise(lines), start=1):
         d_mm, x_m = _span_peak(service, a, b)
         span = inputs.spans[i - 1]
-        limit = (span / inputs.deflection_ratio).to("mm")
-        defl.append(SpanDeflection(i, span, Q_(d_mm, "mm"), Q_(x_m, "m"), limit))
+        limit = (span / inputs.deflection_ratio).to(u("mm"))
+        defl.append(SpanDeflection(i, span, Q_(d_mm, u("mm")), Q_(x_m, u("m")), limit))
     return BeamOutcome(
         inputs=inputs,
         properties=props,

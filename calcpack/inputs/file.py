@@ -23,15 +23,19 @@ import tempfile
 import tomllib
 from collections.abc import Iterator, Mapping, Sequence
 from dataclasses import dataclass
+from functools import lru_cache
 from pathlib import Path
 from typing import Any
 
+import pint
+
 from calcpack.errors import DimensionError, InputError
-from calcpack.units import Q_, Quantity, is_quantity
+from calcpack.units import Q_, Quantity, is_quantity, ureg
 
 __all__ = [
     "InputsFileError",
     "Spec",
+    "cached_unit",
     "format_quantity",
     "get_path",
     "load_inputs",
@@ -58,6 +62,29 @@ def _where(path: Path | str | None) -> str:
     return f"{Path(path).name}: " if path is not None else ""
 
 
+@lru_cache(maxsize=256)
+def cached_unit(text: str) -> pint.Unit:
+    """The unit ``text`` (``"kN*m"``), parsed once.
+
+    pint caches the parse of a single unit name but not of a compound one, and parsing costs
+    more than the conversion it serves; the panels convert on every edit.
+    """
+    return ureg.Unit(text)
+
+
+@lru_cache(maxsize=1024)
+def _parse_once(text: str) -> tuple[Any, pint.Unit] | None:
+    """Magnitude and unit of ``"3.2 m"``, or None when it is not a quantity with a unit.
+
+    Inputs files hold few distinct strings and are read on every edit and every run of a sheet:
+    each string goes through pint's parser once. (Parse errors are not cached: they raise.)
+    """
+    q = Q_(text)
+    if not is_quantity(q) or (q.dimensionless and not str(q.units)):
+        return None
+    return q.magnitude, q.units
+
+
 def parse_quantity(text: str, key: str, *, path: Path | str | None = None) -> Quantity:
     """Parse ``"3.2 m"`` into a quantity; ``key`` names the value in messages.
 
@@ -65,7 +92,7 @@ def parse_quantity(text: str, key: str, *, path: Path | str | None = None) -> Qu
         InputsFileError: no unit given, or a unit pint does not know.
     """
     try:
-        q = Q_(text)
+        parsed = _parse_once(text)
     except Exception as exc:  # pint raises several unrelated types for bad units
         raise InputsFileError(
             f"{_where(path)}value {key} = {text!r} is not a number with a known unit "
@@ -74,7 +101,7 @@ def parse_quantity(text: str, key: str, *, path: Path | str | None = None) -> Qu
             value=text,
             expected='a number and a unit, e.g. "3.2 m"',
         ) from None
-    if not is_quantity(q) or (q.dimensionless and not str(q.units)):
+    if parsed is None:
         raise InputsFileError(
             f"{_where(path)}value {key} = {text!r} has no unit; write the unit (e.g. "
             f'"{text.strip()} m"), or a bare number without quotes for a dimensionless value',
@@ -82,14 +109,15 @@ def parse_quantity(text: str, key: str, *, path: Path | str | None = None) -> Qu
             value=text,
             expected='a number and a unit, e.g. "3.2 m"',
         )
-    if not math.isfinite(float(q.magnitude)):
+    magnitude, unit = parsed
+    if not math.isfinite(float(magnitude)):
         raise InputsFileError(
             f"{_where(path)}value {key} = {text!r} must be finite",
             name=key,
             value=text,
             expected="a finite value",
         )
-    return q
+    return Q_(magnitude, unit)  # a new quantity each time: callers may keep or change it
 
 
 def _convert(value: Any, key: str, path: Path | str | None) -> Any:
@@ -113,8 +141,13 @@ def _convert(value: Any, key: str, path: Path | str | None) -> Any:
 
 def read_inputs_text(text: str, *, path: Path | str | None = None) -> dict[str, Any]:
     """Parse the TOML ``text`` of an inputs file (see :func:`load_inputs`)."""
+    out: dict[str, Any] = _convert(_toml(text, path), "", path)
+    return out
+
+
+def _toml(text: str, path: Path | str | None) -> dict[str, Any]:
     try:
-        raw = tomllib.loads(text)
+        return tomllib.loads(text)
     except tomllib.TOMLDecodeError as exc:
         raise InputsFileError(
             f"{_where(path)}not valid TOML ({exc})",
@@ -122,8 +155,6 @@ def read_inputs_text(text: str, *, path: Path | str | None = None) -> dict[str, 
             value=None,
             expected="a TOML file of key = value lines",
         ) from None
-    out: dict[str, Any] = _convert(raw, "", path)
-    return out
 
 
 def load_inputs(path: Path | str) -> dict[str, Any]:
@@ -141,8 +172,12 @@ def load_inputs(path: Path | str) -> dict[str, Any]:
             no unit or an unknown one; the message names the file and the key.
     """
     p = Path(path)
+    return read_inputs_text(_read_text(p), path=p)
+
+
+def _read_text(p: Path) -> str:
     try:
-        text = p.read_text(encoding="utf-8")
+        return p.read_text(encoding="utf-8")
     except FileNotFoundError:
         raise InputsFileError(
             f"Inputs file {str(p)!r} does not exist (looked in {str(p.resolve().parent)!r}); "
@@ -151,7 +186,6 @@ def load_inputs(path: Path | str) -> dict[str, Any]:
             value=None,
             expected="an existing TOML file",
         ) from None
-    return read_inputs_text(text, path=p)
 
 
 _KEY_PART = re.compile(r"([^.\[\]]+)|\[(\d+)\]")
@@ -377,8 +411,9 @@ def update_inputs(path: Path | str, changes: Mapping[str, Any]) -> dict[str, Any
     import tomlkit
 
     p = Path(path)
-    load_inputs(p)  # refuse to touch a file that does not read cleanly
-    doc = tomlkit.parse(p.read_text(encoding="utf-8"))
+    text = _read_text(p)
+    _toml(text, p)  # refuse a file that is not TOML (with the message load_inputs gives)
+    doc = tomlkit.parse(text)
     for key, value in changes.items():
         _walk_set(doc, split_key(key), _to_toml(value), key)
     text = tomlkit.dumps(doc)

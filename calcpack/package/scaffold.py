@@ -18,7 +18,13 @@ from pathlib import Path
 from calcpack.errors import BuildError, InputError
 from calcpack.package.project import PROJECT_FILE_NAME
 
-__all__ = ["DEMO_PROJECT_NAME", "copy_demo_project", "demo_project_source", "new_project"]
+__all__ = [
+    "DEMO_PROJECT_NAME",
+    "FIRST_SHEET_INPUTS",
+    "copy_demo_project",
+    "demo_project_source",
+    "new_project",
+]
 
 DEMO_PROJECT_NAME = "alteration_ashgrove_lane"
 
@@ -102,6 +108,7 @@ status = "Preliminary"
 [[sheets]]
 path = "sheets/01_first_sheet.ipynb"
 title = "First sheet"
+inputs = ["sheets/01_first_sheet.inputs.toml"]
 
 [design]
 standards = ["Name the design standards and their editions here"]
@@ -115,6 +122,21 @@ cautions = []
 """
 
 
+FIRST_SHEET_INPUTS = "01_first_sheet.inputs.toml"
+
+_INPUTS_HEAD = """\
+# Inputs for the first sheet. Its calc cells read this file, so a build uses exactly these
+# values: edit them here, then run the sheet's cells again.
+# Quantities are quoted with their unit ("3 m", "5 kN/m").
+
+[member]
+"""
+_FIRST_INPUTS = {
+    "SI": _INPUTS_HEAD + 'L = "3 m"        # span\nw = "5 kN/m"     # line load\n',
+    "US": _INPUTS_HEAD + 'L = "10 ft"       # span\nw = "0.3 klf"     # line load\n',
+}
+
+
 def new_project(
     folder: Path,
     *,
@@ -124,7 +146,12 @@ def new_project(
     paper: str = "A4",
     today: _dt.date | None = None,
 ) -> Path:
-    """Scaffold a project folder with a project file and one sheet; returns the project file.
+    """Scaffold a project folder; returns the project file.
+
+    The folder gets ``calcpack.toml`` and a first sheet, ``sheets/01_first_sheet.ipynb`` (with a
+    kernelspec, so JupyterLab opens it without asking), whose calc cells read their values from
+    the inputs file ``sheets/01_first_sheet.inputs.toml`` beside it; the project file lists
+    that file with the sheet, so a build re-runs the sheet when it changes.
 
     Raises:
         InputError: the folder exists and is not empty, or units/paper are not valid.
@@ -173,6 +200,7 @@ def new_project(
         ),
         encoding="utf-8",
     )
+    (folder / "sheets" / FIRST_SHEET_INPUTS).write_text(_FIRST_INPUTS[units], encoding="utf-8")
     nb = nbformat.v4.new_notebook()
     nb.metadata = {
         "kernelspec": {
@@ -182,25 +210,31 @@ def new_project(
         },
         "language_info": {"name": "python"},
     }
+    unit = {"SI": "kN*m", "US": "kip*ft"}[units]
     nb.cells = [
-        nbformat.v4.new_markdown_cell("# First sheet\n\nWhat this sheet checks and why."),
+        nbformat.v4.new_markdown_cell(
+            "# First sheet\n\nWhat this sheet checks and why. Its input values are in "
+            f"`{FIRST_SHEET_INPUTS}` beside it: edit them there, then run all cells."
+        ),
         nbformat.v4.new_code_cell(
-            "from calcpack import ureg\nfrom calcpack.working import Sheet\n\n"
+            "from calcpack.inputs import Spec, get_path, load_inputs, require_input\n"
+            "from calcpack.working import Sheet\n\n"
+            f'INPUTS = "{FIRST_SHEET_INPUTS}"  # this sheet\'s inputs file, beside the notebook\n'
+            "inputs = load_inputs(INPUTS)\n\n\n"
+            "def read(key, dimension):\n"
+            '    """A positive value of the inputs file, checked for its dimension."""\n'
+            "    return require_input(\n"
+            "        get_path(inputs, key), Spec(dimension, positive=True), key, path=INPUTS\n"
+            "    )\n\n\n"
             f's = Sheet("First sheet", system="{units}")'
         ),
         nbformat.v4.new_code_cell(
             's.heading("Inputs")\n'
-            + (
-                'L = s.given("L", 3.0 * ureg.m, "span", source="drawing")\n'
-                'w = s.given("w", 5.0 * ureg.kN / ureg.m, "line load")\n'
-                'M = s.derive("M_max", w * L**2 / 8, "maximum moment", unit="kN*m", '
-                'ref="simple span, uniform load")'
-                if units == "SI"
-                else 'L = s.given("L", 10.0 * ureg.ft, "span", source="drawing")\n'
-                'w = s.given("w", 0.3 * ureg.klf, "line load")\n'
-                'M = s.derive("M_max", w * L**2 / 8, "maximum moment", unit="kip*ft", '
-                'ref="simple span, uniform load")'
-            )
+            'L = s.given("L", read("member.L", "[length]"), "span", source=INPUTS)\n'
+            'w = s.given("w", read("member.w", "[force] / [length]"), "line load", '
+            "source=INPUTS)\n"
+            f'M = s.derive("M_max", w * L**2 / 8, "maximum moment", unit="{unit}", '
+            'ref="simple span, uniform load")'
         ),
     ]
     nbformat.write(nb, folder / "sheets" / "01_first_sheet.ipynb")

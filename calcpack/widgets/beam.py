@@ -1,16 +1,32 @@
 """The beam panel: edit a beam sheet's inputs file and watch the diagrams and checks move.
 
-Every edit is validated (:func:`calcpack.inputs.beam_inputs`), written to the inputs file
-(comments kept) and re-evaluated with :func:`calcpack.inputs.evaluate_beam` -- the same
-functions the sheet's calc cells call -- so re-running the sheet, or building the package,
+Every edit is validated (:func:`calcpack.inputs.beam_inputs`), re-evaluated with
+:func:`calcpack.inputs.evaluate_beam` -- the same functions the sheet's calc cells call -- and
+written to the inputs file (comments kept), so re-running the sheet, or building the package,
 reproduces what the panel shows. An edit that does not validate is shown with its error and not
 written; the file keeps the last valid values.
+
+Edit to display is kept short (target under 100 ms for a three-span beam, see
+``tests/benchmarks/bench_widgets.py``):
+
+* the drawings and the results are separate outputs (loading, V, M, δ, results table), and an
+  output is sent to the browser only when its content changed (traitlets sends nothing for an
+  unchanged value): a change of f_b re-sends the table alone, one of E the deflection too;
+* the drawings are compact SVG (see :mod:`calcpack.widgets.svg`), never matplotlib;
+* the inputs file is written *after* the kernel's output thread has sent the new display
+  (:func:`calcpack.widgets.fields.wait_for_output_sent`), so the browser redraws while the file
+  is written. The write still happens inside the same edit: the kernel reports idle, and runs
+  any other cell (the sheet's calc cells, a build), only once the file holds the values on
+  screen; nothing is left to write when the kernel shuts down. The status line says "Saved"
+  after the write.
 """
 
 from __future__ import annotations
 
 import copy
+import dataclasses
 import time
+from collections import deque
 from html import escape
 from pathlib import Path
 from typing import Any
@@ -27,12 +43,20 @@ from calcpack.inputs import (
     load_inputs,
     update_inputs,
 )
-from calcpack.inputs.file import split_key
+from calcpack.inputs.file import cached_unit, split_key
 from calcpack.units import Q_, Quantity
-from calcpack.widgets.fields import QuantityField, css_key, interactive_session, label
-from calcpack.widgets.svg import beam_diagrams_svg
+from calcpack.widgets.fields import (
+    QuantityField,
+    css_key,
+    interactive_session,
+    label,
+    wait_for_output_sent,
+)
+from calcpack.widgets.svg import beam_diagram_parts
 
 __all__ = ["BeamPanel", "beam_panel", "outcome_table_html"]
+
+DRAWINGS = ("loading", "shear", "moment", "deflection")  # as beam_diagram_parts returns them
 
 
 def _set(data: dict[str, Any], key: str, value: Any) -> None:
@@ -53,7 +77,12 @@ def _set(data: dict[str, Any], key: str, value: Any) -> None:
 
 
 def _fmt(q: Quantity, unit: str, sig: int = 3) -> str:
-    return f"{q.to(unit).magnitude:.{sig}g} {Q_(1, unit).units:~P}"
+    u = cached_unit(unit)
+    return f"{q.to(u).magnitude:.{sig}g} {u:~P}"
+
+
+def _mag(q: Quantity, unit: str) -> float:
+    return float(q.to(cached_unit(unit)).magnitude)
 
 
 def _verdict(u: float) -> str:
@@ -73,16 +102,16 @@ def outcome_table_html(outcome: BeamOutcome) -> str:
         rows.append(
             f"<tr><td>Reaction R<sub>{escape(r.support)}</sub> ({escape(outcome.strength.label)})"
             f'</td><td class="cp-out" data-out="R_{escape(r.support)}" '
-            f'data-value="{r.Fy.to("kN").magnitude!r}">{_fmt(r.Fy, "kN")}</td><td></td></tr>'
+            f'data-value="{_mag(r.Fy, "kN")!r}">{_fmt(r.Fy, "kN")}</td><td></td></tr>'
         )
     u_b = outcome.bending_utilisation
     rows.append(
         f"<tr><td>Design moment |M| at x = {_fmt(outcome.x_M, 'm')}</td>"
         f'<td class="cp-out" data-out="M_design" '
-        f'data-value="{outcome.M_design.to("kN*m").magnitude!r}">'
+        f'data-value="{_mag(outcome.M_design, "kN*m")!r}">'
         f"{_fmt(outcome.M_design, 'kN*m')}</td><td></td></tr>"
         f'<tr><td>Bending stress σ = M / S<sub>x</sub></td><td class="cp-out" data-out="sigma" '
-        f'data-value="{outcome.sigma.to("MPa").magnitude!r}">{_fmt(outcome.sigma, "MPa")}</td>'
+        f'data-value="{_mag(outcome.sigma, "MPa")!r}">{_fmt(outcome.sigma, "MPa")}</td>'
         f"<td>f<sub>b</sub> = {_fmt(inp.f_b, 'MPa')}</td></tr>"
         f'<tr><td><b>Bending utilisation</b></td><td class="cp-out" data-out="bending_utilisation"'
         f' data-value="{u_b!r}">{u_b:.3f}</td><td>{_verdict(u_b)}</td></tr>'
@@ -91,7 +120,7 @@ def outcome_table_html(outcome: BeamOutcome) -> str:
         rows.append(
             f"<tr><td>Span {d.span}: deflection δ ({escape(outcome.service.label)})</td>"
             f'<td class="cp-out" data-out="delta_{d.span}" '
-            f'data-value="{d.delta.to("mm").magnitude!r}">{_fmt(d.delta, "mm")}</td>'
+            f'data-value="{_mag(d.delta, "mm")!r}">{_fmt(d.delta, "mm")}</td>'
             f"<td>limit L/{inp.deflection_ratio:g} = {_fmt(d.limit, 'mm')}, "
             f'utilisation <span class="cp-out" data-out="deflection_utilisation_{d.span}" '
             f'data-value="{d.utilisation!r}">{d.utilisation:.3f}</span> '
@@ -115,7 +144,12 @@ class BeamPanel:
     Attributes:
         widget: the ipywidgets box displayed in the notebook.
         outcome: the last successful evaluation, or None.
-        last_update_s: seconds spent on the last edit (validate, write, solve, redraw).
+        last_update_s: seconds from an edit to its display handed to the front end (validate,
+            solve, check, redraw; the file is written after).
+        edit_times: the last 100 edits as (start, display, saved): the wall-clock start (s since
+            the epoch, comparable with the browser's clock) and the seconds from it to the
+            display handed to the front end and to the file written.
+        drawings: one HTML output per drawing (loading, shear, moment, deflection).
     """
 
     def __init__(self, path: str | Path) -> None:
@@ -123,10 +157,15 @@ class BeamPanel:
         self.data = load_inputs(self.path)
         self.outcome: BeamOutcome | None = None
         self.last_update_s = 0.0
+        self.edit_times: deque[tuple[float, float, float]] = deque(maxlen=100)
+        self._section: tuple[Any, Any] | None = None  # (the [section] table, its shape) shown
         self.fields: dict[str, QuantityField] = {}
         self.status = ipw.HTML(layout=ipw.Layout(min_height="20px"))
         self.status.add_class("cp-panel-status")
-        self.diagrams = ipw.HTML()
+        self.drawings = tuple(ipw.HTML() for _ in DRAWINGS)
+        for d, name in zip(self.drawings, DRAWINGS, strict=True):
+            d.add_class(f"cp-panel-drawing-{name}")
+        self.diagrams = ipw.VBox(self.drawings)
         self.diagrams.add_class("cp-panel-diagrams")
         self.results = ipw.HTML()
         self.results.add_class("cp-panel-results-box")
@@ -282,6 +321,7 @@ class BeamPanel:
             self._edit({key: value})
 
     def _edit(self, changes: dict[str, Any]) -> None:
+        started = time.time()
         t0 = time.perf_counter()
         candidate = copy.deepcopy(self.data)
         try:
@@ -294,13 +334,25 @@ class BeamPanel:
         except (KeyError, IndexError, TypeError) as exc:
             self._error(f"Not saved: no value {exc} in {self.path.name}")
             return
+        if self._section is not None and self._section[0] == candidate.get("section"):
+            # Same section as on screen: keep its object, whose properties (a polygon
+            # integration costing about as much as the whole beam solve) are worked out.
+            validated = dataclasses.replace(validated, section=self._section[1])
+        previous = self.data
+        self.data = candidate
+        shown = self._refresh(validated, saved=False)
+        self.last_update_s = time.perf_counter() - t0
+        # The display is on its way: let the kernel's output thread send it, then write the file.
+        wait_for_output_sent()
         try:
             self.data = update_inputs(self.path, changes)
         except CalcpackError as exc:  # e.g. the file was edited by hand meanwhile
-            self._error(f"Not saved: {exc}; press 'Reload file'")
+            self.data = previous
+            self._error(f"Not saved: {exc}; the display shows unsaved values, press 'Reload file'")
             return
-        self._refresh(validated)
-        self.last_update_s = time.perf_counter() - t0
+        self.edit_times.append((started, self.last_update_s, time.perf_counter() - t0))
+        if shown:  # otherwise the status keeps the reason nothing is drawn
+            self._saved()
 
     def _spans(self, step: int) -> None:
         spans = list(self.data["beam"]["spans"])
@@ -375,18 +427,30 @@ class BeamPanel:
     def _error(self, message: str) -> None:
         self.status.value = f'<span style="color:#a31515">{escape(message)}</span>'
 
-    def _refresh(self, validated: Any = None) -> None:
+    def _refresh(self, validated: Any = None, *, saved: bool = True) -> bool:
+        """Evaluate and redraw; False (and the reason in the status line) if the beam cannot
+        be evaluated."""
         try:
             inputs = validated if validated is not None else beam_inputs(self.data, path=self.path)
             self.outcome = evaluate_beam(inputs)
         except CalcpackError as exc:
             self.outcome = None
-            self.diagrams.value = ""
+            self._section = None
+            for d in self.drawings:
+                d.value = ""
             self.results.value = ""
             self._error(str(exc))
-            return
-        self.diagrams.value = beam_diagrams_svg(self.outcome)
+            return False
+        self._section = (copy.deepcopy(self.data.get("section")), inputs.section)
+        # Assigning an unchanged string sends nothing: only changed outputs travel.
+        for d, svg in zip(self.drawings, beam_diagram_parts(self.outcome), strict=True):
+            d.value = svg
         self.results.value = outcome_table_html(self.outcome)
+        if saved:
+            self._saved()
+        return True
+
+    def _saved(self) -> None:
         self.status.value = (
             f'<span style="color:#555">Saved to {escape(self.path.name)} at '
             f"{time.strftime('%H:%M:%S')}</span>"

@@ -4,6 +4,7 @@ the inputs file uses, and the interactive-session test."""
 from __future__ import annotations
 
 import os
+import threading
 from collections.abc import Callable
 from typing import Any
 
@@ -11,7 +12,7 @@ import ipywidgets as ipw
 
 from calcpack.units import Q_, Quantity
 
-__all__ = ["QuantityField", "interactive_session", "label"]
+__all__ = ["QuantityField", "interactive_session", "label", "wait_for_output_sent"]
 
 LABEL_WIDTH = "150px"
 
@@ -26,6 +27,29 @@ def interactive_session() -> bool:
     if os.environ.get("CALCPACK_BUILDING") == "1":
         return False
     return bool(os.environ.get("JPY_SESSION_NAME")) or os.environ.get("CALCPACK_PANELS") == "1"
+
+
+def wait_for_output_sent(timeout_s: float = 0.25) -> bool:
+    """Wait until the kernel's output thread has sent every message queued so far.
+
+    Widget updates leave the kernel through ipykernel's output (IOPub) thread. Work started
+    right after an update (writing the inputs file) holds the interpreter lock and would delay
+    that thread -- and the display in the browser -- by as long as the work takes, so the panels
+    wait here first: a marker is queued behind the updates and its turn means they are sent.
+    Returns True once sent, False outside a kernel (nothing to wait for) or on time-out.
+    """
+    try:
+        from ipykernel.kernelbase import Kernel
+    except ImportError:
+        return False
+    if not Kernel.initialized():
+        return False
+    thread = getattr(Kernel.instance(), "iopub_thread", None)
+    if thread is None or not hasattr(thread, "schedule"):
+        return False
+    sent = threading.Event()
+    thread.schedule(sent.set)  # runs after the messages queued before it
+    return sent.wait(timeout_s)
 
 
 def label(text: str, width: str = LABEL_WIDTH) -> ipw.Label:

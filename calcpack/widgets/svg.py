@@ -3,6 +3,9 @@ diagrams and a section sketch, built as strings straight from the numeric result
 
 The panels redraw on every edit, so these avoid matplotlib (whose figure set-up alone costs
 more than the whole beam solve); the issued package uses the figures of :mod:`calcpack.plots`.
+Every edit sends the drawings from the kernel to the browser, so they are kept small: each
+diagram line is thinned to the points needed to draw it within a fraction of a pixel
+(:func:`thin`) and drawn as one path, filled and stroked.
 
 Sign conventions (as :mod:`calcpack.analysis.beam`): loads downward +; shear V and moment M
 (sagging +) are drawn upward when positive; deflection (downward +) is drawn downward, so the
@@ -17,14 +20,17 @@ from typing import Any
 
 import numpy as np
 
+from calcpack.inputs.file import cached_unit
 from calcpack.units import Q_, si
 
 __all__ = [
+    "beam_diagram_parts",
     "beam_diagrams_svg",
     "beam_sketch_svg",
     "diagram_svg",
     "section_sketch_svg",
     "stack_svg",
+    "thin",
 ]
 
 WIDTH = 640
@@ -32,6 +38,9 @@ MARGIN_L = 70
 MARGIN_R = 30
 CASE_COLOURS = ("#1f5fa8", "#b0441c", "#2b7a3d", "#7a3d8f", "#8a6d00", "#00707a")
 _SAMPLES = 241
+# Largest distance (px) between a diagram line as drawn and as sampled: well under the width of
+# the line itself (1.6 px), so thinning is invisible.
+THIN_TOLERANCE_PX = 0.25
 
 
 def _num(v: float, sig: int = 3) -> str:
@@ -60,18 +69,59 @@ class _Xmap:
 def _sample(result: Any, what: str, L_m: float, breaks: Sequence[float]) -> tuple[Any, Any]:
     """x (m) and values (SI) with both sides of each break, so steps are drawn vertical."""
     base = np.union1d(np.linspace(0.0, L_m, _SAMPLES), np.asarray(breaks, dtype=float))
-    xq = Q_(base, "m")
+    xq = Q_(base, cached_unit("m"))
     if what == "deflection":
-        return base, result.deflection(xq).to("mm").magnitude
+        return base, result.deflection(xq).to(cached_unit("mm")).magnitude
     fn = getattr(result, what)
-    unit = "kN" if what == "shear" else "kN*m"
-    left = fn(xq, side="left").to(unit).magnitude
-    right = fn(xq, side="right").to(unit).magnitude
+    to = cached_unit("kN" if what == "shear" else "kN*m")
+    left = fn(xq, side="left").to(to).magnitude
+    right = fn(xq, side="right").to(to).magnitude
     X = np.repeat(base, 2)
     Y = np.empty(2 * len(base))
     Y[0::2] = left
     Y[1::2] = right
     return X, Y
+
+
+def thin(x: Any, y: Any, tolerance: float = THIN_TOLERANCE_PX) -> Any:
+    """Indices of the points of the line ``x, y`` (px) to keep so that the line through them
+    stays within ``tolerance`` of every point left out (Ramer-Douglas-Peucker).
+
+    Straight runs (shear under uniform load, any diagram between loads) shrink to their ends;
+    curves keep about one point per few pixels of bend. The first and last points are kept.
+    """
+    px = np.asarray(x, dtype=float)
+    py = np.asarray(y, dtype=float)
+    n = len(px)
+    keep = np.zeros(n, dtype=bool)
+    keep[[0, n - 1]] = True
+    at = np.arange(n)
+    # Every segment between kept points is split at its farthest point, all segments at once
+    # (the result is the recursive algorithm's, in a few vectorised rounds instead of one small
+    # numpy call per segment).
+    while True:
+        kept = np.flatnonzero(keep)
+        seg = np.minimum(np.searchsorted(kept, at, side="right") - 1, len(kept) - 2)
+        i0, i1 = kept[seg], kept[seg + 1]
+        dx, dy = px[i1] - px[i0], py[i1] - py[i0]
+        ux, uy = px - px[i0], py - py[i0]
+        chord = np.hypot(dx, dy)
+        dist = np.where(
+            chord > 0, np.abs(dx * uy - dy * ux) / np.where(chord > 0, chord, 1.0), np.hypot(ux, uy)
+        )
+        dist[keep] = 0.0
+        farthest = np.maximum.reduceat(dist, kept[:-1])
+        if not np.any(farthest > tolerance):
+            break
+        split = (dist == farthest[seg]) & (dist > tolerance)
+        first = np.flatnonzero(split)
+        first = first[np.r_[True, seg[first][1:] != seg[first][:-1]]]  # first farthest per segment
+        keep[first] = True
+    return np.flatnonzero(keep)
+
+
+def _pairs(px: Any, py: Any) -> str:
+    return " ".join(f"{a:.1f},{b:.1f}" for a, b in zip(px.tolist(), py.tolist(), strict=True))
 
 
 def diagram_svg(
@@ -106,14 +156,21 @@ def diagram_svg(
     def Y(v: float) -> float:
         return mid + sgn * v * scale
 
-    pts = " ".join(f"{X(a):.1f},{Y(b):.1f}" for a, b in zip(x, y, strict=True))
-    poly = f"{X(float(x[0])):.1f},{mid:.1f} {pts} {X(float(x[-1])):.1f},{mid:.1f}"
+    # On the 0.1 px grid the path is written in, before thinning: round-off in the values then
+    # cannot change which points are kept, so an edit that leaves the diagram as it was (a
+    # change of E for V and M) draws the same string, which is not sent again.
+    px = np.round(MARGIN_L + X.w * x / L_m, 1)
+    py = np.round(mid + sgn * y * scale, 1)
+    keep = thin(px, py)
+    # One open path from the axis, along the diagram and back to the axis: the fill closes it
+    # along the axis, the stroke does not.
+    path = f"M{px[0]:.1f},{mid:.1f}L{_pairs(px[keep], py[keep])} {px[-1]:.1f},{mid:.1f}"
     parts = [_open(height, title)]
     parts.append(f'<text x="4" y="12" font-weight="bold">{escape(title)}</text>')
     parts.append(f'<text x="4" y="{mid + 4:.1f}" fill="#555">{escape(unit)}</text>')
     parts.append(
-        f'<polygon points="{poly}" fill="{colour}" fill-opacity="0.18" stroke="none"/>'
-        f'<polyline points="{pts}" fill="none" stroke="{colour}" stroke-width="1.6"/>'
+        f'<path d="{path}" fill="{colour}" fill-opacity="0.18" stroke="{colour}" '
+        'stroke-width="1.6"/>'
         f'<line x1="{X(0):.1f}" y1="{mid:.1f}" x2="{X(L_m):.1f}" y2="{mid:.1f}" '
         'stroke="#222" stroke-width="1"/>'
     )
@@ -123,6 +180,8 @@ def diagram_svg(
             'stroke="#222"/>'
         )
     if span > 0:
+        # Values to 12 digits: round-off below that (e.g. from a change of EI, which leaves V
+        # and M unchanged) must not make the drawing differ and be sent again.
         marks = {int(np.argmax(y)), int(np.argmin(y))}
         for k in sorted(marks):
             v = float(y[k])
@@ -139,7 +198,7 @@ def diagram_svg(
             parts.append(
                 f'<circle cx="{xx:.1f}" cy="{yy:.1f}" r="2.2" fill="{colour}"/>'
                 f'<text x="{xx:.1f}" y="{yy + dy:.1f}" text-anchor="{anchor}" '
-                f'class="cp-diagram-extreme" data-value="{v!r}">{_num(v)}</text>'
+                f'class="cp-diagram-extreme" data-value="{v:.12g}">{_num(v)}</text>'
             )
     parts.append("</svg>")
     return "".join(parts)
@@ -175,7 +234,7 @@ def _support_glyph(kind: str, x: float, y: float) -> str:
 
 def beam_sketch_svg(inputs: Any, *, height: int = 150) -> str:
     """The beam with its supports, spans and loads by case (magnitudes as given)."""
-    L_m = si(inputs.length)
+    L_m = inputs.support_x_m[-1]
     X = _Xmap(L_m)
     beam_y = height - 48
     parts = [_open(height, "loading")]
@@ -192,7 +251,7 @@ def beam_sketch_svg(inputs: Any, *, height: int = 150) -> str:
         f'<line x1="{X(0):.1f}" y1="{beam_y}" x2="{X(L_m):.1f}" y2="{beam_y}" '
         'stroke="#222" stroke-width="3"/>'
     )
-    xs = [si(x) for x in inputs.support_x]
+    xs = list(inputs.support_x_m)
     for kind, x in zip(inputs.supports, xs, strict=True):
         parts.append(_support_glyph(kind, X(x), beam_y + 2))
     for a, b, n in zip(xs[:-1], xs[1:], range(1, len(xs)), strict=False):
@@ -233,7 +292,7 @@ def beam_sketch_svg(inputs: Any, *, height: int = 150) -> str:
 
 
 def _breaks(inputs: Any) -> list[float]:
-    out = [si(x) for x in inputs.support_x]
+    out = list(inputs.support_x_m)
     for ld in inputs.loads:
         if hasattr(ld, "P"):
             out.append(si(ld.x))
@@ -243,10 +302,18 @@ def _breaks(inputs: Any) -> list[float]:
 
 
 def beam_diagrams_svg(outcome: Any) -> str:
-    """Loading sketch, then V and M for the strength combination and δ for the service one."""
+    """Loading sketch, then V and M for the strength combination and δ for the service one,
+    as one SVG."""
+    return stack_svg(beam_diagram_parts(outcome))
+
+
+def beam_diagram_parts(outcome: Any) -> tuple[str, str, str, str]:
+    """The four drawings of :func:`beam_diagrams_svg`, each a whole ``<svg>``: loading, shear,
+    moment, deflection. The beam panel shows them as separate outputs, so an edit re-sends only
+    the drawings it changed."""
     inputs = outcome.inputs
-    L_m = si(inputs.length)
-    sx = [si(x) for x in inputs.support_x]
+    L_m = inputs.support_x_m[-1]
+    sx = list(inputs.support_x_m)
     br = _breaks(inputs)
     strength, service = outcome.strength.label, outcome.service.label
     xv, v = _sample(outcome.strength, "shear", L_m, br)
@@ -283,7 +350,7 @@ def beam_diagrams_svg(outcome: Any) -> str:
             down_positive=True,
         ),
     )
-    return stack_svg(parts)
+    return parts
 
 
 def stack_svg(parts: Sequence[str]) -> str:

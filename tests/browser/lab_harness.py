@@ -19,7 +19,7 @@ import sys
 import time
 import urllib.error
 import urllib.request
-from collections.abc import Iterator
+from collections.abc import Iterator, Sequence
 from contextlib import contextmanager
 from dataclasses import dataclass
 from pathlib import Path
@@ -212,6 +212,73 @@ def run_all_cells(page: Any) -> None:
         }""",
         timeout=120_000,
     )
+
+
+# -- timing a panel edit in the page ----------------------------------------------------------
+# Stamped in the page itself (performance.now()), so Playwright's round trips are not counted:
+# a capturing keydown listener marks the Enter key in the panel, MutationObservers mark every
+# change of the panel's outputs.
+_WATCH = """
+([panelSel, outputs]) => {
+  const panel = document.querySelector(panelSel);
+  window.__cpEdit = {key: null, changes: [], outputs: outputs.length};
+  document.addEventListener('keydown', (e) => {
+    if (e.key === 'Enter' && e.target.closest(panelSel)) {
+      window.__cpEdit = {key: performance.now(), changes: [], outputs: outputs.length};
+    }
+  }, true);
+  for (const sel of outputs) {
+    new MutationObserver(() => {
+      window.__cpEdit.changes.push({t: performance.now(), what: sel});
+    }).observe(panel.querySelector(sel),
+               {childList: true, subtree: true, characterData: true, attributes: true});
+  }
+}
+"""
+
+_SETTLED = """
+([quietMs]) => {
+  const e = window.__cpEdit;
+  if (!e || e.key === null || e.changes.length === 0) return false;
+  const last = e.changes[e.changes.length - 1].t;
+  const kinds = new Set(e.changes.map(c => c.what));
+  return kinds.size === e.outputs && performance.now() - last > quietMs;
+}
+"""
+
+_READ = """
+() => {
+  const e = window.__cpEdit;
+  const frames = (window.__cpFrames || []).filter(f => f.t >= e.key);
+  const last = Math.max(...e.changes.map(c => c.t));
+  const first = Math.min(...e.changes.map(c => c.t));
+  const updates = frames.filter(f => f.t <= last);
+  return {origin: performance.timeOrigin, key: e.key, first_change: first, last_change: last,
+          n_changes: e.changes.length,
+          frames: updates.length, bytes: updates.reduce((a, f) => a + f.size, 0),
+          types: updates.map(f => f.type),
+          timeline: updates.map(f => [f.t - e.key, f.type, f.size]),
+          first_frame: updates.length ? updates[0].t : null};
+}
+"""
+
+
+def watch_panel(page: Any, panel: str, outputs: Sequence[str]) -> None:
+    """Start stamping edits of the panel ``panel`` (a selector) and changes of its ``outputs``
+    (selectors inside it); see :func:`panel_edit_timing`."""
+    page.evaluate(_WATCH, [panel, list(outputs)])
+
+
+def panel_edit_timing(page: Any, *, quiet_ms: int = 300, timeout_ms: int = 30_000) -> Any:
+    """After Enter in a watched panel: wait until every watched output has changed and the page
+    has been quiet for ``quiet_ms``, then return the page's stamps (ms, page clock): ``key``,
+    ``first_change``, ``last_change``, and the kernel frames if the page records them."""
+    try:
+        page.wait_for_function(_SETTLED, arg=[quiet_ms], timeout=timeout_ms)
+    except Exception:
+        state = page.evaluate("() => JSON.stringify(window.__cpEdit)")
+        raise AssertionError(f"the panel did not update after the edit ({state})") from None
+    return page.evaluate(_READ)
 
 
 def cell_errors(page: Any) -> list[str]:

@@ -51,7 +51,7 @@ def test_beam_panel_edit_writes_file_and_matches_the_sheet(beam_file: Path) -> N
     assert panel.outcome.bending_utilisation == again.bending_utilisation
     assert _value(panel.results.value, "bending_utilisation") == again.bending_utilisation
     assert again.bending_utilisation > before.bending_utilisation
-    assert panel.diagrams.value.count('class="cp-diagram"') == 4
+    assert [d.value.count('class="cp-diagram"') for d in panel.drawings] == [1, 1, 1, 1]
     assert "Saved to b.inputs.toml" in panel.status.value
 
 
@@ -81,7 +81,7 @@ def test_beam_panel_unstable_supports_shown_as_error(beam_file: Path) -> None:
     for i in (1, 2, 3):  # one roller left: the beam is a mechanism
         panel.set(f"beam.supports[{i}]", "free")
     assert panel.outcome is None
-    assert panel.diagrams.value == ""
+    assert all(d.value == "" for d in panel.drawings)
     assert "unstable" in panel.status.value.lower() or "mechanism" in panel.status.value.lower()
 
 
@@ -165,3 +165,102 @@ def test_beam_panel_adds_removes_and_recases_loads(beam_file: Path) -> None:
     assert set(data["combinations"]["strength"]) == {"D", "L"}
     text = beam_file.read_text(encoding="utf-8")
     assert "# live load on the middle span only" in text  # other loads keep their comments
+
+
+def test_beam_panel_sends_only_the_outputs_an_edit_changes(beam_file: Path) -> None:
+    panel = BeamPanel(beam_file)
+    sent: list[str] = []
+    outputs = [*zip(("loading", "V", "M", "delta"), panel.drawings, strict=True)]
+    for name, out in [*outputs, ("results", panel.results)]:
+        out.observe(lambda _ch, n=name: sent.append(n), names="value")
+    # f_b enters the bending check only: the drawings are unchanged and not sent again.
+    panel.set("material.f_b", Q_(20, "MPa"))
+    assert sent == ["results"]
+    sent.clear()
+    # E changes deflections only (V and M of a continuous beam of one EI do not depend on it).
+    panel.set("material.E", Q_(9, "GPa"))
+    assert sent == ["delta", "results"]
+    sent.clear()
+    panel.set("beam.spans[2]", Q_(5.0, "m"))
+    assert sent == ["loading", "V", "M", "delta", "results"]
+
+
+def test_beam_panel_writes_the_file_after_the_display_and_before_returning(
+    beam_file: Path,
+) -> None:
+    panel = BeamPanel(beam_file)
+    seen: list[str] = []
+    panel.results.observe(
+        lambda _ch: seen.append(beam_file.read_text(encoding="utf-8")), names="value"
+    )
+    panel.set("beam.spans[2]", Q_(5.0, "m"))
+    # When the new results were handed to the front end the file still held the old span ...
+    assert 'spans = ["3.6 m", "4.2 m", "3.6 m"]' in seen[0]
+    # ... and by the time the edit returns (the kernel goes idle) it holds the new one.
+    assert 'spans = ["3.6 m", "5 m", "3.6 m"]' in beam_file.read_text(encoding="utf-8")
+    _started, display_s, saved_s = panel.edit_times[-1]
+    assert 0 < display_s <= saved_s
+    assert "Saved to b.inputs.toml" in panel.status.value
+
+
+def test_waiting_for_the_output_thread(monkeypatch: pytest.MonkeyPatch) -> None:
+    import threading
+
+    from ipykernel.kernelbase import Kernel
+
+    from calcpack.widgets.fields import wait_for_output_sent
+
+    assert not Kernel.initialized()
+    assert wait_for_output_sent() is False  # no kernel: nothing to wait for
+
+    class OutputThread:
+        """Runs scheduled callbacks later, in order, as ipykernel's IOPub thread does."""
+
+        def __init__(self) -> None:
+            self.queue: list[object] = ["update 1", "update 2"]
+            self.sent: list[object] = []
+
+        def schedule(self, f: object) -> None:
+            def run() -> None:
+                self.sent.extend(self.queue)
+                f()  # type: ignore[operator]
+
+            threading.Timer(0.05, run).start()
+
+    thread = OutputThread()
+
+    class FakeKernel:
+        iopub_thread = thread
+
+    monkeypatch.setattr(Kernel, "initialized", classmethod(lambda cls: True))
+    monkeypatch.setattr(Kernel, "instance", classmethod(lambda cls: FakeKernel()))
+    assert wait_for_output_sent() is True
+    assert thread.sent == ["update 1", "update 2"]  # returned only after they were sent
+
+
+def test_beam_panel_keeps_an_unchanged_section_and_its_properties(beam_file: Path) -> None:
+    panel = BeamPanel(beam_file)
+    assert panel.outcome is not None
+    section = panel.outcome.inputs.section
+    panel.set("beam.spans[1]", Q_(4.0, "m"))
+    assert panel.outcome.inputs.section is section  # properties not worked out again
+    fresh = evaluate_beam(beam_inputs(load_inputs(beam_file)))
+    assert panel.outcome.sigma == fresh.sigma
+    assert panel.outcome.bending_utilisation == fresh.bending_utilisation
+    panel.set("section.d", Q_(240, "mm"))
+    assert panel.outcome.inputs.section is not section
+    fresh = evaluate_beam(beam_inputs(load_inputs(beam_file)))
+    assert panel.outcome.properties.Ix == fresh.properties.Ix
+    assert panel.outcome.bending_utilisation == fresh.bending_utilisation
+
+
+def test_beam_panel_does_not_overwrite_a_file_broken_by_hand(beam_file: Path) -> None:
+    panel = BeamPanel(beam_file)
+    before = panel.data
+    beam_file.write_text("[beam\nspans = ", encoding="utf-8")  # being edited in a text editor
+    panel.set("beam.spans[2]", Q_(5.0, "m"))
+    assert beam_file.read_text(encoding="utf-8") == "[beam\nspans = "
+    assert "Not saved" in panel.status.value
+    assert "not valid TOML" in panel.status.value
+    assert "Reload file" in panel.status.value
+    assert panel.data is before  # the next edit starts again from what the file last held
