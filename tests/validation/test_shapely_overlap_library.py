@@ -36,8 +36,12 @@ def test_overlap_area_of_two_polygons_matches_shapely(a, b):
     pa, pb = shapely.Polygon(a), shapely.Polygon(b)
     assume(pa.is_valid and pb.is_valid)
     want = pa.intersection(pb).area
-    # both exact up to rounding: 1e-12 absolute on areas of order 1
-    assert overlap_area(PolygonRegion(a), PolygonRegion(b)) == pytest.approx(want, abs=1e-12)
+    ra, rb = PolygonRegion(a), PolygonRegion(b)
+    # Both are exact up to rounding, except that calcpack takes boundaries closer than 1e-9 of
+    # the larger extent as shared (so parts drawn edge to edge touch rather than overlap by a
+    # sliver): the areas may then differ by up to that band times the perimeters, plus rounding.
+    band = 1e-9 * max(ra.extent(), rb.extent()) * (pa.length + pb.length)
+    assert overlap_area(ra, rb) == pytest.approx(want, abs=band + 1e-12)
 
 
 def test_shared_edges_count_once_and_touching_edges_not_at_all():
