@@ -295,8 +295,11 @@ def _rows(tex: str) -> tuple[list[str], bool]:
     return [_join(r) for r in rows if r], True
 
 
-def _break_row(row: str, width: float, aligned: bool, measure: Measure) -> list[str]:
-    """One row as one or more aligned rows (each with its ``&``) no wider than ``width``."""
+def _break_row(row: str, width: float, measure: Measure) -> tuple[list[str], bool]:
+    """One row as one or more aligned rows (each with its ``&``) no wider than ``width``.
+
+    Also returns whether the row was broken (False: it fits or offers no break).
+    """
     atoms = top_level_atoms(row)
     if "&" in atoms:
         k = atoms.index("&")
@@ -306,14 +309,14 @@ def _break_row(row: str, width: float, aligned: bool, measure: Measure) -> list[
         lhs, rhs = atoms[:k], atoms[k:]
         if not rhs or _estimate(lhs, measure) > 0.4 * width:
             lhs, rhs = [], atoms
-    plain = _join(lhs + rhs)
+    unbroken = [f"{_join(lhs)} & {_join(rhs)}"]
     if _estimate(lhs + rhs, measure) <= width:
-        return [f"{_join(lhs)} & {_join(rhs)}" if aligned or lhs else f"& {plain}"]
+        return unbroken, False
     lhs_px = _estimate(lhs, measure)
     lines = _fill(_segments(rhs), width - lhs_px, width - lhs_px - QUAD_PX, measure)
     out = [f"{_join(lhs)} & {lines[0]}"]
     out += [f"& \\quad {line}" for line in lines[1:]]
-    return out
+    return out, out != unbroken
 
 
 def flatten_delimiters(tex: str) -> str:
@@ -361,8 +364,11 @@ def break_display(tex: str, width: float, measure: Measure) -> str:
     if not aligned and measure(tex) <= width:
         return tex
     out: list[str] = []
+    broken = False
     for row in rows:
-        out += _break_row(row, width, aligned, measure)
-    if len(out) == len(rows) and not aligned:
+        lines, changed = _break_row(row, width, measure)
+        out += lines
+        broken = broken or changed
+    if not broken:
         return tex
     return flatten_delimiters(r"\begin{aligned}" + r" \\ ".join(out) + r"\end{aligned}")
