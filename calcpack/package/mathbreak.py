@@ -172,8 +172,17 @@ def _segments(atoms: list[str]) -> list[list[str]]:
     return [s for s in out if s]
 
 
+_NUMERAL = frozenset("0123456789.,")
+
+
 def _join(atoms: list[str]) -> str:
-    return " ".join(atoms)
+    """Atoms back into TeX; the digits of a number stay together (``1.45``, not ``1 . 4 5``)."""
+    out = ""
+    for atom in atoms:
+        if out and not (atom in _NUMERAL and out[-1] in _NUMERAL):
+            out += " "
+        out += atom
+    return out
 
 
 _BINARY_GAP_EM = 2 * 4 / 18
@@ -309,14 +318,14 @@ def _break_row(row: str, width: float, measure: Measure) -> tuple[list[str], boo
         lhs, rhs = atoms[:k], atoms[k:]
         if not rhs or _estimate(lhs, measure) > 0.4 * width:
             lhs, rhs = [], atoms
-    unbroken = [f"{_join(lhs)} & {_join(rhs)}"]
+    unbroken = [row if "&" in atoms else f"{_join(lhs)} & {_join(rhs)}"]
     if _estimate(lhs + rhs, measure) <= width:
         return unbroken, False
     lhs_px = _estimate(lhs, measure)
     lines = _fill(_segments(rhs), width - lhs_px, width - lhs_px - QUAD_PX, measure)
     out = [f"{_join(lhs)} & {lines[0]}"]
     out += [f"& \\quad {line}" for line in lines[1:]]
-    return out, out != unbroken
+    return out, out != [f"{_join(lhs)} & {_join(rhs)}"]
 
 
 def flatten_delimiters(tex: str) -> str:
@@ -354,14 +363,15 @@ def flatten_delimiters(tex: str) -> str:
         i = end
 
 
-def break_display(tex: str, width: float, measure: Measure) -> str:
+def break_display(tex: str, width: float, measure: Measure, *, known_wide: bool = False) -> str:
     """The formula with every row wider than ``width`` (CSS px) broken over several lines.
 
     Returns ``tex`` unchanged when it already fits or offers no place to break. The result may
     still be wider than ``width`` where a single term is; the caller scales what remains.
+    ``known_wide`` skips measuring the whole formula first (the caller knows it is too wide).
     """
     rows, aligned = _rows(tex)
-    if not aligned and measure(tex) <= width:
+    if not aligned and not known_wide and measure(tex) <= width:
         return tex
     out: list[str] = []
     broken = False

@@ -263,19 +263,29 @@ _BREAK_MARGIN = 0.94
 breaks comes out a few per cent under the width of the broken formula typeset whole."""
 
 
+_SURELY_WIDE_TEX = 1000
+"""Display TeX longer than this (characters) is always wider than the column: it is broken
+straight away, without first typesetting it whole (for long formulas that costs as much as the
+broken one)."""
+
+
 def fitted_image(tex: str, display: bool, width_px: float = MATH_MAX_WIDTH_PX) -> MathImage:
     """The formula's image, broken over lines if display math is wider than ``width_px``.
 
     What still does not fit (one very long term, wide inline math) is left to :func:`_img`,
     which scales the image down to the column.
     """
+    key = (tex, float(width_px))
+    broken = _breaks.get(key) if display else None
+    if broken is None and display and len(tex) > _SURELY_WIDE_TEX:
+        broken = break_display(tex, width_px * _BREAK_MARGIN, _measure, known_wide=True)
+        _breaks[key] = broken
+    if broken is not None and broken != tex:
+        return tex_to_svg(broken, display=True)
     image = tex_to_svg(tex, display=display)
-    if display and image.width_px > width_px:
-        key = (tex, float(width_px))
-        broken = _breaks.get(key)
-        if broken is None:
-            broken = break_display(tex, width_px * _BREAK_MARGIN, _measure)
-            _breaks[key] = broken
+    if display and broken is None and image.width_px > width_px:
+        broken = break_display(tex, width_px * _BREAK_MARGIN, _measure)
+        _breaks[key] = broken
         if broken != tex:
             image = tex_to_svg(broken, display=True)
     return image

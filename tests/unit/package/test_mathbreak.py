@@ -91,3 +91,15 @@ def test_typeset_result_fits_the_column(count: int) -> None:
     image = fitted_image(tex, True)
     assert 0.6 * MATH_MAX_WIDTH_PX < image.width_px <= MATH_MAX_WIDTH_PX
     assert image.height_px > 2 * whole.height_px
+
+
+def test_numbers_stay_whole_in_broken_rows() -> None:
+    tex = (
+        r"\begin{aligned} R &= "
+        + " + ".join(rf"P_{{{i}}} \left(4.00\ \mathrm{{ft}}\right)" for i in range(20))
+        + r" \\ &= 1.45\ \mathrm{kip}\end{aligned}"
+    )
+    broken = break_display(tex, 200, _chars)
+    assert re.search(r"= 1\.45\s*\\ \s*\\mathrm\{kip\}", broken)
+    assert "4.00" in broken
+    assert "1 . 4 5" not in broken
