@@ -13,6 +13,10 @@ in the PDF"):
   which attaches it to the nucleus: the script is attached to an empty group after the accent
   (``\\bar{x}{}^{2}``), which puts it at the normal height.
 
+A display formula wider than a step's working column is broken over lines at its relations and
+operators (:mod:`calcpack.package.mathbreak`, breaks cached with the formulas), and an image that
+still does not fit is scaled to the column, so no formula is drawn past the margin.
+
 Each image is embedded as a ``data:`` URI ``<img>`` (WeasyPrint lays these out several times
 faster than inline ``<svg>``), its alternative text is the TeX source, and identical formulas
 reuse one cached image.
