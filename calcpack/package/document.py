@@ -17,12 +17,14 @@ from typing import Any
 
 from calcpack.package.project import Person, Project, SheetEntry
 from calcpack.package.records import SheetRecords, check_sort_key
+from calcpack.signing.diff import Change
 
 __all__ = [
     "ROLES",
     "STANDARD_CAUTIONS",
     "DocumentOptions",
     "ReviewRow",
+    "RevisionMarks",
     "SheetDoc",
     "document_html",
     "format_sig",
@@ -68,6 +70,18 @@ class ReviewRow:
 
 
 @dataclass(frozen=True)
+class RevisionMarks:
+    """What changed since the last issued revision: marks on sheets, lines in the history."""
+
+    since: str | None = None
+    """The issued revision the build compared with (None: no earlier revision was issued)."""
+    changed: frozenset[str] = frozenset()
+    """Paths of the sheets whose inputs, results or checks changed since then."""
+    history: dict[str, tuple[str, tuple[Change, ...]]] = field(default_factory=dict)
+    """Per revision: (the issued revision before it, what changed), for the revision history."""
+
+
+@dataclass(frozen=True)
 class DocumentOptions:
     """How to lay out the package."""
 
@@ -81,6 +95,8 @@ class DocumentOptions:
     """The review log; None when the project has no review file."""
     sheets_only: bool = False
     """Only the sheets, no cover, front or back matter (one notebook through nbconvert)."""
+    revisions: RevisionMarks = field(default_factory=RevisionMarks)
+    """Sheets changed since the last issued revision, and the changes of each revision."""
 
 
 def format_sig(value: float | None, sig_figs: int = 3) -> str:
@@ -129,8 +145,26 @@ def _inline_markdown(text: str) -> str:
     return html
 
 
-def _titleblock(project: Project, *, sheet_no: str, title: str, pages: int | None) -> str:
+LONG_NAME = 16
+"""Names longer than this (characters) are set smaller in the title block's narrow cells."""
+
+
+def _name(name: str) -> str:
+    """A person's name for a narrow title block cell: wraps, and long names are set smaller."""
+    size = " long" if len(name) > LONG_NAME else ""
+    return f'<span class="val name{size}">{_e(name)}</span>'
+
+
+def _revflag(rev: str) -> str:
+    """The mark of a sheet changed in revision ``rev``: a triangle and the words (searchable)."""
+    return f'<span class="cp-revflag">changed at {_e(rev)}</span>'
+
+
+def _titleblock(
+    project: Project, *, sheet_no: str, title: str, pages: int | None, changed: bool = False
+) -> str:
     rev = project.revision
+    flag = _revflag(rev.rev) if changed else ""
     firm = project.firm or "Structural calculations"
     sheet_page = (
         f'sheet <span class="cp-sheetpage" data-pages="{pages}"></span>' if pages else "&#8212;"
@@ -148,14 +182,14 @@ def _titleblock(project: Project, *, sheet_no: str, title: str, pages: int | Non
 <td colspan="3"><span class="lbl">Job title</span>
 <span class="val wrap">{_e(project.job_title)}</span></td>
 <td><span class="lbl">Revision</span>
-<span class="val">{_e(rev.rev)}</span><span class="sub">{_e(_date(rev.date))}</span></td>
+<span class="val">{_e(rev.rev)}</span><span class="sub">{_e(_date(rev.date))}</span>{flag}</td>
 </tr>
 <tr>
 <td><span class="lbl">Sheet no.</span><span class="val">{_e(sheet_no)}</span></td>
 <td><span class="lbl">Sheet title</span><span class="val wrap">{_e(title)}</span></td>
-<td><span class="lbl">By &#183; date</span><span class="val">{_e(project.preparer.name)}</span>
+<td><span class="lbl">By &#183; date</span>{_name(project.preparer.name)}
 <span class="lbl">{_e(_person_date(project.preparer, rev.date))}</span></td>
-<td><span class="lbl">Checked &#183; date</span><span class="val">{_e(project.checker.name)}</span>
+<td><span class="lbl">Checked &#183; date</span>{_name(project.checker.name)}
 <span class="lbl">{_e(_person_date(project.checker, None))}</span></td>
 <td class="pg"><span class="lbl">Page</span><span class="val">{sheet_page}</span>
 <span class="sub">package <span class="cp-pkgpage"></span></span></td>
@@ -207,6 +241,7 @@ def _toc(
     sheets: Sequence[SheetDoc],
     back: Sequence[tuple[str, str]],
     front: Sequence[tuple[str, str]],
+    changed: frozenset[str] = frozenset(),
 ) -> str:
     items = ['<li class="group">Front matter</li>']
     items += [
@@ -214,9 +249,10 @@ def _toc(
     ]
     items.append('<li class="group">Calculation sheets</li>')
     for i, sheet in enumerate(sheets, start=1):
+        flag = " " + _revflag(project.revision.rev) if sheet.entry.path in changed else ""
         items.append(
             f'<li><span class="no">{_e(sheet.entry.number)}</span>'
-            f'<a href="#sheet-{i}">{_e(sheet.title)}</a></li>'
+            f'<a href="#sheet-{i}">{_e(sheet.title)}{flag}</a></li>'
         )
     items.append('<li class="group">Back matter</li>')
     items += [
@@ -345,14 +381,56 @@ def _summary(project: Project, sheets: Sequence[SheetDoc]) -> str:
     )
 
 
-def _revisions(project: Project) -> str:
+MAX_CHANGES_PER_SHEET = 8
+"""The revision history lists this many changes of a sheet, then counts the rest."""
+
+
+def _change_text(change: Change) -> str:
+    if change.kind == "sheet":
+        return _e(change.name)
+    what = {"input": "input", "result": "result", "check": "check"}.get(change.kind, change.kind)
+    old = _e(change.old) if change.old is not None else "(none)"
+    new = _e(change.new) if change.new is not None else "(removed)"
+    verdict = " <b>verdict changed</b>" if change.verdict_changed else ""
+    return f"{what} {_e(change.name)}: {old} &#8594; {new}{verdict}"
+
+
+def _revision_changes(since: str, changes: Sequence[Change]) -> str:
+    """Under a revision: the sheets changed since the issued revision before it, and how."""
+    if not changes:
+        nothing = f"No input, result or check changed since revision {_e(since)}."
+        return f'<p class="cp-empty">{nothing}</p>'
+    by_sheet: dict[str, list[Change]] = {}
+    for change in changes:
+        by_sheet.setdefault(change.sheet, []).append(change)
+    items = []
+    for sheet, found in by_sheet.items():
+        shown = "; ".join(_change_text(c) for c in found[:MAX_CHANGES_PER_SHEET])
+        more = len(found) - MAX_CHANGES_PER_SHEET
+        if more > 0:
+            shown += f"; and {more} more"
+        items.append(f"<li><b>Sheet {_e(sheet)}</b> &#8212; {shown}</li>")
+    return (
+        f'<div class="cp-revsince">Sheets changed since revision {_e(since)}:</div>'
+        f'<ul class="cp-revchanges">{"".join(items)}</ul>'
+    )
+
+
+def _revisions(project: Project, marks: RevisionMarks) -> str:
     rows = []
     for rev in project.revisions:
         cls = ' class="current"' if rev is project.revision else ""
+        issued = " (issued)" if rev.issued else ""
         rows.append(
             f"<tr{cls}><td>{_e(rev.rev)}</td><td>{_e(_date(rev.date))}</td>"
-            f"<td>{_e(rev.description)}</td><td>{_e(rev.status)}</td></tr>"
+            f"<td>{_e(rev.description)}</td><td>{_e(rev.status)}{issued}</td></tr>"
         )
+        if rev.rev in marks.history:
+            since, changes = marks.history[rev.rev]
+            rows.append(
+                f'<tr class="cp-revdetail"><td></td><td colspan="3">'
+                f"{_revision_changes(since, changes)}</td></tr>"
+            )
     return (
         _titleblock(project, sheet_no="—", title="Revision history", pages=None)
         + '<h1 class="cp-h cp-bm1">Revision history</h1>'
@@ -450,7 +528,7 @@ def document_html(
         out += [
             _cover(project, sheets).replace("<!--strings-->", strings),
             '<section class="cp-section cp-front" id="contents">',
-            _toc(project, sheets, back, front),
+            _toc(project, sheets, back, front, options.revisions.changed),
             "</section>",
             '<section class="cp-section cp-front" id="design-basis">',
             _design_basis(project, sheets),
@@ -464,7 +542,13 @@ def document_html(
         out.append(
             f'<section class="cp-sheet" id="sheet-{i}" style="page: {page_name(i)}">'
             + (strings if options.sheets_only and i == 1 else "")
-            + _titleblock(project, sheet_no=sheet.entry.number, title=sheet.title, pages=pages)
+            + _titleblock(
+                project,
+                sheet_no=sheet.entry.number,
+                title=sheet.title,
+                pages=pages,
+                changed=sheet.entry.path in options.revisions.changed,
+            )
             + f'<div class="cp-sheet-head"><span class="no">Sheet {_e(sheet.entry.number)}</span>'
             f'<h1 class="cp-bm1" style="bookmark-label: '
             f'{_css_string(f"Sheet {sheet.entry.number} — {sheet.title}")}">'
@@ -479,7 +563,7 @@ def document_html(
         _summary(project, sheets),
         "</section>",
         '<section class="cp-section cp-back" id="revisions">',
-        _revisions(project),
+        _revisions(project, options.revisions),
         "</section>",
         '<section class="cp-section cp-back" id="review-log">',
         _review(project, options.review),

@@ -13,6 +13,10 @@ in the PDF"):
   which attaches it to the nucleus: the script is attached to an empty group after the accent
   (``\\bar{x}{}^{2}``), which puts it at the normal height.
 
+A display formula wider than a step's working column is broken over lines at its relations and
+operators (:mod:`calcpack.package.mathbreak`, breaks cached with the formulas), and an image that
+still does not fit is scaled to the column, so no formula is drawn past the margin.
+
 Each image is embedded as a ``data:`` URI ``<img>`` (WeasyPrint lays these out several times
 faster than inline ``<svg>``), its alternative text is the TeX source, and identical formulas
 reuse one cached image.
@@ -31,10 +35,12 @@ from pathlib import Path
 from typing import Any
 
 from calcpack.errors import BuildError
+from calcpack.package.mathbreak import break_display, flatten_delimiters
 
 __all__ = [
     "MATH_SPAN_RE",
     "MathImage",
+    "fitted_image",
     "fix_tex",
     "load_math_cache",
     "markdown_math_to_spans",
@@ -52,6 +58,12 @@ MATH_SPAN_RE = re.compile(
 
 MATH_PX_PER_EM = 13.5
 """Math font size in CSS px (body text is 9.5 pt = 12.7 px; math is set a little larger)."""
+
+MATH_MAX_WIDTH_PX = 412.0
+"""Widest a formula may be, in CSS px: the working column of a step on A4, the narrower paper
+(210 mm less 33 mm of margins, the 31 mm description and 29 mm reference columns and two 3 mm
+gaps: 111 mm = 419.5 px), less a little for rounding. Wider display math is broken over lines,
+and what still does not fit is scaled down."""
 
 
 @dataclass(frozen=True)
@@ -112,6 +124,8 @@ def _clear_radical_rule() -> None:
 
 
 _cache: dict[tuple[str, bool, float], MathImage] = {}
+_breaks: dict[tuple[str, float], str] = {}
+"""Display formulas too wide for the column: (TeX, width px) -> the TeX broken over lines."""
 
 
 _CACHE_FORMAT = "calcpack-math-cache/1"
@@ -139,6 +153,12 @@ def load_math_cache(path: Path) -> int:
             loaded += 1
         except (TypeError, ValueError):
             continue
+    for item in data.get("breaks", []):
+        try:
+            tex, width, broken = item
+            _breaks.setdefault((str(tex), float(width)), str(broken))
+        except (TypeError, ValueError):
+            continue
     return loaded
 
 
@@ -149,9 +169,16 @@ def save_math_cache(path: Path, used: set[tuple[str, bool, float]] | None = None
         for k, v in sorted(_cache.items())
         if used is None or k in used
     ]
+    # A break is kept while the formula it produced is (its fragments are not kept at all).
+    breaks = [
+        [tex, width, broken]
+        for (tex, width), broken in sorted(_breaks.items())
+        if used is None or (broken, True, MATH_PX_PER_EM) in used
+    ]
     path.parent.mkdir(parents=True, exist_ok=True)
     tmp = path.with_suffix(".tmp")
-    tmp.write_text(json.dumps({"format": _CACHE_FORMAT, "formulas": items}), "utf-8")
+    data = {"format": _CACHE_FORMAT, "formulas": items, "breaks": breaks}
+    tmp.write_text(json.dumps(data), "utf-8")
     os.replace(tmp, path)
 
 
@@ -159,19 +186,23 @@ used_keys: set[tuple[str, bool, float]] = set()
 """Keys looked up since the process started (the build saves only these)."""
 
 
-def tex_to_svg(tex: str, *, display: bool = False, size_px: float = MATH_PX_PER_EM) -> MathImage:
+def tex_to_svg(
+    tex: str, *, display: bool = False, size_px: float = MATH_PX_PER_EM, track: bool = True
+) -> MathImage:
     """Typeset one TeX formula as SVG (cached by TeX source, style and size).
 
     Args:
         tex: the formula, without delimiters.
         display: display style (limits above/below, full-size fractions) rather than inline.
         size_px: math font size in CSS px.
+        track: count the formula as used, so the build keeps it in the disk cache.
 
     Raises:
         BuildError: ziamath cannot typeset the formula (the message quotes the TeX).
     """
     key = (tex, display, float(size_px))
-    used_keys.add(key)
+    if track:
+        used_keys.add(key)
     hit = _cache.get(key)
     if hit is not None:
         return hit
@@ -223,11 +254,54 @@ def _strip_delimiters(body: str) -> tuple[str, bool | None]:
     return text, None
 
 
-def _img(tex: str, display: bool) -> str:
+def _measure(tex: str) -> float:
+    """Width in CSS px of a TeX fragment in display style (for line breaking).
+
+    Fragments are kept in memory only: the disk cache keeps the chosen breaks instead.
+    """
+    return tex_to_svg(flatten_delimiters(tex), display=True, track=False).width_px
+
+
+_BREAK_MARGIN = 0.94
+"""Lines are filled to this share of the width: the sum of the parts' widths that chooses the
+breaks comes out a few per cent under the width of the broken formula typeset whole."""
+
+
+_SURELY_WIDE_TEX = 1000
+"""Display TeX longer than this (characters) is always wider than the column: it is broken
+straight away, without first typesetting it whole (for long formulas that costs as much as the
+broken one)."""
+
+
+def fitted_image(tex: str, display: bool, width_px: float = MATH_MAX_WIDTH_PX) -> MathImage:
+    """The formula's image, broken over lines if display math is wider than ``width_px``.
+
+    What still does not fit (one very long term, wide inline math) is left to :func:`_img`,
+    which scales the image down to the column.
+    """
+    key = (tex, float(width_px))
+    broken = _breaks.get(key) if display else None
+    if broken is None and display and len(tex) > _SURELY_WIDE_TEX:
+        broken = break_display(tex, width_px * _BREAK_MARGIN, _measure, known_wide=True)
+        _breaks[key] = broken
+    if broken is not None and broken != tex:
+        return tex_to_svg(broken, display=True)
     image = tex_to_svg(tex, display=display)
+    if display and broken is None and image.width_px > width_px:
+        broken = break_display(tex, width_px * _BREAK_MARGIN, _measure)
+        _breaks[key] = broken
+        if broken != tex:
+            image = tex_to_svg(broken, display=True)
+    return image
+
+
+def _img(tex: str, display: bool) -> str:
+    image = fitted_image(tex, display)
+    # Never past the margin: an image still too wide is scaled, baseline and all.
+    scale = min(1.0, MATH_MAX_WIDTH_PX / image.width_px) if image.width_px else 1.0
     style = (
-        f"width:{image.width_px:.2f}px;height:{image.height_px:.2f}px;"
-        f"vertical-align:{-image.baseline_px:.2f}px"
+        f"width:{image.width_px * scale:.2f}px;height:{image.height_px * scale:.2f}px;"
+        f"vertical-align:{-image.baseline_px * scale:.2f}px"
     )
     kind = "cp-math-display" if display else "cp-math-inline"
     return (

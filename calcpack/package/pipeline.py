@@ -338,8 +338,15 @@ def build(
 
     keys = [sheet_cache_key(project, s) for s in project.sheets]
     build_key = _build_key(project, keys, options, review_file, created)
+    # Revision comparison (calcpack.package.revisions): the marks depend on the kept manifests.
+    from calcpack.package import revisions
+
+    build_key = hashlib.sha256(
+        f"{build_key}{revisions.issued_basis_key(project)}".encode()
+    ).hexdigest()
     previous = _previous_manifest(manifest_path)
     if not force and pdf_path.is_file() and previous.get("build", {}).get("build_key") == build_key:
+        revisions.keep_issued(project, manifest_path)
         return BuildResult(
             pdf_path,
             manifest_path,
@@ -370,6 +377,7 @@ def build(
         if report:
             report("rendering", item.entry.path)
         docs.append(prepare_sheet(item.entry, item, source=reviewer_copy))
+    options = replace(options, revisions=revisions.compare_with_issued(project, docs))
 
     sheet_ids = {doc.entry.path: f"sheet-{i}" for i, doc in enumerate(docs, start=1)}
     section_ids = [
@@ -452,6 +460,7 @@ def build(
         raise
     os.replace(tmp_manifest, manifest_path)
     os.replace(tmp_pdf, pdf_path)
+    revisions.keep_issued(project, manifest_path)
     return BuildResult(
         pdf_path,
         manifest_path,

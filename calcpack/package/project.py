@@ -28,6 +28,9 @@ The file layout (every table below is required unless marked optional)::
     date = 2026-11-20
     description = "First issue"
     status = "For comment"           # optional, e.g. "Preliminary", "For construction"
+    issued = true                    # optional (default false): this revision went out; its
+                                     # build keeps its manifest in issued/<rev>.manifest.json
+                                     # so later revisions mark what changed since
 
     [[sheets]]                       # in issue order
     path = "sheets/01_loads.ipynb"
@@ -97,6 +100,8 @@ class Revision:
     date: _dt.date
     description: str
     status: str = ""
+    issued: bool = False
+    """The revision has gone out: its build keeps its manifest in ``issued/`` for comparison."""
 
 
 @dataclass(frozen=True)
@@ -383,7 +388,10 @@ def load_project(location: str | Path) -> Project:
             item, "description", f"{where}.description", "what the revision changed"
         )
         status = r.text(item, "status", f"{where}.status", "a status", default="")
-        revisions.append(Revision(rev, date, description, status))
+        issued = item.get("issued", False)
+        if not isinstance(issued, bool):
+            r.fail(f"{where}.issued", issued, "true or false")
+        revisions.append(Revision(rev, date, description, status, issued))
     seen: set[str] = set()
     for i, revision in enumerate(revisions, start=1):
         if revision.rev in seen:

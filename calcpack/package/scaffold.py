@@ -104,6 +104,8 @@ rev = "P1"
 date = {today}
 description = "Preliminary issue"
 status = "Preliminary"
+# issued = true  # once this revision has gone out: its manifest is kept in issued/ and the
+#                # next revision's package marks the sheets changed since
 
 [[sheets]]
 path = "sheets/01_first_sheet.ipynb"

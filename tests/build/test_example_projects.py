@@ -416,3 +416,19 @@ def test_pdf_structure(packages: dict[str, Built], name: str) -> None:
     for i, page in enumerate(pages, 1):
         for token in ("\\frac", "\\mathrm", "\\left", "\\[", "\\(", "$"):
             assert token not in page, (i, token)
+
+
+@pytest.mark.parametrize("name", PROJECTS)
+def test_nothing_is_drawn_past_the_margins(packages: dict[str, Built], name: str) -> None:
+    """Long working (truss joints, column stability lines) stays inside the text column."""
+    from pdfgeometry import painted_extent
+    from pypdf import PdfReader
+
+    reader = PdfReader(str(packages[name].pdf))
+    width = float(reader.pages[0].mediabox.width)
+    first = packages[name].manifest["sections"]["contents"][0]  # the cover has its own margins
+    for index in range(first - 1, len(reader.pages)):
+        extent = painted_extent(reader, index)
+        # page margins of assets/calcpack.css: 19 mm left, 14 mm right; 1 pt for a border
+        assert extent.x1 <= width - 14 * 72 / 25.4 + 1, (index + 1, extent.x1)
+        assert extent.x0 >= 19 * 72 / 25.4 - 1, (index + 1, extent.x0)

@@ -54,6 +54,15 @@ def test_valid_project_loads(tmp_path: Path) -> None:
     assert project.design.standards == ("Demo standard",)
 
 
+def test_a_revision_may_be_marked_issued(tmp_path: Path) -> None:
+    text = VALID.replace(
+        'description = "First issue"', 'description = "First issue"\nissued = true'
+    )
+    text += '\n[[revisions]]\nrev = "B"\ndate = 2026-12-01\ndescription = "Second"\n'
+    project = load_project(write(tmp_path, text.replace("[[sheets]]", "\n[[sheets]]", 1)))
+    assert [r.issued for r in project.revisions] == [True, False]  # default: not issued
+
+
 def test_folder_without_project_file(tmp_path: Path) -> None:
     with pytest.raises(ProjectFileError, match=r"calcpack\.toml") as info:
         load_project(tmp_path)
@@ -159,6 +168,11 @@ def _without(text: str, line: str) -> str:
         ),
         (lambda t: t.replace("[design]", "[designs]"), "design", "is missing"),
         (lambda t: t + "\n[extra]\nx = 1\n", "extra", "not a known table"),
+        (
+            lambda t: t.replace('description = "First issue"', 'description = "x"\nissued = "yes"'),
+            "revisions[1].issued",
+            "true or false",
+        ),
     ],
 )
 def test_each_bad_field_names_file_and_field(
