@@ -326,6 +326,8 @@ def execute_sheets(
             next_up = min(workers, len(pending))
             for future in concurrent.futures.as_completed(futures):
                 sheet, key = futures[future]
+                if future.cancelled():  # after a failure: its result is not wanted
+                    continue
                 try:
                     outcome = future.result()
                 except concurrent.futures.process.BrokenProcessPool as exc:
