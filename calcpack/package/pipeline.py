@@ -3,7 +3,7 @@
 Stages are plain functions passing typed values::
 
     load_project -> execute_sheets -> prepare_sheet (nbconvert + math to SVG)
-        -> document_html / paginate (WeasyPrint, two passes) -> manifest -> write_pdf
+        -> document_html / paginate (WeasyPrint, in chunks) -> manifest -> write_pdf
 
 Outputs are written to temporary files in the output folder and moved into place only when the
 whole build succeeded, so a failing or interrupted build leaves the previous package untouched.
@@ -247,24 +247,31 @@ def _previous_manifest(path: Path) -> dict[str, Any]:
 
 
 def _page_guess(
-    previous: dict[str, Any], executed: list[ExecutedSheet], options: DocumentOptions
+    previous: dict[str, Any],
+    executed: list[ExecutedSheet],
+    sheet_ids: dict[str, str],
+    options: DocumentOptions,
 ) -> dict[str, int]:
-    """Expected page count per sheet: the previous build's when there was one, else 1.
+    """Expected page count per section id: the previous build's when there was one, else 1.
 
     A sheet's page count depends only on its own content and the paper, and an edit rarely
     changes it, so the guess is usually right and the layout needs one pass instead of two.
+    Sheets are matched by path (they may have moved); the other sections by id.
     """
     if previous.get("build", {}).get("paper") != options.paper:
         previous = {}
+    guess: dict[str, int] = {}
+    for ident, span in (previous.get("sections") or {}).items():
+        if ident not in sheet_ids.values() and isinstance(span, list) and len(span) == 2:
+            guess[ident] = int(span[1]) - int(span[0]) + 1
     known = {s.get("path"): s for s in previous.get("sheets", []) if isinstance(s, dict)}
-    guess = {}
     for item in executed:
         old = known.get(item.entry.path)
         if old:  # changed or not, a sheet usually keeps its page count
             first, last = old.get("pages", [1, 1])
-            guess[item.entry.path] = int(last) - int(first) + 1
+            guess[sheet_ids[item.entry.path]] = int(last) - int(first) + 1
         else:
-            guess[item.entry.path] = 1  # most sheets fit one page; a wrong guess costs a pass
+            guess[sheet_ids[item.entry.path]] = 1  # most sheets fit one page; wrong costs a pass
     return guess
 
 
@@ -386,7 +393,7 @@ def build(
         section_ids.append("appendix-source")
     if report:
         report("layout", f"{len(docs)} sheets")
-    layout, _ = paginate(
+    layout = paginate(
         lambda counts: document_html(
             project, docs, replace(options, sheet_pages=counts), created=created
         ),
@@ -394,7 +401,7 @@ def build(
         section_ids=section_ids,
         roles=ROLES,
         base_url=str(project.root),
-        guess=_page_guess(previous, executed, options),
+        guess=_page_guess(previous, executed, sheet_ids, options),
     )
     if use_cache:
         save_math_cache(math_cache, set(used_keys))
@@ -493,7 +500,7 @@ def single_sheet_pdf(nb: Any, *, name: str = "sheet") -> bytes:
     doc = prepare_sheet(project.sheets[0], nb)
     created = _dt.datetime(today.year, today.month, today.day, tzinfo=_dt.UTC)
     options = DocumentOptions(paper=project.paper, calcpack_version=__version__, sheets_only=True)
-    layout, _ = paginate(
+    layout = paginate(
         lambda counts: document_html(
             project, [doc], replace(options, sheet_pages=counts), created=created
         ),
