@@ -35,6 +35,8 @@ from calcpack.errors import BuildError
 __all__ = [
     "MATH_SPAN_RE",
     "MathImage",
+    "add_cache_entries",
+    "cache_entries",
     "fix_tex",
     "load_math_cache",
     "markdown_math_to_spans",
@@ -128,27 +130,43 @@ def load_math_cache(path: Path) -> int:
         return 0
     if not isinstance(data, dict) or data.get("format") != _CACHE_FORMAT:
         return 0
-    loaded = 0
-    for item in data.get("formulas", []):
+    return add_cache_entries(data.get("formulas", []), mark_used=False)
+
+
+def add_cache_entries(items: list[Any], *, mark_used: bool = True) -> int:
+    """Add formulas in the saved form (see :func:`cache_entries`) to the in-memory cache.
+
+    Used to read the cache file and to take the formulas a worker process typeset; with
+    ``mark_used`` they count as used by this build (and are saved). Returns the count added.
+    """
+    added = 0
+    for item in items:
         try:
             tex, display, size, svg, width, height, baseline = item
             key = (str(tex), bool(display), float(size))
             _cache.setdefault(
                 key, MathImage(key[0], str(svg), float(width), float(height), float(baseline))
             )
-            loaded += 1
         except (TypeError, ValueError):
             continue
-    return loaded
+        if mark_used:
+            used_keys.add(key)
+        added += 1
+    return added
 
 
-def save_math_cache(path: Path, used: set[tuple[str, bool, float]] | None = None) -> None:
-    """Write the in-memory formula cache (only ``used`` keys when given) to ``path``."""
-    items = [
+def cache_entries(used: set[tuple[str, bool, float]] | None = None) -> list[list[Any]]:
+    """The in-memory formulas (only ``used`` keys when given) in the saved form, sorted."""
+    return [
         [k[0], k[1], k[2], v.svg, v.width_px, v.height_px, v.baseline_px]
         for k, v in sorted(_cache.items())
         if used is None or k in used
     ]
+
+
+def save_math_cache(path: Path, used: set[tuple[str, bool, float]] | None = None) -> None:
+    """Write the in-memory formula cache (only ``used`` keys when given) to ``path``."""
+    items = cache_entries(used)
     path.parent.mkdir(parents=True, exist_ok=True)
     tmp = path.with_suffix(".tmp")
     tmp.write_text(json.dumps({"format": _CACHE_FORMAT, "formulas": items}), "utf-8")

@@ -30,6 +30,7 @@ same fixed dates. It is written as PDF/A-3b (archival, with attachments).
 
 from __future__ import annotations
 
+import concurrent.futures
 import contextlib
 import datetime as _dt
 import hashlib
@@ -37,7 +38,7 @@ import io
 import logging
 import re
 from collections.abc import Callable, Iterator, Sequence
-from dataclasses import dataclass, field
+from dataclasses import dataclass, field, replace
 from typing import Any
 
 from calcpack.errors import BuildError
@@ -96,6 +97,7 @@ class Layout:
 _SECTION_RE = '<section\\b[^>]*\\bid="{ident}"[^>]*>'
 _STRINGS_RE = re.compile(r'<div class="cp-strings"[^>]*></div>')
 _LINK_RE = re.compile(r'<a\b([^>]*?)\bhref="#([^"]+)"')
+_TARGET_PAGE_RE = re.compile(r"target-counter\(\s*attr\(\s*href\s*\)\s*,\s*page\s*\)")
 
 
 @dataclass(frozen=True)
@@ -173,8 +175,8 @@ def _chunk_html(
     starts: dict[str, int],
 ) -> str:
     """One chunk as a document of its own, with the package-wide numbers written in."""
-    head = split.head.replace("counter(pages)", f'"{total}"').replace(
-        "target-counter(attr(href), page)", "attr(data-cp-page)"
+    head = _TARGET_PAGE_RE.sub(
+        "attr(data-cp-page)", split.head.replace("counter(pages)", f'"{total}"')
     )
     if offset:
         rule = f"@page :first {{ counter-set: page {offset + 1}; }}"
@@ -263,15 +265,15 @@ def _signature_fields(document: Any, roles: Sequence[str]) -> list[dict[str, Any
     return fields
 
 
-def _foreign_links(document: Any, offset: int) -> list[_Link]:
-    """Links whose target is not in this document (the join adds them)."""
+def _foreign_links(document: Any) -> list[_Link]:
+    """Links whose target is not in this document (the join adds them); pages 0-based here."""
     here = {name for page in document.pages for name in page.anchors}
     links = []
     for index, page in enumerate(document.pages):
         for kind, target, rect, _box in page.links:
             if kind == "internal" and target not in here:
                 x1, y1, x2, y2 = rect
-                links.append(_Link(offset + index, _pt_box(page, x1, y1, x2, y2), target))
+                links.append(_Link(index, _pt_box(page, x1, y1, x2, y2), target))
     return links
 
 
@@ -294,6 +296,37 @@ def _cross_chunk_links_expected() -> Iterator[None]:
         LOGGER.removeFilter(quiet)
 
 
+@dataclass(frozen=True)
+class _Chunk:
+    """One chunk laid out (and written when its page counts were the ones assumed)."""
+
+    sections: dict[str, tuple[int, int]]
+    """Section id -> (first, last) page within the chunk, 1-based."""
+    page_count: int
+    links: tuple[_Link, ...]
+    """Links out of the chunk, pages 0-based within the chunk."""
+    pdf: bytes | None
+    """The chunk's PDF; None when a page count differed from the assumed one."""
+    holds: bool
+
+
+def _lay_out_chunk(
+    html: str, ids: Sequence[str], assumed: dict[str, int] | None, base_url: str | None
+) -> _Chunk:
+    """Lay out one chunk (not the first) and write it if its sections have the assumed page
+    counts (``assumed`` None: only count). Runs in a worker process when the build has them."""
+    from weasyprint import HTML
+
+    with _cross_chunk_links_expected():
+        document = HTML(string=html, base_url=base_url).render()
+        sections = _section_pages(document, ids)
+        holds = assumed is not None and all(
+            b - a + 1 == assumed[ident] for ident, (a, b) in sections.items()
+        )
+        pdf = document.write_pdf(pdf_variant=PDF_VARIANT) if holds else None
+        return _Chunk(sections, len(document.pages), tuple(_foreign_links(document)), pdf, holds)
+
+
 # --------------------------------------------------------------------------- the passes
 
 
@@ -305,6 +338,7 @@ def paginate(
     roles: Sequence[str],
     base_url: str | None = None,
     guess: dict[str, int] | None = None,
+    pool: concurrent.futures.Executor | None = None,
 ) -> Layout:
     """Lay out, chunk by chunk, until every section's page count is the one assumed.
 
@@ -315,6 +349,8 @@ def paginate(
         roles: the sign-off roles whose boxes to measure (on the first chunk).
         guess: page counts expected per section id (from an earlier build); when right, one
             layout pass is enough. Sections not given are assumed to take one page.
+        pool: worker processes to lay out the chunks after the first in parallel (the first,
+            with the cover, is laid out here); None lays out every chunk in this process.
 
     Returns:
         The final layout, ready for :func:`write_pdf`.
@@ -322,61 +358,88 @@ def paginate(
     Raises:
         BuildError: a section or sign-off box is missing, or the counts never settle.
     """
+    assumed = {ident: max(1, int((guess or {}).get(ident, 1))) for ident in section_ids}
+    for _ in range(4):
+        counts = {path: assumed[ident] for path, ident in sheet_ids.items()}
+        split = _split(make_html(counts), section_ids)
+        layout, measured = _one_pass(split, assumed, set(sheet_ids.values()), roles, base_url, pool)
+        if layout is not None:
+            return layout
+        assumed = measured
+    raise BuildError("Page counts of the sections did not settle after four layout passes")
+
+
+def _one_pass(
+    split: _Split,
+    assumed: dict[str, int],
+    sheet_sections: set[str],
+    roles: Sequence[str],
+    base_url: str | None,
+    pool: concurrent.futures.Executor | None,
+) -> tuple[Layout | None, dict[str, int]]:
+    """Lay out every chunk with the assumed page counts written in; the layout if they held,
+    and the measured page count of every section."""
     from weasyprint import HTML
 
-    assumed = {ident: max(1, int((guess or {}).get(ident, 1))) for ident in section_ids}
-    sheet_sections = set(sheet_ids.values())
-    with _cross_chunk_links_expected():
-        for _ in range(4):
-            counts = {path: assumed[ident] for path, ident in sheet_ids.items()}
-            split = _split(make_html(counts), section_ids)
-            total = sum(assumed.values())
-            starts: dict[str, int] = {}
-            page = 1
-            for ident in section_ids:
-                starts[ident] = page
-                page += assumed[ident]
+    total = sum(assumed.values())
+    starts: dict[str, int] = {}
+    page = 1
+    for ident, _ in split.sections:
+        starts[ident] = page
+        page += assumed[ident]
+    groups = _chunks(split, sheet_sections)
+    ids = [[split.sections[i][0] for i in group] for group in groups]
 
-            measured: dict[str, int] = {}
-            pages: dict[str, tuple[int, int]] = {}
-            first: Any = None
-            rest: list[bytes] = []
-            links: list[_Link] = []
-            fields: list[dict[str, Any]] = []
-            offset = 0
-            holds = True
-            for n, indices in enumerate(_chunks(split, sheet_sections)):
-                ids = [split.sections[i][0] for i in indices]
-                document = HTML(
-                    string=_chunk_html(split, indices, offset=offset, total=total, starts=starts),
-                    base_url=base_url,
-                ).render()
-                for ident, (a, b) in _section_pages(document, ids).items():
-                    measured[ident] = b - a + 1
-                    pages[ident] = (offset + a, offset + b)
-                holds = holds and all(measured[i] == assumed[i] for i in ids)
-                if n == 0 and roles:
-                    fields = _signature_fields(document, roles)
-                if holds:
-                    links += _foreign_links(document, offset)
-                    if n == 0:
-                        first = document
-                    else:
-                        rest.append(document.write_pdf(pdf_variant=PDF_VARIANT))
-                offset += len(document.pages)
-                del document  # one laid-out chunk at a time
-            if holds and offset == total:
-                return Layout(
-                    page_count=total,
-                    section_pages=pages,
-                    signature_fields=tuple(fields),
-                    first=first,
-                    rest=tuple(rest),
-                    links=tuple(links),
-                )
-            assumed = measured
-            first, rest, links = None, [], []
-    raise BuildError("Page counts of the sections did not settle after four layout passes")
+    def chunk_html(n: int) -> str:
+        # Each chunk starts where the assumed counts put it, so chunks are independent.
+        offset = starts[ids[n][0]] - 1
+        return _chunk_html(split, groups[n], offset=offset, total=total, starts=starts)
+
+    futures = []
+    if pool is not None:
+        futures = [
+            pool.submit(_lay_out_chunk, chunk_html(n), ids[n], assumed, base_url)
+            for n in range(1, len(groups))
+        ]
+    with _cross_chunk_links_expected():
+        first = HTML(string=chunk_html(0), base_url=base_url).render()
+        first_sections = _section_pages(first, ids[0])
+        fields = _signature_fields(first, roles) if roles else []
+        first_links = _foreign_links(first)
+    chunks = [_Chunk(first_sections, len(first.pages), tuple(first_links), None, True)]
+    holds = all(b - a + 1 == assumed[i] for i, (a, b) in first_sections.items())
+    if pool is not None:
+        chunks += [future.result() for future in futures]
+    else:
+        for n in range(1, len(groups)):
+            # Once a count differs this pass is only counting: no chunk is written.
+            chunk = _lay_out_chunk(chunk_html(n), ids[n], assumed if holds else None, base_url)
+            holds = holds and chunk.holds
+            chunks.append(chunk)
+
+    measured: dict[str, int] = {}
+    pages: dict[str, tuple[int, int]] = {}
+    links: list[_Link] = []
+    offset = 0
+    for chunk in chunks:
+        for ident, (a, b) in chunk.sections.items():
+            measured[ident] = b - a + 1
+            pages[ident] = (offset + a, offset + b)
+        links += [replace(link, page=offset + link.page) for link in chunk.links]
+        offset += chunk.page_count
+    if measured != assumed or offset != total:
+        return None, measured
+    if any(chunk.pdf is None for chunk in chunks[1:]):
+        raise BuildError("A chunk of the package was laid out but not written")
+    layout = Layout(
+        page_count=total,
+        section_pages=pages,
+        signature_fields=tuple(fields),
+        first=first,
+        rest=tuple(chunk.pdf or b"" for chunk in chunks[1:]),
+        links=tuple(links),
+    )
+    return layout, measured
 
 
 # --------------------------------------------------------------------------- the PDF

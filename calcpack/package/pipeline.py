@@ -13,6 +13,8 @@ code) match the existing package's manifest is skipped outright.
 
 from __future__ import annotations
 
+import concurrent.futures
+import contextlib
 import datetime as _dt
 import hashlib
 import os
@@ -32,7 +34,12 @@ from calcpack.package.document import (
     SheetDoc,
     document_html,
 )
-from calcpack.package.execute import DEFAULT_CELL_TIMEOUT_S, ExecutedSheet, execute_sheets
+from calcpack.package.execute import (
+    DEFAULT_CELL_TIMEOUT_S,
+    ExecutedSheet,
+    execute_sheets,
+    worker_pool,
+)
 from calcpack.package.manifest import (
     MANIFEST_ATTACHMENT_NAME,
     MANIFEST_FORMAT,
@@ -40,7 +47,8 @@ from calcpack.package.manifest import (
     manifest_bytes,
     project_files,
 )
-from calcpack.package.paginate import PdfAttachment, paginate, write_pdf
+from calcpack.package.mathsvg import add_cache_entries
+from calcpack.package.paginate import Layout, PdfAttachment, paginate, write_pdf
 from calcpack.package.project import Person, Project, Revision, SheetEntry, load_project
 from calcpack.package.records import collect_records
 
@@ -289,6 +297,71 @@ def _atomic_write(path: Path, data: bytes) -> Path:
     return Path(tmp)
 
 
+def _sheet_ids(docs: list[SheetDoc]) -> dict[str, str]:
+    """Sheet path -> the id of its section in the document."""
+    return {doc.entry.path: f"sheet-{i}" for i, doc in enumerate(docs, start=1)}
+
+
+def _lay_out(
+    project: Project,
+    docs: list[SheetDoc],
+    executed: list[ExecutedSheet],
+    options: DocumentOptions,
+    created: _dt.datetime,
+    previous: dict[str, Any],
+    reviewer_copy: bool,
+    report: Reporter | None,
+    pool: concurrent.futures.Executor | None,
+) -> Layout:
+    """Paginate the package (see :func:`calcpack.package.paginate.paginate`)."""
+    sheet_ids = _sheet_ids(docs)
+    section_ids = [
+        "cover",
+        "contents",
+        "design-basis",
+        "assumptions",
+        *sheet_ids.values(),
+        "summary",
+        "revisions",
+        "review-log",
+    ]
+    if reviewer_copy:
+        section_ids.append("appendix-source")
+    if report:
+        report("layout", f"{len(docs)} sheets")
+    return paginate(
+        lambda counts: document_html(
+            project, docs, replace(options, sheet_pages=counts), created=created
+        ),
+        sheet_ids=sheet_ids,
+        section_ids=section_ids,
+        roles=ROLES,
+        base_url=str(project.root),
+        guess=_page_guess(previous, executed, sheet_ids, options),
+        pool=pool,
+    )
+
+
+_worker_math_cache: str | None = None
+"""In a worker process: the formula cache file already read."""
+
+
+def _prepare_in_worker(
+    item: ExecutedSheet, source: bool, math_cache: str | None
+) -> tuple[SheetDoc, list[Any]]:
+    """:func:`prepare_sheet` in a worker process; also returns the formulas it used (in the
+    cache file's form) for the build to save."""
+    global _worker_math_cache
+    from calcpack.package.mathsvg import cache_entries, load_math_cache, used_keys
+
+    if math_cache is not None and math_cache != _worker_math_cache:
+        load_math_cache(Path(math_cache))
+        _worker_math_cache = math_cache
+    used_keys.clear()
+    doc = prepare_sheet(item.entry, item, source=source)
+    return doc, cache_entries(set(used_keys))
+
+
 def build(
     location: str | Path,
     *,
@@ -362,9 +435,6 @@ def build(
         if report:
             report(stage, sheet.path)
 
-    executed = execute_sheets(
-        project, workers=workers, timeout=timeout, use_cache=use_cache, progress=on_sheet
-    )
     from calcpack.package.execute import CACHE_DIR_NAME
     from calcpack.package.mathsvg import load_math_cache, save_math_cache, used_keys
 
@@ -372,39 +442,47 @@ def build(
     if use_cache:
         load_math_cache(math_cache)
     used_keys.clear()
-    docs = []
-    for item in executed:
-        if report:
-            report("rendering", item.entry.path)
-        docs.append(prepare_sheet(item.entry, item, source=reviewer_copy))
+    with contextlib.ExitStack() as stack:
+        # One pool of workers for the whole build: executing, converting and laying out.
+        pool = stack.enter_context(worker_pool(workers))
+        converting: dict[str, concurrent.futures.Future[tuple[SheetDoc, list[Any]]]] = {}
+        docs_here: dict[str, SheetDoc] = {}
 
-    sheet_ids = {doc.entry.path: f"sheet-{i}" for i, doc in enumerate(docs, start=1)}
-    section_ids = [
-        "cover",
-        "contents",
-        "design-basis",
-        "assumptions",
-        *sheet_ids.values(),
-        "summary",
-        "revisions",
-        "review-log",
-    ]
-    if reviewer_copy:
-        section_ids.append("appendix-source")
-    if report:
-        report("layout", f"{len(docs)} sheets")
-    layout = paginate(
-        lambda counts: document_html(
-            project, docs, replace(options, sheet_pages=counts), created=created
-        ),
-        sheet_ids=sheet_ids,
-        section_ids=section_ids,
-        roles=ROLES,
-        base_url=str(project.root),
-        guess=_page_guess(previous, executed, sheet_ids, options),
-    )
+        def convert(item: ExecutedSheet) -> None:
+            """Convert a sheet as soon as it is executed (or read from the cache)."""
+            if report:
+                report("rendering", item.entry.path)
+            if pool is None:
+                docs_here[item.entry.path] = prepare_sheet(item.entry, item, source=reviewer_copy)
+            else:
+                cache_file = str(math_cache) if use_cache else None
+                converting[item.entry.path] = pool.submit(
+                    _prepare_in_worker, item, reviewer_copy, cache_file
+                )
+
+        executed = execute_sheets(
+            project,
+            workers=workers,
+            timeout=timeout,
+            use_cache=use_cache,
+            progress=on_sheet,
+            pool=pool,
+            on_ready=convert,
+        )
+        docs = []
+        for item in executed:
+            if item.entry.path in converting:
+                doc, formulas = converting.pop(item.entry.path).result()
+                add_cache_entries(formulas)
+            else:
+                doc = docs_here.pop(item.entry.path)
+            docs.append(doc)
+        layout = _lay_out(
+            project, docs, executed, options, created, previous, reviewer_copy, report, pool
+        )
     if use_cache:
         save_math_cache(math_cache, set(used_keys))
+    sheet_ids = _sheet_ids(docs)
     manifest: dict[str, Any] = {
         "format": MANIFEST_FORMAT,
         "calcpack_version": __version__,
