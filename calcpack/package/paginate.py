@@ -30,11 +30,13 @@ same fixed dates. It is written as PDF/A-3b (archival, with attachments).
 
 from __future__ import annotations
 
+import collections
 import concurrent.futures
 import contextlib
 import datetime as _dt
 import hashlib
 import io
+import itertools
 import logging
 import re
 from collections.abc import Callable, Iterator, Sequence
@@ -52,6 +54,9 @@ CHUNK_HTML_CHARS = 2_500_000
 """Sheets are grouped into chunks of about this much HTML (math images included). Layout memory
 grows with the chunk: a chunk this size peaks at roughly 150 MB, where a 200-sheet package laid
 out whole needed over 2 GB."""
+
+IN_FLIGHT = 4
+"""Chunks handed to the worker processes at a time (their HTML waits in this process)."""
 
 PDF_VARIANT = "pdf/a-3b"
 
@@ -395,12 +400,17 @@ def _one_pass(
         offset = starts[ids[n][0]] - 1
         return _chunk_html(split, groups[n], offset=offset, total=total, starts=starts)
 
-    futures = []
+    # Chunks after the first go to the workers a few at a time (each carries its HTML).
+    queued: collections.deque[concurrent.futures.Future[_Chunk]] = collections.deque()
+    later = iter(range(1, len(groups)))
+
+    def submit(count: int) -> None:
+        for n in itertools.islice(later, count):
+            assert pool is not None
+            queued.append(pool.submit(_lay_out_chunk, chunk_html(n), ids[n], assumed, base_url))
+
     if pool is not None:
-        futures = [
-            pool.submit(_lay_out_chunk, chunk_html(n), ids[n], assumed, base_url)
-            for n in range(1, len(groups))
-        ]
+        submit(IN_FLIGHT)
     with _cross_chunk_links_expected():
         first = HTML(string=chunk_html(0), base_url=base_url).render()
         first_sections = _section_pages(first, ids[0])
@@ -409,7 +419,9 @@ def _one_pass(
     chunks = [_Chunk(first_sections, len(first.pages), tuple(first_links), None, True)]
     holds = all(b - a + 1 == assumed[i] for i, (a, b) in first_sections.items())
     if pool is not None:
-        chunks += [future.result() for future in futures]
+        while queued:
+            chunks.append(queued.popleft().result())
+            submit(1)
     else:
         for n in range(1, len(groups)):
             # Once a count differs this pass is only counting: no chunk is written.
