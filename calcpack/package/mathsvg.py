@@ -38,6 +38,7 @@ __all__ = [
     "add_cache_entries",
     "cache_entries",
     "fix_tex",
+    "known_keys",
     "load_math_cache",
     "markdown_math_to_spans",
     "math_spans_to_images",
@@ -153,6 +154,11 @@ def add_cache_entries(items: list[Any], *, mark_used: bool = True) -> int:
             used_keys.add(key)
         added += 1
     return added
+
+
+def known_keys() -> set[tuple[str, bool, float]]:
+    """The keys of every formula in the in-memory cache."""
+    return set(_cache)
 
 
 def cache_entries(used: set[tuple[str, bool, float]] | None = None) -> list[list[Any]]:

@@ -152,22 +152,28 @@ def _split(html: str, section_ids: Sequence[str]) -> _Split:
     return _Split(head, tuple(sections), tail, m.group(0) if m else "")
 
 
-def _chunks(split: _Split, sheet_sections: set[str]) -> list[list[int]]:
-    """Indices of the sections in each chunk: front matter, groups of sheets, back matter."""
+def _chunks(
+    split: _Split, sheet_sections: set[str], fill: Callable[[str], str] | None = None
+) -> list[list[int]]:
+    """Indices of the sections in each chunk: front matter, groups of sheets, back matter.
+
+    Sheets are grouped by the size of their HTML once filled in (see :func:`paginate`).
+    """
     chunks: list[list[int]] = []
     size = 0
     kind = ""
     seen_sheet = False
     for i, (ident, text) in enumerate(split.sections):
         is_sheet = ident in sheet_sections
+        length = len(fill(text)) if fill and is_sheet else len(text)
         this = "sheet" if is_sheet else ("back" if seen_sheet else "front")
         seen_sheet = seen_sheet or is_sheet
-        if not chunks or this != kind or (is_sheet and size + len(text) > CHUNK_HTML_CHARS):
+        if not chunks or this != kind or (is_sheet and size + length > CHUNK_HTML_CHARS):
             chunks.append([])
             size = 0
         kind = this
         chunks[-1].append(i)
-        size += len(text)
+        size += length
     return chunks
 
 
@@ -344,6 +350,7 @@ def paginate(
     base_url: str | None = None,
     guess: dict[str, int] | None = None,
     pool: concurrent.futures.Executor | None = None,
+    fill: Callable[[str], str] | None = None,
 ) -> Layout:
     """Lay out, chunk by chunk, until every section's page count is the one assumed.
 
@@ -356,6 +363,9 @@ def paginate(
             layout pass is enough. Sections not given are assumed to take one page.
         pool: worker processes to lay out the chunks after the first in parallel (the first,
             with the cover, is laid out here); None lays out every chunk in this process.
+        fill: applied to each chunk's HTML before it is laid out. The build passes the sheets
+            to ``make_html`` with placeholders for their bodies and fills them in per chunk,
+            so that the whole package never exists as one string.
 
     Returns:
         The final layout, ready for :func:`write_pdf`.
@@ -367,7 +377,9 @@ def paginate(
     for _ in range(4):
         counts = {path: assumed[ident] for path, ident in sheet_ids.items()}
         split = _split(make_html(counts), section_ids)
-        layout, measured = _one_pass(split, assumed, set(sheet_ids.values()), roles, base_url, pool)
+        layout, measured = _one_pass(
+            split, assumed, set(sheet_ids.values()), roles, base_url, pool, fill
+        )
         if layout is not None:
             return layout
         assumed = measured
@@ -381,6 +393,7 @@ def _one_pass(
     roles: Sequence[str],
     base_url: str | None,
     pool: concurrent.futures.Executor | None,
+    fill: Callable[[str], str] | None,
 ) -> tuple[Layout | None, dict[str, int]]:
     """Lay out every chunk with the assumed page counts written in; the layout if they held,
     and the measured page count of every section."""
@@ -392,13 +405,14 @@ def _one_pass(
     for ident, _ in split.sections:
         starts[ident] = page
         page += assumed[ident]
-    groups = _chunks(split, sheet_sections)
+    groups = _chunks(split, sheet_sections, fill)
     ids = [[split.sections[i][0] for i in group] for group in groups]
 
     def chunk_html(n: int) -> str:
         # Each chunk starts where the assumed counts put it, so chunks are independent.
         offset = starts[ids[n][0]] - 1
-        return _chunk_html(split, groups[n], offset=offset, total=total, starts=starts)
+        html = _chunk_html(split, groups[n], offset=offset, total=total, starts=starts)
+        return fill(html) if fill else html
 
     # Chunks after the first go to the workers a few at a time (each carries its HTML).
     queued: collections.deque[concurrent.futures.Future[_Chunk]] = collections.deque()

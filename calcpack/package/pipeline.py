@@ -329,9 +329,15 @@ def _lay_out(
         section_ids.append("appendix-source")
     if report:
         report("layout", f"{len(docs)} sheets")
+    # The sheets' bodies (most of the package) are filled in chunk by chunk.
+    stubs = [replace(doc, body_html=f"<!--cp-body-{i}-->") for i, doc in enumerate(docs)]
+
+    def fill(html: str) -> str:
+        return _BODY_STUB_RE.sub(lambda m: docs[int(m.group(1))].body_html, html)
+
     return paginate(
         lambda counts: document_html(
-            project, docs, replace(options, sheet_pages=counts), created=created
+            project, stubs, replace(options, sheet_pages=counts), created=created
         ),
         sheet_ids=sheet_ids,
         section_ids=section_ids,
@@ -339,27 +345,39 @@ def _lay_out(
         base_url=str(project.root),
         guess=_page_guess(previous, executed, sheet_ids, options),
         pool=pool,
+        fill=fill,
     )
 
 
+_BODY_STUB_RE = re.compile(r"<!--cp-body-(\d+)-->")
+
 _worker_math_cache: str | None = None
 """In a worker process: the formula cache file already read."""
+_worker_sent: set[tuple[str, bool, float]] = set()
+"""In a worker process: formulas the build already has (read from the file, or sent)."""
 
 
 def _prepare_in_worker(
     item: ExecutedSheet, source: bool, math_cache: str | None
-) -> tuple[SheetDoc, list[Any]]:
-    """:func:`prepare_sheet` in a worker process; also returns the formulas it used (in the
-    cache file's form) for the build to save."""
+) -> tuple[SheetDoc, list[Any], list[tuple[str, bool, float]]]:
+    """:func:`prepare_sheet` in a worker process.
+
+    Returns the sheet, the formulas this worker typeset that the build does not have yet (in
+    the cache file's form) and the keys of every formula the sheet used, for the build to
+    save the formula cache. Formulas the build already has are not sent back again.
+    """
     global _worker_math_cache
-    from calcpack.package.mathsvg import cache_entries, load_math_cache, used_keys
+    from calcpack.package.mathsvg import cache_entries, known_keys, load_math_cache, used_keys
 
     if math_cache is not None and math_cache != _worker_math_cache:
         load_math_cache(Path(math_cache))
         _worker_math_cache = math_cache
+        _worker_sent.update(known_keys())
     used_keys.clear()
     doc = prepare_sheet(item.entry, item, source=source)
-    return doc, cache_entries(set(used_keys))
+    new = used_keys - _worker_sent
+    _worker_sent.update(new)
+    return doc, cache_entries(new), sorted(used_keys)
 
 
 def build(
@@ -445,7 +463,7 @@ def build(
     with contextlib.ExitStack() as stack:
         # One pool of workers for the whole build: executing, converting and laying out.
         pool = stack.enter_context(worker_pool(workers))
-        converting: dict[str, concurrent.futures.Future[tuple[SheetDoc, list[Any]]]] = {}
+        converting: dict[str, concurrent.futures.Future[Any]] = {}
         docs_here: dict[str, SheetDoc] = {}
 
         def convert(item: ExecutedSheet) -> None:
@@ -472,8 +490,9 @@ def build(
         docs = []
         for item in executed:
             if item.entry.path in converting:
-                doc, formulas = converting.pop(item.entry.path).result()
+                doc, formulas, used = converting.pop(item.entry.path).result()
                 add_cache_entries(formulas)
+                used_keys.update(used)
             else:
                 doc = docs_here.pop(item.entry.path)
             docs.append(doc)

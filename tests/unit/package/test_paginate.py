@@ -209,3 +209,24 @@ def test_counts_that_never_settle_are_refused(one_sheet_per_chunk: None) -> None
 
     with pytest.raises(BuildError, match="did not settle"):
         build(unstable)
+
+
+@pytest.mark.usefixtures("one_sheet_per_chunk")
+def test_bodies_filled_in_per_chunk_give_the_same_pdf() -> None:
+    filled: list[int] = []
+
+    def stubbed(counts: dict[str, int]) -> str:
+        html = stand_in(counts)
+        for i in range(1, len(SHEET_PAGES) + 1):
+            html = html.replace(f"<h1>Sheet {i}</h1>", f"<!--body-{i}-->")
+        return html
+
+    def fill(html: str) -> str:
+        def body(m: re.Match[str]) -> str:
+            filled.append(int(m.group(1)))
+            return f"<h1>Sheet {m.group(1)}</h1>"
+
+        return re.sub(r"<!--body-(\d+)-->", body, html)
+
+    assert build(stubbed, fill=fill) == build()
+    assert set(filled) == {1, 2, 3, 4}
