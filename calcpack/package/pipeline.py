@@ -312,8 +312,13 @@ def _lay_out(
     reviewer_copy: bool,
     report: Reporter | None,
     pool: concurrent.futures.Executor | None,
+    bodies: Path,
 ) -> Layout:
-    """Paginate the package (see :func:`calcpack.package.paginate.paginate`)."""
+    """Paginate the package (see :func:`calcpack.package.paginate.paginate`).
+
+    ``docs`` carry placeholders for their bodies, which wait in files in ``bodies`` (see
+    :func:`_spill_body`) and are filled in chunk by chunk.
+    """
     sheet_ids = _sheet_ids(docs)
     section_ids = [
         "cover",
@@ -329,15 +334,13 @@ def _lay_out(
         section_ids.append("appendix-source")
     if report:
         report("layout", f"{len(docs)} sheets")
-    # The sheets' bodies (most of the package) are filled in chunk by chunk.
-    stubs = [replace(doc, body_html=f"<!--cp-body-{i}-->") for i, doc in enumerate(docs)]
 
     def fill(html: str) -> str:
-        return _BODY_STUB_RE.sub(lambda m: docs[int(m.group(1))].body_html, html)
+        return _BODY_STUB_RE.sub(lambda m: _body_file(bodies, m.group(1)).read_text("utf-8"), html)
 
     return paginate(
         lambda counts: document_html(
-            project, stubs, replace(options, sheet_pages=counts), created=created
+            project, docs, replace(options, sheet_pages=counts), created=created
         ),
         sheet_ids=sheet_ids,
         section_ids=section_ids,
@@ -351,6 +354,18 @@ def _lay_out(
 
 _BODY_STUB_RE = re.compile(r"<!--cp-body-(\d+)-->")
 
+
+def _body_file(bodies: Path, index: int | str) -> Path:
+    return bodies / f"sheet-{index}.html"
+
+
+def _spill_body(doc: SheetDoc, index: int, bodies: Path) -> SheetDoc:
+    """Write a sheet's body (its math images make it most of the package) to a file and keep
+    a placeholder: a large package's bodies never sit in the build's memory all at once."""
+    _body_file(bodies, index).write_text(doc.body_html, "utf-8")
+    return replace(doc, body_html=f"<!--cp-body-{index}-->")
+
+
 _worker_math_cache: str | None = None
 """In a worker process: the formula cache file already read."""
 _worker_sent: set[tuple[str, bool, float]] = set()
@@ -358,9 +373,9 @@ _worker_sent: set[tuple[str, bool, float]] = set()
 
 
 def _prepare_in_worker(
-    item: ExecutedSheet, source: bool, math_cache: str | None
+    item: ExecutedSheet, source: bool, math_cache: str | None, index: int, bodies: str
 ) -> tuple[SheetDoc, list[Any], list[tuple[str, bool, float]]]:
-    """:func:`prepare_sheet` in a worker process.
+    """:func:`prepare_sheet` in a worker process, its body spilled to ``bodies``.
 
     Returns the sheet, the formulas this worker typeset that the build does not have yet (in
     the cache file's form) and the keys of every formula the sheet used, for the build to
@@ -374,7 +389,7 @@ def _prepare_in_worker(
         _worker_math_cache = math_cache
         _worker_sent.update(known_keys())
     used_keys.clear()
-    doc = prepare_sheet(item.entry, item, source=source)
+    doc = _spill_body(prepare_sheet(item.entry, item, source=source), index, Path(bodies))
     new = used_keys - _worker_sent
     _worker_sent.update(new)
     return doc, cache_entries(new), sorted(used_keys)
@@ -462,7 +477,10 @@ def build(
     used_keys.clear()
     with contextlib.ExitStack() as stack:
         # One pool of workers for the whole build: executing, converting and laying out.
+        # (The bodies' folder goes after the pool has stopped: no worker is still writing.)
+        bodies = Path(stack.enter_context(tempfile.TemporaryDirectory(prefix="calcpack-")))
         pool = stack.enter_context(worker_pool(workers))
+        index = {sheet.path: i for i, sheet in enumerate(project.sheets)}
         converting: dict[str, concurrent.futures.Future[Any]] = {}
         docs_here: dict[str, SheetDoc] = {}
 
@@ -470,12 +488,14 @@ def build(
             """Convert a sheet as soon as it is executed (or read from the cache)."""
             if report:
                 report("rendering", item.entry.path)
+            n = index[item.entry.path]
             if pool is None:
-                docs_here[item.entry.path] = prepare_sheet(item.entry, item, source=reviewer_copy)
+                doc = prepare_sheet(item.entry, item, source=reviewer_copy)
+                docs_here[item.entry.path] = _spill_body(doc, n, bodies)
             else:
                 cache_file = str(math_cache) if use_cache else None
                 converting[item.entry.path] = pool.submit(
-                    _prepare_in_worker, item, reviewer_copy, cache_file
+                    _prepare_in_worker, item, reviewer_copy, cache_file, n, str(bodies)
                 )
 
         executed = execute_sheets(
@@ -497,7 +517,7 @@ def build(
                 doc = docs_here.pop(item.entry.path)
             docs.append(doc)
         layout = _lay_out(
-            project, docs, executed, options, created, previous, reviewer_copy, report, pool
+            project, docs, executed, options, created, previous, reviewer_copy, report, pool, bodies
         )
     if use_cache:
         save_math_cache(math_cache, set(used_keys))
