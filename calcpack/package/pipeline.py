@@ -16,6 +16,7 @@ from __future__ import annotations
 import concurrent.futures
 import contextlib
 import datetime as _dt
+import functools
 import hashlib
 import os
 import re
@@ -27,6 +28,7 @@ from pathlib import Path
 from typing import Any
 
 from calcpack.errors import BuildError
+from calcpack.package.bodies import fill_bodies, prepare_in_worker, spill_body
 from calcpack.package.document import (
     ROLES,
     DocumentOptions,
@@ -317,7 +319,7 @@ def _lay_out(
     """Paginate the package (see :func:`calcpack.package.paginate.paginate`).
 
     ``docs`` carry placeholders for their bodies, which wait in files in ``bodies`` (see
-    :func:`_spill_body`) and are filled in chunk by chunk.
+    :mod:`calcpack.package.bodies`) and are filled in chunk by chunk.
     """
     sheet_ids = _sheet_ids(docs)
     section_ids = [
@@ -335,9 +337,6 @@ def _lay_out(
     if report:
         report("layout", f"{len(docs)} sheets")
 
-    def fill(html: str) -> str:
-        return _BODY_STUB_RE.sub(lambda m: _body_file(bodies, m.group(1)).read_text("utf-8"), html)
-
     return paginate(
         lambda counts: document_html(
             project, docs, replace(options, sheet_pages=counts), created=created
@@ -348,51 +347,8 @@ def _lay_out(
         base_url=str(project.root),
         guess=_page_guess(previous, executed, sheet_ids, options),
         pool=pool,
-        fill=fill,
+        fill=functools.partial(fill_bodies, bodies),
     )
-
-
-_BODY_STUB_RE = re.compile(r"<!--cp-body-(\d+)-->")
-
-
-def _body_file(bodies: Path, index: int | str) -> Path:
-    return bodies / f"sheet-{index}.html"
-
-
-def _spill_body(doc: SheetDoc, index: int, bodies: Path) -> SheetDoc:
-    """Write a sheet's body (its math images make it most of the package) to a file and keep
-    a placeholder: a large package's bodies never sit in the build's memory all at once."""
-    _body_file(bodies, index).write_text(doc.body_html, "utf-8")
-    return replace(doc, body_html=f"<!--cp-body-{index}-->")
-
-
-_worker_math_cache: str | None = None
-"""In a worker process: the formula cache file already read."""
-_worker_sent: set[tuple[str, bool, float]] = set()
-"""In a worker process: formulas the build already has (read from the file, or sent)."""
-
-
-def _prepare_in_worker(
-    item: ExecutedSheet, source: bool, math_cache: str | None, index: int, bodies: str
-) -> tuple[SheetDoc, list[Any], list[tuple[str, bool, float]]]:
-    """:func:`prepare_sheet` in a worker process, its body spilled to ``bodies``.
-
-    Returns the sheet, the formulas this worker typeset that the build does not have yet (in
-    the cache file's form) and the keys of every formula the sheet used, for the build to
-    save the formula cache. Formulas the build already has are not sent back again.
-    """
-    global _worker_math_cache
-    from calcpack.package.mathsvg import cache_entries, known_keys, load_math_cache, used_keys
-
-    if math_cache is not None and math_cache != _worker_math_cache:
-        load_math_cache(Path(math_cache))
-        _worker_math_cache = math_cache
-        _worker_sent.update(known_keys())
-    used_keys.clear()
-    doc = _spill_body(prepare_sheet(item.entry, item, source=source), index, Path(bodies))
-    new = used_keys - _worker_sent
-    _worker_sent.update(new)
-    return doc, cache_entries(new), sorted(used_keys)
 
 
 def build(
@@ -491,11 +447,11 @@ def build(
             n = index[item.entry.path]
             if pool is None:
                 doc = prepare_sheet(item.entry, item, source=reviewer_copy)
-                docs_here[item.entry.path] = _spill_body(doc, n, bodies)
+                docs_here[item.entry.path] = spill_body(doc, n, bodies)
             else:
                 cache_file = str(math_cache) if use_cache else None
                 converting[item.entry.path] = pool.submit(
-                    _prepare_in_worker, item, reviewer_copy, cache_file, n, str(bodies)
+                    prepare_in_worker, item, reviewer_copy, cache_file, n, str(bodies)
                 )
 
         executed = execute_sheets(
