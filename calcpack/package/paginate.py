@@ -321,6 +321,11 @@ class _Chunk:
     holds: bool
 
 
+def _as_assumed(sections: dict[str, tuple[int, int]], assumed: dict[str, int]) -> bool:
+    """Whether every section laid out has the page count assumed for it."""
+    return all(b - a + 1 == assumed[ident] for ident, (a, b) in sections.items())
+
+
 def _lay_out_chunk(
     html: str, ids: Sequence[str], assumed: dict[str, int] | None, base_url: str | None
 ) -> _Chunk:
@@ -331,9 +336,7 @@ def _lay_out_chunk(
     with _cross_chunk_links_expected():
         document = HTML(string=html, base_url=base_url).render()
         sections = _section_pages(document, ids)
-        holds = assumed is not None and all(
-            b - a + 1 == assumed[ident] for ident, (a, b) in sections.items()
-        )
+        holds = assumed is not None and _as_assumed(sections, assumed)
         pdf = document.write_pdf(pdf_variant=PDF_VARIANT) if holds else None
         return _Chunk(sections, len(document.pages), tuple(_foreign_links(document)), pdf, holds)
 
@@ -431,7 +434,7 @@ def _one_pass(
         fields = _signature_fields(first, roles) if roles else []
         first_links = _foreign_links(first)
     chunks = [_Chunk(first_sections, len(first.pages), tuple(first_links), None, True)]
-    holds = all(b - a + 1 == assumed[i] for i, (a, b) in first_sections.items())
+    holds = _as_assumed(first_sections, assumed)
     if pool is not None:
         while queued:
             chunks.append(queued.popleft().result())
