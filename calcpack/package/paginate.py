@@ -16,9 +16,11 @@ document is written into each chunk instead:
 
 Those values are known only after a layout, and "sheet page n of N" needs the page count of each
 sheet, so :func:`paginate` lays out with assumed page counts per section (the previous build's
-when known), compares, and lays out again with the measured counts until they hold. A chunk is
-written to PDF as soon as it is laid out while every count so far matches the assumption; once
-one differs, the rest of that pass only counts pages.
+when known), compares, and lays out again with the measured counts until they hold. Since every
+chunk starts on the page the assumed counts give it, chunks are independent: with a pool of
+worker processes the chunks after the first are laid out there, in parallel. A chunk is written
+to PDF right after its layout if its own counts are the assumed ones (in this process, only while
+every count so far was); the others are only counted.
 
 The sign-off boxes of the cover are measured from the final layout, in PDF points with the origin
 at the bottom left, for the signing step to place its signature fields.
