@@ -18,6 +18,7 @@ from __future__ import annotations
 
 import concurrent.futures
 import concurrent.futures.process
+import contextlib
 import hashlib
 import logging
 import multiprocessing
@@ -26,7 +27,7 @@ import re
 import sys
 import tempfile
 import time
-from collections.abc import Callable, Sequence
+from collections.abc import Callable, Iterator, Sequence
 from dataclasses import dataclass
 from pathlib import Path
 from typing import Any
@@ -40,7 +41,9 @@ __all__ = [
     "ExecutedSheet",
     "execute_notebook",
     "execute_sheets",
+    "process_pool",
     "sheet_cache_key",
+    "worker_pool",
 ]
 
 CACHE_DIR_NAME = ".calcpack-cache"
@@ -248,6 +251,30 @@ def _store(cache_dir: Path, sheet: SheetEntry, key: str, notebook_json: str) -> 
             old.unlink(missing_ok=True)
 
 
+def process_pool(workers: int) -> concurrent.futures.ProcessPoolExecutor:
+    """Worker processes for a build, started with *spawn* (see the module docstring)."""
+    return concurrent.futures.ProcessPoolExecutor(
+        max_workers=workers, mp_context=multiprocessing.get_context("spawn")
+    )
+
+
+@contextlib.contextmanager
+def worker_pool(workers: int) -> Iterator[concurrent.futures.ProcessPoolExecutor | None]:
+    """A pool of ``workers`` processes for a build (None for one worker: all in this process).
+
+    On the way out, work not yet started is cancelled, so a failure is reported without
+    waiting for the rest of the build's queue.
+    """
+    if workers <= 1:
+        yield None
+        return
+    pool = process_pool(workers)
+    try:
+        yield pool
+    finally:
+        pool.shutdown(wait=True, cancel_futures=True)
+
+
 def execute_sheets(
     project: Project,
     *,
@@ -257,6 +284,8 @@ def execute_sheets(
     cache_dir: Path | None = None,
     progress: ProgressCallback | None = None,
     sheets: Sequence[SheetEntry] | None = None,
+    pool: concurrent.futures.Executor | None = None,
+    on_ready: Callable[[ExecutedSheet], None] | None = None,
 ) -> list[ExecutedSheet]:
     """Execute every sheet of a project (unchanged sheets come from the cache), in order.
 
@@ -268,6 +297,11 @@ def execute_sheets(
         cache_dir: cache folder (default ``PROJECT/.calcpack-cache``).
         progress: optional callback for progress display.
         sheets: a subset of the project's sheets (default all).
+        pool: worker processes to use (the build shares one pool between execution,
+            conversion and layout); by default a pool of ``workers`` is started when more
+            than one sheet is to be executed.
+        on_ready: called with each sheet as soon as it is available (cached sheets first,
+            then executed ones as they finish), so that later stages can start on it.
 
     Raises:
         NotebookExecutionError: the first sheet that failed (in project order), naming the
@@ -288,6 +322,8 @@ def execute_sheets(
             )
             if progress:
                 progress("cached", sheet)
+            if on_ready:
+                on_ready(results[sheet.path])
         else:
             pending.append((sheet, key))
 
@@ -299,53 +335,71 @@ def execute_sheets(
             _store(cache, sheet, key, outcome[1])
         if progress:
             progress("executed", sheet)
+        if on_ready:
+            on_ready(results[sheet.path])
 
-    if len(pending) <= 1 or workers == 1:
+    if pool is None and (len(pending) <= 1 or workers == 1):
         for sheet, key in pending:
             if progress:
                 progress("executing", sheet)
             start = time.perf_counter()
             outcome = _execute(str(project.sheet_path(sheet)), sheet.path, timeout)
             finish(sheet, key, outcome, time.perf_counter() - start)
-    else:
-        context = multiprocessing.get_context("spawn")
-        with concurrent.futures.ProcessPoolExecutor(
-            max_workers=min(workers, len(pending)), mp_context=context
-        ) as pool:
-            futures = {}
-            starts: dict[str, float] = {}
-            for sheet, key in pending:
-                starts[sheet.path] = time.perf_counter()
-                future = pool.submit(_execute, str(project.sheet_path(sheet)), sheet.path, timeout)
-                futures[future] = (sheet, key)
-            if progress:
-                for sheet, _ in pending[: min(workers, len(pending))]:
-                    progress("executing", sheet)
-            failures: list[tuple[int, tuple[Any, ...]]] = []
-            order = {s.path: i for i, s in enumerate(todo)}
-            next_up = min(workers, len(pending))
-            for future in concurrent.futures.as_completed(futures):
-                sheet, key = futures[future]
-                try:
-                    outcome = future.result()
-                except concurrent.futures.process.BrokenProcessPool as exc:
-                    raise BuildError(
-                        f"A worker process executing sheet {sheet.path!r} stopped abruptly "
-                        "(out of memory, or a script that starts the build without an "
-                        "`if __name__ == '__main__':` guard); try --workers 1"
-                    ) from exc
-                if outcome[0] == "error":
-                    failures.append((order[sheet.path], outcome))
-                    for other in futures:
-                        other.cancel()
-                    continue
-                if failures:
-                    continue
-                finish(sheet, key, outcome, time.perf_counter() - starts[sheet.path])
-                if progress and next_up < len(pending):
-                    progress("executing", pending[next_up][0])
-                    next_up += 1
-            if failures:
-                failures.sort(key=lambda item: item[0])
-                raise NotebookExecutionError(*failures[0][1][1:])
+    elif pending:
+        with contextlib.ExitStack() as stack:
+            if pool is None:
+                pool = stack.enter_context(worker_pool(min(workers, len(pending))))
+            assert pool is not None
+            _execute_in(pool, pending, project, timeout, workers, progress, finish, todo)
     return [results[s.path] for s in todo]
+
+
+def _execute_in(
+    pool: concurrent.futures.Executor,
+    pending: list[tuple[SheetEntry, str]],
+    project: Project,
+    timeout: float,
+    workers: int,
+    progress: ProgressCallback | None,
+    finish: Callable[[SheetEntry, str, tuple[Any, ...], float], None],
+    todo: list[SheetEntry],
+) -> None:
+    """Execute the pending sheets in the pool; ``finish`` each in completion order."""
+    futures = {}
+    starts: dict[str, float] = {}
+    for sheet, key in pending:
+        starts[sheet.path] = time.perf_counter()
+        future = pool.submit(_execute, str(project.sheet_path(sheet)), sheet.path, timeout)
+        futures[future] = (sheet, key)
+    if progress:
+        for sheet, _ in pending[: min(workers, len(pending))]:
+            progress("executing", sheet)
+    failures: list[tuple[int, tuple[Any, ...]]] = []
+    order = {s.path: i for i, s in enumerate(todo)}
+    next_up = min(workers, len(pending))
+    for future in concurrent.futures.as_completed(futures):
+        sheet, key = futures[future]
+        if future.cancelled():  # after a failure: its result is not wanted
+            continue
+        try:
+            outcome = future.result()
+        except concurrent.futures.process.BrokenProcessPool as exc:
+            raise BuildError(
+                f"A worker process executing sheet {sheet.path!r} stopped abruptly "
+                "(out of memory, or a script that starts the build without an "
+                "`if __name__ == '__main__':` guard); try --workers 1"
+            ) from exc
+        if outcome[0] == "error":
+            failures.append((order[sheet.path], outcome))
+            for other in futures:
+                other.cancel()
+            continue
+        if failures:
+            continue
+        finish(sheet, key, outcome, time.perf_counter() - starts[sheet.path])
+        if progress and next_up < len(pending):
+            progress("executing", pending[next_up][0])
+            next_up += 1
+    if failures:
+        failures.sort(key=lambda item: item[0])
+        raise NotebookExecutionError(*failures[0][1][1:])

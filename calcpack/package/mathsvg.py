@@ -40,8 +40,13 @@ from calcpack.package.mathbreak import break_display, flatten_delimiters
 __all__ = [
     "MATH_SPAN_RE",
     "MathImage",
+    "add_break_entries",
+    "add_cache_entries",
+    "break_entries",
+    "cache_entries",
     "fitted_image",
     "fix_tex",
+    "known_keys",
     "load_math_cache",
     "markdown_math_to_spans",
     "math_spans_to_images",
@@ -142,39 +147,75 @@ def load_math_cache(path: Path) -> int:
         return 0
     if not isinstance(data, dict) or data.get("format") != _CACHE_FORMAT:
         return 0
-    loaded = 0
-    for item in data.get("formulas", []):
+    add_break_entries(data.get("breaks", []))
+    return add_cache_entries(data.get("formulas", []), mark_used=False)
+
+
+def add_cache_entries(items: list[Any], *, mark_used: bool = True) -> int:
+    """Add formulas in the saved form (see :func:`cache_entries`) to the in-memory cache.
+
+    Used to read the cache file and to take the formulas a worker process typeset; with
+    ``mark_used`` they count as used by this build (and are saved). Returns the count added.
+    """
+    added = 0
+    for item in items:
         try:
             tex, display, size, svg, width, height, baseline = item
             key = (str(tex), bool(display), float(size))
             _cache.setdefault(
                 key, MathImage(key[0], str(svg), float(width), float(height), float(baseline))
             )
-            loaded += 1
         except (TypeError, ValueError):
             continue
-    for item in data.get("breaks", []):
+        if mark_used:
+            used_keys.add(key)
+        added += 1
+    return added
+
+
+def add_break_entries(items: list[Any]) -> int:
+    """Add line breaks of wide formulas in the saved form (see :func:`break_entries`)."""
+    added = 0
+    for item in items:
         try:
             tex, width, broken = item
             _breaks.setdefault((str(tex), float(width)), str(broken))
         except (TypeError, ValueError):
             continue
-    return loaded
+        added += 1
+    return added
 
 
-def save_math_cache(path: Path, used: set[tuple[str, bool, float]] | None = None) -> None:
-    """Write the in-memory formula cache (only ``used`` keys when given) to ``path``."""
-    items = [
+def known_keys() -> set[tuple[str, bool, float]]:
+    """The keys of every formula in the in-memory cache."""
+    return set(_cache)
+
+
+def cache_entries(used: set[tuple[str, bool, float]] | None = None) -> list[list[Any]]:
+    """The in-memory formulas (only ``used`` keys when given) in the saved form, sorted."""
+    return [
         [k[0], k[1], k[2], v.svg, v.width_px, v.height_px, v.baseline_px]
         for k, v in sorted(_cache.items())
         if used is None or k in used
     ]
-    # A break is kept while the formula it produced is (its fragments are not kept at all).
-    breaks = [
+
+
+def break_entries(used: set[tuple[str, bool, float]] | None = None) -> list[list[Any]]:
+    """The line breaks of wide formulas in the saved form, sorted.
+
+    A break is kept while the formula it produced is used (its fragments are not kept at all).
+    """
+    return [
         [tex, width, broken]
         for (tex, width), broken in sorted(_breaks.items())
         if used is None or (broken, True, MATH_PX_PER_EM) in used
     ]
+
+
+def save_math_cache(path: Path, used: set[tuple[str, bool, float]] | None = None) -> None:
+    """Write the in-memory formula cache (only ``used`` keys when given) to ``path``."""
+    items = cache_entries(used)
+    breaks = break_entries(used)
     path.parent.mkdir(parents=True, exist_ok=True)
     tmp = path.with_suffix(".tmp")
     data = {"format": _CACHE_FORMAT, "formulas": items, "breaks": breaks}

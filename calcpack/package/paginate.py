@@ -1,31 +1,66 @@
-"""Lay the package HTML out with WeasyPrint and write the PDF.
+"""Lay the package HTML out with WeasyPrint, in chunks, and write one PDF.
 
-A per-sheet "page n of N" cannot be expressed in CSS alone (the page counter counts the whole
-document), so the build lays the document out once, counts the pages of every sheet, writes the
-counts into the title blocks and lays it out again (:func:`paginate`). The sign-off boxes of the
-cover are measured from the final layout, in PDF points with the origin at the bottom left, for
-the signing step to place its signature fields.
+A laid-out WeasyPrint document holds every page's boxes: a 200-sheet package laid out in one
+piece needs gigabytes. The package is therefore laid out in *chunks* of whole sections (the
+cover and front matter; groups of sheets; the back matter), each written to PDF and freed before
+the next, and the chunk PDFs are joined with pypdf. What CSS would compute across the whole
+document is written into each chunk instead:
+
+- the package page number: each chunk's page counter starts at its offset (``counter-set`` on
+  its first page) and ``counter(pages)`` is replaced by the package's page count;
+- the contents page numbers: ``target-counter(attr(href), page)`` is replaced by an attribute
+  holding the target section's page, written on every link to a section;
+- the running footer strings (``.cp-strings``) are repeated at the start of every chunk;
+- links and outline: each chunk's bookmarks and links within it are kept by the join; links to
+  a section in another chunk are added after the join, as named destinations.
+
+Those values are known only after a layout, and "sheet page n of N" needs the page count of each
+sheet, so :func:`paginate` lays out with assumed page counts per section (the previous build's
+when known), compares, and lays out again with the measured counts until they hold. Since every
+chunk starts on the page the assumed counts give it, chunks are independent: with a pool of
+worker processes the chunks after the first are laid out there, in parallel. A chunk is written
+to PDF right after its layout if its own counts are the assumed ones (in this process, only while
+every count so far was); the others are only counted.
+
+The sign-off boxes of the cover are measured from the final layout, in PDF points with the origin
+at the bottom left, for the signing step to place its signature fields.
 
 The PDF is reproducible: its dates come from the caller (the revision date or
 SOURCE_DATE_EPOCH), the identifier is a hash of the content, and the attached files carry the
-same fixed dates.
+same fixed dates. It is written as PDF/A-3b (archival, with attachments).
 """
 
 from __future__ import annotations
 
+import collections
+import concurrent.futures
+import contextlib
 import datetime as _dt
 import hashlib
 import io
-from collections.abc import Callable, Sequence
-from dataclasses import dataclass
+import itertools
+import logging
+import re
+from collections.abc import Callable, Iterator, Sequence
+from dataclasses import dataclass, field, replace
 from typing import Any
 
 from calcpack.errors import BuildError
 
-__all__ = ["Layout", "PdfAttachment", "layout_html", "paginate", "write_pdf"]
+__all__ = ["Layout", "PdfAttachment", "paginate", "split_sections", "write_pdf"]
 
 PX_TO_PT = 0.75
 """CSS px to PDF points (96 px = 72 pt = 1 in)."""
+
+CHUNK_HTML_CHARS = 2_500_000
+"""Sheets are grouped into chunks of about this much HTML (math images included). Layout memory
+grows with the chunk: a chunk this size peaks at roughly 150 MB, where a 200-sheet package laid
+out whole needed over 2 GB."""
+
+IN_FLIGHT = 4
+"""Chunks handed to the worker processes at a time (their HTML waits in this process)."""
+
+PDF_VARIANT = "pdf/a-3b"
 
 
 @dataclass(frozen=True)
@@ -38,19 +73,149 @@ class PdfAttachment:
 
 
 @dataclass(frozen=True)
-class Layout:
-    """A laid-out document and what the build reads back from it."""
+class _Link:
+    """A link to a section laid out in another chunk."""
 
-    document: Any
-    """The weasyprint Document."""
+    page: int
+    """0-based page of the package."""
+    rect: tuple[float, float, float, float]
+    """x1, y1, x2, y2 in PDF points, origin bottom left."""
+    target: str
+
+
+@dataclass(frozen=True)
+class Layout:
+    """The laid-out package, ready to write, and what the build reads back from it."""
+
     page_count: int
     section_pages: dict[str, tuple[int, int]]
     """Section id -> (first, last) page, 1-based."""
     signature_fields: tuple[dict[str, Any], ...]
     """[{"role", "page" (0-based), "box": [x1, y1, x2, y2] in pt, origin bottom-left}]."""
+    first: Any = field(repr=False)
+    """The weasyprint Document of the first chunk, written last with the attachments."""
+    rest: tuple[bytes, ...] = field(repr=False)
+    """The PDFs of the other chunks, in order."""
+    links: tuple[_Link, ...] = field(repr=False)
 
 
-def _walk(box: Any) -> Any:
+# --------------------------------------------------------------------------- the HTML in chunks
+
+_SECTION_RE = '<section\\b[^>]*\\bid="{ident}"[^>]*>'
+_STRINGS_RE = re.compile(r'<div class="cp-strings"[^>]*></div>')
+_LINK_RE = re.compile(r'<a\b([^>]*?)\bhref="#([^"]+)"')
+_TARGET_PAGE_RE = re.compile(r"target-counter\(\s*attr\(\s*href\s*\)\s*,\s*page\s*\)")
+
+
+@dataclass(frozen=True)
+class _Split:
+    head: str
+    """Everything up to and including ``<body>``."""
+    sections: tuple[tuple[str, str], ...]
+    """(section id, its HTML), in document order."""
+    tail: str
+    strings: str
+    """The running footer strings element (empty if the document has none)."""
+
+
+def split_sections(html: str, section_ids: Sequence[str]) -> tuple[str, list[tuple[str, str]], str]:
+    """Cut the package HTML into its head, its top-level sections and its tail.
+
+    Args:
+        html: the whole document (``document_html``).
+        section_ids: the ids of its top-level ``<section>`` elements, in document order.
+
+    Raises:
+        BuildError: a section is missing or out of order.
+    """
+    body = html.find("<body>")
+    if body < 0:
+        raise BuildError("Package HTML has no <body>")
+    head_end = body + len("<body>")
+    starts = []
+    position = head_end
+    for ident in section_ids:
+        m = re.compile(_SECTION_RE.format(ident=re.escape(ident))).search(html, position)
+        if m is None:
+            raise BuildError(f"Package HTML has no section {ident!r} after the ones before it")
+        starts.append(m.start())
+        position = m.end()
+    end = html.rfind("</body>")
+    if end < position:
+        raise BuildError("Package HTML has no </body> after its last section")
+    bounds = [*starts, end]
+    sections = [(ident, html[bounds[i] : bounds[i + 1]]) for i, ident in enumerate(section_ids)]
+    return html[:head_end], sections, html[end:]
+
+
+def _split(html: str, section_ids: Sequence[str]) -> _Split:
+    head, sections, tail = split_sections(html, section_ids)
+    m = _STRINGS_RE.search(html)
+    return _Split(head, tuple(sections), tail, m.group(0) if m else "")
+
+
+def _chunks(
+    split: _Split, sheet_sections: set[str], fill: Callable[[str], str] | None = None
+) -> list[list[int]]:
+    """Indices of the sections in each chunk: front matter, groups of sheets, back matter.
+
+    Sheets are grouped by the size of their HTML once filled in (see :func:`paginate`).
+    """
+    chunks: list[list[int]] = []
+    size = 0
+    kind = ""
+    seen_sheet = False
+    for i, (ident, text) in enumerate(split.sections):
+        is_sheet = ident in sheet_sections
+        length = len(fill(text)) if fill and is_sheet else len(text)
+        this = "sheet" if is_sheet else ("back" if seen_sheet else "front")
+        seen_sheet = seen_sheet or is_sheet
+        if not chunks or this != kind or (is_sheet and size + length > CHUNK_HTML_CHARS):
+            chunks.append([])
+            size = 0
+        kind = this
+        chunks[-1].append(i)
+        size += length
+    return chunks
+
+
+def _chunk_html(
+    split: _Split,
+    indices: Sequence[int],
+    *,
+    offset: int,
+    total: int,
+    starts: dict[str, int],
+) -> str:
+    """One chunk as a document of its own, with the package-wide numbers written in."""
+    head = _TARGET_PAGE_RE.sub(
+        "attr(data-cp-page)", split.head.replace("counter(pages)", f'"{total}"')
+    )
+    if offset:
+        rule = f"@page :first {{ counter-set: page {offset + 1}; }}"
+        head = head.replace("</head>", f"<style>{rule}</style></head>", 1)
+
+    def number_link(m: re.Match[str]) -> str:
+        target = m.group(2)
+        if target not in starts:
+            return m.group(0)
+        return f'<a{m.group(1)} data-cp-page="{starts[target]}" href="#{target}"'
+
+    parts = [head]
+    for n, i in enumerate(indices):
+        text = _LINK_RE.sub(number_link, split.sections[i][1])
+        if n == 0 and split.strings and split.strings not in text:
+            cut = text.index(">") + 1
+            text = text[:cut] + split.strings + text[cut:]
+        parts.append(text)
+    parts.append(split.tail)
+    return "".join(parts)
+
+
+# --------------------------------------------------------------------------- one chunk's layout
+
+
+def _walk(box: Any) -> Iterator[Any]:
     yield box
     for child in getattr(box, "children", ()) or ():
         yield from _walk(child)
@@ -69,27 +234,27 @@ def _find_boxes(document: Any, ids: Sequence[str]) -> dict[str, tuple[int, Any, 
     return found
 
 
-def layout_html(
-    html: str,
-    *,
-    base_url: str | None = None,
-    section_ids: Sequence[str] = (),
-    roles: Sequence[str] = (),
-) -> Layout:
-    """Lay out the HTML; find each section's pages and each role's signature box.
+def _pt_box(
+    page: Any, x1: float, top: float, x2: float, bottom: float
+) -> tuple[float, float, float, float]:
+    """A rectangle in CSS px (origin top left) as PDF points (origin bottom left)."""
+    height = page.height * PX_TO_PT
+    return (
+        round(x1 * PX_TO_PT, 2),
+        round(height - bottom * PX_TO_PT, 2),
+        round(x2 * PX_TO_PT, 2),
+        round(height - top * PX_TO_PT, 2),
+    )
 
-    Raises:
-        BuildError: a section or signature box is missing from the layout.
-    """
-    from weasyprint import HTML
 
-    document = HTML(string=html, base_url=base_url).render()
+def _section_pages(document: Any, ids: Sequence[str]) -> dict[str, tuple[int, int]]:
+    """Section id -> (first, last) page within this document, 1-based."""
     first: dict[str, int] = {}
     for number, page in enumerate(document.pages, start=1):
         for anchor in page.anchors:
-            if anchor in section_ids and anchor not in first:
+            if anchor in ids and anchor not in first:
                 first[anchor] = number
-    missing = [s for s in section_ids if s not in first]
+    missing = [s for s in ids if s not in first]
     if missing:
         raise BuildError(f"Layout lost the section(s) {', '.join(missing)}")
     ordered = sorted(first.items(), key=lambda item: item[1])
@@ -97,32 +262,88 @@ def layout_html(
     for i, (ident, start) in enumerate(ordered):
         end = ordered[i + 1][1] - 1 if i + 1 < len(ordered) else len(document.pages)
         sections[ident] = (start, max(start, end))
+    return sections
 
-    box_ids = [f"cp-sign-{role}" for role in roles]
-    boxes = _find_boxes(document, box_ids)
+
+def _signature_fields(document: Any, roles: Sequence[str]) -> list[dict[str, Any]]:
+    boxes = _find_boxes(document, [f"cp-sign-{role}" for role in roles])
     fields = []
     for role in roles:
         if f"cp-sign-{role}" not in boxes:
             raise BuildError(f"Layout lost the sign-off box of role {role!r}")
         index, page, box = boxes[f"cp-sign-{role}"]
-        x1 = box.border_box_x() * PX_TO_PT
-        top = box.border_box_y() * PX_TO_PT
-        x2 = x1 + box.border_width() * PX_TO_PT
-        bottom = top + box.border_height() * PX_TO_PT
-        height = page.height * PX_TO_PT
-        fields.append(
-            {
-                "role": role,
-                "page": index,
-                "box": [
-                    round(x1, 2),
-                    round(height - bottom, 2),
-                    round(x2, 2),
-                    round(height - top, 2),
-                ],
-            }
-        )
-    return Layout(document, len(document.pages), sections, tuple(fields))
+        x1, top = box.border_box_x(), box.border_box_y()
+        rect = _pt_box(page, x1, top, x1 + box.border_width(), top + box.border_height())
+        fields.append({"role": role, "page": index, "box": list(rect)})
+    return fields
+
+
+def _foreign_links(document: Any) -> list[_Link]:
+    """Links whose target is not in this document (the join adds them); pages 0-based here."""
+    here = {name for page in document.pages for name in page.anchors}
+    links = []
+    for index, page in enumerate(document.pages):
+        for kind, target, rect, _box in page.links:
+            if kind == "internal" and target not in here:
+                x1, y1, x2, y2 = rect
+                links.append(_Link(index, _pt_box(page, x1, y1, x2, y2), target))
+    return links
+
+
+class _MissingAnchorFilter(logging.Filter):
+    """WeasyPrint warns of links to sections in other chunks; the join adds those links."""
+
+    def filter(self, record: logging.LogRecord) -> bool:
+        return not record.getMessage().startswith("No anchor #")
+
+
+@contextlib.contextmanager
+def _cross_chunk_links_expected() -> Iterator[None]:
+    from weasyprint.logger import LOGGER
+
+    quiet = _MissingAnchorFilter()
+    LOGGER.addFilter(quiet)
+    try:
+        yield
+    finally:
+        LOGGER.removeFilter(quiet)
+
+
+@dataclass(frozen=True)
+class _Chunk:
+    """One chunk laid out (and written when its page counts were the ones assumed)."""
+
+    sections: dict[str, tuple[int, int]]
+    """Section id -> (first, last) page within the chunk, 1-based."""
+    page_count: int
+    links: tuple[_Link, ...]
+    """Links out of the chunk, pages 0-based within the chunk."""
+    pdf: bytes | None
+    """The chunk's PDF; None when a page count differed from the assumed one."""
+    holds: bool
+
+
+def _as_assumed(sections: dict[str, tuple[int, int]], assumed: dict[str, int]) -> bool:
+    """Whether every section laid out has the page count assumed for it."""
+    return all(b - a + 1 == assumed[ident] for ident, (a, b) in sections.items())
+
+
+def _lay_out_chunk(
+    html: str, ids: Sequence[str], assumed: dict[str, int] | None, base_url: str | None
+) -> _Chunk:
+    """Lay out one chunk (not the first) and write it if its sections have the assumed page
+    counts (``assumed`` None: only count). Runs in a worker process when the build has them."""
+    from weasyprint import HTML
+
+    with _cross_chunk_links_expected():
+        document = HTML(string=html, base_url=base_url).render()
+        sections = _section_pages(document, ids)
+        holds = assumed is not None and _as_assumed(sections, assumed)
+        pdf = document.write_pdf(pdf_variant=PDF_VARIANT) if holds else None
+        return _Chunk(sections, len(document.pages), tuple(_foreign_links(document)), pdf, holds)
+
+
+# --------------------------------------------------------------------------- the passes
 
 
 def paginate(
@@ -133,39 +354,165 @@ def paginate(
     roles: Sequence[str],
     base_url: str | None = None,
     guess: dict[str, int] | None = None,
-) -> tuple[Layout, str]:
-    """Lay out until the per-sheet page counts written into the title blocks are stable.
+    pool: concurrent.futures.Executor | None = None,
+    fill: Callable[[str], str] | None = None,
+) -> Layout:
+    """Lay out, chunk by chunk, until every section's page count is the one assumed.
 
     Args:
         make_html: builds the document given {sheet path: page count} ({} on the first pass).
         sheet_ids: sheet path -> its section id.
-        section_ids: every section id in the document.
-        roles: the sign-off roles whose boxes to measure.
-        guess: page counts expected (from an earlier build of the same sheets); when right,
-            one layout pass is enough.
-        guess: page counts expected (from an earlier build of the same sheets); when right,
-            one layout pass is enough.
+        section_ids: every section id in the document, in document order.
+        roles: the sign-off roles whose boxes to measure (on the first chunk).
+        guess: page counts expected per section id (from an earlier build); when right, one
+            layout pass is enough. Sections not given are assumed to take one page.
+        pool: worker processes to lay out the chunks after the first in parallel (the first,
+            with the cover, is laid out here); None lays out every chunk in this process.
+        fill: applied to each chunk's HTML before it is laid out. The build passes the sheets
+            to ``make_html`` with placeholders for their bodies and fills them in per chunk,
+            so that the whole package never exists as one string.
 
     Returns:
-        The final layout and the HTML it was made from.
+        The final layout, ready for :func:`write_pdf`.
+
+    Raises:
+        BuildError: a section or sign-off box is missing, or the counts never settle.
     """
-    counts: dict[str, int] = dict(guess or {})
-    if set(counts) != set(sheet_ids):
-        counts = {}
+    assumed = {ident: max(1, int((guess or {}).get(ident, 1))) for ident in section_ids}
     for _ in range(4):
-        html = make_html(counts)
-        result = layout_html(html, base_url=base_url, section_ids=section_ids, roles=roles)
-        new_counts = {
-            path: result.section_pages[ident][1] - result.section_pages[ident][0] + 1
-            for path, ident in sheet_ids.items()
-        }
-        if new_counts == counts:
-            return result, html
-        counts = new_counts
-        # Free this layout before the next: a large package holds one document, not two.
-        del result
-        html = ""
-    raise BuildError("Page counts of the sheets did not settle after four layout passes")
+        counts = {path: assumed[ident] for path, ident in sheet_ids.items()}
+        split = _split(make_html(counts), section_ids)
+        layout, measured = _one_pass(
+            split, assumed, set(sheet_ids.values()), roles, base_url, pool, fill
+        )
+        if layout is not None:
+            return layout
+        assumed = measured
+    raise BuildError("Page counts of the sections did not settle after four layout passes")
+
+
+def _one_pass(
+    split: _Split,
+    assumed: dict[str, int],
+    sheet_sections: set[str],
+    roles: Sequence[str],
+    base_url: str | None,
+    pool: concurrent.futures.Executor | None,
+    fill: Callable[[str], str] | None,
+) -> tuple[Layout | None, dict[str, int]]:
+    """Lay out every chunk with the assumed page counts written in; the layout if they held,
+    and the measured page count of every section."""
+    from weasyprint import HTML
+
+    total = sum(assumed.values())
+    starts: dict[str, int] = {}
+    page = 1
+    for ident, _ in split.sections:
+        starts[ident] = page
+        page += assumed[ident]
+    groups = _chunks(split, sheet_sections, fill)
+    ids = [[split.sections[i][0] for i in group] for group in groups]
+
+    def chunk_html(n: int) -> str:
+        # Each chunk starts where the assumed counts put it, so chunks are independent.
+        offset = starts[ids[n][0]] - 1
+        html = _chunk_html(split, groups[n], offset=offset, total=total, starts=starts)
+        return fill(html) if fill else html
+
+    # Chunks after the first go to the workers a few at a time (each carries its HTML).
+    queued: collections.deque[concurrent.futures.Future[_Chunk]] = collections.deque()
+    later = iter(range(1, len(groups)))
+
+    def submit(count: int) -> None:
+        for n in itertools.islice(later, count):
+            assert pool is not None
+            queued.append(pool.submit(_lay_out_chunk, chunk_html(n), ids[n], assumed, base_url))
+
+    if pool is not None:
+        submit(IN_FLIGHT)
+    with _cross_chunk_links_expected():
+        first = HTML(string=chunk_html(0), base_url=base_url).render()
+        first_sections = _section_pages(first, ids[0])
+        fields = _signature_fields(first, roles) if roles else []
+        first_links = _foreign_links(first)
+    chunks = [_Chunk(first_sections, len(first.pages), tuple(first_links), None, True)]
+    holds = _as_assumed(first_sections, assumed)
+    if pool is not None:
+        while queued:
+            chunks.append(queued.popleft().result())
+            submit(1)
+    else:
+        for n in range(1, len(groups)):
+            # Once a count differs this pass is only counting: no chunk is written.
+            chunk = _lay_out_chunk(chunk_html(n), ids[n], assumed if holds else None, base_url)
+            holds = holds and chunk.holds
+            chunks.append(chunk)
+
+    measured: dict[str, int] = {}
+    pages: dict[str, tuple[int, int]] = {}
+    links: list[_Link] = []
+    offset = 0
+    for chunk in chunks:
+        for ident, (a, b) in chunk.sections.items():
+            measured[ident] = b - a + 1
+            pages[ident] = (offset + a, offset + b)
+        links += [replace(link, page=offset + link.page) for link in chunk.links]
+        offset += chunk.page_count
+    if measured != assumed or offset != total:
+        return None, measured
+    if any(chunk.pdf is None for chunk in chunks[1:]):
+        raise BuildError("A chunk of the package was laid out but not written")
+    layout = Layout(
+        page_count=total,
+        section_pages=pages,
+        signature_fields=tuple(fields),
+        first=first,
+        rest=tuple(chunk.pdf or b"" for chunk in chunks[1:]),
+        links=tuple(links),
+    )
+    return layout, measured
+
+
+# --------------------------------------------------------------------------- the PDF
+
+
+def _join(first: bytes, rest: Sequence[bytes], links: Sequence[_Link]) -> bytes:
+    """Append the other chunks' pages to the first chunk's PDF (its catalog, metadata and
+    attachments are the package's), with their outline, links and named destinations."""
+    from pypdf import PdfReader, PdfWriter
+    from pypdf.generic import (
+        ArrayObject,
+        DictionaryObject,
+        FloatObject,
+        NameObject,
+        NumberObject,
+        TextStringObject,
+    )
+
+    base = PdfReader(io.BytesIO(first))
+    writer = PdfWriter(clone_from=base)
+    writer.pdf_header = base.pdf_header
+    for data in rest:
+        writer.append(PdfReader(io.BytesIO(data)), import_outline=True)
+    for link in links:
+        annotation = DictionaryObject(
+            {
+                NameObject("/Type"): NameObject("/Annot"),
+                NameObject("/Subtype"): NameObject("/Link"),
+                NameObject("/Rect"): ArrayObject(FloatObject(v) for v in link.rect),
+                NameObject("/BS"): DictionaryObject({NameObject("/W"): NumberObject(0)}),
+                # PDF/A: annotations must be printable (flag 4).
+                NameObject("/F"): NumberObject(4),
+                NameObject("/Dest"): TextStringObject(link.target),
+            }
+        )
+        page = writer.pages[link.page]
+        if "/Annots" not in page:
+            page[NameObject("/Annots")] = ArrayObject()
+        page["/Annots"].get_object().append(writer._add_object(annotation))
+    out = io.BytesIO()
+    writer.write(out)
+    return out.getvalue()
 
 
 def write_pdf(
@@ -194,9 +541,10 @@ def write_pdf(
         .hexdigest()[:32]
         .encode()
     )
-    pdf: bytes = layout.document.write_pdf(
-        attachments=items,
-        pdf_identifier=identifier,
-        pdf_variant="pdf/a-3b",
-    )
-    return pdf
+    with _cross_chunk_links_expected():
+        first: bytes = layout.first.write_pdf(
+            attachments=items, pdf_identifier=identifier, pdf_variant=PDF_VARIANT
+        )
+    if not layout.rest and not layout.links:
+        return first
+    return _join(first, layout.rest, layout.links)

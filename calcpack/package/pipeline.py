@@ -3,7 +3,7 @@
 Stages are plain functions passing typed values::
 
     load_project -> execute_sheets -> prepare_sheet (nbconvert + math to SVG)
-        -> document_html / paginate (WeasyPrint, two passes) -> manifest -> write_pdf
+        -> document_html / paginate (WeasyPrint, in chunks) -> manifest -> write_pdf
 
 Outputs are written to temporary files in the output folder and moved into place only when the
 whole build succeeded, so a failing or interrupted build leaves the previous package untouched.
@@ -13,7 +13,10 @@ code) match the existing package's manifest is skipped outright.
 
 from __future__ import annotations
 
+import concurrent.futures
+import contextlib
 import datetime as _dt
+import functools
 import hashlib
 import os
 import re
@@ -25,6 +28,7 @@ from pathlib import Path
 from typing import Any
 
 from calcpack.errors import BuildError
+from calcpack.package.bodies import fill_bodies, prepare_in_worker, spill_body
 from calcpack.package.document import (
     ROLES,
     DocumentOptions,
@@ -32,7 +36,12 @@ from calcpack.package.document import (
     SheetDoc,
     document_html,
 )
-from calcpack.package.execute import DEFAULT_CELL_TIMEOUT_S, ExecutedSheet, execute_sheets
+from calcpack.package.execute import (
+    DEFAULT_CELL_TIMEOUT_S,
+    ExecutedSheet,
+    execute_sheets,
+    worker_pool,
+)
 from calcpack.package.manifest import (
     MANIFEST_ATTACHMENT_NAME,
     MANIFEST_FORMAT,
@@ -40,7 +49,8 @@ from calcpack.package.manifest import (
     manifest_bytes,
     project_files,
 )
-from calcpack.package.paginate import PdfAttachment, paginate, write_pdf
+from calcpack.package.mathsvg import add_break_entries, add_cache_entries
+from calcpack.package.paginate import Layout, PdfAttachment, paginate, write_pdf
 from calcpack.package.project import Person, Project, Revision, SheetEntry, load_project
 from calcpack.package.records import collect_records
 
@@ -247,24 +257,31 @@ def _previous_manifest(path: Path) -> dict[str, Any]:
 
 
 def _page_guess(
-    previous: dict[str, Any], executed: list[ExecutedSheet], options: DocumentOptions
+    previous: dict[str, Any],
+    executed: list[ExecutedSheet],
+    sheet_ids: dict[str, str],
+    options: DocumentOptions,
 ) -> dict[str, int]:
-    """Expected page count per sheet: the previous build's when there was one, else 1.
+    """Expected page count per section id: the previous build's when there was one, else 1.
 
     A sheet's page count depends only on its own content and the paper, and an edit rarely
     changes it, so the guess is usually right and the layout needs one pass instead of two.
+    Sheets are matched by path (they may have moved); the other sections by id.
     """
     if previous.get("build", {}).get("paper") != options.paper:
         previous = {}
+    guess: dict[str, int] = {}
+    for ident, span in (previous.get("sections") or {}).items():
+        if ident not in sheet_ids.values() and isinstance(span, list) and len(span) == 2:
+            guess[ident] = int(span[1]) - int(span[0]) + 1
     known = {s.get("path"): s for s in previous.get("sheets", []) if isinstance(s, dict)}
-    guess = {}
     for item in executed:
         old = known.get(item.entry.path)
         if old:  # changed or not, a sheet usually keeps its page count
             first, last = old.get("pages", [1, 1])
-            guess[item.entry.path] = int(last) - int(first) + 1
+            guess[sheet_ids[item.entry.path]] = int(last) - int(first) + 1
         else:
-            guess[item.entry.path] = 1  # most sheets fit one page; a wrong guess costs a pass
+            guess[sheet_ids[item.entry.path]] = 1  # most sheets fit one page; wrong costs a pass
     return guess
 
 
@@ -280,6 +297,58 @@ def _atomic_write(path: Path, data: bytes) -> Path:
         out.flush()
         os.fsync(out.fileno())
     return Path(tmp)
+
+
+def _sheet_ids(docs: list[SheetDoc]) -> dict[str, str]:
+    """Sheet path -> the id of its section in the document."""
+    return {doc.entry.path: f"sheet-{i}" for i, doc in enumerate(docs, start=1)}
+
+
+def _lay_out(
+    project: Project,
+    docs: list[SheetDoc],
+    executed: list[ExecutedSheet],
+    options: DocumentOptions,
+    created: _dt.datetime,
+    previous: dict[str, Any],
+    reviewer_copy: bool,
+    report: Reporter | None,
+    pool: concurrent.futures.Executor | None,
+    bodies: Path,
+) -> Layout:
+    """Paginate the package (see :func:`calcpack.package.paginate.paginate`).
+
+    ``docs`` carry placeholders for their bodies, which wait in files in ``bodies`` (see
+    :mod:`calcpack.package.bodies`) and are filled in chunk by chunk.
+    """
+    sheet_ids = _sheet_ids(docs)
+    section_ids = [
+        "cover",
+        "contents",
+        "design-basis",
+        "assumptions",
+        *sheet_ids.values(),
+        "summary",
+        "revisions",
+        "review-log",
+    ]
+    if reviewer_copy:
+        section_ids.append("appendix-source")
+    if report:
+        report("layout", f"{len(docs)} sheets")
+
+    return paginate(
+        lambda counts: document_html(
+            project, docs, replace(options, sheet_pages=counts), created=created
+        ),
+        sheet_ids=sheet_ids,
+        section_ids=section_ids,
+        roles=ROLES,
+        base_url=str(project.root),
+        guess=_page_guess(previous, executed, sheet_ids, options),
+        pool=pool,
+        fill=functools.partial(fill_bodies, bodies),
+    )
 
 
 def build(
@@ -362,9 +431,6 @@ def build(
         if report:
             report(stage, sheet.path)
 
-    executed = execute_sheets(
-        project, workers=workers, timeout=timeout, use_cache=use_cache, progress=on_sheet
-    )
     from calcpack.package.execute import CACHE_DIR_NAME
     from calcpack.package.mathsvg import load_math_cache, save_math_cache, used_keys
 
@@ -372,40 +438,55 @@ def build(
     if use_cache:
         load_math_cache(math_cache)
     used_keys.clear()
-    docs = []
-    for item in executed:
-        if report:
-            report("rendering", item.entry.path)
-        docs.append(prepare_sheet(item.entry, item, source=reviewer_copy))
-    options = replace(options, revisions=revisions.compare_with_issued(project, docs))
+    with contextlib.ExitStack() as stack:
+        # One pool of workers for the whole build: executing, converting and laying out.
+        # (The bodies' folder goes after the pool has stopped: no worker is still writing.)
+        bodies = Path(stack.enter_context(tempfile.TemporaryDirectory(prefix="calcpack-")))
+        pool = stack.enter_context(worker_pool(workers))
+        index = {sheet.path: i for i, sheet in enumerate(project.sheets)}
+        converting: dict[str, concurrent.futures.Future[Any]] = {}
+        docs_here: dict[str, SheetDoc] = {}
 
-    sheet_ids = {doc.entry.path: f"sheet-{i}" for i, doc in enumerate(docs, start=1)}
-    section_ids = [
-        "cover",
-        "contents",
-        "design-basis",
-        "assumptions",
-        *sheet_ids.values(),
-        "summary",
-        "revisions",
-        "review-log",
-    ]
-    if reviewer_copy:
-        section_ids.append("appendix-source")
-    if report:
-        report("layout", f"{len(docs)} sheets")
-    layout, _ = paginate(
-        lambda counts: document_html(
-            project, docs, replace(options, sheet_pages=counts), created=created
-        ),
-        sheet_ids=sheet_ids,
-        section_ids=section_ids,
-        roles=ROLES,
-        base_url=str(project.root),
-        guess=_page_guess(previous, executed, options),
-    )
+        def convert(item: ExecutedSheet) -> None:
+            """Convert a sheet as soon as it is executed (or read from the cache)."""
+            if report:
+                report("rendering", item.entry.path)
+            n = index[item.entry.path]
+            if pool is None:
+                doc = prepare_sheet(item.entry, item, source=reviewer_copy)
+                docs_here[item.entry.path] = spill_body(doc, n, bodies)
+            else:
+                cache_file = str(math_cache) if use_cache else None
+                converting[item.entry.path] = pool.submit(
+                    prepare_in_worker, item, reviewer_copy, cache_file, n, str(bodies)
+                )
+
+        executed = execute_sheets(
+            project,
+            workers=workers,
+            timeout=timeout,
+            use_cache=use_cache,
+            progress=on_sheet,
+            pool=pool,
+            on_ready=convert,
+        )
+        docs = []
+        for item in executed:
+            if item.entry.path in converting:
+                doc, formulas, breaks, used = converting.pop(item.entry.path).result()
+                add_cache_entries(formulas)
+                add_break_entries(breaks)
+                used_keys.update(used)
+            else:
+                doc = docs_here.pop(item.entry.path)
+            docs.append(doc)
+        options = replace(options, revisions=revisions.compare_with_issued(project, docs))
+        layout = _lay_out(
+            project, docs, executed, options, created, previous, reviewer_copy, report, pool, bodies
+        )
     if use_cache:
         save_math_cache(math_cache, set(used_keys))
+    sheet_ids = _sheet_ids(docs)
     manifest: dict[str, Any] = {
         "format": MANIFEST_FORMAT,
         "calcpack_version": __version__,
@@ -502,7 +583,7 @@ def single_sheet_pdf(nb: Any, *, name: str = "sheet") -> bytes:
     doc = prepare_sheet(project.sheets[0], nb)
     created = _dt.datetime(today.year, today.month, today.day, tzinfo=_dt.UTC)
     options = DocumentOptions(paper=project.paper, calcpack_version=__version__, sheets_only=True)
-    layout, _ = paginate(
+    layout = paginate(
         lambda counts: document_html(
             project, [doc], replace(options, sheet_pages=counts), created=created
         ),

@@ -95,3 +95,15 @@ def test_failure_in_parallel_names_the_first_failing_sheet(
         build(project, workers=2)
     assert "span L must be positive" in info.value.error
     assert not (project / "build").exists()
+
+
+def test_failure_cancels_the_sheets_still_queued(new_project: Any, tmp_path: Path) -> None:
+    # The failing sheet comes first; most of the others are still queued when it fails, are
+    # cancelled, and the failure is what the build reports.
+    sheets: dict[str, list[str]] = {"Bad": ['raise ValueError("load w must be positive")']}
+    sheets.update({f"Good {i}": LOADS for i in range(6)})
+    project = new_project(tmp_path / "seven", sheets)
+    with pytest.raises(NotebookExecutionError, match=r"sheets/01\.ipynb") as info:
+        build(project, workers=2)
+    assert "load w must be positive" in info.value.error
+    assert not (project / "build").exists()

@@ -1,0 +1,81 @@
+"""Converted sheets on their way to the layout: converted in worker processes, bodies in files.
+
+A sheet's converted body (its math images make it most of the package) is written to a file in
+the build's temporary folder and the sheet keeps a placeholder, ``<!--cp-body-N-->``; the layout
+fills the placeholders in chunk by chunk (:func:`fill_bodies`), so a large package's bodies are
+never all in the build's memory, nor the whole package in one string.
+
+A worker process that converts sheets keeps its own formula cache (read from the build's cache
+file once) and sends back only the formulas the build does not have yet, with the keys of all
+those a sheet used, so the build can save the cache file.
+"""
+
+from __future__ import annotations
+
+import re
+from dataclasses import replace
+from pathlib import Path
+from typing import TYPE_CHECKING, Any
+
+if TYPE_CHECKING:
+    from calcpack.package.document import SheetDoc
+    from calcpack.package.execute import ExecutedSheet
+
+__all__ = ["fill_bodies", "prepare_in_worker", "spill_body"]
+
+_BODY_STUB_RE = re.compile(r"<!--cp-body-(\d+)-->")
+
+
+def body_file(bodies: Path, index: int | str) -> Path:
+    """The file holding the body of the ``index``-th sheet (0-based, project order)."""
+    return bodies / f"sheet-{index}.html"
+
+
+def spill_body(doc: SheetDoc, index: int, bodies: Path) -> SheetDoc:
+    """Write a sheet's body (its math images make it most of the package) to a file and keep
+    a placeholder: a large package's bodies never sit in the build's memory all at once."""
+    body_file(bodies, index).write_text(doc.body_html, "utf-8")
+    return replace(doc, body_html=f"<!--cp-body-{index}-->")
+
+
+def fill_bodies(bodies: Path, html: str) -> str:
+    """Put the bodies back in place of their placeholders."""
+    return _BODY_STUB_RE.sub(lambda m: body_file(bodies, m.group(1)).read_text("utf-8"), html)
+
+
+_worker_math_cache: str | None = None
+"""In a worker process: the formula cache file already read."""
+_worker_sent: set[tuple[str, bool, float]] = set()
+"""In a worker process: formulas the build already has (read from the file, or sent)."""
+
+
+def prepare_in_worker(
+    item: ExecutedSheet, source: bool, math_cache: str | None, index: int, bodies: str
+) -> tuple[SheetDoc, list[Any], list[Any], list[tuple[str, bool, float]]]:
+    """:func:`calcpack.package.pipeline.prepare_sheet` in a worker process, its body spilled
+    to ``bodies``.
+
+    Returns the sheet, the formulas this worker typeset that the build does not have yet and
+    the line breaks of the wide ones among them (both in the cache file's form), and the keys
+    of every formula the sheet used, for the build to save the formula cache. Formulas the
+    build already has are not sent back again.
+    """
+    global _worker_math_cache
+    from calcpack.package.mathsvg import (
+        break_entries,
+        cache_entries,
+        known_keys,
+        load_math_cache,
+        used_keys,
+    )
+    from calcpack.package.pipeline import prepare_sheet
+
+    if math_cache is not None and math_cache != _worker_math_cache:
+        load_math_cache(Path(math_cache))
+        _worker_math_cache = math_cache
+        _worker_sent.update(known_keys())
+    used_keys.clear()
+    doc = spill_body(prepare_sheet(item.entry, item, source=source), index, Path(bodies))
+    new = used_keys - _worker_sent
+    _worker_sent.update(new)
+    return doc, cache_entries(new), break_entries(new), sorted(used_keys)
