@@ -93,9 +93,19 @@ _ACCENT_SCRIPT_RE = re.compile(
 )
 
 
+# A minus sign that opens a term: at the start, after an opening bracket, a relation or a
+# comma. TeX sets it as a sign (no space after it); ziamath sets it as a binary operator, which
+# prints "( − 0.08 kip)". Grouping it as {-} makes it an ordinary symbol, as TeX would.
+_SIGN_MINUS_RE = re.compile(
+    r"(^|\\left\\?[(\[{|]|(?<!\\)[(\[{]|=|<|>|,|\\[lg]eq?|\\approx)(\s*)-(?!-)"
+)
+
+
 def fix_tex(tex: str) -> str:
-    """Rewrite TeX around ziamath's accent-script defect (see the module docstring)."""
+    """Rewrite TeX around ziamath's defects: scripts on accents and signs set as operators
+    (see the module docstring and ``_SIGN_MINUS_RE``)."""
     tex = _ACCENT_SCRIPT_RE.sub(lambda m: m.group(1) + "{}", tex)
+    tex = _SIGN_MINUS_RE.sub(lambda m: m.group(1) + m.group(2) + "{-}", tex)
     return tex
 
 
@@ -133,7 +143,7 @@ _breaks: dict[tuple[str, float], str] = {}
 """Display formulas too wide for the column: (TeX, width px) -> the TeX broken over lines."""
 
 
-_CACHE_FORMAT = "calcpack-math-cache/1"
+_CACHE_FORMAT = "calcpack-math-cache/2"  # 2: signs after brackets set tight
 
 
 def load_math_cache(path: Path) -> int:

@@ -80,6 +80,22 @@ def test_fix_tex_moves_script_off_accent() -> None:
     assert fix_tex(r"\bar{x} + y^{2}") == r"\bar{x} + y^{2}"
 
 
+def test_fix_tex_groups_a_sign_minus_and_leaves_binary_minus() -> None:
+    assert (
+        fix_tex(r"\left( - 0.08\ \mathrm{kip} \right)") == r"\left( {-} 0.08\ \mathrm{kip} \right)"
+    )
+    assert fix_tex(r"R = -1.45 + a - b") == r"R = {-}1.45 + a - b"
+    assert fix_tex(r"-x - y") == r"{-}x - y"
+    assert fix_tex(r"a - b") == r"a - b"
+
+
+def test_sign_minus_after_a_stretchy_bracket_is_set_tight() -> None:
+    # TeX sets a minus after an opening bracket as a sign: "(−0.08 kip)" has the width of
+    # "(0.08 kip)" plus the sign, with no operator spaces (TeXbook, Appendix G, rule 5).
+    tight = tex_to_svg(r"\left( {-}0.08 \right)", track=False).width_px
+    assert tex_to_svg(r"\left( -0.08 \right)", track=False).width_px == pytest.approx(tight)
+
+
 def test_script_on_accent_sits_at_normal_height() -> None:
     # TeX attaches the script to the nucleus, so x̄² is no taller than x² plus the accent.
     plain = tex_to_svg(r"x^{2}")
