@@ -17,9 +17,7 @@ from __future__ import annotations
 
 import contextlib
 import math
-import os
 import re
-import tempfile
 import tomllib
 from collections.abc import Iterator, Mapping, Sequence
 from dataclasses import dataclass
@@ -30,6 +28,7 @@ from typing import Any
 import pint
 
 from calcpack.errors import DimensionError, InputError
+from calcpack.fileio import write_atomically
 from calcpack.units import Q_, Quantity, is_quantity, ureg
 
 __all__ = [
@@ -331,16 +330,8 @@ def _to_toml(value: Any) -> Any:
 
 
 def _atomic_write(path: Path, text: str) -> None:
-    # Write beside the target and rename, so a reader (a kernel running the sheet) never sees a
-    # half-written file.
-    fd, tmp = tempfile.mkstemp(prefix=f".{path.name}.", dir=str(path.parent))
-    try:
-        with os.fdopen(fd, "w", encoding="utf-8", newline="\n") as fh:
-            fh.write(text)
-        os.replace(tmp, path)
-    except BaseException:
-        Path(tmp).unlink(missing_ok=True)
-        raise
+    # A reader (a kernel running the sheet) never sees a half-written file.
+    write_atomically(path, text)
 
 
 def write_inputs(path: Path | str, data: Mapping[str, Any], *, header: str = "") -> None:

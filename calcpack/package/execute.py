@@ -33,6 +33,7 @@ from pathlib import Path
 from typing import Any
 
 from calcpack.errors import BuildError, NotebookExecutionError
+from calcpack.fileio import write_atomically
 from calcpack.package.project import Project, SheetEntry
 
 __all__ = [
@@ -240,11 +241,8 @@ def _cache_file(cache_dir: Path, sheet: SheetEntry, key: str) -> Path:
 
 
 def _store(cache_dir: Path, sheet: SheetEntry, key: str, notebook_json: str) -> None:
-    cache_dir.mkdir(parents=True, exist_ok=True)
     target = _cache_file(cache_dir, sheet, key)
-    tmp = target.with_suffix(".tmp")
-    tmp.write_text(notebook_json, encoding="utf-8")
-    os.replace(tmp, target)
+    write_atomically(target, notebook_json)
     prefix = target.name.rsplit("-", 1)[0] + "-"
     for old in cache_dir.glob(prefix + "*.ipynb"):
         if old != target and len(old.name) == len(target.name):

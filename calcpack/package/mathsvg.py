@@ -27,7 +27,6 @@ from __future__ import annotations
 import base64
 import html
 import json
-import os
 import re
 import warnings
 from dataclasses import dataclass
@@ -35,6 +34,7 @@ from pathlib import Path
 from typing import Any
 
 from calcpack.errors import BuildError
+from calcpack.fileio import write_atomically
 from calcpack.package.mathbreak import break_display, flatten_delimiters
 
 __all__ = [
@@ -226,11 +226,8 @@ def save_math_cache(path: Path, used: set[tuple[str, bool, float]] | None = None
     """Write the in-memory formula cache (only ``used`` keys when given) to ``path``."""
     items = cache_entries(used)
     breaks = break_entries(used)
-    path.parent.mkdir(parents=True, exist_ok=True)
-    tmp = path.with_suffix(".tmp")
     data = {"format": _CACHE_FORMAT, "formulas": items, "breaks": breaks}
-    tmp.write_text(json.dumps(data), "utf-8")
-    os.replace(tmp, path)
+    write_atomically(path, json.dumps(data))
 
 
 used_keys: set[tuple[str, bool, float]] = set()

@@ -14,13 +14,12 @@ from __future__ import annotations
 import hashlib
 import itertools
 import json
-import os
 import re
-import tempfile
 from collections.abc import Sequence
 from pathlib import Path
 from typing import Any
 
+from calcpack.fileio import write_atomically
 from calcpack.package.document import RevisionMarks, SheetDoc
 from calcpack.package.project import Project, Revision
 from calcpack.signing.diff import diff_manifests
@@ -118,9 +117,5 @@ def keep_issued(project: Project, manifest_path: Path) -> Path | None:
     data = manifest_path.read_bytes()
     if target.is_file() and target.read_bytes() == data:
         return target
-    target.parent.mkdir(parents=True, exist_ok=True)
-    handle, tmp = tempfile.mkstemp(dir=target.parent, prefix=f".{target.name}.", suffix=".tmp")
-    with os.fdopen(handle, "wb") as out:
-        out.write(data)
-    os.replace(tmp, target)
+    write_atomically(target, data)
     return target

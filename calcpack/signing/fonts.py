@@ -9,9 +9,11 @@ Courier, which needs no embedding.
 
 from __future__ import annotations
 
+import io
 import os
-import secrets
 from pathlib import Path
+
+from calcpack.fileio import write_atomically
 
 __all__ = ["FONT_ENV", "stamp_font"]
 
@@ -73,10 +75,9 @@ def _rescaled(source: Path, target: Path) -> Path:
     subsetter.populate(unicodes=_UNICODES)
     subsetter.subset(font)
     scale_upem(font, _UNITS_PER_EM)
-    target.parent.mkdir(parents=True, exist_ok=True)
-    tmp = target.with_name(f".{target.name}.{secrets.token_hex(4)}.tmp")
-    font.save(str(tmp))
-    os.replace(tmp, target)  # atomic: a concurrent build sees the old or the new file
+    buffer = io.BytesIO()
+    font.save(buffer)
+    write_atomically(target, buffer.getvalue())  # a concurrent build sees old or new, not part
     return target
 
 

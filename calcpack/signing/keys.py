@@ -19,6 +19,7 @@ from pathlib import Path
 from typing import Any
 
 from calcpack.errors import InputError, SigningError
+from calcpack.fileio import write_atomically
 
 __all__ = [
     "PASSWORD_ENV",
@@ -208,16 +209,7 @@ def _write_p12(
 
 def _write_new(path: Path, data: bytes) -> None:
     """Write ``data`` to ``path`` atomically, readable by the owner only."""
-    path.parent.mkdir(parents=True, exist_ok=True)
-    tmp = path.with_name(f".{path.name}.{secrets.token_hex(4)}.tmp")
-    fd = os.open(tmp, os.O_WRONLY | os.O_CREAT | os.O_EXCL, 0o600)
-    try:
-        with os.fdopen(fd, "wb") as fh:
-            fh.write(data)
-        os.replace(tmp, path)
-    except BaseException:
-        tmp.unlink(missing_ok=True)
-        raise
+    write_atomically(path, data, mode=0o600)
 
 
 def _pem(cert: Any) -> bytes:

@@ -34,13 +34,13 @@ from __future__ import annotations
 
 import datetime as dt
 import os
-import secrets
 import tomllib
 from dataclasses import dataclass, replace
 from pathlib import Path
 from typing import Any
 
 from calcpack.errors import InputError, SigningError
+from calcpack.fileio import write_atomically
 
 __all__ = [
     "REVIEW_FILE",
@@ -268,9 +268,7 @@ def _save(project: str | os.PathLike[str], log: ReviewLog) -> None:
     path = review_path(project)
     header = "# Review comments of this calc package (managed by `calcpack review`).\n\n"
     text = header + tomli_w.dumps(log.to_data(), multiline_strings=True)
-    tmp = path.with_name(f".{path.name}.{secrets.token_hex(4)}.tmp")
-    tmp.write_text(text, encoding="utf-8")
-    os.replace(tmp, path)
+    write_atomically(path, text)
 
 
 def _nonempty(value: str, name: str) -> str:
