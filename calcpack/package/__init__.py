@@ -45,7 +45,7 @@ def reproduce_manifest(project: str | Path, *, workers: int = 2) -> dict[str, An
     """
     import nbformat
 
-    from calcpack.package.manifest import MANIFEST_FORMAT
+    from calcpack.package.manifest import MANIFEST_FORMAT, sheet_record
     from calcpack.package.pipeline import sheet_title
 
     loaded = load_project(project)
@@ -53,15 +53,5 @@ def reproduce_manifest(project: str | Path, *, workers: int = 2) -> dict[str, An
     for item in execute_sheets(loaded, workers=workers, use_cache=False):
         nb = nbformat.reads(item.notebook_json, as_version=4)
         records = collect_records(nb)
-        sheets.append(
-            {
-                "number": item.entry.number,
-                "title": sheet_title(item.entry, nb),
-                "path": item.entry.path,
-                "values": list(records.values),
-                "checks": list(records.checks),
-                "assumptions": list(records.assumptions),
-                "cautions": list(records.cautions),
-            }
-        )
+        sheets.append(sheet_record(item.entry, sheet_title(item.entry, nb), records))
     return {"format": MANIFEST_FORMAT, "sheets": sheets}

@@ -15,7 +15,8 @@ from importlib import metadata
 from pathlib import Path
 from typing import Any
 
-from calcpack.package.project import Project, file_sha256
+from calcpack.package.project import Project, SheetEntry, file_sha256
+from calcpack.package.records import SheetRecords
 
 __all__ = [
     "KEY_DEPENDENCIES",
@@ -25,6 +26,7 @@ __all__ = [
     "manifest_bytes",
     "project_files",
     "read_manifest",
+    "sheet_record",
 ]
 
 MANIFEST_FORMAT = "calcpack-manifest/1"
@@ -81,6 +83,27 @@ def project_files(project: Project, review_file: Path | None) -> list[dict[str, 
             }
         )
     return entries
+
+
+def sheet_record(
+    entry: SheetEntry, title: str, records: SheetRecords, **build: Any
+) -> dict[str, Any]:
+    """A sheet's entry in the manifest's ``sheets`` list: what it is and what it recorded.
+
+    The build passes its cache key and pages in ``build`` (placed after the path); the archive
+    check and the revision comparison use the record without them, so all three compare like
+    with like.
+    """
+    return {
+        "number": entry.number,
+        "title": title,
+        "path": entry.path,
+        **build,
+        "values": list(records.values),
+        "checks": list(records.checks),
+        "assumptions": list(records.assumptions),
+        "cautions": list(records.cautions),
+    }
 
 
 def manifest_bytes(manifest: dict[str, Any]) -> bytes:

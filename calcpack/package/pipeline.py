@@ -48,6 +48,7 @@ from calcpack.package.manifest import (
     dependency_versions,
     manifest_bytes,
     project_files,
+    sheet_record,
 )
 from calcpack.package.mathsvg import add_break_entries, add_cache_entries
 from calcpack.package.paginate import Layout, PdfAttachment, paginate, write_pdf
@@ -231,6 +232,8 @@ def _build_key(
     review_file: Path | None,
     created: _dt.datetime,
 ) -> str:
+    from calcpack.package import revisions
+
     digest = hashlib.sha256()
     for part in (
         _package_code_hash(),
@@ -240,6 +243,7 @@ def _build_key(
         str(options.reviewer_copy),
         created.isoformat(),
         review_file.read_text("utf-8") if review_file else "",
+        revisions.issued_basis_key(project),
     ):
         digest.update(part.encode() + b"\0")
     return digest.hexdigest()
@@ -406,13 +410,10 @@ def build(
     from calcpack.package.execute import sheet_cache_key
 
     keys = [sheet_cache_key(project, s) for s in project.sheets]
-    build_key = _build_key(project, keys, options, review_file, created)
     # Revision comparison (calcpack.package.revisions): the marks depend on the kept manifests.
     from calcpack.package import revisions
 
-    build_key = hashlib.sha256(
-        f"{build_key}{revisions.issued_basis_key(project)}".encode()
-    ).hexdigest()
+    build_key = _build_key(project, keys, options, review_file, created)
     previous = _previous_manifest(manifest_path)
     if not force and pdf_path.is_file() and previous.get("build", {}).get("build_key") == build_key:
         revisions.keep_issued(project, manifest_path)
@@ -494,17 +495,13 @@ def build(
         "project": project.summary(),
         "files": project_files(project, review_file),
         "sheets": [
-            {
-                "number": doc.entry.number,
-                "title": doc.title,
-                "path": doc.entry.path,
-                "cache_key": item.cache_key,
-                "pages": list(layout.section_pages[sheet_ids[doc.entry.path]]),
-                "values": list(doc.records.values),
-                "checks": list(doc.records.checks),
-                "assumptions": list(doc.records.assumptions),
-                "cautions": list(doc.records.cautions),
-            }
+            sheet_record(
+                doc.entry,
+                doc.title,
+                doc.records,
+                cache_key=item.cache_key,
+                pages=list(layout.section_pages[sheet_ids[doc.entry.path]]),
+            )
             for doc, item in zip(docs, executed, strict=True)
         ],
         "signature_fields": list(layout.signature_fields),

@@ -21,6 +21,7 @@ from typing import Any
 
 from calcpack.fileio import write_atomically
 from calcpack.package.document import RevisionMarks, SheetDoc
+from calcpack.package.manifest import sheet_record
 from calcpack.package.project import Project, Revision
 from calcpack.signing.diff import diff_manifests
 
@@ -73,16 +74,7 @@ def _records(project: Project, docs: Sequence[SheetDoc]) -> dict[str, Any]:
     """This build's sheets in the manifest's shape, as far as the comparison reads it."""
     return {
         "project": {"revision": project.revision.rev},
-        "sheets": [
-            {
-                "number": doc.entry.number,
-                "title": doc.title,
-                "path": doc.entry.path,
-                "values": list(doc.records.values),
-                "checks": list(doc.records.checks),
-            }
-            for doc in docs
-        ],
+        "sheets": [sheet_record(doc.entry, doc.title, doc.records) for doc in docs],
     }
 
 
