@@ -46,9 +46,9 @@ from calcpack.inputs import (
 from calcpack.inputs.file import cached_unit, split_key
 from calcpack.units import Q_, Quantity
 from calcpack.widgets.fields import (
+    PanelDisplay,
     QuantityField,
     css_key,
-    interactive_session,
     label,
     wait_for_output_sent,
 )
@@ -134,7 +134,7 @@ def outcome_table_html(outcome: BeamOutcome) -> str:
     )
 
 
-class BeamPanel:
+class BeamPanel(PanelDisplay):
     """An interactive editor for a beam sheet's inputs file.
 
     Args:
@@ -186,16 +186,6 @@ class BeamPanel:
         self.widget.add_class("cp-beam-panel")
         self._build_form()
         self._refresh()
-
-    # -- display ------------------------------------------------------------------------------
-    def _ipython_display_(self) -> None:
-        if interactive_session():
-            from IPython.display import display
-
-            display(self.widget)
-
-    def __repr__(self) -> str:
-        return f"BeamPanel({str(self.path)!r})"
 
     # -- form -----------------------------------------------------------------------------------
     def _field(self, key: str, text: str, value: Quantity) -> ipw.Widget:

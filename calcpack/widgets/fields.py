@@ -6,6 +6,7 @@ from __future__ import annotations
 import os
 import threading
 from collections.abc import Callable
+from pathlib import Path
 from typing import Any
 
 import ipywidgets as ipw
@@ -27,6 +28,25 @@ def interactive_session() -> bool:
     if os.environ.get("CALCPACK_BUILDING") == "1":
         return False
     return bool(os.environ.get("JPY_SESSION_NAME")) or os.environ.get("CALCPACK_PANELS") == "1"
+
+
+class PanelDisplay:
+    """What every input panel shares: shown only in an interactive session, named by its file.
+
+    Subclasses set ``path`` (the inputs file) and ``widget`` (the ipywidgets box).
+    """
+
+    path: Path
+    widget: Any
+
+    def _ipython_display_(self) -> None:
+        if interactive_session():
+            from IPython.display import display
+
+            display(self.widget)
+
+    def __repr__(self) -> str:
+        return f"{type(self).__name__}({str(self.path)!r})"
 
 
 def wait_for_output_sent(timeout_s: float = 0.25) -> bool:

@@ -17,7 +17,7 @@ import ipywidgets as ipw
 from calcpack.errors import CalcpackError
 from calcpack.inputs import SHAPES, load_inputs, parse_quantity, section_from_inputs, update_inputs
 from calcpack.units import Quantity
-from calcpack.widgets.fields import QuantityField, css_key, interactive_session, label
+from calcpack.widgets.fields import PanelDisplay, QuantityField, css_key, label
 from calcpack.widgets.svg import section_sketch_svg
 
 __all__ = ["SectionPanel", "properties_table_html", "section_panel"]
@@ -58,7 +58,7 @@ def properties_table_html(props: Any) -> str:
     return f'<table class="cp-panel-results">{"".join(rows)}</table>'
 
 
-class SectionPanel:
+class SectionPanel(PanelDisplay):
     """An interactive editor for the ``[section]`` table of an inputs file.
 
     Args:
@@ -94,15 +94,6 @@ class SectionPanel:
         self.widget.add_class("cp-section-panel")
         self._build_form()
         self._refresh()
-
-    def _ipython_display_(self) -> None:
-        if interactive_session():
-            from IPython.display import display
-
-            display(self.widget)
-
-    def __repr__(self) -> str:
-        return f"SectionPanel({str(self.path)!r})"
 
     def _build_form(self) -> None:
         table = self.data[self.key]
