@@ -9,8 +9,8 @@ from pathlib import Path
 from typing import Any
 
 import pytest
-from conftest import make_project
 from pdfgeometry import page_words, painted_extent
+from projectkit import make_project
 from pypdf import PdfReader
 
 from calcpack.cli import main

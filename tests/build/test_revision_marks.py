@@ -10,7 +10,7 @@ from pathlib import Path
 
 import nbformat
 import pytest
-from conftest import make_project
+from projectkit import make_project
 from pypdf import PdfReader
 
 from calcpack.cli import main
