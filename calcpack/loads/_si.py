@@ -9,6 +9,7 @@ every number made the live solve slow.
 
 from __future__ import annotations
 
+import functools
 from math import isfinite
 from typing import Any
 
@@ -37,7 +38,7 @@ def make_quantity(magnitude: Any, unit: Any) -> Any:
 
     Anything else (int, list, string, a unit given as text) goes through ``Q_``.
     """
-    if _FAST_OK and isinstance(magnitude, float | np.ndarray) and type(unit) is _UNIT:
+    if isinstance(magnitude, float | np.ndarray) and type(unit) is _unit_type() and _fast_ok():
         q = object.__new__(_QUANTITY)
         q._magnitude = magnitude
         q._units = unit._units
@@ -45,9 +46,15 @@ def make_quantity(magnitude: Any, unit: Any) -> Any:
     return Q_(magnitude, unit)
 
 
-def _fast_matches() -> bool:
-    """True if the fast path builds the same quantity as pint's constructor (checked once at
-    import, so a pint release that stores quantities differently falls back to ``Q_``)."""
+@functools.cache
+def _unit_type() -> type[Any]:
+    return type(ureg.Unit("m"))
+
+
+@functools.cache
+def _fast_ok() -> bool:
+    """True if the fast path builds the same quantity as pint's constructor (checked once, on
+    first use, so a pint release that stores quantities differently falls back to ``Q_``)."""
     try:
         unit = ureg.Unit("kN*m")
         fast = object.__new__(_QUANTITY)
@@ -60,8 +67,6 @@ def _fast_matches() -> bool:
 
 
 _QUANTITY = Q_
-_UNIT = type(ureg.Unit("m"))
-_FAST_OK = _fast_matches()
 
 
 _CHECKED: set[tuple[Any, str]] = set()
