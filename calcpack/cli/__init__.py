@@ -44,6 +44,9 @@ def build_parser() -> argparse.ArgumentParser:
 
 def main(argv: Sequence[str] | None = None) -> int:
     """Run the command line; returns the process exit code."""
+    from calcpack.package.execute import skip_unused_slow_imports
+
+    skip_unused_slow_imports()  # this process is the command's own
     parser = build_parser()
     args = parser.parse_args(argv)
     if not getattr(args, "func", None):

@@ -44,6 +44,7 @@ __all__ = [
     "execute_sheets",
     "process_pool",
     "sheet_cache_key",
+    "skip_unused_slow_imports",
     "worker_pool",
 ]
 
@@ -249,10 +250,27 @@ def _store(cache_dir: Path, sheet: SheetEntry, key: str, notebook_json: str) -> 
             old.unlink(missing_ok=True)
 
 
+_UNUSED_SLOW_IMPORTS = ("rfc3987_syntax",)
+"""Optional imports a build never uses that cost much. jsonschema (imported by nbformat)
+imports ``rfc3987_syntax`` when it is installed (JupyterLab's dependencies install it) to check
+the "iri" string format, and that package compiles a parsing grammar on import: about 0.85 s of
+CPU in every process. Notebook validation never checks that format."""
+
+
+def skip_unused_slow_imports() -> None:
+    """In a process the build owns (a worker, the command line), skip the optional imports in
+    ``_UNUSED_SLOW_IMPORTS``: jsonschema then leaves its "iri" check out, as it does when the
+    package is not installed. A module already imported is left alone."""
+    for name in _UNUSED_SLOW_IMPORTS:
+        sys.modules.setdefault(name, None)  # type: ignore[arg-type]
+
+
 def process_pool(workers: int) -> concurrent.futures.ProcessPoolExecutor:
     """Worker processes for a build, started with *spawn* (see the module docstring)."""
     return concurrent.futures.ProcessPoolExecutor(
-        max_workers=workers, mp_context=multiprocessing.get_context("spawn")
+        max_workers=workers,
+        mp_context=multiprocessing.get_context("spawn"),
+        initializer=skip_unused_slow_imports,
     )
 
 
