@@ -6,8 +6,10 @@ fills the placeholders in chunk by chunk (:func:`fill_bodies`), so a large packa
 never all in the build's memory, nor the whole package in one string.
 
 A worker process that converts sheets keeps its own formula cache (read from the build's cache
-file once) and sends back only the formulas the build does not have yet, with the keys of all
-those a sheet used, so the build can save the cache file.
+file once) and sends back only the formulas it typeset that the build does not have yet, with the
+keys of all those a sheet used, so the build can save the cache file. The workers also share
+what they typeset while the build runs (:func:`calcpack.package.mathsvg.share_formulas`), so a
+formula that several sheets use is typeset once, not once per worker.
 """
 
 from __future__ import annotations
@@ -66,6 +68,7 @@ def prepare_in_worker(
         cache_entries,
         known_keys,
         load_math_cache,
+        share_formulas,
         used_keys,
     )
     from calcpack.package.pipeline import prepare_sheet
@@ -74,8 +77,11 @@ def prepare_in_worker(
         load_math_cache(Path(math_cache))
         _worker_math_cache = math_cache
         _worker_sent.update(known_keys())
+    # The other workers send the formulas they typeset themselves.
+    _worker_sent.update(share_formulas(Path(bodies) / "formulas"))
     used_keys.clear()
     doc = spill_body(prepare_sheet(item.entry, item, source=source), index, Path(bodies))
+    _worker_sent.update(share_formulas(Path(bodies) / "formulas"))
     new = used_keys - _worker_sent
     _worker_sent.update(new)
     return doc, cache_entries(new), break_entries(new), sorted(used_keys)

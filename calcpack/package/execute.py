@@ -20,6 +20,7 @@ import concurrent.futures
 import concurrent.futures.process
 import contextlib
 import hashlib
+import itertools
 import logging
 import multiprocessing
 import os
@@ -380,42 +381,50 @@ def _execute_in(
     finish: Callable[[SheetEntry, str, tuple[Any, ...], float], None],
     todo: list[SheetEntry],
 ) -> None:
-    """Execute the pending sheets in the pool; ``finish`` each in completion order."""
-    futures = {}
+    """Execute the pending sheets in the pool; ``finish`` each in completion order.
+
+    Only as many sheets as there are workers are handed to the pool at a time, so that what
+    ``finish`` hands to the same pool for a sheet that is done (its conversion) runs before the
+    next execution rather than after all of them: the build's last minutes then convert only
+    the last sheets, on both workers, instead of every sheet.
+    """
+    queue = iter(pending)
+    futures: dict[concurrent.futures.Future[tuple[Any, ...]], tuple[SheetEntry, str]] = {}
     starts: dict[str, float] = {}
-    for sheet, key in pending:
-        starts[sheet.path] = time.perf_counter()
-        future = pool.submit(_execute, str(project.sheet_path(sheet)), sheet.path, timeout)
-        futures[future] = (sheet, key)
-    if progress:
-        for sheet, _ in pending[: min(workers, len(pending))]:
-            progress("executing", sheet)
+
+    def submit_next() -> None:
+        for sheet, key in itertools.islice(queue, 1):
+            starts[sheet.path] = time.perf_counter()
+            future = pool.submit(_execute, str(project.sheet_path(sheet)), sheet.path, timeout)
+            futures[future] = (sheet, key)
+            if progress:
+                progress("executing", sheet)
+
+    for _ in range(workers):
+        submit_next()
     failures: list[tuple[int, tuple[Any, ...]]] = []
     order = {s.path: i for i, s in enumerate(todo)}
-    next_up = min(workers, len(pending))
-    for future in concurrent.futures.as_completed(futures):
-        sheet, key = futures[future]
-        if future.cancelled():  # after a failure: its result is not wanted
-            continue
-        try:
-            outcome = future.result()
-        except concurrent.futures.process.BrokenProcessPool as exc:
-            raise BuildError(
-                f"A worker process executing sheet {sheet.path!r} stopped abruptly "
-                "(out of memory, or a script that starts the build without an "
-                "`if __name__ == '__main__':` guard); try --workers 1"
-            ) from exc
-        if outcome[0] == "error":
-            failures.append((order[sheet.path], outcome))
-            for other in futures:
-                other.cancel()
-            continue
-        if failures:
-            continue
-        finish(sheet, key, outcome, time.perf_counter() - starts[sheet.path])
-        if progress and next_up < len(pending):
-            progress("executing", pending[next_up][0])
-            next_up += 1
+    while futures:
+        done, _ = concurrent.futures.wait(futures, return_when=concurrent.futures.FIRST_COMPLETED)
+        for future in done:
+            sheet, key = futures.pop(future)
+            if future.cancelled():  # after a failure: its result is not wanted
+                continue
+            try:
+                outcome = future.result()
+            except concurrent.futures.process.BrokenProcessPool as exc:
+                raise BuildError(
+                    f"A worker process executing sheet {sheet.path!r} stopped abruptly "
+                    "(out of memory, or a script that starts the build without an "
+                    "`if __name__ == '__main__':` guard); try --workers 1"
+                ) from exc
+            if outcome[0] == "error":
+                failures.append((order[sheet.path], outcome))
+                continue
+            if failures:
+                continue
+            finish(sheet, key, outcome, time.perf_counter() - starts[sheet.path])
+            submit_next()
     if failures:
         failures.sort(key=lambda item: item[0])
         raise NotebookExecutionError(*failures[0][1][1:])

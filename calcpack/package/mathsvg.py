@@ -27,6 +27,7 @@ from __future__ import annotations
 import base64
 import html
 import json
+import os
 import re
 import warnings
 from dataclasses import dataclass
@@ -51,6 +52,7 @@ __all__ = [
     "markdown_math_to_spans",
     "math_spans_to_images",
     "save_math_cache",
+    "share_formulas",
     "tex_to_svg",
 ]
 
@@ -234,6 +236,76 @@ used_keys: set[tuple[str, bool, float]] = set()
 """Keys looked up since the process started (the build saves only these)."""
 
 
+class _SharedFormulas:
+    """Formulas typeset by the build's other worker processes, while the build runs.
+
+    Sheets of one package share many formulas (the same check on several members), and each
+    worker would otherwise typeset every one of them again. Each worker appends what it
+    typesets to its own file in a shared folder, one JSON line per formula or line break, and
+    reads the other workers' files (from where it stopped last time) before typesetting one.
+    A line still being written is left for the next read.
+    """
+
+    def __init__(self, folder: Path) -> None:
+        self.folder = folder
+        folder.mkdir(parents=True, exist_ok=True)
+        self.own = folder / f"{os.getpid()}.jsonl"
+        self._out = self.own.open("a", encoding="utf-8")
+        self._read: dict[Path, int] = {}
+        self.taken: set[tuple[str, bool, float]] = set()
+        """Formulas taken from the other workers (they report them to the build)."""
+
+    def put_formula(self, key: tuple[str, bool, float], image: MathImage) -> None:
+        line = ["f", *key, image.svg, image.width_px, image.height_px, image.baseline_px]
+        self._write(line)
+
+    def put_break(self, key: tuple[str, float], broken: str) -> None:
+        self._write(["b", *key, broken])
+
+    def _write(self, line: list[Any]) -> None:
+        self._out.write(json.dumps(line) + "\n")
+        self._out.flush()
+
+    def take(self) -> None:
+        """Read what the other workers added since the last call."""
+        for path in self.folder.glob("*.jsonl"):
+            if path == self.own:
+                continue
+            start = self._read.get(path, 0)
+            try:
+                if path.stat().st_size <= start:
+                    continue
+                with path.open("rb") as handle:
+                    handle.seek(start)
+                    data = handle.read()
+            except OSError:
+                continue
+            end = data.rfind(b"\n") + 1
+            self._read[path] = start + end
+            for raw in data[:end].splitlines():
+                try:
+                    kind, *item = json.loads(raw)
+                except ValueError:
+                    continue
+                if kind == "f" and add_cache_entries([item], mark_used=False):
+                    self.taken.add((str(item[0]), bool(item[1]), float(item[2])))
+                elif kind == "b":
+                    add_break_entries([item])
+
+
+_shared: _SharedFormulas | None = None
+
+
+def share_formulas(folder: Path) -> set[tuple[str, bool, float]]:
+    """In a worker process: share typeset formulas with the build's other workers through
+    ``folder`` (see :class:`_SharedFormulas`). Returns the set, kept up to date, of formulas
+    taken from the others. Calling it again with the same folder changes nothing."""
+    global _shared
+    if _shared is None or _shared.folder != folder:
+        _shared = _SharedFormulas(folder)
+    return _shared.taken
+
+
 def tex_to_svg(
     tex: str, *, display: bool = False, size_px: float = MATH_PX_PER_EM, track: bool = True
 ) -> MathImage:
@@ -252,6 +324,9 @@ def tex_to_svg(
     if track:
         used_keys.add(key)
     hit = _cache.get(key)
+    if hit is None and _shared is not None:
+        _shared.take()
+        hit = _cache.get(key)
     if hit is not None:
         return hit
     with warnings.catch_warnings():
@@ -285,6 +360,8 @@ def tex_to_svg(
         ) from exc
     image = MathImage(tex, svg, float(width), float(height), -offset)
     _cache[key] = image
+    if _shared is not None and track:
+        _shared.put_formula(key, image)
     return image
 
 
@@ -330,14 +407,26 @@ def fitted_image(tex: str, display: bool, width_px: float = MATH_MAX_WIDTH_PX) -
     key = (tex, float(width_px))
     broken = _breaks.get(key) if display else None
     if broken is None and display and len(tex) > _SURELY_WIDE_TEX:
-        broken = break_display(tex, width_px * _BREAK_MARGIN, _measure, known_wide=True)
-        _breaks[key] = broken
+        if _shared is not None:
+            _shared.take()
+        broken = _breaks.get(key)
+        if broken is None:
+            broken = break_display(tex, width_px * _BREAK_MARGIN, _measure, known_wide=True)
+            _breaks[key] = broken
+            if _shared is not None:
+                _shared.put_break(key, broken)
     if broken is not None and broken != tex:
         return tex_to_svg(broken, display=True)
     image = tex_to_svg(tex, display=display)
     if display and broken is None and image.width_px > width_px:
-        broken = break_display(tex, width_px * _BREAK_MARGIN, _measure)
-        _breaks[key] = broken
+        if _shared is not None:
+            _shared.take()
+        broken = _breaks.get(key)
+        if broken is None:
+            broken = break_display(tex, width_px * _BREAK_MARGIN, _measure)
+            _breaks[key] = broken
+            if _shared is not None:
+                _shared.put_break(key, broken)
         if broken != tex:
             image = tex_to_svg(broken, display=True)
     return image

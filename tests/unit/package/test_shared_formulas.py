@@ -1,0 +1,62 @@
+"""Formulas typeset by one build worker are reused by the others while the build runs."""
+
+from __future__ import annotations
+
+import json
+import sys
+from pathlib import Path
+
+from calcpack.package.execute import process_pool
+from calcpack.package.mathsvg import MATH_MAX_WIDTH_PX, _SharedFormulas, known_keys
+
+SHARED = [
+    r"M = \frac{w L^{2}}{8} = \frac{2.5\ \mathrm{kN/m} \cdot (4.2\ \mathrm{m})^{2}}{8}",
+    r"\sigma_{b} = \frac{M}{S_{x}} \leq F_{b}",
+]
+WIDE = " + ".join(rf"\frac{{w_{{{i}}} L^{{2}}}}{{8}}" for i in range(1, 25))
+"""A display formula far wider than the column: it is broken over lines."""
+
+
+def _typeset_in_worker(folder: str) -> tuple[list[str], int, bool]:
+    """In a fresh worker: typeset SHARED and WIDE; their SVGs, how many formulas came from
+    the other workers, and whether this process had to load the typesetter at all."""
+    from calcpack.package.mathsvg import fitted_image, share_formulas, tex_to_svg
+
+    taken = share_formulas(Path(folder))
+    svgs = [tex_to_svg(tex, display=True).svg for tex in SHARED]
+    svgs.append(fitted_image(WIDE, True).svg)
+    return svgs, len(taken), "ziamath" in sys.modules
+
+
+def test_second_worker_takes_what_the_first_typeset(tmp_path: Path) -> None:
+    folder = str(tmp_path / "formulas")
+    with process_pool(1) as pool:
+        first, taken, loaded = pool.submit(_typeset_in_worker, folder).result(timeout=180)
+    assert taken == 0  # nothing to take: it typeset everything itself
+    assert loaded
+    with process_pool(1) as pool:  # a new process, with an empty cache of its own
+        second, taken, loaded = pool.submit(_typeset_in_worker, folder).result(timeout=180)
+    assert second == first
+    # Every formula came from the first worker's file (the two, and the wide one typeset whole
+    # and then broken), with the line breaks, and the typesetter was never loaded: nothing was
+    # typeset twice.
+    assert taken == len(SHARED) + 2
+    assert not loaded
+
+
+def test_a_line_still_being_written_waits_for_the_next_read(tmp_path: Path) -> None:
+    folder = tmp_path / "formulas"
+    shared = _SharedFormulas(folder)
+    other = folder / "999999.jsonl"
+    key = ("q_{partial} = 1", True, 13.5)
+    line = json.dumps(["f", *key, "<svg/>", 10.0, 5.0, 1.0]) + "\n"
+    other.write_text(line[:20], "utf-8")
+    shared.take()
+    assert key not in known_keys()
+    with other.open("a", encoding="utf-8") as handle:
+        handle.write(line[20:])
+        handle.write(json.dumps(["b", WIDE + " x", MATH_MAX_WIDTH_PX, "broken"]) + "\n")
+        handle.write("not json\n")
+    shared.take()
+    assert key in known_keys()
+    assert key in shared.taken
