@@ -20,8 +20,11 @@ from pathlib import Path
 from typing import TYPE_CHECKING, Any
 
 if TYPE_CHECKING:
-    from calcpack.package.document import SheetDoc
+    import datetime
+
+    from calcpack.package.document import DocumentOptions, SheetDoc
     from calcpack.package.execute import ExecutedSheet
+    from calcpack.package.project import Project
 
 __all__ = ["fill_bodies", "prepare_in_worker", "spill_body"]
 
@@ -52,15 +55,22 @@ _worker_sent: set[tuple[str, bool, float]] = set()
 
 
 def prepare_in_worker(
-    item: ExecutedSheet, source: bool, math_cache: str | None, index: int, bodies: str
-) -> tuple[SheetDoc, list[Any], list[Any], list[tuple[str, bool, float]]]:
+    item: ExecutedSheet,
+    source: bool,
+    math_cache: str | None,
+    index: int,
+    bodies: str,
+    count: tuple[Project, DocumentOptions, datetime.datetime] | None = None,
+) -> tuple[SheetDoc, list[Any], list[Any], list[tuple[str, bool, float]], int | None]:
     """:func:`calcpack.package.pipeline.prepare_sheet` in a worker process, its body spilled
     to ``bodies``.
 
     Returns the sheet, the formulas this worker typeset that the build does not have yet and
-    the line breaks of the wide ones among them (both in the cache file's form), and the keys
-    of every formula the sheet used, for the build to save the formula cache. Formulas the
-    build already has are not sent back again.
+    the line breaks of the wide ones among them (both in the cache file's form), the keys
+    of every formula the sheet used, for the build to save the formula cache, and the sheet's
+    page count when ``count`` (project, document options, date) is given
+    (:func:`calcpack.package.pipeline.count_sheet_pages`). Formulas the build already has are
+    not sent back again.
     """
     global _worker_math_cache
     from calcpack.package.mathsvg import (
@@ -71,7 +81,7 @@ def prepare_in_worker(
         share_formulas,
         used_keys,
     )
-    from calcpack.package.pipeline import prepare_sheet
+    from calcpack.package.pipeline import count_sheet_pages, prepare_sheet
 
     if math_cache is not None and math_cache != _worker_math_cache:
         load_math_cache(Path(math_cache))
@@ -80,8 +90,10 @@ def prepare_in_worker(
     # The other workers send the formulas they typeset themselves.
     _worker_sent.update(share_formulas(Path(bodies) / "formulas"))
     used_keys.clear()
-    doc = spill_body(prepare_sheet(item.entry, item, source=source), index, Path(bodies))
+    doc = prepare_sheet(item.entry, item, source=source)
+    pages = count_sheet_pages(count[0], doc, count[1], count[2]) if count else None
+    doc = spill_body(doc, index, Path(bodies))
     _worker_sent.update(share_formulas(Path(bodies) / "formulas"))
     new = used_keys - _worker_sent
     _worker_sent.update(new)
-    return doc, cache_entries(new), break_entries(new), sorted(used_keys)
+    return doc, cache_entries(new), break_entries(new), sorted(used_keys), pages

@@ -47,7 +47,7 @@ from typing import Any
 
 from calcpack.errors import BuildError
 
-__all__ = ["Layout", "PdfAttachment", "paginate", "split_sections", "write_pdf"]
+__all__ = ["Layout", "PdfAttachment", "count_pages", "paginate", "split_sections", "write_pdf"]
 
 PX_TO_PT = 0.75
 """CSS px to PDF points (96 px = 72 pt = 1 in)."""
@@ -343,7 +343,43 @@ def _lay_out_chunk(
         return _Chunk(sections, len(document.pages), tuple(_foreign_links(document)), pdf, holds)
 
 
+def count_pages(html: str, ids: Sequence[str], base_url: str | None = None) -> dict[str, int]:
+    """Lay a document out (nothing is written) and count the pages of the sections ``ids``.
+
+    Raises:
+        BuildError: a section is missing from the layout.
+    """
+    from weasyprint import HTML
+
+    with _cross_chunk_links_expected():
+        document = HTML(string=html, base_url=base_url).render()
+        return {ident: b - a + 1 for ident, (a, b) in _section_pages(document, ids).items()}
+
+
 # --------------------------------------------------------------------------- the passes
+
+
+def _starts(split: _Split, assumed: dict[str, int]) -> dict[str, int]:
+    """The first page of every section, given the assumed page counts."""
+    starts: dict[str, int] = {}
+    page = 1
+    for ident, _ in split.sections:
+        starts[ident] = page
+        page += assumed[ident]
+    return starts
+
+
+def _count_front_and_back(
+    split: _Split, assumed: dict[str, int], sheet_sections: set[str], base_url: str | None
+) -> dict[str, int]:
+    """Page counts of the sections that are not sheets (cover, contents... summary...), laid
+    out together without the sheets: each starts on a new page, and none depends on the
+    sheets' layout, only on what the sheets list (titles, checks), which is in the HTML."""
+    indices = [i for i, (ident, _) in enumerate(split.sections) if ident not in sheet_sections]
+    html = _chunk_html(
+        split, indices, offset=0, total=sum(assumed.values()), starts=_starts(split, assumed)
+    )
+    return count_pages(html, [split.sections[i][0] for i in indices], base_url)
 
 
 def paginate(
@@ -364,8 +400,10 @@ def paginate(
         sheet_ids: sheet path -> its section id.
         section_ids: every section id in the document, in document order.
         roles: the sign-off roles whose boxes to measure (on the first chunk).
-        guess: page counts expected per section id (from an earlier build); when right, one
-            layout pass is enough. Sections not given are assumed to take one page.
+        guess: page counts expected per section id (from an earlier build, or each sheet
+            counted on its own); when right, one layout pass is enough. Sheets not given are
+            assumed to take one page; the other sections, when one of them is not given, are
+            first counted on their own (a short document without the sheets).
         pool: worker processes to lay out the chunks after the first in parallel (the first,
             with the cover, is laid out here); None lays out every chunk in this process.
         fill: applied to each chunk's HTML before it is laid out. The build passes the sheets
@@ -378,13 +416,21 @@ def paginate(
     Raises:
         BuildError: a section or sign-off box is missing, or the counts never settle.
     """
-    assumed = {ident: max(1, int((guess or {}).get(ident, 1))) for ident in section_ids}
-    for _ in range(4):
-        counts = {path: assumed[ident] for path, ident in sheet_ids.items()}
-        split = _split(make_html(counts), section_ids)
-        layout, measured = _one_pass(
-            split, assumed, set(sheet_ids.values()), roles, base_url, pool, fill
-        )
+    given = guess or {}
+    assumed = {ident: max(1, int(given.get(ident, 1))) for ident in section_ids}
+    sheet_sections = set(sheet_ids.values())
+    split = _split(
+        make_html({path: assumed[ident] for path, ident in sheet_ids.items()}), section_ids
+    )
+    if sheet_sections and any(
+        ident not in given for ident in section_ids if ident not in sheet_sections
+    ):
+        assumed.update(_count_front_and_back(split, assumed, sheet_sections, base_url))
+    for attempt in range(4):
+        if attempt:
+            counts = {path: assumed[ident] for path, ident in sheet_ids.items()}
+            split = _split(make_html(counts), section_ids)
+        layout, measured = _one_pass(split, assumed, sheet_sections, roles, base_url, pool, fill)
         if layout is not None:
             return layout
         assumed = measured
@@ -405,11 +451,7 @@ def _one_pass(
     from weasyprint import HTML
 
     total = sum(assumed.values())
-    starts: dict[str, int] = {}
-    page = 1
-    for ident, _ in split.sections:
-        starts[ident] = page
-        page += assumed[ident]
+    starts = _starts(split, assumed)
     groups = _chunks(split, sheet_sections, fill)
     ids = [[split.sections[i][0] for i in group] for group in groups]
 

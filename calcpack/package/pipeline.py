@@ -260,17 +260,31 @@ def _previous_manifest(path: Path) -> dict[str, Any]:
     return data if isinstance(data, dict) else {}
 
 
+def _known_sheet_pages(previous: dict[str, Any], options: DocumentOptions) -> dict[str, int]:
+    """Sheet path -> its page count in the previous build (same paper), if there was one."""
+    if previous.get("build", {}).get("paper") != options.paper:
+        return {}
+    known: dict[str, int] = {}
+    for sheet in previous.get("sheets", []):
+        if isinstance(sheet, dict) and isinstance(sheet.get("path"), str):
+            with contextlib.suppress(TypeError, ValueError):
+                first, last = sheet.get("pages", [1, 1])
+                known[sheet["path"]] = int(last) - int(first) + 1
+    return known
+
+
 def _page_guess(
     previous: dict[str, Any],
-    executed: list[ExecutedSheet],
+    sheet_pages: dict[str, int],
     sheet_ids: dict[str, str],
     options: DocumentOptions,
 ) -> dict[str, int]:
-    """Expected page count per section id: the previous build's when there was one, else 1.
+    """Expected page count per section id, so that the layout needs one pass, not two.
 
-    A sheet's page count depends only on its own content and the paper, and an edit rarely
-    changes it, so the guess is usually right and the layout needs one pass instead of two.
-    Sheets are matched by path (they may have moved); the other sections by id.
+    A sheet's page count depends only on its own content and the paper: a sheet the previous
+    build had keeps its count there (an edit rarely changes it); a new one was counted on its
+    own when it was converted (``sheet_pages``, by path). The other sections take the previous
+    build's counts, by id; without one, :func:`~calcpack.package.paginate.paginate` counts them.
     """
     if previous.get("build", {}).get("paper") != options.paper:
         previous = {}
@@ -278,15 +292,26 @@ def _page_guess(
     for ident, span in (previous.get("sections") or {}).items():
         if ident not in sheet_ids.values() and isinstance(span, list) and len(span) == 2:
             guess[ident] = int(span[1]) - int(span[0]) + 1
-    known = {s.get("path"): s for s in previous.get("sheets", []) if isinstance(s, dict)}
-    for item in executed:
-        old = known.get(item.entry.path)
-        if old:  # changed or not, a sheet usually keeps its page count
-            first, last = old.get("pages", [1, 1])
-            guess[sheet_ids[item.entry.path]] = int(last) - int(first) + 1
-        else:
-            guess[sheet_ids[item.entry.path]] = 1  # most sheets fit one page; wrong costs a pass
+    for path, ident in sheet_ids.items():
+        if path in sheet_pages:
+            guess[ident] = sheet_pages[path]
     return guess
+
+
+def count_sheet_pages(
+    project: Project, doc: SheetDoc, options: DocumentOptions, created: _dt.datetime
+) -> int:
+    """The pages a sheet takes, laid out on its own.
+
+    A sheet starts on a new page and its title block does not depend on the other sheets, so
+    this is its page count in the package (the layout checks it all the same).
+    """
+    from calcpack.package.paginate import count_pages
+
+    html = document_html(
+        project, [doc], replace(options, sheets_only=True, sheet_pages={}), created=created
+    )
+    return count_pages(html, ["sheet-1"], base_url=str(project.root))["sheet-1"]
 
 
 def _safe_name(text: str) -> str:
@@ -311,7 +336,7 @@ def _sheet_ids(docs: list[SheetDoc]) -> dict[str, str]:
 def _lay_out(
     project: Project,
     docs: list[SheetDoc],
-    executed: list[ExecutedSheet],
+    sheet_pages: dict[str, int],
     options: DocumentOptions,
     created: _dt.datetime,
     previous: dict[str, Any],
@@ -349,7 +374,7 @@ def _lay_out(
         section_ids=section_ids,
         roles=ROLES,
         base_url=str(project.root),
-        guess=_page_guess(previous, executed, sheet_ids, options),
+        guess=_page_guess(previous, sheet_pages, sheet_ids, options),
         pool=pool,
         fill=functools.partial(fill_bodies, bodies),
     )
@@ -447,19 +472,26 @@ def build(
         index = {sheet.path: i for i, sheet in enumerate(project.sheets)}
         converting: dict[str, concurrent.futures.Future[Any]] = {}
         docs_here: dict[str, SheetDoc] = {}
+        # Page counts: a sheet the previous build had keeps its count as the guess; a new one
+        # is counted on its own as it is converted, so a first build lays out once, not twice.
+        known_pages = _known_sheet_pages(previous, options)
+        sheet_pages = dict(known_pages)
 
         def convert(item: ExecutedSheet) -> None:
             """Convert a sheet as soon as it is executed (or read from the cache)."""
             if report:
                 report("rendering", item.entry.path)
             n = index[item.entry.path]
+            count = None if item.entry.path in known_pages else (project, options, created)
             if pool is None:
                 doc = prepare_sheet(item.entry, item, source=reviewer_copy)
+                if count:
+                    sheet_pages[item.entry.path] = count_sheet_pages(count[0], doc, *count[1:])
                 docs_here[item.entry.path] = spill_body(doc, n, bodies)
             else:
                 cache_file = str(math_cache) if use_cache else None
                 converting[item.entry.path] = pool.submit(
-                    prepare_in_worker, item, reviewer_copy, cache_file, n, str(bodies)
+                    prepare_in_worker, item, reviewer_copy, cache_file, n, str(bodies), count
                 )
 
         executed = execute_sheets(
@@ -474,7 +506,9 @@ def build(
         docs = []
         for item in executed:
             if item.entry.path in converting:
-                doc, formulas, breaks, used = converting.pop(item.entry.path).result()
+                doc, formulas, breaks, used, pages = converting.pop(item.entry.path).result()
+                if pages is not None:
+                    sheet_pages[item.entry.path] = pages
                 add_cache_entries(formulas)
                 add_break_entries(breaks)
                 used_keys.update(used)
@@ -483,7 +517,16 @@ def build(
             docs.append(doc)
         options = replace(options, revisions=revisions.compare_with_issued(project, docs))
         layout = _lay_out(
-            project, docs, executed, options, created, previous, reviewer_copy, report, pool, bodies
+            project,
+            docs,
+            sheet_pages,
+            options,
+            created,
+            previous,
+            reviewer_copy,
+            report,
+            pool,
+            bodies,
         )
     if use_cache:
         save_math_cache(math_cache, set(used_keys))
