@@ -243,7 +243,8 @@ class _SharedFormulas:
     worker would otherwise typeset every one of them again. Each worker appends what it
     typesets to its own file in a shared folder, one JSON line per formula or line break, and
     reads the other workers' files (from where it stopped last time) before typesetting one.
-    A line still being written is left for the next read.
+    A line still being written is left for the next read. Of a formula only where its line is
+    is kept until it is wanted, so a worker does not hold every other worker's images.
     """
 
     def __init__(self, folder: Path) -> None:
@@ -252,6 +253,7 @@ class _SharedFormulas:
         self.own = folder / f"{os.getpid()}.jsonl"
         self._out = self.own.open("a", encoding="utf-8")
         self._read: dict[Path, int] = {}
+        self._where: dict[tuple[str, bool, float], tuple[Path, int, int]] = {}
         self.taken: set[tuple[str, bool, float]] = set()
         """Formulas taken from the other workers (they report them to the build)."""
 
@@ -266,8 +268,26 @@ class _SharedFormulas:
         self._out.write(json.dumps(line) + "\n")
         self._out.flush()
 
+    def get(self, key: tuple[str, bool, float]) -> MathImage | None:
+        """The formula if another worker typeset it (its image is read now)."""
+        self.take()
+        where = self._where.get(key)
+        if where is None:
+            return None
+        path, start, length = where
+        try:
+            with path.open("rb") as handle:
+                handle.seek(start)
+                _, *item = json.loads(handle.read(length))
+        except (OSError, ValueError):
+            return None
+        if not add_cache_entries([item], mark_used=False):
+            return None
+        self.taken.add(key)
+        return _cache.get(key)
+
     def take(self) -> None:
-        """Read what the other workers added since the last call."""
+        """Index what the other workers added since the last call (line breaks are taken)."""
         for path in self.folder.glob("*.jsonl"):
             if path == self.own:
                 continue
@@ -282,15 +302,18 @@ class _SharedFormulas:
                 continue
             end = data.rfind(b"\n") + 1
             self._read[path] = start + end
-            for raw in data[:end].splitlines():
+            position = start
+            for raw in data[:end].splitlines(keepends=True):
                 try:
                     kind, *item = json.loads(raw)
-                except ValueError:
-                    continue
-                if kind == "f" and add_cache_entries([item], mark_used=False):
-                    self.taken.add((str(item[0]), bool(item[1]), float(item[2])))
-                elif kind == "b":
-                    add_break_entries([item])
+                    if kind == "f":
+                        key = (str(item[0]), bool(item[1]), float(item[2]))
+                        self._where.setdefault(key, (path, position, len(raw)))
+                    elif kind == "b":
+                        add_break_entries([item])
+                except (ValueError, TypeError, IndexError):
+                    pass
+                position += len(raw)
 
 
 _shared: _SharedFormulas | None = None
@@ -325,8 +348,7 @@ def tex_to_svg(
         used_keys.add(key)
     hit = _cache.get(key)
     if hit is None and _shared is not None:
-        _shared.take()
-        hit = _cache.get(key)
+        hit = _shared.get(key)
     if hit is not None:
         return hit
     with warnings.catch_warnings():

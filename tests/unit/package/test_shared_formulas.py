@@ -6,6 +6,7 @@ import json
 import sys
 from pathlib import Path
 
+from calcpack.package import mathsvg
 from calcpack.package.execute import process_pool
 from calcpack.package.mathsvg import MATH_MAX_WIDTH_PX, _SharedFormulas, known_keys
 
@@ -37,10 +38,10 @@ def test_second_worker_takes_what_the_first_typeset(tmp_path: Path) -> None:
     with process_pool(1) as pool:  # a new process, with an empty cache of its own
         second, taken, loaded = pool.submit(_typeset_in_worker, folder).result(timeout=180)
     assert second == first
-    # Every formula came from the first worker's file (the two, and the wide one typeset whole
-    # and then broken), with the line breaks, and the typesetter was never loaded: nothing was
-    # typeset twice.
-    assert taken == len(SHARED) + 2
+    # Every formula came from the first worker's file (the two, and the wide one broken over
+    # lines: its line breaks were read first, so its whole image was not even wanted), and the
+    # typesetter was never loaded: nothing was typeset twice.
+    assert taken == len(SHARED) + 1
     assert not loaded
 
 
@@ -51,12 +52,16 @@ def test_a_line_still_being_written_waits_for_the_next_read(tmp_path: Path) -> N
     key = ("q_{partial} = 1", True, 13.5)
     line = json.dumps(["f", *key, "<svg/>", 10.0, 5.0, 1.0]) + "\n"
     other.write_text(line[:20], "utf-8")
-    shared.take()
-    assert key not in known_keys()
+    assert shared.get(key) is None
     with other.open("a", encoding="utf-8") as handle:
         handle.write(line[20:])
         handle.write(json.dumps(["b", WIDE + " x", MATH_MAX_WIDTH_PX, "broken"]) + "\n")
         handle.write("not json\n")
     shared.take()
+    assert key not in known_keys()  # only indexed: the image is read when it is wanted
+    assert (WIDE + " x", MATH_MAX_WIDTH_PX) in mathsvg._breaks  # line breaks are taken at once
+    image = shared.get(key)
+    assert image is not None
+    assert image.svg == "<svg/>"
     assert key in known_keys()
     assert key in shared.taken
