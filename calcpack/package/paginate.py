@@ -39,15 +39,25 @@ import datetime as _dt
 import hashlib
 import io
 import itertools
+import json
 import logging
 import re
 from collections.abc import Callable, Iterator, Sequence
 from dataclasses import dataclass, field, replace
+from pathlib import Path
 from typing import Any
 
 from calcpack.errors import BuildError
 
-__all__ = ["Layout", "PdfAttachment", "count_pages", "paginate", "split_sections", "write_pdf"]
+__all__ = [
+    "ChunkStore",
+    "Layout",
+    "PdfAttachment",
+    "count_pages",
+    "paginate",
+    "split_sections",
+    "write_pdf",
+]
 
 PX_TO_PT = 0.75
 """CSS px to PDF points (96 px = 72 pt = 1 in)."""
@@ -356,6 +366,76 @@ def count_pages(html: str, ids: Sequence[str], base_url: str | None = None) -> d
         return {ident: b - a + 1 for ident, (a, b) in _section_pages(document, ids).items()}
 
 
+# --------------------------------------------------------------------------- kept chunks
+
+
+class ChunkStore:
+    """Chunks laid out by earlier builds, kept in a folder by what determines them.
+
+    A chunk's layout and PDF depend only on its HTML (sections, page numbers and counts written
+    in, stylesheet), the page counts assumed for its sections, the base URL and the layout
+    code; the SHA-256 of those names its files (``KEY.pdf`` and ``KEY.json``). When one sheet of
+    a package changes, a rebuild lays out only the chunks whose HTML changed (the cover and front
+    matter are always laid out, in the build process). Only chunks that were written (their
+    counts held) are kept; :meth:`prune` drops those the last build did not use.
+    """
+
+    def __init__(self, folder: Path) -> None:
+        from importlib.metadata import version
+
+        from calcpack import __version__
+
+        self.folder = folder
+        libraries = "|".join(f"{name} {version(name)}" for name in ("weasyprint", "pydyf"))
+        self.salt = f"calcpack {__version__}|{libraries}|{PDF_VARIANT}|{_LAYOUT_FORMAT}"
+        self.used: set[str] = set()
+
+    def key(self, html: str, counts: dict[str, int], base_url: str | None) -> str:
+        digest = hashlib.sha256()
+        for part in (self.salt, base_url or "", json.dumps(counts, sort_keys=True), html):
+            digest.update(part.encode() + b"\0")
+        return digest.hexdigest()
+
+    def get(self, key: str) -> _Chunk | None:
+        try:
+            meta = json.loads((self.folder / f"{key}.json").read_text("utf-8"))
+            pdf = (self.folder / f"{key}.pdf").read_bytes()
+            sections = {k: (int(a), int(b)) for k, (a, b) in meta["sections"].items()}
+            links = tuple(
+                _Link(int(page), (float(x1), float(y1), float(x2), float(y2)), str(target))
+                for page, (x1, y1, x2, y2), target in meta["links"]
+            )
+            chunk = _Chunk(sections, int(meta["page_count"]), links, pdf, True)
+        except (OSError, ValueError, KeyError, TypeError):
+            return None
+        self.used.add(key)
+        return chunk
+
+    def put(self, key: str, chunk: _Chunk) -> None:
+        if chunk.pdf is None:
+            return
+        from calcpack.fileio import write_atomically
+
+        self.folder.mkdir(parents=True, exist_ok=True)
+        meta = {
+            "sections": {k: list(v) for k, v in chunk.sections.items()},
+            "page_count": chunk.page_count,
+            "links": [[link.page, list(link.rect), link.target] for link in chunk.links],
+        }
+        write_atomically(self.folder / f"{key}.pdf", chunk.pdf)
+        write_atomically(self.folder / f"{key}.json", json.dumps(meta))
+        self.used.add(key)
+
+    def prune(self) -> None:
+        """Delete the kept chunks this store's build did not use."""
+        for path in self.folder.glob("*.*"):
+            if path.suffix in (".pdf", ".json") and path.stem not in self.used:
+                path.unlink(missing_ok=True)
+
+
+_LAYOUT_FORMAT = "calcpack-chunk/1"
+
+
 # --------------------------------------------------------------------------- the passes
 
 
@@ -392,6 +472,7 @@ def paginate(
     guess: dict[str, int] | None = None,
     pool: concurrent.futures.Executor | None = None,
     fill: Callable[[str], str] | None = None,
+    store: ChunkStore | None = None,
 ) -> Layout:
     """Lay out, chunk by chunk, until every section's page count is the one assumed.
 
@@ -409,6 +490,8 @@ def paginate(
         fill: applied to each chunk's HTML before it is laid out. The build passes the sheets
             to ``make_html`` with placeholders for their bodies and fills them in per chunk,
             so that the whole package never exists as one string.
+        store: chunks kept from earlier builds (see :class:`ChunkStore`): a chunk found there
+            is not laid out again, and the chunks laid out are added to it.
 
     Returns:
         The final layout, ready for :func:`write_pdf`.
@@ -430,7 +513,9 @@ def paginate(
         if attempt:
             counts = {path: assumed[ident] for path, ident in sheet_ids.items()}
             split = _split(make_html(counts), section_ids)
-        layout, measured = _one_pass(split, assumed, sheet_sections, roles, base_url, pool, fill)
+        layout, measured = _one_pass(
+            split, assumed, sheet_sections, roles, base_url, pool, fill, store
+        )
         if layout is not None:
             return layout
         assumed = measured
@@ -445,6 +530,7 @@ def _one_pass(
     base_url: str | None,
     pool: concurrent.futures.Executor | None,
     fill: Callable[[str], str] | None,
+    store: ChunkStore | None = None,
 ) -> tuple[Layout | None, dict[str, int]]:
     """Lay out every chunk with the assumed page counts written in; the layout if they held,
     and the measured page count of every section."""
@@ -461,14 +547,38 @@ def _one_pass(
         html = _chunk_html(split, groups[n], offset=offset, total=total, starts=starts)
         return fill(html) if fill else html
 
+    to_keep: dict[concurrent.futures.Future[_Chunk], str] = {}
+
+    def lay_out(n: int, counts: dict[str, int] | None) -> concurrent.futures.Future[_Chunk]:
+        """Chunk ``n``: from the store, else laid out (in a worker when there are some)."""
+        html = chunk_html(n)
+        own = {ident: assumed[ident] for ident in ids[n]}
+        key = store.key(html, own, base_url) if store is not None and counts else None
+        kept = store.get(key) if store is not None and key else None
+        future: concurrent.futures.Future[_Chunk]
+        if kept is None and pool is not None:
+            future = pool.submit(_lay_out_chunk, html, ids[n], counts, base_url)
+        else:
+            future = concurrent.futures.Future()
+            future.set_result(kept or _lay_out_chunk(html, ids[n], counts, base_url))
+        if key and kept is None:
+            to_keep[future] = key
+        return future
+
+    def result(future: concurrent.futures.Future[_Chunk]) -> _Chunk:
+        chunk = future.result()
+        key = to_keep.pop(future, None)
+        if store is not None and key:
+            store.put(key, chunk)
+        return chunk
+
     # Chunks after the first go to the workers a few at a time (each carries its HTML).
     queued: collections.deque[concurrent.futures.Future[_Chunk]] = collections.deque()
     later = iter(range(1, len(groups)))
 
     def submit(count: int) -> None:
         for n in itertools.islice(later, count):
-            assert pool is not None
-            queued.append(pool.submit(_lay_out_chunk, chunk_html(n), ids[n], assumed, base_url))
+            queued.append(lay_out(n, assumed))
 
     if pool is not None:
         submit(IN_FLIGHT)
@@ -481,12 +591,12 @@ def _one_pass(
     holds = _as_assumed(first_sections, assumed)
     if pool is not None:
         while queued:
-            chunks.append(queued.popleft().result())
+            chunks.append(result(queued.popleft()))
             submit(1)
     else:
         for n in range(1, len(groups)):
             # Once a count differs this pass is only counting: no chunk is written.
-            chunk = _lay_out_chunk(chunk_html(n), ids[n], assumed if holds else None, base_url)
+            chunk = result(lay_out(n, assumed if holds else None))
             holds = holds and chunk.holds
             chunks.append(chunk)
 

@@ -51,7 +51,7 @@ from calcpack.package.manifest import (
     sheet_record,
 )
 from calcpack.package.mathsvg import add_break_entries, add_cache_entries
-from calcpack.package.paginate import Layout, PdfAttachment, paginate, write_pdf
+from calcpack.package.paginate import ChunkStore, Layout, PdfAttachment, paginate, write_pdf
 from calcpack.package.project import Person, Project, Revision, SheetEntry, load_project
 from calcpack.package.records import collect_records
 
@@ -344,6 +344,7 @@ def _lay_out(
     report: Reporter | None,
     pool: concurrent.futures.Executor | None,
     bodies: Path,
+    store: ChunkStore | None,
 ) -> Layout:
     """Paginate the package (see :func:`calcpack.package.paginate.paginate`).
 
@@ -377,6 +378,7 @@ def _lay_out(
         guess=_page_guess(previous, sheet_pages, sheet_ids, options),
         pool=pool,
         fill=functools.partial(fill_bodies, bodies),
+        store=store,
     )
 
 
@@ -461,6 +463,8 @@ def build(
     from calcpack.package.mathsvg import load_math_cache, save_math_cache, used_keys
 
     math_cache = project.root / CACHE_DIR_NAME / "math.json"
+    # Chunks of the layout kept between builds: a rebuild lays out only the changed ones.
+    store = ChunkStore(project.root / CACHE_DIR_NAME / "layout") if use_cache else None
     if use_cache:
         load_math_cache(math_cache)
     used_keys.clear()
@@ -527,6 +531,7 @@ def build(
             report,
             pool,
             bodies,
+            store,
         )
     if use_cache:
         save_math_cache(math_cache, set(used_keys))
@@ -581,6 +586,8 @@ def build(
         raise
     os.replace(tmp_manifest, manifest_path)
     os.replace(tmp_pdf, pdf_path)
+    if store is not None:
+        store.prune()
     revisions.keep_issued(project, manifest_path)
     return BuildResult(
         pdf_path,
