@@ -76,6 +76,7 @@ def prepare_in_worker(
     from calcpack.package.mathsvg import (
         break_entries,
         cache_entries,
+        forget_shared_images,
         known_keys,
         load_math_cache,
         share_formulas,
@@ -96,4 +97,6 @@ def prepare_in_worker(
     _worker_sent.update(share_formulas(Path(bodies) / "formulas"))
     new = used_keys - _worker_sent
     _worker_sent.update(new)
-    return doc, cache_entries(new), break_entries(new), sorted(used_keys), pages
+    formulas, breaks = cache_entries(new), break_entries(new)
+    forget_shared_images()  # in the shared files: read back if a later sheet wants them
+    return doc, formulas, breaks, sorted(used_keys), pages

@@ -47,6 +47,7 @@ __all__ = [
     "cache_entries",
     "fitted_image",
     "fix_tex",
+    "forget_shared_images",
     "known_keys",
     "load_math_cache",
     "markdown_math_to_spans",
@@ -244,14 +245,17 @@ class _SharedFormulas:
     typesets to its own file in a shared folder, one JSON line per formula or line break, and
     reads the other workers' files (from where it stopped last time) before typesetting one.
     A line still being written is left for the next read. Of a formula only where its line is
-    is kept until it is wanted, so a worker does not hold every other worker's images.
+    is kept until it is wanted, so a worker does not hold every other worker's images; and
+    once a sheet is done a worker lets go of the images in the files, its own included
+    (:func:`forget_shared_images`).
     """
 
     def __init__(self, folder: Path) -> None:
         self.folder = folder
         folder.mkdir(parents=True, exist_ok=True)
         self.own = folder / f"{os.getpid()}.jsonl"
-        self._out = self.own.open("a", encoding="utf-8")
+        self._out = self.own.open("ab")
+        self._size = self._out.tell()
         self._read: dict[Path, int] = {}
         self._where: dict[tuple[str, bool, float], tuple[Path, int, int]] = {}
         self.taken: set[tuple[str, bool, float]] = set()
@@ -259,14 +263,23 @@ class _SharedFormulas:
 
     def put_formula(self, key: tuple[str, bool, float], image: MathImage) -> None:
         line = ["f", *key, image.svg, image.width_px, image.height_px, image.baseline_px]
-        self._write(line)
+        start, length = self._write(line)
+        self._where.setdefault(key, (self.own, start, length))
 
     def put_break(self, key: tuple[str, float], broken: str) -> None:
         self._write(["b", *key, broken])
 
-    def _write(self, line: list[Any]) -> None:
-        self._out.write(json.dumps(line) + "\n")
+    def _write(self, line: list[Any]) -> tuple[int, int]:
+        data = (json.dumps(line) + "\n").encode()
+        start = self._size
+        self._out.write(data)
         self._out.flush()
+        self._size += len(data)
+        return start, len(data)
+
+    def holds(self, key: tuple[str, bool, float]) -> bool:
+        """Whether the shared files hold this formula (so its image can be read again)."""
+        return key in self._where
 
     def get(self, key: tuple[str, bool, float]) -> MathImage | None:
         """The formula if another worker typeset it (its image is read now)."""
@@ -283,7 +296,8 @@ class _SharedFormulas:
             return None
         if not add_cache_entries([item], mark_used=False):
             return None
-        self.taken.add(key)
+        if path != self.own:
+            self.taken.add(key)
         return _cache.get(key)
 
     def take(self) -> None:
@@ -317,6 +331,17 @@ class _SharedFormulas:
 
 
 _shared: _SharedFormulas | None = None
+
+
+def forget_shared_images() -> int:
+    """In a worker sharing formulas: drop the images the shared files hold from memory (they
+    are read back if a later sheet wants them). Returns how many were dropped."""
+    if _shared is None:
+        return 0
+    held = [key for key in _cache if _shared.holds(key)]
+    for key in held:
+        del _cache[key]
+    return len(held)
 
 
 def share_formulas(folder: Path) -> set[tuple[str, bool, float]]:

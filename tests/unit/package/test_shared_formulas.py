@@ -20,13 +20,29 @@ WIDE = " + ".join(rf"\frac{{w_{{{i}}} L^{{2}}}}{{8}}" for i in range(1, 25))
 
 def _typeset_in_worker(folder: str) -> tuple[list[str], int, bool]:
     """In a fresh worker: typeset SHARED and WIDE; their SVGs, how many formulas came from
-    the other workers, and whether this process had to load the typesetter at all."""
-    from calcpack.package.mathsvg import fitted_image, share_formulas, tex_to_svg
+    the other workers, and whether this process had to load the typesetter at all.
+
+    Then, as after a sheet, the images are dropped from memory, and asked for again: they must
+    be read back from the shared files, the same, not typeset again."""
+    from calcpack.package.mathsvg import (
+        fitted_image,
+        forget_shared_images,
+        known_keys,
+        share_formulas,
+        tex_to_svg,
+    )
 
     taken = share_formulas(Path(folder))
     svgs = [tex_to_svg(tex, display=True).svg for tex in SHARED]
     svgs.append(fitted_image(WIDE, True).svg)
-    return svgs, len(taken), "ziamath" in sys.modules
+    loaded = "ziamath" in sys.modules
+    assert forget_shared_images() >= len(SHARED)
+    assert not any(key[0] in SHARED for key in known_keys())
+    again = [tex_to_svg(tex, display=True).svg for tex in SHARED]
+    again.append(fitted_image(WIDE, True).svg)
+    assert again == svgs
+    assert ("ziamath" in sys.modules) == loaded  # read back, not typeset
+    return svgs, len(taken), loaded
 
 
 def test_second_worker_takes_what_the_first_typeset(tmp_path: Path) -> None:
