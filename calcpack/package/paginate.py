@@ -167,9 +167,13 @@ def _split(html: str, section_ids: Sequence[str]) -> _Split:
 def _chunks(
     split: _Split, sheet_sections: set[str], fill: Callable[[str], str] | None = None
 ) -> list[list[int]]:
-    """Indices of the sections in each chunk: front matter, groups of sheets, back matter.
+    """Indices of the sections in each chunk: the cover, the rest of the front matter, groups
+    of sheets, back matter.
 
-    Sheets are grouped by the size of their HTML once filled in (see :func:`paginate`).
+    Sheets are grouped by the size of their HTML once filled in (see :func:`paginate`). The
+    first chunk, laid out in the build process and kept until the PDF is written (it carries
+    the sign-off boxes and the attachments), holds the cover alone when other front matter
+    follows: the contents and assumptions of a large package run to many pages.
     """
     chunks: list[list[int]] = []
     size = 0
@@ -180,7 +184,12 @@ def _chunks(
         length = len(fill(text)) if fill and is_sheet else len(text)
         this = "sheet" if is_sheet else ("back" if seen_sheet else "front")
         seen_sheet = seen_sheet or is_sheet
-        if not chunks or this != kind or (is_sheet and size + length > CHUNK_HTML_CHARS):
+        if (
+            not chunks
+            or this != kind
+            or (is_sheet and size + length > CHUNK_HTML_CHARS)
+            or (this == "front" and i == 1)
+        ):
             chunks.append([])
             size = 0
         kind = this
