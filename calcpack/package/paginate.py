@@ -2,9 +2,9 @@
 
 A laid-out WeasyPrint document holds every page's boxes: a 200-sheet package laid out in one
 piece needs gigabytes. The package is therefore laid out in *chunks* of whole sections (the
-cover and front matter; groups of sheets; the back matter), each written to PDF and freed before
-the next, and the chunk PDFs are joined with pypdf. What CSS would compute across the whole
-document is written into each chunk instead:
+cover; the rest of the front matter; groups of sheets; the back matter), each written to PDF and
+freed before the next, and the chunk PDFs are joined with pypdf. What CSS would compute across
+the whole document is written into each chunk instead:
 
 - the package page number: each chunk's page counter starts at its offset (``counter-set`` on
   its first page) and ``counter(pages)`` is replaced by the package's page count;
@@ -384,8 +384,8 @@ class ChunkStore:
     A chunk's layout and PDF depend only on its HTML (sections, page numbers and counts written
     in, stylesheet), the page counts assumed for its sections, the base URL and the layout
     code; the SHA-256 of those names its files (``KEY.pdf`` and ``KEY.json``). When one sheet of
-    a package changes, a rebuild lays out only the chunks whose HTML changed (the cover and front
-    matter are always laid out, in the build process). Only chunks that were written (their
+    a package changes, a rebuild lays out only the chunks whose HTML changed (the cover is
+    always laid out, in the build process). Only chunks that were written (their
     counts held) are kept; :meth:`prune` drops those the last build did not use.
     """
 
@@ -459,16 +459,25 @@ def _starts(split: _Split, assumed: dict[str, int]) -> dict[str, int]:
 
 
 def _count_front_and_back(
-    split: _Split, assumed: dict[str, int], sheet_sections: set[str], base_url: str | None
+    split: _Split,
+    assumed: dict[str, int],
+    sheet_sections: set[str],
+    base_url: str | None,
+    pool: concurrent.futures.Executor | None = None,
 ) -> dict[str, int]:
     """Page counts of the sections that are not sheets (cover, contents... summary...), laid
     out together without the sheets: each starts on a new page, and none depends on the
-    sheets' layout, only on what the sheets list (titles, checks), which is in the HTML."""
+    sheets' layout, only on what the sheets list (titles, checks), which is in the HTML.
+    Laid out in a worker when there are some (a large package's front and back matter run to
+    dozens of pages, and the build process should not grow by their layout)."""
     indices = [i for i, (ident, _) in enumerate(split.sections) if ident not in sheet_sections]
     html = _chunk_html(
         split, indices, offset=0, total=sum(assumed.values()), starts=_starts(split, assumed)
     )
-    return count_pages(html, [split.sections[i][0] for i in indices], base_url)
+    ids = [split.sections[i][0] for i in indices]
+    if pool is not None:
+        return pool.submit(count_pages, html, ids, base_url).result()
+    return count_pages(html, ids, base_url)
 
 
 def paginate(
@@ -517,7 +526,7 @@ def paginate(
     if sheet_sections and any(
         ident not in given for ident in section_ids if ident not in sheet_sections
     ):
-        assumed.update(_count_front_and_back(split, assumed, sheet_sections, base_url))
+        assumed.update(_count_front_and_back(split, assumed, sheet_sections, base_url, pool))
     for attempt in range(4):
         if attempt:
             counts = {path: assumed[ident] for path, ident in sheet_ids.items()}
