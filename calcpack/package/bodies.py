@@ -26,7 +26,7 @@ if TYPE_CHECKING:
     from calcpack.package.execute import ExecutedSheet
     from calcpack.package.project import Project
 
-__all__ = ["fill_bodies", "prepare_in_worker", "spill_body"]
+__all__ = ["convert_sheet", "fill_bodies", "prepare_in_worker", "spill_body"]
 
 _BODY_STUB_RE = re.compile(r"<!--cp-body-(\d+)-->")
 
@@ -48,6 +48,23 @@ def fill_bodies(bodies: Path, html: str) -> str:
     return _BODY_STUB_RE.sub(lambda m: body_file(bodies, m.group(1)).read_text("utf-8"), html)
 
 
+PageCounting = tuple["Project", "DocumentOptions", "datetime.datetime"]
+"""What counting a sheet's pages on its own needs: the project, document options and date."""
+
+
+def convert_sheet(
+    item: ExecutedSheet, source: bool, index: int, bodies: Path, count: PageCounting | None
+) -> tuple[SheetDoc, int | None]:
+    """Convert a sheet (:func:`calcpack.package.pipeline.prepare_sheet`), count its pages on
+    its own when ``count`` is given (:func:`calcpack.package.pipeline.count_sheet_pages`),
+    and spill its body to ``bodies``; the sheet and its page count (None if not counted)."""
+    from calcpack.package.pipeline import count_sheet_pages, prepare_sheet
+
+    doc = prepare_sheet(item.entry, item, source=source)
+    pages = count_sheet_pages(doc, *count) if count else None
+    return spill_body(doc, index, bodies), pages
+
+
 _worker_math_cache: str | None = None
 """In a worker process: the formula cache file already read."""
 _worker_sent: set[tuple[str, bool, float]] = set()
@@ -60,10 +77,9 @@ def prepare_in_worker(
     math_cache: str | None,
     index: int,
     bodies: str,
-    count: tuple[Project, DocumentOptions, datetime.datetime] | None = None,
+    count: PageCounting | None = None,
 ) -> tuple[SheetDoc, list[Any], list[Any], list[tuple[str, bool, float]], int | None]:
-    """:func:`calcpack.package.pipeline.prepare_sheet` in a worker process, its body spilled
-    to ``bodies``.
+    """:func:`convert_sheet` in a worker process.
 
     Returns the sheet, the formulas this worker typeset that the build does not have yet and
     the line breaks of the wide ones among them (both in the cache file's form), the keys
@@ -82,20 +98,16 @@ def prepare_in_worker(
         share_formulas,
         used_keys,
     )
-    from calcpack.package.pipeline import count_sheet_pages, prepare_sheet
 
     if math_cache is not None and math_cache != _worker_math_cache:
         load_math_cache(Path(math_cache))
         _worker_math_cache = math_cache
         _worker_sent.update(known_keys())
-    # The other workers send the formulas they typeset themselves.
-    _worker_sent.update(share_formulas(Path(bodies) / "formulas"))
+    taken = share_formulas(Path(bodies) / "formulas")
     used_keys.clear()
-    doc = prepare_sheet(item.entry, item, source=source)
-    pages = count_sheet_pages(count[0], doc, count[1], count[2]) if count else None
-    doc = spill_body(doc, index, Path(bodies))
-    _worker_sent.update(share_formulas(Path(bodies) / "formulas"))
-    new = used_keys - _worker_sent
+    doc, pages = convert_sheet(item, source, index, Path(bodies), count)
+    # Formulas taken from the other workers are sent by them.
+    new = used_keys - _worker_sent - taken
     _worker_sent.update(new)
     formulas, breaks = cache_entries(new), break_entries(new)
     forget_shared_images()  # in the shared files: read back if a later sheet wants them

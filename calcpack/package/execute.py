@@ -408,8 +408,6 @@ def _execute_in(
         done, _ = concurrent.futures.wait(futures, return_when=concurrent.futures.FIRST_COMPLETED)
         for future in done:
             sheet, key = futures.pop(future)
-            if future.cancelled():  # after a failure: its result is not wanted
-                continue
             try:
                 outcome = future.result()
             except concurrent.futures.process.BrokenProcessPool as exc:

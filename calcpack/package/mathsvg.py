@@ -445,6 +445,21 @@ straight away, without first typesetting it whole (for long formulas that costs 
 broken one)."""
 
 
+def _line_breaks(key: tuple[str, float], *, known_wide: bool) -> str:
+    """A wide display formula broken over lines: from the cache, from another worker, or
+    worked out now (and shared)."""
+    if _shared is not None:
+        _shared.take()
+    broken = _breaks.get(key)
+    if broken is None:
+        tex, width_px = key
+        broken = break_display(tex, width_px * _BREAK_MARGIN, _measure, known_wide=known_wide)
+        _breaks[key] = broken
+        if _shared is not None:
+            _shared.put_break(key, broken)
+    return broken
+
+
 def fitted_image(tex: str, display: bool, width_px: float = MATH_MAX_WIDTH_PX) -> MathImage:
     """The formula's image, broken over lines if display math is wider than ``width_px``.
 
@@ -454,26 +469,12 @@ def fitted_image(tex: str, display: bool, width_px: float = MATH_MAX_WIDTH_PX) -
     key = (tex, float(width_px))
     broken = _breaks.get(key) if display else None
     if broken is None and display and len(tex) > _SURELY_WIDE_TEX:
-        if _shared is not None:
-            _shared.take()
-        broken = _breaks.get(key)
-        if broken is None:
-            broken = break_display(tex, width_px * _BREAK_MARGIN, _measure, known_wide=True)
-            _breaks[key] = broken
-            if _shared is not None:
-                _shared.put_break(key, broken)
+        broken = _line_breaks(key, known_wide=True)
     if broken is not None and broken != tex:
         return tex_to_svg(broken, display=True)
     image = tex_to_svg(tex, display=display)
     if display and broken is None and image.width_px > width_px:
-        if _shared is not None:
-            _shared.take()
-        broken = _breaks.get(key)
-        if broken is None:
-            broken = break_display(tex, width_px * _BREAK_MARGIN, _measure)
-            _breaks[key] = broken
-            if _shared is not None:
-                _shared.put_break(key, broken)
+        broken = _line_breaks(key, known_wide=False)
         if broken != tex:
             image = tex_to_svg(broken, display=True)
     return image

@@ -383,20 +383,19 @@ class ChunkStore:
 
     A chunk's layout and PDF depend only on its HTML (sections, page numbers and counts written
     in, stylesheet), the page counts assumed for its sections, the base URL and the layout
-    code; the SHA-256 of those names its files (``KEY.pdf`` and ``KEY.json``). When one sheet of
-    a package changes, a rebuild lays out only the chunks whose HTML changed (the cover is
-    always laid out, in the build process). Only chunks that were written (their
+    code and libraries; the SHA-256 of those names its files (``KEY.pdf`` and ``KEY.json``).
+    When one sheet of a package changes, a rebuild lays out only the chunks whose HTML changed
+    (the cover is always laid out, in the build process). Only chunks that were written (their
     counts held) are kept; :meth:`prune` drops those the last build did not use.
     """
 
-    def __init__(self, folder: Path) -> None:
+    def __init__(self, folder: Path, code_hash: str) -> None:
+        """``code_hash``: a hash of the layout code and templates (the build's)."""
         from importlib.metadata import version
-
-        from calcpack import __version__
 
         self.folder = folder
         libraries = "|".join(f"{name} {version(name)}" for name in ("weasyprint", "pydyf"))
-        self.salt = f"calcpack {__version__}|{libraries}|{PDF_VARIANT}|{_LAYOUT_FORMAT}"
+        self.salt = f"{code_hash}|{libraries}|{PDF_VARIANT}|{_LAYOUT_FORMAT}"
         self.used: set[str] = set()
 
     def key(self, html: str, counts: dict[str, int], base_url: str | None) -> str:

@@ -28,7 +28,7 @@ from pathlib import Path
 from typing import Any
 
 from calcpack.errors import BuildError
-from calcpack.package.bodies import fill_bodies, prepare_in_worker, spill_body
+from calcpack.package.bodies import convert_sheet, fill_bodies, prepare_in_worker
 from calcpack.package.document import (
     ROLES,
     DocumentOptions,
@@ -231,12 +231,13 @@ def _build_key(
     options: DocumentOptions,
     review_file: Path | None,
     created: _dt.datetime,
+    code_hash: str,
 ) -> str:
     from calcpack.package import revisions
 
     digest = hashlib.sha256()
     for part in (
-        _package_code_hash(),
+        code_hash,
         project.path.read_bytes().decode("utf-8", "replace"),
         *executed_keys,
         options.paper,
@@ -260,12 +261,16 @@ def _previous_manifest(path: Path) -> dict[str, Any]:
     return data if isinstance(data, dict) else {}
 
 
+def _same_paper(previous: dict[str, Any], options: DocumentOptions) -> dict[str, Any]:
+    """The previous build's manifest if it was on the same paper ({} otherwise): page counts
+    carry over only then."""
+    return previous if previous.get("build", {}).get("paper") == options.paper else {}
+
+
 def _known_sheet_pages(previous: dict[str, Any], options: DocumentOptions) -> dict[str, int]:
     """Sheet path -> its page count in the previous build (same paper), if there was one."""
-    if previous.get("build", {}).get("paper") != options.paper:
-        return {}
     known: dict[str, int] = {}
-    for sheet in previous.get("sheets", []):
+    for sheet in _same_paper(previous, options).get("sheets", []):
         if isinstance(sheet, dict) and isinstance(sheet.get("path"), str):
             with contextlib.suppress(TypeError, ValueError):
                 first, last = sheet.get("pages", [1, 1])
@@ -286,10 +291,8 @@ def _page_guess(
     own when it was converted (``sheet_pages``, by path). The other sections take the previous
     build's counts, by id; without one, :func:`~calcpack.package.paginate.paginate` counts them.
     """
-    if previous.get("build", {}).get("paper") != options.paper:
-        previous = {}
     guess: dict[str, int] = {}
-    for ident, span in (previous.get("sections") or {}).items():
+    for ident, span in (_same_paper(previous, options).get("sections") or {}).items():
         if ident not in sheet_ids.values() and isinstance(span, list) and len(span) == 2:
             guess[ident] = int(span[1]) - int(span[0]) + 1
     for path, ident in sheet_ids.items():
@@ -299,7 +302,7 @@ def _page_guess(
 
 
 def count_sheet_pages(
-    project: Project, doc: SheetDoc, options: DocumentOptions, created: _dt.datetime
+    doc: SheetDoc, project: Project, options: DocumentOptions, created: _dt.datetime
 ) -> int:
     """The pages a sheet takes, laid out on its own.
 
@@ -440,7 +443,8 @@ def build(
     # Revision comparison (calcpack.package.revisions): the marks depend on the kept manifests.
     from calcpack.package import revisions
 
-    build_key = _build_key(project, keys, options, review_file, created)
+    code_hash = _package_code_hash()
+    build_key = _build_key(project, keys, options, review_file, created, code_hash)
     previous = _previous_manifest(manifest_path)
     if not force and pdf_path.is_file() and previous.get("build", {}).get("build_key") == build_key:
         revisions.keep_issued(project, manifest_path)
@@ -464,7 +468,7 @@ def build(
 
     math_cache = project.root / CACHE_DIR_NAME / "math.json"
     # Chunks of the layout kept between builds: a rebuild lays out only the changed ones.
-    store = ChunkStore(project.root / CACHE_DIR_NAME / "layout") if use_cache else None
+    store = ChunkStore(project.root / CACHE_DIR_NAME / "layout", code_hash) if use_cache else None
     if use_cache:
         load_math_cache(math_cache)
     used_keys.clear()
@@ -488,10 +492,10 @@ def build(
             n = index[item.entry.path]
             count = None if item.entry.path in known_pages else (project, options, created)
             if pool is None:
-                doc = prepare_sheet(item.entry, item, source=reviewer_copy)
-                if count:
-                    sheet_pages[item.entry.path] = count_sheet_pages(count[0], doc, *count[1:])
-                docs_here[item.entry.path] = spill_body(doc, n, bodies)
+                doc, pages = convert_sheet(item, reviewer_copy, n, bodies, count)
+                docs_here[item.entry.path] = doc
+                if pages is not None:
+                    sheet_pages[item.entry.path] = pages
             else:
                 cache_file = str(math_cache) if use_cache else None
                 converting[item.entry.path] = pool.submit(

@@ -68,9 +68,9 @@ def test_rebuild_takes_the_counts_from_the_previous_build(
 
     original = pipeline_module.count_sheet_pages
 
-    def recording(project: Any, doc: Any, *rest: Any) -> int:
+    def recording(doc: Any, *rest: Any) -> int:
         counted.append(doc.entry.path)
-        return int(original(project, doc, *rest))
+        return int(original(doc, *rest))
 
     monkeypatch.setattr(pipeline_module, "count_sheet_pages", recording)
     passes = _passes(monkeypatch)
