@@ -1,0 +1,172 @@
+"""Shared input validators: one place for the checks every calc cell makes at its boundary.
+
+Each validator returns the value it was given (so it can be used inline) or raises an
+:class:`~calcpack.errors.InputError` (or :class:`~calcpack.errors.DimensionError`) whose message
+names the input, the value given and what would be valid. Use these instead of writing
+``raise InputError(...)`` by hand.
+
+Example::
+
+    L = dimension("L", L, "[length]")
+    positive("L", L)
+    method = one_of("method", method, ("LRFD", "ASD"))
+    shape = lookup("designation", "W18X50", table)   # "did you mean ..." on a typo
+"""
+
+from __future__ import annotations
+
+import difflib
+import math
+from collections.abc import Iterable, Mapping
+from typing import Any, TypeVar
+
+import pint
+
+from calcpack.errors import InputError
+from calcpack.units import require
+
+__all__ = ["dimension", "finite", "lookup", "one_of", "positive", "suggest", "within"]
+
+T = TypeVar("T")
+K = TypeVar("K")
+
+
+def _show(value: Any) -> str:
+    if isinstance(value, pint.Quantity):
+        return f"{value:~P}"
+    return repr(value) if isinstance(value, str) else str(value)
+
+
+def _magnitude(name: str, value: Any) -> float:
+    raw = value.magnitude if isinstance(value, pint.Quantity) else value
+    try:
+        return float(raw)
+    except (TypeError, ValueError):
+        raise InputError(
+            f"Input {name} must be a number (got {name} = {_show(value)})",
+            name=name,
+            value=value,
+            expected="a number",
+        ) from None
+
+
+def dimension(name: str, value: Any, dim: str) -> pint.Quantity:
+    """Require a finite quantity of dimension ``dim`` (``"[length]"`` or a unit like ``"kN/m"``)."""
+    return require(value, dim, name)
+
+
+def finite(name: str, value: T) -> T:
+    """Require a finite number or quantity (not NaN, not infinite)."""
+    if not math.isfinite(_magnitude(name, value)):
+        raise InputError(
+            f"Input {name} must be a finite number (got {name} = {_show(value)})",
+            name=name,
+            value=value,
+            expected="a finite value",
+        )
+    return value
+
+
+def positive(name: str, value: T, *, allow_zero: bool = False) -> T:
+    """Require a finite value > 0 (or >= 0 with ``allow_zero``)."""
+    finite(name, value)
+    x = _magnitude(name, value)
+    ok = x >= 0 if allow_zero else x > 0
+    if not ok:
+        rule = "must not be negative" if allow_zero else "must be positive"
+        raise InputError(
+            f"Input {name} {rule} (got {name} = {_show(value)})",
+            name=name,
+            value=value,
+            expected="a value >= 0" if allow_zero else "a value > 0",
+        )
+    return value
+
+
+def within(
+    name: str,
+    value: T,
+    lo: Any = None,
+    hi: Any = None,
+    *,
+    rule: str | None = None,
+    inclusive: bool = True,
+) -> T:
+    """Require ``lo <= value <= hi`` (either bound may be None; quantities compare with units).
+
+    Args:
+        rule: the source of the limits, e.g. ``"AISC 360-16 §E3 covers Fy <= 70 ksi"``; it is
+            added to the message.
+        inclusive: bounds allowed (default) or excluded.
+    """
+    finite(name, value)
+    low_ok = lo is None or (value >= lo if inclusive else value > lo)
+    high_ok = hi is None or (value <= hi if inclusive else value < hi)
+    if low_ok and high_ok:
+        return value
+    lo_s = "" if lo is None else _show(lo)
+    hi_s = "" if hi is None else _show(hi)
+    if lo is not None and hi is not None:
+        span = f"from {lo_s} to {hi_s}" if inclusive else f"strictly between {lo_s} and {hi_s}"
+    elif lo is not None:
+        span = f"at least {lo_s}" if inclusive else f"more than {lo_s}"
+    else:
+        span = f"at most {hi_s}" if inclusive else f"less than {hi_s}"
+    why = f"; {rule}" if rule else ""
+    raise InputError(
+        f"Input {name} must be {span} (got {name} = {_show(value)}){why}",
+        name=name,
+        value=value,
+        expected=span,
+    )
+
+
+def suggest(key: str, options: Iterable[str]) -> list[str]:
+    """Close matches of ``key`` among ``options`` (case- and space-insensitive), best first."""
+    opts = list(options)
+    norm = {o.upper().replace(" ", ""): o for o in opts}
+    hits = difflib.get_close_matches(key.upper().replace(" ", ""), list(norm), n=3, cutoff=0.5)
+    return [norm[h] for h in hits]
+
+
+def one_of(name: str, value: T, options: Iterable[T]) -> T:
+    """Require ``value`` to be one of ``options`` (the message lists them, with a suggestion)."""
+    opts = list(options)
+    if value in opts:
+        return value
+    hint = ""
+    if isinstance(value, str):
+        close = suggest(value, [str(o) for o in opts])
+        if close:
+            hint = f"; did you mean {close[0]!r}?"
+    listed = ", ".join(repr(o) for o in opts)
+    raise InputError(
+        f"Input {name} must be one of {listed} (got {name} = {_show(value)}){hint}",
+        name=name,
+        value=value,
+        expected=f"one of {listed}",
+    )
+
+
+def lookup(name: str, key: str, table: Mapping[str, T], *, what: str = "entry") -> T:
+    """Find ``key`` in ``table`` (exact, then case- and space-insensitive), or raise with
+    "did you mean ..." naming the closest keys.
+
+    Args:
+        name: the input's name (``"designation"``, ``"grade"``).
+        what: what the table holds, for the message (``"AISC W-shape"``).
+    """
+    if key in table:
+        return table[key]
+    norm = {k.upper().replace(" ", ""): k for k in table}
+    k = norm.get(str(key).upper().replace(" ", ""))
+    if k is not None:
+        return table[k]
+    close = suggest(str(key), table)
+    hint = f"; did you mean {', '.join(repr(c) for c in close)}?" if close else ""
+    raise InputError(
+        f"Unknown {what} {key!r} for input {name} ({len(table)} known){hint}",
+        name=name,
+        value=key,
+        expected=f"a known {what}",
+    )

@@ -1,0 +1,73 @@
+"""The shared validators and the reference-table reader: messages name the input and the rule."""
+
+from __future__ import annotations
+
+import math
+
+import pytest
+
+from calcpack.errors import DimensionError, InputError
+from calcpack.refdata import read_table
+from calcpack.units import ureg
+from calcpack.validate import dimension, finite, lookup, one_of, positive, within
+
+
+def test_positive_names_input_and_value() -> None:
+    assert positive("L", 3 * ureg.m) == 3 * ureg.m
+    with pytest.raises(InputError, match=r"Input L must be positive \(got L = -2 m\)"):
+        positive("L", -2 * ureg.m)
+    assert positive("e", 0.0, allow_zero=True) == 0.0
+    with pytest.raises(InputError, match="must not be negative"):
+        positive("e", -1.0, allow_zero=True)
+
+
+@pytest.mark.parametrize("bad", [math.nan, math.inf, -math.inf])
+def test_finite_refuses_nan_and_inf(bad: float) -> None:
+    with pytest.raises(InputError, match="k must be a finite number") as err:
+        finite("k", bad)
+    assert err.value.name == "k"
+
+
+def test_within_states_range_and_rule() -> None:
+    assert within("Fy", 50 * ureg.ksi, 30 * ureg.ksi, 70 * ureg.ksi) == 50 * ureg.ksi
+    with pytest.raises(InputError, match=r"Fy must be from 30 ksi to 70 ksi.*got Fy = 5 ksi.*E3"):
+        within("Fy", 5 * ureg.ksi, 30 * ureg.ksi, 70 * ureg.ksi, rule="§E3")
+    with pytest.raises(InputError, match="at most 1"):
+        within("ratio", 2.0, hi=1.0)
+
+
+def test_one_of_suggests() -> None:
+    assert one_of("method", "LRFD", ("LRFD", "ASD")) == "LRFD"
+    with pytest.raises(InputError, match="did you mean 'LRFD'"):
+        one_of("method", "LFRD", ("LRFD", "ASD"))
+
+
+def test_dimension_delegates_to_require() -> None:
+    with pytest.raises(DimensionError, match="Input w"):
+        dimension("w", 3 * ureg.m, "[force] / [length]")
+
+
+def test_lookup_is_forgiving_then_suggests() -> None:
+    table = {"W18X50": 1, "W18X55": 2, "W8X18": 3}
+    assert lookup("designation", "w18x50", table) == 1
+    with pytest.raises(InputError, match="did you mean .*'W18X50'") as err:
+        lookup("designation", "W18X05", table, what="AISC W-shape")
+    assert "AISC W-shape" in str(err.value)
+
+
+def test_read_table_parses_header_and_rows(tmp_path, monkeypatch) -> None:  # type: ignore[no-untyped-def]
+    pkg = tmp_path / "demo_tables"
+    pkg.mkdir()
+    (pkg / "__init__.py").write_text("")
+    (pkg / "t.csv").write_text(
+        "# source: Invented table for a test, 1st ed.\n# units: A in^2\n"
+        "name,A,note\nX1,2.5,\nX2,3,ok\n"
+    )
+    monkeypatch.syspath_prepend(str(tmp_path))
+    t = read_table("t.csv", key="name", package="demo_tables")
+    assert t.citation == "Invented table for a test, 1st ed."
+    assert t.row("X1")["A"] == 2.5
+    assert t.row("X1")["note"] is None
+    assert t.row("x2")["note"] == "ok"
+    with pytest.raises(InputError, match="did you mean"):
+        t.row("X3")
