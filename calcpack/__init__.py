@@ -126,6 +126,12 @@ _LAZY: dict[str, str] = {
     "verify_package": "calcpack.signing",
     "make_demo_credentials": "calcpack.signing",
     "diff_packages": "calcpack.signing",
+    # US steel shapes and grades, AISC 360-16 members, NDS 2018 members
+    "aisc_shape": "calcpack.sections.aisc_database",
+    "aisc_shape_names": "calcpack.sections.aisc_database",
+    "steel_grade": "calcpack.sections.aisc_database",
+    "SteelShape": "calcpack.sections.aisc_database",
+    "SteelGrade": "calcpack.sections.aisc_database",
 }
 
 
