@@ -126,6 +126,13 @@ _LAZY: dict[str, str] = {
     "verify_package": "calcpack.signing",
     "make_demo_credentials": "calcpack.signing",
     "diff_packages": "calcpack.signing",
+    "SnowSiteASCE7": "calcpack.loads.snow_asce7",
+    "SnowRoofASCE7": "calcpack.loads.snow_asce7",
+    "roof_snow_asce7": "calcpack.loads.snow_asce7",
+    "SnowDriftASCE7": "calcpack.loads.snow_asce7_drift",
+    "drift_asce7": "calcpack.loads.snow_asce7_drift",
+    "SlidingSnowASCE7": "calcpack.loads.snow_asce7_drift",
+    "sliding_snow_asce7": "calcpack.loads.snow_asce7_drift",
 }
 
 
@@ -209,6 +216,17 @@ if TYPE_CHECKING:
         UniformLoad,
         resultant,
     )
+    from calcpack.loads.snow_asce7 import (
+        SnowRoofASCE7,
+        SnowSiteASCE7,
+        roof_snow_asce7,
+    )
+    from calcpack.loads.snow_asce7_drift import (
+        SlidingSnowASCE7,
+        SnowDriftASCE7,
+        drift_asce7,
+        sliding_snow_asce7,
+    )
     from calcpack.package import (
         build,
         load_project,
@@ -266,6 +284,7 @@ if TYPE_CHECKING:
         tan,
     )
 
+
 __all__ = [
     "Q_",
     "Abs",
@@ -322,6 +341,10 @@ __all__ = [
     "ServiceConditions",
     "Sheet",
     "SigningError",
+    "SlidingSnowASCE7",
+    "SnowDriftASCE7",
+    "SnowRoofASCE7",
+    "SnowSiteASCE7",
     "Spring",
     "Support",
     "Table",
@@ -349,6 +372,7 @@ __all__ = [
     "composite",
     "cos",
     "diff_packages",
+    "drift_asce7",
     "get_display",
     "load_inputs",
     "load_project",
@@ -357,11 +381,13 @@ __all__ = [
     "pattern_cases",
     "read_manifest",
     "resultant",
+    "roof_snow_asce7",
     "sawn_timber",
     "second_moment_from_radius",
     "set_display",
     "sign_package",
     "sin",
+    "sliding_snow_asce7",
     "solve_beam",
     "solve_cases",
     "solve_free_body",
