@@ -133,6 +133,13 @@ _LAZY: dict[str, str] = {
     "drift_asce7": "calcpack.loads.snow_asce7_drift",
     "SlidingSnowASCE7": "calcpack.loads.snow_asce7_drift",
     "sliding_snow_asce7": "calcpack.loads.snow_asce7_drift",
+    "WindSiteASCE7": "calcpack.loads.wind_asce7",
+    "Topography": "calcpack.loads.wind_asce7",
+    "velocity_pressure_asce7": "calcpack.loads.wind_asce7",
+    "LowRiseBuildingASCE7": "calcpack.loads.wind_asce7_lowrise",
+    "envelope_wind_asce7": "calcpack.loads.wind_asce7_lowrise",
+    "components_wind_asce7": "calcpack.loads.wind_asce7_lowrise",
+    "effective_wind_area": "calcpack.loads.wind_asce7_lowrise",
 }
 
 
@@ -227,6 +234,17 @@ if TYPE_CHECKING:
         drift_asce7,
         sliding_snow_asce7,
     )
+    from calcpack.loads.wind_asce7 import (
+        Topography,
+        WindSiteASCE7,
+        velocity_pressure_asce7,
+    )
+    from calcpack.loads.wind_asce7_lowrise import (
+        LowRiseBuildingASCE7,
+        components_wind_asce7,
+        effective_wind_area,
+        envelope_wind_asce7,
+    )
     from calcpack.package import (
         build,
         load_project,
@@ -320,6 +338,7 @@ __all__ = [
     "JointLoad",
     "LinearLoad",
     "LoadCombination",
+    "LowRiseBuildingASCE7",
     "Max",
     "Member",
     "Min",
@@ -350,6 +369,7 @@ __all__ = [
     "Table",
     "Tee",
     "Text",
+    "Topography",
     "Triangle",
     "Truss",
     "TrussResult",
@@ -359,6 +379,7 @@ __all__ = [
     "UnstableStructureError",
     "Verdict",
     "VerificationError",
+    "WindSiteASCE7",
     "__version__",
     "analyse_combinations",
     "atan",
@@ -369,10 +390,13 @@ __all__ = [
     "check_nds_beam",
     "combination_set",
     "combine",
+    "components_wind_asce7",
     "composite",
     "cos",
     "diff_packages",
     "drift_asce7",
+    "effective_wind_area",
+    "envelope_wind_asce7",
     "get_display",
     "load_inputs",
     "load_project",
@@ -399,5 +423,6 @@ __all__ = [
     "tan",
     "update_inputs",
     "ureg",
+    "velocity_pressure_asce7",
     "verify_package",
 ]

@@ -20,7 +20,13 @@ from calcpack.checks.base import Recorder, SheetRecorder
 from calcpack.errors import InputError
 from calcpack.units import Quantity
 
-__all__ = ["LOAD_CAUTIONS", "Derivation", "LoadStandard", "run_derivation"]
+__all__ = [
+    "LOAD_CAUTIONS",
+    "Derivation",
+    "LoadStandard",
+    "is_us_customary",
+    "run_derivation",
+]
 
 LOAD_CAUTIONS = (
     "The loads derived here depend on the site data, dimensions and assumptions stated as "
@@ -30,6 +36,29 @@ LOAD_CAUTIONS = (
     "This derivation is part of a calculation package that must be reviewed and sealed by an "
     "engineer licensed where the structure is built.",
 )
+
+
+_US_NAMES = (
+    "foot",
+    "inch",
+    "mile",
+    "pound",
+    "psf",
+    "ksf",
+    "kip",
+    "plf",
+    "klf",
+    "pcf",
+    "knot",
+    "yard",
+    "psi",
+)
+
+
+def is_us_customary(q: Quantity) -> bool:
+    """True when ``q`` is given in US customary units (ft, psf, mph, lbf...): the derivation then
+    reports in US units, otherwise in SI."""
+    return any(u in name for name, _ in q.unit_items() for u in _US_NAMES)
 
 
 @dataclass(frozen=True)

@@ -22,7 +22,7 @@ from dataclasses import dataclass
 from typing import Any, Literal
 
 from calcpack.checks.base import Recorder
-from calcpack.loads.derive import Derivation, LoadStandard, run_derivation
+from calcpack.loads.derive import Derivation, LoadStandard, is_us_customary, run_derivation
 from calcpack.refdata import read_table
 from calcpack.units import Q_, Quantity
 from calcpack.validate import dimension, one_of, positive, within
@@ -50,12 +50,6 @@ TERRAINS: tuple[Terrain, ...] = ("B", "C", "D", "above treeline", "Alaska")
 EXPOSURES: tuple[Exposure, ...] = ("fully exposed", "partially exposed", "sheltered")
 THERMALS: tuple[Thermal, ...] = ("heated", "cold ventilated", "unheated", "freezer", "greenhouse")
 RISKS: tuple[Risk, ...] = ("I", "II", "III", "IV")
-
-
-def _is_us(q: Quantity) -> bool:
-    """True when ``q`` was given in US customary units (psf, lbf/ft², ksf...)."""
-    text = str(q.units)
-    return any(u in text for u in ("pound", "psf", "ksf", "kip", "foot", "inch"))
 
 
 @dataclass(frozen=True)
@@ -194,7 +188,7 @@ def record_drift_height(
 def snow_density_asce7(pg: Quantity) -> Quantity:
     """Snow density γ (ASCE 7-16 Eq. 7.7-1) for a ground snow load p_g, in its unit system."""
     dimension("pg", pg, "[force] / [length] ** 2")
-    return Recorder("").q(record_density(Recorder(""), pg, _is_us(pg)))
+    return Recorder("").q(record_density(Recorder(""), pg, is_us_customary(pg)))
 
 
 def drift_height_asce7(lu: Quantity, pg: Quantity) -> Quantity:
@@ -206,7 +200,9 @@ def drift_height_asce7(lu: Quantity, pg: Quantity) -> Quantity:
     dimension("pg", pg, "[force] / [length] ** 2")
     positive("lu", lu)
     positive("pg", pg, allow_zero=True)
-    return Recorder("").q(record_drift_height(Recorder(""), "h_d", lu, pg, _is_us(pg), "", ""))
+    return Recorder("").q(
+        record_drift_height(Recorder(""), "h_d", lu, pg, is_us_customary(pg), "", "")
+    )
 
 
 @dataclass(frozen=True)
@@ -262,7 +258,7 @@ def roof_snow_asce7(site: SnowSiteASCE7, roof: SnowRoofASCE7) -> RoofSnowASCE7:
 
     Returns pressures on plan in the unit system of ``site.pg`` (psf or kN/m²), downward +.
     """
-    us = _is_us(site.pg)
+    us = is_us_customary(site.pg)
     unit = "psf" if us else "kN/m^2"
     len_unit = "ft" if us else "m"
     out: dict[str, Any] = {}

@@ -17,10 +17,9 @@ from typing import Any, Literal
 
 from calcpack.checks.base import Recorder
 from calcpack.errors import InputError
-from calcpack.loads.derive import Derivation, run_derivation
+from calcpack.loads.derive import Derivation, is_us_customary, run_derivation
 from calcpack.loads.snow_asce7 import (
     ASCE7_SNOW,
-    _is_us,
     record_density,
     record_drift_height,
 )
@@ -151,7 +150,7 @@ def drift_asce7(inputs: SnowDriftASCE7) -> DriftASCE7:
     with l_u the upper roof; windward 0.75 h_d with l_u the lower roof; the larger governs. If
     h_d <= h_c, w = 4 h_d; otherwise w = 4 h_d² / h_c <= 8 h_c and h_d = h_c. p_d = h_d γ.
     """
-    us = _is_us(inputs.pg)
+    us = is_us_customary(inputs.pg)
     unit = "psf" if us else "kN/m^2"
     lu_unit = "ft" if us else "m"
     out: dict[str, Any] = {"note": ""}
@@ -304,7 +303,7 @@ def sliding_snow_asce7(inputs: SlidingSnowASCE7) -> SlidingResultASCE7:
     slippery upper roof steeper than 1/4 on 12, or a non-slippery one steeper than 2 on 12.
     Superimposed on the balanced load; not combined with drift, unbalanced or partial loads.
     """
-    us = _is_us(inputs.pf)
+    us = is_us_customary(inputs.pf)
     unit = "psf" if us else "kN/m^2"
     lu = "ft" if us else "m"
     theta = float(inputs.slope.to("deg").magnitude)
