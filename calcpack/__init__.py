@@ -118,6 +118,9 @@ _LAZY: dict[str, str] = {
     "SafetyFactors": "calcpack.foundations",
     "check_footing_soil": "calcpack.foundations",
     "soil_pressure": "calcpack.foundations",
+    "ACIFootingDesign": "calcpack.checks.aci318",
+    "check_aci_footing": "calcpack.checks.aci318",
+    "rebar": "calcpack.sections.rebar",
     "analyse_combinations": "calcpack.combinations",
     "superpose": "calcpack.combinations",
     "combination_set": "calcpack.combinations",
@@ -195,6 +198,7 @@ if TYPE_CHECKING:
         check_nds_beam,
         summary_table,
     )
+    from calcpack.checks.aci318 import ACIFootingDesign, check_aci_footing
     from calcpack.combinations import (
         CombinationSet,
         LoadCombination,
@@ -249,6 +253,7 @@ if TYPE_CHECKING:
         sawn_timber,
         second_moment_from_radius,
     )
+    from calcpack.sections.rebar import rebar
     from calcpack.signing import (
         diff_packages,
         make_demo_credentials,
@@ -286,6 +291,7 @@ if TYPE_CHECKING:
 
 __all__ = [
     "Q_",
+    "ACIFootingDesign",
     "Abs",
     "AllowableBearing",
     "Angle",
@@ -364,6 +370,7 @@ __all__ = [
     "analyse_combinations",
     "atan",
     "build",
+    "check_aci_footing",
     "check_aisc_beam",
     "check_deflection",
     "check_elastic_beam",
@@ -381,6 +388,7 @@ __all__ = [
     "new_project",
     "pattern_cases",
     "read_manifest",
+    "rebar",
     "resultant",
     "sawn_timber",
     "second_moment_from_radius",
