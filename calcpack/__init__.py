@@ -137,6 +137,20 @@ _LAZY: dict[str, str] = {
     "verify_package": "calcpack.signing",
     "make_demo_credentials": "calcpack.signing",
     "diff_packages": "calcpack.signing",
+    "SnowSiteASCE7": "calcpack.loads.snow_asce7",
+    "SnowRoofASCE7": "calcpack.loads.snow_asce7",
+    "roof_snow_asce7": "calcpack.loads.snow_asce7",
+    "SnowDriftASCE7": "calcpack.loads.snow_asce7_drift",
+    "drift_asce7": "calcpack.loads.snow_asce7_drift",
+    "SlidingSnowASCE7": "calcpack.loads.snow_asce7_drift",
+    "sliding_snow_asce7": "calcpack.loads.snow_asce7_drift",
+    "WindSiteASCE7": "calcpack.loads.wind_asce7",
+    "Topography": "calcpack.loads.wind_asce7",
+    "velocity_pressure_asce7": "calcpack.loads.wind_asce7",
+    "LowRiseBuildingASCE7": "calcpack.loads.wind_asce7_lowrise",
+    "envelope_wind_asce7": "calcpack.loads.wind_asce7_lowrise",
+    "components_wind_asce7": "calcpack.loads.wind_asce7_lowrise",
+    "effective_wind_area": "calcpack.loads.wind_asce7_lowrise",
 }
 
 
@@ -231,6 +245,28 @@ if TYPE_CHECKING:
         UniformLoad,
         resultant,
     )
+    from calcpack.loads.snow_asce7 import (
+        SnowRoofASCE7,
+        SnowSiteASCE7,
+        roof_snow_asce7,
+    )
+    from calcpack.loads.snow_asce7_drift import (
+        SlidingSnowASCE7,
+        SnowDriftASCE7,
+        drift_asce7,
+        sliding_snow_asce7,
+    )
+    from calcpack.loads.wind_asce7 import (
+        Topography,
+        WindSiteASCE7,
+        velocity_pressure_asce7,
+    )
+    from calcpack.loads.wind_asce7_lowrise import (
+        LowRiseBuildingASCE7,
+        components_wind_asce7,
+        effective_wind_area,
+        envelope_wind_asce7,
+    )
     from calcpack.package import (
         build,
         load_project,
@@ -289,6 +325,7 @@ if TYPE_CHECKING:
         tan,
     )
 
+
 __all__ = [
     "Q_",
     "ACIFootingDesign",
@@ -329,6 +366,7 @@ __all__ = [
     "JointLoad",
     "LinearLoad",
     "LoadCombination",
+    "LowRiseBuildingASCE7",
     "Max",
     "Member",
     "Min",
@@ -352,11 +390,16 @@ __all__ = [
     "Sheet",
     "SigningError",
     "SiteConditions",
+    "SlidingSnowASCE7",
+    "SnowDriftASCE7",
+    "SnowRoofASCE7",
+    "SnowSiteASCE7",
     "Spring",
     "Support",
     "Table",
     "Tee",
     "Text",
+    "Topography",
     "Triangle",
     "Truss",
     "TrussResult",
@@ -366,6 +409,7 @@ __all__ = [
     "UnstableStructureError",
     "Verdict",
     "VerificationError",
+    "WindSiteASCE7",
     "__version__",
     "analyse_combinations",
     "atan",
@@ -378,9 +422,13 @@ __all__ = [
     "check_nds_beam",
     "combination_set",
     "combine",
+    "components_wind_asce7",
     "composite",
     "cos",
     "diff_packages",
+    "drift_asce7",
+    "effective_wind_area",
+    "envelope_wind_asce7",
     "get_display",
     "load_inputs",
     "load_project",
@@ -390,11 +438,13 @@ __all__ = [
     "read_manifest",
     "rebar",
     "resultant",
+    "roof_snow_asce7",
     "sawn_timber",
     "second_moment_from_radius",
     "set_display",
     "sign_package",
     "sin",
+    "sliding_snow_asce7",
     "soil_pressure",
     "solve_beam",
     "solve_cases",
@@ -407,5 +457,6 @@ __all__ = [
     "tan",
     "update_inputs",
     "ureg",
+    "velocity_pressure_asce7",
     "verify_package",
 ]
