@@ -118,6 +118,9 @@ _LAZY: dict[str, str] = {
     "SafetyFactors": "calcpack.foundations",
     "check_footing_soil": "calcpack.foundations",
     "soil_pressure": "calcpack.foundations",
+    "ACIFootingDesign": "calcpack.checks.aci318",
+    "check_aci_footing": "calcpack.checks.aci318",
+    "rebar": "calcpack.sections.rebar",
     "analyse_combinations": "calcpack.combinations",
     "superpose": "calcpack.combinations",
     "combination_set": "calcpack.combinations",
@@ -218,6 +221,7 @@ if TYPE_CHECKING:
         check_nds_beam,
         summary_table,
     )
+    from calcpack.checks.aci318 import ACIFootingDesign, check_aci_footing
     from calcpack.combinations import (
         CombinationSet,
         LoadCombination,
@@ -294,6 +298,7 @@ if TYPE_CHECKING:
         sawn_timber,
         second_moment_from_radius,
     )
+    from calcpack.sections.rebar import rebar
     from calcpack.signing import (
         diff_packages,
         make_demo_credentials,
@@ -332,6 +337,7 @@ if TYPE_CHECKING:
 
 __all__ = [
     "Q_",
+    "ACIFootingDesign",
     "Abs",
     "AllowableBearing",
     "Angle",
@@ -423,6 +429,7 @@ __all__ = [
     "analyse_combinations",
     "atan",
     "build",
+    "check_aci_footing",
     "check_aisc_beam",
     "check_aisc_member",
     "check_deflection",
@@ -445,6 +452,7 @@ __all__ = [
     "new_project",
     "pattern_cases",
     "read_manifest",
+    "rebar",
     "resultant",
     "roof_snow_asce7",
     "sawn_timber",
