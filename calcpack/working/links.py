@@ -42,6 +42,7 @@ __all__ = [
     "exports_document",
     "exports_path",
     "inputs_sha256",
+    "match_sheet",
     "project_sheets",
     "read_exports",
     "resolve_sheet",
@@ -169,10 +170,11 @@ def resolve_sheet(reference: str, *, start: Path | None = None) -> SheetRef:
             expected=f"a notebook in a folder with a {PROJECT_FILE}",
         )
     sheets = project_sheets(root)
-    wanted = reference.strip().replace("\\", "/")
+    found = match_sheet(reference, [ref.path for ref in sheets])
     for ref in sheets:
-        if wanted in (ref.path, ref.name, Path(ref.path).name):
+        if ref.path == found:
             return ref
+    wanted = reference.strip().replace("\\", "/")
     from calcpack.validate import suggest
 
     names = [ref.name for ref in sheets]
@@ -185,6 +187,16 @@ def resolve_sheet(reference: str, *, start: Path | None = None) -> SheetRef:
         value=reference,
         expected="one of " + ", ".join(names),
     )
+
+
+def match_sheet(reference: str, paths: list[str]) -> str | None:
+    """The project path among ``paths`` that ``reference`` names (path, file name or notebook
+    name without extension), or None."""
+    wanted = reference.strip().replace("\\", "/")
+    for path in paths:
+        if wanted in (path, Path(path).name, Path(path).stem):
+            return path
+    return None
 
 
 def this_sheet(start: Path | None = None) -> SheetRef | None:
