@@ -19,7 +19,7 @@ from linkkit import exported, run_in_process, write_linked_project
 from calcpack.package import execute
 from calcpack.package.project import load_project
 
-_values = st.floats(min_value=-1e6, max_value=1e6, allow_nan=False).filter(lambda v: v != 0)
+_values = st.floats(min_value=-1e6, max_value=1e6, allow_nan=False).filter(lambda v: abs(v) > 1e-6)
 
 
 @st.composite
