@@ -123,6 +123,9 @@ _LAZY: dict[str, str] = {
     "SafetyFactors": "calcpack.foundations",
     "check_footing_soil": "calcpack.foundations",
     "soil_pressure": "calcpack.foundations",
+    "ACIFootingDesign": "calcpack.checks.aci318",
+    "check_aci_footing": "calcpack.checks.aci318",
+    "rebar": "calcpack.sections.rebar",
     "analyse_combinations": "calcpack.combinations",
     "superpose": "calcpack.combinations",
     "combination_set": "calcpack.combinations",
@@ -139,6 +142,20 @@ _LAZY: dict[str, str] = {
     "verify_package": "calcpack.signing",
     "make_demo_credentials": "calcpack.signing",
     "diff_packages": "calcpack.signing",
+    "SnowSiteASCE7": "calcpack.loads.snow_asce7",
+    "SnowRoofASCE7": "calcpack.loads.snow_asce7",
+    "roof_snow_asce7": "calcpack.loads.snow_asce7",
+    "SnowDriftASCE7": "calcpack.loads.snow_asce7_drift",
+    "drift_asce7": "calcpack.loads.snow_asce7_drift",
+    "SlidingSnowASCE7": "calcpack.loads.snow_asce7_drift",
+    "sliding_snow_asce7": "calcpack.loads.snow_asce7_drift",
+    "WindSiteASCE7": "calcpack.loads.wind_asce7",
+    "Topography": "calcpack.loads.wind_asce7",
+    "velocity_pressure_asce7": "calcpack.loads.wind_asce7",
+    "LowRiseBuildingASCE7": "calcpack.loads.wind_asce7_lowrise",
+    "envelope_wind_asce7": "calcpack.loads.wind_asce7_lowrise",
+    "components_wind_asce7": "calcpack.loads.wind_asce7_lowrise",
+    "effective_wind_area": "calcpack.loads.wind_asce7_lowrise",
 }
 
 
@@ -200,6 +217,7 @@ if TYPE_CHECKING:
         check_nds_beam,
         summary_table,
     )
+    from calcpack.checks.aci318 import ACIFootingDesign, check_aci_footing
     from calcpack.combinations import (
         CombinationSet,
         LoadCombination,
@@ -232,7 +250,29 @@ if TYPE_CHECKING:
         UniformLoad,
         resultant,
     )
+    from calcpack.loads.snow_asce7 import (
+        SnowRoofASCE7,
+        SnowSiteASCE7,
+        roof_snow_asce7,
+    )
+    from calcpack.loads.snow_asce7_drift import (
+        SlidingSnowASCE7,
+        SnowDriftASCE7,
+        drift_asce7,
+        sliding_snow_asce7,
+    )
     from calcpack.loads.takedown import Takedown, reactions_by_case, takedown
+    from calcpack.loads.wind_asce7 import (
+        Topography,
+        WindSiteASCE7,
+        velocity_pressure_asce7,
+    )
+    from calcpack.loads.wind_asce7_lowrise import (
+        LowRiseBuildingASCE7,
+        components_wind_asce7,
+        effective_wind_area,
+        envelope_wind_asce7,
+    )
     from calcpack.package import (
         build,
         load_project,
@@ -255,6 +295,7 @@ if TYPE_CHECKING:
         sawn_timber,
         second_moment_from_radius,
     )
+    from calcpack.sections.rebar import rebar
     from calcpack.signing import (
         diff_packages,
         make_demo_credentials,
@@ -292,8 +333,10 @@ if TYPE_CHECKING:
         tan,
     )
 
+
 __all__ = [
     "Q_",
+    "ACIFootingDesign",
     "Abs",
     "AllowableBearing",
     "Angle",
@@ -333,6 +376,7 @@ __all__ = [
     "JointLoad",
     "LinearLoad",
     "LoadCombination",
+    "LowRiseBuildingASCE7",
     "Max",
     "Member",
     "Min",
@@ -356,12 +400,17 @@ __all__ = [
     "Sheet",
     "SigningError",
     "SiteConditions",
+    "SlidingSnowASCE7",
+    "SnowDriftASCE7",
+    "SnowRoofASCE7",
+    "SnowSiteASCE7",
     "Spring",
     "Support",
     "Table",
     "Takedown",
     "Tee",
     "Text",
+    "Topography",
     "Triangle",
     "Truss",
     "TrussResult",
@@ -371,10 +420,12 @@ __all__ = [
     "UnstableStructureError",
     "Verdict",
     "VerificationError",
+    "WindSiteASCE7",
     "__version__",
     "analyse_combinations",
     "atan",
     "build",
+    "check_aci_footing",
     "check_aisc_beam",
     "check_deflection",
     "check_elastic_beam",
@@ -382,9 +433,13 @@ __all__ = [
     "check_nds_beam",
     "combination_set",
     "combine",
+    "components_wind_asce7",
     "composite",
     "cos",
     "diff_packages",
+    "drift_asce7",
+    "effective_wind_area",
+    "envelope_wind_asce7",
     "get_display",
     "load_inputs",
     "load_project",
@@ -393,12 +448,15 @@ __all__ = [
     "pattern_cases",
     "reactions_by_case",
     "read_manifest",
+    "rebar",
     "resultant",
+    "roof_snow_asce7",
     "sawn_timber",
     "second_moment_from_radius",
     "set_display",
     "sign_package",
     "sin",
+    "sliding_snow_asce7",
     "soil_pressure",
     "solve_beam",
     "solve_cases",
@@ -412,5 +470,6 @@ __all__ = [
     "tan",
     "update_inputs",
     "ureg",
+    "velocity_pressure_asce7",
     "verify_package",
 ]

@@ -16,6 +16,7 @@ HEAVY = [
 MODULES = [
     "calcpack", "calcpack.units", "calcpack.working", "calcpack.analysis", "calcpack.sections",
     "calcpack.loads", "calcpack.checks", "calcpack.combinations", "calcpack.foundations",
+    "calcpack.checks.aci318", "calcpack.sections.rebar",
 ]  # fmt: skip
 
 
