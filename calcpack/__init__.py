@@ -126,6 +126,11 @@ _LAZY: dict[str, str] = {
     "ACIFootingDesign": "calcpack.checks.aci318",
     "check_aci_footing": "calcpack.checks.aci318",
     "rebar": "calcpack.sections.rebar",
+    "SoilStrength": "calcpack.checks.en1997",
+    "PresumedBearing": "calcpack.checks.en1997",
+    "check_en1997_pad": "calcpack.checks.en1997",
+    "ECFootingDesign": "calcpack.checks.en1992",
+    "check_en1992_footing": "calcpack.checks.en1992",
     "analyse_combinations": "calcpack.combinations",
     "superpose": "calcpack.combinations",
     "combination_set": "calcpack.combinations",
@@ -218,6 +223,8 @@ if TYPE_CHECKING:
         summary_table,
     )
     from calcpack.checks.aci318 import ACIFootingDesign, check_aci_footing
+    from calcpack.checks.en1992 import ECFootingDesign, check_en1992_footing
+    from calcpack.checks.en1997 import PresumedBearing, SoilStrength, check_en1997_pad
     from calcpack.combinations import (
         CombinationSet,
         LoadCombination,
@@ -357,6 +364,7 @@ __all__ = [
     "Derived",
     "DimensionError",
     "DistributedLoad",
+    "ECFootingDesign",
     "EISegment",
     "Equation",
     "Exports",
@@ -390,6 +398,7 @@ __all__ = [
     "PointMoment",
     "Polygon",
     "PolynomialLoad",
+    "PresumedBearing",
     "Rectangle",
     "RectangularHollow",
     "ReferenceDesignValues",
@@ -404,6 +413,7 @@ __all__ = [
     "SnowDriftASCE7",
     "SnowRoofASCE7",
     "SnowSiteASCE7",
+    "SoilStrength",
     "Spring",
     "Support",
     "Table",
@@ -429,6 +439,8 @@ __all__ = [
     "check_aisc_beam",
     "check_deflection",
     "check_elastic_beam",
+    "check_en1992_footing",
+    "check_en1997_pad",
     "check_footing_soil",
     "check_nds_beam",
     "combination_set",

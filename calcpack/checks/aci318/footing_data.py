@@ -14,7 +14,7 @@ from __future__ import annotations
 import math
 from collections.abc import Mapping
 from dataclasses import dataclass, field, replace
-from typing import Literal
+from typing import Literal, Protocol
 
 from calcpack.combinations.model import CombinationSet
 from calcpack.foundations.demands import cantilever_actions, force_within, net_combinations
@@ -23,7 +23,14 @@ from calcpack.sections.rebar import Rebar, rebar
 from calcpack.units import Q_, Quantity
 from calcpack.validate import dimension, one_of, positive, within
 
-__all__ = ["ACI318_EDITION", "ACIFootingDesign", "Direction", "FootingActions", "factored_actions"]
+__all__ = [
+    "ACI318_EDITION",
+    "ACIFootingDesign",
+    "BarLayout",
+    "Direction",
+    "FootingActions",
+    "factored_actions",
+]
 
 ACI318_EDITION = "ACI CODE-318-19"
 
@@ -148,11 +155,22 @@ def _square_equivalent(f: Footing) -> Footing:
     return replace(f, shape="square", B=side, L=None, kind="pad")
 
 
+class BarLayout(Protocol):
+    """What the actions need from a design: the bars each way and the cover."""
+
+    @property
+    def cover(self) -> Quantity: ...
+
+    def bar_x_data(self) -> Rebar: ...
+
+    def bar_y_data(self) -> Rebar: ...
+
+
 def factored_actions(
     footing: Footing,
     loads: Mapping[str, FootingLoad],
     combinations: CombinationSet,
-    design: ACIFootingDesign,
+    design: BarLayout,
     *,
     depth_x: Quantity | None = None,
     depth_y: Quantity | None = None,
