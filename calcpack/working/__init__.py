@@ -33,6 +33,7 @@ from calcpack.working.format import (
     format_unit_latex,
     format_unit_text,
 )
+from calcpack.working.linked import Exports, Imported
 from calcpack.working.sheet import Sheet
 from calcpack.working.steps import (
     RECORDS_MIMETYPE,
@@ -65,8 +66,10 @@ __all__ = [
     "CheckRecord",
     "Derived",
     "Equation",
+    "Exports",
     "Given",
     "Heading",
+    "Imported",
     "Max",
     "Min",
     "NotCovered",
