@@ -14,15 +14,17 @@ standard before issue.
 
 from __future__ import annotations
 
+import re
 from collections.abc import Mapping
 from dataclasses import dataclass, field
+from functools import cache
 from types import MappingProxyType
 from typing import Any
 
 from calcpack.errors import InputError
 from calcpack.refdata import Table, read_table
 from calcpack.units import Q_, Quantity
-from calcpack.validate import lookup
+from calcpack.validate import lookup, suggest
 
 __all__ = [
     "SHAPE_TYPES",
@@ -143,7 +145,10 @@ def aisc_shape(designation: str) -> SteelShape:
             value=designation,
             expected="a designation string",
         )
-    row = table.row(designation.replace("x", "X"), what="AISC shape")
+    key = designation.replace("x", "X")
+    if key.upper().replace(" ", "") not in _normalised_keys():
+        _refuse_unknown(key, table)
+    row = table.row(key, what="AISC shape")
     props = {
         k: Q_(float(v), _UNITS[k])
         for k, v in row.items()
@@ -154,6 +159,26 @@ def aisc_shape(designation: str) -> SteelShape:
         str(row["type"]),
         f"AISC Shapes Database v16.0 ({row['designation']})",
         MappingProxyType(props),
+    )
+
+
+@cache
+def _normalised_keys() -> frozenset[str]:
+    return frozenset(k.upper().replace(" ", "") for k in _shapes().rows)
+
+
+def _refuse_unknown(key: str, table: Table) -> None:
+    """An InputError whose "did you mean" looks first within the same family (W, WT, HSS...)."""
+    prefix = re.match(r"[A-Za-z]*", key)
+    fam = prefix.group(0).upper() if prefix else ""
+    same = [k for k in table.rows if re.match(r"[A-Za-z]*", k).group(0).upper() == fam]  # type: ignore[union-attr]
+    close = suggest(key, same or list(table.rows))
+    hint = f"; did you mean {', '.join(repr(c) for c in close)}?" if close else ""
+    raise InputError(
+        f"Unknown AISC shape {key!r} for input designation ({len(table.rows)} known){hint}",
+        name="designation",
+        value=key,
+        expected="a designation of the AISC Shapes Database v16.0",
     )
 
 
