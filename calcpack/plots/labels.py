@@ -70,6 +70,17 @@ class Label:
     text: str
     color: str
     fontsize: float = 7.0
+    prefer: tuple[float, float] | None = None  # unit direction to try first (e.g. a free gap)
+
+
+def _preferred(direction: tuple[float, float] | None) -> list[tuple[float, float, str, str]]:
+    """Offsets along ``direction``, the text set to grow away from the anchor."""
+    if direction is None:
+        return []
+    ux, uy = direction
+    ha = "left" if ux > 0.38 else "right" if ux < -0.38 else "center"
+    va = "bottom" if uy > 0.38 else "top" if uy < -0.38 else "center"
+    return [(ux * r, uy * r, ha, va) for r in (4.0, 8.0, 13.0)]
 
 
 def _boxes_overlap(a: Any, b: Any, pad: float = 1.0) -> bool:
@@ -94,7 +105,9 @@ def place_labels(fig: Any, labels: Sequence[Label], *, gid: str = "cp-label") ->
     fixed = []
     for ax in fig.axes:
         for t in (ax.title, ax._left_title, ax.xaxis.label, ax.yaxis.label, *ax.texts):
-            if t.get_text():
+            # A slanted text's upright box is far larger than its ink: such texts (member
+            # labels along a truss diagonal) are not counted.
+            if t.get_text() and abs(t.get_rotation()) % 180 in (0.0, 90.0):
                 fixed.append(t.get_window_extent(renderer))
         for tick in (*ax.get_xticklabels(), *ax.get_yticklabels()):
             if tick.get_text() and tick.get_visible():
@@ -116,7 +129,7 @@ def place_labels(fig: Any, labels: Sequence[Label], *, gid: str = "cp-label") ->
         ann.set_gid(f"{gid}-{i}")
         axbox = lab.ax.get_window_extent(renderer)
         best, best_cost = None, math.inf
-        for dx, dy, ha, va in _CANDIDATES:
+        for dx, dy, ha, va in (*_preferred(lab.prefer), *_CANDIDATES):
             ann.set_position((dx, dy))
             ann.set_ha(ha)
             ann.set_va(va)
