@@ -15,7 +15,7 @@ HEAVY = [
 
 MODULES = [
     "calcpack", "calcpack.units", "calcpack.working", "calcpack.analysis", "calcpack.sections",
-    "calcpack.loads", "calcpack.checks", "calcpack.combinations",
+    "calcpack.loads", "calcpack.checks", "calcpack.combinations", "calcpack.foundations",
 ]  # fmt: skip
 
 

@@ -50,7 +50,7 @@ def test_dimension_delegates_to_require() -> None:
 def test_lookup_is_forgiving_then_suggests() -> None:
     table = {"W18X50": 1, "W18X55": 2, "W8X18": 3}
     assert lookup("designation", "w18x50", table) == 1
-    with pytest.raises(InputError, match="did you mean .*'W18X50'") as err:
+    with pytest.raises(InputError, match=r"did you mean .*'W18X50'") as err:
         lookup("designation", "W18X05", table, what="AISC W-shape")
     assert "AISC W-shape" in str(err.value)
 

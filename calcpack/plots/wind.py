@@ -1,0 +1,105 @@
+"""Zone plan of the ASCE 7-16 envelope procedure (matplotlib -> SVG), reading the result only.
+
+The plan shows the building (B across the wind for load case A, L along the ridge), the end
+zones of width 2a at the windward corner, the zone numbers of Figure 28.3-1 and each zone's
+pressure with +GCpi.
+"""
+
+from __future__ import annotations
+
+import io
+from pathlib import Path
+from typing import Any
+
+__all__ = ["WindZonePlan"]
+
+
+class WindZonePlan:
+    """Plan of the envelope zones for one load case (``"A"`` or ``"B"``)."""
+
+    def __init__(
+        self, result: Any, B: Any, L: Any, *, case: str = "A", width_in: float = 6.0
+    ) -> None:
+        self.result = result
+        self.case = case
+        unit = result.a.units
+        self.B = float(B.to(unit).magnitude)
+        self.L = float(L.to(unit).magnitude)
+        self.a = float(result.a.magnitude)
+        self.unit = f"{unit:~P}"
+        self.width_in = width_in
+
+    def _label(self, zone: str) -> str:
+        p = self.result.pressures.get((self.case, zone, "+GCpi"))
+        return zone if p is None else f"{zone}\n{p.magnitude:+.3g}"
+
+    def figure(self) -> Any:
+        """The plan as a matplotlib Figure (Agg canvas)."""
+        from matplotlib.backends.backend_agg import FigureCanvasAgg
+        from matplotlib.figure import Figure
+        from matplotlib.patches import Rectangle
+
+        B, L, a2 = self.B, self.L, 2 * self.a
+        fig = Figure(figsize=(self.width_in, self.width_in * max(B / L, 0.35) + 0.8))
+        FigureCanvasAgg(fig)
+        ax = fig.add_subplot(1, 1, 1)
+        ax.set_aspect("equal")
+        ax.axis("off")
+        ax.add_patch(Rectangle((0, 0), L, B, fill=False, linewidth=1.5))
+        ax.add_patch(Rectangle((0, 0), a2, B, color="#fdd0a2", alpha=0.8))
+        ax.plot([0, L], [B / 2, B / 2], color="grey", linewidth=0.8, linestyle="-")
+        if self.case == "A":
+            cells = [
+                ("2E", a2 / 2, 0.75 * B),
+                ("3E", a2 / 2, 0.25 * B),
+                ("2", (a2 + L) / 2, 0.75 * B),
+                ("3", (a2 + L) / 2, 0.25 * B),
+            ]
+            ax.annotate(
+                "", xy=(L / 2, B), xytext=(L / 2, B + 0.25 * B), arrowprops={"arrowstyle": "->"}
+            )
+            ax.text(L / 2, B + 0.28 * B, "wind (load case A)", ha="center", fontsize=8)
+            walls = [
+                ("1E", a2 / 2, B + 0.05 * B),
+                ("1", (a2 + L) / 2, B + 0.05 * B),
+                ("4E", a2 / 2, -0.12 * B),
+                ("4", (a2 + L) / 2, -0.12 * B),
+            ]
+        else:
+            cells = [
+                ("2E", a2 / 2, 0.75 * B),
+                ("3E", a2 / 2, 0.25 * B),
+                ("2", (a2 + L) / 2, 0.75 * B),
+                ("3", (a2 + L) / 2, 0.25 * B),
+            ]
+            ax.annotate(
+                "", xy=(0, B / 2), xytext=(-0.2 * L, B / 2), arrowprops={"arrowstyle": "->"}
+            )
+            ax.text(-0.2 * L, B / 2 + 0.05 * B, "wind (case B)", fontsize=8)
+            walls = [("5E", -0.06 * L, 0.2 * B), ("6E", L + 0.06 * L, 0.2 * B)]
+        for zone, x, y in cells + walls:
+            ax.text(x, y, self._label(zone), ha="center", va="center", fontsize=7)
+        ax.text(a2 / 2, -0.3 * B, f"2a = {a2:.3g} {self.unit}", ha="center", fontsize=7)
+        ax.set_title(
+            f"Envelope zones, load case {self.case} (pressures with +GCpi, "
+            f"{self.result.qh.units:~P})",
+            fontsize=9,
+        )
+        ax.set_xlim(-0.3 * L, 1.15 * L)
+        ax.set_ylim(-0.4 * B, 1.4 * B)
+        return fig
+
+    def svg(self) -> str:
+        """The plan as an SVG document."""
+        buf = io.StringIO()
+        self.figure().savefig(buf, format="svg", bbox_inches="tight")
+        return buf.getvalue()
+
+    def save(self, path: str | Path) -> Path:
+        """Write the plan (SVG, PNG or PDF by the file's suffix) and return the path."""
+        out = Path(path)
+        self.figure().savefig(out, bbox_inches="tight")
+        return out
+
+    def _repr_svg_(self) -> str:
+        return self.svg()

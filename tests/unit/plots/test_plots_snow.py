@@ -1,0 +1,40 @@
+"""Snow sketches read the results and draw the distributions."""
+
+from __future__ import annotations
+
+import pytest
+
+from calcpack.loads.snow_asce7 import SnowRoofASCE7, SnowSiteASCE7, roof_snow_asce7
+from calcpack.loads.snow_asce7_drift import SnowDriftASCE7, drift_asce7
+from calcpack.plots.snow import SnowSketch, drift_profile, unbalanced_profile
+from calcpack.units import Q_
+
+
+def test_unbalanced_profile_has_the_surcharge_at_the_ridge() -> None:
+    site = SnowSiteASCE7(pg=Q_(30, "psf"), pg_source="map")
+    r = roof_snow_asce7(site, SnowRoofASCE7("gable", Q_(26.565, "deg"), Q_(30, "ft")))
+    pts = unbalanced_profile(r)
+    assert pts is not None
+    assert pts[0][1] == pytest.approx(r.unbalanced_windward.to("psf").magnitude)  # type: ignore[union-attr]
+    assert max(p for _, p in pts) == pytest.approx(
+        (r.ps + r.surcharge).to("psf").magnitude  # type: ignore[operator]
+    )
+    assert "<svg" in SnowSketch(r).svg()
+
+
+def test_drift_profile_is_cut_at_the_roof_edge() -> None:
+    d = drift_asce7(
+        SnowDriftASCE7(
+            "roof step",
+            h=Q_(3, "ft"),
+            lu_lower=Q_(40, "ft"),
+            lu_upper=Q_(100, "ft"),
+            pg=Q_(30, "psf"),
+            ps=Q_(21, "psf"),
+            lower_width=Q_(12, "ft"),
+        )
+    )
+    pts = drift_profile(d)
+    assert pts[0][1] == pytest.approx((d.ps + d.pd).to("psf").magnitude)
+    assert pts[1][1] == pytest.approx((d.ps + d.p_edge).to("psf").magnitude)
+    assert "<svg" in SnowSketch(d).svg()
