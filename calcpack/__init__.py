@@ -119,6 +119,14 @@ _LAZY: dict[str, str] = {
     "SafetyFactors": "calcpack.foundations",
     "check_footing_soil": "calcpack.foundations",
     "soil_pressure": "calcpack.foundations",
+    "ACIFootingDesign": "calcpack.checks.aci318",
+    "check_aci_footing": "calcpack.checks.aci318",
+    "rebar": "calcpack.sections.rebar",
+    "SoilStrength": "calcpack.checks.en1997",
+    "PresumedBearing": "calcpack.checks.en1997",
+    "check_en1997_pad": "calcpack.checks.en1997",
+    "ECFootingDesign": "calcpack.checks.en1992",
+    "check_en1992_footing": "calcpack.checks.en1992",
     "analyse_combinations": "calcpack.combinations",
     "superpose": "calcpack.combinations",
     "combination_set": "calcpack.combinations",
@@ -210,6 +218,9 @@ if TYPE_CHECKING:
         check_nds_beam,
         summary_table,
     )
+    from calcpack.checks.aci318 import ACIFootingDesign, check_aci_footing
+    from calcpack.checks.en1992 import ECFootingDesign, check_en1992_footing
+    from calcpack.checks.en1997 import PresumedBearing, SoilStrength, check_en1997_pad
     from calcpack.combinations import (
         CombinationSet,
         LoadCombination,
@@ -286,6 +297,7 @@ if TYPE_CHECKING:
         sawn_timber,
         second_moment_from_radius,
     )
+    from calcpack.sections.rebar import rebar
     from calcpack.signing import (
         diff_packages,
         make_demo_credentials,
@@ -325,6 +337,7 @@ if TYPE_CHECKING:
 
 __all__ = [
     "Q_",
+    "ACIFootingDesign",
     "Abs",
     "AllowableBearing",
     "Angle",
@@ -345,6 +358,7 @@ __all__ = [
     "Derived",
     "DimensionError",
     "DistributedLoad",
+    "ECFootingDesign",
     "EISegment",
     "Equation",
     "Figure",
@@ -377,6 +391,7 @@ __all__ = [
     "PointMoment",
     "Polygon",
     "PolynomialLoad",
+    "PresumedBearing",
     "Rectangle",
     "RectangularHollow",
     "ReferenceDesignValues",
@@ -391,6 +406,7 @@ __all__ = [
     "SnowDriftASCE7",
     "SnowRoofASCE7",
     "SnowSiteASCE7",
+    "SoilStrength",
     "Spring",
     "Support",
     "Table",
@@ -411,9 +427,12 @@ __all__ = [
     "analyse_combinations",
     "atan",
     "build",
+    "check_aci_footing",
     "check_aisc_beam",
     "check_deflection",
     "check_elastic_beam",
+    "check_en1992_footing",
+    "check_en1997_pad",
     "check_footing_soil",
     "check_nds_beam",
     "combination_set",
@@ -432,6 +451,7 @@ __all__ = [
     "new_project",
     "pattern_cases",
     "read_manifest",
+    "rebar",
     "resultant",
     "roof_snow_asce7",
     "sawn_timber",

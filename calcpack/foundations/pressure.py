@@ -245,15 +245,33 @@ def soil_pressure(
             plane = (N_N / A, 12 * N_N * ex_m / (A * B_m**2), 12 * N_N * ey_m / (A * L_m**2))
     if full:
         return SoilPressure(
-            N.to("kN"), ex.to("m"), ey.to("m"), Q_(qmax, "Pa").to("kPa"),
-            Q_(max(qmin, 0.0), "Pa").to("kPa"), True, Q_(A, "m**2"), Q_(A, "m**2"), kern,
-            plane, poly, "full contact (resultant within the kern): q = N/A ± M/S",
-        )  # fmt: skip
+            N.to("kN"),
+            ex.to("m"),
+            ey.to("m"),
+            Q_(qmax, "Pa").to("kPa"),
+            Q_(max(qmin, 0.0), "Pa").to("kPa"),
+            True,
+            Q_(A, "m**2"),
+            Q_(A, "m**2"),
+            kern,
+            plane,
+            poly,
+            "full contact (resultant within the kern): q = N/A ± M/S",
+        )
     a, b, c = solve_plane(poly, N_N, ex_m, ey_m)
     contact = clip_polygon(poly, a, b, c)
     qmax = max(a + b * x + c * y for x, y in poly)
     return SoilPressure(
-        N.to("kN"), ex.to("m"), ey.to("m"), Q_(qmax, "Pa").to("kPa"), Q_(0.0, "kPa"), False,
-        Q_(float(polygon_moments(contact)[0]), "m**2"), Q_(A, "m**2"), kern, (a, b, c), poly,
+        N.to("kN"),
+        ex.to("m"),
+        ey.to("m"),
+        Q_(qmax, "Pa").to("kPa"),
+        Q_(0.0, "kPa"),
+        False,
+        Q_(float(polygon_moments(contact)[0]), "m**2"),
+        Q_(A, "m**2"),
+        kern,
+        (a, b, c),
+        poly,
         "partial contact (resultant outside the kern): no-tension plane solved on the base",
-    )  # fmt: skip
+    )

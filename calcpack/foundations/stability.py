@@ -87,8 +87,14 @@ class AllowableBearing:
                 expected="e.g. 'Geotechnical report GR-12, §5.1'",
             )
         if self.friction is not None:
-            within("friction", self.friction, 0.0, 1.5, inclusive=False, rule="a base friction "
-                   "coefficient")  # fmt: skip
+            within(
+                "friction",
+                self.friction,
+                0.0,
+                1.5,
+                inclusive=False,
+                rule="a base friction coefficient",
+            )
         if self.passive is not None:
             positive("passive", dimension("passive", self.passive, "[force]"), allow_zero=True)
 
@@ -158,9 +164,14 @@ def footing_combinations(
         if N.magnitude > 0:
             try:
                 pressure = soil_pressure(
-                    footing.polygon_m(), N, (My / N).to("m"), (Mx / N).to("m"),
-                    shape=footing.shape, B=footing.B, L=footing.length,
-                )  # fmt: skip
+                    footing.polygon_m(),
+                    N,
+                    (My / N).to("m"),
+                    (Mx / N).to("m"),
+                    shape=footing.shape,
+                    B=footing.B,
+                    L=footing.length,
+                )
             except OutOfScopeError:
                 overturns = True
         out.append(FootingCombination(name, combo, ld, f, N, Mx, My, pressure, overturns))
@@ -196,9 +207,11 @@ def check_footing_soil(
     combos = footing_combinations(footing, loads, combinations, self_weight_case=self_weight_case)
     logic = _SoilLogic(footing, combos, bearing, site, safety)
     return run_checks(
-        footing.mark, f"{footing.kind} footing on soil: bearing and stability", SOIL_STANDARD,
+        footing.mark,
+        f"{footing.kind} footing on soil: bearing and stability",
+        SOIL_STANDARD,
         logic,
-    )  # fmt: skip
+    )
 
 
 class _SoilLogic:
@@ -230,8 +243,13 @@ class _SoilLogic:
         gc = c.given("gamma_c", f.gamma_concrete, "concrete unit weight", unit="kN/m**3")
         Wc = c.derive("W_c", gc * A * h, "footing weight", unit="kN")
         if f.soil_weight.magnitude > 0:
-            gs = c.given("gamma_s", f.gamma_soil, "soil unit weight over the footing",
-                         source="geotechnical report", unit="kN/m**3")  # fmt: skip
+            gs = c.given(
+                "gamma_s",
+                f.gamma_soil,
+                "soil unit weight over the footing",
+                source="geotechnical report",
+                unit="kN/m**3",
+            )
             ds = c.given("d_s", f.soil_cover, "soil cover over the footing", unit="m")
             Ac = c.given("A_col", f.column_area, "column footprint", unit="m**2")
             Ws = c.derive("W_s", gs * (A - Ac) * ds, "soil weight over the footing", unit="kN")
@@ -246,11 +264,21 @@ class _SoilLogic:
         md = self.site.minimum_depth
         if md is not None:
             c.heading("Founding depth", 3)
-            dmin = c.given("D_min", md, "required depth (frost or active zone)",
-                           source="stated site conditions", unit="m")  # fmt: skip
+            dmin = c.given(
+                "D_min",
+                md,
+                "required depth (frost or active zone)",
+                source="stated site conditions",
+                unit="m",
+            )
             Df = c.given("D_f", f.depth, "depth of the base below the soil surface", unit="m")
-            c.check("Founding depth", dmin, Df, ref="site conditions (local code frost depth)",
-                    description="base at or below the required depth")  # fmt: skip
+            c.check(
+                "Founding depth",
+                dmin,
+                Df,
+                ref="site conditions (local code frost depth)",
+                description="base at or below the required depth",
+            )
         del b, s
 
     def _table(self, c: Recorder) -> None:
@@ -260,8 +288,11 @@ class _SoilLogic:
             q: Any = "off the base" if k.overturns else ("uplift" if p is None else p.q_max)
             contact = "" if p is None else ("full" if p.full_contact else "partial")
             rows.append([k.name, k.N, k.My_base, k.Mx_base, q, contact])
-        c.table(["Combination", "N", "M_y,base", "M_x,base", "q_max", "contact"], rows,
-                caption="Loads on the soil by combination (self weight included)")  # fmt: skip
+        c.table(
+            ["Combination", "N", "M_y,base", "M_x,base", "q_max", "contact"],
+            rows,
+            caption="Loads on the soil by combination (self weight included)",
+        )
 
     def _bearing(self, c: Recorder, A: Any, B: Any) -> None:
         b = self.bearing
@@ -273,37 +304,62 @@ class _SoilLogic:
         gov = max(live, key=lambda k: k.pressure.q_max.magnitude if k.pressure else 0.0)
         p = gov.pressure
         assert p is not None
-        qa = c.given("q_a", b.q_allow, f"allowable bearing pressure ({b.basis})",
-                     source=b.source, unit="kPa")  # fmt: skip
+        qa = c.given(
+            "q_a", b.q_allow, f"allowable bearing pressure ({b.basis})", source=b.source, unit="kPa"
+        )
         N = c.given("N", gov.N, f"net load on the soil, {gov.name}", unit="kN")
         ex = c.given("e_x", abs(p.ex), "eccentricity along x, |M_y,base|/N", unit="m")
         ey = c.given("e_y", abs(p.ey), "eccentricity along y, |M_x,base|/N", unit="m")
         c.text(f"Kern: {p.kern}; {p.method}.")
         if p.full_contact and self.f.shape != "round":
             L = c.given("L_q", self.f.length, "footing length", unit="m")
-            q = c.derive("q_max", N / A * (1 + 6 * ex / B + 6 * ey / L), "maximum pressure",
-                         unit="kPa", ref="N/A·(1 + 6e_x/B + 6e_y/L) (common practice)")  # fmt: skip
+            q = c.derive(
+                "q_max",
+                N / A * (1 + 6 * ex / B + 6 * ey / L),
+                "maximum pressure",
+                unit="kPa",
+                ref="N/A·(1 + 6e_x/B + 6e_y/L) (common practice)",
+            )
         elif p.full_contact:
             e = c.derive("e", c.sqrt(ex**2 + ey**2), "eccentricity", unit="m")
-            q = c.derive("q_max", N / A * (1 + 8 * e / B), "maximum pressure", unit="kPa",
-                         ref="N/A·(1 + 8e/D) (common practice)")  # fmt: skip
+            q = c.derive(
+                "q_max",
+                N / A * (1 + 8 * e / B),
+                "maximum pressure",
+                unit="kPa",
+                ref="N/A·(1 + 8e/D) (common practice)",
+            )
         elif self.f.shape != "round" and min(abs(p.ex.magnitude), abs(p.ey.magnitude)) == 0.0:
             along_x = abs(p.ex.magnitude) > 0
             e = ex if along_x else ey
             Bd = B if along_x else c.given("L_q", self.f.length, "footing length", unit="m")
             W_ = c.given("L_w", self.f.length if along_x else self.f.B, "width across", unit="m")
-            q = c.derive("q_max", 2 * N / (3 * W_ * (Bd / 2 - e)), "maximum pressure (triangle)",
-                         unit="kPa", ref="2N/(3 L (B/2 − e)) (common practice)")  # fmt: skip
+            q = c.derive(
+                "q_max",
+                2 * N / (3 * W_ * (Bd / 2 - e)),
+                "maximum pressure (triangle)",
+                unit="kPa",
+                ref="2N/(3 L (B/2 − e)) (common practice)",
+            )
         else:
-            q = c.given("q_max", p.q_max, "maximum pressure, partial contact (no-tension "
-                        "plane solved on the base)", source="calcpack.foundations.pressure",
-                        unit="kPa")  # fmt: skip
+            q = c.given(
+                "q_max",
+                p.q_max,
+                "maximum pressure, partial contact (no-tension plane solved on the base)",
+                source="calcpack.foundations.pressure",
+                unit="kPa",
+            )
         if b.basis == "net":
-            qo = c.given("q_o", self._overburden(), "overburden pressure γ·(h + cover)",
-                         unit="kPa")  # fmt: skip
+            qo = c.given("q_o", self._overburden(), "overburden pressure γ·(h + cover)", unit="kPa")
             q = c.derive("q_net", q - qo, "net bearing pressure", unit="kPa")
-        c.check("Bearing pressure", q, qa, ref=b.source, combination=gov.name,
-                description="maximum soil pressure within the allowable")  # fmt: skip
+        c.check(
+            "Bearing pressure",
+            q,
+            qa,
+            ref=b.source,
+            combination=gov.name,
+            description="maximum soil pressure within the allowable",
+        )
 
     def _overturning(self, c: Recorder) -> None:
         f, s = self.f, self.safety
@@ -328,26 +384,49 @@ class _SoilLogic:
             if all(mom(ax, k).magnitude == 0 for k in self.combos):
                 continue
             gov = max(self.combos, key=functools.partial(util, ax, size))
-            c.heading(f"Overturning (moment about the {ax} axis)"
-                      if ax != "r" else "Overturning", 3)  # fmt: skip
-            FS = c.given("FS_ot", s.overturning, "factor of safety against overturning",
-                         source=s.source)  # fmt: skip
-            Mo = c.given(f"M_ot_{ax}", mom(ax, gov), f"overturning moment at the base, "
-                         f"{gov.name}", unit="kN*m")  # fmt: skip
-            N = c.given("N_r", gov.N, "resisting net vertical load (self weight factored)",
-                        unit="kN")  # fmt: skip
+            c.heading(
+                f"Overturning (moment about the {ax} axis)" if ax != "r" else "Overturning", 3
+            )
+            FS = c.given(
+                "FS_ot", s.overturning, "factor of safety against overturning", source=s.source
+            )
+            Mo = c.given(
+                f"M_ot_{ax}",
+                mom(ax, gov),
+                f"overturning moment at the base, {gov.name}",
+                unit="kN*m",
+            )
+            N = c.given(
+                "N_r", gov.N, "resisting net vertical load (self weight factored)", unit="kN"
+            )
             lever = c.given(f"{dim}_ot", size, "footing size across the axis", unit="m")
-            Md = c.derive(f"M_ot_FS_{ax}", FS * Mo, "overturning moment times the factor of "
-                          "safety", unit="kN*m")  # fmt: skip
+            Md = c.derive(
+                f"M_ot_FS_{ax}",
+                FS * Mo,
+                "overturning moment times the factor of safety",
+                unit="kN*m",
+            )
             if gov.N.magnitude <= 0:
-                c.check(f"Overturning {ax}", Md, Q_(1e-9, "kN*m"), ref=s.source,
-                        combination=gov.name,
-                        description="net uplift: nothing resists overturning")  # fmt: skip
+                c.check(
+                    f"Overturning {ax}",
+                    Md,
+                    Q_(1e-9, "kN*m"),
+                    ref=s.source,
+                    combination=gov.name,
+                    description="net uplift: nothing resists overturning",
+                )
                 continue
-            Mr = c.derive(f"M_r_{ax}", N * lever / 2, "resisting moment about the edge",
-                          unit="kN*m")  # fmt: skip
-            c.check(f"Overturning {ax}", Md, Mr, ref=s.source, combination=gov.name,
-                    description="FS·M_ot ≤ M_r")  # fmt: skip
+            Mr = c.derive(
+                f"M_r_{ax}", N * lever / 2, "resisting moment about the edge", unit="kN*m"
+            )
+            c.check(
+                f"Overturning {ax}",
+                Md,
+                Mr,
+                ref=s.source,
+                combination=gov.name,
+                description="FS·M_ot ≤ M_r",
+            )
 
     def _sliding(self, c: Recorder) -> None:
         b, s = self.bearing, self.safety
@@ -359,8 +438,11 @@ class _SoilLogic:
             return
         c.heading("Sliding", 3)
         if b.friction is None:
-            c.not_covered("Sliding", "horizontal load present but no base friction coefficient "
-                          "given (AllowableBearing.friction)")  # fmt: skip
+            c.not_covered(
+                "Sliding",
+                "horizontal load present but no base friction coefficient "
+                "given (AllowableBearing.friction)",
+            )
             return
         Pp = b.passive if b.passive is not None else Q_(0.0, "kN")
 
@@ -378,8 +460,9 @@ class _SoilLogic:
         if c.q(R).magnitude <= 0:
             R = c.given("R_s_min", Q_(1e-9, "kN"), "no sliding resistance", unit="kN")
         Hd = c.derive("H_FS", FS * Hg, "shear times the factor of safety", unit="kN")
-        c.check("Sliding", Hd, R, ref=s.source, combination=gov.name,
-                description="FS·H ≤ μ·N + P_p")  # fmt: skip
+        c.check(
+            "Sliding", Hd, R, ref=s.source, combination=gov.name, description="FS·H ≤ μ·N + P_p"
+        )
 
     def _uplift(self, c: Recorder, W: Any) -> None:
         s = self.safety
@@ -397,9 +480,16 @@ class _SoilLogic:
         FS = c.given("FS_up", s.uplift, "factor of safety against uplift", source=s.source)
         U = c.given("U", -gov.load.P, f"uplift at the top of the footing, {gov.name}", unit="kN")
         fD = c.given("f_D", gov.f_sw, "load factor on the self weight in this combination")
-        Ta = c.given("T_a", anchor, "anchor uplift resistance" + ("" if s.anchor else " (none)"),
-                     unit="kN")  # fmt: skip
+        Ta = c.given(
+            "T_a", anchor, "anchor uplift resistance" + ("" if s.anchor else " (none)"), unit="kN"
+        )
         R = c.derive("R_up", fD * W + Ta, "uplift resistance", unit="kN")
         Ud = c.derive("U_FS", FS * U, "uplift times the factor of safety", unit="kN")
-        c.check("Uplift", Ud, R, ref=s.source, combination=gov.name,
-                description="FS·U ≤ f_D·W + T_a" + ("" if s.anchor else "; no anchor"))  # fmt: skip
+        c.check(
+            "Uplift",
+            Ud,
+            R,
+            ref=s.source,
+            combination=gov.name,
+            description="FS·U ≤ f_D·W + T_a" + ("" if s.anchor else "; no anchor"),
+        )

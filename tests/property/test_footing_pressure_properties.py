@@ -38,8 +38,9 @@ def test_resultant_equals_load_and_eccentricity(B, L, N, fx, fy):
     if abs(fx) + abs(fy) > 0.45:
         fx, fy = fx / 2, fy / 2
     ex, ey = fx * B, fy * L
-    p = soil_pressure(f.polygon_m(), Q_(N, "kN"), Q_(ex, "m"), Q_(ey, "m"),
-                      shape="rectangular", B=f.B, L=f.length)  # fmt: skip
+    p = soil_pressure(
+        f.polygon_m(), Q_(N, "kN"), Q_(ex, "m"), Q_(ey, "m"), shape="rectangular", B=f.B, L=f.length
+    )
     F, xr, yr = _grid_resultant(p, B, L)
     # midpoint rule on 600 x 600 cells: 0.5 % on the force, 0.3 % of the size on the position
     assert abs(F - N * 1000) <= 5e-3 * N * 1000
@@ -54,8 +55,9 @@ def test_resultant_equals_load_and_eccentricity(B, L, N, fx, fy):
 def test_peak_pressure_falls_as_the_footing_grows(B, grow, e):
     def qmax(size):
         f = Footing("square", Q_(size, "m"), Q_(0.4, "m"), Column(Q_(0.1, "m")))
-        return soil_pressure(f.polygon_m(), Q_(300, "kN"), Q_(e, "m"), Q_(0, "m"),
-                             shape="square", B=f.B, L=f.length).q_max  # fmt: skip
+        return soil_pressure(
+            f.polygon_m(), Q_(300, "kN"), Q_(e, "m"), Q_(0, "m"), shape="square", B=f.B, L=f.length
+        ).q_max
 
     if e >= 0.45 * B:
         e = 0.2 * B

@@ -16,6 +16,8 @@ HEAVY = [
 MODULES = [
     "calcpack", "calcpack.units", "calcpack.working", "calcpack.analysis", "calcpack.sections",
     "calcpack.loads", "calcpack.checks", "calcpack.combinations", "calcpack.foundations",
+    "calcpack.checks.aci318", "calcpack.checks.en1992", "calcpack.checks.en1997",
+    "calcpack.sections.rebar",
 ]  # fmt: skip
 
 

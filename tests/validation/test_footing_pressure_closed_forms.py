@@ -22,8 +22,9 @@ def _rect(B=2.0, L=3.0):
 
 
 def _q(f, N, ex, ey=0.0):
-    return soil_pressure(f.polygon_m(), Q_(N, "kN"), Q_(ex, "m"), Q_(ey, "m"),
-                         shape=f.shape, B=f.B, L=f.length)  # fmt: skip
+    return soil_pressure(
+        f.polygon_m(), Q_(N, "kN"), Q_(ex, "m"), Q_(ey, "m"), shape=f.shape, B=f.B, L=f.length
+    )
 
 
 def test_uniform_pressure_is_P_over_A():

@@ -72,8 +72,12 @@ def test_site_refusals():
         SiteConditions(expansive=True)
     with pytest.raises(OutOfScopeError, match="Seismic design category D"):
         SiteConditions(seismic_design_category="D")
-    s = SiteConditions(frost_susceptible=True, frost_depth=Q_(0.9, "m"),
-                       expansive=True, active_zone_depth=Q_(1.2, "m"))  # fmt: skip
+    s = SiteConditions(
+        frost_susceptible=True,
+        frost_depth=Q_(0.9, "m"),
+        expansive=True,
+        active_zone_depth=Q_(1.2, "m"),
+    )
     assert s.minimum_depth == Q_(1.2, "m")
 
 
@@ -83,9 +87,16 @@ def test_loads_need_units_of_force_and_moment():
 
 
 def test_weights():
-    f = Footing("rectangular", Q_(2, "m"), Q_(0.5, "m"), _col(), L=Q_(3, "m"),
-                gamma_concrete=Q_(24, "kN/m**3"), soil_cover=Q_(0.4, "m"),
-                gamma_soil=Q_(18, "kN/m**3"))  # fmt: skip
+    f = Footing(
+        "rectangular",
+        Q_(2, "m"),
+        Q_(0.5, "m"),
+        _col(),
+        L=Q_(3, "m"),
+        gamma_concrete=Q_(24, "kN/m**3"),
+        soil_cover=Q_(0.4, "m"),
+        gamma_soil=Q_(18, "kN/m**3"),
+    )
     # closed forms, common practice: W = γ·A·h
     assert f.concrete_weight.to("kN").magnitude == pytest.approx(24 * 6 * 0.5)
     assert f.soil_weight.to("kN").magnitude == pytest.approx(18 * (6 - 0.09) * 0.4)

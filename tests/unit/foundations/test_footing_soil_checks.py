@@ -17,8 +17,14 @@ from calcpack.units import Q_
 
 
 def _footing(**kw):
-    return Footing("square", Q_(1.5, "m"), Q_(0.3, "m"), Column(Q_(0.15, "m")),
-                   gamma_concrete=Q_(24, "kN/m**3"), **kw)  # fmt: skip
+    return Footing(
+        "square",
+        Q_(1.5, "m"),
+        Q_(0.3, "m"),
+        Column(Q_(0.15, "m")),
+        gamma_concrete=Q_(24, "kN/m**3"),
+        **kw,
+    )
 
 
 BEARING = AllowableBearing(Q_(150, "kPa"), "invented geotechnical report GR-1, §4", friction=0.4)
@@ -26,8 +32,12 @@ BEARING = AllowableBearing(Q_(150, "kPa"), "invented geotechnical report GR-1, �
 
 def test_concentric_bearing_is_N_over_A():
     f = _footing()
-    r = check_footing_soil(f, {"D": FootingLoad(P=Q_(100, "kN")), "L": FootingLoad(P=Q_(80, "kN"))},
-                           asce7_allowable_stress(), BEARING)  # fmt: skip
+    r = check_footing_soil(
+        f,
+        {"D": FootingLoad(P=Q_(100, "kN")), "L": FootingLoad(P=Q_(80, "kN"))},
+        asce7_allowable_stress(),
+        BEARING,
+    )
     W = 24 * 1.5 * 1.5 * 0.3
     chk = r["Bearing pressure"]
     assert chk.demand.to("kPa").magnitude == pytest.approx((180 + W) / 2.25)  # N/A
@@ -37,10 +47,10 @@ def test_concentric_bearing_is_N_over_A():
 
 def test_overturning_resisted_by_N_B_over_2():
     f = _footing()
-    loads = {"D": FootingLoad(P=Q_(50, "kN")),
-             "W": FootingLoad(Vx=Q_(10, "kN"), My=Q_(20, "kN*m"))}  # fmt: skip
-    r = check_footing_soil(f, loads, asce7_allowable_stress(), BEARING,
-                           safety=SafetyFactors(overturning=1.5))  # fmt: skip
+    loads = {"D": FootingLoad(P=Q_(50, "kN")), "W": FootingLoad(Vx=Q_(10, "kN"), My=Q_(20, "kN*m"))}
+    r = check_footing_soil(
+        f, loads, asce7_allowable_stress(), BEARING, safety=SafetyFactors(overturning=1.5)
+    )
     W = 24 * 1.5 * 1.5 * 0.3
     chk = r["Overturning y"]
     # governing: 0.6D + 0.6W: M_ot = 0.6·(20 + 10·0.3), N = 0.6·(50 + W)
@@ -57,23 +67,30 @@ def test_uplift_beyond_resisting_weight_without_anchor_is_not_ok():
     up = r["Uplift"]
     assert up.verdict == "NOT OK"
     assert "no anchor" in up.description
-    anchored = check_footing_soil(f, loads, asce7_allowable_stress(), BEARING,
-                                  safety=SafetyFactors(anchor=Q_(60, "kN")))  # fmt: skip
+    anchored = check_footing_soil(
+        f, loads, asce7_allowable_stress(), BEARING, safety=SafetyFactors(anchor=Q_(60, "kN"))
+    )
     assert anchored["Uplift"].verdict == "OK"
 
 
 def test_sliding_without_friction_is_not_covered():
     f = _footing()
     loads = {"D": FootingLoad(P=Q_(50, "kN")), "W": FootingLoad(Vx=Q_(5, "kN"))}
-    r = check_footing_soil(f, loads, asce7_allowable_stress(),
-                           AllowableBearing(Q_(150, "kPa"), "invented report"))  # fmt: skip
+    r = check_footing_soil(
+        f, loads, asce7_allowable_stress(), AllowableBearing(Q_(150, "kPa"), "invented report")
+    )
     assert r["Sliding"].verdict == "NOT COVERED"
 
 
 def test_founding_depth_against_frost():
     f = _footing(soil_cover=Q_(0.5, "m"), gamma_soil=Q_(18, "kN/m**3"))
-    r = check_footing_soil(f, {"D": FootingLoad(P=Q_(50, "kN"))}, asce7_allowable_stress(),
-                           BEARING, site=SiteConditions(frost_depth=Q_(1.0, "m")))  # fmt: skip
+    r = check_footing_soil(
+        f,
+        {"D": FootingLoad(P=Q_(50, "kN"))},
+        asce7_allowable_stress(),
+        BEARING,
+        site=SiteConditions(frost_depth=Q_(1.0, "m")),
+    )
     assert r["Founding depth"].verdict == "NOT OK"
 
 
@@ -87,8 +104,10 @@ def test_net_basis_subtracts_overburden():
 
 def test_working_shows_every_check():
     f = _footing()
-    loads = {"D": FootingLoad(P=Q_(50, "kN")), "W": FootingLoad(P=Q_(-60, "kN"), Vx=Q_(3, "kN"),
-                                                                My=Q_(4, "kN*m"))}  # fmt: skip
+    loads = {
+        "D": FootingLoad(P=Q_(50, "kN")),
+        "W": FootingLoad(P=Q_(-60, "kN"), Vx=Q_(3, "kN"), My=Q_(4, "kN*m")),
+    }
     r = check_footing_soil(f, loads, asce7_allowable_stress(), BEARING)
     text = "\n".join(str(s) for s in r.working())
     for word in ("Bearing pressure", "Overturning", "Sliding", "Uplift", "geotechnical"):
