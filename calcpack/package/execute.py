@@ -20,7 +20,7 @@ import concurrent.futures
 import concurrent.futures.process
 import contextlib
 import hashlib
-import itertools
+import json
 import logging
 import multiprocessing
 import os
@@ -90,13 +90,19 @@ def sheet_cache_key(project: Project, sheet: SheetEntry) -> str:
     return digest.hexdigest()
 
 
-def _kernel_env() -> dict[str, str]:
-    """Environment for kernels: calcpack importable even from an uninstalled source tree."""
+def _kernel_env(exports: str | None = None, sheet: str | None = None) -> dict[str, str]:
+    """Environment for kernels: calcpack importable even from an uninstalled source tree; the
+    build's exports folder and the sheet's path, for imports between sheets."""
     import calcpack
+    from calcpack.working.links import EXPORTS_DIR_ENV, SHEET_ENV
 
     # CALCPACK_BUILDING: input panels and the preview show nothing in a build's kernel, even
     # when the build is started from a notebook (whose kernel environment is inherited).
     env = {"MPLBACKEND": "Agg", "PYDEVD_DISABLE_FILE_VALIDATION": "1", "CALCPACK_BUILDING": "1"}
+    if exports is not None:
+        env[EXPORTS_DIR_ENV] = exports
+    if sheet is not None:
+        env[SHEET_ENV] = sheet
     source_root = str(Path(calcpack.__file__).resolve().parent.parent)
     if not re.search(r"[\\/](site|dist)-packages$", source_root):
         current = os.environ.get("PYTHONPATH", "")
@@ -178,8 +184,10 @@ def execute_notebook(
     return nbformat.reads(outcome[1], as_version=4)
 
 
-def _execute(path: str, sheet: str, timeout: float) -> tuple[Any, ...]:
-    """Run one notebook; ('ok', json) or ('error', sheet, cell, excerpt, error). Picklable."""
+def _execute(path: str, sheet: str, timeout: float, exports: str | None = None) -> tuple[Any, ...]:
+    """Run one notebook; ('ok', json) or ('error', sheet, cell, excerpt, error). Picklable.
+
+    ``exports`` is the build's folder of exports files, read by the sheet's imports."""
     import nbformat
     from jupyter_client.kernelspec import KernelSpec, KernelSpecManager
     from jupyter_client.manager import AsyncKernelManager
@@ -193,7 +201,7 @@ def _execute(path: str, sheet: str, timeout: float) -> tuple[Any, ...]:
                 argv=[sys.executable, "-m", "ipykernel_launcher", "-f", "{connection_file}"],
                 display_name="Python 3 (calcpack build)",
                 language="python",
-                env=_kernel_env(),
+                env=_kernel_env(exports, sheet),
             )
 
     nb = nbformat.read(path, as_version=4)
@@ -303,8 +311,11 @@ def execute_sheets(
     sheets: Sequence[SheetEntry] | None = None,
     pool: concurrent.futures.Executor | None = None,
     on_ready: Callable[[ExecutedSheet], None] | None = None,
+    exports_dir: Path | None = None,
 ) -> list[ExecutedSheet]:
-    """Execute every sheet of a project (unchanged sheets come from the cache), in order.
+    """Execute every sheet of a project (unchanged sheets come from the cache), in dependency
+    order: a sheet starts once the sheets it imports from are done (see
+    :mod:`calcpack.package.links`), so independent sheets run side by side.
 
     Args:
         project: the validated project.
@@ -319,89 +330,157 @@ def execute_sheets(
             than one sheet is to be executed.
         on_ready: called with each sheet as soon as it is available (cached sheets first,
             then executed ones as they finish), so that later stages can start on it.
+        exports_dir: the folder for the sheets' exports files in this build (default: a
+            temporary folder).
 
     Raises:
+        BuildError: a sheet imports from a sheet not in the project, or the imports form a
+            cycle (naming the sheets).
         NotebookExecutionError: the first sheet that failed (in project order), naming the
-            cell; the remaining executions are cancelled.
+            cell and the sheets not built because they import from it; the remaining
+            executions are cancelled.
     """
+    from calcpack.package import links
+
     if workers < 1:
         raise BuildError(f"Number of workers must be at least 1 (got workers = {workers})")
     cache = cache_dir or project.root / CACHE_DIR_NAME
     todo = list(sheets if sheets is not None else project.sheets)
+    deps = links.sheet_dependencies(project, todo)
+    by_path = {s.path: s for s in todo}
+    waiting = [by_path[p] for p in links.execution_order(list(by_path), deps)]
     results: dict[str, ExecutedSheet] = {}
-    pending: list[tuple[SheetEntry, str]] = []
-    for sheet in todo:
-        key = sheet_cache_key(project, sheet)
-        cached = _cache_file(cache, sheet, key)
-        if use_cache and cached.is_file():
-            results[sheet.path] = ExecutedSheet(
-                sheet, cached.read_text(encoding="utf-8"), key, True, 0.0
-            )
+    exported: dict[str, tuple[dict[str, Any], ...]] = {}
+    with contextlib.ExitStack() as stack:
+        if exports_dir is None:
+            exports_dir = Path(stack.enter_context(tempfile.TemporaryDirectory(prefix="cp-ex-")))
+
+        def available(item: ExecutedSheet) -> None:
+            from calcpack.package.records import collect_records
+
+            results[item.entry.path] = item
+            records = collect_records(json.loads(item.notebook_json))
+            exported[item.entry.path] = records.exports
+            if records.exports:
+                assert exports_dir is not None
+                links.write_exports_file(exports_dir, project, item.entry, records.exports)
             if progress:
-                progress("cached", sheet)
+                progress("cached" if item.from_cache else "executed", item.entry)
             if on_ready:
-                on_ready(results[sheet.path])
+                on_ready(item)
+
+        def key_of(sheet: SheetEntry) -> str:
+            upstream = {d: exported.get(d, ()) for d in deps.get(sheet.path, ()) if d in by_path}
+            base = sheet_cache_key(project, sheet)
+            extra = links.imports_key(upstream)
+            return hashlib.sha256(f"{base}:{extra}".encode()).hexdigest() if extra else base
+
+        def finish(sheet: SheetEntry, key: str, outcome: tuple[Any, ...], seconds: float) -> None:
+            if use_cache:
+                _store(cache, sheet, key, outcome[1])
+            available(ExecutedSheet(sheet, outcome[1], key, False, seconds))
+
+        def ready() -> list[tuple[SheetEntry, str]]:
+            """Start what can start: cached sheets at once, the rest returned with their key."""
+            out = []
+            changed = True
+            while changed:
+                changed = False
+                for sheet in list(waiting):
+                    if not all(d in results for d in deps.get(sheet.path, ()) if d in by_path):
+                        continue
+                    waiting.remove(sheet)
+                    key = key_of(sheet)
+                    cached = _cache_file(cache, sheet, key)
+                    if use_cache and cached.is_file():
+                        text = cached.read_text(encoding="utf-8")
+                        available(ExecutedSheet(sheet, text, key, True, 0.0))
+                        changed = True
+                    else:
+                        out.append((sheet, key))
+            return out
+
+        exports = str(exports_dir)
+        if pool is None and workers > 1 and len(todo) > 1:
+            pool = stack.enter_context(worker_pool(min(workers, len(todo))))
+        if pool is None:
+            queue = ready()
+            while queue:
+                sheet, key = queue.pop(0)
+                if progress:
+                    progress("executing", sheet)
+                start = time.perf_counter()
+                outcome = _execute(str(project.sheet_path(sheet)), sheet.path, timeout, exports)
+                if outcome[0] == "error":
+                    raise _failed(outcome, deps)
+                finish(sheet, key, outcome, time.perf_counter() - start)
+                queue += ready()
         else:
-            pending.append((sheet, key))
-
-    def finish(sheet: SheetEntry, key: str, outcome: tuple[Any, ...], seconds: float) -> None:
-        if outcome[0] == "error":
-            raise NotebookExecutionError(*outcome[1:])
-        results[sheet.path] = ExecutedSheet(sheet, outcome[1], key, False, seconds)
-        if use_cache:
-            _store(cache, sheet, key, outcome[1])
-        if progress:
-            progress("executed", sheet)
-        if on_ready:
-            on_ready(results[sheet.path])
-
-    if pool is None and (len(pending) <= 1 or workers == 1):
-        for sheet, key in pending:
-            if progress:
-                progress("executing", sheet)
-            start = time.perf_counter()
-            outcome = _execute(str(project.sheet_path(sheet)), sheet.path, timeout)
-            finish(sheet, key, outcome, time.perf_counter() - start)
-    elif pending:
-        with contextlib.ExitStack() as stack:
-            if pool is None:
-                pool = stack.enter_context(worker_pool(min(workers, len(pending))))
-            assert pool is not None
-            _execute_in(pool, pending, project, timeout, workers, progress, finish, todo)
+            _execute_in(
+                pool, ready, project, timeout, workers, progress, finish, todo, exports, deps
+            )
     return [results[s.path] for s in todo]
+
+
+def _downstream(sheet: str, deps: dict[str, tuple[str, ...]]) -> list[str]:
+    """The sheets that import from ``sheet``, directly or through other sheets."""
+    out: list[str] = []
+    grew = True
+    while grew:
+        grew = False
+        for path, ups in deps.items():
+            if path not in out and any(u == sheet or u in out for u in ups):
+                out.append(path)
+                grew = True
+    return [p for p in deps if p in out]
+
+
+def _failed(outcome: tuple[Any, ...], deps: dict[str, tuple[str, ...]]) -> BuildError:
+    """The error for a failed sheet, naming the sheets not built because they import from it."""
+    sheet, cell, excerpt, error = outcome[1:]
+    not_built = _downstream(sheet, deps)
+    if not_built:
+        error = (
+            f"{error}. Not built, as they import from it directly or through other sheets: "
+            + ", ".join(not_built)
+        )
+    return NotebookExecutionError(sheet, cell, excerpt, error)
 
 
 def _execute_in(
     pool: concurrent.futures.Executor,
-    pending: list[tuple[SheetEntry, str]],
+    ready: Callable[[], list[tuple[SheetEntry, str]]],
     project: Project,
     timeout: float,
     workers: int,
     progress: ProgressCallback | None,
     finish: Callable[[SheetEntry, str, tuple[Any, ...], float], None],
     todo: list[SheetEntry],
+    exports: str,
+    deps: dict[str, tuple[str, ...]],
 ) -> None:
-    """Execute the pending sheets in the pool; ``finish`` each in completion order.
+    """Execute sheets in the pool as they become ready; ``finish`` each in completion order.
 
     Only as many sheets as there are workers are handed to the pool at a time, so that what
     ``finish`` hands to the same pool for a sheet that is done (its conversion) runs before the
     next execution rather than after all of them: the build's last minutes then convert only
     the last sheets, on both workers, instead of every sheet.
     """
-    queue = iter(pending)
+    queue: list[tuple[SheetEntry, str]] = ready()
     futures: dict[concurrent.futures.Future[tuple[Any, ...]], tuple[SheetEntry, str]] = {}
     starts: dict[str, float] = {}
 
-    def submit_next() -> None:
-        for sheet, key in itertools.islice(queue, 1):
+    def submit() -> None:
+        while queue and len(futures) < workers:
+            sheet, key = queue.pop(0)
             starts[sheet.path] = time.perf_counter()
-            future = pool.submit(_execute, str(project.sheet_path(sheet)), sheet.path, timeout)
+            path = str(project.sheet_path(sheet))
+            future = pool.submit(_execute, path, sheet.path, timeout, exports)
             futures[future] = (sheet, key)
             if progress:
                 progress("executing", sheet)
 
-    for _ in range(workers):
-        submit_next()
+    submit()
     failures: list[tuple[int, tuple[Any, ...]]] = []
     order = {s.path: i for i, s in enumerate(todo)}
     while futures:
@@ -422,7 +501,9 @@ def _execute_in(
             if failures:
                 continue
             finish(sheet, key, outcome, time.perf_counter() - starts[sheet.path])
-            submit_next()
+            queue.extend(ready())
+        if not failures:
+            submit()
     if failures:
         failures.sort(key=lambda item: item[0])
-        raise NotebookExecutionError(*failures[0][1][1:])
+        raise _failed(failures[0][1], deps)

@@ -198,6 +198,19 @@ def _chunks(
     return chunks
 
 
+def number_links(html: str, starts: dict[str, int]) -> str:
+    """Write the first page of each linked section into its links (``data-cp-page``), where
+    CSS would compute ``target-counter``: the target may be in another chunk."""
+
+    def number_link(m: re.Match[str]) -> str:
+        target = m.group(2)
+        if target not in starts or "data-cp-page=" in m.group(1):
+            return m.group(0)
+        return f'<a{m.group(1)} data-cp-page="{starts[target]}" href="#{target}"'
+
+    return _LINK_RE.sub(number_link, html)
+
+
 def _chunk_html(
     split: _Split,
     indices: Sequence[int],
@@ -214,15 +227,9 @@ def _chunk_html(
         rule = f"@page :first {{ counter-set: page {offset + 1}; }}"
         head = head.replace("</head>", f"<style>{rule}</style></head>", 1)
 
-    def number_link(m: re.Match[str]) -> str:
-        target = m.group(2)
-        if target not in starts:
-            return m.group(0)
-        return f'<a{m.group(1)} data-cp-page="{starts[target]}" href="#{target}"'
-
     parts = [head]
     for n, i in enumerate(indices):
-        text = _LINK_RE.sub(number_link, split.sections[i][1])
+        text = number_links(split.sections[i][1], starts)
         if n == 0 and split.strings and split.strings not in text:
             cut = text.index(">") + 1
             text = text[:cut] + split.strings + text[cut:]
@@ -313,7 +320,11 @@ class _MissingAnchorFilter(logging.Filter):
     """WeasyPrint warns of links to sections in other chunks; the join adds those links."""
 
     def filter(self, record: logging.LogRecord) -> bool:
-        return not record.getMessage().startswith("No anchor #")
+        message = record.getMessage()
+        return not (
+            message.startswith("No anchor #")
+            or message.startswith("Content discarded: target points to undefined anchor")
+        )
 
 
 @contextlib.contextmanager
@@ -562,7 +573,8 @@ def _one_pass(
         # Each chunk starts where the assumed counts put it, so chunks are independent.
         offset = starts[ids[n][0]] - 1
         html = _chunk_html(split, groups[n], offset=offset, total=total, starts=starts)
-        return fill(html) if fill else html
+        # Sheet bodies (filled in here) link to other sheets, e.g. an imported value's source.
+        return number_links(fill(html), starts) if fill else html
 
     to_keep: dict[concurrent.futures.Future[_Chunk], str] = {}
 

@@ -28,6 +28,7 @@ from pathlib import Path
 from typing import Any
 
 from calcpack.errors import BuildError
+from calcpack.package import links
 from calcpack.package.bodies import convert_sheet, fill_bodies, prepare_in_worker
 from calcpack.package.document import (
     ROLES,
@@ -502,6 +503,7 @@ def build(
                     prepare_in_worker, item, reviewer_copy, cache_file, n, str(bodies), count
                 )
 
+        exports_dir = bodies / "exports"
         executed = execute_sheets(
             project,
             workers=workers,
@@ -510,7 +512,10 @@ def build(
             progress=on_sheet,
             pool=pool,
             on_ready=convert,
+            exports_dir=exports_dir,
         )
+        # JupyterLab's imports read the values of the latest build (calcpack.working.links).
+        links.publish_exports(exports_dir, project.root / CACHE_DIR_NAME / "exports")
         docs = []
         for item in executed:
             if item.entry.path in converting:
@@ -555,6 +560,9 @@ def build(
                 pages=list(layout.section_pages[sheet_ids[doc.entry.path]]),
             )
             for doc, item in zip(docs, executed, strict=True)
+        ],
+        "links": [
+            link for doc in docs for link in links.link_records(doc.entry.path, doc.records.imports)
         ],
         "signature_fields": list(layout.signature_fields),
         "sections": {k: list(v) for k, v in layout.section_pages.items()},

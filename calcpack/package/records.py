@@ -29,6 +29,10 @@ class SheetRecords:
     assumptions: tuple[str, ...] = ()
     cautions: tuple[str, ...] = ()
     standards: tuple[str, ...] = field(default=())
+    exports: tuple[dict[str, Any], ...] = ()
+    """Values the sheet exports to others (see :mod:`calcpack.working.links`)."""
+    imports: tuple[dict[str, Any], ...] = ()
+    """Values it imports: from sheet and name, case, to name, value and unit."""
 
 
 def _float(value: Any) -> float | None:
@@ -102,7 +106,11 @@ def collect_records(nb: Any) -> SheetRecords:
     assumptions: list[str] = []
     cautions: list[str] = []
     standards: list[str] = []
+    exports: list[dict[str, Any]] = []
+    imports: list[dict[str, Any]] = []
     for payload in _payloads(nb):
+        exports += [dict(e) for e in payload.get("exports", []) if isinstance(e, dict)]
+        imports += [dict(i) for i in payload.get("imports", []) if isinstance(i, dict)]
         values += [_clean_value(v) for v in payload.get("values", []) if isinstance(v, dict)]
         checks += [_clean_check(c) for c in payload.get("checks", []) if isinstance(c, dict)]
         for key, target in (
@@ -114,7 +122,13 @@ def collect_records(nb: Any) -> SheetRecords:
                 if isinstance(text, str) and text.strip() and text.strip() not in target:
                     target.append(text.strip())
     return SheetRecords(
-        tuple(values), tuple(checks), tuple(assumptions), tuple(cautions), tuple(standards)
+        tuple(values),
+        tuple(checks),
+        tuple(assumptions),
+        tuple(cautions),
+        tuple(standards),
+        tuple(exports),
+        tuple(imports),
     )
 
 

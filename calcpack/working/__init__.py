@@ -34,6 +34,7 @@ from calcpack.working.format import (
     format_unit_latex,
     format_unit_text,
 )
+from calcpack.working.linked import Exports, Imported
 from calcpack.working.sheet import Sheet
 from calcpack.working.steps import (
     RECORDS_MIMETYPE,
@@ -66,9 +67,11 @@ __all__ = [
     "CheckRecord",
     "Derived",
     "Equation",
+    "Exports",
     "Figure",
     "Given",
     "Heading",
+    "Imported",
     "Max",
     "Min",
     "NotCovered",

@@ -179,6 +179,13 @@ def _row(kind: str, desc: str, body: str, ref: str = "", name: str | None = None
 def _step_html_body(step: Step) -> str:
     if isinstance(step, Given):
         src = f'<div class="cp-src">{_esc(step.source)}</div>' if step.source else ""
+        link = getattr(step, "link", None)
+        if link and step.source:
+            # An imported value: its source links to the exporting sheet (page set at layout).
+            src = (
+                f'<div class="cp-src"><a class="cp-link" href="{html.escape(link)}">'
+                f"{_esc(step.source)}</a></div>"
+            )
         return _row(
             "given", _prose_html(step.description), _display_math(_given_tex(step)), src, step.name
         )

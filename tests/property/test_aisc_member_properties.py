@@ -1,0 +1,64 @@
+"""Invariants of the AISC 360-16 member strengths: capacities never grow with unbraced or
+effective length; LRFD and ASD strengths are related by φ·Ω (AISC 360-16 §B3: φ = 1.5/Ω
+nominally, here the declared pairs); the §H1.1 interaction equals 1.0 on its curve."""
+
+from __future__ import annotations
+
+import pytest
+from hypothesis import given, settings
+from hypothesis import strategies as st
+
+from calcpack.checks.aisc360.member import check_aisc_member
+from calcpack.checks.aisc360.member_data import FACTORS, MemberForces, SteelMember
+from calcpack.sections.aisc_database import aisc_shape
+from calcpack.units import Q_
+
+SHAPES = ["W8X31", "W10X49", "W14X132", "HSS6X6X1/4", "HSS4X4X1/4", "Pipe4STD", "C10X15.3"]
+lengths = st.floats(min_value=1.0, max_value=40.0)
+
+
+@settings(max_examples=25, deadline=None)
+@given(st.sampled_from(SHAPES), lengths, lengths)
+def test_compression_strength_never_grows_with_effective_length(name, a, b):
+    lo, hi = sorted((a, b))
+    caps = []
+    for L in (lo, hi):
+        m = SteelMember(aisc_shape(name), Fy=Q_(50, "ksi"), Lcx=Q_(L, "ft"), Lcy=Q_(L, "ft"))
+        caps.append(check_aisc_member(m, MemberForces(P=Q_(1, "kip")))["Compression"].capacity)
+    assert caps[1] <= caps[0] * (1 + 1e-12)
+
+
+@settings(max_examples=25, deadline=None)
+@given(st.sampled_from(["W8X31", "W18X50", "W6X15", "C10X15.3", "HSS8X4X1/4"]), lengths, lengths)
+def test_flexural_strength_never_grows_with_unbraced_length(name, a, b):
+    lo, hi = sorted((a, b))
+    caps = []
+    for L in (lo, hi):
+        m = SteelMember(aisc_shape(name), Fy=Q_(50, "ksi"), Lb=Q_(L, "ft"))
+        caps.append(check_aisc_member(m, MemberForces(Mx=Q_(1, "kip*ft")))["Flexure x"].capacity)
+    assert caps[1] <= caps[0] * (1 + 1e-12)
+
+
+@settings(max_examples=15, deadline=None)
+@given(st.sampled_from(SHAPES), lengths)
+def test_lrfd_and_asd_differ_by_phi_times_omega(name, L):
+    m = SteelMember(aisc_shape(name), Fy=Q_(50, "ksi"), Lcx=Q_(L, "ft"), Lcy=Q_(L, "ft"))
+    f = MemberForces(P=Q_(1, "kip"))
+    lrfd = check_aisc_member(m, f, method="LRFD")["Compression"].capacity
+    asd = check_aisc_member(m, f, method="ASD")["Compression"].capacity
+    k = FACTORS["compression"]
+    assert float((lrfd / asd).to("").magnitude) == pytest.approx(k.phi * k.omega)
+
+
+@settings(max_examples=20, deadline=None)
+@given(st.floats(min_value=0.01, max_value=0.99))
+def test_h1_interaction_is_one_on_its_curve(share):
+    m = SteelMember(aisc_shape("W10X49"), Fy=Q_(50, "ksi"), Lcx=Q_(12, "ft"), Lcy=Q_(12, "ft"))
+    probe = check_aisc_member(m, MemberForces(P=Q_(1, "kip"), Mx=Q_(1, "kip*ft")))
+    Pc, Mc = probe["Compression"].capacity, probe["Flexure x"].capacity
+    # a point on the curve: P/Pc = share; M/Mc from Eq. (H1-1a) or (H1-1b)
+    p = max(share, 1e-3)
+    mm = (1 - p) * 9 / 8 if p >= 0.2 else 1 - p / 2
+    mm = max(mm, 1e-3)
+    r = check_aisc_member(m, MemberForces(P=p * Pc, Mx=mm * Mc))
+    assert r["Axial and flexure"].utilisation == pytest.approx(1.0, rel=1e-9)

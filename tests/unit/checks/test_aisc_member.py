@@ -1,0 +1,84 @@
+"""check_aisc_member: refusals, bad input and the working (numbers are validated in
+tests/validation/test_aisc_design_examples_members.py)."""
+
+from __future__ import annotations
+
+import pytest
+
+from calcpack.checks.aisc360.member import check_aisc_member
+from calcpack.checks.aisc360.member_data import MemberForces, SteelMember
+from calcpack.errors import DimensionError, InputError, OutOfScopeError
+from calcpack.sections.aisc_database import aisc_shape
+from calcpack.units import Q_
+
+KSI = Q_(50, "ksi")
+
+
+def test_slender_compression_element_is_refused_naming_the_element():
+    m = SteelMember(aisc_shape("WT6X13"), Fy=KSI, Lcx=Q_(8, "ft"), Lcy=Q_(8, "ft"))
+    with pytest.raises(OutOfScopeError, match=r"stem d/t_w.*§E7"):
+        check_aisc_member(m, MemberForces(P=Q_(10, "kip")))
+
+
+def test_single_angle_with_axial_force_and_flexure_is_refused():
+    m = SteelMember(aisc_shape("L4X4X1/4"), Fy=Q_(36, "ksi"), Lcx=Q_(4, "ft"), Lcy=Q_(4, "ft"))
+    with pytest.raises(OutOfScopeError, match="§H2"):
+        check_aisc_member(m, MemberForces(P=Q_(1, "kip"), Mx=Q_(1, "kip*ft")))
+
+
+def test_unequal_angle_without_restraint_is_refused():
+    m = SteelMember(aisc_shape("L6X4X3/8"), Fy=Q_(36, "ksi"), Lb=Q_(6, "ft"))
+    with pytest.raises(OutOfScopeError, match="principal axes"):
+        check_aisc_member(m, MemberForces(Mx=Q_(1, "kip*ft")))
+
+
+def test_tee_flexure_is_refused():
+    m = SteelMember(aisc_shape("WT4X20"), Fy=KSI)
+    with pytest.raises(OutOfScopeError, match="§F9"):
+        check_aisc_member(m, MemberForces(Mx=Q_(1, "kip*ft")))
+
+
+def test_missing_effective_length_is_refused():
+    m = SteelMember(aisc_shape("W8X31"), Fy=KSI, Lcx=Q_(8, "ft"))
+    with pytest.raises(OutOfScopeError, match="Lcy"):
+        check_aisc_member(m, MemberForces(P=Q_(10, "kip")))
+
+
+def test_bad_inputs_name_the_input():
+    with pytest.raises(InputError) as e:
+        SteelMember(aisc_shape("W8X31"), Fy=Q_(80, "ksi"))
+    assert e.value.name == "Fy"
+    with pytest.raises(DimensionError) as e:
+        SteelMember(aisc_shape("W8X31"), Fy=Q_(50, "ft"))
+    assert e.value.name == "Fy"
+    with pytest.raises(InputError) as e:
+        SteelMember(aisc_shape("W8X31"), Fy=KSI, Cb=3.5)
+    assert e.value.name == "Cb"
+    with pytest.raises(DimensionError) as e:
+        MemberForces(Mx=Q_(3, "kip"))
+    assert e.value.name == "Mx"
+    with pytest.raises(InputError) as e:
+        check_aisc_member(SteelMember(aisc_shape("W8X31"), Fy=KSI), MemberForces(), method="LSD")
+    assert e.value.name == "method"
+    with pytest.raises(InputError) as e:
+        check_aisc_member(SteelMember(aisc_shape("W8X31"), Fy=KSI), MemberForces())
+    assert e.value.name == "forces"
+
+
+def test_tension_rupture_without_net_area_is_not_covered():
+    r = check_aisc_member(SteelMember(aisc_shape("W8X18"), Fy=KSI), MemberForces(P=Q_(-10, "kip")))
+    assert r["Tension rupture"].verdict == "NOT COVERED"
+    assert not r.passed
+
+
+def test_working_shows_the_clauses_and_the_combination():
+    m = SteelMember(
+        aisc_shape("HSS6X6X1/4"), Fy=KSI, Lcx=Q_(12, "ft"), Lcy=Q_(12, "ft"), Lb=Q_(12, "ft")
+    )
+    r = check_aisc_member(
+        m, MemberForces(P=Q_(60, "kip"), Mx=Q_(20, "kip*ft"), combination="1.2D+1.6L")
+    )
+    text = " ".join(str(getattr(s, "ref", "") or "") for s in r.working())
+    assert "Eq. (E3-2)" in text
+    assert "Eq. (H1-1a)" in text
+    assert r["Axial and flexure"].combination == "1.2D+1.6L"

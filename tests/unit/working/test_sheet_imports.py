@@ -1,0 +1,198 @@
+"""Values carried between sheets: export, import, the exports file and its errors."""
+
+from __future__ import annotations
+
+import json
+import warnings
+from pathlib import Path
+
+import pytest
+
+from calcpack import ureg
+from calcpack.errors import DimensionError, InputError
+from calcpack.working import Sheet
+from calcpack.working.links import (
+    EXPORTS_DIR_ENV,
+    SHEET_ENV,
+    exports_path,
+    read_exports,
+    resolve_sheet,
+)
+
+_NB = {
+    "cells": [{"cell_type": "code", "source": "x = 1", "metadata": {}, "outputs": []}],
+    "metadata": {},
+    "nbformat": 4,
+    "nbformat_minor": 5,
+}
+
+
+@pytest.fixture
+def project(tmp_path: Path, monkeypatch: pytest.MonkeyPatch) -> Path:
+    """A project of three sheets; the working folder is its sheets folder, as in a kernel."""
+    (tmp_path / "sheets").mkdir()
+    lines = []
+    for name in ("01_loads", "02_beam", "03_post"):
+        (tmp_path / "sheets" / f"{name}.ipynb").write_text(json.dumps(_NB))
+        lines.append(f'[[sheets]]\npath = "sheets/{name}.ipynb"\n')
+    (tmp_path / "sheets" / "02_beam.inputs.toml").write_text('L = "3 m"\n')
+    lines[1] += 'inputs = ["sheets/02_beam.inputs.toml"]\n'
+    (tmp_path / "calcpack.toml").write_text("\n".join(lines))
+    monkeypatch.chdir(tmp_path / "sheets")
+    monkeypatch.delenv("CALCPACK_BUILDING", raising=False)
+    monkeypatch.delenv(EXPORTS_DIR_ENV, raising=False)
+    monkeypatch.delenv("JPY_SESSION_NAME", raising=False)
+    return tmp_path
+
+
+def _loads_sheet(monkeypatch: pytest.MonkeyPatch, w_kN_per_m: float = 5.4) -> Sheet:
+    monkeypatch.setenv(SHEET_ENV, "sheets/01_loads.ipynb")
+    s = Sheet("Loads", auto_display=False)
+    g = s.given("g", 0.75 * ureg.kN / ureg.m**2, "floor dead load")
+    b = s.given("b_t", 1.8 * ureg.m, "tributary width")
+    w = s.derive("w", g * b + (w_kN_per_m - 1.35) * ureg.kN / ureg.m, "line load", unit="kN/m")
+    s.export(w)
+    monkeypatch.delenv(SHEET_ENV)
+    return s
+
+
+def test_import_reads_the_exported_value_at_full_precision(project, monkeypatch):
+    loads = _loads_sheet(monkeypatch, w_kN_per_m=5.4 + 1e-12)
+    s = Sheet("Beam", auto_display=False)
+    w = s.import_value("01_loads", "w", dimension="[force]/[length]")
+    exported = loads["w"].record().value
+    # full precision: the very float the exporting sheet recorded (not a rounded 5.40)
+    assert w.record().value == exported
+    assert w.source == "sheet 1, w"
+    assert w.link == "#sheet-1"
+    link = w.records()["imports"][0]
+    assert link == {
+        "from_sheet": "sheets/01_loads.ipynb",
+        "from_name": "w",
+        "case": None,
+        "to_name": "w",
+        "value": exported,
+        "unit": "kN/m",
+    }
+    assert '<a class="cp-link" href="#sheet-1">sheet 1, w</a>' in w.html()
+
+
+def test_imported_value_works_in_formulas_and_keeps_units(project, monkeypatch):
+    _loads_sheet(monkeypatch)
+    s = Sheet("Beam", auto_display=False)
+    w = s.import_value("sheets/01_loads.ipynb", "w", as_name="w_d", unit="N/m")
+    L = s.given("L", 3 * ureg.m)
+    M = s.derive("M", w * L**2 / 8, unit="kN*m")
+    # w L^2 / 8 with w = 5.4 kN/m, L = 3 m: 6.075 kN m (arithmetic)
+    assert M.quantity.to("kN*m").magnitude == pytest.approx(6.075, rel=1e-12)
+    assert w.name == "w_d"
+    assert w.display_unit == ureg.Unit("N/m")
+
+
+def test_imported_value_cannot_be_edited(project, monkeypatch):
+    _loads_sheet(monkeypatch)
+    s = Sheet("Beam", auto_display=False)
+    w = s.import_value("01_loads", "w")
+    with pytest.raises(InputError, match="w is imported from sheet 1, w") as info:
+        s.given("w", 6 * ureg.kN / ureg.m)
+    assert info.value.name == "w"
+    with pytest.raises(InputError, match="change it on that sheet"):
+        w.quantity = 6 * ureg.kN / ureg.m
+
+
+def test_unknown_sheet_names_the_sheet_and_lists_the_project(project, monkeypatch):
+    _loads_sheet(monkeypatch)
+    s = Sheet("Beam", auto_display=False)
+    with pytest.raises(InputError) as info:
+        s.import_value("01_load", "w")
+    message = str(info.value)
+    assert "'01_load' is not in the project" in message
+    assert "did you mean '01_loads'" in message
+    assert info.value.name == "sheet"
+
+
+def test_unknown_name_names_both_sheet_and_name(project, monkeypatch):
+    _loads_sheet(monkeypatch)
+    s = Sheet("Beam", auto_display=False)
+    with pytest.raises(InputError) as info:
+        s.import_value("01_loads", "W")
+    message = str(info.value)
+    assert "Sheet '01_loads' exports no value 'W'" in message
+    assert "did you mean 'w'" in message
+    assert info.value.name == "W"
+
+
+def test_wrong_dimension_at_import_is_refused(project, monkeypatch):
+    _loads_sheet(monkeypatch)
+    s = Sheet("Beam", auto_display=False)
+    with pytest.raises(DimensionError) as info:
+        s.import_value("01_loads", "w", dimension="[force]", as_name="R")
+    assert "Import of w from sheet '01_loads'" in str(info.value)
+    assert info.value.name == "R"
+
+
+def test_a_sheet_that_has_not_run_has_no_exports(project):
+    s = Sheet("Beam", auto_display=False)
+    with pytest.raises(InputError, match="Sheet '03_post' has no recorded exports yet"):
+        s.import_value("03_post", "P")
+
+
+def test_outside_a_project_import_is_refused(tmp_path, monkeypatch):
+    monkeypatch.chdir(tmp_path)
+    with pytest.raises(InputError, match=r"no calcpack\.toml"):
+        Sheet("x", auto_display=False).import_value("01_loads", "w")
+
+
+def test_stale_exports_are_flagged_when_the_notebook_changed(project, monkeypatch):
+    _loads_sheet(monkeypatch)
+    nb = dict(_NB, cells=[dict(_NB["cells"][0], source="x = 2")])
+    (project / "sheets" / "01_loads.ipynb").write_text(json.dumps(nb))
+    s = Sheet("Beam", auto_display=False)
+    with pytest.warns(UserWarning, match="may be out of date: the notebook sheets/01_loads"):
+        s.import_value("01_loads", "w")
+    assert "Run 01_loads first" in s.steps[0].text()
+
+
+def test_stale_exports_are_flagged_when_the_inputs_file_changed(project, monkeypatch):
+    monkeypatch.setenv(SHEET_ENV, "sheets/02_beam.ipynb")
+    s = Sheet("Beam", auto_display=False)
+    s.export(s.given("L", 3 * ureg.m))
+    monkeypatch.delenv(SHEET_ENV)
+    post = Sheet("Post", auto_display=False)
+    with warnings.catch_warnings():
+        warnings.simplefilter("error")
+        post.import_value("02_beam", "L")  # current: no warning
+    (project / "sheets" / "02_beam.inputs.toml").write_text('L = "3.5 m"\n')
+    with pytest.warns(UserWarning, match="inputs file sheets/02_beam.inputs.toml has changed"):
+        post.import_value("02_beam", "L", as_name="L_2")
+
+
+def test_in_a_build_imports_read_the_builds_folder_and_kernels_write_nothing(
+    project, monkeypatch, tmp_path_factory
+):
+    folder = tmp_path_factory.mktemp("build-exports")
+    monkeypatch.setenv(EXPORTS_DIR_ENV, str(folder))
+    monkeypatch.setenv("CALCPACK_BUILDING", "1")
+    monkeypatch.setenv(SHEET_ENV, "sheets/01_loads.ipynb")
+    s = Sheet("Loads", auto_display=False)
+    s.export(s.given("w", 5.4 * ureg.kN / ureg.m))
+    assert not list(folder.iterdir())  # the build writes exports from the records
+    ref = resolve_sheet("01_loads")
+    assert exports_path(ref).parent == folder
+
+
+def test_exports_records_and_check_export(project, monkeypatch):
+    monkeypatch.setenv(SHEET_ENV, "sheets/02_beam.ipynb")
+    s = Sheet("Beam", auto_display=False)
+    M = s.given("M", 4 * ureg.kN * ureg.m)
+    c = s.check("Bending", M, 5 * ureg.kN * ureg.m)
+    step = s.export(c, name="u_b")
+    (entry,) = step.records()["exports"]
+    # utilisation |demand| / capacity = 4 / 5 (arithmetic)
+    assert entry["value"] == pytest.approx(0.8)
+    assert entry["kind"] == "check"
+    assert read_exports(resolve_sheet("02_beam")).values["u_b"]["value"] == entry["value"]
+    with pytest.raises(InputError, match="needs a name"):
+        s.export(c)
+    with pytest.raises(InputError, match="a name only with one"):
+        s.export(M, M, name="x")
