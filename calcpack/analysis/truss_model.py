@@ -251,6 +251,14 @@ class Truss:
         """The same truss carrying ``loads`` instead of its own."""
         return Truss(self.nodes, self.members, self.supports, tuple(loads), self.name)
 
+    def figures(self, *, dimensions: bool = True) -> Any:
+        """Figures for a sheet (a :class:`calcpack.working.Block`): the geometry with joint and
+        member names (and dimensions unless ``dimensions=False``), then the loads of each load
+        case, one figure per case, unfactored."""
+        from calcpack.analysis.truss_figures import truss_figures
+
+        return truss_figures(self, dimensions=dimensions)
+
     def diagram(self, **options: Any) -> Any:
         """The truss drawn to scale with its supports and loads (a
         :class:`calcpack.plots.truss.TrussDiagram`, shown inline as SVG)."""

@@ -358,12 +358,13 @@ class TrussResult:
 
     # -- display and working (built lazily) -----------------------------------------------
 
-    def working(self) -> Any:
+    def working(self, *, figures: bool = True) -> Any:
         """Summary working (a :class:`calcpack.working.Block`): determinacy, reactions, the
-        member force table with T/C, zero-force members, the stiffness cross-check."""
+        member force table with T/C and (unless ``figures=False``) their diagram, zero-force
+        members, the stiffness cross-check."""
         from calcpack.analysis.truss_working import summary_working
 
-        return summary_working(self)
+        return summary_working(self, figures=figures)
 
     def joint_working(self, node: str) -> Any:
         """The method of joints at ``node`` (a Block): ΣFx = 0 and ΣFy = 0 with direction

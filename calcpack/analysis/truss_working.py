@@ -90,8 +90,9 @@ def _fmt(x: float) -> str:
 # -- summary -----------------------------------------------------------------------------
 
 
-def summary_working(result: TrussResult) -> Block:
-    """Determinacy, reactions, member forces with T/C, zero-force members."""
+def summary_working(result: TrussResult, *, figures: bool = True) -> Block:
+    """Determinacy, reactions, member forces with T/C (and their diagram unless
+    ``figures=False``), zero-force members."""
     from calcpack.analysis.truss_zero import zero_force_by_inspection
 
     truss = result.truss
@@ -132,6 +133,10 @@ def summary_working(result: TrussResult) -> Block:
             caption=f"Member forces, {result.label} (tension positive)",
         )
     )
+    if figures:
+        from calcpack.analysis.truss_figures import forces_figure
+
+        steps.append(forces_figure(result))
     zero = result.zero_force_members
     rules = zero_force_by_inspection(truss, result=result)
     if zero:

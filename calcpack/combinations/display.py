@@ -23,14 +23,21 @@ def _disp(q: Any, settings: Any) -> Any:
 
 
 def envelope_table(
-    envelope: Envelope, caption: str = "Envelope over all combinations", settings: Any = None
+    envelope: Envelope,
+    caption: str = "Envelope over all combinations",
+    settings: Any = None,
+    *,
+    deflections: bool = True,
 ) -> Any:
-    """A table of the envelope: quantity, extreme value, where, governing combination."""
+    """A table of the envelope: quantity, extreme value, where, governing combination
+    (``deflections=False`` leaves out the deflection rows, e.g. under factored loads)."""
     from calcpack.units import get_display
     from calcpack.working import Table, format_quantity_text
 
     rows = []
     for e in envelope.entries:
+        if not deflections and e.quantity.startswith("δ"):
+            continue
         x = "" if e.x is None else f"x = {format_quantity_text(_disp(e.x, settings), 3)}"
         value = _disp(e.value, settings)
         if e.quantity.startswith("δ"):  # deflections in in or mm, not in the length unit
@@ -82,9 +89,58 @@ def _factored_uniform_loads(cr: CombinedResults, settings: Any) -> list[list[Any
     return rows
 
 
+# What the results of a set are called in table titles: only strength sets are "factored".
+_LEVEL = {
+    "strength": ("Factored", "factored"),
+    "allowable stress": ("Allowable-stress", "allowable-stress level (ASD)"),
+    "serviceability": ("Service", "service level"),
+    "stability": ("Stability", "stability"),
+    "user": ("Combined", "combined"),
+}
+
+
+def _figure(cr: CombinedResults, settings: Any) -> Any:
+    """The beam diagrams of the combinations, as a figure step (drawn only when shown)."""
+    from calcpack.working.figure import Figure
+
+    first = next(iter(cr.results.values()))
+    beam = first.beam
+    kind = cr.combination_set.kind
+    service = kind != "strength" and first.has_deflection
+    panels = "shear, bending moment and displacement" if service else "shear and bending moment"
+    over = (
+        f"the {kind} combination {next(iter(cr.results))}"
+        if len(cr.results) == 1
+        else f"envelopes over the {len(cr.results)} {kind} combinations"
+    )
+    env = cr.envelope()
+    parts = []
+    for q in ("V_max", "V_min", "M_max", "M_min", "δ_down"):
+        if q in env.quantities and (service or not q.startswith("δ")):
+            g = env[q]
+            parts.append(f"{q} = {_text(_disp(g.value, settings), settings)} ({g.combination})")
+    supports = ", ".join(s.label for s in beam.supports)
+    alt = (
+        f"Diagrams of beam {beam.name}, {_text(_disp(beam.length, settings), settings)} long on "
+        f"supports {supports}: loads of each case, then {panels} ({over}). "
+        + "; ".join(parts)
+        + "."
+    )
+    caption = f"{beam.name}: loads of each case (unfactored) and {panels}, {over}"
+    return Figure("beam-combinations", cr, caption=caption, alt=alt, settings=settings)
+
+
+def _text(q: Any, settings: Any) -> str:
+    from calcpack.units import get_display
+    from calcpack.working import format_quantity_text
+
+    return format_quantity_text(q, (settings or get_display()).sig_figs)
+
+
 def combinations_working(
-    cr: CombinedResults, *, values: bool = True, settings: Any = None
+    cr: CombinedResults, *, values: bool = True, figures: bool = True, settings: Any = None
 ) -> list[Any]:
+    """The working steps of ``cr`` (see :meth:`CombinedResults.working`)."""
     from calcpack.working import Caution, Heading, Table, Text
 
     cs = cr.combination_set
@@ -104,13 +160,14 @@ def combinations_working(
     )
     if values and cr.results:
         first = next(iter(cr.results.values()))
+        title, level = _LEVEL.get(cs.kind, ("Combined", "combined"))
         loads_row = _factored_uniform_loads(cr, settings)
         if loads_row:
             steps.append(
                 Table(
-                    ["Combination", "Factored line load"],
+                    ["Combination", f"{title} line load"],
                     loads_row,
-                    caption="Factored uniform line loads (each case's full-length uniform loads)",
+                    caption=f"{title} uniform line loads (each case's full-length uniform loads)",
                     settings=settings,
                 )
             )
@@ -127,13 +184,24 @@ def combinations_working(
                 ]
                 row += [_disp(rea.Fy, settings) for rea in r.reactions]
                 vrows.append(row)
-            steps.append(Table(cols, vrows, caption="Factored results of each combination"))
-        steps.append(envelope_table(cr.envelope(), settings=settings))
+            steps.append(Table(cols, vrows, caption=f"Results of each combination, {level}"))
+            if figures:
+                steps.append(_figure(cr, settings))
+        strength = cs.kind == "strength"
+        steps.append(
+            envelope_table(
+                cr.envelope(),
+                caption=f"Envelope over all combinations, {level}",
+                settings=settings,
+                deflections=not strength,
+            )
+        )
     if cs.standard:
+        annex = "national annex or " if cs.standard.startswith("EN") else ""
         steps.append(
             Caution(
                 f"Load combinations follow {cs.standard}; confirm them against the edition "
-                "(and national annex or amendments) adopted locally."
+                f"(and {annex}amendments) adopted locally."
             )
         )
     return steps

@@ -288,17 +288,23 @@ class CombinedResults:
         """Extremes over all combinations with the governing combination of each."""
         return _envelope(self.results)
 
-    def working(self, *, values: bool = True, settings: Any = None) -> list[Any]:
-        """The combinations used (clause, factors) and, if ``values``, the factored extremes of
-        each combination, as working steps for a sheet (``settings``: the sheet's display
-        settings, for the units shown)."""
+    def working(
+        self, *, values: bool = True, figures: bool = True, settings: Any = None
+    ) -> list[Any]:
+        """The combinations used (clause, factors) and, if ``values``, the extremes of each
+        combination and their envelope, as working steps for a sheet (``settings``: the
+        sheet's display settings, for the units shown). A beam's loads, shear, moment and
+        (for service and allowable-stress sets) displacement diagrams come with the values
+        unless ``figures=False``."""
         from calcpack.combinations.display import combinations_working
 
-        return combinations_working(self, values=values, settings=settings)
+        return combinations_working(self, values=values, figures=figures, settings=settings)
 
-    def add_to(self, sheet: Any, *, values: bool = True) -> CombinedResults:
-        """Add the combinations working to ``sheet`` step by step."""
-        _add_steps(self.working(values=values, settings=getattr(sheet, "settings", None)), sheet)
+    def add_to(self, sheet: Any, *, values: bool = True, figures: bool = True) -> CombinedResults:
+        """Add the combinations working (and a beam's diagrams, unless ``figures=False``) to
+        ``sheet`` step by step."""
+        settings = getattr(sheet, "settings", None)
+        _add_steps(self.working(values=values, figures=figures, settings=settings), sheet)
         return self
 
 

@@ -26,7 +26,7 @@ from calcpack.units import get_display, ureg
 if TYPE_CHECKING:
     from calcpack.analysis.beam.result import BeamResult
 
-__all__ = ["BeamFigure", "beam_figure"]
+__all__ = ["BeamFigure", "beam_figure", "beam_svg"]
 
 _BLUE = "#1f4e79"
 _RED = "#a32020"
@@ -77,13 +77,10 @@ _SYSTEM_UNITS = {
 
 
 def _fmt(value: float, sig: int) -> str:
-    if value == 0 or not np.isfinite(value):
-        return "0"
-    text = f"{value:.{sig}g}"
-    if "e" in text:
-        mant, exp = text.split("e")
-        return f"{mant}×10^{int(exp)}"
-    return text
+    """A value on a figure, by the one number formatter of the working."""
+    from calcpack.working.format import format_number
+
+    return format_number(float(value), sig)
 
 
 def _sample(X: np.ndarray, g: np.ndarray, per_segment: int = 40) -> tuple[np.ndarray, np.ndarray]:
@@ -131,7 +128,11 @@ def _support(ax: Any, kind: str, x: float, size: float, at_left: bool, at_right:
         ax.plot([k, k + 0.25 * s], [base, base - 0.35 * s], color="black", lw=0.7)
 
 
-def _loading(ax: Any, result: BeamResult, sig: int, aspect: float, u: _Units) -> None:
+def _loading(
+    ax: Any, result: BeamResult, sig: int, aspect: float, u: _Units, *, by_case: bool = False
+) -> None:
+    """Draw the beam, its supports and its loads (factored by ``result.cases``); with
+    ``by_case`` each load's label starts with its load case."""
     beam = result.beam
     L = beam.L_m
     factors = dict(result.cases)
@@ -179,7 +180,7 @@ def _loading(ax: Any, result: BeamResult, sig: int, aspect: float, u: _Units) ->
                 )
         w1, w2 = ws[0] / u.si(u.line), ws[-1] / u.si(u.line)
         wl = u.label(u.line)
-        label = (
+        label = ((f"{_ld.case}: ") if by_case else "") + (
             f"{_fmt(w1, sig)} {wl}"
             if abs(w1 - w2) <= 1e-9 * max(abs(w1), abs(w2), 1)
             else f"{_fmt(w1, sig)} → {_fmt(w2, sig)} {wl}"
@@ -196,6 +197,7 @@ def _loading(ax: Any, result: BeamResult, sig: int, aspect: float, u: _Units) ->
         level = float(max(np.max(top), level)) + 1.6 * size
     # point loads and couples
     ptop = level + 1.5 * size
+    point_labels: dict[tuple[float, bool], Any] = {}
     for pl in beam.loads:
         if pl.case not in factors:
             continue
@@ -220,8 +222,14 @@ def _loading(ax: Any, result: BeamResult, sig: int, aspect: float, u: _Units) ->
                     zorder=6,
                 )
             )
-            text = f"{_fmt(np.hypot(P, H), sig)} {u.label(u.force)}"
-            ax.text(
+            text = (f"{pl.case}: " if by_case else "") + (
+                f"{_fmt(np.hypot(P, H), sig)} {u.label(u.force)}"
+            )
+            key = (round(x / L, 6), P >= 0)
+            if key in point_labels:  # loads at one point share one label, a line each
+                point_labels[key].set_text(point_labels[key].get_text() + "\n" + text)
+                continue
+            point_labels[key] = ax.text(
                 tail[0],
                 tail[1] + (0.3 * size if P >= 0 else -0.3 * size),
                 text,
@@ -312,7 +320,9 @@ def beam_figure(
             (default: the global display setting, 3). system: ``"SI"`` (kN, kN·m, m, mm) or
             ``"US"`` (kip, kip·ft, ft, in); default: the global display setting.
     """
-    from matplotlib.ticker import FuncFormatter
+    from matplotlib.ticker import FixedLocator, FuncFormatter
+
+    from calcpack.plots.labels import round_ticks, tick_text
 
     display = get_display()
     sig = sig_figs or display.sig_figs
@@ -377,7 +387,8 @@ def beam_figure(
             )
         _diagram(axes[3], X, core.v, 1 / f_defl, _GREEN, f"displacement ({du})\nup +", notes_d)
     axes[-1].set_xlabel(f"x from left end ({lu})", fontsize=8)
-    axes[-1].xaxis.set_major_formatter(FuncFormatter(lambda v, _pos: f"{v / f_len:.3g}"))
+    axes[-1].xaxis.set_major_locator(FixedLocator(list(round_ticks(0.0, L / f_len, n=10) * f_len)))
+    axes[-1].xaxis.set_major_formatter(FuncFormatter(lambda v, _pos: tick_text(v / f_len)))
     for ax in axes[1:]:
         for s in result.beam.supports:
             ax.axvline(s.x_m, color=_GREY, lw=0.5, ls="--")
@@ -385,3 +396,10 @@ def beam_figure(
     buf = io.StringIO()
     fig.savefig(buf, format="svg")
     return BeamFigure(svg=buf.getvalue(), figure=fig)
+
+
+def beam_svg(result: BeamResult, settings: Any = None) -> str:
+    """The stacked figure of ``result`` as SVG, in the units and figures of ``settings``."""
+    if settings is None:
+        return beam_figure(result).svg
+    return beam_figure(result, sig_figs=settings.sig_figs, system=settings.system).svg

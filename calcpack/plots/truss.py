@@ -14,6 +14,7 @@ values); the geometry is to scale.
 from __future__ import annotations
 
 import io
+import itertools
 import math
 from pathlib import Path
 from typing import TYPE_CHECKING, Any
@@ -23,7 +24,7 @@ if TYPE_CHECKING:
     from calcpack.analysis.truss_model import Truss
     from calcpack.analysis.truss_solve import TrussResult
 
-__all__ = ["FreeBodySketch", "TrussDiagram"]
+__all__ = ["FreeBodySketch", "TrussDiagram", "truss_svg"]
 
 _TENSION = "#1f5fa8"
 _COMPRESSION = "#c0392b"
@@ -32,11 +33,18 @@ _LOAD = "#222222"
 _REACTION = "#1e8449"
 
 
-def _fmt_force(value_kN: float, unit: str, sig: int) -> str:
-    if value_kN == 0:
-        return f"0 {unit}"
-    digits = max(sig - 1 - math.floor(math.log10(abs(value_kN))), 0)
-    return f"{abs(value_kN):.{digits}f} {unit}"
+def _ureg() -> Any:
+    from calcpack.units import ureg
+
+    return ureg
+
+
+def _fmt_force(value: float, unit: str, sig: int) -> str:
+    """A force's size by the one number formatter of the working (the sign is shown as T/C or
+    by the arrow)."""
+    from calcpack.working.format import format_number
+
+    return f"{format_number(abs(value), sig)} {unit}"
 
 
 def _draw_support(ax: Any, kind: str, theta: float, at: tuple[float, float], size: float) -> None:
@@ -88,6 +96,10 @@ class TrussDiagram:
         show_names: label joints and members by name.
         force_unit: the unit member forces and loads are labelled in (default kN, or kip when
             the display system is US).
+        case: draw only the loads of this load case (a truss; default every load as given).
+        loads: draw the loads (False for the bare geometry).
+        dimensions: draw dimension chains of the joints' positions (in the display length
+            unit) below and beside the truss.
     """
 
     def __init__(
@@ -99,6 +111,9 @@ class TrussDiagram:
         show_forces: bool = True,
         show_names: bool = True,
         force_unit: str | None = None,
+        case: str | None = None,
+        loads: bool = True,
+        dimensions: bool = False,
     ) -> None:
         from calcpack.analysis.truss_model import Truss
         from calcpack.units import get_display
@@ -114,7 +129,21 @@ class TrussDiagram:
         self.show_forces = show_forces
         self.show_names = show_names
         self.force_unit = force_unit or ("kip" if get_display().system == "US" else "kN")
+        self.length_unit = "ft" if get_display().system == "US" else "m"
         self.sig = get_display().sig_figs
+        if case is not None and case not in self.truss.load_cases:
+            from calcpack.errors import InputError
+
+            raise InputError(
+                f"Load case {case!r} is not a case of truss {self.truss.name} (got case = "
+                f"{case!r}; cases: {', '.join(self.truss.load_cases)})",
+                name="case",
+                value=case,
+                expected=", ".join(self.truss.load_cases),
+            )
+        self.case = case
+        self.loads = loads
+        self.dimensions = dimensions
 
     # -- output ---------------------------------------------------------------------------
 
@@ -140,14 +169,27 @@ class TrussDiagram:
         label = self.title
         if label is None:
             label = self.truss.name + (f" — {self.result.label}" if self.result else "")
+            if self.result is None and self.case is not None:
+                label += f" — loads of case {self.case}, unfactored"
         ax.set_title(label, fontsize=11)
         fig.tight_layout()
+        if self.show_names:
+            from calcpack.plots.labels import Label, place_labels
+
+            names = [
+                Label(ax, float(xy[i, 0]), float(xy[i, 1]), n.name, "#333333", 8.0, gap)
+                for i, (n, gap) in enumerate(zip(self.truss.nodes, self._gaps(), strict=True))
+            ]
+            place_labels(fig, names, gid="cp-joint")
         return fig
 
     def svg(self) -> str:
-        """The diagram as an SVG document."""
+        """The diagram as an SVG document (its text kept as text, so it can be searched)."""
+        import matplotlib
+
         buf = io.StringIO()
-        self.figure().savefig(buf, format="svg", bbox_inches="tight")
+        with matplotlib.rc_context({"svg.fonttype": "none"}):
+            self.figure().savefig(buf, format="svg", bbox_inches="tight")
         return buf.getvalue()
 
     def save(self, path: str | Path) -> Path:
@@ -217,23 +259,99 @@ class TrussDiagram:
                     bbox={"boxstyle": "round,pad=0.15", "fc": "white", "ec": "none", "alpha": 0.85},
                 )
         ax.plot(xy[:, 0], xy[:, 1], "o", color="#333333", ms=4, zorder=3)
-        if self.show_names:
-            for i, n in enumerate(truss.nodes):
-                ax.annotate(
-                    n.name,
-                    (xy[i, 0], xy[i, 1]),
-                    textcoords="offset points",
-                    xytext=(5, 5),
-                    fontsize=8,
-                    color="#333333",
-                    zorder=6,
-                )
         for sup in truss.supports:
             self._support(ax, sup, xy[truss.node_index[sup.node]], size)
-        self._loads(ax, arrow)
+        if self.loads:
+            self._loads(ax, arrow)
         self._reactions(ax, arrow)
+        if self.dimensions:
+            self._dimensions(ax, size)
         if seen:
             ax.legend(loc="upper right", fontsize=7, frameon=False)
+
+    def _gaps(self) -> list[tuple[float, float]]:
+        """For each joint, the unit direction halfway across the widest free angle between its
+        members, loads and support (where its name is written)."""
+        truss = self.truss
+        xy = truss.xy_m
+        p = self.result.loads_N() if self.result is not None else truss.load_vector(case=self.case)
+        angles: list[list[float]] = [[] for _ in truss.nodes]
+        for k in range(len(truss.members)):
+            a, b = truss.member_ends[k]
+            dx, dy = xy[b] - xy[a]
+            angles[a].append(math.atan2(dy, dx))
+            angles[b].append(math.atan2(-dy, -dx))
+        for i in range(len(truss.nodes)):
+            fx, fy = float(p[2 * i]), float(p[2 * i + 1])
+            if self.loads and math.hypot(fx, fy) > 0:
+                angles[i] += [math.atan2(fy, fx), math.atan2(-fy, -fx)]
+        for sup in truss.supports:
+            angles[truss.node_index[sup.node]].append(-math.pi / 2)
+        out = []
+        for angs in angles:
+            if not angs:
+                out.append((0.7, 0.7))
+                continue
+            angs = sorted(a % (2 * math.pi) for a in angs)
+            if len(angs) == 1:
+                gaps = [(2 * math.pi, angs[0])]
+            else:
+                gaps = [
+                    ((angs[(j + 1) % len(angs)] - a) % (2 * math.pi), a) for j, a in enumerate(angs)
+                ]
+            width, start = max(gaps)
+            mid = start + width / 2
+            out.append((math.cos(mid), math.sin(mid)))
+        return out
+
+    def _dimensions(self, ax: Any, size: float) -> None:
+        """Chains of dimensions between the joints' distinct x (below) and y (right side), and
+        the overall span, each labelled in the display length unit."""
+        from calcpack.working.format import format_number
+
+        xy = self.truss.xy_m
+        per_m = float((1.0 * _ureg().m).to(self.length_unit).magnitude)
+
+        def text(d_m: float) -> str:
+            return f"{format_number(d_m * per_m, self.sig)} {self.length_unit}"
+
+        def distinct(values: Any) -> list[float]:
+            out: list[float] = []
+            for v in sorted(float(v) for v in values):
+                if not out or v - out[-1] > 1e-6 * size:
+                    out.append(v)
+            return out
+
+        xs, ys = distinct(xy[:, 0]), distinct(xy[:, 1])
+        tick = 0.012 * size
+        below = ys[0] - 0.16 * size
+        right = xs[-1] + 0.14 * size
+        style = {"color": "#444444", "lw": 0.7, "zorder": 1}
+
+        def horizontal(a: float, b: float, y: float) -> None:
+            ax.plot([a, b], [y, y], **style)
+            for x in (a, b):
+                ax.plot([x - tick, x + tick], [y - tick, y + tick], **style)
+            ax.text((a + b) / 2, y + tick, text(b - a), ha="center", va="bottom", fontsize=6.5)
+
+        if len(xs) > 1:
+            for x in xs:
+                ax.plot([x, x], [ys[0] - 0.05 * size, below - 0.09 * size], lw=0.4, color="#999")
+            for a, b in itertools.pairwise(xs):
+                horizontal(a, b, below)
+            if len(xs) > 2:
+                horizontal(xs[0], xs[-1], below - 0.08 * size)
+        if len(ys) > 1:
+            for y in ys:
+                ax.plot([xs[-1] + 0.03 * size, right + 0.02 * size], [y, y], lw=0.4, color="#999")
+            for a, b in itertools.pairwise(ys):
+                ax.plot([right, right], [a, b], **style)
+                for y in (a, b):
+                    ax.plot([right - tick, right + tick], [y - tick, y + tick], **style)
+                ax.text(
+                    right + tick, (a + b) / 2, text(b - a), ha="left", va="center", fontsize=6.5
+                )
+        ax.update_datalim([(xs[0], below - 0.12 * size), (right + 0.1 * size, ys[-1])])
 
     def _support(self, ax: Any, sup: Any, at: Any, size: float) -> None:
         theta = float(sup.surface.to("radian").magnitude) if sup.kind == "roller" else 0.0
@@ -273,7 +391,7 @@ class TrussDiagram:
     def _loads(self, ax: Any, arrow: float) -> None:
         truss = self.truss
         xy = truss.xy_m
-        p = self.result.loads_N() if self.result is not None else truss.load_vector()
+        p = self.result.loads_N() if self.result is not None else truss.load_vector(case=self.case)
         for i in range(len(truss.nodes)):
             fx, fy = float(p[2 * i]), float(p[2 * i + 1])
             mag = math.hypot(fx, fy)
@@ -316,7 +434,8 @@ class TrussDiagram:
                 float(xy[i, 1]) - d[1] * 0.06 * arrow * 8,
             )
             label = (
-                f"{rec.name} = {_fmt_force(self._kN_to_unit(abs(v)), self.force_unit, self.sig)}"
+                f"reaction at {rec.node}: "
+                f"{_fmt_force(self._kN_to_unit(abs(v)), self.force_unit, self.sig)}"
             )
             self._arrow(ax, tip, d, arrow, _REACTION, label)
 
@@ -498,3 +617,18 @@ class FreeBodySketch:
 
     def _repr_svg_(self) -> str:
         return self.svg()
+
+
+def truss_svg(subject: TrussResult | Truss, settings: Any = None, **options: Any) -> str:
+    """A :class:`TrussDiagram` of ``subject`` as SVG, forces in the unit of ``settings``'s
+    system (kip for US, kN for SI); ``options`` as :class:`TrussDiagram`."""
+    from calcpack.units import get_display
+
+    system = (settings or get_display()).system
+    options.setdefault("force_unit", "kip" if system == "US" else "kN")
+    options.setdefault("width_in", 7.0)
+    diagram = TrussDiagram(subject, **options)
+    if settings is not None:
+        diagram.sig = settings.sig_figs
+        diagram.length_unit = "ft" if system == "US" else "m"
+    return diagram.svg()

@@ -26,6 +26,7 @@ from calcpack.working.expr import (
     to_latex,
     to_text,
 )
+from calcpack.working.figure import Figure, register_drawing
 from calcpack.working.format import (
     format_number,
     format_quantity_latex,
@@ -67,6 +68,7 @@ __all__ = [
     "Derived",
     "Equation",
     "Exports",
+    "Figure",
     "Given",
     "Heading",
     "Imported",
@@ -90,6 +92,7 @@ __all__ = [
     "format_quantity_text",
     "format_unit_latex",
     "format_unit_text",
+    "register_drawing",
     "sin",
     "sqrt",
     "symbol_latex",

@@ -10,11 +10,13 @@ drops it and uses its own stylesheet.
 
 from __future__ import annotations
 
+import base64
 import html
 import re
 from typing import Any
 
 from calcpack.working.expr import Term, to_latex, to_text
+from calcpack.working.figure import Figure
 from calcpack.working.format import format_number, format_quantity_latex, format_quantity_text
 from calcpack.working.steps import (
     RECORDS_MIMETYPE,
@@ -44,7 +46,9 @@ align-items:baseline;padding:.15em 0;border-bottom:1px dotted #c8ccd2;font-size:
 .cp-ok{color:#1d5e2a}.cp-notok{color:#a01010}.cp-nc{color:#7a5a00}
 .cp-heading{display:block;border-bottom:1.5px solid #333;margin-top:.6em}
 .cp-heading h2,.cp-heading h3,.cp-heading h4{margin:.2em 0}
-.cp-text,.cp-assume,.cp-caution,.cp-table,.cp-block{display:block}
+.cp-text,.cp-assume,.cp-caution,.cp-table,.cp-block,.cp-figure{display:block}
+.cp-figure img{max-width:100%;height:auto}.cp-figure figure{margin:.4em 0}
+.cp-figure figcaption{font-size:.85em;color:#333}
 .cp-caution{border-left:4px solid #a06000;padding-left:.6em}
 .cp-assume{border-left:4px solid #4a6a8a;padding-left:.6em}
 .cp-table table{border-collapse:collapse;margin:.3em 0}
@@ -240,11 +244,24 @@ def _step_html_body(step: Step) -> str:
             f'<div class="cp-step cp-table"><table>{cap}<thead><tr>{head}</tr></thead>'
             f"<tbody>{body}</tbody></table></div>"
         )
+    if isinstance(step, Figure):
+        return _figure_html(step)
     if isinstance(step, Block):
         title = f'<div class="cp-step cp-heading"><h4>{_esc(step.title or "")}</h4></div>'
         inner = "".join(_step_html_body(s) for s in step.steps)
         return f'<div class="cp-step cp-block">{title if step.title else ""}{inner}</div>'
     raise TypeError(f"no HTML renderer for {type(step).__name__}")
+
+
+def _figure_html(step: Figure) -> str:
+    """The figure as an SVG image (a ``data:`` URI) with its alternative text and caption."""
+    data = base64.b64encode(step.svg().encode("utf-8")).decode("ascii")
+    alt = html.escape(step.alt, quote=True)
+    return (
+        f'<div class="cp-step cp-figure"><figure><img class="cp-figure-img" alt="{alt}" '
+        f'src="data:image/svg+xml;base64,{data}"/>'
+        f"<figcaption>{_prose_html(step.caption)}</figcaption></figure></div>"
+    )
 
 
 def _cell_html(cell: Any, sig: int) -> str:
@@ -311,6 +328,8 @@ def _latex_body(step: Step) -> str:
         )
     if isinstance(step, Table):
         return f"\\text{{[table: {len(step.rows)} rows]}}"
+    if isinstance(step, Figure):
+        return f"\\text{{[figure: {_prose_latex(step.caption)}]}}"
     if isinstance(step, Block):
         return " \\\\ ".join(_latex_body(s) for s in step.steps)
     raise TypeError(f"no LaTeX renderer for {type(step).__name__}")
@@ -362,6 +381,8 @@ def step_text(step: Step) -> str:
         return f"{who}{step.name}: {d} {rel} {c}, utilisation {util}  {step.verdict}{ref}"
     if isinstance(step, NotCovered):
         return f"{step.name}: {step.verdict} — {step.reason}"
+    if isinstance(step, Figure):
+        return f"[Figure: {step.caption}] {step.alt}"
     if isinstance(step, Heading):
         return step.title.upper() if step.level <= 2 else step.title
     if isinstance(step, Text):

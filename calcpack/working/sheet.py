@@ -89,14 +89,20 @@ class Sheet:
                 value=step,
                 expected="a calcpack.working Step",
             )
-        if getattr(step, "settings", None) is None and hasattr(step, "settings"):
-            step.settings = self.settings
+        self._adopt(step)
         self.steps.append(step)
         if isinstance(step, Value):
             self._names[step.name] = step
         if self.auto_display and _in_kernel():
             step._ipython_display_()
         return step
+
+    def _adopt(self, step: Step) -> None:
+        """Give ``step`` (and the steps of a block) the sheet's settings where it has none."""
+        if getattr(step, "settings", None) is None and hasattr(step, "settings"):
+            step.settings = self.settings
+        for inner in getattr(step, "steps", ()):
+            self._adopt(inner)
 
     def given(
         self,

@@ -42,7 +42,7 @@ def test_figure_is_svg_with_four_panels_and_units():
     assert labels[2].startswith("displacement (mm)")
     assert fig.figure.axes[-1].get_xlabel() == "x from left end (m)"
     texts = [t.get_text() for ax in fig.figure.axes for t in ax.texts]
-    assert "12 kN" in texts  # the point load's value on the loading diagram
+    assert "12.0 kN" in texts  # the point load's value, three significant figures
     assert any("mm down" in t for t in texts)  # the maximum deflection is annotated
     assert fig._repr_mimebundle_()["image/svg+xml"] == svg
 
@@ -60,7 +60,7 @@ def test_figure_for_fixed_support_and_hinge():
         EI=Q_(25e3, "kN*m**2"),
     )
     texts = [t.get_text() for ax in solve_beam(beam).figure().figure.axes for t in ax.texts]
-    assert any(t.startswith("M = 0 at 4 m") for t in texts)  # the hinge, a contraflexure point
+    assert any(t.startswith("M = 0 at 4.00 m") for t in texts)  # the hinge, a contraflexure point
 
 
 def test_beam_and_loads_import_without_plotting():
