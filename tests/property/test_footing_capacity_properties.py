@@ -66,7 +66,8 @@ def test_reinforced_demand_steel_and_resistances_with_depth(B, h, dh, P, size_ef
     assert abs((Mb - Ma).to("kip*ft").magnitude) <= REL * Ma.to("kip*ft").magnitude
     req_a, req_b = _flexure_steel_required(a), _flexure_steel_required(b)
     if req_a is not None:
-        assert req_b is not None and req_b < req_a
+        assert req_b is not None
+        assert req_b < req_a
     assert b["Bearing"].capacity >= a["Bearing"].capacity
     # two-way shear exists while the perimeter at d/2 lies inside the footing
     if "phi_v_c" in b.values:
@@ -86,7 +87,8 @@ def test_reinforced_steel_and_resistances_with_strength(B, h, fc, dfc, P):
     b = _run(B, h, min(fc + dfc, 10000), True, P)
     req_a, req_b = _flexure_steel_required(a), _flexure_steel_required(b)
     if req_a is not None:
-        assert req_b is not None and req_b < req_a
+        assert req_b is not None
+        assert req_b < req_a
     assert b["Bearing"].capacity > a["Bearing"].capacity
     if "phi_v_c" in a.values:
         assert _punching_force(b) >= _punching_force(a) * (1 - REL)
