@@ -33,6 +33,8 @@ class SheetRecords:
     """Values the sheet exports to others (see :mod:`calcpack.working.links`)."""
     imports: tuple[dict[str, Any], ...] = ()
     """Values it imports: from sheet and name, case, to name, value and unit."""
+    checklists: tuple[dict[str, Any], ...] = ()
+    """Members' checklists it declares (see :mod:`calcpack.checks.checklists`)."""
 
 
 def _float(value: Any) -> float | None:
@@ -108,9 +110,11 @@ def collect_records(nb: Any) -> SheetRecords:
     standards: list[str] = []
     exports: list[dict[str, Any]] = []
     imports: list[dict[str, Any]] = []
+    checklists: list[dict[str, Any]] = []
     for payload in _payloads(nb):
         exports += [dict(e) for e in payload.get("exports", []) if isinstance(e, dict)]
         imports += [dict(i) for i in payload.get("imports", []) if isinstance(i, dict)]
+        checklists += [dict(c) for c in payload.get("checklists", []) if isinstance(c, dict)]
         values += [_clean_value(v) for v in payload.get("values", []) if isinstance(v, dict)]
         checks += [_clean_check(c) for c in payload.get("checks", []) if isinstance(c, dict)]
         for key, target in (
@@ -129,6 +133,7 @@ def collect_records(nb: Any) -> SheetRecords:
         tuple(standards),
         tuple(exports),
         tuple(imports),
+        tuple(checklists),
     )
 
 
