@@ -190,6 +190,13 @@ _LAZY: dict[str, str] = {
     "TimberValues": "calcpack.checks.nds.values",
     "nds_sawn_values": "calcpack.checks.nds.values",
     "nds_glulam_values": "calcpack.checks.nds.values",
+    # sizing by search: the lightest section that passes
+    "lightest_sections": "calcpack.sizing",
+    "lightest_aisc_beam": "calcpack.sizing",
+    "aisc_candidates": "calcpack.sizing",
+    "Candidate": "calcpack.sizing",
+    "DeflectionLimit": "calcpack.sizing",
+    "SizingResult": "calcpack.sizing",
 }
 
 
@@ -338,6 +345,14 @@ if TYPE_CHECKING:
         sign_package,
         verify_package,
     )
+    from calcpack.sizing import (
+        Candidate,
+        DeflectionLimit,
+        SizingResult,
+        aisc_candidates,
+        lightest_aisc_beam,
+        lightest_sections,
+    )
     from calcpack.units import (
         Q_,
         get_display,
@@ -387,6 +402,7 @@ __all__ = [
     "BraceCase",
     "BuildError",
     "CalcpackError",
+    "Candidate",
     "Channel",
     "Check",
     "Circle",
@@ -394,6 +410,7 @@ __all__ = [
     "CombinationSet",
     "ConcentratedForce",
     "Couple",
+    "DeflectionLimit",
     "Derived",
     "DimensionError",
     "DistributedLoad",
@@ -445,6 +462,7 @@ __all__ = [
     "Sheet",
     "SigningError",
     "SiteConditions",
+    "SizingResult",
     "SlidingSnowASCE7",
     "SnowDriftASCE7",
     "SnowRoofASCE7",
@@ -476,6 +494,7 @@ __all__ = [
     "WallPointLoad",
     "WindSiteASCE7",
     "__version__",
+    "aisc_candidates",
     "aisc_shape",
     "aisc_shape_names",
     "analyse_combinations",
@@ -506,6 +525,8 @@ __all__ = [
     "effective_wind_area",
     "envelope_wind_asce7",
     "get_display",
+    "lightest_aisc_beam",
+    "lightest_sections",
     "lintel_masonry_loads",
     "load_inputs",
     "load_project",
