@@ -22,6 +22,7 @@ from calcpack.errors import (
     UndefinedSymbolError,
     UnstableStructureError,
     VerificationError,
+    ZeroDivisorError,
 )
 
 try:
@@ -475,6 +476,7 @@ __all__ = [
     "VerificationError",
     "WallPointLoad",
     "WindSiteASCE7",
+    "ZeroDivisorError",
     "__version__",
     "aisc_shape",
     "aisc_shape_names",
