@@ -16,6 +16,7 @@ __all__ = [
     "InputError",
     "NotebookExecutionError",
     "OutOfScopeError",
+    "SignedPackageError",
     "SigningError",
     "UndefinedSymbolError",
     "UnstableStructureError",
@@ -122,6 +123,29 @@ class NotebookExecutionError(BuildError):
         self.cell_index = cell_index
         self.source_excerpt = source_excerpt
         self.error = error
+
+
+class SignedPackageError(BuildError):
+    """A build would replace a package that carries signatures; nothing was written.
+
+    Args:
+        path: the signed package.
+        signers: ``(role, name)`` per signature already in it, in signing order.
+        option: the command-line option that moves the signed package aside instead.
+    """
+
+    def __init__(
+        self, path: str, signers: tuple[tuple[str, str], ...], option: str = "--supersede-signed"
+    ) -> None:
+        who = ", ".join(f"{name} ({role})" for role, name in signers) or "unknown signers"
+        super().__init__(
+            f"{path!r} is signed by {who}; a build never replaces a signed package. "
+            "Add a new revision to calcpack.toml for the changes, or build with "
+            f"{option} to move the signed package into the superseded/ folder beside it"
+        )
+        self.path = path
+        self.signers = signers
+        self.option = option
 
 
 class SigningError(CalcpackError):
