@@ -22,6 +22,7 @@ from calcpack.errors import (
     UndefinedSymbolError,
     UnstableStructureError,
     VerificationError,
+    ZeroDivisorError,
 )
 
 try:
@@ -194,6 +195,15 @@ _LAZY: dict[str, str] = {
     "TimberValues": "calcpack.checks.nds.values",
     "nds_sawn_values": "calcpack.checks.nds.values",
     "nds_glulam_values": "calcpack.checks.nds.values",
+    # sizing by search: the lightest section that passes
+    "lightest_sections": "calcpack.sizing",
+    "lightest_aisc_beam": "calcpack.sizing",
+    "lightest_nds_beam": "calcpack.sizing",
+    "sawn_candidates": "calcpack.sizing",
+    "aisc_candidates": "calcpack.sizing",
+    "Candidate": "calcpack.sizing",
+    "DeflectionLimit": "calcpack.sizing",
+    "SizingResult": "calcpack.sizing",
 }
 
 
@@ -343,6 +353,16 @@ if TYPE_CHECKING:
         sign_package,
         verify_package,
     )
+    from calcpack.sizing import (
+        Candidate,
+        DeflectionLimit,
+        SizingResult,
+        aisc_candidates,
+        lightest_aisc_beam,
+        lightest_nds_beam,
+        lightest_sections,
+        sawn_candidates,
+    )
     from calcpack.units import (
         Q_,
         get_display,
@@ -392,6 +412,7 @@ __all__ = [
     "BraceCase",
     "BuildError",
     "CalcpackError",
+    "Candidate",
     "Channel",
     "Check",
     "CheckRecord",
@@ -400,6 +421,7 @@ __all__ = [
     "CombinationSet",
     "ConcentratedForce",
     "Couple",
+    "DeflectionLimit",
     "Derived",
     "DimensionError",
     "DistributedLoad",
@@ -452,6 +474,7 @@ __all__ = [
     "Sheet",
     "SigningError",
     "SiteConditions",
+    "SizingResult",
     "SlidingSnowASCE7",
     "SnowDriftASCE7",
     "SnowRoofASCE7",
@@ -482,7 +505,9 @@ __all__ = [
     "VerificationError",
     "WallPointLoad",
     "WindSiteASCE7",
+    "ZeroDivisorError",
     "__version__",
+    "aisc_candidates",
     "aisc_shape",
     "aisc_shape_names",
     "analyse_combinations",
@@ -514,6 +539,9 @@ __all__ = [
     "effective_wind_area",
     "envelope_wind_asce7",
     "get_display",
+    "lightest_aisc_beam",
+    "lightest_nds_beam",
+    "lightest_sections",
     "lintel_masonry_loads",
     "load_inputs",
     "load_project",
@@ -528,6 +556,7 @@ __all__ = [
     "rebar",
     "resultant",
     "roof_snow_asce7",
+    "sawn_candidates",
     "sawn_timber",
     "second_moment_from_radius",
     "set_display",
