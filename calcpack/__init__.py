@@ -22,6 +22,7 @@ from calcpack.errors import (
     UndefinedSymbolError,
     UnstableStructureError,
     VerificationError,
+    ZeroDivisorError,
 )
 
 try:
@@ -193,6 +194,8 @@ _LAZY: dict[str, str] = {
     # sizing by search: the lightest section that passes
     "lightest_sections": "calcpack.sizing",
     "lightest_aisc_beam": "calcpack.sizing",
+    "lightest_nds_beam": "calcpack.sizing",
+    "sawn_candidates": "calcpack.sizing",
     "aisc_candidates": "calcpack.sizing",
     "Candidate": "calcpack.sizing",
     "DeflectionLimit": "calcpack.sizing",
@@ -351,7 +354,9 @@ if TYPE_CHECKING:
         SizingResult,
         aisc_candidates,
         lightest_aisc_beam,
+        lightest_nds_beam,
         lightest_sections,
+        sawn_candidates,
     )
     from calcpack.units import (
         Q_,
@@ -493,6 +498,7 @@ __all__ = [
     "VerificationError",
     "WallPointLoad",
     "WindSiteASCE7",
+    "ZeroDivisorError",
     "__version__",
     "aisc_candidates",
     "aisc_shape",
@@ -526,6 +532,7 @@ __all__ = [
     "envelope_wind_asce7",
     "get_display",
     "lightest_aisc_beam",
+    "lightest_nds_beam",
     "lightest_sections",
     "lintel_masonry_loads",
     "load_inputs",
@@ -541,6 +548,7 @@ __all__ = [
     "rebar",
     "resultant",
     "roof_snow_asce7",
+    "sawn_candidates",
     "sawn_timber",
     "second_moment_from_radius",
     "set_display",

@@ -28,7 +28,7 @@ from pathlib import Path
 from typing import Any
 
 from calcpack.errors import BuildError
-from calcpack.package import links
+from calcpack.package import links, publish
 from calcpack.package.bodies import convert_sheet, fill_bodies, prepare_in_worker
 from calcpack.package.document import (
     ROLES,
@@ -84,6 +84,8 @@ class BuildResult:
     up_to_date: bool
     """True when nothing changed and the existing package was kept."""
     seconds: float
+    superseded: Path | None = None
+    """Where the signed package this build replaced was moved (``superseded/``), if any."""
 
 
 def build_created(project: Project) -> _dt.datetime:
@@ -239,7 +241,7 @@ def _build_key(
     digest = hashlib.sha256()
     for part in (
         code_hash,
-        project.path.read_bytes().decode("utf-8", "replace"),
+        publish.project_basis(project).decode("utf-8"),
         *executed_keys,
         options.paper,
         str(options.reviewer_copy),
@@ -397,6 +399,7 @@ def build(
     reviewer_copy: bool = False,
     force: bool = False,
     report: Reporter | None = None,
+    supersede_signed: bool = False,
 ) -> BuildResult:
     """Build the calc package of a project folder (or project file).
 
@@ -408,8 +411,10 @@ def build(
         use_cache: reuse executed sheets whose inputs did not change.
         paper: "A4" or "Letter" (default: the project file's).
         reviewer_copy: append every sheet's source code as an appendix.
-        force: rebuild even when the existing package is up to date.
+        force: rebuild even when the existing package is up to date (a signed one is kept).
         report: optional progress hook.
+        supersede_signed: move a signed package that the build would replace into
+            ``superseded/`` beside it (see :mod:`calcpack.package.publish`).
 
     Returns:
         The paths written and the manifest.
@@ -418,6 +423,8 @@ def build(
         ProjectFileError: the project file is missing or invalid.
         NotebookExecutionError: a cell failed; nothing is written.
         BuildError: conversion, typesetting or layout failed; nothing is written.
+        SignedPackageError: the build would replace a signed package (checked before anything
+            executes and again before writing); nothing is written.
     """
     start = time.perf_counter()
     project = load_project(location)
@@ -447,7 +454,8 @@ def build(
     code_hash = _package_code_hash()
     build_key = _build_key(project, keys, options, review_file, created, code_hash)
     previous = _previous_manifest(manifest_path)
-    if not force and pdf_path.is_file() and previous.get("build", {}).get("build_key") == build_key:
+    current = pdf_path.is_file() and previous.get("build", {}).get("build_key") == build_key
+    if current and (not force or publish.signatures_in(pdf_path)):
         revisions.keep_issued(project, manifest_path)
         return BuildResult(
             pdf_path,
@@ -459,6 +467,8 @@ def build(
             True,
             time.perf_counter() - start,
         )
+    if not supersede_signed:  # refuse at the door, before anything executes
+        publish.make_way(pdf_path, manifest_path, supersede=False)
 
     def on_sheet(stage: str, sheet: SheetEntry) -> None:
         if report:
@@ -596,6 +606,12 @@ def build(
     except BaseException:
         tmp_manifest.unlink(missing_ok=True)
         raise
+    try:
+        moved = publish.make_way(pdf_path, manifest_path, supersede=supersede_signed)
+    except BaseException:
+        tmp_manifest.unlink(missing_ok=True)
+        tmp_pdf.unlink(missing_ok=True)
+        raise
     os.replace(tmp_manifest, manifest_path)
     os.replace(tmp_pdf, pdf_path)
     if store is not None:
@@ -610,6 +626,7 @@ def build(
         tuple(i.entry.path for i in executed if i.from_cache),
         False,
         time.perf_counter() - start,
+        moved,
     )
 
 
