@@ -22,6 +22,7 @@ from calcpack.errors import (
     UndefinedSymbolError,
     UnstableStructureError,
     VerificationError,
+    ZeroDivisorError,
 )
 
 try:
@@ -497,6 +498,7 @@ __all__ = [
     "VerificationError",
     "WallPointLoad",
     "WindSiteASCE7",
+    "ZeroDivisorError",
     "__version__",
     "aisc_candidates",
     "aisc_shape",
