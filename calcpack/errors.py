@@ -21,6 +21,7 @@ __all__ = [
     "UndefinedSymbolError",
     "UnstableStructureError",
     "VerificationError",
+    "ZeroDivisorError",
 ]
 
 
@@ -58,6 +59,26 @@ class DimensionError(InputError):
 
 class UndefinedSymbolError(InputError):
     """A formula refers to a symbol that has no value on the sheet."""
+
+
+class ZeroDivisorError(InputError, ZeroDivisionError):
+    """A formula divides by a value that is zero (or raises zero to a negative power).
+
+    Args:
+        name: the name of the value being derived.
+        formula: the formula as text, symbols written as on the sheet.
+        divisor: the part of the formula that is zero, as text.
+    """
+
+    def __init__(self, name: str, formula: str, divisor: str) -> None:
+        super().__init__(
+            f"{name} = {formula} divides by zero: {divisor} = 0; check the values it is made of",
+            name=divisor,
+            value=0,
+            expected=f"a non-zero divisor in {name} = {formula}",
+        )
+        self.formula = formula
+        self.divisor = divisor
 
 
 class UnstableStructureError(CalcpackError):

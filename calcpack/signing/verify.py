@@ -17,6 +17,7 @@ from dataclasses import dataclass, field
 from pathlib import Path
 from typing import Any
 
+from calcpack.contract.compare import diff_manifests
 from calcpack.errors import InputError, VerificationError
 from calcpack.signing._util import quiet_library_logs
 from calcpack.signing.keys import (
@@ -236,56 +237,15 @@ def check_project_files(
 
 
 def _default_reproducer(project: Path) -> dict[str, Any]:
-    """Re-execute the project's notebooks (no execution cache) and return their records.
+    """Re-execute the project's notebooks (no execution cache) and return their records."""
+    from calcpack.package import reproduce_manifest
 
-    Uses ``calcpack.package.reproduce_manifest(project)`` when the build provides it, else
-    composes the build's own stages: ``load_project`` -> ``execute_sheets(use_cache=False)``
-    -> ``collect_records`` per executed notebook.
-
-    Raises:
-        VerificationError: the package build offers neither.
-    """
-    from calcpack import package
-
-    whole = getattr(package, "reproduce_manifest", None)
-    if whole is not None:
-        return dict(whole(project))
-    import importlib
-
-    try:
-        import nbformat
-
-        # by name: the stages live in the build's modules, imported only when reproducing
-        execute_sheets = importlib.import_module("calcpack.package.execute").execute_sheets
-        load_project = importlib.import_module("calcpack.package.project").load_project
-        collect_records = importlib.import_module("calcpack.package.records").collect_records
-    except (ImportError, AttributeError) as exc:
-        raise VerificationError(
-            "--reproduce needs the package build's execution API "
-            "(calcpack.package.reproduce_manifest, or load_project / execute_sheets / "
-            f"collect_records), which this version does not provide ({exc})"
-        ) from exc
-    loaded = load_project(project)
-    sheets = []
-    for item in execute_sheets(loaded, use_cache=False):
-        records = collect_records(nbformat.reads(item.notebook_json, as_version=4))
-        sheets.append(
-            {
-                "number": item.entry.number,
-                "title": item.entry.title,
-                "path": item.entry.path,
-                "values": list(records.values),
-                "checks": list(records.checks),
-            }
-        )
-    return {"format": "calcpack-manifest/1", "sheets": sheets}
+    return reproduce_manifest(project)
 
 
 def _reproduce(
     manifest: dict[str, Any], project: Path, reproducer: Reproducer | None
 ) -> tuple[str, ...]:
-    from calcpack.signing.diff import diff_manifests
-
     fresh = (reproducer or _default_reproducer)(project)
     titles = {s.get("path"): s.get("title") for s in manifest.get("sheets", [])}
     for sheet in fresh.get("sheets", []):
