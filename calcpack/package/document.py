@@ -15,9 +15,9 @@ from dataclasses import dataclass, field
 from html import escape
 from typing import Any
 
+from calcpack.contract.compare import Change
+from calcpack.contract.records import SheetRecords
 from calcpack.package.project import Person, Project, SheetEntry
-from calcpack.package.records import SheetRecords
-from calcpack.signing.diff import Change
 
 __all__ = [
     "ROLES",
@@ -383,7 +383,8 @@ def _revisions(project: Project, marks: RevisionMarks) -> str:
     rows = []
     for rev in project.revisions:
         cls = ' class="current"' if rev is project.revision else ""
-        issued = " (issued)" if rev.issued else ""
+        # The revision being built is issued by its signatures; its flag changes no page.
+        issued = " (issued)" if rev.issued and rev is not project.revision else ""
         rows.append(
             f"<tr{cls}><td>{_e(rev.rev)}</td><td>{_e(_date(rev.date))}</td>"
             f"<td>{_e(rev.description)}</td><td>{_e(rev.status)}{issued}</td></tr>"

@@ -12,7 +12,7 @@ from html import escape
 from typing import TYPE_CHECKING, Any
 
 from calcpack.checks.checklists import ItemStatus, resolve_checklists
-from calcpack.package.records import check_sort_key
+from calcpack.contract.verdict import Verdict, check_sort_key
 
 if TYPE_CHECKING:
     from calcpack.package.document import SheetDoc
@@ -85,7 +85,7 @@ def counts_line(counts: dict[str, int]) -> str:
 
 
 def _verdict(verdict: str) -> str:
-    cls = {"OK": "ok", "NOT OK": "notok"}.get(verdict, "nc")
+    cls = {"OK": "ok", "NOT OK": "notok"}.get(str(Verdict.parse(verdict)), "nc")
     return f'<span class="cpd-verdict {cls}">{_e(verdict)}</span>'
 
 
