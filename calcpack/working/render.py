@@ -96,7 +96,7 @@ def _prose_html(text: str) -> str:
 # A symbol name in prose: letters, then one or more _subscripts (letters, digits, ⊥), then
 # optional ,qualifiers (R_A,max). Not inside a path or a dotted name (01_loads.ipynb, a.b_c).
 _SYMBOL_IN_PROSE = re.compile(
-    r"(?<![\w.\\-])([^\W\d_]+(?:_[^\W_]+[⊥]?)+(?:,[^\W\d_]+(?![\w]*_))*)(?![\w/]|\.\w)"
+    r"(?<![^\W\d]|[.\\-])([^\W\d_]+(?:_[^\W_]+[⊥]?)+(?:,[^\W\d_]+(?![\w]*_))*)(?!\w|\.\w)"
 )
 
 
@@ -279,6 +279,28 @@ def _step_html_body(step: Step) -> str:
         inner = "".join(_step_html_body(s) for s in step.steps)
         return f'<div class="cp-step cp-block">{title if step.title else ""}{inner}</div>'
     raise TypeError(f"no HTML renderer for {type(step).__name__}")
+
+
+_SKIP_OPEN = re.compile(r"<(code|pre)\b|<span class=\"cp-math")
+
+
+def symbols_in_html(markup: str) -> str:
+    """:func:`symbols_html` on the text of an HTML fragment (markdown cells, project texts),
+    leaving tags, code and math alone."""
+    out: list[str] = []
+    closing: str | None = None
+    for piece in re.split(r"(<[^>]+>)", markup):
+        if piece.startswith("<"):
+            if closing is None:
+                m = _SKIP_OPEN.match(piece)
+                if m:
+                    closing = f"</{m.group(1) or 'span'}>"
+            elif piece.startswith(closing):
+                closing = None
+            out.append(piece)
+        else:
+            out.append(piece if closing else symbols_html(piece))
+    return "".join(out)
 
 
 def _symbol_html(name: str) -> str:

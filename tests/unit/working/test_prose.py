@@ -149,3 +149,13 @@ def test_analysis_blocks_follow_the_sheet_unit() -> None:
     assert isinstance(inner, Derived)
     assert inner.display_unit == ureg.lbf
     assert inner.result_text() == "1250 lbf"
+
+
+def test_markdown_cells_set_symbols_but_not_code_or_math() -> None:
+    from calcpack.package.convert import _cp_markdown
+
+    html = _cp_markdown("The C_b values, $M_{max}$, `F_y` and b_f/2t_f.")
+    assert "<i>C</i><sub><i>b</i></sub>" in html
+    assert "<code>F_y</code>" in html  # code is left as written
+    assert r"\(M_{max}\)" in html  # math is typeset later, from its TeX
+    assert "<i>b</i><sub><i>f</i></sub>/2<i>t</i><sub><i>f</i></sub>" in html
