@@ -22,6 +22,7 @@ from calcpack.errors import (
     UndefinedSymbolError,
     UnstableStructureError,
     VerificationError,
+    ZeroDivisorError,
 )
 
 try:
@@ -144,6 +145,10 @@ _LAZY: dict[str, str] = {
     "load_project": "calcpack.package",
     "new_project": "calcpack.package",
     "read_manifest": "calcpack.package",
+    # the record and manifest contract
+    "Manifest": "calcpack.contract",
+    "CheckRecord": "calcpack.contract",
+    "diff_manifests": "calcpack.contract",
     "sign_package": "calcpack.signing",
     "verify_package": "calcpack.signing",
     "make_demo_credentials": "calcpack.signing",
@@ -190,6 +195,15 @@ _LAZY: dict[str, str] = {
     "TimberValues": "calcpack.checks.nds.values",
     "nds_sawn_values": "calcpack.checks.nds.values",
     "nds_glulam_values": "calcpack.checks.nds.values",
+    # sizing by search: the lightest section that passes
+    "lightest_sections": "calcpack.sizing",
+    "lightest_aisc_beam": "calcpack.sizing",
+    "lightest_nds_beam": "calcpack.sizing",
+    "sawn_candidates": "calcpack.sizing",
+    "aisc_candidates": "calcpack.sizing",
+    "Candidate": "calcpack.sizing",
+    "DeflectionLimit": "calcpack.sizing",
+    "SizingResult": "calcpack.sizing",
 }
 
 
@@ -262,6 +276,7 @@ if TYPE_CHECKING:
         pattern_cases,
         superpose,
     )
+    from calcpack.contract import CheckRecord, Manifest, diff_manifests
     from calcpack.foundations import (
         AllowableBearing,
         Column,
@@ -338,6 +353,16 @@ if TYPE_CHECKING:
         sign_package,
         verify_package,
     )
+    from calcpack.sizing import (
+        Candidate,
+        DeflectionLimit,
+        SizingResult,
+        aisc_candidates,
+        lightest_aisc_beam,
+        lightest_nds_beam,
+        lightest_sections,
+        sawn_candidates,
+    )
     from calcpack.units import (
         Q_,
         get_display,
@@ -387,13 +412,16 @@ __all__ = [
     "BraceCase",
     "BuildError",
     "CalcpackError",
+    "Candidate",
     "Channel",
     "Check",
+    "CheckRecord",
     "Circle",
     "Column",
     "CombinationSet",
     "ConcentratedForce",
     "Couple",
+    "DeflectionLimit",
     "Derived",
     "DimensionError",
     "DistributedLoad",
@@ -420,6 +448,7 @@ __all__ = [
     "LintelLoads",
     "LoadCombination",
     "LowRiseBuildingASCE7",
+    "Manifest",
     "Max",
     "Member",
     "MemberForces",
@@ -445,6 +474,7 @@ __all__ = [
     "Sheet",
     "SigningError",
     "SiteConditions",
+    "SizingResult",
     "SlidingSnowASCE7",
     "SnowDriftASCE7",
     "SnowRoofASCE7",
@@ -475,7 +505,9 @@ __all__ = [
     "VerificationError",
     "WallPointLoad",
     "WindSiteASCE7",
+    "ZeroDivisorError",
     "__version__",
+    "aisc_candidates",
     "aisc_shape",
     "aisc_shape_names",
     "analyse_combinations",
@@ -501,11 +533,15 @@ __all__ = [
     "components_wind_asce7",
     "composite",
     "cos",
+    "diff_manifests",
     "diff_packages",
     "drift_asce7",
     "effective_wind_area",
     "envelope_wind_asce7",
     "get_display",
+    "lightest_aisc_beam",
+    "lightest_nds_beam",
+    "lightest_sections",
     "lintel_masonry_loads",
     "load_inputs",
     "load_project",
@@ -520,6 +556,7 @@ __all__ = [
     "rebar",
     "resultant",
     "roof_snow_asce7",
+    "sawn_candidates",
     "sawn_timber",
     "second_moment_from_radius",
     "set_display",

@@ -16,10 +16,12 @@ __all__ = [
     "InputError",
     "NotebookExecutionError",
     "OutOfScopeError",
+    "SignedPackageError",
     "SigningError",
     "UndefinedSymbolError",
     "UnstableStructureError",
     "VerificationError",
+    "ZeroDivisorError",
 ]
 
 
@@ -57,6 +59,26 @@ class DimensionError(InputError):
 
 class UndefinedSymbolError(InputError):
     """A formula refers to a symbol that has no value on the sheet."""
+
+
+class ZeroDivisorError(InputError, ZeroDivisionError):
+    """A formula divides by a value that is zero (or raises zero to a negative power).
+
+    Args:
+        name: the name of the value being derived.
+        formula: the formula as text, symbols written as on the sheet.
+        divisor: the part of the formula that is zero, as text.
+    """
+
+    def __init__(self, name: str, formula: str, divisor: str) -> None:
+        super().__init__(
+            f"{name} = {formula} divides by zero: {divisor} = 0; check the values it is made of",
+            name=divisor,
+            value=0,
+            expected=f"a non-zero divisor in {name} = {formula}",
+        )
+        self.formula = formula
+        self.divisor = divisor
 
 
 class UnstableStructureError(CalcpackError):
@@ -101,6 +123,29 @@ class NotebookExecutionError(BuildError):
         self.cell_index = cell_index
         self.source_excerpt = source_excerpt
         self.error = error
+
+
+class SignedPackageError(BuildError):
+    """A build would replace a package that carries signatures; nothing was written.
+
+    Args:
+        path: the signed package.
+        signers: ``(role, name)`` per signature already in it, in signing order.
+        option: the command-line option that moves the signed package aside instead.
+    """
+
+    def __init__(
+        self, path: str, signers: tuple[tuple[str, str], ...], option: str = "--supersede-signed"
+    ) -> None:
+        who = ", ".join(f"{name} ({role})" for role, name in signers) or "unknown signers"
+        super().__init__(
+            f"{path!r} is signed by {who}; a build never replaces a signed package. "
+            "Add a new revision to calcpack.toml for the changes, or build with "
+            f"{option} to move the signed package into the superseded/ folder beside it"
+        )
+        self.path = path
+        self.signers = signers
+        self.option = option
 
 
 class SigningError(CalcpackError):

@@ -19,6 +19,7 @@ from typing import Any
 
 import pint
 
+from calcpack.contract.verdict import passes  # noqa: F401  (re-exported: the one pass rule)
 from calcpack.errors import DimensionError, InputError
 
 __all__ = [
@@ -326,8 +327,3 @@ def utilisation(
         )
     d = demand.to(capacity.units)
     return d, capacity, float(abs(d.magnitude) / capacity.magnitude)
-
-
-def passes(utilisation_ratio: float) -> bool:
-    """True when a utilisation passes: not over 1 beyond floating-point rounding."""
-    return utilisation_ratio <= 1.0 + 1e-12

@@ -15,8 +15,10 @@ from typing import Any
 import pint
 import sympy
 
+from calcpack.contract.records import RECORDS_MIMETYPE, CheckRecord, Record
+from calcpack.contract.verdict import Verdict
 from calcpack.errors import DimensionError, InputError
-from calcpack.units import DisplaySettings, get_display, passes, ureg, utilisation
+from calcpack.units import DisplaySettings, get_display, ureg, utilisation
 from calcpack.working.expr import (
     Literal,
     Term,
@@ -47,71 +49,6 @@ __all__ = [
     "Value",
     "Verdict",
 ]
-
-RECORDS_MIMETYPE = "application/vnd.calcpack.records+json"
-
-
-class Verdict:
-    """The verdict words of a check."""
-
-    OK = "OK"
-    NOT_OK = "NOT OK"
-    NOT_COVERED = "NOT COVERED"
-
-
-@dataclass(frozen=True)
-class Record:
-    """A named value as data, for manifests and revision comparisons.
-
-    ``value`` is the full-precision magnitude in ``unit`` (the unit the sheet displays).
-    """
-
-    name: str
-    symbol: str
-    value: float
-    unit: str
-    description: str
-    kind: str
-
-    def to_json(self) -> dict[str, Any]:
-        return {
-            "name": self.name,
-            "symbol": self.symbol,
-            "value": self.value,
-            "unit": self.unit,
-            "description": self.description,
-            "kind": self.kind,
-        }
-
-
-@dataclass(frozen=True)
-class CheckRecord:
-    """A check as data: demand and capacity in ``unit``, utilisation = |demand| / capacity."""
-
-    name: str
-    member: str | None
-    demand: float | None
-    capacity: float | None
-    unit: str
-    utilisation: float | None
-    verdict: str
-    ref: str | None
-    combination: str | None
-    description: str
-
-    def to_json(self) -> dict[str, Any]:
-        return {
-            "name": self.name,
-            "member": self.member,
-            "demand": self.demand,
-            "capacity": self.capacity,
-            "unit": self.unit,
-            "utilisation": self.utilisation,
-            "verdict": self.verdict,
-            "ref": self.ref,
-            "combination": self.combination,
-            "description": self.description,
-        }
 
 
 class Step:
@@ -527,7 +464,7 @@ class Check(Step):
         d, c, self.utilisation = utilisation(dq, cq.to(unit), name=name)
         self.demand_q: pint.Quantity = d
         self.capacity_q: pint.Quantity = c
-        self.verdict = Verdict.OK if passes(self.utilisation) else Verdict.NOT_OK
+        self.verdict = Verdict.of(self.utilisation)
 
     @property
     def passed(self) -> bool:

@@ -30,6 +30,7 @@ from calcpack.analysis.beam.extremes import BeamExtremes, find_extremes
 from calcpack.errors import InputError, OutOfScopeError
 from calcpack.loads._si import make_quantity
 from calcpack.units import Quantity, require, ureg
+from calcpack.validate import finite
 
 # Display units of results, with the factor from SI (made once: building a quantity from a unit
 # string parses it every time, which dominated a live solve).
@@ -206,20 +207,33 @@ class BeamResult:
 
     # -- superposition -----------------------------------------------------------------------
     def scaled(self, factor: float) -> BeamResult:
-        """This result with every load multiplied by ``factor`` (linear elastic)."""
-        f = float(factor)
+        """This result with every load multiplied by ``factor`` (linear elastic).
+
+        Raises:
+            InputError: ``factor`` is not a finite number, or the scaled result overflows.
+        """
+        f = float(finite("factor", factor))
         c = self.core
-        core = SIResult(
-            c.X,
-            f * c.w,
-            f * c.V,
-            f * c.M,
-            None if c.T is None else f * c.T,
-            None if c.v is None else f * c.v,
-            f * c.N,
-            {k: f * val for k, val in c.reactions.items()},
-            {k: f * val for k, val in c.hinge_rotation.items()},
-        )
+        with np.errstate(over="ignore", invalid="ignore"):  # refused just below
+            core = SIResult(
+                c.X,
+                f * c.w,
+                f * c.V,
+                f * c.M,
+                None if c.T is None else f * c.T,
+                None if c.v is None else f * c.v,
+                f * c.N,
+                {k: f * val for k, val in c.reactions.items()},
+                {k: f * val for k, val in c.hinge_rotation.items()},
+            )
+        if not (np.isfinite(core.M).all() and np.isfinite(core.V).all()):
+            raise InputError(
+                f"Result {self.label} times factor = {f:g} overflows (a non-finite moment or "
+                "shear)",
+                name="factor",
+                value=f,
+                expected="a factor that keeps the results finite",
+            )
         return BeamResult(
             self.beam, tuple((n, f * g) for n, g in self.cases), self.classification, core
         )
@@ -351,7 +365,7 @@ def combine(results: Mapping[str, BeamResult], factors: Mapping[str, float]) -> 
                 value=f,
                 expected="a case that was solved",
             )
-        term = results[name].scaled(float(f))
+        term = results[name].scaled(float(finite(f"factors[{name!r}]", f)))
         total = term if total is None else total + term
     assert total is not None
     return total
