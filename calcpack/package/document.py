@@ -15,9 +15,11 @@ from dataclasses import dataclass, field
 from html import escape
 from typing import Any
 
+from calcpack.contract.compare import Change
+from calcpack.contract.records import SheetRecords
+from calcpack.contract.verdict import Verdict, check_sort_key
 from calcpack.package.project import Person, Project, SheetEntry
-from calcpack.package.records import SheetRecords, check_sort_key
-from calcpack.signing.diff import Change
+from calcpack.working.render import symbols_html
 
 __all__ = [
     "ROLES",
@@ -332,7 +334,7 @@ def _assumptions(project: Project, sheets: Sequence[SheetDoc]) -> str:
 
 
 def _verdict(verdict: str) -> str:
-    cls = {"OK": "ok", "NOT OK": "notok"}.get(verdict, "nc")
+    cls = {Verdict.OK: "ok", Verdict.NOT_OK: "notok"}.get(Verdict.parse(verdict), "nc")
     return f'<span class="cpd-verdict {cls}">{_e(verdict)}</span>'
 
 
@@ -366,12 +368,11 @@ def _summary(project: Project, sheets: Sequence[SheetDoc]) -> str:
         )
     else:
         table = '<p class="cp-empty">The sheets record no design checks.</p>'
-    counts = {
-        v: sum(1 for _, c in entries if c["verdict"] == v) for v in ("OK", "NOT OK", "NOT COVERED")
-    }
+    counts = {v: sum(1 for _, c in entries if c["verdict"] == v) for v in Verdict}
     line = (
-        f"<p>{len(entries)} checks: {counts['OK']} OK, {counts['NOT OK']} NOT OK, "
-        f"{counts['NOT COVERED']} NOT COVERED. Worst first.</p>"
+        f"<p>{len(entries)} checks: "
+        + ", ".join(f"{counts[v]} {v}" for v in Verdict)
+        + ". Worst first.</p>"
     )
     return (
         _titleblock(project, sheet_no="—", title="Summary of checks", pages=None)
@@ -452,8 +453,8 @@ def _review(project: Project, review: tuple[ReviewRow, ...] | None) -> str:
     if not review:
         return head + '<p class="cp-empty">The review record holds no comments.</p>'
     rows = "".join(
-        f"<tr><td>{_e(r.ident)}</td><td>{_e(r.sheet)}</td><td>{_e(r.quantity)}</td>"
-        f"<td>{_e(r.text)}</td><td>{_e(r.by)}</td><td>{_e(r.date)}</td><td>{_e(r.status)}</td></tr>"
+        f"<tr><td>{_e(r.ident)}</td><td>{_e(r.sheet)}</td><td>{symbols_html(_e(r.quantity))}</td>"
+        f"<td>{symbols_html(_e(r.text))}</td><td>{_e(r.by)}</td><td>{_e(r.date)}</td><td>{_e(r.status)}</td></tr>"
         for r in review
     )
     return (

@@ -33,6 +33,7 @@ from typing import Any
 
 import ipywidgets as ipw
 
+from calcpack.contract.verdict import passes
 from calcpack.errors import CalcpackError
 from calcpack.inputs import (
     SHAPES,
@@ -89,7 +90,7 @@ def _mag(q: Quantity, unit: str) -> float:
 
 
 def _verdict(u: float) -> str:
-    ok = u <= 1.0
+    ok = passes(u)
     colour = "#1d6b2f" if ok else "#a31515"
     return (
         f'<span class="cp-verdict {"cp-ok" if ok else "cp-notok"}" style="color:{colour};'
