@@ -18,6 +18,7 @@ from typing import Any
 from calcpack.contract.compare import Change
 from calcpack.contract.records import SheetRecords
 from calcpack.package.project import Person, Project, SheetEntry
+from calcpack.working.render import symbols_html
 
 __all__ = [
     "ROLES",
@@ -415,8 +416,8 @@ def _review(project: Project, review: tuple[ReviewRow, ...] | None) -> str:
     if not review:
         return head + '<p class="cp-empty">The review record holds no comments.</p>'
     rows = "".join(
-        f"<tr><td>{_e(r.ident)}</td><td>{_e(r.sheet)}</td><td>{_e(r.quantity)}</td>"
-        f"<td>{_e(r.text)}</td><td>{_e(r.by)}</td><td>{_e(r.date)}</td><td>{_e(r.status)}</td></tr>"
+        f"<tr><td>{_e(r.ident)}</td><td>{_e(r.sheet)}</td><td>{symbols_html(_e(r.quantity))}</td>"
+        f"<td>{symbols_html(_e(r.text))}</td><td>{_e(r.by)}</td><td>{_e(r.date)}</td><td>{_e(r.status)}</td></tr>"
         for r in review
     )
     return (
