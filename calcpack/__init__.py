@@ -197,6 +197,18 @@ _LAZY: dict[str, str] = {
     "Candidate": "calcpack.sizing",
     "DeflectionLimit": "calcpack.sizing",
     "SizingResult": "calcpack.sizing",
+    "euro_section": "calcpack.sections.eurocode_tables",
+    "euro_section_names": "calcpack.sections.eurocode_tables",
+    "EuroSection": "calcpack.sections.eurocode_tables",
+    "SteelMemberEC": "calcpack.checks.en1993",
+    "DesignForces": "calcpack.checks.en1993",
+    "check_en1993_member": "calcpack.checks.en1993",
+    "check_en1993_beam": "calcpack.checks.en1993",
+    "check_en1993_web_bearing": "calcpack.checks.en1993",
+    "en1990_annex": "calcpack.combinations",
+    "annex_combinations": "calcpack.combinations",
+    "annex_serviceability": "calcpack.combinations",
+    "annex_equ_combinations": "calcpack.combinations",
 }
 
 
@@ -260,12 +272,23 @@ if TYPE_CHECKING:
     )
     from calcpack.checks.aci318 import ACIFootingDesign, check_aci_footing
     from calcpack.checks.en1992 import ECFootingDesign, check_en1992_footing
+    from calcpack.checks.en1993 import (
+        DesignForces,
+        SteelMemberEC,
+        check_en1993_beam,
+        check_en1993_member,
+        check_en1993_web_bearing,
+    )
     from calcpack.checks.en1997 import PresumedBearing, SoilStrength, check_en1997_pad
     from calcpack.combinations import (
         CombinationSet,
         LoadCombination,
         analyse_combinations,
+        annex_combinations,
+        annex_equ_combinations,
+        annex_serviceability,
         combination_set,
+        en1990_annex,
         pattern_cases,
         superpose,
     )
@@ -338,6 +361,11 @@ if TYPE_CHECKING:
         sawn_timber,
         second_moment_from_radius,
     )
+    from calcpack.sections.eurocode_tables import (
+        EuroSection,
+        euro_section,
+        euro_section_names,
+    )
     from calcpack.sections.rebar import rebar
     from calcpack.signing import (
         diff_packages,
@@ -385,7 +413,6 @@ if TYPE_CHECKING:
         tan,
     )
 
-
 __all__ = [
     "Q_",
     "ACIFootingDesign",
@@ -412,11 +439,13 @@ __all__ = [
     "Couple",
     "DeflectionLimit",
     "Derived",
+    "DesignForces",
     "DimensionError",
     "DistributedLoad",
     "ECFootingDesign",
     "EISegment",
     "Equation",
+    "EuroSection",
     "Exports",
     "Figure",
     "Fixed",
@@ -471,6 +500,7 @@ __all__ = [
     "Spring",
     "SteelGrade",
     "SteelMember",
+    "SteelMemberEC",
     "SteelShape",
     "Support",
     "Table",
@@ -498,6 +528,9 @@ __all__ = [
     "aisc_shape",
     "aisc_shape_names",
     "analyse_combinations",
+    "annex_combinations",
+    "annex_equ_combinations",
+    "annex_serviceability",
     "atan",
     "build",
     "check_aci_footing",
@@ -509,6 +542,9 @@ __all__ = [
     "check_deflection",
     "check_elastic_beam",
     "check_en1992_footing",
+    "check_en1993_beam",
+    "check_en1993_member",
+    "check_en1993_web_bearing",
     "check_en1997_pad",
     "check_footing_soil",
     "check_nds_beam",
@@ -523,7 +559,10 @@ __all__ = [
     "diff_packages",
     "drift_asce7",
     "effective_wind_area",
+    "en1990_annex",
     "envelope_wind_asce7",
+    "euro_section",
+    "euro_section_names",
     "get_display",
     "lightest_aisc_beam",
     "lightest_sections",
