@@ -11,12 +11,14 @@ import importlib
 from importlib.metadata import PackageNotFoundError, version
 from typing import TYPE_CHECKING, Any
 
+from calcpack import notebook as _notebook  # noqa: F401  (registers the standard renderers)
 from calcpack.errors import (
     BuildError,
     CalcpackError,
     DimensionError,
     InputError,
     NotebookExecutionError,
+    NoViewError,
     OutOfScopeError,
     SigningError,
     UndefinedSymbolError,
@@ -453,6 +455,7 @@ __all__ = [
     "Member",
     "MemberForces",
     "Min",
+    "NoViewError",
     "Node",
     "NotCovered",
     "NotebookExecutionError",

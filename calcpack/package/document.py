@@ -333,7 +333,8 @@ def _assumptions(project: Project, sheets: Sequence[SheetDoc]) -> str:
 
 
 def _verdict(verdict: str) -> str:
-    cls = {Verdict.OK: "ok", Verdict.NOT_OK: "notok"}.get(Verdict.parse(verdict), "nc")
+    classes: dict[str, str] = {Verdict.OK: "ok", Verdict.NOT_OK: "notok"}
+    cls = classes.get(verdict, "nc")
     return f'<span class="cpd-verdict {cls}">{_e(verdict)}</span>'
 
 
