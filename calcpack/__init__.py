@@ -145,6 +145,10 @@ _LAZY: dict[str, str] = {
     "load_project": "calcpack.package",
     "new_project": "calcpack.package",
     "read_manifest": "calcpack.package",
+    # the record and manifest contract
+    "Manifest": "calcpack.contract",
+    "CheckRecord": "calcpack.contract",
+    "diff_manifests": "calcpack.contract",
     "sign_package": "calcpack.signing",
     "verify_package": "calcpack.signing",
     "make_demo_credentials": "calcpack.signing",
@@ -283,6 +287,7 @@ if TYPE_CHECKING:
         pattern_cases,
         superpose,
     )
+    from calcpack.contract import CheckRecord, Manifest, diff_manifests
     from calcpack.foundations import (
         AllowableBearing,
         Column,
@@ -438,6 +443,7 @@ __all__ = [
     "Candidate",
     "Channel",
     "Check",
+    "CheckRecord",
     "Circle",
     "Column",
     "CombinationSet",
@@ -470,6 +476,7 @@ __all__ = [
     "LintelLoads",
     "LoadCombination",
     "LowRiseBuildingASCE7",
+    "Manifest",
     "Max",
     "Member",
     "MemberForces",
@@ -558,6 +565,7 @@ __all__ = [
     "components_wind_asce7",
     "composite",
     "cos",
+    "diff_manifests",
     "diff_packages",
     "drift_asce7",
     "effective_wind_area",
