@@ -218,6 +218,17 @@ _LAZY: dict[str, str] = {
     "Candidate": "calcpack.sizing",
     "DeflectionLimit": "calcpack.sizing",
     "SizingResult": "calcpack.sizing",
+    # snow and wind to EN 1991-1-3 / EN 1991-1-4 (UK annex or recommended values)
+    "SnowSiteEN": "calcpack.loads.snow_en1991",
+    "SnowRoofEN": "calcpack.loads.snow_en1991",
+    "roof_snow_en": "calcpack.loads.snow_en1991",
+    "SnowDriftEN": "calcpack.loads.snow_en1991",
+    "snow_drift_en": "calcpack.loads.snow_en1991",
+    "WindSiteEN": "calcpack.loads.wind_en1991",
+    "peak_pressure_en": "calcpack.loads.wind_en1991",
+    "internal_pressure_en": "calcpack.loads.wind_en1991",
+    "BuildingEN": "calcpack.loads.wind_en1991_cpe",
+    "wind_pressures_en": "calcpack.loads.wind_en1991_cpe",
 }
 
 
@@ -326,6 +337,13 @@ if TYPE_CHECKING:
         drift_asce7,
         sliding_snow_asce7,
     )
+    from calcpack.loads.snow_en1991 import (
+        SnowDriftEN,
+        SnowRoofEN,
+        SnowSiteEN,
+        roof_snow_en,
+        snow_drift_en,
+    )
     from calcpack.loads.takedown import Takedown, reactions_by_case, takedown
     from calcpack.loads.wind_asce7 import (
         Topography,
@@ -337,6 +355,15 @@ if TYPE_CHECKING:
         components_wind_asce7,
         effective_wind_area,
         envelope_wind_asce7,
+    )
+    from calcpack.loads.wind_en1991 import (
+        WindSiteEN,
+        internal_pressure_en,
+        peak_pressure_en,
+    )
+    from calcpack.loads.wind_en1991_cpe import (
+        BuildingEN,
+        wind_pressures_en,
     )
     from calcpack.package import (
         build,
@@ -425,6 +452,7 @@ __all__ = [
     "BoundedRegion",
     "BraceCase",
     "BuildError",
+    "BuildingEN",
     "CalcpackError",
     "Candidate",
     "Channel",
@@ -496,8 +524,11 @@ __all__ = [
     "SizingResult",
     "SlidingSnowASCE7",
     "SnowDriftASCE7",
+    "SnowDriftEN",
     "SnowRoofASCE7",
+    "SnowRoofEN",
     "SnowSiteASCE7",
+    "SnowSiteEN",
     "SoilStrength",
     "Spring",
     "SteelGrade",
@@ -525,6 +556,7 @@ __all__ = [
     "VerificationError",
     "WallPointLoad",
     "WindSiteASCE7",
+    "WindSiteEN",
     "WoodMember",
     "ZeroDivisorError",
     "__version__",
@@ -564,6 +596,7 @@ __all__ = [
     "effective_wind_area",
     "envelope_wind_asce7",
     "get_display",
+    "internal_pressure_en",
     "lightest_aisc_beam",
     "lightest_nds_beam",
     "lightest_sections",
@@ -577,11 +610,13 @@ __all__ = [
     "nds_sawn_values",
     "new_project",
     "pattern_cases",
+    "peak_pressure_en",
     "reactions_by_case",
     "read_manifest",
     "rebar",
     "resultant",
     "roof_snow_asce7",
+    "roof_snow_en",
     "sawn_candidates",
     "sawn_timber",
     "second_moment_from_radius",
@@ -589,6 +624,7 @@ __all__ = [
     "sign_package",
     "sin",
     "sliding_snow_asce7",
+    "snow_drift_en",
     "soil_pressure",
     "solve_beam",
     "solve_cases",
@@ -605,5 +641,6 @@ __all__ = [
     "ureg",
     "velocity_pressure_asce7",
     "verify_package",
+    "wind_pressures_en",
     "yield_limits",
 ]
