@@ -14,12 +14,15 @@ __all__ = [
     "CalcpackError",
     "DimensionError",
     "InputError",
+    "NoViewError",
     "NotebookExecutionError",
     "OutOfScopeError",
+    "SignedPackageError",
     "SigningError",
     "UndefinedSymbolError",
     "UnstableStructureError",
     "VerificationError",
+    "ZeroDivisorError",
 ]
 
 
@@ -59,6 +62,26 @@ class UndefinedSymbolError(InputError):
     """A formula refers to a symbol that has no value on the sheet."""
 
 
+class ZeroDivisorError(InputError, ZeroDivisionError):
+    """A formula divides by a value that is zero (or raises zero to a negative power).
+
+    Args:
+        name: the name of the value being derived.
+        formula: the formula as text, symbols written as on the sheet.
+        divisor: the part of the formula that is zero, as text.
+    """
+
+    def __init__(self, name: str, formula: str, divisor: str) -> None:
+        super().__init__(
+            f"{name} = {formula} divides by zero: {divisor} = 0; check the values it is made of",
+            name=divisor,
+            value=0,
+            expected=f"a non-zero divisor in {name} = {formula}",
+        )
+        self.formula = formula
+        self.divisor = divisor
+
+
 class UnstableStructureError(CalcpackError):
     """The structure cannot carry the load: a mechanism, too few or ill-placed supports.
 
@@ -77,6 +100,29 @@ class OutOfScopeError(CalcpackError):
 
     calcpack refuses rather than return a number it cannot stand behind.
     """
+
+
+class NoViewError(CalcpackError, LookupError):
+    """No renderer is registered to show a result in the way asked (see :mod:`calcpack.views`).
+
+    Args:
+        type_name: the result's class, qualified (``"calcpack.analysis.beam.BeamResult"``).
+        kind: the view asked for (``"figure"``, ``"mimebundle"``...).
+        known: the views registered for that class and its bases.
+    """
+
+    def __init__(self, type_name: str, kind: str, known: tuple[str, ...] = ()) -> None:
+        super().__init__(type_name, kind, known)
+        self.type_name = type_name
+        self.kind = kind
+        self.known = known
+
+    def __str__(self) -> str:
+        have = ", ".join(self.known) if self.known else "none"
+        return (
+            f"No {self.kind!r} view is registered for {self.type_name} "
+            f"(views registered for it: {have}); calcpack.notebook registers the standard ones"
+        )
 
 
 class BuildError(CalcpackError):
@@ -101,6 +147,29 @@ class NotebookExecutionError(BuildError):
         self.cell_index = cell_index
         self.source_excerpt = source_excerpt
         self.error = error
+
+
+class SignedPackageError(BuildError):
+    """A build would replace a package that carries signatures; nothing was written.
+
+    Args:
+        path: the signed package.
+        signers: ``(role, name)`` per signature already in it, in signing order.
+        option: the command-line option that moves the signed package aside instead.
+    """
+
+    def __init__(
+        self, path: str, signers: tuple[tuple[str, str], ...], option: str = "--supersede-signed"
+    ) -> None:
+        who = ", ".join(f"{name} ({role})" for role, name in signers) or "unknown signers"
+        super().__init__(
+            f"{path!r} is signed by {who}; a build never replaces a signed package. "
+            "Add a new revision to calcpack.toml for the changes, or build with "
+            f"{option} to move the signed package into the superseded/ folder beside it"
+        )
+        self.path = path
+        self.signers = signers
+        self.option = option
 
 
 class SigningError(CalcpackError):

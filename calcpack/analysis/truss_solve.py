@@ -24,11 +24,13 @@ from typing import Any, Literal
 
 import numpy as np
 
+from calcpack import views
 from calcpack.analysis.truss_model import FloatArray, Member, Qty, Truss
 from calcpack.analysis.truss_stiffness import stiffness_solve
 from calcpack.analysis.truss_zero import zero_force_by_inspection
 from calcpack.errors import InputError, UnstableStructureError
 from calcpack.units import ureg
+from calcpack.validate import finite
 
 __all__ = [
     "Determinacy",
@@ -295,8 +297,12 @@ class TrussResult:
     # -- superposition ---------------------------------------------------------------------
 
     def scaled(self, factor: float, label: str | None = None) -> TrussResult:
-        """This result with every load, force, reaction and displacement times ``factor``."""
-        f = float(factor)
+        """This result with every load, force, reaction and displacement times ``factor``.
+
+        Raises:
+            InputError: ``factor`` is not a finite number.
+        """
+        f = float(finite("factor", factor))
         disp = None
         if self.displacements is not None:
             disp = {n: (u[0] * f, u[1] * f) for n, u in self.displacements.items()}
@@ -398,9 +404,7 @@ class TrussResult:
     def diagram(self, **options: Any) -> Any:
         """The truss drawn to scale with supports, loads, reactions and member forces (a
         :class:`calcpack.plots.truss.TrussDiagram`, shown inline as SVG)."""
-        from calcpack.plots.truss import TrussDiagram
-
-        return TrussDiagram(self, **options)
+        return views.render("diagram", self, **options)
 
     def _repr_mimebundle_(self, include: Any = None, exclude: Any = None) -> Any:
         return self.working()._repr_mimebundle_(include, exclude)
@@ -566,7 +570,7 @@ def combine_results(
                 value=case,
                 expected="a case among the results",
             )
-        part = results[case].scaled(f)
+        part = results[case].scaled(finite(f"factors[{case!r}]", f))
         total = part if total is None else total + part
     assert total is not None
     name = label or " + ".join(f"{f:g} {c}" for c, f in factors.items())

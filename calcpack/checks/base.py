@@ -23,8 +23,9 @@ from collections.abc import Callable, Mapping, Sequence
 from dataclasses import dataclass, field
 from typing import Any
 
+from calcpack.contract.verdict import Verdict, passes
 from calcpack.errors import InputError
-from calcpack.units import Q_, Quantity, is_quantity, passes, utilisation
+from calcpack.units import Q_, Quantity, is_quantity, utilisation
 
 __all__ = [
     "NOT_COVERED",
@@ -38,9 +39,9 @@ __all__ = [
     "run_checks",
 ]
 
-OK = "OK"
-NOT_OK = "NOT OK"
-NOT_COVERED = "NOT COVERED"
+OK = Verdict.OK
+NOT_OK = Verdict.NOT_OK
+NOT_COVERED = Verdict.NOT_COVERED
 
 
 @dataclass(frozen=True)

@@ -14,7 +14,8 @@ from typing import Any
 from calcpack.checks.base import MemberChecks, Recorder, Standard, run_checks
 from calcpack.checks.demand import as_combinations, max_abs
 from calcpack.errors import InputError
-from calcpack.units import Quantity, require, ureg
+from calcpack.units import Q_, Quantity, require, ureg
+from calcpack.validate import finite
 
 __all__ = ["ELASTIC", "check_deflection", "check_elastic_beam"]
 
@@ -293,10 +294,19 @@ def check_deflection(
             )
         ex = r.extremes
         cands = [e.value for e in (ex.deflection_down, ex.deflection_up) if e is not None]
+        if best is None:
+            best = (Q_(0.0, "mm"), name)  # a result that nowhere moves: δ = 0
         for v in cands:
-            if best is None or abs(v) > best[0]:
+            finite(f"deflection of {name!r}", v)
+            if abs(v) > best[0]:
                 best = (abs(v), name)
-    assert best is not None
+    if best is None:
+        raise InputError(
+            "Deflection check needs at least one result (got none)",
+            name="demand",
+            value=demand,
+            expected="a result with deflection, or a mapping of them",
+        )
     dq, combo = best
 
     # show the deflection in the span's family of units (inches for a span in feet)

@@ -59,6 +59,12 @@ def register(subparsers: Any) -> None:
     parser.add_argument(
         "--force", action="store_true", help="rebuild even when the package is up to date"
     )
+    parser.add_argument(
+        "--supersede-signed",
+        action="store_true",
+        help="if the package there is signed and would change, move it into superseded/ beside "
+        "it (never deleted) instead of refusing",
+    )
     add_build_options(parser)
     parser.set_defaults(func=handler)
 
@@ -115,6 +121,7 @@ def handler(args: argparse.Namespace) -> int:
             reviewer_copy=args.reviewer_copy,
             force=args.force,
             report=report,
+            supersede_signed=args.supersede_signed,
         )
     if result.up_to_date:
         print(f"Up to date: {result.pdf_path}")
@@ -125,4 +132,6 @@ def handler(args: argparse.Namespace) -> int:
             f"{result.seconds:.1f} s)"
         )
     print(f"Manifest {result.manifest_path}")
+    if result.superseded is not None:
+        print(f"The signed package it replaces was moved to {result.superseded}")
     return 0

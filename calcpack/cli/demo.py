@@ -72,6 +72,7 @@ def run_demo(
         use_cache=use_cache,
         paper=paper,
         report=report,
+        supersede_signed=True,  # a demo package signed by an earlier run is moved aside
     )
 
 

@@ -34,6 +34,12 @@ def register(subparsers: Any) -> None:
         metavar="REASON",
         help="checker: sign although review comments are not closed; REASON is recorded",
     )
+    parser.add_argument(
+        "--override-identity",
+        metavar="REASON",
+        help="sign although the key was made for another role or names another person than "
+        "calcpack.toml; REASON is recorded in the signature (one signer never holds two roles)",
+    )
     parser.set_defaults(func=_sign)
 
 
@@ -53,6 +59,7 @@ def _sign(args: argparse.Namespace) -> int:
         timestamp_url=args.timestamp_url,
         project=args.project,
         override_open_comments=args.override_open_comments,
+        override_identity=args.override_identity,
     )
     extra = " with an RFC 3161 timestamp" if result.timestamped else ""
     print(f"Signed as {result.role} by {result.signer}{extra}: {result.output}")

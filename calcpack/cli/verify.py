@@ -28,14 +28,25 @@ def register(subparsers: Any) -> None:
         action="store_true",
         help="re-execute the notebooks in --project and compare every recorded result",
     )
+    parser.add_argument(
+        "--require",
+        metavar="ROLES",
+        default="",
+        help="comma-separated roles that must have signed, e.g. preparer,checker",
+    )
     parser.set_defaults(func=_verify)
 
 
 def _verify(args: argparse.Namespace) -> int:
     from calcpack.signing.verify import verify_package
 
+    require = tuple(r.strip() for r in args.require.split(",") if r.strip())
     report = verify_package(
-        args.package, args.trust, project=args.project, reproduce=args.reproduce
+        args.package,
+        args.trust,
+        project=args.project,
+        reproduce=args.reproduce,
+        require=require,
     )
     print(report.text())
     return 0 if report.ok else 1

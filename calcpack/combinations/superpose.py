@@ -23,6 +23,7 @@ import numpy as np
 from calcpack.combinations.model import AppliedCombination, CombinationSet
 from calcpack.errors import InputError
 from calcpack.units import Quantity, is_quantity
+from calcpack.validate import finite
 
 __all__ = [
     "CombinedResults",
@@ -74,7 +75,7 @@ def superpose(results: Mapping[str, Any], factors: Mapping[str, float]) -> Any:
                 value=case,
                 expected=f"one of {sorted(results)}",
             )
-        term = _scale(results[case], float(f))
+        term = _scale(results[case], float(finite(f"factors[{case!r}]", f)))
         total = term if total is None else _add(total, term)
     return total
 

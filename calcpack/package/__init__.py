@@ -45,7 +45,8 @@ def reproduce_manifest(project: str | Path, *, workers: int = 2) -> dict[str, An
     """
     import nbformat
 
-    from calcpack.package.manifest import MANIFEST_FORMAT, sheet_record
+    from calcpack.contract.manifest import Manifest
+    from calcpack.package.manifest import sheet_record
     from calcpack.package.pipeline import sheet_title
 
     loaded = load_project(project)
@@ -54,4 +55,4 @@ def reproduce_manifest(project: str | Path, *, workers: int = 2) -> dict[str, An
         nb = nbformat.reads(item.notebook_json, as_version=4)
         records = collect_records(nb)
         sheets.append(sheet_record(item.entry, sheet_title(item.entry, nb), records))
-    return {"format": MANIFEST_FORMAT, "sheets": sheets}
+    return Manifest(sheets=tuple(sheets)).to_json()

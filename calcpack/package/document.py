@@ -15,9 +15,10 @@ from dataclasses import dataclass, field
 from html import escape
 from typing import Any
 
+from calcpack.contract.compare import Change
+from calcpack.contract.records import SheetRecords
 from calcpack.package.project import Person, Project, SheetEntry
-from calcpack.package.records import SheetRecords, check_sort_key
-from calcpack.signing.diff import Change
+from calcpack.working.render import symbols_html
 
 __all__ = [
     "ROLES",
@@ -198,6 +199,8 @@ def _titleblock(
 
 
 def _cover(project: Project, sheets: Sequence[SheetDoc]) -> str:
+    from calcpack.package.summary import check_counts, counts_line
+
     rev = project.revision
     standards = "<br>".join(_e(s) for s in project.design.standards)
     boxes = []
@@ -227,6 +230,7 @@ def _cover(project: Project, sheets: Sequence[SheetDoc]) -> str:
 <tr><th>Design standards</th><td>{standards}</td></tr>
 <tr><th>Unit system</th><td>{_e(project.units)}</td></tr>
 <tr><th>Extent</th><td>{len(sheets)} sheets, <span class="totalpages"></span> pages</td></tr>
+<tr><th>Checks</th><td>{_e(counts_line(check_counts(sheets)))}</td></tr>
 </table>
 <div class="cp-signoff"><div class="heading">Sign-off</div>
 <table><tr>{"".join(boxes)}</tr></table>
@@ -331,53 +335,13 @@ def _assumptions(project: Project, sheets: Sequence[SheetDoc]) -> str:
     )
 
 
-def _verdict(verdict: str) -> str:
-    cls = {"OK": "ok", "NOT OK": "notok"}.get(verdict, "nc")
-    return f'<span class="cpd-verdict {cls}">{_e(verdict)}</span>'
-
-
 def _summary(project: Project, sheets: Sequence[SheetDoc]) -> str:
-    rows = []
-    entries = [(sheet, c) for sheet in sheets for c in sheet.records.checks]
-    entries.sort(key=lambda item: check_sort_key(item[1]))
-    for sheet, c in entries:
-        u = c.get("utilisation")
-        bar = ""
-        if u is not None:
-            width = min(u, 1.5) / 1.5 * 14
-            over = " over" if u > 1 else ""
-            bar = f' <span class="cpd-ubar{over}" style="width:{width:.1f}mm"></span>'
-        unit = f" {_e(c['unit'])}" if c.get("unit") else ""
-        rows.append(
-            f"<tr><td>{_e(sheet.entry.number)}</td><td>{_e(c.get('member') or '')}</td>"
-            f"<td>{_e(c['name'])}</td><td>{_e(c.get('combination') or '')}</td>"
-            f'<td class="num">{format_sig(c.get("demand"))}{unit}</td>'
-            f'<td class="num">{format_sig(c.get("capacity"))}{unit}</td>'
-            f'<td class="num">{"—" if u is None else f"{u:.2f}"}{bar}</td>'
-            f"<td>{_verdict(c['verdict'])}</td><td>{_e(c.get('ref') or '')}</td></tr>"
-        )
-    if rows:
-        table = (
-            '<table class="cpd-table"><thead><tr><th>Sheet</th><th>Member</th><th>Check</th>'
-            "<th>Combination</th><th>Demand</th><th>Capacity</th><th>Utilisation</th>"
-            "<th>Verdict</th><th>Reference</th></tr></thead><tbody>"
-            + "".join(rows)
-            + "</tbody></table>"
-        )
-    else:
-        table = '<p class="cp-empty">The sheets record no design checks.</p>'
-    counts = {
-        v: sum(1 for _, c in entries if c["verdict"] == v) for v in ("OK", "NOT OK", "NOT COVERED")
-    }
-    line = (
-        f"<p>{len(entries)} checks: {counts['OK']} OK, {counts['NOT OK']} NOT OK, "
-        f"{counts['NOT COVERED']} NOT COVERED. Worst first.</p>"
-    )
+    from calcpack.package.summary import summary_html
+
     return (
         _titleblock(project, sheet_no="—", title="Summary of checks", pages=None)
         + '<h1 class="cp-h cp-bm1">Summary of checks</h1>'
-        + line
-        + table
+        + summary_html(sheets)
     )
 
 
@@ -420,7 +384,8 @@ def _revisions(project: Project, marks: RevisionMarks) -> str:
     rows = []
     for rev in project.revisions:
         cls = ' class="current"' if rev is project.revision else ""
-        issued = " (issued)" if rev.issued else ""
+        # The revision being built is issued by its signatures; its flag changes no page.
+        issued = " (issued)" if rev.issued and rev is not project.revision else ""
         rows.append(
             f"<tr{cls}><td>{_e(rev.rev)}</td><td>{_e(_date(rev.date))}</td>"
             f"<td>{_e(rev.description)}</td><td>{_e(rev.status)}{issued}</td></tr>"
@@ -451,8 +416,8 @@ def _review(project: Project, review: tuple[ReviewRow, ...] | None) -> str:
     if not review:
         return head + '<p class="cp-empty">The review record holds no comments.</p>'
     rows = "".join(
-        f"<tr><td>{_e(r.ident)}</td><td>{_e(r.sheet)}</td><td>{_e(r.quantity)}</td>"
-        f"<td>{_e(r.text)}</td><td>{_e(r.by)}</td><td>{_e(r.date)}</td><td>{_e(r.status)}</td></tr>"
+        f"<tr><td>{_e(r.ident)}</td><td>{_e(r.sheet)}</td><td>{symbols_html(_e(r.quantity))}</td>"
+        f"<td>{symbols_html(_e(r.text))}</td><td>{_e(r.by)}</td><td>{_e(r.date)}</td><td>{_e(r.status)}</td></tr>"
         for r in review
     )
     return (

@@ -83,10 +83,17 @@ def sheet_cache_key(project: Project, sheet: SheetEntry) -> str:
         digest.update(label.encode() + b"\0" + str(len(data)).encode() + b"\0" + data)
 
     feed("calcpack", _calcpack_version().encode())
-    feed("project", project.path.read_bytes())
+    from calcpack.package.publish import project_basis
+
+    feed("project", project_basis(project))  # not the issued flag: it changes no result
     feed("notebook", project.sheet_path(sheet).read_bytes())
     for name in (*sheet.inputs, *project.inputs):
         feed("input:" + name, (project.root / name).read_bytes())
+    from calcpack.checks.checklists import CHECKLIST_FILE
+
+    own = project.root / CHECKLIST_FILE  # a firm's own checklists, read by Sheet.checklist
+    if own.is_file():
+        feed("checklists", own.read_bytes())
     return digest.hexdigest()
 
 

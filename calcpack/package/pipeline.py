@@ -27,8 +27,9 @@ from dataclasses import dataclass, replace
 from pathlib import Path
 from typing import Any
 
+from calcpack.contract.manifest import MANIFEST_NAME, Manifest, manifest_bytes
 from calcpack.errors import BuildError
-from calcpack.package import links
+from calcpack.package import links, publish
 from calcpack.package.bodies import convert_sheet, fill_bodies, prepare_in_worker
 from calcpack.package.document import (
     ROLES,
@@ -43,14 +44,7 @@ from calcpack.package.execute import (
     execute_sheets,
     worker_pool,
 )
-from calcpack.package.manifest import (
-    MANIFEST_ATTACHMENT_NAME,
-    MANIFEST_FORMAT,
-    dependency_versions,
-    manifest_bytes,
-    project_files,
-    sheet_record,
-)
+from calcpack.package.manifest import dependency_versions, project_files, sheet_record
 from calcpack.package.mathsvg import add_break_entries, add_cache_entries
 from calcpack.package.paginate import ChunkStore, Layout, PdfAttachment, paginate, write_pdf
 from calcpack.package.project import Person, Project, Revision, SheetEntry, load_project
@@ -84,6 +78,8 @@ class BuildResult:
     up_to_date: bool
     """True when nothing changed and the existing package was kept."""
     seconds: float
+    superseded: Path | None = None
+    """Where the signed package this build replaced was moved (``superseded/``), if any."""
 
 
 def build_created(project: Project) -> _dt.datetime:
@@ -239,7 +235,7 @@ def _build_key(
     digest = hashlib.sha256()
     for part in (
         code_hash,
-        project.path.read_bytes().decode("utf-8", "replace"),
+        publish.project_basis(project).decode("utf-8"),
         *executed_keys,
         options.paper,
         str(options.reviewer_copy),
@@ -397,6 +393,7 @@ def build(
     reviewer_copy: bool = False,
     force: bool = False,
     report: Reporter | None = None,
+    supersede_signed: bool = False,
 ) -> BuildResult:
     """Build the calc package of a project folder (or project file).
 
@@ -408,8 +405,10 @@ def build(
         use_cache: reuse executed sheets whose inputs did not change.
         paper: "A4" or "Letter" (default: the project file's).
         reviewer_copy: append every sheet's source code as an appendix.
-        force: rebuild even when the existing package is up to date.
+        force: rebuild even when the existing package is up to date (a signed one is kept).
         report: optional progress hook.
+        supersede_signed: move a signed package that the build would replace into
+            ``superseded/`` beside it (see :mod:`calcpack.package.publish`).
 
     Returns:
         The paths written and the manifest.
@@ -418,6 +417,8 @@ def build(
         ProjectFileError: the project file is missing or invalid.
         NotebookExecutionError: a cell failed; nothing is written.
         BuildError: conversion, typesetting or layout failed; nothing is written.
+        SignedPackageError: the build would replace a signed package (checked before anything
+            executes and again before writing); nothing is written.
     """
     start = time.perf_counter()
     project = load_project(location)
@@ -447,7 +448,8 @@ def build(
     code_hash = _package_code_hash()
     build_key = _build_key(project, keys, options, review_file, created, code_hash)
     previous = _previous_manifest(manifest_path)
-    if not force and pdf_path.is_file() and previous.get("build", {}).get("build_key") == build_key:
+    current = pdf_path.is_file() and previous.get("build", {}).get("build_key") == build_key
+    if current and (not force or publish.signatures_in(pdf_path)):
         revisions.keep_issued(project, manifest_path)
         return BuildResult(
             pdf_path,
@@ -459,6 +461,8 @@ def build(
             True,
             time.perf_counter() - start,
         )
+    if not supersede_signed:  # refuse at the door, before anything executes
+        publish.make_way(pdf_path, manifest_path, supersede=False)
 
     def on_sheet(stage: str, sheet: SheetEntry) -> None:
         if report:
@@ -545,13 +549,12 @@ def build(
     if use_cache:
         save_math_cache(math_cache, set(used_keys))
     sheet_ids = _sheet_ids(docs)
-    manifest: dict[str, Any] = {
-        "format": MANIFEST_FORMAT,
-        "calcpack_version": __version__,
-        "dependencies": dependency_versions(),
-        "project": project.summary(),
-        "files": project_files(project, review_file),
-        "sheets": [
+    manifest = Manifest(
+        calcpack_version=__version__,
+        dependencies=dependency_versions(),
+        project=project.summary(),
+        files=tuple(project_files(project, review_file)),
+        sheets=tuple(
             sheet_record(
                 doc.entry,
                 doc.title,
@@ -560,20 +563,20 @@ def build(
                 pages=list(layout.section_pages[sheet_ids[doc.entry.path]]),
             )
             for doc, item in zip(docs, executed, strict=True)
-        ],
-        "links": [
+        ),
+        links=tuple(
             link for doc in docs for link in links.link_records(doc.entry.path, doc.records.imports)
-        ],
-        "signature_fields": list(layout.signature_fields),
-        "sections": {k: list(v) for k, v in layout.section_pages.items()},
-        "build": {
+        ),
+        signature_fields=tuple(layout.signature_fields),
+        sections={k: list(v) for k, v in layout.section_pages.items()},
+        build={
             "created": created.isoformat(),
             "paper": options.paper,
             "reviewer_copy": reviewer_copy,
             "pages": layout.page_count,
             "build_key": build_key,
         },
-    }
+    ).to_json()
     data = manifest_bytes(manifest)
     if report:
         report("writing", pdf_path.name)
@@ -581,9 +584,7 @@ def build(
         layout,
         created=created,
         attachments=[
-            PdfAttachment(
-                MANIFEST_ATTACHMENT_NAME, data, "calcpack build manifest: inputs, versions, results"
-            )
+            PdfAttachment(MANIFEST_NAME, data, "calcpack build manifest: inputs, versions, results")
         ],
         identifier_seed=build_key.encode(),
     )
@@ -595,6 +596,12 @@ def build(
         tmp_pdf = _atomic_write(pdf_path, pdf)
     except BaseException:
         tmp_manifest.unlink(missing_ok=True)
+        raise
+    try:
+        moved = publish.make_way(pdf_path, manifest_path, supersede=supersede_signed)
+    except BaseException:
+        tmp_manifest.unlink(missing_ok=True)
+        tmp_pdf.unlink(missing_ok=True)
         raise
     os.replace(tmp_manifest, manifest_path)
     os.replace(tmp_pdf, pdf_path)
@@ -610,6 +617,7 @@ def build(
         tuple(i.entry.path for i in executed if i.from_cache),
         False,
         time.perf_counter() - start,
+        moved,
     )
 
 

@@ -19,11 +19,11 @@ from collections.abc import Sequence
 from pathlib import Path
 from typing import Any
 
+from calcpack.contract.compare import diff_manifests
 from calcpack.fileio import write_atomically
 from calcpack.package.document import RevisionMarks, SheetDoc
 from calcpack.package.manifest import sheet_record
 from calcpack.package.project import Project, Revision
-from calcpack.signing.diff import diff_manifests
 
 __all__ = [
     "ISSUED_DIR_NAME",

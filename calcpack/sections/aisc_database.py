@@ -123,6 +123,7 @@ class SteelShape:
             J=p["J"],
             Cw=p["Cw"],
             h0=p.get("ho"),
+            kdes=p["kdes"],
             rolled=True,
         )
 

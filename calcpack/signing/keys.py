@@ -364,6 +364,12 @@ class Credentials:
         return certificate_name(self.certificate)
 
     @property
+    def role(self) -> str | None:
+        """The sign-off role recorded in the certificate (its title), if it is one of ROLES."""
+        value = self.certificate.subject.native.get("title")
+        return str(value) if value in ROLES else None
+
+    @property
     def firm(self) -> str | None:
         """The signer's organisation, if the certificate names one."""
         value = self.certificate.subject.native.get("organization_name")
@@ -375,6 +381,22 @@ def certificate_name(cert: Any) -> str:
     native = cert.subject.native
     common = native.get("common_name")
     return str(common) if common else str(cert.subject.human_friendly)
+
+
+def certificate_sha256(cert: Any) -> str:
+    """Hex SHA-256 of an asn1crypto certificate's DER encoding (its fingerprint)."""
+    import hashlib
+
+    return hashlib.sha256(cert.dump()).hexdigest()
+
+
+def same_person(a: str, b: str) -> bool:
+    """Whether two signer names are the same name (case, spacing and full stops ignored)."""
+
+    def norm(name: str) -> str:
+        return " ".join(name.replace(".", " ").split()).casefold()
+
+    return bool(norm(a)) and norm(a) == norm(b)
 
 
 def load_certificates(paths: Iterable[str | os.PathLike[str]]) -> list[Any]:

@@ -17,9 +17,17 @@ from dataclasses import dataclass, field
 from pathlib import Path
 from typing import Any
 
+from calcpack.contract.compare import diff_manifests
 from calcpack.errors import InputError, VerificationError
 from calcpack.signing._util import quiet_library_logs
-from calcpack.signing.keys import ROLES, certificate_name, load_certificates
+from calcpack.signing.keys import (
+    ROLES,
+    certificate_name,
+    certificate_sha256,
+    check_role,
+    load_certificates,
+    same_person,
+)
 from calcpack.signing.manifest import read_embedded_manifest, role_of_field, signature_boxes
 
 __all__ = [
@@ -80,6 +88,8 @@ class SignatureReport:
     trust: str
     certification: bool = False
     reason: str | None = None
+    certificate: str = ""
+    """SHA-256 of the signer's certificate (DER), to tell signers apart."""
 
     @property
     def ok(self) -> bool:
@@ -227,56 +237,15 @@ def check_project_files(
 
 
 def _default_reproducer(project: Path) -> dict[str, Any]:
-    """Re-execute the project's notebooks (no execution cache) and return their records.
+    """Re-execute the project's notebooks (no execution cache) and return their records."""
+    from calcpack.package import reproduce_manifest
 
-    Uses ``calcpack.package.reproduce_manifest(project)`` when the build provides it, else
-    composes the build's own stages: ``load_project`` -> ``execute_sheets(use_cache=False)``
-    -> ``collect_records`` per executed notebook.
-
-    Raises:
-        VerificationError: the package build offers neither.
-    """
-    from calcpack import package
-
-    whole = getattr(package, "reproduce_manifest", None)
-    if whole is not None:
-        return dict(whole(project))
-    import importlib
-
-    try:
-        import nbformat
-
-        # by name: the stages live in the build's modules, imported only when reproducing
-        execute_sheets = importlib.import_module("calcpack.package.execute").execute_sheets
-        load_project = importlib.import_module("calcpack.package.project").load_project
-        collect_records = importlib.import_module("calcpack.package.records").collect_records
-    except (ImportError, AttributeError) as exc:
-        raise VerificationError(
-            "--reproduce needs the package build's execution API "
-            "(calcpack.package.reproduce_manifest, or load_project / execute_sheets / "
-            f"collect_records), which this version does not provide ({exc})"
-        ) from exc
-    loaded = load_project(project)
-    sheets = []
-    for item in execute_sheets(loaded, use_cache=False):
-        records = collect_records(nbformat.reads(item.notebook_json, as_version=4))
-        sheets.append(
-            {
-                "number": item.entry.number,
-                "title": item.entry.title,
-                "path": item.entry.path,
-                "values": list(records.values),
-                "checks": list(records.checks),
-            }
-        )
-    return {"format": "calcpack-manifest/1", "sheets": sheets}
+    return reproduce_manifest(project)
 
 
 def _reproduce(
     manifest: dict[str, Any], project: Path, reproducer: Reproducer | None
 ) -> tuple[str, ...]:
-    from calcpack.signing.diff import diff_manifests
-
     fresh = (reproducer or _default_reproducer)(project)
     titles = {s.get("path"): s.get("title") for s in manifest.get("sheets", [])}
     for sheet in fresh.get("sheets", []):
@@ -353,8 +322,9 @@ def _signature_report(
     role = role_of_field(sig.field_name)
     try:
         signer = certificate_name(sig.signer_cert)
+        fingerprint = certificate_sha256(sig.signer_cert)
     except Exception:
-        signer = "unknown signer"
+        signer, fingerprint = "unknown signer", ""
     reason_obj = sig.sig_object.get("/Reason") if sig.sig_object is not None else None
     reason = str(reason_obj) if reason_obj is not None else None
     try:
@@ -385,6 +355,7 @@ def _signature_report(
             trusted=False,
             trust="not checked",
             reason=reason,
+            certificate=fingerprint,
         )
     intact = bool(status.intact and status.valid)
     whole, changes, allowed = _describe_changes(status, later_roles)
@@ -415,7 +386,34 @@ def _signature_report(
         trust=trust,
         certification=certification,
         reason=reason,
+        certificate=fingerprint,
     )
+
+
+def _role_problems(
+    reports: list[SignatureReport], boxes: dict[str, Any], require: tuple[str, ...]
+) -> list[str]:
+    """One signer per role; the required roles signed."""
+    problems = []
+    for i, a in enumerate(reports):
+        for b in reports[i + 1 :]:
+            if a.role == b.role:
+                continue  # reported as a role signed twice
+            if (a.certificate and a.certificate == b.certificate) or same_person(
+                a.signer, b.signer
+            ):
+                problems.append(
+                    f"one signer holds two roles: {b.signer} signed as {b.role or b.field} "
+                    f"after signing as {a.role or a.field}"
+                )
+    signed = {r.role for r in reports}
+    missing = [r for r in require if r not in signed]
+    if missing:
+        problems.append(f"required role(s) not signed: {', '.join(missing)}")
+    absent = [r for r in require if boxes and r not in boxes]
+    if absent:
+        problems.append(f"required role(s) with no box in the sign-off block: {', '.join(absent)}")
+    return problems
 
 
 @quiet_library_logs()
@@ -427,6 +425,7 @@ def verify_package(
     reproduce: bool = False,
     reproducer: Reproducer | None = None,
     at: dt.datetime | None = None,
+    require: Iterable[str] = (),
 ) -> VerifyReport:
     """Verify a signed calc package.
 
@@ -438,6 +437,8 @@ def verify_package(
         reproduce: re-execute the notebooks in ``project`` and compare every recorded result.
         reproducer: the function doing the re-execution (default: the package build's).
         at: the moment to validate certificates at (default: now).
+        require: roles that must have signed (e.g. ``("preparer", "checker")``); a missing one
+            is a failure. Roles not required and not signed are reported, not failed.
 
     Returns:
         A :class:`VerifyReport`; ``report.ok`` says whether everything passed.
@@ -453,6 +454,7 @@ def verify_package(
 
     path = Path(pdf)
     source = repr(str(path))
+    required = tuple(check_role(r) for r in require)
     if not path.is_file():
         raise VerificationError(f"Package {source} does not exist")
     if reproduce and project is None:
@@ -512,6 +514,7 @@ def verify_package(
         missing = [r for r in prefix[: len(signed)] if r not in signed]
         problems.append(f"signed without the earlier role(s): {', '.join(missing)}")
     unsigned = tuple(r for r in ROLES if r in boxes and r not in signed)
+    problems += _role_problems(reports, boxes, required)
 
     files = check_project_files(manifest, project) if project is not None else None
     reproduction = (

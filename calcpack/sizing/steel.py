@@ -87,8 +87,9 @@ def aisc_candidates(
     return out
 
 
-def _prismatic_rigid(results: Mapping[str, Any]) -> Quantity:
-    """The single EI of the analysed beam; refuses stiffness segments and springs."""
+def prismatic_stiffness(results: Mapping[str, Any]) -> Quantity:
+    """The single EI of an analysed beam (results by combination); refuses stiffness segments
+    and spring supports, whose forces would change with the section."""
     first = next(iter(results.values()))
     beam = first.beam
     if any(getattr(s, "kind", "") == "spring" for s in beam.supports):
@@ -151,11 +152,11 @@ def lightest_aisc_beam(
     if self_weight_assumed is not None:
         require(self_weight_assumed, "[force] / [length]", "self_weight_assumed")
     combos = as_combinations(demand)
-    EI_ref = _prismatic_rigid(combos)
+    EI_ref = prismatic_stiffness(combos)
     service = [(d, as_combinations(d.demand)) for d in deflections]
     for d, res in service:
         require(d.span, "[length]", "span", positive=True)
-        if _prismatic_rigid(res) != EI_ref:
+        if prismatic_stiffness(res) != EI_ref:
             raise InputError(
                 f"The {d.label} deflection results were analysed with a different EI from the "
                 "strength results; analyse both with the same beam",

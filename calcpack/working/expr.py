@@ -20,7 +20,7 @@ from typing import Any, Protocol, Union
 import pint
 import sympy
 
-from calcpack.errors import DimensionError, InputError, UndefinedSymbolError
+from calcpack.errors import DimensionError, InputError, UndefinedSymbolError, ZeroDivisorError
 from calcpack.units import ureg
 from calcpack.working.format import (
     format_number,
@@ -290,6 +290,10 @@ def evaluate(term: Term, *, name: str = "result") -> pint.Quantity:
                 if isinstance(exp, pint.Quantity):
                     exp = float(exp.to("dimensionless").magnitude)
                 bmag = base.magnitude if isinstance(base, pint.Quantity) else base
+                if float(bmag) == 0 and float(exp) < 0:
+                    raise ZeroDivisorError(
+                        name, _describe(term), _describe(Term(e.args[0], term.bindings))
+                    )
                 if float(bmag) < 0 and not float(exp).is_integer():
                     raise InputError(
                         f"{name} = {_describe(term)} takes a fractional power of a negative "
@@ -320,6 +324,14 @@ def evaluate(term: Term, *, name: str = "result") -> pint.Quantity:
     result = ev(term.expr)
     if not isinstance(result, pint.Quantity):
         result = ureg.Quantity(result, "dimensionless")
+    if not math.isfinite(float(result.magnitude)):
+        raise InputError(
+            f"{name} = {_describe(term)} is not a finite number (got {result.magnitude}); "
+            "check the values it is made of",
+            name=name,
+            value=result,
+            expected="a finite value",
+        )
     return result
 
 

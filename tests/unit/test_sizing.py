@@ -189,3 +189,59 @@ def test_general_search_with_a_trial_of_ones_own_and_refusals_kept() -> None:
         lightest_sections(cands, trial, order="price")  # type: ignore[arg-type]
     with pytest.raises(InputError, match="weight of bad"):
         Candidate("bad", Q_(-1.0, "kN/m"), 0.0)
+
+
+def _joist_asd(span_ft: float):  # type: ignore[no-untyped-def]
+    """Floor joists at 16 in centres: 10 psf dead, 40 psf live (the span tables' loading)."""
+    from calcpack.combinations import asce7_allowable_stress
+
+    L = Q_(span_ft, "ft")
+    s = Q_(16, "inch")
+    beam = Beam(
+        length=L,
+        supports=[Pin(Q_(0, "ft"), name="A"), Roller(L, name="B")],
+        loads=[
+            UniformLoad(w=(Q_(10, "psf") * s).to("lbf/ft"), case="D"),
+            UniformLoad(w=(Q_(40, "psf") * s).to("lbf/ft"), case="L"),
+        ],
+        EI=Q_(1.6e6, "psi") * Q_(100, "in**4"),
+        name="J1",
+    )
+    cases = solve_cases(beam)
+    return L, cases, analyse_combinations(cases, asce7_allowable_stress())
+
+
+@pytest.mark.parametrize(("span_ft", "expected"), [(9.5, "2x6"), (12.0, "2x8"), (15.5, "2x10")])
+def test_lightest_joist_agrees_with_the_span_tables(span_ft: float, expected: str) -> None:
+    """AWC "Span Tables for Joists and Rafters" (2018), floor joists, 40 psf live, 10 psf dead,
+    L/360, Douglas Fir-Larch No.2 at 16 in: 2x6 9 ft 11 in, 2x8 13 ft 1 in, 2x10 16 ft 9 in
+    (from memory). Spans are chosen with a margin from those limits."""
+    from calcpack.checks import ServiceConditions
+    from calcpack.sizing import lightest_nds_beam
+
+    L, cases, asd = _joist_asd(span_ft)
+    found = lightest_nds_beam(
+        asd,
+        species="Douglas Fir-Larch",
+        grade="No.2",
+        sizes=("2x4", "2x6", "2x8", "2x10", "2x12"),
+        conditions=ServiceConditions(repetitive=True),
+        deflections=[DeflectionLimit(cases["L"], L, 360)],
+    )
+    assert found.best.name == expected
+
+
+def test_timber_search_refuses_bad_plies_and_hot_service() -> None:
+    from calcpack.checks import ServiceConditions
+    from calcpack.sizing import lightest_nds_beam
+
+    _, _, asd = _joist_asd(10.0)
+    with pytest.raises(InputError, match="plies"):
+        lightest_nds_beam(asd, species="Douglas Fir-Larch", grade="No.2", plies=0)
+    with pytest.raises(OutOfScopeError, match="100 °F"):
+        lightest_nds_beam(
+            asd,
+            species="Douglas Fir-Larch",
+            grade="No.2",
+            conditions=ServiceConditions(temperature=Q_(130, "degF")),
+        )

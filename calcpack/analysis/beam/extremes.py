@@ -12,14 +12,9 @@ from typing import TYPE_CHECKING
 import numpy as np
 
 from calcpack.analysis.beam.core import SIResult, evaluate
+from calcpack.analysis.beam.quantities import out_q
+from calcpack.errors import InputError
 from calcpack.units import Quantity
-
-
-def out_q(value: float, kind: str) -> Quantity:
-    from calcpack.analysis.beam.result import out_q as _out
-
-    return _out(value, kind)
-
 
 if TYPE_CHECKING:
     from calcpack.analysis.beam.result import BeamResult
@@ -56,9 +51,11 @@ class BeamExtremes:
         V_max, V_min: largest and smallest shear. M_max, M_min: largest sagging and most
         hogging moment (M_min < 0 is hogging). zero_shear: positions where V is zero or changes
         sign across a point load. contraflexure: positions inside the beam where M changes sign
-        (found when first read). deflection_down: largest downward deflection (δ > 0) or None.
-        deflection_up: largest upward movement (as a positive magnitude) or None. slope_left,
-        slope_right: θ at x = 0 and x = L (ccw +), or None without EI.
+        (found when first read). deflection_down: largest downward deflection (δ > 0), or None
+        when the beam nowhere moves down. deflection_up: largest upward movement (as a positive
+        magnitude), or None when it nowhere moves up. slope_left, slope_right: θ at x = 0 and
+        x = L (ccw +). has_deflection: whether EI was given; without it, reading a deflection
+        or a slope raises :class:`~calcpack.errors.InputError` naming the missing EI.
     """
 
     def __init__(
@@ -74,14 +71,61 @@ class BeamExtremes:
         self.V_max, self.V_min = V
         self.M_max, self.M_min = M
         self._V_roots = V_roots
-        self.deflection_down, self.deflection_up = deflection
-        self.slope_left_rad, self.slope_right_rad = slopes
+        self.has_deflection = core.v is not None and core.T is not None
+        self._deflection = deflection
+        self._slopes = slopes
+
+    def _needs_ei(self, what: str) -> None:
+        if not self.has_deflection:
+            raise InputError(
+                f"{what} needs the beam's flexural stiffness EI, which was not given (got "
+                "EI = None); give EI=... to Beam(...) to get deflections and slopes",
+                name="EI",
+                value=None,
+                expected="a flexural stiffness EI (e.g. 200 GPa × 50e6 mm⁴)",
+            )
+
+    @property
+    def deflection_down(self) -> Extreme | None:
+        """Largest downward deflection (δ > 0), None if the beam nowhere moves down.
+
+        Raises:
+            InputError: no EI was given (names EI).
+        """
+        self._needs_ei("deflection_down")
+        return self._deflection[0]
+
+    @property
+    def deflection_up(self) -> Extreme | None:
+        """Largest upward movement (positive magnitude), None if the beam nowhere moves up.
+
+        Raises:
+            InputError: no EI was given (names EI).
+        """
+        self._needs_ei("deflection_up")
+        return self._deflection[1]
+
+    @property
+    def slope_left_rad(self) -> float:
+        """θ at x = 0 in rad (ccw +). Raises InputError without EI."""
+        self._needs_ei("slope_left")
+        value = self._slopes[0]
+        assert value is not None
+        return value
+
+    @property
+    def slope_right_rad(self) -> float:
+        """θ at x = L in rad (ccw +). Raises InputError without EI."""
+        self._needs_ei("slope_right")
+        value = self._slopes[1]
+        assert value is not None
+        return value
 
     def __repr__(self) -> str:
+        down, up = self._deflection if self.has_deflection else ("no EI", "no EI")
         return (
             f"BeamExtremes(V_max={self.V_max}, V_min={self.V_min}, M_max={self.M_max}, "
-            f"M_min={self.M_min}, deflection_down={self.deflection_down}, "
-            f"deflection_up={self.deflection_up})"
+            f"M_min={self.M_min}, deflection_down={down}, deflection_up={up})"
         )
 
     @cached_property
@@ -131,12 +175,14 @@ class BeamExtremes:
         return tuple(out_q(x, "length") for x in self.contraflexure_m)
 
     @property
-    def slope_left(self) -> Quantity | None:
-        return None if self.slope_left_rad is None else out_q(self.slope_left_rad, "angle")
+    def slope_left(self) -> Quantity:
+        """θ at x = 0 (ccw +). Raises InputError without EI."""
+        return out_q(self.slope_left_rad, "angle")
 
     @property
-    def slope_right(self) -> Quantity | None:
-        return None if self.slope_right_rad is None else out_q(self.slope_right_rad, "angle")
+    def slope_right(self) -> Quantity:
+        """θ at x = L (ccw +). Raises InputError without EI."""
+        return out_q(self.slope_right_rad, "angle")
 
 
 def _closed_roots(d: np.ndarray, rows: np.ndarray) -> tuple[np.ndarray, np.ndarray]:

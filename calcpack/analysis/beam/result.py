@@ -25,29 +25,13 @@ from typing import TYPE_CHECKING, Any
 
 import numpy as np
 
+from calcpack import views
 from calcpack.analysis.beam.core import SIResult, evaluate, refine
 from calcpack.analysis.beam.extremes import BeamExtremes, find_extremes
+from calcpack.analysis.beam.quantities import out_q
 from calcpack.errors import InputError, OutOfScopeError
-from calcpack.loads._si import make_quantity
-from calcpack.units import Quantity, require, ureg
-
-# Display units of results, with the factor from SI (made once: building a quantity from a unit
-# string parses it every time, which dominated a live solve).
-_OUT = {
-    "force": (1e-3, ureg.Unit("kN")),
-    "moment": (1e-3, ureg.Unit("kN*m")),
-    "line": (1e-3, ureg.Unit("kN/m")),
-    "angle": (1.0, ureg.Unit("rad")),
-    "deflection": (1e3, ureg.Unit("mm")),
-    "length": (1.0, ureg.Unit("m")),
-}
-
-
-def out_q(value_si: Any, kind: str) -> Quantity:
-    """A result quantity in its display unit from an SI value (float or array)."""
-    f, unit = _OUT[kind]
-    return make_quantity(value_si * f, unit)
-
+from calcpack.units import Quantity, require
+from calcpack.validate import finite
 
 if TYPE_CHECKING:
     from calcpack.analysis.beam.model import Beam, BeamClassification
@@ -206,20 +190,33 @@ class BeamResult:
 
     # -- superposition -----------------------------------------------------------------------
     def scaled(self, factor: float) -> BeamResult:
-        """This result with every load multiplied by ``factor`` (linear elastic)."""
-        f = float(factor)
+        """This result with every load multiplied by ``factor`` (linear elastic).
+
+        Raises:
+            InputError: ``factor`` is not a finite number, or the scaled result overflows.
+        """
+        f = float(finite("factor", factor))
         c = self.core
-        core = SIResult(
-            c.X,
-            f * c.w,
-            f * c.V,
-            f * c.M,
-            None if c.T is None else f * c.T,
-            None if c.v is None else f * c.v,
-            f * c.N,
-            {k: f * val for k, val in c.reactions.items()},
-            {k: f * val for k, val in c.hinge_rotation.items()},
-        )
+        with np.errstate(over="ignore", invalid="ignore"):  # refused just below
+            core = SIResult(
+                c.X,
+                f * c.w,
+                f * c.V,
+                f * c.M,
+                None if c.T is None else f * c.T,
+                None if c.v is None else f * c.v,
+                f * c.N,
+                {k: f * val for k, val in c.reactions.items()},
+                {k: f * val for k, val in c.hinge_rotation.items()},
+            )
+        if not (np.isfinite(core.M).all() and np.isfinite(core.V).all()):
+            raise InputError(
+                f"Result {self.label} times factor = {f:g} overflows (a non-finite moment or "
+                "shear)",
+                name="factor",
+                value=f,
+                expected="a factor that keeps the results finite",
+            )
         return BeamResult(
             self.beam, tuple((n, f * g) for n, g in self.cases), self.classification, core
         )
@@ -307,19 +304,11 @@ class BeamResult:
 
     def figure(self, **options: Any) -> Any:
         """The stacked loading / shear / moment / deflection figure (SVG, see calcpack.plots)."""
-        from calcpack.plots.beam import beam_figure
-
-        return beam_figure(self, **options)
+        return views.render("figure", self, **options)
 
     def _repr_mimebundle_(self, include: Any = None, exclude: Any = None) -> dict[str, Any]:
         """In Jupyter a result shows its diagrams (SVG) and a one-line text summary."""
-        ex = self.extremes
-        text = (
-            f"{self.beam.name}: {self.label}; M_max = {ex.M_max.value:~.4g} at "
-            f"x = {ex.M_max.x:~.4g}, M_min = {ex.M_min.value:~.4g}, "
-            f"V_max = {ex.V_max.value:~.4g}, V_min = {ex.V_min.value:~.4g}"
-        )
-        return {"image/svg+xml": self.figure().svg, "text/plain": text}
+        return views.mimebundle(self, include, exclude)
 
 
 def combine(results: Mapping[str, BeamResult], factors: Mapping[str, float]) -> BeamResult:
@@ -351,7 +340,7 @@ def combine(results: Mapping[str, BeamResult], factors: Mapping[str, float]) -> 
                 value=f,
                 expected="a case that was solved",
             )
-        term = results[name].scaled(float(f))
+        term = results[name].scaled(float(finite(f"factors[{name!r}]", f)))
         total = term if total is None else total + term
     assert total is not None
     return total

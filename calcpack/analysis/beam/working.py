@@ -816,13 +816,13 @@ def extremes_steps(result: BeamResult) -> list[Any]:
         ["M max (sagging)", e.M_max.value.to(Mu), e.M_max.x.to(Lu), e.M_max.side],
         ["M min (hogging if < 0)", e.M_min.value.to(Mu), e.M_min.x.to(Lu), e.M_min.side],
     ]
-    if e.deflection_down is not None:
+    if e.has_deflection and e.deflection_down is not None:
         rows.append(["δ max, down", e.deflection_down.value.to(D), e.deflection_down.x.to(Lu), ""])
-    if e.deflection_up is not None:
+    if e.has_deflection and e.deflection_up is not None:
         rows.append(
             ["upward movement max", e.deflection_up.value.to(D), e.deflection_up.x.to(Lu), ""]
         )
-    if e.slope_left is not None and e.slope_right is not None:
+    if e.has_deflection:
         rows.append(["slope at x = 0 (ccw +)", e.slope_left, Q_(0.0, Lu), ""])
         rows.append(["slope at x = L (ccw +)", e.slope_right, result.beam.length.to(Lu), ""])
     steps.append(
@@ -854,7 +854,7 @@ def extremes_steps(result: BeamResult) -> list[Any]:
             unit=_u("force"),
         )
     )
-    if e.deflection_down is not None:
+    if e.has_deflection and e.deflection_down is not None:
         steps.append(
             _derived_step(
                 "delta_max",

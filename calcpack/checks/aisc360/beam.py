@@ -10,6 +10,7 @@ from typing import Any
 from calcpack.checks.aisc360.shape import _TITLE, AISC360_EDITION, E_STEEL, IShape
 from calcpack.checks.base import MemberChecks, Recorder, Standard, run_checks
 from calcpack.checks.demand import as_combinations, max_abs, segment_moments
+from calcpack.checks.scope import material_in_scope
 from calcpack.errors import InputError, OutOfScopeError
 from calcpack.units import Q_, Quantity, require, si
 
@@ -95,8 +96,8 @@ def check_aisc_beam(
         InputError: bad method, unbraced length longer than the member, missing demand.
     """
     method = _check_method(method)
-    require(Fy, "[pressure]", "Fy", positive=True)
-    require(E, "[pressure]", "E", positive=True)
+    material_in_scope("AISC 360-16|steel|Fy", "Fy", Fy)
+    material_in_scope("AISC 360-16|steel|E", "E", E)
     if on_out_of_scope not in ("refuse", "not covered"):
         raise InputError(
             f"on_out_of_scope must be 'refuse' or 'not covered' (got {on_out_of_scope!r})",

@@ -21,6 +21,7 @@ from typing import Any
 from calcpack.checks.aisc360.member_data import check_method, design_strength, member_standard
 from calcpack.checks.aisc360.shape import E_STEEL
 from calcpack.checks.base import MemberChecks, Recorder, run_checks
+from calcpack.checks.scope import material_in_scope
 from calcpack.errors import OutOfScopeError
 from calcpack.sections.aisc_database import SteelShape
 from calcpack.units import Q_, Quantity, require
@@ -77,8 +78,8 @@ def check_aisc_web_bearing(
         InputError: bad units, F_y out of range, bad method.
     """
     method = check_method(method)
-    require(Fy, "[pressure]", "Fy", positive=True)
-    within("Fy", Fy, hi=Q_(70.0, "ksi"), rule="AISC 360-16, F_y ≤ 70 ksi")
+    material_in_scope("AISC 360-16|steel|Fy", "Fy", Fy)
+    material_in_scope("AISC 360-16|steel|E", "E", E)
     if shape.type not in ("W", "M", "S", "HP"):
         raise OutOfScopeError(
             f"Shape {shape.designation} ({shape.type}): §J10.2-§J10.4 are implemented here for "

@@ -14,6 +14,7 @@ from typing import Any, Literal
 
 from calcpack.checks.aisc360.shape import _TITLE, AISC360_EDITION, E_STEEL
 from calcpack.checks.base import Recorder, Standard
+from calcpack.checks.scope import material_in_scope
 from calcpack.errors import InputError
 from calcpack.sections.aisc_database import SteelShape
 from calcpack.units import Q_, Quantity, require
@@ -122,12 +123,11 @@ class SteelMember:
                 value=self.shape,
                 expected="aisc_shape('W8X18') or similar",
             )
-        require(self.Fy, "[pressure]", "Fy", positive=True)
-        within("Fy", self.Fy, hi=Q_(70.0, "ksi"), rule="AISC 360-16 member checks, F_y ≤ 70 ksi")
+        material_in_scope("AISC 360-16|steel|Fy", "Fy", self.Fy)
         if self.Fu is not None:
             require(self.Fu, "[pressure]", "Fu", positive=True)
             within("Fu", self.Fu, lo=self.Fy, rule="F_u is not less than F_y")
-        require(self.E, "[pressure]", "E", positive=True)
+        material_in_scope("AISC 360-16|steel|E", "E", self.E)
         require(self.G, "[pressure]", "G", positive=True)
         for nm in ("Lcx", "Lcy", "Lcz", "Lb"):
             _opt_length(getattr(self, nm), nm)

@@ -15,6 +15,25 @@ _TITLE = "Specification for Structural Steel Buildings"
 E_STEEL = Q_(29000.0, "ksi")  # modulus of elasticity of steel, AISC 360-16 (E = 29 000 ksi)
 
 
+H_TW_TOLERANCE = 0.02
+"""A stated h/t_w may differ from the one its dimensions imply by this much (rounding of
+tabulated values)."""
+ROLLED_H_MIN_FRACTION = 0.6
+"""Without k_des, the clear web height of a rolled shape, h, is taken to be at least this share
+of d − 2 t_f: the fillets of rolled W, M, S and HP shapes take less than that (common practice;
+e.g. about 0.95 of d − 2 t_f for a W18x50 and 0.7 for the small S shapes, from memory)."""
+
+
+def _ratio_error(name: str, stated: float, implied: float, rule: str, span: str) -> InputError:
+    return InputError(
+        f"Section {name}: the stated web slenderness h_tw = {stated:.4g} disagrees with its "
+        f"dimensions, {rule} = {implied:.4g}; it must be {span}. Check t_w, d and h_tw",
+        name="h_tw",
+        value=stated,
+        expected=f"{span} of {rule} = {implied:.4g}",
+    )
+
+
 @dataclass(frozen=True)
 class IShape:
     """Properties of a doubly symmetric I-shape for §F2 and §G2 (as tabulated for rolled shapes).
@@ -30,6 +49,15 @@ class IShape:
         J: torsion constant. Cw: warping constant.
         h0: distance between flange centroids (default d − t_f).
         rolled: rolled shape (True) or built-up (False); matters for §G2.1(a).
+        kdes: design distance from the outer flange face to the web toe of the fillet (as
+            tabulated for rolled shapes). With it, the stated h_tw must agree within 2 % with
+            (d − 2 k_des)/t_w; for a built-up shape, with (d − 2 t_f)/t_w. A rolled shape
+            without k_des is checked more loosely: h = h_tw·t_w must lie between
+            ``ROLLED_H_MIN_FRACTION`` × (d − 2 t_f) and (d − 2 t_f) + 2 %.
+
+    Raises:
+        InputError: a dimension missing, not positive or of the wrong unit; t_w ≥ b_f;
+            Z_x < S_x; a stated h_tw that the shape's own dimensions contradict.
     """
 
     name: str
@@ -48,6 +76,7 @@ class IShape:
     Cw: Quantity
     h0: Quantity | None = None
     rolled: bool = True
+    kdes: Quantity | None = None
 
     def __post_init__(self) -> None:
         if not isinstance(self.source, str) or not self.source.strip():
@@ -90,6 +119,7 @@ class IShape:
                 value=self.tw,
                 expected="tw < bf",
             )
+        self._check_h_tw()
         if si(self.Zx) < si(self.Sx):
             raise InputError(
                 f"Plastic modulus Zx must not be less than elastic modulus Sx (got Zx = "
@@ -97,6 +127,38 @@ class IShape:
                 name="Zx",
                 value=self.Zx,
                 expected="Zx >= Sx",
+            )
+
+    def _check_h_tw(self) -> None:
+        """The stated web slenderness against the section's own dimensions (see the class)."""
+        d, tf, tw = si(self.d), si(self.tf), si(self.tw)
+        clear = d - 2.0 * tf
+        if clear <= 0:
+            raise InputError(
+                f"Section {self.name}: depth d must exceed twice the flange thickness (got "
+                f"d = {self.d:~P}, tf = {self.tf:~P})",
+                name="d",
+                value=self.d,
+                expected="d > 2·tf",
+            )
+        if self.kdes is not None:
+            require(self.kdes, "[length]", "kdes", positive=True)
+        if self.kdes is not None or not self.rolled:
+            h = d - 2.0 * si(self.kdes) if self.kdes is not None else clear
+            rule = "(d − 2·kdes)/tw" if self.kdes is not None else "(d − 2·tf)/tw (built-up)"
+            implied = h / tw
+            if implied <= 0 or abs(self.h_tw / implied - 1.0) > H_TW_TOLERANCE:
+                raise _ratio_error(self.name, self.h_tw, implied, rule, "within 2 %")
+            return
+        lo = ROLLED_H_MIN_FRACTION * clear / tw
+        hi = (1.0 + H_TW_TOLERANCE) * clear / tw
+        if not lo <= self.h_tw <= hi:
+            raise _ratio_error(
+                self.name,
+                self.h_tw,
+                clear / tw,
+                "(d − 2·tf)/tw",
+                f"between {lo:.3g} and {hi:.3g} for a rolled shape (give kdes for the 2 % check)",
             )
 
     @classmethod
@@ -131,6 +193,7 @@ class IShape:
             Cw=p.Cw,
             h0=shape.h0,
             rolled=rolled,
+            kdes=shape.d / 2 - shape.h / 2,
         )
 
     @property

@@ -6,6 +6,7 @@ from __future__ import annotations
 
 from dataclasses import dataclass
 
+from calcpack.checks.scope import material_in_scope
 from calcpack.errors import InputError, OutOfScopeError
 from calcpack.units import Q_, Quantity, require, si
 
@@ -230,6 +231,8 @@ class ReferenceDesignValues:
                     expected="a stress",
                 )
             require(v, "[pressure]", nm, positive=True)
+        material_in_scope("NDS 2018|wood|E", "E", self.E)
+        material_in_scope("NDS 2018|wood|Emin", "Emin", self.Emin)
 
 
 @dataclass(frozen=True)

@@ -16,6 +16,7 @@ from __future__ import annotations
 from dataclasses import dataclass
 from typing import Literal
 
+from calcpack.checks.scope import material_in_scope
 from calcpack.errors import InputError
 from calcpack.refdata import read_table
 from calcpack.units import Q_, Quantity, require
@@ -59,6 +60,8 @@ class TimberValues:
             )
         for nm in ("Fb", "Ft", "Fv", "Fc_perp", "Fc", "E", "Emin"):
             require(getattr(self, nm), "[pressure]", nm, positive=True)
+        material_in_scope("NDS 2018|wood|E", "E", self.E)
+        material_in_scope("NDS 2018|wood|Emin", "Emin", self.Emin)
 
 
 def _psi(x: object) -> Quantity:

@@ -8,8 +8,6 @@ import io
 import json
 import random
 import re
-import shutil
-import sys
 from pathlib import Path
 from typing import Any
 
@@ -239,16 +237,3 @@ def test_reproduce_compares_every_recorded_result(
 def test_reproduce_needs_the_project(signed_package: Path, demo: Any) -> None:
     with pytest.raises(InputError, match="--project DIR"):
         verify_package(signed_package, [demo.root], reproduce=True)
-
-
-def test_reproduce_without_the_build_api_says_what_is_missing(
-    signed_package: Path, demo: Any, tmp_path: Path, monkeypatch: pytest.MonkeyPatch
-) -> None:
-    import calcpack.package
-
-    monkeypatch.delattr(calcpack.package, "reproduce_manifest", raising=False)
-    copy = tmp_path / "p.pdf"
-    shutil.copy(signed_package, copy)
-    monkeypatch.setitem(sys.modules, "calcpack.package.execute", None)  # no build stages
-    with pytest.raises(VerificationError, match=r"calcpack\.package\.reproduce_manifest"):
-        verify_package(copy, [demo.root], project=tmp_path, reproduce=True)
