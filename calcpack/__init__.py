@@ -243,6 +243,14 @@ _LAZY: dict[str, str] = {
     "internal_pressure_en": "calcpack.loads.wind_en1991",
     "BuildingEN": "calcpack.loads.wind_en1991_cpe",
     "wind_pressures_en": "calcpack.loads.wind_en1991_cpe",
+    "RoofProfile": "calcpack.loads.roof_cases",
+    "line_loads": "calcpack.loads.roof_cases",
+    "truss_joint_loads": "calcpack.loads.roof_cases",
+    "case_groups": "calcpack.loads.roof_cases",
+    "snow_profiles_en": "calcpack.loads.roof_profiles",
+    "snow_profiles_asce7": "calcpack.loads.roof_profiles",
+    "wind_profiles_en": "calcpack.loads.roof_profiles",
+    "wind_profiles_asce7": "calcpack.loads.roof_profiles",
 }
 
 
@@ -350,6 +358,18 @@ if TYPE_CHECKING:
         PolynomialLoad,
         UniformLoad,
         resultant,
+    )
+    from calcpack.loads.roof_cases import (
+        RoofProfile,
+        case_groups,
+        line_loads,
+        truss_joint_loads,
+    )
+    from calcpack.loads.roof_profiles import (
+        snow_profiles_asce7,
+        snow_profiles_en,
+        wind_profiles_asce7,
+        wind_profiles_en,
     )
     from calcpack.loads.snow_asce7 import (
         SnowRoofASCE7,
@@ -547,6 +567,7 @@ __all__ = [
     "RectangularHollow",
     "ReferenceDesignValues",
     "Roller",
+    "RoofProfile",
     "SafetyFactors",
     "SawnMember",
     "ServiceConditions",
@@ -602,6 +623,7 @@ __all__ = [
     "annex_serviceability",
     "atan",
     "build",
+    "case_groups",
     "check_aci_footing",
     "check_aisc_base_plate",
     "check_aisc_beam",
@@ -642,6 +664,7 @@ __all__ = [
     "lightest_aisc_beam",
     "lightest_nds_beam",
     "lightest_sections",
+    "line_loads",
     "lintel_masonry_loads",
     "load_inputs",
     "load_project",
@@ -667,6 +690,8 @@ __all__ = [
     "sin",
     "sliding_snow_asce7",
     "snow_drift_en",
+    "snow_profiles_asce7",
+    "snow_profiles_en",
     "soil_pressure",
     "solve_beam",
     "solve_cases",
@@ -679,10 +704,13 @@ __all__ = [
     "superpose",
     "takedown",
     "tan",
+    "truss_joint_loads",
     "update_inputs",
     "ureg",
     "velocity_pressure_asce7",
     "verify_package",
     "wind_pressures_en",
+    "wind_profiles_asce7",
+    "wind_profiles_en",
     "yield_limits",
 ]
