@@ -1,7 +1,6 @@
 """W-shapes used by the AISC Design Examples tests, with properties as printed in the AISC
-Shapes Database v15.0 (American Institute of Steel Construction, 2017), the properties the
-Companion's examples read from Manual Table 1-1 (confirmed against the database; see
-shared/references/published-values.md)."""
+Shapes Database v15.0 (American Institute of Steel Construction, 2017): the properties the
+Companion's examples read from Manual Table 1-1, read against the database."""
 
 from __future__ import annotations
 
