@@ -17,8 +17,9 @@ from typing import Any
 
 from calcpack.contract.compare import Change
 from calcpack.contract.records import SheetRecords
-from calcpack.contract.verdict import Verdict, check_sort_key
+from calcpack.contract.verdict import Verdict, check_sort_key, is_classification
 from calcpack.package.project import Person, Project, SheetEntry
+from calcpack.working.format import format_number
 from calcpack.working.render import symbols_html
 
 __all__ = [
@@ -102,17 +103,11 @@ class DocumentOptions:
 
 
 def format_sig(value: float | None, sig_figs: int = 3) -> str:
-    """A number to ``sig_figs`` significant figures without exponent for everyday magnitudes."""
+    """A number to ``sig_figs`` significant figures by the working's formatter (the one number
+    formatter of a package), or a dash when there is none."""
     if value is None or not math.isfinite(value):
         return "—"
-    if value == 0:
-        return "0"
-    magnitude = math.floor(math.log10(abs(value)))
-    if magnitude >= 7 or magnitude <= -5:
-        return f"{value:.{sig_figs - 1}e}"
-    decimals = sig_figs - 1 - magnitude
-    rounded = round(value, decimals)
-    return f"{rounded:.{max(decimals, 0)}f}"
+    return format_number(value, sig_figs)
 
 
 def _e(text: Any) -> str:
@@ -303,20 +298,31 @@ def _design_basis(project: Project, sheets: Sequence[SheetDoc]) -> str:
     return "".join(parts)
 
 
+def _gathered(general: Sequence[str], sheets: Sequence[SheetDoc], field_name: str) -> list[str]:
+    """Each text once, in first-seen order, with the sheets that declare it: a caution every
+    sheet of one standard carries is said once, "(sheets 1, 2, 4)"."""
+    seen: dict[str, list[str]] = {}
+    for text in general:
+        seen.setdefault(text, [])
+    for sheet in sheets:
+        for text in getattr(sheet.records, field_name):
+            where = seen.setdefault(text, [])
+            if sheet.entry.number not in where and (where or text not in general):
+                where.append(sheet.entry.number)
+    out = []
+    for text, where in seen.items():
+        tag = ""
+        if where:
+            label = "sheet" if len(where) == 1 else "sheets"
+            tag = f' <span class="cpd-src">({label} {_e(", ".join(where))})</span>'
+        out.append(_inline_markdown(text) + tag)
+    return out
+
+
 def _assumptions(project: Project, sheets: Sequence[SheetDoc]) -> str:
-    assumptions = [_inline_markdown(a) for a in project.design.assumptions]
-    for sheet in sheets:
-        assumptions += [
-            f'{_inline_markdown(a)} <span class="cpd-src">(sheet {_e(sheet.entry.number)})</span>'
-            for a in sheet.records.assumptions
-        ]
-    cautions = [_e(c) for c in STANDARD_CAUTIONS]
-    cautions += [_inline_markdown(c) for c in project.design.cautions]
-    for sheet in sheets:
-        cautions += [
-            f'{_inline_markdown(c)} <span class="cpd-src">(sheet {_e(sheet.entry.number)})</span>'
-            for c in sheet.records.cautions
-        ]
+    assumptions = _gathered(project.design.assumptions, sheets, "assumptions")
+    standard = [_e(c) for c in STANDARD_CAUTIONS]
+    cautions = standard + _gathered(project.design.cautions, sheets, "cautions")
     body = (
         _list(assumptions, ordered=True)
         if assumptions
@@ -338,48 +344,86 @@ def _verdict(verdict: str) -> str:
     return f'<span class="cpd-verdict {cls}">{_e(verdict)}</span>'
 
 
-def _summary(project: Project, sheets: Sequence[SheetDoc]) -> str:
-    rows = []
-    entries = [(sheet, c) for sheet in sheets for c in sheet.records.checks]
-    entries.sort(key=lambda item: check_sort_key(item[1]))
-    for sheet, c in entries:
-        u = c.get("utilisation")
-        bar = ""
-        if u is not None:
-            width = min(u, 1.5) / 1.5 * 14
-            over = " over" if u > 1 else ""
-            bar = f' <span class="cpd-ubar{over}" style="width:{width:.1f}mm"></span>'
-        unit = f" {_e(c['unit'])}" if c.get("unit") else ""
-        rows.append(
-            f"<tr><td>{_e(sheet.entry.number)}</td><td>{_e(c.get('member') or '')}</td>"
-            f"<td>{_e(c['name'])}</td><td>{_e(c.get('combination') or '')}</td>"
+def _pageref(i: int) -> str:
+    """A link to sheet ``i`` showing its first page number (written in at layout)."""
+    return f'<a class="cp-pageref" href="#sheet-{i}"></a>'
+
+
+def _check_row(i: int, sheet: SheetDoc, c: dict[str, Any], *, ratio_words: bool) -> str:
+    u = c.get("utilisation")
+    unit = f" {_e(c['unit'])}" if c.get("unit") else ""
+    ref = _e(c.get("ref") or "")
+    if c["verdict"] == Verdict.NOT_COVERED:
+        # what is missing, in place of numbers that could not be given
+        missing = symbols_html(_e(c.get("description") or "not covered by this method"))
+        middle = f'<td colspan="3" class="cpd-missing">{missing}</td>'
+    else:
+        if u is None:
+            ratio = "—"
+        elif ratio_words:
+            rel = "≤" if c["verdict"] == Verdict.OK else "&gt;"
+            ratio = f"{format_sig(u)} {rel} 1.00"
+        else:
+            ratio = format_sig(u)
+        middle = (
             f'<td class="num">{format_sig(c.get("demand"))}{unit}</td>'
             f'<td class="num">{format_sig(c.get("capacity"))}{unit}</td>'
-            f'<td class="num">{"—" if u is None else f"{u:.2f}"}{bar}</td>'
-            f"<td>{_verdict(c['verdict'])}</td><td>{_e(c.get('ref') or '')}</td></tr>"
+            f'<td class="num">{ratio}</td>'
         )
-    if rows:
-        table = (
-            '<table class="cpd-table"><thead><tr><th>Sheet</th><th>Member</th><th>Check</th>'
-            "<th>Combination</th><th>Demand</th><th>Capacity</th><th>Utilisation</th>"
-            "<th>Verdict</th><th>Reference</th></tr></thead><tbody>"
+    return (
+        f"<tr><td>{_e(sheet.entry.number)}</td><td>{_e(c.get('member') or '')}</td>"
+        f"<td>{symbols_html(_e(c['name']))}</td><td>{_e(c.get('combination') or '')}</td>"
+        f"{middle}<td>{_verdict(c['verdict'])}</td><td>{ref}</td>"
+        f'<td class="num">{_pageref(i)}</td></tr>'
+    )
+
+
+def _summary(project: Project, sheets: Sequence[SheetDoc]) -> str:
+    entries = [
+        (i, sheet, c) for i, sheet in enumerate(sheets, start=1) for c in sheet.records.checks
+    ]
+    entries.sort(key=lambda item: check_sort_key(item[2]))
+    strength = [e for e in entries if not is_classification(e[2])]
+    limits = [e for e in entries if is_classification(e[2])]
+
+    def table(rows: list[str], ratio: str) -> str:
+        return (
+            '<table class="cpd-table cpd-summary"><thead><tr><th>Sheet</th><th>Member</th>'
+            f"<th>Check</th><th>Combination</th><th>Demand</th><th>Capacity</th><th>{ratio}</th>"
+            "<th>Verdict</th><th>Clause</th><th>Page</th></tr></thead><tbody>"
             + "".join(rows)
             + "</tbody></table>"
         )
-    else:
-        table = '<p class="cp-empty">The sheets record no design checks.</p>'
-    counts = {v: sum(1 for _, c in entries if c["verdict"] == v) for v in Verdict}
-    line = (
-        f"<p>{len(entries)} checks: "
-        + ", ".join(f"{counts[v]} {v}" for v in Verdict)
-        + ". Worst first.</p>"
+
+    def counts(group: list[tuple[int, SheetDoc, dict[str, Any]]]) -> str:
+        found = {v: sum(1 for _, _, c in group if c["verdict"] == v) for v in Verdict}
+        return ", ".join(f"{found[v]} {v}" for v in Verdict if found[v])
+
+    parts = [
+        _titleblock(project, sheet_no="—", title="Summary of checks", pages=None),
+        '<h1 class="cp-h cp-bm1">Summary of checks</h1>',
+    ]
+    if not entries:
+        parts.append('<p class="cp-empty">The sheets record no design checks.</p>')
+        return "".join(parts)
+    parts.append(
+        '<h2 class="cp-h">Strength and serviceability</h2>'
+        f"<p>{len(strength)} demand/capacity checks: {counts(strength) or 'none'}. Worst first; "
+        "utilisation = |demand| / capacity.</p>"
     )
-    return (
-        _titleblock(project, sheet_no="—", title="Summary of checks", pages=None)
-        + '<h1 class="cp-h cp-bm1">Summary of checks</h1>'
-        + line
-        + table
-    )
+    if strength:
+        parts.append(
+            table([_check_row(i, s, c, ratio_words=True) for i, s, c in strength], "Utilisation")
+        )
+    if limits:
+        parts.append(
+            '<h2 class="cp-h">Classification and limits</h2>'
+            f"<p>{len(limits)} checks of a section class or a limit of a method "
+            f"({counts(limits)}): the ratio is the value against its limit, not a share of "
+            "a strength used.</p>"
+            + table([_check_row(i, s, c, ratio_words=False) for i, s, c in limits], "Ratio")
+        )
+    return "".join(parts)
 
 
 MAX_CHANGES_PER_SHEET = 8
