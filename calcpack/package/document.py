@@ -17,7 +17,6 @@ from typing import Any
 
 from calcpack.contract.compare import Change
 from calcpack.contract.records import SheetRecords
-from calcpack.contract.verdict import Verdict, check_sort_key, is_classification
 from calcpack.package.project import Person, Project, SheetEntry
 from calcpack.working.format import format_number
 from calcpack.working.render import symbols_html
@@ -195,6 +194,8 @@ def _titleblock(
 
 
 def _cover(project: Project, sheets: Sequence[SheetDoc]) -> str:
+    from calcpack.package.summary import check_counts, counts_line
+
     rev = project.revision
     standards = "<br>".join(_e(s) for s in project.design.standards)
     boxes = []
@@ -224,6 +225,7 @@ def _cover(project: Project, sheets: Sequence[SheetDoc]) -> str:
 <tr><th>Design standards</th><td>{standards}</td></tr>
 <tr><th>Unit system</th><td>{_e(project.units)}</td></tr>
 <tr><th>Extent</th><td>{len(sheets)} sheets, <span class="totalpages"></span> pages</td></tr>
+<tr><th>Checks</th><td>{_e(counts_line(check_counts(sheets)))}</td></tr>
 </table>
 <div class="cp-signoff"><div class="heading">Sign-off</div>
 <table><tr>{"".join(boxes)}</tr></table>
@@ -339,91 +341,14 @@ def _assumptions(project: Project, sheets: Sequence[SheetDoc]) -> str:
     )
 
 
-def _verdict(verdict: str) -> str:
-    cls = {Verdict.OK: "ok", Verdict.NOT_OK: "notok"}.get(Verdict.parse(verdict), "nc")
-    return f'<span class="cpd-verdict {cls}">{_e(verdict)}</span>'
-
-
-def _pageref(i: int) -> str:
-    """A link to sheet ``i`` showing its first page number (written in at layout)."""
-    return f'<a class="cp-pageref" href="#sheet-{i}"></a>'
-
-
-def _check_row(i: int, sheet: SheetDoc, c: dict[str, Any], *, ratio_words: bool) -> str:
-    u = c.get("utilisation")
-    unit = f" {_e(c['unit'])}" if c.get("unit") else ""
-    ref = _e(c.get("ref") or "")
-    if c["verdict"] == Verdict.NOT_COVERED:
-        # what is missing, in place of numbers that could not be given
-        missing = symbols_html(_e(c.get("description") or "not covered by this method"))
-        middle = f'<td colspan="3" class="cpd-missing">{missing}</td>'
-    else:
-        if u is None:
-            ratio = "—"
-        elif ratio_words:
-            rel = "≤" if c["verdict"] == Verdict.OK else "&gt;"
-            ratio = f"{format_sig(u)} {rel} 1.00"
-        else:
-            ratio = format_sig(u)
-        middle = (
-            f'<td class="num">{format_sig(c.get("demand"))}{unit}</td>'
-            f'<td class="num">{format_sig(c.get("capacity"))}{unit}</td>'
-            f'<td class="num">{ratio}</td>'
-        )
-    return (
-        f"<tr><td>{_e(sheet.entry.number)}</td><td>{_e(c.get('member') or '')}</td>"
-        f"<td>{symbols_html(_e(c['name']))}</td><td>{_e(c.get('combination') or '')}</td>"
-        f"{middle}<td>{_verdict(c['verdict'])}</td><td>{ref}</td>"
-        f'<td class="num">{_pageref(i)}</td></tr>'
-    )
-
-
 def _summary(project: Project, sheets: Sequence[SheetDoc]) -> str:
-    entries = [
-        (i, sheet, c) for i, sheet in enumerate(sheets, start=1) for c in sheet.records.checks
-    ]
-    entries.sort(key=lambda item: check_sort_key(item[2]))
-    strength = [e for e in entries if not is_classification(e[2])]
-    limits = [e for e in entries if is_classification(e[2])]
+    from calcpack.package.summary import summary_html
 
-    def table(rows: list[str], ratio: str) -> str:
-        return (
-            '<table class="cpd-table cpd-summary"><thead><tr><th>Sheet</th><th>Member</th>'
-            f"<th>Check</th><th>Combination</th><th>Demand</th><th>Capacity</th><th>{ratio}</th>"
-            "<th>Verdict</th><th>Clause</th><th>Page</th></tr></thead><tbody>"
-            + "".join(rows)
-            + "</tbody></table>"
-        )
-
-    def counts(group: list[tuple[int, SheetDoc, dict[str, Any]]]) -> str:
-        found = {v: sum(1 for _, _, c in group if c["verdict"] == v) for v in Verdict}
-        return ", ".join(f"{found[v]} {v}" for v in Verdict if found[v])
-
-    parts = [
-        _titleblock(project, sheet_no="—", title="Summary of checks", pages=None),
-        '<h1 class="cp-h cp-bm1">Summary of checks</h1>',
-    ]
-    if not entries:
-        parts.append('<p class="cp-empty">The sheets record no design checks.</p>')
-        return "".join(parts)
-    parts.append(
-        '<h2 class="cp-h">Strength and serviceability</h2>'
-        f"<p>{len(strength)} demand/capacity checks: {counts(strength) or 'none'}. Worst first; "
-        "utilisation = |demand| / capacity.</p>"
+    return (
+        _titleblock(project, sheet_no="—", title="Summary of checks", pages=None)
+        + '<h1 class="cp-h cp-bm1">Summary of checks</h1>'
+        + summary_html(sheets)
     )
-    if strength:
-        parts.append(
-            table([_check_row(i, s, c, ratio_words=True) for i, s, c in strength], "Utilisation")
-        )
-    if limits:
-        parts.append(
-            '<h2 class="cp-h">Classification and limits</h2>'
-            f"<p>{len(limits)} checks of a section class or a limit of a method "
-            f"({counts(limits)}): the ratio is the value against its limit, not a share of "
-            "a strength used.</p>"
-            + table([_check_row(i, s, c, ratio_words=False) for i, s, c in limits], "Ratio")
-        )
-    return "".join(parts)
 
 
 MAX_CHANGES_PER_SHEET = 8

@@ -185,7 +185,8 @@ def _check_tex(step: Check) -> tuple[str, str]:
 
 
 def _verdict_html(verdict: str) -> str:
-    cls = {Verdict.OK: "cp-ok", Verdict.NOT_OK: "cp-notok"}.get(verdict, "cp-nc")
+    classes: dict[str, str] = {Verdict.OK: "cp-ok", Verdict.NOT_OK: "cp-notok"}
+    cls = classes.get(verdict, "cp-nc")
     return f'<span class="cp-verdict {cls}">{_esc(verdict)}</span>'
 
 

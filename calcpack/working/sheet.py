@@ -10,6 +10,7 @@ from __future__ import annotations
 import os
 import sys
 import warnings
+from pathlib import Path
 from typing import Any
 
 import pint
@@ -553,6 +554,48 @@ class Sheet:
         result = takedown(*reactions, onto=onto)
         self.add(result.working(settings=self.settings))
         return result
+
+    # -- what a checker expects to see checked -------------------------------------------
+    def checklist(
+        self,
+        member_type: str,
+        *,
+        member: str,
+        not_applicable: dict[str, str] | None = None,
+        met_by: dict[str, str] | None = None,
+    ) -> Any:
+        """Declare a member's type, so the package lists every item of its checklist as met
+        by a check, not applicable, or NOT COVERED (see :mod:`calcpack.checks.checklists`).
+
+        Args:
+            member_type: ``"steel beam"``, ``"timber beam"``/``"joist"``, ``"post"``/
+                ``"column"``, ``"truss"``, ``"bearing"``, ``"footing"``, ``"connection"``.
+            member: the member's mark, as its checks name it (``"B1"``).
+            not_applicable: item -> why it does not apply (words, shown in the package).
+            met_by: item -> the member or check elsewhere that meets it (``"P1"``).
+
+        The checklist is the project's own ``member_checklists.csv`` when the project folder
+        holds one, else calcpack's (common practice). Call it after the sheet's checks to see
+        on the sheet which of them meet which item.
+
+        Raises:
+            InputError: unknown member type or item, or a declaration without a reason.
+        """
+        from calcpack.checks.checklists import member_checklist
+        from calcpack.working.checklist import Checklist
+        from calcpack.working.links import _find_root
+
+        declared = member_checklist(
+            member_type,
+            member=member,
+            not_applicable=not_applicable,
+            met_by=met_by,
+            project_root=_find_root(Path.cwd().resolve()),
+        )
+        checks = [c for c in self.records().get("checks", []) if isinstance(c, dict)]
+        step = Checklist(declared.to_json(), checks, settings=self.settings)
+        self.add(step)
+        return step
 
     # -- data ---------------------------------------------------------------------------
     def __getitem__(self, name: str) -> Value:
