@@ -362,7 +362,8 @@ def _change_text(change: Change) -> str:
     old = _e(change.old) if change.old is not None else "(none)"
     new = _e(change.new) if change.new is not None else "(removed)"
     verdict = " <b>verdict changed</b>" if change.verdict_changed else ""
-    return f"{what} {_e(change.name)}: {old} &#8594; {new}{verdict}"
+    note = f" <i>({_e(change.note())})</i>" if change.note() else ""
+    return f"{what} {_e(change.name)}: {old} &#8594; {new}{verdict}{note}"
 
 
 def _revision_changes(since: str, changes: Sequence[Change]) -> str:
@@ -372,7 +373,8 @@ def _revision_changes(since: str, changes: Sequence[Change]) -> str:
         return f'<p class="cp-empty">{nothing}</p>'
     by_sheet: dict[str, list[Change]] = {}
     for change in changes:
-        by_sheet.setdefault(change.sheet, []).append(change)
+        if change.shown:  # an imported copy is listed at the value it copies
+            by_sheet.setdefault(change.sheet, []).append(change)
     items = []
     for sheet, found in by_sheet.items():
         shown = "; ".join(_change_text(c) for c in found[:MAX_CHANGES_PER_SHEET])
