@@ -11,12 +11,14 @@ import importlib
 from importlib.metadata import PackageNotFoundError, version
 from typing import TYPE_CHECKING, Any
 
+from calcpack import notebook as _notebook  # noqa: F401  (registers the standard renderers)
 from calcpack.errors import (
     BuildError,
     CalcpackError,
     DimensionError,
     InputError,
     NotebookExecutionError,
+    NoViewError,
     OutOfScopeError,
     SigningError,
     UndefinedSymbolError,
@@ -230,6 +232,18 @@ _LAZY: dict[str, str] = {
     "Candidate": "calcpack.sizing",
     "DeflectionLimit": "calcpack.sizing",
     "SizingResult": "calcpack.sizing",
+    "euro_section": "calcpack.sections.eurocode_tables",
+    "euro_section_names": "calcpack.sections.eurocode_tables",
+    "EuroSection": "calcpack.sections.eurocode_tables",
+    "SteelMemberEC": "calcpack.checks.en1993",
+    "DesignForces": "calcpack.checks.en1993",
+    "check_en1993_member": "calcpack.checks.en1993",
+    "check_en1993_beam": "calcpack.checks.en1993",
+    "check_en1993_web_bearing": "calcpack.checks.en1993",
+    "en1990_annex": "calcpack.combinations",
+    "annex_combinations": "calcpack.combinations",
+    "annex_serviceability": "calcpack.combinations",
+    "annex_equ_combinations": "calcpack.combinations",
     # snow and wind to EN 1991-1-3 / EN 1991-1-4 (UK annex or recommended values)
     "SnowSiteEN": "calcpack.loads.snow_en1991",
     "SnowRoofEN": "calcpack.loads.snow_en1991",
@@ -241,6 +255,14 @@ _LAZY: dict[str, str] = {
     "internal_pressure_en": "calcpack.loads.wind_en1991",
     "BuildingEN": "calcpack.loads.wind_en1991_cpe",
     "wind_pressures_en": "calcpack.loads.wind_en1991_cpe",
+    "RoofProfile": "calcpack.loads.roof_cases",
+    "line_loads": "calcpack.loads.roof_cases",
+    "truss_joint_loads": "calcpack.loads.roof_cases",
+    "case_groups": "calcpack.loads.roof_cases",
+    "snow_profiles_en": "calcpack.loads.roof_profiles",
+    "snow_profiles_asce7": "calcpack.loads.roof_profiles",
+    "wind_profiles_en": "calcpack.loads.roof_profiles",
+    "wind_profiles_asce7": "calcpack.loads.roof_profiles",
 }
 
 
@@ -304,12 +326,23 @@ if TYPE_CHECKING:
     )
     from calcpack.checks.aci318 import ACIFootingDesign, check_aci_footing
     from calcpack.checks.en1992 import ECFootingDesign, check_en1992_footing
+    from calcpack.checks.en1993 import (
+        DesignForces,
+        SteelMemberEC,
+        check_en1993_beam,
+        check_en1993_member,
+        check_en1993_web_bearing,
+    )
     from calcpack.checks.en1997 import PresumedBearing, SoilStrength, check_en1997_pad
     from calcpack.combinations import (
         CombinationSet,
         LoadCombination,
         analyse_combinations,
+        annex_combinations,
+        annex_equ_combinations,
+        annex_serviceability,
         combination_set,
+        en1990_annex,
         pattern_cases,
         superpose,
     )
@@ -337,6 +370,18 @@ if TYPE_CHECKING:
         PolynomialLoad,
         UniformLoad,
         resultant,
+    )
+    from calcpack.loads.roof_cases import (
+        RoofProfile,
+        case_groups,
+        line_loads,
+        truss_joint_loads,
+    )
+    from calcpack.loads.roof_profiles import (
+        snow_profiles_asce7,
+        snow_profiles_en,
+        wind_profiles_asce7,
+        wind_profiles_en,
     )
     from calcpack.loads.snow_asce7 import (
         SnowRoofASCE7,
@@ -399,6 +444,11 @@ if TYPE_CHECKING:
         sawn_timber,
         second_moment_from_radius,
     )
+    from calcpack.sections.eurocode_tables import (
+        EuroSection,
+        euro_section,
+        euro_section_names,
+    )
     from calcpack.sections.rebar import rebar
     from calcpack.signing import (
         diff_packages,
@@ -448,7 +498,6 @@ if TYPE_CHECKING:
         tan,
     )
 
-
 __all__ = [
     "Q_",
     "ACIFootingDesign",
@@ -482,12 +531,14 @@ __all__ = [
     "Couple",
     "DeflectionLimit",
     "Derived",
+    "DesignForces",
     "DimensionError",
     "DistributedLoad",
     "DowelJoint",
     "ECFootingDesign",
     "EISegment",
     "Equation",
+    "EuroSection",
     "Exports",
     "Fastener",
     "FastenerLayout",
@@ -517,6 +568,7 @@ __all__ = [
     "Member",
     "MemberForces",
     "Min",
+    "NoViewError",
     "Node",
     "NotCovered",
     "NotebookExecutionError",
@@ -533,6 +585,7 @@ __all__ = [
     "RectangularHollow",
     "ReferenceDesignValues",
     "Roller",
+    "RoofProfile",
     "SafetyFactors",
     "SawnMember",
     "ServiceConditions",
@@ -552,6 +605,7 @@ __all__ = [
     "Spring",
     "SteelGrade",
     "SteelMember",
+    "SteelMemberEC",
     "SteelPlate",
     "SteelShape",
     "Support",
@@ -583,8 +637,12 @@ __all__ = [
     "aisc_shape",
     "aisc_shape_names",
     "analyse_combinations",
+    "annex_combinations",
+    "annex_equ_combinations",
+    "annex_serviceability",
     "atan",
     "build",
+    "case_groups",
     "check_aci_footing",
     "check_aisc_anchor_rods",
     "check_aisc_base_plate",
@@ -599,6 +657,9 @@ __all__ = [
     "check_deflection",
     "check_elastic_beam",
     "check_en1992_footing",
+    "check_en1993_beam",
+    "check_en1993_member",
+    "check_en1993_web_bearing",
     "check_en1997_pad",
     "check_footing_soil",
     "check_nds_beam",
@@ -618,12 +679,16 @@ __all__ = [
     "diff_packages",
     "drift_asce7",
     "effective_wind_area",
+    "en1990_annex",
     "envelope_wind_asce7",
+    "euro_section",
+    "euro_section_names",
     "get_display",
     "internal_pressure_en",
     "lightest_aisc_beam",
     "lightest_nds_beam",
     "lightest_sections",
+    "line_loads",
     "lintel_masonry_loads",
     "load_inputs",
     "load_project",
@@ -649,6 +714,8 @@ __all__ = [
     "sin",
     "sliding_snow_asce7",
     "snow_drift_en",
+    "snow_profiles_asce7",
+    "snow_profiles_en",
     "soil_pressure",
     "solve_beam",
     "solve_cases",
@@ -661,10 +728,13 @@ __all__ = [
     "superpose",
     "takedown",
     "tan",
+    "truss_joint_loads",
     "update_inputs",
     "ureg",
     "velocity_pressure_asce7",
     "verify_package",
     "wind_pressures_en",
+    "wind_profiles_asce7",
+    "wind_profiles_en",
     "yield_limits",
 ]
