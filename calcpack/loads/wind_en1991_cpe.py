@@ -233,8 +233,8 @@ def _roof_cases(b: BuildingEN, theta: int, area: Quantity) -> dict[str, dict[str
         choices.append(signs if two else [signs[0]])
     cases: dict[str, dict[str, float]] = {}
     for combo in itertools.product(*choices):
-        name = " / ".join(
-            ("suction" if s == "neg" else "pressure") + f" on {'+'.join(face)}"
+        name = " ".join(
+            "".join(face) + ("−" if s == "neg" else "+")
             for s, face in zip(combo, faces, strict=True)
         )
         cases[name] = {
