@@ -55,6 +55,7 @@ from calcpack.widgets.fields import (
     label,
     wait_for_output_sent,
 )
+from calcpack.widgets.rerun import RerunControl
 from calcpack.widgets.svg import beam_diagram_parts
 
 __all__ = ["BeamPanel", "beam_panel", "outcome_table_html"]
@@ -177,13 +178,14 @@ class BeamPanel(PanelDisplay):
         reload.on_click(lambda _b: self.reload())
         title = ipw.HTML(
             PANEL_CSS + f"<b>Beam panel</b> — edits <code>{escape(self.path.name)}</code>; "
-            "re-run the sheet's cells to update its working."
+            "the sheet's cells below read that file."
         )
+        self.rerun = RerunControl()
         side = ipw.VBox([self.diagrams, self.results])
         side.add_class("cp-panel-side")
         body = ipw.HBox([self.form, side])
         body.add_class("cp-panel-body")
-        self.widget = ipw.VBox([ipw.HBox([title, reload]), body, self.status])
+        self.widget = ipw.VBox([ipw.HBox([title, reload]), self.rerun.widget, body, self.status])
         self.widget.add_class("cp-beam-panel")
         self._build_form()
         self._refresh()
@@ -346,6 +348,7 @@ class BeamPanel(PanelDisplay):
         self.edit_times.append((started, self.last_update_s, time.perf_counter() - t0))
         if shown:  # otherwise the status keeps the reason nothing is drawn
             self._saved()
+        self.rerun.edited(changes)
 
     def _spans(self, step: int) -> None:
         spans = list(self.data["beam"]["spans"])

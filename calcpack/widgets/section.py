@@ -25,6 +25,7 @@ from calcpack.widgets.fields import (
     field_for_error,
     label,
 )
+from calcpack.widgets.rerun import RerunControl
 from calcpack.widgets.svg import section_sketch_svg
 
 __all__ = ["SectionPanel", "properties_table_html", "section_panel"]
@@ -90,12 +91,14 @@ class SectionPanel(PanelDisplay):
         self.status.add_class("cp-panel-status")
         body = ipw.HBox([self.form, self.sketch, self.table])
         body.add_class("cp-panel-body")
+        self.rerun = RerunControl()
         self.widget = ipw.VBox(
             [
                 ipw.HTML(
                     PANEL_CSS + "<b>Section panel</b> — edits "
                     f"<code>{escape(self.path.name)}</code> [{escape(key)}]"
                 ),
+                self.rerun.widget,
                 body,
                 self.status,
             ]
@@ -173,6 +176,7 @@ class SectionPanel(PanelDisplay):
             return
         self._refresh(shape)
         self.last_update_s = time.perf_counter() - t0
+        self.rerun.edited(changes)
 
     def _refresh(self, shape: Any = None) -> None:
         try:

@@ -10,6 +10,7 @@ from __future__ import annotations
 import os
 import sys
 import warnings
+from pathlib import Path
 from typing import Any
 
 import pint
@@ -17,6 +18,7 @@ import pint
 from calcpack.units import DisplaySettings, get_display, validate_display
 from calcpack.working.expr import Term
 from calcpack.working.linked import Exports, Imported, export_entry
+from calcpack.working.prose import Citation, cite
 from calcpack.working.steps import (
     Assume,
     Caution,
@@ -37,6 +39,30 @@ from calcpack.working.steps import (
 __all__ = ["Sheet"]
 
 
+def _unit(text: str) -> pint.Unit:
+    from calcpack.errors import InputError
+    from calcpack.units import ONE_UNIT_KINDS, ureg
+
+    try:
+        unit = ureg.Unit(text)
+    except (pint.UndefinedUnitError, ValueError, AttributeError) as exc:
+        raise InputError(
+            f"Sheet unit {text!r} is not a known unit",
+            name="units",
+            value=text,
+            expected="a unit such as 'kip', 'lbf*ft', 'plf', 'kN'",
+        ) from exc
+    if not any(unit.dimensionality == ureg.get_dimensionality(k) for k in ONE_UNIT_KINDS):
+        raise InputError(
+            f"Sheet units set forces, moments and line loads only (got {text!r}, of "
+            f"{unit.dimensionality})",
+            name="units",
+            value=text,
+            expected="a unit of force, force·length or force/length",
+        )
+    return unit
+
+
 def _in_kernel() -> bool:
     ipython = sys.modules.get("IPython")
     if ipython is None:
@@ -54,6 +80,9 @@ class Sheet:
         sig_figs: significant figures shown (default: the global setting, 3).
         standards: design standards the sheet applies (collected into the design basis).
         auto_display: show each new step when running in a Jupyter kernel.
+        units: the sheet's units for forces, moments and line loads (``["lbf", "lbf*ft",
+            "plf"]``). Without them, the first value of each kind the sheet shows settles its
+            unit; later values of that kind are shown in it unless their step asks for a unit.
     """
 
     def __init__(
@@ -64,6 +93,7 @@ class Sheet:
         sig_figs: int | None = None,
         standards: list[str] | None = None,
         auto_display: bool = True,
+        units: list[str] | None = None,
     ) -> None:
         validate_display(system, sig_figs)
         base = get_display()
@@ -71,10 +101,13 @@ class Sheet:
         self.settings = DisplaySettings(
             system=system or base.system, sig_figs=sig_figs or base.sig_figs
         )
+        for unit in units or ():
+            self.settings.keep_unit(_unit(unit))
         self.steps: list[Step] = []
         self.standards = list(standards or [])
         self.auto_display = auto_display
         self._names: dict[str, Value] = {}
+        self._cautions: set[str] = set()
         self._exports: dict[str, dict[str, Any]] = {}
 
     # -- adding steps --------------------------------------------------------------------
@@ -89,10 +122,13 @@ class Sheet:
                 value=step,
                 expected="a calcpack.working Step",
             )
+        if isinstance(step, Caution) and step.body in self._cautions:
+            return step  # each caution once on a sheet (a second member of one standard)
         self._adopt(step)
         self.steps.append(step)
         if isinstance(step, Value):
             self._names[step.name] = step
+            self.settings.keep_unit(step.display_unit)
         if self.auto_display and _in_kernel():
             step._ipython_display_()
         return step
@@ -101,8 +137,35 @@ class Sheet:
         """Give ``step`` (and the steps of a block) the sheet's settings where it has none."""
         if getattr(step, "settings", None) is None and hasattr(step, "settings"):
             step.settings = self.settings
+        if isinstance(step, Value) and not step.unit_asked and not isinstance(step, Imported):
+            # one unit per kind on a sheet: a value that did not ask for its unit follows the
+            # unit the sheet settled on (the first force, moment or line load it showed)
+            unit = self.settings.kind_unit(step.display_unit)
+            if unit is not None:
+                step.display_unit = unit
+        if isinstance(step, Check):
+            unit = self.settings.kind_unit(step.unit)
+            if unit is not None and unit != step.unit:
+                step.unit = unit
+                step.demand_q = step.demand_q.to(unit)
+                step.capacity_q = step.capacity_q.to(unit)
+        if isinstance(step, Caution):
+            self._cautions.add(step.body)
+        inner_steps = getattr(step, "steps", None)
+        if isinstance(inner_steps, list) and not isinstance(step, Sheet):
+            # a block repeats no caution the sheet (or the block) already carries
+            kept = []
+            for inner in inner_steps:
+                if isinstance(inner, Caution) and inner.body in self._cautions:
+                    continue
+                if isinstance(inner, Caution):
+                    self._cautions.add(inner.body)
+                kept.append(inner)
+            inner_steps[:] = kept
         for inner in getattr(step, "steps", ()):
             self._adopt(inner)
+            if isinstance(inner, Value):
+                self.settings.keep_unit(inner.display_unit)
 
     def given(
         self,
@@ -212,23 +275,49 @@ class Sheet:
         self.add(step)
         return step
 
-    def text(self, body: str) -> Text:
-        """Add a paragraph (``$...$`` for inline TeX)."""
-        step = Text(body)
+    def text(self, body: str, **values: Any) -> Text:
+        """Add a paragraph that may cite recorded values.
+
+        ``{R_A}`` in the prose is replaced by the typeset symbol and its value, ``{R_A:value}``
+        by the value alone, ``{R_A:symbol}`` by the symbol alone (see
+        :mod:`calcpack.working.prose`). A name is looked up among the sheet's values, or given
+        as a keyword: a calcpack value, a pint quantity (shown in the sheet's unit for its kind
+        and to its significant figures) or a number. ``$...$`` is inline TeX.
+
+        Example: ``s.text("The analysis gives {R_A} at the wall.", R_A=result.reaction("A").Fy)``
+
+        Raises:
+            InputError: a placeholder names no value, or a keyword value is not cited.
+        """
+        step = Text(*self._cite(body, values))
         self.add(step)
         return step
 
-    def assume(self, body: str) -> Assume:
-        """Declare an assumption (also listed in the package's assumptions block)."""
-        step = Assume(body)
+    def assume(self, body: str, **values: Any) -> Assume:
+        """Declare an assumption (also listed in the package's assumptions block); it may cite
+        values as :meth:`text` does."""
+        step = Assume(*self._cite(body, values))
         self.add(step)
         return step
 
-    def caution(self, body: str) -> Caution:
-        """Declare a caution (also listed in the package's caution block)."""
-        step = Caution(body)
+    def caution(self, body: str, **values: Any) -> Caution:
+        """Declare a caution (also listed in the package's caution block); it may cite values
+        as :meth:`text` does."""
+        step = Caution(*self._cite(body, values))
         self.add(step)
         return step
+
+    def _cite(self, body: str, values: dict[str, Any]) -> tuple[str, tuple[Citation, ...]]:
+        if not isinstance(body, str):
+            from calcpack.errors import InputError
+
+            raise InputError(
+                f"Prose must be a string (got {type(body).__name__})",
+                name="body",
+                value=body,
+                expected="a sentence, e.g. 'The reaction {R_A} is carried by the post.'",
+            )
+        return cite(body, values, self._names, self.settings, self.settings.unit_for)
 
     def table(
         self, columns: list[str], rows: list[list[Any]], *, caption: str | None = None
@@ -465,6 +554,48 @@ class Sheet:
         result = takedown(*reactions, onto=onto)
         self.add(result.working(settings=self.settings))
         return result
+
+    # -- what a checker expects to see checked -------------------------------------------
+    def checklist(
+        self,
+        member_type: str,
+        *,
+        member: str,
+        not_applicable: dict[str, str] | None = None,
+        met_by: dict[str, str] | None = None,
+    ) -> Any:
+        """Declare a member's type, so the package lists every item of its checklist as met
+        by a check, not applicable, or NOT COVERED (see :mod:`calcpack.checks.checklists`).
+
+        Args:
+            member_type: ``"steel beam"``, ``"timber beam"``/``"joist"``, ``"post"``/
+                ``"column"``, ``"truss"``, ``"bearing"``, ``"footing"``, ``"connection"``.
+            member: the member's mark, as its checks name it (``"B1"``).
+            not_applicable: item -> why it does not apply (words, shown in the package).
+            met_by: item -> the member or check elsewhere that meets it (``"P1"``).
+
+        The checklist is the project's own ``member_checklists.csv`` when the project folder
+        holds one, else calcpack's (common practice). Call it after the sheet's checks to see
+        on the sheet which of them meet which item.
+
+        Raises:
+            InputError: unknown member type or item, or a declaration without a reason.
+        """
+        from calcpack.checks.checklists import member_checklist
+        from calcpack.working.checklist import Checklist
+        from calcpack.working.links import _find_root
+
+        declared = member_checklist(
+            member_type,
+            member=member,
+            not_applicable=not_applicable,
+            met_by=met_by,
+            project_root=_find_root(Path.cwd().resolve()),
+        )
+        checks = [c for c in self.records().get("checks", []) if isinstance(c, dict)]
+        step = Checklist(declared.to_json(), checks, settings=self.settings)
+        self.add(step)
+        return step
 
     # -- data ---------------------------------------------------------------------------
     def __getitem__(self, name: str) -> Value:

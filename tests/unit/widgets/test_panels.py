@@ -310,7 +310,41 @@ def test_panels_carry_the_style_that_fits_drawings_to_the_notebook(beam_file: Pa
     panel = BeamPanel(beam_file)
     css = PANEL_CSS
     assert "svg{max-width:100%;height:auto}" in css.replace(" ", "")
-    body = panel.widget.children[1]
+    body = panel.widget.children[2]
     assert "cp-panel-body" in body._dom_classes
     assert "cp-panel-side" in body.children[1]._dom_classes
     assert all('viewBox="' in d.value for d in panel.drawings)
+
+
+def test_rerun_control_names_what_is_stale_and_runs_the_cells_below(beam_file: Path) -> None:
+    from calcpack.widgets.rerun import RUN_BELOW
+
+    panel = BeamPanel(beam_file)
+    ran: list[str] = []
+    panel.rerun._execute = ran.append  # JupyterLab's command registry, recorded
+    panel.set("beam.spans[2]", Q_(5.0, "m"))
+    notice = panel.rerun.notice.value
+    assert "stale" in notice
+    assert "beam.spans[2] = 5 m" in notice
+    assert ran == []  # nothing runs until asked
+    panel.rerun.button.click()
+    assert ran == [RUN_BELOW]
+    assert panel.rerun.notice.value == ""
+    # turned on: every saved edit re-runs the cells below; a refused edit does not
+    panel.rerun.auto.value = True
+    panel.set("loads[1].w", Q_(2.0, "kN/m"))
+    assert ran == [RUN_BELOW, RUN_BELOW]
+    panel.set("beam.spans[2]", Q_(-1.0, "m"))
+    assert ran == [RUN_BELOW, RUN_BELOW]
+
+
+def test_rerun_control_without_jupyterlab_commands_says_what_to_do(
+    beam_file: Path, monkeypatch: pytest.MonkeyPatch
+) -> None:
+    from calcpack.widgets import rerun
+
+    monkeypatch.setattr(rerun, "_front_end", lambda: None)
+    panel = BeamPanel(beam_file)
+    panel.rerun.button.click()
+    assert "by hand" in panel.rerun.notice.value
+    assert panel.rerun.runs == 0
