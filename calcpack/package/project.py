@@ -480,7 +480,7 @@ def load_project(location: str | Path) -> Project:
                 "names a file that does not exist",
             )
 
-    known = {"job", "people", "revisions", "sheets", "design", "inputs", "review"}
+    known = {"job", "people", "revisions", "sheets", "design", "inputs", "review", "verification"}
     for key in data:
         if key not in known:
             r.fail(key, data[key], "one of " + ", ".join(sorted(known)), "is not a known table")
