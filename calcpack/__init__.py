@@ -239,6 +239,8 @@ _LAZY: dict[str, str] = {
     "snow_profiles_asce7": "calcpack.loads.roof_profiles",
     "wind_profiles_en": "calcpack.loads.roof_profiles",
     "wind_profiles_asce7": "calcpack.loads.roof_profiles",
+    "FootingSketch": "calcpack.plots.footing",
+    "footing_figure": "calcpack.plots.footing",
 }
 
 
@@ -393,6 +395,10 @@ if TYPE_CHECKING:
         new_project,
         read_manifest,
     )
+    from calcpack.plots.footing import (
+        FootingSketch,
+        footing_figure,
+    )
     from calcpack.sections import (
         Angle,
         BoundedRegion,
@@ -501,6 +507,7 @@ __all__ = [
     "Fixed",
     "Footing",
     "FootingLoad",
+    "FootingSketch",
     "FreeBody",
     "FunctionLoad",
     "Given",
@@ -620,6 +627,7 @@ __all__ = [
     "drift_asce7",
     "effective_wind_area",
     "envelope_wind_asce7",
+    "footing_figure",
     "get_display",
     "internal_pressure_en",
     "lightest_aisc_beam",
