@@ -107,6 +107,7 @@ class Sheet:
         self.standards = list(standards or [])
         self.auto_display = auto_display
         self._names: dict[str, Value] = {}
+        self._cautions: set[str] = set()
         self._exports: dict[str, dict[str, Any]] = {}
 
     # -- adding steps --------------------------------------------------------------------
@@ -121,6 +122,8 @@ class Sheet:
                 value=step,
                 expected="a calcpack.working Step",
             )
+        if isinstance(step, Caution) and step.body in self._cautions:
+            return step  # each caution once on a sheet (a second member of one standard)
         self._adopt(step)
         self.steps.append(step)
         if isinstance(step, Value):
@@ -134,7 +137,7 @@ class Sheet:
         """Give ``step`` (and the steps of a block) the sheet's settings where it has none."""
         if getattr(step, "settings", None) is None and hasattr(step, "settings"):
             step.settings = self.settings
-        if isinstance(step, Value) and not step.unit_asked:
+        if isinstance(step, Value) and not step.unit_asked and not isinstance(step, Imported):
             # one unit per kind on a sheet: a value that did not ask for its unit follows the
             # unit the sheet settled on (the first force, moment or line load it showed)
             unit = self.settings.kind_unit(step.display_unit)
@@ -146,6 +149,19 @@ class Sheet:
                 step.unit = unit
                 step.demand_q = step.demand_q.to(unit)
                 step.capacity_q = step.capacity_q.to(unit)
+        if isinstance(step, Caution):
+            self._cautions.add(step.body)
+        inner_steps = getattr(step, "steps", None)
+        if isinstance(inner_steps, list) and not isinstance(step, Sheet):
+            # a block repeats no caution the sheet (or the block) already carries
+            kept = []
+            for inner in inner_steps:
+                if isinstance(inner, Caution) and inner.body in self._cautions:
+                    continue
+                if isinstance(inner, Caution):
+                    self._cautions.add(inner.body)
+                kept.append(inner)
+            inner_steps[:] = kept
         for inner in getattr(step, "steps", ()):
             self._adopt(inner)
             if isinstance(inner, Value):
