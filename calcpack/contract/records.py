@@ -142,6 +142,8 @@ class SheetRecords:
     """Values the sheet exports to others (see :mod:`calcpack.working.links`)."""
     imports: tuple[dict[str, Any], ...] = ()
     """Values it imports: from sheet and name, case, to name, value and unit."""
+    checklists: tuple[dict[str, Any], ...] = ()
+    """Members' checklists it declares (see :mod:`calcpack.checks.checklists`)."""
 
 
 def _payloads(nb: Any) -> list[dict[str, Any]]:
@@ -173,9 +175,11 @@ def collect_records(nb: Any) -> SheetRecords:
     standards: list[str] = []
     exports: list[dict[str, Any]] = []
     imports: list[dict[str, Any]] = []
+    checklists: list[dict[str, Any]] = []
     for payload in _payloads(nb):
         exports += [dict(e) for e in payload.get("exports", []) if isinstance(e, dict)]
         imports += [dict(i) for i in payload.get("imports", []) if isinstance(i, dict)]
+        checklists += [dict(c) for c in payload.get("checklists", []) if isinstance(c, dict)]
         values += [
             Record.from_json(v).to_json() for v in payload.get("values", []) if isinstance(v, dict)
         ]
@@ -200,4 +204,5 @@ def collect_records(nb: Any) -> SheetRecords:
         tuple(standards),
         tuple(exports),
         tuple(imports),
+        tuple(checklists),
     )

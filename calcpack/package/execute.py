@@ -89,6 +89,11 @@ def sheet_cache_key(project: Project, sheet: SheetEntry) -> str:
     feed("notebook", project.sheet_path(sheet).read_bytes())
     for name in (*sheet.inputs, *project.inputs):
         feed("input:" + name, (project.root / name).read_bytes())
+    from calcpack.checks.checklists import CHECKLIST_FILE
+
+    own = project.root / CHECKLIST_FILE  # a firm's own checklists, read by Sheet.checklist
+    if own.is_file():
+        feed("checklists", own.read_bytes())
     return digest.hexdigest()
 
 

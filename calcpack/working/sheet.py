@@ -10,6 +10,7 @@ from __future__ import annotations
 import os
 import sys
 import warnings
+from pathlib import Path
 from typing import Any
 
 import pint
@@ -106,6 +107,7 @@ class Sheet:
         self.standards = list(standards or [])
         self.auto_display = auto_display
         self._names: dict[str, Value] = {}
+        self._cautions: set[str] = set()
         self._exports: dict[str, dict[str, Any]] = {}
 
     # -- adding steps --------------------------------------------------------------------
@@ -120,6 +122,8 @@ class Sheet:
                 value=step,
                 expected="a calcpack.working Step",
             )
+        if isinstance(step, Caution) and step.body in self._cautions:
+            return step  # each caution once on a sheet (a second member of one standard)
         self._adopt(step)
         self.steps.append(step)
         if isinstance(step, Value):
@@ -133,7 +137,7 @@ class Sheet:
         """Give ``step`` (and the steps of a block) the sheet's settings where it has none."""
         if getattr(step, "settings", None) is None and hasattr(step, "settings"):
             step.settings = self.settings
-        if isinstance(step, Value) and not step.unit_asked:
+        if isinstance(step, Value) and not step.unit_asked and not isinstance(step, Imported):
             # one unit per kind on a sheet: a value that did not ask for its unit follows the
             # unit the sheet settled on (the first force, moment or line load it showed)
             unit = self.settings.kind_unit(step.display_unit)
@@ -145,6 +149,19 @@ class Sheet:
                 step.unit = unit
                 step.demand_q = step.demand_q.to(unit)
                 step.capacity_q = step.capacity_q.to(unit)
+        if isinstance(step, Caution):
+            self._cautions.add(step.body)
+        inner_steps = getattr(step, "steps", None)
+        if isinstance(inner_steps, list) and not isinstance(step, Sheet):
+            # a block repeats no caution the sheet (or the block) already carries
+            kept = []
+            for inner in inner_steps:
+                if isinstance(inner, Caution) and inner.body in self._cautions:
+                    continue
+                if isinstance(inner, Caution):
+                    self._cautions.add(inner.body)
+                kept.append(inner)
+            inner_steps[:] = kept
         for inner in getattr(step, "steps", ()):
             self._adopt(inner)
             if isinstance(inner, Value):
@@ -537,6 +554,48 @@ class Sheet:
         result = takedown(*reactions, onto=onto)
         self.add(result.working(settings=self.settings))
         return result
+
+    # -- what a checker expects to see checked -------------------------------------------
+    def checklist(
+        self,
+        member_type: str,
+        *,
+        member: str,
+        not_applicable: dict[str, str] | None = None,
+        met_by: dict[str, str] | None = None,
+    ) -> Any:
+        """Declare a member's type, so the package lists every item of its checklist as met
+        by a check, not applicable, or NOT COVERED (see :mod:`calcpack.checks.checklists`).
+
+        Args:
+            member_type: ``"steel beam"``, ``"timber beam"``/``"joist"``, ``"post"``/
+                ``"column"``, ``"truss"``, ``"bearing"``, ``"footing"``, ``"connection"``.
+            member: the member's mark, as its checks name it (``"B1"``).
+            not_applicable: item -> why it does not apply (words, shown in the package).
+            met_by: item -> the member or check elsewhere that meets it (``"P1"``).
+
+        The checklist is the project's own ``member_checklists.csv`` when the project folder
+        holds one, else calcpack's (common practice). Call it after the sheet's checks to see
+        on the sheet which of them meet which item.
+
+        Raises:
+            InputError: unknown member type or item, or a declaration without a reason.
+        """
+        from calcpack.checks.checklists import member_checklist
+        from calcpack.working.checklist import Checklist
+        from calcpack.working.links import _find_root
+
+        declared = member_checklist(
+            member_type,
+            member=member,
+            not_applicable=not_applicable,
+            met_by=met_by,
+            project_root=_find_root(Path.cwd().resolve()),
+        )
+        checks = [c for c in self.records().get("checks", []) if isinstance(c, dict)]
+        step = Checklist(declared.to_json(), checks, settings=self.settings)
+        self.add(step)
+        return step
 
     # -- data ---------------------------------------------------------------------------
     def __getitem__(self, name: str) -> Value:

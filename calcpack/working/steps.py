@@ -15,6 +15,7 @@ from typing import Any
 import pint
 import sympy
 
+from calcpack import views
 from calcpack.contract.records import RECORDS_MIMETYPE, CheckRecord, Record
 from calcpack.contract.verdict import Verdict
 from calcpack.errors import DimensionError, InputError
@@ -96,14 +97,7 @@ class Step:
     _shown_in: int | None = None
 
     def _ipython_display_(self) -> None:
-        import IPython
-        from IPython.display import publish_display_data
-
-        count = getattr(IPython.get_ipython(), "execution_count", None)
-        if self._shown_in is not None and self._shown_in == count:
-            return
-        self._shown_in = count
-        publish_display_data(self._repr_mimebundle_())
+        views.render("ipython_display", self)
 
     def __str__(self) -> str:
         return self.text()

@@ -450,11 +450,9 @@ def yield_logic(c: Recorder, j: DowelJoint) -> Any:
         Rd = dict.fromkeys(("I", "II", "III", "IV"), KD)
     else:
         th = float(j.theta_max.to("degree").magnitude)
+        theta = c.given("theta", Q_(th, "degree"), "largest angle of load to grain", source="given")
         Kth = c.derive(
-            "K_theta",
-            1 + 0.25 * c.given("theta", th / 90.0, f"θ/90°, θ = {th:g}° (largest)", source="given"),
-            "",
-            ref="NDS 2018 Table 12.3.1B",
+            "K_theta", 1 + 0.25 * theta / Q_(90.0, "degree"), "", ref="NDS 2018 Table 12.3.1B"
         )
         Rd = {
             "I": c.derive("R_d_I", 4 * Kth, "modes I_m, I_s", ref="NDS 2018 Table 12.3.1B"),
@@ -469,11 +467,16 @@ def yield_logic(c: Recorder, j: DowelJoint) -> Any:
         "",
         ref="NDS 2018 Table 12.3.1B",
     )
-    n = 2 if double else 1
     ref = "NDS 2018 Table 12.3.1A"
     modes: dict[str, Any] = {}
     modes["I_m"] = c.derive("Z_Im", D * lm * Fem / Rd["I"], "mode I_m", unit="lbf", ref=ref)
-    modes["I_s"] = c.derive("Z_Is", n * D * ls * Fes / Rd["I"], "mode I_s", unit="lbf", ref=ref)
+    modes["I_s"] = c.derive(
+        "Z_Is",
+        (2 * D * ls * Fes if double else D * ls * Fes) / Rd["I"],
+        "mode I_s",
+        unit="lbf",
+        ref=ref,
+    )
     if not double:
         k1 = c.derive(
             "k_1",
@@ -497,14 +500,14 @@ def yield_logic(c: Recorder, j: DowelJoint) -> Any:
         )
     modes["III_s"] = c.derive(
         "Z_IIIs",
-        n * k3 * D * ls * Fem / ((2 + Re) * Rd["III"]),
+        (2 * k3 if double else k3) * D * ls * Fem / ((2 + Re) * Rd["III"]),
         "mode III_s",
         unit="lbf",
         ref=ref,
     )
     modes["IV"] = c.derive(
         "Z_IV",
-        n * D**2 / Rd["IV"] * c.sqrt(2 * Fem * Fyb / (3 * (1 + Re))),
+        (2 * D**2 if double else D**2) / Rd["IV"] * c.sqrt(2 * Fem * Fyb / (3 * (1 + Re))),
         "mode IV",
         unit="lbf",
         ref=ref,

@@ -106,4 +106,4 @@ def test_working_shows_every_mode_with_its_clause():
     html = Block(rec.steps, title="J1")._repr_mimebundle_()["text/html"]
     assert "Table 12.3.1A" in html
     assert "Hankinson" in html
-    assert "mode III" in html
+    assert "mode II" in html
