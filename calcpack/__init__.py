@@ -267,6 +267,8 @@ _LAZY: dict[str, str] = {
     "snow_profiles_asce7": "calcpack.loads.roof_profiles",
     "wind_profiles_en": "calcpack.loads.roof_profiles",
     "wind_profiles_asce7": "calcpack.loads.roof_profiles",
+    "FootingSketch": "calcpack.plots.footing",
+    "footing_figure": "calcpack.plots.footing",
 }
 
 
@@ -432,6 +434,10 @@ if TYPE_CHECKING:
         new_project,
         read_manifest,
     )
+    from calcpack.plots.footing import (
+        FootingSketch,
+        footing_figure,
+    )
     from calcpack.sections import (
         Angle,
         BoundedRegion,
@@ -553,6 +559,7 @@ __all__ = [
     "Fixed",
     "Footing",
     "FootingLoad",
+    "FootingSketch",
     "FreeBody",
     "FunctionLoad",
     "Given",
@@ -691,6 +698,7 @@ __all__ = [
     "envelope_wind_asce7",
     "euro_section",
     "euro_section_names",
+    "footing_figure",
     "get_display",
     "internal_pressure_en",
     "lightest_aisc_beam",
