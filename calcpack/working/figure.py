@@ -28,6 +28,7 @@ FIGURE_DRAWINGS: dict[str, str] = {
     "beam": "calcpack.plots.beam:beam_svg",
     "footing": "calcpack.plots.footing:footing_svg",
     "truss": "calcpack.plots.truss:truss_svg",
+    "joint": "calcpack.plots.joint:joint_svg",
 }
 
 _REGISTERED: dict[str, Callable[..., str]] = {}
