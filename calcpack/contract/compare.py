@@ -13,6 +13,7 @@ from collections.abc import Iterable
 from dataclasses import dataclass, field, replace
 from typing import Any
 
+from calcpack.contract.carried import annotate_carried, link_changes
 from calcpack.contract.manifest import Manifest
 
 __all__ = ["REL_TOL", "Change", "ManifestDiff", "diff_manifests"]
@@ -28,7 +29,8 @@ class Change:
 
     Attributes:
         sheet: the sheet's title (or path) in the new revision (old one if removed).
-        kind: ``"input"``, ``"result"``, ``"check"`` or ``"sheet"`` (sheet added/removed).
+        kind: ``"input"``, ``"result"``, ``"check"``, ``"link"`` (a value carried between
+            sheets, when both manifests record links) or ``"sheet"`` (sheet added/removed).
         name: the quantity or check name (``"Bending (B1)"`` for a check on a member).
         old: old value as displayed (``None`` when added).
         new: new value as displayed (``None`` when removed).
@@ -44,6 +46,26 @@ class Change:
     new: str | None
     verdict_changed: bool = False
     path: str | None = field(default=None, compare=False)
+    carried_to: tuple[str, ...] = field(default=(), compare=False)
+    """For a value other sheets import: where it was carried ("sheet 2 as w")."""
+    copy_of: str | None = field(default=None, compare=False)
+    """For an imported value (or a link): the upstream value it copies ("sheet 1 w"); the
+    displays show the upstream change once instead."""
+    due_to: tuple[str, ...] = field(default=(), compare=False)
+    """For a change on a sheet that imports changed values: those upstream values."""
+
+    @property
+    def shown(self) -> bool:
+        """Whether a display lists it (a copy of an upstream change is shown at its origin)."""
+        return self.copy_of is None
+
+    def note(self) -> str:
+        """Where a value went or came from, for the displays ("" when it stayed on its sheet)."""
+        if self.carried_to:
+            return "carried to " + ", ".join(self.carried_to)
+        if self.due_to:
+            return "follows from " + ", ".join(self.due_to)
+        return ""
 
 
 @dataclass(frozen=True)
@@ -79,11 +101,15 @@ class ManifestDiff:
         head = f"Revision {self.old_revision or '?'} -> {self.new_revision or '?'}"
         if not self.changes:
             return f"{head}: no changes to inputs, results or check verdicts."
-        rows = [("Sheet", "What", "Name", "Old", "New")]
+        rows: list[tuple[str, ...]] = [("Sheet", "What", "Name", "Old", "New", "Between sheets")]
         for c in self.changes:
+            if not c.shown:
+                continue
             what = c.kind + (" (verdict)" if c.verdict_changed else "")
-            rows.append((c.sheet, what, c.name, c.old or "-", c.new or "-"))
-        widths = [max(len(r[i]) for r in rows) for i in range(5)]
+            rows.append((c.sheet, what, c.name, c.old or "-", c.new or "-", c.note()))
+        if not any(r[5] for r in rows[1:]):  # nothing carried between sheets: five columns
+            rows = [r[:5] for r in rows]
+        widths = [max(len(r[i]) for r in rows) for i in range(len(rows[0]))]
         lines = [head]
         for i, row in enumerate(rows):
             lines.append("  ".join(cell.ljust(widths[j]) for j, cell in enumerate(row)).rstrip())
@@ -260,6 +286,8 @@ def diff_manifests(
         found = _diff_values(label, sa.get("values", []), sb.get("values", []), rel_tol)
         found += _diff_checks(label, sa.get("checks", []), sb.get("checks", []), rel_tol)
         changes += [replace(c, path=key) for c in found]
+    changes += link_changes(old, new, rel_tol)
+    changes = annotate_carried(changes, old, new, rel_tol)
 
     def revision(m: dict[str, Any]) -> str | None:
         rev = (m.get("project") or {}).get("revision")

@@ -13,7 +13,7 @@ from collections.abc import Mapping
 from enum import StrEnum
 from typing import Any
 
-__all__ = ["PASS_TOLERANCE", "Verdict", "check_sort_key", "passes"]
+__all__ = ["PASS_TOLERANCE", "Verdict", "check_sort_key", "is_classification", "passes"]
 
 #: Utilisations up to ``1 + PASS_TOLERANCE`` pass: a capacity computed to equal the demand
 #: (u = 1 in exact arithmetic) must not fail on the last bit of a float (common practice).
@@ -60,3 +60,16 @@ def check_sort_key(check: Mapping[str, Any]) -> tuple[int, float]:
     if verdict == Verdict.NOT_COVERED:
         return (1, 0.0)
     return (2, -(u if u is not None else 0.0))
+
+
+CLASSIFICATION_WORDS = ("compactness", "slenderness", "classification", "class ")
+"""Words that mark a check as a classification or limit (a section's compactness, a member's
+slenderness limit): its ratio sorts the section or bounds a method, it is not a share of a
+strength used, so the summary lists it apart from the demand/capacity checks."""
+
+
+def is_classification(check: Mapping[str, Any]) -> bool:
+    """True for a classification or limit check (compactness, slenderness limit), from its
+    recorded name; ``check`` is a recorded check."""
+    name = f"{check.get('name') or ''} ".lower()
+    return any(word in name for word in CLASSIFICATION_WORDS)

@@ -18,6 +18,7 @@ from typing import Any
 from calcpack.contract.compare import Change
 from calcpack.contract.records import SheetRecords
 from calcpack.package.project import Person, Project, SheetEntry
+from calcpack.working.format import format_number
 from calcpack.working.render import symbols_html
 
 __all__ = [
@@ -101,17 +102,11 @@ class DocumentOptions:
 
 
 def format_sig(value: float | None, sig_figs: int = 3) -> str:
-    """A number to ``sig_figs`` significant figures without exponent for everyday magnitudes."""
+    """A number to ``sig_figs`` significant figures by the working's formatter (the one number
+    formatter of a package), or a dash when there is none."""
     if value is None or not math.isfinite(value):
         return "—"
-    if value == 0:
-        return "0"
-    magnitude = math.floor(math.log10(abs(value)))
-    if magnitude >= 7 or magnitude <= -5:
-        return f"{value:.{sig_figs - 1}e}"
-    decimals = sig_figs - 1 - magnitude
-    rounded = round(value, decimals)
-    return f"{rounded:.{max(decimals, 0)}f}"
+    return format_number(value, sig_figs)
 
 
 def _e(text: Any) -> str:
@@ -305,20 +300,31 @@ def _design_basis(project: Project, sheets: Sequence[SheetDoc]) -> str:
     return "".join(parts)
 
 
+def _gathered(general: Sequence[str], sheets: Sequence[SheetDoc], field_name: str) -> list[str]:
+    """Each text once, in first-seen order, with the sheets that declare it: a caution every
+    sheet of one standard carries is said once, "(sheets 1, 2, 4)"."""
+    seen: dict[str, list[str]] = {}
+    for text in general:
+        seen.setdefault(text, [])
+    for sheet in sheets:
+        for text in getattr(sheet.records, field_name):
+            where = seen.setdefault(text, [])
+            if sheet.entry.number not in where and (where or text not in general):
+                where.append(sheet.entry.number)
+    out = []
+    for text, where in seen.items():
+        tag = ""
+        if where:
+            label = "sheet" if len(where) == 1 else "sheets"
+            tag = f' <span class="cpd-src">({label} {_e(", ".join(where))})</span>'
+        out.append(_inline_markdown(text) + tag)
+    return out
+
+
 def _assumptions(project: Project, sheets: Sequence[SheetDoc]) -> str:
-    assumptions = [_inline_markdown(a) for a in project.design.assumptions]
-    for sheet in sheets:
-        assumptions += [
-            f'{_inline_markdown(a)} <span class="cpd-src">(sheet {_e(sheet.entry.number)})</span>'
-            for a in sheet.records.assumptions
-        ]
-    cautions = [_e(c) for c in STANDARD_CAUTIONS]
-    cautions += [_inline_markdown(c) for c in project.design.cautions]
-    for sheet in sheets:
-        cautions += [
-            f'{_inline_markdown(c)} <span class="cpd-src">(sheet {_e(sheet.entry.number)})</span>'
-            for c in sheet.records.cautions
-        ]
+    assumptions = _gathered(project.design.assumptions, sheets, "assumptions")
+    standard = [_e(c) for c in STANDARD_CAUTIONS]
+    cautions = standard + _gathered(project.design.cautions, sheets, "cautions")
     body = (
         _list(assumptions, ordered=True)
         if assumptions
@@ -356,7 +362,8 @@ def _change_text(change: Change) -> str:
     old = _e(change.old) if change.old is not None else "(none)"
     new = _e(change.new) if change.new is not None else "(removed)"
     verdict = " <b>verdict changed</b>" if change.verdict_changed else ""
-    return f"{what} {_e(change.name)}: {old} &#8594; {new}{verdict}"
+    note = f" <i>({_e(change.note())})</i>" if change.note() else ""
+    return f"{what} {_e(change.name)}: {old} &#8594; {new}{verdict}{note}"
 
 
 def _revision_changes(since: str, changes: Sequence[Change]) -> str:
@@ -366,7 +373,8 @@ def _revision_changes(since: str, changes: Sequence[Change]) -> str:
         return f'<p class="cp-empty">{nothing}</p>'
     by_sheet: dict[str, list[Change]] = {}
     for change in changes:
-        by_sheet.setdefault(change.sheet, []).append(change)
+        if change.shown:  # an imported copy is listed at the value it copies
+            by_sheet.setdefault(change.sheet, []).append(change)
     items = []
     for sheet, found in by_sheet.items():
         shown = "; ".join(_change_text(c) for c in found[:MAX_CHANGES_PER_SHEET])

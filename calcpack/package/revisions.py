@@ -72,9 +72,14 @@ def issued_basis_key(project: Project) -> str:
 
 def _records(project: Project, docs: Sequence[SheetDoc]) -> dict[str, Any]:
     """This build's sheets in the manifest's shape, as far as the comparison reads it."""
+    from calcpack.package.links import link_records
+
     return {
         "project": {"revision": project.revision.rev},
         "sheets": [sheet_record(doc.entry, doc.title, doc.records) for doc in docs],
+        "links": [
+            link for doc in docs for link in link_records(doc.entry.path, doc.records.imports)
+        ],
     }
 
 

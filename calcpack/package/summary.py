@@ -12,7 +12,7 @@ from html import escape
 from typing import TYPE_CHECKING, Any
 
 from calcpack.checks.checklists import ItemStatus, resolve_checklists
-from calcpack.contract.verdict import Verdict, check_sort_key
+from calcpack.contract.verdict import Verdict, check_sort_key, is_classification
 
 if TYPE_CHECKING:
     from calcpack.package.document import SheetDoc
@@ -116,37 +116,79 @@ def _checklists_html(statuses: Sequence[ItemStatus]) -> str:
     )
 
 
-def summary_html(sheets: Sequence[SheetDoc]) -> str:
-    """The summary's body (after its title block and heading)."""
-    from calcpack.package.document import format_sig
+def _pageref(index: int | None) -> str:
+    """A link to a sheet showing its first page number (written in at layout)."""
+    return "" if index is None else f'<a class="cp-pageref" href="#sheet-{index}"></a>'
 
-    entries = summary_entries(sheets)
-    rows = []
-    for number, c in entries:
-        u = c.get("utilisation")
-        bar = ""
-        if u is not None:
-            width = min(u, 1.5) / 1.5 * 14
-            over = " over" if u > 1 else ""
-            bar = f' <span class="cpd-ubar{over}" style="width:{width:.1f}mm"></span>'
-        unit = f" {_e(c['unit'])}" if c.get("unit") else ""
-        rows.append(
-            f"<tr><td>{_e(number)}</td><td>{_e(c.get('member') or '')}</td>"
-            f"<td>{_e(c['name'])}</td><td>{_e(c.get('combination') or '')}</td>"
+
+def _check_row(number: str, index: int | None, c: dict[str, Any], *, ratio_words: bool) -> str:
+    from calcpack.package.document import format_sig
+    from calcpack.working.render import symbols_html
+
+    u = c.get("utilisation")
+    unit = f" {_e(c['unit'])}" if c.get("unit") else ""
+    if c["verdict"] == Verdict.NOT_COVERED:
+        # what is missing, in place of numbers that could not be given
+        missing = symbols_html(_e(c.get("description") or "not covered by this method"))
+        middle = f'<td colspan="3" class="cpd-missing">{missing}</td>'
+    else:
+        if u is None:
+            ratio = "—"
+        elif ratio_words:
+            rel = "≤" if c["verdict"] == Verdict.OK else "&gt;"
+            ratio = f"{format_sig(u)} {rel} 1.00"
+        else:
+            ratio = format_sig(u)
+        middle = (
             f'<td class="num">{format_sig(c.get("demand"))}{unit}</td>'
             f'<td class="num">{format_sig(c.get("capacity"))}{unit}</td>'
-            f'<td class="num">{"—" if u is None else f"{u:.2f}"}{bar}</td>'
-            f"<td>{_verdict(c['verdict'])}</td><td>{_e(c.get('ref') or '')}</td></tr>"
+            f'<td class="num">{ratio}</td>'
         )
-    if rows:
-        table = (
-            '<table class="cpd-table"><thead><tr><th>Sheet</th><th>Member</th><th>Check</th>'
-            "<th>Combination</th><th>Demand</th><th>Capacity</th><th>Utilisation</th>"
-            "<th>Verdict</th><th>Reference</th></tr></thead><tbody>"
-            + "".join(rows)
-            + "</tbody></table>"
-        )
-    else:
-        table = '<p class="cp-empty">The sheets record no design checks.</p>'
+    return (
+        f"<tr><td>{_e(number)}</td><td>{_e(c.get('member') or '')}</td>"
+        f"<td>{symbols_html(_e(c['name']))}</td><td>{_e(c.get('combination') or '')}</td>"
+        f"{middle}<td>{_verdict(c['verdict'])}</td><td>{_e(c.get('ref') or '')}</td>"
+        f'<td class="num">{_pageref(index)}</td></tr>'
+    )
+
+
+def _table(rows: list[str], ratio: str) -> str:
+    return (
+        '<table class="cpd-table cpd-summary"><thead><tr><th>Sheet</th><th>Member</th>'
+        f"<th>Check</th><th>Combination</th><th>Demand</th><th>Capacity</th><th>{ratio}</th>"
+        "<th>Verdict</th><th>Clause</th><th>Page</th></tr></thead><tbody>"
+        + "".join(rows)
+        + "</tbody></table>"
+    )
+
+
+def summary_html(sheets: Sequence[SheetDoc]) -> str:
+    """The summary's body (after its title block and heading): the demand/capacity checks
+    worst first, each with its ratio in words and its sheet's page; then the classification
+    and limit checks apart (their ratio is not a share of a strength used); then the
+    checklists."""
+    index = {s.entry.number: i for i, s in enumerate(sheets, start=1)}
+    entries = summary_entries(sheets)
+    strength = [(n, c) for n, c in entries if not is_classification(c)]
+    limits = [(n, c) for n, c in entries if is_classification(c)]
     line = f"<p>{_e(counts_line(check_counts(sheets)))}. Worst first.</p>"
-    return line + table + _checklists_html(checklist_status(sheets))
+    if not entries:
+        table = '<p class="cp-empty">The sheets record no design checks.</p>'
+        return line + table + _checklists_html(checklist_status(sheets))
+    parts = [
+        line,
+        '<h2 class="cp-h">Strength and serviceability</h2>'
+        f"<p>{len(strength)} demand/capacity checks; utilisation = |demand| / capacity.</p>",
+    ]
+    if strength:
+        rows = [_check_row(n, index.get(n), c, ratio_words=True) for n, c in strength]
+        parts.append(_table(rows, "Utilisation"))
+    if limits:
+        rows = [_check_row(n, index.get(n), c, ratio_words=False) for n, c in limits]
+        parts.append(
+            '<h2 class="cp-h">Classification and limits</h2>'
+            f"<p>{len(limits)} checks of a section's class or of a limit of a method: the ratio "
+            "is the value against its limit, not a share of a strength used.</p>"
+            + _table(rows, "Ratio")
+        )
+    return "".join(parts) + _checklists_html(checklist_status(sheets))

@@ -314,16 +314,17 @@ def _symbol_html(name: str) -> str:
     star = bool(subs) and subs[-1] == "star"
     subs = [_SUB_WORDS.get(p, p) for p in (subs[:-1] if star else subs) if p]
 
-    def part(p: str, *, base: bool) -> str:
+    def part(p: str) -> str:
         if p in _GREEK_TEXT:
             return _GREEK_TEXT[p]
         if p.endswith("perp") and len(p) > 4:
-            return part(p[:-4], base=base) + "⊥"
-        return f"<i>{_esc(p)}</i>" if base or (len(p) == 1 and p.isalpha()) else _esc(p)
+            return part(p[:-4]) + "⊥"
+        # one letter is a variable (italic); a word or a numeral (max, III) is upright
+        return f"<i>{_esc(p)}</i>" if len(p) == 1 and p.isalpha() else _esc(p)
 
-    out = part(base, base=True)
+    out = part(base)
     if subs:
-        out += "<sub>" + ",".join(part(p, base=False) for p in subs) + "</sub>"
+        out += "<sub>" + ",".join(part(p) for p in subs) + "</sub>"
     return out + ("*" if star else "") + "\u2032" * primes
 
 
