@@ -9,7 +9,7 @@ import itertools
 from hypothesis import given
 from hypothesis import strategies as st
 
-from calcpack.checks.en1995 import DURATIONS, TimberForces, TimberMemberEC, check_en1995_member
+from calcpack.checks.en1995 import DURATIONS, TimberForcesEC, TimberMemberEC, check_en1995_member
 from calcpack.checks.en1995.values import k_mod
 from calcpack.units import Q_
 
@@ -31,7 +31,7 @@ def test_k_c_at_most_one_and_monotonic(l1, l2):
 
     def kc(L):
         m = TimberMemberEC("C24", Q_(75, "mm"), Q_(150, "mm"), 1, L_ef_z=Q_(L, "m"))
-        r = check_en1995_member(m, TimberForces(N_Ed=Q_(10, "kN")))
+        r = check_en1995_member(m, TimberForcesEC(N_Ed=Q_(10, "kN")))
         return r.values["k_c_z"].magnitude
 
     assert 0 < kc(hi) <= kc(lo) <= 1.0
@@ -43,7 +43,7 @@ def test_k_crit_at_most_one_and_monotonic(l1, l2):
 
     def kcrit(L):
         m = TimberMemberEC("C24", Q_(47, "mm"), Q_(250, "mm"), 1, L_ef_LT=Q_(L, "m"))
-        return check_en1995_member(m, TimberForces(M_Ed=Q_(1, "kN*m"))).values["k_crit"].magnitude
+        return check_en1995_member(m, TimberForcesEC(M_Ed=Q_(1, "kN*m"))).values["k_crit"].magnitude
 
     assert 0 < kcrit(hi) <= kcrit(lo) <= 1.0
 
@@ -52,9 +52,9 @@ def test_k_crit_at_most_one_and_monotonic(l1, l2):
 def test_compression_and_bending_is_one_on_its_curve(t):
     # (σ_c/f_c)² + σ_m/f_m = 1 with σ_c = √t f_c and σ_m = (1 − t) f_m (short member, λ_rel ≤ 0.3)
     m = TimberMemberEC("C24", Q_(100, "mm"), Q_(200, "mm"), 1)
-    probe = check_en1995_member(m, TimberForces(N_Ed=Q_(1, "kN"), M_Ed=Q_(1, "kN*m")))
+    probe = check_en1995_member(m, TimberForcesEC(N_Ed=Q_(1, "kN"), M_Ed=Q_(1, "kN*m")))
     fc, fm = probe.values["f_c_0_d"], probe.values["f_m_d"]
     A, W = Q_(100 * 200, "mm**2"), Q_(100 * 200**2 / 6, "mm**3")
-    f = TimberForces(N_Ed=(t**0.5 * fc * A).to("kN"), M_Ed=((1 - t) * fm * W).to("kN*m"))
+    f = TimberForcesEC(N_Ed=(t**0.5 * fc * A).to("kN"), M_Ed=((1 - t) * fm * W).to("kN*m"))
     u = check_en1995_member(m, f)["Compression and bending (6.19)"].utilisation
     assert abs(u - 1.0) < 1e-9

@@ -15,7 +15,7 @@ import math
 import pytest
 
 from calcpack.checks.en1995 import (
-    TimberForces,
+    TimberForcesEC,
     TimberMemberEC,
     check_en1995_deflection,
     check_en1995_member,
@@ -27,7 +27,7 @@ def test_floor_joist_bending_shear_bearing_c24():
     # 47 x 200 C24 joists at 400 mm, service class 1, medium-term (domestic imposed load
     # leading): f_m,d = k_mod k_sys f_m,k / γ_M = 0.8 x 1.1 x 24 / 1.3 (k_h = 1, h >= 150 mm)
     m = TimberMemberEC("C24", Q_(47, "mm"), Q_(200, "mm"), 1, load_sharing=True)
-    f = TimberForces("6.10b", "medium", M_Ed=Q_(3.2, "kN*m"), V_Ed=Q_(3.4, "kN"),
+    f = TimberForcesEC("6.10b", "medium", M_Ed=Q_(3.2, "kN*m"), V_Ed=Q_(3.4, "kN"),
                      F_c90_Ed=Q_(3.4, "kN"), bearing_length=Q_(75, "mm"),
                      end_distance=Q_(0, "mm"), support="discrete")  # fmt: skip
     r = check_en1995_member(m, f, mark="J1")
@@ -54,7 +54,7 @@ def test_floor_joist_bending_shear_bearing_c24():
 def test_shallow_member_gets_k_h():
     # 47 x 100 C16: k_h = min((150/100)^0.2, 1.3) = 1.0845 (Eq. 3.1)
     m = TimberMemberEC("C16", Q_(47, "mm"), Q_(100, "mm"), 2)
-    r = check_en1995_member(m, TimberForces("ULS", "permanent", M_Ed=Q_(0.5, "kN*m")))
+    r = check_en1995_member(m, TimberForcesEC("ULS", "permanent", M_Ed=Q_(0.5, "kN*m")))
     kh = (150 / 100) ** 0.2
     assert r.values["k_h"].magnitude == pytest.approx(kh, rel=1e-9)
     assert r["Bending (6.1.6)"].capacity.to("MPa").magnitude == pytest.approx(
@@ -64,10 +64,11 @@ def test_shallow_member_gets_k_h():
 
 def test_post_with_buckling_c24():
     # 100 x 100 C24 post, ℓ_ef = 2.4 m, medium-term, service class 2: λ = ℓ√12/b,
-    # λ_rel = λ/π √(f_c,0,k/E_0,05), k = 0.5(1 + 0.2(λ_rel − 0.3) + λ_rel²), k_c = 1/(k + √(k² − λ_rel²))
+    # λ_rel = λ/π √(f_c,0,k/E_0,05), k = 0.5(1 + 0.2(λ_rel − 0.3) + λ_rel²),
+    # k_c = 1/(k + √(k² − λ_rel²))
     m = TimberMemberEC("C24", Q_(100, "mm"), Q_(100, "mm"), 2, L_ef_y=Q_(2.4, "m"),
                        L_ef_z=Q_(2.4, "m"))  # fmt: skip
-    r = check_en1995_member(m, TimberForces("ULS", "medium", N_Ed=Q_(40, "kN")), mark="P1")
+    r = check_en1995_member(m, TimberForcesEC("ULS", "medium", N_Ed=Q_(40, "kN")), mark="P1")
     lam_rel = 2400 * math.sqrt(12) / 100 / math.pi * math.sqrt(21 / 7400)
     k = 0.5 * (1 + 0.2 * (lam_rel - 0.3) + lam_rel**2)
     kc = 1 / (k + math.sqrt(k**2 - lam_rel**2))
@@ -79,7 +80,7 @@ def test_glulam_beam_lateral_torsional_stability():
     # GL28h 90 x 400, ℓ_ef = 5 m: σ_m,crit = 0.78 b² E_0,05/(h ℓ_ef) (6.32), λ_rel,m = √(f_m,k/σ),
     # k_crit by (6.34); k_h = min((600/400)^0.1, 1.1); γ_M = 1.25 (UK NA Table NA.3)
     m = TimberMemberEC("GL28h", Q_(90, "mm"), Q_(400, "mm"), 1, L_ef_LT=Q_(5, "m"))
-    r = check_en1995_member(m, TimberForces("ULS", "medium", M_Ed=Q_(30, "kN*m")), mark="GB1")
+    r = check_en1995_member(m, TimberForcesEC("ULS", "medium", M_Ed=Q_(30, "kN*m")), mark="GB1")
     scrit = 0.78 * 90**2 * 10500 / (400 * 5000)
     lam = math.sqrt(28 / scrit)
     kcrit = 1.0 if lam <= 0.75 else (1.56 - 0.75 * lam if lam <= 1.4 else 1 / lam**2)

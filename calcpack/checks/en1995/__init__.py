@@ -9,7 +9,7 @@ National Annex adopted locally.
 
 from calcpack.checks.en1995.members import (
     EN1995,
-    TimberForces,
+    TimberForcesEC,
     TimberMemberEC,
     check_en1995_member,
 )
@@ -31,7 +31,7 @@ __all__ = [
     "DURATIONS",
     "EN1995",
     "StrengthClass",
-    "TimberForces",
+    "TimberForcesEC",
     "TimberMemberEC",
     "check_en1995_deflection",
     "check_en1995_floor_vibration",

@@ -29,7 +29,7 @@ from calcpack.errors import InputError
 from calcpack.units import Q_, Quantity, require, si
 from calcpack.validate import one_of
 
-__all__ = ["EN1995", "TimberForces", "TimberMemberEC", "check_en1995_member"]
+__all__ = ["EN1995", "TimberForcesEC", "TimberMemberEC", "check_en1995_member"]
 
 EN1995 = Standard(
     "BS EN 1995-1-1:2004+A2:2014 with the UK National Annex",
@@ -80,7 +80,7 @@ class TimberMemberEC:
 
 
 @dataclass(frozen=True)
-class TimberForces:
+class TimberForcesEC:
     """Design forces for one combination.
 
     Args:
@@ -135,7 +135,7 @@ class TimberForces:
 
 
 class _Logic:
-    def __init__(self, m: TimberMemberEC, items: Sequence[TimberForces]) -> None:
+    def __init__(self, m: TimberMemberEC, items: Sequence[TimberForcesEC]) -> None:
         self.m, self.items, self.g = m, list(items), m.grade
 
     def __call__(self, c: Recorder) -> None:
@@ -182,7 +182,7 @@ class _Logic:
     def _one(
         self,
         c: Recorder,
-        f: TimberForces,
+        f: TimberForcesEC,
         b: Any,
         h: Any,
         A: Any,
@@ -303,7 +303,7 @@ class _Logic:
     def _compression(
         self,
         c: Recorder,
-        f: TimberForces,
+        f: TimberForcesEC,
         A: Any,
         b: Any,
         h: Any,
@@ -439,7 +439,7 @@ class _Logic:
             )
 
     def _bearing(
-        self, c: Recorder, f: TimberForces, b: Any, h: Any, km: Any, gM: Any, comb: str | None
+        self, c: Recorder, f: TimberForcesEC, b: Any, h: Any, km: Any, gM: Any, comb: str | None
     ) -> None:
         g = self.g
         assert f.bearing_length is not None
@@ -493,7 +493,10 @@ class _Logic:
 
 
 def check_en1995_member(
-    member: TimberMemberEC, forces: TimberForces | Sequence[TimberForces], *, mark: str = "member"
+    member: TimberMemberEC,
+    forces: TimberForcesEC | Sequence[TimberForcesEC],
+    *,
+    mark: str = "member",
 ) -> MemberChecks:
     """Check ``member`` under ``forces`` (one or more combinations, each with its duration).
 
@@ -501,13 +504,13 @@ def check_en1995_member(
         InputError: inputs (the message names the input), including a service class the
             k_mod table does not cover for the product.
     """
-    items = [forces] if isinstance(forces, TimberForces) else list(forces)
-    if not items or not all(isinstance(f, TimberForces) for f in items):
+    items = [forces] if isinstance(forces, TimberForcesEC) else list(forces)
+    if not items or not all(isinstance(f, TimberForcesEC) for f in items):
         raise InputError(
-            f"Input forces must be TimberForces or a list of them (got {forces!r})",
+            f"Input forces must be TimberForcesEC or a list of them (got {forces!r})",
             name="forces",
             value=forces,
-            expected="TimberForces",
+            expected="TimberForcesEC",
         )
     for f in items:
         k_mod(member.grade.product, member.service_class, f.duration)

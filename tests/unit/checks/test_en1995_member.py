@@ -5,7 +5,7 @@ from __future__ import annotations
 import pytest
 
 from calcpack.checks.en1995 import (
-    TimberForces,
+    TimberForcesEC,
     TimberMemberEC,
     check_en1995_floor_vibration,
     check_en1995_member,
@@ -46,12 +46,12 @@ def test_glulam_values():
 
 def test_tension_is_refused_naming_n_ed():
     with pytest.raises(InputError, match="N_Ed"):
-        TimberForces(N_Ed=Q_(-5, "kN"))
+        TimberForcesEC(N_Ed=Q_(-5, "kN"))
 
 
 def test_bearing_needs_its_length():
     with pytest.raises(InputError, match="bearing_length"):
-        TimberForces(F_c90_Ed=Q_(5, "kN"))
+        TimberForcesEC(F_c90_Ed=Q_(5, "kN"))
 
 
 def test_low_frequency_floor_is_refused():
@@ -75,7 +75,7 @@ def test_floor_vibration_passes_a_stiff_floor_and_shows_working():
 def test_beam_column_working_builds():
     m = TimberMemberEC("GL28h", Q_(90, "mm"), Q_(315, "mm"), 2, L_ef_LT=Q_(4, "m"),
                        L_ef_y=Q_(4, "m"), L_ef_z=Q_(2, "m"))  # fmt: skip
-    r = check_en1995_member(m, TimberForces("ULS", "short", M_Ed=Q_(20, "kN*m"),
+    r = check_en1995_member(m, TimberForcesEC("ULS", "short", M_Ed=Q_(20, "kN*m"),
                                             V_Ed=Q_(10, "kN"), N_Ed=Q_(50, "kN")))  # fmt: skip
     names = [x.name for x in r.results]
     assert "Lateral torsional stability with compression (6.35)" in names
