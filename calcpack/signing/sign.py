@@ -1,6 +1,7 @@
 """Signing a calc package by role, into the sign-off block of its cover.
 
-Each signature is a PAdES baseline signature (B-B; B-T when a timestamp server is configured)
+Each signature is a PAdES baseline signature carrying its validation data (B-LT; with a
+signature timestamp and a document timestamp when a timestamp server is configured, B-LTA)
 in the form field of its role, placed in the box the manifest's ``signature_fields`` gives,
 with a visible stamp (name, role, date, reason). The preparer's signature certifies the
 document and allows further signatures and form filling; the checker and approver add approval
@@ -35,6 +36,7 @@ from calcpack.signing.keys import (
     load_credentials,
     same_person,
 )
+from calcpack.signing.longterm import embedding_context
 from calcpack.signing.manifest import (
     field_name,
     read_embedded_manifest,
@@ -116,12 +118,17 @@ def _existing_signatures(reader: Any, source: str) -> list[_Existing]:
                 "the signed bytes no longer match; it cannot be signed again"
             )
         last = i == len(signatures) - 1
-        if last and status.coverage != SignatureCoverageLevel.ENTIRE_FILE:
+        level = status.modification_level
+        only_validation_data = level is not None and level <= ModificationLevel.LTA_UPDATES
+        if (
+            last
+            and status.coverage != SignatureCoverageLevel.ENTIRE_FILE
+            and not only_validation_data
+        ):
             raise SigningError(
                 f"{source} was changed after its last signature (by {who}); "
                 "rebuild and sign the package again instead of signing a modified file"
             )
-        level = status.modification_level
         if level is not None and level > ModificationLevel.FORM_FILLING:
             raise SigningError(
                 f"{source} holds changes after {who}'s signature that are not signatures or "
@@ -234,7 +241,8 @@ def _stamp_lines(text: str, width: int = 40, lines: int = 3) -> str:
     return "\n        ".join(wrapped)
 
 
-def _timestamper(url: str | None, timestamper: Any) -> Any:
+def resolve_timestamper(url: str | None, timestamper: Any) -> Any:
+    """The timestamper given, else one for ``url`` or ``$CALCPACK_TIMESTAMP_URL`` (None if none)."""
     if timestamper is not None:
         return timestamper
     url = url or os.environ.get(TIMESTAMP_URL_ENV) or None
@@ -374,6 +382,7 @@ def sign_package(
     if contradictions:
         why += f" (identity override: {'; '.join(contradictions)}; reason: {override_identity})"
     certified = role == "preparer" and certify
+    stamper = resolve_timestamper(timestamp_url, timestamper)
     meta = signers.PdfSignatureMetadata(
         field_name=field_name(role),
         reason=why,
@@ -383,6 +392,11 @@ def sign_package(
         subfilter=fields.SigSeedSubFilter.PADES,
         certify=certified,
         docmdp_permissions=fields.MDPPerm.FILL_FORMS,
+        # PAdES B-LT: chain and revocation data in the document security store; B-LTA with a
+        # document timestamp when a timestamp server is configured (calcpack.signing.longterm)
+        embed_validation_info=True,
+        validation_context=embedding_context(creds, stamper),
+        use_pades_lta=stamper is not None,
     )
     firm = creds.firm
     text_params = {
@@ -393,7 +407,6 @@ def sign_package(
         "date": f"{signed_at:%Y-%m-%d %H:%M} UTC",
         "reason": _stamp_lines(why),
     }
-    stamper = _timestamper(timestamp_url, timestamper)
     pdf_signer = signers.PdfSigner(
         meta, signer=creds.signer, timestamper=stamper, stamp_style=_stamp_style(stamp_font())
     )

@@ -28,6 +28,7 @@ from calcpack.signing.keys import (
     load_certificates,
     same_person,
 )
+from calcpack.signing.longterm import DocumentTimestamp, Moment, document_timestamps
 from calcpack.signing.manifest import read_embedded_manifest, role_of_field, signature_boxes
 
 __all__ = [
@@ -90,6 +91,10 @@ class SignatureReport:
     reason: str | None = None
     certificate: str = ""
     """SHA-256 of the signer's certificate (DER), to tell signers apart."""
+    checked_at: dt.datetime | None = None
+    """The moment the signer's certificates were checked at."""
+    time_basis: str = "now"
+    """What that moment rests on (a timestamp, the date asked for, the signer's claim, now)."""
 
     @property
     def ok(self) -> bool:
@@ -116,6 +121,14 @@ class SignatureReport:
                 f"    coverage: {coverage}" + ("" if self.changes_allowed else " -- NOT ALLOWED"),
                 f"    signer: {self.trust}",
             ]
+            + (
+                [
+                    f"    certificates checked at {self.checked_at:%Y-%m-%d %H:%M} UTC: "
+                    f"{self.time_basis}"
+                ]
+                if self.checked_at
+                else []
+            )
             + ([f"    reason: {self.reason}"] if self.reason else [])
         )
 
@@ -156,6 +169,8 @@ class VerifyReport:
     problems: tuple[str, ...] = ()
     files: tuple[FileCheck, ...] | None = None
     reproduction: tuple[str, ...] | None = field(default=None)
+    timestamps: tuple[DocumentTimestamp, ...] = ()
+    """The package's document timestamps (PAdES B-LTA), oldest first."""
 
     @property
     def ok(self) -> bool:
@@ -178,6 +193,7 @@ class VerifyReport:
             head += f" -- {job}" + (f", revision {rev}" if rev is not None else "")
         lines = [head]
         lines += [s.text() for s in self.signatures]
+        lines += [t.text() for t in self.timestamps]
         if self.unsigned_roles:
             lines.append(f"Not signed yet: {', '.join(self.unsigned_roles)}")
         if self.files is not None:
@@ -309,12 +325,11 @@ def _outside_validity(cert: Any, moment: dt.datetime) -> str | None:
 
 def _signature_report(
     sig: Any,
-    signer_vc: Any,
-    ts_vc: Any,
+    roots: list[Any],
     later_roles: list[str],
     *,
     certification: bool,
-    at: dt.datetime | None,
+    clock: Moment,
 ) -> SignatureReport:
     from pyhanko.sign.validation import validate_pdf_signature
     from pyhanko.sign.validation.settings import KeyUsageConstraints
@@ -334,13 +349,22 @@ def _signature_report(
     usage = KeyUsageConstraints(
         key_usage={"digital_signature", "non_repudiation"}, match_all_key_usages=False
     )
-    try:
-        status = validate_pdf_signature(
+
+    def validate(signer_moment: dt.datetime) -> Any:
+        return validate_pdf_signature(
             sig,
-            signer_validation_context=signer_vc,
-            ts_validation_context=ts_vc,
+            signer_validation_context=clock.context(roots, signer_moment),
+            ts_validation_context=clock.context(roots, clock.proof),
             key_usage_settings=usage,
         )
+
+    try:
+        status = validate(clock.proof)
+        ts = status.timestamp_validity
+        ts_proof = ts.timestamp if ts and ts.valid and ts.intact and ts.trusted else None
+        moment, basis = clock.signing_moment(ts_proof, signed_at)
+        if moment != clock.proof:
+            status = validate(moment)
     except Exception as exc:
         return SignatureReport(
             field=str(sig.field_name),
@@ -366,10 +390,14 @@ def _signature_report(
     trust = _trust_words(status, bool(status.trusted))
     # A self-signed certificate given as its own trust root is a path of one trust anchor,
     # which the path validator does not date-check; so check the signer's validity here.
-    moment = timestamp if (timestamp is not None and ts_ok) else (at or dt.datetime.now(dt.UTC))
     outside = _outside_validity(sig.signer_cert, moment)
     if outside and trusted:
         trusted, trust = False, outside
+    if not trusted and clock.unproved(basis) and "expired" in trust:
+        trust += (
+            "; no timestamp proves when it was signed (verify --at signing-time checks it at "
+            "the signer's claimed time)"
+        )
     if not ts_ok:
         trust += "; timestamp NOT trusted"
     return SignatureReport(
@@ -387,6 +415,8 @@ def _signature_report(
         certification=certification,
         reason=reason,
         certificate=fingerprint,
+        checked_at=moment,
+        time_basis=basis,
     )
 
 
@@ -424,8 +454,9 @@ def verify_package(
     project: str | os.PathLike[str] | None = None,
     reproduce: bool = False,
     reproducer: Reproducer | None = None,
-    at: dt.datetime | None = None,
+    at: dt.datetime | str | None = None,
     require: Iterable[str] = (),
+    now: dt.datetime | None = None,
 ) -> VerifyReport:
     """Verify a signed calc package.
 
@@ -436,7 +467,10 @@ def verify_package(
         project: the project directory: check the manifest's file hashes against it.
         reproduce: re-execute the notebooks in ``project`` and compare every recorded result.
         reproducer: the function doing the re-execution (default: the package build's).
-        at: the moment to validate certificates at (default: now).
+        at: when there is no timestamp to prove the signing time: ``"signing-time"`` checks
+            each signer's certificates at the time the signer claims (reported as a claim), a
+            datetime checks everything as at that moment. A timestamp's proof comes first.
+        now: the validation clock (default: the current time; tests move it).
         require: roles that must have signed (e.g. ``("preparer", "checker")``); a missing one
             is a failure. Roles not required and not signed are reported, not failed.
 
@@ -450,7 +484,6 @@ def verify_package(
     """
     from pyhanko.pdf_utils.reader import PdfFileReader
     from pyhanko.sign.validation import read_certification_data
-    from pyhanko_certvalidator import ValidationContext
 
     path = Path(pdf)
     source = repr(str(path))
@@ -479,19 +512,24 @@ def verify_package(
             f"{source} is not a readable PDF ({type(exc).__name__}: {exc})"
         ) from exc
 
-    def context() -> Any:
-        return ValidationContext(trust_roots=list(roots), allow_fetching=False, moment=at)
-
+    base = Moment.make(at, now)
+    stamps = document_timestamps(reader, list(roots), base.proof)
     reports: list[SignatureReport] = []
     for i, sig in enumerate(embedded):
         later = [role_of_field(s.field_name) or str(s.field_name) for s in embedded[i + 1 :]]
+        clock = base.for_revision(stamps, sig.signed_revision)
         reports.append(
             _signature_report(
-                sig, context(), context(), later, certification=i == 0 and certified, at=at
+                sig, list(roots), later, certification=i == 0 and certified, clock=clock
             )
         )
 
-    problems: list[str] = []
+    problems: list[str] = [
+        f"{ts.field}: document timestamp not valid at {ts.checked_at:%Y-%m-%d} UTC (renew the "
+        "timestamp before its certificate expires: calcpack renew-timestamp)"
+        for ts in stamps
+        if not ts.valid
+    ]
     if not embedded:
         problems.append("the package carries no signature")
     try:
@@ -530,4 +568,5 @@ def verify_package(
         problems=tuple(problems),
         files=files,
         reproduction=reproduction,
+        timestamps=stamps,
     )
