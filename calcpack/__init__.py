@@ -211,6 +211,10 @@ _LAZY: dict[str, str] = {
     "check_nds_withdrawal": "calcpack.checks.nds.withdrawal",
     "check_nds_combined": "calcpack.checks.nds.withdrawal",
     "check_nds_tearout": "calcpack.checks.nds.withdrawal",
+    "DeckLedger": "calcpack.checks.nds.ledger",
+    "PrescriptiveSpacing": "calcpack.checks.nds.ledger",
+    "check_deck_ledger": "calcpack.checks.nds.ledger",
+    "Embedment": "calcpack.checks.nds.dowel",
     "BoltGroup": "calcpack.checks.aisc360.bolts",
     "Ply": "calcpack.checks.aisc360.bolts",
     "SlipCritical": "calcpack.checks.aisc360.bolts",
@@ -269,6 +273,8 @@ _LAZY: dict[str, str] = {
     "check_en1995_deflection": "calcpack.checks.en1995",
     "check_en1995_floor_vibration": "calcpack.checks.en1995",
     "strength_class": "calcpack.checks.en1995",
+    "FootingSketch": "calcpack.plots.footing",
+    "footing_figure": "calcpack.plots.footing",
 }
 
 
@@ -442,6 +448,10 @@ if TYPE_CHECKING:
         new_project,
         read_manifest,
     )
+    from calcpack.plots.footing import (
+        FootingSketch,
+        footing_figure,
+    )
     from calcpack.sections import (
         Angle,
         BoundedRegion,
@@ -543,6 +553,7 @@ __all__ = [
     "ConnectingPlate",
     "ConnectionService",
     "Couple",
+    "DeckLedger",
     "DeflectionLimit",
     "Derived",
     "DesignForces",
@@ -551,6 +562,7 @@ __all__ = [
     "DowelJoint",
     "ECFootingDesign",
     "EISegment",
+    "Embedment",
     "Equation",
     "EuroSection",
     "Exports",
@@ -561,6 +573,7 @@ __all__ = [
     "Fixed",
     "Footing",
     "FootingLoad",
+    "FootingSketch",
     "FreeBody",
     "FunctionLoad",
     "Given",
@@ -594,6 +607,7 @@ __all__ = [
     "PointMoment",
     "Polygon",
     "PolynomialLoad",
+    "PrescriptiveSpacing",
     "PresumedBearing",
     "Rectangle",
     "RectangularHollow",
@@ -670,6 +684,7 @@ __all__ = [
     "check_aisc_member",
     "check_aisc_plate",
     "check_aisc_web_bearing",
+    "check_deck_ledger",
     "check_deflection",
     "check_elastic_beam",
     "check_en1992_footing",
@@ -702,6 +717,7 @@ __all__ = [
     "envelope_wind_asce7",
     "euro_section",
     "euro_section_names",
+    "footing_figure",
     "get_display",
     "internal_pressure_en",
     "lightest_aisc_beam",
