@@ -23,6 +23,7 @@ __all__ = [
     "MANIFEST_ATTACHMENT_NAME",
     "MANIFEST_FORMAT",
     "dependency_versions",
+    "embedded_manifest_bytes",
     "manifest_bytes",
     "project_files",
     "read_manifest",
@@ -109,6 +110,21 @@ def sheet_record(
 def manifest_bytes(manifest: dict[str, Any]) -> bytes:
     """Canonical JSON bytes of a manifest (stable key order, UTF-8, trailing newline)."""
     return (json.dumps(manifest, indent=2, ensure_ascii=False) + "\n").encode("utf-8")
+
+
+def embedded_manifest_bytes(pdf: Path) -> bytes | None:
+    """The manifest attached to the PDF at ``pdf``, as stored (None if the file is missing, not
+    a PDF or has no calcpack manifest)."""
+    import io
+
+    from pypdf import PdfReader
+
+    try:
+        reader = PdfReader(io.BytesIO(pdf.read_bytes()))
+        raw = reader.attachments.get(MANIFEST_ATTACHMENT_NAME)
+    except Exception:  # pypdf raises many kinds on a damaged file: it is simply not current
+        return None
+    return bytes(raw[0]) if raw else None
 
 
 def read_manifest(pdf: bytes | Path) -> dict[str, Any]:
