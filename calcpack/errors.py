@@ -14,6 +14,7 @@ __all__ = [
     "CalcpackError",
     "DimensionError",
     "InputError",
+    "NoViewError",
     "NotebookExecutionError",
     "OutOfScopeError",
     "SignedPackageError",
@@ -99,6 +100,29 @@ class OutOfScopeError(CalcpackError):
 
     calcpack refuses rather than return a number it cannot stand behind.
     """
+
+
+class NoViewError(CalcpackError, LookupError):
+    """No renderer is registered to show a result in the way asked (see :mod:`calcpack.views`).
+
+    Args:
+        type_name: the result's class, qualified (``"calcpack.analysis.beam.BeamResult"``).
+        kind: the view asked for (``"figure"``, ``"mimebundle"``...).
+        known: the views registered for that class and its bases.
+    """
+
+    def __init__(self, type_name: str, kind: str, known: tuple[str, ...] = ()) -> None:
+        super().__init__(type_name, kind, known)
+        self.type_name = type_name
+        self.kind = kind
+        self.known = known
+
+    def __str__(self) -> str:
+        have = ", ".join(self.known) if self.known else "none"
+        return (
+            f"No {self.kind!r} view is registered for {self.type_name} "
+            f"(views registered for it: {have}); calcpack.notebook registers the standard ones"
+        )
 
 
 class BuildError(CalcpackError):

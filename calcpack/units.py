@@ -19,6 +19,7 @@ from typing import Any
 
 import pint
 
+from calcpack.contract.verdict import passes  # noqa: F401  (re-exported: the one pass rule)
 from calcpack.errors import DimensionError, InputError
 
 __all__ = [
@@ -213,10 +214,42 @@ class DisplaySettings:
     system: str = "SI"
     sig_figs: int = 3
     extra: dict[str, str] = field(default_factory=dict)
+    kinds: dict[str, str] = field(default_factory=dict)
+    """The unit a sheet has settled on per kind of quantity (see :data:`ONE_UNIT_KINDS`):
+    dimension (as text, base dimensions sorted) to unit. Empty for the global settings."""
 
     @property
     def preset(self) -> DisplayPreset:
         return PRESETS[self.system]
+
+    def kind_unit(self, quantity: pint.Quantity | pint.Unit) -> pint.Unit | None:
+        """The unit this sheet shows every quantity of this kind in, once it has settled one."""
+        unit = self.kinds.get(_kind_key(quantity))
+        return ureg.Unit(unit) if unit else None
+
+    def unit_for(self, quantity: pint.Quantity) -> pint.Unit | None:
+        """The sheet's unit for this kind, else the preset's unit for the dimension."""
+        return self.kind_unit(quantity) or self.preset.unit_for(quantity)
+
+    def keep_unit(self, unit: pint.Unit) -> None:
+        """Settle ``unit`` as the sheet's unit for its kind, unless one is settled already;
+        only the kinds of :data:`ONE_UNIT_KINDS` are settled."""
+        dim = _dimensionality(unit)
+        if any(dim == _dimensionality(k) for k in ONE_UNIT_KINDS):
+            self.kinds.setdefault(_kind_key(unit), str(unit))
+
+
+def _kind_key(reference: pint.Quantity | pint.Unit) -> str:
+    """The dimension as text in a fixed order (pint's own text follows insertion order)."""
+    dim = _dimensionality(reference)
+    return " * ".join(f"{k}**{v:g}" for k, v in sorted(dict(dim).items()))
+
+
+ONE_UNIT_KINDS = ("[force]", "[force] * [length]", "[force] / [length]")
+"""Kinds a sheet shows in one unit throughout (a reader compares forces, moments and line
+loads across the sheet; kip beside lbf or klf beside plf invites a slip). Lengths and
+stresses are not here: a span in ft beside a flange in inches, an area load in psf beside a
+stress in psi, are each the trade's habit."""
 
 
 _SETTINGS = DisplaySettings()
@@ -294,8 +327,3 @@ def utilisation(
         )
     d = demand.to(capacity.units)
     return d, capacity, float(abs(d.magnitude) / capacity.magnitude)
-
-
-def passes(utilisation_ratio: float) -> bool:
-    """True when a utilisation passes: not over 1 beyond floating-point rounding."""
-    return utilisation_ratio <= 1.0 + 1e-12

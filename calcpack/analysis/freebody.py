@@ -27,6 +27,7 @@ from typing import TYPE_CHECKING, Any, Literal
 
 import numpy as np
 
+from calcpack import views
 from calcpack.analysis.truss_model import FloatArray, Qty
 
 if TYPE_CHECKING:
@@ -377,9 +378,7 @@ class FreeBodyResult:
     def sketch(self, **options: Any) -> Any:
         """A sketch of the free body with its loads and reactions (a
         :class:`calcpack.plots.truss.FreeBodySketch`, shown inline as SVG)."""
-        from calcpack.plots.truss import FreeBodySketch
-
-        return FreeBodySketch(self, **options)
+        return views.render("sketch", self, **options)
 
     def _repr_mimebundle_(self, include: Any = None, exclude: Any = None) -> Any:
         return self.working()._repr_mimebundle_(include, exclude)

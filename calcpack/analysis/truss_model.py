@@ -30,6 +30,7 @@ from typing import Any, Literal, TypeAlias
 import numpy as np
 import numpy.typing as npt
 
+from calcpack import views
 from calcpack.errors import InputError
 from calcpack.units import Quantity, is_quantity, require, si, ureg
 
@@ -262,9 +263,7 @@ class Truss:
     def diagram(self, **options: Any) -> Any:
         """The truss drawn to scale with its supports and loads (a
         :class:`calcpack.plots.truss.TrussDiagram`, shown inline as SVG)."""
-        from calcpack.plots.truss import TrussDiagram
-
-        return TrussDiagram(self, **options)
+        return views.render("diagram", self, **options)
 
     # -- lookups --------------------------------------------------------------------------
 

@@ -24,6 +24,7 @@ from typing import Any, Literal
 
 import numpy as np
 
+from calcpack import views
 from calcpack.analysis.truss_model import FloatArray, Member, Qty, Truss
 from calcpack.analysis.truss_stiffness import stiffness_solve
 from calcpack.analysis.truss_zero import zero_force_by_inspection
@@ -403,9 +404,7 @@ class TrussResult:
     def diagram(self, **options: Any) -> Any:
         """The truss drawn to scale with supports, loads, reactions and member forces (a
         :class:`calcpack.plots.truss.TrussDiagram`, shown inline as SVG)."""
-        from calcpack.plots.truss import TrussDiagram
-
-        return TrussDiagram(self, **options)
+        return views.render("diagram", self, **options)
 
     def _repr_mimebundle_(self, include: Any = None, exclude: Any = None) -> Any:
         return self.working()._repr_mimebundle_(include, exclude)

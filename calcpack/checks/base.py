@@ -23,8 +23,9 @@ from collections.abc import Callable, Mapping, Sequence
 from dataclasses import dataclass, field
 from typing import Any
 
+from calcpack.contract.verdict import Verdict, passes
 from calcpack.errors import InputError
-from calcpack.units import Q_, Quantity, is_quantity, passes, utilisation
+from calcpack.units import Q_, Quantity, is_quantity, utilisation
 
 __all__ = [
     "NOT_COVERED",
@@ -38,9 +39,9 @@ __all__ = [
     "run_checks",
 ]
 
-OK = "OK"
-NOT_OK = "NOT OK"
-NOT_COVERED = "NOT COVERED"
+OK = Verdict.OK
+NOT_OK = Verdict.NOT_OK
+NOT_COVERED = Verdict.NOT_COVERED
 
 
 @dataclass(frozen=True)
@@ -55,10 +56,15 @@ class Standard:
     code: str
     title: str
     method: str = ""
+    caution_text: str = ""
+    """The caution in the standard's own words, when the general one does not fit (a
+    serviceability limit is not a provision of a design standard)."""
 
     @property
     def caution(self) -> str:
         """The caution every check sheet of this standard carries."""
+        if self.caution_text:
+            return self.caution_text
         m = f" ({self.method})" if self.method else ""
         return (
             f"These checks implement {self.code}{m}, {self.title}. Their provisions must be "
@@ -428,7 +434,9 @@ class MemberChecks:
     def working(self, *, settings: Any = None) -> list[Any]:
         """Every clause as working steps: heading, caution (edition), the check working."""
         rec = SheetRecorder(self.member, settings)
-        rec.heading(f"{self.member}: {self.title}", 2)
+        # the title may name the member already ("B1: deflection"): never "B1: B1: ..."
+        named = self.title.startswith(f"{self.member}:") or self.title.startswith(f"{self.member} ")
+        rec.heading(self.title if named else f"{self.member}: {self.title}", 2)
         rec.caution(self.standard.caution)
         self.logic(rec)
         return rec.steps

@@ -17,11 +17,22 @@ from calcpack.errors import InputError
 from calcpack.units import Q_, Quantity, require, ureg
 from calcpack.validate import finite
 
-__all__ = ["ELASTIC", "check_deflection", "check_elastic_beam"]
+__all__ = ["ELASTIC", "SERVICEABILITY", "check_deflection", "check_elastic_beam"]
 
 ELASTIC = Standard(
     "elastic stress checks against stated allowable values",
     "first principles (M·c/I, V·Q/(I·t), R/A, span/limit)",
+)
+
+
+SERVICEABILITY = Standard(
+    "span/limit deflection limits",
+    "serviceability of members in bending",
+    caution_text=(
+        "Deflection limits are span/limit ratios of the kind building codes set; confirm each "
+        "limit against the building code in force and any stricter need of the finishes, "
+        "glazing or equipment the member carries."
+    ),
 )
 
 
@@ -321,4 +332,4 @@ def check_deflection(
         lim = rec.derive("delta_lim", Lh / n, f"limit span/{limit:g}", unit=dunit, ref=ref)
         rec.check(f"Deflection ({label})", d, lim, ref=ref, combination=combo)
 
-    return run_checks(member, f"{member}: deflection ({label})", ELASTIC, logic)
+    return run_checks(member, f"{member}: deflection ({label})", SERVICEABILITY, logic)

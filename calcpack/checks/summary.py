@@ -50,8 +50,11 @@ def check_records(items: Iterable[Any]) -> list[Any]:
     return out
 
 
-def summary_table(items: Iterable[Any], *, caption: str = "Summary of checks", sig: int = 3) -> Any:
-    """The summary table of every check in ``items`` (sheets, member checks, records...)."""
+def summary_table(items: Iterable[Any], *, caption: str | None = None, sig: int = 3) -> Any:
+    """The summary table of every check in ``items`` (sheets, member checks, records...).
+
+    No caption unless one is given: a sheet puts its own heading over it, and a table titled
+    as its heading reads twice."""
     from calcpack.working import Table, format_number
 
     rows = []

@@ -22,6 +22,7 @@ COMMAND_MODULES: tuple[str, ...] = (
     "keys",
     "sign",
     "verify",
+    "renew",
     "review",
     "diff",
 )

@@ -5,6 +5,8 @@ from __future__ import annotations
 import argparse
 from typing import Any
 
+from calcpack.signing.keys import DEFAULT_VALIDITY_DAYS, MIN_PASSWORD_LENGTH
+
 
 def register(subparsers: Any) -> None:
     """Add the ``keys`` command."""
@@ -30,16 +32,27 @@ def register(subparsers: Any) -> None:
     )
     new.add_argument("--firm", help="the signer's firm")
     new.add_argument("--email", help="the signer's e-mail address")
-    new.add_argument("--days", type=int, default=365, help="validity in days (default 365)")
+    new.add_argument(
+        "--days",
+        type=int,
+        default=DEFAULT_VALIDITY_DAYS,
+        help=f"validity of the certificate in days (default {DEFAULT_VALIDITY_DAYS}); "
+        "signatures with a timestamp stay verifiable after it",
+    )
     new.add_argument("--out", default=".", help="directory for the files (default: here)")
-    new.add_argument("--force", action="store_true", help="replace existing files")
+    new.add_argument("--force", action="store_true", help="replace existing key files")
     new.set_defaults(func=_new)
 
 
 def _new(args: argparse.Namespace) -> int:
-    from calcpack.signing.keys import new_self_signed, read_password
+    from calcpack.signing.keys import check_new_password, new_self_signed, read_password
 
-    password = read_password("Password for the new key: ", confirm=True)
+    password = check_new_password(
+        read_password(
+            f"Password for the new key (at least {MIN_PASSWORD_LENGTH} characters): ",
+            confirm=True,
+        )
+    )
     files = new_self_signed(
         args.out,
         name=args.name,
@@ -52,4 +65,9 @@ def _new(args: argparse.Namespace) -> int:
     )
     print(f"Key file:    {files.key}")
     print(f"Certificate: {files.certificate}  (give this to whoever verifies your signatures)")
+    from calcpack.signing.keys import load_certificates
+
+    (cert,) = load_certificates([files.certificate])
+    end = cert["tbs_certificate"]["validity"]["not_after"].native
+    print(f"Valid until: {end:%Y-%m-%d} ({args.days} days)")
     return 0

@@ -22,6 +22,13 @@ def register(subparsers: Any) -> None:
     parser.add_argument("--role", required=True, choices=("preparer", "checker", "approver"))
     parser.add_argument("--key", required=True, help="PKCS#12 (.p12/.pfx) or PEM key file")
     parser.add_argument("--cert", help="certificate file, for a PEM key")
+    parser.add_argument(
+        "--chain",
+        action="append",
+        default=[],
+        metavar="CERT",
+        help="issuer certificate to embed when the key file lacks it (repeatable)",
+    )
     parser.add_argument("--out", help="write the signed package here (default: replace PACKAGE)")
     parser.add_argument("--reason", help="reason shown in the stamp (a default per role)")
     parser.add_argument("--location", help="where you sign")
@@ -34,6 +41,12 @@ def register(subparsers: Any) -> None:
         metavar="REASON",
         help="checker: sign although review comments are not closed; REASON is recorded",
     )
+    parser.add_argument(
+        "--override-identity",
+        metavar="REASON",
+        help="sign although the key was made for another role or names another person than "
+        "calcpack.toml; REASON is recorded in the signature (one signer never holds two roles)",
+    )
     parser.set_defaults(func=_sign)
 
 
@@ -42,7 +55,7 @@ def _sign(args: argparse.Namespace) -> int:
     from calcpack.signing.sign import sign_package
 
     password = read_password(f"Password for {args.key}: ")
-    creds = load_credentials(args.key, password, certificate=args.cert)
+    creds = load_credentials(args.key, password, certificate=args.cert, chain=args.chain)
     result = sign_package(
         args.package,
         args.role,
@@ -53,6 +66,7 @@ def _sign(args: argparse.Namespace) -> int:
         timestamp_url=args.timestamp_url,
         project=args.project,
         override_open_comments=args.override_open_comments,
+        override_identity=args.override_identity,
     )
     extra = " with an RFC 3161 timestamp" if result.timestamped else ""
     print(f"Signed as {result.role} by {result.signer}{extra}: {result.output}")

@@ -3,6 +3,7 @@
 from __future__ import annotations
 
 import argparse
+import datetime as dt
 from typing import Any
 
 
@@ -28,14 +29,51 @@ def register(subparsers: Any) -> None:
         action="store_true",
         help="re-execute the notebooks in --project and compare every recorded result",
     )
+    parser.add_argument(
+        "--require",
+        metavar="ROLES",
+        default="",
+        help="comma-separated roles that must have signed, e.g. preparer,checker",
+    )
+    parser.add_argument(
+        "--at",
+        metavar="signing-time|DATE",
+        help="when no timestamp proves the signing time: check the certificates at the time "
+        "each signer claims (signing-time: the signer's claim, not a proof) or at DATE "
+        "(e.g. 2031-05-01, UTC)",
+    )
     parser.set_defaults(func=_verify)
+
+
+def _at(text: str | None) -> dt.datetime | str | None:
+    """``--at``: "signing-time" as is, a date or date-time as UTC."""
+    from calcpack.errors import InputError
+
+    if text is None or text == "signing-time":
+        return text
+    try:
+        moment = dt.datetime.fromisoformat(text)
+    except ValueError:
+        raise InputError(
+            f"--at must be signing-time or a date such as 2031-05-01 (got --at {text!r})",
+            name="at",
+            value=text,
+            expected="signing-time | YYYY-MM-DD[THH:MM]",
+        ) from None
+    return moment if moment.tzinfo else moment.replace(tzinfo=dt.UTC)
 
 
 def _verify(args: argparse.Namespace) -> int:
     from calcpack.signing.verify import verify_package
 
+    require = tuple(r.strip() for r in args.require.split(",") if r.strip())
     report = verify_package(
-        args.package, args.trust, project=args.project, reproduce=args.reproduce
+        args.package,
+        args.trust,
+        project=args.project,
+        reproduce=args.reproduce,
+        require=require,
+        at=_at(args.at),
     )
     print(report.text())
     return 0 if report.ok else 1

@@ -15,10 +15,11 @@ __all__ = ["combinations_working", "envelope_table"]
 
 
 def _disp(q: Any, settings: Any) -> Any:
-    """``q`` in the display preset's unit for its dimension (sheet settings or global)."""
+    """``q`` in the sheet's unit for its kind, else the display preset's unit for its
+    dimension (sheet settings or global)."""
     from calcpack.units import get_display
 
-    unit = (settings or get_display()).preset.unit_for(q)
+    unit = (settings or get_display()).unit_for(q)
     return q.to(unit) if unit is not None else q
 
 

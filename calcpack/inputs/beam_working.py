@@ -8,6 +8,7 @@ from __future__ import annotations
 
 from typing import Any
 
+from calcpack import views
 from calcpack.inputs.beam import BeamOutcome
 
 __all__ = ["BeamDiagrams", "beam_working"]
@@ -21,9 +22,8 @@ class BeamDiagrams:
         self.outcome = outcome
 
     def svg(self) -> str:
-        from calcpack.widgets.svg import beam_diagrams_svg
-
-        return beam_diagrams_svg(self.outcome)
+        svg: str = views.render("svg", self)
+        return svg
 
     def _repr_mimebundle_(self, include: Any = None, exclude: Any = None) -> dict[str, Any]:
         svg = self.svg()

@@ -41,17 +41,22 @@ def reproduce_manifest(project: str | Path, *, workers: int = 2) -> dict[str, An
     """Re-execute every sheet (no cache) and return the manifest's ``sheets`` records afresh.
 
     The archive check: the result is comparable with a package's manifest (same keys for each
-    sheet: number, title, path, values, checks, assumptions, cautions).
+    sheet: number, title, path, values, checks, assumptions, cautions; and the links between
+    sheets, each with the value it carried).
     """
     import nbformat
 
-    from calcpack.package.manifest import MANIFEST_FORMAT, sheet_record
+    from calcpack.contract.manifest import Manifest
+    from calcpack.package.links import link_records
+    from calcpack.package.manifest import sheet_record
     from calcpack.package.pipeline import sheet_title
 
     loaded = load_project(project)
     sheets = []
+    links: list[dict[str, Any]] = []
     for item in execute_sheets(loaded, workers=workers, use_cache=False):
         nb = nbformat.reads(item.notebook_json, as_version=4)
         records = collect_records(nb)
         sheets.append(sheet_record(item.entry, sheet_title(item.entry, nb), records))
-    return {"format": MANIFEST_FORMAT, "sheets": sheets}
+        links += link_records(item.entry.path, records.imports)
+    return Manifest(sheets=tuple(sheets), links=tuple(links)).to_json()

@@ -50,8 +50,10 @@ def _cp_markdown(source: str) -> str:
     document, so ids would clash)."""
     from nbconvert.filters import markdown2html
 
+    from calcpack.working.render import symbols_in_html
+
     markup = _HEADING_ID_RE.sub(r"\1", _ANCHOR_RE.sub("", markdown2html(source)))
-    return markdown_math_to_spans(markup)
+    return symbols_in_html(markdown_math_to_spans(markup))
 
 
 def _cp_svg_uri(svg: str | list[str]) -> str:

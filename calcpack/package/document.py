@@ -15,9 +15,11 @@ from dataclasses import dataclass, field
 from html import escape
 from typing import Any
 
+from calcpack.contract.compare import Change
+from calcpack.contract.records import SheetRecords
 from calcpack.package.project import Person, Project, SheetEntry
-from calcpack.package.records import SheetRecords, check_sort_key
-from calcpack.signing.diff import Change
+from calcpack.working.format import format_number
+from calcpack.working.render import symbols_html
 
 __all__ = [
     "ROLES",
@@ -100,17 +102,11 @@ class DocumentOptions:
 
 
 def format_sig(value: float | None, sig_figs: int = 3) -> str:
-    """A number to ``sig_figs`` significant figures without exponent for everyday magnitudes."""
+    """A number to ``sig_figs`` significant figures by the working's formatter (the one number
+    formatter of a package), or a dash when there is none."""
     if value is None or not math.isfinite(value):
         return "—"
-    if value == 0:
-        return "0"
-    magnitude = math.floor(math.log10(abs(value)))
-    if magnitude >= 7 or magnitude <= -5:
-        return f"{value:.{sig_figs - 1}e}"
-    decimals = sig_figs - 1 - magnitude
-    rounded = round(value, decimals)
-    return f"{rounded:.{max(decimals, 0)}f}"
+    return format_number(value, sig_figs)
 
 
 def _e(text: Any) -> str:
@@ -198,6 +194,8 @@ def _titleblock(
 
 
 def _cover(project: Project, sheets: Sequence[SheetDoc]) -> str:
+    from calcpack.package.summary import check_counts, counts_line
+
     rev = project.revision
     standards = "<br>".join(_e(s) for s in project.design.standards)
     boxes = []
@@ -227,6 +225,7 @@ def _cover(project: Project, sheets: Sequence[SheetDoc]) -> str:
 <tr><th>Design standards</th><td>{standards}</td></tr>
 <tr><th>Unit system</th><td>{_e(project.units)}</td></tr>
 <tr><th>Extent</th><td>{len(sheets)} sheets, <span class="totalpages"></span> pages</td></tr>
+<tr><th>Checks</th><td>{_e(counts_line(check_counts(sheets)))}</td></tr>
 </table>
 <div class="cp-signoff"><div class="heading">Sign-off</div>
 <table><tr>{"".join(boxes)}</tr></table>
@@ -301,20 +300,31 @@ def _design_basis(project: Project, sheets: Sequence[SheetDoc]) -> str:
     return "".join(parts)
 
 
+def _gathered(general: Sequence[str], sheets: Sequence[SheetDoc], field_name: str) -> list[str]:
+    """Each text once, in first-seen order, with the sheets that declare it: a caution every
+    sheet of one standard carries is said once, "(sheets 1, 2, 4)"."""
+    seen: dict[str, list[str]] = {}
+    for text in general:
+        seen.setdefault(text, [])
+    for sheet in sheets:
+        for text in getattr(sheet.records, field_name):
+            where = seen.setdefault(text, [])
+            if sheet.entry.number not in where and (where or text not in general):
+                where.append(sheet.entry.number)
+    out = []
+    for text, where in seen.items():
+        tag = ""
+        if where:
+            label = "sheet" if len(where) == 1 else "sheets"
+            tag = f' <span class="cpd-src">({label} {_e(", ".join(where))})</span>'
+        out.append(_inline_markdown(text) + tag)
+    return out
+
+
 def _assumptions(project: Project, sheets: Sequence[SheetDoc]) -> str:
-    assumptions = [_inline_markdown(a) for a in project.design.assumptions]
-    for sheet in sheets:
-        assumptions += [
-            f'{_inline_markdown(a)} <span class="cpd-src">(sheet {_e(sheet.entry.number)})</span>'
-            for a in sheet.records.assumptions
-        ]
-    cautions = [_e(c) for c in STANDARD_CAUTIONS]
-    cautions += [_inline_markdown(c) for c in project.design.cautions]
-    for sheet in sheets:
-        cautions += [
-            f'{_inline_markdown(c)} <span class="cpd-src">(sheet {_e(sheet.entry.number)})</span>'
-            for c in sheet.records.cautions
-        ]
+    assumptions = _gathered(project.design.assumptions, sheets, "assumptions")
+    standard = [_e(c) for c in STANDARD_CAUTIONS]
+    cautions = standard + _gathered(project.design.cautions, sheets, "cautions")
     body = (
         _list(assumptions, ordered=True)
         if assumptions
@@ -331,53 +341,13 @@ def _assumptions(project: Project, sheets: Sequence[SheetDoc]) -> str:
     )
 
 
-def _verdict(verdict: str) -> str:
-    cls = {"OK": "ok", "NOT OK": "notok"}.get(verdict, "nc")
-    return f'<span class="cpd-verdict {cls}">{_e(verdict)}</span>'
-
-
 def _summary(project: Project, sheets: Sequence[SheetDoc]) -> str:
-    rows = []
-    entries = [(sheet, c) for sheet in sheets for c in sheet.records.checks]
-    entries.sort(key=lambda item: check_sort_key(item[1]))
-    for sheet, c in entries:
-        u = c.get("utilisation")
-        bar = ""
-        if u is not None:
-            width = min(u, 1.5) / 1.5 * 14
-            over = " over" if u > 1 else ""
-            bar = f' <span class="cpd-ubar{over}" style="width:{width:.1f}mm"></span>'
-        unit = f" {_e(c['unit'])}" if c.get("unit") else ""
-        rows.append(
-            f"<tr><td>{_e(sheet.entry.number)}</td><td>{_e(c.get('member') or '')}</td>"
-            f"<td>{_e(c['name'])}</td><td>{_e(c.get('combination') or '')}</td>"
-            f'<td class="num">{format_sig(c.get("demand"))}{unit}</td>'
-            f'<td class="num">{format_sig(c.get("capacity"))}{unit}</td>'
-            f'<td class="num">{"—" if u is None else f"{u:.2f}"}{bar}</td>'
-            f"<td>{_verdict(c['verdict'])}</td><td>{_e(c.get('ref') or '')}</td></tr>"
-        )
-    if rows:
-        table = (
-            '<table class="cpd-table"><thead><tr><th>Sheet</th><th>Member</th><th>Check</th>'
-            "<th>Combination</th><th>Demand</th><th>Capacity</th><th>Utilisation</th>"
-            "<th>Verdict</th><th>Reference</th></tr></thead><tbody>"
-            + "".join(rows)
-            + "</tbody></table>"
-        )
-    else:
-        table = '<p class="cp-empty">The sheets record no design checks.</p>'
-    counts = {
-        v: sum(1 for _, c in entries if c["verdict"] == v) for v in ("OK", "NOT OK", "NOT COVERED")
-    }
-    line = (
-        f"<p>{len(entries)} checks: {counts['OK']} OK, {counts['NOT OK']} NOT OK, "
-        f"{counts['NOT COVERED']} NOT COVERED. Worst first.</p>"
-    )
+    from calcpack.package.summary import summary_html
+
     return (
         _titleblock(project, sheet_no="—", title="Summary of checks", pages=None)
         + '<h1 class="cp-h cp-bm1">Summary of checks</h1>'
-        + line
-        + table
+        + summary_html(sheets)
     )
 
 
@@ -392,7 +362,8 @@ def _change_text(change: Change) -> str:
     old = _e(change.old) if change.old is not None else "(none)"
     new = _e(change.new) if change.new is not None else "(removed)"
     verdict = " <b>verdict changed</b>" if change.verdict_changed else ""
-    return f"{what} {_e(change.name)}: {old} &#8594; {new}{verdict}"
+    note = f" <i>({_e(change.note())})</i>" if change.note() else ""
+    return f"{what} {_e(change.name)}: {old} &#8594; {new}{verdict}{note}"
 
 
 def _revision_changes(since: str, changes: Sequence[Change]) -> str:
@@ -402,7 +373,8 @@ def _revision_changes(since: str, changes: Sequence[Change]) -> str:
         return f'<p class="cp-empty">{nothing}</p>'
     by_sheet: dict[str, list[Change]] = {}
     for change in changes:
-        by_sheet.setdefault(change.sheet, []).append(change)
+        if change.shown:  # an imported copy is listed at the value it copies
+            by_sheet.setdefault(change.sheet, []).append(change)
     items = []
     for sheet, found in by_sheet.items():
         shown = "; ".join(_change_text(c) for c in found[:MAX_CHANGES_PER_SHEET])
@@ -452,8 +424,8 @@ def _review(project: Project, review: tuple[ReviewRow, ...] | None) -> str:
     if not review:
         return head + '<p class="cp-empty">The review record holds no comments.</p>'
     rows = "".join(
-        f"<tr><td>{_e(r.ident)}</td><td>{_e(r.sheet)}</td><td>{_e(r.quantity)}</td>"
-        f"<td>{_e(r.text)}</td><td>{_e(r.by)}</td><td>{_e(r.date)}</td><td>{_e(r.status)}</td></tr>"
+        f"<tr><td>{_e(r.ident)}</td><td>{_e(r.sheet)}</td><td>{symbols_html(_e(r.quantity))}</td>"
+        f"<td>{symbols_html(_e(r.text))}</td><td>{_e(r.by)}</td><td>{_e(r.date)}</td><td>{_e(r.status)}</td></tr>"
         for r in review
     )
     return (

@@ -1,27 +1,29 @@
 """The package manifest: what the PDF was built from and what it records.
 
-Written beside the PDF and attached inside it as ``calcpack-manifest.json``. Its keys follow the
-build contract (``format`` "calcpack-manifest/1"): the calcpack and key dependency versions, the
-project block, SHA-256 of every project file, notebook, inputs file and review file, every sheet's
-recorded values and checks with its pages, and the sign-off boxes for the signing step.
+Written beside the PDF and attached inside it as ``calcpack-manifest.json``. Its keys follow
+the contract (:class:`calcpack.contract.Manifest`, format "calcpack-manifest/1"): the calcpack
+and key dependency versions, the project block, SHA-256 of every project file, notebook,
+inputs file and review file, every sheet's recorded values and checks with its pages, and the
+sign-off boxes for the signing step.
 """
 
 from __future__ import annotations
 
-import json
 import platform
 from collections.abc import Sequence
 from importlib import metadata
 from pathlib import Path
 from typing import Any
 
+from calcpack.contract.manifest import MANIFEST_FORMAT, MANIFEST_NAME, Manifest, manifest_bytes
+from calcpack.contract.records import SheetRecords
 from calcpack.package.project import Project, SheetEntry, file_sha256
-from calcpack.package.records import SheetRecords
 
 __all__ = [
     "KEY_DEPENDENCIES",
     "MANIFEST_ATTACHMENT_NAME",
     "MANIFEST_FORMAT",
+    "Manifest",
     "dependency_versions",
     "embedded_manifest_bytes",
     "manifest_bytes",
@@ -30,8 +32,7 @@ __all__ = [
     "sheet_record",
 ]
 
-MANIFEST_FORMAT = "calcpack-manifest/1"
-MANIFEST_ATTACHMENT_NAME = "calcpack-manifest.json"
+MANIFEST_ATTACHMENT_NAME = MANIFEST_NAME
 KEY_DEPENDENCIES = (
     "numpy",
     "sympy",
@@ -107,11 +108,6 @@ def sheet_record(
     }
 
 
-def manifest_bytes(manifest: dict[str, Any]) -> bytes:
-    """Canonical JSON bytes of a manifest (stable key order, UTF-8, trailing newline)."""
-    return (json.dumps(manifest, indent=2, ensure_ascii=False) + "\n").encode("utf-8")
-
-
 def embedded_manifest_bytes(pdf: Path) -> bytes | None:
     """The manifest attached to the PDF at ``pdf``, as stored (None if the file is missing, not
     a PDF or has no calcpack manifest)."""
@@ -147,5 +143,4 @@ def read_manifest(pdf: bytes | Path) -> dict[str, Any]:
             f"PDF has no attached {MANIFEST_ATTACHMENT_NAME} (not a calcpack package?)"
         )
     raw: Sequence[bytes] = attachments[MANIFEST_ATTACHMENT_NAME]
-    result: dict[str, Any] = json.loads(raw[0].decode("utf-8"))
-    return result
+    return Manifest.from_bytes(raw[0], "The manifest attached to the PDF").to_json()

@@ -27,6 +27,7 @@ from dataclasses import dataclass, replace
 from pathlib import Path
 from typing import Any
 
+from calcpack.contract.manifest import MANIFEST_NAME, Manifest, manifest_bytes
 from calcpack.errors import BuildError
 from calcpack.package import links, publish
 from calcpack.package.bodies import convert_sheet, fill_bodies, prepare_in_worker
@@ -43,14 +44,7 @@ from calcpack.package.execute import (
     execute_sheets,
     worker_pool,
 )
-from calcpack.package.manifest import (
-    MANIFEST_ATTACHMENT_NAME,
-    MANIFEST_FORMAT,
-    dependency_versions,
-    manifest_bytes,
-    project_files,
-    sheet_record,
-)
+from calcpack.package.manifest import dependency_versions, project_files, sheet_record
 from calcpack.package.mathsvg import add_break_entries, add_cache_entries
 from calcpack.package.paginate import ChunkStore, Layout, PdfAttachment, paginate, write_pdf
 from calcpack.package.project import Person, Project, Revision, SheetEntry, load_project
@@ -589,13 +583,12 @@ def build(
     if use_cache:
         save_math_cache(math_cache, set(used_keys))
     sheet_ids = _sheet_ids(docs)
-    manifest: dict[str, Any] = {
-        "format": MANIFEST_FORMAT,
-        "calcpack_version": __version__,
-        "dependencies": dependency_versions(),
-        "project": project.summary(),
-        "files": project_files(project, review_file),
-        "sheets": [
+    manifest = Manifest(
+        calcpack_version=__version__,
+        dependencies=dependency_versions(),
+        project=project.summary(),
+        files=tuple(project_files(project, review_file)),
+        sheets=tuple(
             sheet_record(
                 doc.entry,
                 doc.title,
@@ -604,20 +597,20 @@ def build(
                 pages=list(layout.section_pages[sheet_ids[doc.entry.path]]),
             )
             for doc, item in zip(docs, executed, strict=True)
-        ],
-        "links": [
+        ),
+        links=tuple(
             link for doc in docs for link in links.link_records(doc.entry.path, doc.records.imports)
-        ],
-        "signature_fields": list(layout.signature_fields),
-        "sections": {k: list(v) for k, v in layout.section_pages.items()},
-        "build": {
+        ),
+        signature_fields=tuple(layout.signature_fields),
+        sections={k: list(v) for k, v in layout.section_pages.items()},
+        build={
             "created": created.isoformat(),
             "paper": options.paper,
             "reviewer_copy": reviewer_copy,
             "pages": layout.page_count,
             "build_key": build_key,
         },
-    }
+    ).to_json()
     data = manifest_bytes(manifest)
     if report:
         report("writing", pdf_path.name)
@@ -625,9 +618,7 @@ def build(
         layout,
         created=created,
         attachments=[
-            PdfAttachment(
-                MANIFEST_ATTACHMENT_NAME, data, "calcpack build manifest: inputs, versions, results"
-            )
+            PdfAttachment(MANIFEST_NAME, data, "calcpack build manifest: inputs, versions, results")
         ],
         identifier_seed=build_key.encode(),
     )

@@ -19,11 +19,11 @@ from collections.abc import Sequence
 from pathlib import Path
 from typing import Any
 
+from calcpack.contract.compare import diff_manifests
 from calcpack.fileio import write_atomically
 from calcpack.package.document import RevisionMarks, SheetDoc
 from calcpack.package.manifest import sheet_record
 from calcpack.package.project import Project, Revision
-from calcpack.signing.diff import diff_manifests
 
 __all__ = [
     "ISSUED_DIR_NAME",
@@ -72,9 +72,14 @@ def issued_basis_key(project: Project) -> str:
 
 def _records(project: Project, docs: Sequence[SheetDoc]) -> dict[str, Any]:
     """This build's sheets in the manifest's shape, as far as the comparison reads it."""
+    from calcpack.package.links import link_records
+
     return {
         "project": {"revision": project.revision.rev},
         "sheets": [sheet_record(doc.entry, doc.title, doc.records) for doc in docs],
+        "links": [
+            link for doc in docs for link in link_records(doc.entry.path, doc.records.imports)
+        ],
     }
 
 

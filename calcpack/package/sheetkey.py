@@ -7,6 +7,7 @@ A sheet's executed notebook can change only with
 - what a kernel can read of the project file: the unit system, the design standards, the
   project inputs and the list of sheets (paths, numbers and inputs: imports between sheets
   name their source by them),
+- the firm's own checklists file, when the project has one (read by ``Sheet.checklist``),
 - calcpack's own code and reference data.
 
 The job's title, client, site, firm, paper, people and revisions (including ``issued``), the
@@ -71,4 +72,9 @@ def sheet_cache_key(project: Project, sheet: SheetEntry) -> str:
     feed("notebook", project.sheet_path(sheet).read_bytes())
     for name in (*sheet.inputs, *project.inputs):
         feed("input:" + name, (project.root / name).read_bytes())
+    from calcpack.checks.checklists import CHECKLIST_FILE
+
+    own = project.root / CHECKLIST_FILE  # a firm's own checklists, read by Sheet.checklist
+    if own.is_file():
+        feed("checklists", own.read_bytes())
     return digest.hexdigest()

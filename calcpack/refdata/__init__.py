@@ -26,7 +26,7 @@ from typing import Any
 from calcpack.errors import InputError
 from calcpack.validate import lookup
 
-__all__ = ["Table", "read_table"]
+__all__ = ["Table", "parse_table", "read_table"]
 
 
 @dataclass(frozen=True)
@@ -72,6 +72,16 @@ def read_table(filename: str, key: str, package: str = "calcpack.refdata") -> Ta
         InputError: the key column is missing or a key is repeated.
     """
     text = resources.files(package).joinpath(filename).read_text(encoding="utf-8")
+    return parse_table(text, filename, key)
+
+
+def parse_table(text: str, filename: str, key: str) -> Table:
+    """A table from CSV text in the same format (``#`` header lines, then the CSV), e.g. a
+    project's own copy of a shipped table.
+
+    Raises:
+        InputError: the key column is missing or a key is repeated.
+    """
     header: list[str] = []
     body: list[str] = []
     for line in text.splitlines():

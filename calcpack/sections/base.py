@@ -6,6 +6,7 @@ import math
 from functools import cached_property
 from typing import TYPE_CHECKING, Any
 
+from calcpack import views
 from calcpack.errors import InputError
 from calcpack.units import Q_, Quantity, require, si
 
@@ -134,15 +135,12 @@ class Section:
 
         Imports matplotlib lazily. See :func:`calcpack.plots.section.section_figure`.
         """
-        from calcpack.plots.section import section_figure
-
-        return section_figure(self, props=self.properties(), **options)
+        return views.render("figure", self, **options)
 
     def svg(self, **options: Any) -> str:
         """The sketch as an SVG string."""
-        from calcpack.plots.section import section_svg
-
-        return section_svg(self, **options)
+        svg: str = views.render("svg", self, **options)
+        return svg
 
     def working(self, **options: Any) -> Block:
         """The working (parts table, centroid, parallel-axis theorem) as calcpack.working steps."""

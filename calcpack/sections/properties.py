@@ -23,6 +23,7 @@ from collections.abc import Sequence
 from dataclasses import dataclass
 from typing import TYPE_CHECKING, Any
 
+from calcpack import views
 from calcpack.errors import InputError, OutOfScopeError
 from calcpack.sections.geometry import Region
 from calcpack.units import Q_, Quantity
@@ -189,9 +190,7 @@ class SectionProperties:
 
     def figure(self, **options: Any) -> Any:
         """A matplotlib figure sketching the section with its centroid and axes."""
-        from calcpack.plots.section import section_figure
-
-        return section_figure(self.section, props=self, **options)
+        return views.render("figure", self, **options)
 
 
 def _find_level(regions: Sequence[WeightedRegion], axis: str, target: float) -> float:

@@ -1,8 +1,9 @@
 """Signing the demo package: demo credentials made on the spot, preparer and checker sign.
 
 ``calcpack demo`` calls :func:`after_build_sign` on the build result (it is one of the demo's
-after-build steps). The password of the demo keys is random and lives only in memory; the demo
-root certificate is written beside the keys so that the package can be verified with
+after-build steps). The password of the demo keys is random and lives only in memory, so the key
+files are removed once the package is signed; the demo root certificate stays in ``DIR/keys`` so
+that the package can be verified with
 ``calcpack verify PACKAGE --trust DIR/keys/demo-root.crt``.
 """
 
@@ -86,15 +87,21 @@ def sign_demo_package(
     }
     firm = str(info.get("firm") or "Demo Engineering Practice")
     creds = make_demo_credentials(keys, firm=firm, people=people)
-    for role in DEMO_ROLES:
-        sign_package(
-            pdf_path,
-            role,
-            creds.keys[role],
-            creds.password,
-            reason="Demonstration signature -- not for construction",
-            project=project_dir if project_dir.is_dir() else None,
-        )
+    try:
+        for role in DEMO_ROLES:
+            sign_package(
+                pdf_path,
+                role,
+                creds.keys[role],
+                creds.password,
+                reason="Demonstration signature -- not for construction",
+                project=project_dir if project_dir.is_dir() else None,
+            )
+    finally:
+        # Nobody knows their password (it was never shown): key files nobody can open are
+        # clutter at best, so only the root certificate stays, for verifying.
+        for key_file in creds.keys.values():
+            key_file.unlink(missing_ok=True)
     return DemoSignoff(pdf=pdf_path, root=creds.root)
 
 

@@ -42,6 +42,30 @@ ROLES: tuple[str, ...] = ("preparer", "checker", "approver")
 
 _RSA_BITS = 2048  # broadest support among PDF readers; ~0.1 s to generate
 
+#: Shortest key password accepted for a new key file (a PKCS#12 file can be attacked offline).
+MIN_PASSWORD_LENGTH = 12
+
+#: Validity of a certificate from ``keys new`` unless stated otherwise. Signatures outlive it:
+#: a timestamp proves when they were made (calcpack.signing.longterm).
+DEFAULT_VALIDITY_DAYS = 730
+
+
+def check_new_password(password: str) -> str:
+    """Return ``password`` if it is long enough for a new key file.
+
+    Raises:
+        SigningError: empty or shorter than :data:`MIN_PASSWORD_LENGTH` (the message gives the
+            length, never the password).
+    """
+    if not password:
+        raise SigningError("The key password must not be empty")
+    if len(password) < MIN_PASSWORD_LENGTH:
+        raise SigningError(
+            f"The key password must have at least {MIN_PASSWORD_LENGTH} characters "
+            f"(got {len(password)}); nothing was written"
+        )
+    return password
+
 
 def check_role(role: str) -> str:
     """Return ``role`` if it is one of :data:`ROLES`, else raise InputError naming it."""
@@ -76,8 +100,12 @@ def read_password(prompt: str = "Key password: ", *, confirm: bool = False) -> s
             f"No key password: set the environment variable {PASSWORD_ENV} "
             "or run the command in a terminal to be prompted"
         )
-    password = getpass.getpass(prompt)
-    if confirm and getpass.getpass("Repeat the password: ") != password:
+    try:
+        password = getpass.getpass(prompt)
+        again = getpass.getpass("Repeat the password: ") if confirm else password
+    except EOFError:  # Ctrl-D at the prompt
+        raise SigningError("No key password entered (input ended); nothing was done") from None
+    if again != password:
         raise SigningError("The two passwords entered differ; nothing was written")
     if not password:
         raise SigningError("The key password must not be empty")
@@ -231,7 +259,7 @@ def new_self_signed(
     password: str,
     firm: str | None = None,
     email: str | None = None,
-    days: int = 365,
+    days: int = DEFAULT_VALIDITY_DAYS,
     not_before: dt.datetime | None = None,
     overwrite: bool = False,
 ) -> KeyFiles:
@@ -246,26 +274,30 @@ def new_self_signed(
         password: protects the PKCS#12 file; it is not stored anywhere.
         firm: the signer's firm (certificate organisation).
         email: optional e-mail address.
-        days: validity in days from now.
+        days: validity in days from now (default :data:`DEFAULT_VALIDITY_DAYS`).
         not_before: start of validity (default: now); for tests of not-yet-valid certificates.
         overwrite: replace existing files of the same name.
 
     Raises:
         InputError: empty name, unknown role, bad validity.
-        SigningError: the files exist already and ``overwrite`` is false; empty password.
+        SigningError: the files exist already and ``overwrite`` is false; a password shorter
+            than :data:`MIN_PASSWORD_LENGTH`.
     """
     check_role(role)
     if not name or not name.strip():
         raise InputError("Signer name must not be empty (got name = '')", name="name", value=name)
-    if not password:
-        raise SigningError("The key password must not be empty")
+    check_new_password(password)
     start, end = _validity(days, not_before)
     out = Path(directory)
     key_path = out / f"{_slug(name)}.p12"
     cert_path = out / f"{_slug(name)}.crt"
     for existing in (key_path, cert_path):
         if existing.exists() and not overwrite:
-            raise SigningError(f"Key file {str(existing)!r} exists already; choose another name")
+            raise SigningError(
+                f"Key file {str(existing)!r} exists already; choose another name or folder, "
+                "or give --force to replace it (signatures made with the old key then cannot "
+                "be matched to a key file)"
+            )
     key = _new_key()
     subject = _name(name.strip(), firm=firm, role=role, email=email)
     cert = _build_certificate(
@@ -364,6 +396,12 @@ class Credentials:
         return certificate_name(self.certificate)
 
     @property
+    def role(self) -> str | None:
+        """The sign-off role recorded in the certificate (its title), if it is one of ROLES."""
+        value = self.certificate.subject.native.get("title")
+        return str(value) if value in ROLES else None
+
+    @property
     def firm(self) -> str | None:
         """The signer's organisation, if the certificate names one."""
         value = self.certificate.subject.native.get("organization_name")
@@ -375,6 +413,22 @@ def certificate_name(cert: Any) -> str:
     native = cert.subject.native
     common = native.get("common_name")
     return str(common) if common else str(cert.subject.human_friendly)
+
+
+def certificate_sha256(cert: Any) -> str:
+    """Hex SHA-256 of an asn1crypto certificate's DER encoding (its fingerprint)."""
+    import hashlib
+
+    return hashlib.sha256(cert.dump()).hexdigest()
+
+
+def same_person(a: str, b: str) -> bool:
+    """Whether two signer names are the same name (case, spacing and full stops ignored)."""
+
+    def norm(name: str) -> str:
+        return " ".join(name.replace(".", " ").split()).casefold()
+
+    return bool(norm(a)) and norm(a) == norm(b)
 
 
 def load_certificates(paths: Iterable[str | os.PathLike[str]]) -> list[Any]:

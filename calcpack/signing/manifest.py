@@ -13,6 +13,7 @@ from dataclasses import dataclass
 from pathlib import Path
 from typing import Any
 
+from calcpack.contract.manifest import MANIFEST_FORMAT, MANIFEST_NAME, check_manifest, is_manifest
 from calcpack.errors import VerificationError
 
 __all__ = [
@@ -26,9 +27,6 @@ __all__ = [
     "role_of_field",
     "signature_boxes",
 ]
-
-MANIFEST_NAME = "calcpack-manifest.json"
-MANIFEST_FORMAT = "calcpack-manifest/1"
 
 #: Signature form fields are named ``<FIELD_PREFIX><role>``.
 FIELD_PREFIX = "calcpack_signoff_"
@@ -53,17 +51,6 @@ class SignatureBox:
     role: str
     page: int
     box: tuple[float, float, float, float]
-
-
-def _check_manifest(data: Any, source: str) -> dict[str, Any]:
-    if not isinstance(data, dict):
-        raise VerificationError(f"{source} is not a calcpack manifest: it is not a JSON object")
-    fmt = data.get("format")
-    if not isinstance(fmt, str) or not fmt.startswith("calcpack-manifest/"):
-        raise VerificationError(
-            f"{source} is not a calcpack manifest (format = {fmt!r}, expected {MANIFEST_FORMAT!r})"
-        )
-    return data
 
 
 def _embedded_files(reader: Any) -> dict[str, Any]:
@@ -107,7 +94,7 @@ def read_embedded_manifest(reader: Any, source: str) -> dict[str, Any]:
         data = json.loads(stream.data.decode("utf-8"))
     except (KeyError, ValueError, UnicodeDecodeError) as exc:
         raise VerificationError(f"The manifest embedded in {source} is unreadable ({exc})") from exc
-    return _check_manifest(data, f"The manifest embedded in {source}")
+    return check_manifest(data, f"The manifest embedded in {source}")
 
 
 def load_manifest(source: str | os.PathLike[str]) -> dict[str, Any]:
@@ -142,7 +129,7 @@ def load_manifest(source: str | os.PathLike[str]) -> dict[str, Any]:
         raise VerificationError(
             f"{str(path)!r} is neither a PDF nor a JSON manifest ({exc})"
         ) from exc
-    return _check_manifest(data, repr(str(path)))
+    return check_manifest(data, repr(str(path)))
 
 
 def _manifest_in_directory(directory: Path) -> dict[str, Any]:
@@ -156,8 +143,7 @@ def _manifest_in_directory(directory: Path) -> dict[str, Any]:
                 data = json.loads(file.read_text(encoding="utf-8"))
             except (ValueError, UnicodeDecodeError, OSError):
                 continue
-            fmt = data.get("format") if isinstance(data, dict) else None
-            if isinstance(fmt, str) and fmt.startswith("calcpack-manifest/"):
+            if is_manifest(data):
                 candidates.append((file, data))
     if not candidates:
         raise VerificationError(f"Directory {str(directory)!r} holds no calcpack manifest")

@@ -1,12 +1,16 @@
 """Signing a calc package by role, into the sign-off block of its cover.
 
-Each signature is a PAdES baseline signature (B-B; B-T when a timestamp server is configured)
+Each signature is a PAdES baseline signature carrying its validation data (B-LT; with a
+signature timestamp and a document timestamp when a timestamp server is configured, B-LTA)
 in the form field of its role, placed in the box the manifest's ``signature_fields`` gives,
 with a visible stamp (name, role, date, reason). The preparer's signature certifies the
 document and allows further signatures and form filling; the checker and approver add approval
 signatures as incremental updates, so earlier signatures stay valid.
 
-Rules enforced: roles sign in order (preparer, checker, approver); a role signs once; a package
+Rules enforced: roles sign in order (preparer, checker, approver); a role signs once; one signer
+(same certificate or same name) holds one role; a key made for another role, or held by someone
+other than the person the project names for the role, is refused unless an identity override
+reason is given (recorded in the signature's reason); a package
 changed since its last signature is refused; the checker cannot sign while review comments are
 not closed, unless an override reason is given (recorded in the review file and the signature's
 reason). The signed package is written to a new file atomically; the input is never modified
@@ -24,7 +28,15 @@ from typing import Any, cast
 
 from calcpack.errors import SigningError, VerificationError
 from calcpack.signing._util import quiet_library_logs, write_atomically
-from calcpack.signing.keys import ROLES, Credentials, check_role, load_credentials
+from calcpack.signing.keys import (
+    ROLES,
+    Credentials,
+    certificate_sha256,
+    check_role,
+    load_credentials,
+    same_person,
+)
+from calcpack.signing.longterm import embedding_context
 from calcpack.signing.manifest import (
     field_name,
     read_embedded_manifest,
@@ -74,6 +86,8 @@ class _Existing:
     role: str | None
     field: str
     signer: str
+    certificate: str = ""
+    """SHA-256 of the signer's certificate (DER)."""
 
 
 def _find_project(pdf: Path) -> Path | None:
@@ -104,19 +118,29 @@ def _existing_signatures(reader: Any, source: str) -> list[_Existing]:
                 "the signed bytes no longer match; it cannot be signed again"
             )
         last = i == len(signatures) - 1
-        if last and status.coverage != SignatureCoverageLevel.ENTIRE_FILE:
+        level = status.modification_level
+        only_validation_data = level is not None and level <= ModificationLevel.LTA_UPDATES
+        if (
+            last
+            and status.coverage != SignatureCoverageLevel.ENTIRE_FILE
+            and not only_validation_data
+        ):
             raise SigningError(
                 f"{source} was changed after its last signature (by {who}); "
                 "rebuild and sign the package again instead of signing a modified file"
             )
-        level = status.modification_level
         if level is not None and level > ModificationLevel.FORM_FILLING:
             raise SigningError(
                 f"{source} holds changes after {who}'s signature that are not signatures or "
                 f"form filling ({level.name.lower()}); it cannot be signed again"
             )
         found.append(
-            _Existing(role=role_of_field(sig.field_name), field=sig.field_name, signer=who)
+            _Existing(
+                role=role_of_field(sig.field_name),
+                field=sig.field_name,
+                signer=who,
+                certificate=certificate_sha256(sig.signer_cert),
+            )
         )
     return found
 
@@ -137,6 +161,48 @@ def _check_order(
             )
     if role == "preparer" and existing:
         raise SigningError(f"{source} already carries signatures; the preparer signs first")
+
+
+def _check_signer(
+    role: str,
+    creds: Credentials,
+    existing: list[_Existing],
+    manifest: dict[str, Any],
+    source: str,
+    override: str | None,
+) -> tuple[str, ...]:
+    """Refuse a signer who already holds another role in the package; refuse (unless overridden)
+    a key whose recorded role or name contradicts the role asked for or the project's person.
+
+    Returns the contradictions overridden (to be recorded), empty if none.
+    """
+    fingerprint = certificate_sha256(creds.certificate)
+    for e in existing:
+        if e.certificate == fingerprint or same_person(e.signer, creds.name):
+            how = "the same certificate" if e.certificate == fingerprint else "the same name"
+            raise SigningError(
+                f"{source} is already signed as {e.role or e.field} by {e.signer} ({how} as "
+                f"the key given, {str(creds.path)!r}); one signer holds one role: the {role} "
+                "must be someone else"
+            )
+    problems = []
+    recorded = creds.role
+    if recorded is not None and recorded != role:
+        problems.append(
+            f"the key {str(creds.path)!r} was made for the role {recorded!r}, not {role!r}"
+        )
+    person = str((manifest.get("project") or {}).get(role) or "")
+    if person and not same_person(person, creds.name):
+        problems.append(
+            f"the key's holder {creds.name!r} is not the {role} named in calcpack.toml ({person!r})"
+        )
+    if problems and not (override and override.strip()):
+        raise SigningError(
+            f"Refusing to sign {source} as {role}: {'; '.join(problems)}. Use the right key, "
+            "or give --override-identity REASON to sign anyway (the reason is recorded in the "
+            "signature)"
+        )
+    return tuple(problems)
 
 
 def _stamp_style(font: Path | None) -> Any:
@@ -175,7 +241,8 @@ def _stamp_lines(text: str, width: int = 40, lines: int = 3) -> str:
     return "\n        ".join(wrapped)
 
 
-def _timestamper(url: str | None, timestamper: Any) -> Any:
+def resolve_timestamper(url: str | None, timestamper: Any) -> Any:
+    """The timestamper given, else one for ``url`` or ``$CALCPACK_TIMESTAMP_URL`` (None if none)."""
     if timestamper is not None:
         return timestamper
     url = url or os.environ.get(TIMESTAMP_URL_ENV) or None
@@ -206,6 +273,7 @@ def sign_package(
     project: str | os.PathLike[str] | None = None,
     override_open_comments: str | None = None,
     certify: bool = True,
+    override_identity: str | None = None,
 ) -> SignResult:
     """Sign a calc package as ``role`` into its sign-off block.
 
@@ -225,6 +293,9 @@ def sign_package(
         override_open_comments: the checker's reason for signing with comments not closed.
         certify: the preparer's signature is a certification signature (allowing further
             signatures and form filling).
+        override_identity: the reason for signing with a key whose recorded role or holder
+            contradicts ``role`` or the person named for it in the project; recorded in the
+            signature's reason. It never allows one signer to hold two roles.
 
     Returns:
         A :class:`SignResult`.
@@ -284,6 +355,7 @@ def sign_package(
         if isinstance(key, Credentials)
         else load_credentials(key, password, certificate=certificate)
     )
+    contradictions = _check_signer(role, creds, existing, manifest, source, override_identity)
 
     for r in ROLES:
         if r in boxes and not _has_field(writer, field_name(r)):
@@ -307,7 +379,10 @@ def sign_package(
             f" (signed with review comments {', '.join(overridden)} not closed: "
             f"{override_open_comments})"
         )
+    if contradictions:
+        why += f" (identity override: {'; '.join(contradictions)}; reason: {override_identity})"
     certified = role == "preparer" and certify
+    stamper = resolve_timestamper(timestamp_url, timestamper)
     meta = signers.PdfSignatureMetadata(
         field_name=field_name(role),
         reason=why,
@@ -317,6 +392,11 @@ def sign_package(
         subfilter=fields.SigSeedSubFilter.PADES,
         certify=certified,
         docmdp_permissions=fields.MDPPerm.FILL_FORMS,
+        # PAdES B-LT: chain and revocation data in the document security store; B-LTA with a
+        # document timestamp when a timestamp server is configured (calcpack.signing.longterm)
+        embed_validation_info=True,
+        validation_context=embedding_context(creds, stamper),
+        use_pades_lta=stamper is not None,
     )
     firm = creds.firm
     text_params = {
@@ -327,7 +407,6 @@ def sign_package(
         "date": f"{signed_at:%Y-%m-%d %H:%M} UTC",
         "reason": _stamp_lines(why),
     }
-    stamper = _timestamper(timestamp_url, timestamper)
     pdf_signer = signers.PdfSigner(
         meta, signer=creds.signer, timestamper=stamper, stamp_style=_stamp_style(stamp_font())
     )

@@ -17,9 +17,18 @@ from dataclasses import dataclass, field
 from pathlib import Path
 from typing import Any
 
+from calcpack.contract.compare import diff_manifests
 from calcpack.errors import InputError, VerificationError
 from calcpack.signing._util import quiet_library_logs
-from calcpack.signing.keys import ROLES, certificate_name, load_certificates
+from calcpack.signing.keys import (
+    ROLES,
+    certificate_name,
+    certificate_sha256,
+    check_role,
+    load_certificates,
+    same_person,
+)
+from calcpack.signing.longterm import DocumentTimestamp, Moment, document_timestamps
 from calcpack.signing.manifest import read_embedded_manifest, role_of_field, signature_boxes
 
 __all__ = [
@@ -80,6 +89,12 @@ class SignatureReport:
     trust: str
     certification: bool = False
     reason: str | None = None
+    certificate: str = ""
+    """SHA-256 of the signer's certificate (DER), to tell signers apart."""
+    checked_at: dt.datetime | None = None
+    """The moment the signer's certificates were checked at."""
+    time_basis: str = "now"
+    """What that moment rests on (a timestamp, the date asked for, the signer's claim, now)."""
 
     @property
     def ok(self) -> bool:
@@ -106,6 +121,14 @@ class SignatureReport:
                 f"    coverage: {coverage}" + ("" if self.changes_allowed else " -- NOT ALLOWED"),
                 f"    signer: {self.trust}",
             ]
+            + (
+                [
+                    f"    certificates checked at {self.checked_at:%Y-%m-%d %H:%M} UTC: "
+                    f"{self.time_basis}"
+                ]
+                if self.checked_at
+                else []
+            )
             + ([f"    reason: {self.reason}"] if self.reason else [])
         )
 
@@ -146,6 +169,8 @@ class VerifyReport:
     problems: tuple[str, ...] = ()
     files: tuple[FileCheck, ...] | None = None
     reproduction: tuple[str, ...] | None = field(default=None)
+    timestamps: tuple[DocumentTimestamp, ...] = ()
+    """The package's document timestamps (PAdES B-LTA), oldest first."""
 
     @property
     def ok(self) -> bool:
@@ -168,6 +193,7 @@ class VerifyReport:
             head += f" -- {job}" + (f", revision {rev}" if rev is not None else "")
         lines = [head]
         lines += [s.text() for s in self.signatures]
+        lines += [t.text() for t in self.timestamps]
         if self.unsigned_roles:
             lines.append(f"Not signed yet: {', '.join(self.unsigned_roles)}")
         if self.files is not None:
@@ -227,56 +253,15 @@ def check_project_files(
 
 
 def _default_reproducer(project: Path) -> dict[str, Any]:
-    """Re-execute the project's notebooks (no execution cache) and return their records.
+    """Re-execute the project's notebooks (no execution cache) and return their records."""
+    from calcpack.package import reproduce_manifest
 
-    Uses ``calcpack.package.reproduce_manifest(project)`` when the build provides it, else
-    composes the build's own stages: ``load_project`` -> ``execute_sheets(use_cache=False)``
-    -> ``collect_records`` per executed notebook.
-
-    Raises:
-        VerificationError: the package build offers neither.
-    """
-    from calcpack import package
-
-    whole = getattr(package, "reproduce_manifest", None)
-    if whole is not None:
-        return dict(whole(project))
-    import importlib
-
-    try:
-        import nbformat
-
-        # by name: the stages live in the build's modules, imported only when reproducing
-        execute_sheets = importlib.import_module("calcpack.package.execute").execute_sheets
-        load_project = importlib.import_module("calcpack.package.project").load_project
-        collect_records = importlib.import_module("calcpack.package.records").collect_records
-    except (ImportError, AttributeError) as exc:
-        raise VerificationError(
-            "--reproduce needs the package build's execution API "
-            "(calcpack.package.reproduce_manifest, or load_project / execute_sheets / "
-            f"collect_records), which this version does not provide ({exc})"
-        ) from exc
-    loaded = load_project(project)
-    sheets = []
-    for item in execute_sheets(loaded, use_cache=False):
-        records = collect_records(nbformat.reads(item.notebook_json, as_version=4))
-        sheets.append(
-            {
-                "number": item.entry.number,
-                "title": item.entry.title,
-                "path": item.entry.path,
-                "values": list(records.values),
-                "checks": list(records.checks),
-            }
-        )
-    return {"format": "calcpack-manifest/1", "sheets": sheets}
+    return reproduce_manifest(project)
 
 
 def _reproduce(
     manifest: dict[str, Any], project: Path, reproducer: Reproducer | None
 ) -> tuple[str, ...]:
-    from calcpack.signing.diff import diff_manifests
-
     fresh = (reproducer or _default_reproducer)(project)
     titles = {s.get("path"): s.get("title") for s in manifest.get("sheets", [])}
     for sheet in fresh.get("sheets", []):
@@ -340,12 +325,11 @@ def _outside_validity(cert: Any, moment: dt.datetime) -> str | None:
 
 def _signature_report(
     sig: Any,
-    signer_vc: Any,
-    ts_vc: Any,
+    roots: list[Any],
     later_roles: list[str],
     *,
     certification: bool,
-    at: dt.datetime | None,
+    clock: Moment,
 ) -> SignatureReport:
     from pyhanko.sign.validation import validate_pdf_signature
     from pyhanko.sign.validation.settings import KeyUsageConstraints
@@ -353,8 +337,9 @@ def _signature_report(
     role = role_of_field(sig.field_name)
     try:
         signer = certificate_name(sig.signer_cert)
+        fingerprint = certificate_sha256(sig.signer_cert)
     except Exception:
-        signer = "unknown signer"
+        signer, fingerprint = "unknown signer", ""
     reason_obj = sig.sig_object.get("/Reason") if sig.sig_object is not None else None
     reason = str(reason_obj) if reason_obj is not None else None
     try:
@@ -364,13 +349,22 @@ def _signature_report(
     usage = KeyUsageConstraints(
         key_usage={"digital_signature", "non_repudiation"}, match_all_key_usages=False
     )
-    try:
-        status = validate_pdf_signature(
+
+    def validate(signer_moment: dt.datetime) -> Any:
+        return validate_pdf_signature(
             sig,
-            signer_validation_context=signer_vc,
-            ts_validation_context=ts_vc,
+            signer_validation_context=clock.context(roots, signer_moment),
+            ts_validation_context=clock.context(roots, clock.proof),
             key_usage_settings=usage,
         )
+
+    try:
+        status = validate(clock.proof)
+        ts = status.timestamp_validity
+        ts_proof = ts.timestamp if ts and ts.valid and ts.intact and ts.trusted else None
+        moment, basis = clock.signing_moment(ts_proof, signed_at)
+        if moment != clock.proof:
+            status = validate(moment)
     except Exception as exc:
         return SignatureReport(
             field=str(sig.field_name),
@@ -385,6 +379,7 @@ def _signature_report(
             trusted=False,
             trust="not checked",
             reason=reason,
+            certificate=fingerprint,
         )
     intact = bool(status.intact and status.valid)
     whole, changes, allowed = _describe_changes(status, later_roles)
@@ -395,10 +390,14 @@ def _signature_report(
     trust = _trust_words(status, bool(status.trusted))
     # A self-signed certificate given as its own trust root is a path of one trust anchor,
     # which the path validator does not date-check; so check the signer's validity here.
-    moment = timestamp if (timestamp is not None and ts_ok) else (at or dt.datetime.now(dt.UTC))
     outside = _outside_validity(sig.signer_cert, moment)
     if outside and trusted:
         trusted, trust = False, outside
+    if not trusted and clock.unproved(basis) and "expired" in trust:
+        trust += (
+            "; no timestamp proves when it was signed (verify --at signing-time checks it at "
+            "the signer's claimed time)"
+        )
     if not ts_ok:
         trust += "; timestamp NOT trusted"
     return SignatureReport(
@@ -415,7 +414,36 @@ def _signature_report(
         trust=trust,
         certification=certification,
         reason=reason,
+        certificate=fingerprint,
+        checked_at=moment,
+        time_basis=basis,
     )
+
+
+def _role_problems(
+    reports: list[SignatureReport], boxes: dict[str, Any], require: tuple[str, ...]
+) -> list[str]:
+    """One signer per role; the required roles signed."""
+    problems = []
+    for i, a in enumerate(reports):
+        for b in reports[i + 1 :]:
+            if a.role == b.role:
+                continue  # reported as a role signed twice
+            if (a.certificate and a.certificate == b.certificate) or same_person(
+                a.signer, b.signer
+            ):
+                problems.append(
+                    f"one signer holds two roles: {b.signer} signed as {b.role or b.field} "
+                    f"after signing as {a.role or a.field}"
+                )
+    signed = {r.role for r in reports}
+    missing = [r for r in require if r not in signed]
+    if missing:
+        problems.append(f"required role(s) not signed: {', '.join(missing)}")
+    absent = [r for r in require if boxes and r not in boxes]
+    if absent:
+        problems.append(f"required role(s) with no box in the sign-off block: {', '.join(absent)}")
+    return problems
 
 
 @quiet_library_logs()
@@ -426,7 +454,9 @@ def verify_package(
     project: str | os.PathLike[str] | None = None,
     reproduce: bool = False,
     reproducer: Reproducer | None = None,
-    at: dt.datetime | None = None,
+    at: dt.datetime | str | None = None,
+    require: Iterable[str] = (),
+    now: dt.datetime | None = None,
 ) -> VerifyReport:
     """Verify a signed calc package.
 
@@ -437,7 +467,12 @@ def verify_package(
         project: the project directory: check the manifest's file hashes against it.
         reproduce: re-execute the notebooks in ``project`` and compare every recorded result.
         reproducer: the function doing the re-execution (default: the package build's).
-        at: the moment to validate certificates at (default: now).
+        at: when there is no timestamp to prove the signing time: ``"signing-time"`` checks
+            each signer's certificates at the time the signer claims (reported as a claim), a
+            datetime checks everything as at that moment. A timestamp's proof comes first.
+        now: the validation clock (default: the current time; tests move it).
+        require: roles that must have signed (e.g. ``("preparer", "checker")``); a missing one
+            is a failure. Roles not required and not signed are reported, not failed.
 
     Returns:
         A :class:`VerifyReport`; ``report.ok`` says whether everything passed.
@@ -449,10 +484,10 @@ def verify_package(
     """
     from pyhanko.pdf_utils.reader import PdfFileReader
     from pyhanko.sign.validation import read_certification_data
-    from pyhanko_certvalidator import ValidationContext
 
     path = Path(pdf)
     source = repr(str(path))
+    required = tuple(check_role(r) for r in require)
     if not path.is_file():
         raise VerificationError(f"Package {source} does not exist")
     if reproduce and project is None:
@@ -477,19 +512,24 @@ def verify_package(
             f"{source} is not a readable PDF ({type(exc).__name__}: {exc})"
         ) from exc
 
-    def context() -> Any:
-        return ValidationContext(trust_roots=list(roots), allow_fetching=False, moment=at)
-
+    base = Moment.make(at, now)
+    stamps = document_timestamps(reader, list(roots), base.proof)
     reports: list[SignatureReport] = []
     for i, sig in enumerate(embedded):
         later = [role_of_field(s.field_name) or str(s.field_name) for s in embedded[i + 1 :]]
+        clock = base.for_revision(stamps, sig.signed_revision)
         reports.append(
             _signature_report(
-                sig, context(), context(), later, certification=i == 0 and certified, at=at
+                sig, list(roots), later, certification=i == 0 and certified, clock=clock
             )
         )
 
-    problems: list[str] = []
+    problems: list[str] = [
+        f"{ts.field}: document timestamp not valid at {ts.checked_at:%Y-%m-%d} UTC (renew the "
+        "timestamp before its certificate expires: calcpack renew-timestamp)"
+        for ts in stamps
+        if not ts.valid
+    ]
     if not embedded:
         problems.append("the package carries no signature")
     try:
@@ -512,6 +552,7 @@ def verify_package(
         missing = [r for r in prefix[: len(signed)] if r not in signed]
         problems.append(f"signed without the earlier role(s): {', '.join(missing)}")
     unsigned = tuple(r for r in ROLES if r in boxes and r not in signed)
+    problems += _role_problems(reports, boxes, required)
 
     files = check_project_files(manifest, project) if project is not None else None
     reproduction = (
@@ -527,4 +568,5 @@ def verify_package(
         problems=tuple(problems),
         files=files,
         reproduction=reproduction,
+        timestamps=stamps,
     )

@@ -25,3 +25,7 @@ def __getattr__(name: str) -> Any:
     if name in _WHERE:
         return getattr(importlib.import_module(_WHERE[name]), name)
     raise AttributeError(f"module 'calcpack.widgets' has no attribute {name!r}")
+
+
+def __dir__() -> list[str]:
+    return sorted({*globals(), *__all__})

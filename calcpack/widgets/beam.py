@@ -33,6 +33,7 @@ from typing import Any
 
 import ipywidgets as ipw
 
+from calcpack.contract.verdict import passes
 from calcpack.errors import CalcpackError
 from calcpack.inputs import (
     SHAPES,
@@ -46,12 +47,15 @@ from calcpack.inputs import (
 from calcpack.inputs.file import cached_unit, split_key
 from calcpack.units import Q_, Quantity
 from calcpack.widgets.fields import (
+    PANEL_CSS,
     PanelDisplay,
     QuantityField,
     css_key,
+    field_for_error,
     label,
     wait_for_output_sent,
 )
+from calcpack.widgets.rerun import RerunControl
 from calcpack.widgets.svg import beam_diagram_parts
 
 __all__ = ["BeamPanel", "beam_panel", "outcome_table_html"]
@@ -86,7 +90,7 @@ def _mag(q: Quantity, unit: str) -> float:
 
 
 def _verdict(u: float) -> str:
-    ok = u <= 1.0
+    ok = passes(u)
     colour = "#1d6b2f" if ok else "#a31515"
     return (
         f'<span class="cp-verdict {"cp-ok" if ok else "cp-notok"}" style="color:{colour};'
@@ -173,16 +177,15 @@ class BeamPanel(PanelDisplay):
         reload = ipw.Button(description="Reload file", tooltip=f"Read {self.path.name} again")
         reload.on_click(lambda _b: self.reload())
         title = ipw.HTML(
-            f"<b>Beam panel</b> — edits <code>{escape(self.path.name)}</code>; "
-            "re-run the sheet's cells to update its working."
+            PANEL_CSS + f"<b>Beam panel</b> — edits <code>{escape(self.path.name)}</code>; "
+            "the sheet's cells below read that file."
         )
-        self.widget = ipw.VBox(
-            [
-                ipw.HBox([title, reload]),
-                ipw.HBox([self.form, ipw.VBox([self.diagrams, self.results])]),
-                self.status,
-            ]
-        )
+        self.rerun = RerunControl()
+        side = ipw.VBox([self.diagrams, self.results])
+        side.add_class("cp-panel-side")
+        body = ipw.HBox([self.form, side])
+        body.add_class("cp-panel-body")
+        self.widget = ipw.VBox([ipw.HBox([title, reload]), self.rerun.widget, body, self.status])
         self.widget.add_class("cp-beam-panel")
         self._build_form()
         self._refresh()
@@ -320,10 +323,12 @@ class BeamPanel(PanelDisplay):
             validated = beam_inputs(candidate, path=self.path)
         except CalcpackError as exc:
             self._error(f"Not saved: {exc}")
+            self._mark_field(exc, changes)
             return
         except (KeyError, IndexError, TypeError) as exc:
             self._error(f"Not saved: no value {exc} in {self.path.name}")
             return
+        self._clear_fields()
         if self._section is not None and self._section[0] == candidate.get("section"):
             # Same section as on screen: keep its object, whose properties (a polygon
             # integration costing about as much as the whole beam solve) are worked out.
@@ -343,6 +348,7 @@ class BeamPanel(PanelDisplay):
         self.edit_times.append((started, self.last_update_s, time.perf_counter() - t0))
         if shown:  # otherwise the status keeps the reason nothing is drawn
             self._saved()
+        self.rerun.edited(changes)
 
     def _spans(self, step: int) -> None:
         spans = list(self.data["beam"]["spans"])
@@ -414,6 +420,17 @@ class BeamPanel(PanelDisplay):
         self._refresh()
 
     # -- output ---------------------------------------------------------------------------------
+    def _mark_field(self, exc: Exception, changes: dict[str, Any]) -> None:
+        """Show the error at the field it belongs to (the last valid display stays)."""
+        key = field_for_error(exc, self.fields, changes)
+        if key is not None:
+            self.fields[key].show_error(str(exc))
+
+    def _clear_fields(self) -> None:
+        for f in self.fields.values():
+            if f.error:
+                f.clear_error()
+
     def _error(self, message: str) -> None:
         self.status.value = f'<span style="color:#a31515">{escape(message)}</span>'
 

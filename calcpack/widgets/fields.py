@@ -5,7 +5,8 @@ from __future__ import annotations
 
 import os
 import threading
-from collections.abc import Callable
+from collections.abc import Callable, Iterable, Mapping
+from html import escape
 from pathlib import Path
 from typing import Any
 
@@ -13,9 +14,29 @@ import ipywidgets as ipw
 
 from calcpack.units import Q_, Quantity
 
-__all__ = ["QuantityField", "interactive_session", "label", "wait_for_output_sent"]
+__all__ = [
+    "PANEL_CSS",
+    "QuantityField",
+    "field_for_error",
+    "interactive_session",
+    "label",
+    "wait_for_output_sent",
+]
 
 LABEL_WIDTH = "150px"
+
+#: Style shared by every panel: a field in error is outlined and its message shown in red
+#: beside it; drawings scale down to the width of the notebook area (never clipped) and the
+#: drawings column wraps under the form when the area is narrow.
+PANEL_CSS = (
+    "<style>"
+    ".cp-invalid input{outline:2px solid #a31515;outline-offset:-1px;background:#fff4f4}"
+    ".cp-error{color:#a31515;font-size:12px}"
+    ".cp-panel-diagrams svg,.cp-panel-diagrams-box svg{max-width:100%;height:auto}"
+    ".cp-panel-body{flex-flow:row wrap;align-items:flex-start}"
+    ".cp-panel-side{flex:1 1 320px;min-width:0;overflow:hidden}"
+    "</style>"
+)
 
 
 def interactive_session() -> bool:
@@ -103,12 +124,26 @@ class QuantityField:
         )
         self.box.add_class("cp-field")
         self.box.add_class(css_key(key))
+        self.error = ""  # the message shown at the field, "" while its value is valid
+        self.message = ipw.HTML(layout=ipw.Layout(margin="0 0 0 6px"))
+        self.message.add_class("cp-field-message")
         self.widget = ipw.HBox(
-            [label(text, width), self.box, ipw.Label(f"{value.units:~P}")],
-            layout=ipw.Layout(margin="0 0 2px 0"),
+            [label(text, width), self.box, ipw.Label(f"{value.units:~P}"), self.message],
+            layout=ipw.Layout(margin="0 0 2px 0", flex_flow="row wrap"),
         )
         self._on_change = on_change
         self.box.observe(self._changed, names="value")
+
+    def show_error(self, message: str) -> None:
+        """Mark the field invalid and show ``message`` beside it (the value stays as typed)."""
+        self.error = message
+        self.box.add_class("cp-invalid")
+        self.message.value = f'<span class="cp-error">{escape(message)}</span>'
+
+    def clear_error(self) -> None:
+        self.error = ""
+        self.box.remove_class("cp-invalid")
+        self.message.value = ""
 
     @property
     def quantity(self) -> Quantity:
@@ -116,6 +151,20 @@ class QuantityField:
 
     def _changed(self, change: dict[str, Any]) -> None:
         self._on_change(self.key, Q_(float(change["new"]), self.unit))
+
+
+def field_for_error(
+    exc: Exception, fields: Mapping[str, Any], changed: Iterable[str]
+) -> str | None:
+    """The key of the field an error belongs to: the input the error names (an inputs-file key
+    such as ``beam.spans[2]``), else the one field just edited, else None."""
+    name = getattr(exc, "name", None)
+    if isinstance(name, str):
+        for key in fields:
+            if name == key or name.startswith(key + ".") or name.startswith(key + "["):
+                return key
+    edited = [k for k in changed if k in fields]
+    return edited[0] if len(edited) == 1 else None
 
 
 def css_key(key: str) -> str:

@@ -17,7 +17,15 @@ import ipywidgets as ipw
 from calcpack.errors import CalcpackError
 from calcpack.inputs import SHAPES, load_inputs, parse_quantity, section_from_inputs, update_inputs
 from calcpack.units import Quantity
-from calcpack.widgets.fields import PanelDisplay, QuantityField, css_key, label
+from calcpack.widgets.fields import (
+    PANEL_CSS,
+    PanelDisplay,
+    QuantityField,
+    css_key,
+    field_for_error,
+    label,
+)
+from calcpack.widgets.rerun import RerunControl
 from calcpack.widgets.svg import section_sketch_svg
 
 __all__ = ["SectionPanel", "properties_table_html", "section_panel"]
@@ -81,13 +89,17 @@ class SectionPanel(PanelDisplay):
         self.table = ipw.HTML()
         self.status = ipw.HTML()
         self.status.add_class("cp-panel-status")
+        body = ipw.HBox([self.form, self.sketch, self.table])
+        body.add_class("cp-panel-body")
+        self.rerun = RerunControl()
         self.widget = ipw.VBox(
             [
                 ipw.HTML(
-                    f"<b>Section panel</b> — edits <code>{escape(self.path.name)}</code> "
-                    f"[{escape(key)}]"
+                    PANEL_CSS + "<b>Section panel</b> — edits "
+                    f"<code>{escape(self.path.name)}</code> [{escape(key)}]"
                 ),
-                ipw.HBox([self.form, self.sketch, self.table]),
+                self.rerun.widget,
+                body,
                 self.status,
             ]
         )
@@ -150,7 +162,13 @@ class SectionPanel(PanelDisplay):
             shape = section_from_inputs(candidate[self.key], key=self.key, path=self.path)
         except CalcpackError as exc:
             self.status.value = f'<span style="color:#a31515">Not saved: {escape(str(exc))}</span>'
+            key = field_for_error(exc, self.fields, changes)
+            if key is not None:
+                self.fields[key].show_error(str(exc))
             return
+        for f in self.fields.values():
+            if f.error:
+                f.clear_error()
         try:
             self.data = update_inputs(self.path, changes)
         except CalcpackError as exc:  # e.g. the file was edited by hand meanwhile
@@ -158,6 +176,7 @@ class SectionPanel(PanelDisplay):
             return
         self._refresh(shape)
         self.last_update_s = time.perf_counter() - t0
+        self.rerun.edited(changes)
 
     def _refresh(self, shape: Any = None) -> None:
         try:

@@ -15,9 +15,10 @@ import html
 import re
 from typing import Any
 
-from calcpack.working.expr import Term, to_latex, to_text
+from calcpack.working.expr import _GREEK_TEXT, Term, symbol_latex, to_latex, to_text
 from calcpack.working.figure import Figure
 from calcpack.working.format import format_number, format_quantity_latex, format_quantity_text
+from calcpack.working.prose import Citation, fill
 from calcpack.working.steps import (
     RECORDS_MIMETYPE,
     Block,
@@ -48,7 +49,7 @@ align-items:baseline;padding:.15em 0;border-bottom:1px dotted #c8ccd2;font-size:
 .cp-heading h2,.cp-heading h3,.cp-heading h4{margin:.2em 0}
 .cp-text,.cp-assume,.cp-caution,.cp-table,.cp-block,.cp-figure{display:block}
 .cp-figure img{max-width:100%;height:auto}.cp-figure figure{margin:.4em 0}
-.cp-figure figcaption{font-size:.85em;color:#333}
+.cp-figure figcaption{font-size:.85em;color:#333}.cp-cite{white-space:nowrap}
 .cp-caution{border-left:4px solid #a06000;padding-left:.6em}
 .cp-assume{border-left:4px solid #4a6a8a;padding-left:.6em}
 .cp-table table{border-collapse:collapse;margin:.3em 0}
@@ -78,17 +79,40 @@ def _visible_length(tex: str) -> int:
 
 
 def _prose_html(text: str) -> str:
-    """Escape prose and turn ``$...$`` into inline math spans, ``**x**`` into bold."""
+    """Escape prose and turn ``$...$`` into inline math spans, ``**x**`` into bold and symbol
+    names written in it (``F_c``, ``R_A,max``, ``sigma_b``) into set symbols."""
     parts = re.split(r"(?<!\\)\$(.+?)(?<!\\)\$", text)
     out = []
     for i, part in enumerate(parts):
         if i % 2:
             out.append(_inline_math(part))
         else:
-            esc = _esc(part)
+            esc = symbols_html(_esc(part))
             esc = re.sub(r"\*\*(.+?)\*\*", r"<strong>\1</strong>", esc)
             out.append(esc)
     return "".join(out)
+
+
+# A symbol name in prose: letters, then one or more _subscripts (letters, digits, ⊥), then
+# optional ,qualifiers (R_A,max). Not inside a path or a dotted name (01_loads.ipynb, a.b_c).
+_SYMBOL_IN_PROSE = re.compile(
+    r"(?<![^\W\d]|[.\\-])([^\W\d_]+(?:_[^\W_]+[⊥]?)+(?:,[^\W\d_]+(?![\w]*_))*)(?!\w|\.\w)"
+)
+
+
+def symbols_html(escaped: str) -> str:
+    """Set the symbol names in escaped prose as symbols: ``F_c`` → F<sub>c</sub>.
+
+    Writers of prose (and of the library's descriptions) write symbols by name; the page shows
+    the symbol as the working does, never the raw name.
+    """
+
+    def one(m: re.Match[str]) -> str:
+        token = m.group(1)
+        base, _, rest = token.partition("_")
+        return _symbol_html(base + "_" + rest.replace(",", "_"))
+
+    return _SYMBOL_IN_PROSE.sub(one, escaped)
 
 
 def _prose_latex(text: str) -> str:
@@ -161,7 +185,8 @@ def _check_tex(step: Check) -> tuple[str, str]:
 
 
 def _verdict_html(verdict: str) -> str:
-    cls = {Verdict.OK: "cp-ok", Verdict.NOT_OK: "cp-notok"}.get(verdict, "cp-nc")
+    classes: dict[str, str] = {Verdict.OK: "cp-ok", Verdict.NOT_OK: "cp-notok"}
+    cls = classes.get(verdict, "cp-nc")
     return f'<span class="cp-verdict {cls}">{_esc(verdict)}</span>'
 
 
@@ -227,16 +252,20 @@ def _step_html_body(step: Step) -> str:
             "assume": "<strong>Assumption.</strong> ",
             "caution": "<strong>Caution.</strong> ",
         }
-        paras = [p for p in re.split(r"\n\s*\n", step.body.strip()) if p.strip()]
+        paras = [p for p in re.split(r"\n\s*\n", step.template.strip()) if p.strip()]
         inner = "".join(
             f"<p>{labels.get(step.kind, '') if i == 0 else ''}{_prose_html(p)}</p>"
             for i, p in enumerate(paras)
         )
+        if step.citations:
+            inner = fill(inner, step.citations, _cite_html)
         return f'<div class="cp-step cp-{step.kind}">{inner}</div>'
     if isinstance(step, Table):
         head = "".join(f"<th>{_prose_html(c)}</th>" for c in step.columns)
         body = "".join(
-            "<tr>" + "".join(f"<td>{_cell_html(c, step.sig)}</td>" for c in r) + "</tr>"
+            "<tr>"
+            + "".join(f"<td>{_cell_html(c, step.sig, step.settings)}</td>" for c in r)
+            + "</tr>"
             for r in step.rows
         )
         cap = f"<caption>{_prose_html(step.caption)}</caption>" if step.caption else ""
@@ -253,6 +282,68 @@ def _step_html_body(step: Step) -> str:
     raise TypeError(f"no HTML renderer for {type(step).__name__}")
 
 
+_SKIP_OPEN = re.compile(r"<(code|pre)\b|<span class=\"cp-math")
+
+
+def symbols_in_html(markup: str) -> str:
+    """:func:`symbols_html` on the text of an HTML fragment (markdown cells, project texts),
+    leaving tags, code and math alone."""
+    out: list[str] = []
+    closing: str | None = None
+    for piece in re.split(r"(<[^>]+>)", markup):
+        if piece.startswith("<"):
+            if closing is None:
+                m = _SKIP_OPEN.match(piece)
+                if m:
+                    closing = f"</{m.group(1) or 'span'}>"
+            elif piece.startswith(closing):
+                closing = None
+            out.append(piece)
+        else:
+            out.append(piece if closing else symbols_html(piece))
+    return "".join(out)
+
+
+def _symbol_html(name: str) -> str:
+    """A symbol name as HTML text, set as the TeX symbol is: ``M_max`` → M<sub>max</sub>."""
+    primes = 0
+    while name.endswith("_prime"):
+        name, primes = name[: -len("_prime")], primes + 1
+    base, *subs = name.split("_")
+
+    star = bool(subs) and subs[-1] == "star"
+    subs = [_SUB_WORDS.get(p, p) for p in (subs[:-1] if star else subs) if p]
+
+    def part(p: str) -> str:
+        if p in _GREEK_TEXT:
+            return _GREEK_TEXT[p]
+        if p.endswith("perp") and len(p) > 4:
+            return part(p[:-4]) + "⊥"
+        # one letter is a variable (italic); a word or a numeral (max, III) is upright
+        return f"<i>{_esc(p)}</i>" if len(p) == 1 and p.isalpha() else _esc(p)
+
+    out = part(base)
+    if subs:
+        out += "<sub>" + ",".join(part(p) for p in subs) + "</sub>"
+    return out + ("*" if star else "") + "\u2032" * primes
+
+
+_SUB_WORDS = {"perp": "⊥"}
+
+
+def _cite_html(c: Citation) -> str:
+    """A cited value as HTML text (searchable and copyable in the PDF), number and unit kept
+    on one line; a symbol with its own TeX form is typeset as math."""
+    if c.latex == symbol_latex(c.name):
+        sym = f'<span class="cp-sym">{_symbol_html(c.name)}</span>'
+    else:
+        sym = _inline_math(c.latex)
+    nbsp = _esc(c.value_text).replace(" ", "\u00a0")
+    value = f'<span class="cp-val">{nbsp}</span>'
+    body = {"full": f"{sym} = {value}", "value": value, "symbol": sym}[c.form]
+    return f'<span class="cp-cite">{body}</span>'
+
+
 def _figure_html(step: Figure) -> str:
     """The figure as an SVG image (a ``data:`` URI) with its alternative text and caption."""
     data = base64.b64encode(step.svg().encode("utf-8")).decode("ascii")
@@ -264,13 +355,19 @@ def _figure_html(step: Figure) -> str:
     )
 
 
-def _cell_html(cell: Any, sig: int) -> str:
+def _in_sheet_unit(q: Any, settings: Any) -> Any:
+    """A table's quantity in the sheet's unit for its kind (one unit per kind per sheet)."""
+    unit = settings.kind_unit(q) if settings is not None else None
+    return q.to(unit) if unit is not None else q
+
+
+def _cell_html(cell: Any, sig: int, settings: Any = None) -> str:
     import pint
 
     if isinstance(cell, Value):
         return _esc(format_quantity_text(cell.display_quantity, sig))
     if isinstance(cell, pint.Quantity):
-        return _esc(format_quantity_text(cell, sig))
+        return _esc(format_quantity_text(_in_sheet_unit(cell, settings), sig))
     if isinstance(cell, bool) or cell is None:
         return _esc("" if cell is None else str(cell))
     if isinstance(cell, int | float):
@@ -278,13 +375,13 @@ def _cell_html(cell: Any, sig: int) -> str:
     return _prose_html(str(cell))
 
 
-def _cell_text(cell: Any, sig: int) -> str:
+def _cell_text(cell: Any, sig: int, settings: Any = None) -> str:
     import pint
 
     if isinstance(cell, Value):
         return format_quantity_text(cell.display_quantity, sig)
     if isinstance(cell, pint.Quantity):
-        return format_quantity_text(cell, sig)
+        return format_quantity_text(_in_sheet_unit(cell, settings), sig)
     if isinstance(cell, bool) or cell is None:
         return "" if cell is None else str(cell)
     if isinstance(cell, int | float):
@@ -320,7 +417,7 @@ def _latex_body(step: Step) -> str:
     if isinstance(step, NotCovered):
         return f"\\text{{{step.name}: {step.verdict}}}"
     if isinstance(step, Heading | Text):
-        body = step.title if isinstance(step, Heading) else step.body
+        body = step.title if isinstance(step, Heading) else step.tex_body
         parts = re.split(r"(?<!\\)\$(.+?)(?<!\\)\$", body)
         return "".join(
             part if i % 2 else (f"\\text{{{_prose_latex(part)}}}" if part else "")
@@ -389,7 +486,7 @@ def step_text(step: Step) -> str:
         prefix = {"assume": "Assumption: ", "caution": "Caution: "}.get(step.kind, "")
         return prefix + step.body
     if isinstance(step, Table):
-        rows = [step.columns] + [[_cell_text(c, sig) for c in r] for r in step.rows]
+        rows = [step.columns] + [[_cell_text(c, sig, step.settings) for c in r] for r in step.rows]
         widths = [max(len(str(r[i])) for r in rows) for i in range(len(step.columns))]
         lines = [" | ".join(str(c).rjust(w) for c, w in zip(r, widths, strict=True)) for r in rows]
         lines.insert(1, "-+-".join("-" * w for w in widths))

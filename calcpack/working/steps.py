@@ -15,8 +15,11 @@ from typing import Any
 import pint
 import sympy
 
+from calcpack import views
+from calcpack.contract.records import RECORDS_MIMETYPE, CheckRecord, Record
+from calcpack.contract.verdict import Verdict
 from calcpack.errors import DimensionError, InputError
-from calcpack.units import DisplaySettings, get_display, passes, ureg, utilisation
+from calcpack.units import DisplaySettings, get_display, ureg, utilisation
 from calcpack.working.expr import (
     Literal,
     Term,
@@ -26,6 +29,7 @@ from calcpack.working.expr import (
     symbol_text,
 )
 from calcpack.working.format import format_quantity_text, format_unit_text
+from calcpack.working.prose import Citation, fill
 
 __all__ = [
     "RECORDS_MIMETYPE",
@@ -46,71 +50,6 @@ __all__ = [
     "Value",
     "Verdict",
 ]
-
-RECORDS_MIMETYPE = "application/vnd.calcpack.records+json"
-
-
-class Verdict:
-    """The verdict words of a check."""
-
-    OK = "OK"
-    NOT_OK = "NOT OK"
-    NOT_COVERED = "NOT COVERED"
-
-
-@dataclass(frozen=True)
-class Record:
-    """A named value as data, for manifests and revision comparisons.
-
-    ``value`` is the full-precision magnitude in ``unit`` (the unit the sheet displays).
-    """
-
-    name: str
-    symbol: str
-    value: float
-    unit: str
-    description: str
-    kind: str
-
-    def to_json(self) -> dict[str, Any]:
-        return {
-            "name": self.name,
-            "symbol": self.symbol,
-            "value": self.value,
-            "unit": self.unit,
-            "description": self.description,
-            "kind": self.kind,
-        }
-
-
-@dataclass(frozen=True)
-class CheckRecord:
-    """A check as data: demand and capacity in ``unit``, utilisation = |demand| / capacity."""
-
-    name: str
-    member: str | None
-    demand: float | None
-    capacity: float | None
-    unit: str
-    utilisation: float | None
-    verdict: str
-    ref: str | None
-    combination: str | None
-    description: str
-
-    def to_json(self) -> dict[str, Any]:
-        return {
-            "name": self.name,
-            "member": self.member,
-            "demand": self.demand,
-            "capacity": self.capacity,
-            "unit": self.unit,
-            "utilisation": self.utilisation,
-            "verdict": self.verdict,
-            "ref": self.ref,
-            "combination": self.combination,
-            "description": self.description,
-        }
 
 
 class Step:
@@ -158,14 +97,7 @@ class Step:
     _shown_in: int | None = None
 
     def _ipython_display_(self) -> None:
-        import IPython
-        from IPython.display import publish_display_data
-
-        count = getattr(IPython.get_ipython(), "execution_count", None)
-        if self._shown_in is not None and self._shown_in == count:
-            return
-        self._shown_in = count
-        publish_display_data(self._repr_mimebundle_())
+        views.render("ipython_display", self)
 
     def __str__(self) -> str:
         return self.text()
@@ -193,7 +125,11 @@ class Value(Step, Term):
         name: the symbol name (``"M_max"``); ``latex_symbol`` and ``text_symbol`` its forms.
         quantity: the value at full precision, in the units it was computed in.
         display_unit: the unit the sheet shows it in.
+        unit_asked: the step asked for its display unit (a sheet then keeps it; otherwise the
+            sheet shows the value in its unit for the kind).
     """
+
+    unit_asked = False
 
     def __init__(
         self,
@@ -345,6 +281,9 @@ class Given(Value):
             )
         q = value if isinstance(value, pint.Quantity) else ureg.Quantity(value, "dimensionless")
         _check_finite(f"Given {name}", q)
+        self.unit_asked = unit is not None
+        if unit is None and settings is not None:
+            unit = settings.kind_unit(q)
         super().__init__(name, q, description, unit=unit, latex=latex, settings=settings)
         self.source = source
 
@@ -399,9 +338,9 @@ class Derived(Value):
         if unit is None:
             q = q.to_reduced_units()
         _check_finite(f"{name} = {self._formula_text() if self.formula else 'value'}", q)
+        self.unit_asked = unit is not None
         if unit is None:
-            preset = _settings_or_global(settings).preset.unit_for(q)
-            unit = preset
+            unit = _settings_or_global(settings).unit_for(q)
         super().__init__(name, q, description, unit=unit, latex=latex, settings=settings)
         self.ref = ref
         self.note = note
@@ -519,7 +458,7 @@ class Check(Step):
         d, c, self.utilisation = utilisation(dq, cq.to(unit), name=name)
         self.demand_q: pint.Quantity = d
         self.capacity_q: pint.Quantity = c
-        self.verdict = Verdict.OK if passes(self.utilisation) else Verdict.NOT_OK
+        self.verdict = Verdict.of(self.utilisation)
 
     @property
     def passed(self) -> bool:
@@ -600,12 +539,27 @@ class Heading(Step):
 
 
 class Text(Step):
-    """A paragraph of prose; ``$...$`` marks inline TeX math, blank lines separate paragraphs."""
+    """A paragraph of prose; ``$...$`` marks inline TeX math, blank lines separate paragraphs.
+
+    Args:
+        body: the prose; with ``citations``, a template from :func:`calcpack.working.prose.cite`
+            (each citation's place marked), and ``body`` becomes its plain-text reading.
+        citations: recorded values cited in the prose, typeset by the renderers.
+    """
 
     kind = "text"
 
-    def __init__(self, body: str) -> None:
-        self.body = body
+    def __init__(self, body: str, citations: tuple[Citation, ...] = ()) -> None:
+        self.template = body
+        self.citations = citations
+        self.body = fill(body, citations, Citation.text) if citations else body
+
+    @property
+    def tex_body(self) -> str:
+        """The prose with each citation as inline TeX (``$R_{A} = 2.61\\ \\mathrm{kip}$``)."""
+        if not self.citations:
+            return self.body
+        return fill(self.template, self.citations, lambda c: f"${c.tex()}$")
 
 
 class Assume(Text):
@@ -614,7 +568,7 @@ class Assume(Text):
     kind = "assume"
 
     def records(self) -> dict[str, list[Any]]:
-        return {"assumptions": [self.body]}
+        return {"assumptions": [self.tex_body]}
 
 
 class Caution(Text):
@@ -623,7 +577,7 @@ class Caution(Text):
     kind = "caution"
 
     def records(self) -> dict[str, list[Any]]:
-        return {"cautions": [self.body]}
+        return {"cautions": [self.tex_body]}
 
 
 class Table(Step):

@@ -14,6 +14,7 @@ from lab_harness import (
     panel_edit_timing,
     run_all_cells,
     save_screenshot,
+    wait_idle,
     watch_panel,
 )
 
@@ -173,3 +174,77 @@ def test_preview_shows_pages_inline(lab: LabServer, page: Any) -> None:
     assert pages.first.evaluate("img => img.naturalWidth") > 100
     pages.first.scroll_into_view_if_needed()
     save_screenshot(page, "preview.png")
+
+
+_OVERFLOW = """
+() => {
+  const out = [];
+  for (const svg of document.querySelectorAll('.cp-beam-panel .cp-panel-diagrams svg.cp-diagram')) {
+    const area = svg.closest('.jp-OutputArea-output') || svg.closest('.jp-Notebook');
+    const s = svg.getBoundingClientRect(), a = area.getBoundingClientRect();
+    out.push({right: s.right - a.right, width: s.width});
+  }
+  return out;
+}
+"""
+
+
+def test_beam_panel_errors_at_the_field_fits_two_widths_and_reruns_the_working(
+    lab: LabServer, page: Any
+) -> None:
+    copy_into(lab.root, BEAM_SHEET, BEAM_INPUTS)
+    inputs_file = lab.root / BEAM_INPUTS.name
+    page.set_viewport_size({"width": 1400, "height": 1000})
+    open_notebook(page, lab, BEAM_SHEET.name)
+    run_all_cells(page)
+    assert cell_errors(page) == []
+    panel = page.locator(".cp-beam-panel")
+    panel.wait_for(timeout=60_000)
+    working_L2 = page.locator(".cp-step[data-name='L_2']").first
+    assert "3.8" in working_L2.inner_text()
+
+    # 1. A bad entry is marked at its own field, with the input and value named; not written.
+    before = inputs_file.read_text(encoding="utf-8")
+    box = panel.locator(".cp-key-beam-spans-2 input")
+    box.fill("-2")
+    box.press("Enter")
+    message = panel.locator(".cp-field-message .cp-error").first
+    message.wait_for(timeout=30_000)
+    assert "beam.spans[2]" in message.inner_text()
+    assert "-2" in message.inner_text()
+    assert panel.locator(".cp-key-beam-spans-2.cp-invalid").count() == 1
+    assert inputs_file.read_text(encoding="utf-8") == before
+
+    # 2. The drawings fit the notebook area, wide and narrow (no clipping on the right).
+    for width in (1400, 760):
+        page.set_viewport_size({"width": width, "height": 1000})
+        page.wait_for_timeout(800)
+        boxes = page.evaluate(_OVERFLOW)
+        assert len(boxes) == 4
+        assert all(b["right"] <= 1.0 for b in boxes), (width, boxes)
+        assert all(b["width"] > 150 for b in boxes), (width, boxes)
+        save_screenshot(page, f"beam_panel_{width}px.png")
+    page.set_viewport_size({"width": 1400, "height": 1000})
+
+    # 3. A valid entry clears the mark; the notice names what is stale; one click re-runs the
+    #    cells below and the working shows the new value.
+    box.fill("5.5")
+    box.press("Enter")
+    stale = panel.locator(".cp-stale")
+    page.wait_for_function(
+        "() => /beam\\.spans\\[2\\] = 5\\.5 m/.test("
+        "document.querySelector('.cp-beam-panel .cp-stale')?.textContent || '')",
+        timeout=30_000,
+    )
+    assert panel.locator(".cp-key-beam-spans-2.cp-invalid").count() == 0
+    assert "stale" in stale.inner_text()
+    assert "3.8" in working_L2.inner_text()  # not re-run yet
+    page.locator(".cp-beam-panel .cp-rerun").click()
+    page.wait_for_function(
+        "() => /5\\.5/.test(document.querySelector(\".cp-step[data-name='L_2']\")?.textContent"
+        " || '')",
+        timeout=90_000,
+    )
+    wait_idle(page)
+    assert cell_errors(page) == []
+    assert 'spans = ["3.2 m", "5.5 m", "3.2 m"]' in inputs_file.read_text(encoding="utf-8")

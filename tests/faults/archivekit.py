@@ -38,3 +38,72 @@ def sign(pdf: Path, role: str, demo: Any, **kwargs: Any) -> None:
     from calcpack.signing.sign import sign_package
 
     sign_package(pdf, role, demo.keys[role], demo.password, **kwargs)
+
+
+def make_timestamp_authority(
+    directory: Path, *, days: int, name: str = "Test TSA", fixed_dt: Any = None
+) -> tuple[Any, Path]:
+    """A local RFC 3161 timestamp authority (pyHanko's test timestamper) whose certificate is
+    valid for ``days`` from now; returns (timestamper, root certificate file).
+
+    ``fixed_dt`` makes it state that time in its tokens (a renewal in the future)."""
+    import datetime as dt
+
+    from asn1crypto import keys as a_keys
+    from asn1crypto import x509 as a_x509
+    from cryptography import x509
+    from cryptography.hazmat.primitives import hashes
+    from cryptography.hazmat.primitives import serialization as ser
+    from cryptography.hazmat.primitives.asymmetric import rsa
+    from cryptography.x509.oid import ExtendedKeyUsageOID, NameOID
+    from pyhanko.sign.timestamps.dummy_client import DummyTimeStamper
+
+    start = dt.datetime.now(dt.UTC) - dt.timedelta(minutes=5)
+    root_key = rsa.generate_private_key(public_exponent=65537, key_size=2048)
+    root_name = x509.Name([x509.NameAttribute(NameOID.COMMON_NAME, f"{name} Root")])
+    root = (
+        x509.CertificateBuilder()
+        .subject_name(root_name)
+        .issuer_name(root_name)
+        .public_key(root_key.public_key())
+        .serial_number(x509.random_serial_number())
+        .not_valid_before(start)
+        .not_valid_after(start + dt.timedelta(days=days + 1))
+        .add_extension(x509.BasicConstraints(ca=True, path_length=None), critical=True)
+        .add_extension(
+            x509.KeyUsage(False, False, False, False, False, True, True, False, False),
+            critical=True,
+        )
+        .sign(root_key, hashes.SHA256())
+    )
+    key = rsa.generate_private_key(public_exponent=65537, key_size=2048)
+    cert = (
+        x509.CertificateBuilder()
+        .subject_name(x509.Name([x509.NameAttribute(NameOID.COMMON_NAME, name)]))
+        .issuer_name(root_name)
+        .public_key(key.public_key())
+        .serial_number(x509.random_serial_number())
+        .not_valid_before(start)
+        .not_valid_after(start + dt.timedelta(days=days))
+        .add_extension(x509.BasicConstraints(ca=False, path_length=None), critical=True)
+        .add_extension(x509.ExtendedKeyUsage([ExtendedKeyUsageOID.TIME_STAMPING]), critical=True)
+        .add_extension(
+            x509.KeyUsage(True, True, False, False, False, False, False, False, False),
+            critical=True,
+        )
+        .sign(root_key, hashes.SHA256())
+    )
+    directory.mkdir(parents=True, exist_ok=True)
+    root_path = directory / f"{name.lower().replace(' ', '-')}-root.crt"
+    root_path.write_bytes(root.public_bytes(ser.Encoding.PEM))
+
+    def asn1(c: Any) -> Any:
+        return a_x509.Certificate.load(c.public_bytes(ser.Encoding.DER))
+
+    private = a_keys.PrivateKeyInfo.load(
+        key.private_bytes(ser.Encoding.DER, ser.PrivateFormat.PKCS8, ser.NoEncryption())
+    )
+    stamper = DummyTimeStamper(
+        tsa_cert=asn1(cert), tsa_key=private, certs_to_embed=[asn1(root)], fixed_dt=fixed_dt
+    )
+    return stamper, root_path

@@ -149,7 +149,9 @@ def test_swapped_formula_images_are_discarded(clean, project: Path) -> None:
     assert result.pdf_path.read_bytes() == clean[1]
 
 
-def test_a_crash_between_the_two_output_files_is_repaired(clean, project: Path, monkeypatch) -> None:
+def test_a_crash_between_the_two_output_files_is_repaired(
+    clean, project: Path, monkeypatch
+) -> None:
     nb = project / "sheets" / "02.ipynb"
     nb.write_text(nb.read_text("utf-8").replace("7.25", "8.5"), "utf-8")
     real_replace = os.replace

@@ -5,7 +5,7 @@ input -- never a NaN, a bare AssertionError or pint's ZeroDivisionError.
 
 The ratio check uses AISC Manual Table 1-1 values for W18x50 (d = 18.0 in., t_f = 0.570 in.,
 t_w = 0.355 in., k_des = 0.972 in., h/t_w = 45.2; from memory, as in
-tests/validation/test_aisc_design_examples_v15.py).
+tests/validation/test_aisc_design_examples_v15_1.py).
 """
 
 from __future__ import annotations

@@ -1,7 +1,8 @@
 """US wide-flange shapes against their tabulated properties.
 
 Source: American Institute of Steel Construction, *Steel Construction Manual*, 15th ed., 2017,
-Table 1-1 "W-Shapes, Dimensions and Properties" (values from memory, as printed, in inches).
+Table 1-1 "W-Shapes, Dimensions and Properties" (as printed, in inches; the values are those
+of the AISC Shapes Database v15.0, read against it; Table 1-1 prints d = 9.98 in. for W10x49).
 The shapes are built from the printed dimensions d, bf, tf, tw with the root fillet radius
 taken as r = k_des - tf. Tolerance 0.5 %: the printed dimensions and properties are rounded to
 three significant figures and the table's fillet geometry is a detailing idealisation.
@@ -63,7 +64,7 @@ def test_w_shape_plates_only_falls_low_by_the_fillet_area(name):
 def test_w18x50_torsion_and_warping_constants():
     dims, _ = SHAPES["W18x50"]
     p = _shape(dims, fillets=True).properties()
-    # Table 1-1 (from memory): J = 1.24 in⁴, Cw = 3040 in⁶
+    # Table 1-1 (AISC Shapes Database v15.0): J = 1.24 in⁴, Cw = 3040 in⁶
     J = p.J.to(inch**4).magnitude
     # Σ b t³/3 leaves out the fillets' contribution to J, so it errs low by a few per cent
     # (4.4 % here): the safe side for lateral-torsional buckling

@@ -1,7 +1,11 @@
 """AISC Steel Construction Manual, 15th ed. (2017), Table 3-2 "W-Shapes, Selection by Z_x"
-(F_y = 50 ksi): spot values of φ_b M_px, M_px/Ω_b, L_p, L_r and φ_v V_nx (from memory; W16x26 is the
-shape whose web takes φ_v = 0.90 under §G2.1(b), h/t_w = 56.8 > 53.9), from
-the section properties of Table 1-1 (from memory).
+(F_y = 50 ksi): spot values of φ_b M_px, M_px/Ω_b, L_p, L_r and φ_v V_nx, from the section
+properties of Table 1-1 (as listed in the AISC Shapes Database v15.0). W16x26 is the shape
+whose web takes φ_v = 0.90 under §G2.1(b), h/t_w = 56.8 > 53.9.
+
+For W18x50 the values 379 / 252 kip-ft, L_p = 5.83 ft and L_r = 16.9 ft are printed again in
+the Design Examples (F.1-1A, F.1-3B) and were read there; the other spot values are from
+memory.
 
 The table prints three significant figures (L_p, L_r to 0.01 ft or three figures); tolerance
 0.5 %, 1 % on L_r (computed from properties rounded to three figures: r_ts, h_0, J).
@@ -63,7 +67,8 @@ SHAPES = {
         "h0": 15.4,
     },
 }
-# Table 3-2 (from memory): φ_b M_px kip-ft, M_px/Ω_b kip-ft, L_p ft, L_r ft, φ_v V_nx kips
+# Table 3-2 (W18x50 read, others from memory):
+# φ_b M_px kip-ft, M_px/Ω_b kip-ft, L_p ft, L_r ft, φ_v V_nx kips
 TABLE_3_2 = {
     "W18x50": (379, 252, 5.83, 16.9, 192),
     "W24x62": (574, 382, 4.87, 14.4, 306),
@@ -75,7 +80,7 @@ def _shape(name: str) -> IShape:
     p = SHAPES[name]
     dims = {k: p[k] * inch for k in ("d", "bf", "tf", "tw", "ry", "h0")}
     return IShape(
-        name, "AISC Manual 15th ed. Table 1-1 (from memory)", h_tw=p["h_tw"],
+        name, "AISC Shapes Database v15.0", h_tw=p["h_tw"],
         Ix=p["Ix"] * inch**4, Sx=p["Sx"] * inch**3, Zx=p["Zx"] * inch**3,
         Iy=p["Iy"] * inch**4, J=p["J"] * inch**4, Cw=p["Cw"] * inch**6, **dims,
     )  # fmt: skip

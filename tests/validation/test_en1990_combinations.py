@@ -1,7 +1,7 @@
 """EN 1990:2002+A1:2005, Eurocode - Basis of structural design, CEN: Eq. (6.10), (6.10a),
 (6.10b) for STR/GEO with the recommended partial factors of Table A1.2(B) (γ_G,sup = 1.35,
 γ_G,inf = 1.00, γ_Q = 1.5, ξ = 0.85), serviceability Eq. (6.14b), (6.15b), (6.16b), and the
-recommended ψ factors for buildings of Annex A1 Table A1.1 (from memory).
+recommended ψ factors for buildings of Annex A1 Table A1.1 (as published).
 
 Factors are products of exact decimals; tolerance 1e-12 for float round-off.
 """

@@ -2,7 +2,8 @@
 Council, 2018: §2.3.2 and Table 2.3.2 (C_D), Table 2.3.3 (C_t), §3.3 bending (C_L, Eq. 3.3-5,
 3.3-6, Table 3.3.3), §3.4 shear (Eq. 3.4-2), Table 4.3.1, Table 4.3.8 (C_i), §4.3.9 (C_r); and
 the NDS Supplement (2018), Table 4A: reference design values for Douglas Fir-Larch No.2 and
-Select Structural and the C_F, C_fu and C_M factors (from memory).
+the flat-use factors C_fu for 2 in. to 3 in. thick lumber (as published); Select Structural,
+C_F, C_M and C_fu for 4 in. thick lumber from memory.
 
 No published joist example is recalled with its numbers, so the joist below is worked in full
 by hand in this file, step by step from the provisions above (plain arithmetic, independent of
@@ -33,7 +34,7 @@ from calcpack.units import Q_, ureg
 RT = 1e-9  # same arithmetic, float round-off only
 
 DFL2 = ReferenceDesignValues(
-    "Douglas Fir-Larch No.2", "No.2", "NDS Supplement 2018 Table 4A (from memory)",
+    "Douglas Fir-Larch No.2", "No.2", "NDS Supplement 2018 Table 4A",
     Fb=900 * ureg.psi, Fv=180 * ureg.psi, E=1.6e6 * ureg.psi, Emin=580_000 * ureg.psi,
 )  # fmt: skip
 

@@ -12,15 +12,9 @@ from typing import TYPE_CHECKING
 import numpy as np
 
 from calcpack.analysis.beam.core import SIResult, evaluate
+from calcpack.analysis.beam.quantities import out_q
 from calcpack.errors import InputError
 from calcpack.units import Quantity
-
-
-def out_q(value: float, kind: str) -> Quantity:
-    from calcpack.analysis.beam.result import out_q as _out
-
-    return _out(value, kind)
-
 
 if TYPE_CHECKING:
     from calcpack.analysis.beam.result import BeamResult

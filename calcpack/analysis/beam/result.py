@@ -25,30 +25,13 @@ from typing import TYPE_CHECKING, Any
 
 import numpy as np
 
+from calcpack import views
 from calcpack.analysis.beam.core import SIResult, evaluate, refine
 from calcpack.analysis.beam.extremes import BeamExtremes, find_extremes
+from calcpack.analysis.beam.quantities import out_q
 from calcpack.errors import InputError, OutOfScopeError
-from calcpack.loads._si import make_quantity
-from calcpack.units import Quantity, require, ureg
+from calcpack.units import Quantity, require
 from calcpack.validate import finite
-
-# Display units of results, with the factor from SI (made once: building a quantity from a unit
-# string parses it every time, which dominated a live solve).
-_OUT = {
-    "force": (1e-3, ureg.Unit("kN")),
-    "moment": (1e-3, ureg.Unit("kN*m")),
-    "line": (1e-3, ureg.Unit("kN/m")),
-    "angle": (1.0, ureg.Unit("rad")),
-    "deflection": (1e3, ureg.Unit("mm")),
-    "length": (1.0, ureg.Unit("m")),
-}
-
-
-def out_q(value_si: Any, kind: str) -> Quantity:
-    """A result quantity in its display unit from an SI value (float or array)."""
-    f, unit = _OUT[kind]
-    return make_quantity(value_si * f, unit)
-
 
 if TYPE_CHECKING:
     from calcpack.analysis.beam.model import Beam, BeamClassification
@@ -321,19 +304,11 @@ class BeamResult:
 
     def figure(self, **options: Any) -> Any:
         """The stacked loading / shear / moment / deflection figure (SVG, see calcpack.plots)."""
-        from calcpack.plots.beam import beam_figure
-
-        return beam_figure(self, **options)
+        return views.render("figure", self, **options)
 
     def _repr_mimebundle_(self, include: Any = None, exclude: Any = None) -> dict[str, Any]:
         """In Jupyter a result shows its diagrams (SVG) and a one-line text summary."""
-        ex = self.extremes
-        text = (
-            f"{self.beam.name}: {self.label}; M_max = {ex.M_max.value:~.4g} at "
-            f"x = {ex.M_max.x:~.4g}, M_min = {ex.M_min.value:~.4g}, "
-            f"V_max = {ex.V_max.value:~.4g}, V_min = {ex.V_min.value:~.4g}"
-        )
-        return {"image/svg+xml": self.figure().svg, "text/plain": text}
+        return views.mimebundle(self, include, exclude)
 
 
 def combine(results: Mapping[str, BeamResult], factors: Mapping[str, float]) -> BeamResult:

@@ -92,14 +92,16 @@ def test_worst_check_first() -> None:
     ("value", "text"),
     [
         (4.3647, "4.36"),
-        (864000.0, "864000"),
+        (864000.0, "864\u2009000"),
         (0.0012345, "0.00123"),
         (11.0, "11.0"),
-        (-2.5, "-2.50"),
+        (-2.5, "\u22122.50"),
         (0.0, "0"),
         (None, "—"),
-        (1.5e9, "1.50e+09"),
+        (1.5e9, "1.50×10⁹"),
     ],
 )
 def test_three_significant_figures(value: float | None, text: str) -> None:
+    """The summary writes numbers with the working's one formatter (grouped digits, true
+    minus, powers of ten in engineering steps)."""
     assert format_sig(value) == text

@@ -59,7 +59,7 @@ def test_existing_key_files_are_not_overwritten(own_key: Any) -> None:
     before = own_key.key.read_bytes()
     with pytest.raises(SigningError, match="exists already"):
         new_self_signed(
-            own_key.key.parent, name="Ines Calloway", role="preparer", password="another-one"
+            own_key.key.parent, name="Ines Calloway", role="preparer", password="another-one-pw"
         )
     assert own_key.key.read_bytes() == before
 
@@ -169,6 +169,9 @@ def test_pem_key_with_certificate_from_an_authority(tmp_path: Path, package: Pat
     with pytest.raises(SigningError, match="wrong password"):
         load_credentials(key_pem, "nope-nope-nope", certificate=cert_pem)
     creds = load_credentials(key_pem, PASSWORD, certificate=cert_pem)
+    with pytest.raises(SigningError, match="--chain FILE"):  # B-LT needs the whole chain
+        sign_package(package, "preparer", creds)
+    creds = load_credentials(key_pem, PASSWORD, certificate=cert_pem, chain=[demo.root])
     sign_package(package, "preparer", creds)
     assert verify_package(package, [demo.root]).ok
 

@@ -74,7 +74,9 @@ def test_preparer_checker_approver_each_valid_by_the_library_and_by_verify(
     # earlier signatures see only signing/form filling after them; the last covers all
     assert statuses[0][1].modification_level == ModificationLevel.FORM_FILLING
     assert statuses[1][1].modification_level == ModificationLevel.FORM_FILLING
-    assert statuses[2][1].coverage == SignatureCoverageLevel.ENTIRE_FILE
+    # the last is followed only by its validation data (PAdES B-LT: the DSS update)
+    assert statuses[2][1].coverage == SignatureCoverageLevel.ENTIRE_REVISION
+    assert statuses[2][1].modification_level == ModificationLevel.LTA_UPDATES
 
     report = verify_package(package, [demo.root])
     assert report.ok, report.text()
@@ -85,7 +87,9 @@ def test_preparer_checker_approver_each_valid_by_the_library_and_by_verify(
         "Marta Quell",
     ]
     assert report.signatures[0].certification
-    assert report.signatures[2].whole_document
+    # after the last signature only its validation data was added (PAdES B-LT)
+    assert report.signatures[2].changes_after == "validation data added"
+    assert report.signatures[2].changes_allowed
     assert all(s.intact and s.trusted for s in report.signatures)
     assert all(size < 60_000 for size in sizes)  # one signature is tens of kB, not more
 

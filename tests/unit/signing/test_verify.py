@@ -8,8 +8,6 @@ import io
 import json
 import random
 import re
-import shutil
-import sys
 from pathlib import Path
 from typing import Any
 
@@ -41,7 +39,8 @@ def test_flipped_bytes_anywhere_in_the_signed_range_always_fail(
     original = signed_package.read_bytes()
     ranges = _signed_ranges(original)
     assert ranges[0][0] == 0
-    assert ranges[1][1] == len(original)  # the last signature covers the whole file
+    # the last signature covers all but its validation data, appended after it (PAdES B-LT)
+    assert len(original) - 20_000 < ranges[1][1] < len(original)
     rng = random.Random(20260302)  # fixed seed: the same positions on every run
     positions = [rng.randrange(*rng.choice(ranges)) for _ in range(40)]
     target = tmp_path / "tampered.pdf"
@@ -239,16 +238,3 @@ def test_reproduce_compares_every_recorded_result(
 def test_reproduce_needs_the_project(signed_package: Path, demo: Any) -> None:
     with pytest.raises(InputError, match="--project DIR"):
         verify_package(signed_package, [demo.root], reproduce=True)
-
-
-def test_reproduce_without_the_build_api_says_what_is_missing(
-    signed_package: Path, demo: Any, tmp_path: Path, monkeypatch: pytest.MonkeyPatch
-) -> None:
-    import calcpack.package
-
-    monkeypatch.delattr(calcpack.package, "reproduce_manifest", raising=False)
-    copy = tmp_path / "p.pdf"
-    shutil.copy(signed_package, copy)
-    monkeypatch.setitem(sys.modules, "calcpack.package.execute", None)  # no build stages
-    with pytest.raises(VerificationError, match=r"calcpack\.package\.reproduce_manifest"):
-        verify_package(copy, [demo.root], project=tmp_path, reproduce=True)

@@ -264,3 +264,87 @@ def test_beam_panel_does_not_overwrite_a_file_broken_by_hand(beam_file: Path) ->
     assert "not valid TOML" in panel.status.value
     assert "Reload file" in panel.status.value
     assert panel.data is before  # the next edit starts again from what the file last held
+
+
+def test_beam_panel_marks_the_field_in_error_and_keeps_the_last_valid_display(
+    beam_file: Path,
+) -> None:
+    panel = BeamPanel(beam_file)
+    before_file = beam_file.read_text(encoding="utf-8")
+    shown = [d.value for d in panel.drawings]
+    results = panel.results.value
+    field = panel.fields["beam.spans[2]"]
+    field.box.value = -2.0  # as typed in the browser
+    assert "cp-invalid" in field.box._dom_classes
+    assert "beam.spans[2]" in field.error
+    assert "-2" in field.error  # the value given
+    assert "cp-error" in field.message.value
+    # nothing else is marked, the file is untouched, the last valid display stays
+    assert [k for k, f in panel.fields.items() if f.error] == ["beam.spans[2]"]
+    assert beam_file.read_text(encoding="utf-8") == before_file
+    assert [d.value for d in panel.drawings] == shown
+    assert panel.results.value == results
+    # a valid value clears the mark and is written
+    field.box.value = 4.0
+    assert field.error == ""
+    assert "cp-invalid" not in field.box._dom_classes
+    assert load_inputs(beam_file)["beam"]["spans"][1] == Q_(4.0, "m")
+
+
+def test_section_panel_marks_the_field_in_error(section_file: Path) -> None:
+    panel = SectionPanel(section_file)
+    key = next(iter(panel.fields))
+    before = section_file.read_text(encoding="utf-8")
+    panel.fields[key].box.value = 0.0
+    assert panel.fields[key].error
+    assert "cp-invalid" in panel.fields[key].box._dom_classes
+    assert section_file.read_text(encoding="utf-8") == before
+
+
+def test_panels_carry_the_style_that_fits_drawings_to_the_notebook(beam_file: Path) -> None:
+    """The drawings scale to the width they are given (max-width 100 %, height from the
+    viewBox) and the drawings column wraps under the form; checked in a browser at two widths
+    in tests/browser."""
+    from calcpack.widgets.fields import PANEL_CSS
+
+    panel = BeamPanel(beam_file)
+    css = PANEL_CSS
+    assert "svg{max-width:100%;height:auto}" in css.replace(" ", "")
+    body = panel.widget.children[2]
+    assert "cp-panel-body" in body._dom_classes
+    assert "cp-panel-side" in body.children[1]._dom_classes
+    assert all('viewBox="' in d.value for d in panel.drawings)
+
+
+def test_rerun_control_names_what_is_stale_and_runs_the_cells_below(beam_file: Path) -> None:
+    from calcpack.widgets.rerun import RUN_BELOW
+
+    panel = BeamPanel(beam_file)
+    ran: list[str] = []
+    panel.rerun._execute = ran.append  # JupyterLab's command registry, recorded
+    panel.set("beam.spans[2]", Q_(5.0, "m"))
+    notice = panel.rerun.notice.value
+    assert "stale" in notice
+    assert "beam.spans[2] = 5 m" in notice
+    assert ran == []  # nothing runs until asked
+    panel.rerun.button.click()
+    assert ran == [RUN_BELOW]
+    assert panel.rerun.notice.value == ""
+    # turned on: every saved edit re-runs the cells below; a refused edit does not
+    panel.rerun.auto.value = True
+    panel.set("loads[1].w", Q_(2.0, "kN/m"))
+    assert ran == [RUN_BELOW, RUN_BELOW]
+    panel.set("beam.spans[2]", Q_(-1.0, "m"))
+    assert ran == [RUN_BELOW, RUN_BELOW]
+
+
+def test_rerun_control_without_jupyterlab_commands_says_what_to_do(
+    beam_file: Path, monkeypatch: pytest.MonkeyPatch
+) -> None:
+    from calcpack.widgets import rerun
+
+    monkeypatch.setattr(rerun, "_front_end", lambda: None)
+    panel = BeamPanel(beam_file)
+    panel.rerun.button.click()
+    assert "by hand" in panel.rerun.notice.value
+    assert panel.rerun.runs == 0

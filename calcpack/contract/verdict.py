@@ -1,0 +1,75 @@
+"""The verdict of a design check and the one rule that decides it.
+
+A check passes when its utilisation (|demand| / capacity) is not over 1 beyond floating-point
+rounding (:data:`PASS_TOLERANCE`). Every part of calcpack that says OK or NOT OK -- the sheet's
+check steps, the design-check results, the panels, the manifest reader and the summary of checks
+-- asks :func:`passes` or :meth:`Verdict.of`; nothing else compares a utilisation with 1.
+"""
+
+from __future__ import annotations
+
+import math
+from collections.abc import Mapping
+from enum import StrEnum
+from typing import Any
+
+__all__ = ["PASS_TOLERANCE", "Verdict", "check_sort_key", "is_classification", "passes"]
+
+#: Utilisations up to ``1 + PASS_TOLERANCE`` pass: a capacity computed to equal the demand
+#: (u = 1 in exact arithmetic) must not fail on the last bit of a float (common practice).
+PASS_TOLERANCE = 1e-12
+
+
+def passes(utilisation: float) -> bool:
+    """True when a utilisation passes: not over 1 beyond floating-point rounding."""
+    return utilisation <= 1.0 + PASS_TOLERANCE
+
+
+class Verdict(StrEnum):
+    """The verdict words of a check (a ``str``: ``Verdict.OK == "OK"``, JSON writes the word)."""
+
+    OK = "OK"
+    NOT_OK = "NOT OK"
+    NOT_COVERED = "NOT COVERED"
+
+    @classmethod
+    def of(cls, utilisation: float | None) -> Verdict:
+        """The verdict for a utilisation; ``None`` (no number could be given) is NOT COVERED."""
+        if utilisation is None or not math.isfinite(utilisation):
+            return cls.NOT_COVERED
+        return cls.OK if passes(utilisation) else cls.NOT_OK
+
+    @classmethod
+    def parse(cls, word: Any) -> Verdict | None:
+        """The verdict a recorded word names, or ``None`` if it names none."""
+        try:
+            return cls(word)
+        except ValueError:
+            return None
+
+
+def check_sort_key(check: Mapping[str, Any]) -> tuple[int, float]:
+    """Sort key putting the worst check first: NOT OK by utilisation, NOT COVERED, then OK.
+
+    ``check`` is a recorded check (:meth:`calcpack.contract.CheckRecord.to_json` shape).
+    """
+    u = check.get("utilisation")
+    verdict = check.get("verdict")
+    if verdict == Verdict.NOT_OK:
+        return (0, -(u if u is not None else math.inf))
+    if verdict == Verdict.NOT_COVERED:
+        return (1, 0.0)
+    return (2, -(u if u is not None else 0.0))
+
+
+CLASSIFICATION_WORDS = ("compactness", "slenderness", "classification", "class ")
+"""Words that mark a check as a classification or limit (a section's compactness, a member's
+slenderness limit): its ratio sorts the section or bounds a method, it is not a share of a
+strength used, so the summary lists it apart from the demand/capacity checks."""
+
+
+def is_classification(check: Mapping[str, Any]) -> bool:
+    """True for a classification or limit check (compactness, slenderness limit), from its
+    recorded name; ``check`` is a recorded check."""
+    name = f"{check.get('name') or ''} ".lower()
+    return any(word in name for word in CLASSIFICATION_WORDS)
