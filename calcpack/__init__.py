@@ -211,6 +211,10 @@ _LAZY: dict[str, str] = {
     "check_nds_withdrawal": "calcpack.checks.nds.withdrawal",
     "check_nds_combined": "calcpack.checks.nds.withdrawal",
     "check_nds_tearout": "calcpack.checks.nds.withdrawal",
+    "DeckLedger": "calcpack.checks.nds.ledger",
+    "PrescriptiveSpacing": "calcpack.checks.nds.ledger",
+    "check_deck_ledger": "calcpack.checks.nds.ledger",
+    "Embedment": "calcpack.checks.nds.dowel",
     "BoltGroup": "calcpack.checks.aisc360.bolts",
     "Ply": "calcpack.checks.aisc360.bolts",
     "SlipCritical": "calcpack.checks.aisc360.bolts",
@@ -263,6 +267,8 @@ _LAZY: dict[str, str] = {
     "snow_profiles_asce7": "calcpack.loads.roof_profiles",
     "wind_profiles_en": "calcpack.loads.roof_profiles",
     "wind_profiles_asce7": "calcpack.loads.roof_profiles",
+    "FootingSketch": "calcpack.plots.footing",
+    "footing_figure": "calcpack.plots.footing",
 }
 
 
@@ -428,6 +434,10 @@ if TYPE_CHECKING:
         new_project,
         read_manifest,
     )
+    from calcpack.plots.footing import (
+        FootingSketch,
+        footing_figure,
+    )
     from calcpack.sections import (
         Angle,
         BoundedRegion,
@@ -529,6 +539,7 @@ __all__ = [
     "ConnectingPlate",
     "ConnectionService",
     "Couple",
+    "DeckLedger",
     "DeflectionLimit",
     "Derived",
     "DesignForces",
@@ -537,6 +548,7 @@ __all__ = [
     "DowelJoint",
     "ECFootingDesign",
     "EISegment",
+    "Embedment",
     "Equation",
     "EuroSection",
     "Exports",
@@ -547,6 +559,7 @@ __all__ = [
     "Fixed",
     "Footing",
     "FootingLoad",
+    "FootingSketch",
     "FreeBody",
     "FunctionLoad",
     "Given",
@@ -580,6 +593,7 @@ __all__ = [
     "PointMoment",
     "Polygon",
     "PolynomialLoad",
+    "PrescriptiveSpacing",
     "PresumedBearing",
     "Rectangle",
     "RectangularHollow",
@@ -654,6 +668,7 @@ __all__ = [
     "check_aisc_member",
     "check_aisc_plate",
     "check_aisc_web_bearing",
+    "check_deck_ledger",
     "check_deflection",
     "check_elastic_beam",
     "check_en1992_footing",
@@ -683,6 +698,7 @@ __all__ = [
     "envelope_wind_asce7",
     "euro_section",
     "euro_section_names",
+    "footing_figure",
     "get_display",
     "internal_pressure_en",
     "lightest_aisc_beam",
