@@ -272,6 +272,12 @@ _LAZY: dict[str, str] = {
     "snow_profiles_asce7": "calcpack.loads.roof_profiles",
     "wind_profiles_en": "calcpack.loads.roof_profiles",
     "wind_profiles_asce7": "calcpack.loads.roof_profiles",
+    "TimberMemberEC": "calcpack.checks.en1995",
+    "TimberForcesEC": "calcpack.checks.en1995",
+    "check_en1995_member": "calcpack.checks.en1995",
+    "check_en1995_deflection": "calcpack.checks.en1995",
+    "check_en1995_floor_vibration": "calcpack.checks.en1995",
+    "strength_class": "calcpack.checks.en1995",
     "FootingSketch": "calcpack.plots.footing",
     "footing_figure": "calcpack.plots.footing",
 }
@@ -343,6 +349,14 @@ if TYPE_CHECKING:
         check_en1993_beam,
         check_en1993_member,
         check_en1993_web_bearing,
+    )
+    from calcpack.checks.en1995 import (
+        TimberForcesEC,
+        TimberMemberEC,
+        check_en1995_deflection,
+        check_en1995_floor_vibration,
+        check_en1995_member,
+        strength_class,
     )
     from calcpack.checks.en1997 import PresumedBearing, SoilStrength, check_en1997_pad
     from calcpack.combinations import (
@@ -635,7 +649,9 @@ __all__ = [
     "Text",
     "TimberBearing",
     "TimberForces",
+    "TimberForcesEC",
     "TimberMember",
+    "TimberMemberEC",
     "TimberValues",
     "Topography",
     "Triangle",
@@ -682,6 +698,9 @@ __all__ = [
     "check_en1993_beam",
     "check_en1993_member",
     "check_en1993_web_bearing",
+    "check_en1995_deflection",
+    "check_en1995_floor_vibration",
+    "check_en1995_member",
     "check_en1997_pad",
     "check_footing_soil",
     "check_nds_beam",
@@ -749,6 +768,7 @@ __all__ = [
     "solve_truss_cases",
     "sqrt",
     "steel_grade",
+    "strength_class",
     "summary_table",
     "superpose",
     "takedown",
