@@ -29,6 +29,7 @@ FIGURE_DRAWINGS: dict[str, str] = {
     "footing": "calcpack.plots.footing:footing_svg",
     "roof-loads": "calcpack.plots.roof_loads:roof_loads_svg",
     "truss": "calcpack.plots.truss:truss_svg",
+    "joint": "calcpack.plots.joint:joint_svg",
 }
 
 _REGISTERED: dict[str, Callable[..., str]] = {}
