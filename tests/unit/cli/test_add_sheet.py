@@ -22,7 +22,14 @@ def project(tmp_path: Path) -> Path:
 
 
 def test_templates_are_the_starting_points() -> None:
-    assert sheet_template_names() == ["beam", "free_body", "section", "steel_column", "truss"]
+    assert sheet_template_names() == [
+        "beam",
+        "free_body",
+        "section",
+        "site_loads",
+        "steel_column",
+        "truss",
+    ]
 
 
 def test_steel_column_sheet_runs_as_made(project: Path, monkeypatch: pytest.MonkeyPatch) -> None:
