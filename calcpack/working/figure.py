@@ -26,6 +26,7 @@ __all__ = ["FIGURE_DRAWINGS", "Figure", "draw_figure", "register_drawing"]
 FIGURE_DRAWINGS: dict[str, str] = {
     "beam-combinations": "calcpack.plots.beam_combinations:combinations_svg",
     "beam": "calcpack.plots.beam:beam_svg",
+    "footing": "calcpack.plots.footing:footing_svg",
     "truss": "calcpack.plots.truss:truss_svg",
 }
 
