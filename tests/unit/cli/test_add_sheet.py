@@ -27,6 +27,7 @@ def test_templates_are_the_starting_points() -> None:
         "footing",
         "free_body",
         "section",
+        "site_loads",
         "steel_column",
         "truss",
     ]
