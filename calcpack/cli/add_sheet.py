@@ -13,7 +13,7 @@ def register(subparsers: Any) -> None:
     """Add the ``add-sheet`` command."""
     parser = subparsers.add_parser(
         "add-sheet",
-        help="add a sheet from a template (beam, section, truss, free_body)",
+        help="add a sheet from a template (calcpack add-sheet --list names them)",
         description="Add a sheet notebook (and its inputs file) made from a starting template "
         "to the project, and list it in calcpack.toml.",
     )

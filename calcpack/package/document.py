@@ -193,6 +193,33 @@ def _titleblock(
 </table></div>"""
 
 
+def _engineer_block(project: Project) -> str:
+    """The engineer-of-record block: name, licence number and jurisdiction from the project
+    file, and a square for the seal (the firm's image when the project file names one)."""
+    import base64
+
+    from calcpack.package.project import SEAL_TYPES
+
+    eor = project.engineer
+
+    def line(label: str, value: str) -> str:
+        return f'<div class="who"><span class="lbl">{label}</span>{_e(value) or "&#160;"}</div>'
+
+    seal = '<div class="hint">Seal</div>'
+    if eor is not None and eor.seal is not None:
+        data = base64.b64encode(eor.seal.read_bytes()).decode("ascii")
+        kind = SEAL_TYPES[eor.seal.suffix.lower()]
+        alt = _e(f"Seal of {eor.name}, {eor.licence}, {eor.jurisdiction}")
+        seal = f'<img alt="{alt}" src="data:{kind};base64,{data}"/>'
+    return (
+        '<div class="cp-eor"><div class="heading">Engineer of record</div><table><tr><td>'
+        + line("Name", eor.name if eor else "")
+        + line("Licence number", eor.licence if eor else "")
+        + line("Jurisdiction", eor.jurisdiction if eor else "")
+        + f'</td><td class="seal">{seal}</td></tr></table></div>'
+    )
+
+
 def _cover(project: Project, sheets: Sequence[SheetDoc]) -> str:
     from calcpack.package.summary import check_counts, counts_line
 
@@ -227,6 +254,7 @@ def _cover(project: Project, sheets: Sequence[SheetDoc]) -> str:
 <tr><th>Extent</th><td>{len(sheets)} sheets, <span class="totalpages"></span> pages</td></tr>
 <tr><th>Checks</th><td>{_e(counts_line(check_counts(sheets)))}</td></tr>
 </table>
+{_engineer_block(project)}
 <div class="cp-signoff"><div class="heading">Sign-off</div>
 <table><tr>{"".join(boxes)}</tr></table>
 <div class="note">The package is issued when it carries the signatures of all three roles. Digital

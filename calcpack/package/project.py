@@ -37,6 +37,12 @@ The file layout (every table below is required unless marked optional)::
     title = "Loads"                  # optional: defaults to the notebook's first heading
     inputs = ["inputs/loads.csv"]    # optional: files the sheet reads (hashed for the cache)
 
+    [engineer_of_record]             # optional: the block on the cover the seal goes on
+    name = "R. Mbeki"
+    licence = "PE 48213"             # licence or registration number
+    jurisdiction = "State of Oregon" # where the licence is held
+    seal = "seal.png"                # optional: the firm's seal image (PNG, JPEG or SVG)
+
     [design]
     standards = ["EN 1990:2002 Basis of structural design"]
     materials = ["Timber C24"]        # optional
@@ -61,6 +67,7 @@ from calcpack.errors import BuildError, InputError
 __all__ = [
     "PROJECT_FILE_NAME",
     "Design",
+    "EngineerOfRecord",
     "Person",
     "Project",
     "ProjectFileError",
@@ -72,6 +79,16 @@ __all__ = [
 ]
 
 PROJECT_FILE_NAME = "calcpack.toml"
+TOP_LEVEL_KEYS = (
+    "job",
+    "people",
+    "revisions",
+    "sheets",
+    "design",
+    "inputs",
+    "review",
+    "engineer_of_record",
+)
 JOB_KEYS = ("number", "title", "client", "site", "units", "paper", "firm", "firm_address")
 PAPER_SIZES = ("A4", "Letter")
 UNIT_SYSTEMS = ("SI", "US")
@@ -91,6 +108,27 @@ class Person:
 
     name: str
     date: _dt.date | None = None
+
+
+@dataclass(frozen=True)
+class EngineerOfRecord:
+    """The engineer of record named on the cover, with room for the seal."""
+
+    name: str
+    licence: str
+    """Licence or registration number."""
+    jurisdiction: str
+    """Where the licence is held (state, province, country)."""
+    seal: Path | None = None
+    """The firm's seal image (absolute path), placed in the seal box; None leaves it blank."""
+
+
+SEAL_TYPES = {
+    ".png": "image/png",
+    ".jpg": "image/jpeg",
+    ".jpeg": "image/jpeg",
+    ".svg": "image/svg+xml",
+}
 
 
 @dataclass(frozen=True)
@@ -150,6 +188,8 @@ class Project:
     design: Design
     inputs: tuple[str, ...] = field(default=())
     """Project-wide inputs files (relative paths), hashed into every sheet's cache key."""
+    engineer: EngineerOfRecord | None = None
+    """The engineer of record for the cover's seal block (None: the project names none)."""
 
     @property
     def root(self) -> Path:
@@ -377,7 +417,7 @@ def load_project(location: str | Path) -> Project:
             expected="a TOML file",
         ) from exc
     r = _Reader(file)
-    r.known(data, "", ("job", "people", "revisions", "sheets", "design", "inputs", "review"))
+    r.known(data, "", TOP_LEVEL_KEYS)
 
     job = r.table(data, "job", "job")
     r.known(job, "job", JOB_KEYS)
@@ -523,6 +563,8 @@ def load_project(location: str | Path) -> Project:
                 "names a file that does not exist",
             )
 
+    engineer = _engineer(r, data, file.parent)
+
     return Project(
         path=file,
         job_number=job_number,
@@ -540,4 +582,31 @@ def load_project(location: str | Path) -> Project:
         sheets=tuple(sheets),
         design=design,
         inputs=inputs,
+        engineer=engineer,
     )
+
+
+def _engineer(r: _Reader, data: Mapping[str, Any], folder: Path) -> EngineerOfRecord | None:
+    """The optional ``[engineer_of_record]`` table, its seal file checked."""
+    where = "engineer_of_record"
+    table = r.table(data, where, where, required=False)
+    if not table:
+        return None
+    r.known(table, where, ("name", "licence", "jurisdiction", "seal"))
+    name = r.text(table, "name", f"{where}.name", "the engineer's name")
+    licence = r.text(table, "licence", f"{where}.licence", 'a licence number such as "PE 48213"')
+    place = r.text(table, "jurisdiction", f"{where}.jurisdiction", "where the licence is held")
+    seal_name = r.text(table, "seal", f"{where}.seal", "an image file", default="")
+    seal = None
+    if seal_name:
+        seal = folder / seal_name
+        if seal.suffix.lower() not in SEAL_TYPES:
+            r.fail(f"{where}.seal", seal_name, "a PNG, JPEG or SVG image")
+        if not seal.is_file():
+            r.fail(
+                f"{where}.seal",
+                seal_name,
+                "an existing image in the project folder",
+                "names a file that does not exist",
+            )
+    return EngineerOfRecord(name, licence, place, seal)

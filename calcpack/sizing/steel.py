@@ -25,7 +25,12 @@ from calcpack.checks.base import MemberChecks
 from calcpack.checks.demand import as_combinations, max_abs
 from calcpack.checks.elastic import check_deflection
 from calcpack.errors import InputError, OutOfScopeError
-from calcpack.sections.aisc_database import SteelShape, aisc_shape, aisc_shape_names
+from calcpack.sections.aisc_database import (
+    SHAPE_TYPES,
+    SteelShape,
+    aisc_shape,
+    aisc_shape_names,
+)
 from calcpack.sizing.search import Candidate, Order, SizingResult, lightest_sections
 from calcpack.units import Quantity, require
 from calcpack.validate import one_of
@@ -37,6 +42,7 @@ PHI_B = 0.90
 OMEGA_B = 1.67
 
 IFamily = Literal["W", "M", "S", "HP"]
+I_FAMILIES: tuple[str, ...] = ("W", "M", "S", "HP")
 
 
 @dataclass(frozen=True)
@@ -57,26 +63,38 @@ def _nominal_depth(designation: str) -> int:
     return int(body.split("X")[0].split(".")[0])
 
 
+def _depth(shape: SteelShape) -> Quantity | None:
+    for name in ("d", "Ht", "OD"):
+        if shape.has(name):
+            return shape[name]
+    return None
+
+
 def aisc_candidates(
-    family: IFamily = "W", *, nominal_depth: int | Sequence[int] | None = None
+    family: str = "W", *, nominal_depth: int | Sequence[int] | None = None
 ) -> list[Candidate[SteelShape]]:
-    """The shapes of one family of the AISC Shapes Database as search candidates.
+    """The shapes of one type of the AISC Shapes Database as search candidates, weighed by
+    their tabulated weight per foot, with their depth (d, or Ht for rectangular HSS, OD for
+    round HSS and pipe).
 
     Args:
-        family: "W", "M", "S" or "HP".
-        nominal_depth: keep only these nominal depths (e.g. 12 or [10, 12]; the number after the
-            family letters in the designation, in inches).
+        family: a shape type of the database: "W", "M", "S", "HP" (I-shapes, the families
+            :func:`lightest_aisc_beam` accepts), or "HSS", "HSS round", "PIPE", "C", "MC",
+            "L", "WT"...
+        nominal_depth: for I-shapes only, keep these nominal depths (e.g. 12 or [10, 12]; the
+            number after the family letters in the designation, in inches).
     """
-    one_of("family", family, ("W", "M", "S", "HP"))
+    one_of("family", family, SHAPE_TYPES)
     wanted: set[int] | None = None
     if nominal_depth is not None:
+        one_of("family (with nominal_depth)", family, I_FAMILIES)
         wanted = {nominal_depth} if isinstance(nominal_depth, int) else set(nominal_depth)
     out: list[Candidate[SteelShape]] = []
     for name in aisc_shape_names(family):
         if wanted is not None and _nominal_depth(name) not in wanted:
             continue
         s = aisc_shape(name)
-        out.append(Candidate(name, s["W"], s, s["d"]))
+        out.append(Candidate(name, s["W"], s, _depth(s)))
     if not out:
         raise InputError(
             f"No {family}-shape of nominal depth {nominal_depth} in the AISC Shapes Database",
@@ -147,6 +165,7 @@ def lightest_aisc_beam(
         InputError: bad method, family, depth limit or units.
     """
     one_of("method", method, ("LRFD", "ASD"))
+    one_of("family", family, I_FAMILIES)
     require(Fy, "[pressure]", "Fy", positive=True)
     require(E, "[pressure]", "E", positive=True)
     if self_weight_assumed is not None:

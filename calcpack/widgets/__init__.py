@@ -1,6 +1,7 @@
 """ipywidgets input panels (imported lazily, never by computation).
 
-:func:`beam_panel` and :func:`section_panel` edit a sheet's inputs file; :func:`preview` shows
+:func:`beam_panel`, :func:`section_panel` and :func:`member_panel` edit a sheet's inputs
+file (the catalogue panels are built on :class:`InputsPanel`); :func:`preview` shows
 the sheet as the issued PDF lays it out. Names load on first use so that importing
 ``calcpack.widgets`` in a sheet costs nothing until a panel is made.
 """
@@ -10,7 +11,16 @@ from __future__ import annotations
 import importlib
 from typing import Any
 
-__all__ = ["BeamPanel", "SectionPanel", "beam_panel", "preview", "section_panel"]
+__all__ = [
+    "BeamPanel",
+    "InputsPanel",
+    "MemberPanel",
+    "SectionPanel",
+    "beam_panel",
+    "member_panel",
+    "preview",
+    "section_panel",
+]
 
 _WHERE = {
     "BeamPanel": "calcpack.widgets.beam",
@@ -18,6 +28,9 @@ _WHERE = {
     "SectionPanel": "calcpack.widgets.section",
     "section_panel": "calcpack.widgets.section",
     "preview": "calcpack.widgets.pages",
+    "InputsPanel": "calcpack.widgets.panel",
+    "MemberPanel": "calcpack.widgets.member",
+    "member_panel": "calcpack.widgets.member",
 }
 
 

@@ -22,7 +22,7 @@ from calcpack.working.steps import Check, Given, Table, Value
 
 __all__ = ["Exports", "Imported", "export_entry"]
 
-_MUTABLE = frozenset({"_shown_in", "settings"})
+_MUTABLE = frozenset({"_shown_in", "settings", "display_unit"})
 """What a sheet may still set on an imported value: its display state, never its value."""
 
 

@@ -7,18 +7,16 @@ last line from displaying it a second time. Outside a kernel nothing is displaye
 
 from __future__ import annotations
 
-import os
 import sys
-import warnings
-from pathlib import Path
 from typing import Any
 
 import pint
 
 from calcpack.units import DisplaySettings, get_display, validate_display
 from calcpack.working.expr import Term
-from calcpack.working.linked import Exports, Imported, export_entry
+from calcpack.working.linked import Imported
 from calcpack.working.prose import Citation, cite
+from calcpack.working.sheet_links import SheetLinks
 from calcpack.working.steps import (
     Assume,
     Caution,
@@ -71,7 +69,7 @@ def _in_kernel() -> bool:
     return shell is not None and getattr(shell, "kernel", None) is not None
 
 
-class Sheet:
+class Sheet(SheetLinks):
     """An ordered calculation sheet.
 
     Args:
@@ -324,276 +322,6 @@ class Sheet:
     ) -> Table:
         """Add a table."""
         step = Table(columns, rows, caption=caption, settings=self.settings)
-        self.add(step)
-        return step
-
-    # -- values carried between sheets --------------------------------------------------
-    def export(
-        self,
-        *items: Value | Check | pint.Quantity,
-        name: str | None = None,
-        case: str | None = None,
-        description: str | None = None,
-    ) -> Exports:
-        """Offer values to the other sheets of the project (shown as a table).
-
-        Args:
-            items: givens or derived values (exported under their names, in the unit shown),
-                checks (their utilisation) or quantities (e.g. an analysis result).
-            name: the exported name, for one check or quantity (or to rename one value).
-            case: the load case of an unfactored result (e.g. ``"D"``), for load takedown.
-            description: words for the importing sheet (default: the value's own).
-
-        In JupyterLab the sheet also writes its exports file (see
-        :mod:`calcpack.working.links`), which the importing sheets read; in a build the build
-        passes the recorded values on.
-
-        Raises:
-            InputError: no item, ``name`` with several items, or a check or quantity unnamed.
-        """
-        from calcpack.errors import InputError
-
-        if not items or (name is not None and len(items) > 1):
-            raise InputError(
-                f"export takes one or more values, and a name only with one "
-                f"(got {len(items)} items, name = {name!r})",
-                name="items",
-                value=items,
-                expected="export(w, M) or export(result_quantity, name='R_A')",
-            )
-        entries = [export_entry(it, name=name, case=case, description=description) for it in items]
-        from calcpack.working.links import entry_key
-
-        for e in entries:
-            self._exports[entry_key(e["name"], e["case"])] = e
-        step = Exports(entries, settings=self.settings)
-        self.add(step)
-        self._write_exports()
-        return step
-
-    def _write_exports(self) -> None:
-        """In JupyterLab (never in a build), write this sheet's exports file."""
-        if os.environ.get("CALCPACK_BUILDING") == "1":
-            return
-        from calcpack.working.links import this_sheet, write_exports
-
-        ref = this_sheet()
-        if ref is not None:
-            write_exports(ref, list(self._exports.values()))
-
-    def import_value(
-        self,
-        sheet: str,
-        name: str,
-        *,
-        dimension: str | None = None,
-        case: str | None = None,
-        as_name: str | None = None,
-        unit: str | None = None,
-        description: str | None = None,
-        latex: str | None = None,
-    ) -> Imported:
-        """Take a value another sheet of the project exports, as a given of this sheet.
-
-        Args:
-            sheet: the exporting sheet's notebook name (``"02_lintel"``) or project path.
-            name: the exported name (``"V_max"``).
-            dimension: the dimension this sheet expects (``"[force]"``) or a unit of it
-                (``"kN"``); a value of another dimension is refused.
-            case: the load case, for a value exported per case.
-            as_name: its symbol on this sheet (default ``name``).
-            unit: display unit on this sheet (default: the exporting sheet's).
-            description: words for the checker (default: the exporting sheet's).
-
-        The source shown reads "sheet 2, V_max" and links to that sheet in the package. In
-        JupyterLab the value is the exporting sheet's latest recorded one, with a warning when
-        that sheet's notebook or inputs file changed since (run it first).
-
-        Raises:
-            InputError: no such sheet in the project, or the sheet exports no such name (both
-                named), or its values have not been recorded yet.
-            DimensionError: the value is not of ``dimension``.
-        """
-        from calcpack.errors import DimensionError, InputError
-        from calcpack.working.links import entry_key, read_exports, resolve_sheet, staleness
-
-        ref = resolve_sheet(sheet)
-        exports = read_exports(ref)
-        key = entry_key(name, case)
-        entry = exports.values.get(key)
-        if entry is None:
-            from calcpack.validate import suggest
-
-            known = sorted(exports.values)
-            hint = suggest(key, known)
-            extra = f"; did you mean {hint[0]!r}?" if hint else ""
-            raise InputError(
-                f"Sheet {ref.name!r} exports no value {key!r} (it exports: "
-                f"{', '.join(known) or 'nothing'}){extra}",
-                name=key,
-                value=f"{ref.name}: {key}",
-                expected="one of " + ", ".join(known),
-            )
-        local = as_name or name
-        step = Imported(
-            local,
-            entry,
-            ref,
-            description=description,
-            unit=unit,
-            latex=latex,
-            settings=self.settings,
-        )
-        if dimension is not None:
-            from calcpack.units import require
-
-            try:
-                require(step.quantity, dimension, local)
-            except DimensionError as exc:
-                raise DimensionError(
-                    f"Import of {key} from sheet {ref.name!r}: {exc}",
-                    name=local,
-                    value=step.quantity,
-                    expected=f"a value of {dimension}",
-                ) from exc
-        if os.environ.get("CALCPACK_BUILDING") != "1":
-            why = staleness(ref, exports)
-            if why is not None:
-                message = (
-                    f"{local} from sheet {ref.name!r} may be out of date: {why}. "
-                    f"Run {ref.name} first."
-                )
-                warnings.warn(message, stacklevel=2)
-                self.add(Text(f"**Out of date?** {message}"))
-        self.add(step)
-        return step
-
-    def import_cases(
-        self, sheet: str, name: str, *, dimension: str | None = None, as_name: str | None = None
-    ) -> dict[str, Imported]:
-        """Every load case of a value another sheet exports per case (see :meth:`export`),
-        each as a given named ``<as_name>_<case>``; returns case -> value, in export order.
-
-        Raises:
-            InputError: as :meth:`import_value`; or the sheet exports ``name`` for no case.
-        """
-        from calcpack.errors import InputError
-        from calcpack.working.links import read_exports, resolve_sheet
-
-        ref = resolve_sheet(sheet)
-        cases = [
-            e["case"]
-            for e in read_exports(ref).values.values()
-            if e.get("name") == name and e.get("case")
-        ]
-        if not cases:
-            raise InputError(
-                f"Sheet {ref.name!r} exports no load cases of {name!r} "
-                f"(export it with export(..., name={name!r}, case=...))",
-                name=name,
-                value=f"{ref.name}: {name}",
-                expected="a value exported per load case",
-            )
-        base = as_name or name
-        return {
-            c: self.import_value(sheet, name, dimension=dimension, case=c, as_name=f"{base}_{c}")
-            for c in cases
-        }
-
-    def export_reactions(
-        self, results: Any, support: str, *, name: str, member: str = ""
-    ) -> Exports:
-        """Export a support's vertical reaction for each load case, unfactored, for load
-        takedown on the sheet of the supporting member (:meth:`takedown`).
-
-        Args:
-            results: load case -> unfactored result of that case (beam, truss or free body;
-                see :func:`calcpack.loads.takedown.reactions_by_case`).
-            support: the support (beam), joint (truss) or reaction (free body).
-            name: the exported name (``"R_A"``). member: the supported member, for the words.
-
-        Raises:
-            OutOfScopeError: a result is factored or a combination.
-        """
-        from calcpack.loads.takedown import reactions_by_case
-
-        by_case = reactions_by_case(results, support)
-        on = f" on {member}" if member else ""
-        entries = [
-            export_entry(
-                q,
-                name=name,
-                case=case,
-                description=f"reaction at {support}{on}, upward, case {case} unfactored",
-            )
-            for case, q in by_case.items()
-        ]
-        from calcpack.working.links import entry_key
-
-        for e in entries:
-            self._exports[entry_key(e["name"], e["case"])] = e
-        step = Exports(entries, settings=self.settings)
-        self.add(step)
-        self._write_exports()
-        return step
-
-    def takedown(self, *reactions: Any, onto: str) -> Any:
-        """Carry reactions by load case onto the member this sheet designs, with the working.
-
-        Args:
-            reactions: case -> reaction mappings (e.g. from :meth:`import_cases`), one per
-                supported member; the same case from several members is summed.
-            onto: the member receiving the loads (``"post P1"``).
-
-        Returns:
-            A :class:`calcpack.loads.takedown.Takedown`: ``axial()`` for a post or footing,
-            ``point_loads(x)`` for a beam.
-        """
-        from calcpack.loads.takedown import takedown
-
-        result = takedown(*reactions, onto=onto)
-        self.add(result.working(settings=self.settings))
-        return result
-
-    # -- what a checker expects to see checked -------------------------------------------
-    def checklist(
-        self,
-        member_type: str,
-        *,
-        member: str,
-        not_applicable: dict[str, str] | None = None,
-        met_by: dict[str, str] | None = None,
-    ) -> Any:
-        """Declare a member's type, so the package lists every item of its checklist as met
-        by a check, not applicable, or NOT COVERED (see :mod:`calcpack.checks.checklists`).
-
-        Args:
-            member_type: ``"steel beam"``, ``"timber beam"``/``"joist"``, ``"post"``/
-                ``"column"``, ``"truss"``, ``"bearing"``, ``"footing"``, ``"connection"``.
-            member: the member's mark, as its checks name it (``"B1"``).
-            not_applicable: item -> why it does not apply (words, shown in the package).
-            met_by: item -> the member or check elsewhere that meets it (``"P1"``).
-
-        The checklist is the project's own ``member_checklists.csv`` when the project folder
-        holds one, else calcpack's (common practice). Call it after the sheet's checks to see
-        on the sheet which of them meet which item.
-
-        Raises:
-            InputError: unknown member type or item, or a declaration without a reason.
-        """
-        from calcpack.checks.checklists import member_checklist
-        from calcpack.working.checklist import Checklist
-        from calcpack.working.links import _find_root
-
-        declared = member_checklist(
-            member_type,
-            member=member,
-            not_applicable=not_applicable,
-            met_by=met_by,
-            project_root=_find_root(Path.cwd().resolve()),
-        )
-        checks = [c for c in self.records().get("checks", []) if isinstance(c, dict)]
-        step = Checklist(declared.to_json(), checks, settings=self.settings)
         self.add(step)
         return step
 

@@ -21,8 +21,31 @@ def project(tmp_path: Path) -> Path:
     return folder
 
 
-def test_templates_are_the_four_starting_points() -> None:
-    assert sheet_template_names() == ["beam", "free_body", "section", "truss"]
+def test_templates_are_the_starting_points() -> None:
+    assert sheet_template_names() == [
+        "beam",
+        "free_body",
+        "section",
+        "site_loads",
+        "steel_column",
+        "truss",
+    ]
+
+
+def test_steel_column_sheet_runs_as_made(project: Path, monkeypatch: pytest.MonkeyPatch) -> None:
+    """The template's code cells run as written in the new sheet's folder (as a build runs
+    them: the panel shows nothing there) and record the member checks."""
+    added = add_sheet(project, "steel_column", title="Post P1")
+    nb = json.loads((project / added.notebook).read_text(encoding="utf-8"))
+    monkeypatch.chdir((project / added.notebook).parent)
+    monkeypatch.setenv("CALCPACK_BUILDING", "1")
+    scope: dict[str, object] = {}
+    for cell in nb["cells"]:
+        if cell["cell_type"] == "code":
+            exec("".join(cell["source"]), scope)
+    sheet = scope["s"]
+    names = {r.name for r in sheet.checks()}  # type: ignore[attr-defined]
+    assert "Compression" in names
 
 
 def test_add_beam_sheet_with_inputs(project: Path, capsys: pytest.CaptureFixture[str]) -> None:
@@ -77,7 +100,8 @@ def test_no_project_file_is_refused(tmp_path: Path, capsys: pytest.CaptureFixtur
 
 def test_list_templates(capsys: pytest.CaptureFixture[str]) -> None:
     assert main(["add-sheet", "--list"]) == 0
-    assert capsys.readouterr().out.split() == ["beam", "free_body", "section", "truss"]
+    assert capsys.readouterr().out.split() == sheet_template_names()
+    assert "steel_column" in sheet_template_names()
 
 
 def test_new_with_a_sheet_template(tmp_path: Path) -> None:
