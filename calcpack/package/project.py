@@ -88,6 +88,7 @@ TOP_LEVEL_KEYS = (
     "inputs",
     "review",
     "engineer_of_record",
+    "verification",  # the checker's independent checks (calcpack.package.verification)
 )
 JOB_KEYS = ("number", "title", "client", "site", "units", "paper", "firm", "firm_address")
 PAPER_SIZES = ("A4", "Letter")
