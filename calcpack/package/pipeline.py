@@ -29,7 +29,7 @@ from typing import Any
 
 from calcpack.contract.manifest import MANIFEST_NAME, Manifest, manifest_bytes
 from calcpack.errors import BuildError
-from calcpack.package import links, publish
+from calcpack.package import links, publish, verification
 from calcpack.package.bodies import convert_sheet, fill_bodies, prepare_in_worker
 from calcpack.package.document import (
     ROLES,
@@ -566,7 +566,15 @@ def build(
             else:
                 doc = docs_here.pop(item.entry.path)
             docs.append(doc)
-        options = replace(options, revisions=revisions.compare_with_issued(project, docs))
+        compared, opened = verification.check_stage(project, docs)  # the checker's checks
+        if opened:  # disagreements became open review comments
+            review, review_file = _load_review(project)
+        options = replace(
+            options,
+            revisions=revisions.compare_with_issued(project, docs),
+            review=review,
+            verifications=compared,
+        )
         layout = _lay_out(
             project,
             docs,
@@ -601,6 +609,7 @@ def build(
         links=tuple(
             link for doc in docs for link in links.link_records(doc.entry.path, doc.records.imports)
         ),
+        verifications=tuple(c.to_json() for c in compared),
         signature_fields=tuple(layout.signature_fields),
         sections={k: list(v) for k, v in layout.section_pages.items()},
         build={

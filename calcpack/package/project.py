@@ -514,6 +514,7 @@ def load_project(location: str | Path) -> Project:
 
     known = {"job", "people", "revisions", "sheets", "design", "inputs", "review"}
     known.add("engineer_of_record")
+    known.add("verification")  # the checker's independent checks (package.verification)
     for key in data:
         if key not in known:
             r.fail(key, data[key], "one of " + ", ".join(sorted(known)), "is not a known table")

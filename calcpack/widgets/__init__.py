@@ -13,10 +13,12 @@ from typing import Any
 
 __all__ = [
     "BeamPanel",
+    "FootingPanel",
     "InputsPanel",
     "MemberPanel",
     "SectionPanel",
     "beam_panel",
+    "footing_panel",
     "member_panel",
     "preview",
     "section_panel",
@@ -31,6 +33,8 @@ _WHERE = {
     "InputsPanel": "calcpack.widgets.panel",
     "MemberPanel": "calcpack.widgets.member",
     "member_panel": "calcpack.widgets.member",
+    "FootingPanel": "calcpack.widgets.footing",
+    "footing_panel": "calcpack.widgets.footing",
 }
 
 
