@@ -280,6 +280,10 @@ _LAZY: dict[str, str] = {
     "strength_class": "calcpack.checks.en1995",
     "FootingSketch": "calcpack.plots.footing",
     "footing_figure": "calcpack.plots.footing",
+    "MasonryWall": "calcpack.checks.en1996",
+    "Padstone": "calcpack.checks.en1996",
+    "check_en1996_bearing": "calcpack.checks.en1996",
+    "masonry_fk": "calcpack.checks.en1996",
 }
 
 
@@ -357,6 +361,12 @@ if TYPE_CHECKING:
         check_en1995_floor_vibration,
         check_en1995_member,
         strength_class,
+    )
+    from calcpack.checks.en1996 import (
+        MasonryWall,
+        Padstone,
+        check_en1996_bearing,
+        masonry_fk,
     )
     from calcpack.checks.en1997 import PresumedBearing, SoilStrength, check_en1997_pad
     from calcpack.combinations import (
@@ -597,6 +607,7 @@ __all__ = [
     "LoadCombination",
     "LowRiseBuildingASCE7",
     "Manifest",
+    "MasonryWall",
     "Max",
     "Member",
     "MemberForces",
@@ -606,6 +617,7 @@ __all__ = [
     "NotCovered",
     "NotebookExecutionError",
     "OutOfScopeError",
+    "Padstone",
     "Pin",
     "Ply",
     "PointForce",
@@ -701,6 +713,7 @@ __all__ = [
     "check_en1995_deflection",
     "check_en1995_floor_vibration",
     "check_en1995_member",
+    "check_en1996_bearing",
     "check_en1997_pad",
     "check_footing_soil",
     "check_nds_beam",
@@ -738,6 +751,7 @@ __all__ = [
     "load_project",
     "long_term_deflection",
     "make_demo_credentials",
+    "masonry_fk",
     "nds_fastener",
     "nds_glulam_values",
     "nds_sawn_values",
