@@ -96,7 +96,7 @@ def sheet_record(
     check and the revision comparison use the record without them, so all three compare like
     with like.
     """
-    return {
+    out = {
         "number": entry.number,
         "title": title,
         "path": entry.path,
@@ -106,6 +106,11 @@ def sheet_record(
         "assumptions": list(records.assumptions),
         "cautions": list(records.cautions),
     }
+    if records.exports:  # what other sheets may import, at full precision (the links' source)
+        out["exports"] = list(records.exports)
+    if records.checklists:
+        out["checklists"] = list(records.checklists)
+    return out
 
 
 def embedded_manifest_bytes(pdf: Path) -> bytes | None:

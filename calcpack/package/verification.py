@@ -248,7 +248,9 @@ def open_disagreements(project: Project, compared: Sequence[Compared]) -> tuple[
         if (c.of_sheet, quantity, text) in existing:
             continue
         who = project.checker.name
-        comment = add_comment(project.root, sheet=c.of_sheet, text=text, who=who, quantity=quantity)
+        comment = add_comment(
+            project.root, sheet=c.of_sheet, text=text, who=who, quantity=quantity, recorded=True
+        )
         opened.append(comment.id)
     return tuple(opened)
 

@@ -334,8 +334,13 @@ def add_comment(
     text: str,
     who: str,
     quantity: str | None = None,
+    recorded: bool = False,
 ) -> Comment:
     """Open a new comment on ``sheet`` (a notebook path relative to the project directory).
+
+    ``recorded=True``: the caller has just read ``quantity`` from the sheet's records (the build
+    opening a comment for a disagreement of the checker's independent check), so it is not
+    looked up in the latest package.
 
     Raises:
         InputError: empty text or name, the sheet notebook does not exist in the project, or
@@ -351,7 +356,7 @@ def add_comment(
             name="sheet",
             value=sheet,
         )
-    if quantity is not None and quantity.strip():
+    if quantity is not None and quantity.strip() and not recorded:
         _require_recorded(Path(project), sheet, quantity.strip())
     log = load_review(project)
     numbers = [int(c.id[1:]) for c in log.comments if c.id[1:].isdigit()]

@@ -432,3 +432,47 @@ def test_nothing_is_drawn_past_the_margins(packages: dict[str, Built], name: str
         # page margins of assets/calcpack.css: 19 mm left, 14 mm right; 1 pt for a border
         assert extent.x1 <= width - 14 * 72 / 25.4 + 1, (index + 1, extent.x1)
         assert extent.x0 >= 19 * 72 / 25.4 - 1, (index + 1, extent.x0)
+
+
+@pytest.mark.parametrize("name", PROJECTS)
+def test_every_link_carries_the_exporting_record_at_full_precision(
+    packages: dict[str, Built], name: str
+) -> None:
+    """A value crossing a sheet is the exporting sheet's record, bit for bit, and the importing
+    sheet shows that value (in its own display unit)."""
+    b = packages[name]
+    sheets = {s["path"]: s for s in b.manifest["sheets"]}
+    for link in b.manifest["links"]:
+        exports = sheets[link["from_sheet"]]["exports"]
+        (source,) = [
+            e for e in exports if e["name"] == link["from_name"] and e["case"] == link["case"]
+        ]
+        assert link["value"] == source["value"]  # the same float, not a rounded copy
+        assert link["unit"] == source["unit"]
+        (shown,) = [v for v in sheets[link["to_sheet"]]["values"] if v["name"] == link["to_name"]]
+        carried = Q_(link["value"], _unit(link["unit"]))
+        assert Q_(shown["value"], _unit(shown["unit"])).to(carried.units).magnitude == (
+            pytest.approx(carried.magnitude, rel=1e-12)
+        )
+
+
+def test_the_alteration_carries_its_values_down_the_chain_and_the_checker_verifies_them(
+    packages: dict[str, Built],
+) -> None:
+    b = packages["alteration_ashgrove_lane"]
+    pairs = {(x["from_sheet"], x["to_sheet"]) for x in b.manifest["links"]}
+    assert ("sheets/01_loads.ipynb", "sheets/02_beam_B1.ipynb") in pairs
+    assert ("sheets/02_beam_B1.ipynb", "sheets/03_posts_bearing.ipynb") in pairs
+    checked = {(v["of_name"], v["case"]): v for v in b.manifest["verifications"]}
+    assert set(checked) == {("R_A", "D"), ("R_B", "D"), ("R_A", "L"), ("R_A", "Lr")}
+    assert all(v["agreed"] for v in checked.values())
+    # statics of the simple span (hand arithmetic from the inputs file): w_L = 40 psf x 12.5 ft
+    # = 500 plf, R_A,L = 500 x 16 / 2 = 4000 lbf; P_Lr = 0.90 kip at 5 ft: R_A,Lr = 0.9 x 11/16
+    assert Q_(checked["R_A", "L"]["preparer_value"], _unit(checked["R_A", "L"]["unit"])).to(
+        "kip"
+    ).magnitude == pytest.approx(4.0, rel=1e-9)
+    assert Q_(checked["R_A", "Lr"]["preparer_value"], _unit(checked["R_A", "Lr"]["unit"])).to(
+        "kip"
+    ).magnitude == pytest.approx(0.9 * 11 / 16, rel=1e-9)
+    cover = re.sub(r"\s+", " ", b.pages[0])
+    assert "key results independently verified by the checker" in cover
