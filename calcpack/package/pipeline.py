@@ -393,6 +393,7 @@ def _lay_out(
         "assumptions",
         *sheet_ids.values(),
         "summary",
+        "verification",
         "revisions",
         "review-log",
     ]

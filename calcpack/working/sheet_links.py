@@ -367,3 +367,26 @@ class SheetLinks:
         shown = Verification(entry, settings=self.settings)
         self.add(shown)
         return shown
+
+    def key_results(self, *names: str, member: str | None = None) -> Any:
+        """Declare this sheet's key results (value or export names; with ``member``, check
+        names), which the package lists as independently verified by the checker or not.
+        Without a declaration the package takes the sheet's exports, its governing check per
+        member and its maximum moments, shears and deflections.
+
+        Raises:
+            InputError: no name given.
+        """
+        from calcpack.errors import InputError
+        from calcpack.working.verification import KeyResults
+
+        if not names or not all(isinstance(n, str) and n.strip() for n in names):
+            raise InputError(
+                f"key_results takes one or more result names (got {names!r})",
+                name="names",
+                value=names,
+                expected='names such as "M_max", "R_A"',
+            )
+        step = KeyResults([(n.strip(), member) for n in names])
+        self.add(step)
+        return step

@@ -18,9 +18,9 @@ from calcpack.errors import InputError
 from calcpack.units import DisplaySettings, ureg
 from calcpack.working.format import format_unit_text
 from calcpack.working.links import SheetRef
-from calcpack.working.steps import Table, Value
+from calcpack.working.steps import Table, Text, Value
 
-__all__ = ["Verification", "tolerance_fraction", "verification_entry"]
+__all__ = ["KeyResults", "Verification", "tolerance_fraction", "verification_entry"]
 
 
 def tolerance_fraction(tolerance: Any) -> float:
@@ -143,3 +143,17 @@ class Verification(Table):
 
     def records(self) -> dict[str, list[Any]]:
         return {"verifications": [dict(self.entry)]}
+
+
+class KeyResults(Text):
+    """The results a sheet declares key, for the checker's coverage in the package."""
+
+    def __init__(self, items: list[tuple[str, str | None]]) -> None:
+        words = ", ".join(f"{n} ({m})" if m else n for n, m in items)
+        super().__init__(
+            f"**Key results of this sheet** (for the checker's verification): {words}."
+        )
+        self.items = list(items)
+
+    def records(self) -> dict[str, list[Any]]:
+        return {"key_results": [{"name": n, "member": m} for n, m in self.items]}

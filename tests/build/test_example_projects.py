@@ -476,3 +476,18 @@ def test_the_alteration_carries_its_values_down_the_chain_and_the_checker_verifi
     ).magnitude == pytest.approx(0.9 * 11 / 16, rel=1e-9)
     cover = re.sub(r"\s+", " ", b.pages[0])
     assert "key results independently verified by the checker" in cover
+
+
+@pytest.mark.parametrize("name", PROJECTS)
+def test_each_example_carries_the_checkers_verification_of_its_governing_results(
+    packages: dict[str, Built], name: str
+) -> None:
+    b = packages[name]
+    checks = b.manifest["verifications"]
+    assert checks
+    assert all(v["agreed"] for v in checks)
+    assert all(v["method"] for v in checks)
+    sections = b.manifest["sections"]
+    page = re.sub(r"\s+", " ", b.pages[sections["verification"][0] - 1])
+    assert "Verification by the checker" in page
+    assert "agreed" in page

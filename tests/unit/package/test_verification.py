@@ -184,3 +184,18 @@ def test_the_archive_check_reruns_the_checks_and_a_change_upstream_asks_for_a_re
     assert moment.new.startswith("re-check needed")
     assert "agreed" in moment.new
     assert moment.sheet == "sheet 1"
+
+
+def test_a_sheet_may_declare_its_key_results_and_the_package_shows_which_were_checked(
+    tmp_path: Path,
+) -> None:
+    from calcpack.package.verification_html import coverage
+
+    sheets = {
+        "beam": BEAM.format(w=10.0) + 's.key_results("M_max", "w")\n',
+        "check": CHECK.format(M_kNm=45.0, tol=0.005),
+    }
+    project, docs = _docs(write_linked_project(tmp_path, sheets, list(sheets)))
+    compared = compare_verifications(project, docs)  # type: ignore[arg-type]
+    rows = {(doc.entry.path, name): bool(found) for doc, name, _, found in coverage(docs, compared)}
+    assert rows == {("sheets/beam.ipynb", "M_max"): True, ("sheets/beam.ipynb", "w"): False}
