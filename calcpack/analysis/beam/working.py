@@ -715,6 +715,17 @@ def _beam_working(result: BeamResult, title: str | None) -> Any:
     )
     steps.append(Text(f"Classification: {result.classification.describe()}."))
     steps.append(Heading("Loads and resultants", 3))
+    from calcpack.analysis.beam.load_table import load_table
+
+    acting = {case for case, _ in result.cases}
+    steps.append(
+        load_table(
+            [ld for ld in beam.loads if ld.case in acting],
+            member=beam.name,
+            length=beam.length,
+            settings=_settings(),
+        )
+    )
     steps.append(
         Text(
             "Each distributed load acts in the equilibrium equations through its "
@@ -916,13 +927,21 @@ def _cut_working(result: BeamResult, x: Any, side: str) -> Any:
         r = react[s.label]
         if s.restrains_v:
             R = _given_step(
-                f"R_{s.label}", r.Fy, f"reaction at {s.label} (from the analysis)", unit=_u("force")
+                f"R_{s.label}",
+                r.Fy,
+                f"reaction at {s.label} (from the analysis)",
+                unit=_u("force"),
+                result=True,
             )
             steps.append(R)
             rterms.append(("F", s.x_m, R))
         if s.restrains_rotation:
             Mr = _given_step(
-                f"M_{s.label}", r.C, f"moment reaction at {s.label}, clockwise +", unit=_u("moment")
+                f"M_{s.label}",
+                r.C,
+                f"moment reaction at {s.label}, clockwise +",
+                unit=_u("moment"),
+                result=True,
             )
             steps.append(Mr)
             rterms.append(("C", s.x_m, Mr))

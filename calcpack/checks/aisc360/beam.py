@@ -390,6 +390,7 @@ class _Logic:
             "required flexural strength" + (f", {it['where']}" if it["where"] else ""),
             source=it["combination"] or "given",
             unit="kip*ft",
+            result=self.direct is None,
         )
         c.check("Flexure", Mu, cap, ref="AISC 360-16 §F2", combination=it["combination"])
 
@@ -467,12 +468,23 @@ class _Logic:
                 "largest |M| on the segment",
                 source=it["combination"],
                 unit="kip*ft",
+                result=True,
             )
             MA = c.given(
-                "M_A", sm.M_A, "|M| at the quarter point", source=it["combination"], unit="kip*ft"
+                "M_A",
+                sm.M_A,
+                "|M| at the quarter point",
+                source=it["combination"],
+                unit="kip*ft",
+                result=True,
             )
             MB = c.given(
-                "M_B", sm.M_B, "|M| at the centre", source=it["combination"], unit="kip*ft"
+                "M_B",
+                sm.M_B,
+                "|M| at the centre",
+                source=it["combination"],
+                unit="kip*ft",
+                result=True,
             )
             MC = c.given(
                 "M_C",
@@ -480,6 +492,7 @@ class _Logic:
                 "|M| at the three-quarter point",
                 source=it["combination"],
                 unit="kip*ft",
+                result=True,
             )
             Cb = c.derive(
                 "C_b",
@@ -632,5 +645,6 @@ class _Logic:
             "required shear strength (largest |V|)",
             source=combo or "given",
             unit="kip",
+            result=self.direct is None,
         )
         c.check("Shear", Vd, cap, ref="AISC 360-16 §G2.1", combination=combo)
