@@ -82,6 +82,15 @@ _LAZY: dict[str, str] = {
     "takedown": "calcpack.loads.takedown",
     "reactions_by_case": "calcpack.loads.takedown",
     "Takedown": "calcpack.loads.takedown",
+    # the checker's quick estimates and the members' checklists
+    "Estimate": "calcpack.analysis.estimates",
+    "beam_table": "calcpack.analysis.estimates",
+    "continuous_equal_spans": "calcpack.analysis.estimates",
+    "tributary_reactions": "calcpack.analysis.estimates",
+    "statical_moment": "calcpack.analysis.estimates",
+    "section_cut": "calcpack.analysis.estimates",
+    "member_checklist": "calcpack.checks.checklists",
+    "load_checklists": "calcpack.checks.checklists",
     "Truss": "calcpack.analysis.truss_model",
     "Node": "calcpack.analysis.truss_model",
     "Member": "calcpack.analysis.truss_model",
@@ -280,6 +289,12 @@ _LAZY: dict[str, str] = {
     "strength_class": "calcpack.checks.en1995",
     "FootingSketch": "calcpack.plots.footing",
     "footing_figure": "calcpack.plots.footing",
+    "MasonryWall": "calcpack.checks.en1996",
+    "Padstone": "calcpack.checks.en1996",
+    "check_en1996_bearing": "calcpack.checks.en1996",
+    "masonry_fk": "calcpack.checks.en1996",
+    "preset": "calcpack.presets",
+    "project_preset": "calcpack.presets",
 }
 
 
@@ -309,6 +324,14 @@ if TYPE_CHECKING:
         combine,
         solve_beam,
         solve_cases,
+    )
+    from calcpack.analysis.estimates import (
+        Estimate,
+        beam_table,
+        continuous_equal_spans,
+        section_cut,
+        statical_moment,
+        tributary_reactions,
     )
     from calcpack.analysis.freebody import (
         BodySupport,
@@ -342,6 +365,7 @@ if TYPE_CHECKING:
         summary_table,
     )
     from calcpack.checks.aci318 import ACIFootingDesign, check_aci_footing
+    from calcpack.checks.checklists import load_checklists, member_checklist
     from calcpack.checks.en1992 import ECFootingDesign, check_en1992_footing
     from calcpack.checks.en1993 import (
         DesignForces,
@@ -357,6 +381,12 @@ if TYPE_CHECKING:
         check_en1995_floor_vibration,
         check_en1995_member,
         strength_class,
+    )
+    from calcpack.checks.en1996 import (
+        MasonryWall,
+        Padstone,
+        check_en1996_bearing,
+        masonry_fk,
     )
     from calcpack.checks.en1997 import PresumedBearing, SoilStrength, check_en1997_pad
     from calcpack.combinations import (
@@ -456,6 +486,10 @@ if TYPE_CHECKING:
     from calcpack.plots.footing import (
         FootingSketch,
         footing_figure,
+    )
+    from calcpack.presets import (
+        preset,
+        project_preset,
     )
     from calcpack.sections import (
         Angle,
@@ -569,6 +603,7 @@ __all__ = [
     "EISegment",
     "Embedment",
     "Equation",
+    "Estimate",
     "EuroSection",
     "Exports",
     "Fastener",
@@ -597,6 +632,7 @@ __all__ = [
     "LoadCombination",
     "LowRiseBuildingASCE7",
     "Manifest",
+    "MasonryWall",
     "Max",
     "Member",
     "MemberForces",
@@ -606,6 +642,7 @@ __all__ = [
     "NotCovered",
     "NotebookExecutionError",
     "OutOfScopeError",
+    "Padstone",
     "Pin",
     "Ply",
     "PointForce",
@@ -677,6 +714,7 @@ __all__ = [
     "annex_equ_combinations",
     "annex_serviceability",
     "atan",
+    "beam_table",
     "bolt_pattern_sketch",
     "build",
     "case_groups",
@@ -701,6 +739,7 @@ __all__ = [
     "check_en1995_deflection",
     "check_en1995_floor_vibration",
     "check_en1995_member",
+    "check_en1996_bearing",
     "check_en1997_pad",
     "check_footing_soil",
     "check_nds_beam",
@@ -715,6 +754,7 @@ __all__ = [
     "combine",
     "components_wind_asce7",
     "composite",
+    "continuous_equal_spans",
     "cos",
     "diff_manifests",
     "diff_packages",
@@ -734,16 +774,21 @@ __all__ = [
     "lightest_sections",
     "line_loads",
     "lintel_masonry_loads",
+    "load_checklists",
     "load_inputs",
     "load_project",
     "long_term_deflection",
     "make_demo_credentials",
+    "masonry_fk",
+    "member_checklist",
     "nds_fastener",
     "nds_glulam_values",
     "nds_sawn_values",
     "new_project",
     "pattern_cases",
     "peak_pressure_en",
+    "preset",
+    "project_preset",
     "reactions_by_case",
     "read_manifest",
     "rebar",
@@ -753,6 +798,7 @@ __all__ = [
     "sawn_candidates",
     "sawn_timber",
     "second_moment_from_radius",
+    "section_cut",
     "set_display",
     "sign_package",
     "sin",
@@ -767,12 +813,14 @@ __all__ = [
     "solve_truss",
     "solve_truss_cases",
     "sqrt",
+    "statical_moment",
     "steel_grade",
     "strength_class",
     "summary_table",
     "superpose",
     "takedown",
     "tan",
+    "tributary_reactions",
     "truss_joint_loads",
     "update_inputs",
     "ureg",

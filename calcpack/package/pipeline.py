@@ -80,6 +80,8 @@ class BuildResult:
     seconds: float
     superseded: Path | None = None
     """Where the signed package this build replaced was moved (``superseded/``), if any."""
+    warnings: tuple[str, ...] = ()
+    """What the engineer should fix before signing (template placeholders left)."""
 
 
 def build_created(project: Project) -> _dt.datetime:
@@ -453,7 +455,9 @@ def build(
             executes and again before writing); nothing is written.
     """
     start = time.perf_counter()
+    timeout = publish.check_timeout(timeout)
     project = load_project(location)
+    warnings = publish.placeholder_warnings(project)
     if paper is not None and paper not in ("A4", "Letter"):
         raise BuildError(f"Paper size must be 'A4' or 'Letter' (got paper = {paper!r})")
     from calcpack import __version__
@@ -494,8 +498,10 @@ def build(
             (),
             True,
             time.perf_counter() - start,
+            warnings=warnings,
         )
-    if not supersede_signed:  # refuse at the door, before anything executes
+    publish.check_output_folder(out)  # refuse at the door, before anything executes
+    if not supersede_signed:
         publish.make_way(pdf_path, manifest_path, supersede=False)
 
     def on_sheet(stage: str, sheet: SheetEntry) -> None:
@@ -661,6 +667,7 @@ def build(
         False,
         time.perf_counter() - start,
         moved,
+        warnings,
     )
 
 
