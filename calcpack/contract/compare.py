@@ -18,6 +18,7 @@ from typing import Any
 
 from calcpack.contract.carried import annotate_carried, link_changes
 from calcpack.contract.manifest import Manifest
+from calcpack.contract.rechecks import verification_changes
 
 __all__ = ["REL_TOL", "Change", "ManifestDiff", "diff_manifests"]
 
@@ -301,6 +302,7 @@ def diff_manifests(
         found += _diff_checks(label, sa.get("checks", []), sb.get("checks", []), rel_tol)
         changes += [replace(c, path=key) for c in found]
     changes += link_changes(old, new, rel_tol)
+    changes += verification_changes(old, new, rel_tol)
     changes = annotate_carried(changes, old, new, rel_tol)
 
     def revision(m: dict[str, Any]) -> str | None:

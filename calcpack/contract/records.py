@@ -165,6 +165,11 @@ class SheetRecords:
     """Values it imports: from sheet and name, case, to name, value and unit."""
     checklists: tuple[dict[str, Any], ...] = ()
     """Members' checklists it declares (see :mod:`calcpack.checks.checklists`)."""
+    verifications: tuple[dict[str, Any], ...] = ()
+    """The checker's independent checks of other sheets' results (see
+    :mod:`calcpack.working.verification`)."""
+    key_results: tuple[dict[str, Any], ...] = ()
+    """The results the sheet declares key (for the checker's coverage)."""
 
 
 def _payloads(nb: Any) -> list[dict[str, Any]]:
@@ -197,10 +202,14 @@ def collect_records(nb: Any) -> SheetRecords:
     exports: list[dict[str, Any]] = []
     imports: list[dict[str, Any]] = []
     checklists: list[dict[str, Any]] = []
+    verifications: list[dict[str, Any]] = []
+    key_results: list[dict[str, Any]] = []
     for payload in _payloads(nb):
         exports += [dict(e) for e in payload.get("exports", []) if isinstance(e, dict)]
         imports += [dict(i) for i in payload.get("imports", []) if isinstance(i, dict)]
         checklists += [dict(c) for c in payload.get("checklists", []) if isinstance(c, dict)]
+        verifications += [dict(v) for v in payload.get("verifications", []) if isinstance(v, dict)]
+        key_results += [dict(k) for k in payload.get("key_results", []) if isinstance(k, dict)]
         values += [
             Record.from_json(v).to_json() for v in payload.get("values", []) if isinstance(v, dict)
         ]
@@ -226,4 +235,6 @@ def collect_records(nb: Any) -> SheetRecords:
         tuple(exports),
         tuple(imports),
         tuple(checklists),
+        tuple(verifications),
+        tuple(key_results),
     )

@@ -29,7 +29,7 @@ from typing import Any
 
 from calcpack.contract.manifest import MANIFEST_NAME, Manifest, manifest_bytes
 from calcpack.errors import BuildError
-from calcpack.package import links, publish
+from calcpack.package import links, publish, verification
 from calcpack.package.bodies import convert_sheet, fill_bodies, prepare_in_worker
 from calcpack.package.document import (
     ROLES,
@@ -80,6 +80,8 @@ class BuildResult:
     seconds: float
     superseded: Path | None = None
     """Where the signed package this build replaced was moved (``superseded/``), if any."""
+    warnings: tuple[str, ...] = ()
+    """What the engineer should fix before signing (template placeholders left)."""
 
 
 def build_created(project: Project) -> _dt.datetime:
@@ -453,7 +455,9 @@ def build(
             executes and again before writing); nothing is written.
     """
     start = time.perf_counter()
+    timeout = publish.check_timeout(timeout)
     project = load_project(location)
+    warnings = publish.placeholder_warnings(project)
     if paper is not None and paper not in ("A4", "Letter"):
         raise BuildError(f"Paper size must be 'A4' or 'Letter' (got paper = {paper!r})")
     from calcpack import __version__
@@ -494,8 +498,10 @@ def build(
             (),
             True,
             time.perf_counter() - start,
+            warnings=warnings,
         )
-    if not supersede_signed:  # refuse at the door, before anything executes
+    publish.check_output_folder(out)  # refuse at the door, before anything executes
+    if not supersede_signed:
         publish.make_way(pdf_path, manifest_path, supersede=False)
 
     def on_sheet(stage: str, sheet: SheetEntry) -> None:
@@ -566,7 +572,15 @@ def build(
             else:
                 doc = docs_here.pop(item.entry.path)
             docs.append(doc)
-        options = replace(options, revisions=revisions.compare_with_issued(project, docs))
+        compared, opened = verification.check_stage(project, docs)  # the checker's checks
+        if opened:  # disagreements became open review comments
+            review, review_file = _load_review(project)
+        options = replace(
+            options,
+            revisions=revisions.compare_with_issued(project, docs),
+            review=review,
+            verifications=compared,
+        )
         layout = _lay_out(
             project,
             docs,
@@ -601,6 +615,7 @@ def build(
         links=tuple(
             link for doc in docs for link in links.link_records(doc.entry.path, doc.records.imports)
         ),
+        verifications=tuple(c.to_json() for c in compared),
         signature_fields=tuple(layout.signature_fields),
         sections={k: list(v) for k, v in layout.section_pages.items()},
         build={
@@ -652,6 +667,7 @@ def build(
         False,
         time.perf_counter() - start,
         moved,
+        warnings,
     )
 
 
