@@ -27,31 +27,62 @@ __all__ = [
 
 
 class CalcpackError(Exception):
-    """Root of every error raised by calcpack on purpose."""
+    """Root of every error raised by calcpack on purpose.
+
+    Errors with fields keep them as attributes, pass them to ``Exception`` as ``args`` (so an
+    error raised in a worker process is unpickled as it was raised) and write their message
+    from them in ``__str__``.
+    """
+
+
+def show_value(value: Any) -> str:
+    """A value as a message shows it: a quantity with its unit symbol, a string quoted."""
+    if hasattr(value, "units") and hasattr(value, "magnitude"):
+        return f"{value:~P}"
+    return repr(value) if isinstance(value, str) else str(value)
 
 
 class InputError(CalcpackError, ValueError):
     """A bad input value: names the input, the value given and what would be valid.
 
+    The message is written from the fields -- ``"Input L must be positive (got L = -3 m)"``
+    -- unless a whole ``message`` is given (for inputs whose rule reads better in its own
+    words).
+
     Args:
-        message: the full, human-readable message.
+        message: the full, human-readable message (optional: made from the fields if omitted).
         name: the name of the offending input (``"L"``, ``"t_w"``, ``"sheets[2]"``).
         value: the offending value as given (a quantity, number or string).
         expected: what would have been valid, in words.
+        rule: the rule broken, as it follows the input's name (``"must be positive"``).
+        note: a clause, source or hint added after the value (``"did you mean 'W18X50'?"``).
     """
 
     def __init__(
         self,
-        message: str,
+        message: str | None = None,
         *,
         name: str | None = None,
         value: Any = None,
         expected: str | None = None,
+        rule: str | None = None,
+        note: str | None = None,
     ) -> None:
-        super().__init__(message)
+        super().__init__(*(() if message is None else (message,)))
+        self.message = message
         self.name = name
         self.value = value
         self.expected = expected
+        self.rule = rule
+        self.note = note
+
+    def __str__(self) -> str:
+        if self.message is not None:
+            return self.message
+        name = self.name or "value"
+        rule = self.rule or (f"must be {self.expected}" if self.expected else "is not valid")
+        note = f"; {self.note}" if self.note else ""
+        return f"Input {name} {rule} (got {name} = {show_value(self.value)}){note}"
 
 
 class DimensionError(InputError):
@@ -73,13 +104,18 @@ class ZeroDivisorError(InputError, ZeroDivisionError):
 
     def __init__(self, name: str, formula: str, divisor: str) -> None:
         super().__init__(
-            f"{name} = {formula} divides by zero: {divisor} = 0; check the values it is made of",
-            name=divisor,
-            value=0,
-            expected=f"a non-zero divisor in {name} = {formula}",
+            name=divisor, value=0, expected=f"a non-zero divisor in {name} = {formula}"
         )
+        self.args = (name, formula, divisor)
+        self.derived = name
         self.formula = formula
         self.divisor = divisor
+
+    def __str__(self) -> str:
+        return (
+            f"{self.derived} = {self.formula} divides by zero: {self.divisor} = 0; "
+            "check the values it is made of"
+        )
 
 
 class UnstableStructureError(CalcpackError):
@@ -140,13 +176,17 @@ class NotebookExecutionError(BuildError):
     """
 
     def __init__(self, sheet: str, cell_index: int, source_excerpt: str, error: str) -> None:
-        super().__init__(
-            f"Sheet {sheet!r} failed in cell {cell_index} ({source_excerpt!r}): {error}"
-        )
+        super().__init__(sheet, cell_index, source_excerpt, error)
         self.sheet = sheet
         self.cell_index = cell_index
         self.source_excerpt = source_excerpt
         self.error = error
+
+    def __str__(self) -> str:
+        return (
+            f"Sheet {self.sheet!r} failed in cell {self.cell_index} "
+            f"({self.source_excerpt!r}): {self.error}"
+        )
 
 
 class SignedPackageError(BuildError):
@@ -161,15 +201,18 @@ class SignedPackageError(BuildError):
     def __init__(
         self, path: str, signers: tuple[tuple[str, str], ...], option: str = "--supersede-signed"
     ) -> None:
-        who = ", ".join(f"{name} ({role})" for role, name in signers) or "unknown signers"
-        super().__init__(
-            f"{path!r} is signed by {who}; a build never replaces a signed package. "
-            "Add a new revision to calcpack.toml for the changes, or build with "
-            f"{option} to move the signed package into the superseded/ folder beside it"
-        )
+        super().__init__(path, signers, option)
         self.path = path
         self.signers = signers
         self.option = option
+
+    def __str__(self) -> str:
+        who = ", ".join(f"{name} ({role})" for role, name in self.signers) or "unknown signers"
+        return (
+            f"{self.path!r} is signed by {who}; a build never replaces a signed package. "
+            "Add a new revision to calcpack.toml for the changes, or build with "
+            f"{self.option} to move the signed package into the superseded/ folder beside it"
+        )
 
 
 class SigningError(CalcpackError):

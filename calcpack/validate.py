@@ -22,7 +22,7 @@ from typing import Any, TypeVar
 
 import pint
 
-from calcpack.errors import InputError
+from calcpack.errors import InputError, show_value
 from calcpack.units import require
 
 __all__ = ["dimension", "finite", "lookup", "one_of", "positive", "suggest", "within"]
@@ -31,10 +31,7 @@ T = TypeVar("T")
 K = TypeVar("K")
 
 
-def _show(value: Any) -> str:
-    if isinstance(value, pint.Quantity):
-        return f"{value:~P}"
-    return repr(value) if isinstance(value, str) else str(value)
+_show = show_value
 
 
 def _magnitude(name: str, value: Any) -> float:
@@ -43,10 +40,7 @@ def _magnitude(name: str, value: Any) -> float:
         return float(raw)
     except (TypeError, ValueError):
         raise InputError(
-            f"Input {name} must be a number (got {name} = {_show(value)})",
-            name=name,
-            value=value,
-            expected="a number",
+            name=name, value=value, rule="must be a number", expected="a number"
         ) from None
 
 
@@ -59,10 +53,7 @@ def finite(name: str, value: T) -> T:
     """Require a finite number or quantity (not NaN, not infinite)."""
     if not math.isfinite(_magnitude(name, value)):
         raise InputError(
-            f"Input {name} must be a finite number (got {name} = {_show(value)})",
-            name=name,
-            value=value,
-            expected="a finite value",
+            name=name, value=value, rule="must be a finite number", expected="a finite value"
         )
     return value
 
@@ -75,9 +66,9 @@ def positive(name: str, value: T, *, allow_zero: bool = False) -> T:
     if not ok:
         rule = "must not be negative" if allow_zero else "must be positive"
         raise InputError(
-            f"Input {name} {rule} (got {name} = {_show(value)})",
             name=name,
             value=value,
+            rule=rule,
             expected="a value >= 0" if allow_zero else "a value > 0",
         )
     return value
@@ -112,13 +103,7 @@ def within(
         span = f"at least {lo_s}" if inclusive else f"more than {lo_s}"
     else:
         span = f"at most {hi_s}" if inclusive else f"less than {hi_s}"
-    why = f"; {rule}" if rule else ""
-    raise InputError(
-        f"Input {name} must be {span} (got {name} = {_show(value)}){why}",
-        name=name,
-        value=value,
-        expected=span,
-    )
+    raise InputError(name=name, value=value, rule=f"must be {span}", expected=span, note=rule)
 
 
 def suggest(key: str, options: Iterable[str]) -> list[str]:
@@ -134,17 +119,18 @@ def one_of(name: str, value: T, options: Iterable[T]) -> T:
     opts = list(options)
     if value in opts:
         return value
-    hint = ""
+    hint = None
     if isinstance(value, str):
         close = suggest(value, [str(o) for o in opts])
         if close:
-            hint = f"; did you mean {close[0]!r}?"
+            hint = f"did you mean {close[0]!r}?"
     listed = ", ".join(repr(o) for o in opts)
     raise InputError(
-        f"Input {name} must be one of {listed} (got {name} = {_show(value)}){hint}",
         name=name,
         value=value,
+        rule=f"must be one of {listed}",
         expected=f"one of {listed}",
+        note=hint,
     )
 
 

@@ -48,6 +48,9 @@ def main(argv: Sequence[str] | None = None) -> int:
     from calcpack.package.execute import skip_unused_slow_imports
 
     skip_unused_slow_imports()  # this process is the command's own
+    from calcpack.package.cache import one_line_warnings
+
+    one_line_warnings()
     parser = build_parser()
     args = parser.parse_args(argv)
     if not getattr(args, "func", None):

@@ -42,10 +42,14 @@ _FIELDS = (
     "files",
     "sheets",
     "links",
+    "verifications",
     "signature_fields",
     "sections",
     "build",
 )
+
+
+_LISTS = ("sheets", "files", "links", "verifications", "signature_fields")
 
 
 def is_manifest(data: Any) -> bool:
@@ -84,6 +88,8 @@ class Manifest:
         project: the project block (job, client, revision, people).
         files: ``{path, sha256, role}`` for every file the package depends on.
         links: values one sheet took from another.
+        verifications: the checker's independent checks, each compared with the preparer's
+            record (value, checker's value, difference, tolerance, agreed, method).
         signature_fields: ``{role, page, box}`` of each sign-off box on the cover.
         sections: section id -> page numbers.
         build: when, on which paper, how many pages, the build key.
@@ -100,6 +106,7 @@ class Manifest:
     project: Mapping[str, Any] | None = None
     files: tuple[Mapping[str, Any], ...] | None = None
     links: tuple[Mapping[str, Any], ...] | None = None
+    verifications: tuple[Mapping[str, Any], ...] | None = None
     signature_fields: tuple[Mapping[str, Any], ...] | None = None
     sections: Mapping[str, Sequence[int]] | None = None
     build: Mapping[str, Any] | None = None
@@ -144,7 +151,13 @@ class Manifest:
             if name not in data:
                 continue
             value = data[name]
-            if name in ("sheets", "files", "links", "signature_fields") and isinstance(value, list):
+            if name in (
+                "sheets",
+                "files",
+                "links",
+                "verifications",
+                "signature_fields",
+            ) and isinstance(value, list):
                 value = tuple(value)
             known[name] = value
         extra = {k: v for k, v in data.items() if k not in _FIELDS}

@@ -41,22 +41,32 @@ def reproduce_manifest(project: str | Path, *, workers: int = 2) -> dict[str, An
     """Re-execute every sheet (no cache) and return the manifest's ``sheets`` records afresh.
 
     The archive check: the result is comparable with a package's manifest (same keys for each
-    sheet: number, title, path, values, checks, assumptions, cautions; and the links between
-    sheets, each with the value it carried).
+    sheet: number, title, path, values, checks, assumptions, cautions; the links between
+    sheets, each with the value it carried; the checker's independent checks, compared again).
     """
     import nbformat
 
     from calcpack.contract.manifest import Manifest
+    from calcpack.package.document import SheetDoc
     from calcpack.package.links import link_records
     from calcpack.package.manifest import sheet_record
     from calcpack.package.pipeline import sheet_title
+    from calcpack.package.verification import compare_verifications
 
     loaded = load_project(project)
-    sheets = []
+    found = []
     links: list[dict[str, Any]] = []
     for item in execute_sheets(loaded, workers=workers, use_cache=False):
         nb = nbformat.reads(item.notebook_json, as_version=4)
         records = collect_records(nb)
-        sheets.append(sheet_record(item.entry, sheet_title(item.entry, nb), records))
+        title = sheet_title(item.entry, nb)
+        found.append(
+            (sheet_record(item.entry, title, records), SheetDoc(item.entry, title, "", records))
+        )
         links += link_records(item.entry.path, records.imports)
-    return Manifest(sheets=tuple(sheets), links=tuple(links)).to_json()
+    compared = compare_verifications(loaded, [doc for _, doc in found])
+    return Manifest(
+        sheets=tuple(s for s, _ in found),
+        links=tuple(links),
+        verifications=tuple(c.to_json() for c in compared),
+    ).to_json()

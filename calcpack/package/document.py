@@ -99,6 +99,9 @@ class DocumentOptions:
     """Only the sheets, no cover, front or back matter (one notebook through nbconvert)."""
     revisions: RevisionMarks = field(default_factory=RevisionMarks)
     """Sheets changed since the last issued revision, and the changes of each revision."""
+    verifications: tuple[Any, ...] = ()
+    """The checker's independent checks, compared (:class:`calcpack.package.verification
+    .Compared`)."""
 
 
 def format_sig(value: float | None, sig_figs: int = 3) -> str:
@@ -226,8 +229,9 @@ def _seal_box(project: Project) -> str:
     )
 
 
-def _cover(project: Project, sheets: Sequence[SheetDoc]) -> str:
+def _cover(project: Project, sheets: Sequence[SheetDoc], compared: Sequence[Any] = ()) -> str:
     from calcpack.package.summary import check_counts, counts_line
+    from calcpack.package.verification_html import verified_line
 
     rev = project.revision
     standards = "<br>".join(_e(s) for s in project.design.standards)
@@ -260,6 +264,7 @@ def _cover(project: Project, sheets: Sequence[SheetDoc]) -> str:
 <tr><th>Unit system</th><td>{_e(project.units)}</td></tr>
 <tr><th>Extent</th><td>{len(sheets)} sheets, <span class="totalpages"></span> pages</td></tr>
 <tr><th>Checks</th><td>{_e(counts_line(check_counts(sheets)))}</td></tr>
+<tr><th>Independent checks</th><td>{_e(verified_line(sheets, compared))}</td></tr>
 </table>
 <div class="cp-signoff"><div class="heading">Sign-off</div>
 <table><tr>{"".join(boxes)}{_seal_box(project)}</tr></table>
@@ -496,10 +501,12 @@ def document_html(
 ) -> str:
     """The whole package as one HTML document for WeasyPrint."""
     from calcpack.package.convert import package_css
+    from calcpack.package.verification_html import verification_html
 
     front = [("design-basis", "Design basis"), ("assumptions", "Assumptions and cautions")]
     back = [
         ("summary", "Summary of checks"),
+        ("verification", "Verification by the checker"),
         ("revisions", "Revision history"),
         ("review-log", "Review log"),
     ]
@@ -533,7 +540,7 @@ def document_html(
 
     if not options.sheets_only:
         out += [
-            _cover(project, sheets).replace("<!--strings-->", strings),
+            _cover(project, sheets, options.verifications).replace("<!--strings-->", strings),
             '<section class="cp-section cp-front" id="contents">',
             _toc(project, sheets, back, front, options.revisions.changed),
             "</section>",
@@ -568,6 +575,10 @@ def document_html(
     out += [
         '<section class="cp-section cp-back" id="summary">',
         _summary(project, sheets),
+        "</section>",
+        '<section class="cp-section cp-back" id="verification">',
+        _titleblock(project, sheet_no="—", title="Verification by the checker", pages=None),
+        verification_html(sheets, options.verifications),
         "</section>",
         '<section class="cp-section cp-back" id="revisions">',
         _revisions(project, options.revisions),

@@ -9,9 +9,10 @@ ports.
 Workers are processes started with the *spawn* method: forking a process that already holds
 running kernels can deadlock on the inherited ZMQ state; spawning cannot.
 
-The cache key of a sheet is the SHA-256 of the calcpack version, the notebook's bytes, the bytes
-of its inputs files and the project-wide inputs, and the project file's bytes: an unchanged
-sheet is read back from ``.calcpack-cache/`` in the project folder instead of being executed.
+The cache key of a sheet covers only what can change its results (see
+:mod:`calcpack.package.sheetkey`, plus the values it imports): an unchanged sheet is read back
+from ``.calcpack-cache/`` in the project folder instead of being executed, after the entry's
+checks (:mod:`calcpack.package.cache`).
 """
 
 from __future__ import annotations
@@ -34,8 +35,8 @@ from pathlib import Path
 from typing import Any
 
 from calcpack.errors import BuildError, NotebookExecutionError
-from calcpack.fileio import write_atomically
 from calcpack.package.project import Project, SheetEntry
+from calcpack.package.sheetkey import sheet_cache_key
 
 __all__ = [
     "CACHE_DIR_NAME",
@@ -67,34 +68,6 @@ class ExecutedSheet:
     from_cache: bool
     seconds: float
     """Wall time spent executing (0 when read from the cache)."""
-
-
-def _calcpack_version() -> str:
-    from calcpack import __version__
-
-    return __version__
-
-
-def sheet_cache_key(project: Project, sheet: SheetEntry) -> str:
-    """Hex SHA-256 identifying one sheet's execution: what it runs and everything it reads."""
-    digest = hashlib.sha256()
-
-    def feed(label: str, data: bytes) -> None:
-        digest.update(label.encode() + b"\0" + str(len(data)).encode() + b"\0" + data)
-
-    feed("calcpack", _calcpack_version().encode())
-    from calcpack.package.publish import project_basis
-
-    feed("project", project_basis(project))  # not the issued flag: it changes no result
-    feed("notebook", project.sheet_path(sheet).read_bytes())
-    for name in (*sheet.inputs, *project.inputs):
-        feed("input:" + name, (project.root / name).read_bytes())
-    from calcpack.checks.checklists import CHECKLIST_FILE
-
-    own = project.root / CHECKLIST_FILE  # a firm's own checklists, read by Sheet.checklist
-    if own.is_file():
-        feed("checklists", own.read_bytes())
-    return digest.hexdigest()
 
 
 def _kernel_env(exports: str | None = None, sheet: str | None = None) -> dict[str, str]:
@@ -252,18 +225,45 @@ _QUIET_LOG.setLevel(logging.ERROR)
 _QUIET_LOG.propagate = False
 
 
+_CACHE_SUFFIX = ".executed"
+"""Executed notebooks in the cache: sealed entries (:mod:`calcpack.package.cache`), not bare
+``.ipynb`` files, so that an edited or damaged one is discarded rather than used."""
+
+
 def _cache_file(cache_dir: Path, sheet: SheetEntry, key: str) -> Path:
     slug = re.sub(r"[^A-Za-z0-9]+", "_", sheet.path).strip("_")
-    return cache_dir / f"{slug}-{key[:32]}.ipynb"
+    return cache_dir / f"{slug}-{key[:32]}{_CACHE_SUFFIX}"
 
 
 def _store(cache_dir: Path, sheet: SheetEntry, key: str, notebook_json: str) -> None:
+    from calcpack.package.cache import write_entry
+
     target = _cache_file(cache_dir, sheet, key)
-    write_atomically(target, notebook_json)
+    write_entry(target, key, notebook_json.encode("utf-8"))
     prefix = target.name.rsplit("-", 1)[0] + "-"
-    for old in cache_dir.glob(prefix + "*.ipynb"):
+    for old in cache_dir.glob(prefix + "*"):
         if old != target and len(old.name) == len(target.name):
             old.unlink(missing_ok=True)
+    for older in cache_dir.glob(prefix + "*.ipynb"):  # bare notebooks of earlier versions
+        older.unlink(missing_ok=True)
+
+
+def _cached(cache_dir: Path, sheet: SheetEntry, key: str) -> str | None:
+    """The executed notebook stored for ``key``, if there is one and it passes its checks (a
+    sealed entry that is valid JSON); a failing one is discarded with a warning."""
+    from calcpack.package.cache import discard, read_entry
+
+    path = _cache_file(cache_dir, sheet, key)
+    content = read_entry(path, key, what=f"executed notebook of sheet {sheet.path!r}")
+    if content is None:
+        return None
+    try:
+        text = content.decode("utf-8")
+        json.loads(text)
+    except ValueError as exc:
+        discard(path, f"executed notebook of sheet {sheet.path!r}", f"not a notebook ({exc})")
+        return None
+    return text
 
 
 _UNUSED_SLOW_IMPORTS = ("rfc3987_syntax",)
@@ -286,8 +286,16 @@ def process_pool(workers: int) -> concurrent.futures.ProcessPoolExecutor:
     return concurrent.futures.ProcessPoolExecutor(
         max_workers=workers,
         mp_context=multiprocessing.get_context("spawn"),
-        initializer=skip_unused_slow_imports,
+        initializer=_worker_setup,
     )
+
+
+def _worker_setup() -> None:
+    """A worker process: skip slow unused imports; cache warnings on one line."""
+    from calcpack.package.cache import one_line_warnings
+
+    skip_unused_slow_imports()
+    one_line_warnings()
 
 
 @contextlib.contextmanager
@@ -398,9 +406,8 @@ def execute_sheets(
                         continue
                     waiting.remove(sheet)
                     key = key_of(sheet)
-                    cached = _cache_file(cache, sheet, key)
-                    if use_cache and cached.is_file():
-                        text = cached.read_text(encoding="utf-8")
+                    text = _cached(cache, sheet, key) if use_cache else None
+                    if text is not None:
                         available(ExecutedSheet(sheet, text, key, True, 0.0))
                         changed = True
                     else:

@@ -25,6 +25,7 @@ __all__ = [
     "MANIFEST_FORMAT",
     "Manifest",
     "dependency_versions",
+    "embedded_manifest_bytes",
     "manifest_bytes",
     "project_files",
     "read_manifest",
@@ -105,6 +106,21 @@ def sheet_record(
         "assumptions": list(records.assumptions),
         "cautions": list(records.cautions),
     }
+
+
+def embedded_manifest_bytes(pdf: Path) -> bytes | None:
+    """The manifest attached to the PDF at ``pdf``, as stored (None if the file is missing, not
+    a PDF or has no calcpack manifest)."""
+    import io
+
+    from pypdf import PdfReader
+
+    try:
+        reader = PdfReader(io.BytesIO(pdf.read_bytes()))
+        raw = reader.attachments.get(MANIFEST_ATTACHMENT_NAME)
+    except Exception:  # pypdf raises many kinds on a damaged file: it is simply not current
+        return None
+    return bytes(raw[0]) if raw else None
 
 
 def read_manifest(pdf: bytes | Path) -> dict[str, Any]:

@@ -35,7 +35,6 @@ from pathlib import Path
 from typing import Any
 
 from calcpack.errors import BuildError
-from calcpack.fileio import write_atomically
 from calcpack.package.mathbreak import break_display, flatten_delimiters
 
 __all__ = [
@@ -146,17 +145,25 @@ _breaks: dict[tuple[str, float], str] = {}
 """Display formulas too wide for the column: (TeX, width px) -> the TeX broken over lines."""
 
 
-_CACHE_FORMAT = "calcpack-math-cache/2"  # 2: signs after brackets set tight
+_CACHE_FORMAT = "calcpack-math-cache/3"  # 2: signs after brackets set tight; 3: sealed
 
 
 def load_math_cache(path: Path) -> int:
     """Read typeset formulas saved by an earlier build into the in-memory cache; returns count.
 
-    A missing or unreadable file is ignored (the formulas are typeset again).
+    The file is a sealed cache entry (:mod:`calcpack.package.cache`): a missing one is a miss;
+    one that fails its check (an edited or swapped image, a truncated file) is discarded with
+    a warning and every formula is typeset again.
     """
+    from calcpack.package.cache import discard, read_entry
+
+    content = read_entry(path, _CACHE_FORMAT, what="formula images")
+    if content is None:
+        return 0
     try:
-        data = json.loads(path.read_text("utf-8"))
-    except (OSError, ValueError):
+        data = json.loads(content)
+    except ValueError as exc:
+        discard(path, "formula images", f"not readable ({exc})")
         return 0
     if not isinstance(data, dict) or data.get("format") != _CACHE_FORMAT:
         return 0
@@ -230,7 +237,9 @@ def save_math_cache(path: Path, used: set[tuple[str, bool, float]] | None = None
     items = cache_entries(used)
     breaks = break_entries(used)
     data = {"format": _CACHE_FORMAT, "formulas": items, "breaks": breaks}
-    write_atomically(path, json.dumps(data))
+    from calcpack.package.cache import write_entry
+
+    write_entry(path, _CACHE_FORMAT, json.dumps(data).encode("utf-8"))
 
 
 used_keys: set[tuple[str, bool, float]] = set()

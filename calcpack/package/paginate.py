@@ -416,16 +416,32 @@ class ChunkStore:
         return digest.hexdigest()
 
     def get(self, key: str) -> _Chunk | None:
+        """The chunk kept under ``key``, if both its files pass their checks (see
+        :mod:`calcpack.package.cache`); a failing one is discarded with a warning."""
+        from calcpack.package.cache import discard, read_entry
+
+        what = "layout chunk"
+        meta_file, pdf_file = self.folder / f"{key}.json", self.folder / f"{key}.pdf"
+        if not (meta_file.exists() or pdf_file.exists()):
+            return None
+        raw = read_entry(meta_file, f"{key}.json", what=what)
+        pdf = read_entry(pdf_file, f"{key}.pdf", what=what)
+        if raw is None or pdf is None:
+            for path in (meta_file, pdf_file):
+                if path.exists():
+                    discard(path, what, "the other file of its chunk is missing or failed")
+            return None
         try:
-            meta = json.loads((self.folder / f"{key}.json").read_text("utf-8"))
-            pdf = (self.folder / f"{key}.pdf").read_bytes()
+            meta = json.loads(raw)
             sections = {k: (int(a), int(b)) for k, (a, b) in meta["sections"].items()}
             links = tuple(
                 _Link(int(page), (float(x1), float(y1), float(x2), float(y2)), str(target))
                 for page, (x1, y1, x2, y2), target in meta["links"]
             )
             chunk = _Chunk(sections, int(meta["page_count"]), links, pdf, True)
-        except (OSError, ValueError, KeyError, TypeError):
+        except (ValueError, KeyError, TypeError) as exc:
+            for path in (meta_file, pdf_file):
+                discard(path, what, f"its description cannot be read ({exc})")
             return None
         self.used.add(key)
         return chunk
@@ -433,16 +449,15 @@ class ChunkStore:
     def put(self, key: str, chunk: _Chunk) -> None:
         if chunk.pdf is None:
             return
-        from calcpack.fileio import write_atomically
+        from calcpack.package.cache import write_entry
 
-        self.folder.mkdir(parents=True, exist_ok=True)
         meta = {
             "sections": {k: list(v) for k, v in chunk.sections.items()},
             "page_count": chunk.page_count,
             "links": [[link.page, list(link.rect), link.target] for link in chunk.links],
         }
-        write_atomically(self.folder / f"{key}.pdf", chunk.pdf)
-        write_atomically(self.folder / f"{key}.json", json.dumps(meta))
+        write_entry(self.folder / f"{key}.pdf", f"{key}.pdf", chunk.pdf)
+        write_entry(self.folder / f"{key}.json", f"{key}.json", json.dumps(meta).encode())
         self.used.add(key)
 
     def prune(self) -> None:
@@ -452,7 +467,7 @@ class ChunkStore:
                 path.unlink(missing_ok=True)
 
 
-_LAYOUT_FORMAT = "calcpack-chunk/1"
+_LAYOUT_FORMAT = "calcpack-chunk/2"  # 2: sealed entries (calcpack.package.cache)
 
 
 # --------------------------------------------------------------------------- the passes

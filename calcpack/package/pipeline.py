@@ -29,7 +29,7 @@ from typing import Any
 
 from calcpack.contract.manifest import MANIFEST_NAME, Manifest, manifest_bytes
 from calcpack.errors import BuildError
-from calcpack.package import links, publish
+from calcpack.package import links, publish, verification
 from calcpack.package.bodies import convert_sheet, fill_bodies, prepare_in_worker
 from calcpack.package.document import (
     ROLES,
@@ -80,6 +80,8 @@ class BuildResult:
     seconds: float
     superseded: Path | None = None
     """Where the signed package this build replaced was moved (``superseded/``), if any."""
+    warnings: tuple[str, ...] = ()
+    """What the engineer should fix before signing (template placeholders left)."""
 
 
 def build_created(project: Project) -> _dt.datetime:
@@ -258,6 +260,38 @@ def _previous_manifest(path: Path) -> dict[str, Any]:
     return data if isinstance(data, dict) else {}
 
 
+def _pair_intact(pdf_path: Path, manifest_path: Path) -> bool:
+    """Whether the PDF carries, as its attachment, the very manifest beside it.
+
+    The two files are replaced one after the other; a build stopped between the two (or a file
+    replaced by hand) leaves a pair that disagrees. Such a package is not up to date: it is
+    built again (with a warning), never reported as current.
+    """
+    from calcpack.package.manifest import embedded_manifest_bytes
+
+    if not pdf_path.is_file():
+        return False
+    try:
+        beside = manifest_path.read_bytes()
+    except OSError:
+        return False
+    if embedded_manifest_bytes(pdf_path) == beside:
+        return True
+    import warnings
+
+    from calcpack.package.cache import CacheWarning
+
+    warnings.warn(
+        CacheWarning(
+            f"Package {pdf_path.name} does not carry the manifest beside it "
+            f"({manifest_path.name}): an earlier build was interrupted or a file was replaced; "
+            "building it again"
+        ),
+        stacklevel=3,
+    )
+    return False
+
+
 def _same_paper(previous: dict[str, Any], options: DocumentOptions) -> dict[str, Any]:
     """The previous build's manifest if it was on the same paper ({} otherwise): page counts
     carry over only then."""
@@ -421,7 +455,9 @@ def build(
             executes and again before writing); nothing is written.
     """
     start = time.perf_counter()
+    timeout = publish.check_timeout(timeout)
     project = load_project(location)
+    warnings = publish.placeholder_warnings(project)
     if paper is not None and paper not in ("A4", "Letter"):
         raise BuildError(f"Paper size must be 'A4' or 'Letter' (got paper = {paper!r})")
     from calcpack import __version__
@@ -448,7 +484,9 @@ def build(
     code_hash = _package_code_hash()
     build_key = _build_key(project, keys, options, review_file, created, code_hash)
     previous = _previous_manifest(manifest_path)
-    current = pdf_path.is_file() and previous.get("build", {}).get("build_key") == build_key
+    current = previous.get("build", {}).get("build_key") == build_key and _pair_intact(
+        pdf_path, manifest_path
+    )
     if current and (not force or publish.signatures_in(pdf_path)):
         revisions.keep_issued(project, manifest_path)
         return BuildResult(
@@ -460,8 +498,10 @@ def build(
             (),
             True,
             time.perf_counter() - start,
+            warnings=warnings,
         )
-    if not supersede_signed:  # refuse at the door, before anything executes
+    publish.check_output_folder(out)  # refuse at the door, before anything executes
+    if not supersede_signed:
         publish.make_way(pdf_path, manifest_path, supersede=False)
 
     def on_sheet(stage: str, sheet: SheetEntry) -> None:
@@ -471,7 +511,7 @@ def build(
     from calcpack.package.execute import CACHE_DIR_NAME
     from calcpack.package.mathsvg import load_math_cache, save_math_cache, used_keys
 
-    math_cache = project.root / CACHE_DIR_NAME / "math.json"
+    math_cache = project.root / CACHE_DIR_NAME / "formulas.entry"
     # Chunks of the layout kept between builds: a rebuild lays out only the changed ones.
     store = ChunkStore(project.root / CACHE_DIR_NAME / "layout", code_hash) if use_cache else None
     if use_cache:
@@ -532,7 +572,15 @@ def build(
             else:
                 doc = docs_here.pop(item.entry.path)
             docs.append(doc)
-        options = replace(options, revisions=revisions.compare_with_issued(project, docs))
+        compared, opened = verification.check_stage(project, docs)  # the checker's checks
+        if opened:  # disagreements became open review comments
+            review, review_file = _load_review(project)
+        options = replace(
+            options,
+            revisions=revisions.compare_with_issued(project, docs),
+            review=review,
+            verifications=compared,
+        )
         layout = _lay_out(
             project,
             docs,
@@ -567,6 +615,7 @@ def build(
         links=tuple(
             link for doc in docs for link in links.link_records(doc.entry.path, doc.records.imports)
         ),
+        verifications=tuple(c.to_json() for c in compared),
         signature_fields=tuple(layout.signature_fields),
         sections={k: list(v) for k, v in layout.section_pages.items()},
         build={
@@ -618,6 +667,7 @@ def build(
         False,
         time.perf_counter() - start,
         moved,
+        warnings,
     )
 
 

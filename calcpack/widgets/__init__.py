@@ -13,13 +13,17 @@ from typing import Any
 
 __all__ = [
     "BeamPanel",
+    "FootingPanel",
     "InputsPanel",
     "MemberPanel",
     "SectionPanel",
+    "SiteLoadsPanel",
     "beam_panel",
+    "footing_panel",
     "member_panel",
     "preview",
     "section_panel",
+    "site_loads_panel",
 ]
 
 _WHERE = {
@@ -31,6 +35,10 @@ _WHERE = {
     "InputsPanel": "calcpack.widgets.panel",
     "MemberPanel": "calcpack.widgets.member",
     "member_panel": "calcpack.widgets.member",
+    "FootingPanel": "calcpack.widgets.footing",
+    "footing_panel": "calcpack.widgets.footing",
+    "SiteLoadsPanel": "calcpack.widgets.site_loads",
+    "site_loads_panel": "calcpack.widgets.site_loads",
 }
 
 

@@ -22,67 +22,9 @@ from calcpack.inputs.member import (
     member_inputs,
 )
 from calcpack.sizing import SizingResult
-from calcpack.widgets.panel import InputsPanel
+from calcpack.widgets.panel import InputsPanel, checks_outputs, utilisation_bars_svg
 
 __all__ = ["MemberPanel", "member_panel", "sizing_table_html", "utilisation_bars_svg"]
-
-BAR_W = 420
-ROW_H = 22
-
-
-def utilisation_bars_svg(rows: list[tuple[str, float, str]]) -> str:
-    """Horizontal bars, one per check: (label, utilisation, verdict), the 1.00 line drawn.
-
-    The bar's length is the utilisation (to 1.5, longer bars end in an arrow); the verdict is
-    written in words beside the number, so the drawing reads the same in black and white.
-    """
-    left, right = 150, 110
-    span = BAR_W - left - right
-    h = ROW_H * len(rows) + 24
-    x1 = left + span / 1.5
-    parts = [
-        f'<svg xmlns="http://www.w3.org/2000/svg" class="cp-diagram cp-bars" width="{BAR_W}" '
-        f'height="{h}" viewBox="0 0 {BAR_W} {h}" font-family="DejaVu Sans, sans-serif" '
-        'font-size="11">',
-        f'<line x1="{x1:.1f}" y1="4" x2="{x1:.1f}" y2="{h - 14}" stroke="#222" '
-        'stroke-dasharray="3 2"/>',
-        f'<text x="{x1:.1f}" y="{h - 3}" text-anchor="middle">1.00</text>',
-    ]
-    for i, (name, u, verdict) in enumerate(rows):
-        y = 6 + i * ROW_H
-        w = span * min(u, 1.5) / 1.5
-        fill = "#9aa7b5" if u <= 1.0 else "#3b3b3b"
-        parts.append(
-            f'<text x="{left - 6}" y="{y + 12}" text-anchor="end">{escape(name)}</text>'
-            f'<rect class="cp-bar" data-u="{u!r}" x="{left}" y="{y}" width="{w:.1f}" height="14" '
-            f'fill="{fill}"/>'
-            f'<text x="{left + span + 6}" y="{y + 12}">{u:.2f} {escape(verdict)}</text>'
-        )
-    parts.append("</svg>")
-    return "".join(parts)
-
-
-def _results_html(outcome: MemberOutcome) -> str:
-    rows = []
-    for mc in outcome.checks:
-        for r in mc.results:
-            shown = "—" if r.utilisation is None else f"{r.utilisation:.3f}"
-            rows.append(
-                f"<tr><td>{escape(r.combination or '')}</td><td>{escape(r.name)}</td>"
-                f'<td class="cp-out" data-out="{escape(r.name)}|{escape(r.combination or "")}" '
-                f'data-value="{r.utilisation!r}">{shown}</td><td>{escape(r.verdict)}</td>'
-                f"<td>{escape(r.clause)}</td></tr>"
-            )
-    u, name, clause, combo = outcome.governing
-    head = (
-        f'<p class="cp-governing" data-value="{u!r}">Governing: {escape(name)}, {u:.3f} '
-        f"({escape(clause)}; {escape(combo)})</p>"
-    )
-    return (
-        head + '<table class="cp-panel-results" style="border-collapse:collapse;font-size:12px">'
-        "<tr><th>Combination</th><th>Check</th><th>Utilisation</th><th>Verdict</th>"
-        "<th>Clause</th></tr>" + "".join(rows) + "</table>"
-    )
 
 
 def sizing_table_html(found: SizingResult) -> str:
@@ -147,13 +89,7 @@ class MemberPanel(InputsPanel):
         return evaluate_member(member_inputs(data, path=self.path))
 
     def render(self, outcome: MemberOutcome) -> dict[str, str]:
-        worst: dict[str, tuple[float, str]] = {}
-        for mc in outcome.checks:
-            for r in mc.results:
-                if r.utilisation is not None and r.utilisation > worst.get(r.name, (-1.0, ""))[0]:
-                    worst[r.name] = (float(r.utilisation), r.verdict)
-        bars = [(name, u, v) for name, (u, v) in worst.items()]
-        return {"bars": utilisation_bars_svg(bars), "results": _results_html(outcome)}
+        return checks_outputs(outcome.checks)
 
     # -- the search --------------------------------------------------------------------------
     def extra(self) -> list[ipw.Widget]:

@@ -26,6 +26,7 @@ from typing import Any, ClassVar
 
 import ipywidgets as ipw
 
+from calcpack.checks.base import MemberChecks
 from calcpack.errors import CalcpackError
 from calcpack.inputs import load_inputs, update_inputs
 from calcpack.inputs.file import get_path, split_key
@@ -40,7 +41,14 @@ from calcpack.widgets.fields import (
 )
 from calcpack.widgets.rerun import RerunControl
 
-__all__ = ["InputsPanel", "set_key"]
+__all__ = [
+    "InputsPanel",
+    "checks_outputs",
+    "checks_table_html",
+    "governing",
+    "set_key",
+    "utilisation_bars_svg",
+]
 
 
 def set_key(data: dict[str, Any], key: str, value: Any) -> None:
@@ -60,6 +68,88 @@ def set_key(data: dict[str, Any], key: str, value: Any) -> None:
         node.append(value)
     else:
         node[last] = value
+
+
+BAR_W = 420
+ROW_H = 22
+
+
+def utilisation_bars_svg(rows: list[tuple[str, float, str]]) -> str:
+    """Horizontal bars, one per check: (label, utilisation, verdict), the 1.00 line drawn.
+
+    The bar's length is the utilisation (to 1.5, longer bars end in an arrow); the verdict is
+    written in words beside the number, so the drawing reads the same in black and white.
+    """
+    left, right = 150, 110
+    span = BAR_W - left - right
+    h = ROW_H * len(rows) + 24
+    x1 = left + span / 1.5
+    parts = [
+        f'<svg xmlns="http://www.w3.org/2000/svg" class="cp-diagram cp-bars" width="{BAR_W}" '
+        f'height="{h}" viewBox="0 0 {BAR_W} {h}" font-family="DejaVu Sans, sans-serif" '
+        'font-size="11">',
+        f'<line x1="{x1:.1f}" y1="4" x2="{x1:.1f}" y2="{h - 14}" stroke="#222" '
+        'stroke-dasharray="3 2"/>',
+        f'<text x="{x1:.1f}" y="{h - 3}" text-anchor="middle">1.00</text>',
+    ]
+    for i, (name, u, verdict) in enumerate(rows):
+        y = 6 + i * ROW_H
+        w = span * min(u, 1.5) / 1.5
+        fill = "#9aa7b5" if u <= 1.0 else "#3b3b3b"
+        parts.append(
+            f'<text x="{left - 6}" y="{y + 12}" text-anchor="end">{escape(name)}</text>'
+            f'<rect class="cp-bar" data-u="{u!r}" x="{left}" y="{y}" width="{w:.1f}" height="14" '
+            f'fill="{fill}"/>'
+            f'<text x="{left + span + 6}" y="{y + 12}">{u:.2f} {escape(verdict)}</text>'
+        )
+    parts.append("</svg>")
+    return "".join(parts)
+
+
+def checks_table_html(checks: Sequence[MemberChecks]) -> str:
+    """Every check of ``checks`` as a table (utilisations carry ``data-value``), headed by the
+    governing one."""
+    rows = []
+    for mc in checks:
+        for r in mc.results:
+            shown = "—" if r.utilisation is None else f"{r.utilisation:.3f}"
+            rows.append(
+                f"<tr><td>{escape(r.combination or '')}</td><td>{escape(r.name)}</td>"
+                f'<td class="cp-out" data-out="{escape(r.name)}|{escape(r.combination or "")}" '
+                f'data-value="{r.utilisation!r}">{shown}</td><td>{escape(r.verdict)}</td>'
+                f"<td>{escape(r.clause)}</td></tr>"
+            )
+    u, name, clause, combo = governing(checks)
+    head = (
+        f'<p class="cp-governing" data-value="{u!r}">Governing: {escape(name)}, {u:.3f} '
+        f"({escape(clause)}; {escape(combo)})</p>"
+    )
+    return (
+        head + '<table class="cp-panel-results" style="border-collapse:collapse;font-size:12px">'
+        "<tr><th>Combination</th><th>Check</th><th>Utilisation</th><th>Verdict</th>"
+        "<th>Clause</th></tr>" + "".join(rows) + "</table>"
+    )
+
+
+def governing(checks: Sequence[MemberChecks]) -> tuple[float, str, str, str]:
+    """(utilisation, check, clause, combination) of the largest utilisation of ``checks``."""
+    best = (-1.0, "", "", "")
+    for mc in checks:
+        for r in mc.results:
+            if r.utilisation is not None and r.utilisation > best[0]:
+                best = (float(r.utilisation), r.name, r.clause, r.combination or "")
+    return best
+
+
+def checks_outputs(checks: Sequence[MemberChecks]) -> dict[str, str]:
+    """The "bars" (largest utilisation of each check) and "results" (every check) outputs."""
+    worst: dict[str, tuple[float, str]] = {}
+    for mc in checks:
+        for r in mc.results:
+            if r.utilisation is not None and r.utilisation > worst.get(r.name, (-1.0, ""))[0]:
+                worst[r.name] = (float(r.utilisation), r.verdict)
+    bars = [(name, u, v) for name, (u, v) in worst.items()]
+    return {"bars": utilisation_bars_svg(bars), "results": checks_table_html(checks)}
 
 
 class _Field:

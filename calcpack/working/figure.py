@@ -27,7 +27,9 @@ FIGURE_DRAWINGS: dict[str, str] = {
     "beam-combinations": "calcpack.plots.beam_combinations:combinations_svg",
     "beam": "calcpack.plots.beam:beam_svg",
     "footing": "calcpack.plots.footing:footing_svg",
+    "roof-loads": "calcpack.plots.roof_loads:roof_loads_svg",
     "truss": "calcpack.plots.truss:truss_svg",
+    "joint": "calcpack.plots.joint:joint_svg",
 }
 
 _REGISTERED: dict[str, Callable[..., str]] = {}

@@ -306,3 +306,64 @@ class SheetLinks:
         step = Checklist(declared.to_json(), checks, settings=self.settings)
         self.add(step)
         return step
+
+    # -- the checker's independent checks ----------------------------------------------
+    def verify(
+        self,
+        sheet: str,
+        name: str,
+        value: Value | pint.Quantity | float,
+        *,
+        tolerance: Any,
+        method: str,
+        member: str | None = None,
+        case: str | None = None,
+    ) -> Any:
+        """Declare the checker's own value of a preparer's result, to be compared in the build.
+
+        Args:
+            sheet: the preparer's sheet (notebook name, as for :meth:`import_value`).
+            name: the result's name there (a recorded or exported value; with ``member``, a
+                check's name, whose utilisation ``value`` then is).
+            value: the checker's value, computed by other means on this sheet.
+            tolerance: the agreement the checker asks for, as a fraction (``0.05``) or a
+                percentage (``5 * ureg.percent``); the relative difference must not exceed it.
+            method: how the checker got the value (``"beam table, AISC Manual Table 3-23"``).
+            member: for a check, the member it is on (``"B1"``).
+            case: for a value exported per load case.
+
+        Raises:
+            InputError: the sheet is not in the project; a bad tolerance or no method; or this
+                sheet imports the very value it checks (an independent check may not read it).
+        """
+        from calcpack.errors import InputError
+        from calcpack.working.links import resolve_sheet
+        from calcpack.working.verification import Verification, verification_entry
+
+        ref = resolve_sheet(sheet)
+        for step in self._names.values():
+            if not isinstance(step, Imported) or step.link_record["from_sheet"] != ref.path:
+                continue
+            if step.link_record["from_name"] == name and step.link_record.get("case") == case:
+                raise InputError(
+                    f"An independent check may not read the value it checks: this sheet "
+                    f"imports {name} from sheet {ref.number} (as {step.name}); compute it here "
+                    "by other means",
+                    name=name,
+                    value=f"{ref.name}: {name}",
+                    expected="a value computed on the checker's sheet",
+                )
+        if isinstance(value, Imported):
+            raise InputError(
+                f"An independent check may not read the value it checks: {value.name} is "
+                f"imported from {value.source}",
+                name=name,
+                value=value.name,
+                expected="a value computed on the checker's sheet",
+            )
+        entry = verification_entry(
+            ref, name, value, tolerance=tolerance, method=method, member=member, case=case
+        )
+        shown = Verification(entry, settings=self.settings)
+        self.add(shown)
+        return shown

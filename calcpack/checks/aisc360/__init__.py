@@ -16,7 +16,22 @@ stresses. Moments are magnitudes (sagging or hogging: a doubly symmetric section
 either way). Provisions should be confirmed against the edition adopted locally.
 """
 
-from calcpack.checks.aisc360.beam import check_aisc_beam
+from calcpack.checks.aisc360.beam import (
+    BeamCase,
+    CombinedDemand,
+    DirectDemand,
+    check_aisc_beam,
+    check_beam_case,
+)
 from calcpack.checks.aisc360.shape import AISC360_EDITION, E_STEEL, IShape
 
-__all__ = ["AISC360_EDITION", "E_STEEL", "IShape", "check_aisc_beam"]
+__all__ = [
+    "AISC360_EDITION",
+    "E_STEEL",
+    "BeamCase",
+    "CombinedDemand",
+    "DirectDemand",
+    "IShape",
+    "check_aisc_beam",
+    "check_beam_case",
+]

@@ -34,6 +34,7 @@ from calcpack.validate import lookup, one_of, within
 
 __all__ = [
     "DowelJoint",
+    "Embedment",
     "Fastener",
     "FastenerKind",
     "SteelPlate",
@@ -224,7 +225,31 @@ class SteelPlate:
         return f"steel plate {self.grade}"
 
 
-Member = WoodMember | SteelPlate
+@dataclass(frozen=True)
+class Embedment:
+    """A bolt embedded in concrete or grouted masonry as the main member (a ledger or sill
+    bolted to a wall). The wood side follows Table 12.3.1A with the dowel bearing strength of
+    the concrete or masonry; the anchorage itself (breakout, pullout) is not covered here.
+
+    Args:
+        thickness: embedment length ℓ_m of the bolt. Fe: dowel bearing strength (7 500 psi
+            as in the NDS wood-to-concrete bolt table, from memory). material: its name.
+    """
+
+    thickness: Quantity
+    Fe: Quantity = field(default_factory=lambda: Q_(7500.0, "psi"))
+    material: str = "concrete or grouted masonry"
+
+    def __post_init__(self) -> None:
+        require(self.thickness, "[length]", "thickness", positive=True)
+        require(self.Fe, "[pressure]", "Fe", positive=True)
+
+    @property
+    def label(self) -> str:
+        return self.material
+
+
+Member = WoodMember | SteelPlate | Embedment
 
 
 @dataclass(frozen=True)
@@ -250,6 +275,19 @@ class DowelJoint:
     def __post_init__(self) -> None:
         one_of("shear", self.shear, ("single", "double"))
         f = self.fastener
+        if isinstance(self.side, Embedment):
+            raise InputError(
+                "Input side: concrete or masonry is the main member, into which the bolt is "
+                "embedded (got an Embedment as the side member)",
+                name="side",
+                value=self.side,
+                expected="a WoodMember or SteelPlate",
+            )
+        if isinstance(self.main, Embedment) and f.kind != "bolt":
+            raise OutOfScopeError(
+                f"A {f.kind} into concrete or masonry: only embedded bolts (anchor bolts) are "
+                "covered here; use the screw-anchor manufacturer's evaluation report"
+            )
         if isinstance(self.side, WoodMember) and self.side.end_grain:
             raise InputError(
                 "Side member: end grain applies to the main member, into which the fastener is "
@@ -333,7 +371,7 @@ class DowelJoint:
     def theta_max(self) -> Quantity:
         """The largest load angle to grain of the wood members (for K_θ)."""
         angs = [m.angle for m in (self.side, self.main) if isinstance(m, WoodMember)]
-        return max(angs, key=lambda a: float(a.to("degree").magnitude))
+        return max(angs, key=lambda a: float(a.to("degree").magnitude), default=Q_(0.0, "degree"))
 
 
 @dataclass(frozen=True)
@@ -354,6 +392,11 @@ class YieldLimits:
 def _bearing(c: Recorder, tag: str, m: Member, D: Any, j: DowelJoint) -> Any:
     """F_e of member ``m`` (tag "m" or "s") at its load angle, as working."""
     name = f"F_e{tag}"
+    if isinstance(m, Embedment):
+        return c.given(
+            name, m.Fe, f"dowel bearing strength, {m.label}",
+            source="NDS 2018 wood-to-concrete bolt values (7 500 psi, from memory)",
+        )  # fmt: skip
     if isinstance(m, SteelPlate):
         if m.Fe is not None:
             return c.given(name, m.Fe, f"dowel bearing strength, {m.label}", source="given")
@@ -392,6 +435,8 @@ def _bearing(c: Recorder, tag: str, m: Member, D: Any, j: DowelJoint) -> Any:
         unit="psi",
         ref="NDS 2018 Table 12.3.3 footnote 2",
     )
+    if abs(th - math.pi / 2) < 1e-12:
+        return c.derive(name, Fperp, "θ = 90°", unit="psi", ref="NDS 2018 §12.3.4")
     s2 = c.given(f"sin2_{tag}", math.sin(th) ** 2, f"sin²θ, θ = {m.angle:~P}", source="given")
     c2 = c.given(f"cos2_{tag}", math.cos(th) ** 2, "cos²θ", source="given")
     return c.derive(

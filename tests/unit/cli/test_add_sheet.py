@@ -22,13 +22,26 @@ def project(tmp_path: Path) -> Path:
 
 
 def test_templates_are_the_starting_points() -> None:
-    assert sheet_template_names() == ["beam", "free_body", "section", "steel_column", "truss"]
+    assert sheet_template_names() == [
+        "beam",
+        "footing",
+        "free_body",
+        "section",
+        "site_loads",
+        "steel_column",
+        "truss",
+    ]
 
 
-def test_steel_column_sheet_runs_as_made(project: Path, monkeypatch: pytest.MonkeyPatch) -> None:
+@pytest.mark.parametrize(
+    ("template", "check"), [("steel_column", "Compression"), ("footing", "Bearing pressure")]
+)
+def test_catalogue_sheets_run_as_made(
+    project: Path, monkeypatch: pytest.MonkeyPatch, template: str, check: str
+) -> None:
     """The template's code cells run as written in the new sheet's folder (as a build runs
     them: the panel shows nothing there) and record the member checks."""
-    added = add_sheet(project, "steel_column", title="Post P1")
+    added = add_sheet(project, template, title="Post P1")
     nb = json.loads((project / added.notebook).read_text(encoding="utf-8"))
     monkeypatch.chdir((project / added.notebook).parent)
     monkeypatch.setenv("CALCPACK_BUILDING", "1")
@@ -38,7 +51,7 @@ def test_steel_column_sheet_runs_as_made(project: Path, monkeypatch: pytest.Monk
             exec("".join(cell["source"]), scope)
     sheet = scope["s"]
     names = {r.name for r in sheet.checks()}  # type: ignore[attr-defined]
-    assert "Compression" in names
+    assert check in names
 
 
 def test_add_beam_sheet_with_inputs(project: Path, capsys: pytest.CaptureFixture[str]) -> None:
