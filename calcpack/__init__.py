@@ -293,6 +293,8 @@ _LAZY: dict[str, str] = {
     "Padstone": "calcpack.checks.en1996",
     "check_en1996_bearing": "calcpack.checks.en1996",
     "masonry_fk": "calcpack.checks.en1996",
+    "preset": "calcpack.presets",
+    "project_preset": "calcpack.presets",
 }
 
 
@@ -484,6 +486,10 @@ if TYPE_CHECKING:
     from calcpack.plots.footing import (
         FootingSketch,
         footing_figure,
+    )
+    from calcpack.presets import (
+        preset,
+        project_preset,
     )
     from calcpack.sections import (
         Angle,
@@ -781,6 +787,8 @@ __all__ = [
     "new_project",
     "pattern_cases",
     "peak_pressure_en",
+    "preset",
+    "project_preset",
     "reactions_by_case",
     "read_manifest",
     "rebar",
