@@ -272,6 +272,17 @@ def _beam_working(w: Writer, result: BeamResult, title: str | None) -> Any:
     )
     steps.append(Text(f"Classification: {result.classification.describe()}."))
     steps.append(Heading("Loads and resultants", 3))
+    from calcpack.analysis.beam.load_table import load_table
+
+    acting = {case for case, _ in result.cases}
+    steps.append(
+        load_table(
+            [ld for ld in beam.loads if ld.case in acting],
+            member=beam.name,
+            length=beam.length,
+            settings=w.settings,
+        )
+    )
     steps.append(
         Text(
             "Each distributed load acts in the equilibrium equations through its "

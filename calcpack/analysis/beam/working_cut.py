@@ -69,6 +69,7 @@ def _cut_working(w: Writer, result: BeamResult, x: Any, side: str) -> Any:
                 r.Fy,
                 f"reaction at {s.label} (from the analysis)",
                 unit=w.u("force"),
+                result=True,
             )
             steps.append(R)
             rterms.append(("F", s.x_m, R))
@@ -78,6 +79,7 @@ def _cut_working(w: Writer, result: BeamResult, x: Any, side: str) -> Any:
                 r.C,
                 f"moment reaction at {s.label}, clockwise +",
                 unit=w.u("moment"),
+                result=True,
             )
             steps.append(Mr)
             rterms.append(("C", s.x_m, Mr))
