@@ -95,8 +95,11 @@ def summary_working(result: TrussResult, *, figures: bool = True) -> Block:
     ``figures=False``), zero-force members."""
     from calcpack.analysis.truss_zero import zero_force_by_inspection
 
+    from calcpack.analysis.beam.load_table import load_table
+
     truss = result.truss
     steps: list[Any] = [Text(f"Determinacy: {result.determinacy.describe()}.")]
+    steps.append(load_table(truss.loads, member=truss.name))
     steps.append(
         Table(
             ["Reaction", "Joint", "Acts along", "Value"],
