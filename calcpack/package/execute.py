@@ -26,6 +26,7 @@ import logging
 import multiprocessing
 import os
 import re
+import subprocess
 import sys
 import tempfile
 import time
@@ -209,7 +210,9 @@ def _execute(path: str, sheet: str, timeout: float, exports: str | None = None) 
         )
         try:
             with running_kernel(km, sockets):
-                client.execute()
+                # The kernel process's own stderr (start-up and shut-down noise) is not the
+                # build's output: cell errors come back as messages and are reported.
+                client.execute(stderr=subprocess.DEVNULL)
         except (CellExecutionError, CellControlSignal, DeadKernelError, RuntimeError) as exc:
             return ("error", *_failure(nb, sheet, exc, timeout))
         finally:
@@ -227,6 +230,7 @@ _QUIET_LOG = logging.getLogger("calcpack.kernel")
 build's output; a failing cell is reported by the build itself."""
 _QUIET_LOG.setLevel(logging.ERROR)
 _QUIET_LOG.propagate = False
+_QUIET_LOG.addHandler(logging.NullHandler())  # else Python's last-resort handler prints them
 
 
 _CACHE_SUFFIX = ".executed"

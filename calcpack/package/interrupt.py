@@ -128,15 +128,20 @@ def stop_workers(pool: Any, grace_s: float = 5.0) -> None:
     previous = signal.signal(signal.SIGINT, signal.SIG_IGN)  # a second Ctrl-C waits for this
     try:
         processes = list((getattr(pool, "_processes", None) or {}).values())
-        # The kernels first, directly: a worker busy in a cell may take its time to answer.
+        kernels = []
         for p in processes:
             with contextlib.suppress(psutil.Error, ValueError):
-                for child in psutil.Process(p.pid).children(recursive=True):
-                    with contextlib.suppress(psutil.Error):
-                        child.kill()
+                kernels += psutil.Process(p.pid).children(recursive=True)
         for p in processes:
             with contextlib.suppress(Exception):
                 p.terminate()
+        # Each worker kills its kernel; one busy in a cell may take its time to answer, so
+        # after a moment the kernels still there are killed from here.
+        with contextlib.suppress(Exception):
+            psutil.wait_procs(kernels, timeout=grace_s)
+        for child in kernels:
+            with contextlib.suppress(psutil.Error):
+                child.kill()
         for p in processes:
             with contextlib.suppress(Exception):
                 p.join(grace_s)
