@@ -597,6 +597,17 @@ def _beam_working(w: Writer, result: BeamResult, title: str | None) -> Any:
     )
     steps.append(Text(f"Classification: {result.classification.describe()}."))
     steps.append(Heading("Loads and resultants", 3))
+    from calcpack.analysis.beam.load_table import load_table
+
+    acting = {case for case, _ in result.cases}
+    steps.append(
+        load_table(
+            [ld for ld in beam.loads if ld.case in acting],
+            member=beam.name,
+            length=beam.length,
+            settings=w.settings,
+        )
+    )
     steps.append(
         Text(
             "Each distributed load acts in the equilibrium equations through its "
@@ -799,6 +810,7 @@ def _cut_working(w: Writer, result: BeamResult, x: Any, side: str) -> Any:
                 r.Fy,
                 f"reaction at {s.label} (from the analysis)",
                 unit=w.u("force"),
+                result=True,
             )
             steps.append(R)
             rterms.append(("F", s.x_m, R))
@@ -808,6 +820,7 @@ def _cut_working(w: Writer, result: BeamResult, x: Any, side: str) -> Any:
                 r.C,
                 f"moment reaction at {s.label}, clockwise +",
                 unit=w.u("moment"),
+                result=True,
             )
             steps.append(Mr)
             rterms.append(("C", s.x_m, Mr))
