@@ -17,8 +17,8 @@ from calcpack.contract.records import RECORDS_MIMETYPE, CheckRecord, Record
 from calcpack.contract.verdict import Verdict
 from calcpack.errors import DimensionError, InputError
 from calcpack.units import DisplaySettings, ureg, utilisation
+from calcpack.working.bindings import Literal
 from calcpack.working.expr import (
-    Literal,
     Term,
     as_term,
     evaluate,
