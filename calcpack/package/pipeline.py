@@ -502,6 +502,7 @@ def build(
             warnings=warnings,
         )
     publish.check_output_folder(out)  # refuse at the door, before anything executes
+    publish.check_notebooks(project)
     clean_stale_temp()  # folders a killed build left behind
     if not supersede_signed:
         publish.make_way(pdf_path, manifest_path, supersede=False)
