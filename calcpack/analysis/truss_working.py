@@ -93,10 +93,12 @@ def _fmt(x: float) -> str:
 def summary_working(result: TrussResult, *, figures: bool = True) -> Block:
     """Determinacy, reactions, member forces with T/C (and their diagram unless
     ``figures=False``), zero-force members."""
+    from calcpack.analysis.beam.load_table import load_table
     from calcpack.analysis.truss_zero import zero_force_by_inspection
 
     truss = result.truss
     steps: list[Any] = [Text(f"Determinacy: {result.determinacy.describe()}.")]
+    steps.append(load_table(truss.loads, member=truss.name))
     steps.append(
         Table(
             ["Reaction", "Joint", "Acts along", "Value"],
@@ -311,7 +313,12 @@ def joint_working(result: TrussResult, node: str) -> Block:
         sym = member_symbol(m.name)
         first = found_at[m.name]
         if first != node and first in earlier:
-            v = Given(sym, _disp(result.forces[m.name]), f"force in {m.name}, from joint {first}")
+            v = Given(
+                sym,
+                _disp(result.forces[m.name]),
+                f"force in {m.name}, from joint {first}",
+                result=True,
+            )
             entries.append((m.name, v, c, False))
             notes.append(f"{v.text_symbol} = {v.result_text()} (joint {first})")
         else:
@@ -322,7 +329,7 @@ def joint_working(result: TrussResult, node: str) -> Block:
             continue
         name = _symbol_ok(r.name)
         if known_reactions or node in earlier:
-            v = Given(name, _disp(r.value), f"reaction {r.name}")
+            v = Given(name, _disp(r.value), f"reaction {r.name}", result=True)
             entries.append((r.name, v, r.direction, False))
             notes.append(f"{v.text_symbol} = {v.result_text()} (reactions)")
         else:
@@ -347,6 +354,7 @@ def joint_working(result: TrussResult, node: str) -> Block:
                     else result.reactions[e[0]].value
                 ),
                 f"{e[0]} from the joint equations solved together",
+                result=True,
             )
             entries[entries.index(e)] = (e[0], v, e[2], False)
             notes.append(

@@ -44,6 +44,7 @@ from calcpack.package.execute import (
     execute_sheets,
     worker_pool,
 )
+from calcpack.package.interrupt import clean_stale_temp, temp_prefix
 from calcpack.package.manifest import dependency_versions, project_files, sheet_record
 from calcpack.package.mathsvg import add_break_entries, add_cache_entries
 from calcpack.package.paginate import ChunkStore, Layout, PdfAttachment, paginate, write_pdf
@@ -501,6 +502,8 @@ def build(
             warnings=warnings,
         )
     publish.check_output_folder(out)  # refuse at the door, before anything executes
+    publish.check_notebooks(project)
+    clean_stale_temp()  # folders a killed build left behind
     if not supersede_signed:
         publish.make_way(pdf_path, manifest_path, supersede=False)
 
@@ -520,7 +523,9 @@ def build(
     with contextlib.ExitStack() as stack:
         # One pool of workers for the whole build: executing, converting and laying out.
         # (The bodies' folder goes after the pool has stopped: no worker is still writing.)
-        bodies = Path(stack.enter_context(tempfile.TemporaryDirectory(prefix="calcpack-")))
+        bodies = Path(
+            stack.enter_context(tempfile.TemporaryDirectory(prefix=temp_prefix("bodies")))
+        )
         pool = stack.enter_context(worker_pool(workers))
         index = {sheet.path: i for i, sheet in enumerate(project.sheets)}
         converting: dict[str, concurrent.futures.Future[Any]] = {}

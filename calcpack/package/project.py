@@ -50,6 +50,9 @@ The file layout (every table below is required unless marked optional)::
     basis = "Markdown text"           # optional
     assumptions = ["..."]             # optional
     cautions = ["..."]                # optional
+    preset = "eurocode-uk"            # optional: standards that travel together
+                                      # (calcpack.presets): SI units, its standards when none
+                                      # are listed, its cautions added
 """
 
 from __future__ import annotations
@@ -165,6 +168,8 @@ class Design:
     basis: str = ""
     assumptions: tuple[str, ...] = ()
     cautions: tuple[str, ...] = ()
+    preset: str = ""
+    """The preset declared (calcpack.presets), or "" for none."""
 
 
 @dataclass(frozen=True)
@@ -540,15 +545,29 @@ def load_project(location: str | Path) -> Project:
     r.known(
         design_table,
         "design",
-        ("standards", "materials", "loads", "basis", "assumptions", "cautions"),
+        ("standards", "materials", "loads", "basis", "assumptions", "cautions", "preset"),
     )
+    from calcpack.presets import PRESETS
+
+    preset_name = r.choice(design_table, "preset", "design.preset", ("", *PRESETS), default="")
+    the_preset = PRESETS.get(preset_name)
+    if the_preset is not None and units != the_preset.units:
+        r.fail(
+            "job.units",
+            units,
+            repr(the_preset.units),
+            f"does not match the preset {preset_name!r} (design.preset)",
+        )
+    standards = r.texts(design_table, "standards", "design.standards", required=the_preset is None)
     design = Design(
-        standards=r.texts(design_table, "standards", "design.standards", required=True),
+        standards=standards or (the_preset.standards if the_preset else ()),
         materials=r.texts(design_table, "materials", "design.materials"),
         loads=r.texts(design_table, "loads", "design.loads"),
         basis=r.text(design_table, "basis", "design.basis", "markdown text", default=""),
         assumptions=r.texts(design_table, "assumptions", "design.assumptions"),
-        cautions=r.texts(design_table, "cautions", "design.cautions"),
+        cautions=(the_preset.cautions if the_preset else ())
+        + r.texts(design_table, "cautions", "design.cautions"),
+        preset=preset_name,
     )
     if not design.standards:
         r.fail("design.standards", [], "at least one design standard", "is empty")

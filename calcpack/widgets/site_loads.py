@@ -11,10 +11,50 @@ from typing import Any, ClassVar
 import ipywidgets as ipw
 
 from calcpack.inputs.site_loads import SiteLoads, site_loads_inputs
-from calcpack.plots.roof_loads import roof_loads_svg
 from calcpack.widgets.panel import InputsPanel
 
-__all__ = ["SiteLoadsPanel", "site_loads_panel"]
+__all__ = ["SiteLoadsPanel", "roof_cases_svg", "site_loads_panel"]
+
+
+def roof_cases_svg(loads: SiteLoads, width: int = 460) -> str:
+    """A compact drawing for the panel (the sheet draws the full figure): one strip per load
+    case across the frame, each piece's height proportional to its area load, labelled with its
+    value: loads toward the roof (snow, wind pressure) above the line, suction below."""
+    profiles = loads.profiles
+    if not profiles:
+        return ""
+    peak = max(abs(float(v.to("kN/m^2").magnitude)) for p in profiles for v in p.values) or 1.0
+    left, right, row = 150, 10, 46
+    span = width - left - right
+    h = row * len(profiles) + 8
+    total = float((profiles[0].breaks[-1] - profiles[0].breaks[0]).to("m").magnitude) or 1.0
+    out = [
+        f'<svg xmlns="http://www.w3.org/2000/svg" class="cp-diagram" data-diagram="roof cases" '
+        f'width="{width}" height="{h}" viewBox="0 0 {width} {h}" '
+        'font-family="DejaVu Sans, sans-serif" font-size="10">'
+    ]
+    for i, p in enumerate(profiles):
+        base = 4 + i * row + row / 2
+        out.append(
+            f'<text x="{left - 6}" y="{base + 3:.1f}" text-anchor="end">{escape(p.case)}</text>'
+            f'<line x1="{left}" y1="{base:.1f}" x2="{left + span}" y2="{base:.1f}" '
+            'stroke="#222"/>'
+        )
+        x0 = p.breaks[0]
+        for a, b, v in zip(p.breaks[:-1], p.breaks[1:], p.values, strict=True):
+            xa = left + span * float((a - x0).to("m").magnitude) / total
+            xb = left + span * float((b - x0).to("m").magnitude) / total
+            q = float(v.to("kN/m^2").magnitude)
+            hh = (row / 2 - 8) * abs(q) / peak
+            y = base - hh if q >= 0 else base
+            out.append(
+                f'<rect x="{xa:.1f}" y="{y:.1f}" width="{max(xb - xa, 0.5):.1f}" '
+                f'height="{hh:.1f}" fill="#c9d3dd" stroke="#234" stroke-width="0.6"/>'
+                f'<text x="{(xa + xb) / 2:.1f}" y="{base + (10 if q >= 0 else -3):.1f}" '
+                f'text-anchor="middle">{v:.3g~P}</text>'
+            )
+    out.append("</svg>")
+    return "".join(out)
 
 
 def _cases_html(loads: SiteLoads) -> str:
@@ -65,7 +105,7 @@ class SiteLoadsPanel(InputsPanel):
         return site_loads_inputs(data, path=self.path)
 
     def render(self, outcome: SiteLoads) -> dict[str, str]:
-        return {"sketch": roof_loads_svg(outcome.profiles), "results": _cases_html(outcome)}
+        return {"sketch": roof_cases_svg(outcome), "results": _cases_html(outcome)}
 
 
 def site_loads_panel(path: str | Path) -> SiteLoadsPanel:

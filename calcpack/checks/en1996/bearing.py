@@ -24,6 +24,7 @@ import math
 from dataclasses import dataclass
 from typing import Any, Literal
 
+from calcpack import views
 from calcpack.checks.base import MemberChecks, Recorder, Standard, run_checks
 from calcpack.errors import InputError, OutOfScopeError
 from calcpack.units import Q_, Quantity, require, si
@@ -131,11 +132,25 @@ class MasonryBearing:
         self.checks.add_to(sheet)
         return self
 
-    def svg(self) -> str:
-        """The elevation sketch (see :mod:`calcpack.plots.masonry`)."""
-        from calcpack.plots.masonry import masonry_bearing_svg
+    def figure(self, caption: str = "") -> Any:
+        """The sketch as a :class:`calcpack.working.Figure` step for a sheet."""
+        from calcpack.working import Figure
 
-        return masonry_bearing_svg(self)
+        lb = self.loaded_length.to("mm").magnitude
+        return Figure(
+            "masonry-bearing",
+            self,
+            caption=caption
+            or f"Concentrated load on masonry: loaded length {lb:.0f} mm spread at 60° to "
+            f"mid-height, l_efm = {self.l_efm.to('mm').magnitude:.0f} mm, β = {self.beta:.2f}",
+            alt="Elevation of the wall with the padstone and the beam bearing, the load spread "
+            "at 60° to mid-height of the wall, and the effective length l_efm.",
+        )
+
+    def svg(self) -> str:
+        """The elevation sketch (drawn by :mod:`calcpack.plots.masonry`, via the registry)."""
+        svg: str = views.render("svg", self)
+        return svg
 
 
 def check_en1996_bearing(
