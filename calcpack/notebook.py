@@ -84,7 +84,7 @@ _STANDARD = (
         "svg",
         "calcpack.plots.masonry:masonry_bearing_svg",
     ),
-    ("calcpack.working.steps.Step", "ipython_display", step_ipython_display),
+    ("calcpack.working.step_base.Step", "ipython_display", step_ipython_display),
 )
 
 for _type_name, _kind, _renderer in _STANDARD:

@@ -676,14 +676,28 @@ def build(
     )
 
 
-def single_sheet_pdf(nb: Any, *, name: str = "sheet") -> bytes:
-    """One executed notebook as a paginated PDF with the package layout (no project folder).
+def single_sheet_pdf(
+    nb: Any, *, name: str = "sheet", project: Project | None = None, path: str | None = None
+) -> bytes:
+    """One executed notebook as a paginated PDF with the package layout.
 
-    Job fields come from the notebook's ``metadata.calcpack`` when present.
+    Job fields come from ``project`` (the project file found above the notebook) when given,
+    the sheet's number and title from its entry there (``path``: the notebook's path relative
+    to the project); otherwise from the notebook's ``metadata.calcpack`` when present.
     """
     meta = dict(nb.metadata.get("calcpack", {}) or {})
     today = _dt.date.today()
-    project = Project(
+    if project is not None:
+        listed = [s for s in project.sheets if s.path == path]
+        entry = listed[0] if listed else SheetEntry("—", path or f"{name}.ipynb", None)
+        project = replace(project, sheets=(entry,))
+    else:
+        project = _project_from_metadata(meta, name, today)
+    return _sheet_pdf(project, nb, name, today)
+
+
+def _project_from_metadata(meta: dict[str, Any], name: str, today: _dt.date) -> Project:
+    return Project(
         path=Path(name).resolve(),
         job_number=str(meta.get("job_number", "—")),
         job_title=str(meta.get("job_title", name)),
@@ -700,6 +714,9 @@ def single_sheet_pdf(nb: Any, *, name: str = "sheet") -> bytes:
         sheets=(SheetEntry(str(meta.get("sheet_number", "1")), f"{name}.ipynb", None),),
         design=_single_design(),
     )
+
+
+def _sheet_pdf(project: Project, nb: Any, name: str, today: _dt.date) -> bytes:
     from calcpack import __version__
 
     doc = prepare_sheet(project.sheets[0], nb)

@@ -14,53 +14,17 @@ from __future__ import annotations
 
 import math
 import re
-import shutil
 import tomllib
-from dataclasses import dataclass
-from pathlib import Path
 from typing import Any
 
 import pytest
+from examplekit import PROJECTS, Built
 
 from calcpack.units import Q_, ureg
 
 pytestmark = pytest.mark.build
 
-ROOT = Path(__file__).resolve().parents[2] / "example_projects"
-PROJECTS = ("alteration_ashgrove_lane", "deck_larkspur_court", "workshop_truss_fernhill")
 ft, inch, psf, psi, kip, ksi = ureg.ft, ureg.inch, ureg.psf, ureg.psi, ureg.kip, ureg.ksi
-
-
-@dataclass(frozen=True)
-class Built:
-    name: str
-    project: Path
-    pdf: Path
-    root: Path
-    manifest: dict[str, Any]
-    pages: list[str]
-
-
-def _build(name: str, base: Path) -> Built:
-    from calcpack.package.pipeline import build
-    from calcpack.signing.demo import sign_demo_package
-    from calcpack.signing.manifest import load_manifest
-
-    folder = base / name
-    project = folder / "project"
-    shutil.copytree(ROOT / name, project, ignore=shutil.ignore_patterns(".calcpack-cache", "build"))
-    result = build(project, out_dir=folder, workers=2, timeout=300.0, use_cache=True)
-    signoff = sign_demo_package(result.pdf_path, folder, project=project)
-    from pypdf import PdfReader
-
-    pages = [p.extract_text() or "" for p in PdfReader(str(signoff.pdf)).pages]
-    return Built(name, project, Path(signoff.pdf), signoff.root, load_manifest(signoff.pdf), pages)
-
-
-@pytest.fixture(scope="session")
-def packages(tmp_path_factory: pytest.TempPathFactory) -> dict[str, Built]:
-    base = tmp_path_factory.mktemp("examples")
-    return {name: _build(name, base) for name in PROJECTS}
 
 
 def _inputs(b: Built, file: str) -> dict[str, Any]:
