@@ -79,7 +79,12 @@ _STANDARD = (
     ("calcpack.sections.base.Section", "svg", "calcpack.plots.section:section_svg"),
     ("calcpack.sections.properties.SectionProperties", "figure", properties_figure),
     ("calcpack.inputs.beam_working.BeamDiagrams", "svg", beam_diagrams_svg),
-    ("calcpack.working.steps.Step", "ipython_display", step_ipython_display),
+    (
+        "calcpack.checks.en1996.bearing.MasonryBearing",
+        "svg",
+        "calcpack.plots.masonry:masonry_bearing_svg",
+    ),
+    ("calcpack.working.step_base.Step", "ipython_display", step_ipython_display),
 )
 
 for _type_name, _kind, _renderer in _STANDARD:

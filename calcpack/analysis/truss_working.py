@@ -93,10 +93,12 @@ def _fmt(x: float) -> str:
 def summary_working(result: TrussResult, *, figures: bool = True) -> Block:
     """Determinacy, reactions, member forces with T/C (and their diagram unless
     ``figures=False``), zero-force members."""
+    from calcpack.analysis.beam.load_table import load_table
     from calcpack.analysis.truss_zero import zero_force_by_inspection
 
     truss = result.truss
     steps: list[Any] = [Text(f"Determinacy: {result.determinacy.describe()}.")]
+    steps.append(load_table(truss.loads, member=truss.name))
     steps.append(
         Table(
             ["Reaction", "Joint", "Acts along", "Value"],

@@ -6,7 +6,7 @@ from __future__ import annotations
 
 from typing import TYPE_CHECKING, Any
 
-from calcpack.combinations.superpose import _is_beam
+from calcpack.combinations.superpose import _is_beam, _is_truss
 
 if TYPE_CHECKING:
     from calcpack.combinations.superpose import CombinedResults, Envelope
@@ -204,6 +204,11 @@ def combinations_working(
             steps.append(Table(cols, vrows, caption=f"Results of each combination, {level}"))
             if figures:
                 steps.append(_figure(cr, settings))
+        elif _is_truss(first):
+            from calcpack.analysis.beam.load_table import load_table
+
+            truss = first.truss
+            steps.append(load_table(truss.loads, member=truss.name, settings=settings))
         strength = cs.kind == "strength"
         steps.append(
             envelope_table(

@@ -18,6 +18,7 @@ from typing import Any
 
 from calcpack.contract.carried import annotate_carried, link_changes
 from calcpack.contract.manifest import Manifest
+from calcpack.contract.numbers import format_number
 from calcpack.contract.rechecks import verification_changes
 
 __all__ = ["REL_TOL", "Change", "ManifestDiff", "diff_manifests"]
@@ -149,8 +150,6 @@ def _num(value: Any, sig: Any = None) -> str:
     if isinstance(value, int | float):
         if not isinstance(sig, int) or isinstance(sig, bool):
             return f"{value:.{LEGACY_SIG}g}"
-        from calcpack.working.format import format_number
-
         return format_number(float(value), sig)
     return str(value)
 

@@ -18,6 +18,7 @@ import os
 import re
 from functools import cache
 from importlib import resources
+from pathlib import Path
 from typing import Any
 
 from nbconvert.exporters import Exporter, HTMLExporter
@@ -105,6 +106,15 @@ def sheet_fragment(nb: Any, *, show_source: bool = False) -> str:
     return body
 
 
+def not_executed(nb: Any) -> bool:
+    """True when a notebook has code but no cell has run (no outputs, no execution count):
+    its PDF would be an empty sheet."""
+    code = [c for c in nb.cells if c.get("cell_type") == "code" and c.get("source", "").strip()]
+    return bool(code) and not any(
+        c.get("outputs") or c.get("execution_count") is not None for c in code
+    )
+
+
 class CalcpackPDFExporter(Exporter):  # type: ignore[misc]
     """One sheet notebook as a paginated PDF in calcpack's layout (title block on every page).
 
@@ -122,9 +132,39 @@ class CalcpackPDFExporter(Exporter):  # type: ignore[misc]
     ) -> tuple[bytes, dict[str, Any]]:
         nb_copy, resources = super().from_notebook_node(nb, resources, **kw)
         from calcpack.package.pipeline import single_sheet_pdf
+        from calcpack.package.project import find_project_above, load_project
 
-        name = (resources or {}).get("metadata", {}).get("name", "sheet")
-        pdf = single_sheet_pdf(nb_copy, name=str(name))
+        meta = (resources or {}).get("metadata", {})
+        name = str(meta.get("name", "sheet"))
+        folder = Path(meta.get("path") or ".").resolve()
+        if not_executed(nb_copy):
+            nb_copy = self._execute(folder / f"{name}.ipynb")
+        project_file = find_project_above(folder)
+        if project_file is None:
+            pdf = single_sheet_pdf(nb_copy, name=name)
+        else:
+            project = load_project(project_file)
+            notebook = (folder / f"{name}.ipynb").resolve()
+            try:
+                path = notebook.relative_to(project.root).as_posix()
+            except ValueError:
+                path = notebook.name
+            self.log.info("calcpack: job fields from %s", project_file)
+            pdf = single_sheet_pdf(nb_copy, name=name, project=project, path=path)
         resources = dict(resources or {})
         resources["output_extension"] = ".pdf"
         return pdf, resources
+
+    def _execute(self, notebook: Path) -> Any:
+        """Run a notebook that was saved without outputs, saying so; refuse when its file
+        cannot be found (a sheet without its working is never written as an empty PDF)."""
+        from calcpack.errors import BuildError
+        from calcpack.package.execute import execute_notebook
+
+        if not notebook.is_file():
+            raise BuildError(
+                f"{notebook.name} has no outputs and its file was not found to run it: run the "
+                "notebook (or `jupyter nbconvert --execute --to calcpack-pdf`) first"
+            )
+        self.log.warning("calcpack: %s has no outputs; running it first", notebook.name)
+        return execute_notebook(notebook, sheet=notebook.name)

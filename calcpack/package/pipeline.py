@@ -44,6 +44,7 @@ from calcpack.package.execute import (
     execute_sheets,
     worker_pool,
 )
+from calcpack.package.interrupt import clean_stale_temp, temp_prefix
 from calcpack.package.manifest import dependency_versions, project_files, sheet_record
 from calcpack.package.mathsvg import add_break_entries, add_cache_entries
 from calcpack.package.paginate import ChunkStore, Layout, PdfAttachment, paginate, write_pdf
@@ -502,6 +503,8 @@ def build(
             warnings=warnings,
         )
     publish.check_output_folder(out)  # refuse at the door, before anything executes
+    publish.check_notebooks(project)
+    clean_stale_temp()  # folders a killed build left behind
     if not supersede_signed:
         publish.make_way(pdf_path, manifest_path, supersede=False)
 
@@ -521,7 +524,9 @@ def build(
     with contextlib.ExitStack() as stack:
         # One pool of workers for the whole build: executing, converting and laying out.
         # (The bodies' folder goes after the pool has stopped: no worker is still writing.)
-        bodies = Path(stack.enter_context(tempfile.TemporaryDirectory(prefix="calcpack-")))
+        bodies = Path(
+            stack.enter_context(tempfile.TemporaryDirectory(prefix=temp_prefix("bodies")))
+        )
         pool = stack.enter_context(worker_pool(workers))
         index = {sheet.path: i for i, sheet in enumerate(project.sheets)}
         converting: dict[str, concurrent.futures.Future[Any]] = {}
@@ -672,14 +677,28 @@ def build(
     )
 
 
-def single_sheet_pdf(nb: Any, *, name: str = "sheet") -> bytes:
-    """One executed notebook as a paginated PDF with the package layout (no project folder).
+def single_sheet_pdf(
+    nb: Any, *, name: str = "sheet", project: Project | None = None, path: str | None = None
+) -> bytes:
+    """One executed notebook as a paginated PDF with the package layout.
 
-    Job fields come from the notebook's ``metadata.calcpack`` when present.
+    Job fields come from ``project`` (the project file found above the notebook) when given,
+    the sheet's number and title from its entry there (``path``: the notebook's path relative
+    to the project); otherwise from the notebook's ``metadata.calcpack`` when present.
     """
     meta = dict(nb.metadata.get("calcpack", {}) or {})
     today = _dt.date.today()
-    project = Project(
+    if project is not None:
+        listed = [s for s in project.sheets if s.path == path]
+        entry = listed[0] if listed else SheetEntry("—", path or f"{name}.ipynb", None)
+        project = replace(project, sheets=(entry,))
+    else:
+        project = _project_from_metadata(meta, name, today)
+    return _sheet_pdf(project, nb, name, today)
+
+
+def _project_from_metadata(meta: dict[str, Any], name: str, today: _dt.date) -> Project:
+    return Project(
         path=Path(name).resolve(),
         job_number=str(meta.get("job_number", "—")),
         job_title=str(meta.get("job_title", name)),
@@ -696,6 +715,9 @@ def single_sheet_pdf(nb: Any, *, name: str = "sheet") -> bytes:
         sheets=(SheetEntry(str(meta.get("sheet_number", "1")), f"{name}.ipynb", None),),
         design=_single_design(),
     )
+
+
+def _sheet_pdf(project: Project, nb: Any, name: str, today: _dt.date) -> bytes:
     from calcpack import __version__
 
     doc = prepare_sheet(project.sheets[0], nb)

@@ -77,6 +77,7 @@ __all__ = [
     "Revision",
     "SheetEntry",
     "file_sha256",
+    "find_project_above",
     "find_project_file",
     "load_project",
 ]
@@ -254,6 +255,19 @@ def find_project_file(location: str | Path) -> Path:
             expected=f"a folder with {PROJECT_FILE_NAME}",
         )
     return path.resolve()
+
+
+def find_project_above(start: str | Path) -> Path | None:
+    """The nearest project file in ``start`` (a folder or a file's folder) or a folder above
+    it, or None: a sheet opened on its own still belongs to its job."""
+    here = Path(start).expanduser().resolve()
+    if here.is_file():
+        here = here.parent
+    for folder in (here, *here.parents):
+        candidate = folder / PROJECT_FILE_NAME
+        if candidate.is_file():
+            return candidate
+    return None
 
 
 class _Reader:

@@ -29,6 +29,7 @@ from calcpack.package.project import Project
 
 __all__ = [
     "SUPERSEDED_DIR_NAME",
+    "check_notebooks",
     "check_output_folder",
     "check_timeout",
     "make_way",
@@ -96,6 +97,40 @@ def placeholder_warnings(project: Project) -> tuple[str, ...]:
         "signing (a package printing it cannot be signed)"
         for field, text in placeholders_in_summary(summary)
     )
+
+
+def check_notebooks(project: Project) -> None:
+    """Refuse, before anything executes, a sheet file that is not a notebook the build can run.
+
+    Raises:
+        ProjectFileError: naming the sheet's field in the project file and what is wrong.
+    """
+    from calcpack.package.project import ProjectFileError
+
+    for i, sheet in enumerate(project.sheets, start=1):
+        problem = _notebook_problem(project.sheet_path(sheet))
+        if problem:
+            where = f"sheets[{i}].path"
+            raise ProjectFileError(
+                f"{project.path.name}: field {where!r} {problem} (expected a Jupyter notebook, "
+                "nbformat 4)",
+                name=where,
+                value=sheet.path,
+                expected="a Jupyter notebook (nbformat 4)",
+            )
+
+
+def _notebook_problem(path: Path) -> str | None:
+    try:
+        data = json.loads(path.read_bytes())
+    except (OSError, ValueError) as exc:
+        return f"names a file that is not a notebook (not valid JSON: {exc})"
+    if not isinstance(data, dict) or not isinstance(data.get("cells"), list):
+        return "names a JSON file that is not a notebook (it has no list of cells)"
+    if data.get("nbformat") != 4:
+        version = data.get("nbformat")
+        return f"names a notebook of format {version!r}, not 4 (save it again in JupyterLab)"
+    return None
 
 
 def check_timeout(timeout: float) -> float:

@@ -7,6 +7,8 @@ from collections.abc import Sequence
 from html import escape
 from typing import TYPE_CHECKING, Any
 
+from calcpack.working.render import symbols_html
+
 if TYPE_CHECKING:
     from calcpack.package.document import SheetDoc
     from calcpack.package.verification import Compared
@@ -67,7 +69,7 @@ def verification_html(sheets: Sequence[SheetDoc], compared: Sequence[Compared]) 
     )
     if compared:
         rows = "".join(
-            f"<tr><td>{_e(c.label)}</td><td>{_e(c.method)}</td>"
+            f"<tr><td>{symbols_html(_e(c.label))}</td><td>{_e(c.method)}</td>"
             f'<td class="num">{_n(c.preparer_value)} {_e(c.unit)}</td>'
             f'<td class="num">{_n(c.checker_value)} {_e(c.unit)}</td>'
             f'<td class="num">{c.difference * 100:.2f} %</td>'
@@ -88,7 +90,7 @@ def verification_html(sheets: Sequence[SheetDoc], compared: Sequence[Compared]) 
     if not rows_cov:
         return head + intro + table
     cov = "".join(
-        f"<tr><td>{_e(doc.entry.number)}</td><td>{_e(name)}"
+        f"<tr><td>{_e(doc.entry.number)}</td><td>{symbols_html(_e(name))}"
         f"{f' ({_e(member)})' if member else ''}</td><td>"
         + (
             "; ".join(f"{'agreed' if c.agreed else 'DISAGREES'} ({_e(c.method)})" for c in found)

@@ -39,6 +39,11 @@ __all__ = ["EURO_FAMILIES", "EuroSection", "euro_section", "euro_section_names"]
 
 _FILE = "uk_eu_steel_sections.csv"
 EURO_FAMILIES = ("UB", "UC", "PFC", "SHS", "RHS", "CHS", "IPE", "HEA", "HEB")
+_CITATION = {
+    **dict.fromkeys(("UB", "UC", "PFC"), "BS 4-1:2005 dimensions as in SCI/BCSA P363"),
+    **dict.fromkeys(("SHS", "RHS", "CHS"), "BS EN 10210-2:2006 dimensions as in SCI/BCSA P363"),
+    **dict.fromkeys(("IPE", "HEA", "HEB"), "EN 10365:2017 dimensions"),
+}
 RHO_STEEL = Q_(7850.0, "kg/m**3")  # EN 1991-1-1 Table A.4 / EN 1993-1-1 §3.2.6 (common practice)
 
 
@@ -177,7 +182,7 @@ def euro_section(designation: str) -> EuroSection:
         )
     row = table.rows[key]
     fam = str(row["family"])
-    source = f"{table.citation.split(';')[0]} ({key}; dimensions from memory, properties computed)"
+    source = f"{_CITATION[fam]}, {key} (dimensions from memory; properties computed by calcpack)"
     return _build(key, fam, source, row)
 
 

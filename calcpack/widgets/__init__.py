@@ -15,11 +15,13 @@ __all__ = [
     "BeamPanel",
     "FootingPanel",
     "InputsPanel",
+    "LedgerPanel",
     "MemberPanel",
     "SectionPanel",
     "SiteLoadsPanel",
     "beam_panel",
     "footing_panel",
+    "ledger_panel",
     "member_panel",
     "preview",
     "section_panel",
@@ -39,6 +41,8 @@ _WHERE = {
     "footing_panel": "calcpack.widgets.footing",
     "SiteLoadsPanel": "calcpack.widgets.site_loads",
     "site_loads_panel": "calcpack.widgets.site_loads",
+    "LedgerPanel": "calcpack.widgets.ledger",
+    "ledger_panel": "calcpack.widgets.ledger",
 }
 
 

@@ -121,8 +121,10 @@ class MemberPanel(InputsPanel):
             return None
         self.found = found
         self.ranking.value = sizing_table_html(found)
-        self.pick.options = [t.name for t in found.passing]
-        self.use_button.disabled = not found.passing
+        names = [t.name for t in found.passing]
+        self.pick.options = names
+        self.pick.value = names[0] if names else None  # the lightest, ready to use
+        self.use_button.disabled = not names
         return found
 
     def use(self, shape: str | None) -> None:

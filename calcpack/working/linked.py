@@ -43,7 +43,7 @@ def export_entry(
     Raises:
         InputError: a check or quantity without ``name``, or an item of another type.
     """
-    from calcpack.working.steps import _check_name
+    from calcpack.working.step_base import _check_name
 
     if isinstance(item, Value):
         q = item.display_quantity

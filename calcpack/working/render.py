@@ -15,7 +15,8 @@ import html
 import re
 from typing import Any
 
-from calcpack.working.expr import _GREEK_TEXT, Term, symbol_latex, to_latex, to_text
+from calcpack.working.expr import Term
+from calcpack.working.expr_print import _GREEK_TEXT, symbol_latex, to_latex, to_text
 from calcpack.working.figure import Figure
 from calcpack.working.format import format_number, format_quantity_latex, format_quantity_text
 from calcpack.working.prose import Citation, fill

@@ -8,20 +8,17 @@ for the package manifest) and as ``text()``.
 from __future__ import annotations
 
 import math
-from collections.abc import Iterable, Sequence
-from dataclasses import dataclass, field
 from typing import Any
 
 import pint
 import sympy
 
-from calcpack import views
 from calcpack.contract.records import RECORDS_MIMETYPE, CheckRecord, Record
 from calcpack.contract.verdict import Verdict
 from calcpack.errors import DimensionError, InputError
-from calcpack.units import DisplaySettings, get_display, ureg, utilisation
+from calcpack.units import DisplaySettings, ureg, utilisation
+from calcpack.working.bindings import Literal
 from calcpack.working.expr import (
-    Literal,
     Term,
     as_term,
     evaluate,
@@ -29,7 +26,8 @@ from calcpack.working.expr import (
     symbol_text,
 )
 from calcpack.working.format import format_quantity_text, format_unit_text
-from calcpack.working.prose import Citation, fill
+from calcpack.working.step_base import Step, _check_name, _settings_or_global
+from calcpack.working.text_steps import Assume, Block, Caution, Heading, Table, Text
 
 __all__ = [
     "RECORDS_MIMETYPE",
@@ -50,72 +48,6 @@ __all__ = [
     "Value",
     "Verdict",
 ]
-
-
-class Step:
-    """Base of every sheet step. ``settings`` are the owning sheet's display settings."""
-
-    kind = "step"
-    settings: DisplaySettings | None = None
-
-    @property
-    def sig(self) -> int:
-        return (self.settings or get_display()).sig_figs
-
-    def records(self) -> dict[str, list[Any]]:
-        """This step's contribution to the manifest (values, checks, assumptions, cautions)."""
-        return {}
-
-    def latex(self) -> str:
-        from calcpack.working import render
-
-        return render.step_latex(self)
-
-    def html(self) -> str:
-        from calcpack.working import render
-
-        return render.step_html(self)
-
-    def text(self) -> str:
-        from calcpack.working import render
-
-        return render.step_text(self)
-
-    def _repr_latex_(self) -> str:
-        return self.latex()
-
-    def _repr_html_(self) -> str:
-        return self.html()
-
-    def _repr_mimebundle_(self, include: Any = None, exclude: Any = None) -> dict[str, Any]:
-        from calcpack.working import render
-
-        return render.mimebundle(self)
-
-    # The cell in which a sheet already showed this step; a second showing in the same cell
-    # (the cell's last line returning the step) is skipped so nothing is shown or recorded twice.
-    _shown_in: int | None = None
-
-    def _ipython_display_(self) -> None:
-        views.render("ipython_display", self)
-
-    def __str__(self) -> str:
-        return self.text()
-
-
-def _settings_or_global(settings: DisplaySettings | None) -> DisplaySettings:
-    return settings or get_display()
-
-
-def _check_name(name: object) -> str:
-    if not isinstance(name, str) or not name or not name.replace("_", "a").isalnum():
-        raise InputError(
-            f"A value's name must be a symbol like 'L', 'M_max' or 'sigma_b' (got {name!r})",
-            name="name",
-            value=name,
-            expected="letters and digits joined by underscores",
-        )
-    return name
 
 
 class Value(Step, Term):
@@ -535,116 +467,6 @@ class NotCovered(Step):
 
     def records(self) -> dict[str, list[Any]]:
         return {"checks": [self.record().to_json()]}
-
-
-class Heading(Step):
-    """A heading inside a sheet (level 2 = section, 3 = subsection)."""
-
-    kind = "heading"
-
-    def __init__(self, text: str, level: int = 2) -> None:
-        if level not in (1, 2, 3, 4):
-            raise InputError(
-                f"Heading level must be 1 to 4 (got {level!r})",
-                name="level",
-                value=level,
-                expected="1, 2, 3 or 4",
-            )
-        self.title = text
-        self.level = level
-
-
-class Text(Step):
-    """A paragraph of prose; ``$...$`` marks inline TeX math, blank lines separate paragraphs.
-
-    Args:
-        body: the prose; with ``citations``, a template from :func:`calcpack.working.prose.cite`
-            (each citation's place marked), and ``body`` becomes its plain-text reading.
-        citations: recorded values cited in the prose, typeset by the renderers.
-    """
-
-    kind = "text"
-
-    def __init__(self, body: str, citations: tuple[Citation, ...] = ()) -> None:
-        self.template = body
-        self.citations = citations
-        self.body = fill(body, citations, Citation.text) if citations else body
-
-    @property
-    def tex_body(self) -> str:
-        """The prose with each citation as inline TeX (``$R_{A} = 2.61\\ \\mathrm{kip}$``)."""
-        if not self.citations:
-            return self.body
-        return fill(self.template, self.citations, lambda c: f"${c.tex()}$")
-
-
-class Assume(Text):
-    """An assumption the sheet declares; collected into the package's assumptions block."""
-
-    kind = "assume"
-
-    def records(self) -> dict[str, list[Any]]:
-        return {"assumptions": [self.tex_body]}
-
-
-class Caution(Text):
-    """A caution the sheet declares; collected into the package's caution block."""
-
-    kind = "caution"
-
-    def records(self) -> dict[str, list[Any]]:
-        return {"cautions": [self.tex_body]}
-
-
-class Table(Step):
-    """A table: cells may be text (``$...$`` for TeX), numbers, quantities or values."""
-
-    kind = "table"
-
-    def __init__(
-        self,
-        columns: Sequence[str],
-        rows: Iterable[Sequence[Any]],
-        *,
-        caption: str | None = None,
-        settings: DisplaySettings | None = None,
-        values: Sequence[Record] = (),
-    ) -> None:
-        """``values``: what the table states, recorded for the manifest (e.g. a table of loads
-        records each magnitude and position as an input)."""
-        self.columns = list(columns)
-        self.rows = [list(r) for r in rows]
-        self.values = tuple(values)
-        for i, r in enumerate(self.rows):
-            if len(r) != len(self.columns):
-                raise InputError(
-                    f"Table row {i + 1} has {len(r)} cells but there are {len(self.columns)} "
-                    "columns",
-                    name=f"rows[{i}]",
-                    value=r,
-                    expected=f"{len(self.columns)} cells",
-                )
-        self.caption = caption
-        self.settings = settings
-
-    def records(self) -> dict[str, list[Any]]:
-        return {"values": [v.to_json() for v in self.values]} if self.values else {}
-
-
-@dataclass
-class Block(Step):
-    """A titled group of steps, e.g. the reaction working an analysis produces."""
-
-    steps: list[Step] = field(default_factory=list)
-    title: str | None = None
-    kind = "block"
-
-    def records(self) -> dict[str, list[Any]]:
-        out: dict[str, list[Any]] = {}
-        for s in self.steps:
-            for k, v in s.records().items():
-                out.setdefault(k, []).extend(v)
-        return out
 
 
 __all__ += ["Literal", "NotCovered"]

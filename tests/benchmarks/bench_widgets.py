@@ -97,6 +97,7 @@ CATALOGUE = (
     ("steel_column", "forces[1].P", [(v, "kip") for v in (20.0, 26.0, 31.0, 23.0)]),
     ("footing", "footing.B", [(v, "ft") for v in (3.5, 4.0, 3.25, 3.75)]),
     ("site_loads", "snow.pg", [(v, "psf") for v in (20.0, 30.0, 35.0, 40.0)]),
+    ("deck_ledger", "load.R", [(v, "lbf") for v in (250.0, 280.0, 310.0, 260.0)]),
 )
 
 
@@ -106,10 +107,16 @@ def catalogue_side(repeat: int) -> dict[str, dict[str, float]]:
     panel's search for the lightest shape."""
     from calcpack.units import Q_
     from calcpack.widgets.footing import FootingPanel
+    from calcpack.widgets.ledger import LedgerPanel
     from calcpack.widgets.member import MemberPanel
     from calcpack.widgets.site_loads import SiteLoadsPanel
 
-    kinds = {"steel_column": MemberPanel, "footing": FootingPanel, "site_loads": SiteLoadsPanel}
+    kinds = {
+        "steel_column": MemberPanel,
+        "footing": FootingPanel,
+        "site_loads": SiteLoadsPanel,
+        "deck_ledger": LedgerPanel,
+    }
     out: dict[str, dict[str, float]] = {}
     templates = REPO / "templates" / "sheets"
     with tempfile.TemporaryDirectory() as tmp:

@@ -248,3 +248,56 @@ def test_beam_panel_errors_at_the_field_fits_two_widths_and_reruns_the_working(
     wait_idle(page)
     assert cell_errors(page) == []
     assert 'spans = ["3.2 m", "5.5 m", "3.2 m"]' in inputs_file.read_text(encoding="utf-8")
+
+
+def test_member_panel_checks_live_and_the_search_picks_a_shape(lab: LabServer, page: Any) -> None:
+    """A catalogue panel in JupyterLab: an edit moves the governing utilisation as the sheet
+    computes it, and the search's chosen shape goes into the inputs file."""
+    from calcpack.inputs import load_inputs
+    from calcpack.inputs.member import evaluate_member, member_inputs
+
+    templates = REPO / "templates" / "sheets"
+    text = (templates / "steel_column.ipynb").read_text(encoding="utf-8")
+    text = text.replace("__TITLE__", "Post P1").replace("__INPUTS__", "post.inputs.toml")
+    (lab.root / "post.ipynb").write_text(text, encoding="utf-8")
+    inputs_file = lab.root / "post.inputs.toml"
+    inputs_file.write_text(
+        (templates / "steel_column.inputs.toml").read_text(encoding="utf-8"), encoding="utf-8"
+    )
+    page.set_viewport_size({"width": 1400, "height": 1000})
+    open_notebook(page, lab, "post.ipynb")
+    run_all_cells(page)
+    assert cell_errors(page) == []
+    panel = page.locator(".cp-member-panel")
+    panel.wait_for(timeout=60_000)
+    governing = panel.locator(".cp-governing")
+    before = float(governing.get_attribute("data-value"))
+    box = panel.locator(".cp-key-forces-1-P input")
+    box.fill("40")
+    box.press("Enter")
+    page.wait_for_function(
+        """([old]) => {
+            const e = document.querySelector('.cp-member-panel .cp-governing');
+            return e && parseFloat(e.getAttribute('data-value')) !== old;
+        }""",
+        arg=[before],
+        timeout=30_000,
+    )
+    expected = evaluate_member(member_inputs(load_inputs(inputs_file))).governing[0]
+    assert float(governing.get_attribute("data-value")) == pytest.approx(expected, rel=1e-12)
+    assert panel.locator(".cp-bars .cp-bar").count() >= 3
+    # the search ranks the family; "Use this shape" writes the choice
+    panel.locator(".cp-search").click()
+    panel.locator(".cp-search-results .cp-candidate").first.wait_for(timeout=120_000)
+    first = panel.locator(".cp-search-results .cp-candidate").first.get_attribute("data-name")
+    panel.locator(".cp-search-use").click()
+    page.wait_for_function(
+        "([name]) => document.querySelector('.cp-member-panel .cp-key-member-shape input')"
+        "?.value === name",
+        arg=[first],
+        timeout=30_000,
+    )
+    page.wait_for_timeout(500)
+    assert load_inputs(inputs_file)["member"]["shape"] == first
+    panel.scroll_into_view_if_needed()
+    save_screenshot(page, "member_panel.png")

@@ -9,6 +9,7 @@ from pathlib import Path
 from typing import Any
 
 import pytest
+from examplekit import Built, build_examples
 from projectkit import make_project
 from pypdf import PdfReader
 
@@ -60,3 +61,9 @@ def demo_reader(demo_pdf: Path) -> PdfReader:
 def demo_texts(demo_reader: PdfReader) -> list[str]:
     """The text layer of every page, whitespace collapsed."""
     return [" ".join(page.extract_text().split()) for page in demo_reader.pages]
+
+
+@pytest.fixture(scope="session")
+def packages(tmp_path_factory: pytest.TempPathFactory) -> dict[str, Built]:
+    """The three example jobs (examplekit.PROJECTS), built, signed and read once."""
+    return build_examples(tmp_path_factory.mktemp("examples"))

@@ -14,53 +14,17 @@ from __future__ import annotations
 
 import math
 import re
-import shutil
 import tomllib
-from dataclasses import dataclass
-from pathlib import Path
 from typing import Any
 
 import pytest
+from examplekit import PROJECTS, Built
 
 from calcpack.units import Q_, ureg
 
 pytestmark = pytest.mark.build
 
-ROOT = Path(__file__).resolve().parents[2] / "example_projects"
-PROJECTS = ("alteration_ashgrove_lane", "deck_larkspur_court", "workshop_truss_fernhill")
 ft, inch, psf, psi, kip, ksi = ureg.ft, ureg.inch, ureg.psf, ureg.psi, ureg.kip, ureg.ksi
-
-
-@dataclass(frozen=True)
-class Built:
-    name: str
-    project: Path
-    pdf: Path
-    root: Path
-    manifest: dict[str, Any]
-    pages: list[str]
-
-
-def _build(name: str, base: Path) -> Built:
-    from calcpack.package.pipeline import build
-    from calcpack.signing.demo import sign_demo_package
-    from calcpack.signing.manifest import load_manifest
-
-    folder = base / name
-    project = folder / "project"
-    shutil.copytree(ROOT / name, project, ignore=shutil.ignore_patterns(".calcpack-cache", "build"))
-    result = build(project, out_dir=folder, workers=2, timeout=300.0, use_cache=True)
-    signoff = sign_demo_package(result.pdf_path, folder, project=project)
-    from pypdf import PdfReader
-
-    pages = [p.extract_text() or "" for p in PdfReader(str(signoff.pdf)).pages]
-    return Built(name, project, Path(signoff.pdf), signoff.root, load_manifest(signoff.pdf), pages)
-
-
-@pytest.fixture(scope="session")
-def packages(tmp_path_factory: pytest.TempPathFactory) -> dict[str, Built]:
-    base = tmp_path_factory.mktemp("examples")
-    return {name: _build(name, base) for name in PROJECTS}
 
 
 def _inputs(b: Built, file: str) -> dict[str, Any]:
@@ -85,6 +49,9 @@ def _compare(b: Built, expected: dict[tuple[str, str], tuple[Any, Any]]) -> None
     assert set(reported) == set(expected)
     for key, (demand, capacity) in expected.items():
         c = reported[key]
+        if demand is None:  # a part the package declares out of scope, named in its reason
+            assert c["verdict"] == "NOT COVERED", key
+            continue
         u = _unit(c["unit"])
         d = Q_(demand).to(u).magnitude
         cap = Q_(capacity).to(u).magnitude
@@ -165,6 +132,60 @@ def _job1_expected(b: Built) -> dict[tuple[str, str], tuple[Any, Any]]:
         Pa / A,
         Fc * _cp(FcE, Fc.to("psi").magnitude),
     )
+    exp.update(_post_connections_expected(data, Ru, Pa))
+    return exp
+
+
+def _post_connections_expected(
+    data: dict[str, Any], Ru: Any, Pa: Any
+) -> dict[tuple[str, str], tuple[Any, Any]]:
+    """Sheet 4: cap welds (AISC 360-16 §J2.4, §J4.2), strap bolts (NDS 2018 Table 12.3.1A,
+    double shear, steel side plates), anchor rod (Table J3.2), written out here."""
+    sec, post, con = data["beam"], data["post"], data["connections"]
+    Hu, Ha = con["brace_fraction"] * Ru, con["brace_fraction"] * Pa
+    w, Lw, tf = Q_(con["weld_size"]), Q_(con["weld_length"]), Q_(sec["tf"])
+    tp = Q_(con["cap_plate_t"])
+    Fy_b, Fu_b = Q_(sec["Fy"]), Q_(con["beam_Fu"])
+    Fy_p, Fu_p = Q_(con["plate_Fy"]), Q_(con["plate_Fu"])
+    weld = "P1, P2 cap weld"
+    exp: dict[tuple[str, str], tuple[Any, Any]] = {
+        (weld, "Minimum weld size"): (3 / 16 * inch, w),  # Table J2.4, 1/4 < t ≤ 1/2 in.
+        (weld, "Maximum weld size"): (w, tf - 1 / 16 * inch),  # §J2.2b(b)
+        (weld, "Minimum weld length"): (4 * w, Lw),
+        (weld, "Fillet weld strength"): (Hu, 0.75 * 0.60 * 70 * ksi * w / math.sqrt(2) * 2 * Lw),
+        (weld, "Base metal shear yielding, flange"): (Hu, 1.00 * 0.60 * Fy_b * tf * 2 * Lw),
+        (weld, "Base metal shear rupture, flange"): (Hu, 0.75 * 0.60 * Fu_b * tf * 2 * Lw),
+        (weld, "Base metal shear yielding, cap plate"): (Hu, 1.00 * 0.60 * Fy_p * tp * 2 * Lw),
+        (weld, "Base metal shear rupture, cap plate"): (Hu, 0.75 * 0.60 * Fu_p * tp * 2 * Lw),
+    }
+    # strap bolts: 1/2 in., F_yb = 45 ksi, steel F_es = 1.5 F_u, wood F_em = F_e⊥ (θ = 90°)
+    D, Fyb = 0.5, 45000.0
+    Fes = 1.5 * Fu_p.to("psi").magnitude
+    Fem = 6100 * 0.50**1.45 / math.sqrt(D)  # G = 0.50, Douglas Fir-Larch (from memory)
+    lm, ls = Q_(post["b"]).to("inch").magnitude, Q_(con["strap_t"]).to("inch").magnitude
+    Re, Kth = Fem / Fes, 1.25
+    k3 = -1 + math.sqrt(2 * (1 + Re) / Re + 2 * Fyb * (2 + Re) * D**2 / (3 * Fem * ls**2))
+    Z = min(
+        D * lm * Fem / (4 * Kth),
+        2 * D * ls * Fes / (4 * Kth),
+        2 * k3 * D * ls * Fem / ((2 + Re) * 3.2 * Kth),
+        2 * D**2 / (3.2 * Kth) * math.sqrt(2 * Fem * Fyb / (3 * (1 + Re))),
+    )
+    n = con["bolt_rows"]
+    bolts = "P1, P2 strap bolts"
+    exp |= {
+        (bolts, "End distance (main member)"): (2 * D * inch, Q_(con["bolt_end"])),
+        (bolts, "Loaded edge distance (main member)"): (4 * D * inch, Q_(con["bolt_edge"])),
+        (bolts, "Edge distance (main member)"): (1.5 * D * inch, Q_(con["bolt_edge"])),
+        # Table 12.5.1D, perpendicular, ℓ/D = 5.5/0.5 ≥ 6: 5D
+        (bolts, "Spacing between rows (main member)"): (5 * D * inch,
+                                                        Q_(con["bolt_row_spacing"])),
+        (bolts, "Lateral capacity of the fasteners"): (Ha, n * Z * ureg.lbf),
+    }  # fmt: skip
+    d_r = Q_(con["anchor_d"])
+    rod = "P1, P2 anchor rod"
+    exp[(rod, "Bolt shear")] = (Hu, 0.75 * 0.450 * 58 * ksi * math.pi * d_r**2 / 4)
+    exp[(rod, "Concrete anchorage")] = (None, None)  # ACI 318-19 Chapter 17: not covered
     return exp
 
 
@@ -245,7 +266,58 @@ def _job2_expected(b: Built) -> dict[tuple[str, str], tuple[Any, Any]]:
     )
     exp[("BR1", "Bearing on post B")] = (RB / (BR.b * Q_(tim["post_width"])),
                                          0.67 * Q_(tim["Fc_perp"]))  # fmt: skip
+    exp.update(_ledger_expected(data, qD + qL))
     return exp
+
+
+def _single_shear_z(D: float, ls: float, lm: float, Fes: float, Fem: float, Fyb: float,
+                    Kth: float, KD: float | None = None) -> float:  # fmt: skip
+    """NDS 2018 Table 12.3.1A single shear (lb, in., psi), written out here; R_d = 4, 3.6,
+    3.2 K_θ for D >= 1/4 in., K_D for every mode below (``KD``)."""
+    Re, Rt = Fem / Fes, lm / ls
+    k1 = (math.sqrt(Re + 2 * Re**2 * (1 + Rt + Rt**2) + Rt**2 * Re**3) - Re * (1 + Rt)) / (1 + Re)
+    k2 = -1 + math.sqrt(2 * (1 + Re) + 2 * Fyb * (1 + 2 * Re) * D**2 / (3 * Fem * lm**2))
+    k3 = -1 + math.sqrt(2 * (1 + Re) / Re + 2 * Fyb * (2 + Re) * D**2 / (3 * Fem * ls**2))
+    r1, r2, r3 = (4 * Kth, 3.6 * Kth, 3.2 * Kth) if KD is None else (KD, KD, KD)
+    return min(
+        D * lm * Fem / r1,
+        D * ls * Fes / r1,
+        k1 * D * ls * Fes / r2,
+        k2 * D * lm * Fem / ((1 + 2 * Re) * r3),
+        k3 * D * ls * Fem / ((2 + Re) * r3),
+        D**2 / r3 * math.sqrt(2 * Fem * Fyb / (3 * (1 + Re))),
+    )
+
+
+def _ledger_expected(data: dict[str, Any], q: Any) -> dict[tuple[str, str], tuple[Any, Any]]:
+    """Ledger L1 (sheet 3): 1/2 in. bolts, both members loaded perpendicular to grain."""
+    geo, led = data["geometry"], data["ledger"]
+    R = (q * Q_(geo["joist_spacing"]) * Q_(geo["joist_span"]) / 2).to("lbf")  # simple span
+    w = R / Q_(geo["joist_spacing"])
+    D, G = 0.5, 0.50  # 1/2 in. bolt; Douglas Fir-Larch G (NDS Table 12.3.3A, from memory)
+    Fe_perp = 6100 * G**1.45 / math.sqrt(D)  # NDS Table 12.3.3 footnote 2
+    ls = Q_(led["ledger_thickness"]).to("inch").magnitude
+    lm = Q_(led["band_thickness"]).to("inch").magnitude
+    Z = _single_shear_z(D, ls, lm, Fe_perp, Fe_perp, 45000.0, 1.25) * ureg.lbf
+    s = Q_(led["spacing"])
+    Zp = Z * 0.7 * 1.0 * min(1.0, (Q_(led["end"]) / (4 * D * inch)).to("").magnitude)
+    top, bottom = Q_(led["top"]), Q_(led["bottom"])
+    d_l, d_b = Q_(led["ledger_depth"]), Q_(led["band_depth"])
+    ratio = min(ls, lm) / D  # Table 12.5.1D, perpendicular: (5 l/D + 10)/8 D for 2 < l/D < 6
+    return {
+        ("L1", "Fastener lateral capacity"): (w * s, Zp),
+        ("L1", "Ledger loaded edge (top)"): (4 * D * inch, top),
+        ("L1", "Ledger unloaded edge (bottom)"): (1.5 * D * inch, bottom),
+        ("L1", "Rim unloaded edge (top)"): (1.5 * D * inch, top),
+        ("L1", "Rim loaded edge (bottom)"): (4 * D * inch, d_b - (d_l - bottom)),
+        ("L1", "End distance"): (2 * D * inch, Q_(led["end"])),
+        ("L1", "Spacing along the ledger"): ((5 * ratio + 10) / 8 * D * inch, s),
+        ("L1", "Spacing between the lines"): (4 * D * inch, d_l - top - bottom),
+        ("L1", f"Spacing against {led['prescriptive_table']}"): (
+            s,
+            Q_(led["prescriptive_spacing"]),
+        ),
+    }
 
 
 # -- job 3: workshop roof truss ---------------------------------------------------------------
@@ -347,6 +419,7 @@ def _job3_expected(b: Built) -> dict[tuple[str, str], tuple[Any, Any]]:
     assert p.Iy.to("in**4").magnitude == pytest.approx(Iy, rel=1e-9)
     compression(["L3U3"], "webs", "king post, T-braced (uplift)", A=A1 + A2,
                 r=math.sqrt(min(Ix, Iy) / (A1 + A2)))  # fmt: skip
+    exp.update(_heel_expected(data, combos))
     return exp
 
 
@@ -362,8 +435,10 @@ def test_every_check_matches_an_independent_recomputation(
     packages: dict[str, Built], name: str
 ) -> None:
     b = packages[name]
-    _compare(b, EXPECTED[name](b))
-    assert all(c["verdict"] == "OK" for c in _checks(b).values())
+    expected = EXPECTED[name](b)
+    _compare(b, expected)
+    covered = {k: c for k, c in _checks(b).items() if expected[k][0] is not None}
+    assert all(c["verdict"] == "OK" for c in covered.values())
 
 
 @pytest.mark.parametrize("name", PROJECTS)
@@ -432,6 +507,46 @@ def test_nothing_is_drawn_past_the_margins(packages: dict[str, Built], name: str
         # page margins of assets/calcpack.css: 19 mm left, 14 mm right; 1 pt for a border
         assert extent.x1 <= width - 14 * 72 / 25.4 + 1, (index + 1, extent.x1)
         assert extent.x0 >= 19 * 72 / 25.4 - 1, (index + 1, extent.x0)
+
+
+def _heel_expected(data: dict[str, Any], combos: dict[str, Any]) -> dict[tuple[str, str], Any]:
+    """Sheet 3: gusset nails (D < 1/4 in.: F_e = 16 600 G^1.84, R_d = K_D = 2.2) and the
+    clip-angle bolt (double shear, steel side plates, θ = 90°), NDS 2018 written out here."""
+    heel = data["heel"]
+    G_ply, G_df = heel["gusset_G"], 0.50  # Douglas Fir-Larch (Table 12.3.3A, from memory)
+    Fe_ply, Fe_df = 16600 * G_ply**1.84, 16600 * G_df**1.84
+    ls = Q_(heel["gusset_t"]).to("inch").magnitude
+    nails = {  # member, D, L of the nail (Appendix L, from memory), chord thickness, count
+        "bottom chord": ("L0L1", 0.113, 2.0, 1.5, heel["nails_bottom"]),
+        "top chord": ("L0U1", 0.131, 2.5, 2.5, heel["nails_top"]),
+    }
+    exp: dict[tuple[str, str], Any] = {}
+    for name, (m, D, L, t, n) in nails.items():
+        lm = min(L - ls, t)
+        Z = _single_shear_z(D, ls, lm, Fe_ply, Fe_df, 100000.0, 1.0, KD=2.2)
+        for c, (r, CD) in combos.items():
+            P = abs(r.forces[m].to("lbf").magnitude) / 2
+            key = (f"RT1 heel {name} ({c})", "Lateral capacity of the fasteners")
+            exp[key] = (P * ureg.lbf, n * Z * CD * ureg.lbf)
+    # clip-angle bolt: uplift of 0.6D + 0.6W at L0, C_D = 1.6
+    U = -combos["0.6D + 0.6W"][0].reaction_at("L0")[1].to("lbf")
+    D, lm, ts = 0.5, 1.5, Q_(heel["angle_t"]).to("inch").magnitude
+    Fes = 1.5 * Q_(heel["angle_Fu"]).to("psi").magnitude
+    Fem = 6100 * G_df**1.45 / math.sqrt(D)
+    Re, Kth = Fem / Fes, 1.25
+    k3 = -1 + math.sqrt(2 * (1 + Re) / Re + 2 * 45000.0 * (2 + Re) * D**2 / (3 * Fem * ts**2))
+    Z = min(
+        D * lm * Fem / (4 * Kth),
+        2 * D * ts * Fes / (4 * Kth),
+        2 * k3 * D * ts * Fem / ((2 + Re) * 3.2 * Kth),
+        2 * D**2 / (3.2 * Kth) * math.sqrt(2 * Fem * 45000.0 / (3 * (1 + Re))),
+    )
+    bolt = "RT1 heel uplift bolt"
+    exp[(bolt, "End distance (main member)")] = (2 * D * inch, Q_(heel["bolt_end"]))
+    exp[(bolt, "Loaded edge distance (main member)")] = (4 * D * inch, Q_(heel["bolt_edge"]))
+    exp[(bolt, "Edge distance (main member)")] = (1.5 * D * inch, Q_(heel["bolt_edge"]))
+    exp[(bolt, "Lateral capacity of the fasteners")] = (U, 1.6 * Z * ureg.lbf)
+    return exp
 
 
 @pytest.mark.parametrize("name", PROJECTS)

@@ -294,3 +294,73 @@ def test_review_add_refuses_a_quantity_the_sheet_does_not_record(
     assert "records no quantity 'NOPE'" in err[0]
     assert not (job / "review.toml").exists()  # nothing written
     assert add_comment(job, sheet="sheets/01-lintel.ipynb", text="?", who="T", quantity="w")
+
+
+# --- files that are not what they claim -------------------------------------------------
+
+
+@pytest.mark.parametrize(
+    ("content", "problem"),
+    [
+        ("this is not JSON", "not valid JSON"),
+        ('{"name": "a JSON file"}', "has no list of cells"),
+        ('{"cells": [], "nbformat": 3}', "format 3, not 4"),
+    ],
+)
+def test_a_sheet_that_is_not_a_notebook_is_refused_in_one_line_before_executing(
+    project: Path,
+    content: str,
+    problem: str,
+    no_execution: None,
+    capsys: pytest.CaptureFixture[str],
+) -> None:
+    (project / "sheets" / "01.ipynb").write_text(content, "utf-8")
+    with pytest.raises(ProjectFileError) as info:
+        build(project, workers=1)
+    assert info.value.name == "sheets[1].path"
+    assert problem in str(info.value)
+    assert main(["build", str(project), "--quiet", "--workers", "1"]) == 1
+    err = capsys.readouterr().err.strip().splitlines()
+    assert len(err) == 1
+    assert "sheets[1].path" in err[0]
+
+
+@pytest.mark.parametrize(
+    ("old", "new", "key", "hint"),
+    [
+        ("deflection_ratio", "deflection_ration", "limits.deflection_ration", "'deflection_ratio'"),
+        ("[material]", "[materials]", "materials", "'material'"),
+        ("f_b =", "fb =", "material.fb", "'f_b'"),
+        ("spans =", "span =", "beam.span", "'spans'"),
+    ],
+)
+def test_unknown_keys_in_a_beam_inputs_file_are_refused_with_a_suggestion(
+    old: str, new: str, key: str, hint: str
+) -> None:
+    from calcpack.inputs import beam_inputs
+    from calcpack.inputs.file import InputsFileError, read_inputs_text
+
+    template = Path(__file__).resolve().parents[2] / "templates" / "sheets" / "beam.inputs.toml"
+    text = template.read_text("utf-8")
+    assert old in text
+    data = read_inputs_text(text.replace(old, new, 1), path="beam.inputs.toml")
+    with pytest.raises(InputsFileError) as info:
+        beam_inputs(data, path="beam.inputs.toml")
+    assert info.value.name == key
+    assert f"did you mean {hint}?" in str(info.value)
+    assert "beam.inputs.toml" in str(info.value)
+
+
+def test_a_misspelt_load_key_is_refused() -> None:
+    from calcpack.inputs import beam_inputs
+    from calcpack.inputs.file import InputsFileError, read_inputs_text
+
+    template = Path(__file__).resolve().parents[2] / "templates" / "sheets" / "beam.inputs.toml"
+    text = (
+        template.read_text("utf-8")
+        + '\n[[loads]]\ncase = "L"\ntype = "point"\nP = "5 kN"\npos = "1 m"\n'
+    )
+    with pytest.raises(InputsFileError) as info:
+        beam_inputs(read_inputs_text(text))
+    assert info.value.name.endswith(".pos")
+    assert "is not a known key" in str(info.value)

@@ -138,3 +138,32 @@ def test_legacy_records_without_sig_still_compare() -> None:
             v.pop("sig", None)
     (change,) = diff_manifests(old, new).of_kind("input")
     assert change.new == "3.5 kN/m"  # up to six figures: the sheet's were not recorded
+
+
+def _truss(P: float = 10.0):
+    from calcpack.analysis.truss_model import JointLoad, Truss
+
+    return Truss.build(
+        nodes={"A": (0 * m, 0 * m), "B": (3 * m, 0 * m), "C": (3 * m, 3 * m), "D": (0 * m, 3 * m)},
+        members=[("A", "B"), ("B", "C"), ("C", "D"), ("D", "A"), ("A", "C")],
+        supports={"A": "pin", "B": "roller"},
+        loads=[
+            JointLoad("D", Fx=6 * kN, case="W"),
+            JointLoad("C", Fy=-P * kN, case="D"),
+        ],
+        name="T1",
+    )
+
+
+def test_a_changed_joint_load_is_an_input_change() -> None:
+    from calcpack.analysis.truss_solve import solve_truss
+
+    def sheet(P: float) -> Sheet:
+        s = Sheet("Truss T1", system="SI")
+        s.add(solve_truss(_truss(P), case="D").working(figures=False))
+        return s
+
+    diff = diff_manifests(_manifest(sheet(10.0), "A"), _manifest(sheet(12.0), "B"))
+    inputs = {c.name: c for c in diff.of_kind("input")}
+    assert inputs["T1 load 2 (D) at C: Fy"].new == "−12.0 kN"
+    assert "T1 load 1 (W) at D: Fx" not in inputs

@@ -7,7 +7,7 @@ exactly on its curve M_Ed = M_N,y,Rd.
 
 from __future__ import annotations
 
-from hypothesis import given
+from hypothesis import given, settings
 from hypothesis import strategies as st
 
 from calcpack.checks.en1993 import DesignForces, SteelMemberEC, check_en1993_member
@@ -39,6 +39,7 @@ def test_f_at_most_one(kc, lam):
     assert f_modification(kc, lam) <= 1.0
 
 
+@settings(deadline=None, max_examples=30)  # each example runs the whole check
 @given(st.floats(0.26, 0.9))
 def test_axial_and_bending_is_one_on_its_curve(n):
     # 254x254x73 UC S355 (class 1 at these n): M_Ed = M_N,y,Rd  ->  utilisation 1

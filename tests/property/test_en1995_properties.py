@@ -6,7 +6,7 @@ from __future__ import annotations
 
 import itertools
 
-from hypothesis import given
+from hypothesis import given, settings
 from hypothesis import strategies as st
 
 from calcpack.checks.en1995 import DURATIONS, TimberForcesEC, TimberMemberEC, check_en1995_member
@@ -25,6 +25,7 @@ def test_k_mod_ordering_by_duration():
 lengths = st.floats(0.3, 6.0)
 
 
+@settings(deadline=None, max_examples=30)  # each example runs the whole check
 @given(lengths, lengths)
 def test_k_c_at_most_one_and_monotonic(l1, l2):
     lo, hi = sorted((l1, l2))
@@ -37,6 +38,7 @@ def test_k_c_at_most_one_and_monotonic(l1, l2):
     assert 0 < kc(hi) <= kc(lo) <= 1.0
 
 
+@settings(deadline=None, max_examples=30)  # each example runs the whole check
 @given(lengths, lengths)
 def test_k_crit_at_most_one_and_monotonic(l1, l2):
     lo, hi = sorted((l1, l2))
@@ -48,6 +50,7 @@ def test_k_crit_at_most_one_and_monotonic(l1, l2):
     assert 0 < kcrit(hi) <= kcrit(lo) <= 1.0
 
 
+@settings(deadline=None, max_examples=30)  # each example runs the whole check
 @given(st.floats(0.05, 0.95))
 def test_compression_and_bending_is_one_on_its_curve(t):
     # (σ_c/f_c)² + σ_m/f_m = 1 with σ_c = √t f_c and σ_m = (1 − t) f_m (short member, λ_rel ≤ 0.3)

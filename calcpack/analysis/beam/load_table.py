@@ -1,4 +1,4 @@
-"""The loads on a beam as a table that records each one as an input of the sheet.
+"""The loads on a beam or a truss as a table that records each one as an input of the sheet.
 
 Every load's magnitude and position, by load case, is shown in the sheet's units and
 significant figures and recorded in the manifest (``kind = "given"``), so a revision comparison
@@ -18,7 +18,7 @@ __all__ = ["load_records", "load_table"]
 
 _POSITIONS = ("x", "start", "end")
 """Fields of a load that say where it acts; the others say how much."""
-_NOT_RECORDED = ("case", "label", "rtol", "description", "func")
+_NOT_RECORDED = ("case", "label", "rtol", "description", "func", "node")
 
 
 def _fields(load: Any) -> list[tuple[str, Quantity]]:
@@ -57,7 +57,8 @@ def load_records(
     loads: Iterable[Any], *, member: str, length: Quantity | None, settings: DisplaySettings
 ) -> tuple[list[list[Any]], list[Any]]:
     """(table rows, records) of ``loads``: one row per load (number, case, kind, how much,
-    where), one record per quantity, named ``"<member> load <n> (<case>): <field>"``."""
+    where), one record per quantity, named ``"<member> load <n> (<case>): <field>"`` (with
+    ``" at <node>"`` after the case for a joint load)."""
     from calcpack.contract.records import Record
     from calcpack.working.format import format_quantity_text, format_unit_text
 
@@ -66,14 +67,16 @@ def load_records(
     for n, raw in _numbered(loads):
         load = _resolved(raw, length)
         how: list[str] = []
-        where: list[str] = []
+        node = getattr(load, "node", None)
+        where: list[str] = [f"joint {node}"] if node is not None else []
+        at = f" at {node}" if node is not None else ""
         for name, q in _fields(load):
             shown = _shown(q, settings)
             text = f"{name} = {format_quantity_text(shown, settings.sig_figs)}"
             (where if name in _POSITIONS else how).append(text)
             records.append(
                 Record(
-                    name=f"{member} load {n} ({load.case}): {name}",
+                    name=f"{member} load {n} ({load.case}){at}: {name}",
                     symbol=name,
                     value=float(shown.magnitude),
                     unit=format_unit_text(shown.units),
@@ -84,7 +87,8 @@ def load_records(
             )
         if getattr(load, "description", None) and not how:
             how.append(str(load.description))
-        kind = type(load).__name__ + (f" ({load.label})" if load.label else "")
+        label = getattr(load, "label", None)
+        kind = type(load).__name__ + (f" ({label})" if label else "")
         rows.append([str(n), load.case, kind, ", ".join(how), ", ".join(where)])
     return rows, records
 

@@ -121,7 +121,7 @@ class _Logic:
         s = self.m.section
         comb = f.combination or None
         rows = [
-            [e.name, round(e.ratio, 2), " / ".join(f"{x:.1f}" for x in e.limits), e.cls, e.rule]
+            [e.name, f"{e.ratio:.1f}", " / ".join(f"{x:.1f}" for x in e.limits), str(e.cls), e.rule]
             for e in cl.elements
         ]
         c.table(
@@ -256,7 +256,9 @@ class _Logic:
             tw = c.given("t_w", s.tw, "web thickness", source=s.source)
             r = c.given("r", s.r, "root radius", source=s.source)
             hw = c.given("h_w", s.hw, "web depth h − 2t_f", source=s.source)
-            eta = c.given("eta", 1.0, "η", source="UK NA to BS EN 1993-1-5 (from memory)")
+            eta = c.given(
+                "eta", 1.0, "shear area factor", source="UK NA to BS EN 1993-1-5 (from memory)"
+            )
             k = 2 if s.family != "PFC" else 1
             return c.max(A - 2 * b * tf + (tw + k * r) * tf, eta * hw * tw)
         if s.family == "CHS":

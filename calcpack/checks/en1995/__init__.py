@@ -20,6 +20,7 @@ from calcpack.checks.en1995.serviceability import (
 from calcpack.checks.en1995.values import (
     DURATIONS,
     StrengthClass,
+    combination_duration,
     gamma_M,
     k_def,
     k_mod,
@@ -36,6 +37,7 @@ __all__ = [
     "check_en1995_deflection",
     "check_en1995_floor_vibration",
     "check_en1995_member",
+    "combination_duration",
     "gamma_M",
     "k_def",
     "k_mod",

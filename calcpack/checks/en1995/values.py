@@ -15,7 +15,7 @@ wind instantaneous.
 
 from __future__ import annotations
 
-from collections.abc import Iterable
+from collections.abc import Iterable, Mapping
 from dataclasses import dataclass
 from typing import Literal
 
@@ -28,6 +28,7 @@ __all__ = [
     "DURATIONS",
     "Duration",
     "StrengthClass",
+    "combination_duration",
     "gamma_M",
     "k_def",
     "k_mod",
@@ -160,3 +161,28 @@ def shortest_duration(durations: Iterable[str]) -> Duration:
         lookup("duration", d, {x: x for x in DURATIONS}, what="load-duration class")
     order: list[str] = list(DURATIONS)
     return DURATIONS[max(order.index(d) for d in ds)]
+
+
+def combination_duration(factors: Mapping[str, float], durations: Mapping[str, str]) -> Duration:
+    """The load-duration class of a combination: the shortest of the actions it includes
+    (non-zero factor), EN 1995-1-1 §3.1.3(2).
+
+    Args:
+        factors: case -> load factor (e.g. ``LoadCombination.factors``).
+        durations: case -> duration class (e.g. ``{"G": "permanent", "Q": "medium"}``, UK NA
+            Table NA.1 for domestic imposed floor loads).
+
+    Raises:
+        InputError: a case of the combination without a duration.
+    """
+    acting = [case for case, f in factors.items() if f != 0]
+    for case in acting:
+        if case not in durations:
+            raise InputError(
+                f"Load case {case!r} of the combination has no load-duration class in "
+                f"durations ({sorted(durations)})",
+                name=f"durations[{case!r}]",
+                value=None,
+                expected=" / ".join(DURATIONS),
+            )
+    return shortest_duration(durations[c] for c in acting)

@@ -24,6 +24,7 @@ import math
 from dataclasses import dataclass
 from typing import Any, Literal
 
+from calcpack import views
 from calcpack.checks.base import MemberChecks, Recorder, Standard, run_checks
 from calcpack.errors import InputError, OutOfScopeError
 from calcpack.units import Q_, Quantity, require, si
@@ -147,10 +148,9 @@ class MasonryBearing:
         )
 
     def svg(self) -> str:
-        """The elevation sketch (see :mod:`calcpack.plots.masonry`)."""
-        from calcpack.plots.masonry import masonry_bearing_svg
-
-        return masonry_bearing_svg(self)
+        """The elevation sketch (drawn by :mod:`calcpack.plots.masonry`, via the registry)."""
+        svg: str = views.render("svg", self)
+        return svg
 
 
 def check_en1996_bearing(

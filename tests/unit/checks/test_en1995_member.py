@@ -80,3 +80,16 @@ def test_beam_column_working_builds():
     names = [x.name for x in r.results]
     assert "Lateral torsional stability with compression (6.35)" in names
     assert len(r.working()) > 20
+
+
+def test_combination_duration_is_the_shortest_acting():
+    from calcpack.checks.en1995 import combination_duration
+    from calcpack.combinations import annex_combinations, en1990_annex
+
+    uls = annex_combinations(en1990_annex("UK"), variable={"Q": "A", "S": "snow_up_to_1000m"})
+    durations = {"G": "permanent", "Q": "medium", "S": "short"}
+    # 6.10a carries ψ0 S: snow (short-term) is the shortest action in it
+    assert combination_duration(uls["6.10a"].factors, durations) == "short"
+    assert combination_duration({"G": 1.35, "Q": 0.0}, durations) == "permanent"
+    with pytest.raises(InputError, match=r"'S'"):
+        combination_duration(uls["6.10a"].factors, {"G": "permanent", "Q": "medium"})

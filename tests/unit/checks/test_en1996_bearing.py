@@ -3,7 +3,7 @@
 from __future__ import annotations
 
 import pytest
-from hypothesis import given
+from hypothesis import given, settings
 from hypothesis import strategies as st
 
 from calcpack.checks.en1996 import MasonryWall, Padstone, check_en1996_bearing
@@ -43,6 +43,7 @@ def test_unknown_execution_class_names_the_input():
         _wall(execution=3)
 
 
+@settings(deadline=None, max_examples=30)  # each example runs the whole check
 @given(st.floats(0, 3000), st.floats(50, 600), st.floats(0.5, 4.0))
 def test_beta_within_its_bounds(a1, lb, hc):
     r = check_en1996_bearing(

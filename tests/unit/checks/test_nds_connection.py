@@ -186,3 +186,18 @@ def test_tearout_by_hand():
     # A_net = 1 × (2.5 − 0.5625) × 3.5 = 6.78 in.²; Z_GT = 3 780 + 575 × 6.78 = 7 679 lb
     assert r.values["Z_GT"].m_as("lbf") == pytest.approx(3780.0 + 575.0 * 1.9375 * 3.5)
     assert r.passed
+
+
+def test_wet_service_bolt_in_withdrawal_is_refused_naming_the_fastener():
+    wet = ConnectionService(service="wet")
+    with pytest.raises(OutOfScopeError, match="bolt has no withdrawal design value"):
+        check_nds_withdrawal(nds_fastener("5/8 in. bolt"), WoodMember(Q_(3.5, "inch"), DF),
+                             P=Q_(100, "lbf"), penetration=Q_(3, "inch"), service=wet)  # fmt: skip
+
+
+def test_fabricated_wet_bolts_in_several_rows_take_c_m_0_4():
+    sv = ConnectionService(fabrication="wet", service="dry")
+    lay = FastenerLayout(rows=2, row_spacing=Q_(2.5, "inch"), end=Q_(3.5, "inch"),
+                         edge=Q_(1.5, "inch"))  # fmt: skip
+    r = check_nds_connection(_bolted(), P=Q_(100, "lbf"), layout=lay, service=sv)
+    assert r.values["C_M"].m == pytest.approx(0.4)  # Table 11.3.3 footnote (from memory)

@@ -24,6 +24,7 @@ def project(tmp_path: Path) -> Path:
 def test_templates_are_the_starting_points() -> None:
     assert sheet_template_names() == [
         "beam",
+        "deck_ledger",
         "footing",
         "free_body",
         "section",
@@ -34,7 +35,12 @@ def test_templates_are_the_starting_points() -> None:
 
 
 @pytest.mark.parametrize(
-    ("template", "check"), [("steel_column", "Compression"), ("footing", "Bearing pressure")]
+    ("template", "check"),
+    [
+        ("steel_column", "Compression"),
+        ("footing", "Bearing pressure"),
+        ("deck_ledger", "Fastener lateral capacity"),
+    ],
 )
 def test_catalogue_sheets_run_as_made(
     project: Path, monkeypatch: pytest.MonkeyPatch, template: str, check: str

@@ -67,6 +67,7 @@ def test_member_panel_search_ranks_and_uses_the_chosen_shape(column_file: Path) 
     found = panel.search(count=3)
     assert found is not None
     assert list(panel.pick.options) == [t.name for t in found.passing]
+    assert panel.pick.value == found.passing[0].name  # the lightest is preselected
     assert 'class="cp-candidate"' in panel.ranking.value
     panel.use(found.passing[1].name)
     assert load_inputs(column_file)["member"]["shape"] == found.passing[1].name

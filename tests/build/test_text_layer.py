@@ -1,0 +1,48 @@
+"""The text layer of the example packages: a reader searching or copying finds typeset
+symbols and values, never raw identifiers; no heading names its member twice; a US package
+carries no Eurocode terms. (The three jobs are built by test_example_projects' fixture; the
+lintel demo by the build conftest.)"""
+
+from __future__ import annotations
+
+from typing import Any
+
+import pytest
+from textlayer import raw_identifiers, repeated_headings
+
+pytestmark = pytest.mark.build
+
+
+def test_the_pattern_list_catches_what_a_reader_saw() -> None:
+    """The patterns find each defect the page-by-page reading found (issue text), and leave
+    typeset text and file names alone."""
+    seen = "R_A = 2.606 kip; F_c,star; F_cperp; 480 ft * lbf; 9.8696; x = 7.800000000000001 m"
+    kinds = {what for what, _ in raw_identifiers(seen)}
+    assert len(kinds) == 5
+    assert raw_identifiers("RA = 2.61 kip from sheets/02_beam_B1.ipynb, Fc⊥ = 425 psi") == []
+    assert repeated_headings("B1: B1: deflection (live)") == ["B1: B1:"]
+    assert repeated_headings("B1: deflection (live)") == []
+
+
+def test_demo_package_text_layer(demo_texts: list[str]) -> None:
+    text = "\n".join(demo_texts)
+    assert raw_identifiers(text) == []
+    assert repeated_headings(text) == []
+
+
+def test_example_packages_text_layer(packages: dict[str, Any]) -> None:
+    for name, built in packages.items():
+        text = "\n".join(built.pages)
+        assert raw_identifiers(text) == [], name
+        assert repeated_headings(text) == [], name
+        if built.manifest["project"]["units"] == "US":
+            assert "national annex" not in text.lower(), name
+            assert "Eurocode" not in text, name
+
+
+def test_cited_values_are_searchable(packages: dict[str, Any]) -> None:
+    """Values cited in prose are text: the beam sheet's sentence can be found and copied."""
+    text = " ".join(" ".join(packages["alteration_ashgrove_lane"].pages).split())
+    assert "The beam analysis gives RA = 2.61 kip and RB = 2.08 kip" in text
+    deck = " ".join(" ".join(packages["deck_larkspur_court"].pages).split())
+    assert "The analysis gives RB = 600 lbf and MB = 480 lbf·ft" in deck
