@@ -44,7 +44,7 @@ from calcpack.inputs import (
     load_inputs,
     update_inputs,
 )
-from calcpack.inputs.file import cached_unit, split_key
+from calcpack.inputs.file import cached_unit
 from calcpack.units import Q_, Quantity
 from calcpack.widgets.fields import (
     PANEL_CSS,
@@ -55,29 +55,13 @@ from calcpack.widgets.fields import (
     label,
     wait_for_output_sent,
 )
+from calcpack.widgets.panel import set_key
 from calcpack.widgets.rerun import RerunControl
 from calcpack.widgets.svg import beam_diagram_parts
 
 __all__ = ["BeamPanel", "beam_panel", "outcome_table_html"]
 
 DRAWINGS = ("loading", "shear", "moment", "deflection")  # as beam_diagram_parts returns them
-
-
-def _set(data: dict[str, Any], key: str, value: Any) -> None:
-    node: Any = data
-    parts = split_key(key)
-    for p in parts[:-1]:
-        node = node[p]
-    last = parts[-1]
-    if value is None:  # as update_inputs: None removes the key or list item
-        if isinstance(node, list) and isinstance(last, int):
-            del node[last]
-        else:
-            node.pop(last, None)
-    elif isinstance(node, list) and last == len(node):
-        node.append(value)
-    else:
-        node[last] = value
 
 
 def _fmt(q: Quantity, unit: str, sig: int = 3) -> str:
@@ -319,7 +303,7 @@ class BeamPanel(PanelDisplay):
         candidate = copy.deepcopy(self.data)
         try:
             for k, v in changes.items():
-                _set(candidate, k, v)
+                set_key(candidate, k, v)
             validated = beam_inputs(candidate, path=self.path)
         except CalcpackError as exc:
             self._error(f"Not saved: {exc}")

@@ -16,6 +16,7 @@ from calcpack.units import Q_, Quantity
 
 __all__ = [
     "PANEL_CSS",
+    "MarkedField",
     "QuantityField",
     "field_for_error",
     "interactive_session",
@@ -97,7 +98,27 @@ def label(text: str, width: str = LABEL_WIDTH) -> ipw.Label:
     return ipw.Label(text, layout=ipw.Layout(width=width))
 
 
-class QuantityField:
+class MarkedField:
+    """What every panel field shares: its key, its input box and the error shown beside it."""
+
+    key: str
+    box: Any
+    message: Any
+    error: str
+
+    def show_error(self, message: str) -> None:
+        """Mark the field invalid and show ``message`` beside it (the value stays as typed)."""
+        self.error = message
+        self.box.add_class("cp-invalid")
+        self.message.value = f'<span class="cp-error">{escape(message)}</span>'
+
+    def clear_error(self) -> None:
+        self.error = ""
+        self.box.remove_class("cp-invalid")
+        self.message.value = ""
+
+
+class QuantityField(MarkedField):
     """A number box for one quantity in the inputs file, shown in the unit the file uses.
 
     Args:
@@ -133,17 +154,6 @@ class QuantityField:
         )
         self._on_change = on_change
         self.box.observe(self._changed, names="value")
-
-    def show_error(self, message: str) -> None:
-        """Mark the field invalid and show ``message`` beside it (the value stays as typed)."""
-        self.error = message
-        self.box.add_class("cp-invalid")
-        self.message.value = f'<span class="cp-error">{escape(message)}</span>'
-
-    def clear_error(self) -> None:
-        self.error = ""
-        self.box.remove_class("cp-invalid")
-        self.message.value = ""
 
     @property
     def quantity(self) -> Quantity:

@@ -33,6 +33,7 @@ from calcpack.inputs.file import get_path, split_key
 from calcpack.units import Quantity
 from calcpack.widgets.fields import (
     PANEL_CSS,
+    MarkedField,
     PanelDisplay,
     QuantityField,
     css_key,
@@ -152,7 +153,7 @@ def checks_outputs(checks: Sequence[MemberChecks]) -> dict[str, str]:
     return {"bars": utilisation_bars_svg(bars), "results": checks_table_html(checks)}
 
 
-class _Field:
+class _Field(MarkedField):
     """A non-quantity field (number, text, choice) with the same error marking."""
 
     def __init__(self, key: str, box: Any, text: str) -> None:
@@ -166,16 +167,6 @@ class _Field:
         self.widget = ipw.HBox(
             [label(text), box, self.message], layout=ipw.Layout(flex_flow="row wrap")
         )
-
-    def show_error(self, message: str) -> None:
-        self.error = message
-        self.box.add_class("cp-invalid")
-        self.message.value = f'<span class="cp-error">{escape(message)}</span>'
-
-    def clear_error(self) -> None:
-        self.error = ""
-        self.box.remove_class("cp-invalid")
-        self.message.value = ""
 
 
 class InputsPanel(PanelDisplay):
