@@ -169,6 +169,7 @@ def check_output_folder(out: Path) -> None:
     """
     import tempfile
 
+    made = False
     if not out.exists():
         if not out.parent.is_dir():
             raise BuildError(
@@ -177,6 +178,7 @@ def check_output_folder(out: Path) -> None:
             )
         try:
             out.mkdir()
+            made = True
         except OSError as exc:
             raise BuildError(
                 f"Output folder {str(out)!r} cannot be made ({exc.strerror}); give another --out"
@@ -191,6 +193,9 @@ def check_output_folder(out: Path) -> None:
             f"Output folder {str(out)!r} is not writable ({exc.strerror}); nothing was executed. "
             "Make it writable or give another --out"
         ) from exc
+    finally:
+        if made:  # made only to prove it can be: a failed build leaves nothing behind
+            out.rmdir()
 
 
 def _free_name(folder: Path, name: str) -> Path:

@@ -50,7 +50,8 @@ def test_bad_job_number_is_named(tmp_path: Path) -> None:
 
 def test_demo_project_is_found_and_valid() -> None:
     project = load_project(demo_project_source())
-    assert len(project.sheets) == 3
+    # loads, beam, posts and bearing, connections, and the checker's verification
+    assert len(project.sheets) == 5
     for sheet in project.sheets:
         nb = nbformat.read(project.sheet_path(sheet), as_version=4)
         assert nb.metadata["kernelspec"]["name"] == "python3"
