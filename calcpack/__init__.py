@@ -302,6 +302,8 @@ _LAZY: dict[str, str] = {
     "check_aisc_bearing": "calcpack.checks.aisc360.bearing_j7",
     "TorsionalBraceCase": "calcpack.checks.aisc360.bracing_torsional",
     "check_aisc_torsional_bracing": "calcpack.checks.aisc360.bracing_torsional",
+    "rectangular_bar": "calcpack.sections.steel_bars",
+    "round_bar": "calcpack.sections.steel_bars",
 }
 
 
@@ -528,6 +530,10 @@ if TYPE_CHECKING:
         euro_section_names,
     )
     from calcpack.sections.rebar import rebar
+    from calcpack.sections.steel_bars import (
+        rectangular_bar,
+        round_bar,
+    )
     from calcpack.signing import (
         diff_packages,
         make_demo_credentials,
@@ -816,9 +822,11 @@ __all__ = [
     "reactions_by_case",
     "read_manifest",
     "rebar",
+    "rectangular_bar",
     "resultant",
     "roof_snow_asce7",
     "roof_snow_en",
+    "round_bar",
     "sawn_candidates",
     "sawn_timber",
     "second_moment_from_radius",
