@@ -298,6 +298,10 @@ _LAZY: dict[str, str] = {
     "masonry_fk": "calcpack.checks.en1996",
     "preset": "calcpack.presets",
     "project_preset": "calcpack.presets",
+    "BearingSurface": "calcpack.checks.aisc360.bearing_j7",
+    "check_aisc_bearing": "calcpack.checks.aisc360.bearing_j7",
+    "TorsionalBraceCase": "calcpack.checks.aisc360.bracing_torsional",
+    "check_aisc_torsional_bracing": "calcpack.checks.aisc360.bracing_torsional",
 }
 
 
@@ -368,6 +372,14 @@ if TYPE_CHECKING:
         summary_table,
     )
     from calcpack.checks.aci318 import ACIFootingDesign, check_aci_footing
+    from calcpack.checks.aisc360.bearing_j7 import (
+        BearingSurface,
+        check_aisc_bearing,
+    )
+    from calcpack.checks.aisc360.bracing_torsional import (
+        TorsionalBraceCase,
+        check_aisc_torsional_bracing,
+    )
     from calcpack.checks.checklists import load_checklists, member_checklist
     from calcpack.checks.en1992 import ECFootingDesign, check_en1992_footing
     from calcpack.checks.en1993 import (
@@ -577,6 +589,7 @@ __all__ = [
     "BasePlate",
     "Beam",
     "BeamResult",
+    "BearingSurface",
     "Block",
     "BlockShear",
     "BodySupport",
@@ -696,6 +709,7 @@ __all__ = [
     "TimberMemberEC",
     "TimberValues",
     "Topography",
+    "TorsionalBraceCase",
     "Triangle",
     "Truss",
     "TrussResult",
@@ -727,12 +741,14 @@ __all__ = [
     "check_aisc_anchor_rods",
     "check_aisc_base_plate",
     "check_aisc_beam",
+    "check_aisc_bearing",
     "check_aisc_block_shear",
     "check_aisc_bolts",
     "check_aisc_bracing",
     "check_aisc_fillet_weld",
     "check_aisc_member",
     "check_aisc_plate",
+    "check_aisc_torsional_bracing",
     "check_aisc_web_bearing",
     "check_deck_ledger",
     "check_deflection",

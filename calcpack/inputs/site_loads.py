@@ -29,6 +29,7 @@ from typing import Any
 
 from calcpack.errors import InputError
 from calcpack.inputs.file import InputsFileError, Spec, require_input
+from calcpack.inputs.layout import Table, refuse_unknown_keys
 from calcpack.loads.derive import Derivation
 from calcpack.loads.roof_cases import RoofProfile, case_groups
 from calcpack.loads.roof_profiles import (
@@ -43,6 +44,29 @@ __all__ = ["STANDARDS", "SiteLoads", "site_loads_inputs"]
 
 STANDARDS = ("ASCE 7-16", "EN 1991 UK")
 _P = "[force] / [length] ** 2"
+_SNOW = {
+    "ASCE 7-16": ("pg", "pg_source", "terrain", "exposure", "thermal", "risk_category", "surface"),
+    "EN 1991 UK": ("altitude", "zone", "topography"),
+}
+_WIND = {
+    "ASCE 7-16": ("V", "V_source", "exposure", "enclosure"),
+    "EN 1991 UK": ("vb_map", "vb_source", "altitude", "c_e", "c_e_source", "c_eT", "loaded_area"),
+}
+
+
+def layout(standard: str) -> Table:
+    """The keys a site loads inputs file may hold for ``standard`` (one of STANDARDS)."""
+    note = f"for standard {standard!r}"
+    return Table(
+        {
+            "site": Table(dict.fromkeys(("mark", "standard"))),
+            "roof": Table(
+                dict.fromkeys(("shape", "slope", "width", "length", "height", "spacing"))
+            ),
+            "snow": Table(dict.fromkeys(_SNOW[standard]), note=note),
+            "wind": Table(dict.fromkeys(_WIND[standard]), note=note),
+        }
+    )
 
 
 def _get(
@@ -274,8 +298,10 @@ def site_loads_inputs(data: Mapping[str, Any], *, path: Path | str | None = None
             provisions (named by the derivation).
     """
     where = str(path) if path is not None else "(inputs)"
+    refuse_unknown_keys(data, Table(dict.fromkeys(("site", "roof", "snow", "wind"))), path=path)
     site = data.get("site", {})
     standard = _get(site, "site", "standard", Spec("text", choices=STANDARDS), where)
+    refuse_unknown_keys(data, layout(standard), path=path)
     roof = data.get("roof")
     if not isinstance(roof, Mapping):
         raise InputsFileError(

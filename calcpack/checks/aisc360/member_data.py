@@ -59,6 +59,7 @@ FACTORS: Mapping[str, Factor] = MappingProxyType(
         "concrete bearing": Factor(0.65, 2.31, "AISC 360-16 §J8"),
         "plate flexure": Factor(0.90, 1.67, "AISC 360-16 §F1"),
         "bracing": Factor(0.75, 2.00, "AISC 360-16 Appendix 6.1"),
+        "torsional bracing": Factor(0.75, 3.00, "AISC 360-16 Appendix 6.3.2"),
     }
 )
 
