@@ -304,6 +304,8 @@ _LAZY: dict[str, str] = {
     "check_aisc_torsional_bracing": "calcpack.checks.aisc360.bracing_torsional",
     "rectangular_bar": "calcpack.sections.steel_bars",
     "round_bar": "calcpack.sections.steel_bars",
+    "AngleStrut": "calcpack.checks.aisc360.compression_angle",
+    "check_aisc_angle_strut": "calcpack.checks.aisc360.compression_angle",
 }
 
 
@@ -381,6 +383,10 @@ if TYPE_CHECKING:
     from calcpack.checks.aisc360.bracing_torsional import (
         TorsionalBraceCase,
         check_aisc_torsional_bracing,
+    )
+    from calcpack.checks.aisc360.compression_angle import (
+        AngleStrut,
+        check_aisc_angle_strut,
     )
     from calcpack.checks.checklists import load_checklists, member_checklist
     from calcpack.checks.en1992 import ECFootingDesign, check_en1992_footing
@@ -590,6 +596,7 @@ __all__ = [
     "Abs",
     "AllowableBearing",
     "Angle",
+    "AngleStrut",
     "AreaLoad",
     "BaseMetal",
     "BasePlate",
@@ -745,6 +752,7 @@ __all__ = [
     "case_groups",
     "check_aci_footing",
     "check_aisc_anchor_rods",
+    "check_aisc_angle_strut",
     "check_aisc_base_plate",
     "check_aisc_beam",
     "check_aisc_bearing",
