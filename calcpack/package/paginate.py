@@ -12,7 +12,9 @@ the whole document is written into each chunk instead:
   holding the target section's page, written on every link to a section;
 - the running footer strings (``.cp-strings``) are repeated at the start of every chunk;
 - links and outline: each chunk's bookmarks and links within it are kept by the join; links to
-  a section in another chunk are added after the join, as named destinations.
+  a section in another chunk are added after the join, as named destinations;
+- tags: every chunk is written tagged, and the join grafts each chunk's structure tree onto the
+  first's (:mod:`calcpack.package.pdfjoin`).
 
 Those values are known only after a layout, and "sheet page n of N" needs the page count of each
 sheet, so :func:`paginate` lays out with assumed page counts per section (the previous build's
@@ -27,7 +29,7 @@ at the bottom left, for the signing step to place its signature fields.
 
 The PDF is reproducible: its dates come from the caller (the revision date or
 SOURCE_DATE_EPOCH), the identifier is a hash of the content, and the attached files carry the
-same fixed dates. It is written as PDF/A-3b (archival, with attachments).
+same fixed dates. It is written as tagged PDF/A-3b (archival, with attachments).
 """
 
 from __future__ import annotations
@@ -369,7 +371,7 @@ def _lay_out_chunk(
         document = HTML(string=html, base_url=base_url).render()
         sections = _section_pages(document, ids)
         holds = assumed is not None and _as_assumed(sections, assumed)
-        pdf = document.write_pdf(pdf_variant=PDF_VARIANT) if holds else None
+        pdf = document.write_pdf(pdf_variant=PDF_VARIANT, pdf_tags=True) if holds else None
         return _Chunk(sections, len(document.pages), tuple(_foreign_links(document)), pdf, holds)
 
 
@@ -467,7 +469,7 @@ class ChunkStore:
                 path.unlink(missing_ok=True)
 
 
-_LAYOUT_FORMAT = "calcpack-chunk/2"  # 2: sealed entries (calcpack.package.cache)
+_LAYOUT_FORMAT = "calcpack-chunk/3"  # 2: sealed entries (calcpack.package.cache); 3: tagged
 
 
 # --------------------------------------------------------------------------- the passes
@@ -672,45 +674,6 @@ def _one_pass(
 # --------------------------------------------------------------------------- the PDF
 
 
-def _join(first: bytes, rest: Sequence[bytes], links: Sequence[_Link]) -> bytes:
-    """Append the other chunks' pages to the first chunk's PDF (its catalog, metadata and
-    attachments are the package's), with their outline, links and named destinations."""
-    from pypdf import PdfReader, PdfWriter
-    from pypdf.generic import (
-        ArrayObject,
-        DictionaryObject,
-        FloatObject,
-        NameObject,
-        NumberObject,
-        TextStringObject,
-    )
-
-    base = PdfReader(io.BytesIO(first))
-    writer = PdfWriter(clone_from=base)
-    writer.pdf_header = base.pdf_header
-    for data in rest:
-        writer.append(PdfReader(io.BytesIO(data)), import_outline=True)
-    for link in links:
-        annotation = DictionaryObject(
-            {
-                NameObject("/Type"): NameObject("/Annot"),
-                NameObject("/Subtype"): NameObject("/Link"),
-                NameObject("/Rect"): ArrayObject(FloatObject(v) for v in link.rect),
-                NameObject("/BS"): DictionaryObject({NameObject("/W"): NumberObject(0)}),
-                # PDF/A: annotations must be printable (flag 4).
-                NameObject("/F"): NumberObject(4),
-                NameObject("/Dest"): TextStringObject(link.target),
-            }
-        )
-        page = writer.pages[link.page]
-        if "/Annots" not in page:
-            page[NameObject("/Annots")] = ArrayObject()
-        page["/Annots"].get_object().append(writer._add_object(annotation))
-    out = io.BytesIO()
-    writer.write(out)
-    return out.getvalue()
-
-
 def write_pdf(
     layout: Layout,
     *,
@@ -739,8 +702,10 @@ def write_pdf(
     )
     with _cross_chunk_links_expected():
         first: bytes = layout.first.write_pdf(
-            attachments=items, pdf_identifier=identifier, pdf_variant=PDF_VARIANT
+            attachments=items, pdf_identifier=identifier, pdf_variant=PDF_VARIANT, pdf_tags=True
         )
     if not layout.rest and not layout.links:
         return first
-    return _join(first, layout.rest, layout.links)
+    from calcpack.package.pdfjoin import join_chunks
+
+    return join_chunks(first, layout.rest, layout.links)
