@@ -298,6 +298,12 @@ _LAZY: dict[str, str] = {
     "masonry_fk": "calcpack.checks.en1996",
     "preset": "calcpack.presets",
     "project_preset": "calcpack.presets",
+    "BearingSurface": "calcpack.checks.aisc360.bearing_j7",
+    "check_aisc_bearing": "calcpack.checks.aisc360.bearing_j7",
+    "TorsionalBraceCase": "calcpack.checks.aisc360.bracing_torsional",
+    "check_aisc_torsional_bracing": "calcpack.checks.aisc360.bracing_torsional",
+    "rectangular_bar": "calcpack.sections.steel_bars",
+    "round_bar": "calcpack.sections.steel_bars",
 }
 
 
@@ -368,6 +374,14 @@ if TYPE_CHECKING:
         summary_table,
     )
     from calcpack.checks.aci318 import ACIFootingDesign, check_aci_footing
+    from calcpack.checks.aisc360.bearing_j7 import (
+        BearingSurface,
+        check_aisc_bearing,
+    )
+    from calcpack.checks.aisc360.bracing_torsional import (
+        TorsionalBraceCase,
+        check_aisc_torsional_bracing,
+    )
     from calcpack.checks.checklists import load_checklists, member_checklist
     from calcpack.checks.en1992 import ECFootingDesign, check_en1992_footing
     from calcpack.checks.en1993 import (
@@ -516,6 +530,10 @@ if TYPE_CHECKING:
         euro_section_names,
     )
     from calcpack.sections.rebar import rebar
+    from calcpack.sections.steel_bars import (
+        rectangular_bar,
+        round_bar,
+    )
     from calcpack.signing import (
         diff_packages,
         make_demo_credentials,
@@ -577,6 +595,7 @@ __all__ = [
     "BasePlate",
     "Beam",
     "BeamResult",
+    "BearingSurface",
     "Block",
     "BlockShear",
     "BodySupport",
@@ -696,6 +715,7 @@ __all__ = [
     "TimberMemberEC",
     "TimberValues",
     "Topography",
+    "TorsionalBraceCase",
     "Triangle",
     "Truss",
     "TrussResult",
@@ -727,12 +747,14 @@ __all__ = [
     "check_aisc_anchor_rods",
     "check_aisc_base_plate",
     "check_aisc_beam",
+    "check_aisc_bearing",
     "check_aisc_block_shear",
     "check_aisc_bolts",
     "check_aisc_bracing",
     "check_aisc_fillet_weld",
     "check_aisc_member",
     "check_aisc_plate",
+    "check_aisc_torsional_bracing",
     "check_aisc_web_bearing",
     "check_deck_ledger",
     "check_deflection",
@@ -800,9 +822,11 @@ __all__ = [
     "reactions_by_case",
     "read_manifest",
     "rebar",
+    "rectangular_bar",
     "resultant",
     "roof_snow_asce7",
     "roof_snow_en",
+    "round_bar",
     "sawn_candidates",
     "sawn_timber",
     "second_moment_from_radius",
