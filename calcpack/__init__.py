@@ -197,6 +197,7 @@ _LAZY: dict[str, str] = {
     "WallPointLoad": "calcpack.loads.lintel_masonry",
     "LintelLoads": "calcpack.loads.lintel_masonry",
     "check_nds_member": "calcpack.checks.nds.members",
+    "check_nds_glulam_beam": "calcpack.checks.nds.glulam",
     "TimberMember": "calcpack.checks.nds.members",
     "TimberForces": "calcpack.checks.nds.members",
     "check_nds_bearing": "calcpack.checks.nds.bearing",
@@ -245,6 +246,8 @@ _LAZY: dict[str, str] = {
     "lightest_sections": "calcpack.sizing",
     "lightest_aisc_beam": "calcpack.sizing",
     "lightest_nds_beam": "calcpack.sizing",
+    "lightest_glulam_beam": "calcpack.sizing",
+    "lightest_nds_post": "calcpack.sizing",
     "sawn_candidates": "calcpack.sizing",
     "aisc_candidates": "calcpack.sizing",
     "Candidate": "calcpack.sizing",
@@ -295,6 +298,12 @@ _LAZY: dict[str, str] = {
     "masonry_fk": "calcpack.checks.en1996",
     "preset": "calcpack.presets",
     "project_preset": "calcpack.presets",
+    "BearingSurface": "calcpack.checks.aisc360.bearing_j7",
+    "check_aisc_bearing": "calcpack.checks.aisc360.bearing_j7",
+    "TorsionalBraceCase": "calcpack.checks.aisc360.bracing_torsional",
+    "check_aisc_torsional_bracing": "calcpack.checks.aisc360.bracing_torsional",
+    "rectangular_bar": "calcpack.sections.steel_bars",
+    "round_bar": "calcpack.sections.steel_bars",
 }
 
 
@@ -365,6 +374,14 @@ if TYPE_CHECKING:
         summary_table,
     )
     from calcpack.checks.aci318 import ACIFootingDesign, check_aci_footing
+    from calcpack.checks.aisc360.bearing_j7 import (
+        BearingSurface,
+        check_aisc_bearing,
+    )
+    from calcpack.checks.aisc360.bracing_torsional import (
+        TorsionalBraceCase,
+        check_aisc_torsional_bracing,
+    )
     from calcpack.checks.checklists import load_checklists, member_checklist
     from calcpack.checks.en1992 import ECFootingDesign, check_en1992_footing
     from calcpack.checks.en1993 import (
@@ -513,6 +530,10 @@ if TYPE_CHECKING:
         euro_section_names,
     )
     from calcpack.sections.rebar import rebar
+    from calcpack.sections.steel_bars import (
+        rectangular_bar,
+        round_bar,
+    )
     from calcpack.signing import (
         diff_packages,
         make_demo_credentials,
@@ -525,7 +546,9 @@ if TYPE_CHECKING:
         SizingResult,
         aisc_candidates,
         lightest_aisc_beam,
+        lightest_glulam_beam,
         lightest_nds_beam,
+        lightest_nds_post,
         lightest_sections,
         sawn_candidates,
     )
@@ -572,6 +595,7 @@ __all__ = [
     "BasePlate",
     "Beam",
     "BeamResult",
+    "BearingSurface",
     "Block",
     "BlockShear",
     "BodySupport",
@@ -691,6 +715,7 @@ __all__ = [
     "TimberMemberEC",
     "TimberValues",
     "Topography",
+    "TorsionalBraceCase",
     "Triangle",
     "Truss",
     "TrussResult",
@@ -722,12 +747,14 @@ __all__ = [
     "check_aisc_anchor_rods",
     "check_aisc_base_plate",
     "check_aisc_beam",
+    "check_aisc_bearing",
     "check_aisc_block_shear",
     "check_aisc_bolts",
     "check_aisc_bracing",
     "check_aisc_fillet_weld",
     "check_aisc_member",
     "check_aisc_plate",
+    "check_aisc_torsional_bracing",
     "check_aisc_web_bearing",
     "check_deck_ledger",
     "check_deflection",
@@ -746,6 +773,7 @@ __all__ = [
     "check_nds_bearing",
     "check_nds_combined",
     "check_nds_connection",
+    "check_nds_glulam_beam",
     "check_nds_member",
     "check_nds_notched_shear",
     "check_nds_tearout",
@@ -770,7 +798,9 @@ __all__ = [
     "internal_pressure_en",
     "ledger_sketch",
     "lightest_aisc_beam",
+    "lightest_glulam_beam",
     "lightest_nds_beam",
+    "lightest_nds_post",
     "lightest_sections",
     "line_loads",
     "lintel_masonry_loads",
@@ -792,9 +822,11 @@ __all__ = [
     "reactions_by_case",
     "read_manifest",
     "rebar",
+    "rectangular_bar",
     "resultant",
     "roof_snow_asce7",
     "roof_snow_en",
+    "round_bar",
     "sawn_candidates",
     "sawn_timber",
     "second_moment_from_radius",

@@ -26,30 +26,15 @@ from __future__ import annotations
 
 import io
 from collections.abc import Iterator, Sequence
-from typing import Any, Protocol
+from typing import Any
 
 from calcpack.errors import BuildError
+from calcpack.package.layout_boxes import Link
 
-__all__ = ["CrossLink", "join_chunks", "structure_summary"]
-
-
-class CrossLink(Protocol):
-    """A link to a section laid out in another chunk."""
-
-    @property
-    def page(self) -> int:
-        """0-based page of the package."""
-
-    @property
-    def rect(self) -> tuple[float, float, float, float]:
-        """x1, y1, x2, y2 in PDF points, origin bottom left."""
-
-    @property
-    def target(self) -> str:
-        """The named destination (a section id)."""
+__all__ = ["join_chunks", "structure_summary"]
 
 
-def join_chunks(first: bytes, rest: Sequence[bytes], links: Sequence[CrossLink]) -> bytes:
+def join_chunks(first: bytes, rest: Sequence[bytes], links: Sequence[Link]) -> bytes:
     """Append the other chunks' pages to the first chunk's PDF (its catalog, metadata and
     attachments are the package's), with their outline, named destinations and structure
     tree, then add the links between chunks.
@@ -76,7 +61,7 @@ def join_chunks(first: bytes, rest: Sequence[bytes], links: Sequence[CrossLink])
     return out.getvalue()
 
 
-def _add_link(writer: Any, link: CrossLink) -> None:
+def _add_link(writer: Any, link: Link) -> None:
     from pypdf.generic import (
         ArrayObject,
         DictionaryObject,
