@@ -73,6 +73,10 @@ from calcpack.checks.aisc360.bearing import (
     check_aisc_base_plate as check_aisc_base_plate,
     check_aisc_web_bearing as check_aisc_web_bearing,
 )
+from calcpack.checks.aisc360.bearing_j7 import (
+    BearingSurface as BearingSurface,
+    check_aisc_bearing as check_aisc_bearing,
+)
 from calcpack.checks.aisc360.bolts import (
     BoltGroup as BoltGroup,
     Ply as Ply,
@@ -82,6 +86,10 @@ from calcpack.checks.aisc360.bolts import (
 from calcpack.checks.aisc360.bracing import (
     BraceCase as BraceCase,
     check_aisc_bracing as check_aisc_bracing,
+)
+from calcpack.checks.aisc360.bracing_torsional import (
+    TorsionalBraceCase as TorsionalBraceCase,
+    check_aisc_torsional_bracing as check_aisc_torsional_bracing,
 )
 from calcpack.checks.aisc360.elements import (
     BlockShear as BlockShear,
@@ -163,6 +171,9 @@ from calcpack.checks.nds.dowel import (
     WoodMember as WoodMember,
     nds_fastener as nds_fastener,
     yield_limits as yield_limits,
+)
+from calcpack.checks.nds.glulam import (
+    check_nds_glulam_beam as check_nds_glulam_beam,
 )
 from calcpack.checks.nds.ledger import (
     DeckLedger as DeckLedger,
@@ -330,6 +341,10 @@ from calcpack.sections.eurocode_tables import (
 from calcpack.sections.rebar import (
     rebar as rebar,
 )
+from calcpack.sections.steel_bars import (
+    rectangular_bar as rectangular_bar,
+    round_bar as round_bar,
+)
 from calcpack.signing import (
     diff_packages as diff_packages,
     make_demo_credentials as make_demo_credentials,
@@ -342,7 +357,9 @@ from calcpack.sizing import (
     SizingResult as SizingResult,
     aisc_candidates as aisc_candidates,
     lightest_aisc_beam as lightest_aisc_beam,
+    lightest_glulam_beam as lightest_glulam_beam,
     lightest_nds_beam as lightest_nds_beam,
+    lightest_nds_post as lightest_nds_post,
     lightest_sections as lightest_sections,
     sawn_candidates as sawn_candidates,
 )

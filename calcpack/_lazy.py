@@ -276,6 +276,15 @@ PUBLIC: dict[str, str] = {
     "masonry_fk": "calcpack.checks.en1996",
     "preset": "calcpack.presets",
     "project_preset": "calcpack.presets",
+    "check_nds_glulam_beam": "calcpack.checks.nds.glulam",
+    "lightest_glulam_beam": "calcpack.sizing",
+    "lightest_nds_post": "calcpack.sizing",
+    "BearingSurface": "calcpack.checks.aisc360.bearing_j7",
+    "check_aisc_bearing": "calcpack.checks.aisc360.bearing_j7",
+    "TorsionalBraceCase": "calcpack.checks.aisc360.bracing_torsional",
+    "check_aisc_torsional_bracing": "calcpack.checks.aisc360.bracing_torsional",
+    "rectangular_bar": "calcpack.sections.steel_bars",
+    "round_bar": "calcpack.sections.steel_bars",
 }
 """Public name -> the module it is imported from."""
 

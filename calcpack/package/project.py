@@ -117,20 +117,18 @@ class _Reader:
 
     def known(self, data: Mapping[str, Any], where: str, keys: tuple[str, ...]) -> None:
         """Refuse a key not in ``keys`` (a misspelt key would otherwise be silently ignored)."""
-        from calcpack.validate import suggest
+        from calcpack.validate import unknown_key
 
-        for key in data:
-            if key not in keys:
-                close = suggest(str(key), keys)
-                hint = f"; did you mean {close[0]!r}?" if close else ""
-                field = f"{where}.{key}" if where else str(key)
-                self.fail(
-                    field,
-                    data[key],
-                    "one of " + ", ".join(keys),
-                    (f"is not a known key in [{where}]" if where else "is not a known table")
-                    + hint,
-                )
+        found = unknown_key(data, keys)
+        if found is not None:
+            key, close = found
+            hint = f"; did you mean {close!r}?" if close else ""
+            self.fail(
+                f"{where}.{key}" if where else key,
+                data[key],
+                "one of " + ", ".join(keys),
+                (f"is not a known key in [{where}]" if where else "is not a known table") + hint,
+            )
 
     def inside(self, where: str, path: str, expected: str) -> None:
         """Refuse a path that leads out of the project folder (absolute, or through ``..``)."""
