@@ -11,6 +11,7 @@ from hypothesis import strategies as st
 from calcpack.checks.aisc360.member import check_aisc_member
 from calcpack.checks.aisc360.member_data import FACTORS, MemberForces, SteelMember
 from calcpack.sections.aisc_database import aisc_shape
+from calcpack.sections.steel_bars import rectangular_bar
 from calcpack.units import Q_
 
 SHAPES = ["W8X31", "W10X49", "W14X132", "HSS6X6X1/4", "HSS4X4X1/4", "Pipe4STD", "C10X15.3"]
@@ -37,6 +38,43 @@ def test_flexural_strength_never_grows_with_unbraced_length(name, a, b):
         m = SteelMember(aisc_shape(name), Fy=Q_(50, "ksi"), Lb=Q_(L, "ft"))
         caps.append(check_aisc_member(m, MemberForces(Mx=Q_(1, "kip*ft")))["Flexure x"].capacity)
     assert caps[1] <= caps[0] * (1 + 1e-12)
+
+
+def _flexure_member(name, L, stem):
+    if name == "bar":
+        shape = rectangular_bar(d=Q_(6, "inch"), t=Q_(0.5, "inch"))
+    else:
+        shape = aisc_shape(name)
+    return SteelMember(shape, Fy=Q_(50, "ksi"), Lb=Q_(L, "ft"), tee_stem=stem)
+
+
+@settings(max_examples=25, deadline=None)
+@given(
+    st.sampled_from(["WT12X31", "WT6X13", "WT9X25", "bar"]),
+    st.sampled_from(["tension", "compression"]),
+    lengths,
+    lengths,
+)
+def test_tee_and_bar_flexure_never_grows_with_unbraced_length(name, stem, a, b):
+    # AISC 360-16 §F9.2 and §F11.2: a longer unbraced length never raises M_n
+    lo, hi = sorted((a, b))
+    caps = [
+        check_aisc_member(_flexure_member(name, L, stem), MemberForces(Mx=Q_(1, "kip*ft")))[
+            "Flexure x"
+        ].capacity
+        for L in (lo, hi)
+    ]
+    assert caps[1] <= caps[0] * (1 + 1e-12)
+
+
+@settings(max_examples=10, deadline=None)
+@given(st.sampled_from(["WT12X31", "bar"]), lengths)
+def test_tee_and_bar_flexure_lrfd_over_asd_is_phi_omega(name, L):
+    m, f = _flexure_member(name, L, "tension"), MemberForces(Mx=Q_(1, "kip*ft"))
+    lrfd = check_aisc_member(m, f, method="LRFD")["Flexure x"].capacity
+    asd = check_aisc_member(m, f, method="ASD")["Flexure x"].capacity
+    k = FACTORS["flexure"]
+    assert float((lrfd / asd).to("").magnitude) == pytest.approx(k.phi * k.omega)
 
 
 @settings(max_examples=15, deadline=None)

@@ -58,6 +58,8 @@ def compression_elements(m: SteelMember) -> list[tuple[str, float, float, str]]:
     if s.type in _ROUND:
         dt = float((s["OD"] / s["tdes"]).to("").magnitude)
         return [("wall D/t", dt, 0.11 * e_fy, "Table B4.1a case 9")]
+    if s.type in ("BAR", "ROUND BAR"):
+        return []  # a solid bar has no plate elements (Table B4.1a)
     raise OutOfScopeError(
         f"Shape {s.designation} ({s.type}) in compression is not covered: single angles need "
         "the end connection of AISC 360-16 §E5, which is not implemented"
@@ -86,11 +88,14 @@ def compression_strength(c: Recorder, m: SteelMember) -> Any:
             "K·L about each axis (AISC 360-16 §E2)"
         )
     c.heading("Compression, AISC 360-16 Chapter E", 3)
-    c.table(
-        ["element", "ratio", "λ_r", "source"],
-        [[n, f"{r:.3g}", f"{lim:.3g}", case] for n, r, lim, case in elements],
-        caption="Width-to-thickness ratios in compression: no slender element (§B4.1a)",
-    )
+    if elements:
+        c.table(
+            ["element", "ratio", "λ_r", "source"],
+            [[n, f"{r:.3g}", f"{lim:.3g}", case] for n, r, lim, case in elements],
+            caption="Width-to-thickness ratios in compression: no slender element (§B4.1a)",
+        )
+    else:
+        c.text("Solid bar: no plate elements, so no local buckling in compression (§B4.1a).")
     Fy = c.given("F_y", m.Fy, f"yield stress {m.grade}".strip(), source=m.grade or "given")
     E = c.given("E", m.E, "modulus of elasticity", source="AISC 360-16 §B (29 000 ksi)")
     Ag = c.given("A_g", s["A"], "gross area", source=s.source)
@@ -141,6 +146,9 @@ def _torsional(c: Recorder, m: SteelMember, E: Any, Fe_flex: Any, Ag: Any) -> An
     if s.type == "HSS" or s.type in _ROUND:
         c.text("Closed section: torsional buckling (§E4) does not apply; F_e is flexural.")
         return Fe_flex
+    if s.type == "ROUND BAR":
+        c.text("Solid round bar: torsional buckling (§E4) does not govern; F_e is flexural.")
+        return Fe_flex
     Lcz = c.given(
         "L_cz",
         m.Lcz if m.Lcz is not None else m.Lcy,
@@ -151,7 +159,7 @@ def _torsional(c: Recorder, m: SteelMember, E: Any, Fe_flex: Any, Ag: Any) -> An
     G = c.given("G", m.G, "shear modulus", source="AISC 360-16 §B (11 200 ksi)")
     J = c.given("J", s["J"], "torsional constant", source=s.source)
     Cw = c.given("C_w", s["Cw"], "warping constant", source=s.source)
-    if s.type in _I:
+    if s.type in _I or s.type == "BAR":
         Ix = c.given("I_x", s["Ix"], "moment of inertia", source=s.source)
         Iy = c.given("I_y", s["Iy"], "moment of inertia", source=s.source)
         Fez = c.derive(

@@ -40,6 +40,11 @@ def shear_strength(c: Recorder, m: SteelMember, direction: str, method: str) -> 
     E = c.given("E", m.E, "modulus of elasticity", source="AISC 360-16 §B")
     root = math.sqrt(float((m.E / m.Fy).to("").magnitude))
     key = "shear"
+    if t in ("BAR", "ROUND BAR"):
+        raise OutOfScopeError(
+            f"Shear of the solid bar {s.designation}: AISC 360-16 Chapter G has no clause for "
+            "solid bars and none is implemented; check shear separately"
+        )
     if t in ("HSS round", "PIPE"):
         c.heading("Shear, §G5 (round HSS)", 3)
         Ag = c.given("A_g", s["A"], "gross area", source=s.source)

@@ -9,6 +9,7 @@ from calcpack.checks.aisc360.member import check_aisc_member
 from calcpack.checks.aisc360.member_data import MemberForces, SteelMember
 from calcpack.errors import DimensionError, InputError, OutOfScopeError
 from calcpack.sections.aisc_database import aisc_shape
+from calcpack.sections.steel_bars import rectangular_bar, round_bar
 from calcpack.units import Q_
 
 KSI = Q_(50, "ksi")
@@ -32,10 +33,27 @@ def test_unequal_angle_without_restraint_is_refused():
         check_aisc_member(m, MemberForces(Mx=Q_(1, "kip*ft")))
 
 
-def test_tee_flexure_is_refused():
+def test_tee_flexure_about_its_axis_of_symmetry_is_refused():
     m = SteelMember(aisc_shape("WT4X20"), Fy=KSI)
-    with pytest.raises(OutOfScopeError, match="§F9"):
-        check_aisc_member(m, MemberForces(Mx=Q_(1, "kip*ft")))
+    with pytest.raises(OutOfScopeError, match="tees about their axis of symmetry"):
+        check_aisc_member(m, MemberForces(My=Q_(1, "kip*ft")))
+
+
+def test_tee_stem_mode_is_checked_and_bar_shear_is_refused():
+    with pytest.raises(InputError, match="tee_stem"):
+        SteelMember(aisc_shape("WT4X20"), Fy=KSI, tee_stem="up")
+    bar = SteelMember(rectangular_bar(d=Q_(4, "inch"), t=Q_(1, "inch")), Fy=KSI)
+    with pytest.raises(OutOfScopeError, match="solid bar"):
+        check_aisc_member(bar, MemberForces(Vy=Q_(1, "kip")))
+
+
+def test_bar_dimensions_are_checked():
+    with pytest.raises(InputError, match="t"):
+        rectangular_bar(d=Q_(1, "inch"), t=Q_(4, "inch"))
+    with pytest.raises(DimensionError, match="D"):
+        round_bar(D=Q_(1, "kip"))
+    with pytest.raises(InputError, match="d"):
+        rectangular_bar(d=Q_(-1, "inch"), t=Q_(1, "inch"))
 
 
 def test_missing_effective_length_is_refused():
