@@ -25,7 +25,16 @@ import pint
 from calcpack.errors import InputError, show_value
 from calcpack.units import require
 
-__all__ = ["dimension", "finite", "lookup", "one_of", "positive", "suggest", "within"]
+__all__ = [
+    "dimension",
+    "finite",
+    "lookup",
+    "one_of",
+    "positive",
+    "suggest",
+    "unknown_key",
+    "within",
+]
 
 T = TypeVar("T")
 K = TypeVar("K")
@@ -112,6 +121,21 @@ def suggest(key: str, options: Iterable[str]) -> list[str]:
     norm = {o.upper().replace(" ", ""): o for o in opts}
     hits = difflib.get_close_matches(key.upper().replace(" ", ""), list(norm), n=3, cutoff=0.5)
     return [norm[h] for h in hits]
+
+
+def unknown_key(table: Mapping[Any, Any], keys: Iterable[str]) -> tuple[str, str | None] | None:
+    """The first key of ``table`` that is not in ``keys``, with the closest valid key (or None),
+    or None when every key is known.
+
+    The one rule behind every strict file reader (the project file, the inputs files): a
+    misspelt key would otherwise be ignored and its default used without a word.
+    """
+    valid = list(keys)
+    for key in table:
+        if key not in valid:
+            close = suggest(str(key), valid)
+            return str(key), (close[0] if close else None)
+    return None
 
 
 def one_of(name: str, value: T, options: Iterable[T]) -> T:
