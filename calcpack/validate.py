@@ -157,8 +157,10 @@ def non_empty(name: str, value: Any, *, expected: str) -> str:
 
 def instance(name: str, value: Any, kinds: type | tuple[type, ...], *, expected: str) -> Any:
     """Require ``value`` to be of one of the types ``kinds``; ``expected`` names them for the
-    user (``"a FootingLoad"``, ``"aisc_shape('W8X18') or similar"``)."""
-    if not isinstance(value, kinds):
+    user (``"a FootingLoad"``, ``"aisc_shape('W8X18') or similar"``). True and False are not
+    numbers here unless ``bool`` is among the kinds."""
+    allowed = kinds if isinstance(kinds, tuple) else (kinds,)
+    if not isinstance(value, allowed) or (isinstance(value, bool) and bool not in allowed):
         raise InputError(
             name=name,
             value=value,
