@@ -48,8 +48,6 @@ from functools import cached_property
 from pathlib import Path
 from typing import Any
 
-import numpy as np
-
 from calcpack.inputs.file import (
     InputsFileError,
     Spec,
@@ -408,33 +406,6 @@ class BeamOutcome:
         return BeamDiagrams(self)
 
 
-# Samples per span when looking for each span's largest deflection. The deflected shape is a
-# smooth polynomial between load points; the sampled peak is refined by the vertex of the
-# parabola through it and its neighbours, which leaves an error of order h⁴ (about 1e-10 of the
-# peak for 200 samples) -- far below what a serviceability check needs.
-_SAMPLES_PER_SPAN = 201
-
-
-def _span_peak(result: Any, a: float, b: float) -> tuple[float, float]:
-    """Largest |deflection| on a <= x <= b (m): (deflection in mm, downward +, and x in m)."""
-    m, mm = cached_unit("m"), cached_unit("mm")
-    x = np.linspace(a, b, _SAMPLES_PER_SPAN)
-    v = result.deflection(Q_(x, m)).to(mm).magnitude
-    k = int(np.argmax(np.abs(v)))
-    if 0 < k < len(x) - 1:
-        y0, y1, y2 = float(v[k - 1]), float(v[k]), float(v[k + 1])
-        h = float(x[1] - x[0])
-        curvature = y0 - 2 * y1 + y2
-        if curvature != 0.0:
-            shift = 0.5 * h * (y0 - y2) / curvature
-            if abs(shift) <= h:
-                xv = float(x[k]) + shift
-                yv = float(result.deflection(Q_(xv, m)).to(mm).magnitude)
-                if abs(yv) >= abs(y1):
-                    return yv, xv
-    return float(v[k]), float(x[k])
-
-
 def evaluate_beam(inputs: BeamInputs) -> BeamOutcome:
     """Solve the beam for each load case, combine, and make the bending and deflection checks.
 
@@ -472,10 +443,10 @@ def evaluate_beam(inputs: BeamInputs) -> BeamOutcome:
     lines = inputs.support_x_m
     defl = []
     for i, (a, b) in enumerate(itertools.pairwise(lines), start=1):
-        d_mm, x_m = _span_peak(service, a, b)
+        peak = service.range_extremes("deflection", Q_(a, u("m")), Q_(b, u("m"))).magnitude
         span = inputs.spans[i - 1]
         limit = (span / inputs.deflection_ratio).to(u("mm"))
-        defl.append(SpanDeflection(i, span, Q_(d_mm, u("mm")), Q_(x_m, u("m")), limit))
+        defl.append(SpanDeflection(i, span, peak.value.to(u("mm")), peak.x, limit))
     return BeamOutcome(
         inputs=inputs,
         properties=props,

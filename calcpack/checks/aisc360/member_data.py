@@ -32,6 +32,7 @@ __all__ = [
 ]
 
 Method = Literal["LRFD", "ASD"]
+TeeStem = Literal["tension", "compression"]
 G_STEEL = Q_(11200.0, "ksi")  # shear modulus of steel, AISC 360-16 (G = 11 200 ksi)
 
 
@@ -101,6 +102,9 @@ class SteelMember:
             continuously braced, or not bent about x). Cb: LTB modification factor (§F1,
             1.0 conservative; 1.0 ≤ C_b ≤ 3.0).
         E: modulus of elasticity (29 000 ksi). G: shear modulus (11 200 ksi).
+        tee_stem: for tees in flexure (§F9), "tension" when the stem tip is in tension all
+            along L_b (the flange in compression), "compression" when the stem is in
+            compression anywhere along L_b.
     """
 
     shape: SteelShape
@@ -114,6 +118,7 @@ class SteelMember:
     Cb: float = 1.0
     E: Quantity = E_STEEL
     G: Quantity = G_STEEL
+    tee_stem: TeeStem = "tension"
 
     def __post_init__(self) -> None:
         if not isinstance(self.shape, SteelShape):
@@ -133,6 +138,7 @@ class SteelMember:
         for nm in ("Lcx", "Lcy", "Lcz", "Lb"):
             _opt_length(getattr(self, nm), nm)
         within("Cb", float(self.Cb), 1.0, 3.0, rule="AISC 360-16 §F1 (1.0 ≤ C_b ≤ 3.0)")
+        one_of("tee_stem", self.tee_stem, ("tension", "compression"))
 
     @property
     def family(self) -> str:
