@@ -91,6 +91,10 @@ from calcpack.checks.aisc360.bracing_torsional import (
     TorsionalBraceCase as TorsionalBraceCase,
     check_aisc_torsional_bracing as check_aisc_torsional_bracing,
 )
+from calcpack.checks.aisc360.compression_angle import (
+    AngleStrut as AngleStrut,
+    check_aisc_angle_strut as check_aisc_angle_strut,
+)
 from calcpack.checks.aisc360.elements import (
     BlockShear as BlockShear,
     ConnectingPlate as ConnectingPlate,

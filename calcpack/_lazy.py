@@ -285,6 +285,8 @@ PUBLIC: dict[str, str] = {
     "check_aisc_torsional_bracing": "calcpack.checks.aisc360.bracing_torsional",
     "rectangular_bar": "calcpack.sections.steel_bars",
     "round_bar": "calcpack.sections.steel_bars",
+    "AngleStrut": "calcpack.checks.aisc360.compression_angle",
+    "check_aisc_angle_strut": "calcpack.checks.aisc360.compression_angle",
 }
 """Public name -> the module it is imported from."""
 

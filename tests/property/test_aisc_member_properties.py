@@ -15,11 +15,13 @@ from calcpack.sections.steel_bars import rectangular_bar
 from calcpack.units import Q_
 
 SHAPES = ["W8X31", "W10X49", "W14X132", "HSS6X6X1/4", "HSS4X4X1/4", "Pipe4STD", "C10X15.3"]
+# with slender elements in compression (AISC 360-16 §E7)
+SLENDER = ["WT6X13", "W14X22", "HSS8X8X1/8", "HSS20.000X0.250"]
 lengths = st.floats(min_value=1.0, max_value=40.0)
 
 
-@settings(max_examples=25, deadline=None)
-@given(st.sampled_from(SHAPES), lengths, lengths)
+@settings(max_examples=30, deadline=None)
+@given(st.sampled_from(SHAPES + SLENDER), lengths, lengths)
 def test_compression_strength_never_grows_with_effective_length(name, a, b):
     lo, hi = sorted((a, b))
     caps = []
@@ -100,3 +102,12 @@ def test_h1_interaction_is_one_on_its_curve(share):
     mm = max(mm, 1e-3)
     r = check_aisc_member(m, MemberForces(P=p * Pc, Mx=mm * Mc))
     assert r["Axial and flexure"].utilisation == pytest.approx(1.0, rel=1e-9)
+
+
+@settings(max_examples=20, deadline=None)
+@given(st.sampled_from(SLENDER), lengths)
+def test_effective_area_never_exceeds_the_gross_area(name, L):
+    # AISC 360-16 §E7: A_e ≤ A_g
+    m = SteelMember(aisc_shape(name), Fy=Q_(50, "ksi"), Lcx=Q_(L, "ft"), Lcy=Q_(L, "ft"))
+    r = check_aisc_member(m, MemberForces(P=Q_(1, "kip")))
+    assert r.values["A_e"] <= r.values["A_g"] * (1 + 1e-12)
