@@ -22,6 +22,7 @@ from __future__ import annotations
 import datetime as dt
 import io
 import os
+from collections.abc import Iterable
 from dataclasses import dataclass
 from pathlib import Path
 from typing import Any, cast
@@ -29,6 +30,7 @@ from typing import Any, cast
 from calcpack.contract.placeholders import placeholders_in_summary, placeholders_text
 from calcpack.errors import SigningError, VerificationError
 from calcpack.signing._util import quiet_library_logs, write_atomically
+from calcpack.signing.authority import load_crls
 from calcpack.signing.keys import (
     ROLES,
     Credentials,
@@ -37,7 +39,7 @@ from calcpack.signing.keys import (
     load_credentials,
     same_person,
 )
-from calcpack.signing.longterm import embedding_context
+from calcpack.signing.longterm import embedding_context, revocation_note
 from calcpack.signing.manifest import (
     field_name,
     read_embedded_manifest,
@@ -71,6 +73,7 @@ class SignResult:
         certified: the signature is the document's certification signature.
         timestamped: an RFC 3161 timestamp token was added.
         overridden: ids of review comments the checker signed over (empty otherwise).
+        revocation: what revocation data was embedded, or that none was (signed offline).
     """
 
     output: Path
@@ -80,6 +83,8 @@ class SignResult:
     certified: bool
     timestamped: bool
     overridden: tuple[str, ...] = ()
+    revocation: str = ""
+    """The revocation data the signature embeds, in words (or why there is none)."""
 
 
 @dataclass(frozen=True)
@@ -298,6 +303,7 @@ def sign_package(
     override_open_comments: str | None = None,
     certify: bool = True,
     override_identity: str | None = None,
+    crls: Iterable[str | os.PathLike[str]] = (),
 ) -> SignResult:
     """Sign a calc package as ``role`` into its sign-off block.
 
@@ -320,6 +326,8 @@ def sign_package(
         override_identity: the reason for signing with a key whose recorded role or holder
             contradicts ``role`` or the person named for it in the project; recorded in the
             signature's reason. It never allows one signer to hold two roles.
+        crls: revocation list files of the key's authority (``calcpack keys crl``) to embed
+            (PAdES B-LT); a key they list as revoked is refused.
 
     Returns:
         A :class:`SignResult`.
@@ -426,7 +434,7 @@ def sign_package(
         # PAdES B-LT: chain and revocation data in the document security store; B-LTA with a
         # document timestamp when a timestamp server is configured (calcpack.signing.longterm)
         embed_validation_info=True,
-        validation_context=embedding_context(creds, stamper),
+        validation_context=embedding_context(creds, stamper, load_crls(crls)),
         use_pades_lta=stamper is not None,
     )
     firm = creds.firm
@@ -470,6 +478,7 @@ def sign_package(
         certified=certified,
         timestamped=stamper is not None,
         overridden=overridden,
+        revocation=revocation_note(creds, data),
     )
 
 

@@ -20,6 +20,7 @@ from typing import Any
 from calcpack.contract.compare import diff_manifests
 from calcpack.errors import InputError, VerificationError
 from calcpack.signing._util import quiet_library_logs
+from calcpack.signing.authority import load_crls
 from calcpack.signing.keys import (
     ROLES,
     certificate_name,
@@ -28,7 +29,7 @@ from calcpack.signing.keys import (
     load_certificates,
     same_person,
 )
-from calcpack.signing.longterm import DocumentTimestamp, Moment, document_timestamps
+from calcpack.signing.longterm import DocumentTimestamp, Moment, StoredData, document_timestamps
 from calcpack.signing.manifest import read_embedded_manifest, role_of_field, signature_boxes
 
 __all__ = [
@@ -95,6 +96,9 @@ class SignatureReport:
     """The moment the signer's certificates were checked at."""
     time_basis: str = "now"
     """What that moment rests on (a timestamp, the date asked for, the signer's claim, now)."""
+    revocation: str = ""
+    """What the signer's revocation status rests on (a stored or given list), or that nothing
+    could be checked."""
 
     @property
     def ok(self) -> bool:
@@ -129,6 +133,7 @@ class SignatureReport:
                 if self.checked_at
                 else []
             )
+            + ([f"    {self.revocation}"] if self.revocation else [])
             + ([f"    reason: {self.reason}"] if self.reason else [])
         )
 
@@ -309,7 +314,9 @@ def _trust_words(status: Any, trusted: bool) -> str:
     indic = status.trust_problem_indic
     name = getattr(indic, "name", None)
     if name in _TRUST_WORDS:
-        return _TRUST_WORDS[name]
+        details = getattr(status, "revocation_details", None)
+        since = f" (revoked {details.revocation_date:%Y-%m-%d %H:%M} UTC)" if details else ""
+        return _TRUST_WORDS[name] + since
     return f"untrusted ({name.lower().replace('_', ' ') if name else 'no trust path'})"
 
 
@@ -330,6 +337,7 @@ def _signature_report(
     *,
     certification: bool,
     clock: Moment,
+    stored: StoredData,
 ) -> SignatureReport:
     from pyhanko.sign.validation import validate_pdf_signature
     from pyhanko.sign.validation.settings import KeyUsageConstraints
@@ -353,8 +361,8 @@ def _signature_report(
     def validate(signer_moment: dt.datetime) -> Any:
         return validate_pdf_signature(
             sig,
-            signer_validation_context=clock.context(roots, signer_moment),
-            ts_validation_context=clock.context(roots, clock.proof),
+            signer_validation_context=stored.context(roots, signer_moment, sig.signer_cert),
+            ts_validation_context=stored.context(roots, clock.proof),
             key_usage_settings=usage,
         )
 
@@ -417,6 +425,7 @@ def _signature_report(
         certificate=fingerprint,
         checked_at=moment,
         time_basis=basis,
+        revocation=stored.revocation(sig.signer_cert),
     )
 
 
@@ -457,6 +466,7 @@ def verify_package(
     at: dt.datetime | str | None = None,
     require: Iterable[str] = (),
     now: dt.datetime | None = None,
+    crls: Iterable[str | os.PathLike[str]] = (),
 ) -> VerifyReport:
     """Verify a signed calc package.
 
@@ -471,6 +481,8 @@ def verify_package(
             each signer's certificates at the time the signer claims (reported as a claim), a
             datetime checks everything as at that moment. A timestamp's proof comes first.
         now: the validation clock (default: the current time; tests move it).
+        crls: revocation lists newer than those the package stores (``keys crl``): a key
+            revoked before the time its signature is checked at fails.
         require: roles that must have signed (e.g. ``("preparer", "checker")``); a missing one
             is a failure. Roles not required and not signed are reported, not failed.
 
@@ -497,6 +509,7 @@ def verify_package(
             value=None,
         )
     roots = load_certificates(trust)
+    given = load_crls(crls)
     data = path.read_bytes()
     if not data.startswith(b"%PDF-"):
         raise VerificationError(f"{source} is not a calcpack package: it is not a PDF")
@@ -505,6 +518,7 @@ def verify_package(
         manifest = read_embedded_manifest(reader, source)
         embedded = list(reader.embedded_regular_signatures)
         certified = read_certification_data(reader) is not None
+        stored = StoredData.read(reader, given)
     except VerificationError:
         raise
     except Exception as exc:
@@ -513,14 +527,19 @@ def verify_package(
         ) from exc
 
     base = Moment.make(at, now)
-    stamps = document_timestamps(reader, list(roots), base.proof)
+    stamps = document_timestamps(reader, list(roots), base.proof, stored)
     reports: list[SignatureReport] = []
     for i, sig in enumerate(embedded):
         later = [role_of_field(s.field_name) or str(s.field_name) for s in embedded[i + 1 :]]
         clock = base.for_revision(stamps, sig.signed_revision)
         reports.append(
             _signature_report(
-                sig, list(roots), later, certification=i == 0 and certified, clock=clock
+                sig,
+                list(roots),
+                later,
+                certification=i == 0 and certified,
+                clock=clock,
+                stored=stored,
             )
         )
 
