@@ -9,22 +9,28 @@ import io
 import math
 from typing import Any
 
-__all__ = ["lintel_figure", "lintel_svg"]
+__all__ = ["lintel_drawing", "lintel_figure", "lintel_svg"]
 
 
-def lintel_figure(loads: Any) -> Any:
-    """A matplotlib Figure of ``loads`` (lengths in ft)."""
+def lintel_figure(loads: Any, unit: str = "ft") -> Any:
+    """A matplotlib Figure of ``loads`` (lengths in ``unit``: "ft" or "m")."""
     from matplotlib.backends.backend_agg import FigureCanvasAgg
     from matplotlib.figure import Figure
     from matplotlib.patches import Polygon, Rectangle
 
-    L = float(loads.span.to("ft").magnitude)
-    H = float(loads.wall_height.to("ft").magnitude)
+    u = unit
+    k = 1.0 if u == "ft" else 0.3048  # the sketch's fixed offsets are in feet
+
+    def q(x: Any) -> float:
+        return float(x.to(u).magnitude)
+
+    L = q(loads.span)
+    H = q(loads.wall_height)
     fig = Figure(figsize=(6, 3.2))
     FigureCanvasAgg(fig)
     ax = fig.add_subplot(1, 1, 1)
     ax.add_patch(Rectangle((-0.3 * L, 0), 1.6 * L, H, facecolor="#f2e6d9", edgecolor="#8c6d4f"))
-    ax.add_patch(Rectangle((0, -0.6), L, 0.6, facecolor="white", edgecolor="#8c6d4f"))
+    ax.add_patch(Rectangle((0, -0.6 * k), L, 0.6 * k, facecolor="white", edgecolor="#8c6d4f"))
     ax.plot([-0.05 * L, 1.05 * L], [0, 0], color="black", linewidth=3)
     if loads.arching:
         ax.add_patch(
@@ -42,41 +48,48 @@ def lintel_figure(loads: Any) -> Any:
         ax.text(L / 2, H / 2, "full height", ha="center", fontsize=8)
     cot = 1 / math.tan(math.radians(60))
     for a, b, _w, _case, p in loads.patches:
-        x, h = float(p.x.to("ft").magnitude), float(p.height.to("ft").magnitude)
-        hb = float(p.bearing.to("ft").magnitude) / 2
+        x, h = q(p.x), q(p.height)
+        hb = q(p.bearing) / 2
         ax.annotate(
             "",
             xy=(x, h),
-            xytext=(x, h + 0.15 * H + 0.5),
+            xytext=(x, h + 0.15 * H + 0.5 * k),
             arrowprops={"arrowstyle": "->", "color": "#08519c"},
         )
         ax.plot([x - hb, x - hb - h * cot], [h, 0], color="#08519c", linestyle="--", linewidth=0.8)
         ax.plot([x + hb, x + hb + h * cot], [h, 0], color="#08519c", linestyle="--", linewidth=0.8)
         ax.plot(
-            [float(a.to("ft").magnitude), float(b.to("ft").magnitude)],
-            [0.05, 0.05],
+            [q(a), q(b)],
+            [0.05 * k, 0.05 * k],
             color="#08519c",
             linewidth=2,
         )
     for p in loads.ignored:
-        x, h = float(p.x.to("ft").magnitude), float(p.height.to("ft").magnitude)
+        x, h = q(p.x), q(p.height)
         ax.annotate(
             "",
             xy=(x, h),
-            xytext=(x, h + 0.15 * H + 0.5),
+            xytext=(x, h + 0.15 * H + 0.5 * k),
             arrowprops={"arrowstyle": "->", "color": "#969696"},
         )
-        ax.text(x, h - 0.3, "carried by the arch", ha="center", fontsize=7, color="#636363")
+        ax.text(x, h - 0.3 * k, "carried by the arch", ha="center", fontsize=7, color="#636363")
     ax.set_xlim(-0.35 * L, 1.35 * L)
-    ax.set_ylim(-1.0, H + 0.25 * H + 1)
+    ax.set_ylim(-1.0 * k, H + 0.25 * H + 1.0 * k)
     ax.set_aspect("equal")
-    ax.set_xlabel("ft")
+    ax.set_xlabel(u)
     ax.set_title(loads.reason, fontsize=8)
     return fig
 
 
-def lintel_svg(loads: Any) -> str:
+def lintel_svg(loads: Any, unit: str = "ft") -> str:
     """The sketch as SVG text."""
     buf = io.StringIO()
-    lintel_figure(loads).savefig(buf, format="svg", bbox_inches="tight")
+    lintel_figure(loads, unit).savefig(buf, format="svg", bbox_inches="tight")
     return buf.getvalue()
+
+
+def lintel_drawing(data: Any, settings: Any = None, **options: Any) -> str:
+    """The drawing ``"lintel"`` of :class:`calcpack.working.Figure` (SVG text), in m on an SI
+    sheet and ft on a US one."""
+    system = getattr(settings, "system", "US")
+    return lintel_svg(data, "m" if system == "SI" else "ft")
