@@ -398,3 +398,6 @@ from calcpack.working import (
     sqrt as sqrt,
     tan as tan,
 )
+from calcpack.checks.nds.values import (
+    southern_pine_size_factor as southern_pine_size_factor,
+)

@@ -287,6 +287,7 @@ PUBLIC: dict[str, str] = {
     "round_bar": "calcpack.sections.steel_bars",
     "AngleStrut": "calcpack.checks.aisc360.compression_angle",
     "check_aisc_angle_strut": "calcpack.checks.aisc360.compression_angle",
+    "southern_pine_size_factor": "calcpack.checks.nds.values",
 }
 """Public name -> the module it is imported from."""
 
