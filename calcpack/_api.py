@@ -91,6 +91,11 @@ from calcpack.checks.aisc360.bracing_torsional import (
     TorsionalBraceCase as TorsionalBraceCase,
     check_aisc_torsional_bracing as check_aisc_torsional_bracing,
 )
+from calcpack.checks.aisc360.combined_h2 import (
+    H2Case as H2Case,
+    H2Point as H2Point,
+    check_aisc_h2 as check_aisc_h2,
+)
 from calcpack.checks.aisc360.compression_angle import (
     AngleStrut as AngleStrut,
     check_aisc_angle_strut as check_aisc_angle_strut,

@@ -288,6 +288,9 @@ PUBLIC: dict[str, str] = {
     "AngleStrut": "calcpack.checks.aisc360.compression_angle",
     "check_aisc_angle_strut": "calcpack.checks.aisc360.compression_angle",
     "southern_pine_size_factor": "calcpack.checks.nds.values",
+    "H2Case": "calcpack.checks.aisc360.combined_h2",
+    "H2Point": "calcpack.checks.aisc360.combined_h2",
+    "check_aisc_h2": "calcpack.checks.aisc360.combined_h2",
 }
 """Public name -> the module it is imported from."""
 
