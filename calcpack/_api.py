@@ -290,6 +290,11 @@ from calcpack.loads.wind_asce7 import (
     WindSiteASCE7 as WindSiteASCE7,
     velocity_pressure_asce7 as velocity_pressure_asce7,
 )
+from calcpack.loads.wind_asce7_directional import (
+    DirectionalBuildingASCE7 as DirectionalBuildingASCE7,
+    DirectionalWindASCE7 as DirectionalWindASCE7,
+    directional_wind_asce7 as directional_wind_asce7,
+)
 from calcpack.loads.wind_asce7_lowrise import (
     LowRiseBuildingASCE7 as LowRiseBuildingASCE7,
     components_wind_asce7 as components_wind_asce7,

@@ -291,6 +291,9 @@ PUBLIC: dict[str, str] = {
     "H2Case": "calcpack.checks.aisc360.combined_h2",
     "H2Point": "calcpack.checks.aisc360.combined_h2",
     "check_aisc_h2": "calcpack.checks.aisc360.combined_h2",
+    "DirectionalBuildingASCE7": "calcpack.loads.wind_asce7_directional",
+    "DirectionalWindASCE7": "calcpack.loads.wind_asce7_directional",
+    "directional_wind_asce7": "calcpack.loads.wind_asce7_directional",
 }
 """Public name -> the module it is imported from."""
 
