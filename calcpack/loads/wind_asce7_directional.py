@@ -1,6 +1,6 @@
 """Wind on the main frame of a rigid building by the directional procedure, ASCE/SEI 7-16
-Chapter 27 Part 1 (enclosed and partially enclosed buildings of all heights): walls and gable,
-hip or flat roofs, one wind direction at a time.
+Chapter 27 Part 1 (enclosed and partially enclosed buildings of all heights): walls and gable
+or flat roofs, one wind direction at a time.
 
     p = q G C_p − q_i (GC_pi)        (Eq. 27.3-1)
 
@@ -13,7 +13,8 @@ figure's linear interpolation between values of the same sign. Where the figure 
 values, both are reported (C_p1, C_p2) and the roof is to be designed for each.
 
 Refused (OutOfScopeError naming the limit): flexible buildings (natural frequency below 1 Hz:
-G_f of §26.11.5), monoslope and mansard roofs, open or partially open buildings.
+G_f of §26.11.5); hip, monoslope and mansard roofs (the figure's notes for them are not
+implemented); open or partially open buildings.
 
 Sign convention: pressure positive toward the surface, suction negative.
 """
@@ -47,7 +48,7 @@ __all__ = [
 ]
 
 Direction = Literal["normal to ridge", "parallel to ridge"]
-RoofForm = Literal["gable", "hip", "flat"]
+RoofForm = Literal["gable", "flat"]
 _FIG = "ASCE 7-16 Figure 27.3-1"
 _TABLE = "asce7_16_wind_cp_ch27.csv"
 
@@ -59,7 +60,7 @@ class DirectionalBuildingASCE7:
     Attributes:
         h: mean roof height (eave height for θ ≤ 10°). B: horizontal dimension normal to the
             wind. L: horizontal dimension parallel to the wind. roof_slope: roof angle θ.
-        direction: "normal to ridge" or "parallel to ridge". roof: "gable", "hip" or "flat".
+        direction: "normal to ridge" or "parallel to ridge". roof: "gable" or "flat".
         enclosure: §26.12 classification. G: gust-effect factor (0.85, rigid, §26.11.1).
         rigid: the engineer confirms the building is rigid (natural frequency ≥ 1 Hz, §26.11.2).
     """
@@ -86,7 +87,13 @@ class DirectionalBuildingASCE7:
             rule="roof angle in degrees",
         )
         one_of("direction", self.direction, ("normal to ridge", "parallel to ridge"))
-        one_of("roof", self.roof, ("gable", "hip", "flat"))
+        if self.roof in ("hip", "monoslope", "mansard"):
+            raise OutOfScopeError(
+                f"Input roof = {self.roof!r}: the directional procedure is implemented here for "
+                "gable and flat roofs only (ASCE 7-16 Figure 27.3-1 notes for other roof forms "
+                "are not implemented)"
+            )
+        one_of("roof", self.roof, ("gable", "flat"))
         if self.roof == "flat":
             within(
                 "roof_slope",

@@ -111,8 +111,12 @@ def test_refusals_name_the_limit():
         _b(rigid=False)
     with pytest.raises(OutOfScopeError, match="enclosure"):
         _b(enclosure="open")
-    with pytest.raises(InputError, match="roof"):
+    with pytest.raises(OutOfScopeError, match="gable and flat"):
         _b(roof="monoslope")
+    with pytest.raises(OutOfScopeError, match="gable and flat"):
+        _b(roof="hip")
+    with pytest.raises(InputError, match="roof"):
+        _b(roof="dome")
     with pytest.raises(InputError, match="roof_slope"):
         _b(roof="flat")
     with pytest.raises(InputError, match="direction"):
