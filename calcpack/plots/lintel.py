@@ -25,11 +25,34 @@ def lintel_figure(loads: Any, unit: str = "ft") -> Any:
         return float(x.to(u).magnitude)
 
     L = q(loads.span)
-    H = q(loads.wall_height)
-    fig = Figure(figsize=(6, 3.2))
+    H_wall = q(loads.wall_height)
+    # the sketch is to scale (45° must look like 45°); a tall wall is drawn cut above what the
+    # lintel carries, so the figure stays wide and is not magnified on the page
+    top = max([q(p.height) for p in (*loads.ignored, *(x[4] for x in loads.patches))] or [0.0])
+    H = min(H_wall, max(0.75 * L, top + 0.25 * L))
+    cut = H_wall > H
+    x_range = 1.7 * L
+    y_range = 1.25 * H + 2.0 * k
+    width = 6.0
+    height = width * y_range / x_range
+    if height > 3.6:
+        width, height = width * 3.6 / height, 3.6
+    fig = Figure(figsize=(max(width, 3.0), height + 0.6))
     FigureCanvasAgg(fig)
     ax = fig.add_subplot(1, 1, 1)
     ax.add_patch(Rectangle((-0.3 * L, 0), 1.6 * L, H, facecolor="#f2e6d9", edgecolor="#8c6d4f"))
+    if cut:
+        ax.plot([-0.3 * L, 1.3 * L], [H, H], color="white", linewidth=2)
+        ax.plot([-0.3 * L, 1.3 * L], [H, H], color="#8c6d4f", linewidth=0.8, linestyle=":")
+        ax.text(
+            1.28 * L,
+            H - 0.08 * L,
+            f"wall continues to {H_wall:.3g} {u}",
+            ha="right",
+            va="top",
+            fontsize=7,
+            color="#5a4632",
+        )
     ax.add_patch(Rectangle((0, -0.6 * k), L, 0.6 * k, facecolor="white", edgecolor="#8c6d4f"))
     ax.plot([-0.05 * L, 1.05 * L], [0, 0], color="black", linewidth=3)
     if loads.arching:
@@ -42,10 +65,10 @@ def lintel_figure(loads: Any, unit: str = "ft") -> Any:
                 hatch="//",
             )
         )
-        ax.text(L / 2, L / 4, "45° triangle", ha="center", fontsize=8)
+        ax.text(0.8 * L, L / 8, "45° triangle", ha="center", fontsize=7)
     else:
         ax.add_patch(Rectangle((0, 0), L, H, facecolor="#fdd0a2", edgecolor="#d94801", hatch="//"))
-        ax.text(L / 2, H / 2, "full height", ha="center", fontsize=8)
+        ax.text(L / 2, H / 2, f"full height, {H_wall:.3g} {u}", ha="center", fontsize=8)
     cot = 1 / math.tan(math.radians(60))
     for a, b, _w, _case, p in loads.patches:
         x, h = q(p.x), q(p.height)
