@@ -94,6 +94,7 @@ from calcpack.checks.aisc360.bracing_torsional import (
 from calcpack.checks.aisc360.combined_h2 import (
     H2Case as H2Case,
     H2Point as H2Point,
+    angle_h2_case as angle_h2_case,
     check_aisc_h2 as check_aisc_h2,
 )
 from calcpack.checks.aisc360.compression_angle import (

@@ -294,6 +294,7 @@ PUBLIC: dict[str, str] = {
     "DirectionalBuildingASCE7": "calcpack.loads.wind_asce7_directional",
     "DirectionalWindASCE7": "calcpack.loads.wind_asce7_directional",
     "directional_wind_asce7": "calcpack.loads.wind_asce7_directional",
+    "angle_h2_case": "calcpack.checks.aisc360.combined_h2",
 }
 """Public name -> the module it is imported from."""
 

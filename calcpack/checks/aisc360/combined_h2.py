@@ -14,22 +14,27 @@ Sign convention: compression positive. P_r > 0 is compression; a positive M_rw c
 points with z > 0, a positive M_rz the points with w > 0. The required strengths are taken to
 include second-order effects (Chapter C), as §H2 requires for compression.
 
-This module does not find the available flexural strengths about the principal axes of single
-angles (§F10 for principal-axis bending is not implemented): they are inputs, with their source.
+For a single angle, :func:`angle_h2_case` takes A_g, I_w = I_x + I_y − I_z, I_z and the principal
+axes (tan α) from the AISC Shapes Database, and the three points commonly checked: the heel and
+the outer corners of the two toes (common practice). This module does not find the available
+flexural strengths about the principal axes of single angles (§F10 for principal-axis bending
+is not implemented): they are inputs, with their source.
 """
 
 from __future__ import annotations
 
+import math
 from dataclasses import dataclass
 from typing import Literal
 
 from calcpack.checks.aisc360.member_data import check_method, member_standard
 from calcpack.checks.base import MemberChecks, Recorder, run_checks
-from calcpack.errors import InputError
+from calcpack.errors import InputError, OutOfScopeError
+from calcpack.sections.aisc_database import SteelShape
 from calcpack.units import Q_, Quantity
 from calcpack.validate import dimension, positive
 
-__all__ = ["H2Case", "H2Point", "check_aisc_h2"]
+__all__ = ["H2Case", "H2Point", "angle_h2_case", "check_aisc_h2"]
 
 
 @dataclass(frozen=True)
@@ -211,4 +216,58 @@ def check_aisc_h2(case: H2Case, *, method: str = "LRFD", mark: str = "M1") -> Me
         f"Axial force and flexure by stresses, AISC 360-16 §H2 {method}",
         member_standard(method),
         logic,
+    )
+
+
+def angle_h2_case(
+    shape: SteelShape,
+    *,
+    Pr: Quantity,
+    Mrw: Quantity,
+    Mrz: Quantity,
+    Pc: Quantity,
+    Mcw: Quantity,
+    Mcz: Quantity,
+    source: str = "given",
+    combination: str | None = None,
+) -> H2Case:
+    """The §H2 case of a single angle, its section and points from the AISC Shapes Database.
+
+    Axes: the database's x to the right along the horizontal leg b, y up along the vertical leg
+    d, heel at the lower left; the major principal axis w at α above x (tan α tabulated), the
+    minor axis z at α from y toward −x. Points: heel (−x̄, −ȳ), toe of the vertical leg
+    (−x̄, d − ȳ), toe of the horizontal leg (b − x̄, −ȳ), outer corners.
+
+    Raises:
+        OutOfScopeError: not a single angle. InputError: bad forces (as :class:`H2Case`).
+    """
+    if not isinstance(shape, SteelShape) or shape.type != "L":
+        raise OutOfScopeError(
+            f"Shape {getattr(shape, 'designation', shape)!r}: angle_h2_case is for single angles"
+        )
+    a = math.atan(float(shape["tan_a"].to("").magnitude))
+    ca, sa = math.cos(a), math.sin(a)
+    xb, yb = shape["x"], shape["y"]
+    corners = {
+        "heel": (-xb, -yb),
+        "toe of leg d": (-xb, shape["d"] - yb),
+        "toe of leg b": (shape["b"] - xb, -yb),
+    }
+    points = tuple(
+        H2Point(name, w=(x * ca + y * sa).to("inch"), z=(-x * sa + y * ca).to("inch"))
+        for name, (x, y) in corners.items()
+    )
+    return H2Case(
+        Ag=shape["A"],
+        Iw=shape["Ix"] + shape["Iy"] - shape["Iz"],
+        Iz=shape["Iz"],
+        Pr=Pr,
+        Mrw=Mrw,
+        Mrz=Mrz,
+        Pc=Pc,
+        Mcw=Mcw,
+        Mcz=Mcz,
+        points=points,
+        source=f"{source}; section: {shape.source}",
+        combination=combination,
     )
