@@ -91,6 +91,12 @@ from calcpack.checks.aisc360.bracing_torsional import (
     TorsionalBraceCase as TorsionalBraceCase,
     check_aisc_torsional_bracing as check_aisc_torsional_bracing,
 )
+from calcpack.checks.aisc360.combined_h2 import (
+    H2Case as H2Case,
+    H2Point as H2Point,
+    angle_h2_case as angle_h2_case,
+    check_aisc_h2 as check_aisc_h2,
+)
 from calcpack.checks.aisc360.compression_angle import (
     AngleStrut as AngleStrut,
     check_aisc_angle_strut as check_aisc_angle_strut,
@@ -285,6 +291,11 @@ from calcpack.loads.wind_asce7 import (
     WindSiteASCE7 as WindSiteASCE7,
     velocity_pressure_asce7 as velocity_pressure_asce7,
 )
+from calcpack.loads.wind_asce7_directional import (
+    DirectionalBuildingASCE7 as DirectionalBuildingASCE7,
+    DirectionalWindASCE7 as DirectionalWindASCE7,
+    directional_wind_asce7 as directional_wind_asce7,
+)
 from calcpack.loads.wind_asce7_lowrise import (
     LowRiseBuildingASCE7 as LowRiseBuildingASCE7,
     components_wind_asce7 as components_wind_asce7,
@@ -397,4 +408,7 @@ from calcpack.working import (
     sin as sin,
     sqrt as sqrt,
     tan as tan,
+)
+from calcpack.checks.nds.values import (
+    southern_pine_size_factor as southern_pine_size_factor,
 )

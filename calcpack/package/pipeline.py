@@ -135,7 +135,7 @@ def _load_review(project: Project) -> tuple[tuple[ReviewRow, ...] | None, Path |
                 status="OVERRIDE",
                 by=o.who,
                 date=o.when[:10],
-                text=f"Signed with {', '.join(o.comments)} not closed: {o.reason}",
+                text=o.describe(),
             )
         )
     return tuple(rows), path
