@@ -267,6 +267,7 @@ from calcpack.loads.roof_profiles import (
     snow_profiles_asce7 as snow_profiles_asce7,
     snow_profiles_en as snow_profiles_en,
     wind_profiles_asce7 as wind_profiles_asce7,
+    wind_profiles_asce7_directional as wind_profiles_asce7_directional,
     wind_profiles_en as wind_profiles_en,
 )
 from calcpack.loads.snow_asce7 import (

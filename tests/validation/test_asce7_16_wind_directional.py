@@ -123,3 +123,23 @@ def test_refusals_name_the_limit():
         _b(direction="diagonal")
     with pytest.raises(InputError, match="h"):
         _b(h=Q_(-3, "ft"))
+
+
+def test_directional_pressures_become_frame_load_cases():
+    from calcpack.loads.roof_profiles import wind_profiles_asce7_directional
+
+    r = directional_wind_asce7(SITE, _b(roof_slope=Q_(26.6, "deg")))
+    profiles = wind_profiles_asce7_directional(r)
+    # two windward C_p values × two GC_pi signs × wind from either side
+    assert len(profiles) == 8
+    ww, lw = r.surface("windward roof"), r.surface("leeward roof")
+    first = profiles[0]
+    assert first.values == (ww.p[0], lw.p[0])
+    assert first.breaks[1].to("ft").magnitude == pytest.approx(20.0)  # the ridge, L/2
+    assert profiles[1].values == (lw.p[0], ww.p[0])  # wind from the right
+    par = directional_wind_asce7(SITE, _b(L=Q_(60, "ft"), direction="parallel to ridge"))
+    frame = wind_profiles_asce7_directional(par, frame_at=Q_(30, "ft"))
+    zone = next(s for s in par.surfaces if s.surface.startswith("roof 1h"))
+    assert [p.values[0] for p in frame] == list(zone.p)  # 20 ft < 30 ft ≤ 40 ft: h to 2h
+    with pytest.raises(InputError, match="frame_at"):
+        wind_profiles_asce7_directional(par)
