@@ -12,7 +12,7 @@ import io
 from pathlib import Path
 from typing import Any
 
-__all__ = ["SnowSketch", "drift_profile", "unbalanced_profile"]
+__all__ = ["SnowSketch", "drift_profile", "drift_profile_en", "unbalanced_profile"]
 
 
 def unbalanced_profile(result: Any) -> list[tuple[float, float]] | None:
@@ -54,6 +54,18 @@ def drift_profile(result: Any) -> list[tuple[float, float]]:
     return pts
 
 
+def drift_profile_en(result: Any) -> list[tuple[float, float]]:
+    """(x, s) points of an EN 1991-1-3 drift (§5.3.6, §6.2): s_2 at the step falling linearly
+    to s_1 at l_s, cut off at the end of a shorter lower roof; x in m, s in kN/m²."""
+    ls = float(result.ls.to("m").magnitude)
+    s1 = float(result.s_undrifted.to("kN/m^2").magnitude)
+    s2 = float(result.s_peak.to("kN/m^2").magnitude)
+    if result.lower_width is not None and result.lower_width < result.ls:
+        end = float(result.lower_width.to("m").magnitude)
+        return [(0.0, s2), (end, float(result.s_edge.to("kN/m^2").magnitude)), (end, 0.0)]
+    return [(0.0, s2), (ls, s1), (1.5 * ls, s1)]
+
+
 class SnowSketch:
     """Sketch of a roof snow result (unbalanced across a gable) or a drift result."""
 
@@ -64,6 +76,8 @@ class SnowSketch:
 
     def _points(self) -> tuple[list[tuple[float, float]], str, str]:
         r = self.result
+        if hasattr(r, "s_peak"):
+            return drift_profile_en(r), "m", f"Snow drift at a {r.kind} (EN 1991-1-3)"
         if hasattr(r, "pd"):
             return drift_profile(r), str(r.w.units), f"Snow drift at a {r.kind}"
         pts = unbalanced_profile(r)
@@ -82,7 +96,8 @@ class SnowSketch:
         from matplotlib.figure import Figure
 
         pts, xunit, label = self._points()
-        punit = f"{self.result.ps.units:~P}"
+        ref = self.result.s_peak if hasattr(self.result, "s_peak") else self.result.ps
+        punit = "kN/m²" if hasattr(self.result, "s_peak") else f"{ref.units:~P}"
         fig = Figure(figsize=(self.width_in, self.width_in * 0.4))
         FigureCanvasAgg(fig)
         ax = fig.add_subplot(1, 1, 1)

@@ -38,3 +38,19 @@ def test_drift_profile_is_cut_at_the_roof_edge() -> None:
     assert pts[0][1] == pytest.approx((d.ps + d.pd).to("psf").magnitude)
     assert pts[1][1] == pytest.approx((d.ps + d.p_edge).to("psf").magnitude)
     assert "<svg" in SnowSketch(d).svg()
+
+
+def test_en_drift_profile_falls_from_the_step_and_is_cut_at_the_edge() -> None:
+    """EN 1991-1-3 §6.2: μ2 at the obstruction to μ1 at l_s, cut off at a short lower roof."""
+    from calcpack.loads.snow_en1991 import SnowDriftEN, SnowSiteEN, snow_drift_en
+    from calcpack.plots.snow import drift_profile_en
+
+    site = SnowSiteEN(annex="recommended", sk=Q_(0.5, "kN/m^2"), sk_source="map")
+    d = snow_drift_en(site, SnowDriftEN("obstruction", Q_(0.6, "m"), lower_width=Q_(3, "m")))
+    pts = drift_profile_en(d)
+    assert pts[0][1] == pytest.approx(d.s_peak.to("kN/m^2").magnitude)
+    assert pts[1] == (pytest.approx(3.0), pytest.approx(d.s_edge.to("kN/m^2").magnitude))
+    assert pts[-1][1] == 0.0
+    assert "<svg" in SnowSketch(d).svg()
+    full = snow_drift_en(site, SnowDriftEN("obstruction", Q_(0.6, "m")))
+    assert drift_profile_en(full)[1][1] == pytest.approx(full.s_undrifted.to("kN/m^2").magnitude)
