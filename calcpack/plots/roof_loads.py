@@ -82,6 +82,8 @@ def roof_loads_svg(profiles: Sequence[Any], settings: Any = None, **options: Any
         ax.plot(xs, hi, color="#cb181d", lw=0.8)
         ax.plot(xs, lo, color="#238b45", lw=0.8)
         ax.text(xs[0], min(lo), f" {min(lo):.3g}", fontsize=7, va="bottom")
+        if max(hi) > 0:
+            ax.text(xs[-1], max(hi), f"{max(hi):+.3g} ", fontsize=7, va="bottom", ha="right")
         ax.set_title(
             f"Wind, envelope of {len(wind)} cases ({unit} normal to the roof; + toward it)",
             fontsize=8,
