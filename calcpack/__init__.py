@@ -82,6 +82,15 @@ _LAZY: dict[str, str] = {
     "takedown": "calcpack.loads.takedown",
     "reactions_by_case": "calcpack.loads.takedown",
     "Takedown": "calcpack.loads.takedown",
+    # the checker's quick estimates and the members' checklists
+    "Estimate": "calcpack.analysis.estimates",
+    "beam_table": "calcpack.analysis.estimates",
+    "continuous_equal_spans": "calcpack.analysis.estimates",
+    "tributary_reactions": "calcpack.analysis.estimates",
+    "statical_moment": "calcpack.analysis.estimates",
+    "section_cut": "calcpack.analysis.estimates",
+    "member_checklist": "calcpack.checks.checklists",
+    "load_checklists": "calcpack.checks.checklists",
     "Truss": "calcpack.analysis.truss_model",
     "Node": "calcpack.analysis.truss_model",
     "Member": "calcpack.analysis.truss_model",
@@ -284,6 +293,8 @@ _LAZY: dict[str, str] = {
     "Padstone": "calcpack.checks.en1996",
     "check_en1996_bearing": "calcpack.checks.en1996",
     "masonry_fk": "calcpack.checks.en1996",
+    "preset": "calcpack.presets",
+    "project_preset": "calcpack.presets",
 }
 
 
@@ -313,6 +324,14 @@ if TYPE_CHECKING:
         combine,
         solve_beam,
         solve_cases,
+    )
+    from calcpack.analysis.estimates import (
+        Estimate,
+        beam_table,
+        continuous_equal_spans,
+        section_cut,
+        statical_moment,
+        tributary_reactions,
     )
     from calcpack.analysis.freebody import (
         BodySupport,
@@ -346,6 +365,7 @@ if TYPE_CHECKING:
         summary_table,
     )
     from calcpack.checks.aci318 import ACIFootingDesign, check_aci_footing
+    from calcpack.checks.checklists import load_checklists, member_checklist
     from calcpack.checks.en1992 import ECFootingDesign, check_en1992_footing
     from calcpack.checks.en1993 import (
         DesignForces,
@@ -467,6 +487,10 @@ if TYPE_CHECKING:
         FootingSketch,
         footing_figure,
     )
+    from calcpack.presets import (
+        preset,
+        project_preset,
+    )
     from calcpack.sections import (
         Angle,
         BoundedRegion,
@@ -579,6 +603,7 @@ __all__ = [
     "EISegment",
     "Embedment",
     "Equation",
+    "Estimate",
     "EuroSection",
     "Exports",
     "Fastener",
@@ -689,6 +714,7 @@ __all__ = [
     "annex_equ_combinations",
     "annex_serviceability",
     "atan",
+    "beam_table",
     "bolt_pattern_sketch",
     "build",
     "case_groups",
@@ -728,6 +754,7 @@ __all__ = [
     "combine",
     "components_wind_asce7",
     "composite",
+    "continuous_equal_spans",
     "cos",
     "diff_manifests",
     "diff_packages",
@@ -747,17 +774,21 @@ __all__ = [
     "lightest_sections",
     "line_loads",
     "lintel_masonry_loads",
+    "load_checklists",
     "load_inputs",
     "load_project",
     "long_term_deflection",
     "make_demo_credentials",
     "masonry_fk",
+    "member_checklist",
     "nds_fastener",
     "nds_glulam_values",
     "nds_sawn_values",
     "new_project",
     "pattern_cases",
     "peak_pressure_en",
+    "preset",
+    "project_preset",
     "reactions_by_case",
     "read_manifest",
     "rebar",
@@ -767,6 +798,7 @@ __all__ = [
     "sawn_candidates",
     "sawn_timber",
     "second_moment_from_radius",
+    "section_cut",
     "set_display",
     "sign_package",
     "sin",
@@ -781,12 +813,14 @@ __all__ = [
     "solve_truss",
     "solve_truss_cases",
     "sqrt",
+    "statical_moment",
     "steel_grade",
     "strength_class",
     "summary_table",
     "superpose",
     "takedown",
     "tan",
+    "tributary_reactions",
     "truss_joint_loads",
     "update_inputs",
     "ureg",

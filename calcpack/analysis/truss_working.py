@@ -311,7 +311,12 @@ def joint_working(result: TrussResult, node: str) -> Block:
         sym = member_symbol(m.name)
         first = found_at[m.name]
         if first != node and first in earlier:
-            v = Given(sym, _disp(result.forces[m.name]), f"force in {m.name}, from joint {first}")
+            v = Given(
+                sym,
+                _disp(result.forces[m.name]),
+                f"force in {m.name}, from joint {first}",
+                result=True,
+            )
             entries.append((m.name, v, c, False))
             notes.append(f"{v.text_symbol} = {v.result_text()} (joint {first})")
         else:
@@ -322,7 +327,7 @@ def joint_working(result: TrussResult, node: str) -> Block:
             continue
         name = _symbol_ok(r.name)
         if known_reactions or node in earlier:
-            v = Given(name, _disp(r.value), f"reaction {r.name}")
+            v = Given(name, _disp(r.value), f"reaction {r.name}", result=True)
             entries.append((r.name, v, r.direction, False))
             notes.append(f"{v.text_symbol} = {v.result_text()} (reactions)")
         else:
@@ -347,6 +352,7 @@ def joint_working(result: TrussResult, node: str) -> Block:
                     else result.reactions[e[0]].value
                 ),
                 f"{e[0]} from the joint equations solved together",
+                result=True,
             )
             entries[entries.index(e)] = (e[0], v, e[2], False)
             notes.append(

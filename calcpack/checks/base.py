@@ -148,7 +148,10 @@ class Recorder:
         *,
         source: str | None = None,
         unit: str | None = None,
+        result: bool = False,
     ) -> Any:
+        """A value the check starts from; ``result``: it is a result of the analysis (a demand
+        from a load combination), recorded as a result rather than an input."""
         q = value if is_quantity(value) else Q_(float(value), "")
         self.values[name] = q
         return q
@@ -260,11 +263,20 @@ class SheetRecorder(Recorder):
         *,
         source: str | None = None,
         unit: str | None = None,
+        result: bool = False,
     ) -> Any:
         from calcpack.working import Given
 
         super().given(name, value, description)
-        step = Given(name, value, description, source=source, unit=unit, settings=self.settings)
+        step = Given(
+            name,
+            value,
+            description,
+            source=source,
+            unit=unit,
+            settings=self.settings,
+            result=result,
+        )
         self.steps.append(step)
         return step
 

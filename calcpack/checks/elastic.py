@@ -326,7 +326,9 @@ def check_deflection(
 
     def logic(rec: Recorder) -> None:
         rec.heading(f"Deflection ({label})", 3)
-        d = rec.given("delta", dq, f"largest deflection ({label})", source=combo, unit=dunit)
+        d = rec.given(
+            "delta", dq, f"largest deflection ({label})", source=combo, unit=dunit, result=True
+        )
         Lh = rec.given("L_span", span, "span for the limit", source="geometry")
         n = rec.given("n_lim", float(limit), "deflection limit ratio", source=ref)
         lim = rec.derive("delta_lim", Lh / n, f"limit span/{limit:g}", unit=dunit, ref=ref)

@@ -133,7 +133,7 @@ def ledger_sketch(ledger: Any, *, shown: int = 4) -> JointSketch:
     s = _in(lg.spacing)
     d = _in(lg.fastener.D)
     n = max(2, shown)
-    length = 2 * _in(lg.end) + (n - 1) * s + (s / 2 if lg.rows == 2 else 0.0)
+    length = 2 * _in(lg.end) + (n - 1) * s
     hl = _in(lg.ledger_depth)
     drop = _in(lg.drop)
     parts = []
@@ -145,12 +145,10 @@ def ledger_sketch(ledger: Any, *, shown: int = 4) -> JointSketch:
     parts.append(SketchPart("ledger", 0.0, ledger_top - hl, length, hl, "wood", "horizontal"))
     y1 = ledger_top - _in(lg.top)
     y2 = ledger_top - hl + _in(lg.bottom)
-    pts = []
-    for i in range(n):
-        x = _in(lg.end) + i * s
-        pts.append(SketchFastener(x, y1, d))
-        if lg.rows == 2:
-            pts.append(SketchFastener(x + s / 2, y2, d))
+    pts = [
+        SketchFastener(_in(lg.end) + i * s, y2 if (lg.rows == 2 and i % 2) else y1, d)
+        for i in range(n)
+    ]
     x0 = _in(lg.end)
     dims = [
         SketchDimension(0.0, y1, x0, y1, f"end {_txt(lg.end)}", offset=-1.0),

@@ -11,6 +11,21 @@ from typing import Any
 __all__ = ["add_build_options", "progress_reporter", "register"]
 
 
+def _seconds(text: str) -> float:
+    """``--timeout``: a positive number of seconds (0 or less would never stop a cell)."""
+    import math
+
+    try:
+        value = float(text)
+    except ValueError:
+        value = math.nan
+    if not (math.isfinite(value) and value > 0):
+        raise argparse.ArgumentTypeError(
+            f"must be a positive number of seconds (got --timeout {text})"
+        )
+    return value
+
+
 def add_build_options(parser: argparse.ArgumentParser) -> None:
     """Options shared by ``build`` and ``demo``."""
     parser.add_argument(
@@ -22,7 +37,7 @@ def add_build_options(parser: argparse.ArgumentParser) -> None:
     )
     parser.add_argument(
         "--timeout",
-        type=float,
+        type=_seconds,
         default=120.0,
         metavar="SECONDS",
         help="time limit per cell (default 120 s)",
@@ -123,6 +138,10 @@ def handler(args: argparse.Namespace) -> int:
             report=report,
             supersede_signed=args.supersede_signed,
         )
+    import sys
+
+    for warning in result.warnings:
+        print(f"calcpack: warning: {warning}", file=sys.stderr)
     if result.up_to_date:
         print(f"Up to date: {result.pdf_path}")
     else:

@@ -131,6 +131,21 @@ def _figure(cr: CombinedResults, settings: Any) -> Any:
     return Figure("beam-combinations", cr, caption=caption, alt=alt, settings=settings)
 
 
+def _case_loads(cr: CombinedResults, settings: Any) -> Any:
+    """The loads of every case, as a table recording each as an input of the sheet."""
+    from calcpack.analysis.beam.load_table import load_table
+
+    loads: list[Any] = []
+    seen: set[int] = set()
+    beam = next(iter(cr.case_results.values())).beam
+    for result in cr.case_results.values():
+        for ld in result.beam.loads:
+            if id(ld) not in seen:
+                seen.add(id(ld))
+                loads.append(ld)
+    return load_table(loads, member=beam.name, length=beam.length, settings=settings)
+
+
 def _text(q: Any, settings: Any) -> str:
     from calcpack.units import get_display
     from calcpack.working import format_quantity_text
@@ -173,6 +188,7 @@ def combinations_working(
                 )
             )
         if _is_beam(first):
+            steps.append(_case_loads(cr, settings))
             cols = ["Combination", "M_max", "M_min", "V_max", "V_min"]
             sup = [r.support for r in first.reactions]
             cols += [f"R_{s}" for s in sup]

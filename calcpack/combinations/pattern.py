@@ -15,6 +15,7 @@ from dataclasses import replace
 from itertools import combinations, pairwise
 from typing import Any
 
+from calcpack.analysis.beam.core import shift_polynomial
 from calcpack.errors import InputError, OutOfScopeError
 from calcpack.loads.types import (
     AreaLoad,
@@ -27,7 +28,7 @@ from calcpack.loads.types import (
     PolynomialLoad,
     UniformLoad,
 )
-from calcpack.units import Q_, si
+from calcpack.units import Q_, si, ureg
 
 __all__ = ["pattern_cases", "span_limits"]
 
@@ -74,17 +75,14 @@ def _clip(load: Load, a: float, b: float, case: str, L_m: float) -> Load | None:
             case=case,
         )
     if isinstance(load, PolynomialLoad):
-        # Taylor shift of Σ c_k ξ^k from ξ = x − s to ξ' = x − lo.
-        from math import comb
-
-        d = start - load.start
+        # Taylor shift of Σ c_k ξ^k from ξ = x − s to ξ' = x − lo (in SI, then back).
+        d_m = float((start - load.start).to("m").magnitude)
         cs = load.coefficients
-        new = []
-        for j in range(len(cs)):
-            term = cs[j] * 0
-            for k in range(j, len(cs)):
-                term = term + cs[k] * comb(k, j) * d ** (k - j)
-            new.append(term.to(cs[j].units))
+        si_units = [ureg.Unit("N/m") / ureg.Unit("m") ** k for k in range(len(cs))]
+        shifted = shift_polynomial(
+            [float(c.to(u).magnitude) for c, u in zip(cs, si_units, strict=True)], d_m
+        )
+        new = [Q_(v, u).to(c.units) for v, u, c in zip(shifted, si_units, cs, strict=True)]
         return replace(load, start=start, end=end, coefficients=tuple(new), case=case)
     raise OutOfScopeError(  # pragma: no cover - every distributed type is handled above
         f"Pattern loading cannot split a load of type {type(load).__name__}"

@@ -1,9 +1,12 @@
 """The manifest comparison: what changed between two revisions of a calc package.
 
-Compares, sheet by sheet, the recorded inputs (``kind = "given"``), results (``"derived"``) and
+Compares, sheet by sheet, the recorded inputs (``kind = "given"``: stated values and every
+load, by case), results (``"derived"``: computed on the sheet or carried from an analysis) and
 design checks (demand, capacity, utilisation, verdict), and lists each difference with old and
-new values. The same comparison serves ``calcpack verify --reproduce`` (recorded manifest
-against a fresh execution) and the build (sheets changed since the last issued revision).
+new values. Numbers are compared at full precision (``REL_TOL``) and shown at the significant
+figures of the sheet that recorded them. The same comparison serves
+``calcpack verify --reproduce`` (recorded manifest against a fresh execution) and the build
+(sheets changed since the last issued revision).
 """
 
 from __future__ import annotations
@@ -134,11 +137,21 @@ def _sheet_label(sheet: dict[str, Any], index: int) -> str:
     return str(title or sheet.get("path") or f"sheet {index + 1}")
 
 
-def _num(value: Any) -> str:
+LEGACY_SIG = 6
+"""Significant figures shown for a value recorded without its sheet's (older manifests)."""
+
+
+def _num(value: Any, sig: Any = None) -> str:
+    """A recorded number as its sheet shows it: ``sig`` significant figures (the record's), in
+    the sheet's number style (``12 300``, ``4.25×10⁻⁶``)."""
     if isinstance(value, bool) or value is None:
         return str(value)
     if isinstance(value, int | float):
-        return f"{value:.6g}"
+        if not isinstance(sig, int) or isinstance(sig, bool):
+            return f"{value:.{LEGACY_SIG}g}"
+        from calcpack.working.format import format_number
+
+        return format_number(float(value), sig)
     return str(value)
 
 
@@ -164,7 +177,7 @@ def _keyed(items: Iterable[dict[str, Any]], key: Any) -> dict[Any, dict[str, Any
 
 def _value_text(v: dict[str, Any]) -> str:
     unit = str(v.get("unit") or "").strip()
-    return f"{_num(v.get('value'))} {unit}".rstrip()
+    return f"{_num(v.get('value'), v.get('sig'))} {unit}".rstrip()
 
 
 def _check_name(c: dict[str, Any]) -> str:
@@ -180,8 +193,9 @@ def _check_text(c: dict[str, Any]) -> str:
     unit = str(c.get("unit") or "")
     util = c.get("utilisation")
     util_text = f"u = {util:.3g}, " if isinstance(util, int | float) else ""
+    sig = c.get("sig")
     return (
-        f"{util_text}{_num(c.get('demand'))} / {_num(c.get('capacity'))} {unit}".rstrip()
+        f"{util_text}{_num(c.get('demand'), sig)} / {_num(c.get('capacity'), sig)} {unit}".rstrip()
         + f" {c.get('verdict', '?')}"
     )
 

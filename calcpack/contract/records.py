@@ -35,12 +35,22 @@ def _opt_str(value: Any) -> str | None:
     return None if value is None else str(value)
 
 
+def _sig(value: Any) -> int | None:
+    """Significant figures as recorded (None when absent or not a sensible count)."""
+    if isinstance(value, int) and not isinstance(value, bool) and 1 <= value <= 15:
+        return value
+    return None
+
+
 @dataclass(frozen=True)
 class Record:
     """A named value as data, for manifests and revision comparisons.
 
     ``value`` is the full-precision magnitude in ``unit`` (the unit the sheet displays); it is
-    ``None`` only when read back from a payload whose value was not a finite number.
+    ``None`` only when read back from a payload whose value was not a finite number. ``kind`` is
+    ``"given"`` for an input (a stated value, a load) and ``"derived"`` for a result (computed
+    on the sheet or carried from an analysis). ``sig`` is the significant figures the sheet
+    shows it with (comparisons are made at full precision and shown at ``sig``).
     """
 
     name: str
@@ -49,9 +59,10 @@ class Record:
     unit: str
     description: str
     kind: str
+    sig: int | None = None
 
     def to_json(self) -> dict[str, Any]:
-        return {
+        out: dict[str, Any] = {
             "name": self.name,
             "symbol": self.symbol,
             "value": self.value,
@@ -59,6 +70,9 @@ class Record:
             "description": self.description,
             "kind": self.kind,
         }
+        if self.sig is not None:
+            out["sig"] = self.sig
+        return out
 
     @classmethod
     def from_json(cls, item: Mapping[str, Any]) -> Record:
@@ -70,12 +84,14 @@ class Record:
             unit=str(item.get("unit", "")),
             description=str(item.get("description", "")),
             kind=str(item.get("kind", "")),
+            sig=_sig(item.get("sig")),
         )
 
 
 @dataclass(frozen=True)
 class CheckRecord:
-    """A check as data: demand and capacity in ``unit``, utilisation = |demand| / capacity."""
+    """A check as data: demand and capacity in ``unit``, utilisation = |demand| / capacity;
+    ``sig``: the significant figures the sheet shows them with."""
 
     name: str
     member: str | None
@@ -87,9 +103,10 @@ class CheckRecord:
     ref: str | None
     combination: str | None
     description: str
+    sig: int | None = None
 
     def to_json(self) -> dict[str, Any]:
-        return {
+        out: dict[str, Any] = {
             "name": self.name,
             "member": self.member,
             "demand": self.demand,
@@ -101,6 +118,9 @@ class CheckRecord:
             "combination": self.combination,
             "description": self.description,
         }
+        if self.sig is not None:
+            out["sig"] = self.sig
+        return out
 
     @classmethod
     def from_json(cls, item: Mapping[str, Any]) -> CheckRecord:
@@ -126,6 +146,7 @@ class CheckRecord:
             ref=_opt_str(item.get("ref")),
             combination=_opt_str(item.get("combination")),
             description=str(item.get("description", "")),
+            sig=_sig(item.get("sig")),
         )
 
 

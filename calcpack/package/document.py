@@ -196,30 +196,36 @@ def _titleblock(
 </table></div>"""
 
 
-def _engineer_block(project: Project) -> str:
-    """The engineer-of-record block: name, licence number and jurisdiction from the project
-    file, and a square for the seal (the firm's image when the project file names one)."""
+def _engineer_row(project: Project) -> str:
+    """The engineer of record in the cover's facts: name, licence number and jurisdiction from
+    the project file, or room to write them in."""
+    eor = project.engineer
+    if eor is None:
+        blank = '<span class="hint">name, licence number, jurisdiction</span>'
+        return f"<tr><th>Engineer of record</th><td>{blank}</td></tr>"
+    return (
+        f"<tr><th>Engineer of record</th><td>{_e(eor.name)} &#183; licence number "
+        f"{_e(eor.licence)} &#183; {_e(eor.jurisdiction)}</td></tr>"
+    )
+
+
+def _seal_box(project: Project) -> str:
+    """The seal's box beside the signatures: the firm's image when the project file names one,
+    else a blank square for the seal."""
     import base64
 
     from calcpack.package.project import SEAL_TYPES
 
     eor = project.engineer
-
-    def line(label: str, value: str) -> str:
-        return f'<div class="who"><span class="lbl">{label}</span>{_e(value) or "&#160;"}</div>'
-
     seal = '<div class="hint">Seal</div>'
     if eor is not None and eor.seal is not None:
         data = base64.b64encode(eor.seal.read_bytes()).decode("ascii")
         kind = SEAL_TYPES[eor.seal.suffix.lower()]
-        alt = _e(f"Seal of {eor.name}, {eor.licence}, {eor.jurisdiction}")
+        alt = _e(f"Seal of {eor.name}, licence number {eor.licence}, {eor.jurisdiction}")
         seal = f'<img alt="{alt}" src="data:{kind};base64,{data}"/>'
     return (
-        '<div class="cp-eor"><div class="heading">Engineer of record</div><table><tr><td>'
-        + line("Name", eor.name if eor else "")
-        + line("Licence number", eor.licence if eor else "")
-        + line("Jurisdiction", eor.jurisdiction if eor else "")
-        + f'</td><td class="seal">{seal}</td></tr></table></div>'
+        '<td class="cp-seal"><div class="role">Engineer of record</div>'
+        f'<div class="sealbox">{seal}</div></td>'
     )
 
 
@@ -254,14 +260,14 @@ def _cover(project: Project, sheets: Sequence[SheetDoc], compared: Sequence[Any]
 <tr><th>Revision</th>
 <td>{_e(rev.rev)} &#8212; {_e(_date(rev.date))} &#8212; {_e(rev.description)}</td></tr>
 <tr><th>Design standards</th><td>{standards}</td></tr>
+{_engineer_row(project)}
 <tr><th>Unit system</th><td>{_e(project.units)}</td></tr>
 <tr><th>Extent</th><td>{len(sheets)} sheets, <span class="totalpages"></span> pages</td></tr>
 <tr><th>Checks</th><td>{_e(counts_line(check_counts(sheets)))}</td></tr>
 <tr><th>Independent checks</th><td>{_e(verified_line(sheets, compared))}</td></tr>
 </table>
-{_engineer_block(project)}
 <div class="cp-signoff"><div class="heading">Sign-off</div>
-<table><tr>{"".join(boxes)}</tr></table>
+<table><tr>{"".join(boxes)}{_seal_box(project)}</tr></table>
 <div class="note">The package is issued when it carries the signatures of all three roles. Digital
 signatures embedded in this file take precedence over any printed or scanned copy.</div>
 </div>

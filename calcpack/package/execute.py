@@ -26,6 +26,7 @@ import logging
 import multiprocessing
 import os
 import re
+import subprocess
 import sys
 import tempfile
 import time
@@ -185,7 +186,9 @@ def _execute(path: str, sheet: str, timeout: float, exports: str | None = None) 
             )
 
     nb = nbformat.read(path, as_version=4)
-    with tempfile.TemporaryDirectory(prefix="calcpack-kernel-") as sockets:
+    from calcpack.package.interrupt import running_kernel, temp_prefix
+
+    with tempfile.TemporaryDirectory(prefix=temp_prefix("kernel")) as sockets:
         # An asynchronous manager, as nbclient makes for itself: with a blocking one nbclient
         # does not enforce the per-cell timeout.
         km = AsyncKernelManager(
@@ -194,6 +197,7 @@ def _execute(path: str, sheet: str, timeout: float, exports: str | None = None) 
             kernel_spec_manager=SamePython(),
             transport="ipc",
             ip=os.path.join(sockets, "k"),
+            connection_file=os.path.join(sockets, "kernel.json"),
         )
         client = NotebookClient(
             nb,
@@ -205,7 +209,10 @@ def _execute(path: str, sheet: str, timeout: float, exports: str | None = None) 
             resources={"metadata": {"path": str(Path(path).parent)}},
         )
         try:
-            client.execute()
+            with running_kernel(km, sockets):
+                # The kernel process's own stderr (start-up and shut-down noise) is not the
+                # build's output: cell errors come back as messages and are reported.
+                client.execute(stderr=subprocess.DEVNULL)
         except (CellExecutionError, CellControlSignal, DeadKernelError, RuntimeError) as exc:
             return ("error", *_failure(nb, sheet, exc, timeout))
         finally:
@@ -223,6 +230,7 @@ _QUIET_LOG = logging.getLogger("calcpack.kernel")
 build's output; a failing cell is reported by the build itself."""
 _QUIET_LOG.setLevel(logging.ERROR)
 _QUIET_LOG.propagate = False
+_QUIET_LOG.addHandler(logging.NullHandler())  # else Python's last-resort handler prints them
 
 
 _CACHE_SUFFIX = ".executed"
@@ -296,6 +304,9 @@ def _worker_setup() -> None:
 
     skip_unused_slow_imports()
     one_line_warnings()
+    from calcpack.package.interrupt import worker_signals
+
+    worker_signals()
 
 
 @contextlib.contextmanager
@@ -311,6 +322,11 @@ def worker_pool(workers: int) -> Iterator[concurrent.futures.ProcessPoolExecutor
     pool = process_pool(workers)
     try:
         yield pool
+    except KeyboardInterrupt:
+        from calcpack.package.interrupt import stop_workers
+
+        stop_workers(pool)  # now, not after the cells running finish
+        raise
     finally:
         pool.shutdown(wait=True, cancel_futures=True)
 
@@ -356,6 +372,7 @@ def execute_sheets(
             executions are cancelled.
     """
     from calcpack.package import links
+    from calcpack.package.interrupt import temp_prefix
 
     if workers < 1:
         raise BuildError(f"Number of workers must be at least 1 (got workers = {workers})")
@@ -368,7 +385,9 @@ def execute_sheets(
     exported: dict[str, tuple[dict[str, Any], ...]] = {}
     with contextlib.ExitStack() as stack:
         if exports_dir is None:
-            exports_dir = Path(stack.enter_context(tempfile.TemporaryDirectory(prefix="cp-ex-")))
+            exports_dir = Path(
+                stack.enter_context(tempfile.TemporaryDirectory(prefix=temp_prefix("exports")))
+            )
 
         def available(item: ExecutedSheet) -> None:
             from calcpack.package.records import collect_records

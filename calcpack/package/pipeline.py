@@ -44,6 +44,7 @@ from calcpack.package.execute import (
     execute_sheets,
     worker_pool,
 )
+from calcpack.package.interrupt import clean_stale_temp, temp_prefix
 from calcpack.package.manifest import dependency_versions, project_files, sheet_record
 from calcpack.package.mathsvg import add_break_entries, add_cache_entries
 from calcpack.package.paginate import ChunkStore, Layout, PdfAttachment, paginate, write_pdf
@@ -80,6 +81,8 @@ class BuildResult:
     seconds: float
     superseded: Path | None = None
     """Where the signed package this build replaced was moved (``superseded/``), if any."""
+    warnings: tuple[str, ...] = ()
+    """What the engineer should fix before signing (template placeholders left)."""
 
 
 def build_created(project: Project) -> _dt.datetime:
@@ -453,7 +456,9 @@ def build(
             executes and again before writing); nothing is written.
     """
     start = time.perf_counter()
+    timeout = publish.check_timeout(timeout)
     project = load_project(location)
+    warnings = publish.placeholder_warnings(project)
     if paper is not None and paper not in ("A4", "Letter"):
         raise BuildError(f"Paper size must be 'A4' or 'Letter' (got paper = {paper!r})")
     from calcpack import __version__
@@ -494,8 +499,11 @@ def build(
             (),
             True,
             time.perf_counter() - start,
+            warnings=warnings,
         )
-    if not supersede_signed:  # refuse at the door, before anything executes
+    publish.check_output_folder(out)  # refuse at the door, before anything executes
+    clean_stale_temp()  # folders a killed build left behind
+    if not supersede_signed:
         publish.make_way(pdf_path, manifest_path, supersede=False)
 
     def on_sheet(stage: str, sheet: SheetEntry) -> None:
@@ -514,7 +522,9 @@ def build(
     with contextlib.ExitStack() as stack:
         # One pool of workers for the whole build: executing, converting and laying out.
         # (The bodies' folder goes after the pool has stopped: no worker is still writing.)
-        bodies = Path(stack.enter_context(tempfile.TemporaryDirectory(prefix="calcpack-")))
+        bodies = Path(
+            stack.enter_context(tempfile.TemporaryDirectory(prefix=temp_prefix("bodies")))
+        )
         pool = stack.enter_context(worker_pool(workers))
         index = {sheet.path: i for i, sheet in enumerate(project.sheets)}
         converting: dict[str, concurrent.futures.Future[Any]] = {}
@@ -661,6 +671,7 @@ def build(
         False,
         time.perf_counter() - start,
         moved,
+        warnings,
     )
 
 

@@ -50,6 +50,9 @@ The file layout (every table below is required unless marked optional)::
     basis = "Markdown text"           # optional
     assumptions = ["..."]             # optional
     cautions = ["..."]                # optional
+    preset = "eurocode-uk"            # optional: standards that travel together
+                                      # (calcpack.presets): SI units, its standards when none
+                                      # are listed, its cautions added
 """
 
 from __future__ import annotations
@@ -79,6 +82,18 @@ __all__ = [
 ]
 
 PROJECT_FILE_NAME = "calcpack.toml"
+TOP_LEVEL_KEYS = (
+    "job",
+    "people",
+    "revisions",
+    "sheets",
+    "design",
+    "inputs",
+    "review",
+    "engineer_of_record",
+    "verification",  # the checker's independent checks (calcpack.package.verification)
+)
+JOB_KEYS = ("number", "title", "client", "site", "units", "paper", "firm", "firm_address")
 PAPER_SIZES = ("A4", "Letter")
 UNIT_SYSTEMS = ("SI", "US")
 
@@ -153,6 +168,8 @@ class Design:
     basis: str = ""
     assumptions: tuple[str, ...] = ()
     cautions: tuple[str, ...] = ()
+    preset: str = ""
+    """The preset declared (calcpack.presets), or "" for none."""
 
 
 @dataclass(frozen=True)
@@ -255,6 +272,34 @@ class _Reader:
             expected=expected,
         )
 
+    def known(self, data: Mapping[str, Any], where: str, keys: tuple[str, ...]) -> None:
+        """Refuse a key not in ``keys`` (a misspelt key would otherwise be silently ignored)."""
+        from calcpack.validate import suggest
+
+        for key in data:
+            if key not in keys:
+                close = suggest(str(key), keys)
+                hint = f"; did you mean {close[0]!r}?" if close else ""
+                field = f"{where}.{key}" if where else str(key)
+                self.fail(
+                    field,
+                    data[key],
+                    "one of " + ", ".join(keys),
+                    (f"is not a known key in [{where}]" if where else "is not a known table")
+                    + hint,
+                )
+
+    def inside(self, where: str, path: str, expected: str) -> None:
+        """Refuse a path that leads out of the project folder (absolute, or through ``..``)."""
+        root = self.file.parent.resolve()
+        if Path(path).is_absolute() or not (root / path).resolve().is_relative_to(root):
+            self.fail(
+                where,
+                path,
+                f"{expected} (a path inside the project folder {str(root)!r})",
+                "leads outside the project folder",
+            )
+
     def table(
         self, data: Mapping[str, Any], key: str, where: str, *, required: bool = True
     ) -> Mapping[str, Any]:
@@ -353,6 +398,7 @@ class _Reader:
                 self.fail(where, value, expected, "is empty")
             return Person(value.strip())
         if isinstance(value, Mapping):
+            self.known(value, where, ("name", "date"))
             name = self.text(value, "name", f"{where}.name", "the person's name")
             return Person(name, self.date(value, "date", f"{where}.date", required=False))
         self.fail(where, value, expected)
@@ -377,8 +423,10 @@ def load_project(location: str | Path) -> Project:
             expected="a TOML file",
         ) from exc
     r = _Reader(file)
+    r.known(data, "", TOP_LEVEL_KEYS)
 
     job = r.table(data, "job", "job")
+    r.known(job, "job", JOB_KEYS)
     job_number = r.text(job, "number", "job.number", 'a job number such as "2417"')
     job_title = r.text(job, "title", "job.title", "the job title")
     client = r.text(job, "client", "job.client", "the client's name")
@@ -389,6 +437,7 @@ def load_project(location: str | Path) -> Project:
     firm_address = r.text(job, "firm_address", "job.firm_address", "an address", default="")
 
     people = r.table(data, "people", "people")
+    r.known(people, "people", ("preparer", "checker", "approver"))
     preparer = r.person(people, "preparer", "people.preparer")
     checker = r.person(people, "checker", "people.checker")
     approver = r.person(people, "approver", "people.approver")
@@ -407,6 +456,7 @@ def load_project(location: str | Path) -> Project:
         where = f"revisions[{i}]"
         if not isinstance(item, Mapping):
             r.fail(where, item, "a [[revisions]] table")
+        r.known(item, where, ("rev", "date", "description", "status", "issued"))
         rev_value = item.get("rev")
         if isinstance(rev_value, int) and not isinstance(rev_value, bool):
             rev = str(rev_value)
@@ -455,8 +505,10 @@ def load_project(location: str | Path) -> Project:
         where = f"sheets[{i}]"
         if not isinstance(item, Mapping):
             r.fail(where, item, "a [[sheets]] table with a path")
+        r.known(item, where, ("path", "title", "number", "inputs"))
         path = r.text(item, "path", f"{where}.path", "a notebook path relative to the project")
         path = path.replace("\\", "/")
+        r.inside(f"{where}.path", path, "a notebook path relative to the project")
         if not path.endswith(".ipynb"):
             r.fail(f"{where}.path", path, "a notebook path ending in .ipynb")
         if path in paths:
@@ -479,6 +531,7 @@ def load_project(location: str | Path) -> Project:
             r.fail(f"{where}.number", number, 'a sheet number such as "3" or "L1"')
         inputs = r.texts(item, "inputs", f"{where}.inputs")
         for k, inp in enumerate(inputs, start=1):
+            r.inside(f"{where}.inputs[{k}]", inp, "a file the sheet reads")
             if not (file.parent / inp).is_file():
                 r.fail(
                     f"{where}.inputs[{k}]",
@@ -489,19 +542,39 @@ def load_project(location: str | Path) -> Project:
         sheets.append(SheetEntry(number.strip(), path, title.strip() if title else None, inputs))
 
     design_table = r.table(data, "design", "design")
+    r.known(
+        design_table,
+        "design",
+        ("standards", "materials", "loads", "basis", "assumptions", "cautions", "preset"),
+    )
+    from calcpack.presets import PRESETS
+
+    preset_name = r.choice(design_table, "preset", "design.preset", ("", *PRESETS), default="")
+    the_preset = PRESETS.get(preset_name)
+    if the_preset is not None and units != the_preset.units:
+        r.fail(
+            "job.units",
+            units,
+            repr(the_preset.units),
+            f"does not match the preset {preset_name!r} (design.preset)",
+        )
+    standards = r.texts(design_table, "standards", "design.standards", required=the_preset is None)
     design = Design(
-        standards=r.texts(design_table, "standards", "design.standards", required=True),
+        standards=standards or (the_preset.standards if the_preset else ()),
         materials=r.texts(design_table, "materials", "design.materials"),
         loads=r.texts(design_table, "loads", "design.loads"),
         basis=r.text(design_table, "basis", "design.basis", "markdown text", default=""),
         assumptions=r.texts(design_table, "assumptions", "design.assumptions"),
-        cautions=r.texts(design_table, "cautions", "design.cautions"),
+        cautions=(the_preset.cautions if the_preset else ())
+        + r.texts(design_table, "cautions", "design.cautions"),
+        preset=preset_name,
     )
     if not design.standards:
         r.fail("design.standards", [], "at least one design standard", "is empty")
 
     inputs = r.texts(data, "inputs", "inputs")
     for k, inp in enumerate(inputs, start=1):
+        r.inside(f"inputs[{k}]", inp, "a file every sheet reads")
         if not (file.parent / inp).is_file():
             r.fail(
                 f"inputs[{k}]",
@@ -511,13 +584,6 @@ def load_project(location: str | Path) -> Project:
             )
 
     engineer = _engineer(r, data, file.parent)
-
-    known = {"job", "people", "revisions", "sheets", "design", "inputs", "review"}
-    known.add("engineer_of_record")
-    known.add("verification")  # the checker's independent checks (package.verification)
-    for key in data:
-        if key not in known:
-            r.fail(key, data[key], "one of " + ", ".join(sorted(known)), "is not a known table")
 
     return Project(
         path=file,
@@ -546,6 +612,7 @@ def _engineer(r: _Reader, data: Mapping[str, Any], folder: Path) -> EngineerOfRe
     table = r.table(data, where, where, required=False)
     if not table:
         return None
+    r.known(table, where, ("name", "licence", "jurisdiction", "seal"))
     name = r.text(table, "name", f"{where}.name", "the engineer's name")
     licence = r.text(table, "licence", f"{where}.licence", 'a licence number such as "PE 48213"')
     place = r.text(table, "jurisdiction", f"{where}.jurisdiction", "where the licence is held")

@@ -29,6 +29,8 @@ from calcpack.package.project import Project
 
 __all__ = [
     "SUPERSEDED_DIR_NAME",
+    "check_output_folder",
+    "check_timeout",
     "make_way",
     "project_basis",
     "signatures_in",
@@ -82,6 +84,78 @@ def signatures_in(pdf: Path) -> tuple[tuple[str, str], ...]:
     except Exception:
         return (("unknown role", "unknown signer"),)
     return tuple(found)
+
+
+def placeholder_warnings(project: Project) -> tuple[str, ...]:
+    """A warning per template placeholder left in the project file (signing refuses them)."""
+    from calcpack.contract.placeholders import placeholders_in_summary
+
+    summary = {**project.summary(), "basis": project.design.basis}
+    return tuple(
+        f'{project.path.name}: {field} is still the template\'s "{text}"; fill it in before '
+        "signing (a package printing it cannot be signed)"
+        for field, text in placeholders_in_summary(summary)
+    )
+
+
+def check_timeout(timeout: float) -> float:
+    """The per-cell time limit, if it is a positive, finite number of seconds.
+
+    Raises:
+        InputError: zero, negative, NaN or infinite (a limit that would never stop a cell).
+    """
+    import math
+
+    from calcpack.errors import InputError
+
+    if (
+        isinstance(timeout, bool)
+        or not isinstance(timeout, int | float)
+        or not (math.isfinite(timeout) and timeout > 0)
+    ):
+        raise InputError(
+            f"The cell time limit --timeout must be a positive number of seconds "
+            f"(got timeout = {timeout!r})",
+            name="timeout",
+            value=timeout,
+            expected="seconds > 0",
+        )
+    return float(timeout)
+
+
+def check_output_folder(out: Path) -> None:
+    """Make sure the package can be written to ``out`` before anything executes.
+
+    The folder is made if its parent exists (``PROJECT/build`` on a first build); a folder
+    whose parent is missing is refused rather than made, as it is more likely a typing slip.
+
+    Raises:
+        BuildError: the folder's parent is missing, it is a file, or it is not writable.
+    """
+    import tempfile
+
+    if not out.exists():
+        if not out.parent.is_dir():
+            raise BuildError(
+                f"Output folder {str(out)!r} does not exist and neither does its parent "
+                f"{str(out.parent)!r}; create it first or give another --out"
+            )
+        try:
+            out.mkdir()
+        except OSError as exc:
+            raise BuildError(
+                f"Output folder {str(out)!r} cannot be made ({exc.strerror}); give another --out"
+            ) from exc
+    if not out.is_dir():
+        raise BuildError(f"Output folder {str(out)!r} is a file, not a folder; give another --out")
+    try:
+        with tempfile.NamedTemporaryFile(dir=out, prefix=".calcpack-probe-"):
+            pass
+    except OSError as exc:
+        raise BuildError(
+            f"Output folder {str(out)!r} is not writable ({exc.strerror}); nothing was executed. "
+            "Make it writable or give another --out"
+        ) from exc
 
 
 def _free_name(folder: Path, name: str) -> Path:

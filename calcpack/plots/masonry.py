@@ -8,7 +8,7 @@ from __future__ import annotations
 import io
 from typing import Any
 
-__all__ = ["masonry_bearing_figure", "masonry_bearing_svg"]
+__all__ = ["masonry_bearing_drawing", "masonry_bearing_figure", "masonry_bearing_svg"]
 
 
 def masonry_bearing_figure(b: Any) -> Any:
@@ -98,3 +98,8 @@ def masonry_bearing_svg(b: Any) -> str:
     buf = io.StringIO()
     fig.savefig(buf, format="svg", bbox_inches="tight")
     return buf.getvalue()
+
+
+def masonry_bearing_drawing(data: Any, settings: Any = None, **options: Any) -> str:
+    """The drawing ``"masonry-bearing"`` of :class:`calcpack.working.Figure` (SVG text)."""
+    return masonry_bearing_svg(data)

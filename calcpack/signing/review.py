@@ -277,6 +277,56 @@ def _nonempty(value: str, name: str) -> str:
     return value.strip()
 
 
+def recorded_quantities(project: Path, sheet: str) -> set[str] | None:
+    """The names of the values ``sheet`` recorded in the newest package manifest that lists it
+    (in ``PROJECT/build``, ``PROJECT/issued`` or beside the project folder); None if none does."""
+    import json
+
+    candidates = [
+        *project.glob("build/*.manifest.json"),
+        *project.glob("issued/*.manifest.json"),
+        *project.parent.glob("*.manifest.json"),
+    ]
+    candidates.sort(key=lambda f: f.stat().st_mtime, reverse=True)
+    for path in candidates:
+        try:
+            data = json.loads(path.read_text("utf-8"))
+        except (OSError, ValueError):
+            continue
+        for entry in data.get("sheets", []) if isinstance(data, dict) else []:
+            if isinstance(entry, dict) and entry.get("path") == sheet:
+                names: set[str] = set()
+                for v in entry.get("values", []):
+                    names.update(str(v[k]) for k in ("name", "symbol") if v.get(k))
+                return names
+    return None
+
+
+def _require_recorded(project: Path, sheet: str, quantity: str) -> None:
+    from calcpack.validate import suggest
+
+    names = recorded_quantities(project, sheet)
+    if names is None:
+        raise InputError(
+            f"No built package records the quantities of sheet {sheet!r}, so --quantity "
+            f"{quantity!r} cannot be checked; build the package first (calcpack build), or "
+            "leave out --quantity",
+            name="quantity",
+            value=quantity,
+            expected="a quantity recorded on the sheet",
+        )
+    if quantity not in names:
+        close = suggest(quantity, sorted(names))
+        hint = f"; did you mean {', '.join(repr(c) for c in close)}?" if close else ""
+        raise InputError(
+            f"Sheet {sheet!r} records no quantity {quantity!r} (got quantity = {quantity!r}; "
+            f"it records {len(names)}){hint}",
+            name="quantity",
+            value=quantity,
+            expected="a quantity recorded on the sheet",
+        )
+
+
 def add_comment(
     project: str | os.PathLike[str],
     *,
@@ -288,7 +338,8 @@ def add_comment(
     """Open a new comment on ``sheet`` (a notebook path relative to the project directory).
 
     Raises:
-        InputError: empty text or name, or the sheet notebook does not exist in the project.
+        InputError: empty text or name, the sheet notebook does not exist in the project, or
+            ``quantity`` is not a quantity the sheet recorded in the latest build.
     """
     text = _nonempty(text, "text")
     who = _nonempty(who, "who")
@@ -300,6 +351,8 @@ def add_comment(
             name="sheet",
             value=sheet,
         )
+    if quantity is not None and quantity.strip():
+        _require_recorded(Path(project), sheet, quantity.strip())
     log = load_review(project)
     numbers = [int(c.id[1:]) for c in log.comments if c.id[1:].isdigit()]
     comment = Comment(

@@ -26,6 +26,7 @@ from dataclasses import dataclass
 from pathlib import Path
 from typing import Any, cast
 
+from calcpack.contract.placeholders import placeholders_in_summary, placeholders_text
 from calcpack.errors import SigningError, VerificationError
 from calcpack.signing._util import quiet_library_logs, write_atomically
 from calcpack.signing.keys import (
@@ -161,6 +162,29 @@ def _check_order(
             )
     if role == "preparer" and existing:
         raise SigningError(f"{source} already carries signatures; the preparer signs first")
+
+
+def _require_current_review_log(manifest: dict[str, Any], project: Path, source: str) -> None:
+    """Refuse the checker's signature on a package whose review log is older than the review
+    file: the signature would vouch for a log that does not show the review as it stands."""
+    import hashlib
+
+    current = project / REVIEW_FILE
+    if not current.is_file():
+        return
+    recorded = [f for f in manifest.get("files", []) if f.get("role") == "review"]
+    digest = hashlib.sha256(current.read_bytes()).hexdigest()
+    if not recorded or str(recorded[0].get("sha256", "")).lower() != digest:
+        state = (
+            f"it was built before the review log {str(current)!r} existed"
+            if not recorded
+            else f"the review log it prints is older than {str(current)!r}"
+        )
+        raise SigningError(
+            f"The checker cannot sign {source}: {state} (the review changed after the package "
+            "was built). Rebuild the package (calcpack build) so that it prints the current "
+            "review log, then sign"
+        )
 
 
 def _check_signer(
@@ -333,6 +357,12 @@ def sign_package(
             f"{source} has no {role} box in its sign-off block "
             f"(boxes: {', '.join(boxes) or 'none'})"
         )
+    left = placeholders_in_summary(manifest.get("project") or {})
+    if left:
+        raise SigningError(
+            f"{source} still prints template placeholders from calcpack.toml: "
+            f"{placeholders_text(left)}. Fill them in, rebuild, then sign"
+        )
     existing = _existing_signatures(writer.prev, source)
     _check_order(role, existing, [r for r in ROLES if r in boxes], source)
 
@@ -349,6 +379,7 @@ def sign_package(
                 )
         else:
             overridden = require_closed(project_dir, override_open_comments)
+            _require_current_review_log(manifest, project_dir, source)
 
     creds = (
         key

@@ -17,11 +17,13 @@ __all__ = [
     "InputsPanel",
     "MemberPanel",
     "SectionPanel",
+    "SiteLoadsPanel",
     "beam_panel",
     "footing_panel",
     "member_panel",
     "preview",
     "section_panel",
+    "site_loads_panel",
 ]
 
 _WHERE = {
@@ -35,6 +37,8 @@ _WHERE = {
     "member_panel": "calcpack.widgets.member",
     "FootingPanel": "calcpack.widgets.footing",
     "footing_panel": "calcpack.widgets.footing",
+    "SiteLoadsPanel": "calcpack.widgets.site_loads",
+    "site_loads_panel": "calcpack.widgets.site_loads",
 }
 
 

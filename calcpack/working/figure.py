@@ -30,6 +30,7 @@ FIGURE_DRAWINGS: dict[str, str] = {
     "roof-loads": "calcpack.plots.roof_loads:roof_loads_svg",
     "truss": "calcpack.plots.truss:truss_svg",
     "joint": "calcpack.plots.joint:joint_svg",
+    "masonry-bearing": "calcpack.plots.masonry:masonry_bearing_drawing",
 }
 
 _REGISTERED: dict[str, Callable[..., str]] = {}

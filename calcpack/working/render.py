@@ -203,13 +203,13 @@ def _row(kind: str, desc: str, body: str, ref: str = "", name: str | None = None
 
 def _step_html_body(step: Step) -> str:
     if isinstance(step, Given):
-        src = f'<div class="cp-src">{_esc(step.source)}</div>' if step.source else ""
+        src = f'<div class="cp-src">{symbols_html(_esc(step.source))}</div>' if step.source else ""
         link = getattr(step, "link", None)
         if link and step.source:
             # An imported value: its source links to the exporting sheet (page set at layout).
             src = (
                 f'<div class="cp-src"><a class="cp-link" href="{html.escape(link)}">'
-                f"{_esc(step.source)}</a></div>"
+                f"{symbols_html(_esc(step.source))}</a></div>"
             )
         return _row(
             "given", _prose_html(step.description), _display_math(_given_tex(step)), src, step.name
@@ -221,7 +221,7 @@ def _step_html_body(step: Step) -> str:
             "derived",
             _prose_html(step.description),
             _display_math(tex) + note,
-            _esc(step.ref or ""),
+            symbols_html(_esc(step.ref or "")),
             step.name,
         )
     if isinstance(step, Equation):
@@ -239,11 +239,17 @@ def _step_html_body(step: Step) -> str:
         )
         member = f"{_esc(step.member)}: " if step.member else ""
         combo = f'<div class="cp-note">{_esc(step.combination)}</div>' if step.combination else ""
-        desc = f"<strong>{member}{_esc(step.name)}</strong> {_prose_html(step.description)}"
-        return _row("check", desc, body + combo, _esc(step.ref or ""), step.name)
+        name = symbols_html(_esc(step.name))
+        desc = f"<strong>{member}{name}</strong> {_prose_html(step.description)}"
+        return _row("check", desc, body + combo, symbols_html(_esc(step.ref or "")), step.name)
     if isinstance(step, NotCovered):
         body = f"{_verdict_html(step.verdict)} {_prose_html(step.reason)}"
-        return _row("check", f"<strong>{_esc(step.name)}</strong>", body, _esc(step.ref or ""))
+        return _row(
+            "check",
+            f"<strong>{symbols_html(_esc(step.name))}</strong>",
+            body,
+            symbols_html(_esc(step.ref or "")),
+        )
     if isinstance(step, Heading):
         lvl = min(step.level + 1, 4)
         return f'<div class="cp-step cp-heading"><h{lvl}>{_prose_html(step.title)}</h{lvl}></div>'
@@ -276,7 +282,9 @@ def _step_html_body(step: Step) -> str:
     if isinstance(step, Figure):
         return _figure_html(step)
     if isinstance(step, Block):
-        title = f'<div class="cp-step cp-heading"><h4>{_esc(step.title or "")}</h4></div>'
+        title = (
+            f'<div class="cp-step cp-heading"><h4>{symbols_html(_esc(step.title or ""))}</h4></div>'
+        )
         inner = "".join(_step_html_body(s) for s in step.steps)
         return f'<div class="cp-step cp-block">{title if step.title else ""}{inner}</div>'
     raise TypeError(f"no HTML renderer for {type(step).__name__}")

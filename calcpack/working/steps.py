@@ -131,6 +131,11 @@ class Value(Step, Term):
 
     unit_asked = False
 
+    @property
+    def record_kind(self) -> str:
+        """How the manifest records it: ``"given"`` (an input) or ``"derived"`` (a result)."""
+        return self.kind
+
     def __init__(
         self,
         name: str,
@@ -183,7 +188,8 @@ class Value(Step, Term):
             value=self.magnitude,
             unit=format_unit_text(self.display_unit),
             description=self.description,
-            kind=self.kind,
+            kind=self.record_kind,
+            sig=self.sig,
         )
 
     def records(self) -> dict[str, list[Any]]:
@@ -257,6 +263,9 @@ class Given(Value):
         description: words for the checker (``"clear span"``).
         source: where the value comes from (drawing, code table, manufacturer's data).
         unit: optional display unit (default: the unit as entered).
+        result: the value is a result carried into this working (a reaction or a member force
+            from the analysis, a demand from a load combination): shown as given here, but
+            recorded in the manifest as a result (``kind = "derived"``), not as an input.
     """
 
     kind = "given"
@@ -271,7 +280,9 @@ class Given(Value):
         unit: str | pint.Unit | None = None,
         latex: str | None = None,
         settings: DisplaySettings | None = None,
+        result: bool = False,
     ) -> None:
+        self.result = bool(result)
         if isinstance(value, bool) or not isinstance(value, pint.Quantity | int | float):
             raise InputError(
                 f"Given {name} must be a quantity such as 3.2 * ureg.m (got {value!r})",
@@ -286,6 +297,10 @@ class Given(Value):
             unit = settings.kind_unit(q)
         super().__init__(name, q, description, unit=unit, latex=latex, settings=settings)
         self.source = source
+
+    @property
+    def record_kind(self) -> str:
+        return "derived" if self.result else "given"
 
 
 class Derived(Value):
@@ -476,6 +491,7 @@ class Check(Step):
             ref=self.ref,
             combination=self.combination,
             description=self.description,
+            sig=self.sig,
         )
 
     def records(self) -> dict[str, list[Any]]:
@@ -592,9 +608,13 @@ class Table(Step):
         *,
         caption: str | None = None,
         settings: DisplaySettings | None = None,
+        values: Sequence[Record] = (),
     ) -> None:
+        """``values``: what the table states, recorded for the manifest (e.g. a table of loads
+        records each magnitude and position as an input)."""
         self.columns = list(columns)
         self.rows = [list(r) for r in rows]
+        self.values = tuple(values)
         for i, r in enumerate(self.rows):
             if len(r) != len(self.columns):
                 raise InputError(
@@ -606,6 +626,9 @@ class Table(Step):
                 )
         self.caption = caption
         self.settings = settings
+
+    def records(self) -> dict[str, list[Any]]:
+        return {"values": [v.to_json() for v in self.values]} if self.values else {}
 
 
 @dataclass

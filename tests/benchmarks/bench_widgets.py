@@ -92,6 +92,58 @@ def kernel_side(repeat: int) -> dict[str, float]:
     }
 
 
+# The catalogue panels: (template, key edited, values cycled) -- each edit changes the value.
+CATALOGUE = (
+    ("steel_column", "forces[1].P", [(v, "kip") for v in (20.0, 26.0, 31.0, 23.0)]),
+    ("footing", "footing.B", [(v, "ft") for v in (3.5, 4.0, 3.25, 3.75)]),
+    ("site_loads", "snow.pg", [(v, "psf") for v in (20.0, 30.0, 35.0, 40.0)]),
+)
+
+
+def catalogue_side(repeat: int) -> dict[str, dict[str, float]]:
+    """Median seconds of an edit in each catalogue panel (validate, compute, redraw: the
+    panel's own stamp) and of the whole edit call (with the file written), and the member
+    panel's search for the lightest shape."""
+    from calcpack.units import Q_
+    from calcpack.widgets.footing import FootingPanel
+    from calcpack.widgets.member import MemberPanel
+    from calcpack.widgets.site_loads import SiteLoadsPanel
+
+    kinds = {"steel_column": MemberPanel, "footing": FootingPanel, "site_loads": SiteLoadsPanel}
+    out: dict[str, dict[str, float]] = {}
+    templates = REPO / "templates" / "sheets"
+    with tempfile.TemporaryDirectory() as tmp:
+        for name, key, values in CATALOGUE:
+            path = Path(tmp) / f"{name}.inputs.toml"
+            shutil.copy(templates / f"{name}.inputs.toml", path)
+            panel = kinds[name](path)
+            k = [0]
+            shown: list[float] = []
+
+            def edit(
+                panel: Any = panel,
+                key: str = key,
+                values: Any = values,
+                k: list[int] = k,
+                shown: list[float] = shown,
+            ) -> None:
+                k[0] += 1
+                v, u = values[k[0] % len(values)]
+                panel.set(key, Q_(v, u))
+                shown.append(panel.last_update_s)
+
+            edit()  # warm caches
+            shown.clear()
+            whole = _median_time(edit, repeat)
+            out[name] = {"display": statistics.median(shown), "edit": whole}
+            if name == "steel_column":
+                t0 = time.perf_counter()
+                found = panel.search()
+                out[name]["search"] = time.perf_counter() - t0
+                out[name]["tried"] = float(len(found.tried)) if found else 0.0
+    return out
+
+
 # -- end to end in JupyterLab ---------------------------------------------------------------------
 # Installed before any page script: every frame the kernel websocket receives is stamped with
 # the page clock, its size and its message type.
@@ -226,6 +278,19 @@ def main(argv: list[str] | None = None) -> int:
     print(f"  reference: numpy 200x200 matmul:       {k['numpy'] * 1e3:8.3f} ms")
     print(f"  ratio display / solve:                 {k['display'] / k['solve']:8.2f}")
     print(f"  ratio display / Python loop:           {k['display'] / k['python']:8.2f}")
+    print(f"Catalogue panels, kernel side, median of {args.repeat} edits (target < 100 ms):")
+    for name, c in catalogue_side(args.repeat).items():
+        print(
+            f"  {name:14s} edit -> display ready:   {_ms(c['display'] * 1e3)}  "
+            f"(whole call {_ms(c['edit'] * 1e3)}, ratio display / Python loop "
+            f"{c['display'] / k['python']:.2f})"
+        )
+        if "search" in c:
+            print(
+                f"  {name:14s} lightest shape search: {_ms(c['search'] * 1e3)}  "
+                f"({int(c['tried'])} shapes tried, {c['search'] / max(c['tried'], 1) * 1e3:.1f} "
+                "ms each)"
+            )
     if args.no_browser:
         return 0
     b = browser_side(args.repeat)

@@ -93,8 +93,9 @@ def test_changed_sheet_is_marked_in_title_block_contents_and_history(
     assert "Sheets changed since revision A" in history
     assert "Sheet 1 Beam" in history
     assert "Sheet 2 Post" not in history
-    assert "input w: 3 kN/m → 3.6 kN/m" in history
-    assert "result M_max: 6 kN·m → 7.2 kN·m" in history
+    # at the sheet's significant figures (three)
+    assert "input w: 3.00 kN/m → 3.60 kN/m" in history
+    assert "result M_max: 6.00 kN·m → 7.20 kN·m" in history
     # Only issued revisions are kept: B is not marked issued.
     assert sorted(p.name for p in (root / "issued").iterdir()) == ["A.manifest.json"]
 

@@ -24,6 +24,7 @@ determinate beam is solved from the equilibrium and hinge equations alone.
 from __future__ import annotations
 
 import bisect
+from collections.abc import Sequence
 from dataclasses import dataclass
 from typing import NamedTuple
 
@@ -38,6 +39,7 @@ __all__ = [
     "evaluate",
     "integrate",
     "refine",
+    "shift_polynomial",
     "solve_si",
 ]
 
@@ -207,6 +209,15 @@ def _shift(c: np.ndarray, s: np.ndarray) -> np.ndarray:
     s_pow = np.asarray(s, dtype=float)[:, None] ** np.arange(c.shape[-1])[None, :]
     spow = s_pow[:, e]  # s^(i-k), gathered rather than recomputed
     return np.asarray(np.einsum("mi,ik,mik->mk", c, C, spow), dtype=float)
+
+
+def shift_polynomial(coeffs: Sequence[float], s: float) -> tuple[float, ...]:
+    """Coefficients (ascending) of p(ξ + s) for one polynomial p: the Taylor shift used by the
+    solver (:func:`_shift`), for callers that move a single load piece's origin."""
+    if not len(coeffs):
+        return ()
+    row = _shift(np.asarray([coeffs], dtype=float), np.asarray([s], dtype=float))[0]
+    return tuple(float(v) for v in row)
 
 
 def refine(X: np.ndarray, g: np.ndarray, Xnew: np.ndarray, K: int) -> np.ndarray:

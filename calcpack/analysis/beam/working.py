@@ -18,13 +18,12 @@ numeric solution to round-off (the tests check this).
 
 from __future__ import annotations
 
-import itertools
-from dataclasses import dataclass, replace
+from dataclasses import dataclass
 from typing import TYPE_CHECKING, Any
 
-import numpy as np
-
-from calcpack.analysis.beam.model import Beam, Fixed, Pin, Spring, Support
+from calcpack.analysis.beam.core import shift_polynomial
+from calcpack.analysis.beam.flexibility import flexibility_plan, reaction_keys, reaction_symbol
+from calcpack.analysis.beam.model import Beam
 from calcpack.loads.resultants import resultant_si
 from calcpack.loads.types import (
     AreaLoad,
@@ -67,10 +66,6 @@ SIGN_CONVENTION = (
 )
 
 
-# The display settings of the sheet the working is for: set on entry to beam_working and
-# cut_working (the working is built in one call, never concurrently with itself).
-_SETTINGS: list[DisplaySettings] = []
-
 _UNITS = {
     "SI": {
         "force": "kN",
@@ -91,33 +86,31 @@ _UNITS = {
 }
 
 
-def _settings() -> DisplaySettings:
-    return _SETTINGS[-1] if _SETTINGS else get_display()
+@dataclass(frozen=True)
+class Writer:
+    """Makes the working's steps with the display settings of the sheet they are for (passed
+    in, never held globally): its units for each kind of quantity and its significant figures."""
 
+    settings: DisplaySettings
 
-def _u(kind: str) -> str:
-    return _UNITS.get(_settings().system, _UNITS["SI"])[kind]
+    def u(self, kind: str) -> str:
+        return _UNITS.get(self.settings.system, _UNITS["SI"])[kind]
 
+    def given(self, *args: Any, **kw: Any) -> Given:
+        return Given(*args, settings=self.settings, **kw)
 
-def _given_step(*args: Any, **kw: Any) -> Given:
-    return Given(*args, settings=_settings(), **kw)
+    def derived(self, *args: Any, **kw: Any) -> Derived:
+        return Derived(*args, settings=self.settings, **kw)
 
+    def equation(self, *args: Any, **kw: Any) -> Equation:
+        return Equation(*args, settings=self.settings, **kw)
 
-def _derived_step(*args: Any, **kw: Any) -> Derived:
-    return Derived(*args, settings=_settings(), **kw)
+    def table(self, *args: Any, **kw: Any) -> Table:
+        return Table(*args, settings=self.settings, **kw)
 
-
-def _equation_step(*args: Any, **kw: Any) -> Equation:
-    return Equation(*args, settings=_settings(), **kw)
-
-
-def _table_step(*args: Any, **kw: Any) -> Table:
-    return Table(*args, settings=_settings(), **kw)
-
-
-def _lit(x_m: float) -> Term:
-    """A length literal as a term (shown as its value, e.g. (2.00 m))."""
-    return as_term(Q_(round(x_m, 12), _M).to(_u("length")))
+    def lit(self, x_m: float) -> Term:
+        """A length literal as a term (shown as its value, e.g. (2.00 m))."""
+        return as_term(Q_(round(x_m, 12), _M).to(self.u("length")))
 
 
 def _acc(expr: Any, sign: float, term: Any) -> Any:
@@ -144,24 +137,22 @@ class _Couple:
 
 
 def _clip(pieces: tuple[SIPiece, ...], lo: float, hi: float) -> tuple[SIPiece, ...]:
-    from math import comb
-
     out = []
     for p in pieces:
         a, b = max(p.a_m, lo), min(p.b_m, hi)
         if b - a <= 1e-12 * max(abs(hi), 1.0):
             continue
-        s = a - p.a_m
-        K = len(p.coeffs)
-        c = [sum(p.coeffs[i] * comb(i, k) * s ** (i - k) for i in range(k, K)) for k in range(K)]
-        out.append(SIPiece(a, b, tuple(c)))
+        out.append(SIPiece(a, b, shift_polynomial(p.coeffs, a - p.a_m)))
     return tuple(out)
 
 
 class _Loads:
     """The active (factored) loads of a result as Given / Derived steps."""
 
-    def __init__(self, result: BeamResult, steps: list[Any], upto: float | None = None) -> None:
+    def __init__(
+        self, w: Writer, result: BeamResult, steps: list[Any], upto: float | None = None
+    ) -> None:
+        self.w = w
         self.factors = dict(result.cases)
         self.beam = result.beam
         self.steps = steps
@@ -185,30 +176,30 @@ class _Loads:
             if isinstance(load, PointLoad):
                 n_p += 1
                 if load.P.magnitude != 0:
-                    P = _given_step(
+                    P = w.given(
                         f"P_{n_p}",
                         f * load.P,
                         f"point load at x = {load.x:~.4g}{how}",
-                        unit=_u("force"),
+                        unit=w.u("force"),
                     )
                     steps.append(P)
                     self.points.append((load, f, P))
                 if load.H.magnitude != 0:
-                    H = _given_step(
+                    H = w.given(
                         f"H_{n_p}",
                         f * load.H,
                         f"axial component at x = {load.x:~.4g} (+ toward +x){how}",
-                        unit=_u("force"),
+                        unit=w.u("force"),
                     )
                     steps.append(H)
                     self.axial.append((load, H))
             elif isinstance(load, PointMoment):
                 n_c += 1
-                C = _given_step(
+                C = w.given(
                     f"C_{n_c}",
                     f * load.C,
                     f"couple at x = {load.x:~.4g}, clockwise +{how}",
-                    unit=_u("moment"),
+                    unit=w.u("moment"),
                 )
                 steps.append(C)
                 self.couples.append((load, f, C))
@@ -224,6 +215,7 @@ class _Loads:
         self, load: DistributedLoad, f: float, k: int, lo: float, hi: float, part: str = ""
     ) -> tuple[Term, Term | None, float, float] | None:
         """(W term, x̄ term, W N, x̄ m) of the part of ``load`` on [lo, hi], making the steps."""
+        w = self.w
         key = (k, lo, hi)
         if key in self._cache:
             return self._cache[key]
@@ -242,42 +234,42 @@ class _Loads:
         where = f"x = {a:.4g} m to {b:.4g} m"
         formula_W = formula_x = None
         if whole and isinstance(load, UniformLoad | AreaLoad):
-            w: Any
+            line: Any
             if isinstance(load, AreaLoad):
-                q = _given_step(f"q_{k}", load.q, f"area load{how}", unit=_u("area"))
-                bt = _given_step(f"b_{k}", load.width, "tributary width", unit=_u("length"))
-                w = _derived_step(
+                q = w.given(f"q_{k}", load.q, f"area load{how}", unit=w.u("area"))
+                bt = w.given(f"b_{k}", load.width, "tributary width", unit=w.u("length"))
+                line = w.derived(
                     f"w_{k}",
                     f * q * bt if f != 1.0 else q * bt,
                     "line load = area load × tributary width",
-                    unit=_u("line"),
+                    unit=w.u("line"),
                 )
-                self.steps += [q, bt, w]
+                self.steps += [q, bt, line]
             else:
-                w = _given_step(
-                    f"w_{k}", f * load.w, f"uniform line load, {where}{how}", unit=_u("line")
+                line = w.given(
+                    f"w_{k}", f * load.w, f"uniform line load, {where}{how}", unit=w.u("line")
                 )
-                self.steps.append(w)
-            formula_W = w * _lit(b - a)
-            formula_x = _lit((a + b) / 2)
+                self.steps.append(line)
+            formula_W = line * w.lit(b - a)
+            formula_x = w.lit((a + b) / 2)
         elif whole and isinstance(load, LinearLoad):
-            w1 = _given_step(
-                f"w_{k}a", f * load.w_start, f"line load at x = {a:.4g} m{how}", unit=_u("line")
+            w1 = w.given(
+                f"w_{k}a", f * load.w_start, f"line load at x = {a:.4g} m{how}", unit=w.u("line")
             )
-            w2 = _given_step(
-                f"w_{k}b", f * load.w_end, f"line load at x = {b:.4g} m{how}", unit=_u("line")
+            w2 = w.given(
+                f"w_{k}b", f * load.w_end, f"line load at x = {b:.4g} m{how}", unit=w.u("line")
             )
             self.steps += [w1, w2]
-            formula_W = (w1 + w2) / 2 * _lit(b - a)
+            formula_W = (w1 + w2) / 2 * w.lit(b - a)
             if abs(W_N) > 1e-12 * (
                 abs(w1.quantity.to("N/m").magnitude) + abs(w2.quantity.to("N/m").magnitude)
             ) * (b - a):
-                formula_x = _lit(a) + _lit(b - a) * (w1 + 2 * w2) / (3 * (w1 + w2))
-        W = _derived_step(
+                formula_x = w.lit(a) + w.lit(b - a) * (w1 + 2 * w2) / (3 * (w1 + w2))
+        W = w.derived(
             name_W,
             formula_W if formula_W is not None else Q_(W_N, "N"),
             f"resultant W = ∫w dx of {load.describe() if whole else 'the part ' + where}",
-            unit=_u("force"),
+            unit=w.u("force"),
             note=None
             if formula_W is not None
             else "∫w dx integrated exactly (polynomial) or to the load's stated accuracy",
@@ -287,11 +279,11 @@ class _Loads:
         x_m = float("nan")
         if abs(W_N) > 1e-12 * max(abs(first), 1.0):
             x_m = first / W_N
-            xbar = _derived_step(
+            xbar = w.derived(
                 name_x,
                 formula_x if formula_x is not None else Q_(x_m, "m"),
                 "its position x̄ = ∫x·w dx / W from the left end",
-                unit=_u("length"),
+                unit=w.u("length"),
                 latex=latex_x,
             )
             self.steps.append(xbar)
@@ -307,21 +299,6 @@ class _Eq:
     terms: list[tuple[float, Term]]  # (sign, positive-sense term) of the known parts
     unknowns: list[tuple[float, Any, str]]  # (numeric coefficient, coefficient term or 1, key)
     description: str
-
-
-def _reaction_keys(beam: Beam) -> list[tuple[str, str]]:
-    keys = []
-    for s in beam.supports:
-        if s.restrains_v:
-            keys.append((s.label, "Fy"))
-        if s.restrains_rotation:
-            keys.append((s.label, "C"))
-    return keys
-
-
-def _symbol(key: tuple[str, str]) -> str:
-    name, comp = key
-    return {"Fy": "R", "C": "M", "Fx": "H"}[comp] + "_" + name
 
 
 def _equation(
@@ -340,6 +317,7 @@ def _equation(
     With ``cut_side`` "left" (or "right") the part is cut just left (right) of ``hi``: point
     actions at ``hi`` are left out (included).
     """
+    w = loads.w
     tol = 1e-9 * beam.L_m
 
     def inside(x: float) -> bool:
@@ -355,12 +333,12 @@ def _equation(
             continue
         if s.restrains_v:
             if about is None:
-                unknowns.append((1.0, 1, _symbol((s.label, "Fy"))))
+                unknowns.append((1.0, 1, reaction_symbol((s.label, "Fy"))))
             elif abs(s.x_m - about) > tol:
                 arm = s.x_m - about
-                unknowns.append((arm, _lit(arm), _symbol((s.label, "Fy"))))
+                unknowns.append((arm, w.lit(arm), reaction_symbol((s.label, "Fy"))))
         if s.restrains_rotation and about is not None:
-            unknowns.append((-1.0, -1, _symbol((s.label, "C"))))
+            unknowns.append((-1.0, -1, reaction_symbol((s.label, "C"))))
     for load, _f, P in loads.points:
         x = load.x.to("m").magnitude
         if not inside(x):
@@ -368,7 +346,7 @@ def _equation(
         if about is None:
             terms.append((-1.0, P))
         elif abs(x - about) > tol:
-            terms.append((-1.0, P * _lit(x - about)))
+            terms.append((-1.0, P * w.lit(x - about)))
     if about is not None:
         for cl, _f, C in loads.couples:
             if inside(cl.x.to("m").magnitude):
@@ -384,7 +362,7 @@ def _equation(
             first = resultant_si(_clip(dl.si_pieces(), lo, hi))[1] * f
             terms.append((-1.0, Q_(first, "N*m").to(_KNM)))
         else:
-            arm_term = xbar if abs(about) < tol else (xbar - _lit(about))
+            arm_term = xbar if abs(about) < tol else (xbar - w.lit(about))
             terms.append((-1.0, W * arm_term))
     return _Eq(label, terms, unknowns, description)
 
@@ -394,7 +372,7 @@ def _statics(result: BeamResult, loads: _Loads, solved: dict[str, Any], steps: l
     if the unknowns stay coupled (then the caller tabulates the solver's values)."""
     beam = result.beam
     L = beam.L_m
-    wanted = [_symbol(k) for k in _reaction_keys(beam)]
+    wanted = [reaction_symbol(k) for k in reaction_keys(beam)]
     cands: list[_Eq] = []
     for h in beam.hinges:
         hx = h.x_m
@@ -447,19 +425,15 @@ def _statics(result: BeamResult, loads: _Loads, solved: dict[str, Any], steps: l
                 continue
             used.add(i)
             progress = True
-            _emit(eq, open_[0], solved, steps, result)
+            _emit(loads.w, eq, open_[0], solved, steps)
             break
     return all(w in solved for w in wanted)
 
 
 def _emit(
-    eq: _Eq,
-    target: tuple[float, Any, str],
-    solved: dict[str, Any],
-    steps: list[Any],
-    result: BeamResult,
+    w: Writer, eq: _Eq, target: tuple[float, Any, str], solved: dict[str, Any], steps: list[Any]
 ) -> None:
-    unit = _u("moment") if target[2].startswith("M_") else _u("force")
+    unit = w.u("moment") if target[2].startswith("M_") else w.u("force")
     U = Unknown(target[2], unit=unit)
     lhs: Any = None
     rest: Any = None
@@ -479,82 +453,25 @@ def _emit(
         rest = _acc(rest, -sign, t)
     if rest is None:
         rest = Q_(0.0, unit)
-    steps.append(_equation_step(lhs, 0, label=eq.label, description=eq.description))
+    steps.append(w.equation(lhs, 0, label=eq.label, description=eq.description))
     cterm = target[1]
     formula = rest if cterm == 1 else (-rest if cterm == -1 else rest / cterm)
     name, comp = target[2].split("_", 1)
     what = {"R": "vertical reaction at", "M": "moment reaction (clockwise +) at"}[name]
-    value = _derived_step(target[2], formula, f"{what} support {comp}", unit=unit)
+    value = w.derived(target[2], formula, f"{what} support {comp}", unit=unit)
     steps.append(value)
     solved[target[2]] = value
 
 
 # -- flexibility method -------------------------------------------------------------------------
-def _released(beam: Beam, release: tuple[tuple[str, str], ...]) -> Beam | None:
-    supports: list[Support] = []
-    for s in beam.supports:
-        drop_v = (s.label, "Fy") in release
-        drop_r = (s.label, "C") in release
-        if not (drop_v or drop_r):
-            supports.append(s)
-        elif isinstance(s, Fixed):
-            if drop_v:
-                return None  # a fixed support without its vertical restraint: not modelled
-            supports.append(Pin(s.x, name=s.name))
-        elif isinstance(s, Spring):
-            k = None if drop_v else s.k
-            kt = None if drop_r else s.k_theta
-            if k is not None or kt is not None:
-                supports.append(Spring(s.x, k=k, k_theta=kt, name=s.name))
-        # pins, rollers: removed
-    loads = [replace(ld, H=Q_(0.0, "kN")) if isinstance(ld, PointLoad) else ld for ld in beam.loads]
-    try:
-        out = Beam(
-            length=beam.length,
-            supports=supports,
-            loads=loads,
-            EI=beam.EI,
-            hinges=beam.hinges,
-            name=beam.name,
-        )
-    except Exception:
-        return None
-    c = out.classify()
-    if c.kind == "unstable" or c.degree_bending != 0:
-        return None
-    return out
-
-
-def _choose_redundants(beam: Beam, n: int) -> tuple[tuple[tuple[str, str], ...], Beam] | None:
-    L = beam.L_m
-    keys = _reaction_keys(beam)
-
-    def preference(key: tuple[str, str]) -> tuple[int, float]:
-        s = beam.support(key[0])
-        interior = 0 if 1e-9 * L < s.x_m < L * (1 - 1e-9) else 1
-        if key[1] == "C":
-            return (1, 0.0)
-        return (0 if interior == 0 else 2, abs(s.x_m - L / 2))
-
-    ordered = sorted(keys, key=preference)
-    for combo in itertools.combinations(ordered, n):
-        rel = _released(beam, combo)
-        if rel is not None:
-            return combo, rel
-    return None
-
-
-def _flexibility(result: BeamResult, solved: dict[str, Any], steps: list[Any]) -> bool:
-    from calcpack.analysis.beam.result import combine
-    from calcpack.analysis.beam.solve import solve_beam
-
-    beam = result.beam
-    n = result.classification.degree_bending
-    chosen = _choose_redundants(beam, n)
-    if chosen is None:
+def _flexibility(w: Writer, result: BeamResult, solved: dict[str, Any], steps: list[Any]) -> bool:
+    plan = flexibility_plan(result)
+    if plan is None:
         return False
-    redundants, released = chosen
-    names = [_symbol(k) for k in redundants]
+    beam = result.beam
+    n = len(plan.redundants)
+    redundants, names = plan.redundants, plan.names
+    F, D0, flex, X = plan.F, plan.D0, plan.spring_flexibility, plan.X
     steps.append(Heading("Flexibility method", level=3))
     what = ", ".join(names)
     steps.append(
@@ -567,50 +484,19 @@ def _flexibility(result: BeamResult, solved: dict[str, Any], steps: list[Any]) -
             "not move; on a spring the support moves by −X_i/k_i, so X_i/k_i is added)."
         )
     )
-    factors = {c: f for c, f in result.cases if c in released.cases}
-    base = combine({c: solve_beam(released, c) for c in factors}, factors) if factors else None
-
-    def measure(r: Any, key: tuple[str, str]) -> float:
-        s = beam.support(key[0])
-        if key[1] == "Fy":
-            return -float(r.deflection(s.x).to("m").magnitude)  # upward movement, m
-        return -float(r.slope(s.x).to("rad").magnitude)  # clockwise rotation, rad
-
-    unit_results = []
-    for key in redundants:
-        s = beam.support(key[0])
-        unit_load = (
-            PointLoad(x=s.x, P=Q_(-1.0, "kN"), case="unit")
-            if key[1] == "Fy"
-            else PointMoment(x=s.x, C=Q_(1.0, "kN*m"), case="unit")
-        )
-        unit_results.append(solve_beam(replace(released, loads=[unit_load])))
-    F = np.array([[measure(unit_results[j], ki) for j in range(n)] for ki in redundants])
-    D0 = np.array([measure(base, k) if base is not None else 0.0 for k in redundants])
-    flex = []
-    for key in redundants:
-        s = beam.support(key[0])
-        if isinstance(s, Spring):
-            k = s.k if key[1] == "Fy" else s.k_theta
-            assert k is not None
-            flex.append(1.0 / float(k.to("kN/m" if key[1] == "Fy" else "kN*m").magnitude))
-        else:
-            flex.append(0.0)
-    A = F + np.diag(flex)
-    X = np.linalg.solve(A, -D0)
 
     # (internal unit of the movement, its display unit, internal unit of the redundant,
     # its display unit); unit redundants were applied as 1 kN and 1 kN·m.
     du = {
-        "Fy": ("m", _u("deflection"), "kN", _u("force")),
-        "C": ("rad", "rad", "kN*m", _u("moment")),
+        "Fy": ("m", w.u("deflection"), "kN", w.u("force")),
+        "C": ("rad", "rad", "kN*m", w.u("moment")),
     }
     d_terms = []
     f_terms: list[list[Any]] = []
     for i, ki in enumerate(redundants):
         base_u, show_u, _, _ = du[ki[1]]
         move = "upward movement" if ki[1] == "Fy" else "clockwise rotation"
-        d = _derived_step(
+        d = w.derived(
             f"Delta_{ki[0]}0",
             Q_(D0[i], base_u).to(show_u),
             f"{move} of the released beam at {ki[0]} under the loads",
@@ -622,8 +508,8 @@ def _flexibility(result: BeamResult, solved: dict[str, Any], steps: list[Any]) -
         for j, kj in enumerate(redundants):
             unit_of_x = du[kj[1]][2]
             show = f"{show_u}/({du[kj[1]][3]})"
-            val = (Q_(F[i, j], base_u) / Q_(1.0, unit_of_x)).to(show)
-            fij = _derived_step(
+            val = (Q_(F[i][j], base_u) / Q_(1.0, unit_of_x)).to(show)
+            fij = w.derived(
                 f"f_{ki[0]}{kj[0]}",
                 val,
                 f"{move} at {ki[0]} due to a unit {names[j]} on the released beam",
@@ -640,11 +526,11 @@ def _flexibility(result: BeamResult, solved: dict[str, Any], steps: list[Any]) -
         if flex[i]:
             s = beam.support(ki[0])
             k = s.k if ki[1] == "Fy" else s.k_theta  # type: ignore[attr-defined]
-            kk = _given_step(f"k_{ki[0]}", k, f"spring stiffness at {ki[0]}")
+            kk = w.given(f"k_{ki[0]}", k, f"spring stiffness at {ki[0]}")
             steps.append(kk)
             lhs = lhs + unknowns[i] / kk
         steps.append(
-            _equation_step(
+            w.equation(
                 lhs,
                 0,
                 label=rf"\Delta_{{{ki[0]}}} = 0",
@@ -654,11 +540,11 @@ def _flexibility(result: BeamResult, solved: dict[str, Any], steps: list[Any]) -
     for i, ki in enumerate(redundants):
         unit = du[ki[1]][3]
         if n == 1 and not flex[0]:
-            value = _derived_step(
+            value = w.derived(
                 names[0], -d_terms[0] / f_terms[0][0], "redundant from compatibility", unit=unit
             )
         else:
-            value = _derived_step(
+            value = w.derived(
                 names[i],
                 Q_(X[i], du[ki[1]][2]),
                 f"redundant, from the compatibility equations solved together ({n} equations)",
@@ -679,11 +565,7 @@ def beam_working(
         title: the block's title. sheet: the Sheet it is for (its unit system and significant
             figures are used). system: "SI" or "US" when no sheet is given.
     """
-    _SETTINGS.append(_pick_settings(sheet, system))
-    try:
-        return _beam_working(result, title)
-    finally:
-        _SETTINGS.pop()
+    return _beam_working(Writer(_pick_settings(sheet, system)), result, title)
 
 
 def _pick_settings(sheet: Any, system: str | None) -> DisplaySettings:
@@ -699,14 +581,14 @@ def _pick_settings(sheet: Any, system: str | None) -> DisplaySettings:
     return DisplaySettings(system=system, sig_figs=base.sig_figs)
 
 
-def _beam_working(result: BeamResult, title: str | None) -> Any:
+def _beam_working(w: Writer, result: BeamResult, title: str | None) -> Any:
     beam = result.beam
     steps: list[Any] = [
         Heading(title or f"Beam {beam.name}: reactions ({result.label})", 2),
         Text(SIGN_CONVENTION),
     ]
     steps.append(
-        _table_step(
+        w.table(
             columns=["support", "type", "x"],
             rows=[[s.label, s.kind, s.x] for s in beam.supports]
             + [[h.name or "", "internal hinge", h.x] for h in beam.hinges],
@@ -715,13 +597,24 @@ def _beam_working(result: BeamResult, title: str | None) -> Any:
     )
     steps.append(Text(f"Classification: {result.classification.describe()}."))
     steps.append(Heading("Loads and resultants", 3))
+    from calcpack.analysis.beam.load_table import load_table
+
+    acting = {case for case, _ in result.cases}
+    steps.append(
+        load_table(
+            [ld for ld in beam.loads if ld.case in acting],
+            member=beam.name,
+            length=beam.length,
+            settings=w.settings,
+        )
+    )
     steps.append(
         Text(
             "Each distributed load acts in the equilibrium equations through its "
             "resultant W = ∫w dx, placed at x̄ = ∫x·w dx / W."
         )
     )
-    loads = _Loads(result, steps)
+    loads = _Loads(w, result, steps)
     for dl, f, k in loads.dist:
         loads.resultant(dl, f, k, dl.a_m, dl.b_m)
     solved: dict[str, Any] = {}
@@ -729,22 +622,20 @@ def _beam_working(result: BeamResult, title: str | None) -> Any:
     hx = [s for s in beam.supports if s.restrains_h]
     if loads.axial:
         if len(hx) == 1:
-            H = Unknown(f"H_{hx[0].label}", unit=_u("force"))
+            H = Unknown(f"H_{hx[0].label}", unit=w.u("force"))
             total: Any = H
             for _, h in loads.axial:
                 total = total + h
-            steps.append(
-                _equation_step(total, 0, label=r"\Sigma F_x = 0", description="+ toward +x")
-            )
+            steps.append(w.equation(total, 0, label=r"\Sigma F_x = 0", description="+ toward +x"))
             rest: Any = 0
             for _, h in loads.axial:
                 rest = rest - h
             steps.append(
-                _derived_step(
+                w.derived(
                     f"H_{hx[0].label}",
                     rest,
                     f"horizontal reaction at {hx[0].label}",
-                    unit=_u("force"),
+                    unit=w.u("force"),
                 )
             )
         else:
@@ -768,7 +659,7 @@ def _beam_working(result: BeamResult, title: str | None) -> Any:
         )
     ok = True
     if result.classification.degree_bending > 0:
-        ok = _flexibility(result, solved, steps)
+        ok = _flexibility(w, result, solved, steps)
         if ok:
             steps.append(Heading("Remaining reactions by equilibrium", 3))
     if ok:
@@ -780,36 +671,36 @@ def _beam_working(result: BeamResult, title: str | None) -> Any:
                 "compatibility conditions by the exact solver (see the table)."
             )
         )
-    steps.append(_reaction_table(result))
-    steps += extremes_steps(result)
+    steps.append(_reaction_table(w, result))
+    steps += extremes_steps(w, result)
     return Block(steps=steps[1:], title=title or f"Beam {beam.name}: reactions ({result.label})")
 
 
-def _reaction_table(result: BeamResult) -> Any:
+def _reaction_table(w: Writer, result: BeamResult) -> Any:
     rows = []
     for r in result.reactions:
         rows.append(
             [
                 r.support,
                 r.kind,
-                r.x.to(_u("length")),
-                r.Fy.to(_u("force")),
-                r.Fx.to(_u("force")),
-                r.C.to(_u("moment")),
+                r.x.to(w.u("length")),
+                r.Fy.to(w.u("force")),
+                r.Fx.to(w.u("force")),
+                r.C.to(w.u("moment")),
             ]
         )
-    return _table_step(
+    return w.table(
         columns=["support", "type", "x", "R (up +)", "H (+x)", "M (clockwise +)"],
         rows=rows,
         caption=f"Reactions, {result.label}",
     )
 
 
-def extremes_steps(result: BeamResult) -> list[Any]:
+def extremes_steps(w: Writer, result: BeamResult) -> list[Any]:
     """Heading, a table of the extremes and the key values as Derived records."""
     e = result.extremes
     steps: list[Any] = [Heading("Shear, moment and deflection", 3)]
-    F, Mu, D, Lu = _u("force"), _u("moment"), _u("deflection"), _u("length")
+    F, Mu, D, Lu = w.u("force"), w.u("moment"), w.u("deflection"), w.u("length")
     rows: list[list[Any]] = [
         ["V max", e.V_max.value.to(F), e.V_max.x.to(Lu), e.V_max.side],
         ["V min", e.V_min.value.to(F), e.V_min.x.to(Lu), e.V_min.side],
@@ -826,7 +717,7 @@ def extremes_steps(result: BeamResult) -> list[Any]:
         rows.append(["slope at x = 0 (ccw +)", e.slope_left, Q_(0.0, Lu), ""])
         rows.append(["slope at x = L (ccw +)", e.slope_right, result.beam.length.to(Lu), ""])
     steps.append(
-        _table_step(
+        w.table(
             columns=["quantity", "value", "at x", "side"],
             rows=rows,
             caption=f"Extremes, {result.label} (exact)",
@@ -836,31 +727,34 @@ def extremes_steps(result: BeamResult) -> list[Any]:
     cf = ", ".join(f"{x.to(Lu):~.3g}" for x in e.contraflexure) or "none"
     steps.append(Text(f"Zero shear at x = {zs}. Points of contraflexure at x = {cf}."))
     steps.append(
-        _derived_step(
-            "M_max", e.M_max.value, f"largest sagging moment, {result.beam.name}", unit=_u("moment")
+        w.derived(
+            "M_max",
+            e.M_max.value,
+            f"largest sagging moment, {result.beam.name}",
+            unit=w.u("moment"),
         )
     )
     steps.append(
-        _derived_step(
-            "M_min", e.M_min.value, f"most hogging moment, {result.beam.name}", unit=_u("moment")
+        w.derived(
+            "M_min", e.M_min.value, f"most hogging moment, {result.beam.name}", unit=w.u("moment")
         )
     )
     vabs = e.V_max if abs(e.V_max.value_si) >= abs(e.V_min.value_si) else e.V_min
     steps.append(
-        _derived_step(
+        w.derived(
             "V_max",
             Q_(abs(vabs.value_si), "N"),
             f"largest shear magnitude, {result.beam.name}",
-            unit=_u("force"),
+            unit=w.u("force"),
         )
     )
     if e.has_deflection and e.deflection_down is not None:
         steps.append(
-            _derived_step(
+            w.derived(
                 "delta_max",
                 e.deflection_down.value,
                 f"largest downward deflection, {result.beam.name}",
-                unit=_u("deflection"),
+                unit=w.u("deflection"),
             )
         )
     return steps
@@ -874,14 +768,10 @@ def cut_working(
 
     ``side="left"`` cuts just left of x (actions at x excluded), ``"right"`` just right of it.
     """
-    _SETTINGS.append(_pick_settings(sheet, system))
-    try:
-        return _cut_working(result, x, side)
-    finally:
-        _SETTINGS.pop()
+    return _cut_working(Writer(_pick_settings(sheet, system)), result, x, side)
 
 
-def _cut_working(result: BeamResult, x: Any, side: str) -> Any:
+def _cut_working(w: Writer, result: BeamResult, x: Any, side: str) -> Any:
     from calcpack.loads._si import check
 
     beam = result.beam
@@ -898,7 +788,7 @@ def _cut_working(result: BeamResult, x: Any, side: str) -> Any:
             "(sagging M, left face of the next element pushed up)."
         )
     )
-    loads = _Loads(result, steps, upto=hi)
+    loads = _Loads(w, result, steps, upto=hi)
     if side not in ("left", "right"):
         from calcpack.errors import InputError
 
@@ -915,14 +805,22 @@ def _cut_working(result: BeamResult, x: Any, side: str) -> Any:
             continue
         r = react[s.label]
         if s.restrains_v:
-            R = _given_step(
-                f"R_{s.label}", r.Fy, f"reaction at {s.label} (from the analysis)", unit=_u("force")
+            R = w.given(
+                f"R_{s.label}",
+                r.Fy,
+                f"reaction at {s.label} (from the analysis)",
+                unit=w.u("force"),
+                result=True,
             )
             steps.append(R)
             rterms.append(("F", s.x_m, R))
         if s.restrains_rotation:
-            Mr = _given_step(
-                f"M_{s.label}", r.C, f"moment reaction at {s.label}, clockwise +", unit=_u("moment")
+            Mr = w.given(
+                f"M_{s.label}",
+                r.C,
+                f"moment reaction at {s.label}, clockwise +",
+                unit=w.u("moment"),
+                result=True,
             )
             steps.append(Mr)
             rterms.append(("C", s.x_m, Mr))
@@ -940,8 +838,8 @@ def _cut_working(result: BeamResult, x: Any, side: str) -> Any:
         "c",
         cut_side=side,
     )
-    V = Unknown("V", unit=_u("force"))
-    M = Unknown("M", unit=_u("moment"))
+    V = Unknown("V", unit=w.u("force"))
+    M = Unknown("M", unit=w.u("moment"))
     lhsV: Any = None
     restV: Any = None
     for kind, _xs, t in rterms:
@@ -952,21 +850,21 @@ def _cut_working(result: BeamResult, x: Any, side: str) -> Any:
         lhsV = _acc(lhsV, sign, term)
         restV = _acc(restV, sign, term)
     lhsV = _acc(lhsV, -1.0, V)
-    steps.append(_equation_step(lhsV, 0, label=eqV.label, description=eqV.description))
+    steps.append(w.equation(lhsV, 0, label=eqV.label, description=eqV.description))
     steps.append(
-        _derived_step(
+        w.derived(
             "V",
             restV if restV is not None else Q_(0.0, "kN"),
             f"shear at x = {xq:~.4g} ({side})",
-            unit=_u("force"),
+            unit=w.u("force"),
         )
     )
     lhsM: Any = None
     restM: Any = None
     for kind, xs, t in rterms:
         if kind == "F" and abs(x_m - xs) > eps:
-            lhsM = _acc(lhsM, -1.0, t * _lit(x_m - xs))
-            restM = _acc(restM, 1.0, t * _lit(x_m - xs))
+            lhsM = _acc(lhsM, -1.0, t * w.lit(x_m - xs))
+            restM = _acc(restM, 1.0, t * w.lit(x_m - xs))
         elif kind == "C":
             lhsM = _acc(lhsM, -1.0, t)
             restM = _acc(restM, 1.0, t)
@@ -974,13 +872,13 @@ def _cut_working(result: BeamResult, x: Any, side: str) -> Any:
         lhsM = _acc(lhsM, sign, term)
         restM = _acc(restM, -sign, term)
     lhsM = _acc(lhsM, 1.0, M)
-    steps.append(_equation_step(lhsM, 0, label=eqM.label, description=eqM.description))
+    steps.append(w.equation(lhsM, 0, label=eqM.label, description=eqM.description))
     steps.append(
-        _derived_step(
+        w.derived(
             "M",
             restM if restM is not None else Q_(0.0, "kN*m"),
             f"bending moment at x = {xq:~.4g} ({side}), sagging +",
-            unit=_u("moment"),
+            unit=w.u("moment"),
         )
     )
     return Block(steps=steps[1:], title=f"Cut at x = {xq:~.4g} ({side}), beam {beam.name}")

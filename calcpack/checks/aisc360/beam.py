@@ -169,6 +169,7 @@ def check_beam_case(case: BeamCase) -> MemberChecks:
         shear,
         given_cb=isinstance(demand, DirectDemand) and not case.continuous_bracing,
         on_out_of_scope=case.on_out_of_scope,
+        from_analysis=isinstance(demand, CombinedDemand),
     )
     title = f"{case.section.name} beam to {AISC360_EDITION} §F2 and §G2 ({method})"
     return run_checks(case.member, title, Standard(AISC360_EDITION, _TITLE, method), clauses)

@@ -70,7 +70,11 @@ class BeamClauses:
         *,
         given_cb: bool,
         on_out_of_scope: str,
+        from_analysis: bool = False,
     ) -> None:
+        """``from_analysis``: the demands are results of load combinations (recorded as results
+        in the manifest), not values given directly (recorded as inputs)."""
+        self.from_analysis = from_analysis
         self.sec, self.Fy, self.E, self.method, self.material = sec, Fy, E, method, material
         self.flexure, self.shear = flexure, shear
         self.given_cb = given_cb
@@ -259,6 +263,7 @@ class BeamClauses:
             "required flexural strength" + (f", {it.where}" if it.where else ""),
             source=it.combination or "given",
             unit="kip*ft",
+            result=self.from_analysis,
         )
         c.check("Flexure", Mu, cap, ref="AISC 360-16 §F2", combination=it.combination)
 
@@ -286,12 +291,11 @@ class BeamClauses:
         sm = it.Cb_from
         if sm is not None:
             src = it.combination
-            Mmax = c.given(
-                "M_max", sm.M_max, "largest |M| on the segment", source=src, unit="kip*ft"
-            )
-            MA = c.given("M_A", sm.M_A, "|M| at the quarter point", source=src, unit="kip*ft")
-            MB = c.given("M_B", sm.M_B, "|M| at the centre", source=src, unit="kip*ft")
-            MC = c.given("M_C", sm.M_C, "|M| at the three-quarter point", source=src, unit="kip*ft")
+            kw: dict[str, Any] = {"source": src, "unit": "kip*ft", "result": True}
+            Mmax = c.given("M_max", sm.M_max, "largest |M| on the segment", **kw)
+            MA = c.given("M_A", sm.M_A, "|M| at the quarter point", **kw)
+            MB = c.given("M_B", sm.M_B, "|M| at the centre", **kw)
+            MC = c.given("M_C", sm.M_C, "|M| at the three-quarter point", **kw)
             Cb = c.derive(
                 "C_b",
                 cb_formula(Mmax, MA, MB, MC),
@@ -424,5 +428,6 @@ class BeamClauses:
             "required shear strength (largest |V|)",
             source=combo or "given",
             unit="kip",
+            result=self.from_analysis,
         )
         c.check("Shear", Vd, cap, ref="AISC 360-16 §G2.1", combination=combo)

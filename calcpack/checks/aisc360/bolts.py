@@ -17,6 +17,7 @@ Units: pint quantities; forces are magnitudes (V shear, T tension) on the whole 
 
 from __future__ import annotations
 
+import re
 from collections.abc import Mapping, Sequence
 from dataclasses import dataclass
 from typing import Any, Literal
@@ -305,42 +306,49 @@ def bolt_logic(
     return Vr
 
 
+def symbol_part(name: str) -> str:
+    """``name`` reduced to letters and digits, for use inside a symbol (``"cap plate"`` ->
+    ``"capplate"``)."""
+    return re.sub(r"[^A-Za-z0-9]", "", name) or "x"
+
+
 def _ply_logic(
     c: Recorder, b: BoltGroup, p: Ply, Vr: Any, method: str, combination: str | None
 ) -> None:
+    k = symbol_part(p.name)
     c.heading(f"Bearing and tear-out at the holes, {p.name} (§J3.10)", 3)
     sz = bolt_size(b.d)
     dh_q = b.hole
-    t = c.given(f"t_{p.name}", p.t, f"thickness, {p.name}", source="given", unit="inch")
-    Fu = c.given(f"F_u_{p.name}", p.Fu, f"tensile strength, {p.name}", source="given")
+    t = c.given(f"t_{k}", p.t, f"thickness, {p.name}", source="given", unit="inch")
+    Fu = c.given(f"F_u_{k}", p.Fu, f"tensile strength, {p.name}", source="given")
     d = c.given("d_b", b.d, "bolt diameter", source="given", unit="inch")
     dh = c.given("d_h", dh_q, "standard hole", source="AISC 360-16 Table J3.3", unit="inch")
-    rb = c.derive(f"r_b_{p.name}", 2.4 * d * t * Fu, "bearing, one bolt", unit="kip",
+    rb = c.derive(f"r_b_{k}", 2.4 * d * t * Fu, "bearing, one bolt", unit="kip",
                   ref="AISC 360-16 Eq. (J3-6a)")  # fmt: skip
     terms: list[Any] = []
     if p.along > 1:
         assert p.s is not None
-        s = c.given(f"s_{p.name}", p.s, "spacing along the force", source="given", unit="inch")
-        lci = c.derive(f"l_c_in_{p.name}", s - dh, "clear distance, inner bolts", unit="inch",
+        s = c.given(f"s_{k}", p.s, "spacing along the force", source="given", unit="inch")
+        lci = c.derive(f"l_c_in_{k}", s - dh, "clear distance, inner bolts", unit="inch",
                        ref="AISC 360-16 §J3.10")  # fmt: skip
-        ri = c.derive(f"r_in_{p.name}", c.min(1.2 * lci * t * Fu, rb),
+        ri = c.derive(f"r_in_{k}", c.min(1.2 * lci * t * Fu, rb),
                       "inner bolt: tear-out or bearing", unit="kip",
                       ref="AISC 360-16 Eq. (J3-6c)")  # fmt: skip
         terms.append((p.along - 1) * p.lines * ri)
     if p.le is not None:
-        le = c.given(f"l_e_{p.name}", p.le, "end distance toward the loaded edge", unit="inch")
-        lce = c.derive(f"l_c_e_{p.name}", le - dh / 2, "clear distance, end bolts", unit="inch",
+        le = c.given(f"l_e_{k}", p.le, "end distance toward the loaded edge", unit="inch")
+        lce = c.derive(f"l_c_e_{k}", le - dh / 2, "clear distance, end bolts", unit="inch",
                        ref="AISC 360-16 §J3.10")  # fmt: skip
-        re_ = c.derive(f"r_e_{p.name}", c.min(1.2 * lce * t * Fu, rb),
+        re_ = c.derive(f"r_e_{k}", c.min(1.2 * lce * t * Fu, rb),
                        "end bolt: tear-out or bearing", unit="kip",
                        ref="AISC 360-16 Eq. (J3-6c)")  # fmt: skip
         terms.append(p.lines * re_)
     else:
         terms.append(p.lines * rb)
     total = terms[0] if len(terms) == 1 else terms[0] + terms[1]
-    Rn = c.derive(f"R_n_brg_{p.name}", total, "sum over the bolts", unit="kip",
+    Rn = c.derive(f"R_n_brg_{k}", total, "sum over the bolts", unit="kip",
                   ref="AISC 360-16 §J3.10")  # fmt: skip
-    cap = factored(c, "bearing", Rn, method, name=f"R_c_brg_{p.name}", unit="kip")
+    cap = factored(c, "bearing", Rn, method, name=f"R_c_brg_{k}", unit="kip")
     c.check(f"Bearing and tear-out, {p.name}", Vr, cap, ref="AISC 360-16 §J3.10",
             combination=combination)  # fmt: skip
     emin = Q_(float(sz["edge_min"]), "inch")

@@ -17,7 +17,7 @@ from __future__ import annotations
 
 from dataclasses import dataclass, field
 
-from calcpack.checks.aisc360.bolts import factored
+from calcpack.checks.aisc360.bolts import factored, symbol_part
 from calcpack.checks.aisc360.member_data import check_method, member_standard
 from calcpack.checks.base import MemberChecks, Recorder, run_checks
 from calcpack.errors import InputError
@@ -159,18 +159,19 @@ def check_aisc_fillet_weld(
                      unit="kip")  # fmt: skip
         c.check("Fillet weld strength", Rr, cap, ref="AISC 360-16 §J2.4", combination=combination)
         for b in wd.base:
+            k = symbol_part(b.name)
             c.heading(f"Base metal along the weld, {b.name} (§J4.2)", 3)
-            t = c.given(f"t_{b.name}", b.t, f"thickness, {b.name}", source="given", unit="inch")
-            Fy = c.given(f"F_y_{b.name}", b.Fy, f"yield stress, {b.name}", source="given")
-            Fu = c.given(f"F_u_{b.name}", b.Fu, f"tensile strength, {b.name}", source="given")
-            Ay = c.derive(f"A_gv_{b.name}", t * L * n, "shear area along the welds",
+            t = c.given(f"t_{k}", b.t, f"thickness, {b.name}", source="given", unit="inch")
+            Fy = c.given(f"F_y_{k}", b.Fy, f"yield stress, {b.name}", source="given")
+            Fu = c.given(f"F_u_{k}", b.Fu, f"tensile strength, {b.name}", source="given")
+            Ay = c.derive(f"A_gv_{k}", t * L * n, "shear area along the welds",
                           unit="inch**2", ref="AISC 360-16 §J4.2")  # fmt: skip
-            Rny = c.derive(f"R_n_y_{b.name}", 0.60 * Fy * Ay, "shear yielding", unit="kip",
+            Rny = c.derive(f"R_n_y_{k}", 0.60 * Fy * Ay, "shear yielding", unit="kip",
                            ref="AISC 360-16 Eq. (J4-3)")  # fmt: skip
-            Rnr = c.derive(f"R_n_r_{b.name}", 0.60 * Fu * Ay, "shear rupture", unit="kip",
+            Rnr = c.derive(f"R_n_r_{k}", 0.60 * Fu * Ay, "shear rupture", unit="kip",
                            ref="AISC 360-16 Eq. (J4-4)")  # fmt: skip
-            cy = factored(c, "shear yielding", Rny, method, name=f"R_c_y_{b.name}", unit="kip")
-            cr = factored(c, "shear rupture", Rnr, method, name=f"R_c_r_{b.name}", unit="kip")
+            cy = factored(c, "shear yielding", Rny, method, name=f"R_c_y_{k}", unit="kip")
+            cr = factored(c, "shear rupture", Rnr, method, name=f"R_c_r_{k}", unit="kip")
             c.check(f"Base metal shear yielding, {b.name}", Rr, cy, ref="AISC 360-16 §J4.2(a)",
                     combination=combination)  # fmt: skip
             c.check(f"Base metal shear rupture, {b.name}", Rr, cr, ref="AISC 360-16 §J4.2(b)",

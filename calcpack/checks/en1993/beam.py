@@ -19,13 +19,9 @@ import numpy as np
 from calcpack.checks.base import MemberChecks
 from calcpack.checks.demand import as_combinations, max_abs
 from calcpack.checks.en1993.data import E_STEEL, G_STEEL, LTBMethod
+from calcpack.checks.en1993.inputs import DesignForces, LoadLevel, SteelMemberEC
 from calcpack.checks.en1993.ltb import critical_moment
-from calcpack.checks.en1993.member import (
-    DesignForces,
-    LoadLevel,
-    SteelMemberEC,
-    check_en1993_member,
-)
+from calcpack.checks.en1993.member import check_en1993_member
 from calcpack.errors import InputError
 from calcpack.sections.eurocode_tables import EuroSection
 from calcpack.units import Q_, Quantity, require, si

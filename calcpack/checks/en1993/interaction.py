@@ -15,7 +15,7 @@ from calcpack.sections.eurocode_tables import EuroSection
 from calcpack.units import Q_
 
 if TYPE_CHECKING:
-    from calcpack.checks.en1993.member import DesignForces, SteelMemberEC
+    from calcpack.checks.en1993.inputs import DesignForces, SteelMemberEC
 
 if TYPE_CHECKING:
     from calcpack.checks.en1993.member import DesignForces

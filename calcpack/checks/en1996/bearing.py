@@ -131,6 +131,21 @@ class MasonryBearing:
         self.checks.add_to(sheet)
         return self
 
+    def figure(self, caption: str = "") -> Any:
+        """The sketch as a :class:`calcpack.working.Figure` step for a sheet."""
+        from calcpack.working import Figure
+
+        lb = self.loaded_length.to("mm").magnitude
+        return Figure(
+            "masonry-bearing",
+            self,
+            caption=caption
+            or f"Concentrated load on masonry: loaded length {lb:.0f} mm spread at 60° to "
+            f"mid-height, l_efm = {self.l_efm.to('mm').magnitude:.0f} mm, β = {self.beta:.2f}",
+            alt="Elevation of the wall with the padstone and the beam bearing, the load spread "
+            "at 60° to mid-height of the wall, and the effective length l_efm.",
+        )
+
     def svg(self) -> str:
         """The elevation sketch (see :mod:`calcpack.plots.masonry`)."""
         from calcpack.plots.masonry import masonry_bearing_svg

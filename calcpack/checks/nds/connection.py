@@ -226,9 +226,13 @@ def _layout_checks(
             f"Load at {th:g}° to grain: the distances of both the parallel and the perpendicular "
             "loading cases are required (the larger governs) -- common practice."
         )
-    lm = float(j.main_bearing_length.to("inch").magnitude)
-    ls = float(j.side.thickness.to("inch").magnitude)
-    l_over_d = min(lm, ls) / d_in
+    # ℓ/D of Tables 12.5.1C-D: the lesser of ℓ_m/D and ℓ_s/D, of the wood members (a steel
+    # plate does not split; taking only wood members is the larger, conservative requirement)
+    woods = [float(j.main_bearing_length.to("inch").magnitude)] if isinstance(
+        j.main, WoodMember) else []  # fmt: skip
+    if isinstance(j.side, WoodMember):
+        woods.append(float(j.side.thickness.to("inch").magnitude))
+    l_over_d = min(woods) / d_in
     ratios: list[float] = []
     where = f"({which})"
 

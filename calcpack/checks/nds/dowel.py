@@ -435,6 +435,8 @@ def _bearing(c: Recorder, tag: str, m: Member, D: Any, j: DowelJoint) -> Any:
         unit="psi",
         ref="NDS 2018 Table 12.3.3 footnote 2",
     )
+    if abs(th - math.pi / 2) < 1e-12:
+        return c.derive(name, Fperp, "θ = 90°", unit="psi", ref="NDS 2018 §12.3.4")
     s2 = c.given(f"sin2_{tag}", math.sin(th) ** 2, f"sin²θ, θ = {m.angle:~P}", source="given")
     c2 = c.given(f"cos2_{tag}", math.cos(th) ** 2, "cos²θ", source="given")
     return c.derive(

@@ -69,7 +69,8 @@ class DeckLedger:
             :class:`~calcpack.checks.nds.dowel.Embedment` for a concrete or masonry wall.
         ledger_depth: depth of the ledger. support_depth: depth of the rim board (None for a
             wall). drop: distance from the top of the rim board down to the top of the ledger.
-        spacing: on-centre spacing of the fasteners along the ledger (each carries w · s).
+        spacing: on-centre spacing of consecutive fasteners along the ledger (each carries
+            w · s); with two lines they alternate, so each line has them at 2s.
         rows: 1, or 2 for a staggered pattern. top: from the top of the ledger to the upper
             line. bottom: from the bottom of the ledger to the lower line (the same line when
             rows = 1). end: from the end of the ledger to the first fastener.
@@ -292,8 +293,7 @@ def _distances(
         need = connection_factor("rows|perpendicular|long")[0]
     else:
         need = (5.0 * r + 10.0) / 8.0
-    pitch = lg.spacing / 2 if lg.rows == 2 else lg.spacing
-    chk("Spacing along the ledger", need * D, pitch, "NDS 2018 Table 12.5.1D")
+    chk("Spacing along the ledger", need * D, lg.spacing, "NDS 2018 Table 12.5.1D")
     if lg.rows == 2:
         full = connection_factor("spacing|perpendicular|any")[1]
         assert full is not None

@@ -186,12 +186,14 @@ def check_nds_combined(
         w = _withdrawal_adjusted(c, fastener, member, penetration, sv)
         Zp = c.given("Z_adj", Z_adj, "adjusted lateral value Z' per fastener", unit="lbf")
         if nail:
-            ca = c.given("cos_a", math.cos(a), f"cos α, α = {alpha:~P}", source="given")
-            sa = c.given("sin_a", math.sin(a), "sin α", source="given")
+            ca = c.given("cos_a", round(math.cos(a), 12), f"cos α, α = {alpha:~P}", source="given")
+            sa = c.given("sin_a", round(math.sin(a), 12), "sin α", source="given")
             ref = "NDS 2018 Eq. (12.4-2)"
         else:
-            ca = c.given("cos_a", math.cos(a) ** 2, f"cos²α, α = {alpha:~P}", source="given")
-            sa = c.given("sin_a", math.sin(a) ** 2, "sin²α", source="given")
+            ca = c.given(
+                "cos_a", round(math.cos(a), 12) ** 2, f"cos²α, α = {alpha:~P}", source="given"
+            )
+            sa = c.given("sin_a", round(math.sin(a), 12) ** 2, "sin²α", source="given")
             ref = "NDS 2018 Eq. (12.4-1)"
         Za = c.derive("Z_alpha", w.per_fastener * Zp / (w.per_fastener * ca + Zp * sa),
                       "capacity at α per fastener", unit="lbf", ref=ref)  # fmt: skip

@@ -73,7 +73,7 @@ def test_a_changed_upstream_value_is_shown_once_with_what_it_changed_downstream(
     origin = by_name[("sheets/loads.ipynb", "P")]
     assert origin.carried_to == ("sheet 2 as P",)
     beam_r = by_name[("sheets/beam.ipynb", "R")]
-    assert (beam_r.old, beam_r.new) == ("3 kN", "4 kN")
+    assert (beam_r.old, beam_r.new) == ("3.00 kN", "4.00 kN")  # the sheet's three figures
     assert beam_r.due_to == ("sheet 1 P",)
     assert beam_r.carried_to == ("sheet 3 as R",)
     check = by_name[("sheets/post.ipynb", "Compression (P1)")]
@@ -84,6 +84,6 @@ def test_a_changed_upstream_value_is_shown_once_with_what_it_changed_downstream(
     assert ("sheets/post.ipynb", "R") in hidden
     assert not any(c.path == "sheets/other.ipynb" for c in diff.changes)
     table = diff.table()
-    assert table.count("4 kN") == 1 + 1  # P's old value once; R's new value once
+    assert table.count("4.00 kN") == 1 + 1  # P's old value once; R's new value once
     assert "carried to sheet 2 as P" in table
     assert "follows from sheet 1 P" in table

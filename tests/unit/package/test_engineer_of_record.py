@@ -7,7 +7,7 @@ from pathlib import Path
 
 import pytest
 
-from calcpack.package.document import _engineer_block
+from calcpack.package.document import _cover, _engineer_row, _seal_box
 from calcpack.package.project import ProjectFileError, load_project
 
 LINTEL_DEMO = Path(__file__).resolve().parents[3] / "example_projects" / "lintel_demo"
@@ -36,19 +36,24 @@ def test_block_carries_name_licence_jurisdiction_and_the_seal(tmp_path: Path) ->
     project = load_project(folder)
     assert project.engineer is not None
     assert project.engineer.seal == folder / "seal.svg"
-    html = _engineer_block(project)
+    row = _engineer_row(project)
     for text in ("Engineer of record", "R. Mbeki", "PE 48213", "Eastmoor County (fictional)"):
-        assert text in html
-    # the firm's seal is embedded (the package is one file) with words for a screen reader
-    assert 'src="data:image/svg+xml;base64,' in html
-    assert 'alt="Seal of R. Mbeki, PE 48213, Eastmoor County (fictional)"' in html
+        assert text in row
+    # the firm's seal is embedded (the package is one file) with words for a screen reader,
+    # in a box beside the sign-off signatures
+    box = _seal_box(project)
+    assert 'src="data:image/svg+xml;base64,' in box
+    assert 'alt="Seal of R. Mbeki, licence number PE 48213, Eastmoor County (fictional)"' in box
+    cover = _cover(project, [])
+    assert (
+        cover.index("Approved by") < cover.index(box) < cover.index('</table>\n<div class="note">')
+    )
 
 
 def test_without_an_engineer_the_block_leaves_room_to_fill_in() -> None:
-    html = _engineer_block(load_project(LINTEL_DEMO))
-    assert "Engineer of record" in html
-    assert "Licence number" in html
-    assert '<div class="hint">Seal</div>' in html
+    project = load_project(LINTEL_DEMO)
+    assert "name, licence number, jurisdiction" in _engineer_row(project)
+    assert '<div class="hint">Seal</div>' in _seal_box(project)
 
 
 @pytest.mark.parametrize(

@@ -115,7 +115,7 @@ def _without(text: str, line: str) -> str:
             "revisions[1].description",
             "missing",
         ),
-        (lambda t: t.replace("[[revisions]]", "[[revision]]"), "revisions", "is missing"),
+        (lambda t: t.replace("[[revisions]]", "[[revision]]"), "revision", "mean 'revisions'"),
         (
             lambda t: t + '\n[[revisions]]\nrev = "A"\ndate = 2026-11-21\ndescription = "x"\n',
             "revisions[2].rev",
@@ -150,7 +150,7 @@ def _without(text: str, line: str) -> str:
             "sheets[1].inputs[1]",
             "does not exist",
         ),
-        (lambda t: t.replace("[[sheets]]", "[[sheet]]"), "sheets", "is missing"),
+        (lambda t: t.replace("[[sheets]]", "[[sheet]]"), "sheet", "did you mean 'sheets'"),
         (
             lambda t: t.replace('standards = ["Demo standard"]', "standards = []"),
             "design.standards",
@@ -166,7 +166,7 @@ def _without(text: str, line: str) -> str:
             "design.standards",
             "is missing",
         ),
-        (lambda t: t.replace("[design]", "[designs]"), "design", "is missing"),
+        (lambda t: t.replace("[design]", "[designs]"), "designs", "did you mean 'design'"),
         (lambda t: t + "\n[extra]\nx = 1\n", "extra", "not a known table"),
         (
             lambda t: t.replace('description = "First issue"', 'description = "x"\nissued = "yes"'),

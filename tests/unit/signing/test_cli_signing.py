@@ -2,6 +2,8 @@
 
 from __future__ import annotations
 
+import hashlib
+import json
 import shutil
 from pathlib import Path
 from typing import Any
@@ -40,6 +42,8 @@ def test_whole_flow_on_the_command_line_never_leaks_the_password(
     project = tmp_path / "job"
     (project / "sheets").mkdir(parents=True)
     (project / "sheets" / "01-lintel.ipynb").write_text("{}")
+    (project / "build").mkdir()
+    (project / "build" / "package.manifest.json").write_text(json.dumps(make_manifest()))
     pdf = project / "package.pdf"
     shutil.copy(base_package, pdf)
     keys = tmp_path / "keys"
@@ -68,6 +72,15 @@ def test_whole_flow_on_the_command_line_never_leaks_the_password(
     assert run("review", "list", *p) == 0
     assert "C1 [closed]" in outputs[-2]
     assert "Ines Calloway (answered): Now 1.5 m wide." in outputs[-2]
+    # the package prints the review log as it was when built: rebuild, sign again, then check
+    assert run("sign", str(pdf), "--role", "checker", "--key", str(check_key)) == 1
+    assert "was built before the review log" in outputs[-1]
+    review = (project / "review.toml").read_bytes()
+    files = [
+        {"path": "review.toml", "sha256": hashlib.sha256(review).hexdigest(), "role": "review"}
+    ]
+    pdf.write_bytes(attach_manifest(cover_pdf(), make_manifest(files=files)))
+    assert run("sign", str(pdf), "--role", "preparer", "--key", str(prep_key)) == 0
     assert run("sign", str(pdf), "--role", "checker", "--key", str(check_key)) == 0
 
     trust = ["--trust", str(keys / "ines-calloway.crt"), "--trust", str(keys / "tomas-redfern.crt")]

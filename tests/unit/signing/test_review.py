@@ -28,6 +28,13 @@ def project(tmp_path: Path) -> Path:
     (root / "sheets").mkdir(parents=True)
     (root / "sheets" / "01-lintel.ipynb").write_text('{"cells": []}')
     (root / "sheets" / "02-post.ipynb").write_text('{"cells": []}')
+    # the latest build's manifest: what each sheet recorded (review add --quantity reads it)
+    import json
+
+    from signing_helpers import make_manifest
+
+    (root / "build").mkdir()
+    (root / "build" / "2417-calcs-revA.manifest.json").write_text(json.dumps(make_manifest()))
     return root
 
 
@@ -120,18 +127,39 @@ def test_malformed_review_file(project: Path) -> None:
 
 
 def _prepared(project: Path, base_package: Path, demo: Any) -> Path:
+    """The package as a build would make it now (its manifest lists the review file as it
+    stands), signed by the preparer."""
+    import hashlib
+
+    from signing_helpers import attach_manifest, cover_pdf, make_manifest
+
     pdf = project / "issue" / "package.pdf"
-    pdf.parent.mkdir()
-    shutil.copy(base_package, pdf)
+    pdf.parent.mkdir(exist_ok=True)
+    review = project / REVIEW_FILE
+    files = (
+        [
+            {
+                "path": REVIEW_FILE,
+                "sha256": hashlib.sha256(review.read_bytes()).hexdigest(),
+                "role": "review",
+            }
+        ]
+        if review.is_file()
+        else []
+    )
+    if files:
+        pdf.write_bytes(attach_manifest(cover_pdf(), make_manifest(files=files)))
+    else:
+        shutil.copy(base_package, pdf)
     sign_package(pdf, "preparer", demo.keys["preparer"], demo.password)
     return pdf
 
 
 def test_open_comments_block_the_checker(project: Path, base_package: Path, demo: Any) -> None:
-    pdf = _prepared(project, base_package, demo)
     add_comment(project, sheet="sheets/01-lintel.ipynb", text="Check w.", who="Tomas Redfern")
     add_comment(project, sheet="sheets/02-post.ipynb", text="Check N.", who="Tomas Redfern")
     answer_comment(project, "C2", text="Done.", who="Ines Calloway")
+    pdf = _prepared(project, base_package, demo)
     before = pdf.read_bytes()
     # the review file is found beside the package (one level up) without --project
     with pytest.raises(SigningError, match=r"not closed: C1 \(open, .*C2 \(answered"):
@@ -139,6 +167,11 @@ def test_open_comments_block_the_checker(project: Path, base_package: Path, demo
     assert pdf.read_bytes() == before
     close_comment(project, "C1", who="Tomas Redfern")
     close_comment(project, "C2", who="Tomas Redfern")
+    # the package still prints the review log from before the comments were closed
+    with pytest.raises(SigningError, match="review log it prints is older"):
+        sign_package(pdf, "checker", demo.keys["checker"], demo.password)
+    assert pdf.read_bytes() == before
+    pdf = _prepared(project, base_package, demo)  # rebuilt and signed again by the preparer
     result = sign_package(pdf, "checker", demo.keys["checker"], demo.password)
     assert result.overridden == ()
     assert load_review(project).overrides == ()
@@ -147,8 +180,8 @@ def test_open_comments_block_the_checker(project: Path, base_package: Path, demo
 def test_override_is_recorded_in_the_review_log_and_the_signature(
     project: Path, base_package: Path, demo: Any
 ) -> None:
-    pdf = _prepared(project, base_package, demo)
     add_comment(project, sheet="sheets/01-lintel.ipynb", text="Typo in title.", who="TR")
+    pdf = _prepared(project, base_package, demo)
     reason = "Cosmetic only; to be fixed in revision B"
     result = sign_package(
         pdf,
