@@ -318,7 +318,8 @@ def _job2_expected(b: Built) -> dict[tuple[str, str], tuple[Any, Any]]:
     )
     exp[("BR1", "Bearing on post B")] = (RB / (BR.b * Q_(tim["post_width"])),
                                          0.67 * Q_(tim["Fc_perp"]))  # fmt: skip
-    exp.update(_ledger_expected(data, qD + qL))
+    # the ledger carries the joist reaction of the governing gravity combination (2 or 4)
+    exp.update(_ledger_expected(data, max(qD + qL, qD + 0.75 * qL + 0.75 * qS)))
     exp.update(_job2_piers(b, bc))
     return exp
 
