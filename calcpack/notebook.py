@@ -74,7 +74,11 @@ _STANDARD = (
     ("calcpack.analysis.beam.result.BeamResult", "mimebundle", beam_result_bundle),
     ("calcpack.analysis.truss_model.Truss", "diagram", "calcpack.plots.truss:TrussDiagram"),
     ("calcpack.analysis.truss_solve.TrussResult", "diagram", "calcpack.plots.truss:TrussDiagram"),
-    ("calcpack.analysis.freebody.FreeBodyResult", "sketch", "calcpack.plots.truss:FreeBodySketch"),
+    (
+        "calcpack.analysis.freebody.FreeBodyResult",
+        "sketch",
+        "calcpack.plots.freebody:FreeBodySketch",
+    ),
     ("calcpack.sections.base.Section", "figure", section_figure),
     ("calcpack.sections.base.Section", "svg", "calcpack.plots.section:section_svg"),
     ("calcpack.sections.properties.SectionProperties", "figure", properties_figure),

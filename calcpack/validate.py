@@ -11,6 +11,8 @@ Example::
     positive("L", L)
     method = one_of("method", method, ("LRFD", "ASD"))
     shape = lookup("designation", "W18X50", table)   # "did you mean ..." on a typo
+    Lb = required("Lb", Lb, expected="a length", when="with Mu")
+    source = non_empty("source", source, expected="'NDS Supplement 2018 Table 4A'")
 """
 
 from __future__ import annotations
@@ -25,7 +27,16 @@ import pint
 from calcpack.errors import InputError, show_value
 from calcpack.units import require
 
-__all__ = ["dimension", "finite", "lookup", "one_of", "positive", "suggest", "within"]
+__all__ = [
+    "dimension",
+    "finite",
+    "lookup",
+    "one_of",
+    "positive",
+    "suggest",
+    "unknown_key",
+    "within",
+]
 
 T = TypeVar("T")
 K = TypeVar("K")
@@ -106,12 +117,95 @@ def within(
     raise InputError(name=name, value=value, rule=f"must be {span}", expected=span, note=rule)
 
 
+def required(name: str, value: T | None, *, expected: str, when: str | None = None) -> T:
+    """Require an input that may be left out elsewhere but is needed here (not None).
+
+    Args:
+        expected: what to give, in words (``"a length"``, ``"the bolt spacing"``).
+        when: what needs it, as it follows "is required" (``"with Mu"``, ``"for a roof
+            step"``).
+    """
+    if value is None:
+        raise InputError(
+            name=name,
+            value=None,
+            rule="is required" + (f" {when}" if when else ""),
+            expected=expected,
+            note=f"give {expected}",
+        )
+    return value
+
+
+def non_empty(name: str, value: Any, *, expected: str) -> str:
+    """Require a text that says something (a source, a case name, a reason): a string that is
+    not blank. Returns it stripped.
+
+    Args:
+        expected: an example or description of a good value (``"e.g. 'ASCE 7-16 Figure
+            7.2-1'"``).
+    """
+    if not isinstance(value, str) or not value.strip():
+        raise InputError(
+            name=name,
+            value=value,
+            rule="must be stated (a text that is not blank)",
+            expected=expected,
+            note=expected,
+        )
+    return value.strip()
+
+
+def instance(name: str, value: Any, kinds: type | tuple[type, ...], *, expected: str) -> Any:
+    """Require ``value`` to be of one of the types ``kinds``; ``expected`` names them for the
+    user (``"a FootingLoad"``, ``"aisc_shape('W8X18') or similar"``). True and False are not
+    numbers here unless ``bool`` is among the kinds."""
+    allowed = kinds if isinstance(kinds, tuple) else (kinds,)
+    if not isinstance(value, allowed) or (isinstance(value, bool) and bool not in allowed):
+        raise InputError(
+            name=name,
+            value=value,
+            rule=f"must be {expected}",
+            expected=expected,
+            note=f"got a {type(value).__name__}",
+        )
+    return value
+
+
+def whole(name: str, value: Any, lo: int | None = None, hi: int | None = None) -> int:
+    """Require a whole number (an int, not a bool), optionally lo <= value <= hi."""
+    if isinstance(value, bool) or not isinstance(value, int):
+        span = "" if lo is None else f" of at least {lo}"
+        raise InputError(
+            name=name,
+            value=value,
+            rule=f"must be a whole number{span}",
+            expected=f"a whole number{span}",
+        )
+    within(name, value, lo, hi)
+    return value
+
+
 def suggest(key: str, options: Iterable[str]) -> list[str]:
     """Close matches of ``key`` among ``options`` (case- and space-insensitive), best first."""
     opts = list(options)
     norm = {o.upper().replace(" ", ""): o for o in opts}
     hits = difflib.get_close_matches(key.upper().replace(" ", ""), list(norm), n=3, cutoff=0.5)
     return [norm[h] for h in hits]
+
+
+def unknown_key(table: Mapping[Any, Any], keys: Iterable[str]) -> tuple[str, str | None] | None:
+    """The first key of ``table`` that is not in ``keys``, with the closest valid key (or None),
+    or None when every key is known.
+
+    The one rule behind every strict file reader (the project file, the inputs files): a
+    misspelt key would otherwise be ignored and its default used without a word.
+    """
+    valid = list(keys)
+    for key in table:
+        if key not in valid:
+            close = suggest(str(key), valid)
+            return str(key), (close[0] if close else None)
+    return None
 
 
 def one_of(name: str, value: T, options: Iterable[T]) -> T:

@@ -377,7 +377,7 @@ class FreeBodyResult:
 
     def sketch(self, **options: Any) -> Any:
         """A sketch of the free body with its loads and reactions (a
-        :class:`calcpack.plots.truss.FreeBodySketch`, shown inline as SVG)."""
+        :class:`calcpack.plots.freebody.FreeBodySketch`, shown inline as SVG)."""
         return views.render("sketch", self, **options)
 
     def _repr_mimebundle_(self, include: Any = None, exclude: Any = None) -> Any:

@@ -1,5 +1,5 @@
-"""Demands for member checks, read from combined beam results (any object with ``moment(x)``,
-``shear(x)`` and ``beam.length``, e.g. :class:`calcpack.analysis.beam.BeamResult`).
+"""Demands for member checks, read from combined beam results
+(:class:`calcpack.analysis.beam.BeamResult`, whose exact extremes on a range they take).
 
 Moments and shears are taken as magnitudes (a check compares |demand| with capacity); their
 signs follow the beam results (M sagging +, V left face up +).
@@ -11,10 +11,9 @@ from collections.abc import Mapping
 from dataclasses import dataclass
 from typing import Any
 
-import numpy as np
-
 from calcpack.errors import InputError
 from calcpack.units import Q_, Quantity
+from calcpack.validate import one_of
 
 __all__ = ["SegmentMoments", "as_combinations", "max_abs", "segment_moments"]
 
@@ -50,6 +49,8 @@ def as_combinations(
         return dict(demand)
     if hasattr(demand, "moment") and hasattr(demand, "shear"):
         return {getattr(demand, "label", "result"): demand}
+    if hasattr(demand, "truss") and hasattr(demand, "displacements"):
+        return {getattr(demand, "label", None) or "result": demand}
     raise InputError(
         f"{name} must be combined results (analyse_combinations), a mapping of combination "
         f"name to beam result, or one beam result (got {type(demand).__name__})",
@@ -59,36 +60,16 @@ def as_combinations(
     )
 
 
-def _points(result: Any, a_m: float, b_m: float) -> np.ndarray:
-    pts = [np.linspace(a_m, b_m, 241)]
-    core = getattr(result, "core", None)
-    if core is not None and hasattr(core, "X"):
-        X = np.asarray(core.X, dtype=float)
-        pts.append(X[(a_m <= X) & (b_m >= X)])
-    ex = getattr(result, "extremes", None)
-    if ex is not None:
-        zs = np.array([float(z.to("m").magnitude) for z in ex.zero_shear])
-        if zs.size:
-            pts.append(zs[(zs >= a_m) & (zs <= b_m)])
-    return np.unique(np.concatenate(pts))
-
-
 def max_abs(
     result: Any, what: str, a_m: float = 0.0, b_m: float | None = None
 ) -> tuple[Quantity, Quantity]:
-    """(max |value|, position) of ``what`` ("moment" or "shear") on a <= x <= b (m)."""
+    """(max |value|, position) of ``what`` ("moment" or "shear") on a <= x <= b (m), exact
+    (the result's extreme finder: range ends, breakpoints on both sides, turning points)."""
     L_m = float(result.beam.length.to("m").magnitude)
     b = L_m if b_m is None else b_m
-    x = _points(result, a_m, b)
-    fn = result.moment if what == "moment" else result.shear
-    vals = []
-    for side in ("left", "right"):
-        vals.append(np.abs(np.atleast_1d(fn(Q_(x, "m"), side=side).to_base_units().magnitude)))
-    v = np.maximum(vals[0], vals[1])
-    i = int(np.argmax(v))
-    unit = "N*m" if what == "moment" else "N"
-    out_unit = "kN*m" if what == "moment" else "kN"
-    return Q_(float(v[i]), unit).to(out_unit), Q_(float(x[i]), "m")
+    kind = one_of("what", what, ("moment", "shear"))
+    e = result.range_extremes(kind, Q_(a_m, "m"), Q_(b, "m")).magnitude
+    return abs(e.value), e.x
 
 
 @dataclass(frozen=True)

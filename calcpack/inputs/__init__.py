@@ -30,7 +30,7 @@ from calcpack.inputs.file import (
     update_inputs,
     write_inputs,
 )
-from calcpack.inputs.section import SHAPES, ShapeForm, section_from_inputs
+from calcpack.inputs.section import SHAPES, ShapeForm, section_from_inputs, section_inputs
 
 __all__ = [
     "SHAPES",
@@ -51,6 +51,7 @@ __all__ = [
     "read_inputs_text",
     "require_input",
     "section_from_inputs",
+    "section_inputs",
     "update_inputs",
     "write_inputs",
 ]

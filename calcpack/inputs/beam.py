@@ -48,15 +48,13 @@ from functools import cached_property
 from pathlib import Path
 from typing import Any
 
-import numpy as np
-
 from calcpack.inputs.file import (
     InputsFileError,
     Spec,
     cached_unit,
-    known_keys,
     require_input,
 )
+from calcpack.inputs.layout import Table, Tables, refuse_unknown_keys
 from calcpack.inputs.section import section_from_inputs
 from calcpack.units import Q_, Quantity, si
 
@@ -71,6 +69,22 @@ __all__ = [
 
 SUPPORT_KINDS = ("pin", "roller", "fixed", "free")
 LOAD_TYPES = ("uniform", "point")
+
+LAYOUT = Table(
+    {
+        "beam": Table({"name": None, "spans": None, "supports": None}),
+        "section": None,  # its keys depend on its shape: section_from_inputs checks them
+        "material": Table({"E": None, "f_b": None}),
+        "loads": Tables(
+            Table(dict.fromkeys(("case", "type", "w", "span", "start", "end", "P", "x")))
+        ),
+        "combinations": Table(
+            {"strength": Table(free=True), "service": Table(free=True)}  # factors by load case
+        ),
+        "limits": Table({"deflection_ratio": None}),
+    }
+)
+"""The keys a beam inputs file may hold (see the module notes)."""
 
 
 def _where(path: Path | str | None) -> str:
@@ -173,7 +187,6 @@ def _load(item: Any, key: str, spans_x: Sequence[Quantity], path: Path | str | N
             value=item,
             expected="a [[loads]] table",
         )
-    known_keys(item, key, ("case", "type", "w", "span", "start", "end", "P", "x"), path=path)
     case = require_input(item.get("case", "D"), "text", f"{key}.case", path=path)
     kind = require_input(
         item.get("type"), Spec("text", choices=LOAD_TYPES), f"{key}.type", path=path
@@ -238,11 +251,8 @@ def beam_inputs(data: Mapping[str, Any], *, path: Path | str | None = None) -> B
         InputsFileError, DimensionError: a missing or malformed value; the message names the
             key (``"beam.spans[2]"``, ``"loads[3].w"``) and the file.
     """
-    known_keys(
-        data, "", ("beam", "section", "material", "loads", "combinations", "limits"), path=path
-    )
+    refuse_unknown_keys(data, LAYOUT, path=path)
     beam = _table(data, "beam", path)
-    known_keys(beam, "beam", ("name", "spans", "supports"), path=path)
     name = require_input(beam.get("name", "B1"), "text", "beam.name", path=path)
     spans_raw = beam.get("spans")
     if not isinstance(spans_raw, list) or not spans_raw:
@@ -272,7 +282,6 @@ def beam_inputs(data: Mapping[str, Any], *, path: Path | str | None = None) -> B
     )
     section = section_from_inputs(_table(data, "section", path), path=path)
     material = _table(data, "material", path)
-    known_keys(material, "material", ("E", "f_b"), path=path)
     E = require_input(material.get("E"), Spec("[pressure]", positive=True), "material.E", path=path)
     f_b = require_input(
         material.get("f_b"), Spec("[pressure]", positive=True), "material.f_b", path=path
@@ -292,7 +301,6 @@ def beam_inputs(data: Mapping[str, Any], *, path: Path | str | None = None) -> B
         _load(item, f"loads[{i}]", x_lines, path) for i, item in enumerate(loads_raw, start=1)
     )
     combos = _table(data, "combinations", path)
-    known_keys(combos, "combinations", ("strength", "service"), path=path)
     strength = _factors(combos.get("strength"), "combinations.strength", path)
     service = _factors(combos.get("service"), "combinations.service", path)
     cases = {ld.case for ld in loads}
@@ -316,7 +324,6 @@ def beam_inputs(data: Mapping[str, Any], *, path: Path | str | None = None) -> B
                 expected="a load factor for every load case",
             )
     limits = data.get("limits", {})
-    known_keys(limits, "limits", ("deflection_ratio",), path=path)
     ratio = require_input(
         limits.get("deflection_ratio", 360) if isinstance(limits, Mapping) else limits,
         Spec("number", positive=True),
@@ -399,33 +406,6 @@ class BeamOutcome:
         return BeamDiagrams(self)
 
 
-# Samples per span when looking for each span's largest deflection. The deflected shape is a
-# smooth polynomial between load points; the sampled peak is refined by the vertex of the
-# parabola through it and its neighbours, which leaves an error of order h⁴ (about 1e-10 of the
-# peak for 200 samples) -- far below what a serviceability check needs.
-_SAMPLES_PER_SPAN = 201
-
-
-def _span_peak(result: Any, a: float, b: float) -> tuple[float, float]:
-    """Largest |deflection| on a <= x <= b (m): (deflection in mm, downward +, and x in m)."""
-    m, mm = cached_unit("m"), cached_unit("mm")
-    x = np.linspace(a, b, _SAMPLES_PER_SPAN)
-    v = result.deflection(Q_(x, m)).to(mm).magnitude
-    k = int(np.argmax(np.abs(v)))
-    if 0 < k < len(x) - 1:
-        y0, y1, y2 = float(v[k - 1]), float(v[k]), float(v[k + 1])
-        h = float(x[1] - x[0])
-        curvature = y0 - 2 * y1 + y2
-        if curvature != 0.0:
-            shift = 0.5 * h * (y0 - y2) / curvature
-            if abs(shift) <= h:
-                xv = float(x[k]) + shift
-                yv = float(result.deflection(Q_(xv, m)).to(mm).magnitude)
-                if abs(yv) >= abs(y1):
-                    return yv, xv
-    return float(v[k]), float(x[k])
-
-
 def evaluate_beam(inputs: BeamInputs) -> BeamOutcome:
     """Solve the beam for each load case, combine, and make the bending and deflection checks.
 
@@ -463,10 +443,10 @@ def evaluate_beam(inputs: BeamInputs) -> BeamOutcome:
     lines = inputs.support_x_m
     defl = []
     for i, (a, b) in enumerate(itertools.pairwise(lines), start=1):
-        d_mm, x_m = _span_peak(service, a, b)
+        peak = service.range_extremes("deflection", Q_(a, u("m")), Q_(b, u("m"))).magnitude
         span = inputs.spans[i - 1]
         limit = (span / inputs.deflection_ratio).to(u("mm"))
-        defl.append(SpanDeflection(i, span, Q_(d_mm, u("mm")), Q_(x_m, u("m")), limit))
+        defl.append(SpanDeflection(i, span, peak.value.to(u("mm")), peak.x, limit))
     return BeamOutcome(
         inputs=inputs,
         properties=props,

@@ -57,35 +57,6 @@ class InputsFileError(InputError):
     """
 
 
-def known_keys(
-    table: Any, where: str, keys: Sequence[str], *, path: Path | str | None = None
-) -> None:
-    """Refuse a key of ``table`` not in ``keys``, with "did you mean": a misspelt key would
-    otherwise be ignored and its default used without a word.
-
-    Raises:
-        InputsFileError: naming the file, the key (``"limits.deflection_ration"``) and the
-            keys that are valid there.
-    """
-    from calcpack.validate import suggest
-
-    if not isinstance(table, Mapping):
-        return
-    for key in table:
-        if key not in keys:
-            close = suggest(str(key), keys)
-            hint = f"; did you mean {close[0]!r}?" if close else ""
-            name = f"{where}.{key}" if where else str(key)
-            raise InputsFileError(
-                f"{_where(path)}{name} is not a known key"
-                f"{' in [' + where + ']' if where else ''} (expected one of "
-                f"{', '.join(keys)}){hint}",
-                name=name,
-                value=table[key],
-                expected="one of " + ", ".join(keys),
-            )
-
-
 def _where(path: Path | str | None) -> str:
     return f"{Path(path).name}: " if path is not None else ""
 

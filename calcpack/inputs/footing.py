@@ -48,6 +48,7 @@ from calcpack.combinations import asce7_allowable_stress, asce7_strength
 from calcpack.errors import InputError
 from calcpack.foundations import AllowableBearing, Column, Footing, FootingLoad, check_footing_soil
 from calcpack.inputs.file import InputsFileError, Spec, require_input
+from calcpack.inputs.layout import Table, Tables, refuse_unknown_keys
 
 __all__ = ["FootingCase", "FootingOutcome", "evaluate_footing", "footing_inputs"]
 
@@ -61,6 +62,19 @@ _LOAD_DIMS = (
     ("Mx", "[force]*[length]"),
     ("My", "[force]*[length]"),
 )
+
+LAYOUT = Table(
+    {
+        "footing": Table(
+            dict.fromkeys(("mark", "shape", "B", "L", "h", "soil_cover", "gamma_soil"))
+        ),
+        "column": Table(dict.fromkeys(("c1", "c2", "support", "plate1", "plate2"))),
+        "soil": Table(dict.fromkeys(("q_allow", "source"))),
+        "concrete": Table(dict.fromkeys(("f_c", "bar", "reinforced"))),
+        "loads": Tables(Table(dict.fromkeys(("case", *(n for n, _ in _LOAD_DIMS))))),
+    }
+)
+"""The keys a footing inputs file may hold (see the module notes)."""
 
 
 @dataclass(frozen=True)
@@ -104,6 +118,7 @@ def _rename(exc: InputError, table: str, path: Path | str | None) -> InputsFileE
 
 def footing_inputs(data: Mapping[str, Any], *, path: Path | str | None = None) -> FootingCase:
     """Validate the tables of a footing inputs file (every error names its key)."""
+    refuse_unknown_keys(data, LAYOUT, path=path)
     f = _table(data, "footing", path)
     c = _table(data, "column", path)
     s = _table(data, "soil", path)

@@ -44,12 +44,37 @@ from calcpack.checks.nds.dowel import WoodMember, nds_fastener
 from calcpack.checks.nds.ledger import DeckLedger, check_deck_ledger
 from calcpack.errors import InputError
 from calcpack.inputs.file import InputsFileError, Spec, require_input
+from calcpack.inputs.layout import Table, refuse_unknown_keys
 from calcpack.units import Quantity
 
 __all__ = ["LedgerCase", "evaluate_ledger", "ledger_inputs"]
 
 _LENGTH = Spec("[length]", positive=True)
 _LENGTHS = ("ledger_depth", "spacing", "top", "bottom", "end")
+
+LAYOUT = Table(
+    {
+        "ledger": Table(
+            dict.fromkeys(
+                (
+                    "mark",
+                    "fastener",
+                    "diameter",
+                    "length",
+                    "ledger_species",
+                    "ledger_thickness",
+                    "rim_species",
+                    "rim_thickness",
+                    "rim_depth",
+                    "rows",
+                    *_LENGTHS,
+                )
+            )
+        ),
+        "load": Table(dict.fromkeys(("R", "joist_spacing", "combination", "service", "duration"))),
+    }
+)
+"""The keys a deck ledger inputs file may hold (see the module notes)."""
 
 
 @dataclass(frozen=True)
@@ -77,6 +102,7 @@ def _named(exc: InputError, table: str, path: Path | str | None) -> InputsFileEr
 
 def ledger_inputs(data: Mapping[str, Any], *, path: Path | str | None = None) -> LedgerCase:
     """Validate the ``[ledger]`` and ``[load]`` tables (every error names its key)."""
+    refuse_unknown_keys(data, LAYOUT, path=path)
     t = data.get("ledger")
     ld = data.get("load")
     for name, table in (("ledger", t), ("load", ld)):

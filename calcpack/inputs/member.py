@@ -37,6 +37,7 @@ from calcpack.checks.aisc360.member_data import MemberForces, SteelMember
 from calcpack.checks.base import MemberChecks
 from calcpack.errors import CalcpackError, InputError
 from calcpack.inputs.file import InputsFileError, Spec, require_input
+from calcpack.inputs.layout import Table, Tables, refuse_unknown_keys
 from calcpack.sections.aisc_database import SteelShape, aisc_shape
 from calcpack.sizing import SizingResult, aisc_candidates, lightest_sections
 from calcpack.units import Q_
@@ -44,6 +45,16 @@ from calcpack.units import Q_
 __all__ = ["MemberCase", "MemberOutcome", "evaluate_member", "lightest_member", "member_inputs"]
 
 METHODS = ("LRFD", "ASD")
+
+LAYOUT = Table(
+    {
+        "member": Table(
+            dict.fromkeys(("mark", "shape", "grade", "Fy", "method", "Lcx", "Lcy", "Lb", "Cb"))
+        ),
+        "forces": Tables(Table(dict.fromkeys(("combination", "P", "Mx", "My", "Vx", "Vy")))),
+    }
+)
+"""The keys a steel member inputs file may hold (see the module notes)."""
 
 
 @dataclass(frozen=True)
@@ -99,6 +110,7 @@ def member_inputs(data: Mapping[str, Any], *, path: Path | str | None = None) ->
         InputsFileError / DimensionError / InputError: naming the key (``member.Fy``,
             ``forces[2].P``) and the file.
     """
+    refuse_unknown_keys(data, LAYOUT, path=path)
     m = data.get("member")
     if not isinstance(m, Mapping):
         raise InputsFileError(

@@ -18,8 +18,9 @@ from typing import Any
 
 from calcpack.errors import CalcpackError, InputError
 from calcpack.inputs.file import InputsFileError, Spec, require_input
+from calcpack.inputs.layout import Table, refuse_unknown_keys
 
-__all__ = ["SHAPES", "ShapeForm", "section_from_inputs"]
+__all__ = ["SHAPES", "ShapeForm", "section_from_inputs", "section_inputs"]
 
 
 class ShapeForm:
@@ -158,6 +159,12 @@ def section_from_inputs(
         table.get("shape"), Spec("text", choices=tuple(SHAPES)), f"{key}.shape", path=path
     )
     form = SHAPES[shape]
+    refuse_unknown_keys(
+        table,
+        Table(dict.fromkeys(("shape", *form.dims)), note=f"for shape {shape!r}"),
+        path=path,
+        where=key,
+    )
     values: dict[str, Any] = {}
     for dim in form.dims:
         if dim not in table:
@@ -189,3 +196,23 @@ def section_from_inputs(
         ) from None
     except CalcpackError:
         raise
+
+
+def section_inputs(data: Mapping[str, Any], *, path: Path | str | None = None) -> Any:
+    """The shape of a section inputs file: its one ``[section]`` table (see
+    :func:`section_from_inputs`).
+
+    Raises:
+        InputsFileError: a key other than ``[section]``, a missing table, or what
+            :func:`section_from_inputs` refuses; the message names the file and the key.
+    """
+    refuse_unknown_keys(data, Table({"section": None}), path=path)
+    table = data.get("section")
+    if not isinstance(table, Mapping):
+        raise InputsFileError(
+            f"{Path(path).name + ': ' if path else ''}no [section] table (got {table!r})",
+            name="section",
+            value=table,
+            expected="a [section] table with shape and its dimensions",
+        )
+    return section_from_inputs(table, path=path)

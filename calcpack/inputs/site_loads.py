@@ -21,13 +21,15 @@ loads by case and the exports to a sheet.
 
 from __future__ import annotations
 
-from collections.abc import Mapping
+from collections.abc import Iterator, Mapping
+from contextlib import contextmanager
 from dataclasses import dataclass
 from pathlib import Path
 from typing import Any
 
 from calcpack.errors import InputError
 from calcpack.inputs.file import InputsFileError, Spec, require_input
+from calcpack.inputs.layout import Table, refuse_unknown_keys
 from calcpack.loads.derive import Derivation
 from calcpack.loads.roof_cases import RoofProfile, case_groups
 from calcpack.loads.roof_profiles import (
@@ -42,6 +44,29 @@ __all__ = ["STANDARDS", "SiteLoads", "site_loads_inputs"]
 
 STANDARDS = ("ASCE 7-16", "EN 1991 UK")
 _P = "[force] / [length] ** 2"
+_SNOW = {
+    "ASCE 7-16": ("pg", "pg_source", "terrain", "exposure", "thermal", "risk_category", "surface"),
+    "EN 1991 UK": ("altitude", "zone", "topography"),
+}
+_WIND = {
+    "ASCE 7-16": ("V", "V_source", "exposure", "enclosure"),
+    "EN 1991 UK": ("vb_map", "vb_source", "altitude", "c_e", "c_e_source", "c_eT", "loaded_area"),
+}
+
+
+def layout(standard: str) -> Table:
+    """The keys a site loads inputs file may hold for ``standard`` (one of STANDARDS)."""
+    note = f"for standard {standard!r}"
+    return Table(
+        {
+            "site": Table(dict.fromkeys(("mark", "standard"))),
+            "roof": Table(
+                dict.fromkeys(("shape", "slope", "width", "length", "height", "spacing"))
+            ),
+            "snow": Table(dict.fromkeys(_SNOW[standard]), note=note),
+            "wind": Table(dict.fromkeys(_WIND[standard]), note=note),
+        }
+    )
 
 
 def _get(
@@ -62,6 +87,27 @@ def _get(
             expected=f"a value for {key}",
         )
     return require_input(table[key], spec, f"{section}.{key}", path=path)
+
+
+@contextmanager
+def _file_keys(path: Any, *tables: tuple[str, Mapping[str, Any]]) -> Iterator[None]:
+    """Re-raise an input error of a derivation named by its own argument (``terrain``) as an
+    error of the inputs file's key (``snow.terrain``), so that the file's key and the panel's
+    field are found from it."""
+    try:
+        yield
+    except InputsFileError:
+        raise
+    except InputError as exc:
+        for section, table in tables:
+            if exc.name is not None and exc.name in table:
+                raise InputsFileError(
+                    f"Inputs file {path}: [{section}] {exc.name} = {table[exc.name]!r}: {exc}",
+                    name=f"{section}.{exc.name}",
+                    value=exc.value,
+                    expected=exc.expected,
+                ) from exc
+        raise
 
 
 @dataclass(frozen=True)
@@ -160,38 +206,40 @@ def _asce(
     derivs: list[Derivation] = []
     profiles: list[RoofProfile] = []
     if sn:
-        site = SnowSiteASCE7(
-            pg=_get(sn, "snow", "pg", Spec(_P, nonnegative=True), path),
-            pg_source=_get(sn, "snow", "pg_source", "text", path),
-            terrain=_get(sn, "snow", "terrain", "text", path, "C"),
-            exposure=_get(sn, "snow", "exposure", "text", path, "partially exposed"),
-            thermal=_get(sn, "snow", "thermal", "text", path, "heated"),
-            risk_category=_get(sn, "snow", "risk_category", "text", path, "II"),
-        )
-        W = width / 2 if shape in ("gable", "hip") else width
-        sroof = SnowRoofASCE7(
-            shape, slope, W, _get(sn, "snow", "surface", "text", path, "non-slippery")
-        )
-        snow = roof_snow_asce7(site, sroof)
-        derivs.append(snow.derivation)
-        profiles += snow_profiles_asce7(snow, sroof)
+        with _file_keys(path, ("snow", sn), ("roof", roof)):
+            site = SnowSiteASCE7(
+                pg=_get(sn, "snow", "pg", Spec(_P, nonnegative=True), path),
+                pg_source=_get(sn, "snow", "pg_source", "text", path),
+                terrain=_get(sn, "snow", "terrain", "text", path, "C"),
+                exposure=_get(sn, "snow", "exposure", "text", path, "partially exposed"),
+                thermal=_get(sn, "snow", "thermal", "text", path, "heated"),
+                risk_category=_get(sn, "snow", "risk_category", "text", path, "II"),
+            )
+            W = width / 2 if shape in ("gable", "hip") else width
+            sroof = SnowRoofASCE7(
+                shape, slope, W, _get(sn, "snow", "surface", "text", path, "non-slippery")
+            )
+            snow = roof_snow_asce7(site, sroof)
+            derivs.append(snow.derivation)
+            profiles += snow_profiles_asce7(snow, sroof)
     if wi:
-        wsite = WindSiteASCE7(
-            V=_get(wi, "wind", "V", "[speed]", path),
-            V_source=_get(wi, "wind", "V_source", "text", path),
-            exposure=_get(wi, "wind", "exposure", "text", path, "C"),
-        )
-        bld = LowRiseBuildingASCE7(
-            height,
-            width,
-            length,
-            slope,
-            shape,
-            _get(wi, "wind", "enclosure", "text", path, "enclosed"),
-        )
-        env = envelope_wind_asce7(wsite, bld)
-        derivs.append(env.derivation)
-        profiles += wind_profiles_asce7(env, bld)
+        with _file_keys(path, ("wind", wi), ("roof", roof)):
+            wsite = WindSiteASCE7(
+                V=_get(wi, "wind", "V", "[speed]", path),
+                V_source=_get(wi, "wind", "V_source", "text", path),
+                exposure=_get(wi, "wind", "exposure", "text", path, "C"),
+            )
+            bld = LowRiseBuildingASCE7(
+                height,
+                width,
+                length,
+                slope,
+                shape,
+                _get(wi, "wind", "enclosure", "text", path, "enclosed"),
+            )
+            env = envelope_wind_asce7(wsite, bld)
+            derivs.append(env.derivation)
+            profiles += wind_profiles_asce7(env, bld)
     return derivs, profiles
 
 
@@ -211,30 +259,34 @@ def _en(
     derivs: list[Derivation] = []
     profiles: list[RoofProfile] = []
     if sn:
-        site = SnowSiteEN(
-            altitude=_get(sn, "snow", "altitude", "[length]", path),
-            zone=_get(sn, "snow", "zone", Spec("number", positive=True), path),
-            topography=_get(sn, "snow", "topography", "text", path, "normal"),
-        )
-        snow = roof_snow_en(site, SnowRoofEN(shape, slope))
-        derivs.append(snow.derivation)
-        profiles += snow_profiles_en(snow, width)
+        with _file_keys(path, ("snow", sn), ("roof", roof)):
+            site = SnowSiteEN(
+                altitude=_get(sn, "snow", "altitude", "[length]", path),
+                zone=_get(sn, "snow", "zone", Spec("number", positive=True), path),
+                topography=_get(sn, "snow", "topography", "text", path, "normal"),
+            )
+            snow = roof_snow_en(site, SnowRoofEN(shape, slope))
+            derivs.append(snow.derivation)
+            profiles += snow_profiles_en(snow, width)
     if wi:
-        wsite = WindSiteEN(
-            _get(wi, "wind", "vb_map", "[speed]", path),
-            _get(wi, "wind", "vb_source", "text", path),
-            altitude=_get(wi, "wind", "altitude", "[length]", path),
-            c_e=_get(wi, "wind", "c_e", Spec("number", positive=True), path),
-            c_e_source=_get(wi, "wind", "c_e_source", "text", path),
-            c_eT=_get(wi, "wind", "c_eT", Spec("number", positive=True), path, 1.0),
-        )
-        bld = BuildingEN(shape, slope, height, length, width)
-        area = _get(wi, "wind", "loaded_area", Spec("[area]", positive=True), path, Q_(10.0, "m^2"))
-        thetas = (0, 180, 90) if shape == "monopitch" else (0, 90)
-        for th in thetas:
-            w = wind_pressures_en(wsite, bld, theta=th, area=area)  # type: ignore[arg-type]
-            derivs.append(w.derivation)
-            profiles += wind_profiles_en(w, bld)
+        with _file_keys(path, ("wind", wi), ("roof", roof)):
+            wsite = WindSiteEN(
+                _get(wi, "wind", "vb_map", "[speed]", path),
+                _get(wi, "wind", "vb_source", "text", path),
+                altitude=_get(wi, "wind", "altitude", "[length]", path),
+                c_e=_get(wi, "wind", "c_e", Spec("number", positive=True), path),
+                c_e_source=_get(wi, "wind", "c_e_source", "text", path),
+                c_eT=_get(wi, "wind", "c_eT", Spec("number", positive=True), path, 1.0),
+            )
+            bld = BuildingEN(shape, slope, height, length, width)
+            area = _get(
+                wi, "wind", "loaded_area", Spec("[area]", positive=True), path, Q_(10.0, "m^2")
+            )
+            thetas = (0, 180, 90) if shape == "monopitch" else (0, 90)
+            for th in thetas:
+                w = wind_pressures_en(wsite, bld, theta=th, area=area)  # type: ignore[arg-type]
+                derivs.append(w.derivation)
+                profiles += wind_profiles_en(w, bld)
     return derivs, profiles
 
 
@@ -246,8 +298,10 @@ def site_loads_inputs(data: Mapping[str, Any], *, path: Path | str | None = None
             provisions (named by the derivation).
     """
     where = str(path) if path is not None else "(inputs)"
+    refuse_unknown_keys(data, Table(dict.fromkeys(("site", "roof", "snow", "wind"))), path=path)
     site = data.get("site", {})
     standard = _get(site, "site", "standard", Spec("text", choices=STANDARDS), where)
+    refuse_unknown_keys(data, layout(standard), path=path)
     roof = data.get("roof")
     if not isinstance(roof, Mapping):
         raise InputsFileError(

@@ -50,7 +50,7 @@ def reproduce_manifest(project: str | Path, *, workers: int = 2) -> dict[str, An
     from calcpack.package.document import SheetDoc
     from calcpack.package.links import link_records
     from calcpack.package.manifest import sheet_record
-    from calcpack.package.pipeline import sheet_title
+    from calcpack.package.sheetdoc import sheet_title
     from calcpack.package.verification import compare_verifications
 
     loaded = load_project(project)

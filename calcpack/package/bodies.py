@@ -55,10 +55,10 @@ PageCounting = tuple["Project", "DocumentOptions", "datetime.datetime"]
 def convert_sheet(
     item: ExecutedSheet, source: bool, index: int, bodies: Path, count: PageCounting | None
 ) -> tuple[SheetDoc, int | None]:
-    """Convert a sheet (:func:`calcpack.package.pipeline.prepare_sheet`), count its pages on
-    its own when ``count`` is given (:func:`calcpack.package.pipeline.count_sheet_pages`),
+    """Convert a sheet (:func:`calcpack.package.sheetdoc.prepare_sheet`), count its pages on
+    its own when ``count`` is given (:func:`calcpack.package.sheetdoc.count_sheet_pages`),
     and spill its body to ``bodies``; the sheet and its page count (None if not counted)."""
-    from calcpack.package.pipeline import count_sheet_pages, prepare_sheet
+    from calcpack.package.sheetdoc import count_sheet_pages, prepare_sheet
 
     doc = prepare_sheet(item.entry, item, source=source)
     pages = count_sheet_pages(doc, *count) if count else None
@@ -85,7 +85,7 @@ def prepare_in_worker(
     the line breaks of the wide ones among them (both in the cache file's form), the keys
     of every formula the sheet used, for the build to save the formula cache, and the sheet's
     page count when ``count`` (project, document options, date) is given
-    (:func:`calcpack.package.pipeline.count_sheet_pages`). Formulas the build already has are
+    (:func:`calcpack.package.sheetdoc.count_sheet_pages`). Formulas the build already has are
     not sent back again.
     """
     global _worker_math_cache

@@ -131,8 +131,8 @@ class CalcpackPDFExporter(Exporter):  # type: ignore[misc]
         self, nb: Any, resources: dict[str, Any] | None = None, **kw: Any
     ) -> tuple[bytes, dict[str, Any]]:
         nb_copy, resources = super().from_notebook_node(nb, resources, **kw)
-        from calcpack.package.pipeline import single_sheet_pdf
         from calcpack.package.project import find_project_above, load_project
+        from calcpack.package.sheetdoc import single_sheet_pdf
 
         meta = (resources or {}).get("metadata", {})
         name = str(meta.get("name", "sheet"))

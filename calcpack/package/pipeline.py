@@ -17,7 +17,6 @@ import concurrent.futures
 import contextlib
 import datetime as _dt
 import functools
-import hashlib
 import os
 import re
 import tempfile
@@ -29,7 +28,7 @@ from typing import Any
 
 from calcpack.contract.manifest import MANIFEST_NAME, Manifest, manifest_bytes
 from calcpack.errors import BuildError
-from calcpack.package import links, publish, verification
+from calcpack.package import freshness, links, publish, verification
 from calcpack.package.bodies import convert_sheet, fill_bodies, prepare_in_worker
 from calcpack.package.document import (
     ROLES,
@@ -48,8 +47,8 @@ from calcpack.package.interrupt import clean_stale_temp, temp_prefix
 from calcpack.package.manifest import dependency_versions, project_files, sheet_record
 from calcpack.package.mathsvg import add_break_entries, add_cache_entries
 from calcpack.package.paginate import ChunkStore, Layout, PdfAttachment, paginate, write_pdf
-from calcpack.package.project import Person, Project, Revision, SheetEntry, load_project
-from calcpack.package.records import collect_records
+from calcpack.package.project import Project, SheetEntry, load_project
+from calcpack.package.sheetdoc import prepare_sheet, sheet_title, single_sheet_pdf
 
 __all__ = [
     "BuildResult",
@@ -99,22 +98,6 @@ def build_created(project: Project) -> _dt.datetime:
     return _dt.datetime(d.year, d.month, d.day, tzinfo=_dt.UTC)
 
 
-def _package_code_hash() -> str:
-    """Hash of the build code and templates, so a changed layout is never skipped as current."""
-    import calcpack
-    from calcpack.package.locations import template_dirs
-
-    here = Path(__file__).resolve().parent
-    digest = hashlib.sha256(calcpack.__version__.encode())
-    files = sorted([*here.glob("*.py"), *here.glob("assets/*")])
-    for folder in template_dirs():
-        files += sorted(Path(folder, "calcpack").glob("*"))
-    for f in files:
-        if f.is_file():
-            digest.update(f.name.encode() + f.read_bytes())
-    return digest.hexdigest()
-
-
 def _load_review(project: Project) -> tuple[tuple[ReviewRow, ...] | None, Path | None]:
     """The review log (``review.toml`` beside the project file, read by calcpack.signing.review).
 
@@ -152,201 +135,10 @@ def _load_review(project: Project) -> tuple[tuple[ReviewRow, ...] | None, Path |
                 status="OVERRIDE",
                 by=o.who,
                 date=o.when[:10],
-                text=f"Signed with {', '.join(o.comments)} not closed: {o.reason}",
+                text=o.describe(),
             )
         )
     return tuple(rows), path
-
-
-def sheet_title(entry: SheetEntry, nb: Any) -> str:
-    """The sheet's title: the project file's, else the notebook's first heading, else its name."""
-    if entry.title:
-        return entry.title
-    for cell in nb.cells:
-        if cell.cell_type == "markdown":
-            m = re.search(r"^#\s+(.+)$", cell.source, re.MULTILINE)
-            if m:
-                return m.group(1).strip()
-    return Path(entry.path).stem.replace("_", " ")
-
-
-_JUPYTER_STYLE_RE = re.compile(r'<style class="cp-style">.*?</style>', re.DOTALL)
-"""The working module's style block for JupyterLab; the PDF uses the package stylesheet."""
-_FIRST_H1_RE = re.compile(r"<h1[^>]*>(.*?)</h1>", re.DOTALL)
-
-
-def _drop_title_heading(body: str, title: str) -> str:
-    """Drop the first level-1 heading if it repeats the sheet title (the sheet head shows it)."""
-    m = _FIRST_H1_RE.search(body)
-    if m is None:
-        return body
-
-    def norm(text: str) -> str:
-        return " ".join(re.sub(r"<[^>]+>", "", text).split()).casefold()
-
-    if norm(m.group(1)) == norm(title):
-        return body[: m.start()] + body[m.end() :]
-    return body
-
-
-def prepare_sheet(
-    entry: SheetEntry, executed: ExecutedSheet | Any, *, source: bool = False
-) -> SheetDoc:
-    """Convert one executed sheet to HTML with its math as SVG images, and read its records.
-
-    Raises:
-        BuildError: a formula cannot be typeset (the message names the sheet).
-    """
-    import nbformat
-
-    from calcpack.package.convert import sheet_fragment
-    from calcpack.package.mathsvg import math_spans_to_images
-
-    nb = (
-        nbformat.reads(executed.notebook_json, as_version=4)
-        if isinstance(executed, ExecutedSheet)
-        else executed
-    )
-    title = sheet_title(entry, nb)
-    try:
-        body = _drop_title_heading(_JUPYTER_STYLE_RE.sub("", sheet_fragment(nb)), title)
-        body = math_spans_to_images(body)
-    except BuildError as exc:
-        raise BuildError(f"Sheet {entry.path!r}: {exc}") from exc
-    cells = (
-        tuple(
-            (i, cell.source)
-            for i, cell in enumerate(nb.cells, start=1)
-            if cell.cell_type == "code" and cell.source.strip()
-        )
-        if source
-        else ()
-    )
-    return SheetDoc(entry, title, body, collect_records(nb), cells)
-
-
-def _build_key(
-    project: Project,
-    executed_keys: list[str],
-    options: DocumentOptions,
-    review_file: Path | None,
-    created: _dt.datetime,
-    code_hash: str,
-) -> str:
-    from calcpack.package import revisions
-
-    digest = hashlib.sha256()
-    for part in (
-        code_hash,
-        publish.project_basis(project).decode("utf-8"),
-        *executed_keys,
-        options.paper,
-        str(options.reviewer_copy),
-        created.isoformat(),
-        review_file.read_text("utf-8") if review_file else "",
-        revisions.issued_basis_key(project),
-    ):
-        digest.update(part.encode() + b"\0")
-    return digest.hexdigest()
-
-
-def _previous_manifest(path: Path) -> dict[str, Any]:
-    """The manifest of the package already in the output folder ({} if none or unreadable)."""
-    import json
-
-    try:
-        data = json.loads(path.read_text("utf-8"))
-    except (OSError, ValueError):
-        return {}
-    return data if isinstance(data, dict) else {}
-
-
-def _pair_intact(pdf_path: Path, manifest_path: Path) -> bool:
-    """Whether the PDF carries, as its attachment, the very manifest beside it.
-
-    The two files are replaced one after the other; a build stopped between the two (or a file
-    replaced by hand) leaves a pair that disagrees. Such a package is not up to date: it is
-    built again (with a warning), never reported as current.
-    """
-    from calcpack.package.manifest import embedded_manifest_bytes
-
-    if not pdf_path.is_file():
-        return False
-    try:
-        beside = manifest_path.read_bytes()
-    except OSError:
-        return False
-    if embedded_manifest_bytes(pdf_path) == beside:
-        return True
-    import warnings
-
-    from calcpack.package.cache import CacheWarning
-
-    warnings.warn(
-        CacheWarning(
-            f"Package {pdf_path.name} does not carry the manifest beside it "
-            f"({manifest_path.name}): an earlier build was interrupted or a file was replaced; "
-            "building it again"
-        ),
-        stacklevel=3,
-    )
-    return False
-
-
-def _same_paper(previous: dict[str, Any], options: DocumentOptions) -> dict[str, Any]:
-    """The previous build's manifest if it was on the same paper ({} otherwise): page counts
-    carry over only then."""
-    return previous if previous.get("build", {}).get("paper") == options.paper else {}
-
-
-def _known_sheet_pages(previous: dict[str, Any], options: DocumentOptions) -> dict[str, int]:
-    """Sheet path -> its page count in the previous build (same paper), if there was one."""
-    known: dict[str, int] = {}
-    for sheet in _same_paper(previous, options).get("sheets", []):
-        if isinstance(sheet, dict) and isinstance(sheet.get("path"), str):
-            with contextlib.suppress(TypeError, ValueError):
-                first, last = sheet.get("pages", [1, 1])
-                known[sheet["path"]] = int(last) - int(first) + 1
-    return known
-
-
-def _page_guess(
-    previous: dict[str, Any],
-    sheet_pages: dict[str, int],
-    sheet_ids: dict[str, str],
-    options: DocumentOptions,
-) -> dict[str, int]:
-    """Expected page count per section id, so that the layout needs one pass, not two.
-
-    A sheet's page count depends only on its own content and the paper: a sheet the previous
-    build had keeps its count there (an edit rarely changes it); a new one was counted on its
-    own when it was converted (``sheet_pages``, by path). The other sections take the previous
-    build's counts, by id; without one, :func:`~calcpack.package.paginate.paginate` counts them.
-    """
-    guess: dict[str, int] = {}
-    for ident, span in (_same_paper(previous, options).get("sections") or {}).items():
-        if ident not in sheet_ids.values() and isinstance(span, list) and len(span) == 2:
-            guess[ident] = int(span[1]) - int(span[0]) + 1
-    for path, ident in sheet_ids.items():
-        if path in sheet_pages:
-            guess[ident] = sheet_pages[path]
-    return guess
-
-
-def count_sheet_pages(
-    doc: SheetDoc, project: Project, options: DocumentOptions, created: _dt.datetime
-) -> int:
-    """The pages a sheet takes, laid out on its own.
-
-    A sheet starts on a new page and its title block does not depend on the other sheets, so
-    this is its page count in the package (the layout checks it all the same).
-    """
-    from calcpack.package.paginate import count_pages
-
-    html = document_html(
-        project, [doc], replace(options, sheets_only=True, sheet_pages={}), created=created
-    )
-    return count_pages(html, ["sheet-1"], base_url=str(project.root))["sheet-1"]
 
 
 def _safe_name(text: str) -> str:
@@ -411,7 +203,7 @@ def _lay_out(
         section_ids=section_ids,
         roles=ROLES,
         base_url=str(project.root),
-        guess=_page_guess(previous, sheet_pages, sheet_ids, options),
+        guess=freshness.page_guess(previous, sheet_pages, sheet_ids, options),
         pool=pool,
         fill=functools.partial(fill_bodies, bodies),
         store=store,
@@ -483,10 +275,10 @@ def build(
     # Revision comparison (calcpack.package.revisions): the marks depend on the kept manifests.
     from calcpack.package import revisions
 
-    code_hash = _package_code_hash()
-    build_key = _build_key(project, keys, options, review_file, created, code_hash)
-    previous = _previous_manifest(manifest_path)
-    current = previous.get("build", {}).get("build_key") == build_key and _pair_intact(
+    code_hash = freshness.package_code_hash()
+    build_key = freshness.build_key(project, keys, options, review_file, created, code_hash)
+    previous = freshness.previous_manifest(manifest_path)
+    current = previous.get("build", {}).get("build_key") == build_key and freshness.pair_intact(
         pdf_path, manifest_path
     )
     if current and (not force or publish.signatures_in(pdf_path)):
@@ -533,7 +325,7 @@ def build(
         docs_here: dict[str, SheetDoc] = {}
         # Page counts: a sheet the previous build had keeps its count as the guess; a new one
         # is counted on its own as it is converted, so a first build lays out once, not twice.
-        known_pages = _known_sheet_pages(previous, options)
+        known_pages = freshness.known_sheet_pages(previous, options)
         sheet_pages = dict(known_pages)
 
         def convert(item: ExecutedSheet) -> None:
@@ -675,66 +467,3 @@ def build(
         moved,
         warnings,
     )
-
-
-def single_sheet_pdf(
-    nb: Any, *, name: str = "sheet", project: Project | None = None, path: str | None = None
-) -> bytes:
-    """One executed notebook as a paginated PDF with the package layout.
-
-    Job fields come from ``project`` (the project file found above the notebook) when given,
-    the sheet's number and title from its entry there (``path``: the notebook's path relative
-    to the project); otherwise from the notebook's ``metadata.calcpack`` when present.
-    """
-    meta = dict(nb.metadata.get("calcpack", {}) or {})
-    today = _dt.date.today()
-    if project is not None:
-        listed = [s for s in project.sheets if s.path == path]
-        entry = listed[0] if listed else SheetEntry("—", path or f"{name}.ipynb", None)
-        project = replace(project, sheets=(entry,))
-    else:
-        project = _project_from_metadata(meta, name, today)
-    return _sheet_pdf(project, nb, name, today)
-
-
-def _project_from_metadata(meta: dict[str, Any], name: str, today: _dt.date) -> Project:
-    return Project(
-        path=Path(name).resolve(),
-        job_number=str(meta.get("job_number", "—")),
-        job_title=str(meta.get("job_title", name)),
-        client=str(meta.get("client", "")),
-        site=str(meta.get("site", "")),
-        units=str(meta.get("units", "SI")),
-        paper=str(meta.get("paper", "A4")),
-        firm=str(meta.get("firm", "")),
-        firm_address="",
-        preparer=Person(str(meta.get("preparer", "—"))),
-        checker=Person(str(meta.get("checker", "—"))),
-        approver=Person(str(meta.get("approver", "—"))),
-        revisions=(Revision(str(meta.get("revision", "—")), today, "Single sheet"),),
-        sheets=(SheetEntry(str(meta.get("sheet_number", "1")), f"{name}.ipynb", None),),
-        design=_single_design(),
-    )
-
-
-def _sheet_pdf(project: Project, nb: Any, name: str, today: _dt.date) -> bytes:
-    from calcpack import __version__
-
-    doc = prepare_sheet(project.sheets[0], nb)
-    created = _dt.datetime(today.year, today.month, today.day, tzinfo=_dt.UTC)
-    options = DocumentOptions(paper=project.paper, calcpack_version=__version__, sheets_only=True)
-    layout = paginate(
-        lambda counts: document_html(
-            project, [doc], replace(options, sheet_pages=counts), created=created
-        ),
-        sheet_ids={doc.entry.path: "sheet-1"},
-        section_ids=["sheet-1"],
-        roles=(),
-    )
-    return write_pdf(layout, created=created, identifier_seed=name.encode())
-
-
-def _single_design() -> Any:
-    from calcpack.package.project import Design
-
-    return Design(standards=())

@@ -8,8 +8,7 @@ the sheet as the issued PDF lays it out. Names load on first use so that importi
 
 from __future__ import annotations
 
-import importlib
-from typing import Any
+from calcpack._lazy import lazy_attributes
 
 __all__ = [
     "BeamPanel",
@@ -46,11 +45,4 @@ _WHERE = {
 }
 
 
-def __getattr__(name: str) -> Any:
-    if name in _WHERE:
-        return getattr(importlib.import_module(_WHERE[name]), name)
-    raise AttributeError(f"module 'calcpack.widgets' has no attribute {name!r}")
-
-
-def __dir__() -> list[str]:
-    return sorted({*globals(), *__all__})
+__getattr__, __dir__ = lazy_attributes("calcpack.widgets", _WHERE, globals(), __all__)

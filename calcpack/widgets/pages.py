@@ -166,7 +166,7 @@ def render_preview(notebook: str | Path, *, resolution: int = 60) -> SheetPrevie
     import nbformat
 
     from calcpack.package.execute import execute_notebook
-    from calcpack.package.pipeline import single_sheet_pdf
+    from calcpack.package.sheetdoc import single_sheet_pdf
 
     path = Path(notebook)
     if not path.is_file():

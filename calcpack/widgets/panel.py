@@ -344,6 +344,9 @@ class InputsPanel(PanelDisplay):
             for w in self.outputs.values():
                 w.value = ""
             self._error(str(exc))
+            key = field_for_error(exc, self.fields, ())
+            if key is not None:  # a file edited by hand into an invalid state: mark its field
+                self.fields[key].show_error(str(exc))
             return
         self._show(outcome)
         self.status.value = ""

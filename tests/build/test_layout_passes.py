@@ -64,15 +64,15 @@ def test_rebuild_takes_the_counts_from_the_previous_build(
     project = make_project(tmp_path / "p", {"Short": SHORT, "Long": LONG})
     build(project, workers=1)
     counted: list[str] = []
-    import calcpack.package.pipeline as pipeline_module
+    import calcpack.package.sheetdoc as sheetdoc_module
 
-    original = pipeline_module.count_sheet_pages
+    original = sheetdoc_module.count_sheet_pages
 
     def recording(doc: Any, *rest: Any) -> int:
         counted.append(doc.entry.path)
         return int(original(doc, *rest))
 
-    monkeypatch.setattr(pipeline_module, "count_sheet_pages", recording)
+    monkeypatch.setattr(sheetdoc_module, "count_sheet_pages", recording)
     passes = _passes(monkeypatch)
     build(project, workers=1, force=True)
     assert counted == []  # every sheet's count came from the previous manifest

@@ -28,3 +28,21 @@ def test_bare_import_is_light():
     )
     out = subprocess.run([sys.executable, "-c", code], capture_output=True, text=True, check=True)
     assert out.stdout.strip() == "[]"
+
+
+def test_the_typing_imports_match_the_lazy_table():
+    """calcpack/_api.py (read by type checkers) names each public name from the module the
+    run-time table loads it from, and nothing else."""
+    import ast
+    from pathlib import Path
+
+    from calcpack._lazy import PUBLIC
+
+    tree = ast.parse(Path(calcpack.__file__).with_name("_api.py").read_text("utf-8"))
+    typed = {}
+    for node in tree.body:
+        if isinstance(node, ast.ImportFrom) and node.module != "__future__":
+            for alias in node.names:
+                assert alias.asname == alias.name, f"{alias.name} must be imported as itself"
+                typed[alias.name] = node.module
+    assert typed == PUBLIC

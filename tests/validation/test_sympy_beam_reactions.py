@@ -101,3 +101,56 @@ def test_cantilever_with_triangular_load() -> None:
     assert r.reaction("M_A").to("kN*m").magnitude == pytest.approx(
         float(b.reaction_loads[M]), rel=REL
     )
+
+
+@pytest.mark.parametrize(
+    ("L", "b_x", "P", "a", "w1", "w2", "s", "e", "C", "c"),
+    [
+        (10.0, 7.5, 12.0, 10.0, 0.0, 8.0, 2.0, 6.0, 10.0, 4.0),
+        (6.0, 6.0, 5.0, 1.5, 3.0, 3.0, 0.0, 6.0, -4.0, 5.0),
+        (8.0, 5.0, 0.0, 0.0, 6.0, 2.0, 4.0, 8.0, 0.0, 0.0),
+    ],
+)
+def test_beam_statics_plan_reactions(
+    L: float,
+    b_x: float,
+    P: float,
+    a: float,
+    w1: float,
+    w2: float,
+    s: float,
+    e: float,
+    C: float,
+    c: float,
+) -> None:
+    """The beam working's plan of equilibrium equations (moments about A, then ΣFy) gives
+    sympy's reactions for a pin at 0 and a roller at b_x (an overhang when b_x < L) under a
+    point load, a linearly varying load and a couple (clockwise + in calcpack, so −C in
+    sympy's counter-clockwise sense)."""
+    from calcpack.analysis.beam import Beam as CBeam
+    from calcpack.analysis.beam import Pin, Roller
+    from calcpack.analysis.beam.statics import statics_plan
+    from calcpack.loads import LinearLoad, PointLoad, PointMoment
+
+    b = Beam(L, E, I)
+    r0 = b.apply_support(0, "pin")
+    r1 = b.apply_support(b_x, "roller")
+    loads: list[PointLoad | LinearLoad | PointMoment] = []
+    if P:
+        b.apply_load(P, a, -1)
+        loads.append(PointLoad(x=a * m, P=P * kN))
+    slope = (w2 - w1) / (e - s)
+    b.apply_load(w1, s, 0, end=e)
+    if slope:
+        b.apply_load(slope, s, 1, end=e)
+    loads.append(LinearLoad(w_start=w1 * kN / m, w_end=w2 * kN / m, start=s * m, end=e * m))
+    if C:
+        b.apply_load(-C, c, -2)
+        loads.append(PointMoment(x=c * m, C=C * kN * m))
+    b.solve_for_reaction_loads(r0, r1)
+    beam = CBeam(length=L * m, supports=[Pin(0 * m), Roller(b_x * m)], loads=loads)
+    plan = statics_plan(beam, {"D": 1.0})
+    assert plan.complete
+    got = {eq.solves: eq.value_si / 1e3 for eq in plan.equations}
+    assert got[("A", "Fy")] == pytest.approx(-float(b.reaction_loads[r0]), rel=REL, abs=1e-12)
+    assert got[("B", "Fy")] == pytest.approx(-float(b.reaction_loads[r1]), rel=REL, abs=1e-12)

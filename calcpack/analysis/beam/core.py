@@ -40,6 +40,7 @@ __all__ = [
     "integrate",
     "refine",
     "shift_polynomial",
+    "shift_rows",
     "solve_si",
 ]
 
@@ -203,7 +204,7 @@ def _binomials(K: int) -> tuple[np.ndarray, np.ndarray]:
     return _BINOM[K]
 
 
-def _shift(c: np.ndarray, s: np.ndarray) -> np.ndarray:
+def shift_rows(c: np.ndarray, s: np.ndarray) -> np.ndarray:
     """Coefficients of p(ξ + s) for each row of c (ascending), s per row (binomial expansion)."""
     C, e = _binomials(c.shape[-1])
     s_pow = np.asarray(s, dtype=float)[:, None] ** np.arange(c.shape[-1])[None, :]
@@ -213,10 +214,10 @@ def _shift(c: np.ndarray, s: np.ndarray) -> np.ndarray:
 
 def shift_polynomial(coeffs: Sequence[float], s: float) -> tuple[float, ...]:
     """Coefficients (ascending) of p(ξ + s) for one polynomial p: the Taylor shift used by the
-    solver (:func:`_shift`), for callers that move a single load piece's origin."""
+    solver (:func:`shift_rows`), for callers that move a single load piece's origin."""
     if not len(coeffs):
         return ()
-    row = _shift(np.asarray([coeffs], dtype=float), np.asarray([s], dtype=float))[0]
+    row = shift_rows(np.asarray([coeffs], dtype=float), np.asarray([s], dtype=float))[0]
     return tuple(float(v) for v in row)
 
 
@@ -225,7 +226,7 @@ def refine(X: np.ndarray, g: np.ndarray, Xnew: np.ndarray, K: int) -> np.ndarray
     seg = np.clip(np.searchsorted(X, Xnew[:-1], side="right") - 1, 0, g.shape[0] - 1)
     c = np.zeros((len(Xnew) - 1, K))
     c[:, : g.shape[1]] = g[seg]
-    return _shift(c, Xnew[:-1] - X[seg])
+    return shift_rows(c, Xnew[:-1] - X[seg])
 
 
 def _breakpoints(beam: SIBeam) -> list[float]:
@@ -287,7 +288,7 @@ def _line_load(beam: SIBeam, X: np.ndarray, Xl: list[float], K: int) -> np.ndarr
         for i, j, _, c in general:
             coef[row : row + j - i, : len(c)] = c
             row += j - i
-        np.add.at(w, seg, _shift(coef, X[seg] - a_of))
+        np.add.at(w, seg, shift_rows(coef, X[seg] - a_of))
     return w
 
 

@@ -7,19 +7,29 @@ from __future__ import annotations
 
 from dataclasses import dataclass
 from functools import cached_property
-from typing import TYPE_CHECKING
+from typing import TYPE_CHECKING, Literal
 
 import numpy as np
 
-from calcpack.analysis.beam.core import SIResult, evaluate
+from calcpack.analysis.beam.core import SIResult, evaluate, shift_rows
 from calcpack.analysis.beam.quantities import out_q
-from calcpack.errors import InputError
+from calcpack.errors import InputError, OutOfScopeError
 from calcpack.units import Quantity
+from calcpack.validate import one_of, within
 
 if TYPE_CHECKING:
     from calcpack.analysis.beam.result import BeamResult
 
-__all__ = ["BeamExtremes", "Extreme", "batch_roots", "find_extremes", "roots_in_segments"]
+__all__ = [
+    "BeamExtremes",
+    "Extreme",
+    "RangeExtremes",
+    "RangeWhat",
+    "batch_roots",
+    "find_extremes",
+    "range_extremes",
+    "roots_in_segments",
+]
 
 
 @dataclass(frozen=True)
@@ -346,33 +356,28 @@ def _snap_noise(values: np.ndarray) -> np.ndarray:
     return np.where(np.abs(values) <= 1e-12 * size, 0.0, values)
 
 
-def find_extremes(result: BeamResult) -> BeamExtremes:
-    """All extremes of ``result`` (see :class:`BeamExtremes`).
+def _stack_candidates(
+    X: np.ndarray, funcs: list[np.ndarray], derivs: list[np.ndarray]
+) -> tuple[list[tuple[np.ndarray, np.ndarray]], np.ndarray, np.ndarray, np.ndarray]:
+    """The candidates for the extremes of piecewise polynomials on breakpoints ``X``: each
+    segment's start and end, and the real roots of the derivative strictly inside it.
 
-    V, M and v (when EI is given) are handled as one stack of segment polynomials: one batch of
-    root finding for their derivatives (−w, V and θ), one evaluation of every candidate.
+    Args:
+        funcs: (n, K_i) piecewise polynomials. derivs: their derivatives, in the same order.
+
+    Returns:
+        Per function, (values, x): the n segment starts, the n segment ends, then the turning
+        points; and the batch roots (segment index in the stack, ξ) and the powers h^k of the
+        stacked segments.
     """
-    core = result.core
-    X = core.X
     n = len(X) - 1
-    L = float(X[-1])
     h = X[1:] - X[:-1]
-    with_v = core.v is not None and core.T is not None
-    funcs = [core.V, core.M]
-    derivs = [core.w, core.V]
-    if with_v:
-        assert core.v is not None
-        assert core.T is not None
-        funcs.append(core.v)
-        derivs.append(core.T)
     nf = len(funcs)
     K = max(g.shape[1] for g in funcs + derivs)
     F = _stack(funcs, K)
     hh = np.concatenate([h] * nf)
     hp = hh[:, None] ** np.arange(K)
     seg, xi = batch_roots(_stack(derivs, K), hh, hp)
-
-    # candidates: each segment's start and end, and the turning points strictly inside
     inside = np.abs(xi - 0.5 * hh[seg]) < 0.5 * hh[seg]
     rseg, rxi = seg[inside], xi[inside]
     m = rseg.size
@@ -383,22 +388,47 @@ def find_extremes(result: BeamResult) -> BeamExtremes:
     x_turn = X[rseg % n] + rxi
     owner = rseg // n
     x_ends = np.concatenate([X[:-1], X[1:]])
-
-    def candidates(f: int) -> tuple[np.ndarray, np.ndarray]:
+    out = []
+    for f in range(nf):
         mine = owner == f
         rows = slice(f * n, (f + 1) * n)
-        values = np.concatenate([starts[rows], ends[rows], turning[mine]])
-        return values, np.concatenate([x_ends, x_turn[mine]])
+        out.append(
+            (
+                np.concatenate([starts[rows], ends[rows], turning[mine]]),
+                np.concatenate([x_ends, x_turn[mine]]),
+            )
+        )
+    return out, seg, xi, hp
 
-    vV, xV = candidates(0)  # V' = −w
-    vM, xM = candidates(1)  # M' = V
+
+def find_extremes(result: BeamResult) -> BeamExtremes:
+    """All extremes of ``result`` (see :class:`BeamExtremes`).
+
+    V, M and v (when EI is given) are handled as one stack of segment polynomials: one batch of
+    root finding for their derivatives (−w, V and θ), one evaluation of every candidate.
+    """
+    core = result.core
+    X = core.X
+    n = len(X) - 1
+    L = float(X[-1])
+    with_v = core.v is not None and core.T is not None
+    funcs = [core.V, core.M]
+    derivs = [core.w, core.V]
+    if with_v:
+        assert core.v is not None
+        assert core.T is not None
+        funcs.append(core.v)
+        derivs.append(core.T)
+    cands, seg, xi, hp = _stack_candidates(X, funcs, derivs)
+    vV, xV = cands[0]  # V' = −w
+    vM, xM = cands[1]  # M' = V
     vV, vM = _snap_noise(vV), _snap_noise(vM)
 
     down = up = None
     sl = sr = None
     if with_v:
         assert core.T is not None
-        vv, xv = candidates(2)  # v' = θ; v is continuous: no sides to tell apart
+        vv, xv = cands[2]  # v' = θ; v is continuous: no sides to tell apart
         size = max(float(np.abs(vv).max()), 1e-300)
         down = _pick(-vv, xv, n, "max", L, "deflection", False)
         up = _pick(vv, xv, n, "max", L, "deflection", False)
@@ -425,3 +455,92 @@ def find_extremes(result: BeamResult) -> BeamExtremes:
         (down, up),
         (sl, sr),
     )
+
+
+RangeWhat = Literal["shear", "moment", "deflection"]
+
+
+@dataclass(frozen=True)
+class RangeExtremes:
+    """The largest and smallest value of V, M or δ on a <= x <= b, exact to round-off.
+
+    Attributes:
+        what: "shear", "moment" or "deflection" (sign conventions of the result: V left face
+            up +, M sagging +, δ down +).
+        largest, smallest: the extremes with where they occur (``side`` "left"/"right" at a
+            discontinuity inside the range).
+    """
+
+    what: RangeWhat
+    largest: Extreme
+    smallest: Extreme
+
+    @property
+    def magnitude(self) -> Extreme:
+        """The extreme of larger magnitude (the largest on a tie)."""
+        if abs(self.smallest.value_si) > abs(self.largest.value_si):
+            return self.smallest
+        return self.largest
+
+
+_RANGE: dict[str, tuple[str, str, str, float]] = {
+    # function, its derivative, quantity kind, sign from the core's convention
+    "shear": ("V", "w", "force", 1.0),
+    "moment": ("M", "V", "moment", 1.0),
+    "deflection": ("v", "T", "deflection", -1.0),  # δ = −v, down +
+}
+
+
+def range_extremes(core: SIResult, what: RangeWhat, a_m: float, b_m: float) -> RangeExtremes:
+    """Exact extremes of V, M or δ on a <= x <= b (m): the same candidates as the whole
+    beam's (:func:`find_extremes`) -- range ends, breakpoints inside on both sides, real roots
+    of the derivative -- on the polynomials re-expressed on the range.
+
+    At ``a`` the value just right of it counts, at ``b`` the value just left of it (the
+    range's own side of a discontinuity at its ends).
+
+    Raises:
+        InputError: ``what`` unknown, or a, b not with 0 <= a <= b <= L (names the input).
+        OutOfScopeError: a deflection asked of a beam without EI.
+    """
+    one_of("what", what, tuple(_RANGE))
+    attr, dattr, kind, sign = _RANGE[what]
+    X = core.X
+    L = float(X[-1])
+    tol = 1e-12 * L
+    within("a", a_m, -tol, L + tol, rule="a range on the beam, in m from its left end")
+    within("b", b_m, a_m, L + tol, rule=f"a range on the beam, a = {a_m:.6g} m to L = {L:.6g} m")
+    g, dg = getattr(core, attr), getattr(core, dattr)
+    if g is None or dg is None:
+        raise OutOfScopeError(
+            "Deflection extremes need the beam's stiffness: give EI when building the Beam"
+        )
+    a, b = min(max(a_m, 0.0), L), min(max(b_m, 0.0), L)
+    n = g.shape[0]
+    if b - a <= tol:  # a point: its value on both sides
+        x = np.array([a, a])
+        v = sign * np.concatenate([evaluate(X, g, x[:1], "left"), evaluate(X, g, x[:1])])
+        hi = Extreme(float(v.max()), a, "", kind)
+        return RangeExtremes(what, hi, Extreme(float(v.min()), a, "", kind))
+    Xs = np.concatenate([[a], X[(a + tol < X) & (b - tol > X)], [b]])
+    seg = np.clip(np.searchsorted(X, Xs[:-1] + tol, side="right") - 1, 0, n - 1)
+    s = Xs[:-1] - X[seg]
+    K = max(g.shape[1], dg.shape[1])
+    gs = shift_rows(np.pad(g[seg], ((0, 0), (0, K - g.shape[1]))), s)
+    dgs = shift_rows(np.pad(dg[seg], ((0, 0), (0, K - dg.shape[1]))), s)
+    cands = _stack_candidates(Xs, [gs], [dgs])[0]
+    values, xs = cands[0]
+    values = sign * values
+    if kind != "deflection":
+        values = _snap_noise(values)
+    values = values + 0.0  # no −0.0 where the value is zero
+    ns = len(Xs) - 1
+    sides = kind != "deflection"
+
+    def pick(which: str) -> Extreme:
+        e = _pick(values, xs, ns, which, L, kind, sides)
+        if e.side and (abs(e.x_m - a) <= tol or abs(e.x_m - b) <= tol):
+            return Extreme(e.value_si, e.x_m, "", kind)  # a range end: its own side counts
+        return e
+
+    return RangeExtremes(what, pick("max"), pick("min"))

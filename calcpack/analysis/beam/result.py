@@ -27,7 +27,13 @@ import numpy as np
 
 from calcpack import views
 from calcpack.analysis.beam.core import SIResult, evaluate, refine
-from calcpack.analysis.beam.extremes import BeamExtremes, find_extremes
+from calcpack.analysis.beam.extremes import (
+    BeamExtremes,
+    RangeExtremes,
+    RangeWhat,
+    find_extremes,
+    range_extremes,
+)
 from calcpack.analysis.beam.quantities import out_q
 from calcpack.errors import InputError, OutOfScopeError
 from calcpack.units import Quantity, require
@@ -187,6 +193,24 @@ class BeamResult:
         """Max and min V and M with locations, zero-shear points, contraflexure points, maximum
         deflection (down and up) with location, end slopes -- all exact to round-off."""
         return find_extremes(self)
+
+    def range_extremes(self, what: RangeWhat, a: Any = None, b: Any = None) -> RangeExtremes:
+        """Exact largest and smallest V, M or δ on a <= x <= b (the whole beam by default).
+
+        Args:
+            what: "shear" (left face up +), "moment" (sagging +) or "deflection" (down +).
+            a, b: the range's ends [length]; None for the beam's ends.
+
+        Returns:
+            The extremes with their positions (``.magnitude`` is the one of larger |value|).
+
+        Raises:
+            InputError: a or b off the beam or b < a (names the input); ``what`` unknown.
+            OutOfScopeError: a deflection asked of a beam without EI.
+        """
+        a_m = 0.0 if a is None else float(_as_m(a, "a"))
+        b_m = self.beam.L_m if b is None else float(_as_m(b, "b"))
+        return range_extremes(self.core, what, a_m, b_m)
 
     # -- superposition -----------------------------------------------------------------------
     def scaled(self, factor: float) -> BeamResult:

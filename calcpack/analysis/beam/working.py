@@ -20,14 +20,14 @@ from __future__ import annotations
 
 from typing import TYPE_CHECKING, Any
 
-from calcpack.analysis.beam.flexibility import flexibility_plan, reaction_keys, reaction_symbol
+from calcpack.analysis.beam.flexibility import Key, flexibility_plan, reaction_symbol
+from calcpack.analysis.beam.statics import StaticsEquation, statics_plan
 from calcpack.analysis.beam.working_cut import cut_working
 from calcpack.analysis.beam.working_terms import (
-    EquilibriumEq,
     LoadTerms,
     Writer,
     accumulate,
-    equilibrium,
+    load_terms,
     pick_settings,
 )
 from calcpack.units import Q_
@@ -48,114 +48,74 @@ SIGN_CONVENTION = (
 
 
 def _statics(
-    result: BeamResult, loads: LoadTerms, solved: dict[str, Any], steps: list[Any]
+    w: Writer,
+    result: BeamResult,
+    loads: LoadTerms,
+    solved: dict[str, Any],
+    known: dict[Key, float],
+    steps: list[Any],
 ) -> bool:
-    """Equations each giving one unknown reaction, as the engineer orders them. Returns False
-    if the unknowns stay coupled (then the caller tabulates the solver's values)."""
-    beam = result.beam
-    L = beam.L_m
-    wanted = [reaction_symbol(k) for k in reaction_keys(beam)]
-    cands: list[EquilibriumEq] = []
-    for h in beam.hinges:
-        hx = h.x_m
-        cands.append(
-            equilibrium(
-                loads,
-                beam,
-                0.0,
-                hx,
-                hx,
-                rf"\Sigma M_{{{h.name}}} = 0",
-                f"part left of hinge {h.name} (M = 0 at the hinge)",
-                "L",
-            )
-        )
-        cands.append(
-            equilibrium(
-                loads,
-                beam,
-                hx,
-                L,
-                hx,
-                rf"\Sigma M_{{{h.name}}} = 0",
-                f"part right of hinge {h.name} (M = 0 at the hinge)",
-                "R",
-            )
-        )
-    cands.append(equilibrium(loads, beam, 0.0, L, None, r"\Sigma F_y = 0", "whole beam, up +"))
-    for s in beam.supports:
-        cands.append(
-            equilibrium(
-                loads,
-                beam,
-                0.0,
-                L,
-                s.x_m,
-                rf"\Sigma M_{{{s.label}}} = 0",
-                f"whole beam, moments about support {s.label}",
-            )
-        )
-    used: set[int] = set()
-    progress = True
-    while progress and any(w not in solved for w in wanted):
-        progress = False
-        for i, eq in enumerate(cands):
-            if i in used:
-                continue
-            open_ = [u for u in eq.unknowns if u[2] not in solved and abs(u[0]) > 1e-12 * L]
-            if len(open_) != 1:
-                continue
-            used.add(i)
-            progress = True
-            _emit(loads.w, eq, open_[0], solved, steps)
-            break
-    return all(w in solved for w in wanted)
+    """Writes the statics plan: equations each giving one unknown reaction, as the engineer
+    orders them. Returns False if the unknowns stay coupled (then the caller tabulates the
+    solver's values)."""
+    plan = statics_plan(result.beam, dict(result.cases), known)
+    for eq in plan.equations:
+        _emit(w, eq, load_terms(loads, result.beam, eq.region), solved, steps)
+    return plan.complete
 
 
 def _emit(
     w: Writer,
-    eq: EquilibriumEq,
-    target: tuple[float, Any, str],
+    eq: StaticsEquation,
+    terms: list[tuple[float, Any]],
     solved: dict[str, Any],
     steps: list[Any],
 ) -> None:
-    unit = w.u("moment") if target[2].startswith("M_") else w.u("force")
-    U = Unknown(target[2], unit=unit)
+    symbol = reaction_symbol(eq.solves)
+    unit = w.u("moment") if eq.solves[1] == "C" else w.u("force")
+    U = Unknown(symbol, unit=unit)
     lhs: Any = None
     rest: Any = None
-    for coef, cterm, name in eq.unknowns:  # reactions first, as written by hand
-        if name == target[2]:
-            lhs = accumulate(
-                lhs, -1.0 if cterm == -1 else 1.0, U if cterm in (1, -1) else U * cterm
-            )
+    target: Any = 1
+    for r in eq.reactions:  # reactions first, as written by hand
+        coef: Any = w.lit(r.arm_m) if r.arm_m is not None else int(r.coefficient)
+        sign = -1.0 if coef == -1 else 1.0
+        if r.key == eq.solves:
+            target = coef
+            lhs = accumulate(lhs, sign, U if coef in (1, -1) else U * coef)
             continue
-        known = solved.get(name)
-        if known is None or abs(coef) <= 0:
+        known = solved.get(r.symbol)
+        if known is None:
             continue
-        sign = -1.0 if cterm == -1 else 1.0
-        piece = known if cterm in (1, -1) else known * cterm
+        piece = known if coef in (1, -1) else known * coef
         lhs = accumulate(lhs, sign, piece)
         rest = accumulate(rest, -sign, piece)
-    for sign, t in eq.terms:
+    for sign, t in terms:
         lhs = accumulate(lhs, sign, t)
         rest = accumulate(rest, -sign, t)
     if rest is None:
         rest = Q_(0.0, unit)
     steps.append(w.equation(lhs, 0, label=eq.label, description=eq.description))
-    cterm = target[1]
-    formula = rest if cterm == 1 else (-rest if cterm == -1 else rest / cterm)
-    name, comp = target[2].split("_", 1)
-    what = {"R": "vertical reaction at", "M": "moment reaction (clockwise +) at"}[name]
-    value = w.derived(target[2], formula, f"{what} support {comp}", unit=unit)
+    formula = rest if target == 1 else (-rest if target == -1 else rest / target)
+    what = {"Fy": "vertical reaction at", "C": "moment reaction (clockwise +) at"}[eq.solves[1]]
+    value = w.derived(symbol, formula, f"{what} support {eq.solves[0]}", unit=unit)
     steps.append(value)
-    solved[target[2]] = value
+    solved[symbol] = value
 
 
 # -- flexibility method -------------------------------------------------------------------------
-def _flexibility(w: Writer, result: BeamResult, solved: dict[str, Any], steps: list[Any]) -> bool:
+def _flexibility(
+    w: Writer,
+    result: BeamResult,
+    solved: dict[str, Any],
+    known: dict[Key, float],
+    steps: list[Any],
+) -> bool:
     plan = flexibility_plan(result)
     if plan is None:
         return False
+    # the redundants in SI (the plan's are in kN and kN·m)
+    known.update({k: 1e3 * x for k, x in zip(plan.redundants, plan.X, strict=True)})
     beam = result.beam
     n = len(plan.redundants)
     redundants, names = plan.redundants, plan.names
@@ -333,12 +293,13 @@ def _beam_working(w: Writer, result: BeamResult, title: str | None) -> Any:
             )
         )
     ok = True
+    known: dict[Key, float] = {}
     if result.classification.degree_bending > 0:
-        ok = _flexibility(w, result, solved, steps)
+        ok = _flexibility(w, result, solved, known, steps)
         if ok:
             steps.append(Heading("Remaining reactions by equilibrium", 3))
     if ok:
-        ok = _statics(result, loads, solved, steps)
+        ok = _statics(w, result, loads, solved, known, steps)
     if not ok:
         steps.append(
             Text(

@@ -5,11 +5,12 @@ from __future__ import annotations
 
 from typing import TYPE_CHECKING, Any
 
+from calcpack.analysis.beam.statics import CutSide, Region
 from calcpack.analysis.beam.working_terms import (
     LoadTerms,
     Writer,
     accumulate,
-    equilibrium,
+    load_terms,
     pick_settings,
 )
 from calcpack.errors import InputError
@@ -83,20 +84,11 @@ def _cut_working(w: Writer, result: BeamResult, x: Any, side: str) -> Any:
             )
             steps.append(Mr)
             rterms.append(("C", s.x_m, Mr))
-    eqV = equilibrium(
-        loads, beam, 0.0, x_m, None, r"\Sigma F_y = 0", "left part, up +", "c", cut_side=side
-    )
-    eqM = equilibrium(
-        loads,
-        beam,
-        0.0,
-        x_m,
-        x_m,
-        r"\Sigma M_{c} = 0",
-        "left part, moments about the cut c, ccw +",
-        "c",
-        cut_side=side,
-    )
+    cut: CutSide = "left" if side == "left" else ""
+    termsV = load_terms(loads, beam, Region(0.0, x_m, None, "c", cut))
+    termsM = load_terms(loads, beam, Region(0.0, x_m, x_m, "c", cut))
+    labelV, descV = r"\Sigma F_y = 0", "left part, up +"
+    labelM, descM = r"\Sigma M_{c} = 0", "left part, moments about the cut c, ccw +"
     V = Unknown("V", unit=w.u("force"))
     M = Unknown("M", unit=w.u("moment"))
     lhsV: Any = None
@@ -105,11 +97,11 @@ def _cut_working(w: Writer, result: BeamResult, x: Any, side: str) -> Any:
         if kind == "F":
             lhsV = accumulate(lhsV, 1.0, t)
             restV = accumulate(restV, 1.0, t)
-    for sign, term in eqV.terms:
+    for sign, term in termsV:
         lhsV = accumulate(lhsV, sign, term)
         restV = accumulate(restV, sign, term)
     lhsV = accumulate(lhsV, -1.0, V)
-    steps.append(w.equation(lhsV, 0, label=eqV.label, description=eqV.description))
+    steps.append(w.equation(lhsV, 0, label=labelV, description=descV))
     steps.append(
         w.derived(
             "V",
@@ -127,11 +119,11 @@ def _cut_working(w: Writer, result: BeamResult, x: Any, side: str) -> Any:
         elif kind == "C":
             lhsM = accumulate(lhsM, -1.0, t)
             restM = accumulate(restM, 1.0, t)
-    for sign, term in eqM.terms:
+    for sign, term in termsM:
         lhsM = accumulate(lhsM, sign, term)
         restM = accumulate(restM, -sign, term)
     lhsM = accumulate(lhsM, 1.0, M)
-    steps.append(w.equation(lhsM, 0, label=eqM.label, description=eqM.description))
+    steps.append(w.equation(lhsM, 0, label=labelM, description=descM))
     steps.append(
         w.derived(
             "M",

@@ -7,9 +7,8 @@ from __future__ import annotations
 from dataclasses import dataclass
 from typing import TYPE_CHECKING, Any
 
-from calcpack.analysis.beam.core import shift_polynomial
-from calcpack.analysis.beam.flexibility import reaction_symbol
 from calcpack.analysis.beam.model import Beam
+from calcpack.analysis.beam.statics import Region, clip_pieces
 from calcpack.loads.resultants import resultant_si
 from calcpack.loads.types import (
     AreaLoad,
@@ -17,7 +16,6 @@ from calcpack.loads.types import (
     LinearLoad,
     PointLoad,
     PointMoment,
-    SIPiece,
     UniformLoad,
 )
 from calcpack.units import Q_, DisplaySettings, get_display, ureg
@@ -29,12 +27,10 @@ if TYPE_CHECKING:
 
 __all__ = [
     "UNITS",
-    "EquilibriumEq",
     "LoadTerms",
     "Writer",
     "accumulate",
-    "clip_pieces",
-    "equilibrium",
+    "load_terms",
     "pick_settings",
 ]
 
@@ -97,16 +93,6 @@ def accumulate(expr: Any, sign: float, term: Any) -> Any:
 
 
 # -- the loads as working terms ---------------------------------------------------------------
-def clip_pieces(pieces: tuple[SIPiece, ...], lo: float, hi: float) -> tuple[SIPiece, ...]:
-    out = []
-    for p in pieces:
-        a, b = max(p.a_m, lo), min(p.b_m, hi)
-        if b - a <= 1e-12 * max(abs(hi), 1.0):
-            continue
-        out.append(SIPiece(a, b, shift_polynomial(p.coeffs, a - p.a_m)))
-    return tuple(out)
-
-
 class LoadTerms:
     """The active (factored) loads of a result as Given / Derived steps."""
 
@@ -253,56 +239,19 @@ class LoadTerms:
         return out
 
 
-# -- equilibrium of a region about a point ----------------------------------------------------
-@dataclass
-class EquilibriumEq:
-    label: str
-    terms: list[tuple[float, Term]]  # (sign, positive-sense term) of the known parts
-    unknowns: list[tuple[float, Any, str]]  # (numeric coefficient, coefficient term or 1, key)
-    description: str
-
-
-def equilibrium(
-    loads: LoadTerms,
-    beam: Beam,
-    lo: float,
-    hi: float,
-    about: float | None,
-    label: str,
-    description: str,
-    part: str = "",
-    cut_side: str = "",
-) -> EquilibriumEq:
-    """ΣFy (about None) or ΣM about ``about`` (ccw +) of the part of the beam on [lo, hi].
-
-    With ``cut_side`` "left" (or "right") the part is cut just left (right) of ``hi``: point
-    actions at ``hi`` are left out (included).
-    """
+# -- the known terms of an equilibrium equation ------------------------------------------------
+def load_terms(loads: LoadTerms, beam: Beam, region: Region) -> list[tuple[float, Term]]:
+    """The loads on ``region`` as (sign, positive-sense term) in its equation: ΣFy (up +) when
+    ``region.about_m`` is None, else ΣM about it (ccw +). The numbers are those of
+    :func:`calcpack.analysis.beam.statics.load_sum_si`; this writes them as terms."""
     w = loads.w
     tol = 1e-9 * beam.L_m
-
-    def inside(x: float) -> bool:
-        if cut_side == "left":
-            return lo - tol <= x < hi - tol
-        return lo - tol <= x <= hi + tol
-
+    about = region.about_m
+    lo, hi = region.lo_m, region.hi_m
     terms: list[tuple[float, Term]] = []
-    unknowns: list[tuple[float, Any, str]] = []
-
-    for s in beam.supports:
-        if not inside(s.x_m):
-            continue
-        if s.restrains_v:
-            if about is None:
-                unknowns.append((1.0, 1, reaction_symbol((s.label, "Fy"))))
-            elif abs(s.x_m - about) > tol:
-                arm = s.x_m - about
-                unknowns.append((arm, w.lit(arm), reaction_symbol((s.label, "Fy"))))
-        if s.restrains_rotation and about is not None:
-            unknowns.append((-1.0, -1, reaction_symbol((s.label, "C"))))
     for load, _f, P in loads.points:
         x = load.x.to("m").magnitude
-        if not inside(x):
+        if not region.contains(x, tol):
             continue
         if about is None:
             terms.append((-1.0, P))
@@ -310,10 +259,10 @@ def equilibrium(
             terms.append((-1.0, P * w.lit(x - about)))
     if about is not None:
         for cl, _f, C in loads.couples:
-            if inside(cl.x.to("m").magnitude):
+            if region.contains(cl.x.to("m").magnitude, tol):
                 terms.append((-1.0, C))
     for dl, f, k in loads.dist:
-        got = loads.resultant(dl, f, k, max(lo, dl.a_m), min(hi, dl.b_m), part)
+        got = loads.resultant(dl, f, k, max(lo, dl.a_m), min(hi, dl.b_m), region.part)
         if got is None:
             continue
         W, xbar, _W_N, _x_m = got
@@ -325,7 +274,7 @@ def equilibrium(
         else:
             arm_term = xbar if abs(about) < tol else (xbar - w.lit(about))
             terms.append((-1.0, W * arm_term))
-    return EquilibriumEq(label, terms, unknowns, description)
+    return terms
 
 
 def pick_settings(sheet: Any, system: str | None) -> DisplaySettings:

@@ -11,7 +11,8 @@
   leg's toe in compression): §F10 yielding, leg local buckling, and lateral-torsional buckling of
   equal-leg angles; an unequal-leg angle without continuous lateral-torsional restraint needs
   principal-axis bending and is refused;
-* tees (§F9) and rectangular bars (§F11) are refused in this version.
+* tees (WT, MT, ST) about x: §F9; rectangular and round bars: §F11
+  (``flexure_tee_bar.py``); tees about y and double angles are refused.
 
 ``Lb = None`` on the member means continuous lateral-torsional restraint.
 """
@@ -21,6 +22,7 @@ from __future__ import annotations
 import math
 from typing import Any, Literal
 
+from calcpack.checks.aisc360.flexure_tee_bar import BARS, TEES, bar_f11, tee_f9
 from calcpack.checks.aisc360.member_data import SteelMember
 from calcpack.checks.base import Recorder
 from calcpack.errors import OutOfScopeError
@@ -53,10 +55,14 @@ def flexure_strength(c: Recorder, m: SteelMember, axis: Axis) -> Any:
         return _round_f8(c, m, Fy, E)
     if t == "L" and axis == "x":
         return _angle_f10(c, m, Fy, E, root)
+    if t in TEES and axis == "x":
+        return tee_f9(c, m, Fy, E, root)
+    if t in BARS:
+        return bar_f11(c, m, Fy, E, axis)
     raise OutOfScopeError(
         f"Flexure of {m.shape.designation} ({t}) about {axis} is not covered: AISC 360-16 "
-        "§F9 (tees), §F10 bending of angles about other axes and §F11 (bars) are not "
-        "implemented"
+        "§F10 bending of angles about other axes and bending of tees about their axis of "
+        "symmetry (y) are not implemented"
     )
 
 

@@ -15,10 +15,9 @@ from typing import Any, Literal
 from calcpack.checks.aisc360.shape import _TITLE, AISC360_EDITION, E_STEEL
 from calcpack.checks.base import Recorder, Standard
 from calcpack.checks.scope import material_in_scope
-from calcpack.errors import InputError
 from calcpack.sections.aisc_database import SteelShape
 from calcpack.units import Q_, Quantity, require
-from calcpack.validate import one_of, within
+from calcpack.validate import instance, one_of, within
 
 __all__ = [
     "FACTORS",
@@ -32,6 +31,7 @@ __all__ = [
 ]
 
 Method = Literal["LRFD", "ASD"]
+TeeStem = Literal["tension", "compression"]
 G_STEEL = Q_(11200.0, "ksi")  # shear modulus of steel, AISC 360-16 (G = 11 200 ksi)
 
 
@@ -59,6 +59,7 @@ FACTORS: Mapping[str, Factor] = MappingProxyType(
         "concrete bearing": Factor(0.65, 2.31, "AISC 360-16 §J8"),
         "plate flexure": Factor(0.90, 1.67, "AISC 360-16 §F1"),
         "bracing": Factor(0.75, 2.00, "AISC 360-16 Appendix 6.1"),
+        "torsional bracing": Factor(0.75, 3.00, "AISC 360-16 Appendix 6.3.2"),
     }
 )
 
@@ -100,6 +101,9 @@ class SteelMember:
             continuously braced, or not bent about x). Cb: LTB modification factor (§F1,
             1.0 conservative; 1.0 ≤ C_b ≤ 3.0).
         E: modulus of elasticity (29 000 ksi). G: shear modulus (11 200 ksi).
+        tee_stem: for tees in flexure (§F9), "tension" when the stem tip is in tension all
+            along L_b (the flange in compression), "compression" when the stem is in
+            compression anywhere along L_b.
     """
 
     shape: SteelShape
@@ -113,16 +117,10 @@ class SteelMember:
     Cb: float = 1.0
     E: Quantity = E_STEEL
     G: Quantity = G_STEEL
+    tee_stem: TeeStem = "tension"
 
     def __post_init__(self) -> None:
-        if not isinstance(self.shape, SteelShape):
-            raise InputError(
-                f"Input shape must be a tabulated shape from aisc_shape(...) (got shape = "
-                f"{self.shape!r})",
-                name="shape",
-                value=self.shape,
-                expected="aisc_shape('W8X18') or similar",
-            )
+        instance("shape", self.shape, SteelShape, expected="a tabulated shape, aisc_shape('W8X18')")
         material_in_scope("AISC 360-16|steel|Fy", "Fy", self.Fy)
         if self.Fu is not None:
             require(self.Fu, "[pressure]", "Fu", positive=True)
@@ -132,6 +130,7 @@ class SteelMember:
         for nm in ("Lcx", "Lcy", "Lcz", "Lb"):
             _opt_length(getattr(self, nm), nm)
         within("Cb", float(self.Cb), 1.0, 3.0, rule="AISC 360-16 §F1 (1.0 ≤ C_b ≤ 3.0)")
+        one_of("tee_stem", self.tee_stem, ("tension", "compression"))
 
     @property
     def family(self) -> str:

@@ -121,3 +121,17 @@ def test_new_with_a_sheet_template(tmp_path: Path) -> None:
     assert main(["new", str(folder), "--sheet", "beam"]) == 0
     assert (folder / "sheets" / "02_beam.inputs.toml").is_file()
     assert load_project(folder).sheets[-1].inputs == ("sheets/02_beam.inputs.toml",)
+
+
+def test_section_sheet_runs_as_made(project: Path, monkeypatch: pytest.MonkeyPatch) -> None:
+    """The section template reads its inputs file through the strict reader (an unknown key in
+    it is refused) and computes the shape the file describes."""
+    added = add_sheet(project, "section", title="Lintel section")
+    nb = json.loads((project / added.notebook).read_text(encoding="utf-8"))
+    monkeypatch.chdir((project / added.notebook).parent)
+    monkeypatch.setenv("CALCPACK_BUILDING", "1")
+    scope: dict[str, object] = {}
+    for cell in nb["cells"]:
+        if cell["cell_type"] == "code":
+            exec("".join(cell["source"]), scope)
+    assert type(scope["shape"]).__name__ == "ISection"

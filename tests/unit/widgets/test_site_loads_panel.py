@@ -7,6 +7,7 @@ non-slippery roof C_s = 1.0, Figure 7.4-1a) the balanced load is 0.7·p_g."""
 
 from __future__ import annotations
 
+import html
 import shutil
 from pathlib import Path
 
@@ -53,3 +54,25 @@ def test_site_loads_panel_refuses_at_the_field(site_file: Path) -> None:
     assert "-90" in panel.fields["wind.V"].error  # shown at the speed's own field
     assert [k for k, f in panel.fields.items() if f.error] == ["snow.terrain", "wind.V"]
     assert site_file.read_text(encoding="utf-8") == before
+
+
+def test_site_loads_errors_name_the_file_key(site_file: Path) -> None:
+    """A value the derivation refuses is reported as the inputs file's key, with the file."""
+    from calcpack.inputs.file import InputsFileError
+    from calcpack.inputs.site_loads import site_loads_inputs
+
+    data = load_inputs(site_file)
+    data["snow"]["terrain"] = "Z"
+    with pytest.raises(InputsFileError) as info:
+        site_loads_inputs(data, path=site_file)
+    assert info.value.name == "snow.terrain"
+    assert str(site_file) in str(info.value)
+    assert "[snow] terrain = 'Z'" in str(info.value)
+    # opening a file edited by hand into that state: the panel shows the key, keeps the file
+    text = site_file.read_text(encoding="utf-8").replace('terrain = "C"', 'terrain = "Z"')
+    assert 'terrain = "Z"' in text
+    site_file.write_text(text, encoding="utf-8")
+    panel = SiteLoadsPanel(site_file)
+    assert "[snow] terrain = 'Z'" in html.unescape(panel.status.value)
+    assert "[snow] terrain = 'Z'" in panel.fields["snow.terrain"].error
+    assert site_file.read_text(encoding="utf-8") == text

@@ -1,0 +1,168 @@
+"""One sheet as a document: an executed notebook converted to HTML with its math as SVG and its
+records read (:func:`prepare_sheet`), its page count laid out on its own
+(:func:`count_sheet_pages`), and a single sheet as a PDF with the package layout
+(:func:`single_sheet_pdf`).
+"""
+
+from __future__ import annotations
+
+import datetime as _dt
+import re
+from dataclasses import replace
+from pathlib import Path
+from typing import Any
+
+from calcpack.errors import BuildError
+from calcpack.package.document import DocumentOptions, SheetDoc, document_html
+from calcpack.package.execute import ExecutedSheet
+from calcpack.package.paginate import paginate, write_pdf
+from calcpack.package.project import Person, Project, Revision, SheetEntry
+from calcpack.package.records import collect_records
+
+__all__ = ["count_sheet_pages", "prepare_sheet", "sheet_title", "single_sheet_pdf"]
+
+
+def sheet_title(entry: SheetEntry, nb: Any) -> str:
+    """The sheet's title: the project file's, else the notebook's first heading, else its name."""
+    if entry.title:
+        return entry.title
+    for cell in nb.cells:
+        if cell.cell_type == "markdown":
+            m = re.search(r"^#\s+(.+)$", cell.source, re.MULTILINE)
+            if m:
+                return m.group(1).strip()
+    return Path(entry.path).stem.replace("_", " ")
+
+
+_JUPYTER_STYLE_RE = re.compile(r'<style class="cp-style">.*?</style>', re.DOTALL)
+"""The working module's style block for JupyterLab; the PDF uses the package stylesheet."""
+_FIRST_H1_RE = re.compile(r"<h1[^>]*>(.*?)</h1>", re.DOTALL)
+
+
+def _drop_title_heading(body: str, title: str) -> str:
+    """Drop the first level-1 heading if it repeats the sheet title (the sheet head shows it)."""
+    m = _FIRST_H1_RE.search(body)
+    if m is None:
+        return body
+
+    def norm(text: str) -> str:
+        return " ".join(re.sub(r"<[^>]+>", "", text).split()).casefold()
+
+    if norm(m.group(1)) == norm(title):
+        return body[: m.start()] + body[m.end() :]
+    return body
+
+
+def prepare_sheet(
+    entry: SheetEntry, executed: ExecutedSheet | Any, *, source: bool = False
+) -> SheetDoc:
+    """Convert one executed sheet to HTML with its math as SVG images, and read its records.
+
+    Raises:
+        BuildError: a formula cannot be typeset (the message names the sheet).
+    """
+    import nbformat
+
+    from calcpack.package.convert import sheet_fragment
+    from calcpack.package.mathsvg import math_spans_to_images
+
+    nb = (
+        nbformat.reads(executed.notebook_json, as_version=4)
+        if isinstance(executed, ExecutedSheet)
+        else executed
+    )
+    title = sheet_title(entry, nb)
+    try:
+        body = _drop_title_heading(_JUPYTER_STYLE_RE.sub("", sheet_fragment(nb)), title)
+        body = math_spans_to_images(body)
+    except BuildError as exc:
+        raise BuildError(f"Sheet {entry.path!r}: {exc}") from exc
+    cells = (
+        tuple(
+            (i, cell.source)
+            for i, cell in enumerate(nb.cells, start=1)
+            if cell.cell_type == "code" and cell.source.strip()
+        )
+        if source
+        else ()
+    )
+    return SheetDoc(entry, title, body, collect_records(nb), cells)
+
+
+def count_sheet_pages(
+    doc: SheetDoc, project: Project, options: DocumentOptions, created: _dt.datetime
+) -> int:
+    """The pages a sheet takes, laid out on its own.
+
+    A sheet starts on a new page and its title block does not depend on the other sheets, so
+    this is its page count in the package (the layout checks it all the same).
+    """
+    from calcpack.package.paginate import count_pages
+
+    html = document_html(
+        project, [doc], replace(options, sheets_only=True, sheet_pages={}), created=created
+    )
+    return count_pages(html, ["sheet-1"], base_url=str(project.root))["sheet-1"]
+
+
+def single_sheet_pdf(
+    nb: Any, *, name: str = "sheet", project: Project | None = None, path: str | None = None
+) -> bytes:
+    """One executed notebook as a paginated PDF with the package layout.
+
+    Job fields come from ``project`` (the project file found above the notebook) when given,
+    the sheet's number and title from its entry there (``path``: the notebook's path relative
+    to the project); otherwise from the notebook's ``metadata.calcpack`` when present.
+    """
+    meta = dict(nb.metadata.get("calcpack", {}) or {})
+    today = _dt.date.today()
+    if project is not None:
+        listed = [s for s in project.sheets if s.path == path]
+        entry = listed[0] if listed else SheetEntry("—", path or f"{name}.ipynb", None)
+        project = replace(project, sheets=(entry,))
+    else:
+        project = _project_from_metadata(meta, name, today)
+    return _sheet_pdf(project, nb, name, today)
+
+
+def _project_from_metadata(meta: dict[str, Any], name: str, today: _dt.date) -> Project:
+    return Project(
+        path=Path(name).resolve(),
+        job_number=str(meta.get("job_number", "—")),
+        job_title=str(meta.get("job_title", name)),
+        client=str(meta.get("client", "")),
+        site=str(meta.get("site", "")),
+        units=str(meta.get("units", "SI")),
+        paper=str(meta.get("paper", "A4")),
+        firm=str(meta.get("firm", "")),
+        firm_address="",
+        preparer=Person(str(meta.get("preparer", "—"))),
+        checker=Person(str(meta.get("checker", "—"))),
+        approver=Person(str(meta.get("approver", "—"))),
+        revisions=(Revision(str(meta.get("revision", "—")), today, "Single sheet"),),
+        sheets=(SheetEntry(str(meta.get("sheet_number", "1")), f"{name}.ipynb", None),),
+        design=_single_design(),
+    )
+
+
+def _sheet_pdf(project: Project, nb: Any, name: str, today: _dt.date) -> bytes:
+    from calcpack import __version__
+
+    doc = prepare_sheet(project.sheets[0], nb)
+    created = _dt.datetime(today.year, today.month, today.day, tzinfo=_dt.UTC)
+    options = DocumentOptions(paper=project.paper, calcpack_version=__version__, sheets_only=True)
+    layout = paginate(
+        lambda counts: document_html(
+            project, [doc], replace(options, sheet_pages=counts), created=created
+        ),
+        sheet_ids={doc.entry.path: "sheet-1"},
+        section_ids=["sheet-1"],
+        roles=(),
+    )
+    return write_pdf(layout, created=created, identifier_seed=name.encode())
+
+
+def _single_design() -> Any:
+    from calcpack.package.project import Design
+
+    return Design(standards=())

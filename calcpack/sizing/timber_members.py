@@ -1,0 +1,238 @@
+"""Timber sizing by search beyond sawn joists: glulam beams and wood posts.
+
+* :func:`lightest_glulam_beam`: the lightest glulam width × depth of a Table 5A stress class that
+  passes :func:`calcpack.checks.nds.glulam.check_nds_glulam_beam` (bending with the lesser of
+  C_L and C_V, shear) for every allowable-stress combination and every deflection limit (scaled
+  by E_x·I of each size, as for steel: a prismatic beam on rigid supports).
+* :func:`lightest_nds_post`: the lightest sawn post (Table 4A 4x sizes or Table 4D timbers) of a
+  species and grade that passes :func:`calcpack.check_nds_member` (compression with C_P, and
+  bending and the interaction when moments are given) for every combination's forces.
+
+Sizes offered by default (common practice, from memory): western-species glulam in the stock
+widths 3-1/8, 5-1/8 and 6-3/4 in, depths in 1-1/2 in laminations from 6 in to 36 in; posts
+4x4, 4x6, 4x8 (dimension lumber, Table 4A) or 6x6 to 10x10 (timbers, Table 4D, dressed 1/2 in
+under nominal).
+"""
+
+from __future__ import annotations
+
+from collections.abc import Mapping, Sequence
+from dataclasses import replace
+from typing import Any, Literal
+
+from calcpack.checks.base import MemberChecks
+from calcpack.checks.demand import as_combinations
+from calcpack.checks.elastic import check_deflection
+from calcpack.checks.nds.factors import DURATION_FACTORS, size_factor
+from calcpack.checks.nds.glulam import check_nds_glulam_beam
+from calcpack.checks.nds.members import TimberForces, TimberMember, check_nds_member
+from calcpack.checks.nds.values import nds_glulam_values, nds_sawn_values
+from calcpack.errors import InputError
+from calcpack.sizing.search import Candidate, Order, SizingResult, lightest_sections
+from calcpack.sizing.steel import DeflectionLimit, prismatic_stiffness
+from calcpack.sizing.timber import DEFAULT_DENSITY
+from calcpack.units import Q_, Quantity, require
+from calcpack.validate import one_of
+
+__all__ = [
+    "GLULAM_DEPTHS",
+    "GLULAM_WIDTHS",
+    "POST_SIZES_4A",
+    "POST_SIZES_4D",
+    "compression_size_factor",
+    "lightest_glulam_beam",
+    "lightest_nds_post",
+]
+
+#: stock western-species glulam widths [in] (common practice, from memory)
+GLULAM_WIDTHS: tuple[float, ...] = (3.125, 5.125, 6.75)
+#: depths in 1-1/2 in laminations [in], 6 in to 36 in (common practice, from memory)
+GLULAM_DEPTHS: tuple[float, ...] = tuple(1.5 * n for n in range(4, 25))
+POST_SIZES_4A: tuple[str, ...] = ("4x4", "4x6", "4x8")
+POST_SIZES_4D: tuple[str, ...] = ("6x6", "6x8", "8x8", "8x10", "10x10")
+
+# NDS Supplement 2018 Table 4A size factors C_F for F_c of Select Structural, No.1 & Btr, No.1,
+# No.2 and No.3 (from memory): nominal width -> C_F (2 to 4 in thick alike)
+_CF_FC = {2: 1.15, 3: 1.15, 4: 1.15, 5: 1.1, 6: 1.1, 8: 1.05, 10: 1.0, 12: 1.0}
+_CF_FC_WIDE = 0.9  # 14 in and wider
+
+
+def compression_size_factor(grade: str, nominal_width: int) -> float:
+    """C_F for F_c of visually graded dimension lumber (NDS Supplement 2018 Table 4A size
+    factors, Select Structural to No.3; from memory). The grade is checked by the F_b rule."""
+    size_factor(grade, 2, nominal_width)  # same grades and widths as the F_b rule, or refuse
+    return _CF_FC.get(nominal_width, _CF_FC_WIDE)
+
+
+def _nominal(name: str) -> tuple[int, int]:
+    try:
+        t_s, w_s = name.lower().replace("×", "x").split("x")
+        return int(t_s), int(w_s)
+    except ValueError as exc:
+        raise InputError(
+            f"Post size must read like '6x6' (got {name!r})",
+            name="sizes",
+            value=name,
+            expected="'<thickness>x<width>' in inches",
+        ) from exc
+
+
+def lightest_glulam_beam(
+    demand: Any,
+    *,
+    stress_class: str = "24F-1.8E",
+    widths: Sequence[float] = GLULAM_WIDTHS,
+    depths: Sequence[float] = GLULAM_DEPTHS,
+    lu: Quantity | None = None,
+    loading: Literal["uniform", "center point", "cantilever uniform", "any"] = "uniform",
+    L_beam: Quantity | None = None,
+    durations: Mapping[str, str] | None = None,
+    deflections: Sequence[DeflectionLimit] = (),
+    max_depth: Quantity | None = None,
+    density: Quantity = DEFAULT_DENSITY,
+    member: str = "GL1",
+    count: int = 5,
+    order: Order = "weight",
+) -> SizingResult:
+    """The lightest glulam sections of ``stress_class`` (NDS Supplement 2018 Table 5A) passing
+    :func:`check_nds_glulam_beam` for every ASD combination of ``demand`` and every deflection
+    limit (deflections scaled by the apparent E_x·I of each size).
+
+    Args:
+        widths, depths: sizes to try [in]; every width × depth with depth ≥ width is a candidate.
+        lu, loading: unsupported length of the compression edge and Table 3.3.3 load case for C_L
+            (None: braced). L_beam: length between zero moments for C_V (None: beam length).
+        durations: as for check_nds_glulam_beam. max_depth, count, order: as for
+            :func:`calcpack.sizing.lightest_sections`. density: for ranking by weight only.
+    """
+    require(density, "[force] / [length]**3", "density", positive=True)
+    values = nds_glulam_values(stress_class)
+    for nm, seq in (("widths", widths), ("depths", depths)):
+        if not seq or any(not float(x) > 0 for x in seq):
+            raise InputError(
+                f"Glulam {nm} must be positive sizes in inches (got {nm} = {list(seq)!r})",
+                name=nm,
+                value=list(seq),
+                expected="e.g. (3.125, 5.125, 6.75)",
+            )
+    combos = as_combinations(demand)
+    EI_ref = prismatic_stiffness(combos)
+    service = [(d, as_combinations(d.demand)) for d in deflections]
+    cands = []
+    for b_in in widths:
+        for d_in in depths:
+            if d_in < b_in:
+                continue
+            b, d = Q_(float(b_in), "inch"), Q_(float(d_in), "inch")
+            m = TimberMember(values, b, d, lu=lu, loading=loading, L_beam=L_beam)
+            name = f"{b_in:g} x {d_in:g} in {stress_class}"
+            cands.append(Candidate(name, (b * d * density).to("lbf/ft"), m, d))
+
+    def trial(m: TimberMember) -> list[MemberChecks]:
+        out = [check_nds_glulam_beam(m, demand=demand, durations=durations, mark=member)]
+        factor = float((EI_ref / (values.E * m.b * m.d**3 / 12)).to("").magnitude)
+        for dl, res in service:
+            out.append(
+                check_deflection(
+                    member=member,
+                    demand={n: r.scaled(factor) for n, r in res.items()},
+                    span=dl.span,
+                    limit=dl.limit,
+                    label=dl.label,
+                    ref=dl.ref,
+                )
+            )
+        return out
+
+    return lightest_sections(cands, trial, count=count, order=order, max_depth=max_depth)
+
+
+def lightest_nds_post(
+    forces: Sequence[TimberForces],
+    *,
+    species: str,
+    grade: str,
+    le: Quantity,
+    le_b: Quantity | None = None,
+    table: Literal["4A", "4D"] = "4A",
+    sizes: Sequence[str] | None = None,
+    durations: Mapping[str, str] | str = "ten years",
+    density: Quantity = DEFAULT_DENSITY,
+    member: str = "P1",
+    count: int = 5,
+) -> SizingResult:
+    """The lightest sawn posts passing :func:`calcpack.check_nds_member` (NDS 2018 ASD: F'_c
+    with C_P, §3.7; bending and §3.9 interaction where moments are given) for every force set.
+
+    Args:
+        forces: one :class:`TimberForces` per ASD combination (P positive in compression; M_d
+            about the strong axis), each named by its ``combination``.
+        species, grade: NDS Supplement 2018 Table 4A (e.g. "No.2") or, with ``table="4D"``,
+            Table 4D timbers (e.g. "P&T No.1").
+        le: effective length K_e·ℓ for buckling across both sides; ``le_b`` a shorter one across
+            the narrow side where it is braced (None: ``le``).
+        sizes: nominal sizes (default POST_SIZES_4A or POST_SIZES_4D by table).
+        durations: the Table 2.3.2 duration of every combination, or a mapping of combination
+            name -> duration (C_D of the shortest-duration load in it, §2.3.2).
+    """
+    one_of("table", table, ("4A", "4D"))
+    require(le, "[length]", "le", positive=True)
+    if le_b is not None:
+        require(le_b, "[length]", "le_b", positive=True)
+    if not forces:
+        raise InputError(
+            "forces is empty: give one TimberForces per ASD combination",
+            name="forces",
+            value=list(forces),
+            expected="a non-empty sequence of TimberForces",
+        )
+    durs: dict[str, str] = {}
+    for i, f in enumerate(forces):
+        key = f.combination or f"forces[{i}]"
+        if isinstance(durations, str):
+            durs[key] = durations
+        elif key in durations:
+            durs[key] = durations[key]
+        else:
+            raise InputError(
+                f"Combination {key!r} has no load duration: give durations[{key!r}] = one of "
+                f"{list(DURATION_FACTORS)} (NDS 2018 Table 2.3.2)",
+                name="durations",
+                value=dict(durations),
+                expected=f"a duration for {key!r}",
+            )
+        one_of(f"durations[{key!r}]", durs[key], list(DURATION_FACTORS))
+    values = nds_sawn_values(species, grade, table=table)
+    src = "NDS Supplement 2018 Table 4A size factors (from memory)"
+    cands = []
+    for name in sizes or (POST_SIZES_4A if table == "4A" else POST_SIZES_4D):
+        t, w = _nominal(name)
+        if table == "4A":
+            b, d = Q_(t - 0.5, "inch"), Q_(w - (0.5 if w <= 6 else 0.75), "inch")
+            CF_b, CF_c, CF_t = size_factor(grade, t, w), compression_size_factor(grade, w), 1.0
+            cf_src = src
+        else:
+            if t < 5:
+                raise InputError(
+                    f"Size {name!r} is not a timber (5 in and thicker) of Table 4D",
+                    name="sizes",
+                    value=name,
+                    expected="e.g. '6x6', '8x8'",
+                )
+            b, d = Q_(t - 0.5, "inch"), Q_(w - 0.5, "inch")
+            d_in = float(d.to("inch").magnitude)
+            CF_b = (12 / d_in) ** (1 / 9) if d_in > 12 else 1.0
+            CF_c = CF_t = 1.0
+            cf_src = "NDS 2018 §4.3.6.2: C_F = (12/d)^(1/9) for F_b when d > 12 in"
+        m = TimberMember(values, b, d, le_d=le, le_b=le_b or le, CF_b=CF_b, CF_c=CF_c,
+                         CF_t=CF_t, CF_source=cf_src)  # fmt: skip
+        cands.append(Candidate(name, (b * d * density).to("lbf/ft"), m, d))
+
+    def trial(m: TimberMember) -> list[MemberChecks]:
+        out = []
+        for i, f in enumerate(forces):
+            key = f.combination or f"forces[{i}]"
+            out.append(check_nds_member(replace(m, duration=durs[key]), f, mark=member))
+        return out
+
+    return lightest_sections(cands, trial, count=count)
