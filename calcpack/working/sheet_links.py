@@ -8,6 +8,7 @@ the sheet's ``add``, ``settings``, ``_names`` and ``_exports``.
 from __future__ import annotations
 
 import os
+import re
 import warnings
 from pathlib import Path
 from typing import TYPE_CHECKING, Any
@@ -22,6 +23,11 @@ if TYPE_CHECKING:
     pass
 
 __all__ = ["SheetLinks"]
+
+
+def _case_tag(case: str) -> str:
+    """A load case's name as part of a symbol: "S unbalanced from L" -> "S_unbalanced_from_L"."""
+    return re.sub(r"[^A-Za-z0-9]+", "_", case).strip("_") or "case"
 
 
 class SheetLinks:
@@ -206,7 +212,9 @@ class SheetLinks:
             )
         base = as_name or name
         return {
-            c: self.import_value(sheet, name, dimension=dimension, case=c, as_name=f"{base}_{c}")
+            c: self.import_value(
+                sheet, name, dimension=dimension, case=c, as_name=f"{base}_{_case_tag(c)}"
+            )
             for c in cases
         }
 
@@ -267,8 +275,6 @@ class SheetLinks:
             InputError: no such sheet, or it exports nothing by case under ``name``.
             DimensionError: a value not of ``dimension``.
         """
-        import re
-
         from calcpack.errors import DimensionError, InputError
         from calcpack.units import require
         from calcpack.working.linked import ImportedTable
@@ -293,8 +299,7 @@ class SheetLinks:
         out: dict[str, dict[str, pint.Quantity]] = {}
         for e in found:
             row, case = e["name"][len(prefix) :], str(e["case"])
-            tag = re.sub(r"[^A-Za-z0-9]+", "_", case).strip("_") or "case"
-            st = Imported(f"{e['name']}_{tag}", e, ref, settings=self.settings)
+            st = Imported(f"{e['name']}_{_case_tag(case)}", e, ref, settings=self.settings)
             if dimension is not None:
                 try:
                     require(st.quantity, dimension, st.name)
