@@ -334,6 +334,10 @@ class SheetLinks:
         from calcpack.loads.takedown import reactions_by_case
 
         by_case = reactions_by_case(results, support)
+        # in the sheet's units (lbf or kip on a US sheet), not the solver's SI
+        unit = self.settings.unit_for(next(iter(by_case.values()))) if by_case else None
+        if unit is not None:
+            by_case = {c: q.to(unit) for c, q in by_case.items()}
         on = f" on {member}" if member else ""
         entries = [
             export_entry(
