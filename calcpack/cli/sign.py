@@ -80,6 +80,8 @@ def _sign(args: argparse.Namespace) -> int:
     extra = " with an RFC 3161 timestamp" if result.timestamped else ""
     print(f"Signed as {result.role} by {result.signer}{extra}: {result.output}")
     print(result.revocation)
+    if result.identity_override is not None:
+        print(f"The identity override is recorded in {result.identity_override}")
     if result.overridden:
         print(
             f"Review comments {', '.join(result.overridden)} were not closed; "

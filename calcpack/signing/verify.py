@@ -31,6 +31,7 @@ from calcpack.signing.keys import (
 )
 from calcpack.signing.longterm import DocumentTimestamp, Moment, StoredData, document_timestamps
 from calcpack.signing.manifest import read_embedded_manifest, role_of_field, signature_boxes
+from calcpack.signing.trust_words import outside_validity, trust_words
 
 __all__ = [
     "FileCheck",
@@ -42,19 +43,6 @@ __all__ = [
 
 #: A function that re-executes a project's notebooks and returns a fresh manifest (dict).
 Reproducer = Callable[[Path], dict[str, Any]]
-
-_TRUST_WORDS = {
-    "NO_CERTIFICATE_CHAIN_FOUND": "untrusted: no chain to a trusted root",
-    "EXPIRED": "expired certificate",
-    "OUT_OF_BOUNDS_NO_POE": "expired certificate (outside its validity, no proof of time)",
-    "OUT_OF_BOUNDS_NOT_REVOKED": "expired certificate (outside its validity)",
-    "NOT_YET_VALID": "certificate not yet valid",
-    "REVOKED": "revoked certificate",
-    "REVOKED_NO_POE": "revoked certificate",
-    "REVOKED_CA_NO_POE": "issuer certificate revoked",
-    "CHAIN_CONSTRAINTS_FAILURE": "certificate chain constraints not met (e.g. key usage)",
-    "CERTIFICATE_CHAIN_GENERAL_FAILURE": "certificate chain could not be validated",
-}
 
 
 @dataclass(frozen=True)
@@ -176,6 +164,8 @@ class VerifyReport:
     reproduction: tuple[str, ...] | None = field(default=None)
     timestamps: tuple[DocumentTimestamp, ...] = ()
     """The package's document timestamps (PAdES B-LTA), oldest first."""
+    overrides: tuple[str, ...] = ()
+    """Overrides recorded in the project's review.toml (with ``project``), one line each."""
 
     @property
     def ok(self) -> bool:
@@ -214,6 +204,7 @@ class VerifyReport:
                 lines += [f"    {d}" for d in self.reproduction]
             else:
                 lines.append("Reproduction: every recorded result follows from the inputs")
+        lines += [f"Recorded in review.toml: {o}" for o in self.overrides]
         lines += [f"PROBLEM: {p}" for p in self.problems]
         lines.append("Verification " + ("PASSED" if self.ok else "FAILED"))
         return "\n".join(lines)
@@ -306,30 +297,6 @@ def _describe_changes(status: Any, later_roles: list[str]) -> tuple[bool, str, b
     return False, words, allowed
 
 
-def _trust_words(status: Any, trusted: bool) -> str:
-    if trusted:
-        path = status.validation_path
-        root = certificate_name(path[0]) if path is not None else "?"
-        return f"trusted (root: {root})"
-    indic = status.trust_problem_indic
-    name = getattr(indic, "name", None)
-    if name in _TRUST_WORDS:
-        details = getattr(status, "revocation_details", None)
-        since = f" (revoked {details.revocation_date:%Y-%m-%d %H:%M} UTC)" if details else ""
-        return _TRUST_WORDS[name] + since
-    return f"untrusted ({name.lower().replace('_', ' ') if name else 'no trust path'})"
-
-
-def _outside_validity(cert: Any, moment: dt.datetime) -> str | None:
-    validity = cert["tbs_certificate"]["validity"]
-    start, end = validity["not_before"].native, validity["not_after"].native
-    if moment > end:
-        return f"expired certificate (valid until {end:%Y-%m-%d %H:%M} UTC)"
-    if moment < start:
-        return f"certificate not yet valid (valid from {start:%Y-%m-%d %H:%M} UTC)"
-    return None
-
-
 def _signature_report(
     sig: Any,
     roots: list[Any],
@@ -395,10 +362,10 @@ def _signature_report(
     timestamp = ts.timestamp if ts is not None else None
     ts_ok = ts is None or bool(ts.valid and ts.intact and ts.trusted)
     trusted = bool(status.trusted) and ts_ok
-    trust = _trust_words(status, bool(status.trusted))
+    trust = trust_words(status, bool(status.trusted))
     # A self-signed certificate given as its own trust root is a path of one trust anchor,
     # which the path validator does not date-check; so check the signer's validity here.
-    outside = _outside_validity(sig.signer_cert, moment)
+    outside = outside_validity(sig.signer_cert, moment)
     if outside and trusted:
         trusted, trust = False, outside
     if not trusted and clock.unproved(basis) and "expired" in trust:
@@ -588,4 +555,13 @@ def verify_package(
         files=files,
         reproduction=reproduction,
         timestamps=stamps,
+        overrides=_recorded_overrides(project),
     )
+
+
+def _recorded_overrides(project: str | os.PathLike[str] | None) -> tuple[str, ...]:
+    from calcpack.signing.review import load_review, review_path
+
+    if project is None or not review_path(project).is_file():
+        return ()
+    return tuple(o.text() for o in load_review(project).overrides)

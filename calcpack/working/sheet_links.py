@@ -273,6 +273,7 @@ class SheetLinks:
         member: str,
         not_applicable: dict[str, str] | None = None,
         met_by: dict[str, str] | None = None,
+        not_covered: dict[str, str] | None = None,
     ) -> Any:
         """Declare a member's type, so the package lists every item of its checklist as met
         by a check, not applicable, or NOT COVERED (see :mod:`calcpack.checks.checklists`).
@@ -283,6 +284,8 @@ class SheetLinks:
             member: the member's mark, as its checks name it (``"B1"``).
             not_applicable: item -> why it does not apply (words, shown in the package).
             met_by: item -> the member or check elsewhere that meets it (``"P1"``).
+            not_covered: item -> why the package leaves it unchecked (it stays NOT COVERED,
+                counted on the cover, with this reason beside it).
 
         The checklist is the project's own ``member_checklists.csv`` when the project folder
         holds one, else calcpack's (common practice). Call it after the sheet's checks to see
@@ -300,6 +303,7 @@ class SheetLinks:
             member=member,
             not_applicable=not_applicable,
             met_by=met_by,
+            not_covered=not_covered,
             project_root=_find_root(Path.cwd().resolve()),
         )
         checks = [c for c in self.records().get("checks", []) if isinstance(c, dict)]

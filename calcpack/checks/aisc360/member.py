@@ -190,7 +190,8 @@ def check_aisc_member(
     if s.type == "L" and axial and bending:
         raise OutOfScopeError(
             f"Single angle {s.designation} with axial force and flexure: AISC 360-16 §H2 "
-            "(stresses about the principal axes) is not implemented"
+            "applies (stresses about the principal axes); check it with check_aisc_h2, giving "
+            "the available strengths about the principal axes"
         )
     if not (axial or bending or _nonzero(forces.Vx) or _nonzero(forces.Vy)):
         from calcpack.errors import InputError

@@ -5,6 +5,7 @@ conditions."""
 from __future__ import annotations
 
 from dataclasses import dataclass
+from typing import Literal
 
 from calcpack.checks.scope import material_in_scope
 from calcpack.errors import InputError, OutOfScopeError
@@ -185,6 +186,9 @@ class ReferenceDesignValues:
             size factor (``"No.2"``...). source: where the values are from (required).
         Fb: bending. Fv: shear parallel to grain. E: modulus of elasticity. Emin: for beam
             and column stability.
+        size_rule: how C_F is found when not given: "Table 4A" (size factors by grade and
+            size) or "Table 4B" (Southern Pine: the size effect is in the tabulated values,
+            :func:`calcpack.checks.nds.values.southern_pine_size_factor`).
     """
 
     species_grade: str
@@ -194,6 +198,7 @@ class ReferenceDesignValues:
     Fv: Quantity
     E: Quantity
     Emin: Quantity
+    size_rule: Literal["Table 4A", "Table 4B"] = "Table 4A"
 
     def __post_init__(self) -> None:
         non_empty(
@@ -212,6 +217,7 @@ class ReferenceDesignValues:
             require(v, "[pressure]", nm, positive=True)
         material_in_scope("NDS 2018|wood|E", "E", self.E)
         material_in_scope("NDS 2018|wood|Emin", "Emin", self.Emin)
+        one_of("size_rule", self.size_rule, ("Table 4A", "Table 4B"))
 
 
 @dataclass(frozen=True)
