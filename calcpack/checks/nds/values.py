@@ -20,6 +20,7 @@ from dataclasses import dataclass
 from typing import Literal
 
 from calcpack.checks.scope import material_in_scope
+from calcpack.errors import InputError
 from calcpack.refdata import read_table
 from calcpack.units import Q_, Quantity, require
 from calcpack.validate import non_empty, one_of
