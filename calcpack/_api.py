@@ -47,6 +47,12 @@ from calcpack.analysis.truss_model import (
     Support as Support,
     Truss as Truss,
 )
+from calcpack.analysis.truss_envelope import (
+    MemberEnvelope as MemberEnvelope,
+)
+from calcpack.analysis.truss_envelope import (
+    member_envelopes as member_envelopes,
+)
 from calcpack.analysis.truss_solve import (
     TrussResult as TrussResult,
     solve_truss as solve_truss,

@@ -80,6 +80,8 @@ PUBLIC: dict[str, str] = {
     "solve_truss": "calcpack.analysis.truss_solve",
     "solve_truss_cases": "calcpack.analysis.truss_solve",
     "TrussResult": "calcpack.analysis.truss_solve",
+    "member_envelopes": "calcpack.analysis.truss_envelope",
+    "MemberEnvelope": "calcpack.analysis.truss_envelope",
     "FreeBody": "calcpack.analysis.freebody",
     "PointForce": "calcpack.analysis.freebody",
     "Couple": "calcpack.analysis.freebody",

@@ -240,6 +240,21 @@ def check_elastic_beam(
     return run_checks(member, f"{member}: elastic stress checks", ELASTIC, logic)
 
 
+def _truss_deflection(name: str, result: Any) -> tuple[Quantity, str]:
+    """The largest vertical joint displacement of a truss result, and where it is."""
+    if result.displacements is None:
+        raise InputError(
+            f"Truss result {name!r} has no joint displacements: give each member's EA when "
+            "building the truss",
+            name="EA",
+            value=None,
+            expected="an axial stiffness on every member",
+        )
+    joint, (_, uy) = max(result.displacements.items(), key=lambda kv: abs(kv[1][1]))
+    finite(f"deflection of {name!r} at {joint}", uy)
+    return abs(uy), f"{name}, joint {joint}"
+
+
 def check_deflection(
     *,
     member: str,
@@ -253,7 +268,9 @@ def check_deflection(
 
     Args:
         member: member mark. demand: serviceability results (combined results, a mapping, or
-            one result such as the live-load case alone) with deflection (EI given).
+            one result such as the live-load case alone) with deflection (EI given) -- of a
+            beam, or of a truss (EA given: the largest vertical joint displacement, by the
+            stiffness method, is the deflection).
         span: the span the limit refers to (for a cantilever, twice its length is the usual
             convention -- give it explicitly). limit: the ratio (360 for span/360).
         label: what deflects ("live", "total"). ref: the limit's source.
@@ -266,6 +283,11 @@ def check_deflection(
     combos = as_combinations(demand)
     best: tuple[Quantity, str] | None = None
     for name, r in combos.items():
+        if hasattr(r, "displacements") and not hasattr(r, "extremes"):
+            cand = _truss_deflection(name, r)
+            if best is None or cand[0] > best[0]:
+                best = cand
+            continue
         if not getattr(r, "has_deflection", True):
             raise InputError(
                 f"Result {name!r} has no deflection: give EI when building the beam",
