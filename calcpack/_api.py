@@ -302,6 +302,9 @@ from calcpack.package import (
     new_project as new_project,
     read_manifest as read_manifest,
 )
+from calcpack.package.reproduce import (
+    verify_package as verify_package,
+)
 from calcpack.plots.footing import (
     FootingSketch as FootingSketch,
     footing_figure as footing_figure,
@@ -349,7 +352,6 @@ from calcpack.signing import (
     diff_packages as diff_packages,
     make_demo_credentials as make_demo_credentials,
     sign_package as sign_package,
-    verify_package as verify_package,
 )
 from calcpack.sizing import (
     Candidate as Candidate,
