@@ -43,6 +43,8 @@ def beam_working(outcome: BeamOutcome, sheet: Any, *, source: str = "inputs file
         sheet: the sheet the steps are added to (each is displayed in a kernel).
         source: where the inputs came from, shown beside each given value.
     """
+    from calcpack.working import Min, Value
+
     inp = outcome.inputs
     s = sheet
     s.heading(f"Beam {inp.name}: inputs")
@@ -79,18 +81,15 @@ def beam_working(outcome: BeamOutcome, sheet: Any, *, source: str = "inputs file
     f_b = s.given("f_b", inp.f_b, "design bending strength", source=source)
 
     s.heading("Section")
-    s.add(outcome.properties.working())
-    I = s.given(
-        "I_x",
-        outcome.properties.Ix.to("mm**4"),
-        "second moment of area",
-        source="section working above",
-    )
-    S = s.given(
+    # The properties the checks below read (A, I_x, S_x), in proportion to the section.
+    block = s.add(outcome.properties.working())
+    found = {step.name: step for step in block.steps if isinstance(step, Value)}
+    I = found["I_x"]
+    S = found.get("S_x") or s.derive(
         "S_x",
-        outcome.properties.Sx.to("mm**3"),
-        "elastic section modulus (smaller)",
-        source="section working above",
+        Min(found["S_x_top"], found["S_x_bot"]),
+        "elastic section modulus, the smaller",
+        unit="mm**3",
     )
     s.derive("EI", E * I, "flexural stiffness", unit="kN*m**2")
 

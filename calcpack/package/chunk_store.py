@@ -90,4 +90,4 @@ class ChunkStore:
                 path.unlink(missing_ok=True)
 
 
-_LAYOUT_FORMAT = "calcpack-chunk/2"  # 2: sealed entries (calcpack.package.cache)
+_LAYOUT_FORMAT = "calcpack-chunk/3"  # 2: sealed entries (calcpack.package.cache); 3: tagged

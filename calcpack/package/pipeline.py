@@ -144,7 +144,7 @@ def _load_review(project: Project) -> tuple[tuple[ReviewRow, ...] | None, Path |
                 status="OVERRIDE",
                 by=o.who,
                 date=o.when[:10],
-                text=f"Signed with {', '.join(o.comments)} not closed: {o.reason}",
+                text=o.describe(),
             )
         )
     return tuple(rows), path
@@ -156,7 +156,8 @@ def _safe_name(text: str) -> str:
 
 def _atomic_write(path: Path, data: bytes) -> Path:
     """Write to a temporary file in the same folder; the caller moves it into place."""
-    handle, tmp = tempfile.mkstemp(dir=path.parent, prefix=f".{path.name}.", suffix=".tmp")
+    prefix = publish.output_temp_prefix(path)
+    handle, tmp = tempfile.mkstemp(dir=path.parent, prefix=prefix, suffix=".tmp")
     with os.fdopen(handle, "wb") as out:
         out.write(data)
         out.flush()
@@ -235,6 +236,8 @@ def plan_build(
     manifest_path = out / f"{stem}.manifest.json"
     keys = [sheet_cache_key(project, s) for s in project.sheets]
     code_hash = freshness.package_code_hash()
+    # temporaries of a build stopped between writing and moving its output (said as warnings)
+    stale = publish.clean_stale_outputs(out)
     return BuildContext(
         project=project,
         options=options,
@@ -250,7 +253,7 @@ def plan_build(
         timeout=timeout,
         use_cache=use_cache,
         supersede_signed=supersede_signed,
-        warnings=publish.placeholder_warnings(project),
+        warnings=publish.placeholder_warnings(project) + stale,
         report=report,
     )
 

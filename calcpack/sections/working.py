@@ -8,6 +8,7 @@ then the radii of gyration, elastic and plastic moduli.
 
 from __future__ import annotations
 
+from collections.abc import Sequence
 from typing import TYPE_CHECKING, Any
 
 from calcpack.units import Q_, Quantity
@@ -17,7 +18,14 @@ if TYPE_CHECKING:
     from calcpack.sections.properties import SectionProperties
     from calcpack.working import Block
 
-__all__ = ["radius_working", "region_working", "section_working"]
+__all__ = [
+    "DEFAULT_SHOW",
+    "PROPERTIES",
+    "radius_working",
+    "region_working",
+    "resolve_show",
+    "section_working",
+]
 
 _UNITS = {"SI": ("mm", "mm²", "mm³", "mm⁴"), "US": ("in", "in²", "in³", "in⁴")}
 _PINT = {"SI": ("mm", "mm**2", "mm**3", "mm**4"), "US": ("inch", "inch**2", "inch**3", "inch**4")}
@@ -46,29 +54,31 @@ def _num(value_si: float, power: int, system: str) -> Quantity:
     return Q_(value_si, f"m**{power}" if power > 1 else "m").to(_PINT[system][power - 1])
 
 
-def section_working(
-    props: SectionProperties,
-    *,
-    system: str | None = None,
-    axes: str = "both",
-    title: str | None = None,
-    sheet: Any = None,
-) -> Block:
-    """The parts table and the property working of a section.
+PROPERTIES = (
+    "A", "I_x", "S_x", "r_x", "Z_x", "I_y", "S_y", "r_y", "Z_y", "principal", "J", "C_w",
+)  # fmt: skip
+"""The properties a section's working can show (``show=``), in the order shown."""
 
-    Args:
-        props: the section's properties.
-        system: "SI" (mm) or "US" (in); default the global display setting.
-        axes: "x" for the table about the x axis only, "both" to add the y-axis table.
-        title: the block title (default: "Section properties: <name>").
-        sheet: a :class:`calcpack.working.Sheet`: its unit system and figures are used (unless
-            ``system`` is given) and the block is added to it.
+DEFAULT_SHOW = ("A", "I_x", "S_x")
+"""What a bending check reads: the working shows these unless asked for more."""
 
-    Returns:
-        a :class:`calcpack.working.Block` to ``sheet.add(...)`` or display.
+_NEEDS = {
+    "S_x": {"I_x"},
+    "r_x": {"I_x", "A"},
+    "S_y": {"I_y"},
+    "r_y": {"I_y", "A"},
+    "principal": {"I_x", "I_y"},
+}
+_Y_AXIS = {"I_y", "S_y", "r_y", "Z_y", "principal"}
+
+
+def resolve_show(show: str | Sequence[str] | None, axes: str = "both") -> frozenset[str]:
+    """The set of property keys to show: ``None`` the default, ``"all"`` every one.
+
+    Raises:
+        InputError: an unknown key, naming it and the valid ones.
     """
     from calcpack.errors import InputError
-    from calcpack.working import Block, Derived, Table, Text, sqrt
 
     if axes not in ("x", "both"):
         raise InputError(
@@ -77,13 +87,74 @@ def section_working(
             value=axes,
             expected="'x' or 'both'",
         )
+    if show is None:
+        keys = set(DEFAULT_SHOW)
+    elif show == "all":
+        keys = set(PROPERTIES)
+    else:
+        keys = {show} if isinstance(show, str) else set(show)
+        unknown = sorted(keys - set(PROPERTIES))
+        if unknown:
+            raise InputError(
+                name="show",
+                value=unknown[0],
+                expected=f"'all' or some of {', '.join(PROPERTIES)}",
+            )
+    if axes == "x":
+        keys -= _Y_AXIS
+    for key in list(keys):
+        keys |= _NEEDS.get(key, set())
+    return frozenset(keys)
+
+
+def section_working(
+    props: SectionProperties,
+    *,
+    show: str | Sequence[str] | None = None,
+    system: str | None = None,
+    axes: str = "both",
+    title: str | None = None,
+    sheet: Any = None,
+) -> Block:
+    """The working of a section's properties, in proportion to the section.
+
+    One plain shape (rectangle, circle, tube) shows each property in one line from its closed
+    form (A = b·d, I = b·d³/12, S = b·d²/6); a section of several parts shows the parts table,
+    the centroid and the parallel-axis theorem.
+
+    Args:
+        props: the section's properties.
+        show: the properties to show (see :data:`PROPERTIES`): by default those a bending
+            check reads, :data:`DEFAULT_SHOW`; ``"all"`` for every one (a section sheet).
+            What a shown property needs (I_x for S_x) is shown with it.
+        system: "SI" (mm) or "US" (in); default the global display setting.
+        axes: "x" leaves out every y-axis property, "both" keeps those asked for.
+        title: the block title (default: "Section properties: <name>").
+        sheet: a :class:`calcpack.working.Sheet`: its unit system and figures are used (unless
+            ``system`` is given) and the block is added to it.
+
+    Returns:
+        a :class:`calcpack.working.Block` to ``sheet.add(...)`` or display.
+
+    Raises:
+        InputError: an unknown property in ``show`` or axes other than "x" and "both".
+    """
+    from calcpack.sections.working_closed import closed_form_steps, has_closed_form
+    from calcpack.working import Block, Derived, Table, Text, sqrt
+
+    keys = resolve_show(show, axes)
     sysname = _system(system, sheet)
+    name = props.section.name
+    block_title = title or f"Section properties: {name}"
+    if has_closed_form(props):
+        steps_closed = closed_form_steps(props, keys, _PINT[sysname])
+        return _finish(Block(steps=steps_closed, title=block_title), sheet)
     L, L2, L3, L4 = _UNITS[sysname]
     u1, u2, u3, u4 = _PINT[sysname]
     rows = props.rows
     transformed = any(abs(abs(r.weight) - 1.0) > 1e-12 for r in rows)
     steps: list[Any] = []
-    name = props.section.name
+    single = len(rows) == 1
     if transformed:
         steps.append(
             Text(
@@ -146,131 +217,190 @@ def section_working(
         return _num(v, p, sysname)
 
     sum_A = sum(r.A for r in rows)
-    steps.append(table("x"))
-    A = Derived("A", q(sum_A, 2), "area, Σ Aᵢ", ref="parts table", unit=u2)
-    S_Ay = Derived(
-        "Sigma_Ay", q(sum(r.A * r.y for r in rows), 3), "Σ Aᵢȳᵢ", ref="parts table", unit=u3,
-        latex=r"\Sigma A_i \bar{y}_i",
-    )  # fmt: skip
-    y_bar = Derived(
-        "y_bar", S_Ay / A, "height of the centroid", unit=u1, latex=r"\bar{y}",
-        ref="first moment of area",
-    )  # fmt: skip
-    S_Ix = Derived(
-        "Sigma_Ix", q(sum(r.Ix for r in rows), 4), "Σ Īₓᵢ, own second moments", unit=u4,
-        ref="parts table", latex=r"\Sigma \bar{I}_{x,i}",
-    )  # fmt: skip
-    S_Ady2 = Derived(
-        "Sigma_Ady2", q(sum(r.A * r.dy**2 for r in rows), 4), "Σ Aᵢdᵢ²", unit=u4,
-        ref="parts table", latex=r"\Sigma A_i d_{i}^2",
-    )  # fmt: skip
-    I_x = Derived(
-        "I_x", S_Ix + S_Ady2, "second moment about the centroidal x axis", unit=u4,
-        ref="parallel-axis theorem",
-    )  # fmt: skip
-    steps += [A, S_Ay, y_bar, S_Ix, S_Ady2, I_x]
-
-    I_y: Any = None
-    if axes == "both":
-        steps.append(table("y"))
-        S_Ax = Derived(
-            "Sigma_Ax", q(sum(r.A * r.x for r in rows), 3), "Σ Aᵢx̄ᵢ", ref="parts table", unit=u3,
-            latex=r"\Sigma A_i \bar{x}_i",
+    want_x = bool(keys & {"I_x", "S_x", "r_x", "principal"})
+    want_y = bool(keys & {"I_y", "S_y", "r_y", "principal"})
+    if single:
+        # One part: no table of one row; its own properties, from the shape.
+        A = Derived("A", q(sum_A, 2), "area", ref=name, unit=u2)
+        steps.append(A)
+        I_x = Derived("I_x", q(rows[0].Ix, 4), "second moment about x", ref=name, unit=u4)
+        I_y = Derived("I_y", q(rows[0].Iy, 4), "second moment about y", ref=name, unit=u4)
+        y_bar = Derived("y_bar", props.y_bar, "height of the centroid", unit=u1,
+                        latex=r"\bar{y}", ref=name)  # fmt: skip
+        x_bar = Derived("x_bar", props.x_bar, "position of the centroid", unit=u1,
+                        latex=r"\bar{x}", ref=name)  # fmt: skip
+        if want_x or keys & {"Z_x"}:
+            steps.append(y_bar)
+        if want_x:
+            steps.append(I_x)
+        if want_y or keys & {"Z_y"}:
+            steps.append(x_bar)
+        if want_y:
+            steps.append(I_y)
+    else:
+        steps.append(table("x"))
+        A = Derived("A", q(sum_A, 2), "area, Σ Aᵢ", ref="parts table", unit=u2)
+        S_Ay = Derived(
+            "Sigma_Ay", q(sum(r.A * r.y for r in rows), 3), "Σ Aᵢȳᵢ", ref="parts table",
+            unit=u3, latex=r"\Sigma A_i \bar{y}_i",
         )  # fmt: skip
-        x_bar = Derived(
-            "x_bar", S_Ax / A, "position of the centroid", unit=u1, latex=r"\bar{x}",
+        y_bar = Derived(
+            "y_bar", S_Ay / A, "height of the centroid", unit=u1, latex=r"\bar{y}",
             ref="first moment of area",
         )  # fmt: skip
-        S_Iy = Derived(
-            "Sigma_Iy", q(sum(r.Iy for r in rows), 4), "Σ Īᵧᵢ", unit=u4, ref="parts table",
-            latex=r"\Sigma \bar{I}_{y,i}",
-        )  # fmt: skip
-        S_Adx2 = Derived(
-            "Sigma_Adx2", q(sum(r.A * r.dx**2 for r in rows), 4), "Σ Aᵢdᵢ² (x distances)",
-            unit=u4, ref="parts table", latex=r"\Sigma A_i d_{x,i}^2",
-        )  # fmt: skip
-        I_y = Derived(
-            "I_y", S_Iy + S_Adx2, "second moment about the centroidal y axis", unit=u4,
-            ref="parallel-axis theorem",
-        )  # fmt: skip
-        steps += [S_Ax, x_bar, S_Iy, S_Adx2, I_y]
-        ixy = sum(r.Ixy + r.A * r.dx * r.dy for r in rows)
-        scale = max(abs(si_of(props.Ix)), abs(si_of(props.Iy)))
-        if abs(ixy) > 1e-9 * scale:
-            I_xy = Derived(
-                "I_xy", q(ixy, 4), "product of area Σ(Īₓᵧᵢ + Aᵢ dₓᵢ dᵧᵢ)", unit=u4,
+        steps += [A, S_Ay, y_bar]
+        if want_x:
+            S_Ix = Derived(
+                "Sigma_Ix", q(sum(r.Ix for r in rows), 4), "Σ Īₓᵢ, own second moments",
+                unit=u4, ref="parts table", latex=r"\Sigma \bar{I}_{x,i}",
+            )  # fmt: skip
+            S_Ady2 = Derived(
+                "Sigma_Ady2", q(sum(r.A * r.dy**2 for r in rows), 4), "Σ Aᵢdᵢ²", unit=u4,
+                ref="parts table", latex=r"\Sigma A_i d_{i}^2",
+            )  # fmt: skip
+            I_x = Derived(
+                "I_x", S_Ix + S_Ady2, "second moment about the centroidal x axis", unit=u4,
                 ref="parallel-axis theorem",
             )  # fmt: skip
-            steps.append(I_xy)
-            R = Derived(
-                "R_Mohr", sqrt(((I_x - I_y) / 2) ** 2 + I_xy**2), "radius of Mohr's circle",
-                unit=u4, latex=r"R",
+            steps += [S_Ix, S_Ady2, I_x]
+        if want_y or keys & {"Z_y"}:
+            steps.append(table("y"))
+            S_Ax = Derived(
+                "Sigma_Ax", q(sum(r.A * r.x for r in rows), 3), "Σ Aᵢx̄ᵢ", ref="parts table",
+                unit=u3, latex=r"\Sigma A_i \bar{x}_i",
             )  # fmt: skip
-            I_1 = Derived("I_1", (I_x + I_y) / 2 + R, "major principal second moment", unit=u4)
-            I_2 = Derived("I_2", (I_x + I_y) / 2 - R, "minor principal second moment", unit=u4)
-            theta = Derived(
-                "theta_p", props.theta_p,
-                "angle from x to the major principal axis, ½ atan2(−2Iₓᵧ, Iₓ − Iᵧ), "
-                "counter-clockwise",
-                unit="degree", ref="Mohr's circle",
+            x_bar = Derived(
+                "x_bar", S_Ax / A, "position of the centroid", unit=u1, latex=r"\bar{x}",
+                ref="first moment of area",
             )  # fmt: skip
-            steps += [R, I_1, I_2, theta]
+            steps += [S_Ax, x_bar]
+        if want_y:
+            S_Iy = Derived(
+                "Sigma_Iy", q(sum(r.Iy for r in rows), 4), "Σ Īᵧᵢ", unit=u4,
+                ref="parts table", latex=r"\Sigma \bar{I}_{y,i}",
+            )  # fmt: skip
+            S_Adx2 = Derived(
+                "Sigma_Adx2", q(sum(r.A * r.dx**2 for r in rows), 4), "Σ Aᵢdᵢ² (x distances)",
+                unit=u4, ref="parts table", latex=r"\Sigma A_i d_{x,i}^2",
+            )  # fmt: skip
+            I_y = Derived(
+                "I_y", S_Iy + S_Adx2, "second moment about the centroidal y axis", unit=u4,
+                ref="parallel-axis theorem",
+            )  # fmt: skip
+            steps += [S_Iy, S_Adx2, I_y]
 
-    r_x = Derived("r_x", sqrt(I_x / A), "radius of gyration about x", unit=u1)
-    steps.append(r_x)
-    if I_y is not None:
+    if "principal" in keys:
+        steps += _principal_steps(props, rows, I_x, I_y, q, u4)
+    if "r_x" in keys:
+        steps.append(Derived("r_x", sqrt(I_x / A), "radius of gyration about x", unit=u1))
+    if "r_y" in keys:
         steps.append(Derived("r_y", sqrt(I_y / A), "radius of gyration about y", unit=u1))
-    y_top = Derived(
-        "y_top", props.y_bar + props.c_top, "level of the top fibre", unit=u1, ref="geometry"
-    )
-    c_t = Derived("c_top", y_top - y_bar, "centroid to top fibre", unit=u1)
-    y_bot = Derived(
-        "y_bot", props.y_bar - props.c_bottom, "level of the bottom fibre", unit=u1,
-        ref="geometry",
+    if "S_x" in keys:
+        y_top = Derived(
+            "y_top", props.y_bar + props.c_top, "level of the top fibre", unit=u1, ref="geometry"
+        )
+        c_t = Derived("c_top", y_top - y_bar, "centroid to top fibre", unit=u1)
+        y_bot = Derived(
+            "y_bot", props.y_bar - props.c_bottom, "level of the bottom fibre", unit=u1,
+            ref="geometry",
+        )  # fmt: skip
+        c_b = Derived("c_bot", y_bar - y_bot, "centroid to bottom fibre", unit=u1)
+        S_t = Derived("S_x_top", I_x / c_t, "elastic modulus, top fibre", unit=u3)
+        S_b = Derived("S_x_bot", I_x / c_b, "elastic modulus, bottom fibre", unit=u3)
+        steps += [y_top, y_bot, c_t, c_b, S_t, S_b]
+    if "S_y" in keys:
+        x_r = Derived(
+            "x_right", props.x_bar + props.c_right, "right extreme fibre", unit=u1, ref="geometry"
+        )
+        x_l = Derived(
+            "x_left", props.x_bar - props.c_left, "left extreme fibre", unit=u1, ref="geometry"
+        )
+        c_r = Derived("c_right", x_r - x_bar, "centroid to right fibre", unit=u1)
+        c_l = Derived("c_left", x_bar - x_l, "centroid to left fibre", unit=u1)
+        S_r = Derived("S_y_right", I_y / c_r, "elastic modulus, right fibre", unit=u3)
+        S_l = Derived("S_y_left", I_y / c_l, "elastic modulus, left fibre", unit=u3)
+        steps += [x_r, x_l, c_r, c_l, S_r, S_l]
+    steps += _other_steps(props, keys, sysname)
+    return _finish(Block(steps=steps, title=block_title), sheet)
+
+
+def _principal_steps(
+    props: SectionProperties, rows: Any, I_x: Any, I_y: Any, q: Any, u4: str
+) -> list[Any]:
+    """Product of area and principal axes (Mohr's circle), or the note that x and y are."""
+    from calcpack.working import Derived, Text, sqrt
+
+    ixy = sum(r.Ixy + r.A * r.dx * r.dy for r in rows)
+    scale = max(abs(si_of(props.Ix)), abs(si_of(props.Iy)))
+    if abs(ixy) <= 1e-9 * scale:
+        return [Text("The product of area $I_{xy}$ is zero: x and y are the principal axes.")]
+    I_xy = Derived(
+        "I_xy", q(ixy, 4), "product of area Σ(Īₓᵧᵢ + Aᵢ dₓᵢ dᵧᵢ)", unit=u4,
+        ref="parallel-axis theorem",
     )  # fmt: skip
-    c_b = Derived("c_bot", y_bar - y_bot, "centroid to bottom fibre", unit=u1)
-    S_t = Derived("S_x_top", I_x / c_t, "elastic modulus, top fibre", unit=u3)
-    S_b = Derived("S_x_bot", I_x / c_b, "elastic modulus, bottom fibre", unit=u3)
-    steps += [y_top, y_bot, c_t, c_b, S_t, S_b]
-    if props.Zx_value is not None and props.y_pna_value is not None:
-        steps.append(
-            Derived(
-                "y_p",
-                props.y_pna_value,
-                "plastic neutral axis: equal area above and below",
-                unit=u1,
-                ref="A_above = A_below = A/2",
-            )
-        )
-        steps.append(
-            Derived(
-                "Z_x",
-                props.Zx_value,
-                "plastic modulus about x",
-                unit=u3,
-                ref="Z = ∫|y − y_p| dA",
-            )
-        )
-    elif props.Zx_value is None:
+    R = Derived(
+        "R_Mohr", sqrt(((I_x - I_y) / 2) ** 2 + I_xy**2), "radius of Mohr's circle",
+        unit=u4, latex=r"R",
+    )  # fmt: skip
+    I_1 = Derived("I_1", (I_x + I_y) / 2 + R, "major principal second moment", unit=u4)
+    I_2 = Derived("I_2", (I_x + I_y) / 2 - R, "minor principal second moment", unit=u4)
+    theta = Derived(
+        "theta_p", props.theta_p,
+        "angle from x to the major principal axis, ½ atan2(−2Iₓᵧ, Iₓ − Iᵧ), "
+        "counter-clockwise",
+        unit="degree", ref="Mohr's circle",
+    )  # fmt: skip
+    return [I_xy, R, I_1, I_2, theta]
+
+
+def _other_steps(props: SectionProperties, keys: frozenset[str], sysname: str) -> list[Any]:
+    """Plastic moduli, torsion and warping constants, when asked for."""
+    from calcpack.working import Derived, Text
+
+    u1, _, u3, u4 = _PINT[sysname]
+    steps: list[Any] = []
+    if keys & {"Z_x", "Z_y"} and props.Zx_value is None:
         steps.append(
             Text(
                 "Plastic modulus not given: the parts are of different materials "
                 "(one yield stress needed)."
             )
         )
-    if props.J_value is not None:
+    if "Z_x" in keys and props.Zx_value is not None and props.y_pna_value is not None:
+        steps.append(
+            Derived(
+                "y_p", props.y_pna_value, "plastic neutral axis: equal area above and below",
+                unit=u1, ref="A_above = A_below = A/2",
+            )
+        )  # fmt: skip
+        steps.append(
+            Derived("Z_x", props.Zx_value, "plastic modulus about x", unit=u3,
+                    ref="Z = ∫|y − y_p| dA")
+        )  # fmt: skip
+    if "Z_y" in keys and props.Zy_value is not None and props.x_pna_value is not None:
+        steps.append(
+            Derived(
+                "x_p", props.x_pna_value, "plastic neutral axis: equal area left and right",
+                unit=u1, ref="A_left = A_right = A/2",
+            )
+        )  # fmt: skip
+        steps.append(
+            Derived("Z_y", props.Zy_value, "plastic modulus about y", unit=u3,
+                    ref="Z = ∫|x − x_p| dA")
+        )  # fmt: skip
+    if "J" in keys and props.J_value is not None:
         steps.append(Derived("J", props.J_value, "torsion constant", unit=u4, ref=_j_ref(props)))
-    if props.Cw_value is not None:
+    if "C_w" in keys and props.Cw_value is not None:
         steps.append(
             Derived(
                 "C_w",
                 props.Cw_value,
                 "warping constant",
-                unit=_PINT[sysname][3].replace("4", "6"),
+                unit=u4.replace("4", "6"),
                 ref="Cw = Iy h0²/4 (doubly symmetric I)",
             )
         )
-    return _finish(Block(steps=steps, title=title or f"Section properties: {name}"), sheet)
+    return steps
 
 
 def si_of(q: Quantity) -> float:

@@ -137,3 +137,46 @@ def test_a_case_missing_from_a_combination_is_refused() -> None:
     with pytest.raises(InputsFileError, match=r"combinations\.service has no factor for") as info:
         beam_inputs(data)
     assert info.value.name == "combinations.service.L"
+
+
+def _section_block(section: dict[str, Any]) -> tuple[Any, Any, Any]:
+    from calcpack.working import Block, Sheet
+
+    data = _three_equal_spans()
+    data["section"] = section
+    out = evaluate_beam(beam_inputs(data))
+    sheet = Sheet("B9", auto_display=False)
+    out.working(sheet)
+    blocks = [s for s in sheet.steps if isinstance(s, Block) and "Section properties" in s.title]
+    assert len(blocks) == 1
+    return out, sheet, blocks[0]
+
+
+def test_rectangle_beam_shows_its_properties_in_proportion() -> None:
+    from calcpack.working import Derived, Table
+
+    out, sheet, block = _section_block(
+        {"shape": "rectangle", "b": Q_(90, "mm"), "d": Q_(360, "mm")}
+    )
+    assert not any(isinstance(s, Table) for s in block.steps)  # no parts table of one part
+    shown = [s.name for s in block.steps if isinstance(s, Derived)]
+    assert shown == ["A", "I_x", "S_x"]  # what the checks read, one line each
+    # the bending check reads the section's own S_x: σ = M / S with S = b d²/6 (common practice)
+    sigma = next(s for s in sheet.steps if getattr(s, "name", "") == "sigma_b")
+    S = 0.09 * 0.36**2 / 6
+    assert sigma.quantity.to("Pa").magnitude == pytest.approx(
+        out.M_design.to("N*m").magnitude / S, rel=1e-9
+    )
+    assert not [s for s in sheet.steps if getattr(s, "name", "") in ("I_x", "S_x")]
+
+
+def test_built_up_beam_section_takes_the_smaller_modulus() -> None:
+    from calcpack.working import Derived
+
+    tee = {"shape": "tee", "d": Q_(300, "mm"), "bf": Q_(150, "mm"), "tf": Q_(12, "mm"),
+           "tw": Q_(8, "mm")}  # fmt: skip
+    out, sheet, _ = _section_block(tee)
+    S = next(s for s in sheet.steps if isinstance(s, Derived) and s.name == "S_x")
+    assert S.quantity.to("mm**3").magnitude == pytest.approx(
+        out.properties.Sx.to("mm**3").magnitude, rel=1e-9
+    )
