@@ -357,6 +357,9 @@ from calcpack.sections.aisc_database import (
     aisc_shape_names as aisc_shape_names,
     steel_grade as steel_grade,
 )
+from calcpack.sections.double_angle import (
+    double_angle as double_angle,
+)
 from calcpack.sections.eurocode_tables import (
     EuroSection as EuroSection,
     euro_section as euro_section,
