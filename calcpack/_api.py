@@ -47,6 +47,12 @@ from calcpack.analysis.truss_model import (
     Support as Support,
     Truss as Truss,
 )
+from calcpack.analysis.truss_envelope import (
+    MemberEnvelope as MemberEnvelope,
+)
+from calcpack.analysis.truss_envelope import (
+    member_envelopes as member_envelopes,
+)
 from calcpack.analysis.truss_solve import (
     TrussResult as TrussResult,
     solve_truss as solve_truss,
@@ -90,6 +96,16 @@ from calcpack.checks.aisc360.bracing import (
 from calcpack.checks.aisc360.bracing_torsional import (
     TorsionalBraceCase as TorsionalBraceCase,
     check_aisc_torsional_bracing as check_aisc_torsional_bracing,
+)
+from calcpack.checks.aisc360.combined_h2 import (
+    H2Case as H2Case,
+    H2Point as H2Point,
+    angle_h2_case as angle_h2_case,
+    check_aisc_h2 as check_aisc_h2,
+)
+from calcpack.checks.aisc360.compression_angle import (
+    AngleStrut as AngleStrut,
+    check_aisc_angle_strut as check_aisc_angle_strut,
 )
 from calcpack.checks.aisc360.elements import (
     BlockShear as BlockShear,
@@ -251,6 +267,7 @@ from calcpack.loads.roof_profiles import (
     snow_profiles_asce7 as snow_profiles_asce7,
     snow_profiles_en as snow_profiles_en,
     wind_profiles_asce7 as wind_profiles_asce7,
+    wind_profiles_asce7_directional as wind_profiles_asce7_directional,
     wind_profiles_en as wind_profiles_en,
 )
 from calcpack.loads.snow_asce7 import (
@@ -280,6 +297,11 @@ from calcpack.loads.wind_asce7 import (
     Topography as Topography,
     WindSiteASCE7 as WindSiteASCE7,
     velocity_pressure_asce7 as velocity_pressure_asce7,
+)
+from calcpack.loads.wind_asce7_directional import (
+    DirectionalBuildingASCE7 as DirectionalBuildingASCE7,
+    DirectionalWindASCE7 as DirectionalWindASCE7,
+    directional_wind_asce7 as directional_wind_asce7,
 )
 from calcpack.loads.wind_asce7_lowrise import (
     LowRiseBuildingASCE7 as LowRiseBuildingASCE7,
@@ -393,4 +415,7 @@ from calcpack.working import (
     sin as sin,
     sqrt as sqrt,
     tan as tan,
+)
+from calcpack.checks.nds.values import (
+    southern_pine_size_factor as southern_pine_size_factor,
 )

@@ -80,6 +80,8 @@ PUBLIC: dict[str, str] = {
     "solve_truss": "calcpack.analysis.truss_solve",
     "solve_truss_cases": "calcpack.analysis.truss_solve",
     "TrussResult": "calcpack.analysis.truss_solve",
+    "member_envelopes": "calcpack.analysis.truss_envelope",
+    "MemberEnvelope": "calcpack.analysis.truss_envelope",
     "FreeBody": "calcpack.analysis.freebody",
     "PointForce": "calcpack.analysis.freebody",
     "Couple": "calcpack.analysis.freebody",
@@ -285,6 +287,17 @@ PUBLIC: dict[str, str] = {
     "check_aisc_torsional_bracing": "calcpack.checks.aisc360.bracing_torsional",
     "rectangular_bar": "calcpack.sections.steel_bars",
     "round_bar": "calcpack.sections.steel_bars",
+    "AngleStrut": "calcpack.checks.aisc360.compression_angle",
+    "check_aisc_angle_strut": "calcpack.checks.aisc360.compression_angle",
+    "southern_pine_size_factor": "calcpack.checks.nds.values",
+    "H2Case": "calcpack.checks.aisc360.combined_h2",
+    "H2Point": "calcpack.checks.aisc360.combined_h2",
+    "check_aisc_h2": "calcpack.checks.aisc360.combined_h2",
+    "DirectionalBuildingASCE7": "calcpack.loads.wind_asce7_directional",
+    "DirectionalWindASCE7": "calcpack.loads.wind_asce7_directional",
+    "directional_wind_asce7": "calcpack.loads.wind_asce7_directional",
+    "angle_h2_case": "calcpack.checks.aisc360.combined_h2",
+    "wind_profiles_asce7_directional": "calcpack.loads.roof_profiles",
 }
 """Public name -> the module it is imported from."""
 

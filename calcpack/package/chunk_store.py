@@ -92,4 +92,5 @@ class ChunkStore:
                 path.unlink(missing_ok=True)
 
 
-_LAYOUT_FORMAT = "calcpack-chunk/3"  # 2: sealed entries (calcpack.package.cache); 3: anchors
+# 2: sealed entries (calcpack.package.cache); 3: tagged; 4: anchors inside sections
+_LAYOUT_FORMAT = "calcpack-chunk/4"

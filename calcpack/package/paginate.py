@@ -130,7 +130,7 @@ def _lay_out_chunk(
         document = HTML(string=html, base_url=base_url).render()
         sections = section_pages(document, ids)
         holds = assumed is not None and as_assumed(sections, assumed)
-        pdf = document.write_pdf(pdf_variant=PDF_VARIANT) if holds else None
+        pdf = document.write_pdf(pdf_variant=PDF_VARIANT, pdf_tags=True) if holds else None
         return Chunk(
             sections,
             len(document.pages),

@@ -135,7 +135,7 @@ def _load_review(project: Project) -> tuple[tuple[ReviewRow, ...] | None, Path |
                 status="OVERRIDE",
                 by=o.who,
                 date=o.when[:10],
-                text=f"Signed with {', '.join(o.comments)} not closed: {o.reason}",
+                text=o.describe(),
             )
         )
     return tuple(rows), path
@@ -147,7 +147,8 @@ def _safe_name(text: str) -> str:
 
 def _atomic_write(path: Path, data: bytes) -> Path:
     """Write to a temporary file in the same folder; the caller moves it into place."""
-    handle, tmp = tempfile.mkstemp(dir=path.parent, prefix=f".{path.name}.", suffix=".tmp")
+    prefix = publish.output_temp_prefix(path)
+    handle, tmp = tempfile.mkstemp(dir=path.parent, prefix=prefix, suffix=".tmp")
     with os.fdopen(handle, "wb") as out:
         out.write(data)
         out.flush()
@@ -277,6 +278,8 @@ def build(
 
     code_hash = freshness.package_code_hash()
     build_key = freshness.build_key(project, keys, options, review_file, created, code_hash)
+    # temporaries of a build stopped between writing and moving its output (said as warnings)
+    warnings += publish.clean_stale_outputs(out)
     previous = freshness.previous_manifest(manifest_path)
     current = previous.get("build", {}).get("build_key") == build_key and freshness.pair_intact(
         pdf_path, manifest_path

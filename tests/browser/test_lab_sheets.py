@@ -41,9 +41,9 @@ def test_lintel_sheet_renders_math(lab: LabServer, page: Any) -> None:
     save_screenshot(page, "lintel_check.png")
 
 
-GARDEN = REPO / "example_projects" / "garden_studio" / "sheets"
-BEAM_SHEET = GARDEN / "01_ridge_beam.ipynb"
-BEAM_INPUTS = GARDEN / "01_ridge_beam.inputs.toml"
+GARDEN = REPO / "example_projects" / "beam_examples"
+BEAM_SHEET = GARDEN / "ridge_beam_panel.ipynb"
+BEAM_INPUTS = GARDEN / "ridge_beam_panel.inputs.toml"
 
 
 def _out(page: Any, name: str) -> float:

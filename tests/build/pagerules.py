@@ -82,7 +82,7 @@ def page_body(reader: PdfReader, number: int) -> PageBody:
     def visit(text: str, cm: Any, tm: Any, font: Any, size: float) -> None:
         if not text.strip():
             return
-        a, b, c, d, e, f = (float(v) for v in cm)
+        _, b, _, d, _, f = (float(v) for v in cm)
         y = float(tm[4]) * b + float(tm[5]) * d + f
         scale = abs(float(tm[3]) * d) or 1.0
         name = str((font or {}).get("/BaseFont", ""))

@@ -176,7 +176,7 @@ def check_aisc_member(
         its clause and the combination.
 
     Raises:
-        OutOfScopeError: slender elements (§E7, §F7 effective sections), unsupported shapes
+        OutOfScopeError: slender HSS walls in flexure (§F7 effective sections), unsupported shapes
             or clauses, §H2 cases (single angles with axial force and flexure).
         InputError: bad method, wrong units.
     """
@@ -190,7 +190,8 @@ def check_aisc_member(
     if s.type == "L" and axial and bending:
         raise OutOfScopeError(
             f"Single angle {s.designation} with axial force and flexure: AISC 360-16 §H2 "
-            "(stresses about the principal axes) is not implemented"
+            "applies (stresses about the principal axes); check it with check_aisc_h2, giving "
+            "the available strengths about the principal axes"
         )
     if not (axial or bending or _nonzero(forces.Vx) or _nonzero(forces.Vy)):
         from calcpack.errors import InputError
@@ -215,7 +216,7 @@ def check_aisc_member(
             Pr = c.given(
                 f"P_{sfx}", P, "required axial strength", source=combo or "given", unit="kip"
             )
-            c.check("Compression", Pr, Pc, ref="AISC 360-16 §E3", combination=combo)
+            c.check("Compression", Pr, Pc, ref="AISC 360-16 Chapter E", combination=combo)
             ratios["P"] = (Pr, Pc)
         elif axial:
             c.heading("Tension, AISC 360-16 §D2", 3)

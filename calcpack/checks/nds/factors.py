@@ -5,10 +5,12 @@ conditions."""
 from __future__ import annotations
 
 from dataclasses import dataclass
+from typing import Literal
 
 from calcpack.checks.scope import material_in_scope
 from calcpack.errors import InputError, OutOfScopeError
 from calcpack.units import Q_, Quantity, require, si
+from calcpack.validate import one_of
 
 __all__ = [
     "DEFAULT_DURATIONS",
@@ -201,6 +203,9 @@ class ReferenceDesignValues:
             size factor (``"No.2"``...). source: where the values are from (required).
         Fb: bending. Fv: shear parallel to grain. E: modulus of elasticity. Emin: for beam
             and column stability.
+        size_rule: how C_F is found when not given: "Table 4A" (size factors by grade and
+            size) or "Table 4B" (Southern Pine: the size effect is in the tabulated values,
+            :func:`calcpack.checks.nds.values.southern_pine_size_factor`).
     """
 
     species_grade: str
@@ -210,6 +215,7 @@ class ReferenceDesignValues:
     Fv: Quantity
     E: Quantity
     Emin: Quantity
+    size_rule: Literal["Table 4A", "Table 4B"] = "Table 4A"
 
     def __post_init__(self) -> None:
         if not isinstance(self.source, str) or not self.source.strip():
@@ -233,6 +239,7 @@ class ReferenceDesignValues:
             require(v, "[pressure]", nm, positive=True)
         material_in_scope("NDS 2018|wood|E", "E", self.E)
         material_in_scope("NDS 2018|wood|Emin", "Emin", self.Emin)
+        one_of("size_rule", self.size_rule, ("Table 4A", "Table 4B"))
 
 
 @dataclass(frozen=True)

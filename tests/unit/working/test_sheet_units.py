@@ -33,7 +33,8 @@ def test_stresses_follow_the_first_stress_and_moduli_keep_their_own() -> None:
     si.given("E", 11 * ureg.GPa)
     strength = si.given("f_m", 24 * ureg.MPa)  # a stress, not a modulus: stays in MPa
     assert strength.result_text() == "24.0 MPa"
-    assert si.given("E_2", 11000 * ureg.MPa).result_text() == "11\u2009000 MPa"  # a stress unit: stress kind
+    # a modulus entered in a stress unit is of the stress kind
+    assert si.given("E_2", 11000 * ureg.MPa).result_text() == "11\u2009000 MPa"
 
 
 def test_lengths_keep_spans_apart_from_dimensions_and_deflections() -> None:

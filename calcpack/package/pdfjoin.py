@@ -1,0 +1,318 @@
+"""Join the PDFs of a package's layout chunks into one tagged PDF.
+
+WeasyPrint writes each chunk as a tagged PDF/A-3b file: a structure tree (headings, paragraphs,
+tables with their header cells, figures with alternative text, links) over marked content in
+the page streams. The first chunk's file is the package's (its catalog, XMP metadata, output
+intent and attachments); the other chunks' pages, outline and named destinations are appended
+with pypdf, which copies pages but not structure. This module grafts each appended chunk's
+structure tree onto the first's, under its one ``Document`` element, so that the joined PDF has
+one tree in reading order:
+
+- structure elements are copied with their page (``/Pg``) and annotation (``/OBJR``) references
+  pointed at the appended pages and annotations; an annotation pypdf did not carry over is
+  left out of the tree;
+- the parent tree's keys (one per page, one per tagged annotation) are renumbered after the
+  first chunk's, and the pages' ``/StructParents`` and annotations' ``/StructParent`` with
+  them;
+- the table-header identifiers WeasyPrint writes (``/ID``, and the cells' ``/Headers`` that
+  cite them) are numbered by object number within a chunk, so they are prefixed by the chunk
+  to stay unique.
+
+Links to a section laid out in another chunk are added after the join, as link annotations to
+named destinations (WeasyPrint could not resolve them within the chunk).
+"""
+
+from __future__ import annotations
+
+import io
+from collections.abc import Iterator, Sequence
+from typing import Any
+
+from calcpack.errors import BuildError
+from calcpack.package.layout_boxes import Link
+
+__all__ = ["join_chunks", "structure_summary"]
+
+
+def join_chunks(first: bytes, rest: Sequence[bytes], links: Sequence[Link]) -> bytes:
+    """Append the other chunks' pages to the first chunk's PDF (its catalog, metadata and
+    attachments are the package's), with their outline, named destinations and structure
+    tree, then add the links between chunks.
+
+    Raises:
+        BuildError: the first chunk is tagged and another is not (their trees cannot join).
+    """
+    from pypdf import PdfReader, PdfWriter
+
+    base = PdfReader(io.BytesIO(first))
+    writer = PdfWriter(clone_from=base)
+    writer.pdf_header = base.pdf_header
+    tagged = "/StructTreeRoot" in writer.root_object
+    for n, data in enumerate(rest, start=1):
+        reader = PdfReader(io.BytesIO(data))
+        start = len(writer.pages)
+        writer.append(reader, import_outline=True)
+        if tagged:
+            _graft_structure(writer, reader, start, prefix=f"c{n}-")
+    for link in links:
+        _add_link(writer, link)
+    out = io.BytesIO()
+    writer.write(out)
+    return out.getvalue()
+
+
+def _add_link(writer: Any, link: Link) -> None:
+    from pypdf.generic import (
+        ArrayObject,
+        DictionaryObject,
+        FloatObject,
+        NameObject,
+        NumberObject,
+        TextStringObject,
+    )
+
+    annotation = DictionaryObject(
+        {
+            NameObject("/Type"): NameObject("/Annot"),
+            NameObject("/Subtype"): NameObject("/Link"),
+            NameObject("/Rect"): ArrayObject(FloatObject(v) for v in link.rect),
+            NameObject("/BS"): DictionaryObject({NameObject("/W"): NumberObject(0)}),
+            # PDF/A: annotations must be printable (flag 4).
+            NameObject("/F"): NumberObject(4),
+            NameObject("/Dest"): TextStringObject(link.target),
+        }
+    )
+    page = writer.pages[link.page]
+    if "/Annots" not in page:
+        page[NameObject("/Annots")] = ArrayObject()
+    page["/Annots"].get_object().append(writer._add_object(annotation))
+
+
+# --------------------------------------------------------------------------- structure
+
+
+def _number_tree(node: Any) -> Iterator[tuple[int, Any]]:
+    """(key, value) of a number tree (``/Nums`` leaves under ``/Kids``), in key order."""
+    node = node.get_object()
+    nums = node.get("/Nums")
+    if nums is not None:
+        items = list(nums.get_object())
+        for i in range(0, len(items) - 1, 2):
+            yield int(items[i]), items[i + 1]
+    for kid in node.get("/Kids", ()) or ():
+        yield from _number_tree(kid)
+
+
+def _annotation_key(annotation: Any) -> tuple[str, tuple[float, ...]]:
+    rect = tuple(round(float(v), 2) for v in annotation.get("/Rect", ()))
+    return str(annotation.get("/Subtype")), rect
+
+
+class _Copier:
+    """Copies a chunk's structure objects into the writer, with references to the chunk's
+    pages and annotations pointed at their copies in the joined document."""
+
+    def __init__(self, writer: Any, prefix: str) -> None:
+        self.writer = writer
+        self.prefix = prefix
+        self.done: dict[int, Any] = {}
+        """Chunk object number -> the writer's indirect reference for it."""
+        self.annotations: set[int] = set()
+        """Chunk object numbers of every annotation on its pages (carried over or not)."""
+
+    def ref(self, obj: Any) -> Any:
+        """The writer's reference for an indirect object of the chunk, copying it once."""
+        from pypdf.generic import ArrayObject, DictionaryObject, StreamObject
+
+        if obj.idnum in self.done:
+            return self.done[obj.idnum]
+        target = obj.get_object()
+        if isinstance(target, StreamObject):
+            copied = target.clone(self.writer)
+            self.done[obj.idnum] = copied.indirect_reference
+            return copied.indirect_reference
+        shell: Any = DictionaryObject() if isinstance(target, DictionaryObject) else None
+        if shell is None:
+            shell = ArrayObject() if isinstance(target, ArrayObject) else None
+        if shell is None:  # a number, name or string kept as an object of its own
+            reference = self.writer._add_object(target.clone(self.writer))
+            self.done[obj.idnum] = reference
+            return reference
+        reference = self.writer._add_object(shell)
+        self.done[obj.idnum] = reference  # before the contents: structure refers back (/P)
+        filled = self.value(target)
+        if isinstance(shell, DictionaryObject):
+            shell.update(filled)
+        else:
+            shell.extend(filled)
+        return reference
+
+    def dropped(self, obj: Any) -> bool:
+        """An object reference to an annotation that was not carried over (``/OBJR``)."""
+        from pypdf.generic import DictionaryObject, IndirectObject
+
+        target = obj.get_object() if isinstance(obj, IndirectObject) else obj
+        if not isinstance(target, DictionaryObject) or target.get("/Type") != "/OBJR":
+            return False
+        annotation = target.get("/Obj")
+        return (
+            isinstance(annotation, IndirectObject)
+            and annotation.idnum in self.annotations
+            and annotation.idnum not in self.done
+        )
+
+    def value(self, obj: Any) -> Any:
+        """A direct object copied, its indirect references through :meth:`ref`."""
+        from pypdf.generic import (
+            ArrayObject,
+            DictionaryObject,
+            IndirectObject,
+            NameObject,
+            TextStringObject,
+        )
+
+        if isinstance(obj, IndirectObject):
+            return self.ref(obj)
+        if isinstance(obj, DictionaryObject):
+            out = DictionaryObject()
+            for key, item in obj.items():
+                if key == "/ID" and isinstance(item, str):
+                    out[NameObject(key)] = TextStringObject(self.prefix + item)
+                elif key == "/Headers" and isinstance(item, ArrayObject):
+                    out[NameObject(key)] = ArrayObject(
+                        TextStringObject(self.prefix + str(h)) for h in item
+                    )
+                elif key == "/K" and isinstance(item, ArrayObject):
+                    out[NameObject(key)] = ArrayObject(
+                        self.value(kid) for kid in item if not self.dropped(kid)
+                    )
+                else:
+                    out[NameObject(key)] = self.value(item)
+            return out
+        if isinstance(obj, ArrayObject):
+            return ArrayObject(self.value(item) for item in obj)
+        return obj.clone(self.writer)
+
+
+def _graft_structure(writer: Any, reader: Any, start: int, *, prefix: str) -> None:
+    """Copy ``reader``'s structure tree under the writer's ``Document`` element; its pages
+    were appended to the writer from page ``start`` on."""
+    from pypdf.generic import ArrayObject, NameObject, NumberObject
+
+    tree = writer.root_object["/StructTreeRoot"].get_object()
+    theirs = reader.root_object.get("/StructTreeRoot")
+    if theirs is None:
+        raise BuildError(
+            "A layout chunk of the package was written without its structure tree (tags); "
+            "delete PROJECT/.calcpack-cache/layout and build again"
+        )
+    theirs = theirs.get_object()
+    (document,) = list(tree["/K"]) if isinstance(tree["/K"], ArrayObject) else [tree["/K"]]
+    their_kids = theirs["/K"]
+    (their_document,) = list(their_kids) if isinstance(their_kids, ArrayObject) else [their_kids]
+
+    copier = _Copier(writer, prefix)
+    copier.done[their_document.idnum] = document
+    copier.done[theirs.indirect_reference.idnum] = tree.indirect_reference
+    pairs = []
+    for i, their_page in enumerate(reader.pages):
+        page = writer.pages[start + i]
+        copier.done[their_page.indirect_reference.idnum] = page.indirect_reference
+        pairs.append((their_page, page))
+        ours = {_annotation_key(a.get_object()): a for a in page.get("/Annots", ()) or ()}
+        for annotation in their_page.get("/Annots", ()) or ():
+            copier.annotations.add(annotation.idnum)
+            match = ours.get(_annotation_key(annotation.get_object()))
+            if match is not None:
+                copier.done[annotation.idnum] = match
+
+    nums = tree["/ParentTree"].get_object()
+    entries = list(_number_tree(nums))
+    next_key = max([k for k, _ in entries], default=-1) + 1
+    next_key = max(next_key, int(tree.get("/ParentTreeNextKey", 0)))
+    keys: dict[int, int] = {}
+    for key, _ in _number_tree(theirs["/ParentTree"]):
+        keys[key] = next_key
+        next_key += 1
+
+    # The tree itself, in reading order after the first chunk's.
+    kids = document.get_object()["/K"]
+    for kid in their_document.get_object()["/K"]:
+        if not copier.dropped(kid):
+            kids.append(copier.value(kid))
+
+    # Pages and annotations point into the parent tree by key: renumber them.
+    for their_page, page in pairs:
+        if "/StructParents" in their_page:
+            page[NameObject("/StructParents")] = NumberObject(
+                keys[int(their_page["/StructParents"])]
+            )
+        for annotation in their_page.get("/Annots", ()) or ():
+            copied = copier.done.get(annotation.idnum)
+            old = annotation.get_object().get("/StructParent")
+            if copied is not None and old is not None:
+                copied.get_object()[NameObject("/StructParent")] = NumberObject(keys[int(old)])
+
+    leaf = nums if "/Nums" in nums else None
+    if leaf is None:  # a tree with /Kids: flatten it into one leaf
+        leaf = nums
+        leaf[NameObject("/Nums")] = ArrayObject()
+        for key, value in entries:
+            leaf["/Nums"].extend([NumberObject(key), value])
+        del leaf["/Kids"]
+    array = leaf["/Nums"].get_object()
+    for key, value in _number_tree(theirs["/ParentTree"]):
+        if isinstance(value, ArrayObject) or not copier.dropped(value):
+            array.extend([NumberObject(keys[key]), copier.value(value)])
+    tree[NameObject("/ParentTreeNextKey")] = NumberObject(next_key)
+
+
+# --------------------------------------------------------------------------- reading it back
+
+
+def structure_summary(pdf: bytes) -> dict[str, Any]:
+    """What a tagged PDF's structure tree holds, for tests and checks: the count of each
+    structure type, the alternative texts of figures, and whether every marked-content id on
+    every page is reachable from the parent tree.
+
+    Returns:
+        ``{"types": {"/H1": n, ...}, "figures": [alt or None, ...], "pages_mapped": bool}``.
+    """
+    from pypdf import PdfReader
+    from pypdf.generic import ArrayObject, DictionaryObject, IndirectObject
+
+    reader = PdfReader(io.BytesIO(pdf))
+    root = reader.root_object.get("/StructTreeRoot")
+    if root is None:
+        return {"types": {}, "figures": [], "pages_mapped": False}
+    types: dict[str, int] = {}
+    figures: list[str | None] = []
+    seen: set[int] = set()
+
+    def walk(node: Any) -> None:
+        if isinstance(node, IndirectObject):
+            if node.idnum in seen:
+                return
+            seen.add(node.idnum)
+        obj = node.get_object()
+        if isinstance(obj, ArrayObject):
+            for kid in obj:
+                walk(kid)
+            return
+        if not isinstance(obj, DictionaryObject) or "/S" not in obj:
+            return
+        kind = str(obj["/S"])
+        types[kind] = types.get(kind, 0) + 1
+        if kind == "/Figure":
+            alt = obj.get("/Alt")
+            figures.append(str(alt) if alt is not None else None)
+        kids = obj.get("/K")
+        if kids is not None:
+            walk(kids)
+
+    walk(root["/K"])
+    parents = dict(_number_tree(root["/ParentTree"]))
+    mapped = all(
+        "/StructParents" in page and int(page["/StructParents"]) in parents for page in reader.pages
+    )
+    return {"types": types, "figures": figures, "pages_mapped": mapped}
