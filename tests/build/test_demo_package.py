@@ -239,8 +239,8 @@ def test_summary_page_numbers_are_the_checks_own_pages(
                 and y1 - 1 <= height - (w.y0 + w.y1) / 2 <= y2 + 1
             ]
             assert printed == [str(lands)], (target, printed, lands)
-            sheet = next(s for s in demo_manifest["sheets"] if s["pages"][0] <= lands)
-            assert sheet["pages"][0] <= lands <= sheet["pages"][1]
+            # the check is on a page of a sheet
+            assert any(s["pages"][0] <= lands <= s["pages"][1] for s in demo_manifest["sheets"])
             seen += 1
     checks = sum(len(s["checks"]) for s in demo_manifest["sheets"])
     assert seen == checks  # every check of every sheet has its link
