@@ -419,3 +419,6 @@ from calcpack.working import (
 from calcpack.checks.nds.values import (
     southern_pine_size_factor as southern_pine_size_factor,
 )
+from calcpack.sections.double_angle import (
+    double_angle as double_angle,
+)

@@ -12,7 +12,8 @@
   equal-leg angles; an unequal-leg angle without continuous lateral-torsional restraint needs
   principal-axis bending and is refused;
 * tees (WT, MT, ST) about x: §F9; rectangular and round bars: §F11
-  (``flexure_tee_bar.py``); tees about y and double angles are refused.
+  (``flexure_tee_bar.py``); double angles about x: §F9 (``flexure_double_angle.py``); tees
+  and double angles about y are refused.
 
 ``Lb = None`` on the member means continuous lateral-torsional restraint.
 """
@@ -22,6 +23,7 @@ from __future__ import annotations
 import math
 from typing import Any, Literal
 
+from calcpack.checks.aisc360.flexure_double_angle import double_angle_f9
 from calcpack.checks.aisc360.flexure_tee_bar import BARS, TEES, bar_f11, tee_f9
 from calcpack.checks.aisc360.member_data import SteelMember
 from calcpack.checks.base import Recorder
@@ -57,12 +59,14 @@ def flexure_strength(c: Recorder, m: SteelMember, axis: Axis) -> Any:
         return _angle_f10(c, m, Fy, E, root)
     if t in TEES and axis == "x":
         return tee_f9(c, m, Fy, E, root)
+    if t == "2L" and axis == "x":
+        return double_angle_f9(c, m, Fy, E, root)
     if t in BARS:
         return bar_f11(c, m, Fy, E, axis)
     raise OutOfScopeError(
         f"Flexure of {m.shape.designation} ({t}) about {axis} is not covered: AISC 360-16 "
-        "§F10 bending of angles about other axes and bending of tees about their axis of "
-        "symmetry (y) are not implemented"
+        "§F10 bending of angles about other axes and bending of tees and double angles about "
+        "their axis of symmetry (y) are not implemented"
     )
 
 
