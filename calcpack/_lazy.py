@@ -144,7 +144,7 @@ PUBLIC: dict[str, str] = {
     "CheckRecord": "calcpack.contract",
     "diff_manifests": "calcpack.contract",
     "sign_package": "calcpack.signing",
-    "verify_package": "calcpack.signing",
+    "verify_package": "calcpack.package.reproduce",
     "make_demo_credentials": "calcpack.signing",
     "diff_packages": "calcpack.signing",
     "SnowSiteASCE7": "calcpack.loads.snow_asce7",

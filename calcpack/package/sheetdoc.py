@@ -15,6 +15,7 @@ from typing import Any
 from calcpack.errors import BuildError
 from calcpack.package.document import DocumentOptions, SheetDoc, document_html
 from calcpack.package.execute import ExecutedSheet
+from calcpack.package.mathcache import MathCache
 from calcpack.package.paginate import paginate, write_pdf
 from calcpack.package.project import Person, Project, Revision, SheetEntry
 from calcpack.package.records import collect_records
@@ -54,9 +55,16 @@ def _drop_title_heading(body: str, title: str) -> str:
 
 
 def prepare_sheet(
-    entry: SheetEntry, executed: ExecutedSheet | Any, *, source: bool = False
+    entry: SheetEntry,
+    executed: ExecutedSheet | Any,
+    *,
+    source: bool = False,
+    math: MathCache | None = None,
 ) -> SheetDoc:
     """Convert one executed sheet to HTML with its math as SVG images, and read its records.
+
+    ``source`` keeps the code cells (for the reviewer's copy); ``math`` is the build's
+    formula cache (default: the process's own, :func:`calcpack.package.mathsvg.process_cache`).
 
     Raises:
         BuildError: a formula cannot be typeset (the message names the sheet).
@@ -74,7 +82,7 @@ def prepare_sheet(
     title = sheet_title(entry, nb)
     try:
         body = _drop_title_heading(_JUPYTER_STYLE_RE.sub("", sheet_fragment(nb)), title)
-        body = math_spans_to_images(body)
+        body = math_spans_to_images(body, math)
     except BuildError as exc:
         raise BuildError(f"Sheet {entry.path!r}: {exc}") from exc
     cells = (
