@@ -27,7 +27,7 @@ import re
 import tomllib
 from dataclasses import dataclass
 from pathlib import Path
-from typing import Any
+from typing import Any, Protocol
 
 from calcpack.errors import InputError
 
@@ -359,8 +359,18 @@ def read_exports(ref: SheetRef) -> ExportsFile:
     )
 
 
-def staleness(ref: SheetRef, exports: ExportsFile) -> str | None:
-    """Why the recorded values may be older than the sheet (None when they are current)."""
+class _Recorded(Protocol):
+    @property
+    def code_sha256(self) -> str: ...
+    @property
+    def inputs_sha256(self) -> dict[str, str]: ...
+
+
+def staleness(ref: SheetRef, exports: _Recorded) -> str | None:
+    """Why the recorded values may be older than the sheet (None when they are current).
+
+    ``exports``: what the sheet recorded -- its exports file, or its results file
+    (:mod:`calcpack.working.recorded`), each holding the hashes of the sheet it came from."""
     if exports.code_sha256 and exports.code_sha256 != code_sha256(ref.notebook):
         return f"the notebook {ref.path} has changed since its values were recorded"
     current = inputs_sha256(ref)

@@ -109,6 +109,7 @@ class Sheet(SheetLinks):
         self._names: dict[str, Value] = {}
         self._cautions: set[str] = set()
         self._exports: dict[str, dict[str, Any]] = {}
+        self._results_changed = False
 
     # -- adding steps --------------------------------------------------------------------
     def add(self, step: Step) -> Step:
@@ -129,8 +130,14 @@ class Sheet(SheetLinks):
         if isinstance(step, Value):
             self._names[step.name] = step
             self.settings.keep_unit(step.display_unit)
-        if self.auto_display and _in_kernel():
-            step._ipython_display_()
+        self._results_changed = True
+        if _in_kernel():
+            # JupyterLab: the checker's sheets compare with this sheet's latest results
+            from calcpack.working.recorded import follow
+
+            follow(self)
+            if self.auto_display:
+                step._ipython_display_()
         return step
 
     def _adopt(self, step: Step) -> None:
