@@ -69,6 +69,7 @@ def verify_package(
     at: dt.datetime | str | None = None,
     require: Iterable[str] = (),
     now: dt.datetime | None = None,
+    crls: Iterable[str | os.PathLike[str]] = (),
 ) -> VerifyReport:
     """Verify a signed calc package (:func:`calcpack.signing.verify.verify_package`, whose
     arguments these are); with ``reproduce``, the sheets in ``project`` are executed again by
@@ -84,4 +85,5 @@ def verify_package(
         at=at,
         require=require,
         now=now,
+        crls=crls,
     )
