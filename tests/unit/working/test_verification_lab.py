@@ -21,9 +21,9 @@ from pathlib import Path
 import pytest
 
 from calcpack import ureg
-from calcpack.contract.agreement import agreement
 from calcpack.errors import DimensionError, InputError
 from calcpack.working import Sheet, recorded
+from calcpack.working.agreement import agreement
 from calcpack.working.links import EXPORTS_DIR_ENV, SHEET_ENV, resolve_sheet
 from calcpack.working.recorded import read_results, results_path
 
