@@ -175,7 +175,7 @@ def write_exports_file(
     """Write a sheet's exports file into ``folder`` (the build's, or the project's cache for
     JupyterLab), from the export records of its executed notebook."""
     from calcpack.fileio import write_atomically
-    from calcpack.working.links import exports_document, project_sheets
+    from calcpack.working.links import exports_document, project_sheets, sealed_exports
 
     for ref in project_sheets(project.root):
         if ref.path == entry.path:
@@ -184,8 +184,7 @@ def write_exports_file(
     else:  # pragma: no cover - every entry comes from the same project file
         document = {"format": EXPORTS_FORMAT, "sheet": entry.path, "values": {}}
     slug = re.sub(r"[^A-Za-z0-9]+", "_", entry.path).strip("_")
-    text = json.dumps(document, indent=1, sort_keys=True) + "\n"
-    write_atomically(folder / f"{slug}.json", text)
+    write_atomically(folder / f"{slug}.json", sealed_exports(document))
 
 
 def link_records(sheet_path: str, imports: Iterable[Mapping[str, Any]]) -> list[dict[str, Any]]:

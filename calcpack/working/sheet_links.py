@@ -435,6 +435,11 @@ class SheetLinks:
     ) -> Any:
         """Declare the checker's own value of a preparer's result, to be compared in the build.
 
+        In JupyterLab the sheet also shows it compared with the preparer's latest recorded
+        result -- value, checker's value, difference, tolerance, agreed or not, method -- and
+        says when that record is older than the preparer's notebook or inputs file (run that
+        sheet first) or missing (:func:`calcpack.working.verification.compare_with_record`).
+
         Args:
             sheet: the preparer's sheet (notebook name, as for :meth:`import_value`).
             name: the result's name there (a recorded or exported value; with ``member``, a
@@ -449,6 +454,8 @@ class SheetLinks:
         Raises:
             InputError: the sheet is not in the project; a bad tolerance or no method; or this
                 sheet imports the very value it checks (an independent check may not read it).
+            DimensionError: in JupyterLab, the preparer's current record is in a unit the
+                checker's value does not convert to.
         """
         from calcpack.errors import InputError
         from calcpack.working.links import resolve_sheet
@@ -478,7 +485,16 @@ class SheetLinks:
         entry = verification_entry(
             ref, name, value, tolerance=tolerance, method=method, member=member, case=case
         )
-        shown = Verification(entry, settings=self.settings)
+        comparison = None
+        if os.environ.get("CALCPACK_BUILDING") != "1":
+            # JupyterLab: compared with the preparer's latest record, for the checker's eyes
+            # only (the build compares with its own records; nothing here is recorded)
+            from calcpack.working.verification import compare_with_record
+
+            comparison = compare_with_record(ref, entry)
+            if comparison.note is not None:
+                warnings.warn(f"Independent check of {name}: {comparison.note}", stacklevel=2)
+        shown = Verification(entry, settings=self.settings, comparison=comparison)
         self.add(shown)
         return shown
 

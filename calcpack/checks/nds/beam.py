@@ -23,6 +23,7 @@ from calcpack.checks.nds.factors import (
 )
 from calcpack.checks.nds.values import southern_pine_size_factor
 from calcpack.errors import InputError, OutOfScopeError
+from calcpack.validate import one_of
 
 __all__ = ["check_nds_beam"]
 
@@ -31,16 +32,7 @@ def _duration_of(case: str, durations: Mapping[str, str]) -> str:
     base = case.split("#")[0]
     for key in (case, base):
         if key in durations:
-            d = durations[key]
-            if d not in DURATION_FACTORS:
-                raise InputError(
-                    f"Load duration {d!r} for case {key!r} is not one of "
-                    f"{list(DURATION_FACTORS)} (NDS 2018 Table 2.3.2)",
-                    name=f"durations[{key!r}]",
-                    value=d,
-                    expected=" / ".join(DURATION_FACTORS),
-                )
-            return d
+            return one_of(f"durations[{key!r}]", durations[key], DURATION_FACTORS)
     raise InputError(
         f"Load case {case!r} has no load duration: give durations={{{base!r}: 'ten years'}} "
         f"or another of {list(DURATION_FACTORS)} (NDS 2018 Table 2.3.2)",
