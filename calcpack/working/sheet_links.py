@@ -26,8 +26,10 @@ __all__ = ["SheetLinks"]
 
 
 def _case_tag(case: str) -> str:
-    """A load case's name as part of a symbol: "S unbalanced from L" -> "S_unbalanced_from_L"."""
-    return re.sub(r"[^A-Za-z0-9]+", "_", case).strip("_") or "case"
+    """A load case's name as part of a symbol: "S unbalanced from L" -> "S_unbalanced_from_L",
+    "W case A +GCpi" -> "W_case_A_plus_GCpi" (signs spelt out, so "+GCpi" and "-GCpi" differ)."""
+    words = case.replace("+", " plus ").replace("-", " minus ").replace("−", " minus ")
+    return re.sub(r"[^A-Za-z0-9]+", "_", words).strip("_") or "case"
 
 
 class SheetLinks:
@@ -296,10 +298,15 @@ class SheetLinks:
                 expected="values exported with export_by_case",
             )
         steps, rows = [], []
+        taken: set[str] = set()
         out: dict[str, dict[str, pint.Quantity]] = {}
         for e in found:
             row, case = e["name"][len(prefix) :], str(e["case"])
-            st = Imported(f"{e['name']}_{_case_tag(case)}", e, ref, settings=self.settings)
+            local = f"{e['name']}_{_case_tag(case)}"
+            while local in taken:  # two case names that differ only in punctuation
+                local += "_"
+            taken.add(local)
+            st = Imported(local, e, ref, settings=self.settings)
             if dimension is not None:
                 try:
                     require(st.quantity, dimension, st.name)

@@ -243,7 +243,7 @@ def test_cases_named_in_words_import_as_symbols(project, monkeypatch):
     symbol names made of the same words."""
     monkeypatch.setenv(SHEET_ENV, "sheets/01_loads.ipynb")
     up = Sheet("Truss", auto_display=False)
-    for case, kN in (("D", 2.0), ("S unbalanced from L", 1.5)):
+    for case, kN in (("D", 2.0), ("S unbalanced from L", 1.5), ("W +GCpi", 0.5), ("W -GCpi", -1)):
         up.export(kN * ureg.kN, name="R_heel", case=case)
     monkeypatch.delenv(SHEET_ENV)
     s = Sheet("Heel", auto_display=False)
@@ -251,3 +251,6 @@ def test_cases_named_in_words_import_as_symbols(project, monkeypatch):
     assert got["S unbalanced from L"].name == "R_heel_S_unbalanced_from_L"
     assert got["S unbalanced from L"].quantity.to("kN").magnitude == 1.5
     assert got["D"].name == "R_heel_D"
+    # internal pressure of either sign: two cases, two symbols
+    assert got["W +GCpi"].name == "R_heel_W_plus_GCpi"
+    assert got["W -GCpi"].name == "R_heel_W_minus_GCpi"
