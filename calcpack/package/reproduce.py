@@ -9,7 +9,6 @@ never imports the build, so the reproducer reaches it as an argument.
 
 from __future__ import annotations
 
-import datetime as dt
 import os
 from collections.abc import Iterable
 from pathlib import Path
@@ -63,25 +62,13 @@ def verify_package(
     pdf: str | os.PathLike[str],
     trust: Iterable[str | os.PathLike[str]] = (),
     *,
-    project: str | os.PathLike[str] | None = None,
-    reproduce: bool = False,
     reproducer: Reproducer | None = None,
-    at: dt.datetime | str | None = None,
-    require: Iterable[str] = (),
-    now: dt.datetime | None = None,
+    **options: Any,
 ) -> VerifyReport:
-    """Verify a signed calc package (:func:`calcpack.signing.verify.verify_package`, whose
-    arguments these are); with ``reproduce``, the sheets in ``project`` are executed again by
+    """Verify a signed calc package: :func:`calcpack.signing.verify.verify_package`, whose
+    arguments ``options`` are (``project``, ``reproduce``, ``at``, ``require``...); with
+    ``reproduce=True`` the sheets in ``project`` are executed again by
     :func:`reproduce_manifest` unless another ``reproducer`` is given."""
     from calcpack.signing.verify import verify_package as verify
 
-    return verify(
-        pdf,
-        trust,
-        project=project,
-        reproduce=reproduce,
-        reproducer=reproducer or reproduce_manifest,
-        at=at,
-        require=require,
-        now=now,
-    )
+    return verify(pdf, trust, reproducer=reproducer or reproduce_manifest, **options)

@@ -3,7 +3,7 @@ disagreements opened as review comments, listed in the package, and the key resu
 
 Each independent check (:mod:`calcpack.working.verification`) names a result of a preparer's
 sheet. The build finds that result in the sheet's records and compares by the one rule of
-:mod:`calcpack.contract.agreement` (the checker's sheet shows the same comparison in JupyterLab
+:mod:`calcpack.working.agreement` (the checker's sheet shows the same comparison in JupyterLab
 from the preparer's latest record, for the checker only). A disagreement becomes an
 open review comment (once; the checker closes it as any other), so the checker's signature is
 refused by the same rule and override as for open comments.
@@ -20,8 +20,8 @@ from collections.abc import Sequence
 from dataclasses import asdict, dataclass
 from typing import TYPE_CHECKING, Any
 
-from calcpack.contract.agreement import agreement, recorded_result
 from calcpack.errors import BuildError
+from calcpack.working.agreement import agreement, recorded_result
 
 if TYPE_CHECKING:
     from calcpack.package.document import SheetDoc

@@ -15,9 +15,9 @@ from typing import Any
 
 import pint
 
-from calcpack.contract.agreement import Agreement, agreement, recorded_result, to_quantity
 from calcpack.errors import DimensionError, InputError
 from calcpack.units import DisplaySettings, ureg
+from calcpack.working.agreement import Agreement, agreement, recorded_result, to_quantity
 from calcpack.working.format import format_unit_text
 from calcpack.working.links import SheetRef
 from calcpack.working.steps import Table, Text, Value

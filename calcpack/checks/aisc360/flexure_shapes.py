@@ -25,6 +25,7 @@ from typing import Any, Literal
 
 from calcpack.checks.aisc360.flexure_double_angle import double_angle_f9
 from calcpack.checks.aisc360.flexure_tee_bar import BARS, TEES, bar_f11, tee_f9
+from calcpack.checks.aisc360.ltb_f2 import ltb_strength_f2
 from calcpack.checks.aisc360.member_data import SteelMember
 from calcpack.checks.base import Recorder
 from calcpack.errors import OutOfScopeError
@@ -172,31 +173,8 @@ def _ltb_f2(c: Recorder, m: SteelMember, Fy: Any, E: Any, Mp: Any, Sx: Any, chan
         unit="ft",
         ref="AISC 360-16 Eq. (F2-6)",
     )
-    if c.q(Lb) <= c.q(Lp):
-        c.text("$L_b \\le L_p$: lateral-torsional buckling does not apply (§F2.2(a)).")
-        return Mp
-    if c.q(Lb) <= c.q(Lr):
-        return c.derive(
-            "M_n_LTB",
-            Cb * (Mp - (Mp - 0.7 * Fy * Sx) * ((Lb - Lp) / (Lr - Lp))),
-            "inelastic lateral-torsional buckling",
-            unit="kip*ft",
-            ref="AISC 360-16 Eq. (F2-2)",
-        )
-    Fcr = c.derive(
-        "F_cr",
-        Cb * c.pi**2 * E / (Lb / rts) ** 2 * c.sqrt(1 + 0.078 * jc * (Lb / rts) ** 2),
-        "critical stress, elastic LTB",
-        unit="ksi",
-        ref="AISC 360-16 Eq. (F2-4)",
-    )
-    return c.derive(
-        "M_n_LTB",
-        Fcr * Sx,
-        "elastic lateral-torsional buckling",
-        unit="kip*ft",
-        ref="AISC 360-16 Eq. (F2-3)",
-    )
+    Mltb = ltb_strength_f2(c, Lb=Lb, Lp=Lp, Lr=Lr, Cb=Cb, Mp=Mp, Fy=Fy, E=E, Sx=Sx, rts=rts, jc=jc)
+    return Mp if Mltb is None else Mltb
 
 
 def _minor_f6(c: Recorder, m: SteelMember, Fy: Any, E: Any, root: float) -> Any:
