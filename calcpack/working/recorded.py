@@ -26,6 +26,7 @@ from dataclasses import dataclass
 from pathlib import Path
 from typing import Any
 
+from calcpack.errors import CalcpackError
 from calcpack.working.links import SheetRef, code_sha256, inputs_sha256
 
 __all__ = [
@@ -148,7 +149,7 @@ def _record_latest(*_: Any) -> None:
         ref = this_sheet()
         if ref is not None:
             write_results(ref, sheet.records())
-    except OSError as exc:  # the checker is told the record is missing; the sheet goes on
-        import warnings
+    except (OSError, CalcpackError) as exc:  # the checker is told the record is missing;
+        import warnings  # the sheet goes on (an error here would follow every cell run)
 
         warnings.warn(f"calcpack could not record this sheet's results ({exc})", stacklevel=1)

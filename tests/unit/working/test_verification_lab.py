@@ -280,3 +280,15 @@ def test_a_kernel_of_a_build_records_nothing(project, monkeypatch):
     monkeypatch.setenv(SHEET_ENV, "sheets/01_beam.ipynb")
     Sheet("Beam", auto_display=False).given("M_max", 45 * ureg.kN * ureg.m, "maximum moment")
     assert events.hooks == []
+
+
+def test_a_project_file_broken_while_the_kernel_runs_is_a_warning_not_an_error(
+    project, monkeypatch
+):
+    events = _fake_kernel(monkeypatch)
+    monkeypatch.setenv(SHEET_ENV, "sheets/01_beam.ipynb")
+    s = Sheet("Beam", auto_display=False)  # kept, as a notebook keeps its sheet
+    s.given("M_max", 45 * ureg.kN * ureg.m, "maximum moment")
+    (project / "calcpack.toml").write_text("[[sheets]\n", encoding="utf-8")
+    with pytest.warns(UserWarning, match="could not record this sheet's results"):
+        events.hooks[0][1]()
