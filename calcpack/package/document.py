@@ -379,7 +379,7 @@ def _assumptions(project: Project, sheets: Sequence[SheetDoc]) -> str:
         + body
         + '<div class="cp-cautions" id="cautions"><div class="cp-cautions-title">Cautions</div>'
         + _list(cautions, ordered=True)
-        + "</div>"
+        + '<div class="cp-boxend"></div></div>'
     )
 
 

@@ -283,7 +283,8 @@ def _step_html_body(step: Step) -> str:
         cap = f"<caption>{_prose_html(step.caption)}</caption>" if step.caption else ""
         return (
             f'<div class="cp-step cp-table"><table>{cap}<thead><tr>{head}</tr></thead>'
-            f"<tbody>{body}</tbody></table></div>"
+            # the end of a box that may run over a page (the PDF's "continued" mark stops)
+            f'<tbody>{body}</tbody></table><div class="cp-boxend"></div></div>'
         )
     if isinstance(step, Figure):
         return _figure_html(step)

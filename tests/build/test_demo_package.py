@@ -244,3 +244,32 @@ def test_summary_page_numbers_are_the_checks_own_pages(
             seen.add(target)
     checks = sum(len(s["checks"]) for s in demo_manifest["sheets"])
     assert len(seen) == checks  # every check of every sheet has its link
+
+
+def test_pagination_rules(demo_reader: PdfReader, demo_manifest: dict[str, Any]) -> None:
+    """No heading ends a page, and no page leaves more than a third of its body blank except
+    the last page of a section (measured on the PDF: tests/build/pagerules.py)."""
+    from pagerules import violations
+
+    assert violations(demo_reader, demo_manifest["sections"]) == []
+
+
+def test_pagination_rules_catch_a_heading_at_the_foot(tmp_path: Path) -> None:
+    """The measurement itself: a heading pushed to the foot of a page, and a half-empty page,
+    are found."""
+    from pagerules import violations
+    from weasyprint import HTML
+
+    filler = "".join(f"<p>line {i}</p>" for i in range(36))
+    html = (
+        "<html><head><style>@page { size: A4; margin: 41mm 14mm 17mm 19mm; } "
+        "p, h2 { font: 9.5pt 'Liberation Sans', 'DejaVu Sans'; margin: 0 0 2.9mm 0; } "
+        "h2 { font-weight: bold; } .next { break-before: page; }</style></head><body>"
+        f"<p>cover</p><p class='next'>first</p>{filler}<h2>Heading at the foot</h2>"
+        "<p class='next'>half a page</p><p class='next'>last</p></body></html>"
+    )
+    pdf = tmp_path / "rules.pdf"
+    HTML(string=html).write_pdf(pdf)
+    found = violations(PdfReader(pdf), {"cover": [1, 1], "all": [2, 4]})
+    assert any("Heading at the foot" in v for v in found), found
+    assert any(v.startswith("page 3:") and "blank" in v for v in found), found
