@@ -105,12 +105,16 @@ def _checklists_html(statuses: Sequence[ItemStatus]) -> str:
             "count above holds only the checks the sheets themselves record.</p>"
         )
 
+    from calcpack.working.render import symbols_html
+
     def status(st: ItemStatus) -> str:
         return _verdict(st.status) if st.status == "NOT COVERED" else _e(st.status)
 
+    # item words and reasons may name symbols ("lateral stability (C_L)"): set them as symbols
     rows = "".join(
         f"<tr><td>{_e(st.sheet)}</td><td>{_e(st.member)}</td><td>{_e(st.member_type)}</td>"
-        f"<td>{_e(st.item)}</td><td>{status(st)}</td><td>{_e(st.detail)}</td></tr>"
+        f"<td>{symbols_html(_e(st.item))}</td><td>{status(st)}</td>"
+        f"<td>{symbols_html(_e(st.detail))}</td></tr>"
         for st in statuses
     )
     return (

@@ -67,3 +67,17 @@ def test_a_check_added_later_meets_its_item_and_the_count_falls(tmp_path: Path) 
     root = write_linked_project(tmp_path, {"beam": more, "post": POST}, ["beam", "post"])
     _, docs = _docs(root)
     assert check_counts(docs)["checklist"] == 5
+
+
+def test_checklist_items_that_name_a_symbol_are_set_as_symbols() -> None:
+    """The timber beam's item "bending, with lateral stability (C_L)" reads as C with a
+    subscript L in the summary, never as a raw identifier."""
+    from calcpack.checks.checklists import ItemStatus
+    from calcpack.package.summary import _checklists_html
+
+    html = _checklists_html(
+        [ItemStatus("2", "BR1", "timber beam", "bending, with lateral stability (C_L)", "met",
+                    "sheet 2: Bending")]  # fmt: skip
+    )
+    assert "(<i>C</i><sub><i>L</i></sub>)" in html
+    assert "C_L" not in html
