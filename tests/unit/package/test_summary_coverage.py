@@ -76,8 +76,16 @@ def test_checklist_items_that_name_a_symbol_are_set_as_symbols() -> None:
     from calcpack.package.summary import _checklists_html
 
     html = _checklists_html(
-        [ItemStatus("2", "BR1", "timber beam", "bending, with lateral stability (C_L)", "met",
-                    "sheet 2: Bending")]  # fmt: skip
+        [
+            ItemStatus(
+                "2",
+                "BR1",
+                "timber beam",
+                "bending, with lateral stability (C_L)",
+                "met",
+                "sheet 2: Bending",
+            )
+        ]
     )
     assert "(<i>C</i><sub><i>L</i></sub>)" in html
     assert "C_L" not in html
