@@ -47,9 +47,11 @@ FIGURE = f'<img src="{SVG}" alt="Elevation of lintel L1 with the 2.5 kN/m load."
 
 
 def tagged_stand_in(counts: dict[str, int]) -> str:
-    """The stand-in package with a language, and a table and figure in sheet 3."""
+    """The stand-in package with a language, a heading "Results" in every sheet and, in sheet 3,
+    a heading "Loads" over a table and a figure."""
     html = stand_in(counts).replace("<html>", '<html lang="en">', 1)
-    return html.replace("<h1>Sheet 3</h1>", f"<h1>Sheet 3</h1>{TABLE}{FIGURE}", 1)
+    html = html.replace("<h1>Sheet 3</h1>", f"<h1>Sheet 3</h1><h2>Loads</h2>{TABLE}{FIGURE}", 1)
+    return html.replace("<p>page 1</p>", "<p>page 1</p><h2>Results</h2>")
 
 
 def joined(manifest: dict[str, Any] | None = None) -> bytes:
@@ -223,3 +225,26 @@ def test_signing_keeps_tags_and_archival_identification(package: bytes, tmp_path
     )
     assert structure_summary(signed)["types"] == structure_summary(unsigned)["types"]
     assert archival_problems(signed, tmp_path) == []
+
+
+def test_bookmarks_nest_sections_under_their_sheet_across_chunks(package: bytes) -> None:
+    reader = PdfReader(io.BytesIO(package))
+    outline = reader.outline
+    tops = [item.title for item in outline if not isinstance(item, list)]
+    assert tops == ["Cover", "Contents", *[f"Sheet {i}" for i in range(1, 5)], "Summary"]
+    nested = {
+        outline[i - 1].title: [item.title for item in outline[i]]
+        for i in range(1, len(outline))
+        if isinstance(outline[i], list)
+    }
+    assert nested == {
+        "Sheet 1": ["Results"],
+        "Sheet 2": ["Results"],
+        "Sheet 3": ["Loads", "Results"],
+        "Sheet 4": ["Results"],
+    }
+    for i in range(1, len(outline)):
+        if isinstance(outline[i], list):
+            sheet = reader.get_destination_page_number(outline[i - 1])
+            pages = [reader.get_destination_page_number(item) for item in outline[i]]
+            assert all(sheet <= p < sheet + 3 for p in pages)  # within its sheet
