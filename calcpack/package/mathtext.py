@@ -58,6 +58,25 @@ def _superscript(base: str, script: str) -> str:
     return f"{base}^{_group(script)}"
 
 
+_MARK_WORDS = {"star": "*", "prime": "′"}
+"""Words a symbol's subscript may carry for a mark (``F_{c,\\mathrm{star}}``), written as the
+mark after the symbol, as the typeset prose writes them (working/render.py)."""
+
+
+def _subscripted(base: str, subscript: str) -> str:
+    """A symbol with its subscript run on; mark words become marks, "perp" becomes ⊥."""
+    parts, marks = [], ""
+    for part in subscript.split(","):
+        word = part.strip()
+        if word in _MARK_WORDS:
+            marks += _MARK_WORDS[word]
+        elif word.endswith("perp"):
+            parts.append(word[:-4] + "⊥")
+        else:
+            parts.append(part)
+    return base + ",".join(parts) + marks
+
+
 def _words(element: ET.Element) -> str:
     tag = _tag(element)
     kids = list(element)
@@ -80,7 +99,7 @@ def _words(element: ET.Element) -> str:
     if tag == "mroot" and len(kids) == 2:
         return f"{_words(kids[1])}√{_group(_words(kids[0]))}"
     if tag == "msub" and len(kids) == 2:
-        return _words(kids[0]) + _words(kids[1]).strip()
+        return _subscripted(_words(kids[0]), _words(kids[1]).strip())
     if tag in ("munder", "munderover") and len(kids) >= 2:  # a sum or integral with limits
         limits = "…".join(_words(k).strip() for k in kids[1:])
         return f"{_words(kids[0]).strip()}[{limits}] "

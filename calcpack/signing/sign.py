@@ -336,6 +336,7 @@ def sign_package(
     from pyhanko.sign import fields, signers
     from pyhanko.sign.general import SigningError as LibrarySigningError
 
+    from calcpack.signing.archival import keep_archival_metadata
     from calcpack.signing.fonts import stamp_font
 
     check_role(role)
@@ -387,6 +388,8 @@ def sign_package(
         else load_credentials(key, password, certificate=certificate)
     )
     contradictions = _check_signer(role, creds, existing, manifest, source, override_identity)
+    # after every reading of the package: the update's root differs from here on
+    keep_archival_metadata(writer)
 
     for r in ROLES:
         if r in boxes and not _has_field(writer, field_name(r)):

@@ -32,6 +32,9 @@ CASES = [
     (r"\bar{x}{}^{2}", "x̄²"),
     (r"F_{c}^{*} = -3.20\ \mathrm{kN}", "Fc* = −3.20 kN"),
     (r"10^{-3}", "10⁻³"),
+    # words for marks in a subscript are written as the marks (as the prose writes them)
+    (r"F_{c,\mathrm{star},\mathrm{TC}}", "Fc,TC*"),
+    (r"F_{c,\mathrm{prime}} \le F_{\mathrm{cperp}}", "Fc′ ≤ Fc⊥"),
     (r"x^{a+b}", "x^(a + b)"),
     (r"\sum_{i=1}^{n} F_{i} = 0", "∑[i = 1…n] Fi = 0"),
     (r"\frac{\pi^{2} E I}{L^{2}}", "π²EI/L²"),

@@ -46,18 +46,28 @@ SVG = (
 FIGURE = f'<img src="{SVG}" alt="Elevation of lintel L1 with the 2.5 kN/m load.">'
 
 
+CHECKER_BOX = (
+    '<div id="cp-sign-preparer"></div>'
+    '<div id="cp-sign-checker" style="height: 20mm; border: 1px solid black"></div>'
+)
+
+
 def tagged_stand_in(counts: dict[str, int]) -> str:
     """The stand-in package with a language, a heading "Results" in every sheet and, in sheet 3,
     a heading "Loads" over a table and a figure."""
     html = stand_in(counts).replace("<html>", '<html lang="en">', 1)
     html = html.replace("<h1>Sheet 3</h1>", f"<h1>Sheet 3</h1><h2>Loads</h2>{TABLE}{FIGURE}", 1)
+    html = html.replace('<div id="cp-sign-preparer"></div>', CHECKER_BOX, 1)
     return html.replace("<p>page 1</p>", "<p>page 1</p><h2>Results</h2>")
 
 
 def joined(manifest: dict[str, Any] | None = None) -> bytes:
     """The stand-in laid out one sheet per chunk and joined (with a manifest if given)."""
     layout = paginate(
-        tagged_stand_in, sheet_ids=SHEET_IDS, section_ids=SECTION_IDS, roles=("preparer",)
+        tagged_stand_in,
+        sheet_ids=SHEET_IDS,
+        section_ids=SECTION_IDS,
+        roles=("preparer", "checker"),
     )
     attachments = []
     if manifest is not None:
@@ -75,7 +85,7 @@ def package() -> Iterator[bytes]:
 
     with pytest.MonkeyPatch.context() as mp:
         mp.setattr(pg, "CHUNK_HTML_CHARS", 1)
-        yield joined(make_manifest(roles=("preparer",)))
+        yield joined(make_manifest(roles=("preparer", "checker")))
 
 
 def poppler_structure(pdf: bytes, tmp_path: Path) -> list[str]:
@@ -191,6 +201,11 @@ def archival_problems(pdf: bytes, tmp_path: Path) -> list[str]:
         problems.append("no PDF/A output intent with a profile")
     if "/ID" not in reader.trailer:
         problems.append("no file identifier")
+    # document information and XMP agree (ISO 19005-3 §6.6.2.3.1), the producer for one
+    producer = re.search(r'pdf:Producer="([^"]*)"|<pdf:Producer>([^<]*)<', xmp)
+    info = reader.metadata or {}
+    if producer is None or (producer[1] or producer[2]) != info.get("/Producer"):
+        problems.append(f"producer differs: {info.get('/Producer')!r} against the XMP's")
     path = tmp_path / "archive.pdf"
     path.write_bytes(pdf)
     fonts = subprocess.run(["pdffonts", str(path)], capture_output=True, text=True, check=True)
@@ -218,6 +233,9 @@ def test_signing_keeps_tags_and_archival_identification(package: bytes, tmp_path
     path.write_bytes(unsigned)
     demo = make_demo_credentials(tmp_path / "keys")
     sign_package(path, "preparer", demo.keys["preparer"], demo.password)
+    assert archival_problems(path.read_bytes(), tmp_path) == []
+    # the second signature reads the package before pyHanko writes its metadata
+    sign_package(path, "checker", demo.keys["checker"], demo.password)
     signed = path.read_bytes()
     assert signed.startswith(unsigned)  # an incremental update: nothing rewritten
     assert headings(poppler_structure(signed, tmp_path)) == headings(
