@@ -227,9 +227,11 @@ def test_joined_package_is_identified_as_pdf_a_3b(package: bytes, tmp_path: Path
 def test_signing_keeps_tags_and_archival_identification(package: bytes, tmp_path: Path) -> None:
     from calcpack.signing.keys import make_demo_credentials
     from calcpack.signing.sign import sign_package
+    from calcpack.signing.verify import verify_package
 
     unsigned = package
-    path = tmp_path / "package.pdf"
+    (tmp_path / "signed").mkdir()
+    path = tmp_path / "signed" / "package.pdf"
     path.write_bytes(unsigned)
     demo = make_demo_credentials(tmp_path / "keys")
     sign_package(path, "preparer", demo.keys["preparer"], demo.password)
@@ -243,6 +245,9 @@ def test_signing_keeps_tags_and_archival_identification(package: bytes, tmp_path
     )
     assert structure_summary(signed)["types"] == structure_summary(unsigned)["types"]
     assert archival_problems(signed, tmp_path) == []
+    # the carried metadata is an allowed change: both signatures still verify
+    report = verify_package(path, [demo.root])
+    assert report.ok, report
 
 
 def test_bookmarks_nest_sections_under_their_sheet_across_chunks(package: bytes) -> None:
