@@ -106,7 +106,8 @@ def _words(element: ET.Element) -> str:
     if tag == "msup" and len(kids) == 2:
         return _superscript(_words(kids[0]), _words(kids[1]).strip())
     if tag == "msubsup" and len(kids) == 3:
-        return _superscript(_words(kids[0]) + _words(kids[1]).strip(), _words(kids[2]).strip())
+        symbol = _subscripted(_words(kids[0]), _words(kids[1]).strip())
+        return _superscript(symbol, _words(kids[2]).strip())
     if tag == "mover" and len(kids) == 2:
         accent = _words(kids[1]).strip()
         marks = {"¯": "\u0304", "‾": "\u0305", "^": "\u0302", "~": "\u0303", "˙": "\u0307"}

@@ -35,6 +35,7 @@ CASES = [
     # words for marks in a subscript are written as the marks (as the prose writes them)
     (r"F_{c,\mathrm{star},\mathrm{TC}}", "Fc,TC*"),
     (r"F_{c,\mathrm{prime}} \le F_{\mathrm{cperp}}", "Fc′ ≤ Fc⊥"),
+    (r"F_{\mathrm{cperp}}^{\prime} = 419\ \mathrm{psi}", "Fc⊥′ = 419 psi"),
     (r"x^{a+b}", "x^(a + b)"),
     (r"\sum_{i=1}^{n} F_{i} = 0", "∑[i = 1…n] Fi = 0"),
     (r"\frac{\pi^{2} E I}{L^{2}}", "π²EI/L²"),
@@ -78,3 +79,18 @@ def test_each_formula_image_carries_its_words() -> None:
         assert MONO_ADVANCE_EM * len(text) * size == pytest.approx(width, abs=0.01) or (
             size == 12.7 and MONO_ADVANCE_EM * len(text) * size < width
         )
+
+
+def test_pi_stays_a_symbol_in_the_working_and_its_text() -> None:
+    """π written with ``calcpack.working.pi`` prints as π, never as 9.8696 (π² evaluated)."""
+    from calcpack.working import pi
+
+    sheet = Sheet("golden", auto_display=False)
+    E = sheet.given("E", 9.0 * ureg.GPa, "modulus")
+    lam = sheet.given("lambda_c", 80, "slenderness")
+    F = sheet.derive("F_cr", pi**2 * E / lam**2, "buckling stress", unit="MPa")
+    # π² E / λ² with E = 9000 MPa, λ = 80: 13.88 MPa (hand arithmetic, common practice)
+    assert F.quantity.to("MPa").magnitude == pytest.approx(13.879, rel=1e-4)
+    text = tex_to_text(F.latex().strip("$"))
+    assert text == "Fcr = π²E/λc² = (π²(9.00 GPa))/80.0² = 13.9 MPa"
+    assert "9.869" not in text
