@@ -40,6 +40,10 @@ from calcpack.analysis.freebody import (
     PointForce as PointForce,
     solve_free_body as solve_free_body,
 )
+from calcpack.analysis.truss_envelope import (
+    MemberEnvelope as MemberEnvelope,
+    member_envelopes as member_envelopes,
+)
 from calcpack.analysis.truss_model import (
     JointLoad as JointLoad,
     Member as Member,
@@ -90,6 +94,16 @@ from calcpack.checks.aisc360.bracing import (
 from calcpack.checks.aisc360.bracing_torsional import (
     TorsionalBraceCase as TorsionalBraceCase,
     check_aisc_torsional_bracing as check_aisc_torsional_bracing,
+)
+from calcpack.checks.aisc360.combined_h2 import (
+    H2Case as H2Case,
+    H2Point as H2Point,
+    angle_h2_case as angle_h2_case,
+    check_aisc_h2 as check_aisc_h2,
+)
+from calcpack.checks.aisc360.compression_angle import (
+    AngleStrut as AngleStrut,
+    check_aisc_angle_strut as check_aisc_angle_strut,
 )
 from calcpack.checks.aisc360.elements import (
     BlockShear as BlockShear,
@@ -189,6 +203,7 @@ from calcpack.checks.nds.values import (
     TimberValues as TimberValues,
     nds_glulam_values as nds_glulam_values,
     nds_sawn_values as nds_sawn_values,
+    southern_pine_size_factor as southern_pine_size_factor,
 )
 from calcpack.checks.nds.withdrawal import (
     check_nds_combined as check_nds_combined,
@@ -251,6 +266,7 @@ from calcpack.loads.roof_profiles import (
     snow_profiles_asce7 as snow_profiles_asce7,
     snow_profiles_en as snow_profiles_en,
     wind_profiles_asce7 as wind_profiles_asce7,
+    wind_profiles_asce7_directional as wind_profiles_asce7_directional,
     wind_profiles_en as wind_profiles_en,
 )
 from calcpack.loads.snow_asce7 import (
@@ -281,6 +297,11 @@ from calcpack.loads.wind_asce7 import (
     WindSiteASCE7 as WindSiteASCE7,
     velocity_pressure_asce7 as velocity_pressure_asce7,
 )
+from calcpack.loads.wind_asce7_directional import (
+    DirectionalBuildingASCE7 as DirectionalBuildingASCE7,
+    DirectionalWindASCE7 as DirectionalWindASCE7,
+    directional_wind_asce7 as directional_wind_asce7,
+)
 from calcpack.loads.wind_asce7_lowrise import (
     LowRiseBuildingASCE7 as LowRiseBuildingASCE7,
     components_wind_asce7 as components_wind_asce7,
@@ -301,6 +322,9 @@ from calcpack.package import (
     load_project as load_project,
     new_project as new_project,
     read_manifest as read_manifest,
+)
+from calcpack.package.reproduce import (
+    verify_package as verify_package,
 )
 from calcpack.plots.footing import (
     FootingSketch as FootingSketch,
@@ -333,6 +357,9 @@ from calcpack.sections.aisc_database import (
     aisc_shape_names as aisc_shape_names,
     steel_grade as steel_grade,
 )
+from calcpack.sections.double_angle import (
+    double_angle as double_angle,
+)
 from calcpack.sections.eurocode_tables import (
     EuroSection as EuroSection,
     euro_section as euro_section,
@@ -349,7 +376,6 @@ from calcpack.signing import (
     diff_packages as diff_packages,
     make_demo_credentials as make_demo_credentials,
     sign_package as sign_package,
-    verify_package as verify_package,
 )
 from calcpack.sizing import (
     Candidate as Candidate,

@@ -11,6 +11,8 @@ Example::
     positive("L", L)
     method = one_of("method", method, ("LRFD", "ASD"))
     shape = lookup("designation", "W18X50", table)   # "did you mean ..." on a typo
+    Lb = required("Lb", Lb, expected="a length", when="with Mu")
+    source = non_empty("source", source, expected="'NDS Supplement 2018 Table 4A'")
 """
 
 from __future__ import annotations
@@ -67,8 +69,9 @@ def finite(name: str, value: T) -> T:
     return value
 
 
-def positive(name: str, value: T, *, allow_zero: bool = False) -> T:
-    """Require a finite value > 0 (or >= 0 with ``allow_zero``)."""
+def positive(name: str, value: T, *, allow_zero: bool = False, note: str | None = None) -> T:
+    """Require a finite value > 0 (or >= 0 with ``allow_zero``); ``note`` (what the value
+    belongs to, or the clause) is added to the message."""
     finite(name, value)
     x = _magnitude(name, value)
     ok = x >= 0 if allow_zero else x > 0
@@ -79,6 +82,7 @@ def positive(name: str, value: T, *, allow_zero: bool = False) -> T:
             value=value,
             rule=rule,
             expected="a value >= 0" if allow_zero else "a value > 0",
+            note=note,
         )
     return value
 
@@ -113,6 +117,74 @@ def within(
     else:
         span = f"at most {hi_s}" if inclusive else f"less than {hi_s}"
     raise InputError(name=name, value=value, rule=f"must be {span}", expected=span, note=rule)
+
+
+def required(name: str, value: T | None, *, expected: str, when: str | None = None) -> T:
+    """Require an input that may be left out elsewhere but is needed here (not None).
+
+    Args:
+        expected: what to give, in words (``"a length"``, ``"the bolt spacing"``).
+        when: what needs it, as it follows "is required" (``"with Mu"``, ``"for a roof
+            step"``).
+    """
+    if value is None:
+        raise InputError(
+            name=name,
+            value=None,
+            rule="is required" + (f" {when}" if when else ""),
+            expected=expected,
+            note=f"give {expected}",
+        )
+    return value
+
+
+def non_empty(name: str, value: Any, *, expected: str) -> str:
+    """Require a text that says something (a source, a case name, a reason): a string that is
+    not blank. Returns it stripped.
+
+    Args:
+        expected: an example or description of a good value (``"e.g. 'ASCE 7-16 Figure
+            7.2-1'"``).
+    """
+    if not isinstance(value, str) or not value.strip():
+        raise InputError(
+            name=name,
+            value=value,
+            rule="must be stated (a text that is not blank)",
+            expected=expected,
+            note=expected,
+        )
+    return value.strip()
+
+
+def instance(name: str, value: Any, kinds: type | tuple[type, ...], *, expected: str) -> Any:
+    """Require ``value`` to be of one of the types ``kinds``; ``expected`` names them for the
+    user (``"a FootingLoad"``, ``"aisc_shape('W8X18') or similar"``). True and False are not
+    numbers here unless ``bool`` is among the kinds."""
+    allowed = kinds if isinstance(kinds, tuple) else (kinds,)
+    if not isinstance(value, allowed) or (isinstance(value, bool) and bool not in allowed):
+        raise InputError(
+            name=name,
+            value=value,
+            rule=f"must be {expected}",
+            expected=expected,
+            note=f"got a {type(value).__name__}",
+        )
+    return value
+
+
+def whole(name: str, value: Any, lo: int | None = None, hi: int | None = None) -> int:
+    """Require a whole number (an int, not a bool), optionally lo <= value <= hi."""
+    if isinstance(value, bool) or not isinstance(value, int):
+        span = "" if lo is None else f" of at least {lo}"
+        raise InputError(
+            name=name,
+            value=value,
+            rule=f"must be a whole number{span}",
+            expected=f"a whole number{span}",
+        )
+    within(name, value, lo, hi)
+    return value
 
 
 def suggest(key: str, options: Iterable[str]) -> list[str]:

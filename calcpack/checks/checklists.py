@@ -15,11 +15,12 @@ from __future__ import annotations
 
 import re
 from collections.abc import Iterable, Mapping, Sequence
-from dataclasses import dataclass
+from dataclasses import dataclass, field
 from pathlib import Path
 from typing import Any, Literal
 
 from calcpack.errors import InputError
+from calcpack.validate import non_empty
 
 __all__ = [
     "CHECKLIST_FILE",
@@ -193,6 +194,8 @@ class MemberChecklist:
         not_applicable: item -> the reason it does not apply.
         met_by: item -> the member (or check name) whose check meets it (``"P1"``).
         source: the table's source (common practice, or the firm's own).
+        not_covered: item -> why the package leaves it unchecked (it stays NOT COVERED, with
+            the reason shown beside it).
     """
 
     member: str
@@ -201,6 +204,7 @@ class MemberChecklist:
     not_applicable: Mapping[str, str]
     met_by: Mapping[str, str]
     source: str
+    not_covered: Mapping[str, str] = field(default_factory=dict)
 
     def to_json(self) -> dict[str, Any]:
         return {
@@ -213,6 +217,7 @@ class MemberChecklist:
                     "matches": i.matches,
                     "not_applicable": self.not_applicable.get(i.item),
                     "met_by": self.met_by.get(i.item),
+                    "not_covered": self.not_covered.get(i.item),
                 }
                 for i in self.items
             ],
@@ -225,6 +230,7 @@ def member_checklist(
     member: str,
     not_applicable: Mapping[str, str] | None = None,
     met_by: Mapping[str, str] | None = None,
+    not_covered: Mapping[str, str] | None = None,
     project_root: Path | None = None,
 ) -> MemberChecklist:
     """A member's checklist, validated.
@@ -236,32 +242,32 @@ def member_checklist(
         member: the member's mark, as its checks name it (``"B1"``).
         not_applicable: item -> reason it does not apply (words, required).
         met_by: item -> the member or check that meets it elsewhere (``"P1"``).
+        not_covered: item -> why the package does not check it (words, required): it stays
+            NOT COVERED in the summary and on the cover, with the reason beside it.
         project_root: the project folder (for its own table).
 
     Raises:
-        InputError: unknown member type or item, an empty reason, an item both not applicable
-            and met elsewhere, or no member mark.
+        InputError: unknown member type or item, an empty reason, an item declared in more
+            than one of not_applicable, met_by and not_covered, or no member mark.
     """
-    if not isinstance(member, str) or not member.strip():
-        raise InputError(
-            f"A checklist needs the member's mark, as its checks name it (got member = {member!r})",
-            name="member",
-            value=member,
-            expected='a mark such as "B1"',
-        )
+    non_empty("member", member, expected='the member\'s mark as its checks name it, e.g. "B1"')
     kind, items, source = checklist_items(member_type, project_root)
     na = _reasons("not_applicable", not_applicable, items)
     met = _reasons("met_by", met_by, items)
-    both = sorted(set(na) & set(met))
-    if both:
-        raise InputError(
-            f"Checklist of {member}: {both[0]!r} is declared both not applicable and met by "
-            f"{met[both[0]]!r}; choose one",
-            name="not_applicable",
-            value=both[0],
-            expected="an item in only one of not_applicable and met_by",
-        )
-    return MemberChecklist(member.strip(), kind, items, na, met, source)
+    nc = _reasons("not_covered", not_covered, items)
+    declared = (("not_applicable", na), ("met_by", met), ("not_covered", nc))
+    for i, (first, a) in enumerate(declared):
+        for second, b in declared[i + 1 :]:
+            both = sorted(set(a) & set(b))
+            if both:
+                raise InputError(
+                    f"Checklist of {member}: {both[0]!r} is declared both {first} "
+                    f"({a[both[0]]!r}) and {second} ({b[both[0]]!r}); choose one",
+                    name=first,
+                    value=both[0],
+                    expected=f"an item in only one of {first} and {second}",
+                )
+    return MemberChecklist(member.strip(), kind, items, na, met, source, nc)
 
 
 def member_matches(mark: str, check_member: str | None) -> bool:
@@ -322,6 +328,10 @@ def resolve_checklists(
             reason = it.get("not_applicable")
             if reason:
                 out.append(ItemStatus(sheet, mark, kind, item, "not applicable", str(reason)))
+                continue
+            left = it.get("not_covered")
+            if left:
+                out.append(ItemStatus(sheet, mark, kind, item, "NOT COVERED", str(left)))
                 continue
             other = it.get("met_by")
             if other:

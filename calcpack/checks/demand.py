@@ -49,6 +49,8 @@ def as_combinations(
         return dict(demand)
     if hasattr(demand, "moment") and hasattr(demand, "shear"):
         return {getattr(demand, "label", "result"): demand}
+    if hasattr(demand, "truss") and hasattr(demand, "displacements"):
+        return {getattr(demand, "label", None) or "result": demand}
     raise InputError(
         f"{name} must be combined results (analyse_combinations), a mapping of combination "
         f"name to beam result, or one beam result (got {type(demand).__name__})",

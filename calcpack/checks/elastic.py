@@ -15,7 +15,7 @@ from calcpack.checks.base import MemberChecks, Recorder, Standard, run_checks
 from calcpack.checks.demand import as_combinations, max_abs
 from calcpack.errors import InputError
 from calcpack.units import Q_, Quantity, require, ureg
-from calcpack.validate import finite
+from calcpack.validate import finite, instance, non_empty, positive, required
 
 __all__ = ["ELASTIC", "SERVICEABILITY", "check_deflection", "check_elastic_beam"]
 
@@ -37,14 +37,20 @@ SERVICEABILITY = Standard(
 
 
 def _need_source(source: str | None, what: str) -> str:
-    if not source or not str(source).strip():
-        raise InputError(
-            f"The source of the {what} must be given (got allowable_source = {source!r})",
-            name="allowable_source",
-            value=source,
-            expected="e.g. 'BS 5268-2 Table 17' or 'client specification §4'",
-        )
-    return str(source)
+    return non_empty(
+        "allowable_source",
+        source,
+        expected=f"the source of the {what}, e.g. 'BS 5268-2 Table 17' or 'client spec. §4'",
+    )
+
+
+def _section_value(
+    rec: Recorder, symbol: str, q: Any, dim: str, what: str, *, name: str | None = None
+) -> Any:
+    """A section property given on the sheet: positive, of dimension ``dim``, named ``name``
+    (the argument; the symbol by default) in a refusal."""
+    value = require(q, dim, name or symbol, positive=True)
+    return rec.given(symbol, value, what, source="section properties")
 
 
 def _governing(demand: Any, what: str) -> tuple[Quantity, str]:
@@ -73,14 +79,9 @@ def _demand_value(
     """
     if combos is not None:
         return _governing(combos, action)
-    if given is not None:
-        return require(given, dimension, name), combination
-    raise InputError(
-        f"{check} check needs demand= or {name}=",
-        name=name,
-        value=None,
-        expected=f"a {'moment' if action == 'moment' else 'force'}",
-    )
+    what = f"a {'moment' if action == 'moment' else 'force'}"
+    required(name, given, expected=f"{what}, or demand=", when=f"for the {check} check")
+    return require(given, dimension, name), combination
 
 
 def check_elastic_beam(
@@ -131,28 +132,13 @@ def check_elastic_beam(
             rec.heading("Bending stress", 3)
             Mh = rec.given("M", Mq, "largest |M|", source=combo or "given")
             if S is not None:
-                Sh = rec.given(
-                    "S",
-                    require(S, "[length]**3", "S", positive=True),
-                    "section modulus",
-                    source="section properties",
-                )
+                Sh = _section_value(rec, "S", S, "[length]**3", "section modulus")
                 sig = rec.derive(
                     "sigma_b", Mh / Sh, "bending stress", ref="M/S", unit=str(sigma_allow.units)
                 )
             elif I is not None and c is not None:
-                Ih = rec.given(
-                    "I",
-                    require(I, "[length]**4", "I", positive=True),
-                    "second moment of area",
-                    source="section properties",
-                )
-                ch = rec.given(
-                    "c",
-                    require(c, "[length]", "c", positive=True),
-                    "extreme fibre distance",
-                    source="section properties",
-                )
+                Ih = _section_value(rec, "I", I, "[length]**4", "second moment of area")
+                ch = _section_value(rec, "c", c, "[length]", "extreme fibre distance")
                 sig = rec.derive(
                     "sigma_b",
                     Mh * ch / Ih,
@@ -161,12 +147,7 @@ def check_elastic_beam(
                     unit=str(sigma_allow.units),
                 )
             else:
-                raise InputError(
-                    "Bending check needs S, or I and c (got neither)",
-                    name="S",
-                    value=None,
-                    expected="S or I and c",
-                )
+                required("S", S, expected="S, or I and c", when="for the bending check")
             al = rec.given("sigma_allow", sigma_allow, "allowable bending stress", source=src)
             rec.check("Bending stress", sig, al, ref=src, combination=combo)
             made = True
@@ -176,11 +157,13 @@ def check_elastic_beam(
             rec.heading("Shear stress", 3)
             Vh = rec.given("V", Vq, "largest |V|", source=combo or "given")
             if A_rect is not None:
-                Ah = rec.given(
+                Ah = _section_value(
+                    rec,
                     "A",
-                    require(A_rect, "[length]**2", "A_rect", positive=True),
+                    A_rect,
+                    "[length]**2",
                     "area of the rectangular section",
-                    source="section properties",
+                    name="A_rect",
                 )
                 tau = rec.derive(
                     "tau",
@@ -190,19 +173,11 @@ def check_elastic_beam(
                     unit=str(tau_allow.units),
                 )
             elif Q is not None and I is not None and t is not None:
-                Qh = rec.given(
-                    "Q",
-                    require(Q, "[length]**3", "Q", positive=True),
-                    "first moment of area above the neutral axis",
-                    source="section properties",
+                Qh = _section_value(
+                    rec, "Q", Q, "[length]**3", "first moment of area above the neutral axis"
                 )
                 Ih = rec.given("I", I, "second moment of area", source="section properties")
-                th = rec.given(
-                    "t",
-                    require(t, "[length]", "t", positive=True),
-                    "width at the neutral axis",
-                    source="section properties",
-                )
+                th = _section_value(rec, "t", t, "[length]", "width at the neutral axis")
                 tau = rec.derive(
                     "tau",
                     Vh * Qh / (Ih * th),
@@ -211,24 +186,15 @@ def check_elastic_beam(
                     unit=str(tau_allow.units),
                 )
             else:
-                raise InputError(
-                    "Shear check needs A_rect (rectangle), or Q, I and t",
-                    name="A_rect",
-                    value=None,
-                    expected="A_rect or Q, I, t",
+                required(
+                    "A_rect", A_rect, expected="A_rect (rectangle), or Q, I and t", when="for shear"
                 )
             al = rec.given("tau_allow", tau_allow, "allowable shear stress", source=src)
             rec.check("Shear stress", tau, al, ref=src, combination=combo)
             made = True
         if bearing_allow is not None:
             require(bearing_allow, "[pressure]", "bearing_allow", positive=True)
-            if bearing_area is None:
-                raise InputError(
-                    "Bearing check needs bearing_area",
-                    name="bearing_area",
-                    value=None,
-                    expected="an area",
-                )
+            required("bearing_area", bearing_area, expected="an area", when="for bearing")
             require(bearing_area, "[length]**2", "bearing_area", positive=True)
             if R is not None:
                 Rq, combo = require(R, "[force]", "R"), combination
@@ -241,9 +207,7 @@ def check_elastic_beam(
                 assert best is not None
                 Rq, combo = best[0], best[1]
             else:
-                raise InputError(
-                    "Bearing check needs demand= or R=", name="R", value=None, expected="a force"
-                )
+                required("R", R, expected="a force, or demand=", when="for bearing")
             rec.heading("Bearing", 3)
             Rh = rec.given("R", Rq, "largest reaction", source=combo or "given")
             Ab = rec.given("A_b", bearing_area, "bearing area", source="detail")
@@ -264,6 +228,21 @@ def check_elastic_beam(
     return run_checks(member, f"{member}: elastic stress checks", ELASTIC, logic)
 
 
+def _truss_deflection(name: str, result: Any) -> tuple[Quantity, str]:
+    """The largest vertical joint displacement of a truss result, and where it is."""
+    if result.displacements is None:
+        raise InputError(
+            f"Truss result {name!r} has no joint displacements: give each member's EA when "
+            "building the truss",
+            name="EA",
+            value=None,
+            expected="an axial stiffness on every member",
+        )
+    joint, (_, uy) = max(result.displacements.items(), key=lambda kv: abs(kv[1][1]))
+    finite(f"deflection of {name!r} at {joint}", uy)
+    return abs(uy), f"{name}, joint {joint}"
+
+
 def check_deflection(
     *,
     member: str,
@@ -277,7 +256,9 @@ def check_deflection(
 
     Args:
         member: member mark. demand: serviceability results (combined results, a mapping, or
-            one result such as the live-load case alone) with deflection (EI given).
+            one result such as the live-load case alone) with deflection (EI given) -- of a
+            beam, or of a truss (EA given: the largest vertical joint displacement, by the
+            stiffness method, is the deflection).
         span: the span the limit refers to (for a cantilever, twice its length is the usual
             convention -- give it explicitly). limit: the ratio (360 for span/360).
         label: what deflects ("live", "total"). ref: the limit's source.
@@ -286,16 +267,15 @@ def check_deflection(
         InputError: limit not positive, a result without deflection (no EI).
     """
     require(span, "[length]", "span", positive=True)
-    if isinstance(limit, bool) or not isinstance(limit, int | float) or limit <= 0:
-        raise InputError(
-            f"Deflection limit must be a positive ratio such as 360 (got limit = {limit!r})",
-            name="limit",
-            value=limit,
-            expected="a number > 0",
-        )
+    positive("limit", instance("limit", limit, (int, float), expected="a ratio such as 360"))
     combos = as_combinations(demand)
     best: tuple[Quantity, str] | None = None
     for name, r in combos.items():
+        if hasattr(r, "displacements") and not hasattr(r, "extremes"):
+            cand = _truss_deflection(name, r)
+            if best is None or cand[0] > best[0]:
+                best = cand
+            continue
         if not getattr(r, "has_deflection", True):
             raise InputError(
                 f"Result {name!r} has no deflection: give EI when building the beam",

@@ -47,6 +47,14 @@ def register(subparsers: Any) -> None:
         help="sign although the key was made for another role or names another person than "
         "calcpack.toml; REASON is recorded in the signature (one signer never holds two roles)",
     )
+    parser.add_argument(
+        "--crl",
+        action="append",
+        default=[],
+        metavar="FILE",
+        help="the revocation list of the key's authority (calcpack keys crl), stored in the "
+        "package so that it shows years later that the key was not revoked (repeatable)",
+    )
     parser.set_defaults(func=_sign)
 
 
@@ -67,9 +75,13 @@ def _sign(args: argparse.Namespace) -> int:
         project=args.project,
         override_open_comments=args.override_open_comments,
         override_identity=args.override_identity,
+        crls=args.crl,
     )
     extra = " with an RFC 3161 timestamp" if result.timestamped else ""
     print(f"Signed as {result.role} by {result.signer}{extra}: {result.output}")
+    print(result.revocation)
+    if result.identity_override is not None:
+        print(f"The identity override is recorded in {result.identity_override}")
     if result.overridden:
         print(
             f"Review comments {', '.join(result.overridden)} were not closed; "

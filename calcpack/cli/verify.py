@@ -42,6 +42,14 @@ def register(subparsers: Any) -> None:
         "each signer claims (signing-time: the signer's claim, not a proof) or at DATE "
         "(e.g. 2031-05-01, UTC)",
     )
+    parser.add_argument(
+        "--crl",
+        action="append",
+        default=[],
+        metavar="FILE",
+        help="a revocation list newer than the one the package stores (calcpack keys crl): a "
+        "key revoked before its signature's time fails (repeatable)",
+    )
     parser.set_defaults(func=_verify)
 
 
@@ -64,7 +72,7 @@ def _at(text: str | None) -> dt.datetime | str | None:
 
 
 def _verify(args: argparse.Namespace) -> int:
-    from calcpack.signing.verify import verify_package
+    from calcpack.package.reproduce import verify_package
 
     require = tuple(r.strip() for r in args.require.split(",") if r.strip())
     report = verify_package(
@@ -74,6 +82,7 @@ def _verify(args: argparse.Namespace) -> int:
         reproduce=args.reproduce,
         require=require,
         at=_at(args.at),
+        crls=args.crl,
     )
     print(report.text())
     return 0 if report.ok else 1

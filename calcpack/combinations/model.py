@@ -325,7 +325,7 @@ class CombinationSet:
                 seen.add(key)
                 label = format_factors(factors.items())
                 if picked and len(choices) > 1:
-                    alt_text = "; ".join(f"{s}: {'+'.join(a)}" for s, a in picked.items())
+                    alt_text = "; ".join(_alternative_text(s, a) for s, a in picked.items())
                     label = f"{label} [{alt_text}]"
                 out.append(
                     AppliedCombination(
@@ -345,6 +345,16 @@ class CombinationSet:
                 expected=f"cases among {list(self.symbols)}",
             )
         return tuple(out)
+
+
+def _alternative_text(symbol: str, cases: tuple[str, ...]) -> str:
+    """Words for the alternative taken for ``symbol``: a pattern of spans
+    (:func:`calcpack.combinations.pattern_cases` names its cases ``"L#2"``) reads by the spans
+    it loads ("L on spans 1, 3"); other groups list their cases ("W: W_up")."""
+    spans = [c[len(symbol) + 1 :] for c in cases if c.startswith(f"{symbol}#")]
+    if spans and len(spans) == len(cases) and all(n.isdigit() for n in spans):
+        return f"{symbol} on span{'s' if len(spans) > 1 else ''} {', '.join(spans)}"
+    return f"{symbol}: {'+'.join(cases)}"
 
 
 def _alternatives_one(alt: str | Sequence[str]) -> tuple[str, ...]:

@@ -22,15 +22,17 @@ from calcpack.errors import InputError
 from calcpack.loads.roof_cases import RoofProfile
 from calcpack.loads.snow_asce7 import RoofSnowASCE7, SnowRoofASCE7
 from calcpack.loads.snow_en1991 import RoofSnowEN
+from calcpack.loads.wind_asce7_directional import DirectionalWindASCE7
 from calcpack.loads.wind_asce7_lowrise import EnvelopeWindASCE7, LowRiseBuildingASCE7
 from calcpack.loads.wind_en1991_cpe import BuildingEN, WindPressuresEN
 from calcpack.units import Q_, Quantity
-from calcpack.validate import dimension, positive
+from calcpack.validate import dimension, positive, within
 
 __all__ = [
     "snow_profiles_asce7",
     "snow_profiles_en",
     "wind_profiles_asce7",
+    "wind_profiles_asce7_directional",
     "wind_profiles_en",
 ]
 
@@ -184,4 +186,66 @@ def wind_profiles_asce7(
         out.append(RoofProfile(name + " from L", "W", "normal", b, v, "ASCE 7-16 Figure 28.3-1"))
         b2, v2 = _mirror(b, v)
         out.append(RoofProfile(name + " from R", "W", "normal", b2, v2, "ASCE 7-16 Figure 28.3-1"))
+    return out
+
+
+def wind_profiles_asce7_directional(
+    wind: DirectionalWindASCE7, *, frame_at: Quantity | None = None
+) -> list[RoofProfile]:
+    """Roof load cases on a frame from the directional procedure (ASCE 7-16 Chapter 27).
+
+    Wind normal to the ridge: the frame spans the building's L (parallel to the wind), wind
+    from the left and from the right, for each roof C_p value the figure gives and each sign of
+    GC_pi (windward and leeward slopes, or the roof zones by distance from the windward edge
+    for θ < 10°). Wind parallel to the ridge: the frame at ``frame_at`` (distance from the
+    windward end) takes the pressure of the zone it stands in, uniform across its span L.
+
+    Raises:
+        InputError: ``frame_at`` missing (wind parallel to the ridge) or off the building.
+    """
+    b = wind.building
+    width = b.L
+    roof = [s for s in wind.surfaces if "roof" in s.surface]
+    note = "ASCE 7-16 Figure 27.3-1, Eq. 27.3-1"
+    out = []
+    labels = ("+GCpi", "-GCpi")
+    if b.direction == "parallel to ridge":
+        if frame_at is None:
+            raise InputError(
+                name="frame_at",
+                value=None,
+                rule="must be given for wind parallel to the ridge (the frame's distance from "
+                "the windward end)",
+                expected="a length",
+            )
+        dimension("frame_at", frame_at, "[length]")
+        within("frame_at", frame_at, Q_(0.0, "m"), b.L, rule="a frame along the building")
+        zone = next(
+            (s for s in roof if s.start is not None and s.end is not None and frame_at <= s.end),
+            roof[-1],
+        )
+        for k in range(len(zone.p)):
+            cp = "Cp1" if k < 2 else "Cp2"
+            name = f"W parallel {zone.surface} {cp} {labels[k % 2]}"
+            span = b.B
+            out.append(
+                RoofProfile(name, "W", "normal", (Q_(0.0, span.units), span), (zone.p[k],), note)
+            )
+        return out
+    for k in range(max(len(s.p) for s in roof)):
+        parts = []
+        for s in roof:
+            v = s.p[k] if len(s.p) > k else s.p[k % 2]
+            end = (
+                width / 2
+                if s.surface == "windward roof"
+                else (width if s.end is None else s.end.to(width.units))
+            )
+            parts.append((end, v))
+        cp = "Cp1" if k < 2 else "Cp2"
+        br, vals = _pieces(width, parts)
+        name = f"W normal {cp} {labels[k % 2]}"
+        out.append(RoofProfile(name + " from L", "W", "normal", br, vals, note))
+        b2, v2 = _mirror(br, vals)
+        out.append(RoofProfile(name + " from R", "W", "normal", b2, v2, note))
     return out

@@ -6,6 +6,13 @@ importing this package is cheap.
 
 from __future__ import annotations
 
+from calcpack.signing.authority import (
+    AuthorityFiles,
+    RevocationList,
+    issue_crl,
+    issue_key,
+    new_authority,
+)
 from calcpack.signing.diff import Change, ManifestDiff, diff_manifests, diff_packages
 from calcpack.signing.keys import (
     PASSWORD_ENV,
@@ -38,6 +45,7 @@ __all__ = [
     "REVIEW_FILE",
     "ROLES",
     "TIMESTAMP_URL_ENV",
+    "AuthorityFiles",
     "Change",
     "Comment",
     "Credentials",
@@ -46,6 +54,7 @@ __all__ = [
     "KeyFiles",
     "ManifestDiff",
     "ReviewLog",
+    "RevocationList",
     "SignResult",
     "SignatureReport",
     "VerifyReport",
@@ -54,10 +63,13 @@ __all__ = [
     "close_comment",
     "diff_manifests",
     "diff_packages",
+    "issue_crl",
+    "issue_key",
     "load_credentials",
     "load_manifest",
     "load_review",
     "make_demo_credentials",
+    "new_authority",
     "new_self_signed",
     "read_password",
     "reopen_comment",

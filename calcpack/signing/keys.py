@@ -173,6 +173,7 @@ def _build_certificate(
     not_after: dt.datetime,
     ca: bool,
     issuer_public_key: Any,
+    crl_url: str | None = None,
 ) -> Any:
     from cryptography import x509
     from cryptography.hazmat.primitives import hashes
@@ -205,6 +206,9 @@ def _build_certificate(
             critical=True,
         )
     )
+    if crl_url:  # where a validator fetches the issuer's revocation list
+        point = x509.DistributionPoint([x509.UniformResourceIdentifier(crl_url)], None, None, None)
+        builder = builder.add_extension(x509.CRLDistributionPoints([point]), critical=False)
     return builder.sign(issuer_key, hashes.SHA256())
 
 

@@ -30,9 +30,12 @@ __all__ = [
     "DocumentTimestamp",
     "Moment",
     "RenewResult",
+    "StoredData",
     "document_timestamps",
     "embedding_context",
+    "publishes_revocation",
     "renew_timestamp",
+    "revocation_note",
     "self_signed",
 ]
 
@@ -51,12 +54,24 @@ def _token_certs(token: Any) -> list[Any]:
     return [c.chosen for c in certs or () if c.name == "certificate"]
 
 
-def embedding_context(creds: Any, stamper: Any) -> Any:
+def publishes_revocation(cert: Any) -> bool:
+    """Whether an asn1crypto certificate names where its revocation status is published
+    (a CRL distribution point or an OCSP responder)."""
+    return bool(cert.crl_distribution_points or cert.ocsp_urls)
+
+
+def embedding_context(creds: Any, stamper: Any, crls: list[Any] | None = None) -> Any:
     """The validation context used to collect what the signature embeds (chain, revocation data).
 
     It trusts the roots the key file and the timestamp server present: it decides nothing about
-    trust (``verify`` does, with the roots its user gives), it only gathers the chain. Nothing is
-    fetched from the network.
+    trust (``verify`` does, with the roots its user gives), it only gathers the chain and the
+    revocation data: the lists given (``sign --crl``), and what is fetched from the services a
+    certificate of the chain names (its CRL distribution point or OCSP responder). Nothing is
+    fetched when no certificate names one.
+
+    Raises:
+        SigningError: the chain lacks its root; the timestamp server fails; a list given or
+            fetched says the signer's key is revoked.
     """
     import asyncio
 
@@ -77,7 +92,189 @@ def embedding_context(creds: Any, stamper: Any) -> Any:
         except (OSError, ValueError, LibrarySigningError) as exc:
             raise SigningError(f"The timestamp server did not answer ({exc})") from exc
         roots += self_signed(_token_certs(token))
-    return ValidationContext(trust_roots=roots, other_certs=list(creds.chain), allow_fetching=False)
+    fetch = any(publishes_revocation(c) for c in (creds.certificate, *creds.chain))
+
+    def context(required: bool) -> Any:
+        return ValidationContext(
+            trust_roots=roots,
+            other_certs=list(creds.chain),
+            allow_fetching=fetch,
+            crls=crls or [],
+            revinfo_policy=revocation_policy(required),
+        )
+
+    if crls or fetch:  # the lists given must speak for the signer's key
+        _refuse_revoked(creds, context(bool(crls) and not fetch))
+    return context(False)  # what is embedded: the timestamp authority's chain too
+
+
+def _refuse_revoked(creds: Any, context: Any) -> None:
+    """Refuse to sign with a key its authority has revoked (by the lists at hand)."""
+    import asyncio
+
+    from pyhanko_certvalidator import CertificateValidator
+    from pyhanko_certvalidator.errors import (
+        InsufficientRevinfoError,
+        PathValidationError,
+        RevokedError,
+    )
+
+    validator = CertificateValidator(
+        creds.certificate, intermediate_certs=list(creds.chain), validation_context=context
+    )
+    try:
+        asyncio.run(validator.async_validate_usage(set()))
+    except RevokedError as exc:
+        raise SigningError(
+            f"The certificate of {creds.name!r} ({str(creds.path)!r}) is revoked by its "
+            f"authority ({exc}); it may not sign. Ask the firm's authority for a new key"
+        ) from None
+    except InsufficientRevinfoError as exc:
+        raise SigningError(
+            f"The revocation list(s) given do not speak for the key of {creds.name!r} "
+            f"({exc}); give the list of the authority that issued it (calcpack keys crl)"
+        ) from None
+    except PathValidationError:
+        pass  # trust is decided by verify, with the roots its user gives
+
+
+def revocation_note(creds: Any, data: bytes) -> str:
+    """What revocation data the signed package carries for its newest signature, in words."""
+    from pyhanko.pdf_utils.reader import PdfFileReader
+    from pyhanko.sign.validation.dss import DocumentSecurityStore, NoDSSFoundError
+
+    if creds.certificate.self_signed != "no" and not creds.chain:
+        return (
+            "revocation: none (a self-signed key cannot be revoked; a key issued by the firm's "
+            "authority can, see calcpack keys authority)"
+        )
+    try:
+        dss = DocumentSecurityStore.read_dss(PdfFileReader(io.BytesIO(data), strict=False))
+        crls, ocsps = len(dss.crls), len(dss.ocsps)
+    except NoDSSFoundError:
+        crls = ocsps = 0
+    if crls or ocsps:
+        return f"revocation data embedded: {crls} revocation list(s), {ocsps} OCSP response(s)"
+    return (
+        "revocation: NO revocation data embedded (signed offline: the certificates name no "
+        "revocation service and no --crl FILE was given), so a validator cannot show later "
+        "that the key was not revoked"
+    )
+
+
+@dataclass(frozen=True)
+class StoredData:
+    """What the package stores for validating it later (its document security store), plus any
+    newer revocation lists the verifier holds.
+
+    Attributes:
+        certs: certificates stored (chains of the signers and timestamp authorities).
+        crls: revocation lists (asn1crypto ``CertificateList``), stored then given.
+        ocsps: OCSP responses stored.
+        stored_crls: how many of ``crls`` came from the package (the rest were given).
+    """
+
+    certs: tuple[Any, ...] = ()
+    crls: tuple[Any, ...] = ()
+    ocsps: tuple[Any, ...] = ()
+    stored_crls: int = 0
+
+    @classmethod
+    def read(cls, reader: Any, given: list[Any] | None = None) -> StoredData:
+        """The package's stored data (none if it has no store) and the lists ``given``."""
+        from pyhanko.sign.validation.dss import DocumentSecurityStore, NoDSSFoundError
+
+        try:
+            dss = DocumentSecurityStore.read_dss(reader)
+        except NoDSSFoundError:
+            return cls(crls=tuple(given or ()))
+        stored = tuple(_stored(dss.crls, "crl"))
+        return cls(
+            certs=tuple(dss.load_certs()),
+            crls=stored + tuple(given or ()),
+            ocsps=tuple(_stored(dss.ocsps, "ocsp")),
+            stored_crls=len(stored),
+        )
+
+    def context(self, roots: list[Any], moment: dt.datetime, signer: Any = None) -> Any:
+        """A validation context at ``moment`` trusting only ``roots``, with the stored chain
+        and revocation data; nothing fetched.
+
+        When revocation data for ``signer`` (a certificate) is at hand it must be checked, even
+        if the certificate names no service. A revocation list issued after ``moment`` still
+        speaks for it (it lists every key revoked before, with the date).
+        """
+        from pyhanko_certvalidator import ValidationContext
+
+        return ValidationContext(
+            trust_roots=list(roots),
+            other_certs=list(self.certs),
+            crls=list(self.crls),
+            ocsps=list(self.ocsps),
+            allow_fetching=False,
+            moment=moment,
+            revinfo_policy=revocation_policy(signer is not None and self.covers(signer)),
+        )
+
+    def covers(self, cert: Any) -> bool:
+        """Whether a list or response at hand speaks for ``cert``."""
+        return self.revocation(cert).startswith("revocation: checked")
+
+    def revocation(self, cert: Any) -> str:
+        """What the signer's revocation status rests on, in words."""
+        if cert.self_signed != "no":
+            return "revocation: none (a self-signed certificate cannot be revoked)"
+        lists = [(i, c) for i, c in enumerate(self.crls) if c.issuer == cert.issuer]
+        if lists:
+            i, newest = max(lists, key=lambda ic: ic[1]["tbs_cert_list"]["this_update"].native)
+            issued = newest["tbs_cert_list"]["this_update"].native
+            where = "stored in the package" if i < self.stored_crls else "given to verify"
+            return (
+                f"revocation: checked against the revocation list of its issuer issued "
+                f"{issued:%Y-%m-%d %H:%M} UTC ({where})"
+            )
+        serial = cert.serial_number
+        for response in self.ocsps:
+            try:
+                basic = response["response_bytes"]["response"].parsed["tbs_response_data"]
+                if any(r["cert_id"]["serial_number"].native == serial for r in basic["responses"]):
+                    return "revocation: checked against an OCSP response stored in the package"
+            except (KeyError, TypeError, ValueError):
+                continue
+        return (
+            "revocation: NOT checked: the package stores no revocation data for this "
+            "certificate (signed offline); give the issuer's list with --crl FILE"
+        )
+
+
+def revocation_policy(required: bool) -> Any:
+    """Check a signer's revocation data; ``required``: it must be there and say "not revoked".
+
+    A list from the firm's own authority is used although the certificate names no
+    distribution point (the signer or verifier gave it); intermediate authorities are checked
+    where their certificates say where. Lists count for times before they were issued.
+    """
+    from pyhanko_certvalidator.policy_decl import (
+        CertRevTrustPolicy,
+        RevocationCheckingPolicy,
+        RevocationCheckingRule,
+    )
+
+    soft = RevocationCheckingRule.CHECK_IF_DECLARED_SOFT
+    ee = RevocationCheckingRule.CRL_OR_OCSP_REQUIRED if required else soft
+    return CertRevTrustPolicy(
+        RevocationCheckingPolicy(ee_certificate_rule=ee, intermediate_ca_cert_rule=soft),
+        retroactive_revinfo=True,
+    )
+
+
+def _stored(refs: list[Any], kind: str) -> list[Any]:
+    from asn1crypto import crl, ocsp
+    from pyhanko.pdf_utils.decode_limits import DecodePurpose
+
+    purpose = DecodePurpose.CRL if kind == "crl" else DecodePurpose.OCSP_RESPONSE
+    parse = crl.CertificateList.load if kind == "crl" else ocsp.OCSPResponse.load
+    return [parse(ref.get_object().read_data(purpose)) for ref in refs]
 
 
 @dataclass(frozen=True)
@@ -110,19 +307,19 @@ class DocumentTimestamp:
 
 
 def document_timestamps(
-    reader: Any, roots: list[Any], moment: dt.datetime
+    reader: Any, roots: list[Any], moment: dt.datetime, stored: StoredData | None = None
 ) -> tuple[DocumentTimestamp, ...]:
     """Check the package's document timestamps, newest first, each at the time the next proves.
 
     Returned oldest first.
     """
     from pyhanko.sign.validation import validate_pdf_timestamp
-    from pyhanko_certvalidator import ValidationContext
 
+    data = stored or StoredData()
     found: list[DocumentTimestamp] = []
     proof = moment
     for ts in sorted(reader.embedded_timestamp_signatures, key=lambda s: -s.signed_revision):
-        context = ValidationContext(trust_roots=list(roots), allow_fetching=False, moment=proof)
+        context = data.context(list(roots), proof)
         try:
             status = validate_pdf_timestamp(ts, validation_context=context)
             valid = bool(status.intact and status.valid and status.trusted)
@@ -203,13 +400,6 @@ class Moment:
 
         document = proof_after(stamps, revision)
         return replace(self, proof=document or self.start, document=document)
-
-    @staticmethod
-    def context(roots: list[Any], moment: dt.datetime) -> Any:
-        """A validation context at ``moment`` trusting only ``roots``; nothing fetched."""
-        from pyhanko_certvalidator import ValidationContext
-
-        return ValidationContext(trust_roots=list(roots), allow_fetching=False, moment=moment)
 
     def signing_moment(
         self, timestamp: dt.datetime | None, claimed: dt.datetime | None

@@ -23,11 +23,19 @@ lists what followed::
     action = "answered"
     text = "Revised to 1.5 m."
 
-    [[overrides]]
+    [[overrides]]                 # the checker signed over open comments
     when = "..."
     who = "..."
     reason = "..."
     comments = ["C1"]
+
+    [[overrides]]                 # a key made for another role or person (sign --override-identity)
+    when = "..."
+    who = "..."
+    reason = "..."
+    kind = "identity"
+    role = "checker"
+    contradictions = ["the key ... was made for the role 'preparer', not 'checker'"]
 """
 
 from __future__ import annotations
@@ -52,9 +60,11 @@ __all__ = [
     "answer_comment",
     "close_comment",
     "load_review",
+    "record_identity_override",
     "record_override",
     "reopen_comment",
     "review_path",
+    "review_text",
 ]
 
 #: Name of the review file in the project directory.
@@ -89,14 +99,40 @@ class Comment:
         return self.history[0].text if self.history else ""
 
 
+OVERRIDE_KINDS = ("open-comments", "identity")
+
+
 @dataclass(frozen=True)
 class Override:
-    """A checker's decision to sign with comments not closed, and why."""
+    """A signer's decision to sign against a rule, and why.
+
+    Attributes:
+        when, who, reason: when, by whom (the key's holder) and why.
+        comments: ids of the review comments not closed (kind ``"open-comments"``).
+        kind: ``"open-comments"`` (the checker signed over open comments) or ``"identity"``
+            (a key made for another role or naming someone else than calcpack.toml).
+        role: the role signed as.
+        contradictions: what the key contradicted (kind ``"identity"``).
+    """
 
     when: str
     who: str
     reason: str
-    comments: tuple[str, ...]
+    comments: tuple[str, ...] = ()
+    kind: str = "open-comments"
+    role: str = "checker"
+    contradictions: tuple[str, ...] = ()
+
+    def describe(self) -> str:
+        """What was overridden and why, as a sentence (``"Signed as checker although ..."``)."""
+        if self.kind == "identity":
+            return f"Signed as {self.role} although {'; '.join(self.contradictions)}: {self.reason}"
+        return f"Signed with {', '.join(self.comments)} not closed: {self.reason}"
+
+    def text(self) -> str:
+        """One line for the review log and verify."""
+        what = self.describe()
+        return f"OVERRIDE {self.when}  {self.who} {what[0].lower()}{what[1:]}"
 
 
 @dataclass(frozen=True)
@@ -133,11 +169,7 @@ class ReviewLog:
             lines.append(f"{c.id} [{c.status}] {on}")
             for e in c.history:
                 lines.append(f"    {e.when}  {e.who} ({e.action}): {e.text}")
-        for o in self.overrides:
-            lines.append(
-                f"OVERRIDE {o.when}  {o.who} signed with {', '.join(o.comments)} not closed: "
-                f"{o.reason}"
-            )
+        lines += [o.text() for o in self.overrides]
         return "\n".join(lines) if lines else "No review comments."
 
     def to_data(self) -> dict[str, Any]:
@@ -159,11 +191,17 @@ class ReviewLog:
             comments.append(item)
         data: dict[str, Any] = {"comments": comments}
         if self.overrides:
-            data["overrides"] = [
-                {"when": o.when, "who": o.who, "reason": o.reason, "comments": list(o.comments)}
-                for o in self.overrides
-            ]
+            data["overrides"] = [_override_data(o) for o in self.overrides]
         return data
+
+
+def _override_data(o: Override) -> dict[str, Any]:
+    item: dict[str, Any] = {"when": o.when, "who": o.who, "reason": o.reason}
+    if o.kind == "identity":
+        item.update(kind=o.kind, role=o.role, contradictions=list(o.contradictions))
+    else:
+        item["comments"] = list(o.comments)
+    return item
 
 
 def review_path(project: str | os.PathLike[str]) -> Path:
@@ -231,10 +269,26 @@ def _parse(data: dict[str, Any], source: str) -> ReviewLog:
             who=_str(o, "who", f"{source}, override"),
             reason=_str(o, "reason", f"{source}, override"),
             comments=tuple(str(c) for c in o.get("comments", [])),
+            kind=_kind(o, source),
+            role=str(o.get("role", "checker")),
+            contradictions=tuple(str(c) for c in o.get("contradictions", [])),
         )
         for o in data.get("overrides", [])
     )
     return ReviewLog(comments=tuple(comments), overrides=overrides)
+
+
+def _kind(item: dict[str, Any], source: str) -> str:
+    kind = str(item.get("kind", "open-comments"))
+    if kind not in OVERRIDE_KINDS:
+        raise InputError(
+            f"{source}, override: kind must be one of {', '.join(OVERRIDE_KINDS)} "
+            f"(got kind = {kind!r})",
+            name="kind",
+            value=kind,
+            expected=" | ".join(OVERRIDE_KINDS),
+        )
+    return kind
 
 
 def load_review(project: str | os.PathLike[str]) -> ReviewLog:
@@ -262,13 +316,17 @@ def load_review(project: str | os.PathLike[str]) -> ReviewLog:
     return _parse(data, repr(str(path)))
 
 
-def _save(project: str | os.PathLike[str], log: ReviewLog) -> None:
+def review_text(log: ReviewLog) -> str:
+    """The review file's text for ``log``, as calcpack writes it."""
     import tomli_w
 
-    path = review_path(project)
     header = "# Review comments of this calc package (managed by `calcpack review`).\n\n"
-    text = header + tomli_w.dumps(log.to_data(), multiline_strings=True)
-    write_atomically(path, text)
+    body: str = tomli_w.dumps(log.to_data(), multiline_strings=True)
+    return header + body
+
+
+def _save(project: str | os.PathLike[str], log: ReviewLog) -> None:
+    write_atomically(review_path(project), review_text(log))
 
 
 def _nonempty(value: str, name: str) -> str:
@@ -455,6 +513,28 @@ def record_override(
         who=_nonempty(who, "who"),
         reason=_nonempty(reason, "reason"),
         comments=comments,
+    )
+    log = load_review(project)
+    _save(project, replace(log, overrides=(*log.overrides, override)))
+    return override
+
+
+def record_identity_override(
+    project: str | os.PathLike[str],
+    *,
+    who: str,
+    role: str,
+    reason: str,
+    contradictions: tuple[str, ...],
+) -> Override:
+    """Record that ``who`` signed as ``role`` with a key that contradicts it, and why."""
+    override = Override(
+        when=_now(),
+        who=_nonempty(who, "who"),
+        reason=_nonempty(reason, "reason"),
+        kind="identity",
+        role=role,
+        contradictions=contradictions,
     )
     log = load_review(project)
     _save(project, replace(log, overrides=(*log.overrides, override)))

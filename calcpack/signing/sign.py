@@ -22,13 +22,15 @@ from __future__ import annotations
 import datetime as dt
 import io
 import os
-from dataclasses import dataclass
+from collections.abc import Iterable
+from dataclasses import dataclass, replace
 from pathlib import Path
 from typing import Any, cast
 
 from calcpack.contract.placeholders import placeholders_in_summary, placeholders_text
 from calcpack.errors import SigningError, VerificationError
 from calcpack.signing._util import quiet_library_logs, write_atomically
+from calcpack.signing.authority import load_crls
 from calcpack.signing.keys import (
     ROLES,
     Credentials,
@@ -37,14 +39,22 @@ from calcpack.signing.keys import (
     load_credentials,
     same_person,
 )
-from calcpack.signing.longterm import embedding_context
+from calcpack.signing.longterm import embedding_context, revocation_note
 from calcpack.signing.manifest import (
     field_name,
     read_embedded_manifest,
     role_of_field,
     signature_boxes,
 )
-from calcpack.signing.review import REVIEW_FILE, record_override, require_closed
+from calcpack.signing.review import (
+    REVIEW_FILE,
+    load_review,
+    record_identity_override,
+    record_override,
+    require_closed,
+    review_path,
+    review_text,
+)
 
 __all__ = ["TIMESTAMP_URL_ENV", "SignResult", "sign_package"]
 
@@ -71,6 +81,7 @@ class SignResult:
         certified: the signature is the document's certification signature.
         timestamped: an RFC 3161 timestamp token was added.
         overridden: ids of review comments the checker signed over (empty otherwise).
+        revocation: what revocation data was embedded, or that none was (signed offline).
     """
 
     output: Path
@@ -80,6 +91,10 @@ class SignResult:
     certified: bool
     timestamped: bool
     overridden: tuple[str, ...] = ()
+    revocation: str = ""
+    """The revocation data the signature embeds, in words (or why there is none)."""
+    identity_override: Path | None = None
+    """The review file where an identity override was recorded (None: none was needed)."""
 
 
 @dataclass(frozen=True)
@@ -91,10 +106,10 @@ class _Existing:
     """SHA-256 of the signer's certificate (DER)."""
 
 
-def _find_project(pdf: Path) -> Path | None:
-    """The nearest directory at or above the package holding a review file."""
+def _find_project(pdf: Path, *also: str) -> Path | None:
+    """The nearest directory at or above the package holding a review file (or ``also``)."""
     for directory in [pdf.resolve().parent, *pdf.resolve().parents][:4]:
-        if (directory / REVIEW_FILE).is_file():
+        if any((directory / name).is_file() for name in (REVIEW_FILE, *also)):
             return directory
     return None
 
@@ -173,8 +188,14 @@ def _require_current_review_log(manifest: dict[str, Any], project: Path, source:
     if not current.is_file():
         return
     recorded = [f for f in manifest.get("files", []) if f.get("role") == "review"]
-    digest = hashlib.sha256(current.read_bytes()).hexdigest()
-    if not recorded or str(recorded[0].get("sha256", "")).lower() != digest:
+    # Overrides recorded by signatures since the build (appended last) do not make the printed
+    # log out of date: the comments are as printed. Anything else does.
+    log = load_review(project)
+    digests = {hashlib.sha256(current.read_bytes()).hexdigest()} | {
+        hashlib.sha256(review_text(replace(log, overrides=log.overrides[:k])).encode()).hexdigest()
+        for k in range(len(log.overrides))
+    }
+    if not recorded or str(recorded[0].get("sha256", "")).lower() not in digests:
         state = (
             f"it was built before the review log {str(current)!r} existed"
             if not recorded
@@ -298,6 +319,7 @@ def sign_package(
     override_open_comments: str | None = None,
     certify: bool = True,
     override_identity: str | None = None,
+    crls: Iterable[str | os.PathLike[str]] = (),
 ) -> SignResult:
     """Sign a calc package as ``role`` into its sign-off block.
 
@@ -319,7 +341,11 @@ def sign_package(
             signatures and form filling).
         override_identity: the reason for signing with a key whose recorded role or holder
             contradicts ``role`` or the person named for it in the project; recorded in the
-            signature's reason. It never allows one signer to hold two roles.
+            signature's reason and in the project's review.toml (who, when, why; ``project``
+            or the folder holding calcpack.toml at or above the package). It never allows one
+            signer to hold two roles.
+        crls: revocation list files of the key's authority (``calcpack keys crl``) to embed
+            (PAdES B-LT); a key they list as revoked is refused.
 
     Returns:
         A :class:`SignResult`.
@@ -388,6 +414,13 @@ def sign_package(
         else load_credentials(key, password, certificate=certificate)
     )
     contradictions = _check_signer(role, creds, existing, manifest, source, override_identity)
+    record_in = project_dir or _find_project(source_path, "calcpack.toml")
+    if contradictions and record_in is None:
+        raise SigningError(
+            f"The identity override for {source} must be recorded in the project's "
+            f"{REVIEW_FILE}, but no project (calcpack.toml) was found beside the package; give "
+            "the project directory (--project DIR)"
+        )
     # after every reading of the package: the update's root differs from here on
     keep_archival_metadata(writer)
 
@@ -429,7 +462,7 @@ def sign_package(
         # PAdES B-LT: chain and revocation data in the document security store; B-LTA with a
         # document timestamp when a timestamp server is configured (calcpack.signing.longterm)
         embed_validation_info=True,
-        validation_context=embedding_context(creds, stamper),
+        validation_context=embedding_context(creds, stamper, load_crls(crls)),
         use_pades_lta=stamper is not None,
     )
     firm = creds.firm
@@ -458,6 +491,14 @@ def sign_package(
         raise SigningError(f"Signing {source} did not produce an incremental update; not written")
     target = Path(out) if out is not None else source_path
     write_atomically(target, data)
+    if contradictions and record_in is not None:
+        record_identity_override(
+            record_in,
+            who=creds.name,
+            role=role,
+            reason=str(override_identity),
+            contradictions=contradictions,
+        )
     if overridden and project_dir is not None:
         record_override(
             project_dir,
@@ -473,6 +514,8 @@ def sign_package(
         certified=certified,
         timestamped=stamper is not None,
         overridden=overridden,
+        revocation=revocation_note(creds, data),
+        identity_override=review_path(record_in) if contradictions and record_in else None,
     )
 
 

@@ -20,6 +20,7 @@ from typing import Any
 from calcpack.contract.compare import diff_manifests
 from calcpack.errors import InputError, VerificationError
 from calcpack.signing._util import quiet_library_logs
+from calcpack.signing.authority import load_crls
 from calcpack.signing.keys import (
     ROLES,
     certificate_name,
@@ -28,8 +29,9 @@ from calcpack.signing.keys import (
     load_certificates,
     same_person,
 )
-from calcpack.signing.longterm import DocumentTimestamp, Moment, document_timestamps
+from calcpack.signing.longterm import DocumentTimestamp, Moment, StoredData, document_timestamps
 from calcpack.signing.manifest import read_embedded_manifest, role_of_field, signature_boxes
+from calcpack.signing.trust_words import outside_validity, trust_words
 
 __all__ = [
     "FileCheck",
@@ -41,19 +43,6 @@ __all__ = [
 
 #: A function that re-executes a project's notebooks and returns a fresh manifest (dict).
 Reproducer = Callable[[Path], dict[str, Any]]
-
-_TRUST_WORDS = {
-    "NO_CERTIFICATE_CHAIN_FOUND": "untrusted: no chain to a trusted root",
-    "EXPIRED": "expired certificate",
-    "OUT_OF_BOUNDS_NO_POE": "expired certificate (outside its validity, no proof of time)",
-    "OUT_OF_BOUNDS_NOT_REVOKED": "expired certificate (outside its validity)",
-    "NOT_YET_VALID": "certificate not yet valid",
-    "REVOKED": "revoked certificate",
-    "REVOKED_NO_POE": "revoked certificate",
-    "REVOKED_CA_NO_POE": "issuer certificate revoked",
-    "CHAIN_CONSTRAINTS_FAILURE": "certificate chain constraints not met (e.g. key usage)",
-    "CERTIFICATE_CHAIN_GENERAL_FAILURE": "certificate chain could not be validated",
-}
 
 
 @dataclass(frozen=True)
@@ -95,6 +84,9 @@ class SignatureReport:
     """The moment the signer's certificates were checked at."""
     time_basis: str = "now"
     """What that moment rests on (a timestamp, the date asked for, the signer's claim, now)."""
+    revocation: str = ""
+    """What the signer's revocation status rests on (a stored or given list), or that nothing
+    could be checked."""
 
     @property
     def ok(self) -> bool:
@@ -129,6 +121,7 @@ class SignatureReport:
                 if self.checked_at
                 else []
             )
+            + ([f"    {self.revocation}"] if self.revocation else [])
             + ([f"    reason: {self.reason}"] if self.reason else [])
         )
 
@@ -171,6 +164,8 @@ class VerifyReport:
     reproduction: tuple[str, ...] | None = field(default=None)
     timestamps: tuple[DocumentTimestamp, ...] = ()
     """The package's document timestamps (PAdES B-LTA), oldest first."""
+    overrides: tuple[str, ...] = ()
+    """Overrides recorded in the project's review.toml (with ``project``), one line each."""
 
     @property
     def ok(self) -> bool:
@@ -209,6 +204,7 @@ class VerifyReport:
                 lines += [f"    {d}" for d in self.reproduction]
             else:
                 lines.append("Reproduction: every recorded result follows from the inputs")
+        lines += [f"Recorded in review.toml: {o}" for o in self.overrides]
         lines += [f"PROBLEM: {p}" for p in self.problems]
         lines.append("Verification " + ("PASSED" if self.ok else "FAILED"))
         return "\n".join(lines)
@@ -252,17 +248,8 @@ def check_project_files(
     return tuple(checks)
 
 
-def _default_reproducer(project: Path) -> dict[str, Any]:
-    """Re-execute the project's notebooks (no execution cache) and return their records."""
-    from calcpack.package import reproduce_manifest
-
-    return reproduce_manifest(project)
-
-
-def _reproduce(
-    manifest: dict[str, Any], project: Path, reproducer: Reproducer | None
-) -> tuple[str, ...]:
-    fresh = (reproducer or _default_reproducer)(project)
+def _reproduce(manifest: dict[str, Any], project: Path, reproducer: Reproducer) -> tuple[str, ...]:
+    fresh = reproducer(project)
     titles = {s.get("path"): s.get("title") for s in manifest.get("sheets", [])}
     for sheet in fresh.get("sheets", []):
         if not sheet.get("title"):
@@ -301,28 +288,6 @@ def _describe_changes(status: Any, later_roles: list[str]) -> tuple[bool, str, b
     return False, words, allowed
 
 
-def _trust_words(status: Any, trusted: bool) -> str:
-    if trusted:
-        path = status.validation_path
-        root = certificate_name(path[0]) if path is not None else "?"
-        return f"trusted (root: {root})"
-    indic = status.trust_problem_indic
-    name = getattr(indic, "name", None)
-    if name in _TRUST_WORDS:
-        return _TRUST_WORDS[name]
-    return f"untrusted ({name.lower().replace('_', ' ') if name else 'no trust path'})"
-
-
-def _outside_validity(cert: Any, moment: dt.datetime) -> str | None:
-    validity = cert["tbs_certificate"]["validity"]
-    start, end = validity["not_before"].native, validity["not_after"].native
-    if moment > end:
-        return f"expired certificate (valid until {end:%Y-%m-%d %H:%M} UTC)"
-    if moment < start:
-        return f"certificate not yet valid (valid from {start:%Y-%m-%d %H:%M} UTC)"
-    return None
-
-
 def _signature_report(
     sig: Any,
     roots: list[Any],
@@ -330,6 +295,7 @@ def _signature_report(
     *,
     certification: bool,
     clock: Moment,
+    stored: StoredData,
 ) -> SignatureReport:
     from pyhanko.sign.validation import validate_pdf_signature
     from pyhanko.sign.validation.settings import KeyUsageConstraints
@@ -353,8 +319,8 @@ def _signature_report(
     def validate(signer_moment: dt.datetime) -> Any:
         return validate_pdf_signature(
             sig,
-            signer_validation_context=clock.context(roots, signer_moment),
-            ts_validation_context=clock.context(roots, clock.proof),
+            signer_validation_context=stored.context(roots, signer_moment, sig.signer_cert),
+            ts_validation_context=stored.context(roots, clock.proof),
             key_usage_settings=usage,
         )
 
@@ -387,10 +353,10 @@ def _signature_report(
     timestamp = ts.timestamp if ts is not None else None
     ts_ok = ts is None or bool(ts.valid and ts.intact and ts.trusted)
     trusted = bool(status.trusted) and ts_ok
-    trust = _trust_words(status, bool(status.trusted))
+    trust = trust_words(status, bool(status.trusted))
     # A self-signed certificate given as its own trust root is a path of one trust anchor,
     # which the path validator does not date-check; so check the signer's validity here.
-    outside = _outside_validity(sig.signer_cert, moment)
+    outside = outside_validity(sig.signer_cert, moment)
     if outside and trusted:
         trusted, trust = False, outside
     if not trusted and clock.unproved(basis) and "expired" in trust:
@@ -417,6 +383,7 @@ def _signature_report(
         certificate=fingerprint,
         checked_at=moment,
         time_basis=basis,
+        revocation=stored.revocation(sig.signer_cert),
     )
 
 
@@ -457,6 +424,7 @@ def verify_package(
     at: dt.datetime | str | None = None,
     require: Iterable[str] = (),
     now: dt.datetime | None = None,
+    crls: Iterable[str | os.PathLike[str]] = (),
 ) -> VerifyReport:
     """Verify a signed calc package.
 
@@ -466,11 +434,16 @@ def verify_package(
             other root is trusted and nothing is fetched from the network.
         project: the project directory: check the manifest's file hashes against it.
         reproduce: re-execute the notebooks in ``project`` and compare every recorded result.
-        reproducer: the function doing the re-execution (default: the package build's).
+        reproducer: the function doing the re-execution, needed with ``reproduce``: the
+            build's is :func:`calcpack.package.reproduce.reproduce_manifest`, which
+            :func:`calcpack.package.verify_package` (``calcpack.verify_package``) passes in
+            (signing never imports the build).
         at: when there is no timestamp to prove the signing time: ``"signing-time"`` checks
             each signer's certificates at the time the signer claims (reported as a claim), a
             datetime checks everything as at that moment. A timestamp's proof comes first.
         now: the validation clock (default: the current time; tests move it).
+        crls: revocation lists newer than those the package stores (``keys crl``): a key
+            revoked before the time its signature is checked at fails.
         require: roles that must have signed (e.g. ``("preparer", "checker")``); a missing one
             is a failure. Roles not required and not signed are reported, not failed.
 
@@ -480,7 +453,7 @@ def verify_package(
     Raises:
         VerificationError: the file is missing, unreadable, or not a calcpack package.
         InputError: a trust file or the project directory is missing; ``reproduce`` without
-            ``project``.
+            ``project`` or ``reproducer``.
     """
     from pyhanko.pdf_utils.reader import PdfFileReader
     from pyhanko.sign.validation import read_certification_data
@@ -496,7 +469,15 @@ def verify_package(
             name="project",
             value=None,
         )
+    if reproduce and reproducer is None:
+        raise InputError(
+            name="reproducer",
+            value=None,
+            rule="is needed to reproduce the results",
+            note="calcpack.verify_package passes the build's (calcpack.package.reproduce)",
+        )
     roots = load_certificates(trust)
+    given = load_crls(crls)
     data = path.read_bytes()
     if not data.startswith(b"%PDF-"):
         raise VerificationError(f"{source} is not a calcpack package: it is not a PDF")
@@ -505,6 +486,7 @@ def verify_package(
         manifest = read_embedded_manifest(reader, source)
         embedded = list(reader.embedded_regular_signatures)
         certified = read_certification_data(reader) is not None
+        stored = StoredData.read(reader, given)
     except VerificationError:
         raise
     except Exception as exc:
@@ -513,14 +495,19 @@ def verify_package(
         ) from exc
 
     base = Moment.make(at, now)
-    stamps = document_timestamps(reader, list(roots), base.proof)
+    stamps = document_timestamps(reader, list(roots), base.proof, stored)
     reports: list[SignatureReport] = []
     for i, sig in enumerate(embedded):
         later = [role_of_field(s.field_name) or str(s.field_name) for s in embedded[i + 1 :]]
         clock = base.for_revision(stamps, sig.signed_revision)
         reports.append(
             _signature_report(
-                sig, list(roots), later, certification=i == 0 and certified, clock=clock
+                sig,
+                list(roots),
+                later,
+                certification=i == 0 and certified,
+                clock=clock,
+                stored=stored,
             )
         )
 
@@ -557,7 +544,7 @@ def verify_package(
     files = check_project_files(manifest, project) if project is not None else None
     reproduction = (
         _reproduce(manifest, Path(project), reproducer)
-        if reproduce and project is not None
+        if reproduce and project is not None and reproducer is not None
         else None
     )
     return VerifyReport(
@@ -569,4 +556,13 @@ def verify_package(
         files=files,
         reproduction=reproduction,
         timestamps=stamps,
+        overrides=_recorded_overrides(project),
     )
+
+
+def _recorded_overrides(project: str | os.PathLike[str] | None) -> tuple[str, ...]:
+    from calcpack.signing.review import load_review, review_path
+
+    if project is None or not review_path(project).is_file():
+        return ()
+    return tuple(o.text() for o in load_review(project).overrides)

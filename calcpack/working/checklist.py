@@ -43,6 +43,8 @@ class Checklist(Table):
             status = here[it["item"]]
             if status.status == "not applicable":
                 text = f"not applicable: {it['not_applicable']}"
+            elif it.get("not_covered"):
+                text = f"NOT COVERED: {it['not_covered']}"
             elif status.status == "met":
                 text = "met by " + status.detail.replace("sheet : ", "")
             elif it.get("met_by"):

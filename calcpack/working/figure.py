@@ -31,6 +31,7 @@ FIGURE_DRAWINGS: dict[str, str] = {
     "truss": "calcpack.plots.truss:truss_svg",
     "joint": "calcpack.plots.joint:joint_svg",
     "masonry-bearing": "calcpack.plots.masonry:masonry_bearing_drawing",
+    "lintel": "calcpack.plots.lintel:lintel_drawing",
 }
 
 _REGISTERED: dict[str, Callable[..., str]] = {}

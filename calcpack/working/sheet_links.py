@@ -210,6 +210,107 @@ class SheetLinks:
             for c in cases
         }
 
+    def export_by_case(
+        self,
+        values: Any,
+        *,
+        name: str,
+        description: str = "",
+    ) -> Any:
+        """Export many values by row and load case in one table (e.g. every member force of
+        a truss, unfactored, case by case), so another sheet takes them all with
+        :meth:`import_by_case` instead of solving the model again.
+
+        Args:
+            values: load case -> (row -> quantity), e.g. ``{c: r.forces for c, r in
+                cases.items()}``; every row a symbol-like name (``"L0U1"``).
+            name: the name of the set (``"N"``); each value is exported as ``<name>_<row>``
+                with its case.
+            description: words for each value (default: "<name> of <row>").
+
+        Raises:
+            InputError: no values, a case without rows, or a row that is not a symbol name.
+        """
+        from calcpack.errors import InputError
+        from calcpack.working.linked import ExportsTable
+        from calcpack.working.links import entry_key
+
+        cells = [(str(c), str(r), q) for c, rows in dict(values).items() for r, q in rows.items()]
+        if not cells:
+            raise InputError(
+                f"export_by_case({name!r}) needs at least one value (got none)",
+                name="values",
+                value=values,
+                expected="load case -> (row -> quantity)",
+            )
+        entries = [
+            export_entry(q, name=f"{name}_{r}", case=c, description=description or f"{name} of {r}")
+            for c, r, q in cells
+        ]
+        for e in entries:
+            self._exports[entry_key(e["name"], e["case"])] = e
+        step = ExportsTable(entries, [r for _, r, _ in cells], name=name, settings=self.settings)
+        self.add(step)
+        self._write_exports()
+        return step
+
+    def import_by_case(
+        self, sheet: str, name: str, *, dimension: str | None = None
+    ) -> dict[str, dict[str, pint.Quantity]]:
+        """Every value another sheet exports with :meth:`export_by_case` under ``name``, as
+        givens of this sheet (not editable, each a link), shown as one table.
+
+        Returns:
+            load case -> (row -> quantity), in the exporting sheet's order.
+
+        Raises:
+            InputError: no such sheet, or it exports nothing by case under ``name``.
+            DimensionError: a value not of ``dimension``.
+        """
+        import re
+
+        from calcpack.errors import DimensionError, InputError
+        from calcpack.units import require
+        from calcpack.working.linked import ImportedTable
+        from calcpack.working.links import read_exports, resolve_sheet
+
+        ref = resolve_sheet(sheet)
+        prefix = f"{name}_"
+        found = [
+            e
+            for e in read_exports(ref).values.values()
+            if str(e.get("name", "")).startswith(prefix) and e.get("case")
+        ]
+        if not found:
+            raise InputError(
+                f"Sheet {ref.name!r} exports nothing by load case under {name!r} (export it "
+                f"with export_by_case(..., name={name!r}))",
+                name=name,
+                value=f"{ref.name}: {name}",
+                expected="values exported with export_by_case",
+            )
+        steps, rows = [], []
+        out: dict[str, dict[str, pint.Quantity]] = {}
+        for e in found:
+            row, case = e["name"][len(prefix) :], str(e["case"])
+            tag = re.sub(r"[^A-Za-z0-9]+", "_", case).strip("_") or "case"
+            st = Imported(f"{e['name']}_{tag}", e, ref, settings=self.settings)
+            if dimension is not None:
+                try:
+                    require(st.quantity, dimension, st.name)
+                except DimensionError as exc:
+                    raise DimensionError(
+                        f"Import of {e['name']} ({case}) from sheet {ref.name!r}: {exc}",
+                        name=st.name,
+                        value=st.quantity,
+                        expected=f"a value of {dimension}",
+                    ) from exc
+            steps.append(st)
+            rows.append(row)
+            out.setdefault(case, {})[row] = st.quantity
+        self.add(ImportedTable(steps, rows, name=name, sheet=ref, settings=self.settings))
+        return out
+
     def export_reactions(
         self, results: Any, support: str, *, name: str, member: str = ""
     ) -> Exports:
@@ -273,6 +374,7 @@ class SheetLinks:
         member: str,
         not_applicable: dict[str, str] | None = None,
         met_by: dict[str, str] | None = None,
+        not_covered: dict[str, str] | None = None,
     ) -> Any:
         """Declare a member's type, so the package lists every item of its checklist as met
         by a check, not applicable, or NOT COVERED (see :mod:`calcpack.checks.checklists`).
@@ -283,6 +385,8 @@ class SheetLinks:
             member: the member's mark, as its checks name it (``"B1"``).
             not_applicable: item -> why it does not apply (words, shown in the package).
             met_by: item -> the member or check elsewhere that meets it (``"P1"``).
+            not_covered: item -> why the package leaves it unchecked (it stays NOT COVERED,
+                counted on the cover, with this reason beside it).
 
         The checklist is the project's own ``member_checklists.csv`` when the project folder
         holds one, else calcpack's (common practice). Call it after the sheet's checks to see
@@ -300,6 +404,7 @@ class SheetLinks:
             member=member,
             not_applicable=not_applicable,
             met_by=met_by,
+            not_covered=not_covered,
             project_root=_find_root(Path.cwd().resolve()),
         )
         checks = [c for c in self.records().get("checks", []) if isinstance(c, dict)]
@@ -321,6 +426,11 @@ class SheetLinks:
     ) -> Any:
         """Declare the checker's own value of a preparer's result, to be compared in the build.
 
+        In JupyterLab the sheet also shows it compared with the preparer's latest recorded
+        result -- value, checker's value, difference, tolerance, agreed or not, method -- and
+        says when that record is older than the preparer's notebook or inputs file (run that
+        sheet first) or missing (:func:`calcpack.working.verification.compare_with_record`).
+
         Args:
             sheet: the preparer's sheet (notebook name, as for :meth:`import_value`).
             name: the result's name there (a recorded or exported value; with ``member``, a
@@ -335,6 +445,8 @@ class SheetLinks:
         Raises:
             InputError: the sheet is not in the project; a bad tolerance or no method; or this
                 sheet imports the very value it checks (an independent check may not read it).
+            DimensionError: in JupyterLab, the preparer's current record is in a unit the
+                checker's value does not convert to.
         """
         from calcpack.errors import InputError
         from calcpack.working.links import resolve_sheet
@@ -364,7 +476,16 @@ class SheetLinks:
         entry = verification_entry(
             ref, name, value, tolerance=tolerance, method=method, member=member, case=case
         )
-        shown = Verification(entry, settings=self.settings)
+        comparison = None
+        if os.environ.get("CALCPACK_BUILDING") != "1":
+            # JupyterLab: compared with the preparer's latest record, for the checker's eyes
+            # only (the build compares with its own records; nothing here is recorded)
+            from calcpack.working.verification import compare_with_record
+
+            comparison = compare_with_record(ref, entry)
+            if comparison.note is not None:
+                warnings.warn(f"Independent check of {name}: {comparison.note}", stacklevel=2)
+        shown = Verification(entry, settings=self.settings, comparison=comparison)
         self.add(shown)
         return shown
 

@@ -41,9 +41,9 @@ sys.path.insert(0, str(REPO))
 sys.path.insert(0, str(REPO / "tests" / "browser"))
 
 TARGET_S = 0.100
-GARDEN = REPO / "example_projects" / "garden_studio" / "sheets"
-SHEET = GARDEN / "01_ridge_beam.ipynb"
-INPUTS = GARDEN / "01_ridge_beam.inputs.toml"
+GARDEN = REPO / "example_projects" / "beam_examples"
+SHEET = GARDEN / "ridge_beam_panel.ipynb"
+INPUTS = GARDEN / "ridge_beam_panel.inputs.toml"
 SPANS_M = (4.4, 5.0, 4.1, 4.7)  # none equal to the file's 3.8 m, so every edit changes
 
 

@@ -7,6 +7,7 @@ fault injected. Each refusal names the signer, the role and the key or person co
 
 from __future__ import annotations
 
+import datetime as dt
 import shutil
 from pathlib import Path
 from typing import Any
@@ -82,24 +83,58 @@ def test_another_key_of_the_same_person_is_refused_for_a_second_role(
 
 
 def test_a_key_made_for_another_role_is_refused_unless_overridden_and_recorded(
-    package: Path, demo: Any, tmp_path: Path
+    demo: Any, tmp_path: Path, capsys: pytest.CaptureFixture[str]
 ) -> None:
+    import hashlib
+
+    from calcpack.signing.review import add_comment, close_comment, load_review, review_path
+
+    job = tmp_path / "job"
+    (job / "sheets").mkdir(parents=True)
+    (job / "sheets" / "01.ipynb").write_text("{}", "utf-8")
+    add_comment(job, sheet="sheets/01.ipynb", text="Span?", who="Tomas Redfern")
+    close_comment(job, "C1", who="Tomas Redfern", text="Agreed")
+    review = review_path(job)
+    digest = hashlib.sha256(review.read_bytes()).hexdigest()
+    files = [{"path": "review.toml", "sha256": digest, "role": "review"}]
+    package = tmp_path / "elsewhere" / "package.pdf"  # no project beside it
+    package.parent.mkdir()
+    package.write_bytes(attach_manifest(cover_pdf(), make_manifest(files=files)))
     with pytest.raises(SigningError) as info:
-        sign_package(package, "preparer", demo.keys["checker"], demo.password)
-    assert "made for the role 'checker', not 'preparer'" in str(info.value)
+        sign_package(package, "preparer", demo.keys["approver"], demo.password)
+    assert "made for the role 'approver', not 'preparer'" in str(info.value)
     assert "--override-identity" in str(info.value)
-    sign_package(
-        package,
-        "preparer",
-        demo.keys["checker"],
-        demo.password,
-        override_identity="certificate reissue pending",
-    )
-    report = verify_package(package, [demo.root])
+    before = package.read_bytes()
+    with pytest.raises(SigningError, match=r"must be recorded in the project's review\.toml"):
+        sign_package(package, "preparer", demo.keys["approver"], demo.password,
+                     override_identity="certificate reissue pending")  # fmt: skip
+    assert package.read_bytes() == before  # nowhere to record it: nothing signed
+    sign_package(package, "preparer", demo.keys["approver"], demo.password, project=job,
+                 override_identity="certificate reissue pending")  # fmt: skip
+    (override,) = load_review(job).overrides
+    assert (override.kind, override.role, override.who) == ("identity", "preparer", "Marta Quell")
+    assert override.reason == "certificate reissue pending"
+    assert "made for the role 'approver'" in override.contradictions[0]
+    assert dt.datetime.fromisoformat(override.when).tzinfo is not None
+    # the override shows in the review log, in verify, and in the signature's reason
+    assert main(["review", "list", "--project", str(job)]) == 0
+    listed = capsys.readouterr().out
+    assert "Marta Quell signed as preparer although the key" in listed
+    assert "certificate reissue pending" in listed
+    report = verify_package(package, [demo.root], project=job)
+    assert "Recorded in review.toml: OVERRIDE" in report.text()
     (sig,) = report.signatures
     assert sig.reason is not None
-    assert "identity override" in sig.reason
     assert "certificate reissue pending" in sig.reason
+    # a comment added since the build makes the printed review log out of date...
+    recorded = review.read_bytes()
+    add_comment(job, sheet="sheets/01.ipynb", text="And the bearing?", who="Tomas Redfern")
+    close_comment(job, "C2", who="Tomas Redfern", text="Fine")
+    with pytest.raises(SigningError, match="older than"):
+        sign_package(package, "checker", demo.keys["checker"], demo.password, project=job)
+    # ...but the override appended to review.toml by a signature does not
+    review.write_bytes(recorded)
+    sign_package(package, "checker", demo.keys["checker"], demo.password, project=job)
 
 
 def test_a_key_naming_another_person_than_the_project_is_refused(

@@ -11,15 +11,18 @@ from hypothesis import strategies as st
 from calcpack.checks.aisc360.member import check_aisc_member
 from calcpack.checks.aisc360.member_data import FACTORS, MemberForces, SteelMember
 from calcpack.sections.aisc_database import aisc_shape
+from calcpack.sections.double_angle import double_angle
 from calcpack.sections.steel_bars import rectangular_bar
 from calcpack.units import Q_
 
 SHAPES = ["W8X31", "W10X49", "W14X132", "HSS6X6X1/4", "HSS4X4X1/4", "Pipe4STD", "C10X15.3"]
+# with slender elements in compression (AISC 360-16 §E7)
+SLENDER = ["WT6X13", "W14X22", "HSS8X8X1/8", "HSS20.000X0.250"]
 lengths = st.floats(min_value=1.0, max_value=40.0)
 
 
-@settings(max_examples=25, deadline=None)
-@given(st.sampled_from(SHAPES), lengths, lengths)
+@settings(max_examples=30, deadline=None)
+@given(st.sampled_from(SHAPES + SLENDER), lengths, lengths)
 def test_compression_strength_never_grows_with_effective_length(name, a, b):
     lo, hi = sorted((a, b))
     caps = []
@@ -43,6 +46,8 @@ def test_flexural_strength_never_grows_with_unbraced_length(name, a, b):
 def _flexure_member(name, L, stem):
     if name == "bar":
         shape = rectangular_bar(d=Q_(6, "inch"), t=Q_(0.5, "inch"))
+    elif name.startswith("2"):
+        shape = double_angle(aisc_shape(name[1:]), gap=Q_(0.375, "inch"))
     else:
         shape = aisc_shape(name)
     return SteelMember(shape, Fy=Q_(50, "ksi"), Lb=Q_(L, "ft"), tee_stem=stem)
@@ -50,7 +55,7 @@ def _flexure_member(name, L, stem):
 
 @settings(max_examples=25, deadline=None)
 @given(
-    st.sampled_from(["WT12X31", "WT6X13", "WT9X25", "bar"]),
+    st.sampled_from(["WT12X31", "WT6X13", "WT9X25", "bar", "2L4X4X1/4", "2L6X4X3/8"]),
     st.sampled_from(["tension", "compression"]),
     lengths,
     lengths,
@@ -100,3 +105,42 @@ def test_h1_interaction_is_one_on_its_curve(share):
     mm = max(mm, 1e-3)
     r = check_aisc_member(m, MemberForces(P=p * Pc, Mx=mm * Mc))
     assert r["Axial and flexure"].utilisation == pytest.approx(1.0, rel=1e-9)
+
+
+@settings(max_examples=20, deadline=None)
+@given(st.sampled_from(SLENDER), lengths)
+def test_effective_area_never_exceeds_the_gross_area(name, L):
+    # AISC 360-16 §E7: A_e ≤ A_g
+    m = SteelMember(aisc_shape(name), Fy=Q_(50, "ksi"), Lcx=Q_(L, "ft"), Lcy=Q_(L, "ft"))
+    r = check_aisc_member(m, MemberForces(P=Q_(1, "kip")))
+    assert r.values["A_e"] <= r.values["A_g"] * (1 + 1e-12)
+
+
+@settings(max_examples=15, deadline=None)
+@given(st.sampled_from(["L4X3X3/8", "L3X3X3/8", "L4X4X1/4"]), st.floats(2.0, 8.0))
+def test_angle_strut_strength_never_grows_with_length_and_lrfd_over_asd_is_phi_omega(name, L):
+    from calcpack.checks.aisc360.compression_angle import AngleStrut, check_aisc_angle_strut
+
+    def cap(length, method="LRFD"):
+        strut = AngleStrut(aisc_shape(name), Fy=Q_(36, "ksi"), L=Q_(length, "ft"), P=Q_(1, "kip"))
+        return check_aisc_angle_strut(strut, method=method)["Compression"].capacity
+
+    # AISC 360-16 §E5: a longer strut is never stronger
+    assert cap(L + 0.5) <= cap(L) * (1 + 1e-12)
+    k = FACTORS["compression"]
+    assert float((cap(L) / cap(L, "ASD")).to("").magnitude) == pytest.approx(k.phi * k.omega)
+
+
+@settings(max_examples=15, deadline=None)
+@given(st.sampled_from(["WT12X31", "WT6X13", "W14X22"]), lengths)
+def test_new_clauses_give_the_same_strength_in_si_and_us_units(name, L):
+    us = SteelMember(aisc_shape(name), Fy=Q_(50, "ksi"), Lb=Q_(L, "ft"), Lcx=Q_(L, "ft"),
+                     Lcy=Q_(L, "ft"))  # fmt: skip
+    si = SteelMember(aisc_shape(name), Fy=Q_(50, "ksi").to("MPa"), Lb=Q_(L, "ft").to("m"),
+                     Lcx=Q_(L, "ft").to("m"), Lcy=Q_(L, "ft").to("m"))  # fmt: skip
+    f = MemberForces(P=Q_(1, "kip"), Mx=Q_(1, "kip*ft"))
+    a, b = check_aisc_member(us, f), check_aisc_member(si, f)
+    for check in ("Compression", "Flexure x"):
+        x = a[check].capacity.to_base_units().magnitude
+        y = b[check].capacity.to_base_units().magnitude
+        assert x == pytest.approx(y, rel=1e-9)

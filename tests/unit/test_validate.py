@@ -71,3 +71,38 @@ def test_read_table_parses_header_and_rows(tmp_path, monkeypatch) -> None:  # ty
     assert t.row("x2")["note"] == "ok"
     with pytest.raises(InputError, match="did you mean"):
         t.row("X3")
+
+
+def test_required_says_what_needs_it_and_what_to_give() -> None:
+    from calcpack.validate import required
+
+    assert required("Lb", 3 * ureg.ft, expected="a length") == 3 * ureg.ft
+    with pytest.raises(
+        InputError, match=r"Input Lb is required with Mu \(got Lb = None\); give a length"
+    ) as err:
+        required("Lb", None, expected="a length", when="with Mu")
+    assert err.value.name == "Lb"
+
+
+@pytest.mark.parametrize("bad", ["", "   ", None, 3])
+def test_non_empty_refuses_a_blank_source(bad: object) -> None:
+    from calcpack.validate import non_empty
+
+    assert non_empty("source", " Table 4A ", expected="e.g. 'Table 4A'") == "Table 4A"
+    with pytest.raises(InputError, match=r"Input source must be stated.*e\.g\. 'Table 4A'") as e:
+        non_empty("source", bad, expected="e.g. 'Table 4A'")
+    assert e.value.value == bad
+
+
+def test_instance_and_whole_name_the_input() -> None:
+    from calcpack.validate import instance, whole
+
+    assert instance("n", 2.5, float, expected="a number") == 2.5
+    with pytest.raises(InputError, match=r"Input loads\[0\] must be a Load.*got a str"):
+        instance("loads[0]", "D", (int, float), expected="a Load")
+    assert whole("n", 3, lo=1) == 3
+    for bad in (2.0, True, "2"):
+        with pytest.raises(InputError, match="n must be a whole number of at least 1"):
+            whole("n", bad, lo=1)
+    with pytest.raises(InputError, match=r"Input n must be at least 1 \(got n = 0\)"):
+        whole("n", 0, lo=1)

@@ -23,7 +23,7 @@ from calcpack.checks.demand import as_combinations, max_abs, segment_moments
 from calcpack.checks.scope import material_in_scope
 from calcpack.errors import InputError
 from calcpack.units import Q_, Quantity, require, si
-from calcpack.validate import one_of, within
+from calcpack.validate import instance, one_of, required, within
 
 __all__ = [
     "BeamCase",
@@ -249,13 +249,8 @@ def _direct_items(
     items: list[FlexureItem] = []
     if Mu is not None:
         require(Mu, "[force]*[length]", "Mu")
-        if Lb is None and not case.continuous_bracing:
-            raise InputError(
-                "Unbraced length Lb is needed with Mu (or continuous_bracing=True)",
-                name="Lb",
-                value=None,
-                expected="a length",
-            )
+        if not case.continuous_bracing:
+            required("Lb", Lb, expected="a length, or continuous_bracing=True", when="with Mu")
         if Lb is not None:
             require(Lb, "[length]", "Lb", nonnegative=True)
             if length is not None:
@@ -268,22 +263,16 @@ def _direct_items(
                         expected=f"Lb <= {length:~P}",
                         note=f"length = {length:~P}",
                     )
-        if Cb is None and not case.continuous_bracing:
-            raise InputError(
-                "Cb must be given with Mu (use demand= to compute it from the moment "
-                "diagram, or Cb = 1.0 conservatively)",
-                name="Cb",
-                value=None,
-                expected="a number >= 1.0",
+        if not case.continuous_bracing:
+            required(
+                "Cb",
+                Cb,
+                expected="a number from 1.0 to 3.0 (demand= computes it from the moment "
+                "diagram; Cb = 1.0 is conservative)",
+                when="with Mu",
             )
         if Cb is not None:
-            if isinstance(Cb, bool) or not isinstance(Cb, int | float):
-                raise InputError(
-                    name="Cb",
-                    value=Cb,
-                    rule="must be a number from 1.0 to 3.0",
-                    expected="a number",
-                )
+            instance("Cb", Cb, (int, float), expected="a number from 1.0 to 3.0")
             within("Cb", Cb, 1.0, 3.0, rule="AISC 360-16 §F1: 1.0 <= C_b <= 3.0")
         Lb_used = Q_(0.0, "ft") if case.continuous_bracing or Lb is None else Lb
         items.append(

@@ -27,7 +27,7 @@ from calcpack.checks.base import MemberChecks, Recorder, run_checks
 from calcpack.errors import InputError, OutOfScopeError
 from calcpack.refdata import read_table
 from calcpack.units import Q_, Quantity, require
-from calcpack.validate import one_of, positive
+from calcpack.validate import one_of, positive, required, whole
 
 __all__ = [
     "BOLT_FACTORS",
@@ -112,14 +112,7 @@ class BoltGroup:
         require(self.d, "[length]", "d", positive=True)
         bolt_size(self.d)
         for nm in ("n", "planes"):
-            v = getattr(self, nm)
-            if isinstance(v, bool) or not isinstance(v, int) or v < 1:
-                raise InputError(
-                    f"Input {nm} must be a whole number of at least 1 (got {nm} = {v!r})",
-                    name=nm,
-                    value=v,
-                    expected="1, 2, ...",
-                )
+            whole(nm, getattr(self, nm), lo=1)
         one_of("threads", self.threads, ("included", "excluded"))
 
     @property
@@ -162,13 +155,12 @@ class Ply:
             v = getattr(self, nm)
             if v is not None:
                 require(v, "[length]", nm, positive=True)
-        if self.along > 1 and self.s is None:
-            raise InputError(
-                f"Ply {self.name}: spacing s is needed with {self.along} bolts in a line "
-                "(got s = None)",
-                name="s",
-                value=None,
+        if self.along > 1:
+            required(
+                "s",
+                self.s,
                 expected="the bolt spacing along the force",
+                when=f"for ply {self.name} with {self.along} bolts in a line",
             )
 
     @property

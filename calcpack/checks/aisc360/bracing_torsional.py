@@ -25,7 +25,7 @@ from calcpack.checks.scope import material_in_scope
 from calcpack.errors import InputError, OutOfScopeError
 from calcpack.sections.aisc_database import SteelShape
 from calcpack.units import Quantity
-from calcpack.validate import dimension, one_of, positive, within
+from calcpack.validate import dimension, one_of, positive, whole, within
 
 __all__ = ["TorsionalBraceCase", "check_aisc_torsional_bracing"]
 
@@ -78,11 +78,7 @@ class TorsionalBraceCase:
         per = "/[length]" if self.kind == "continuous" else ""
         if self.kind == "point":
             positive("L", dimension("L", self.L, "[length]"))
-            if not isinstance(self.n, int) or isinstance(self.n, bool):
-                raise InputError(
-                    name="n", value=self.n, rule="must be a whole number", expected="1, 2, 3..."
-                )
-            within("n", self.n, lo=1, rule="at least one braced point within the span")
+            whole("n", self.n, lo=1)
             if (self.ts is None) != (self.bs is None):
                 name, other = ("bs", "ts") if self.bs is None else ("ts", "bs")
                 raise InputError(

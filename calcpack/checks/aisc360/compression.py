@@ -1,18 +1,21 @@
-"""ANSI/AISC 360-16 Chapter E: compression strength of members without slender elements.
+"""ANSI/AISC 360-16 Chapter E: compression strength of members.
 
 * §E3 flexural buckling about both axes (W, M, S, HP, C, MC, WT, MT, ST, rectangular and round
-  HSS, Pipe), effective lengths L_cx, L_cy given;
+  HSS, Pipe, solid bars), effective lengths L_cx, L_cy given;
 * §E4 torsional buckling of doubly symmetric I-shapes (Eq. E4-2) and flexural-torsional
   buckling of singly symmetric tees and channels (Eq. E4-3, with H and r̄_o tabulated), with
   L_cz (default L_cy); closed sections (HSS, Pipe) are not subject to torsional buckling;
-* slender elements (Table B4.1a) are refused: §E7 (effective widths) is not implemented;
-* single angles (§E5, depends on the end connection) are refused.
+* §E7 slender elements (Table B4.1a): P_n = F_cr A_e with the effective widths of §E7.1 and
+  round HSS by §E7.2(b) (``compression_slender.py``);
+* single angles (§E5, depends on the end connection) are checked by
+  ``check_aisc_angle_strut`` (``compression_angle.py``) and refused here.
 """
 
 from __future__ import annotations
 
 from typing import Any
 
+from calcpack.checks.aisc360.compression_slender import critical_stress, effective_area
 from calcpack.checks.aisc360.member_data import SteelMember
 from calcpack.checks.base import Recorder
 from calcpack.errors import OutOfScopeError
@@ -60,9 +63,14 @@ def compression_elements(m: SteelMember) -> list[tuple[str, float, float, str]]:
         return [("wall D/t", dt, 0.11 * e_fy, "Table B4.1a case 9")]
     if s.type in ("BAR", "ROUND BAR"):
         return []  # a solid bar has no plate elements (Table B4.1a)
+    if s.type == "2L":
+        raise OutOfScopeError(
+            f"Double angle {s.designation} in compression: flexural-torsional buckling of double "
+            "angles (AISC 360-16 §E4) with the built-up member rules of §E6 is not implemented"
+        )
     raise OutOfScopeError(
-        f"Shape {s.designation} ({s.type}) in compression is not covered: single angles need "
-        "the end connection of AISC 360-16 §E5, which is not implemented"
+        f"Shape {s.designation} ({s.type}) in compression: a single angle's strength depends on "
+        "its end connection (AISC 360-16 §E5); check it with check_aisc_angle_strut"
     )
 
 
@@ -70,17 +78,12 @@ def compression_strength(c: Recorder, m: SteelMember) -> Any:
     """The nominal compressive strength P_n (§E3, §E4) as a handle; refuses outside scope.
 
     Raises:
-        OutOfScopeError: a slender element (§E7), a single angle (§E5), no effective length.
+        OutOfScopeError: a single angle (§E5), round HSS with D/t ≥ 0.45E/F_y, no effective
+            length.
     """
     s = m.shape
     elements = compression_elements(m)
-    for name, ratio, limit, case in elements:
-        if ratio > limit:
-            raise OutOfScopeError(
-                f"Shape {s.designation}: {name} = {ratio:.3g} exceeds λ_r = {limit:.3g} "
-                f"({case}, F_y = {m.Fy:~P}): the section has slender elements in compression; "
-                "AISC 360-16 §E7 is not implemented"
-            )
+    slender = [e for e in elements if e[1] > e[2]]
     if m.Lcx is None or m.Lcy is None:
         missing = "Lcx" if m.Lcx is None else "Lcy"
         raise OutOfScopeError(
@@ -92,7 +95,9 @@ def compression_strength(c: Recorder, m: SteelMember) -> Any:
         c.table(
             ["element", "ratio", "λ_r", "source"],
             [[n, f"{r:.3g}", f"{lim:.3g}", case] for n, r, lim, case in elements],
-            caption="Width-to-thickness ratios in compression: no slender element (§B4.1a)",
+            caption="Width-to-thickness ratios in compression: "
+            + ("slender elements, §E7 applies" if slender else "no slender element")
+            + " (§B4.1a)",
         )
     else:
         c.text("Solid bar: no plate elements, so no local buckling in compression (§B4.1a).")
@@ -119,21 +124,15 @@ def compression_strength(c: Recorder, m: SteelMember) -> Any:
         ref="AISC 360-16 Eq. (E3-4)",
     )
     Fe = _torsional(c, m, E, Fe, Ag)
-    if float((c.q(Fy) / c.q(Fe)).to("").magnitude) <= 2.25:
-        Fcr = c.derive(
-            "F_cr",
-            0.658 ** (Fy / Fe) * Fy,
-            "critical stress, F_y/F_e ≤ 2.25",
-            unit="ksi",
-            ref="AISC 360-16 Eq. (E3-2)",
-        )
-    else:
-        Fcr = c.derive(
-            "F_cr",
-            0.877 * Fe,
-            "critical stress, F_y/F_e > 2.25",
-            unit="ksi",
-            ref="AISC 360-16 Eq. (E3-3)",
+    Fcr = critical_stress(c, Fy, Fe)
+    if slender:
+        Ae = effective_area(c, m, Fy, E, Fcr, Ag)
+        return c.derive(
+            "P_n",
+            Fcr * Ae,
+            "nominal compressive strength, slender elements",
+            unit="kip",
+            ref="AISC 360-16 Eq. (E7-1)",
         )
     return c.derive(
         "P_n", Fcr * Ag, "nominal compressive strength", unit="kip", ref="AISC 360-16 Eq. (E3-1)"

@@ -21,7 +21,7 @@ from calcpack.checks.aisc360.member_data import check_method, member_standard
 from calcpack.checks.base import MemberChecks, Recorder, run_checks
 from calcpack.errors import InputError, OutOfScopeError
 from calcpack.units import Q_, Quantity, require
-from calcpack.validate import one_of
+from calcpack.validate import one_of, required
 
 __all__ = [
     "BlockShear",
@@ -59,12 +59,12 @@ class ConnectingPlate:
             require(getattr(self, nm), "[length]", nm, positive=True)
         require(self.Fy, "[pressure]", "Fy", positive=True)
         require(self.Fu, "[pressure]", "Fu", positive=True)
-        if self.holes and self.d_hole is None:
-            raise InputError(
-                f"Plate {self.name}: d_hole is needed with {self.holes} holes (got None)",
-                name="d_hole",
-                value=None,
+        if self.holes:
+            required(
+                "d_hole",
+                self.d_hole,
                 expected="the nominal hole diameter",
+                when=f"for plate {self.name} with {self.holes} holes",
             )
         if self.d_hole is not None:
             require(self.d_hole, "[length]", "d_hole", positive=True)
@@ -186,15 +186,15 @@ class BlockShear:
         require(self.Fu, "[pressure]", "Fu", positive=True)
         one_of("planes", self.planes, (1, 2))
         one_of("Ubs", float(self.Ubs), (1.0, 0.5))
-        if self.along > 1 and self.s is None:
-            raise InputError("Block shear: s is needed with more than one bolt in a line",
-                             name="s", value=None, expected="a spacing")  # fmt: skip
-        if self.lines > 1 and self.gauge is None:
-            raise InputError("Block shear: gauge is needed with more than one line",
-                             name="gauge", value=None, expected="a gauge")  # fmt: skip
-        if self.planes == 1 and self.le_t is None:
-            raise InputError("Block shear at an edge (planes=1): le_t is needed",
-                             name="le_t", value=None, expected="the edge distance")  # fmt: skip
+        if self.along > 1:
+            required("s", self.s, expected="a spacing", when="for block shear with more than "
+                     "one bolt in a line")  # fmt: skip
+        if self.lines > 1:
+            required("gauge", self.gauge, expected="a gauge", when="for block shear with more "
+                     "than one line")  # fmt: skip
+        if self.planes == 1:
+            required("le_t", self.le_t, expected="the edge distance", when="for block shear at "
+                     "an edge (planes=1)")  # fmt: skip
         if self.planes == 2 and self.lines < 2:
             raise OutOfScopeError(
                 "A U-shaped block (planes=2) needs two or more lines of bolts (got lines = "

@@ -40,10 +40,10 @@ def shear_strength(c: Recorder, m: SteelMember, direction: str, method: str) -> 
     E = c.given("E", m.E, "modulus of elasticity", source="AISC 360-16 §B")
     root = math.sqrt(float((m.E / m.Fy).to("").magnitude))
     key = "shear"
-    if t in ("BAR", "ROUND BAR"):
+    if t in ("BAR", "ROUND BAR", "2L"):
         raise OutOfScopeError(
-            f"Shear of the solid bar {s.designation}: AISC 360-16 Chapter G has no clause for "
-            "solid bars and none is implemented; check shear separately"
+            f"Shear of {s.designation}: no AISC 360-16 Chapter G clause for solid bars or double "
+            "angles is implemented here; check shear separately"
         )
     if t in ("HSS round", "PIPE"):
         c.heading("Shear, §G5 (round HSS)", 3)
@@ -176,7 +176,7 @@ def check_aisc_member(
         its clause and the combination.
 
     Raises:
-        OutOfScopeError: slender elements (§E7, §F7 effective sections), unsupported shapes
+        OutOfScopeError: slender HSS walls in flexure (§F7 effective sections), unsupported shapes
             or clauses, §H2 cases (single angles with axial force and flexure).
         InputError: bad method, wrong units.
     """
@@ -190,7 +190,8 @@ def check_aisc_member(
     if s.type == "L" and axial and bending:
         raise OutOfScopeError(
             f"Single angle {s.designation} with axial force and flexure: AISC 360-16 §H2 "
-            "(stresses about the principal axes) is not implemented"
+            "applies (stresses about the principal axes); check it with check_aisc_h2, giving "
+            "the available strengths about the principal axes"
         )
     if not (axial or bending or _nonzero(forces.Vx) or _nonzero(forces.Vy)):
         from calcpack.errors import InputError
@@ -215,7 +216,7 @@ def check_aisc_member(
             Pr = c.given(
                 f"P_{sfx}", P, "required axial strength", source=combo or "given", unit="kip"
             )
-            c.check("Compression", Pr, Pc, ref="AISC 360-16 §E3", combination=combo)
+            c.check("Compression", Pr, Pc, ref="AISC 360-16 Chapter E", combination=combo)
             ratios["P"] = (Pr, Pc)
         elif axial:
             c.heading("Tension, AISC 360-16 §D2", 3)

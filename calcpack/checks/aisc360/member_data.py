@@ -15,10 +15,9 @@ from typing import Any, Literal
 from calcpack.checks.aisc360.shape import _TITLE, AISC360_EDITION, E_STEEL
 from calcpack.checks.base import Recorder, Standard
 from calcpack.checks.scope import material_in_scope
-from calcpack.errors import InputError
 from calcpack.sections.aisc_database import SteelShape
 from calcpack.units import Q_, Quantity, require
-from calcpack.validate import one_of, within
+from calcpack.validate import instance, one_of, within
 
 __all__ = [
     "FACTORS",
@@ -121,14 +120,7 @@ class SteelMember:
     tee_stem: TeeStem = "tension"
 
     def __post_init__(self) -> None:
-        if not isinstance(self.shape, SteelShape):
-            raise InputError(
-                f"Input shape must be a tabulated shape from aisc_shape(...) (got shape = "
-                f"{self.shape!r})",
-                name="shape",
-                value=self.shape,
-                expected="aisc_shape('W8X18') or similar",
-            )
+        instance("shape", self.shape, SteelShape, expected="a tabulated shape, aisc_shape('W8X18')")
         material_in_scope("AISC 360-16|steel|Fy", "Fy", self.Fy)
         if self.Fu is not None:
             require(self.Fu, "[pressure]", "Fu", positive=True)

@@ -7,6 +7,7 @@ from typing import Any
 
 from calcpack.errors import InputError, OutOfScopeError
 from calcpack.units import Q_, Quantity, require, si
+from calcpack.validate import instance, non_empty, positive, within
 
 __all__ = ["AISC360_EDITION", "E_STEEL", "IShape"]
 
@@ -79,14 +80,11 @@ class IShape:
     kdes: Quantity | None = None
 
     def __post_init__(self) -> None:
-        if not isinstance(self.source, str) or not self.source.strip():
-            raise InputError(
-                f"Section {self.name}: the source of its properties must be given (got source = "
-                f"{self.source!r})",
-                name="source",
-                value=self.source,
-                expected="e.g. 'AISC Manual Table 1-1'",
-            )
+        non_empty(
+            "source",
+            self.source,
+            expected=f"the source of section {self.name}'s properties (AISC Manual Table 1-1)",
+        )
         for nm, dim in (
             ("d", "[length]"),
             ("bf", "[length]"),
@@ -103,31 +101,16 @@ class IShape:
             require(getattr(self, nm), dim, nm, positive=True)
         if self.h0 is not None:
             require(self.h0, "[length]", "h0", positive=True)
-        if isinstance(self.h_tw, bool) or not isinstance(self.h_tw, int | float) or self.h_tw <= 0:
-            raise InputError(
-                f"Section {self.name}: web slenderness h_tw must be a positive number (got "
-                f"h_tw = {self.h_tw!r})",
-                name="h_tw",
-                value=self.h_tw,
-                expected="a number > 0 (h/t_w as tabulated)",
-            )
-        if si(self.tw) >= si(self.bf):
-            raise InputError(
-                f"Web thickness tw must be less than flange width bf (got tw = {self.tw:~P}, "
-                f"bf = {self.bf:~P})",
-                name="tw",
-                value=self.tw,
-                expected="tw < bf",
-            )
+        positive("h_tw", instance("h_tw", self.h_tw, (int, float), expected="h/t_w as tabulated"))
+        within(
+            "tw",
+            self.tw,
+            hi=self.bf,
+            inclusive=False,
+            rule="the web must be thinner than the flange width bf",
+        )
         self._check_h_tw()
-        if si(self.Zx) < si(self.Sx):
-            raise InputError(
-                f"Plastic modulus Zx must not be less than elastic modulus Sx (got Zx = "
-                f"{self.Zx:~P}, Sx = {self.Sx:~P})",
-                name="Zx",
-                value=self.Zx,
-                expected="Zx >= Sx",
-            )
+        within("Zx", self.Zx, lo=self.Sx, rule="plastic modulus Zx >= elastic modulus Sx")
 
     def _check_h_tw(self) -> None:
         """The stated web slenderness against the section's own dimensions (see the class)."""

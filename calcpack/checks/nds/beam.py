@@ -21,7 +21,9 @@ from calcpack.checks.nds.factors import (
     temperature_factor,
     wet_service_factor,
 )
+from calcpack.checks.nds.values import southern_pine_size_factor
 from calcpack.errors import InputError, OutOfScopeError
+from calcpack.validate import one_of
 
 __all__ = ["check_nds_beam"]
 
@@ -30,16 +32,7 @@ def _duration_of(case: str, durations: Mapping[str, str]) -> str:
     base = case.split("#")[0]
     for key in (case, base):
         if key in durations:
-            d = durations[key]
-            if d not in DURATION_FACTORS:
-                raise InputError(
-                    f"Load duration {d!r} for case {key!r} is not one of "
-                    f"{list(DURATION_FACTORS)} (NDS 2018 Table 2.3.2)",
-                    name=f"durations[{key!r}]",
-                    value=d,
-                    expected=" / ".join(DURATION_FACTORS),
-                )
-            return d
+            return one_of(f"durations[{key!r}]", durations[key], DURATION_FACTORS)
     raise InputError(
         f"Load case {case!r} has no load duration: give durations={{{base!r}: 'ten years'}} "
         f"or another of {list(DURATION_FACTORS)} (NDS 2018 Table 2.3.2)",
@@ -92,11 +85,18 @@ def check_nds_beam(
                       "V": V.to("lbf"),
                       "xM": xM, "xV": xV})  # fmt: skip
     if cond.CF is None:
-        size_factor(reference.grade, member_size.nominal_thickness, member_size.nominal_width)
+        _size_factor(reference, member_size)
     logic = _NDSLogic(member_size, reference, cond, items)
     title = (f"{member_size.name} {reference.species_grade} to {NDS_EDITION} (ASD), "
              "bending and shear")  # fmt: skip
     return run_checks(member, title, Standard(NDS_EDITION, _TITLE, "ASD"), logic)
+
+
+def _size_factor(ref: ReferenceDesignValues, m: SawnMember) -> float:
+    """C_F for F_b by the reference values' size rule (Table 4A or Table 4B)."""
+    if ref.size_rule == "Table 4B":
+        return southern_pine_size_factor(m.nominal_thickness, m.nominal_width)
+    return size_factor(ref.grade, m.nominal_thickness, m.nominal_width)
 
 
 class _NDSLogic:
@@ -128,9 +128,13 @@ class _NDSLogic:
         else:
             CF = c.given(
                 "C_F",
-                size_factor(ref.grade, m.nominal_thickness, m.nominal_width),
+                _size_factor(ref, m),
                 f"size factor, {ref.grade}, {m.name}",
-                source="NDS Supplement Table 4A size factors (§4.3.6)",
+                source=(
+                    "NDS Supplement Table 4A size factors (§4.3.6)"
+                    if ref.size_rule == "Table 4A"
+                    else "NDS Supplement Table 4B: size effect in the tabulated values (§4.3.6)"
+                ),
             )
         state = "wet service, MC > 19 %" if cond.wet else "dry service, MC ≤ 19 %"
         CMb = c.given(

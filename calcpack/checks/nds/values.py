@@ -1,7 +1,10 @@
 """Reference design values for NDS 2018 member checks, from cited tables or given by the user.
 
 * :func:`nds_sawn_values`: NDS Supplement 2018 Table 4A (dimension lumber) and Table 4D
-  (timbers) for the species and grades shipped in ``nds_2018_sawn_values.csv``;
+  (timbers) for the species and grades shipped in ``nds_2018_sawn_values.csv``, and Table 4B
+  (visually graded Southern Pine dimension lumber, values by nominal width, size effect
+  included) from ``nds_2018_southern_pine_4b.csv``;
+* :func:`southern_pine_size_factor`: the C_F that still applies to Table 4B values;
 * :func:`nds_glulam_values`: Table 5A stress classes (``nds_2018_glulam_5a.csv``), bending about
   x-x or y-y;
 * :class:`TimberValues` built directly for structural composite lumber (SCL) or anything else,
@@ -20,9 +23,18 @@ from calcpack.checks.scope import material_in_scope
 from calcpack.errors import InputError
 from calcpack.refdata import read_table
 from calcpack.units import Q_, Quantity, require
-from calcpack.validate import one_of
+from calcpack.validate import non_empty, one_of
 
-__all__ = ["TimberValues", "nds_glulam_values", "nds_sawn_values"]
+__all__ = [
+    "SOUTHERN_PINE",
+    "TimberValues",
+    "nds_glulam_values",
+    "nds_sawn_values",
+    "southern_pine_size_factor",
+]
+
+SOUTHERN_PINE = "Southern Pine"
+_SP_WIDTHS = {2: "2-4", 3: "2-4", 4: "2-4", 5: "5-6", 6: "5-6", 8: "8", 10: "10", 12: "12"}
 
 Product = Literal["sawn", "timber", "glulam", "scl"]
 
@@ -50,14 +62,12 @@ class TimberValues:
 
     def __post_init__(self) -> None:
         one_of("product", self.product, ("sawn", "timber", "glulam", "scl"))
-        if not isinstance(self.source, str) or not self.source.strip():
-            raise InputError(
-                f"Timber values {self.name}: the source must be given (got source = "
-                f"{self.source!r}); for SCL, the manufacturer's evaluation report",
-                name="source",
-                value=self.source,
-                expected="e.g. 'ICC-ES ESR-xxxx, Table 2'",
-            )
+        non_empty(
+            "source",
+            self.source,
+            expected=f"the source of timber values {self.name} (for SCL, the manufacturer's "
+            "evaluation report), e.g. 'ICC-ES ESR-xxxx, Table 2'",
+        )
         for nm in ("Fb", "Ft", "Fv", "Fc_perp", "Fc", "E", "Emin"):
             require(getattr(self, nm), "[pressure]", nm, positive=True)
         material_in_scope("NDS 2018|wood|E", "E", self.E)
@@ -68,14 +78,33 @@ def _psi(x: object) -> Quantity:
     return Q_(float(x), "psi")  # type: ignore[arg-type]
 
 
-def nds_sawn_values(species: str, grade: str, *, table: Literal["4A", "4D"] = "4A") -> TimberValues:
+def nds_sawn_values(
+    species: str,
+    grade: str,
+    *,
+    table: Literal["4A", "4B", "4D"] = "4A",
+    width: int | None = None,
+) -> TimberValues:
     """Reference design values of ``species`` and ``grade`` from NDS Supplement 2018 Table 4A
-    (or 4D for timbers: grades "B&S No.1", "P&T No.1"...).
+    (or 4D for timbers: grades "B&S No.1", "P&T No.1"...; or 4B for Southern Pine dimension
+    lumber, whose values depend on the nominal ``width`` in inches: 2 to 6, 8, 10 or 12).
+
+    Table 4B values include the size effect: use C_F = 1.0 on them except where
+    :func:`southern_pine_size_factor` says otherwise (F_b of 4 in. thick lumber 8 in. and wider).
 
     Raises:
-        InputError: unknown table, species or grade ("did you mean" the closest).
+        InputError: unknown table, species, grade or width ("did you mean" the closest).
     """
-    one_of("table", table, ("4A", "4D"))
+    one_of("table", table, ("4A", "4B", "4D"))
+    if table == "4B":
+        return _southern_pine(species, grade, width)
+    if width is not None:
+        raise InputError(
+            name="width",
+            value=width,
+            rule=f"is used with Table 4B only (Table {table} values do not depend on it)",
+            expected="None",
+        )
     t = read_table("nds_2018_sawn_values.csv", key="key")
     row = t.row(f"{table}|{species}|{grade}", what=f"species|grade of Table {table}")
     basis = str(row["basis"])
@@ -91,6 +120,44 @@ def nds_sawn_values(species: str, grade: str, *, table: Literal["4A", "4D"] = "4
         E=_psi(row["E"]),
         Emin=_psi(row["Emin"]),
     )
+
+
+def _southern_pine(species: str, grade: str, width: int | None) -> TimberValues:
+    one_of("species", species, (SOUTHERN_PINE,))
+    if width is None or isinstance(width, bool) or not isinstance(width, int):
+        one_of("width", width, tuple(_SP_WIDTHS))
+    w = int(width)  # type: ignore[arg-type]
+    cls = one_of("width", w, tuple(_SP_WIDTHS))
+    t = read_table("nds_2018_southern_pine_4b.csv", key="key")
+    row = t.row(f"{grade}|{_SP_WIDTHS[cls]}", what="grade|width class of Table 4B")
+    return TimberValues(
+        f"{SOUTHERN_PINE} {row['grade']} ({w} in. nominal width)",
+        "sawn",
+        f"NDS Supplement 2018 Table 4B, {_SP_WIDTHS[cls]} in. wide ({row['basis']}; size "
+        "effect included)",
+        Fb=_psi(row["Fb"]),
+        Ft=_psi(row["Ft"]),
+        Fv=_psi(row["Fv"]),
+        Fc_perp=_psi(row["Fc_perp"]),
+        Fc=_psi(row["Fc"]),
+        E=_psi(row["E"]),
+        Emin=_psi(row["Emin"]),
+    )
+
+
+def southern_pine_size_factor(nominal_thickness: int, nominal_width: int) -> float:
+    """C_F for F_b on NDS Supplement 2018 Table 4B values (Southern Pine dimension lumber).
+
+    The tabulated values include the size effect (C_F = 1.0) for 2 in. and 3 in. thick lumber;
+    for 4 in. thick lumber 8 in. and wider F_b is multiplied by 1.1 (Table 4B size factor
+    footnote, from memory). Widths over 12 in. are not tabulated here.
+
+    Raises:
+        InputError: a thickness other than 2, 3 or 4 in., or a width not in Table 4B.
+    """
+    one_of("nominal_thickness", nominal_thickness, (2, 3, 4))
+    one_of("nominal_width", nominal_width, tuple(_SP_WIDTHS))
+    return 1.1 if nominal_thickness == 4 and nominal_width >= 8 else 1.0
 
 
 def nds_glulam_values(stress_class: str, *, axis: Literal["x", "y"] = "x") -> TimberValues:

@@ -15,10 +15,13 @@ from calcpack.units import Q_
 KSI = Q_(50, "ksi")
 
 
-def test_slender_compression_element_is_refused_naming_the_element():
-    m = SteelMember(aisc_shape("WT6X13"), Fy=KSI, Lcx=Q_(8, "ft"), Lcy=Q_(8, "ft"))
-    with pytest.raises(OutOfScopeError, match=r"stem d/t_w.*§E7"):
-        check_aisc_member(m, MemberForces(P=Q_(10, "kip")))
+def test_slender_compression_element_uses_the_effective_area():
+    m = SteelMember(aisc_shape("WT6X13"), Fy=KSI, Lcx=Q_(5, "ft"), Lcy=Q_(5, "ft"))
+    r = check_aisc_member(m, MemberForces(P=Q_(10, "kip")))
+    assert r.values["A_e"] < r.values["A_g"]
+    refs = [getattr(step, "ref", None) for step in r.working()]
+    assert "AISC 360-16 Eq. (E7-1)" in refs
+    assert "AISC 360-16 Eq. (E7-3)" in refs
 
 
 def test_single_angle_with_axial_force_and_flexure_is_refused():
@@ -35,7 +38,7 @@ def test_unequal_angle_without_restraint_is_refused():
 
 def test_tee_flexure_about_its_axis_of_symmetry_is_refused():
     m = SteelMember(aisc_shape("WT4X20"), Fy=KSI)
-    with pytest.raises(OutOfScopeError, match="tees about their axis of symmetry"):
+    with pytest.raises(OutOfScopeError, match="tees and double angles about"):
         check_aisc_member(m, MemberForces(My=Q_(1, "kip*ft")))
 
 
@@ -43,7 +46,7 @@ def test_tee_stem_mode_is_checked_and_bar_shear_is_refused():
     with pytest.raises(InputError, match="tee_stem"):
         SteelMember(aisc_shape("WT4X20"), Fy=KSI, tee_stem="up")
     bar = SteelMember(rectangular_bar(d=Q_(4, "inch"), t=Q_(1, "inch")), Fy=KSI)
-    with pytest.raises(OutOfScopeError, match="solid bar"):
+    with pytest.raises(OutOfScopeError, match="solid bars"):
         check_aisc_member(bar, MemberForces(Vy=Q_(1, "kip")))
 
 
@@ -100,3 +103,40 @@ def test_working_shows_the_clauses_and_the_combination():
     assert "Eq. (E3-2)" in text
     assert "Eq. (H1-1a)" in text
     assert r["Axial and flexure"].combination == "1.2D+1.6L"
+
+
+def _strut(name="L4X4X1/4", **kw):
+    from calcpack.checks.aisc360.compression_angle import AngleStrut
+
+    args = {"Fy": Q_(36, "ksi"), "L": Q_(4, "ft"), "P": Q_(5, "kip")} | kw
+    return AngleStrut(aisc_shape(name), **args)
+
+
+def test_single_angle_strut_refusals_name_the_limit():
+    from calcpack.checks.aisc360.compression_angle import check_aisc_angle_strut
+
+    with pytest.raises(OutOfScopeError, match=r"≥ 1\.7"):
+        check_aisc_angle_strut(_strut("L8X4X1/2"))
+    with pytest.raises(OutOfScopeError, match="flexural-torsional"):
+        check_aisc_angle_strut(_strut("L6X6X5/16", Fy=Q_(50, "ksi")))
+    with pytest.raises(OutOfScopeError, match="200"):
+        check_aisc_angle_strut(_strut(L=Q_(16, "ft")))
+    with pytest.raises(OutOfScopeError, match="single angles"):
+        _strut("W8X31")
+    with pytest.raises(InputError, match="arrangement"):
+        _strut(arrangement="space")
+    with pytest.raises(InputError, match="P"):
+        _strut(P=Q_(-5, "kip"))
+    with pytest.raises(DimensionError, match="L"):
+        _strut(L=Q_(4, "kip"))
+    m = SteelMember(aisc_shape("L4X4X1/4"), Fy=Q_(36, "ksi"), Lcx=Q_(4, "ft"), Lcy=Q_(4, "ft"))
+    with pytest.raises(OutOfScopeError, match="check_aisc_angle_strut"):
+        check_aisc_member(m, MemberForces(P=Q_(1, "kip")))
+
+
+def test_single_angle_strut_with_a_slender_leg_goes_through_e7():
+    from calcpack.checks.aisc360.compression_angle import check_aisc_angle_strut
+
+    r = check_aisc_angle_strut(_strut(L=Q_(3, "ft")), method="ASD")
+    assert "A_e" in r.values  # b/t = 16 > 0.45√(E/F_y) = 12.8
+    assert r["Compression"].clause == "AISC 360-16 §E5"

@@ -125,6 +125,8 @@ def test_a_bad_project_checklist_names_the_file_and_row(tmp_path: Path) -> None:
         ({"not_applicable": {"flexure": "x"}}, r"'flexure' is not an item"),
         ({"not_applicable": {"shear": " "}}, r"'shear' needs a reason"),
         ({"not_applicable": {"shear": "x"}, "met_by": {"shear": "B2"}}, "both"),
+        ({"met_by": {"shear": "B2"}, "not_covered": {"shear": "by others"}}, "both"),
+        ({"not_covered": {"shear": ""}}, r"'shear' needs a reason"),
         ({"member": ""}, "member's mark"),
     ],
 )
@@ -148,3 +150,22 @@ def test_a_sheet_shows_its_checklist_and_records_it() -> None:
     assert record["member"] == "B1"
     assert record["member_type"] == "steel beam"
     assert len(record["items"]) == len(load_checklists().types["steel beam"])
+
+
+def test_an_item_left_unchecked_on_purpose_stays_not_covered_with_its_reason() -> None:
+    """Declaring why an item is not checked explains it; it is still NOT COVERED (counted on
+    the cover), even where a check on the member would match it."""
+    declared = member_checklist(
+        "timber beam",
+        member="RB1",
+        not_covered={"connections (hangers, fasteners)": "proprietary post caps, by the supplier"},
+    ).to_json()
+    checks = [("2", _check("Bearing with nails", "RB1"))]
+    status = {s.item: s for s in resolve_checklists([("2", declared)], checks)}
+    left = status["connections (hangers, fasteners)"]
+    assert left.status == "NOT COVERED"
+    assert left.detail == "proprietary post caps, by the supplier"
+    assert status["bearing perpendicular to grain at the supports"].status == "met"
+    s = Sheet("Beam", auto_display=False)
+    s.checklist("timber beam", member="RB1", not_covered={"shear": "shown on sheet 9 by hand"})
+    assert "NOT COVERED: shown on sheet 9 by hand" in s.text_report()

@@ -210,3 +210,13 @@ def test_envelope_of_truss_member_forces():
     up = 0.9 * down + r["W"].force("AC").to("kN").magnitude
     assert env["N_AC,max"].value.to("kN").magnitude == pytest.approx(up, rel=1e-9)
     assert env["N_AC,max"].combination.startswith("5")
+
+
+def test_pattern_combinations_are_named_by_the_spans_they_load():
+    """A pattern of span loads reads "L on spans 1, 3" in the combination's name, so a checker
+    sees which spans carry the live load without decoding case names."""
+    pbeam, groups = pattern_cases(_beam(spans=3), "L")
+    names = list(analyse_combinations(solve_cases(pbeam), asce7_strength(), groups=groups).results)
+    assert "2a: 1.2D + 1.6L#1 + 1.6L#3 [L on spans 1, 3]" in names
+    assert "2a: 1.2D + 1.6L#2 [L on span 2]" in names
+    assert not any("L: L#" in n for n in names)

@@ -104,3 +104,21 @@ def test_sketch_is_svg():
         span=Q_(6, "ft"), wall_height=Q_(8, "ft"), wall_weight=Q_(40, "psf"), **ARCH
     )
     assert lintel_svg(r).lstrip().startswith("<?xml")
+
+
+def test_sketch_is_a_figure_drawing_in_the_sheet_units():
+    from calcpack.plots.lintel import lintel_figure
+    from calcpack.units import DisplaySettings
+    from calcpack.working import Figure
+    from calcpack.working.figure import draw_figure
+
+    r = lintel_masonry_loads(
+        span=Q_(1.65, "m"), wall_height=Q_(2.1, "m"), wall_weight=Q_(2.2, "kN/m**2"), **ARCH
+    )
+    fig = Figure("lintel", r, caption="lintel", alt="the lintel and the load triangle")
+    for system in ("SI", "US"):
+        svg = draw_figure(fig.drawing, r, DisplaySettings(system=system))
+        assert svg.lstrip().startswith("<?xml")
+    assert lintel_figure(r, "m").axes[0].get_xlabel() == "m"
+    # the opening is drawn to scale in the unit chosen: 1.65 m wide
+    assert lintel_figure(r, "m").axes[0].patches[1].get_width() == pytest.approx(1.65)
