@@ -33,11 +33,8 @@ from typing import Any
 
 from calcpack.errors import BuildError
 from calcpack.package.mathbreak import break_display, flatten_delimiters
-<<<<<<< HEAD
-from calcpack.package.mathtext import tex_to_text, text_layer_html
-=======
 from calcpack.package.mathcache import MATH_PX_PER_EM, MathCache, MathImage
->>>>>>> main
+from calcpack.package.mathtext import tex_to_text, text_layer_html
 
 __all__ = [
     "MATH_MAX_WIDTH_PX",
@@ -289,13 +286,8 @@ def _img(tex: str, display: bool, cache: MathCache | None) -> str:
     )
 
 
-<<<<<<< HEAD
-def math_spans_to_images(markup: str) -> str:
-    """Replace every calcpack math span in HTML by its SVG image and invisible plain text.
-=======
 def math_spans_to_images(markup: str, cache: MathCache | None = None) -> str:
-    """Replace every calcpack math span in HTML by its SVG image (alt text = the TeX).
->>>>>>> main
+    """Replace every calcpack math span in HTML by its SVG image and invisible plain text.
 
     ``cache`` keeps the typeset formulas (default: :func:`process_cache`).
 
