@@ -40,18 +40,16 @@ from calcpack.analysis.freebody import (
     PointForce as PointForce,
     solve_free_body as solve_free_body,
 )
+from calcpack.analysis.truss_envelope import (
+    MemberEnvelope as MemberEnvelope,
+    member_envelopes as member_envelopes,
+)
 from calcpack.analysis.truss_model import (
     JointLoad as JointLoad,
     Member as Member,
     Node as Node,
     Support as Support,
     Truss as Truss,
-)
-from calcpack.analysis.truss_envelope import (
-    MemberEnvelope as MemberEnvelope,
-)
-from calcpack.analysis.truss_envelope import (
-    member_envelopes as member_envelopes,
 )
 from calcpack.analysis.truss_solve import (
     TrussResult as TrussResult,
@@ -205,6 +203,7 @@ from calcpack.checks.nds.values import (
     TimberValues as TimberValues,
     nds_glulam_values as nds_glulam_values,
     nds_sawn_values as nds_sawn_values,
+    southern_pine_size_factor as southern_pine_size_factor,
 )
 from calcpack.checks.nds.withdrawal import (
     check_nds_combined as check_nds_combined,
@@ -324,6 +323,9 @@ from calcpack.package import (
     new_project as new_project,
     read_manifest as read_manifest,
 )
+from calcpack.package.reproduce import (
+    verify_package as verify_package,
+)
 from calcpack.plots.footing import (
     FootingSketch as FootingSketch,
     footing_figure as footing_figure,
@@ -355,6 +357,9 @@ from calcpack.sections.aisc_database import (
     aisc_shape_names as aisc_shape_names,
     steel_grade as steel_grade,
 )
+from calcpack.sections.double_angle import (
+    double_angle as double_angle,
+)
 from calcpack.sections.eurocode_tables import (
     EuroSection as EuroSection,
     euro_section as euro_section,
@@ -371,7 +376,6 @@ from calcpack.signing import (
     diff_packages as diff_packages,
     make_demo_credentials as make_demo_credentials,
     sign_package as sign_package,
-    verify_package as verify_package,
 )
 from calcpack.sizing import (
     Candidate as Candidate,
@@ -415,7 +419,4 @@ from calcpack.working import (
     sin as sin,
     sqrt as sqrt,
     tan as tan,
-)
-from calcpack.checks.nds.values import (
-    southern_pine_size_factor as southern_pine_size_factor,
 )

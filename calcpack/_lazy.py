@@ -144,7 +144,7 @@ PUBLIC: dict[str, str] = {
     "CheckRecord": "calcpack.contract",
     "diff_manifests": "calcpack.contract",
     "sign_package": "calcpack.signing",
-    "verify_package": "calcpack.signing",
+    "verify_package": "calcpack.package.reproduce",
     "make_demo_credentials": "calcpack.signing",
     "diff_packages": "calcpack.signing",
     "SnowSiteASCE7": "calcpack.loads.snow_asce7",
@@ -298,6 +298,7 @@ PUBLIC: dict[str, str] = {
     "directional_wind_asce7": "calcpack.loads.wind_asce7_directional",
     "angle_h2_case": "calcpack.checks.aisc360.combined_h2",
     "wind_profiles_asce7_directional": "calcpack.loads.roof_profiles",
+    "double_angle": "calcpack.sections.double_angle",
 }
 """Public name -> the module it is imported from."""
 

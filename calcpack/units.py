@@ -30,6 +30,7 @@ __all__ = [
     "Quantity",
     "get_display",
     "is_quantity",
+    "quantity_kind",
     "require",
     "set_display",
     "si",
@@ -215,8 +216,8 @@ class DisplaySettings:
     sig_figs: int = 3
     extra: dict[str, str] = field(default_factory=dict)
     kinds: dict[str, str] = field(default_factory=dict)
-    """The unit a sheet has settled on per kind of quantity (see :data:`ONE_UNIT_KINDS`):
-    dimension (as text, base dimensions sorted) to unit. Empty for the global settings."""
+    """The unit a sheet has settled on per kind of quantity (see :func:`quantity_kind`):
+    kind to unit. Empty for the global settings."""
 
     @property
     def preset(self) -> DisplayPreset:
@@ -224,32 +225,71 @@ class DisplaySettings:
 
     def kind_unit(self, quantity: pint.Quantity | pint.Unit) -> pint.Unit | None:
         """The unit this sheet shows every quantity of this kind in, once it has settled one."""
-        unit = self.kinds.get(_kind_key(quantity))
+        kind = quantity_kind(quantity)
+        unit = self.kinds.get(kind) if kind else None
         return ureg.Unit(unit) if unit else None
 
     def unit_for(self, quantity: pint.Quantity) -> pint.Unit | None:
-        """The sheet's unit for this kind, else the preset's unit for the dimension."""
-        return self.kind_unit(quantity) or self.preset.unit_for(quantity)
+        """The unit for a value that names none: the preset's unit for its dimension, or the
+        unit the sheet settled for that unit's kind."""
+        preset = self.preset.unit_for(quantity)
+        if preset is None:
+            return self.kind_unit(quantity)
+        return self.kind_unit(preset) or preset
 
     def keep_unit(self, unit: pint.Unit) -> None:
-        """Settle ``unit`` as the sheet's unit for its kind, unless one is settled already;
-        only the kinds of :data:`ONE_UNIT_KINDS` are settled."""
-        dim = _dimensionality(unit)
-        if any(dim == _dimensionality(k) for k in ONE_UNIT_KINDS):
-            self.kinds.setdefault(_kind_key(unit), str(unit))
+        """Settle ``unit`` as the sheet's unit for its kind, unless one is settled already."""
+        kind = quantity_kind(unit)
+        if kind:
+            self.kinds.setdefault(kind, str(unit))
+
+
+_FAMILIES: dict[str, tuple[tuple[float, str], ...]] = {
+    # SI factor of the unit from which the family starts, and its name, largest first
+    "[length]**1": ((0.25, "span"), (0.0, "dimension")),
+    "[length]**2": ((1e-2, "plan area"), (0.0, "section area")),
+    "[length]**3": ((1e-3, "volume"), (0.0, "section modulus")),
+    "[length]**-1 * [mass]**1 * [time]**-2": (
+        (1e8, "modulus"),
+        (5e3, "stress"),
+        (0.0, "area load"),
+    ),
+}
+"""Dimensions whose values the trade shows in two or three families of unit, kept apart: spans
+and positions in m or ft beside dimensions and deflections in mm or in; plan areas (m², ft²)
+beside section areas (mm², in²); volumes beside section moduli; area loads and soil pressures
+(kPa, psf) beside stresses (MPa, psi, ksi) beside moduli of elasticity (GPa). The family is read
+from the size of the unit (common practice: the units each family is written in)."""
+
+_AREA_LOAD_UNITS = frozenset(str(ureg.Unit(u)) for u in ("ksf", "kip/ft**2"))
+"""Bearing pressures in ksf are larger units than psi, yet area loads."""
+
+_NO_KIND = ("", "[temperature]**1")  # numbers and temperatures (offset units) keep their unit
+
+
+def quantity_kind(reference: pint.Quantity | pint.Unit) -> str:
+    """The kind of a quantity or unit: its dimension, and for lengths, areas, volumes and
+    pressures its family (see :data:`_FAMILIES`); "" for numbers and temperatures.
+
+    A sheet shows every value of one kind in one unit."""
+    unit = reference.units if isinstance(reference, pint.Quantity) else reference
+    dim = _kind_key(unit)
+    if dim in _NO_KIND:
+        return ""
+    families = _FAMILIES.get(dim)
+    if not families:
+        return dim
+    if str(unit) in _AREA_LOAD_UNITS:
+        return f"{dim} (area load)"
+    factor = abs(float(ureg.Quantity(1.0, unit).to_base_units().magnitude))
+    family = next(name for start, name in families if factor >= start)
+    return f"{dim} ({family})"
 
 
 def _kind_key(reference: pint.Quantity | pint.Unit) -> str:
     """The dimension as text in a fixed order (pint's own text follows insertion order)."""
     dim = _dimensionality(reference)
     return " * ".join(f"{k}**{v:g}" for k, v in sorted(dict(dim).items()))
-
-
-ONE_UNIT_KINDS = ("[force]", "[force] * [length]", "[force] / [length]")
-"""Kinds a sheet shows in one unit throughout (a reader compares forces, moments and line
-loads across the sheet; kip beside lbf or klf beside plf invites a slip). Lengths and
-stresses are not here: a span in ft beside a flange in inches, an area load in psf beside a
-stress in psi, are each the trade's habit."""
 
 
 _SETTINGS = DisplaySettings()

@@ -69,8 +69,9 @@ def finite(name: str, value: T) -> T:
     return value
 
 
-def positive(name: str, value: T, *, allow_zero: bool = False) -> T:
-    """Require a finite value > 0 (or >= 0 with ``allow_zero``)."""
+def positive(name: str, value: T, *, allow_zero: bool = False, note: str | None = None) -> T:
+    """Require a finite value > 0 (or >= 0 with ``allow_zero``); ``note`` (what the value
+    belongs to, or the clause) is added to the message."""
     finite(name, value)
     x = _magnitude(name, value)
     ok = x >= 0 if allow_zero else x > 0
@@ -81,6 +82,7 @@ def positive(name: str, value: T, *, allow_zero: bool = False) -> T:
             value=value,
             rule=rule,
             expected="a value >= 0" if allow_zero else "a value > 0",
+            note=note,
         )
     return value
 

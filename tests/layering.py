@@ -27,5 +27,20 @@ BOTTOM = {
     "calcpack.views": ("calcpack.errors",),
 }
 
+#: The layers above computation, each with what it must never import: the dependency runs one
+#: way (signing below the build, which reads the review log and refuses to replace a signed
+#: package; the command line at the top, wiring the build's reproducer into verification).
+ABOVE = {
+    "calcpack.plots": ("calcpack.package", "calcpack.signing", "calcpack.widgets", "calcpack.cli"),
+    "calcpack.signing": (
+        "calcpack.package",
+        "calcpack.widgets",
+        "calcpack.cli",
+        "calcpack.notebook",
+    ),
+    "calcpack.package": ("calcpack.widgets", "calcpack.cli", "calcpack.notebook"),
+    "calcpack.widgets": ("calcpack.cli",),
+}
+
 #: Modules whose loading costs a sheet's import time (checked at run time by the light tests).
 HEAVY = (*(m for m in FORBIDDEN if m != "calcpack.notebook"), "rich")

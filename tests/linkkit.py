@@ -17,6 +17,7 @@ from typing import Any
 
 import nbformat
 
+from calcpack.errors import NotebookExecutionError
 from calcpack.working import RECORDS_MIMETYPE, Sheet
 from calcpack.working.links import EXPORTS_DIR_ENV, SHEET_ENV
 
@@ -81,10 +82,12 @@ def _kernel_like(folder: Path, env: dict[str, str]) -> Iterator[None]:
                 os.environ[k] = v
 
 
-def run_in_process(
-    path: str, sheet: str, timeout: float, exports: str | None = None
-) -> tuple[Any, ...]:
-    """Run a notebook as a build's kernel would; ('ok', json) or ('error', ...)."""
+def run_in_process(path: str, sheet: str, timeout: float, exports: str | None = None) -> str:
+    """Run a notebook as a build's kernel would; the executed notebook's JSON.
+
+    Raises:
+        NotebookExecutionError: a cell raised (naming the sheet, the cell and its first line).
+    """
     nb = nbformat.read(path, as_version=4)
     env = {"CALCPACK_BUILDING": "1", SHEET_ENV: sheet}
     if exports is not None:
@@ -98,7 +101,9 @@ def run_in_process(
                 exec(cell.source, namespace)
             except Exception as exc:
                 first = cell.source.strip().splitlines()[0]
-                return ("error", sheet, index, first, f"{type(exc).__name__}: {exc}")
+                raise NotebookExecutionError(
+                    sheet, index, first, f"{type(exc).__name__}: {exc}"
+                ) from None
     records: dict[str, list[Any]] = {}
     for value in namespace.values():
         if isinstance(value, Sheet):
@@ -106,7 +111,7 @@ def run_in_process(
                 records.setdefault(key, []).extend(items)
     output = nbformat.v4.new_output("display_data", data={RECORDS_MIMETYPE: records})
     nb.cells[-1].outputs = [output]
-    return ("ok", nbformat.writes(nb))
+    return str(nbformat.writes(nb))
 
 
 def exported(notebook_json: str) -> dict[str, float]:

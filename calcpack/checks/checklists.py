@@ -20,6 +20,7 @@ from pathlib import Path
 from typing import Any, Literal
 
 from calcpack.errors import InputError
+from calcpack.validate import non_empty
 
 __all__ = [
     "CHECKLIST_FILE",
@@ -249,13 +250,7 @@ def member_checklist(
         InputError: unknown member type or item, an empty reason, an item declared in more
             than one of not_applicable, met_by and not_covered, or no member mark.
     """
-    if not isinstance(member, str) or not member.strip():
-        raise InputError(
-            f"A checklist needs the member's mark, as its checks name it (got member = {member!r})",
-            name="member",
-            value=member,
-            expected='a mark such as "B1"',
-        )
+    non_empty("member", member, expected='the member\'s mark as its checks name it, e.g. "B1"')
     kind, items, source = checklist_items(member_type, project_root)
     na = _reasons("not_applicable", not_applicable, items)
     met = _reasons("met_by", met_by, items)

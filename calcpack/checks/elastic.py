@@ -44,6 +44,15 @@ def _need_source(source: str | None, what: str) -> str:
     )
 
 
+def _section_value(
+    rec: Recorder, symbol: str, q: Any, dim: str, what: str, *, name: str | None = None
+) -> Any:
+    """A section property given on the sheet: positive, of dimension ``dim``, named ``name``
+    (the argument; the symbol by default) in a refusal."""
+    value = require(q, dim, name or symbol, positive=True)
+    return rec.given(symbol, value, what, source="section properties")
+
+
 def _governing(demand: Any, what: str) -> tuple[Quantity, str]:
     best: tuple[Quantity, str] | None = None
     for name, r in as_combinations(demand).items():
@@ -123,28 +132,13 @@ def check_elastic_beam(
             rec.heading("Bending stress", 3)
             Mh = rec.given("M", Mq, "largest |M|", source=combo or "given")
             if S is not None:
-                Sh = rec.given(
-                    "S",
-                    require(S, "[length]**3", "S", positive=True),
-                    "section modulus",
-                    source="section properties",
-                )
+                Sh = _section_value(rec, "S", S, "[length]**3", "section modulus")
                 sig = rec.derive(
                     "sigma_b", Mh / Sh, "bending stress", ref="M/S", unit=str(sigma_allow.units)
                 )
             elif I is not None and c is not None:
-                Ih = rec.given(
-                    "I",
-                    require(I, "[length]**4", "I", positive=True),
-                    "second moment of area",
-                    source="section properties",
-                )
-                ch = rec.given(
-                    "c",
-                    require(c, "[length]", "c", positive=True),
-                    "extreme fibre distance",
-                    source="section properties",
-                )
+                Ih = _section_value(rec, "I", I, "[length]**4", "second moment of area")
+                ch = _section_value(rec, "c", c, "[length]", "extreme fibre distance")
                 sig = rec.derive(
                     "sigma_b",
                     Mh * ch / Ih,
@@ -163,11 +157,13 @@ def check_elastic_beam(
             rec.heading("Shear stress", 3)
             Vh = rec.given("V", Vq, "largest |V|", source=combo or "given")
             if A_rect is not None:
-                Ah = rec.given(
+                Ah = _section_value(
+                    rec,
                     "A",
-                    require(A_rect, "[length]**2", "A_rect", positive=True),
+                    A_rect,
+                    "[length]**2",
                     "area of the rectangular section",
-                    source="section properties",
+                    name="A_rect",
                 )
                 tau = rec.derive(
                     "tau",
@@ -177,19 +173,11 @@ def check_elastic_beam(
                     unit=str(tau_allow.units),
                 )
             elif Q is not None and I is not None and t is not None:
-                Qh = rec.given(
-                    "Q",
-                    require(Q, "[length]**3", "Q", positive=True),
-                    "first moment of area above the neutral axis",
-                    source="section properties",
+                Qh = _section_value(
+                    rec, "Q", Q, "[length]**3", "first moment of area above the neutral axis"
                 )
                 Ih = rec.given("I", I, "second moment of area", source="section properties")
-                th = rec.given(
-                    "t",
-                    require(t, "[length]", "t", positive=True),
-                    "width at the neutral axis",
-                    source="section properties",
-                )
+                th = _section_value(rec, "t", t, "[length]", "width at the neutral axis")
                 tau = rec.derive(
                     "tau",
                     Vh * Qh / (Ih * th),

@@ -38,6 +38,7 @@ class MaterialOutOfScopeError(OutOfScopeError, InputError):
             value=value,
             expected=f"{lo:~P} to {hi:~P}",
         )
+        self.args = (name, value, lo, hi, standard, source)  # so that it unpickles as raised
         self.lo = lo
         self.hi = hi
         self.standard = standard

@@ -111,6 +111,15 @@ def _new(args: argparse.Namespace) -> int:
             confirm=True,
         )
     )
+    who: dict[str, Any] = {
+        "name": args.name,
+        "role": args.role,
+        "password": password,
+        "firm": args.firm,
+        "email": args.email,
+        "days": args.days,
+        "overwrite": args.force,
+    }
     if args.authority:
         from calcpack.signing.authority import issue_key
 
@@ -118,14 +127,8 @@ def _new(args: argparse.Namespace) -> int:
             args.authority,
             _authority_password(f"Password for the authority {args.authority}: "),
             args.out,
-            name=args.name,
-            role=args.role,
-            password=password,
-            firm=args.firm,
-            email=args.email,
-            days=args.days,
             crl_url=args.crl_url,
-            overwrite=args.force,
+            **who,
         )
     else:
         if args.crl_url:
@@ -136,16 +139,7 @@ def _new(args: argparse.Namespace) -> int:
                 name="crl-url",
                 value=args.crl_url,
             )
-        files = new_self_signed(
-            args.out,
-            name=args.name,
-            role=args.role,
-            password=password,
-            firm=args.firm,
-            email=args.email,
-            days=args.days,
-            overwrite=args.force,
-        )
+        files = new_self_signed(args.out, **who)
     print(f"Key file:    {files.key}")
     if args.authority:
         root = Path(args.authority).with_suffix(".crt")

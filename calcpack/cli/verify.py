@@ -72,7 +72,7 @@ def _at(text: str | None) -> dt.datetime | str | None:
 
 
 def _verify(args: argparse.Namespace) -> int:
-    from calcpack.signing.verify import verify_package
+    from calcpack.package.reproduce import verify_package
 
     require = tuple(r.strip() for r in args.require.split(",") if r.strip())
     report = verify_package(

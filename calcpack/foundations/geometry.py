@@ -29,7 +29,7 @@ from typing import Literal
 from calcpack.combinations.model import AppliedCombination, CombinationSet
 from calcpack.errors import InputError, OutOfScopeError
 from calcpack.units import Q_, Quantity
-from calcpack.validate import dimension, one_of, positive
+from calcpack.validate import dimension, instance, one_of, positive, required
 
 __all__ = [
     "GEOTECHNICAL_CAUTION",
@@ -97,13 +97,12 @@ class Column:
             object.__setattr__(self, "c2", self.c1)
         _len("c2", self.c2)
         if self.support == "base plate":
-            if self.plate1 is None:
-                raise InputError(
-                    "Input plate1 is required when support = 'base plate' (got plate1 = None)",
-                    name="plate1",
-                    value=None,
-                    expected="the base plate size along x",
-                )
+            required(
+                "plate1",
+                self.plate1,
+                expected="the base plate size along x",
+                when="when support = 'base plate'",
+            )
             _len("plate1", self.plate1)
             if self.plate2 is None:
                 object.__setattr__(self, "plate2", self.plate1)
@@ -112,11 +111,11 @@ class Column:
             for p, c, n in pairs:
                 if p is not None and c is not None and p < c:
                     raise InputError(
-                        f"Input {n} must be at least the column size (got {n} = {p:~P}, "
-                        f"column {c:~P})",
                         name=n,
                         value=p,
+                        rule="must be at least the column size",
                         expected="a plate at least as large as the column",
+                        note=f"column {c:~P}",
                     )
 
     @property
@@ -181,23 +180,14 @@ class Footing:
         _len("B", self.B)
         _len("h", self.h)
         if self.shape == "rectangular":
-            if self.L is None:
-                raise InputError(
-                    "Input L is required for a rectangular footing (got L = None)",
-                    name="L",
-                    value=None,
-                    expected="the footing length along y",
-                )
+            required(
+                "L", self.L, expected="the footing length along y", when="for a rectangular footing"
+            )
             _len("L", self.L)
         else:
             object.__setattr__(self, "L", self.B)
-        if self.kind == "pier" and self.shape != "round":
-            raise InputError(
-                f"Input shape must be 'round' for a pier (got shape = {self.shape!r})",
-                name="shape",
-                value=self.shape,
-                expected="'round'",
-            )
+        if self.kind == "pier":
+            one_of("shape", self.shape, ("round",))
         cover = dimension("soil_cover", self.soil_cover, "[length]")
         positive("soil_cover", cover, allow_zero=True)
         g = dimension("gamma_concrete", self.gamma_concrete, "[force]/[length]**3")
@@ -205,12 +195,11 @@ class Footing:
         if self.gamma_soil is not None:
             positive("gamma_soil", dimension("gamma_soil", self.gamma_soil, "[force]/[length]**3"))
         elif cover.magnitude > 0:
-            raise InputError(
-                f"Input gamma_soil is required when soil_cover > 0 (got soil_cover = "
-                f"{cover:~P}, gamma_soil = None); take it from the geotechnical report",
-                name="gamma_soil",
-                value=None,
-                expected="a soil unit weight such as 18 kN/m**3",
+            required(
+                "gamma_soil",
+                self.gamma_soil,
+                expected="a soil unit weight from the geotechnical report, such as 18 kN/m**3",
+                when=f"with soil_cover = {cover:~P}",
             )
         col = self.column
         if self.shape == "round":
@@ -421,13 +410,7 @@ def combine_footing_loads(
             expected="e.g. {'D': FootingLoad(P=...)}",
         )
     for k, v in loads.items():
-        if not isinstance(v, FootingLoad):
-            raise InputError(
-                f"Input loads[{k!r}] must be a FootingLoad (got {type(v).__name__})",
-                name=f"loads[{k!r}]",
-                value=v,
-                expected="a FootingLoad",
-            )
+        instance(f"loads[{k!r}]", v, FootingLoad, expected="a FootingLoad")
     out: dict[str, tuple[AppliedCombination, FootingLoad]] = {}
     for combo in combinations.apply(loads.keys()):
         total = FootingLoad()

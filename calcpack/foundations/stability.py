@@ -27,7 +27,7 @@ from typing import Any, Literal
 
 from calcpack.checks.base import MemberChecks, Recorder, Standard, run_checks
 from calcpack.combinations.model import AppliedCombination, CombinationSet
-from calcpack.errors import InputError, OutOfScopeError
+from calcpack.errors import OutOfScopeError
 from calcpack.foundations.geometry import (
     GEOTECHNICAL_CAUTION,
     Footing,
@@ -37,7 +37,7 @@ from calcpack.foundations.geometry import (
 )
 from calcpack.foundations.pressure import SoilPressure, soil_pressure
 from calcpack.units import Q_, Quantity
-from calcpack.validate import dimension, one_of, positive, within
+from calcpack.validate import dimension, non_empty, one_of, positive, within
 
 __all__ = [
     "SOIL_STANDARD",
@@ -79,13 +79,11 @@ class AllowableBearing:
     def __post_init__(self) -> None:
         positive("q_allow", dimension("q_allow", self.q_allow, "[pressure]"))
         one_of("basis", self.basis, ("gross", "net"))
-        if not self.source.strip():
-            raise InputError(
-                "Input source must name where q_allow comes from (got source = '')",
-                name="source",
-                value=self.source,
-                expected="e.g. 'Geotechnical report GR-12, §5.1'",
-            )
+        non_empty(
+            "source",
+            self.source,
+            expected="where q_allow comes from, e.g. 'Geotechnical report GR-12, §5.1'",
+        )
         if self.friction is not None:
             within(
                 "friction",

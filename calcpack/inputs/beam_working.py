@@ -44,6 +44,7 @@ def beam_working(outcome: BeamOutcome, sheet: Any, *, source: str = "inputs file
         source: where the inputs came from, shown beside each given value.
     """
     from calcpack.working import Min, Value
+    from calcpack.working.format import format_cell
 
     inp = outcome.inputs
     s = sheet
@@ -55,25 +56,26 @@ def beam_working(outcome: BeamOutcome, sheet: Any, *, source: str = "inputs file
     lines = [chr(ord("A") + i) for i in range(len(inp.supports))]
     s.table(
         ["Support line", "x", "Support"],
-        [
-            [n, x.to("m"), kind]
-            for n, x, kind in zip(lines, inp.support_x, inp.supports, strict=True)
-        ],
+        [[n, x, kind] for n, x, kind in zip(lines, inp.support_x, inp.supports, strict=True)],
         caption="Supports, left to right (free: no support)",
     )
+
+    def at(x: Any) -> str:
+        return format_cell(x.to(s.settings.unit_for(x) or x.units), s.settings.sig_figs, s.settings)
+
     rows = []
     for i, ld in enumerate(inp.loads, start=1):
         if hasattr(ld, "w"):
-            rows.append([i, ld.case, "uniform", ld.w, f"x = {ld.start:~P} to {ld.end:~P}"])
+            rows.append([i, ld.case, "uniform", ld.w, f"x = {at(ld.start)} to {at(ld.end)}"])
         else:
-            rows.append([i, ld.case, "point", ld.P, f"x = {ld.x:~P}"])
+            rows.append([i, ld.case, "point", ld.P, f"x = {at(ld.x)}"])
     s.table(
         ["Load", "Case", "Type", "Magnitude", "Position"],
         rows,
         caption="Loads by case (downward positive)",
     )
     combos = [
-        [name, " + ".join(f"{f:g}{c}" for c, f in factors.items())]
+        [name, " + ".join(f"{f:g}{c}" if f != 1 else c for c, f in factors.items())]
         for name, factors in (("strength", inp.strength), ("service", inp.service))
     ]
     s.table(["Combination", "Load factors"], combos, caption="Load combinations")
@@ -101,7 +103,7 @@ def beam_working(outcome: BeamOutcome, sheet: Any, *, source: str = "inputs file
     s.table(
         ["Support", "x", f"R ({outcome.strength.label})", f"R ({outcome.service.label})"],
         [
-            [a.support, a.x.to("m"), a.Fy, b.Fy]
+            [a.support, a.x, a.Fy, b.Fy]
             for a, b in zip(outcome.strength.reactions, outcome.service.reactions, strict=True)
         ],
         caption="Vertical reactions (upward positive)",
@@ -111,7 +113,7 @@ def beam_working(outcome: BeamOutcome, sheet: Any, *, source: str = "inputs file
     M = s.given(
         "M_Ed",
         outcome.M_design,
-        f"largest |M|, {outcome.strength.label}, at x = {outcome.x_M.to('m'):~.3gP}",
+        f"largest |M|, {outcome.strength.label}, at x = {at(outcome.x_M)}",
         source="analysis above",
     )
     sigma = s.derive("sigma_b", M / S, "bending stress", unit="MPa")
@@ -130,8 +132,7 @@ def beam_working(outcome: BeamOutcome, sheet: Any, *, source: str = "inputs file
         delta = s.given(
             f"delta_{d.span}",
             abs(d.delta),
-            f"largest deflection in span {d.span} "
-            f"({outcome.service.label}) at x = {d.x.to('m'):~.3gP}",
+            f"largest deflection in span {d.span} ({outcome.service.label}) at x = {at(d.x)}",
             source="analysis above",
         )
         limit = s.derive(

@@ -20,7 +20,7 @@ from __future__ import annotations
 from collections.abc import Mapping
 from dataclasses import dataclass, field
 from pathlib import Path
-from typing import Any, Union
+from typing import Any
 
 from calcpack.inputs.file import InputsFileError
 from calcpack.validate import unknown_key
@@ -51,7 +51,7 @@ class Tables:
     item: Table
 
 
-Layout = Union[Table, Tables]  # noqa: UP007 - a runtime alias used before the classes' use
+Layout = Table | Tables
 
 
 def refuse_unknown_keys(

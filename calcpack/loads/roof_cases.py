@@ -34,7 +34,7 @@ from calcpack.analysis.truss_model import JointLoad
 from calcpack.errors import InputError
 from calcpack.loads.types import UniformLoad
 from calcpack.units import Q_, Quantity
-from calcpack.validate import dimension, one_of, positive
+from calcpack.validate import dimension, non_empty, one_of, positive, within
 
 __all__ = [
     "RoofProfile",
@@ -69,13 +69,7 @@ class RoofProfile:
 
     def __post_init__(self) -> None:
         one_of("kind", self.kind, ("plan", "normal"))
-        if not self.case.strip():
-            raise InputError(
-                "Input case must name the load case (got case = '')",
-                name="case",
-                value=self.case,
-                expected="e.g. 'S (i)'",
-            )
+        non_empty("case", self.case, expected="the load case's name, e.g. 'S (i)'")
         if len(self.breaks) != len(self.values) + 1 or not self.values:
             raise InputError(
                 f"Input breaks must have one more entry than values (got {len(self.breaks)} "
@@ -86,13 +80,13 @@ class RoofProfile:
             )
         for i, b in enumerate(self.breaks):
             dimension(f"breaks[{i}]", b, "[length]")
-            if i and not b > self.breaks[i - 1]:
-                raise InputError(
-                    f"Input breaks must increase (got breaks[{i}] = {b:~P} after "
-                    f"{self.breaks[i - 1]:~P})",
-                    name=f"breaks[{i}]",
-                    value=b,
-                    expected="increasing plan positions",
+            if i:
+                within(
+                    f"breaks[{i}]",
+                    b,
+                    lo=self.breaks[i - 1],
+                    inclusive=False,
+                    rule="plan positions increase",
                 )
         for i, v in enumerate(self.values):
             dimension(f"values[{i}]", v, _AREA)

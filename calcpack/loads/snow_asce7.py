@@ -25,7 +25,7 @@ from calcpack.checks.base import Recorder
 from calcpack.loads.derive import Derivation, LoadStandard, is_us_customary, run_derivation
 from calcpack.refdata import read_table
 from calcpack.units import Q_, Quantity
-from calcpack.validate import dimension, one_of, positive, within
+from calcpack.validate import dimension, non_empty, one_of, positive, within
 
 __all__ = [
     "ASCE7_SNOW",
@@ -81,16 +81,12 @@ class SnowSiteASCE7:
             rule="ASCE 7-16 §7.2: above this a "
             "site-specific case study governs (calcpack covers mapped values only)",
         )
-        if not isinstance(self.pg_source, str) or not self.pg_source.strip():
-            from calcpack.errors import InputError
-
-            raise InputError(
-                f"Input pg_source must name where the ground snow load comes from "
-                f"(got pg_source = {self.pg_source!r})",
-                name="pg_source",
-                value=self.pg_source,
-                expected="e.g. 'ASCE 7-16 Figure 7.2-1' or the local building code",
-            )
+        non_empty(
+            "pg_source",
+            self.pg_source,
+            expected="where the ground snow load comes from, e.g. 'ASCE 7-16 Figure 7.2-1' or "
+            "the local building code",
+        )
         one_of("terrain", self.terrain, TERRAINS)
         one_of("exposure", self.exposure, EXPOSURES)
         one_of("thermal", self.thermal, THERMALS)

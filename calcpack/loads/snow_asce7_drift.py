@@ -16,7 +16,6 @@ from dataclasses import dataclass
 from typing import Any, Literal
 
 from calcpack.checks.base import Recorder
-from calcpack.errors import InputError
 from calcpack.loads.derive import Derivation, is_us_customary, run_derivation
 from calcpack.loads.snow_asce7 import (
     ASCE7_SNOW,
@@ -24,7 +23,7 @@ from calcpack.loads.snow_asce7 import (
     record_drift_height,
 )
 from calcpack.units import Q_, Quantity
-from calcpack.validate import dimension, one_of, positive
+from calcpack.validate import dimension, one_of, positive, required
 
 __all__ = ["SlidingSnowASCE7", "SnowDriftASCE7", "drift_asce7", "sliding_snow_asce7"]
 
@@ -73,26 +72,22 @@ class SnowDriftASCE7:
         dimension("ps", self.ps, _PRESSURE)
         positive("ps", self.ps, allow_zero=True)
         if self.kind == "roof step":
-            if self.lu_upper is None:
-                raise InputError(
-                    "Input lu_upper (length of the upper roof) is needed for a roof step drift "
-                    "(got lu_upper = None)",
-                    name="lu_upper",
-                    value=None,
-                    expected="a length > 0",
-                )
+            required(
+                "lu_upper",
+                self.lu_upper,
+                expected="the length of the upper roof, > 0",
+                when="for a roof step drift",
+            )
             _length("lu_upper", self.lu_upper)
         if self.lower_width is not None:
             _length("lower_width", self.lower_width)
         if self.kind == "rooftop projection":
-            if self.projection_length is None:
-                raise InputError(
-                    "Input projection_length is needed for a rooftop projection "
-                    "(got projection_length = None)",
-                    name="projection_length",
-                    value=None,
-                    expected="a length > 0",
-                )
+            required(
+                "projection_length",
+                self.projection_length,
+                expected="a length > 0",
+                when="for a rooftop projection",
+            )
             _length("projection_length", self.projection_length)
 
 

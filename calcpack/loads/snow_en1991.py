@@ -34,7 +34,7 @@ from calcpack.errors import InputError
 from calcpack.loads.derive import Derivation, LoadStandard, run_derivation
 from calcpack.refdata import read_table
 from calcpack.units import Q_, Quantity
-from calcpack.validate import dimension, one_of, positive, within
+from calcpack.validate import dimension, non_empty, one_of, positive, required, within
 
 __all__ = [
     "EN1991_SNOW",
@@ -134,36 +134,30 @@ class SnowSiteEN:
         if self.sk is not None:
             dimension("sk", self.sk, _PRESSURE)
             positive("sk", self.sk, allow_zero=True)
-            if not self.sk_source.strip():
-                raise InputError(
-                    "Input sk_source must name where the ground snow load comes from "
-                    f"(got sk_source = {self.sk_source!r})",
-                    name="sk_source",
-                    value=self.sk_source,
-                    expected="e.g. 'national annex map' or a site study",
-                )
+            non_empty(
+                "sk_source",
+                self.sk_source,
+                expected="where the ground snow load comes from, e.g. 'national annex map' or a "
+                "site study",
+            )
             return
         if self.annex != "UK":
-            raise InputError(
-                "Input sk is required with annex = 'recommended' (got sk = None): EN 1991-1-3 "
-                "leaves the ground snow load to the national annex",
-                name="sk",
-                value=None,
+            required(
+                "sk",
+                self.sk,
                 expected="a characteristic ground snow load in kN/m² with sk_source",
+                when="with annex = 'recommended' (EN 1991-1-3 leaves it to the national annex)",
             )
-        if self.zone is None or self.altitude is None:
-            raise InputError(
-                "Inputs zone and altitude are required for the UK annex rule "
-                f"(got zone = {self.zone!r}, altitude = {self.altitude!r})",
-                name="zone" if self.zone is None else "altitude",
-                value=None,
-                expected="zone 1 to 5 from Figure NA.1 and the site altitude in m",
-            )
+        wanted = "zone 1 to 5 from Figure NA.1 and the site altitude in m"
+        required("zone", self.zone, expected=wanted, when="for the UK annex rule")
+        altitude = required(
+            "altitude", self.altitude, expected=wanted, when="for the UK annex rule"
+        )
         within("zone", self.zone, 1.0, 5.0, rule="UK NA Figure NA.1 zones 1 to 5 (from memory)")
         dimension("altitude", self.altitude, "[length]")
         within(
             "altitude",
-            self.altitude.to("m"),
+            altitude.to("m"),
             Q_(0.0, "m"),
             UK_ALTITUDE_MAX,
             rule="the UK annex rule to 500 m; above it, specialist advice (from memory)",
@@ -356,14 +350,12 @@ class SnowDriftEN:
         positive("h", self.h)
         if self.kind == "roof step":
             for name in ("b1", "b2"):
-                v = getattr(self, name)
-                if v is None:
-                    raise InputError(
-                        f"Input {name} is required for a roof step (got {name} = None)",
-                        name=name,
-                        value=None,
-                        expected="the plan width of the roof in m (EN 1991-1-3 Figure 5.7)",
-                    )
+                v = required(
+                    name,
+                    getattr(self, name),
+                    expected="the plan width of the roof in m (EN 1991-1-3 Figure 5.7)",
+                    when="for a roof step",
+                )
                 dimension(name, v, "[length]")
                 positive(name, v)
         dimension("alpha_upper", self.alpha_upper, "[]")

@@ -29,6 +29,7 @@ from calcpack.errors import InputError
 from calcpack.loads._si import check as require
 from calcpack.loads._si import fast_si as si
 from calcpack.units import Q_, Quantity
+from calcpack.validate import instance, non_empty, within
 
 __all__ = [
     "AreaLoad",
@@ -73,14 +74,7 @@ class SIPoint(NamedTuple):
 
 
 def _case(case: object) -> str:
-    if not isinstance(case, str) or not case.strip():
-        raise InputError(
-            f"Load case name must be a non-empty string such as 'D' or 'L' (got case = {case!r})",
-            name="case",
-            value=case,
-            expected="a non-empty string",
-        )
-    return case.strip()
+    return non_empty("case", case, expected="the load case's name, such as 'D' or 'L'")
 
 
 @dataclass(frozen=True)
@@ -405,14 +399,8 @@ class FunctionLoad(DistributedLoad):
                 value=self.func,
                 expected="a callable w(x)",
             )
-        if not (isinstance(self.rtol, float | int) and 1e-13 <= float(self.rtol) <= 1e-2):
-            raise InputError(
-                f"Function load accuracy rtol must be between 1e-13 and 1e-2 (got rtol = "
-                f"{self.rtol!r})",
-                name="rtol",
-                value=self.rtol,
-                expected="1e-13 <= rtol <= 1e-2",
-            )
+        instance("rtol", self.rtol, (float, int), expected="a relative accuracy")
+        within("rtol", self.rtol, 1e-13, 1e-2, rule="the function load's relative accuracy")
 
     def evaluate_si(self, x_m: np.ndarray) -> np.ndarray:
         """Call the user's function at positions x (m); returns N/m as floats."""
@@ -466,12 +454,5 @@ def as_loads(loads: Sequence[Load] | Load) -> tuple[Load, ...]:
     """A tuple of loads from one load or a sequence, each checked to be a :class:`Load`."""
     items = (loads,) if isinstance(loads, Load) else tuple(loads)
     for i, item in enumerate(items):
-        if not isinstance(item, Load):
-            raise InputError(
-                f"loads[{i}] must be a calcpack load such as UniformLoad or PointLoad (got "
-                f"{item!r})",
-                name=f"loads[{i}]",
-                value=item,
-                expected="a Load",
-            )
+        instance(f"loads[{i}]", item, Load, expected="a calcpack load such as UniformLoad")
     return items

@@ -18,11 +18,10 @@ from dataclasses import dataclass
 from typing import Any, Literal
 
 from calcpack.checks.base import Recorder
-from calcpack.errors import InputError
 from calcpack.loads.derive import Derivation, LoadStandard, is_us_customary, run_derivation
 from calcpack.refdata import read_table
 from calcpack.units import Q_, Quantity
-from calcpack.validate import dimension, one_of, positive, within
+from calcpack.validate import dimension, non_empty, one_of, positive, within
 
 __all__ = [
     "ASCE7_WIND",
@@ -90,14 +89,12 @@ class WindSiteASCE7:
         dimension("V", self.V, "[speed]")
         positive("V", self.V)
         within("V", self.V, hi=Q_(300.0, "mph"), rule="beyond the mapped wind speeds")
-        if not isinstance(self.V_source, str) or not self.V_source.strip():
-            raise InputError(
-                f"Input V_source must name the wind speed map or study used "
-                f"(got V_source = {self.V_source!r})",
-                name="V_source",
-                value=self.V_source,
-                expected="e.g. 'ASCE 7-16 Figure 26.5-1B (risk category II)'",
-            )
+        non_empty(
+            "V_source",
+            self.V_source,
+            expected="the wind speed map or study used, e.g. 'ASCE 7-16 Figure 26.5-1B (risk "
+            "category II)'",
+        )
         one_of("exposure", self.exposure, EXPOSURES)
         if self.ground_elevation is not None:
             dimension("ground_elevation", self.ground_elevation, "[length]")

@@ -35,7 +35,7 @@ from calcpack.errors import InputError
 from calcpack.loads.derive import Derivation, LoadStandard, run_derivation
 from calcpack.refdata import read_table
 from calcpack.units import Q_, Quantity
-from calcpack.validate import dimension, one_of, positive, within
+from calcpack.validate import dimension, non_empty, one_of, positive, required, within
 
 __all__ = [
     "EN1991_WIND",
@@ -103,13 +103,7 @@ class WindSiteEN:
         dimension("vb_map", self.vb_map, "[speed]")
         positive("vb_map", self.vb_map)
         within("vb_map", self.vb_map.to("m/s"), hi=Q_(60.0, "m/s"), rule="beyond mapped values")
-        if not self.vb_source.strip():
-            raise InputError(
-                f"Input vb_source must name the wind map used (got vb_source = {self.vb_source!r})",
-                name="vb_source",
-                value=self.vb_source,
-                expected="e.g. 'UK NA Figure NA.1'",
-            )
+        non_empty("vb_source", self.vb_source, expected="the wind map used ('UK NA Figure NA.1')")
         one_of("annex", self.annex, ("UK", "recommended"))
         one_of("terrain", self.terrain, TERRAINS)
         within("c_dir", self.c_dir, 0.7, 1.0, rule="directional factor, at most 1.0 (§4.2(2))")
@@ -118,14 +112,12 @@ class WindSiteEN:
         within("c_o", self.c_o, 1.0, 2.0, rule="orography factor of Annex A.3 (1.0 on flat ground)")
         within("c_eT", self.c_eT, 0.5, 1.0, rule="UK NA Figure NA.8 town correction")
         if self.annex == "UK":
-            if self.altitude is None:
-                raise InputError(
-                    "Input altitude is required with the UK annex (got altitude = None): "
-                    "c_alt = 1 + 0.001·A (UK NA Eq. NA.2)",
-                    name="altitude",
-                    value=None,
-                    expected="the site altitude above sea level, e.g. Q_(85, 'm')",
-                )
+            required(
+                "altitude",
+                self.altitude,
+                expected="the site altitude above sea level, e.g. Q_(85, 'm')",
+                when="with the UK annex (c_alt = 1 + 0.001·A, UK NA Eq. NA.2)",
+            )
             if self.c_e is None or not self.c_e_source.strip():
                 raise InputError(
                     "Input c_e (with c_e_source) is required with the UK annex "

@@ -61,7 +61,8 @@ class ChunkStore:
                 Link(int(page), (float(x1), float(y1), float(x2), float(y2)), str(target))
                 for page, (x1, y1, x2, y2), target in meta["links"]
             )
-            chunk = Chunk(sections, int(meta["page_count"]), links, pdf, True)
+            anchors = {str(k): int(v) for k, v in meta["anchors"].items()}
+            chunk = Chunk(sections, int(meta["page_count"]), links, pdf, True, anchors)
         except (ValueError, KeyError, TypeError) as exc:
             for path in (meta_file, pdf_file):
                 discard(path, what, f"its description cannot be read ({exc})")
@@ -78,6 +79,7 @@ class ChunkStore:
             "sections": {k: list(v) for k, v in chunk.sections.items()},
             "page_count": chunk.page_count,
             "links": [[link.page, list(link.rect), link.target] for link in chunk.links],
+            "anchors": chunk.anchors,
         }
         write_entry(self.folder / f"{key}.pdf", f"{key}.pdf", chunk.pdf)
         write_entry(self.folder / f"{key}.json", f"{key}.json", json.dumps(meta).encode())
@@ -90,4 +92,5 @@ class ChunkStore:
                 path.unlink(missing_ok=True)
 
 
-_LAYOUT_FORMAT = "calcpack-chunk/3"  # 2: sealed entries (calcpack.package.cache); 3: tagged
+# 2: sealed entries (calcpack.package.cache); 3: tagged; 4: anchors inside sections
+_LAYOUT_FORMAT = "calcpack-chunk/4"

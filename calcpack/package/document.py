@@ -56,6 +56,9 @@ class SheetDoc:
     records: SheetRecords
     source_cells: tuple[tuple[int, str], ...] = ()
     """(1-based cell number, source) of every code cell, for the reviewer's appendix."""
+    check_anchors: tuple[str, ...] = ()
+    """The anchor of each of ``records.checks`` in ``body_html`` (the summary links to the
+    check's own page); empty when the body's checks could not be matched to the records."""
 
 
 @dataclass(frozen=True)
@@ -376,7 +379,7 @@ def _assumptions(project: Project, sheets: Sequence[SheetDoc]) -> str:
         + body
         + '<div class="cp-cautions" id="cautions"><div class="cp-cautions-title">Cautions</div>'
         + _list(cautions, ordered=True)
-        + "</div>"
+        + '<div class="cp-boxend"></div></div>'
     )
 
 

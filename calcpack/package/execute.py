@@ -43,6 +43,7 @@ __all__ = [
     "CACHE_DIR_NAME",
     "DEFAULT_CELL_TIMEOUT_S",
     "ExecutedSheet",
+    "FailedSheet",
     "execute_notebook",
     "execute_sheets",
     "process_pool",
@@ -69,6 +70,14 @@ class ExecutedSheet:
     from_cache: bool
     seconds: float
     """Wall time spent executing (0 when read from the cache)."""
+
+
+@dataclass(frozen=True)
+class FailedSheet:
+    """A sheet whose execution failed, with the error its kernel raised."""
+
+    entry: SheetEntry
+    error: NotebookExecutionError
 
 
 def _kernel_env(exports: str | None = None, sheet: str | None = None) -> dict[str, str]:
@@ -99,8 +108,9 @@ def _first_line(source: str) -> str:
     return ""
 
 
-def _failure(nb: Any, sheet: str, exc: BaseException, timeout: float) -> tuple[str, int, str, str]:
-    """(sheet, 1-based cell number, first source line, error) for a failed execution."""
+def _failure(nb: Any, sheet: str, exc: BaseException, timeout: float) -> NotebookExecutionError:
+    """The error for a failed execution: the sheet, the 1-based cell number, the cell's first
+    source line and what the kernel said."""
     from nbclient.exceptions import CellTimeoutError, DeadKernelError
 
     index, excerpt = 0, ""
@@ -137,7 +147,7 @@ def _failure(nb: Any, sheet: str, exc: BaseException, timeout: float) -> tuple[s
         if candidates:
             index = candidates[-1]
             excerpt = _first_line(nb.cells[index - 1].source)
-    return sheet, index, excerpt, error
+    return NotebookExecutionError(sheet, index, excerpt, error)
 
 
 def execute_notebook(
@@ -157,18 +167,36 @@ def execute_notebook(
         NotebookExecutionError: a cell raised, timed out or the kernel died; names the sheet,
             the 1-based cell number, the first line of its source and the error.
     """
-    outcome = _execute(str(path), sheet, timeout)
-    if outcome[0] == "error":
-        raise NotebookExecutionError(*outcome[1:])
     import nbformat
 
-    return nbformat.reads(outcome[1], as_version=4)
+    return nbformat.reads(_execute(str(path), sheet, timeout), as_version=4)
 
 
-def _execute(path: str, sheet: str, timeout: float, exports: str | None = None) -> tuple[Any, ...]:
-    """Run one notebook; ('ok', json) or ('error', sheet, cell, excerpt, error). Picklable.
+def execute_sheet(
+    project: Project, sheet: SheetEntry, key: str, timeout: float, exports: str | None = None
+) -> ExecutedSheet:
+    """Execute one sheet of a project (in a worker process or in this one).
 
-    ``exports`` is the build's folder of exports files, read by the sheet's imports."""
+    ``key`` is its cache key; ``exports`` the build's folder of exports files, read by the
+    sheet's imports.
+
+    Raises:
+        NotebookExecutionError: a cell raised, timed out or the kernel died (it unpickles as
+            raised, so a worker's failure reaches the build as it is).
+    """
+    start = time.perf_counter()
+    text = _execute(str(project.sheet_path(sheet)), sheet.path, timeout, exports)
+    return ExecutedSheet(sheet, text, key, False, time.perf_counter() - start)
+
+
+def _execute(path: str, sheet: str, timeout: float, exports: str | None = None) -> str:
+    """Run one notebook; the executed notebook as nbformat JSON.
+
+    ``exports`` is the build's folder of exports files, read by the sheet's imports.
+
+    Raises:
+        NotebookExecutionError: see :func:`execute_notebook`.
+    """
     import nbformat
     from jupyter_client.kernelspec import KernelSpec, KernelSpecManager
     from jupyter_client.manager import AsyncKernelManager
@@ -214,7 +242,7 @@ def _execute(path: str, sheet: str, timeout: float, exports: str | None = None) 
                 # build's output: cell errors come back as messages and are reported.
                 client.execute(stderr=subprocess.DEVNULL)
         except (CellExecutionError, CellControlSignal, DeadKernelError, RuntimeError) as exc:
-            return ("error", *_failure(nb, sheet, exc, timeout))
+            raise _failure(nb, sheet, exc, timeout) from None
         finally:
             # nbclient leaves a kernel manager it was given running: shut it down here.
             try:
@@ -222,7 +250,7 @@ def _execute(path: str, sheet: str, timeout: float, exports: str | None = None) 
                     run_sync(km.shutdown_kernel)(now=True)
             except Exception:
                 pass
-    return ("ok", nbformat.writes(nb))
+    return str(nbformat.writes(nb))
 
 
 _QUIET_LOG = logging.getLogger("calcpack.kernel")
@@ -409,10 +437,10 @@ def execute_sheets(
             extra = links.imports_key(upstream)
             return hashlib.sha256(f"{base}:{extra}".encode()).hexdigest() if extra else base
 
-        def finish(sheet: SheetEntry, key: str, outcome: tuple[Any, ...], seconds: float) -> None:
+        def finish(item: ExecutedSheet) -> None:
             if use_cache:
-                _store(cache, sheet, key, outcome[1])
-            available(ExecutedSheet(sheet, outcome[1], key, False, seconds))
+                _store(cache, item.entry, item.cache_key, item.notebook_json)
+            available(item)
 
         def ready() -> list[tuple[SheetEntry, str]]:
             """Start what can start: cached sheets at once, the rest returned with their key."""
@@ -442,11 +470,11 @@ def execute_sheets(
                 sheet, key = queue.pop(0)
                 if progress:
                     progress("executing", sheet)
-                start = time.perf_counter()
-                outcome = _execute(str(project.sheet_path(sheet)), sheet.path, timeout, exports)
-                if outcome[0] == "error":
-                    raise _failed(outcome, deps)
-                finish(sheet, key, outcome, time.perf_counter() - start)
+                try:
+                    item = execute_sheet(project, sheet, key, timeout, exports)
+                except NotebookExecutionError as exc:
+                    raise _failed(FailedSheet(sheet, exc), deps) from None
+                finish(item)
                 queue += ready()
         else:
             _execute_in(
@@ -468,16 +496,19 @@ def _downstream(sheet: str, deps: dict[str, tuple[str, ...]]) -> list[str]:
     return [p for p in deps if p in out]
 
 
-def _failed(outcome: tuple[Any, ...], deps: dict[str, tuple[str, ...]]) -> BuildError:
+def _failed(failed: FailedSheet, deps: dict[str, tuple[str, ...]]) -> NotebookExecutionError:
     """The error for a failed sheet, naming the sheets not built because they import from it."""
-    sheet, cell, excerpt, error = outcome[1:]
-    not_built = _downstream(sheet, deps)
-    if not_built:
-        error = (
-            f"{error}. Not built, as they import from it directly or through other sheets: "
-            + ", ".join(not_built)
-        )
-    return NotebookExecutionError(sheet, cell, excerpt, error)
+    error = failed.error
+    not_built = _downstream(failed.entry.path, deps)
+    if not not_built:
+        return error
+    return NotebookExecutionError(
+        error.sheet,
+        error.cell_index,
+        error.source_excerpt,
+        f"{error.error}. Not built, as they import from it directly or through other sheets: "
+        + ", ".join(not_built),
+    )
 
 
 def _execute_in(
@@ -487,7 +518,7 @@ def _execute_in(
     timeout: float,
     workers: int,
     progress: ProgressCallback | None,
-    finish: Callable[[SheetEntry, str, tuple[Any, ...], float], None],
+    finish: Callable[[ExecutedSheet], None],
     todo: list[SheetEntry],
     exports: str,
     deps: dict[str, tuple[str, ...]],
@@ -500,40 +531,37 @@ def _execute_in(
     the last sheets, on both workers, instead of every sheet.
     """
     queue: list[tuple[SheetEntry, str]] = ready()
-    futures: dict[concurrent.futures.Future[tuple[Any, ...]], tuple[SheetEntry, str]] = {}
-    starts: dict[str, float] = {}
+    futures: dict[concurrent.futures.Future[ExecutedSheet], tuple[SheetEntry, str]] = {}
 
     def submit() -> None:
         while queue and len(futures) < workers:
             sheet, key = queue.pop(0)
-            starts[sheet.path] = time.perf_counter()
-            path = str(project.sheet_path(sheet))
-            future = pool.submit(_execute, path, sheet.path, timeout, exports)
+            future = pool.submit(execute_sheet, project, sheet, key, timeout, exports)
             futures[future] = (sheet, key)
             if progress:
                 progress("executing", sheet)
 
     submit()
-    failures: list[tuple[int, tuple[Any, ...]]] = []
+    failures: list[tuple[int, FailedSheet]] = []
     order = {s.path: i for i, s in enumerate(todo)}
     while futures:
         done, _ = concurrent.futures.wait(futures, return_when=concurrent.futures.FIRST_COMPLETED)
         for future in done:
-            sheet, key = futures.pop(future)
+            sheet, _ = futures.pop(future)
             try:
-                outcome = future.result()
+                item = future.result()
+            except NotebookExecutionError as exc:  # raised in the worker, unpickled as raised
+                failures.append((order[sheet.path], FailedSheet(sheet, exc)))
+                continue
             except concurrent.futures.process.BrokenProcessPool as exc:
                 raise BuildError(
                     f"A worker process executing sheet {sheet.path!r} stopped abruptly "
                     "(out of memory, or a script that starts the build without an "
                     "`if __name__ == '__main__':` guard); try --workers 1"
                 ) from exc
-            if outcome[0] == "error":
-                failures.append((order[sheet.path], outcome))
-                continue
             if failures:
                 continue
-            finish(sheet, key, outcome, time.perf_counter() - starts[sheet.path])
+            finish(item)
             queue.extend(ready())
         if not failures:
             submit()

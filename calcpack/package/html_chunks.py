@@ -77,15 +77,29 @@ def split_document(html: str, section_ids: Sequence[str]) -> Split:
     return Split(head, tuple(sections), tail, m.group(0) if m else "")
 
 
+_IN_RE = re.compile(r'\bdata-cp-in="([^"]+)"')
+
+
 def number_links(html: str, starts: dict[str, int]) -> str:
-    """Write the first page of each linked section into its links (``data-cp-page``), where
-    CSS would compute ``target-counter``: the target may be in another chunk."""
+    """Write the page of each link's target into the link (``data-cp-page``), where CSS would
+    compute ``target-counter``: the target may be in another chunk.
+
+    ``starts``: the first page of every section, and the page of every anchor inside one
+    whose page is known. A link to an anchor not yet laid out shows the first page of the
+    section it names in ``data-cp-in`` (the next layout pass corrects it).
+    """
 
     def number_link(m: re.Match[str]) -> str:
         target = m.group(2)
-        if target not in starts or "data-cp-page=" in m.group(1):
+        if "data-cp-page=" in m.group(1):
             return m.group(0)
-        return f'<a{m.group(1)} data-cp-page="{starts[target]}" href="#{target}"'
+        page = starts.get(target)
+        if page is None:
+            inside = _IN_RE.search(m.group(1))
+            page = starts.get(inside.group(1)) if inside else None
+        if page is None:
+            return m.group(0)
+        return f'<a{m.group(1)} data-cp-page="{page}" href="#{target}"'
 
     return _LINK_RE.sub(number_link, html)
 

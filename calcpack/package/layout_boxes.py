@@ -17,6 +17,7 @@ from typing import Any
 from calcpack.errors import BuildError
 
 __all__ = [
+    "INNER_ANCHOR",
     "PX_TO_PT",
     "Chunk",
     "Layout",
@@ -24,6 +25,7 @@ __all__ = [
     "as_assumed",
     "cross_chunk_links_expected",
     "foreign_links",
+    "inner_anchors",
     "section_pages",
     "signature_fields",
     "walk",
@@ -90,6 +92,20 @@ def _pt_box(
         round(x2 * PX_TO_PT, 2),
         round(height - top * PX_TO_PT, 2),
     )
+
+
+INNER_ANCHOR = "chk-"
+"""Prefix of the anchors inside a section whose page a link shows (a check on its sheet)."""
+
+
+def inner_anchors(document: Any) -> dict[str, int]:
+    """Anchor id -> page (1-based) of every :data:`INNER_ANCHOR` anchor in the document."""
+    found: dict[str, int] = {}
+    for number, page in enumerate(document.pages, start=1):
+        for anchor in page.anchors:
+            if anchor.startswith(INNER_ANCHOR):
+                found.setdefault(anchor, number)
+    return found
 
 
 def section_pages(document: Any, ids: Sequence[str]) -> dict[str, tuple[int, int]]:
@@ -170,6 +186,9 @@ class Chunk:
     pdf: bytes | None
     """The chunk's PDF; None when a page count differed from the assumed one."""
     holds: bool
+    anchors: dict[str, int] = field(default_factory=dict)
+    """Anchors inside sections that links point to (:data:`INNER_ANCHOR`) -> page within the
+    chunk, 1-based."""
 
 
 def as_assumed(sections: dict[str, tuple[int, int]], assumed: dict[str, int]) -> bool:

@@ -2,10 +2,11 @@
 of the upstream values goes into a sheet's cache key and the manifest.
 
 The build knows a sheet's imports before it runs the notebook: it reads the code cells and
-finds every ``.import_value("02_lintel", ...)`` and ``.import_cases(...)`` call whose sheet is
-written as a string (a sheet named by an expression is refused, so the order is never a
-guess). It then executes in dependency order -- a sheet starts when every sheet it imports
-from is done, so independent chains run side by side -- and refuses a cycle, naming its sheets.
+finds every ``.import_value("02_lintel", ...)``, ``.import_cases(...)`` and
+``.import_by_case(...)`` call whose sheet is written as a string (a sheet named by an
+expression is refused, so the order is never a guess). It then executes in dependency
+order -- a sheet starts when every sheet it imports from is done, so independent chains run
+side by side -- and refuses a cycle, naming its sheets.
 
 A sheet's cache key includes the values its upstream sheets export (:func:`imports_key`): a
 change upstream re-executes exactly the sheets that import the changed values, directly or
@@ -38,7 +39,7 @@ __all__ = [
     "write_exports_file",
 ]
 
-IMPORT_CALLS = ("import_value", "import_cases")
+IMPORT_CALLS = ("import_value", "import_cases", "import_by_case")
 """Sheet methods whose first argument names the sheet imported from."""
 
 _MAGIC_RE = re.compile(r"^\s*[%!].*$", re.MULTILINE)
@@ -174,7 +175,7 @@ def write_exports_file(
     """Write a sheet's exports file into ``folder`` (the build's, or the project's cache for
     JupyterLab), from the export records of its executed notebook."""
     from calcpack.fileio import write_atomically
-    from calcpack.working.links import exports_document, project_sheets
+    from calcpack.working.links import exports_document, project_sheets, sealed_exports
 
     for ref in project_sheets(project.root):
         if ref.path == entry.path:
@@ -183,8 +184,7 @@ def write_exports_file(
     else:  # pragma: no cover - every entry comes from the same project file
         document = {"format": EXPORTS_FORMAT, "sheet": entry.path, "values": {}}
     slug = re.sub(r"[^A-Za-z0-9]+", "_", entry.path).strip("_")
-    text = json.dumps(document, indent=1, sort_keys=True) + "\n"
-    write_atomically(folder / f"{slug}.json", text)
+    write_atomically(folder / f"{slug}.json", sealed_exports(document))
 
 
 def link_records(sheet_path: str, imports: Iterable[Mapping[str, Any]]) -> list[dict[str, Any]]:

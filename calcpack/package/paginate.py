@@ -34,7 +34,10 @@ from __future__ import annotations
 
 import collections
 import concurrent.futures
+import hashlib
 import itertools
+import json
+import re
 from collections.abc import Callable, Sequence
 from dataclasses import replace
 
@@ -49,12 +52,14 @@ from calcpack.package.html_chunks import (
     split_sections,
 )
 from calcpack.package.layout_boxes import (
+    INNER_ANCHOR,
     Chunk,
     Layout,
     Link,
     as_assumed,
     cross_chunk_links_expected,
     foreign_links,
+    inner_anchors,
     section_pages,
     signature_fields,
 )
@@ -126,7 +131,14 @@ def _lay_out_chunk(
         sections = section_pages(document, ids)
         holds = assumed is not None and as_assumed(sections, assumed)
         pdf = document.write_pdf(pdf_variant=PDF_VARIANT, pdf_tags=True) if holds else None
-        return Chunk(sections, len(document.pages), tuple(foreign_links(document)), pdf, holds)
+        return Chunk(
+            sections,
+            len(document.pages),
+            tuple(foreign_links(document)),
+            pdf,
+            holds,
+            inner_anchors(document),
+        )
 
 
 def count_pages(html: str, ids: Sequence[str], base_url: str | None = None) -> dict[str, int]:
@@ -211,17 +223,38 @@ def paginate(
         ident not in given for ident in section_ids if ident not in sheet_sections
     ):
         assumed.update(_count_front_and_back(split, assumed, sheet_sections, base_url, pool))
-    for attempt in range(4):
+    inner: dict[str, tuple[str, int]] = {}
+    memo: dict[str, Chunk] = {}
+    for attempt in range(5):
         if attempt:
             counts = {path: assumed[ident] for path, ident in sheet_ids.items()}
             split = split_document(make_html(counts), section_ids)
-        layout, measured = _one_pass(
-            split, assumed, sheet_sections, roles, base_url, pool, fill, store
+        layout, measured, found = _one_pass(
+            split, assumed, sheet_sections, roles, base_url, pool, fill, store, inner, memo
         )
-        if layout is not None:
+        linked = _linked_inner(split)
+        # Where each linked anchor was assumed (the section its link names, else its page
+        # measured by an earlier pass), against where it fell.
+        assumed_at = {a: inner.get(a, (section, 0)) for a, section in linked.items()}
+        if layout is not None and all(found.get(a, at) == at for a, at in assumed_at.items()):
             return layout
-        assumed = measured
-    raise BuildError("Page counts of the sections did not settle after four layout passes")
+        # Counts or the pages of linked anchors changed: lay out again (chunks whose HTML is
+        # unchanged are taken from this build's earlier pass).
+        assumed, inner = measured, found
+    raise BuildError("Page counts of the sections did not settle after five layout passes")
+
+
+_INNER_LINK_RE = re.compile(
+    rf'<a\b[^>]*?\bdata-cp-in="([^"]+)"[^>]*?\bhref="#({re.escape(INNER_ANCHOR)}[^"]+)"'
+)
+
+
+def _linked_inner(split: Split) -> dict[str, str]:
+    """The anchors inside sections that the front and back matter link to (the summary's
+    page of each check), each with the section its link names (``data-cp-in``)."""
+    return {
+        m.group(2): m.group(1) for _, text in split.sections for m in _INNER_LINK_RE.finditer(text)
+    }
 
 
 def _one_pass(
@@ -233,13 +266,23 @@ def _one_pass(
     pool: concurrent.futures.Executor | None,
     fill: Callable[[str], str] | None,
     store: ChunkStore | None = None,
-) -> tuple[Layout | None, dict[str, int]]:
+    inner: dict[str, tuple[str, int]] | None = None,
+    memo: dict[str, Chunk] | None = None,
+) -> tuple[Layout | None, dict[str, int], dict[str, tuple[str, int]]]:
     """Lay out every chunk with the assumed page counts written in; the layout if they held,
-    and the measured page count of every section."""
+    the measured page count of every section, and where each anchor inside a section fell
+    (section id, pages after its first).
+
+    ``inner``: where the anchors inside sections are assumed to be (from an earlier pass),
+    for the links to them; ``memo``: chunks written by an earlier pass of this build, by
+    their HTML and counts."""
     from weasyprint import HTML
 
     total = sum(assumed.values())
     starts = section_starts(split, assumed)
+    for anchor, (section, after) in (inner or {}).items():
+        if section in starts:
+            starts[anchor] = starts[section] + after
     groups = _chunks(split, sheet_sections, fill)
     ids = [[split.sections[i][0] for i in group] for group in groups]
 
@@ -256,8 +299,11 @@ def _one_pass(
         """Chunk ``n``: from the store, else laid out (in a worker when there are some)."""
         html = chunk_html(n)
         own = {ident: assumed[ident] for ident in ids[n]}
+        mark = _memo_key(html, own) if memo is not None and counts else ""
         key = store.key(html, own, base_url) if store is not None and counts else None
-        kept = store.get(key) if store is not None and key else None
+        kept = memo.get(mark) if memo is not None and mark else None
+        if kept is None:
+            kept = store.get(key) if store is not None and key else None
         future: concurrent.futures.Future[Chunk]
         if kept is None and pool is not None:
             future = pool.submit(_lay_out_chunk, html, ids[n], counts, base_url)
@@ -266,13 +312,20 @@ def _one_pass(
             future.set_result(kept or _lay_out_chunk(html, ids[n], counts, base_url))
         if key and kept is None:
             to_keep[future] = key
+        if mark:
+            marks[future] = mark
         return future
+
+    marks: dict[concurrent.futures.Future[Chunk], str] = {}
 
     def result(future: concurrent.futures.Future[Chunk]) -> Chunk:
         chunk = future.result()
         key = to_keep.pop(future, None)
         if store is not None and key:
             store.put(key, chunk)
+        mark = marks.pop(future, "")
+        if memo is not None and mark and chunk.pdf is not None:
+            memo[mark] = chunk
         return chunk
 
     # Chunks after the first go to the workers a few at a time (each carries its HTML).
@@ -290,7 +343,10 @@ def _one_pass(
         first_sections = section_pages(first, ids[0])
         fields = signature_fields(first, roles) if roles else []
         first_links = foreign_links(first)
-    chunks = [Chunk(first_sections, len(first.pages), tuple(first_links), None, True)]
+    first_chunk = Chunk(
+        first_sections, len(first.pages), tuple(first_links), None, True, inner_anchors(first)
+    )
+    chunks = [first_chunk]
     holds = as_assumed(first_sections, assumed)
     if pool is not None:
         while queued:
@@ -306,15 +362,20 @@ def _one_pass(
     measured: dict[str, int] = {}
     pages: dict[str, tuple[int, int]] = {}
     links: list[Link] = []
+    found: dict[str, tuple[str, int]] = {}
     offset = 0
     for chunk in chunks:
         for ident, (a, b) in chunk.sections.items():
             measured[ident] = b - a + 1
             pages[ident] = (offset + a, offset + b)
+        for anchor, page in chunk.anchors.items():
+            within = [i for i, (a, b) in chunk.sections.items() if a <= page <= b]
+            if within:
+                found[anchor] = (within[0], page - chunk.sections[within[0]][0])
         links += [replace(link, page=offset + link.page) for link in chunk.links]
         offset += chunk.page_count
     if measured != assumed or offset != total:
-        return None, measured
+        return None, measured, found
     if any(chunk.pdf is None for chunk in chunks[1:]):
         raise BuildError("A chunk of the package was laid out but not written")
     layout = Layout(
@@ -325,4 +386,10 @@ def _one_pass(
         rest=tuple(chunk.pdf or b"" for chunk in chunks[1:]),
         links=tuple(links),
     )
-    return layout, measured
+    return layout, measured, found
+
+
+def _memo_key(html: str, counts: dict[str, int]) -> str:
+    digest = hashlib.sha256(json.dumps(counts, sort_keys=True).encode() + b"\0")
+    digest.update(html.encode())
+    return digest.hexdigest()

@@ -29,7 +29,12 @@ from typing import Any
 from calcpack.contract.manifest import MANIFEST_NAME, Manifest, manifest_bytes
 from calcpack.errors import BuildError
 from calcpack.package import freshness, links, publish, verification
-from calcpack.package.bodies import convert_sheet, fill_bodies, prepare_in_worker
+from calcpack.package.bodies import (
+    ConvertedSheet,
+    convert_sheet,
+    fill_bodies,
+    prepare_in_worker,
+)
 from calcpack.package.document import (
     ROLES,
     DocumentOptions,
@@ -38,20 +43,24 @@ from calcpack.package.document import (
     document_html,
 )
 from calcpack.package.execute import (
+    CACHE_DIR_NAME,
     DEFAULT_CELL_TIMEOUT_S,
     ExecutedSheet,
     execute_sheets,
+    sheet_cache_key,
     worker_pool,
 )
 from calcpack.package.interrupt import clean_stale_temp, temp_prefix
 from calcpack.package.manifest import dependency_versions, project_files, sheet_record
-from calcpack.package.mathsvg import add_break_entries, add_cache_entries
+from calcpack.package.mathcache import MathCache
 from calcpack.package.paginate import ChunkStore, Layout, PdfAttachment, paginate, write_pdf
-from calcpack.package.project import Project, SheetEntry, load_project
+from calcpack.package.project import Project, load_project
 from calcpack.package.sheetdoc import prepare_sheet, sheet_title, single_sheet_pdf
 
 __all__ = [
+    "BuildContext",
     "BuildResult",
+    "ConvertedSheets",
     "build",
     "build_created",
     "prepare_sheet",
@@ -147,7 +156,8 @@ def _safe_name(text: str) -> str:
 
 def _atomic_write(path: Path, data: bytes) -> Path:
     """Write to a temporary file in the same folder; the caller moves it into place."""
-    handle, tmp = tempfile.mkstemp(dir=path.parent, prefix=f".{path.name}.", suffix=".tmp")
+    prefix = publish.output_temp_prefix(path)
+    handle, tmp = tempfile.mkstemp(dir=path.parent, prefix=prefix, suffix=".tmp")
     with os.fdopen(handle, "wb") as out:
         out.write(data)
         out.flush()
@@ -160,24 +170,177 @@ def _sheet_ids(docs: list[SheetDoc]) -> dict[str, str]:
     return {doc.entry.path: f"sheet-{i}" for i, doc in enumerate(docs, start=1)}
 
 
-def _lay_out(
-    project: Project,
-    docs: list[SheetDoc],
-    sheet_pages: dict[str, int],
-    options: DocumentOptions,
-    created: _dt.datetime,
-    previous: dict[str, Any],
+@dataclass(frozen=True)
+class BuildContext:
+    """Everything a build decided before any sheet runs: what every stage reads."""
+
+    project: Project
+    options: DocumentOptions
+    created: _dt.datetime
+    out: Path
+    pdf_path: Path
+    manifest_path: Path
+    build_key: str
+    """Hash of everything the package depends on (:func:`freshness.build_key`)."""
+    code_hash: str
+    previous: dict[str, Any]
+    """The manifest of the package already in ``out`` ({} if none)."""
+    review_file: Path | None
+    workers: int
+    timeout: float
+    use_cache: bool
+    supersede_signed: bool
+    warnings: tuple[str, ...]
+    report: Reporter | None = None
+
+    @property
+    def cache_dir(self) -> Path:
+        return self.project.root / CACHE_DIR_NAME
+
+    def say(self, stage: str, detail: str) -> None:
+        if self.report:
+            self.report(stage, detail)
+
+
+def plan_build(
+    location: str | Path,
+    *,
+    out_dir: str | Path | None,
+    workers: int,
+    timeout: float,
+    use_cache: bool,
+    paper: str | None,
     reviewer_copy: bool,
     report: Reporter | None,
+    supersede_signed: bool,
+) -> BuildContext:
+    """Read the project and settle the build: options, date, output paths, build key."""
+    timeout = publish.check_timeout(timeout)
+    project = load_project(location)
+    if paper is not None and paper not in ("A4", "Letter"):
+        raise BuildError(f"Paper size must be 'A4' or 'Letter' (got paper = {paper!r})")
+    from calcpack import __version__
+
+    review, review_file = _load_review(project)
+    options = DocumentOptions(
+        paper=paper or project.paper,
+        reviewer_copy=reviewer_copy,
+        calcpack_version=__version__,
+        review=review,
+    )
+    created = build_created(project)
+    out = Path(out_dir) if out_dir is not None else project.root / "build"
+    stem = _safe_name(f"{project.job_number}-calcs-rev{project.revision.rev}")
+    if options.paper != project.paper:
+        stem += f"-{options.paper.lower()}"
+    manifest_path = out / f"{stem}.manifest.json"
+    keys = [sheet_cache_key(project, s) for s in project.sheets]
+    code_hash = freshness.package_code_hash()
+    # temporaries of a build stopped between writing and moving its output (said as warnings)
+    stale = publish.clean_stale_outputs(out)
+    return BuildContext(
+        project=project,
+        options=options,
+        created=created,
+        out=out,
+        pdf_path=out / f"{stem}.pdf",
+        manifest_path=manifest_path,
+        build_key=freshness.build_key(project, keys, options, review_file, created, code_hash),
+        code_hash=code_hash,
+        previous=freshness.previous_manifest(manifest_path),
+        review_file=review_file,
+        workers=workers,
+        timeout=timeout,
+        use_cache=use_cache,
+        supersede_signed=supersede_signed,
+        warnings=publish.placeholder_warnings(project) + stale,
+        report=report,
+    )
+
+
+def is_current(ctx: BuildContext) -> bool:
+    """Whether the package in the output folder was built from these very inputs."""
+    built = ctx.previous.get("build", {}).get("build_key")
+    return built == ctx.build_key and freshness.pair_intact(ctx.pdf_path, ctx.manifest_path)
+
+
+@dataclass(frozen=True)
+class ConvertedSheets:
+    """The executed sheets and their documents, in project order."""
+
+    executed: tuple[ExecutedSheet, ...]
+    docs: tuple[SheetDoc, ...]
+    sheet_pages: dict[str, int]
+    """Sheet path -> its page count (counted on its own, or the previous build's)."""
+
+
+def execute_and_convert(
+    ctx: BuildContext,
+    pool: concurrent.futures.Executor | None,
+    bodies: Path,
+    math: MathCache,
+) -> ConvertedSheets:
+    """Execute the sheets (unchanged ones from the cache) and convert each as soon as it is
+    ready, in the pool when there is one; bodies go to files in ``bodies``."""
+    project, options = ctx.project, ctx.options
+    index = {sheet.path: i for i, sheet in enumerate(project.sheets)}
+    converting: dict[str, concurrent.futures.Future[ConvertedSheet]] = {}
+    converted: dict[str, ConvertedSheet] = {}
+    # Page counts: a sheet the previous build had keeps its count as the guess; a new one
+    # is counted on its own as it is converted, so a first build lays out once, not twice.
+    known_pages = freshness.known_sheet_pages(ctx.previous, options)
+    math_file = str(ctx.cache_dir / "formulas.entry") if ctx.use_cache else None
+
+    def convert(item: ExecutedSheet) -> None:
+        ctx.say("rendering", item.entry.path)
+        n = index[item.entry.path]
+        count = None if item.entry.path in known_pages else (project, options, ctx.created)
+        source = options.reviewer_copy
+        if pool is None:
+            converted[item.entry.path] = convert_sheet(item, source, n, bodies, count, math)
+        else:
+            converting[item.entry.path] = pool.submit(
+                prepare_in_worker, item, source, math_file, n, str(bodies), count
+            )
+
+    exports_dir = bodies / "exports"
+    executed = execute_sheets(
+        project,
+        workers=ctx.workers,
+        timeout=ctx.timeout,
+        use_cache=ctx.use_cache,
+        progress=lambda stage, sheet: ctx.say(stage, sheet.path),
+        pool=pool,
+        on_ready=convert,
+        exports_dir=exports_dir,
+    )
+    # JupyterLab's imports read the values of the latest build (calcpack.working.links).
+    links.publish_exports(exports_dir, ctx.cache_dir / "exports")
+    sheet_pages = dict(known_pages)
+    docs = []
+    for item in executed:
+        path = item.entry.path
+        done = converting.pop(path).result() if path in converting else converted.pop(path)
+        if done.pages is not None:
+            sheet_pages[path] = done.pages
+        docs.append(done.into(math))
+    return ConvertedSheets(tuple(executed), tuple(docs), sheet_pages)
+
+
+def lay_out(
+    ctx: BuildContext,
+    sheets: ConvertedSheets,
+    options: DocumentOptions,
     pool: concurrent.futures.Executor | None,
     bodies: Path,
     store: ChunkStore | None,
 ) -> Layout:
     """Paginate the package (see :func:`calcpack.package.paginate.paginate`).
 
-    ``docs`` carry placeholders for their bodies, which wait in files in ``bodies`` (see
+    The sheets carry placeholders for their bodies, which wait in files in ``bodies`` (see
     :mod:`calcpack.package.bodies`) and are filled in chunk by chunk.
     """
+    docs = list(sheets.docs)
     sheet_ids = _sheet_ids(docs)
     section_ids = [
         "cover",
@@ -190,11 +353,10 @@ def _lay_out(
         "revisions",
         "review-log",
     ]
-    if reviewer_copy:
+    if options.reviewer_copy:
         section_ids.append("appendix-source")
-    if report:
-        report("layout", f"{len(docs)} sheets")
-
+    ctx.say("layout", f"{len(docs)} sheets")
+    project, created = ctx.project, ctx.created
     return paginate(
         lambda counts: document_html(
             project, docs, replace(options, sheet_pages=counts), created=created
@@ -203,11 +365,78 @@ def _lay_out(
         section_ids=section_ids,
         roles=ROLES,
         base_url=str(project.root),
-        guess=freshness.page_guess(previous, sheet_pages, sheet_ids, options),
+        guess=freshness.page_guess(ctx.previous, sheets.sheet_pages, sheet_ids, options),
         pool=pool,
         fill=functools.partial(fill_bodies, bodies),
         store=store,
     )
+
+
+def make_manifest(
+    ctx: BuildContext,
+    sheets: ConvertedSheets,
+    layout: Layout,
+    compared: tuple[Any, ...],
+    review_file: Path | None,
+) -> Manifest:
+    """The build's manifest: versions, project, files, each sheet's records and pages, the
+    links between sheets, the checker's comparisons, the signature boxes and the sections."""
+    from calcpack import __version__
+
+    sheet_ids = _sheet_ids(list(sheets.docs))
+    project = ctx.project
+    return Manifest(
+        calcpack_version=__version__,
+        dependencies=dependency_versions(),
+        project=project.summary(),
+        files=tuple(project_files(project, review_file)),
+        sheets=tuple(
+            sheet_record(
+                doc.entry,
+                doc.title,
+                doc.records,
+                cache_key=item.cache_key,
+                pages=list(layout.section_pages[sheet_ids[doc.entry.path]]),
+            )
+            for doc, item in zip(sheets.docs, sheets.executed, strict=True)
+        ),
+        links=tuple(
+            link
+            for doc in sheets.docs
+            for link in links.link_records(doc.entry.path, doc.records.imports)
+        ),
+        verifications=tuple(c.to_json() for c in compared),
+        signature_fields=tuple(layout.signature_fields),
+        sections={k: list(v) for k, v in layout.section_pages.items()},
+        build={
+            "created": ctx.created.isoformat(),
+            "paper": ctx.options.paper,
+            "reviewer_copy": ctx.options.reviewer_copy,
+            "pages": layout.page_count,
+            "build_key": ctx.build_key,
+        },
+    )
+
+
+def write_package(ctx: BuildContext, pdf: bytes, manifest: bytes) -> Path | None:
+    """Put the PDF and its manifest in place, both or neither (a signed package they replace
+    is moved aside only with ``supersede_signed``); where a replaced signed package went."""
+    ctx.out.mkdir(parents=True, exist_ok=True)
+    tmp_manifest = _atomic_write(ctx.manifest_path, manifest)
+    try:
+        tmp_pdf = _atomic_write(ctx.pdf_path, pdf)
+    except BaseException:
+        tmp_manifest.unlink(missing_ok=True)
+        raise
+    try:
+        moved = publish.make_way(ctx.pdf_path, ctx.manifest_path, supersede=ctx.supersede_signed)
+    except BaseException:
+        tmp_manifest.unlink(missing_ok=True)
+        tmp_pdf.unlink(missing_ok=True)
+        raise
+    os.replace(tmp_manifest, ctx.manifest_path)
+    os.replace(tmp_pdf, ctx.pdf_path)
+    return moved
 
 
 def build(
@@ -249,70 +478,47 @@ def build(
             executes and again before writing); nothing is written.
     """
     start = time.perf_counter()
-    timeout = publish.check_timeout(timeout)
-    project = load_project(location)
-    warnings = publish.placeholder_warnings(project)
-    if paper is not None and paper not in ("A4", "Letter"):
-        raise BuildError(f"Paper size must be 'A4' or 'Letter' (got paper = {paper!r})")
-    from calcpack import __version__
-
-    options = DocumentOptions(
-        paper=paper or project.paper, reviewer_copy=reviewer_copy, calcpack_version=__version__
+    ctx = plan_build(
+        location,
+        out_dir=out_dir,
+        workers=workers,
+        timeout=timeout,
+        use_cache=use_cache,
+        paper=paper,
+        reviewer_copy=reviewer_copy,
+        report=report,
+        supersede_signed=supersede_signed,
     )
-    review, review_file = _load_review(project)
-    options = replace(options, review=review)
-    created = build_created(project)
-    out = Path(out_dir) if out_dir is not None else project.root / "build"
-    stem = _safe_name(f"{project.job_number}-calcs-rev{project.revision.rev}")
-    if options.paper != project.paper:
-        stem += f"-{options.paper.lower()}"
-    pdf_path = out / f"{stem}.pdf"
-    manifest_path = out / f"{stem}.manifest.json"
-
-    from calcpack.package.execute import sheet_cache_key
-
-    keys = [sheet_cache_key(project, s) for s in project.sheets]
+    project = ctx.project
     # Revision comparison (calcpack.package.revisions): the marks depend on the kept manifests.
     from calcpack.package import revisions
 
-    code_hash = freshness.package_code_hash()
-    build_key = freshness.build_key(project, keys, options, review_file, created, code_hash)
-    previous = freshness.previous_manifest(manifest_path)
-    current = previous.get("build", {}).get("build_key") == build_key and freshness.pair_intact(
-        pdf_path, manifest_path
-    )
-    if current and (not force or publish.signatures_in(pdf_path)):
-        revisions.keep_issued(project, manifest_path)
+    if is_current(ctx) and (not force or publish.signatures_in(ctx.pdf_path)):
+        revisions.keep_issued(project, ctx.manifest_path)
         return BuildResult(
-            pdf_path,
-            manifest_path,
-            previous,
-            int(previous.get("build", {}).get("pages", 0)),
+            ctx.pdf_path,
+            ctx.manifest_path,
+            ctx.previous,
+            int(ctx.previous.get("build", {}).get("pages", 0)),
             (),
             (),
             True,
             time.perf_counter() - start,
-            warnings=warnings,
+            warnings=ctx.warnings,
         )
-    publish.check_output_folder(out)  # refuse at the door, before anything executes
+    publish.check_output_folder(ctx.out)  # refuse at the door, before anything executes
     publish.check_notebooks(project)
     clean_stale_temp()  # folders a killed build left behind
     if not supersede_signed:
-        publish.make_way(pdf_path, manifest_path, supersede=False)
+        publish.make_way(ctx.pdf_path, ctx.manifest_path, supersede=False)
 
-    def on_sheet(stage: str, sheet: SheetEntry) -> None:
-        if report:
-            report(stage, sheet.path)
-
-    from calcpack.package.execute import CACHE_DIR_NAME
-    from calcpack.package.mathsvg import load_math_cache, save_math_cache, used_keys
-
-    math_cache = project.root / CACHE_DIR_NAME / "formulas.entry"
+    math = MathCache()
+    math_file = ctx.cache_dir / "formulas.entry"
     # Chunks of the layout kept between builds: a rebuild lays out only the changed ones.
-    store = ChunkStore(project.root / CACHE_DIR_NAME / "layout", code_hash) if use_cache else None
+    store = ChunkStore(ctx.cache_dir / "layout", ctx.code_hash) if use_cache else None
     if use_cache:
-        load_math_cache(math_cache)
-    used_keys.clear()
+        math.load(math_file)
+    math.start()
     with contextlib.ExitStack() as stack:
         # One pool of workers for the whole build: executing, converting and laying out.
         # (The bodies' folder goes after the pool has stopped: no worker is still writing.)
@@ -320,150 +526,47 @@ def build(
             stack.enter_context(tempfile.TemporaryDirectory(prefix=temp_prefix("bodies")))
         )
         pool = stack.enter_context(worker_pool(workers))
-        index = {sheet.path: i for i, sheet in enumerate(project.sheets)}
-        converting: dict[str, concurrent.futures.Future[Any]] = {}
-        docs_here: dict[str, SheetDoc] = {}
-        # Page counts: a sheet the previous build had keeps its count as the guess; a new one
-        # is counted on its own as it is converted, so a first build lays out once, not twice.
-        known_pages = freshness.known_sheet_pages(previous, options)
-        sheet_pages = dict(known_pages)
-
-        def convert(item: ExecutedSheet) -> None:
-            """Convert a sheet as soon as it is executed (or read from the cache)."""
-            if report:
-                report("rendering", item.entry.path)
-            n = index[item.entry.path]
-            count = None if item.entry.path in known_pages else (project, options, created)
-            if pool is None:
-                doc, pages = convert_sheet(item, reviewer_copy, n, bodies, count)
-                docs_here[item.entry.path] = doc
-                if pages is not None:
-                    sheet_pages[item.entry.path] = pages
-            else:
-                cache_file = str(math_cache) if use_cache else None
-                converting[item.entry.path] = pool.submit(
-                    prepare_in_worker, item, reviewer_copy, cache_file, n, str(bodies), count
-                )
-
-        exports_dir = bodies / "exports"
-        executed = execute_sheets(
-            project,
-            workers=workers,
-            timeout=timeout,
-            use_cache=use_cache,
-            progress=on_sheet,
-            pool=pool,
-            on_ready=convert,
-            exports_dir=exports_dir,
-        )
-        # JupyterLab's imports read the values of the latest build (calcpack.working.links).
-        links.publish_exports(exports_dir, project.root / CACHE_DIR_NAME / "exports")
-        docs = []
-        for item in executed:
-            if item.entry.path in converting:
-                doc, formulas, breaks, used, pages = converting.pop(item.entry.path).result()
-                if pages is not None:
-                    sheet_pages[item.entry.path] = pages
-                add_cache_entries(formulas)
-                add_break_entries(breaks)
-                used_keys.update(used)
-            else:
-                doc = docs_here.pop(item.entry.path)
-            docs.append(doc)
+        sheets = execute_and_convert(ctx, pool, bodies, math)
+        docs = list(sheets.docs)
         compared, opened = verification.check_stage(project, docs)  # the checker's checks
+        review, review_file = ctx.options.review, ctx.review_file
         if opened:  # disagreements became open review comments
             review, review_file = _load_review(project)
         options = replace(
-            options,
+            ctx.options,
             revisions=revisions.compare_with_issued(project, docs),
             review=review,
             verifications=compared,
         )
-        layout = _lay_out(
-            project,
-            docs,
-            sheet_pages,
-            options,
-            created,
-            previous,
-            reviewer_copy,
-            report,
-            pool,
-            bodies,
-            store,
-        )
+        layout = lay_out(ctx, sheets, options, pool, bodies, store)
     if use_cache:
-        save_math_cache(math_cache, set(used_keys))
-    sheet_ids = _sheet_ids(docs)
-    manifest = Manifest(
-        calcpack_version=__version__,
-        dependencies=dependency_versions(),
-        project=project.summary(),
-        files=tuple(project_files(project, review_file)),
-        sheets=tuple(
-            sheet_record(
-                doc.entry,
-                doc.title,
-                doc.records,
-                cache_key=item.cache_key,
-                pages=list(layout.section_pages[sheet_ids[doc.entry.path]]),
-            )
-            for doc, item in zip(docs, executed, strict=True)
-        ),
-        links=tuple(
-            link for doc in docs for link in links.link_records(doc.entry.path, doc.records.imports)
-        ),
-        verifications=tuple(c.to_json() for c in compared),
-        signature_fields=tuple(layout.signature_fields),
-        sections={k: list(v) for k, v in layout.section_pages.items()},
-        build={
-            "created": created.isoformat(),
-            "paper": options.paper,
-            "reviewer_copy": reviewer_copy,
-            "pages": layout.page_count,
-            "build_key": build_key,
-        },
-    ).to_json()
+        math.save(math_file)
+    manifest = make_manifest(ctx, sheets, layout, compared, review_file).to_json()
     data = manifest_bytes(manifest)
-    if report:
-        report("writing", pdf_path.name)
+    ctx.say("writing", ctx.pdf_path.name)
     pdf = write_pdf(
         layout,
-        created=created,
+        created=ctx.created,
         attachments=[
             PdfAttachment(MANIFEST_NAME, data, "calcpack build manifest: inputs, versions, results")
         ],
-        identifier_seed=build_key.encode(),
+        identifier_seed=ctx.build_key.encode(),
     )
     page_count = layout.page_count
     del layout  # the laid-out document is the largest thing a build holds
-    out.mkdir(parents=True, exist_ok=True)
-    tmp_manifest = _atomic_write(manifest_path, data)
-    try:
-        tmp_pdf = _atomic_write(pdf_path, pdf)
-    except BaseException:
-        tmp_manifest.unlink(missing_ok=True)
-        raise
-    try:
-        moved = publish.make_way(pdf_path, manifest_path, supersede=supersede_signed)
-    except BaseException:
-        tmp_manifest.unlink(missing_ok=True)
-        tmp_pdf.unlink(missing_ok=True)
-        raise
-    os.replace(tmp_manifest, manifest_path)
-    os.replace(tmp_pdf, pdf_path)
+    moved = write_package(ctx, pdf, data)
     if store is not None:
         store.prune()
-    revisions.keep_issued(project, manifest_path)
+    revisions.keep_issued(project, ctx.manifest_path)
     return BuildResult(
-        pdf_path,
-        manifest_path,
+        ctx.pdf_path,
+        ctx.manifest_path,
         manifest,
         page_count,
-        tuple(i.entry.path for i in executed if not i.from_cache),
-        tuple(i.entry.path for i in executed if i.from_cache),
+        tuple(i.entry.path for i in sheets.executed if not i.from_cache),
+        tuple(i.entry.path for i in sheets.executed if i.from_cache),
         False,
         time.perf_counter() - start,
         moved,
-        warnings,
+        ctx.warnings,
     )

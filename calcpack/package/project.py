@@ -63,10 +63,11 @@ from collections.abc import Mapping
 from pathlib import Path
 from typing import Any
 
+# The project model is re-exported: ``from calcpack.package.project import Project`` works.
+from calcpack.package.project_model import *  # noqa: F403
 from calcpack.package.project_model import (
     JOB_KEYS,
     PAPER_SIZES,
-    PROJECT_FILE_NAME,
     SEAL_TYPES,
     TOP_LEVEL_KEYS,
     UNIT_SYSTEMS,
@@ -77,26 +78,10 @@ from calcpack.package.project_model import (
     ProjectFileError,
     Revision,
     SheetEntry,
-    file_sha256,
-    find_project_above,
     find_project_file,
 )
 
-__all__ = [
-    "PROJECT_FILE_NAME",
-    "SEAL_TYPES",
-    "Design",
-    "EngineerOfRecord",
-    "Person",
-    "Project",
-    "ProjectFileError",
-    "Revision",
-    "SheetEntry",
-    "file_sha256",
-    "find_project_above",
-    "find_project_file",
-    "load_project",
-]
+__all__ = ["load_project"]
 
 
 class _Reader:

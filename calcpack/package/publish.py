@@ -20,6 +20,8 @@ from __future__ import annotations
 
 import json
 import os
+import re
+import time
 import tomllib
 from pathlib import Path
 from typing import Any
@@ -32,7 +34,9 @@ __all__ = [
     "check_notebooks",
     "check_output_folder",
     "check_timeout",
+    "clean_stale_outputs",
     "make_way",
+    "output_temp_prefix",
     "project_basis",
     "signatures_in",
 ]
@@ -248,3 +252,54 @@ def make_way(pdf_path: Path, manifest_path: Path, *, supersede: bool) -> Path | 
         if not beside.exists():
             os.rename(manifest_path, beside)
     return moved
+
+
+_OUTPUT_TEMP = re.compile(
+    r"^\.(?P<name>.+\.(?:pdf|manifest\.json))\.(?:build-(?P<pid>\d+)-)?[0-9a-z_]{8}\.tmp$"
+)
+#: A temporary output written before build temporaries carried the build's process id is
+#: taken as stale only when untouched this long (no build spends an hour between its moves).
+_UNOWNED_AGE_S = 3600.0
+
+
+def output_temp_prefix(target: Path) -> str:
+    """Prefix of the temporary file a build writes ``target`` through (it names the build's
+    process, so that a later build can tell a stray from a file being written now)."""
+    return f".{target.name}.build-{os.getpid()}-"
+
+
+def clean_stale_outputs(folder: Path) -> tuple[str, ...]:
+    """Remove the temporary output files a stopped build left in ``folder``; say what was done.
+
+    A build writes the manifest and the PDF to temporary files beside them and then moves both
+    into place; a build killed between those steps leaves them behind. Only files named as a
+    build names them are considered, only when the build that wrote them no longer runs, and a
+    temporary PDF that carries signatures is never removed (it is reported instead).
+
+    Returns:
+        One message per file removed or kept.
+    """
+    from calcpack.package.interrupt import _alive
+
+    messages = []
+    for path in sorted(folder.glob(".*.tmp")) if folder.is_dir() else ():
+        m = _OUTPUT_TEMP.match(path.name)
+        if m is None or not path.is_file():
+            continue
+        pid = m.group("pid")
+        if pid is not None and _alive(int(pid)):
+            continue  # a build writing now
+        if pid is None and time.time() - path.stat().st_mtime < _UNOWNED_AGE_S:
+            continue
+        if m.group("name").endswith(".pdf") and signatures_in(path):
+            messages.append(
+                f"kept {str(path)!r}, left by a stopped build: it carries signatures, so it is "
+                "never removed; look at it and move it aside yourself"
+            )
+            continue
+        path.unlink(missing_ok=True)
+        messages.append(
+            f"removed {str(path)!r}, a temporary file left by a build that stopped while "
+            "publishing its output"
+        )
+    return tuple(messages)

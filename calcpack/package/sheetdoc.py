@@ -7,6 +7,7 @@ records read (:func:`prepare_sheet`), its page count laid out on its own
 from __future__ import annotations
 
 import datetime as _dt
+import hashlib
 import re
 from dataclasses import replace
 from pathlib import Path
@@ -15,11 +16,19 @@ from typing import Any
 from calcpack.errors import BuildError
 from calcpack.package.document import DocumentOptions, SheetDoc, document_html
 from calcpack.package.execute import ExecutedSheet
+from calcpack.package.layout_boxes import INNER_ANCHOR
+from calcpack.package.mathcache import MathCache
 from calcpack.package.paginate import paginate, write_pdf
 from calcpack.package.project import Person, Project, Revision, SheetEntry
 from calcpack.package.records import collect_records
 
-__all__ = ["count_sheet_pages", "prepare_sheet", "sheet_title", "single_sheet_pdf"]
+__all__ = [
+    "anchor_checks",
+    "count_sheet_pages",
+    "prepare_sheet",
+    "sheet_title",
+    "single_sheet_pdf",
+]
 
 
 def sheet_title(entry: SheetEntry, nb: Any) -> str:
@@ -54,9 +63,16 @@ def _drop_title_heading(body: str, title: str) -> str:
 
 
 def prepare_sheet(
-    entry: SheetEntry, executed: ExecutedSheet | Any, *, source: bool = False
+    entry: SheetEntry,
+    executed: ExecutedSheet | Any,
+    *,
+    source: bool = False,
+    math: MathCache | None = None,
 ) -> SheetDoc:
     """Convert one executed sheet to HTML with its math as SVG images, and read its records.
+
+    ``source`` keeps the code cells (for the reviewer's copy); ``math`` is the build's
+    formula cache (default: the process's own, :func:`calcpack.package.mathsvg.process_cache`).
 
     Raises:
         BuildError: a formula cannot be typeset (the message names the sheet).
@@ -74,7 +90,7 @@ def prepare_sheet(
     title = sheet_title(entry, nb)
     try:
         body = _drop_title_heading(_JUPYTER_STYLE_RE.sub("", sheet_fragment(nb)), title)
-        body = math_spans_to_images(body)
+        body = math_spans_to_images(body, math)
     except BuildError as exc:
         raise BuildError(f"Sheet {entry.path!r}: {exc}") from exc
     cells = (
@@ -86,7 +102,33 @@ def prepare_sheet(
         if source
         else ()
     )
-    return SheetDoc(entry, title, body, collect_records(nb), cells)
+    records = collect_records(nb)
+    body, anchors = anchor_checks(body, entry.path, len(records.checks))
+    return SheetDoc(entry, title, body, records, cells, anchors)
+
+
+_CHECK_DIV_RE = re.compile(r'<div class="cp-step cp-check"')
+
+
+def anchor_checks(body: str, path: str, count: int) -> tuple[str, tuple[str, ...]]:
+    """Give each check of a sheet's body an anchor, so the summary of checks can link to the
+    check's own page.
+
+    The body shows the checks in the order the records list them (both come from the same
+    outputs, one record per check step); when the numbers differ, no anchor is added and the
+    summary links to the sheet.
+
+    Returns:
+        the body and the anchors, one per check record.
+    """
+    found = len(_CHECK_DIV_RE.findall(body))
+    if found != count or not count:
+        return body, ()
+    stem = hashlib.sha256(path.encode()).hexdigest()[:10]
+    anchors = tuple(f"{INNER_ANCHOR}{stem}-{k}" for k in range(1, count + 1))
+    names = iter(anchors)
+    body = _CHECK_DIV_RE.sub(lambda m: f'{m.group(0)} id="{next(names)}"', body)
+    return body, anchors
 
 
 def count_sheet_pages(

@@ -52,7 +52,11 @@ def _uncovered_row(status: ItemStatus) -> dict[str, Any]:
 def summary_entries(sheets: Sequence[SheetDoc]) -> list[tuple[str, dict[str, Any]]]:
     """(sheet number, check) for every check of the package and every checklist item NOT
     COVERED, worst first."""
-    entries = [(s.entry.number, c) for s in sheets for c in s.records.checks]
+    entries = [
+        (s.entry.number, _with_anchor(c, s.check_anchors, k))
+        for s in sheets
+        for k, c in enumerate(s.records.checks)
+    ]
     entries += [
         (st.sheet, _uncovered_row(st))
         for st in checklist_status(sheets)
@@ -60,6 +64,11 @@ def summary_entries(sheets: Sequence[SheetDoc]) -> list[tuple[str, dict[str, Any
     ]
     entries.sort(key=lambda item: check_sort_key(item[1]))
     return entries
+
+
+def _with_anchor(check: dict[str, Any], anchors: Sequence[str], k: int) -> dict[str, Any]:
+    """The check with the anchor of its place on its sheet (``_anchor``), when known."""
+    return {**check, "_anchor": anchors[k]} if k < len(anchors) else check
 
 
 def check_counts(sheets: Sequence[SheetDoc]) -> dict[str, int]:
@@ -116,12 +125,19 @@ def _checklists_html(statuses: Sequence[ItemStatus]) -> str:
     )
 
 
-def _pageref(index: int | None) -> str:
-    """A link to a sheet showing its first page number (written in at layout)."""
-    return "" if index is None else f'<a class="cp-pageref" href="#sheet-{index}"></a>'
+def _pageref(index: int | None, anchor: str | None = None) -> str:
+    """A link showing the page number of the check (``anchor``), else of its sheet's first
+    page (written in at layout)."""
+    if index is None:
+        return ""
+    if anchor:
+        return f'<a class="cp-pageref" data-cp-in="sheet-{index}" href="#{_e(anchor)}"></a>'
+    return f'<a class="cp-pageref" href="#sheet-{index}"></a>'
 
 
-def _check_row(number: str, index: int | None, c: dict[str, Any], *, ratio_words: bool) -> str:
+def _check_row(
+    number: str, index: int | None, c: dict[str, Any], *, ratio_words: bool, anchor: str = ""
+) -> str:
     from calcpack.package.document import format_sig
     from calcpack.working.render import symbols_html
 
@@ -148,7 +164,7 @@ def _check_row(number: str, index: int | None, c: dict[str, Any], *, ratio_words
         f"<tr><td>{_e(number)}</td><td>{_e(c.get('member') or '')}</td>"
         f"<td>{symbols_html(_e(c['name']))}</td><td>{_e(c.get('combination') or '')}</td>"
         f"{middle}<td>{_verdict(c['verdict'])}</td><td>{_e(c.get('ref') or '')}</td>"
-        f'<td class="num">{_pageref(index)}</td></tr>'
+        f'<td class="num">{_pageref(index, anchor)}</td></tr>'
     )
 
 
@@ -181,10 +197,16 @@ def summary_html(sheets: Sequence[SheetDoc]) -> str:
         f"<p>{len(strength)} demand/capacity checks; utilisation = |demand| / capacity.</p>",
     ]
     if strength:
-        rows = [_check_row(n, index.get(n), c, ratio_words=True) for n, c in strength]
+        rows = [
+            _check_row(n, index.get(n), c, ratio_words=True, anchor=c.get("_anchor", ""))
+            for n, c in strength
+        ]
         parts.append(_table(rows, "Utilisation"))
     if limits:
-        rows = [_check_row(n, index.get(n), c, ratio_words=False) for n, c in limits]
+        rows = [
+            _check_row(n, index.get(n), c, ratio_words=False, anchor=c.get("_anchor", ""))
+            for n, c in limits
+        ]
         parts.append(
             '<h2 class="cp-h">Classification and limits</h2>'
             f"<p>{len(limits)} checks of a section's class or of a limit of a method: the ratio "

@@ -2,10 +2,9 @@
 disagreements opened as review comments, listed in the package, and the key results' coverage.
 
 Each independent check (:mod:`calcpack.working.verification`) names a result of a preparer's
-sheet. The build finds that result in the sheet's records -- a recorded value of that name, an
-exported value (per load case), or, with a member, a check's utilisation -- converts the
-checker's value to its unit and compares: the relative difference |checker - preparer| /
-|preparer| agrees when it does not exceed the checker's tolerance. A disagreement becomes an
+sheet. The build finds that result in the sheet's records and compares by the one rule of
+:mod:`calcpack.working.agreement` (the checker's sheet shows the same comparison in JupyterLab
+from the preparer's latest record, for the checker only). A disagreement becomes an
 open review comment (once; the checker closes it as any other), so the checker's signature is
 refused by the same rule and override as for open comments.
 
@@ -15,7 +14,6 @@ unless the project file records why (``[verification] same_person = "reason"``).
 
 from __future__ import annotations
 
-import math
 import re
 import tomllib
 from collections.abc import Sequence
@@ -23,6 +21,7 @@ from dataclasses import asdict, dataclass
 from typing import TYPE_CHECKING, Any
 
 from calcpack.errors import BuildError
+from calcpack.working.agreement import agreement, recorded_result
 
 if TYPE_CHECKING:
     from calcpack.package.document import SheetDoc
@@ -39,14 +38,6 @@ __all__ = [
 
 COMMENT_MARK = "Independent check disagrees"
 """The opening words of a comment the build opens for a disagreement (to open it only once)."""
-
-_SUPERSCRIPTS = str.maketrans({"²": "**2", "³": "**3", "⁴": "**4", "·": "*", "⁻": "-", "¹": "1"})
-
-
-def _quantity(value: float, unit: str) -> Any:
-    from calcpack.units import ureg
-
-    return ureg.Quantity(value, (unit or "dimensionless").translate(_SUPERSCRIPTS))
 
 
 @dataclass(frozen=True)
@@ -93,28 +84,14 @@ class Compared:
 
 
 def _preparer_value(doc: SheetDoc, v: dict[str, Any]) -> tuple[float, str] | None:
-    name, member, case = v["of_name"], v.get("member"), v.get("case")
-    if member is not None:
-        from calcpack.checks.checklists import member_matches
-
-        found = [
-            c
-            for c in doc.records.checks
-            if c.get("name") == name
-            and member_matches(str(member), c.get("member"))
-            and c.get("utilisation") is not None
-        ]
-        if found:
-            return max(float(c["utilisation"]) for c in found), ""
-        return None
-    if case is None:
-        for value in doc.records.values:
-            if value.get("name") == name and value.get("value") is not None:
-                return float(value["value"]), str(value.get("unit", ""))
-    for e in doc.records.exports:
-        if e.get("name") == name and e.get("case") == case:
-            return float(e["value"]), str(e.get("unit", ""))
-    return None
+    return recorded_result(
+        values=doc.records.values,
+        checks=doc.records.checks,
+        exports=doc.records.exports,
+        name=v["of_name"],
+        member=v.get("member"),
+        case=v.get("case"),
+    )
 
 
 def same_person_reason(project: Project) -> str | None:
@@ -182,10 +159,8 @@ def compare_verifications(project: Project, docs: Sequence[SheetDoc]) -> tuple[C
                 )
             preparer, unit = found
             try:
-                mine = (
-                    _quantity(v["value"], v.get("unit", ""))
-                    .to(_quantity(1.0, unit).units)
-                    .magnitude
+                agreed = agreement(
+                    preparer, unit, v["value"], v.get("unit", ""), float(v["tolerance"])
                 )
             except Exception as exc:  # pint raises several kinds for a bad or foreign unit
                 raise BuildError(
@@ -193,9 +168,6 @@ def compare_verifications(project: Project, docs: Sequence[SheetDoc]) -> tuple[C
                     f"{v.get('unit')!r}, which does not convert to the preparer's {unit!r} "
                     f"({exc})"
                 ) from exc
-            scale = abs(preparer)
-            difference = abs(mine - preparer) / scale if scale > 0 else abs(mine)
-            tolerance = float(v["tolerance"])
             out.append(
                 Compared(
                     checker_sheet=doc.entry.path,
@@ -205,12 +177,12 @@ def compare_verifications(project: Project, docs: Sequence[SheetDoc]) -> tuple[C
                     of_name=v["of_name"],
                     member=v.get("member"),
                     case=v.get("case"),
-                    preparer_value=preparer,
-                    checker_value=float(mine),
+                    preparer_value=agreed.preparer_value,
+                    checker_value=agreed.checker_value,
                     unit=unit,
-                    difference=difference,
-                    tolerance=tolerance,
-                    agreed=math.isfinite(difference) and difference <= tolerance * (1 + 1e-12),
+                    difference=agreed.difference,
+                    tolerance=agreed.tolerance,
+                    agreed=agreed.agreed,
                     method=str(v.get("method", "")),
                     same_person=same_person_reason(project) if same else None,
                 )
@@ -288,4 +260,29 @@ def check_stage(project: Project, docs: Sequence[SheetDoc]) -> tuple[tuple[Compa
     comment for each new disagreement. Returns (the comparisons, whether comments were opened
     -- the build then reads the review file again)."""
     compared = compare_verifications(project, docs)
+    publish_results(project, docs)
     return compared, bool(open_disagreements(project, compared))
+
+
+def publish_results(project: Project, docs: Sequence[SheetDoc]) -> None:
+    """Write each built sheet's results file into the project's cache, where a checker's sheet
+    in JupyterLab reads the preparer's latest record (:mod:`calcpack.working.recorded`). The
+    build reads none of it; a project folder that cannot be written to only leaves JupyterLab
+    without the comparison."""
+    from calcpack.working.links import project_sheets
+    from calcpack.working.recorded import write_results
+
+    refs = {ref.path: ref for ref in project_sheets(project.root)}
+    for doc in docs:
+        ref = refs.get(doc.entry.path)
+        if ref is None:
+            continue
+        records = {
+            "values": doc.records.values,
+            "checks": doc.records.checks,
+            "exports": doc.records.exports,
+        }
+        try:
+            write_results(ref, records)
+        except OSError:
+            return

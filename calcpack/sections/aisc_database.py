@@ -24,7 +24,7 @@ from typing import Any
 from calcpack.errors import InputError
 from calcpack.refdata import Table, read_table
 from calcpack.units import Q_, Quantity
-from calcpack.validate import lookup, suggest
+from calcpack.validate import instance, lookup, suggest
 
 __all__ = [
     "SHAPE_TYPES",
@@ -139,13 +139,7 @@ def aisc_shape(designation: str) -> SteelShape:
         InputError: unknown designation (the message suggests the closest ones).
     """
     table = _shapes()
-    if not isinstance(designation, str):
-        raise InputError(
-            f"Input designation must be a string such as 'W18X50' (got {designation!r})",
-            name="designation",
-            value=designation,
-            expected="a designation string",
-        )
+    instance("designation", designation, str, expected="a designation such as 'W18X50'")
     key = designation.replace("x", "X")
     if key.upper().replace(" ", "") not in _normalised_keys():
         _refuse_unknown(key, table)

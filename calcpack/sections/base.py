@@ -9,6 +9,7 @@ from typing import TYPE_CHECKING, Any
 from calcpack import views
 from calcpack.errors import InputError
 from calcpack.units import Q_, Quantity, require, si
+from calcpack.validate import positive
 
 if TYPE_CHECKING:
     from calcpack.sections.properties import PartRow, SectionProperties, WeightedRegion
@@ -25,14 +26,7 @@ def validate_length(value: object, name: str, what: str) -> float:
         InputError: zero, negative or not finite; the message names ``what`` and ``name``.
     """
     q = require(value, "[length]", name)
-    if not float(q.magnitude) > 0:
-        raise InputError(
-            f"{what} {name} must be positive (got {name} = {q:~P})",
-            name=name,
-            value=q,
-            expected="a length > 0",
-        )
-    return si(q)
+    return si(positive(name, q, note=what))
 
 
 def fmt_len(value_m: float) -> str:

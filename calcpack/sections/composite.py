@@ -21,6 +21,7 @@ from calcpack.sections.geometry import Region, overlap_area
 from calcpack.sections.properties import PartRow, WeightedRegion, part_rows
 from calcpack.sections.shapes import Shape
 from calcpack.units import require, si
+from calcpack.validate import instance, one_of
 
 __all__ = ["CompositeSection", "Part", "composite"]
 
@@ -57,13 +58,7 @@ class Part:
         require(self.x, "[length]", f"x of part {label!r}")
         require(self.y, "[length]", f"y of part {label!r}")
         require(self.rotation, "radian", f"rotation of part {label!r}")
-        if self.anchor not in _ANCHORS:
-            raise InputError(
-                f"Part {label!r} anchor must be one of {_ANCHORS} (got {self.anchor!r})",
-                name="anchor",
-                value=self.anchor,
-                expected=" or ".join(_ANCHORS),
-            )
+        one_of("anchor", self.anchor, _ANCHORS)
         n = self.modular_ratio
         if not (math.isfinite(n) and n > 0):
             raise InputError(
@@ -131,14 +126,12 @@ class CompositeSection(Section):
                 expected="one or more parts",
             )
         for i, part in enumerate(self.parts):
-            if not isinstance(part, Part):
-                raise InputError(
-                    f"Composite section parts[{i}] must be a placed shape, made with "
-                    f"shape.at(x=..., y=...) (got {part!r})",
-                    name=f"parts[{i}]",
-                    value=part,
-                    expected="a Part",
-                )
+            instance(
+                f"parts[{i}]",
+                part,
+                Part,
+                expected="a placed shape, made with shape.at(x=..., y=...)",
+            )
         if all(p.hole for p in self.parts):
             raise InputError(
                 "Composite section parts must include at least one solid part (got only holes)",

@@ -33,7 +33,7 @@ from calcpack.refdata import read_table
 from calcpack.sections.geometry import Region
 from calcpack.sections.shapes import RectangularHollow, _rounded_rect
 from calcpack.units import Q_, Quantity, si
-from calcpack.validate import suggest
+from calcpack.validate import instance, one_of, suggest
 
 __all__ = ["EURO_FAMILIES", "EuroSection", "euro_section", "euro_section_names"]
 
@@ -144,13 +144,7 @@ def euro_section_names(family: str | None = None) -> list[str]:
     table = read_table(_FILE, key="designation")
     if family is None:
         return table.keys()
-    if family not in EURO_FAMILIES:
-        raise InputError(
-            f"Unknown section family {family!r} for input family (known: {list(EURO_FAMILIES)})",
-            name="family",
-            value=family,
-            expected=" / ".join(EURO_FAMILIES),
-        )
+    one_of("family", family, EURO_FAMILIES)
     return [k for k, row in table.rows.items() if row["family"] == family]
 
 
@@ -161,13 +155,7 @@ def euro_section(designation: str) -> EuroSection:
     Raises:
         InputError: unknown designation (with the closest of the same family suggested).
     """
-    if not isinstance(designation, str):
-        raise InputError(
-            f"Input designation must be a string such as '305x165x40 UB' (got {designation!r})",
-            name="designation",
-            value=designation,
-            expected="a designation string",
-        )
+    instance("designation", designation, str, expected="a designation such as '305x165x40 UB'")
     table = read_table(_FILE, key="designation")
     key = _index().get(_norm(designation))
     if key is None:

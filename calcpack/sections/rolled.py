@@ -33,8 +33,52 @@ from calcpack.units import Q_, Quantity, si
 __all__ = ["Angle", "Channel", "ISection", "Tee"]
 
 
+def _plate_dims(shape: _Plates, web: str) -> tuple[float, ...]:
+    """d, bf, tf, tw and r (m) of a shape made of flange and web plates, each validated by
+    name (r may be zero)."""
+    return (
+        validate_length(shape.d, "d", "Depth"),
+        validate_length(shape.bf, "bf", "Flange width"),
+        validate_length(shape.tf, "tf", "Flange thickness"),
+        validate_length(shape.tw, "tw", f"{web} thickness"),
+        _optional_radius(shape.r, "r", "Root fillet radius"),
+    )
+
+
+def _web_and_fillet(
+    shape: _Plates, kind: str, web: str, dims: tuple[float, ...], excess: float
+) -> None:
+    """A tee's or channel's web (stem) thinner than the flange is wide, flange thinner than
+    the depth (half the depth for two flanges), and root fillets that fit (``excess`` < 0)."""
+    d, bf, tf, tw, r = dims
+    _require_less(f"{web} thickness", "tw", tw, shape.tw, "flange width", "bf", bf)
+    half = kind == "channel"
+    _require_less("Flange thickness", "tf", tf, shape.tf, "depth", "d", d, half=half)
+    _check_fits(
+        excess,
+        1e-15,
+        f"Root fillet radius r does not fit the {kind} (got r = {fmt_len(r)})",
+        "r",
+        shape.r,
+    )
+    _set_name(shape, f"{kind} {_mm(d)} × {_mm(bf)} mm")
+
+
 @dataclass(frozen=True, kw_only=True, eq=False)
-class ISection(Shape):
+class _Plates(Shape):
+    """The fields of a shape made of flange and web plates: depth d, flange width bf and
+    thickness tf, web thickness tw, root fillet radius r."""
+
+    d: Quantity
+    bf: Quantity
+    tf: Quantity
+    tw: Quantity
+    r: Quantity = field(default_factory=lambda: Q_(0.0, "mm"))
+    name: str = ""
+
+
+@dataclass(frozen=True, kw_only=True, eq=False)
+class ISection(_Plates):
     """An I-section: depth d, flange width bf and thickness tf, web thickness tw, root fillet
     radius r (0 for a welded plate girder). A singly symmetric I has a different bottom flange
     ``bf_bot`` × ``tf_bot``; bf and tf are then the top flange.
@@ -43,21 +87,11 @@ class ISection(Shape):
     depth between the fillets, d - tf - tf_bot - 2r), h0 (distance between flange centroids).
     """
 
-    d: Quantity
-    bf: Quantity
-    tf: Quantity
-    tw: Quantity
-    r: Quantity = field(default_factory=lambda: Q_(0.0, "mm"))
     bf_bot: Quantity | None = None
     tf_bot: Quantity | None = None
-    name: str = ""
 
     def __post_init__(self) -> None:
-        d = validate_length(self.d, "d", "Depth")
-        bf = validate_length(self.bf, "bf", "Flange width")
-        tf = validate_length(self.tf, "tf", "Flange thickness")
-        tw = validate_length(self.tw, "tw", "Web thickness")
-        r = _optional_radius(self.r, "r", "Root fillet radius")
+        d, bf, tf, tw, r = _plate_dims(self, "Web")
         bfb = bf if self.bf_bot is None else validate_length(self.bf_bot, "bf_bot", "Flange width")
         tfb = (
             tf
@@ -174,33 +208,14 @@ class ISection(Shape):
 
 
 @dataclass(frozen=True, kw_only=True, eq=False)
-class Tee(Shape):
+class Tee(_Plates):
     """A tee with its flange on top: overall depth d, flange bf × tf, stem (web) thickness tw,
     root fillet radius r."""
 
-    d: Quantity
-    bf: Quantity
-    tf: Quantity
-    tw: Quantity
-    r: Quantity = field(default_factory=lambda: Q_(0.0, "mm"))
-    name: str = ""
-
     def __post_init__(self) -> None:
-        d = validate_length(self.d, "d", "Depth")
-        bf = validate_length(self.bf, "bf", "Flange width")
-        tf = validate_length(self.tf, "tf", "Flange thickness")
-        tw = validate_length(self.tw, "tw", "Stem thickness")
-        r = _optional_radius(self.r, "r", "Root fillet radius")
-        _require_less("Stem thickness", "tw", tw, self.tw, "flange width", "bf", bf)
-        _require_less("Flange thickness", "tf", tf, self.tf, "depth", "d", d)
-        _check_fits(
-            max(tw + 2 * r - bf, tf + r - d),
-            1e-15,
-            f"Root fillet radius r does not fit the tee (got r = {fmt_len(r)})",
-            "r",
-            self.r,
-        )
-        _set_name(self, f"tee {_mm(d)} × {_mm(bf)} mm")
+        dims = _plate_dims(self, "Stem")
+        d, bf, tf, tw, r = dims
+        _web_and_fillet(self, "tee", "Stem", dims, max(tw + 2 * r - bf, tf + r - d))
 
     def local_regions(self) -> list[tuple[Region, float]]:
         d, bf, tf, tw, r = si(self.d), si(self.bf), si(self.tf), si(self.tw), si(self.r)
@@ -228,33 +243,14 @@ class Tee(Shape):
 
 
 @dataclass(frozen=True, kw_only=True, eq=False)
-class Channel(Shape):
+class Channel(_Plates):
     """A channel with parallel flanges, web on the left: depth d, flange width bf (including the
     web), flange thickness tf, web thickness tw, root fillet radius r."""
 
-    d: Quantity
-    bf: Quantity
-    tf: Quantity
-    tw: Quantity
-    r: Quantity = field(default_factory=lambda: Q_(0.0, "mm"))
-    name: str = ""
-
     def __post_init__(self) -> None:
-        d = validate_length(self.d, "d", "Depth")
-        bf = validate_length(self.bf, "bf", "Flange width")
-        tf = validate_length(self.tf, "tf", "Flange thickness")
-        tw = validate_length(self.tw, "tw", "Web thickness")
-        r = _optional_radius(self.r, "r", "Root fillet radius")
-        _require_less("Web thickness", "tw", tw, self.tw, "flange width", "bf", bf)
-        _require_less("Flange thickness", "tf", tf, self.tf, "depth", "d", d, half=True)
-        _check_fits(
-            max(tw + r - bf, 2 * tf + 2 * r - d),
-            1e-15,
-            f"Root fillet radius r does not fit the channel (got r = {fmt_len(r)})",
-            "r",
-            self.r,
-        )
-        _set_name(self, f"channel {_mm(d)} × {_mm(bf)} mm")
+        dims = _plate_dims(self, "Web")
+        d, bf, tf, tw, r = dims
+        _web_and_fillet(self, "channel", "Web", dims, max(tw + r - bf, 2 * tf + 2 * r - d))
 
     def local_regions(self) -> list[tuple[Region, float]]:
         d, bf, tf, tw, r = si(self.d), si(self.bf), si(self.tf), si(self.tw), si(self.r)

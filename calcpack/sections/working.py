@@ -79,14 +79,9 @@ def resolve_show(show: str | Sequence[str] | None, axes: str = "both") -> frozen
         InputError: an unknown key, naming it and the valid ones.
     """
     from calcpack.errors import InputError
+    from calcpack.validate import one_of
 
-    if axes not in ("x", "both"):
-        raise InputError(
-            f"Working axes must be 'x' or 'both' (got {axes!r})",
-            name="axes",
-            value=axes,
-            expected="'x' or 'both'",
-        )
+    one_of("axes", axes, ("x", "both"))
     if show is None:
         keys = set(DEFAULT_SHOW)
     elif show == "all":

@@ -103,8 +103,8 @@ def embedding_context(creds: Any, stamper: Any, crls: list[Any] | None = None) -
             revinfo_policy=revocation_policy(required),
         )
 
-    # the lists given must speak for the signer's key (it names no service itself)
-    _refuse_revoked(creds, context(bool(crls) and not fetch))
+    if crls or fetch:  # the lists given must speak for the signer's key
+        _refuse_revoked(creds, context(bool(crls) and not fetch))
     return context(False)  # what is embedded: the timestamp authority's chain too
 
 

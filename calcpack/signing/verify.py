@@ -248,17 +248,8 @@ def check_project_files(
     return tuple(checks)
 
 
-def _default_reproducer(project: Path) -> dict[str, Any]:
-    """Re-execute the project's notebooks (no execution cache) and return their records."""
-    from calcpack.package import reproduce_manifest
-
-    return reproduce_manifest(project)
-
-
-def _reproduce(
-    manifest: dict[str, Any], project: Path, reproducer: Reproducer | None
-) -> tuple[str, ...]:
-    fresh = (reproducer or _default_reproducer)(project)
+def _reproduce(manifest: dict[str, Any], project: Path, reproducer: Reproducer) -> tuple[str, ...]:
+    fresh = reproducer(project)
     titles = {s.get("path"): s.get("title") for s in manifest.get("sheets", [])}
     for sheet in fresh.get("sheets", []):
         if not sheet.get("title"):
@@ -443,7 +434,10 @@ def verify_package(
             other root is trusted and nothing is fetched from the network.
         project: the project directory: check the manifest's file hashes against it.
         reproduce: re-execute the notebooks in ``project`` and compare every recorded result.
-        reproducer: the function doing the re-execution (default: the package build's).
+        reproducer: the function doing the re-execution, needed with ``reproduce``: the
+            build's is :func:`calcpack.package.reproduce.reproduce_manifest`, which
+            :func:`calcpack.package.verify_package` (``calcpack.verify_package``) passes in
+            (signing never imports the build).
         at: when there is no timestamp to prove the signing time: ``"signing-time"`` checks
             each signer's certificates at the time the signer claims (reported as a claim), a
             datetime checks everything as at that moment. A timestamp's proof comes first.
@@ -459,7 +453,7 @@ def verify_package(
     Raises:
         VerificationError: the file is missing, unreadable, or not a calcpack package.
         InputError: a trust file or the project directory is missing; ``reproduce`` without
-            ``project``.
+            ``project`` or ``reproducer``.
     """
     from pyhanko.pdf_utils.reader import PdfFileReader
     from pyhanko.sign.validation import read_certification_data
@@ -474,6 +468,13 @@ def verify_package(
             "Reproducing the results needs the project directory (--project DIR)",
             name="project",
             value=None,
+        )
+    if reproduce and reproducer is None:
+        raise InputError(
+            name="reproducer",
+            value=None,
+            rule="is needed to reproduce the results",
+            note="calcpack.verify_package passes the build's (calcpack.package.reproduce)",
         )
     roots = load_certificates(trust)
     given = load_crls(crls)
@@ -543,7 +544,7 @@ def verify_package(
     files = check_project_files(manifest, project) if project is not None else None
     reproduction = (
         _reproduce(manifest, Path(project), reproducer)
-        if reproduce and project is not None
+        if reproduce and project is not None and reproducer is not None
         else None
     )
     return VerifyReport(

@@ -1,10 +1,12 @@
 """The beam panel: edit a beam sheet's inputs file and watch the diagrams and checks move.
 
-Every edit is validated (:func:`calcpack.inputs.beam_inputs`), re-evaluated with
+Built on the shared panel machinery (:class:`calcpack.widgets.panel.InputsPanel`): every edit
+is validated (:func:`calcpack.inputs.beam_inputs`) and evaluated with
 :func:`calcpack.inputs.evaluate_beam` -- the same functions the sheet's calc cells call -- and
-written to the inputs file (comments kept), so re-running the sheet, or building the package,
-reproduces what the panel shows. An edit that does not validate is shown with its error and not
-written; the file keeps the last valid values.
+only then shown and written to the inputs file (comments kept), so re-running the sheet, or
+building the package, reproduces what the panel shows. An edit that does not validate, or a
+beam that cannot be solved (a mechanism), is shown with its error at its field and not
+written; the last valid display stays and the file keeps the last valid values.
 
 Edit to display is kept short (target under 100 ms for a three-span beam, see
 ``tests/benchmarks/bench_widgets.py``):
@@ -13,50 +15,26 @@ Edit to display is kept short (target under 100 ms for a three-span beam, see
   output is sent to the browser only when its content changed (traitlets sends nothing for an
   unchanged value): a change of f_b re-sends the table alone, one of E the deflection too;
 * the drawings are compact SVG (see :mod:`calcpack.widgets.svg`), never matplotlib;
-* the inputs file is written *after* the kernel's output thread has sent the new display
-  (:func:`calcpack.widgets.fields.wait_for_output_sent`), so the browser redraws while the file
-  is written. The write still happens inside the same edit: the kernel reports idle, and runs
-  any other cell (the sheet's calc cells, a build), only once the file holds the values on
-  screen; nothing is left to write when the kernel shuts down. The status line says "Saved"
-  after the write.
+* an unchanged section keeps its object, whose properties are already worked out;
+* the inputs file is written after the display is sent (see :meth:`InputsPanel.edit`).
 """
 
 from __future__ import annotations
 
 import copy
 import dataclasses
-import time
-from collections import deque
 from html import escape
 from pathlib import Path
-from typing import Any
+from typing import Any, ClassVar
 
 import ipywidgets as ipw
 
 from calcpack.contract.verdict import passes
-from calcpack.errors import CalcpackError
-from calcpack.inputs import (
-    SHAPES,
-    SUPPORT_KINDS,
-    BeamOutcome,
-    beam_inputs,
-    evaluate_beam,
-    load_inputs,
-    update_inputs,
-)
+from calcpack.inputs import SHAPES, SUPPORT_KINDS, BeamOutcome, beam_inputs, evaluate_beam
 from calcpack.inputs.file import cached_unit
 from calcpack.units import Q_, Quantity
-from calcpack.widgets.fields import (
-    PANEL_CSS,
-    PanelDisplay,
-    QuantityField,
-    css_key,
-    field_for_error,
-    label,
-    wait_for_output_sent,
-)
-from calcpack.widgets.panel import set_key
-from calcpack.widgets.rerun import RerunControl
+from calcpack.widgets.fields import css_key, label
+from calcpack.widgets.panel import InputsPanel
 from calcpack.widgets.svg import beam_diagram_parts
 
 __all__ = ["BeamPanel", "beam_panel", "outcome_table_html"]
@@ -122,8 +100,9 @@ def outcome_table_html(outcome: BeamOutcome) -> str:
     )
 
 
-class BeamPanel(PanelDisplay):
-    """An interactive editor for a beam sheet's inputs file.
+class BeamPanel(InputsPanel):
+    """An interactive editor for a beam sheet's inputs file, on the shared panel machinery
+    (:class:`calcpack.widgets.panel.InputsPanel`).
 
     Args:
         path: the inputs file (``<sheet>.inputs.toml``), relative to the kernel's folder (the
@@ -132,61 +111,58 @@ class BeamPanel(PanelDisplay):
     Attributes:
         widget: the ipywidgets box displayed in the notebook.
         outcome: the last successful evaluation, or None.
-        last_update_s: seconds from an edit to its display handed to the front end (validate,
-            solve, check, redraw; the file is written after).
-        edit_times: the last 100 edits as (start, display, saved): the wall-clock start (s since
-            the epoch, comparable with the browser's clock) and the seconds from it to the
-            display handed to the front end and to the file written.
+        last_update_s, edit_times: as for every panel (see :class:`InputsPanel`).
         drawings: one HTML output per drawing (loading, shear, moment, deflection).
+        results: the reactions and checks table.
     """
 
+    kind: ClassVar[str] = "Beam panel"
+    css_class: ClassVar[str] = "cp-beam-panel"
+    output_names: ClassVar[tuple[str, ...]] = (*DRAWINGS, "results")
+
     def __init__(self, path: str | Path) -> None:
-        self.path = Path(path)
-        self.data = load_inputs(self.path)
-        self.outcome: BeamOutcome | None = None
-        self.last_update_s = 0.0
-        self.edit_times: deque[tuple[float, float, float]] = deque(maxlen=100)
         self._section: tuple[Any, Any] | None = None  # (the [section] table, its shape) shown
-        self.fields: dict[str, QuantityField] = {}
-        self.status = ipw.HTML(layout=ipw.Layout(min_height="20px"))
-        self.status.add_class("cp-panel-status")
-        self.drawings = tuple(ipw.HTML() for _ in DRAWINGS)
-        for d, name in zip(self.drawings, DRAWINGS, strict=True):
-            d.add_class(f"cp-panel-drawing-{name}")
+        super().__init__(path)
+
+    @property
+    def drawings(self) -> tuple[ipw.HTML, ...]:
+        return tuple(self.outputs[name] for name in DRAWINGS)
+
+    @property
+    def results(self) -> ipw.HTML:
+        return self.outputs["results"]
+
+    def layout_outputs(self) -> list[ipw.Widget]:
+        for name in DRAWINGS:
+            self.outputs[name].add_class(f"cp-panel-drawing-{name}")
+        self.outputs["results"].add_class("cp-panel-results-box")
         self.diagrams = ipw.VBox(self.drawings)
         self.diagrams.add_class("cp-panel-diagrams")
-        self.results = ipw.HTML()
-        self.results.add_class("cp-panel-results-box")
-        self.form = ipw.VBox()
-        reload = ipw.Button(description="Reload file", tooltip=f"Read {self.path.name} again")
-        reload.on_click(lambda _b: self.reload())
-        title = ipw.HTML(
-            PANEL_CSS + f"<b>Beam panel</b> — edits <code>{escape(self.path.name)}</code>; "
-            "the sheet's cells below read that file."
-        )
-        self.rerun = RerunControl()
-        side = ipw.VBox([self.diagrams, self.results])
-        side.add_class("cp-panel-side")
-        body = ipw.HBox([self.form, side])
-        body.add_class("cp-panel-body")
-        self.widget = ipw.VBox([ipw.HBox([title, reload]), self.rerun.widget, body, self.status])
-        self.widget.add_class("cp-beam-panel")
-        self._build_form()
-        self._refresh()
+        return [self.diagrams, self.results]
 
-    # -- form -----------------------------------------------------------------------------------
-    def _field(self, key: str, text: str, value: Quantity) -> ipw.Widget:
-        f = QuantityField(key, text, value, self._edit_one)
-        self.fields[key] = f
-        return f.widget
+    # -- evaluation and display -------------------------------------------------------------
+    def evaluate(self, data: dict[str, Any]) -> BeamOutcome:
+        validated = beam_inputs(data, path=self.path)
+        if self._section is not None and self._section[0] == data.get("section"):
+            # Same section as on screen: keep its object, whose properties (a polygon
+            # integration costing about as much as the whole beam solve) are worked out.
+            validated = dataclasses.replace(validated, section=self._section[1])
+        outcome = evaluate_beam(validated)
+        self._section = (copy.deepcopy(data.get("section")), validated.section)
+        return outcome
 
-    def _build_form(self) -> None:
-        self.fields = {}
+    def render(self, outcome: BeamOutcome) -> dict[str, str]:
+        out = dict(zip(DRAWINGS, beam_diagram_parts(outcome), strict=True))
+        out["results"] = outcome_table_html(outcome)
+        return out
+
+    # -- form -------------------------------------------------------------------------------
+    def form(self) -> list[ipw.Widget]:
         d = self.data
-        beam, section, material = d["beam"], d["section"], d["material"]
+        beam, section = d["beam"], d["section"]
         parts: list[ipw.Widget] = [ipw.HTML("<b>Spans</b>")]
-        for i, s in enumerate(beam["spans"], start=1):
-            parts.append(self._field(f"beam.spans[{i}]", f"Span {i}", s))
+        for i in range(1, len(beam["spans"]) + 1):
+            parts.append(self.quantity(f"beam.spans[{i}]", f"Span {i}"))
         add = ipw.Button(description="+ span", layout=ipw.Layout(width="80px"))
         drop = ipw.Button(
             description="− span", layout=ipw.Layout(width="80px"), disabled=len(beam["spans"]) < 2
@@ -200,9 +176,7 @@ class BeamPanel(PanelDisplay):
                 options=list(SUPPORT_KINDS), value=kind, layout=ipw.Layout(width="110px")
             )
             dd.add_class(css_key(f"beam.supports[{i}]"))
-            dd.observe(
-                lambda ch, k=f"beam.supports[{i}]": self._edit({k: ch["new"]}), names="value"
-            )
+            dd.observe(lambda ch, k=f"beam.supports[{i}]": self.edit({k: ch["new"]}), names="value")
             parts.append(ipw.HBox([label(f"Support line {i}"), dd]))
         parts.append(ipw.HTML("<b>Section</b>"))
         shape = ipw.Dropdown(
@@ -217,13 +191,11 @@ class BeamPanel(PanelDisplay):
         for dim in form.dims:
             if dim in section:
                 parts.append(
-                    self._field(
-                        f"section.{dim}", f"{dim} ({form.descriptions.get(dim, '')})", section[dim]
-                    )
+                    self.quantity(f"section.{dim}", f"{dim} ({form.descriptions.get(dim, '')})")
                 )
         parts.append(ipw.HTML("<b>Material</b>"))
-        parts.append(self._field("material.E", "E (modulus)", material["E"]))
-        parts.append(self._field("material.f_b", "f_b (bending strength)", material["f_b"]))
+        parts.append(self.quantity("material.E", "E (modulus)"))
+        parts.append(self.quantity("material.f_b", "f_b (bending strength)"))
         parts.append(ipw.HTML("<b>Loads</b> (by case)"))
         for i, ld in enumerate(d.get("loads", []), start=1):
             head = f"{i}: {ld.get('type', '?')}"
@@ -238,7 +210,7 @@ class BeamPanel(PanelDisplay):
             remove.on_click(lambda _b, k=i: self._remove_load(k))
             parts.append(ipw.HBox([label(f"Load {i}, case"), case, remove]))
             if ld.get("type") == "uniform":
-                parts.append(self._field(f"loads[{i}].w", f"{head} w", ld["w"]))
+                parts.append(self.quantity(f"loads[{i}].w", f"{head} w"))
                 if "span" in ld:
                     n_spans = len(beam["spans"])
                     dd = ipw.Dropdown(
@@ -248,14 +220,14 @@ class BeamPanel(PanelDisplay):
                     )
                     key = f"loads[{i}].span"
                     dd.add_class(css_key(key))
-                    dd.observe(lambda ch, k=key: self._edit({k: int(ch["new"])}), names="value")
+                    dd.observe(lambda ch, k=key: self.edit({k: int(ch["new"])}), names="value")
                     parts.append(ipw.HBox([label("    on span"), dd]))
                 for k in ("start", "end"):
                     if k in ld:
-                        parts.append(self._field(f"loads[{i}].{k}", f"    {k}", ld[k]))
+                        parts.append(self.quantity(f"loads[{i}].{k}", f"    {k}"))
             elif ld.get("type") == "point":
-                parts.append(self._field(f"loads[{i}].P", f"{head} P", ld["P"]))
-                parts.append(self._field(f"loads[{i}].x", "    at x", ld["x"]))
+                parts.append(self.quantity(f"loads[{i}].P", f"{head} P"))
+                parts.append(self.quantity(f"loads[{i}].x", "    at x"))
         add_case = ipw.Text(value="L", layout=ipw.Layout(width="60px"))
         add_u = ipw.Button(description="+ uniform", layout=ipw.Layout(width="90px"))
         add_p = ipw.Button(description="+ point", layout=ipw.Layout(width="80px"))
@@ -270,7 +242,7 @@ class BeamPanel(PanelDisplay):
                 )
                 key = f"combinations.{combo}.{case}"
                 box.add_class(css_key(key))
-                box.observe(lambda ch, k=key: self._edit({k: float(ch["new"])}), names="value")
+                box.observe(lambda ch, k=key: self.edit({k: float(ch["new"])}), names="value")
                 parts.append(ipw.HBox([label(f"{combo}: {case}"), box]))
         ratio = ipw.FloatText(
             value=float(d.get("limits", {}).get("deflection_ratio", 360)),
@@ -279,60 +251,18 @@ class BeamPanel(PanelDisplay):
         )
         ratio.add_class(css_key("limits.deflection_ratio"))
         ratio.observe(
-            lambda ch: self._edit({"limits.deflection_ratio": float(ch["new"])}), names="value"
+            lambda ch: self.edit({"limits.deflection_ratio": float(ch["new"])}), names="value"
         )
         parts.append(ipw.HBox([label("Deflection limit L /"), ratio]))
-        self.form.children = parts
+        return parts
 
     # -- edits ----------------------------------------------------------------------------------
-    def _edit_one(self, key: str, value: Any) -> None:
-        self._edit({key: value})
-
     def set(self, key: str, value: Any) -> None:
         """Edit one value as if typed in the panel (e.g. ``set("beam.spans[2]", 5 * ureg.m)``)."""
         if key == "section.shape":
             self._shape(value)
-        elif key in self.fields and isinstance(value, Quantity):
-            self.fields[key].box.value = float(value.to(self.fields[key].unit).magnitude)
         else:
-            self._edit({key: value})
-
-    def _edit(self, changes: dict[str, Any]) -> None:
-        started = time.time()
-        t0 = time.perf_counter()
-        candidate = copy.deepcopy(self.data)
-        try:
-            for k, v in changes.items():
-                set_key(candidate, k, v)
-            validated = beam_inputs(candidate, path=self.path)
-        except CalcpackError as exc:
-            self._error(f"Not saved: {exc}")
-            self._mark_field(exc, changes)
-            return
-        except (KeyError, IndexError, TypeError) as exc:
-            self._error(f"Not saved: no value {exc} in {self.path.name}")
-            return
-        self._clear_fields()
-        if self._section is not None and self._section[0] == candidate.get("section"):
-            # Same section as on screen: keep its object, whose properties (a polygon
-            # integration costing about as much as the whole beam solve) are worked out.
-            validated = dataclasses.replace(validated, section=self._section[1])
-        previous = self.data
-        self.data = candidate
-        shown = self._refresh(validated, saved=False)
-        self.last_update_s = time.perf_counter() - t0
-        # The display is on its way: let the kernel's output thread send it, then write the file.
-        wait_for_output_sent()
-        try:
-            self.data = update_inputs(self.path, changes)
-        except CalcpackError as exc:  # e.g. the file was edited by hand meanwhile
-            self.data = previous
-            self._error(f"Not saved: {exc}; the display shows unsaved values, press 'Reload file'")
-            return
-        self.edit_times.append((started, self.last_update_s, time.perf_counter() - t0))
-        if shown:  # otherwise the status keeps the reason nothing is drawn
-            self._saved()
-        self.rerun.edited(changes)
+            super().set(key, value)
 
     def _spans(self, step: int) -> None:
         spans = list(self.data["beam"]["spans"])
@@ -343,7 +273,7 @@ class BeamPanel(PanelDisplay):
         elif len(spans) > 1:
             spans.pop()
             supports.pop()
-        self._edit({"beam.spans": spans, "beam.supports": supports})
+        self.edit({"beam.spans": spans, "beam.supports": supports})
         self._build_form()
 
     def _factor_changes(self, loads: list[dict[str, Any]]) -> dict[str, Any]:
@@ -363,9 +293,7 @@ class BeamPanel(PanelDisplay):
     def _case(self, index: int, case: str) -> None:
         loads = copy.deepcopy(self.data.get("loads", []))
         loads[index - 1]["case"] = case.strip() or "D"
-        self._edit(
-            {f"loads[{index}].case": loads[index - 1]["case"], **self._factor_changes(loads)}
-        )
+        self.edit({f"loads[{index}].case": loads[index - 1]["case"], **self._factor_changes(loads)})
         self._build_form()
 
     def _add_load(self, kind: str, case: str) -> None:
@@ -378,13 +306,13 @@ class BeamPanel(PanelDisplay):
         else:
             new = {"case": case, "type": "point", "P": Q_(1.0, "kN"), "x": (total / 2).to("m")}
         loads.append(new)
-        self._edit({f"loads[{len(loads)}]": new, **self._factor_changes(loads)})
+        self.edit({f"loads[{len(loads)}]": new, **self._factor_changes(loads)})
         self._build_form()
 
     def _remove_load(self, index: int) -> None:
         loads = copy.deepcopy(self.data.get("loads", []))
         del loads[index - 1]
-        self._edit({f"loads[{index}]": None, **self._factor_changes(loads)})
+        self.edit({f"loads[{index}]": None, **self._factor_changes(loads)})
         self._build_form()
 
     def _shape(self, shape: str) -> None:
@@ -394,58 +322,8 @@ class BeamPanel(PanelDisplay):
         table: dict[str, Any] = {"shape": shape}
         for dim in form.dims:
             table[dim] = parse_quantity(form.defaults[dim], f"section.{dim}")
-        self._edit({"section": table})
+        self.edit({"section": table})
         self._build_form()
-
-    def reload(self) -> None:
-        """Read the inputs file again (after editing it by hand) and redraw."""
-        self.data = load_inputs(self.path)
-        self._build_form()
-        self._refresh()
-
-    # -- output ---------------------------------------------------------------------------------
-    def _mark_field(self, exc: Exception, changes: dict[str, Any]) -> None:
-        """Show the error at the field it belongs to (the last valid display stays)."""
-        key = field_for_error(exc, self.fields, changes)
-        if key is not None:
-            self.fields[key].show_error(str(exc))
-
-    def _clear_fields(self) -> None:
-        for f in self.fields.values():
-            if f.error:
-                f.clear_error()
-
-    def _error(self, message: str) -> None:
-        self.status.value = f'<span style="color:#a31515">{escape(message)}</span>'
-
-    def _refresh(self, validated: Any = None, *, saved: bool = True) -> bool:
-        """Evaluate and redraw; False (and the reason in the status line) if the beam cannot
-        be evaluated."""
-        try:
-            inputs = validated if validated is not None else beam_inputs(self.data, path=self.path)
-            self.outcome = evaluate_beam(inputs)
-        except CalcpackError as exc:
-            self.outcome = None
-            self._section = None
-            for d in self.drawings:
-                d.value = ""
-            self.results.value = ""
-            self._error(str(exc))
-            return False
-        self._section = (copy.deepcopy(self.data.get("section")), inputs.section)
-        # Assigning an unchanged string sends nothing: only changed outputs travel.
-        for d, svg in zip(self.drawings, beam_diagram_parts(self.outcome), strict=True):
-            d.value = svg
-        self.results.value = outcome_table_html(self.outcome)
-        if saved:
-            self._saved()
-        return True
-
-    def _saved(self) -> None:
-        self.status.value = (
-            f'<span style="color:#555">Saved to {escape(self.path.name)} at '
-            f"{time.strftime('%H:%M:%S')}</span>"
-        )
 
 
 def beam_panel(path: str | Path) -> BeamPanel:

@@ -19,6 +19,7 @@ from __future__ import annotations
 
 import copy
 import time
+from collections import deque
 from collections.abc import Sequence
 from html import escape
 from pathlib import Path
@@ -39,6 +40,7 @@ from calcpack.widgets.fields import (
     css_key,
     field_for_error,
     label,
+    wait_for_output_sent,
 )
 from calcpack.widgets.rerun import RerunControl
 
@@ -192,6 +194,7 @@ class InputsPanel(PanelDisplay):
         self.data = load_inputs(self.path)
         self.outcome: Any = None
         self.last_update_s = 0.0
+        self.edit_times: deque[tuple[float, float, float]] = deque(maxlen=100)
         self.fields: dict[str, Any] = {}
         self.status = ipw.HTML(layout=ipw.Layout(min_height="20px"))
         self.status.add_class("cp-panel-status")
@@ -207,7 +210,7 @@ class InputsPanel(PanelDisplay):
             + f"<b>{escape(self.kind)}</b> — edits <code>{escape(self.path.name)}</code>; "
             + escape(self.hint)
         )
-        side = ipw.VBox(list(self.outputs.values()))
+        side = ipw.VBox(self.layout_outputs())
         side.add_class("cp-panel-side")
         side.add_class("cp-panel-diagrams-box")
         body = ipw.HBox([self.form_box, side])
@@ -232,6 +235,11 @@ class InputsPanel(PanelDisplay):
     def render(self, outcome: Any) -> dict[str, str]:
         """The outputs' HTML by name (names of :attr:`output_names`)."""
         raise NotImplementedError
+
+    def layout_outputs(self) -> list[ipw.Widget]:
+        """The outputs' column beside the form: the outputs in order by default (a panel may
+        group them, e.g. the beam panel's drawings in one box)."""
+        return list(self.outputs.values())
 
     def extra(self) -> Sequence[ipw.Widget]:
         """Widgets shown under the form and outputs (e.g. a search), none by default."""
@@ -290,7 +298,15 @@ class InputsPanel(PanelDisplay):
             self.edit({key: value})
 
     def edit(self, changes: dict[str, Any]) -> bool:
-        """Apply ``changes`` (key -> value); True if evaluated, shown and written."""
+        """Apply ``changes`` (key -> value); True if evaluated, shown and written.
+
+        The inputs file is written *after* the kernel's output thread has sent the new display
+        (:func:`calcpack.widgets.fields.wait_for_output_sent`), so the browser redraws while the
+        file is written. The write still happens inside the edit: the kernel reports idle, and
+        runs any other cell (the sheet's calc cells, a build), only once the file holds the
+        values on screen. The status line says "Saved" after the write.
+        """
+        started = time.time()
         t0 = time.perf_counter()
         candidate = copy.deepcopy(self.data)
         try:
@@ -311,11 +327,13 @@ class InputsPanel(PanelDisplay):
                 f.clear_error()
         self._show(outcome)
         self.last_update_s = time.perf_counter() - t0
+        wait_for_output_sent()  # the display is on its way: let it go, then write the file
         try:
             self.data = update_inputs(self.path, changes)
         except CalcpackError as exc:  # e.g. the file was edited by hand into an invalid state
             self._error(f"Not saved: {exc}; the display shows unsaved values, press 'Reload file'")
             return False
+        self.edit_times.append((started, self.last_update_s, time.perf_counter() - t0))
         self._saved()
         self.rerun.edited(changes)
         return True

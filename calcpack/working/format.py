@@ -19,6 +19,7 @@ from calcpack.contract.numbers import (
 
 __all__ = [
     "NumberText",
+    "format_cell",
     "format_number",
     "format_quantity_latex",
     "format_quantity_text",
@@ -117,3 +118,25 @@ def format_quantity_text(quantity: pint.Quantity, sig: int = 3) -> str:
     if unit == "°":
         return number + "°"
     return f"{number} {unit}"
+
+
+def format_cell(value: object, sig: int = 3, settings: object = None) -> str:
+    """Any value a table, a caption or a sentence shows, as plain text, the one way.
+
+    A quantity in the sheet's unit for its kind (``settings``: the sheet's
+    :class:`~calcpack.units.DisplaySettings`) to ``sig`` significant figures; a whole number
+    (a load's number, a count) as written; a float to ``sig`` figures; anything else as text.
+    """
+    if isinstance(value, pint.Quantity):
+        kind_unit = getattr(settings, "kind_unit", None)
+        unit = kind_unit(value) if kind_unit is not None else None
+        return format_quantity_text(value.to(unit) if unit is not None else value, sig)
+    if value is None:
+        return ""
+    if isinstance(value, bool):
+        return str(value)
+    if isinstance(value, int):
+        return str(value).replace("-", "−")
+    if isinstance(value, float):
+        return format_number(value, sig)
+    return str(value)

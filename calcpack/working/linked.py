@@ -176,3 +176,75 @@ class Imported(Given):
         out = super().records()
         out["imports"] = [dict(self.link_record)]
         return out
+
+
+def _matrix(
+    cells: Sequence[tuple[str, str, Any]], corner: str
+) -> tuple[list[str], list[list[Any]]]:
+    """(row, column, value) triples as table columns and rows, in first-seen order."""
+    rows = list(dict.fromkeys(r for r, _, _ in cells))
+    cols = list(dict.fromkeys(c for _, c, _ in cells))
+    at = {(r, c): v for r, c, v in cells}
+    return [corner, *cols], [[r, *(at.get((r, c), "—") for c in cols)] for r in rows]
+
+
+class ExportsTable(Exports):
+    """Many values exported by row and load case (e.g. every member force of a truss, case by
+    case), shown as one table: a row per item, a column per case."""
+
+    def __init__(
+        self,
+        entries: Sequence[dict[str, Any]],
+        rows: Sequence[str],
+        *,
+        name: str,
+        settings: DisplaySettings | None = None,
+    ) -> None:
+        cells = [
+            (row, str(e["case"]), ureg.Quantity(e["value"], e["pint_unit"]))
+            for row, e in zip(rows, entries, strict=True)
+        ]
+        columns, body = _matrix(cells, "")
+        Table.__init__(
+            self,
+            columns,
+            body,
+            caption=f"Values this sheet exports to other sheets: {name}_<row> by load case "
+            "(unfactored)",
+            settings=settings,
+        )
+        self.entries = [dict(e) for e in entries]
+
+
+class ImportedTable(Table):
+    """Values taken from another sheet by row and load case, shown as one table; each is an
+    :class:`Imported` given (not editable) and each is recorded as a link."""
+
+    def __init__(
+        self,
+        steps: Sequence[Imported],
+        rows: Sequence[str],
+        *,
+        name: str,
+        sheet: SheetRef,
+        settings: DisplaySettings | None = None,
+    ) -> None:
+        cells = [
+            (row, str(st.link_record["case"]), st.display_quantity)
+            for row, st in zip(rows, steps, strict=True)
+        ]
+        columns, body = _matrix(cells, "")
+        super().__init__(
+            columns,
+            body,
+            caption=f"{name} by load case, imported from sheet {sheet.number} (unfactored)",
+            settings=settings,
+        )
+        self.steps = list(steps)
+
+    def records(self) -> dict[str, list[Any]]:
+        out: dict[str, list[Any]] = {}
+        for st in self.steps:
+            for key, items in st.records().items():
+                out.setdefault(key, []).extend(items)
+        return out

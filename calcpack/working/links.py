@@ -27,7 +27,7 @@ import re
 import tomllib
 from dataclasses import dataclass
 from pathlib import Path
-from typing import Any
+from typing import Any, Protocol
 
 from calcpack.errors import InputError
 
@@ -40,12 +40,14 @@ __all__ = [
     "code_sha256",
     "entry_key",
     "exports_document",
+    "exports_key",
     "exports_path",
     "inputs_sha256",
     "match_sheet",
     "project_sheets",
     "read_exports",
     "resolve_sheet",
+    "sealed_exports",
     "staleness",
     "this_sheet",
     "write_exports",
@@ -285,13 +287,26 @@ def exports_document(ref: SheetRef, entries: list[dict[str, Any]]) -> dict[str, 
     }
 
 
+def exports_key(sheet_path: str) -> str:
+    """The key an exports file is sealed under (:mod:`calcpack.fileio`): a file copied over
+    another sheet's is refused, not read."""
+    return f"exports-{_slug(sheet_path)}"
+
+
+def sealed_exports(document: dict[str, Any]) -> bytes:
+    """An exports document as the sealed entry written to disk."""
+    from calcpack.fileio import seal
+
+    text = json.dumps(document, indent=1, sort_keys=True) + "\n"
+    return seal(exports_key(str(document["sheet"])), text.encode("utf-8"))
+
+
 def write_exports(ref: SheetRef, entries: list[dict[str, Any]]) -> Path:
-    """Write the sheet's exports file; returns its path."""
+    """Write the sheet's exports file (a sealed entry); returns its path."""
     from calcpack.fileio import write_atomically
 
     target = exports_path(ref)
-    text = json.dumps(exports_document(ref, entries), indent=1, sort_keys=True)
-    write_atomically(target, text + "\n")
+    write_atomically(target, sealed_exports(exports_document(ref, entries)))
     return target
 
 
@@ -301,9 +316,16 @@ def read_exports(ref: SheetRef) -> ExportsFile:
     Raises:
         InputError: there is none yet (the sheet has not been run or built) or it is unreadable.
     """
+    from calcpack.fileio import read_entry
+
     target = exports_path(ref)
     try:
-        data = json.loads(target.read_text(encoding="utf-8"))
+        # A file edited by hand, truncated or copied over another sheet's is discarded with a
+        # warning and is then as if the sheet had not run: its values are never used.
+        content = read_entry(target, exports_key(ref.path), what="exports of sheet " + ref.path)
+        if content is None:
+            raise FileNotFoundError(target)
+        data = json.loads(content.decode("utf-8"))
     except FileNotFoundError:
         raise InputError(
             f"Sheet {ref.name!r} has no recorded exports yet: run it (or build the project) "
@@ -337,8 +359,18 @@ def read_exports(ref: SheetRef) -> ExportsFile:
     )
 
 
-def staleness(ref: SheetRef, exports: ExportsFile) -> str | None:
-    """Why the recorded values may be older than the sheet (None when they are current)."""
+class _Recorded(Protocol):
+    @property
+    def code_sha256(self) -> str: ...
+    @property
+    def inputs_sha256(self) -> dict[str, str]: ...
+
+
+def staleness(ref: SheetRef, exports: _Recorded) -> str | None:
+    """Why the recorded values may be older than the sheet (None when they are current).
+
+    ``exports``: what the sheet recorded -- its exports file, or its results file
+    (:mod:`calcpack.working.recorded`), each holding the hashes of the sheet it came from."""
     if exports.code_sha256 and exports.code_sha256 != code_sha256(ref.notebook):
         return f"the notebook {ref.path} has changed since its values were recorded"
     current = inputs_sha256(ref)

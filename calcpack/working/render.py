@@ -18,7 +18,12 @@ from typing import Any
 from calcpack.working.expr import Term
 from calcpack.working.expr_print import _GREEK_TEXT, symbol_latex, to_latex, to_text
 from calcpack.working.figure import Figure
-from calcpack.working.format import format_number, format_quantity_latex, format_quantity_text
+from calcpack.working.format import (
+    format_cell,
+    format_number,
+    format_quantity_latex,
+    format_quantity_text,
+)
 from calcpack.working.prose import Citation, fill
 from calcpack.working.steps import (
     RECORDS_MIMETYPE,
@@ -278,7 +283,8 @@ def _step_html_body(step: Step) -> str:
         cap = f"<caption>{_prose_html(step.caption)}</caption>" if step.caption else ""
         return (
             f'<div class="cp-step cp-table"><table>{cap}<thead><tr>{head}</tr></thead>'
-            f"<tbody>{body}</tbody></table></div>"
+            # the end of a box that may run over a page (the PDF's "continued" mark stops)
+            f'<tbody>{body}</tbody></table><div class="cp-boxend"></div></div>'
         )
     if isinstance(step, Figure):
         return _figure_html(step)
@@ -364,38 +370,18 @@ def _figure_html(step: Figure) -> str:
     )
 
 
-def _in_sheet_unit(q: Any, settings: Any) -> Any:
-    """A table's quantity in the sheet's unit for its kind (one unit per kind per sheet)."""
-    unit = settings.kind_unit(q) if settings is not None else None
-    return q.to(unit) if unit is not None else q
-
-
 def _cell_html(cell: Any, sig: int, settings: Any = None) -> str:
-    import pint
-
     if isinstance(cell, Value):
         return _esc(format_quantity_text(cell.display_quantity, sig))
-    if isinstance(cell, pint.Quantity):
-        return _esc(format_quantity_text(_in_sheet_unit(cell, settings), sig))
-    if isinstance(cell, bool) or cell is None:
-        return _esc("" if cell is None else str(cell))
-    if isinstance(cell, int | float):
-        return _esc(format_number(float(cell), sig))
-    return _prose_html(str(cell))
+    if isinstance(cell, str):
+        return _prose_html(cell)
+    return _esc(format_cell(cell, sig, settings))
 
 
 def _cell_text(cell: Any, sig: int, settings: Any = None) -> str:
-    import pint
-
     if isinstance(cell, Value):
         return format_quantity_text(cell.display_quantity, sig)
-    if isinstance(cell, pint.Quantity):
-        return format_quantity_text(_in_sheet_unit(cell, settings), sig)
-    if isinstance(cell, bool) or cell is None:
-        return "" if cell is None else str(cell)
-    if isinstance(cell, int | float):
-        return format_number(float(cell), sig)
-    return str(cell)
+    return format_cell(cell, sig, settings)
 
 
 def step_html(step: Step) -> str:

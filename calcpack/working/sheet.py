@@ -39,7 +39,7 @@ __all__ = ["Sheet"]
 
 def _unit(text: str) -> pint.Unit:
     from calcpack.errors import InputError
-    from calcpack.units import ONE_UNIT_KINDS, ureg
+    from calcpack.units import quantity_kind, ureg
 
     try:
         unit = ureg.Unit(text)
@@ -48,15 +48,15 @@ def _unit(text: str) -> pint.Unit:
             f"Sheet unit {text!r} is not a known unit",
             name="units",
             value=text,
-            expected="a unit such as 'kip', 'lbf*ft', 'plf', 'kN'",
+            expected="a unit such as 'kip', 'lbf*ft', 'plf', 'psi', 'ft', 'in'",
         ) from exc
-    if not any(unit.dimensionality == ureg.get_dimensionality(k) for k in ONE_UNIT_KINDS):
+    if not quantity_kind(unit):
         raise InputError(
-            f"Sheet units set forces, moments and line loads only (got {text!r}, of "
-            f"{unit.dimensionality})",
+            f"Sheet units set the unit of a kind of quantity; numbers and temperatures keep "
+            f"their own (got {text!r})",
             name="units",
             value=text,
-            expected="a unit of force, force·length or force/length",
+            expected="a unit of force, length, stress, moment...",
         )
     return unit
 
@@ -78,9 +78,11 @@ class Sheet(SheetLinks):
         sig_figs: significant figures shown (default: the global setting, 3).
         standards: design standards the sheet applies (collected into the design basis).
         auto_display: show each new step when running in a Jupyter kernel.
-        units: the sheet's units for forces, moments and line loads (``["lbf", "lbf*ft",
-            "plf"]``). Without them, the first value of each kind the sheet shows settles its
-            unit; later values of that kind are shown in it unless their step asks for a unit.
+        units: the sheet's unit for each kind of quantity it names (``["lbf", "lbf*ft",
+            "plf", "psi", "in"]``; kinds: :func:`calcpack.units.quantity_kind`, so "in" sets
+            dimensions and deflections and "ft" spans). Without them, the first value of each
+            kind the sheet shows settles its unit (a value that names none takes the preset's);
+            later values of that kind are shown in it unless their step asks for a unit.
     """
 
     def __init__(
@@ -107,6 +109,7 @@ class Sheet(SheetLinks):
         self._names: dict[str, Value] = {}
         self._cautions: set[str] = set()
         self._exports: dict[str, dict[str, Any]] = {}
+        self._results_changed = False
 
     # -- adding steps --------------------------------------------------------------------
     def add(self, step: Step) -> Step:
@@ -127,8 +130,14 @@ class Sheet(SheetLinks):
         if isinstance(step, Value):
             self._names[step.name] = step
             self.settings.keep_unit(step.display_unit)
-        if self.auto_display and _in_kernel():
-            step._ipython_display_()
+        self._results_changed = True
+        if _in_kernel():
+            # JupyterLab: the checker's sheets compare with this sheet's latest results
+            from calcpack.working.recorded import follow
+
+            follow(self)
+            if self.auto_display:
+                step._ipython_display_()
         return step
 
     def _adopt(self, step: Step) -> None:

@@ -8,6 +8,7 @@ the sheet's ``add``, ``settings``, ``_names`` and ``_exports``.
 from __future__ import annotations
 
 import os
+import re
 import warnings
 from pathlib import Path
 from typing import TYPE_CHECKING, Any
@@ -22,6 +23,13 @@ if TYPE_CHECKING:
     pass
 
 __all__ = ["SheetLinks"]
+
+
+def _case_tag(case: str) -> str:
+    """A load case's name as part of a symbol: "S unbalanced from L" -> "S_unbalanced_from_L",
+    "W case A +GCpi" -> "W_case_A_plus_GCpi" (signs spelt out, so "+GCpi" and "-GCpi" differ)."""
+    words = case.replace("+", " plus ").replace("-", " minus ").replace("−", " minus ")
+    return re.sub(r"[^A-Za-z0-9]+", "_", words).strip("_") or "case"
 
 
 class SheetLinks:
@@ -206,9 +214,114 @@ class SheetLinks:
             )
         base = as_name or name
         return {
-            c: self.import_value(sheet, name, dimension=dimension, case=c, as_name=f"{base}_{c}")
+            c: self.import_value(
+                sheet, name, dimension=dimension, case=c, as_name=f"{base}_{_case_tag(c)}"
+            )
             for c in cases
         }
+
+    def export_by_case(
+        self,
+        values: Any,
+        *,
+        name: str,
+        description: str = "",
+    ) -> Any:
+        """Export many values by row and load case in one table (e.g. every member force of
+        a truss, unfactored, case by case), so another sheet takes them all with
+        :meth:`import_by_case` instead of solving the model again.
+
+        Args:
+            values: load case -> (row -> quantity), e.g. ``{c: r.forces for c, r in
+                cases.items()}``; every row a symbol-like name (``"L0U1"``).
+            name: the name of the set (``"N"``); each value is exported as ``<name>_<row>``
+                with its case.
+            description: words for each value (default: "<name> of <row>").
+
+        Raises:
+            InputError: no values, a case without rows, or a row that is not a symbol name.
+        """
+        from calcpack.errors import InputError
+        from calcpack.working.linked import ExportsTable
+        from calcpack.working.links import entry_key
+
+        cells = [(str(c), str(r), q) for c, rows in dict(values).items() for r, q in rows.items()]
+        if not cells:
+            raise InputError(
+                f"export_by_case({name!r}) needs at least one value (got none)",
+                name="values",
+                value=values,
+                expected="load case -> (row -> quantity)",
+            )
+        entries = [
+            export_entry(q, name=f"{name}_{r}", case=c, description=description or f"{name} of {r}")
+            for c, r, q in cells
+        ]
+        for e in entries:
+            self._exports[entry_key(e["name"], e["case"])] = e
+        step = ExportsTable(entries, [r for _, r, _ in cells], name=name, settings=self.settings)
+        self.add(step)
+        self._write_exports()
+        return step
+
+    def import_by_case(
+        self, sheet: str, name: str, *, dimension: str | None = None
+    ) -> dict[str, dict[str, pint.Quantity]]:
+        """Every value another sheet exports with :meth:`export_by_case` under ``name``, as
+        givens of this sheet (not editable, each a link), shown as one table.
+
+        Returns:
+            load case -> (row -> quantity), in the exporting sheet's order.
+
+        Raises:
+            InputError: no such sheet, or it exports nothing by case under ``name``.
+            DimensionError: a value not of ``dimension``.
+        """
+        from calcpack.errors import DimensionError, InputError
+        from calcpack.units import require
+        from calcpack.working.linked import ImportedTable
+        from calcpack.working.links import read_exports, resolve_sheet
+
+        ref = resolve_sheet(sheet)
+        prefix = f"{name}_"
+        found = [
+            e
+            for e in read_exports(ref).values.values()
+            if str(e.get("name", "")).startswith(prefix) and e.get("case")
+        ]
+        if not found:
+            raise InputError(
+                f"Sheet {ref.name!r} exports nothing by load case under {name!r} (export it "
+                f"with export_by_case(..., name={name!r}))",
+                name=name,
+                value=f"{ref.name}: {name}",
+                expected="values exported with export_by_case",
+            )
+        steps, rows = [], []
+        taken: set[str] = set()
+        out: dict[str, dict[str, pint.Quantity]] = {}
+        for e in found:
+            row, case = e["name"][len(prefix) :], str(e["case"])
+            local = f"{e['name']}_{_case_tag(case)}"
+            while local in taken:  # two case names that differ only in punctuation
+                local += "_"
+            taken.add(local)
+            st = Imported(local, e, ref, settings=self.settings)
+            if dimension is not None:
+                try:
+                    require(st.quantity, dimension, st.name)
+                except DimensionError as exc:
+                    raise DimensionError(
+                        f"Import of {e['name']} ({case}) from sheet {ref.name!r}: {exc}",
+                        name=st.name,
+                        value=st.quantity,
+                        expected=f"a value of {dimension}",
+                    ) from exc
+            steps.append(st)
+            rows.append(row)
+            out.setdefault(case, {})[row] = st.quantity
+        self.add(ImportedTable(steps, rows, name=name, sheet=ref, settings=self.settings))
+        return out
 
     def export_reactions(
         self, results: Any, support: str, *, name: str, member: str = ""
@@ -228,6 +341,10 @@ class SheetLinks:
         from calcpack.loads.takedown import reactions_by_case
 
         by_case = reactions_by_case(results, support)
+        # in the sheet's units (lbf or kip on a US sheet), not the solver's SI
+        unit = self.settings.unit_for(next(iter(by_case.values()))) if by_case else None
+        if unit is not None:
+            by_case = {c: q.to(unit) for c, q in by_case.items()}
         on = f" on {member}" if member else ""
         entries = [
             export_entry(
@@ -325,6 +442,11 @@ class SheetLinks:
     ) -> Any:
         """Declare the checker's own value of a preparer's result, to be compared in the build.
 
+        In JupyterLab the sheet also shows it compared with the preparer's latest recorded
+        result -- value, checker's value, difference, tolerance, agreed or not, method -- and
+        says when that record is older than the preparer's notebook or inputs file (run that
+        sheet first) or missing (:func:`calcpack.working.verification.compare_with_record`).
+
         Args:
             sheet: the preparer's sheet (notebook name, as for :meth:`import_value`).
             name: the result's name there (a recorded or exported value; with ``member``, a
@@ -339,6 +461,8 @@ class SheetLinks:
         Raises:
             InputError: the sheet is not in the project; a bad tolerance or no method; or this
                 sheet imports the very value it checks (an independent check may not read it).
+            DimensionError: in JupyterLab, the preparer's current record is in a unit the
+                checker's value does not convert to.
         """
         from calcpack.errors import InputError
         from calcpack.working.links import resolve_sheet
@@ -368,7 +492,16 @@ class SheetLinks:
         entry = verification_entry(
             ref, name, value, tolerance=tolerance, method=method, member=member, case=case
         )
-        shown = Verification(entry, settings=self.settings)
+        comparison = None
+        if os.environ.get("CALCPACK_BUILDING") != "1":
+            # JupyterLab: compared with the preparer's latest record, for the checker's eyes
+            # only (the build compares with its own records; nothing here is recorded)
+            from calcpack.working.verification import compare_with_record
+
+            comparison = compare_with_record(ref, entry)
+            if comparison.note is not None:
+                warnings.warn(f"Independent check of {name}: {comparison.note}", stacklevel=2)
+        shown = Verification(entry, settings=self.settings, comparison=comparison)
         self.add(shown)
         return shown
 

@@ -52,6 +52,16 @@ def _out(page: Any, name: str) -> float:
     )
 
 
+def _wait_saved(page: Any, panel: str) -> None:
+    """Wait for the panel's "Saved to" status: a panel sends its display first and writes the
+    inputs file right after, so a new display may arrive a moment before the file holds it."""
+    page.wait_for_function(
+        "([sel]) => /Saved to/.test(document.querySelector(sel)?.textContent || '')",
+        arg=[f"{panel} .cp-panel-status"],
+        timeout=30_000,
+    )
+
+
 def test_beam_panel_edits_inputs_and_updates_display(lab: LabServer, page: Any) -> None:
     from calcpack.inputs import beam_inputs, evaluate_beam, load_inputs
 
@@ -94,6 +104,7 @@ def test_beam_panel_edits_inputs_and_updates_display(lab: LabServer, page: Any) 
         timeout=30_000,
     )
     after_u = _out(page, "bending_utilisation")
+    _wait_saved(page, ".cp-beam-panel")
     after_text = inputs_file.read_text(encoding="utf-8")
     assert after_text != before_text
     assert 'spans = ["3.2 m", "5.5 m", "3.2 m"]' in after_text
@@ -283,6 +294,7 @@ def test_member_panel_checks_live_and_the_search_picks_a_shape(lab: LabServer, p
         arg=[before],
         timeout=30_000,
     )
+    _wait_saved(page, ".cp-member-panel")
     expected = evaluate_member(member_inputs(load_inputs(inputs_file))).governing[0]
     assert float(governing.get_attribute("data-value")) == pytest.approx(expected, rel=1e-12)
     assert panel.locator(".cp-bars .cp-bar").count() >= 3

@@ -59,9 +59,18 @@ class Extent:
 
 def painted_extent(reader: PdfReader, index: int) -> Extent:
     """The box around every painted path and drawn XObject on page ``index`` (0-based)."""
+    extent = Extent()
+    for box in painted_boxes(reader, index):
+        extent.add(box.x0, box.y0)
+        extent.add(box.x1, box.y1)
+    return extent
+
+
+def painted_boxes(reader: PdfReader, index: int) -> list[Extent]:
+    """The box of each painted path and of each drawn XObject on page ``index`` (0-based)."""
     page = reader.pages[index]
     xobjects: Any = (page.get("/Resources") or {}).get("/XObject") or {}
-    extent = Extent()
+    boxes: list[Extent] = []
     ctm = IDENTITY
     stack: list[Matrix] = []
     path: list[tuple[float, float]] = []
@@ -82,8 +91,11 @@ def painted_extent(reader: PdfReader, index: int) -> Extent:
             path += [_apply(ctm, x, y), _apply(ctm, x + w, y + h)]
             path += [_apply(ctm, x + w, y), _apply(ctm, x, y + h)]
         elif op in _PAINT:
-            for point in path:
-                extent.add(*point)
+            if path:
+                box = Extent()
+                for point in path:
+                    box.add(*point)
+                boxes.append(box)
             path = []
         elif op == b"n":
             path = []  # a clipping path, not ink
@@ -96,9 +108,11 @@ def painted_extent(reader: PdfReader, index: int) -> Extent:
             else:
                 x0, y0, x1, y1 = 0.0, 0.0, 1.0, 1.0
                 m = ctm
+            box = Extent()
             for x, y in ((x0, y0), (x1, y0), (x0, y1), (x1, y1)):
-                extent.add(*_apply(m, x, y))
-    return extent
+                box.add(*_apply(m, x, y))
+            boxes.append(box)
+    return boxes
 
 
 @dataclass(frozen=True)

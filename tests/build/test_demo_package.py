@@ -209,3 +209,67 @@ def test_letter_paper(demo_dir: Path, tmp_path: Path) -> None:
     assert result.pdf_path.name.endswith("-letter.pdf")
     for f in result.manifest["signature_fields"]:
         assert f["box"][2] < 612
+
+
+def test_summary_page_numbers_are_the_checks_own_pages(
+    demo_pdf: Path, demo_reader: PdfReader, demo_manifest: dict[str, Any]
+) -> None:
+    """Each check's page number in the summary is a link to the check itself, and the number
+    printed is the page the link lands on (read with poppler's pdftotext -bbox)."""
+    from pdfgeometry import page_words
+
+    first, last = demo_manifest["sections"]["summary"]
+    named = demo_reader.named_destinations
+    seen: set[str] = set()
+    for number in range(first, last + 1):
+        page = demo_reader.pages[number - 1]
+        height = float(page.mediabox.height)
+        words = page_words(demo_pdf, number)
+        for annot in page.get("/Annots") or []:
+            link = annot.get_object()
+            target = str(link.get("/Dest", ""))
+            if not target.startswith("chk-"):
+                continue
+            lands = demo_reader.get_destination_page_number(named[target]) + 1
+            x1, y1, x2, y2 = (float(v) for v in link["/Rect"])
+            printed = [
+                w.text
+                for w in words
+                if x1 - 1 <= (w.x0 + w.x1) / 2 <= x2 + 1
+                and y1 - 1 <= height - (w.y0 + w.y1) / 2 <= y2 + 1
+            ]
+            assert printed == [str(lands)], (target, printed, lands)
+            # the check is on a page of a sheet
+            assert any(s["pages"][0] <= lands <= s["pages"][1] for s in demo_manifest["sheets"])
+            seen.add(target)
+    checks = sum(len(s["checks"]) for s in demo_manifest["sheets"])
+    assert len(seen) == checks  # every check of every sheet has its link
+
+
+def test_pagination_rules(demo_reader: PdfReader, demo_manifest: dict[str, Any]) -> None:
+    """No heading ends a page, and no page leaves more than a third of its body blank except
+    the last page of a section (measured on the PDF: tests/build/pagerules.py)."""
+    from pagerules import violations
+
+    assert violations(demo_reader, demo_manifest["sections"]) == []
+
+
+def test_pagination_rules_catch_a_heading_at_the_foot(tmp_path: Path) -> None:
+    """The measurement itself: a heading pushed to the foot of a page, and a half-empty page,
+    are found."""
+    from pagerules import violations
+    from weasyprint import HTML
+
+    filler = "".join(f"<p>line {i}</p>" for i in range(36))
+    html = (
+        "<html><head><style>@page { size: A4; margin: 41mm 14mm 17mm 19mm; } "
+        "p, h2 { font: 9.5pt 'Liberation Sans', 'DejaVu Sans'; margin: 0 0 2.9mm 0; } "
+        "h2 { font-weight: bold; } .next { break-before: page; }</style></head><body>"
+        f"<p>cover</p><p class='next'>first</p>{filler}<h2>Heading at the foot</h2>"
+        "<p class='next'>half a page</p><p class='next'>last</p></body></html>"
+    )
+    pdf = tmp_path / "rules.pdf"
+    HTML(string=html).write_pdf(pdf)
+    found = violations(PdfReader(pdf), {"cover": [1, 1], "all": [2, 4]})
+    assert any("Heading at the foot" in v for v in found), found
+    assert any(v.startswith("page 3:") and "blank" in v for v in found), found

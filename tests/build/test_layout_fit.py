@@ -5,6 +5,7 @@ from __future__ import annotations
 
 import io
 import json
+import re
 from pathlib import Path
 from typing import Any
 
@@ -103,6 +104,9 @@ def test_long_names_fit_the_title_block(wide_package: Path) -> None:
                 parts.append(w)
                 printed += w.text
             assert printed == name.replace(" ", ""), printed
+            # wrapped at word boundaries (a space or after a hyphen), never inside a word
+            pieces = {p for word in name.split() for p in re.split(r"(?<=-)", word) if p}
+            assert {w.text for w in parts} <= pieces | set(name.split()), parts
             # Padding of the cell is 1.6 mm; every word ends before the next cell starts.
             assert all(w.x1 <= right - 1.6 * MM + 0.5 for w in parts), (name, parts)
 

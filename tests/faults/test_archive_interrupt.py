@@ -22,10 +22,30 @@ import pytest
 from calcpack.package.interrupt import TEMP_PREFIX, clean_stale_temp
 from tests.build.projectkit import make_project
 
-LOOPS = {
-    "Loop A": ["import time\nwhile True:\n    time.sleep(0.01)"],
-    "Loop B": ["while True:\n    pass"],
+LOOP_BODIES = {
+    "A": "import time\nwhile True:\n    time.sleep(0.01)",
+    "B": "while True:\n    pass",
 }
+
+# Wait limits: generous, because other builds may share the machine (the tests never sleep a
+# fixed time in the hope that something has happened; they wait for it to be seen).
+START_S = 600.0
+STOP_S = 180.0
+
+
+def _loops(marks: Path) -> dict[str, list[str]]:
+    """Two sheets whose cell first says it is running (its kernel's process id, in a file
+    written whole) and then loops for ever."""
+    cells = {}
+    for name, body in LOOP_BODIES.items():
+        mark = marks / f"running-{name}"
+        start = (
+            "import os, pathlib\n"
+            f"pathlib.Path({str(mark) + '.part'!r}).write_text(str(os.getpid()))\n"
+            f"os.replace({str(mark) + '.part'!r}, {str(mark)!r})\n"
+        )
+        cells[f"Loop {name}"] = [start + body]
+    return cells
 
 
 def _tree(root: int) -> list[int]:
@@ -84,65 +104,70 @@ def _start_build(project: Path, tmp: Path) -> subprocess.Popen[str]:
     )
 
 
-def _wait_for_kernels(build: subprocess.Popen[str], tmp: Path, n: int = 2) -> list[int]:
-    deadline = time.monotonic() + 240
+def _wait_for_cells(build: subprocess.Popen[str], marks: Path) -> list[int]:
+    """Wait until both looping cells say they run; the build's processes and the kernels'."""
+    deadline = time.monotonic() + START_S
+    files = [marks / f"running-{name}" for name in LOOP_BODIES]
     while time.monotonic() < deadline:
-        kernels = list(tmp.glob(f"{TEMP_PREFIX}*-kernel-*"))
-        if len(kernels) >= n and all((k / "kernel.json").exists() for k in kernels):
-            time.sleep(2.0)  # the cells are running
-            return _tree(build.pid)
+        if all(f.exists() for f in files):
+            kernels = [int(f.read_text()) for f in files]
+            return sorted(set(_tree(build.pid)) | set(kernels))
         assert build.poll() is None, build.communicate()
-        time.sleep(0.5)
-    raise AssertionError("the kernels did not start")
+        time.sleep(0.2)
+    raise AssertionError(f"the looping cells did not start within {START_S:.0f} s")
+
+
+def _wait_gone(processes: list[int], seconds: float) -> list[int]:
+    deadline = time.monotonic() + seconds
+    while _alive(processes) and time.monotonic() < deadline:
+        time.sleep(0.2)
+    return _alive(processes)
 
 
 @pytest.fixture
-def looping(tmp_path: Path) -> tuple[Path, Path]:
+def looping(tmp_path: Path) -> tuple[Path, Path, Path]:
     tmp = tmp_path / "tmp"
     tmp.mkdir()
-    return make_project(tmp_path / "job", LOOPS), tmp
+    marks = tmp_path / "marks"
+    marks.mkdir()
+    return make_project(tmp_path / "job", _loops(marks)), tmp, marks
 
 
 @pytest.mark.build
 def test_ctrl_c_prints_one_line_and_stops_every_worker_and_kernel(
-    looping: tuple[Path, Path],
+    looping: tuple[Path, Path, Path],
 ) -> None:
-    project, tmp = looping
+    project, tmp, marks = looping
     build = _start_build(project, tmp)
-    processes = _wait_for_kernels(build, tmp)
+    processes = _wait_for_cells(build, marks)
     assert len(processes) >= 5  # the build, the resource tracker, two workers, kernels
     os.killpg(build.pid, signal.SIGINT)
     try:
-        _, err = build.communicate(timeout=60)
+        _, err = build.communicate(timeout=STOP_S)
+        left = _wait_gone(processes, STOP_S)
     finally:
         for pid in _alive(processes):  # never leave a test's processes behind
             os.kill(pid, signal.SIGKILL)
     assert build.returncode == 130
     assert err.strip().splitlines() == ["calcpack: interrupted; nothing was written"], err
-    deadline = time.monotonic() + 10
-    while _alive(processes) and time.monotonic() < deadline:
-        time.sleep(0.2)
-    assert _alive(processes) == []
+    assert left == []
     assert list(tmp.glob(f"{TEMP_PREFIX}*")) == []
     assert not list((project / "build").glob("*.pdf"))
 
 
 @pytest.mark.build
 def test_folders_of_a_killed_build_are_removed_by_the_next_build(
-    looping: tuple[Path, Path],
+    looping: tuple[Path, Path, Path],
 ) -> None:
-    project, tmp = looping
+    project, tmp, marks = looping
     build = _start_build(project, tmp)
-    processes = _wait_for_kernels(build, tmp)
+    processes = _wait_for_cells(build, marks)
     os.killpg(build.pid, signal.SIGKILL)  # the build and its workers; kernels are on their own
-    build.communicate(timeout=30)
+    build.communicate(timeout=STOP_S)
     left = list(tmp.glob(f"{TEMP_PREFIX}*"))
     assert left  # the fault: a killed process cannot clean up
     try:
-        deadline = time.monotonic() + 30
-        while _alive(processes) and time.monotonic() < deadline:
-            time.sleep(0.5)
-        assert _alive(processes) == []  # orphaned kernels notice their parent is gone
+        assert _wait_gone(processes, STOP_S) == []  # orphaned kernels notice the parent gone
     finally:
         for pid in _alive(processes):
             os.kill(pid, signal.SIGKILL)

@@ -96,7 +96,7 @@ def test_ten_years_on_with_every_certificate_expired_the_stored_data_verifies(
 
 
 def test_a_key_revoked_before_it_signed_is_reported_and_one_revoked_after_is_not(
-    tmp_path: Path, package: Path
+    tmp_path: Path, package: Path, capsys: pytest.CaptureFixture[str]
 ) -> None:
     authority = new_authority(tmp_path, firm=FIRM, password=PASSWORD)
     key = issue_key(authority.key, PASSWORD, tmp_path, name="Lorcan Abt", role="preparer",
@@ -117,6 +117,7 @@ def test_a_key_revoked_before_it_signed_is_reported_and_one_revoked_after_is_not
     assert revoked.signatures[0].trust.startswith("revoked certificate")
     assert "given to verify" in revoked.signatures[0].revocation
     assert main(["verify", str(package), *_trust(trust), "--crl", str(authority.crl)]) == 1
+    assert "signer: revoked certificate (revoked " in capsys.readouterr().out
     # the same key revoked only after the signature's timestamp: the signature stands
     other = tmp_path / "later"
     other.mkdir()

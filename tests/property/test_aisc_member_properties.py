@@ -11,6 +11,7 @@ from hypothesis import strategies as st
 from calcpack.checks.aisc360.member import check_aisc_member
 from calcpack.checks.aisc360.member_data import FACTORS, MemberForces, SteelMember
 from calcpack.sections.aisc_database import aisc_shape
+from calcpack.sections.double_angle import double_angle
 from calcpack.sections.steel_bars import rectangular_bar
 from calcpack.units import Q_
 
@@ -45,6 +46,8 @@ def test_flexural_strength_never_grows_with_unbraced_length(name, a, b):
 def _flexure_member(name, L, stem):
     if name == "bar":
         shape = rectangular_bar(d=Q_(6, "inch"), t=Q_(0.5, "inch"))
+    elif name.startswith("2"):
+        shape = double_angle(aisc_shape(name[1:]), gap=Q_(0.375, "inch"))
     else:
         shape = aisc_shape(name)
     return SteelMember(shape, Fy=Q_(50, "ksi"), Lb=Q_(L, "ft"), tee_stem=stem)
@@ -52,7 +55,7 @@ def _flexure_member(name, L, stem):
 
 @settings(max_examples=25, deadline=None)
 @given(
-    st.sampled_from(["WT12X31", "WT6X13", "WT9X25", "bar"]),
+    st.sampled_from(["WT12X31", "WT6X13", "WT9X25", "bar", "2L4X4X1/4", "2L6X4X3/8"]),
     st.sampled_from(["tension", "compression"]),
     lengths,
     lengths,

@@ -8,13 +8,18 @@ import pickle
 import pytest
 
 from calcpack.errors import (
+    BuildError,
     CalcpackError,
     DimensionError,
     InputError,
     NotebookExecutionError,
     NoViewError,
+    OutOfScopeError,
     SignedPackageError,
+    SigningError,
+    UndefinedSymbolError,
     UnstableStructureError,
+    VerificationError,
     ZeroDivisorError,
 )
 from calcpack.units import ureg
@@ -38,6 +43,60 @@ def test_errors_survive_pickling_with_their_fields_and_message(error: CalcpackEr
     assert type(again) is type(error)
     assert str(again) == str(error)
     assert repr(vars(again)) == repr(vars(error))
+
+
+def _every_error_class() -> set[type[CalcpackError]]:
+    """CalcpackError and every subclass, those of calcpack.errors and those defined beside the
+    code that raises them (the modules are imported so their classes exist)."""
+    import calcpack.checks.scope
+    import calcpack.inputs.file
+    import calcpack.package.project  # noqa: F401
+
+    found: set[type[CalcpackError]] = set()
+    todo = [CalcpackError]
+    while todo:
+        cls = todo.pop()
+        if cls.__module__.startswith("calcpack.") and cls not in found:
+            found.add(cls)
+            todo.extend(cls.__subclasses__())
+    return found
+
+
+def _one_of_each() -> dict[type[CalcpackError], CalcpackError]:
+    from calcpack.checks.scope import MaterialOutOfScopeError
+    from calcpack.inputs.file import InputsFileError
+    from calcpack.package.project import ProjectFileError
+
+    made: list[CalcpackError] = [
+        CalcpackError("something went wrong"),
+        *ERRORS,
+        UndefinedSymbolError(name="b", value=None, rule="has no value on the sheet"),
+        OutOfScopeError("AISC 360-16 §F9 is not covered for this section"),
+        BuildError("Paper size must be 'A4' or 'Letter' (got paper = 'A3')"),
+        SigningError("Key file 'k.p12' could not be opened"),
+        VerificationError("'p.pdf' carries no calcpack manifest"),
+        MaterialOutOfScopeError(
+            "Fy", 900 * ureg.MPa, 200 * ureg.MPa, 700 * ureg.MPa, "AISC 360-16", "§A3.1a"
+        ),
+        ProjectFileError(
+            "calcpack.toml: field 'job.number' is missing", name="job.number", expected="text"
+        ),
+        InputsFileError(name="beam.spans[2]", value="3 m m", expected="a length such as '3 m'"),
+    ]
+    return {type(e): e for e in made}
+
+
+def test_every_error_class_survives_pickling_as_raised() -> None:
+    """A worker process raises calcpack's errors as they are: each class, made with its own
+    fields, comes back from pickle with the same type, fields and message."""
+    samples = _one_of_each()
+    missing = {c.__qualname__ for c in _every_error_class() - set(samples)}
+    assert not missing, f"add an example of {sorted(missing)} to this test"
+    for error in samples.values():
+        again = pickle.loads(pickle.dumps(error))
+        assert type(again) is type(error)
+        assert str(again) == str(error)
+        assert repr(vars(again)) == repr(vars(error))
 
 
 def test_an_input_error_writes_itself_from_its_fields() -> None:

@@ -11,7 +11,7 @@ from pathlib import Path
 
 import pytest
 
-from tests.layering import BOTTOM, COMPUTATION, FORBIDDEN
+from tests.layering import ABOVE, BOTTOM, COMPUTATION, FORBIDDEN
 
 PACKAGE = Path(__file__).resolve().parents[2] / "calcpack"
 
@@ -60,7 +60,7 @@ def _files(layers: tuple[str, ...]) -> list[Path]:
 
 
 def test_the_rules_cover_real_modules() -> None:
-    for layer in (*COMPUTATION, *BOTTOM):
+    for layer in (*COMPUTATION, *BOTTOM, *ABOVE):
         assert _files((layer,)), f"{layer} names no module of calcpack"
     assert len(_files(COMPUTATION)) > 50
 
@@ -88,6 +88,17 @@ def test_the_bottom_imports_only_the_standard_library(layer: str) -> None:
                     found.append(f"{p.relative_to(PACKAGE.parent)}:{line} imports {name}")
             elif top not in sys.stdlib_module_names and top != "__future__":
                 found.append(f"{p.relative_to(PACKAGE.parent)}:{line} imports {name}")
+    assert found == []
+
+
+@pytest.mark.parametrize("layer", sorted(ABOVE))
+def test_the_layers_above_computation_depend_one_way(layer: str) -> None:
+    found = [
+        f"{p.relative_to(PACKAGE.parent)}:{line} imports {name}"
+        for p in _files((layer,))
+        for line, name in _imports(p)
+        if _within(name, ABOVE[layer])
+    ]
     assert found == []
 
 

@@ -101,3 +101,49 @@ def test_f11_rectangular_bar_about_its_minor_axis_has_no_ltb():
     bar = rectangular_bar(d=Q_(d, "inch"), t=Q_(t, "inch"))
     got = _mn(SteelMember(bar, Fy=Q_(Fy, "ksi"), Lb=Q_(30, "ft")), axis="y")
     assert got == pytest.approx(expected, rel=1e-6)
+
+
+def test_f9_double_angle_web_legs_in_tension_and_in_compression():
+    # 2L4X4X1/4 with a 3/8 in. gap, A36; single angle (AISC Shapes Database v16.0):
+    # Z_x 1.82, S_x 1.03 in³, I_x 3.00 in⁴, ȳ 1.08 in, b = d = 4 in, t = 1/4 in.
+    # Equations from memory: (F9-2) M_p = F_y Z_x ≤ 1.6 M_y (web legs in tension); (F9-5)
+    # M_p = 1.5 M_y (web legs in compression); §F9.3(b)/§F9.4(b) leg local buckling by §F10.3:
+    # (F10-6) M_n = F_y S_c (2.43 − 1.72 (b/t)√(F_y/E)) for 0.54 < (b/t)/√(E/F_y) ≤ 0.91.
+    from calcpack.sections.double_angle import double_angle
+
+    Fy, E_ = 36.0, 29000.0
+    Sx, Zx, Ix, y, bt = 2 * 1.03, 2 * 1.82, 2 * 3.00, 1.08, 4 / 0.25
+    two = double_angle(aisc_shape("L4X4X1/4"), gap=Q_(0.375, "inch"))
+    llb = 2.43 - 1.72 * bt * math.sqrt(Fy / E_)
+    tension = min(Fy * Zx, 1.6 * Fy * Sx, Fy * (Ix / y) * llb)
+    compression = min(1.5 * Fy * Sx, Fy * Sx * llb)
+    for stem, expected in (("tension", tension), ("compression", compression)):
+        m = SteelMember(two, Fy=Q_(Fy, "ksi"), tee_stem=stem)
+        assert _mn(m) == pytest.approx(expected, rel=1e-6)
+
+
+def test_double_angle_section_by_parallel_axes():
+    from calcpack.sections.double_angle import double_angle
+
+    L = aisc_shape("L4X3X3/8")
+    two = double_angle(L, gap=Q_(0.5, "inch"))
+    A, Iy, x = (L[k].to_base_units().magnitude for k in ("A", "Iy", "x"))
+    g = Q_(0.5, "inch").to_base_units().magnitude
+    assert two["Iy"].to_base_units().magnitude == pytest.approx(2 * (Iy + A * (x + g / 2) ** 2))
+    assert two["A"].to_base_units().magnitude == pytest.approx(2 * A)
+
+
+def test_double_angle_refusals_and_bad_input():
+    from calcpack.errors import DimensionError, InputError, OutOfScopeError
+    from calcpack.sections.double_angle import double_angle
+
+    two = double_angle(aisc_shape("L4X4X1/4"), gap=Q_(0.375, "inch"))
+    m = SteelMember(two, Fy=Q_(36, "ksi"), Lcx=Q_(6, "ft"), Lcy=Q_(6, "ft"))
+    with pytest.raises(OutOfScopeError, match="§E6"):
+        check_aisc_member(m, MemberForces(P=Q_(1, "kip")))
+    with pytest.raises(OutOfScopeError, match="double angles about"):
+        check_aisc_member(m, MemberForces(My=Q_(1, "kip*ft")))
+    with pytest.raises(InputError, match="angle"):
+        double_angle(aisc_shape("W8X31"), gap=Q_(0.375, "inch"))
+    with pytest.raises(DimensionError, match="gap"):
+        double_angle(aisc_shape("L4X4X1/4"), gap=Q_(0.375, "kip"))

@@ -10,6 +10,7 @@ from __future__ import annotations
 from dataclasses import dataclass
 from typing import TYPE_CHECKING, Any
 
+from calcpack.checks.aisc360.ltb_f2 import ltb_strength_f2
 from calcpack.checks.aisc360.member_data import FACTORS, Factor
 from calcpack.checks.aisc360.shape import E_SOURCE, IShape
 from calcpack.checks.base import Recorder
@@ -309,37 +310,16 @@ class BeamClauses:
                 "LTB modification factor",
                 source="given" if self.given_cb else "continuous bracing: LTB does not apply",
             )
-        if c.q(Lb) <= c.q(Lp):
-            c.text("$L_b \\le L_p$: lateral-torsional buckling does not apply (§F2.2(a)).")
+        Mltb = ltb_strength_f2(
+            c, Lb=Lb, Lp=Lp, Lr=Lr, Cb=Cb, Mp=Mp, Fy=Fy, E=E, Sx=Sx, rts=rts, jc=jt
+        )
+        if Mltb is None:
             return c.derive(
                 "M_n",
                 Mp,
                 "nominal flexural strength (yielding)",
                 unit="kip*ft",
                 ref="AISC 360-16 Eq. (F2-1)",
-            )
-        if c.q(Lb) <= c.q(Lr):
-            Mltb = c.derive(
-                "M_n_LTB",
-                Cb * (Mp - (Mp - 0.7 * Fy * Sx) * ((Lb - Lp) / (Lr - Lp))),
-                "inelastic lateral-torsional buckling",
-                unit="kip*ft",
-                ref="AISC 360-16 Eq. (F2-2)",
-            )
-        else:
-            Fcr = c.derive(
-                "F_cr",
-                Cb * c.pi**2 * E / (Lb / rts) ** 2 * c.sqrt(1 + 0.078 * jt * (Lb / rts) ** 2),
-                "critical stress, elastic LTB",
-                unit="ksi",
-                ref="AISC 360-16 Eq. (F2-4)",
-            )
-            Mltb = c.derive(
-                "M_n_LTB",
-                Fcr * Sx,
-                "elastic lateral-torsional buckling",
-                unit="kip*ft",
-                ref="AISC 360-16 Eq. (F2-3)",
             )
         return c.derive(
             "M_n",

@@ -63,6 +63,11 @@ def compression_elements(m: SteelMember) -> list[tuple[str, float, float, str]]:
         return [("wall D/t", dt, 0.11 * e_fy, "Table B4.1a case 9")]
     if s.type in ("BAR", "ROUND BAR"):
         return []  # a solid bar has no plate elements (Table B4.1a)
+    if s.type == "2L":
+        raise OutOfScopeError(
+            f"Double angle {s.designation} in compression: flexural-torsional buckling of double "
+            "angles (AISC 360-16 §E4) with the built-up member rules of §E6 is not implemented"
+        )
     raise OutOfScopeError(
         f"Shape {s.designation} ({s.type}) in compression: a single angle's strength depends on "
         "its end connection (AISC 360-16 §E5); check it with check_aisc_angle_strut"

@@ -12,7 +12,8 @@
   equal-leg angles; an unequal-leg angle without continuous lateral-torsional restraint needs
   principal-axis bending and is refused;
 * tees (WT, MT, ST) about x: §F9; rectangular and round bars: §F11
-  (``flexure_tee_bar.py``); tees about y and double angles are refused.
+  (``flexure_tee_bar.py``); double angles about x: §F9 (``flexure_double_angle.py``); tees
+  and double angles about y are refused.
 
 ``Lb = None`` on the member means continuous lateral-torsional restraint.
 """
@@ -22,7 +23,9 @@ from __future__ import annotations
 import math
 from typing import Any, Literal
 
+from calcpack.checks.aisc360.flexure_double_angle import double_angle_f9
 from calcpack.checks.aisc360.flexure_tee_bar import BARS, TEES, bar_f11, tee_f9
+from calcpack.checks.aisc360.ltb_f2 import ltb_strength_f2
 from calcpack.checks.aisc360.member_data import SteelMember
 from calcpack.checks.base import Recorder
 from calcpack.errors import OutOfScopeError
@@ -57,12 +60,14 @@ def flexure_strength(c: Recorder, m: SteelMember, axis: Axis) -> Any:
         return _angle_f10(c, m, Fy, E, root)
     if t in TEES and axis == "x":
         return tee_f9(c, m, Fy, E, root)
+    if t == "2L" and axis == "x":
+        return double_angle_f9(c, m, Fy, E, root)
     if t in BARS:
         return bar_f11(c, m, Fy, E, axis)
     raise OutOfScopeError(
         f"Flexure of {m.shape.designation} ({t}) about {axis} is not covered: AISC 360-16 "
-        "§F10 bending of angles about other axes and bending of tees about their axis of "
-        "symmetry (y) are not implemented"
+        "§F10 bending of angles about other axes and bending of tees and double angles about "
+        "their axis of symmetry (y) are not implemented"
     )
 
 
@@ -168,31 +173,8 @@ def _ltb_f2(c: Recorder, m: SteelMember, Fy: Any, E: Any, Mp: Any, Sx: Any, chan
         unit="ft",
         ref="AISC 360-16 Eq. (F2-6)",
     )
-    if c.q(Lb) <= c.q(Lp):
-        c.text("$L_b \\le L_p$: lateral-torsional buckling does not apply (§F2.2(a)).")
-        return Mp
-    if c.q(Lb) <= c.q(Lr):
-        return c.derive(
-            "M_n_LTB",
-            Cb * (Mp - (Mp - 0.7 * Fy * Sx) * ((Lb - Lp) / (Lr - Lp))),
-            "inelastic lateral-torsional buckling",
-            unit="kip*ft",
-            ref="AISC 360-16 Eq. (F2-2)",
-        )
-    Fcr = c.derive(
-        "F_cr",
-        Cb * c.pi**2 * E / (Lb / rts) ** 2 * c.sqrt(1 + 0.078 * jc * (Lb / rts) ** 2),
-        "critical stress, elastic LTB",
-        unit="ksi",
-        ref="AISC 360-16 Eq. (F2-4)",
-    )
-    return c.derive(
-        "M_n_LTB",
-        Fcr * Sx,
-        "elastic lateral-torsional buckling",
-        unit="kip*ft",
-        ref="AISC 360-16 Eq. (F2-3)",
-    )
+    Mltb = ltb_strength_f2(c, Lb=Lb, Lp=Lp, Lr=Lr, Cb=Cb, Mp=Mp, Fy=Fy, E=E, Sx=Sx, rts=rts, jc=jc)
+    return Mp if Mltb is None else Mltb
 
 
 def _minor_f6(c: Recorder, m: SteelMember, Fy: Any, E: Any, root: float) -> Any:

@@ -5,8 +5,7 @@ nominal flexural strength.
   flange local buckling when the flange is in compression (F9.3) and stem local buckling when
   the stem is in compression (F9.4). ``SteelMember.tee_stem`` says whether the stem tip is in
   tension (the flange in compression: a tee standing on its stem under sagging moment) or in
-  compression anywhere along L_b. Double angles (2L) are not in the shipped shape table and
-  are refused.
+  compression anywhere along L_b. Double angles: ``flexure_double_angle.py``.
 * §F11, rectangular bars about either axis and round bars: yielding (F11.1) and, for a
   rectangular bar bent about its major axis, lateral-torsional buckling (F11.2).
 
@@ -20,7 +19,7 @@ from typing import Any
 from calcpack.checks.aisc360.member_data import SteelMember
 from calcpack.checks.base import Recorder
 
-__all__ = ["BARS", "TEES", "bar_f11", "tee_f9"]
+__all__ = ["BARS", "TEES", "bar_f11", "tee_f9", "tee_ltb"]
 
 TEES = ("WT", "MT", "ST")
 BARS = ("BAR", "ROUND BAR")
@@ -57,7 +56,7 @@ def tee_f9(c: Recorder, m: SteelMember, Fy: Any, E: Any, root: float) -> Any:
     if m.Lb is None:
         c.text("Continuous lateral-torsional restraint: lateral-torsional buckling does not apply.")
     else:
-        limits.append(_tee_ltb(c, m, Fy, E, Mp, My, Sx, stem_c))
+        limits.append(tee_ltb(c, m, Fy, E, Mp, My, Sx, stem_c))
     if stem_c:
         limits.append(_stem_local(c, m, Fy, E, Sx, root))
     else:
@@ -73,7 +72,7 @@ def tee_f9(c: Recorder, m: SteelMember, Fy: Any, E: Any, root: float) -> Any:
     )
 
 
-def _tee_ltb(
+def tee_ltb(
     c: Recorder, m: SteelMember, Fy: Any, E: Any, Mp: Any, My: Any, Sx: Any, stem_c: bool
 ) -> Any:
     s = m.shape

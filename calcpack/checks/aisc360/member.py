@@ -41,10 +41,10 @@ def shear_strength(c: Recorder, m: SteelMember, direction: str, method: str) -> 
     E = c.given("E", m.E, "modulus of elasticity", source=E_SOURCE)
     root = math.sqrt(float((m.E / m.Fy).to("").magnitude))
     key = "shear"
-    if t in ("BAR", "ROUND BAR"):
+    if t in ("BAR", "ROUND BAR", "2L"):
         raise OutOfScopeError(
-            f"Shear of the solid bar {s.designation}: AISC 360-16 Chapter G has no clause for "
-            "solid bars and none is implemented; check shear separately"
+            f"Shear of {s.designation}: no AISC 360-16 Chapter G clause for solid bars or double "
+            "angles is implemented here; check shear separately"
         )
     if t in ("HSS round", "PIPE"):
         c.heading("Shear, §G5 (round HSS)", 3)

@@ -25,7 +25,7 @@ from calcpack.checks.en1993.member import check_en1993_member
 from calcpack.errors import InputError
 from calcpack.sections.eurocode_tables import EuroSection
 from calcpack.units import Q_, Quantity, require, si
-from calcpack.validate import one_of
+from calcpack.validate import one_of, within
 
 __all__ = ["check_en1993_beam", "segment_mcr"]
 
@@ -34,14 +34,14 @@ def _segments(L_m: float, restraints: Sequence[Quantity]) -> list[tuple[float, f
     xs = [0.0]
     for i, r in enumerate(restraints):
         x = si(require(r, "[length]", f"restraints[{i}]"))
-        if not 0.0 < x < L_m:
-            raise InputError(
-                f"Restraint restraints[{i}] must lie between the supports, 0 to {L_m:.6g} m "
-                f"(got {r:~P})",
-                name=f"restraints[{i}]",
-                value=r,
-                expected=f"0 < x < {L_m:.6g} m",
-            )
+        within(
+            f"restraints[{i}]",
+            r,
+            Q_(0.0, "m"),
+            Q_(L_m, "m"),
+            inclusive=False,
+            rule="a restraint lies between the supports",
+        )
         xs.append(x)
     xs.append(L_m)
     xs = sorted(set(xs))

@@ -13,7 +13,7 @@ from calcpack.checks.en1993.data import LTBMethod
 from calcpack.errors import InputError
 from calcpack.sections.eurocode_tables import EuroSection
 from calcpack.units import Q_, Quantity, require
-from calcpack.validate import one_of, within
+from calcpack.validate import instance, one_of, within
 
 __all__ = ["DesignForces", "LoadLevel", "SteelMemberEC", "cm_linear"]
 
@@ -45,13 +45,7 @@ class SteelMemberEC:
     CmLT: float = 1.0
 
     def __post_init__(self) -> None:
-        if not isinstance(self.section, EuroSection):
-            raise InputError(
-                f"Input section must come from euro_section(...) (got {self.section!r})",
-                name="section",
-                value=self.section,
-                expected="a EuroSection",
-            )
+        instance("section", self.section, EuroSection, expected="a section from euro_section(...)")
         for n in ("Lcr_y", "Lcr_z"):
             v = getattr(self, n)
             if v is not None:

@@ -27,7 +27,7 @@ from calcpack.checks.en1995.values import (
 )
 from calcpack.errors import InputError
 from calcpack.units import Q_, Quantity, require, si
-from calcpack.validate import one_of
+from calcpack.validate import one_of, required, within
 
 __all__ = ["EN1995", "TimberForcesEC", "TimberMemberEC", "check_en1995_member"]
 
@@ -113,20 +113,18 @@ class TimberForcesEC:
             ("F_c90_Ed", "[force]"),
         ):
             require(getattr(self, n), d, n)
-        if si(self.N_Ed) < 0:
-            raise InputError(
-                f"N_Ed is axial compression (positive); tension members are not covered here "
-                f"(got N_Ed = {self.N_Ed:~P})",
-                name="N_Ed",
-                value=self.N_Ed,
-                expected="N_Ed >= 0",
-            )
-        if si(self.F_c90_Ed) > 0 and self.bearing_length is None:
-            raise InputError(
-                "F_c90_Ed needs the bearing_length along the member",
-                name="bearing_length",
-                value=None,
-                expected="a length",
+        within(
+            "N_Ed",
+            self.N_Ed,
+            lo=Q_(0.0, "kN"),
+            rule="N_Ed is axial compression; tension members are not covered here",
+        )
+        if si(self.F_c90_Ed) > 0:
+            required(
+                "bearing_length",
+                self.bearing_length,
+                expected="the bearing length along the member",
+                when="with F_c90_Ed",
             )
         if self.bearing_length is not None:
             require(self.bearing_length, "[length]", "bearing_length", positive=True)

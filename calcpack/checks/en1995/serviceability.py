@@ -23,7 +23,7 @@ from calcpack.checks.en1995.members import EN1995, TimberMemberEC
 from calcpack.checks.en1995.values import k_def
 from calcpack.errors import InputError, OutOfScopeError
 from calcpack.units import Q_, Quantity, require, si
-from calcpack.validate import positive, within
+from calcpack.validate import one_of, positive, within
 
 __all__ = ["check_en1995_deflection", "check_en1995_floor_vibration"]
 
@@ -62,13 +62,7 @@ def check_en1995_deflection(
         within(f"psi0 of {k!r}", p0, 0.0, 1.0)
         within(f"psi2 of {k!r}", p2, 0.0, 1.0)
     lead = leading or max(w_Q, key=lambda k: si(w_Q[k][0]))
-    if lead not in w_Q:
-        raise InputError(
-            f"Leading case {lead!r} is not in w_Q ({list(w_Q)})",
-            name="leading",
-            value=lead,
-            expected=" / ".join(w_Q),
-        )
+    one_of("leading", lead, list(w_Q))
     kd = k_def(member.grade.product, member.service_class)
 
     def logic(c: Recorder) -> None:

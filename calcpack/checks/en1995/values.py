@@ -22,7 +22,7 @@ from typing import Literal
 from calcpack.errors import InputError
 from calcpack.refdata import read_table
 from calcpack.units import Q_, Quantity
-from calcpack.validate import lookup, one_of
+from calcpack.validate import lookup, one_of, required
 
 __all__ = [
     "DURATIONS",
@@ -107,13 +107,7 @@ def _row(factor: str, product: str, sc: str, table_name: str) -> dict[str, objec
     key = f"{factor}|{product}|{sc}"
     if key not in table.rows:
         products = sorted({str(r["product"]) for r in table.rows.values() if r["factor"] == factor})
-        if product not in products:
-            raise InputError(
-                f"Unknown product {product!r} for {table_name} (known: {products})",
-                name="product",
-                value=product,
-                expected=" / ".join(products),
-            )
+        one_of("product", product, products)
         raise InputError(
             f"{table_name} gives no value for {product} in service class {sc}: the product is "
             f"not covered in that service class (EN 1995-1-1 §2.3.1.3); choose another product "
@@ -177,12 +171,10 @@ def combination_duration(factors: Mapping[str, float], durations: Mapping[str, s
     """
     acting = [case for case, f in factors.items() if f != 0]
     for case in acting:
-        if case not in durations:
-            raise InputError(
-                f"Load case {case!r} of the combination has no load-duration class in "
-                f"durations ({sorted(durations)})",
-                name=f"durations[{case!r}]",
-                value=None,
-                expected=" / ".join(DURATIONS),
-            )
+        required(
+            f"durations[{case!r}]",
+            durations.get(case),
+            expected="its load-duration class, one of " + " / ".join(DURATIONS),
+            when=f"for load case {case!r} of the combination",
+        )
     return shortest_duration(durations[c] for c in acting)

@@ -41,11 +41,10 @@ from typing import Any, Literal
 from calcpack.checks.base import MemberChecks, Recorder, Standard, run_checks
 from calcpack.combinations.en1990 import Psi, en1990_combinations
 from calcpack.combinations.model import CombinationSet
-from calcpack.errors import InputError
 from calcpack.foundations.geometry import GEOTECHNICAL_CAUTION, Footing, FootingLoad
 from calcpack.foundations.stability import FootingCombination, footing_combinations
 from calcpack.units import Q_, Quantity
-from calcpack.validate import dimension, one_of, positive, within
+from calcpack.validate import dimension, one_of, positive, required, within
 
 __all__ = [
     "DA1_FACTORS",
@@ -127,13 +126,9 @@ class SoilStrength:
         if self.gamma_over is not None:
             positive("gamma_over", dimension("gamma_over", self.gamma_over, "[force]/[length]**3"))
         if self.condition == "drained":
-            if self.phi_k is None:
-                raise InputError(
-                    "Input phi_k is required for drained conditions (got phi_k = None)",
-                    name="phi_k",
-                    value=None,
-                    expected="an angle such as 30 degree",
-                )
+            required(
+                "phi_k", self.phi_k, expected="an angle such as 30 degree", when="when drained"
+            )
             within(
                 "phi_k",
                 dimension("phi_k", self.phi_k, "degree"),
@@ -144,13 +139,7 @@ class SoilStrength:
             if self.c_k is not None:
                 positive("c_k", dimension("c_k", self.c_k, "[pressure]"), allow_zero=True)
         else:
-            if self.cu_k is None:
-                raise InputError(
-                    "Input cu_k is required for undrained conditions (got cu_k = None)",
-                    name="cu_k",
-                    value=None,
-                    expected="a pressure such as 60 kPa",
-                )
+            required("cu_k", self.cu_k, expected="a pressure such as 60 kPa", when="when undrained")
             positive("cu_k", dimension("cu_k", self.cu_k, "[pressure]"))
 
 

@@ -30,7 +30,7 @@ from calcpack.checks.nds.factors import _TITLE, DURATION_FACTORS, NDS_EDITION
 from calcpack.errors import InputError, OutOfScopeError
 from calcpack.refdata import read_table
 from calcpack.units import Q_, Quantity, require
-from calcpack.validate import one_of, positive
+from calcpack.validate import one_of, positive, required, whole
 
 __all__ = [
     "ConnectionService",
@@ -124,31 +124,24 @@ class FastenerLayout:
 
     def __post_init__(self) -> None:
         for nm in ("rows", "per_row"):
-            v = getattr(self, nm)
-            if isinstance(v, bool) or not isinstance(v, int) or v < 1:
-                raise InputError(
-                    f"Input {nm} must be a whole number of at least 1 (got {nm} = {v!r})",
-                    name=nm,
-                    value=v,
-                    expected="1, 2, 3...",
-                )
+            whole(nm, getattr(self, nm), lo=1)
         for nm in ("spacing", "row_spacing", "end", "edge", "loaded_edge"):
             v = getattr(self, nm)
             if v is not None:
                 require(v, "[length]", nm, positive=True)
-        if self.per_row > 1 and self.spacing is None:
-            raise InputError(
-                f"Input spacing is needed with {self.per_row} fasteners in a row (got None)",
-                name="spacing",
-                value=None,
+        if self.per_row > 1:
+            required(
+                "spacing",
+                self.spacing,
                 expected="the spacing in a row",
+                when=f"with {self.per_row} fasteners in a row",
             )
-        if self.rows > 1 and self.row_spacing is None:
-            raise InputError(
-                f"Input row_spacing is needed with {self.rows} rows (got None)",
-                name="row_spacing",
-                value=None,
+        if self.rows > 1:
+            required(
+                "row_spacing",
+                self.row_spacing,
                 expected="the spacing between rows",
+                when=f"with {self.rows} rows",
             )
         one_of("end_loading", self.end_loading, ("tension", "compression"))
 
@@ -338,13 +331,14 @@ def check_nds_connection(
             value=sv,
             expected="diaphragm=False and toenail=False",
         )
-    if large and lay.per_row > 1 and stiffness is None:
-        raise InputError(
-            f"Input stiffness (member areas and moduli) is needed for the group action factor "
-            f"C_g of {lay.per_row} fasteners of D = {f.D:~P} in a row (NDS 2018 §11.3.6)",
-            name="stiffness",
-            value=None,
-            expected="GroupStiffness(Am=..., As=..., Em=..., Es=...)",
+    if large and lay.per_row > 1:
+        required(
+            "stiffness",
+            stiffness,
+            expected="GroupStiffness(Am=..., As=..., Em=..., Es=...), the members' areas and "
+            "moduli",
+            when=f"for the group action factor C_g of {lay.per_row} fasteners of D = {f.D:~P} "
+            "in a row (NDS 2018 §11.3.6)",
         )
     wet_key = _cm_key(joint, lay, sv)
     steel_side = isinstance(joint.side, SteelPlate) or isinstance(joint.main, SteelPlate)

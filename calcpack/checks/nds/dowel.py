@@ -30,7 +30,7 @@ from calcpack.checks.base import Recorder
 from calcpack.errors import InputError, OutOfScopeError
 from calcpack.refdata import read_table
 from calcpack.units import Q_, Quantity, require
-from calcpack.validate import lookup, one_of, within
+from calcpack.validate import lookup, one_of, required, within
 
 __all__ = [
     "DowelJoint",
@@ -172,13 +172,13 @@ class WoodMember:
             Q_(90.0, "degree"),
             rule="θ is measured from the grain, 0° to 90°",
         )
-        if self.G is None and self.species is None:
-            raise InputError(
-                "Wood member: give species (NDS 2018 Table 12.3.3A) or G with its source "
-                "(got neither)",
-                name="species",
-                value=None,
-                expected="e.g. 'Douglas Fir-Larch'",
+        if self.G is None:
+            required(
+                "species",
+                self.species,
+                expected="a species of NDS 2018 Table 12.3.3A (e.g. 'Douglas Fir-Larch'), or G "
+                "with its source",
+                when="for a wood member without G",
             )
         if self.G is None:
             assert self.species is not None
@@ -309,14 +309,8 @@ class DowelJoint:
         if f.kind == "bolt":
             need = self.side.thickness * (2 if self.shear == "double" else 1)
             need = need + self.main.thickness
-            if f.length is not None and f.length < need:
-                raise InputError(
-                    f"Bolt length L must reach through all members (got L = {f.length:~P}, "
-                    f"members total {need:~P})",
-                    name="length",
-                    value=f.length,
-                    expected=f"at least {need:~P}",
-                )
+            if f.length is not None:
+                within("length", f.length, lo=need, rule="the bolt must reach through all members")
             return
         if self.shear == "double":
             raise OutOfScopeError(
@@ -350,12 +344,11 @@ class DowelJoint:
             if f.tip is not None:
                 p = p - f.tip
         else:
-            raise InputError(
-                f"Fastener {f.designation}: give its length or the penetration into the main "
-                "member",
-                name="penetration",
-                value=None,
-                expected="a length",
+            p = required(
+                "penetration",
+                self.penetration,
+                expected="the penetration into the main member, or the fastener's length",
+                when=f"for fastener {f.designation}",
             )
         return p if p <= self.main.thickness else self.main.thickness
 

@@ -10,7 +10,7 @@ from typing import Literal
 from calcpack.checks.scope import material_in_scope
 from calcpack.errors import InputError, OutOfScopeError
 from calcpack.units import Q_, Quantity, require, si
-from calcpack.validate import one_of
+from calcpack.validate import non_empty, one_of, required, whole
 
 __all__ = [
     "DEFAULT_DURATIONS",
@@ -64,15 +64,7 @@ _CFU_WIDE = (1.2, 1.1)  # 10" and wider
 
 
 def _nominal(value: object, name: str) -> int:
-    if isinstance(value, bool) or not isinstance(value, int) or not 2 <= value <= 24:
-        raise InputError(
-            f"Nominal size {name} must be a whole number of inches from 2 to 24 (got "
-            f"{name} = {value!r})",
-            name=name,
-            value=value,
-            expected="2, 3, 4, 6, 8, 10, 12...",
-        )
-    return value
+    return whole(name, value, 2, 24)  # nominal inches
 
 
 def size_factor(grade: str, nominal_thickness: int, nominal_width: int) -> float:
@@ -129,10 +121,7 @@ def wet_service_factor(prop: str, *, wet: bool, Fb_CF: Quantity | None = None) -
     if not wet:
         return 1.0
     if prop == "Fb":
-        if Fb_CF is None:
-            raise InputError(
-                "C_M for F_b needs F_b·C_F", name="Fb_CF", value=None, expected="a stress"
-            )
+        Fb_CF = required("Fb_CF", Fb_CF, expected="a stress", when="for C_M of F_b")
         return 1.0 if float(Fb_CF.to("psi").magnitude) <= 1150.0 else 0.85
     table = {"Fv": 0.97, "E": 0.9, "Emin": 0.9, "Fc_perp": 0.67}
     return table[prop]
@@ -172,6 +161,7 @@ def beam_stability_factor(Fb_star: Quantity, Emin_prime: Quantity, RB: float) ->
 def effective_length(lu: Quantity, d: Quantity, loading: str) -> tuple[Quantity, str]:
     """ℓ_e from ℓ_u (NDS 2018 Table 3.3.3) for ``loading`` "uniform", "center point",
     "cantilever uniform" or "any"; returns (ℓ_e, the rule used)."""
+    one_of("loading", loading, ("uniform", "center point", "cantilever uniform", "any"))
     r = si(lu) / si(d)
     if loading == "uniform":
         return (2.06 * lu, "2.06ℓu (ℓu/d < 7)") if r < 7 else (1.63 * lu + 3 * d, "1.63ℓu + 3d")
@@ -184,14 +174,7 @@ def effective_length(lu: Quantity, d: Quantity, loading: str) -> tuple[Quantity,
             return 2.06 * lu, "2.06ℓu (ℓu/d < 7)"
         if r <= 14.3:
             return 1.63 * lu + 3 * d, "1.63ℓu + 3d (7 ≤ ℓu/d ≤ 14.3)"
-        return 1.84 * lu, "1.84ℓu (ℓu/d > 14.3)"
-    raise InputError(
-        f"Beam stability loading must be 'uniform', 'center point', 'cantilever uniform' or "
-        f"'any' (got loading = {loading!r})",
-        name="loading",
-        value=loading,
-        expected="uniform / center point / cantilever uniform / any",
-    )
+    return 1.84 * lu, "1.84ℓu (ℓu/d > 14.3)"
 
 
 @dataclass(frozen=True)
@@ -218,24 +201,19 @@ class ReferenceDesignValues:
     size_rule: Literal["Table 4A", "Table 4B"] = "Table 4A"
 
     def __post_init__(self) -> None:
-        if not isinstance(self.source, str) or not self.source.strip():
-            raise InputError(
-                f"Reference design values for {self.species_grade}: the source must be given "
-                f"(got source = {self.source!r})",
-                name="source",
-                value=self.source,
-                expected="e.g. 'NDS Supplement 2018 Table 4A'",
-            )
+        non_empty(
+            "source",
+            self.source,
+            expected=f"the source of the values for {self.species_grade}, e.g. 'NDS Supplement "
+            "2018 Table 4A'",
+        )
         for nm in ("Fb", "Fv", "E", "Emin"):
-            v = getattr(self, nm)
-            if v is None:
-                raise InputError(
-                    f"Reference design value {nm} of {self.species_grade} is missing (got "
-                    f"{nm} = None); take it from {self.source}",
-                    name=nm,
-                    value=None,
-                    expected="a stress",
-                )
+            v = required(
+                nm,
+                getattr(self, nm),
+                expected=f"a stress from {self.source}",
+                when=f"for {self.species_grade}",
+            )
             require(v, "[pressure]", nm, positive=True)
         material_in_scope("NDS 2018|wood|E", "E", self.E)
         material_in_scope("NDS 2018|wood|Emin", "Emin", self.Emin)
@@ -304,6 +282,10 @@ class ServiceConditions:
         compression_edge_braced: compression edge held throughout its length and ends held
             against rotation: C_L = 1.0 (§3.3.3.3). Otherwise give ``lu``.
         lu: laterally unsupported length of the compression edge. loading: for Table 3.3.3.
+        ends_held: the ends are held in position (full-depth blocking, bridging, hangers, post
+            caps, nailing or bolting to other members): with d/b ≤ 4 no other lateral support
+            is needed, C_L = 1.0 by the depth-to-breadth rule of §4.4.1.2(b), wherever the
+            compression edge is (e.g. the bottom edge over an interior support).
         CF, CF_source: a size factor from another table, with its source.
     """
 
@@ -317,25 +299,24 @@ class ServiceConditions:
     loading: str = "any"
     CF: float | None = None
     CF_source: str | None = None
+    ends_held: bool = False
 
     def __post_init__(self) -> None:
         if self.temperature is not None:
             require(self.temperature, "[temperature]", "temperature")
         if self.lu is not None:
             require(self.lu, "[length]", "lu", positive=True)
-        if not self.compression_edge_braced and self.lu is None:
-            raise InputError(
-                "The compression edge is not braced, so the unsupported length lu is needed "
-                "for C_L (got lu = None)",
-                name="lu",
-                value=None,
-                expected="a length",
+        if not self.compression_edge_braced and not self.ends_held:
+            required(
+                "lu",
+                self.lu,
+                expected="the unsupported length of the compression edge (or ends_held = True "
+                "for the depth-to-breadth rule of NDS 2018 §4.4.1.2)",
+                when="for C_L when the compression edge is not braced",
             )
-        if self.CF is not None and not self.CF_source:
-            raise InputError(
-                f"A size factor CF = {self.CF} needs its source (got CF_source = "
-                f"{self.CF_source!r})",
-                name="CF_source",
-                value=self.CF_source,
-                expected="e.g. 'NDS Supplement Table 4D'",
+        if self.CF is not None:
+            non_empty(
+                "CF_source",
+                self.CF_source,
+                expected=f"the source of CF = {self.CF}, e.g. 'NDS Supplement Table 4D'",
             )

@@ -29,7 +29,7 @@ from calcpack.checks.nds.dowel import DowelJoint, Embedment, Fastener, WoodMembe
 from calcpack.checks.nds.factors import _TITLE, DURATION_FACTORS, NDS_EDITION
 from calcpack.errors import InputError, OutOfScopeError
 from calcpack.units import Q_, Quantity, require
-from calcpack.validate import one_of
+from calcpack.validate import non_empty, one_of, required
 
 __all__ = ["DeckLedger", "PrescriptiveSpacing", "check_deck_ledger"]
 
@@ -47,13 +47,11 @@ class PrescriptiveSpacing:
     spacing: Quantity
 
     def __post_init__(self) -> None:
-        if not isinstance(self.table, str) or not self.table.strip():
-            raise InputError(
-                f"The prescriptive table must be cited (got table = {self.table!r})",
-                name="table",
-                value=self.table,
-                expected="e.g. 'IRC 2018 Table R507.9.1.3(1)'",
-            )
+        non_empty(
+            "table",
+            self.table,
+            expected="the prescriptive table cited, e.g. 'IRC 2018 Table R507.9.1.3(1)'",
+        )
         require(self.spacing, "[length]", "spacing", positive=True)
 
 
@@ -107,14 +105,12 @@ class DeckLedger:
                 "a gap needs the method of AWC Technical Report 12, not implemented"
             )
         if isinstance(self.support, WoodMember):
-            if self.support_depth is None:
-                raise InputError(
-                    "Input support_depth (rim board depth) is needed for its edge distances "
-                    "(got None)",
-                    name="support_depth",
-                    value=None,
-                    expected="e.g. 9.25 in.",
-                )
+            required(
+                "support_depth",
+                self.support_depth,
+                expected="the rim board depth, e.g. 9.25 in.",
+                when="for the edge distances in a wood support",
+            )
             require(self.support_depth, "[length]", "support_depth", positive=True)
         if self.top + self.bottom >= self.ledger_depth and self.rows == 2:
             raise InputError(
@@ -171,13 +167,7 @@ def check_deck_ledger(
         )
     if R is not None:
         require(R, "[force]", "R", positive=True)
-        if joist_spacing is None:
-            raise InputError(
-                "Input joist_spacing is needed with the joist reaction R (got None)",
-                name="joist_spacing",
-                value=None,
-                expected="e.g. 16 in.",
-            )
+        required("joist_spacing", joist_spacing, expected="e.g. 16 in.", when="with R")
         require(joist_spacing, "[length]", "joist_spacing", positive=True)
     else:
         require(w, "[force]/[length]", "w", positive=True)

@@ -23,7 +23,7 @@ from calcpack.checks.scope import material_in_scope
 from calcpack.errors import InputError
 from calcpack.refdata import read_table
 from calcpack.units import Q_, Quantity, require
-from calcpack.validate import one_of
+from calcpack.validate import non_empty, one_of
 
 __all__ = [
     "SOUTHERN_PINE",
@@ -62,14 +62,12 @@ class TimberValues:
 
     def __post_init__(self) -> None:
         one_of("product", self.product, ("sawn", "timber", "glulam", "scl"))
-        if not isinstance(self.source, str) or not self.source.strip():
-            raise InputError(
-                f"Timber values {self.name}: the source must be given (got source = "
-                f"{self.source!r}); for SCL, the manufacturer's evaluation report",
-                name="source",
-                value=self.source,
-                expected="e.g. 'ICC-ES ESR-xxxx, Table 2'",
-            )
+        non_empty(
+            "source",
+            self.source,
+            expected=f"the source of timber values {self.name} (for SCL, the manufacturer's "
+            "evaluation report), e.g. 'ICC-ES ESR-xxxx, Table 2'",
+        )
         for nm in ("Fb", "Ft", "Fv", "Fc_perp", "Fc", "E", "Emin"):
             require(getattr(self, nm), "[pressure]", nm, positive=True)
         material_in_scope("NDS 2018|wood|E", "E", self.E)

@@ -29,7 +29,7 @@ from calcpack.checks.nds.factors import _TITLE, DURATION_FACTORS, NDS_EDITION
 from calcpack.checks.nds.values import TimberValues
 from calcpack.errors import InputError, OutOfScopeError
 from calcpack.units import Q_, Quantity, require
-from calcpack.validate import positive, within
+from calcpack.validate import positive, required, within
 
 __all__ = ["check_nds_combined", "check_nds_tearout", "check_nds_withdrawal", "withdrawal_value"]
 
@@ -229,17 +229,13 @@ def check_nds_tearout(
     for nm, q in (("t", t), ("D", D)):
         require(q, "[length]", nm, positive=True)
     require(P, "[force]", "P", positive=True)
-    if layout.end is None:
-        raise InputError(
-            "Tear-out needs the end distance (got layout.end = None)",
-            name="layout.end",
-            value=None,
-            expected="the end distance of the fasteners",
-        )
+    end = required(
+        "layout.end", layout.end, expected="the end distance of the fasteners", when="for tear-out"
+    )
     sv = service or ConnectionService()
     dh = hole if hole is not None else D + Q_(1 / 16, "inch")
     require(dh, "[length]", "hole", positive=True)
-    s_crit_q = layout.end if layout.per_row == 1 else min(layout.end, layout.spacing or layout.end)
+    s_crit_q = end if layout.per_row == 1 else min(end, layout.spacing or end)
 
     def logic(c: Recorder) -> None:
         c.heading("Row and group tear-out (NDS 2018 Appendix E)", 3)

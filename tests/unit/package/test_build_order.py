@@ -56,6 +56,13 @@ def test_an_import_naming_its_sheet_by_an_expression_is_refused(tmp_path: Path) 
         scan_imports(root / "sheets" / "b.ipynb", sheet="b")
 
 
+def test_an_import_of_values_by_case_is_found_before_execution(tmp_path: Path) -> None:
+    root = write_linked_project(
+        tmp_path, {"b": 'N = s.import_by_case("a", "N", dimension="[force]")'}, ["b"]
+    )
+    assert scan_imports(root / "sheets" / "b.ipynb", sheet="b") == ("a",)
+
+
 def test_a_sheet_removed_while_others_import_from_it_is_named(tmp_path: Path) -> None:
     root = write_linked_project(
         tmp_path, {"a": _given("P", 1.0), "b": _sum("Q", [("a", "P")], 0.0)}, ["b"]

@@ -94,3 +94,30 @@ def test_a_caution_is_said_once_with_the_sheets_it_applies_to(tmp_path: Path) ->
     assert "Site caution of the project. (sheet" not in text
     assert text.count("Dry service.") == 1
     assert "Dry service. (sheets 1, 2)" in text
+
+
+def test_summary_links_each_check_to_its_own_place() -> None:
+    from calcpack.package.sheetdoc import anchor_checks
+
+    body = (
+        '<div class="cp-step cp-given">b</div>'
+        '<div class="cp-step cp-check" data-name="Bending">ok</div>'
+        '<div class="cp-step cp-check">not covered</div>'
+    )
+    anchored, anchors = anchor_checks(body, "sheets/02.ipynb", 2)
+    assert len(anchors) == 2
+    for anchor in anchors:
+        assert anchor.startswith("chk-")
+        assert anchored.count(f'id="{anchor}"') == 1
+    # anchors differ between sheets, and the body's checks must match the records one to one
+    assert set(anchor_checks(body, "sheets/03.ipynb", 2)[1]).isdisjoint(anchors)
+    assert anchor_checks(body, "sheets/02.ipynb", 3) == (body, ())
+
+    records = SheetRecords(checks=(_check("Bending", 0.5, "OK"), _check("Shear", 0.2, "OK")))
+    doc = dataclasses.replace(_doc("1", "sheets/02.ipynb", records), check_anchors=anchors)
+    project = load_project(LINTEL_DEMO)
+    html = _summary(project, [doc])
+    row = next(r for r in html.split("<tr>") if "Shear" in r)
+    assert f'data-cp-in="sheet-1" href="#{anchors[1]}"' in row
+    unanchored = _summary(project, [_doc("1", "sheets/02.ipynb", records)])
+    assert 'href="#sheet-1"' in unanchored

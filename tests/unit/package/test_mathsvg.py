@@ -9,10 +9,12 @@ import xml.etree.ElementTree as ET
 import pytest
 
 from calcpack.errors import BuildError
+from calcpack.package.mathcache import MathCache
 from calcpack.package.mathsvg import (
     fix_tex,
     markdown_math_to_spans,
     math_spans_to_images,
+    process_cache,
     tex_to_svg,
 )
 
@@ -52,17 +54,29 @@ def test_cache_returns_the_same_image() -> None:
     assert tex_to_svg(r"M_{max}", display=True) is not tex_to_svg(r"M_{max}")
 
 
+def test_a_cache_passed_in_keeps_its_own_formulas_and_the_keys_used() -> None:
+    """A build's formula cache is its own object: it starts empty, counts what it typesets as
+    used, and the process's cache is left alone."""
+    math = MathCache()
+    tex = r"M_{own} = \frac{w L^{2}}{8}"
+    image = tex_to_svg(tex, display=True, cache=math)
+    assert math.images == {(tex, True, 13.5): image}
+    assert math.used == {(tex, True, 13.5)}
+    assert (tex, True, 13.5) not in process_cache().images
+    assert tex_to_svg(tex, display=True, cache=math) is image
+    again = MathCache()
+    again.add_images(math.image_entries())
+    assert again.images == math.images  # the saved form carries the whole image
+
+
 def test_root_in_denominator_clears_the_fraction_bar() -> None:
     # The root's box must include its rule, so the fraction grows by the clearance; compared
     # with the same formula typeset by ziamath as it ships (the defect).
     import ziamath
     from ziamath.tex import tex2mml
 
-    from calcpack.package.mathsvg import _cache
-
     tex = r"\frac{1}{\sqrt{2 g h}}"
-    fixed = tex_to_svg(tex, display=True, size_px=28.0)
-    _cache.clear()
+    fixed = tex_to_svg(tex, display=True, size_px=28.0, cache=MathCache())
     import ziamath.nodes.mroot as mroot
 
     patched = mroot.Mroot._setup
@@ -108,7 +122,7 @@ def test_unknown_command_names_the_formula() -> None:
         tex_to_svg(r"\notacommand{x}")
 
 
-def test_spans_become_images_with_tex_alt_text() -> None:
+def test_spans_become_images_with_plain_text_alt_text() -> None:
     html = (
         '<div class="cp-step"><span class="cp-math cp-math-display">\\[a &lt; \\frac{b}{c}\\]'
         '</span> and <span class="cp-math cp-math-inline">\\(x_{1}\\)</span></div>'
@@ -116,7 +130,7 @@ def test_spans_become_images_with_tex_alt_text() -> None:
     out = math_spans_to_images(html)
     assert "\\frac" not in re.sub(r'alt="[^"]*"', "", out)
     alts = re.findall(r'alt="([^"]*)"', out)
-    assert alts == ["a &lt; \\frac{b}{c}", "x_{1}"]
+    assert alts == ["a &lt; b/c", "x1"]  # the formula's words (package/mathtext.py)
     uris = re.findall(r'src="data:image/svg\+xml;base64,([^"]+)"', out)
     assert len(uris) == 2
     assert base64.b64decode(uris[0]).startswith(b"<svg")

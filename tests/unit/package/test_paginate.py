@@ -230,3 +230,52 @@ def test_bodies_filled_in_per_chunk_give_the_same_pdf() -> None:
 
     assert build(stubbed, fill=fill) == build()
     assert set(filled) == {1, 2, 3, 4}
+
+
+def _with_check_link(counts: dict[str, int]) -> str:
+    """The stand-in with a check on the last page of sheet 2 and the summary linking to it
+    (the summary of checks' page column: the check's own page, not its sheet's first)."""
+    html = stand_in(counts)
+    html = html.replace("<p class=\"more\">page 3</p>", '<p class="more">page 3</p>'
+                        '<div id="chk-s2-1">Check: bending</div>')  # fmt: skip
+    css = 'a.ref::after { content: "on page " target-counter(attr(href), page); }'
+    html = html.replace("</style>", css + "</style>", 1)
+    return html.replace(
+        "<h1>Summary</h1>",
+        '<h1>Summary</h1><p>Bending <a class="ref" data-cp-in="sheet-2" href="#chk-s2-1"></a></p>',
+    )
+
+
+@pytest.mark.parametrize("chunked", [False, True], ids=["one chunk", "chunk per sheet"])
+def test_a_link_to_a_check_shows_the_check_s_own_page(
+    chunked: bool, monkeypatch: pytest.MonkeyPatch
+) -> None:
+    if chunked:
+        monkeypatch.setattr(pg, "CHUNK_HTML_CHARS", 1)
+    passes: list[bool] = []
+    original = pg._one_pass
+
+    def recording(*args: object, **kwargs: object) -> object:
+        result = original(*args, **kwargs)  # type: ignore[arg-type]
+        passes.append(result[0] is not None)
+        return result
+
+    monkeypatch.setattr(pg, "_one_pass", recording)
+    right = {ident: b - a + 1 for ident, (a, b) in expected_pages().items()}
+    reader = PdfReader(io.BytesIO(build(_with_check_link, guess=right)))
+    pages = expected_pages()
+    check_page = pages["sheet-2"][0] + 2  # the third page of sheet 2
+    texts = [" ".join(page.extract_text().split()) for page in reader.pages]
+    assert "Check: bending" in texts[check_page - 1]
+    assert f"Bending on page {check_page}" in texts[pages["summary"][0] - 1]
+    # The counts were right, so a second pass only moved the link's number.
+    assert passes == [True, True]
+
+
+def test_a_link_to_an_anchor_not_laid_out_shows_its_section() -> None:
+    from calcpack.package.html_chunks import number_links
+
+    html = '<a class="cp-pageref" data-cp-in="sheet-2" href="#chk-x-1"></a>'
+    assert 'data-cp-page="5"' in number_links(html, {"sheet-2": 5})
+    assert 'data-cp-page="7"' in number_links(html, {"sheet-2": 5, "chk-x-1": 7})
+    assert "data-cp-page" not in number_links(html, {})

@@ -6,9 +6,9 @@ import json
 import sys
 from pathlib import Path
 
-from calcpack.package import mathsvg
 from calcpack.package.execute import process_pool
-from calcpack.package.mathsvg import MATH_MAX_WIDTH_PX, _SharedFormulas, known_keys
+from calcpack.package.mathcache import MathCache, SharedFormulas
+from calcpack.package.mathsvg import MATH_MAX_WIDTH_PX
 
 SHARED = [
     r"M = \frac{w L^{2}}{8} = \frac{2.5\ \mathrm{kN/m} \cdot (4.2\ \mathrm{m})^{2}}{8}",
@@ -24,22 +24,17 @@ def _typeset_in_worker(folder: str) -> tuple[list[str], int, bool]:
 
     Then, as after a sheet, the images are dropped from memory, and asked for again: they must
     be read back from the shared files, the same, not typeset again."""
-    from calcpack.package.mathsvg import (
-        fitted_image,
-        forget_shared_images,
-        known_keys,
-        share_formulas,
-        tex_to_svg,
-    )
+    from calcpack.package.mathsvg import fitted_image, tex_to_svg
 
-    taken = share_formulas(Path(folder))
-    svgs = [tex_to_svg(tex, display=True).svg for tex in SHARED]
-    svgs.append(fitted_image(WIDE, True).svg)
+    math = MathCache()
+    taken = math.share(Path(folder))
+    svgs = [tex_to_svg(tex, display=True, cache=math).svg for tex in SHARED]
+    svgs.append(fitted_image(WIDE, True, cache=math).svg)
     loaded = "ziamath" in sys.modules
-    assert forget_shared_images() >= len(SHARED)
-    assert not any(key[0] in SHARED for key in known_keys())
-    again = [tex_to_svg(tex, display=True).svg for tex in SHARED]
-    again.append(fitted_image(WIDE, True).svg)
+    assert math.forget_shared_images() >= len(SHARED)
+    assert not any(key[0] in SHARED for key in math.images)
+    again = [tex_to_svg(tex, display=True, cache=math).svg for tex in SHARED]
+    again.append(fitted_image(WIDE, True, cache=math).svg)
     assert again == svgs
     assert ("ziamath" in sys.modules) == loaded  # read back, not typeset
     return svgs, len(taken), loaded
@@ -63,7 +58,8 @@ def test_second_worker_takes_what_the_first_typeset(tmp_path: Path) -> None:
 
 def test_a_line_still_being_written_waits_for_the_next_read(tmp_path: Path) -> None:
     folder = tmp_path / "formulas"
-    shared = _SharedFormulas(folder)
+    math = MathCache()
+    shared = SharedFormulas(folder, math)
     other = folder / "999999.jsonl"
     key = ("q_{partial} = 1", True, 13.5)
     line = json.dumps(["f", *key, "<svg/>", 10.0, 5.0, 1.0]) + "\n"
@@ -74,10 +70,10 @@ def test_a_line_still_being_written_waits_for_the_next_read(tmp_path: Path) -> N
         handle.write(json.dumps(["b", WIDE + " x", MATH_MAX_WIDTH_PX, "broken"]) + "\n")
         handle.write("not json\n")
     shared.take()
-    assert key not in known_keys()  # only indexed: the image is read when it is wanted
-    assert (WIDE + " x", MATH_MAX_WIDTH_PX) in mathsvg._breaks  # line breaks are taken at once
+    assert key not in math.images  # only indexed: the image is read when it is wanted
+    assert (WIDE + " x", MATH_MAX_WIDTH_PX) in math.breaks  # line breaks are taken at once
     image = shared.get(key)
     assert image is not None
     assert image.svg == "<svg/>"
-    assert key in known_keys()
+    assert key in math.images
     assert key in shared.taken

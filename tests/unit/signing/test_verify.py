@@ -238,3 +238,35 @@ def test_reproduce_compares_every_recorded_result(
 def test_reproduce_needs_the_project(signed_package: Path, demo: Any) -> None:
     with pytest.raises(InputError, match="--project DIR"):
         verify_package(signed_package, [demo.root], reproduce=True)
+
+
+def test_signing_reproduces_only_with_a_reproducer_passed_in(tmp_path: Path, demo: Any) -> None:
+    """Signing never imports the build: reproducing needs the reproducer as an argument."""
+    pdf = tmp_path / "p.pdf"
+    pdf.write_bytes(b"%PDF-1.7\n")
+    with pytest.raises(InputError) as info:
+        verify_package(pdf, [demo.root], project=tmp_path, reproduce=True)
+    assert info.value.name == "reproducer"
+    assert "calcpack.verify_package" in str(info.value)
+
+
+def test_the_public_verify_passes_the_builds_reproducer(
+    tmp_path: Path, demo: Any, base_package: Path, monkeypatch: pytest.MonkeyPatch
+) -> None:
+    import calcpack
+    from calcpack.package import reproduce
+
+    project, pdf = _project_with_files(tmp_path, demo, base_package)
+    recorded = verify_package(pdf, [demo.root]).manifest
+    asked: list[Path] = []
+
+    def build_reproducer(folder: Path) -> dict[str, Any]:
+        asked.append(Path(folder))
+        return recorded
+
+    monkeypatch.setattr(reproduce, "reproduce_manifest", build_reproducer)
+    assert calcpack.verify_package is reproduce.verify_package
+    report = calcpack.verify_package(pdf, [demo.root], project=project, reproduce=True)
+    assert report.ok, report.text()
+    assert report.reproduction == ()
+    assert asked == [project]

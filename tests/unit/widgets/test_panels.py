@@ -76,13 +76,21 @@ def test_beam_panel_refuses_invalid_edit_without_writing(beam_file: Path) -> Non
     assert beam_file.read_text(encoding="utf-8") == before
 
 
-def test_beam_panel_unstable_supports_shown_as_error(beam_file: Path) -> None:
+def test_beam_panel_refuses_unstable_supports_and_keeps_the_last_solvable_beam(
+    beam_file: Path,
+) -> None:
     panel = BeamPanel(beam_file)
     for i in (1, 2, 3):  # one roller left: the beam is a mechanism
         panel.set(f"beam.supports[{i}]", "free")
-    assert panel.outcome is None
-    assert all(d.value == "" for d in panel.drawings)
     assert "unstable" in panel.status.value.lower() or "mechanism" in panel.status.value.lower()
+    assert "Not saved" in panel.status.value
+    # the edit that made a mechanism is not written; what is shown is what the file solves to
+    on_file = load_inputs(beam_file)["beam"]["supports"]
+    assert on_file.count("free") < 3
+    assert panel.outcome is not None
+    again = evaluate_beam(beam_inputs(load_inputs(beam_file)))
+    assert panel.outcome.bending_utilisation == again.bending_utilisation
+    assert all(d.value.count('class="cp-diagram"') == 1 for d in panel.drawings)
 
 
 def test_beam_panel_adds_and_removes_spans(beam_file: Path) -> None:

@@ -196,3 +196,61 @@ def test_exports_records_and_check_export(project, monkeypatch):
         s.export(c)
     with pytest.raises(InputError, match="a name only with one"):
         s.export(M, M, name="x")
+
+
+def test_many_values_by_case_cross_in_one_table_each_a_link(project, monkeypatch):
+    """A truss sheet exports every member force case by case; the next sheet takes them all in
+    one call, each at full precision and recorded as its own link, shown as one table."""
+    from calcpack.analysis.truss_model import JointLoad, Truss
+    from calcpack.analysis.truss_solve import solve_truss_cases
+
+    m, kN = ureg.m, ureg.kN
+    truss = Truss.build(
+        nodes={"A": (0 * m, 0 * m), "B": (2 * m, 1.5 * m), "C": (4 * m, 0 * m)},
+        members=[("A", "B"), ("B", "C"), ("A", "C")],
+        supports={"A": "pin", "C": "roller"},
+        loads=[JointLoad("B", Fy=-10 * kN, case="D"), JointLoad("B", Fx=3 * kN, case="W up")],
+    )
+    cases = solve_truss_cases(truss)
+    monkeypatch.setenv(SHEET_ENV, "sheets/01_loads.ipynb")
+    up = Sheet("Truss", auto_display=False)
+    shown = up.export_by_case({c: r.forces for c, r in cases.items()}, name="N")
+    monkeypatch.delenv(SHEET_ENV)
+    assert "W up" in shown.text()
+    assert "AB" in shown.text()
+    s = Sheet("Members", auto_display=False)
+    forces = s.import_by_case("01_loads", "N", dimension="[force]")
+    assert list(forces) == ["D", "W up"]
+    for case, r in cases.items():
+        for member, f in r.forces.items():
+            assert forces[case][member].to("N").magnitude == f.to("N").magnitude
+    links = s.records()["imports"]
+    assert len(links) == 6
+    assert {(x["from_name"], x["case"]) for x in links} == {
+        (f"N_{mb}", c) for c in ("D", "W up") for mb in ("AB", "BC", "AC")
+    }
+    assert {x["to_name"] for x in links} == {
+        f"N_{mb}_{c}" for c in ("D", "W_up") for mb in ("AB", "BC", "AC")
+    }
+    with pytest.raises(InputError, match="exports nothing by load case under 'M'"):
+        s.import_by_case("01_loads", "M")
+    with pytest.raises(DimensionError, match="N_AB"):
+        s.import_by_case("01_loads", "N", dimension="[length]")
+
+
+def test_cases_named_in_words_import_as_symbols(project, monkeypatch):
+    """Snow and wind cases carry names in words ("S unbalanced from L"); their imports take
+    symbol names made of the same words."""
+    monkeypatch.setenv(SHEET_ENV, "sheets/01_loads.ipynb")
+    up = Sheet("Truss", auto_display=False)
+    for case, kN in (("D", 2.0), ("S unbalanced from L", 1.5), ("W +GCpi", 0.5), ("W -GCpi", -1)):
+        up.export(kN * ureg.kN, name="R_heel", case=case)
+    monkeypatch.delenv(SHEET_ENV)
+    s = Sheet("Heel", auto_display=False)
+    got = s.import_cases("01_loads", "R_heel", dimension="[force]")
+    assert got["S unbalanced from L"].name == "R_heel_S_unbalanced_from_L"
+    assert got["S unbalanced from L"].quantity.to("kN").magnitude == 1.5
+    assert got["D"].name == "R_heel_D"
+    # internal pressure of either sign: two cases, two symbols
+    assert got["W +GCpi"].name == "R_heel_W_plus_GCpi"
+    assert got["W -GCpi"].name == "R_heel_W_minus_GCpi"

@@ -1,0 +1,133 @@
+"""One unit per kind of quantity on a sheet, for every kind, and one formatter for what it shows.
+
+Unit conversions are pint's (the reference library); the families of units (spans in m or ft,
+dimensions and deflections in mm or in, area loads in kPa or psf, stresses in MPa, psi or ksi,
+moduli in GPa) are common practice.
+"""
+
+from __future__ import annotations
+
+import pytest
+from hypothesis import given
+from hypothesis import strategies as st
+
+from calcpack.units import quantity_kind, ureg
+from calcpack.working import Derived, Sheet
+from calcpack.working.format import format_cell
+
+
+def _sheet(**kw: object) -> Sheet:
+    return Sheet("units", auto_display=False, **kw)  # type: ignore[arg-type]
+
+
+def test_stresses_follow_the_first_stress_and_moduli_keep_their_own() -> None:
+    s = _sheet(system="US")
+    F_b = s.given("F_b", 900 * ureg.psi, "reference bending value")
+    E = s.given("E", 1.6e6 * ureg.psi, "modulus of elasticity")
+    f_v = s.given("f_v", 0.12 * ureg.ksi, "shear stress")  # entered in ksi, shown in psi
+    assert f_v.result_text() == "120 psi"
+    f_b = s.derive("f_b", F_b * 0.5)  # names no unit: the sheet's stress unit
+    assert f_b.display_unit == ureg.psi
+    assert E.result_text() == "1.60×10⁶ psi"
+    si = _sheet(system="SI")
+    si.given("E", 11 * ureg.GPa)
+    strength = si.given("f_m", 24 * ureg.MPa)  # a stress, not a modulus: stays in MPa
+    assert strength.result_text() == "24.0 MPa"
+    # a modulus entered in a stress unit is of the stress kind
+    assert si.given("E_2", 11000 * ureg.MPa).result_text() == "11\u2009000 MPa"
+
+
+def test_lengths_keep_spans_apart_from_dimensions_and_deflections() -> None:
+    s = _sheet(system="SI")
+    s.given("L", 3.2 * ureg.m, "span")
+    s.given("d", 360 * ureg.mm, "depth")
+    L_2 = s.given("L_2", 12 * ureg.ft, "second span, from an imperial drawing")
+    assert L_2.result_text() == "3.66 m"
+    delta = s.given("delta", 0.5 * ureg.inch, "measured sag")
+    assert delta.result_text() == "12.7 mm"
+    lim = s.derive("delta_lim", s["L"] / 360, unit="mm")
+    assert lim.result_text() == "8.89 mm"
+
+
+def test_area_loads_keep_apart_from_stresses() -> None:
+    s = _sheet(system="US")
+    s.given("q_D", 15 * ureg.psf)
+    s.given("F_c", 1350 * ureg.psi)
+    q_L = s.given("q_L", 0.04 * ureg.ksf)  # a bearing-pressure unit: an area load
+    assert q_L.result_text() == "40.0 psf"
+    assert s.given("q_S", 1.2 * ureg.kPa).result_text() == "25.1 psf"
+
+
+def test_areas_and_moduli_of_sections_in_one_unit() -> None:
+    s = _sheet(system="US")
+    s.given("A", 13.875 * ureg.inch**2)
+    assert s.given("A_2", 0.1 * ureg.ft**2).result_text() == "0.100 ft²"  # a plan area
+    s.given("S", 21.4 * ureg.inch**3)
+    assert s.given("S_2", 350 * ureg.cm**3).result_text() == "21.4 in³"
+    s.given("I", 98.9 * ureg.inch**4)
+    assert s.given("I_2", 4.1e7 * ureg.mm**4).result_text() == "98.5 in⁴"
+
+
+def test_sheet_units_declare_any_kind_up_front() -> None:
+    s = _sheet(system="US", units=["psi", "inch", "ft"])
+    assert s.given("F_y", 50 * ureg.ksi).result_text() == "50\u2009000 psi"
+    assert s.given("b", 38 * ureg.mm).result_text() == "1.50 in"
+    assert s.given("L", 3 * ureg.m).result_text() == "9.84 ft"
+    assert s.derive("F_half", s["F_y"] / 2).display_unit == ureg.psi
+
+
+def test_a_table_shows_its_quantities_and_counts_the_sheet_way() -> None:
+    s = _sheet(system="SI")
+    s.given("L", 3.2 * ureg.m)
+    s.given("x_0", 1200 * ureg.mm)
+    table = s.table(
+        ["Load", "x", "a", "w"], [[1, 3.6 * ureg.m, 0.36 * ureg.m, 1.5 * ureg.kN / ureg.m]]
+    )
+    cells = [c.strip() for c in table.text().splitlines()[-1].split("|")]
+    # a load's number is a whole number; a position in m is a span's kind (m), 0.36 m too
+    assert cells == ["1", "3.60 m", "0.360 m", "1.50 kN/m"]
+    mm_table = s.table(["x"], [[360 * ureg.mm]])
+    assert mm_table.text().splitlines()[-1].strip() == "360 mm"
+
+
+def test_formatter_is_one_for_every_kind_of_cell() -> None:
+    assert format_cell(3) == "3"
+    assert format_cell(-2) == "−2"
+    assert format_cell(7.800000000000001) == "7.80"
+    assert format_cell(None) == ""
+    assert format_cell(7.800000000000001 * ureg.m, 3) == "7.80 m"
+    s = _sheet(system="US")
+    s.given("P", 3.2 * ureg.kip)
+    assert format_cell(480 * ureg.lbf, 3, s.settings) == "0.480 kip"
+
+
+def test_numbers_and_temperatures_have_no_kind() -> None:
+    assert quantity_kind(ureg.Unit("degree")) == ""
+    assert quantity_kind(ureg.Unit("degF")) == ""
+    assert quantity_kind(ureg.Unit("kip")) == quantity_kind(ureg.Unit("kN"))
+    assert quantity_kind(ureg.Unit("psi")) != quantity_kind(ureg.Unit("psf"))
+    assert quantity_kind(ureg.Unit("GPa")) != quantity_kind(ureg.Unit("MPa"))
+
+
+_UNITS = ["m", "ft", "mm", "inch", "psf", "kPa", "psi", "MPa", "ksi", "kN", "kip", "lbf",
+          "kN*m", "kip*ft", "plf", "kN/m", "mm**4", "inch**4"]  # fmt: skip
+
+
+@given(
+    first=st.sampled_from(_UNITS),
+    later=st.sampled_from(_UNITS),
+    value=st.floats(min_value=1e-3, max_value=1e6),
+)
+def test_a_value_shown_in_the_sheet_unit_is_the_value_entered(
+    first: str, later: str, value: float
+) -> None:
+    # Property: settling a unit changes only how a value is shown, never the value itself;
+    # and a value of the first value's kind is shown in that value's unit.
+    s = _sheet(system="SI")
+    s.given("a", 1.0 * ureg(first))
+    entered = value * ureg(later)
+    shown = s.given("b", entered)
+    assert shown.display_quantity.to(entered.units).magnitude == pytest.approx(value, rel=1e-12)
+    if quantity_kind(ureg.Unit(first)) == quantity_kind(ureg.Unit(later)):
+        assert shown.display_unit == ureg.Unit(first)
+    assert isinstance(s.derive("c", shown * 2), Derived)
