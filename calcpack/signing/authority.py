@@ -27,10 +27,10 @@ from calcpack.errors import InputError, SigningError
 from calcpack.signing.keys import (
     DEFAULT_VALIDITY_DAYS,
     KeyFiles,
-    _build_certificate,
     _name,
-    _new_key,
+    _new_certificate,
     _pem,
+    _refuse_existing,
     _slug,
     _validity,
     _write_new,
@@ -113,24 +113,15 @@ def new_authority(
     out = Path(directory)
     key_path = out / f"{_slug(firm)}-authority.p12"
     paths = AuthorityFiles(key_path, key_path.with_suffix(".crt"), crl_path(key_path))
-    for existing in (paths.key, paths.certificate, paths.crl):
-        if existing.exists() and not overwrite:
-            raise SigningError(
-                f"Authority file {str(existing)!r} exists already; choose another folder, or "
-                "give --force to replace it (every key it issued then stops verifying)"
-            )
-    key = _new_key()
-    subject = _name(f"{firm.strip()} Signing Authority", firm=firm.strip(), role=None, email=None)
-    cert = _build_certificate(
-        subject=subject,
-        issuer=subject,
-        public_key=key.public_key(),
-        issuer_key=key,
-        issuer_public_key=key.public_key(),
-        not_before=start,
-        not_after=end,
-        ca=True,
+    _refuse_existing(
+        (paths.key, paths.certificate, paths.crl),
+        "Authority file",
+        "choose another folder, or give --force to replace it (every key it issued then "
+        "stops verifying)",
+        overwrite=overwrite,
     )
+    subject = _name(f"{firm.strip()} Signing Authority", firm=firm.strip(), role=None, email=None)
+    key, cert = _new_certificate(subject, not_before=start, not_after=end, ca=True)
     _write_p12(paths.key, name=f"{firm} authority", key=key, cert=cert, cas=(), password=password)
     _write_new(paths.certificate, _pem(cert))
     _write_crl(paths.crl, key, cert, [], start, start + dt.timedelta(days=CRL_DAYS))
@@ -212,19 +203,16 @@ def issue_key(
     firm = firm or (str(orgs[0].value) if orgs else None)
     out = Path(directory)
     key_path, cert_path = out / f"{_slug(name)}.p12", out / f"{_slug(name)}.crt"
-    for existing in (key_path, cert_path):
-        if existing.exists() and not overwrite:
-            raise SigningError(
-                f"Key file {str(existing)!r} exists already; choose another name or folder, "
-                "or give --force to replace it"
-            )
-    key = _new_key()
-    cert = _build_certificate(
-        subject=_name(name.strip(), firm=firm, role=role, email=email),
+    _refuse_existing(
+        (key_path, cert_path),
+        "Key file",
+        "choose another name or folder, or give --force to replace it",
+        overwrite=overwrite,
+    )
+    key, cert = _new_certificate(
+        _name(name.strip(), firm=firm, role=role, email=email),
         issuer=ca_cert.subject,
-        public_key=key.public_key(),
         issuer_key=ca_key,
-        issuer_public_key=ca_key.public_key(),
         not_before=start,
         not_after=end,
         ca=False,

@@ -163,6 +163,41 @@ def _new_key() -> Any:
     return rsa.generate_private_key(public_exponent=65537, key_size=_RSA_BITS)
 
 
+def _new_certificate(
+    subject: Any,
+    *,
+    not_before: dt.datetime,
+    not_after: dt.datetime,
+    ca: bool,
+    issuer: Any = None,
+    issuer_key: Any = None,
+    crl_url: str | None = None,
+) -> tuple[Any, Any]:
+    """A new key and its certificate for ``subject``, issued by ``issuer`` (a name) with
+    ``issuer_key``, or self-signed when no issuer is given."""
+    key = _new_key()
+    signer = key if issuer_key is None else issuer_key
+    cert = _build_certificate(
+        subject=subject,
+        issuer=subject if issuer is None else issuer,
+        public_key=key.public_key(),
+        issuer_key=signer,
+        issuer_public_key=signer.public_key(),
+        not_before=not_before,
+        not_after=not_after,
+        ca=ca,
+        crl_url=crl_url,
+    )
+    return key, cert
+
+
+def _refuse_existing(paths: Iterable[Path], what: str, advice: str, *, overwrite: bool) -> None:
+    """Refuse to write over a key, certificate or list that exists, unless ``overwrite``."""
+    for existing in paths:
+        if existing.exists() and not overwrite:
+            raise SigningError(f"{what} {str(existing)!r} exists already; {advice}")
+
+
 def _build_certificate(
     *,
     subject: Any,
@@ -295,25 +330,15 @@ def new_self_signed(
     out = Path(directory)
     key_path = out / f"{_slug(name)}.p12"
     cert_path = out / f"{_slug(name)}.crt"
-    for existing in (key_path, cert_path):
-        if existing.exists() and not overwrite:
-            raise SigningError(
-                f"Key file {str(existing)!r} exists already; choose another name or folder, "
-                "or give --force to replace it (signatures made with the old key then cannot "
-                "be matched to a key file)"
-            )
-    key = _new_key()
-    subject = _name(name.strip(), firm=firm, role=role, email=email)
-    cert = _build_certificate(
-        subject=subject,
-        issuer=subject,
-        public_key=key.public_key(),
-        issuer_key=key,
-        issuer_public_key=key.public_key(),
-        not_before=start,
-        not_after=end,
-        ca=False,
+    _refuse_existing(
+        (key_path, cert_path),
+        "Key file",
+        "choose another name or folder, or give --force to replace it (signatures made with "
+        "the old key then cannot be matched to a key file)",
+        overwrite=overwrite,
     )
+    subject = _name(name.strip(), firm=firm, role=role, email=email)
+    key, cert = _new_certificate(subject, not_before=start, not_after=end, ca=False)
     _write_p12(key_path, name=name, key=key, cert=cert, cas=(), password=password)
     _write_new(cert_path, _pem(cert))
     return KeyFiles(key=key_path, certificate=cert_path)
@@ -346,29 +371,18 @@ def make_demo_credentials(
     password = password or secrets.token_urlsafe(18)
     start, end = _validity(days, None)
     out = Path(directory)
-    root_key = _new_key()
     root_name = _name(f"{firm} Demo Root", firm=firm, role=None, email=None)
-    root = _build_certificate(
-        subject=root_name,
-        issuer=root_name,
-        public_key=root_key.public_key(),
-        issuer_key=root_key,
-        issuer_public_key=root_key.public_key(),
-        not_before=start,
-        not_after=end + dt.timedelta(days=1),
-        ca=True,
+    root_key, root = _new_certificate(
+        root_name, not_before=start, not_after=end + dt.timedelta(days=1), ca=True
     )
     root_path = out / "demo-root.crt"
     _write_new(root_path, root.public_bytes(Encoding.PEM))
     keys: dict[str, Path] = {}
     for role in ROLES:
-        key = _new_key()
-        cert = _build_certificate(
-            subject=_name(names[role], firm=firm, role=role, email=None),
+        key, cert = _new_certificate(
+            _name(names[role], firm=firm, role=role, email=None),
             issuer=root_name,
-            public_key=key.public_key(),
             issuer_key=root_key,
-            issuer_public_key=root_key.public_key(),
             not_before=start,
             not_after=end,
             ca=False,

@@ -8,6 +8,7 @@ the sheet's ``add``, ``settings``, ``_names`` and ``_exports``.
 from __future__ import annotations
 
 import os
+import re
 import warnings
 from pathlib import Path
 from typing import TYPE_CHECKING, Any
@@ -22,6 +23,13 @@ if TYPE_CHECKING:
     pass
 
 __all__ = ["SheetLinks"]
+
+
+def _case_tag(case: str) -> str:
+    """A load case's name as part of a symbol: "S unbalanced from L" -> "S_unbalanced_from_L",
+    "W case A +GCpi" -> "W_case_A_plus_GCpi" (signs spelt out, so "+GCpi" and "-GCpi" differ)."""
+    words = case.replace("+", " plus ").replace("-", " minus ").replace("−", " minus ")
+    return re.sub(r"[^A-Za-z0-9]+", "_", words).strip("_") or "case"
 
 
 class SheetLinks:
@@ -206,7 +214,9 @@ class SheetLinks:
             )
         base = as_name or name
         return {
-            c: self.import_value(sheet, name, dimension=dimension, case=c, as_name=f"{base}_{c}")
+            c: self.import_value(
+                sheet, name, dimension=dimension, case=c, as_name=f"{base}_{_case_tag(c)}"
+            )
             for c in cases
         }
 
@@ -267,8 +277,6 @@ class SheetLinks:
             InputError: no such sheet, or it exports nothing by case under ``name``.
             DimensionError: a value not of ``dimension``.
         """
-        import re
-
         from calcpack.errors import DimensionError, InputError
         from calcpack.units import require
         from calcpack.working.linked import ImportedTable
@@ -290,11 +298,15 @@ class SheetLinks:
                 expected="values exported with export_by_case",
             )
         steps, rows = [], []
+        taken: set[str] = set()
         out: dict[str, dict[str, pint.Quantity]] = {}
         for e in found:
             row, case = e["name"][len(prefix) :], str(e["case"])
-            tag = re.sub(r"[^A-Za-z0-9]+", "_", case).strip("_") or "case"
-            st = Imported(f"{e['name']}_{tag}", e, ref, settings=self.settings)
+            local = f"{e['name']}_{_case_tag(case)}"
+            while local in taken:  # two case names that differ only in punctuation
+                local += "_"
+            taken.add(local)
+            st = Imported(local, e, ref, settings=self.settings)
             if dimension is not None:
                 try:
                     require(st.quantity, dimension, st.name)
@@ -329,6 +341,10 @@ class SheetLinks:
         from calcpack.loads.takedown import reactions_by_case
 
         by_case = reactions_by_case(results, support)
+        # in the sheet's units (lbf or kip on a US sheet), not the solver's SI
+        unit = self.settings.unit_for(next(iter(by_case.values()))) if by_case else None
+        if unit is not None:
+            by_case = {c: q.to(unit) for c, q in by_case.items()}
         on = f" on {member}" if member else ""
         entries = [
             export_entry(

@@ -38,6 +38,21 @@ def _build(name: str, base: Path) -> Built:
     return Built(name, project, Path(signoff.pdf), signoff.root, load_manifest(signoff.pdf), pages)
 
 
+class _OnFirstUse(dict[str, Built]):
+    """Each job is built the first time a test asks for it, so ``-k`` on one job builds only
+    that job."""
+
+    def __init__(self, base: Path) -> None:
+        super().__init__()
+        self.base = base
+
+    def __missing__(self, name: str) -> Built:
+        if name not in PROJECTS:
+            raise KeyError(name)
+        self[name] = _build(name, self.base)
+        return self[name]
+
+
 def build_examples(base: Path) -> dict[str, Built]:
-    """Build, sign and read every example job under ``base``."""
-    return {name: _build(name, base) for name in PROJECTS}
+    """The example jobs under ``base``, each built, signed and read on first use."""
+    return _OnFirstUse(base)

@@ -112,6 +112,44 @@ def test_beam_stability_factor_unbraced_2x12_closed_form():
     assert mc["Bending"].capacity.to("psi").magnitude == pytest.approx(900 * CL, rel=RT)
 
 
+def _report(checks):
+    from calcpack.working import Sheet
+
+    s = Sheet("check", auto_display=False)
+    checks.add_to(s)
+    return s.text_report()
+
+
+def test_depth_to_breadth_rule_gives_C_L_of_one_only_within_its_limits():
+    """NDS 2018 §4.4.1.2 (from memory): (b) d/b up to 4 needs only the ends held in position
+    for C_L = 1.0; beyond 4 the compression edge must be held (or C_L found from ℓ_u). A 4x10
+    (3.5 x 9.25 in, d/b = 2.64) over a post, ends held by post caps: C_L = 1.0 even where the
+    bottom edge is in compression; a 2x10 (d/b = 6.2) with only its ends held is refused."""
+    ft = ureg.ft
+    beam = Beam(length=8 * ft, supports=[Pin(0 * ft), Roller(8 * ft)],
+                loads=[UniformLoad_(40.0, 16 * ureg.inch, "L")])  # fmt: skip
+    held = ServiceConditions(compression_edge_braced=False, ends_held=True)
+    mc = check_nds_beam(SawnMember.dimension("4x10"), DFL2, demand=solve_cases(beam)["L"],
+                        conditions=held)  # fmt: skip
+    assert mc.values["C_L"].magnitude == 1.0
+    assert "4.4.1.2(b)" in _report(mc)
+    with pytest.raises(OutOfScopeError, match=r"d/b = 6\.17 exceeds 4"):
+        check_nds_beam(SawnMember.dimension("2x10"), DFL2, demand=solve_cases(beam)["L"],
+                       conditions=held)  # fmt: skip
+
+
+def test_wet_service_C_M_on_F_b_states_why_it_is_one():
+    """NDS Supplement Table 4A footnote: wet C_M = 0.85 on F_b, 1.0 where F_b·C_F ≤ 1150 psi
+    (as published). A 2x8 DF-L No.2: 900 x 1.2 = 1080 psi -> 1.0, and the working says why."""
+    ft = ureg.ft
+    beam = Beam(length=8 * ft, supports=[Pin(0 * ft), Roller(8 * ft)],
+                loads=[UniformLoad_(40.0, 16 * ureg.inch, "L")])  # fmt: skip
+    mc = check_nds_beam(SawnMember.dimension("2x8"), DFL2, demand=solve_cases(beam)["L"],
+                        conditions=ServiceConditions(wet=True))  # fmt: skip
+    assert mc.values["C_Mb"].magnitude == 1.0
+    assert "F_b·C_F = 1080 psi ≤ 1150 psi, so C_M = 1.0" in _report(mc)
+
+
 @pytest.mark.parametrize(
     ("duration", "CD"),
     [("permanent", 0.9), ("ten years", 1.0), ("two months", 1.15), ("seven days", 1.25),

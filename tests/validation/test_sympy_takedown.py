@@ -80,6 +80,15 @@ def test_reactions_by_case_become_post_loads_equal_to_sympy(project, monkeypatch
     table = s2.steps[-1].text()
     assert "sheet 1, R_B, case L" in table
     assert "Load takedown onto post P1" in table
+    # the reactions go out in the exporting sheet's units: a US sheet exports pounds
+    monkeypatch.setenv(SHEET_ENV, "sheets/01_joist.ipynb")
+    us = Sheet("Joist J1", auto_display=False, system="US")
+    (entry, *_) = us.export_reactions(solve_cases(joist), "B", name="R_B", member="J1").entries
+    monkeypatch.delenv(SHEET_ENV)
+    assert entry["unit"] in ("lbf", "kip")
+    assert ureg.Quantity(entry["value"], entry["pint_unit"]).to("N").magnitude == pytest.approx(
+        ref_D, rel=1e-12
+    )
 
 
 def test_carried_point_loads_on_a_supporting_beam_match_sympy():

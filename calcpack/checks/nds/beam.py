@@ -137,10 +137,17 @@ class _NDSLogic:
                 ),
             )
         state = "wet service, MC > 19 %" if cond.wet else "dry service, MC ≤ 19 %"
+        fb_cf = float((c.q(Fb) * c.f(CF)).to("psi").magnitude)
+        why = state
+        if cond.wet:
+            # Table 4A footnote: C_M = 0.85 on F_b, but 1.0 where F_b·C_F ≤ 1150 psi
+            why = f"{state}; F_b·C_F = {fb_cf:.0f} psi " + (
+                "≤ 1150 psi, so C_M = 1.0" if fb_cf <= 1150.0 else "> 1150 psi, so C_M = 0.85"
+            )
         CMb = c.given(
             "C_Mb",
             wet_service_factor("Fb", wet=cond.wet, Fb_CF=c.q(Fb) * c.f(CF)),
-            f"wet service factor on F_b ({state})",
+            f"wet service factor on F_b ({why})",
             source="NDS Supplement Table 4A (§4.3.3)",
         )
         CMv = c.given(
@@ -341,8 +348,19 @@ class _NDSLogic:
             CL = c.given(
                 "C_L", 1.0, "beam stability factor: d/b ≤ 2", source="NDS 2018 §4.4.1.2(a)"
             )
+        elif ratio <= 4.0 and cond.ends_held:
+            CL = c.given(
+                "C_L",
+                1.0,
+                f"beam stability factor: d/b = {ratio:.3g} ≤ 4 with the ends held in position",
+                source="NDS 2018 §4.4.1.2(b)",
+            )
         else:
-            assert cond.lu is not None
+            if cond.lu is None:
+                raise OutOfScopeError(
+                    f"C_L: d/b = {ratio:.3g} exceeds 4, so holding the ends in position is not "
+                    "enough lateral support (NDS 2018 §4.4.1.2): give the unsupported length lu"
+                )
             lu = c.given(
                 "l_u", cond.lu, "laterally unsupported length", source="bracing layout", unit="ft"
             )

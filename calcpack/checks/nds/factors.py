@@ -282,6 +282,10 @@ class ServiceConditions:
         compression_edge_braced: compression edge held throughout its length and ends held
             against rotation: C_L = 1.0 (§3.3.3.3). Otherwise give ``lu``.
         lu: laterally unsupported length of the compression edge. loading: for Table 3.3.3.
+        ends_held: the ends are held in position (full-depth blocking, bridging, hangers, post
+            caps, nailing or bolting to other members): with d/b ≤ 4 no other lateral support
+            is needed, C_L = 1.0 by the depth-to-breadth rule of §4.4.1.2(b), wherever the
+            compression edge is (e.g. the bottom edge over an interior support).
         CF, CF_source: a size factor from another table, with its source.
     """
 
@@ -295,17 +299,19 @@ class ServiceConditions:
     loading: str = "any"
     CF: float | None = None
     CF_source: str | None = None
+    ends_held: bool = False
 
     def __post_init__(self) -> None:
         if self.temperature is not None:
             require(self.temperature, "[temperature]", "temperature")
         if self.lu is not None:
             require(self.lu, "[length]", "lu", positive=True)
-        if not self.compression_edge_braced:
+        if not self.compression_edge_braced and not self.ends_held:
             required(
                 "lu",
                 self.lu,
-                expected="the unsupported length of the compression edge",
+                expected="the unsupported length of the compression edge (or ends_held = True "
+                "for the depth-to-breadth rule of NDS 2018 §4.4.1.2)",
                 when="for C_L when the compression edge is not braced",
             )
         if self.CF is not None:

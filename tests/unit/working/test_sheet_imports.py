@@ -236,3 +236,21 @@ def test_many_values_by_case_cross_in_one_table_each_a_link(project, monkeypatch
         s.import_by_case("01_loads", "M")
     with pytest.raises(DimensionError, match="N_AB"):
         s.import_by_case("01_loads", "N", dimension="[length]")
+
+
+def test_cases_named_in_words_import_as_symbols(project, monkeypatch):
+    """Snow and wind cases carry names in words ("S unbalanced from L"); their imports take
+    symbol names made of the same words."""
+    monkeypatch.setenv(SHEET_ENV, "sheets/01_loads.ipynb")
+    up = Sheet("Truss", auto_display=False)
+    for case, kN in (("D", 2.0), ("S unbalanced from L", 1.5), ("W +GCpi", 0.5), ("W -GCpi", -1)):
+        up.export(kN * ureg.kN, name="R_heel", case=case)
+    monkeypatch.delenv(SHEET_ENV)
+    s = Sheet("Heel", auto_display=False)
+    got = s.import_cases("01_loads", "R_heel", dimension="[force]")
+    assert got["S unbalanced from L"].name == "R_heel_S_unbalanced_from_L"
+    assert got["S unbalanced from L"].quantity.to("kN").magnitude == 1.5
+    assert got["D"].name == "R_heel_D"
+    # internal pressure of either sign: two cases, two symbols
+    assert got["W +GCpi"].name == "R_heel_W_plus_GCpi"
+    assert got["W -GCpi"].name == "R_heel_W_minus_GCpi"
