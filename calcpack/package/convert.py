@@ -14,6 +14,7 @@ is the rendered output.
 from __future__ import annotations
 
 import base64
+import html
 import os
 import re
 from functools import cache
@@ -62,6 +63,19 @@ def _cp_svg_uri(svg: str | list[str]) -> str:
     return "data:image/svg+xml;base64," + base64.b64encode(text.encode()).decode()
 
 
+_CREATOR_RE = re.compile(r"<dc:creator>.*?</dc:creator>", re.DOTALL)
+_SVG_TITLE_RE = re.compile(r"<(?:dc:)?title>(.*?)</(?:dc:)?title>", re.DOTALL)
+
+
+def _cp_svg_alt(svg: str | list[str]) -> str:
+    """Alternative text of an SVG shown as a bare image: its title (a ``<title>`` element or
+    the ``dc:title`` of its metadata, not its creator's), else "figure"."""
+    text = _CREATOR_RE.sub("", "".join(svg) if isinstance(svg, list) else svg)
+    m = _SVG_TITLE_RE.search(text[:20000])
+    title = html.unescape(m.group(1)).strip() if m else ""
+    return title or "figure"
+
+
 class CalcpackHTMLExporter(HTMLExporter):  # type: ignore[misc]
     """One sheet notebook as HTML with calcpack's layout; code input hidden by default."""
 
@@ -87,6 +101,7 @@ class CalcpackHTMLExporter(HTMLExporter):  # type: ignore[misc]
         yield from super().default_filters()
         yield ("cp_markdown", _cp_markdown)
         yield ("cp_svg_uri", _cp_svg_uri)
+        yield ("cp_svg_alt", _cp_svg_alt)
 
     def from_notebook_node(
         self, nb: Any, resources: dict[str, Any] | None = None, **kw: Any

@@ -18,8 +18,9 @@ operators (:mod:`calcpack.package.mathbreak`, breaks cached with the formulas), 
 still does not fit is scaled to the column, so no formula is drawn past the margin.
 
 Each image is embedded as a ``data:`` URI ``<img>`` (WeasyPrint lays these out several times
-faster than inline ``<svg>``), its alternative text is the TeX source, and identical formulas
-reuse one cached image.
+faster than inline ``<svg>``), and identical formulas reuse one cached image. The formula's
+plain text (:mod:`calcpack.package.mathtext`) is its alternative text and, as invisible text
+laid over the image, its part of the PDF's text layer (searchable, copyable).
 """
 
 from __future__ import annotations
@@ -33,6 +34,7 @@ from typing import Any
 from calcpack.errors import BuildError
 from calcpack.package.mathbreak import break_display, flatten_delimiters
 from calcpack.package.mathcache import MATH_PX_PER_EM, MathCache, MathImage
+from calcpack.package.mathtext import tex_to_text, text_layer_html
 
 __all__ = [
     "MATH_MAX_WIDTH_PX",
@@ -277,14 +279,15 @@ def _img(tex: str, display: bool, cache: MathCache | None) -> str:
         f"vertical-align:{-image.baseline_px * scale:.2f}px"
     )
     kind = "cp-math-display" if display else "cp-math-inline"
-    return (
-        f'<img class="cp-math-img {kind}" alt="{html.escape(tex, quote=True)}" '
+    words = tex_to_text(tex)
+    return text_layer_html(words, image.width_px * scale) + (
+        f'<img class="cp-math-img {kind}" alt="{html.escape(words, quote=True)}" '
         f'style="{style}" src="{image.data_uri()}">'
     )
 
 
 def math_spans_to_images(markup: str, cache: MathCache | None = None) -> str:
-    """Replace every calcpack math span in HTML by its SVG image (alt text = the TeX).
+    """Replace every calcpack math span in HTML by its SVG image and invisible plain text.
 
     ``cache`` keeps the typeset formulas (default: :func:`process_cache`).
 

@@ -202,8 +202,12 @@ def section_figure(
 
 
 def _figure_svg(fig: Any) -> str:
+    """The figure as SVG, titled for its alternative text in the PDF (the SVG's ``dc:title``)
+    and without a creation date (the same sketch gives the same bytes)."""
     buffer = io.StringIO()
-    fig.savefig(buffer, format="svg")
+    heading = fig.axes[0].get_title() if fig.axes else ""
+    title = f"Sketch of the cross-section {heading}".replace("  (", " (").strip()
+    fig.savefig(buffer, format="svg", metadata={"Title": title, "Date": None})
     return buffer.getvalue()
 
 

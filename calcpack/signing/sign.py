@@ -362,6 +362,7 @@ def sign_package(
     from pyhanko.sign import fields, signers
     from pyhanko.sign.general import SigningError as LibrarySigningError
 
+    from calcpack.signing.archival import keep_archival_metadata
     from calcpack.signing.fonts import stamp_font
 
     check_role(role)
@@ -420,6 +421,8 @@ def sign_package(
             f"{REVIEW_FILE}, but no project (calcpack.toml) was found beside the package; give "
             "the project directory (--project DIR)"
         )
+    # after every reading of the package: the update's root differs from here on
+    keep_archival_metadata(writer)
 
     for r in ROLES:
         if r in boxes and not _has_field(writer, field_name(r)):

@@ -192,6 +192,9 @@ def sqrt(x: Operand) -> Term:
     return Term(sympy.Pow(t.expr, sympy.Rational(1, 2), evaluate=False), t.bindings)
 
 
+pi = Term(sympy.pi, {})
+"""π in a formula: printed as π (π² in the working, never 9.8696), evaluated as ``math.pi``."""
+
 sin = _function("sin", sympy.sin)
 cos = _function("cos", sympy.cos)
 tan = _function("tan", sympy.tan)

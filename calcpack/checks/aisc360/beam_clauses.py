@@ -12,7 +12,7 @@ from typing import TYPE_CHECKING, Any
 
 from calcpack.checks.aisc360.ltb_f2 import ltb_strength_f2
 from calcpack.checks.aisc360.member_data import FACTORS, Factor
-from calcpack.checks.aisc360.shape import IShape
+from calcpack.checks.aisc360.shape import E_SOURCE, IShape
 from calcpack.checks.base import Recorder
 from calcpack.errors import OutOfScopeError
 from calcpack.units import Quantity
@@ -115,7 +115,7 @@ class BeamClauses:
             "E",
             self.E,
             "modulus of elasticity",
-            source="AISC 360-16 §B4 / Table B4.1b (E = 29 000 ksi)",
+            source=E_SOURCE,
             unit="ksi",
         )
         if self._compact(c, s, bf, tf, h_tw, E, Fy):

@@ -19,7 +19,7 @@ from dataclasses import dataclass
 from typing import Any
 
 from calcpack.checks.aisc360.member_data import check_method, design_strength, member_standard
-from calcpack.checks.aisc360.shape import E_STEEL
+from calcpack.checks.aisc360.shape import E_SOURCE, E_STEEL
 from calcpack.checks.base import MemberChecks, Recorder, run_checks
 from calcpack.checks.scope import material_in_scope
 from calcpack.errors import OutOfScopeError
@@ -70,8 +70,12 @@ def check_aisc_web_bearing(
     method: str = "LRFD",
     mark: str = "B1",
     E: Quantity = E_STEEL,
+    material: str = "",
 ) -> MemberChecks:
     """Web local yielding, crippling and sidesway buckling of a rolled I-shape (§J10.2-§J10.4).
+
+    ``material``: the steel's material standard and grade (``"ASTM A992"``), shown as the
+    source of F_y.
 
     Raises:
         OutOfScopeError: not a rolled I-shape.
@@ -91,8 +95,8 @@ def check_aisc_web_bearing(
 
     def logic(c: Recorder) -> None:
         c.assume("Web without stiffeners or doubler plates at the force; Q_f = 1 (not an HSS).")
-        Fy_ = c.given("F_y", Fy, "yield stress", source="given")
-        E_ = c.given("E", E, "modulus of elasticity", source="AISC 360-16 §B")
+        Fy_ = c.given("F_y", Fy, "yield stress", source=material or "given")
+        E_ = c.given("E", E, "modulus of elasticity", source=E_SOURCE)
         d = c.given("d", s["d"], "depth", source=s.source)
         tw = c.given("t_w", s["tw"], "web thickness", source=s.source)
         tf = c.given("t_f", s["tf"], "flange thickness", source=s.source)

@@ -19,7 +19,7 @@ from dataclasses import dataclass
 from typing import Literal
 
 from calcpack.checks.aisc360.member_data import FACTORS, Method, check_method, member_standard
-from calcpack.checks.aisc360.shape import E_STEEL
+from calcpack.checks.aisc360.shape import E_SOURCE, E_STEEL
 from calcpack.checks.base import MemberChecks, Recorder, run_checks
 from calcpack.checks.scope import material_in_scope
 from calcpack.errors import InputError, OutOfScopeError
@@ -128,7 +128,7 @@ def check_aisc_torsional_bracing(
     def logic(c: Recorder) -> None:
         c.heading(f"Torsional bracing of a beam, {b.kind} (Appendix 6.3.2)", 3)
         c.assume("Doubly symmetric I-shape: I_yeff = I_y (AISC 360-16 Eq. A-6-13 with t = c).")
-        E = c.given("E", b.E, "modulus of elasticity", source="AISC 360-16 §B")
+        E = c.given("E", b.E, "modulus of elasticity", source=E_SOURCE)
         Iy = c.given("I_yeff", s["Iy"], "effective moment of inertia about y", source=s.source)
         tw = c.given("t_w", s["tw"], "web thickness", source=s.source)
         ho = c.given("h_o", s["ho"], "distance between flange centroids", source=s.source)

@@ -20,6 +20,7 @@ from calcpack.checks.aisc360.member_data import (
     design_strength,
     member_standard,
 )
+from calcpack.checks.aisc360.shape import E_SOURCE
 from calcpack.checks.base import MemberChecks, Recorder, run_checks
 from calcpack.errors import OutOfScopeError
 from calcpack.units import Q_, Quantity, require
@@ -37,7 +38,7 @@ def shear_strength(c: Recorder, m: SteelMember, direction: str, method: str) -> 
     """The available shear strength along ``direction`` ("y": in the web; "x": in the flanges)."""
     s, t = m.shape, m.shape.type
     Fy = c.given("F_y", m.Fy, "yield stress", source=m.grade or "given")
-    E = c.given("E", m.E, "modulus of elasticity", source="AISC 360-16 §B")
+    E = c.given("E", m.E, "modulus of elasticity", source=E_SOURCE)
     root = math.sqrt(float((m.E / m.Fy).to("").magnitude))
     key = "shear"
     if t in ("BAR", "ROUND BAR", "2L"):

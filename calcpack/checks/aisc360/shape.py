@@ -9,11 +9,14 @@ from calcpack.errors import InputError, OutOfScopeError
 from calcpack.units import Q_, Quantity, require, si
 from calcpack.validate import instance, non_empty, positive, within
 
-__all__ = ["AISC360_EDITION", "E_STEEL", "IShape"]
+__all__ = ["AISC360_EDITION", "E_SOURCE", "E_STEEL", "IShape"]
 
 AISC360_EDITION = "ANSI/AISC 360-16"
 _TITLE = "Specification for Structural Steel Buildings"
 E_STEEL = Q_(29000.0, "ksi")  # modulus of elasticity of steel, AISC 360-16 (E = 29 000 ksi)
+# Where the Specification defines E: its list of symbols, "E  Modulus of elasticity of steel =
+# 29,000 ksi (200 000 MPa)" (from memory; confirm against the printed Specification).
+E_SOURCE = "AISC 360-16, Symbols: E of steel = 29 000 ksi (200 000 MPa)"
 
 
 H_TW_TOLERANCE = 0.02

@@ -46,16 +46,28 @@ SVG = (
 FIGURE = f'<img src="{SVG}" alt="Elevation of lintel L1 with the 2.5 kN/m load.">'
 
 
+CHECKER_BOX = (
+    '<div id="cp-sign-preparer"></div>'
+    '<div id="cp-sign-checker" style="height: 20mm; border: 1px solid black"></div>'
+)
+
+
 def tagged_stand_in(counts: dict[str, int]) -> str:
-    """The stand-in package with a language, and a table and figure in sheet 3."""
+    """The stand-in package with a language, a heading "Results" in every sheet and, in sheet 3,
+    a heading "Loads" over a table and a figure."""
     html = stand_in(counts).replace("<html>", '<html lang="en">', 1)
-    return html.replace("<h1>Sheet 3</h1>", f"<h1>Sheet 3</h1>{TABLE}{FIGURE}", 1)
+    html = html.replace("<h1>Sheet 3</h1>", f"<h1>Sheet 3</h1><h2>Loads</h2>{TABLE}{FIGURE}", 1)
+    html = html.replace('<div id="cp-sign-preparer"></div>', CHECKER_BOX, 1)
+    return html.replace("<p>page 1</p>", "<p>page 1</p><h2>Results</h2>")
 
 
 def joined(manifest: dict[str, Any] | None = None) -> bytes:
     """The stand-in laid out one sheet per chunk and joined (with a manifest if given)."""
     layout = paginate(
-        tagged_stand_in, sheet_ids=SHEET_IDS, section_ids=SECTION_IDS, roles=("preparer",)
+        tagged_stand_in,
+        sheet_ids=SHEET_IDS,
+        section_ids=SECTION_IDS,
+        roles=("preparer", "checker"),
     )
     attachments = []
     if manifest is not None:
@@ -73,7 +85,7 @@ def package() -> Iterator[bytes]:
 
     with pytest.MonkeyPatch.context() as mp:
         mp.setattr(pg, "CHUNK_HTML_CHARS", 1)
-        yield joined(make_manifest(roles=("preparer",)))
+        yield joined(make_manifest(roles=("preparer", "checker")))
 
 
 def poppler_structure(pdf: bytes, tmp_path: Path) -> list[str]:
@@ -189,6 +201,11 @@ def archival_problems(pdf: bytes, tmp_path: Path) -> list[str]:
         problems.append("no PDF/A output intent with a profile")
     if "/ID" not in reader.trailer:
         problems.append("no file identifier")
+    # document information and XMP agree (ISO 19005-3 §6.6.2.3.1), the producer for one
+    producer = re.search(r'pdf:Producer="([^"]*)"|<pdf:Producer>([^<]*)<', xmp)
+    info = reader.metadata or {}
+    if producer is None or (producer[1] or producer[2]) != info.get("/Producer"):
+        problems.append(f"producer differs: {info.get('/Producer')!r} against the XMP's")
     path = tmp_path / "archive.pdf"
     path.write_bytes(pdf)
     fonts = subprocess.run(["pdffonts", str(path)], capture_output=True, text=True, check=True)
@@ -210,12 +227,17 @@ def test_joined_package_is_identified_as_pdf_a_3b(package: bytes, tmp_path: Path
 def test_signing_keeps_tags_and_archival_identification(package: bytes, tmp_path: Path) -> None:
     from calcpack.signing.keys import make_demo_credentials
     from calcpack.signing.sign import sign_package
+    from calcpack.signing.verify import verify_package
 
     unsigned = package
-    path = tmp_path / "package.pdf"
+    (tmp_path / "signed").mkdir()
+    path = tmp_path / "signed" / "package.pdf"
     path.write_bytes(unsigned)
     demo = make_demo_credentials(tmp_path / "keys")
     sign_package(path, "preparer", demo.keys["preparer"], demo.password)
+    assert archival_problems(path.read_bytes(), tmp_path) == []
+    # the second signature reads the package before pyHanko writes its metadata
+    sign_package(path, "checker", demo.keys["checker"], demo.password)
     signed = path.read_bytes()
     assert signed.startswith(unsigned)  # an incremental update: nothing rewritten
     assert headings(poppler_structure(signed, tmp_path)) == headings(
@@ -223,3 +245,29 @@ def test_signing_keeps_tags_and_archival_identification(package: bytes, tmp_path
     )
     assert structure_summary(signed)["types"] == structure_summary(unsigned)["types"]
     assert archival_problems(signed, tmp_path) == []
+    # the carried metadata is an allowed change: both signatures still verify
+    report = verify_package(path, [demo.root])
+    assert report.ok, report
+
+
+def test_bookmarks_nest_sections_under_their_sheet_across_chunks(package: bytes) -> None:
+    reader = PdfReader(io.BytesIO(package))
+    outline = reader.outline
+    tops = [item.title for item in outline if not isinstance(item, list)]
+    assert tops == ["Cover", "Contents", *[f"Sheet {i}" for i in range(1, 5)], "Summary"]
+    nested = {
+        outline[i - 1].title: [item.title for item in outline[i]]
+        for i in range(1, len(outline))
+        if isinstance(outline[i], list)
+    }
+    assert nested == {
+        "Sheet 1": ["Results"],
+        "Sheet 2": ["Results"],
+        "Sheet 3": ["Loads", "Results"],
+        "Sheet 4": ["Results"],
+    }
+    for i in range(1, len(outline)):
+        if isinstance(outline[i], list):
+            sheet = reader.get_destination_page_number(outline[i - 1])
+            pages = [reader.get_destination_page_number(item) for item in outline[i]]
+            assert all(sheet <= p < sheet + 3 for p in pages)  # within its sheet
