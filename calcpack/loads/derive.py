@@ -78,7 +78,12 @@ class LoadStandard:
     @property
     def caution(self) -> str:
         ann = f" with {self.annex}" if self.annex else ""
-        return f"Derived to {self.code}{ann}, {self.title}. " + " ".join(LOAD_CAUTIONS)
+        text = " ".join(LOAD_CAUTIONS)
+        if not self.code.startswith("EN"):  # national annexes are a Eurocode matter
+            text = text.replace(
+                "(and national annex or local amendments)", "(and local amendments)"
+            )
+        return f"Derived to {self.code}{ann}, {self.title}. " + text
 
 
 Logic = Callable[[Recorder], None]
