@@ -120,7 +120,8 @@ class Imported(Given):
         entry: the exporting sheet's export record (see :func:`export_entry`).
         sheet: the exporting sheet.
         description: words for the checker (default: the exporting sheet's).
-        unit: display unit here (default: the exporting sheet's).
+        unit: display unit here (default: this sheet's unit for the kind of quantity, else its
+            preset's; the value itself is imported at full precision whatever the unit shown).
 
     Attributes:
         link: the package link target of the exporting sheet (``"#sheet-2"``).
@@ -139,6 +140,10 @@ class Imported(Given):
         settings: DisplaySettings | None = None,
     ) -> None:
         quantity = ureg.Quantity(entry["value"], entry["pint_unit"])
+        if unit is None and settings is not None:
+            # shown in this sheet's unit for its kind (or its preset's), never in whatever unit
+            # the exporting analysis computed it in: a kN reaction on a US sheet reads in kip
+            unit = settings.kind_unit(quantity) or settings.preset.unit_for(quantity)
         case = entry.get("case")
         source = f"sheet {sheet.number}, {entry['name']}" + (f", case {case}" if case else "")
         super().__init__(

@@ -254,3 +254,21 @@ def test_cases_named_in_words_import_as_symbols(project, monkeypatch):
     # internal pressure of either sign: two cases, two symbols
     assert got["W +GCpi"].name == "R_heel_W_plus_GCpi"
     assert got["W -GCpi"].name == "R_heel_W_minus_GCpi"
+
+
+def test_imports_show_in_the_importing_sheets_units(project, monkeypatch):
+    """Reactions an analysis computed in kN, imported on a US sheet, read in kip (the sheet's
+    preset), and the sheet's force unit stays kip for the checks that follow."""
+    monkeypatch.setenv(SHEET_ENV, "sheets/01_loads.ipynb")
+    up = Sheet("Beam", auto_display=False)
+    up.export_by_case({"D": {"A": 11.5 * ureg.kN}, "L": {"A": 17.8 * ureg.kN}}, name="R")
+    monkeypatch.delenv(SHEET_ENV)
+    s = Sheet("Post", system="US", auto_display=False)
+    got = s.import_by_case("01_loads", "R", dimension="[force]")
+    assert got["D"]["A"].to("kN").magnitude == pytest.approx(11.5, rel=1e-12)
+    table = s.steps[-1]
+    assert all(str(st.display_unit) == "kip" for st in table.steps)
+    assert "2.59 kip" in table.text()  # 11.5 kN = 2.585 kip (1 kip = 4.448222 kN, NIST SP 811)
+    assert "kN" not in table.text()
+    later = s.given("P", 40.0 * ureg.kN, "a force given in kN")
+    assert str(s.settings.kind_unit(later.quantity)) == "kip"
