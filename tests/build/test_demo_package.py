@@ -8,6 +8,7 @@ from __future__ import annotations
 
 import hashlib
 import io
+import itertools
 import json
 import re
 from pathlib import Path
@@ -76,11 +77,24 @@ def test_contents_page_numbers_match_real_pages(
 def test_bookmarks_point_at_the_sections(
     demo_reader: PdfReader, demo_manifest: dict[str, Any]
 ) -> None:
-    marks = {o.title: demo_reader.get_destination_page_number(o) + 1 for o in demo_reader.outline}
+    # the outline nests each sheet's sections under the sheet: a list after its parent
+    outline = demo_reader.outline
+    top = [o for o in outline if not isinstance(o, list)]
+    marks = {o.title: demo_reader.get_destination_page_number(o) + 1 for o in top}
     assert marks["Contents"] == demo_manifest["sections"]["contents"][0]
     for sheet in demo_manifest["sheets"]:
         assert marks[f"Sheet {sheet['number']} — {sheet['title']}"] == sheet["pages"][0]
     assert marks["Summary of checks"] == demo_manifest["sections"]["summary"][0]
+    pages = {f"Sheet {s['number']} — {s['title']}": s["pages"] for s in demo_manifest["sheets"]}
+    nested = 0
+    for parent, child in itertools.pairwise(outline):
+        if isinstance(child, list) and not isinstance(parent, list) and parent.title in pages:
+            first, last = pages[parent.title][0], pages[parent.title][-1]
+            for o in child:
+                if not isinstance(o, list):
+                    nested += 1
+                    assert first <= demo_reader.get_destination_page_number(o) + 1 <= last
+    assert nested > 0  # each sheet's sections are bookmarked under it
 
 
 def test_caution_block_holds_standard_project_and_sheet_cautions(
