@@ -58,6 +58,46 @@ class DeflectionLimit:
     ref: str = "span/limit (usual building-code limit, e.g. IBC Table 1604.3)"
 
 
+def check_service_results(deflections: Sequence[DeflectionLimit], EI_ref: Quantity) -> None:
+    """Refuse deflection limits whose service results are not of the beam the strength results
+    come from (analysed with the same E·I): the search scales deflections by E·I alone.
+
+    Raises:
+        InputError: a span that is not a positive length, or results analysed with another EI.
+    """
+    for d in deflections:
+        require(d.span, "[length]", "span", positive=True)
+        if prismatic_stiffness(as_combinations(d.demand)) != EI_ref:
+            raise InputError(
+                f"The {d.label} deflection results were analysed with a different EI from the "
+                "strength results; analyse both with the same beam",
+                name="deflections",
+                value=d.label,
+                expected="results of the same beam",
+            )
+
+
+def scaled_deflection_checks(
+    deflections: Sequence[DeflectionLimit], factor: float, member: str
+) -> list[MemberChecks]:
+    """The deflection checks of a candidate whose stiffness is ``1/factor`` times that of the
+    analysis (deflections of a prismatic beam on rigid supports scale with 1/(E·I))."""
+    out = []
+    for d in deflections:
+        res = as_combinations(d.demand)
+        out.append(
+            check_deflection(
+                member=member,
+                demand={name: r.scaled(factor) for name, r in res.items()},
+                span=d.span,
+                limit=d.limit,
+                label=d.label,
+                ref=d.ref,
+            )
+        )
+    return out
+
+
 def _nominal_depth(designation: str) -> int:
     body = designation.lstrip("WMSHP")
     return int(body.split("X")[0].split(".")[0])
@@ -172,17 +212,7 @@ def lightest_aisc_beam(
         require(self_weight_assumed, "[force] / [length]", "self_weight_assumed")
     combos = as_combinations(demand)
     EI_ref = prismatic_stiffness(combos)
-    service = [(d, as_combinations(d.demand)) for d in deflections]
-    for d, res in service:
-        require(d.span, "[length]", "span", positive=True)
-        if prismatic_stiffness(res) != EI_ref:
-            raise InputError(
-                f"The {d.label} deflection results were analysed with a different EI from the "
-                "strength results; analyse both with the same beam",
-                name="deflections",
-                value=d.label,
-                expected="results of the same beam",
-            )
+    check_service_results(deflections, EI_ref)
     M_max = max(max_abs(r, "moment")[0] for r in combos.values())
 
     def screen(shape: SteelShape) -> str | None:
@@ -210,18 +240,7 @@ def lightest_aisc_beam(
             )
         ]
         factor = float((EI_ref / (E * shape["Ix"])).to("").magnitude)
-        for d, res in service:
-            scaled = {name: r.scaled(factor) for name, r in res.items()}
-            out.append(
-                check_deflection(
-                    member=member,
-                    demand=scaled,
-                    span=d.span,
-                    limit=d.limit,
-                    label=d.label,
-                    ref=d.ref,
-                )
-            )
+        out += scaled_deflection_checks(deflections, factor, member)
         return out
 
     result = lightest_sections(

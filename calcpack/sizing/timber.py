@@ -15,13 +15,17 @@ from typing import Any
 
 from calcpack.checks.base import MemberChecks
 from calcpack.checks.demand import as_combinations
-from calcpack.checks.elastic import check_deflection
 from calcpack.checks.nds.beam import check_nds_beam
 from calcpack.checks.nds.factors import ReferenceDesignValues, SawnMember, ServiceConditions
 from calcpack.checks.nds.values import nds_sawn_values
 from calcpack.errors import InputError, OutOfScopeError
 from calcpack.sizing.search import Candidate, Order, SizingResult, lightest_sections
-from calcpack.sizing.steel import DeflectionLimit, prismatic_stiffness
+from calcpack.sizing.steel import (
+    DeflectionLimit,
+    check_service_results,
+    prismatic_stiffness,
+    scaled_deflection_checks,
+)
 from calcpack.units import Q_, Quantity, require
 
 __all__ = ["DIMENSION_SIZES", "lightest_nds_beam", "sawn_candidates"]
@@ -98,7 +102,7 @@ def lightest_nds_beam(
     combos = as_combinations(demand)
     EI_ref = prismatic_stiffness(combos)
     share = {name: r.scaled(1.0 / plies) for name, r in combos.items()} if plies > 1 else demand
-    service = [(d, as_combinations(d.demand)) for d in deflections]
+    check_service_results(deflections, EI_ref)
 
     def trial(size: SawnMember) -> list[MemberChecks]:
         out = [
@@ -108,17 +112,7 @@ def lightest_nds_beam(
         ]
         I_size = size.b * size.d**3 / 12 * plies
         factor = float((EI_ref / (E_adj * I_size)).to("").magnitude)
-        for d, res in service:
-            out.append(
-                check_deflection(
-                    member=member,
-                    demand={n: r.scaled(factor) for n, r in res.items()},
-                    span=d.span,
-                    limit=d.limit,
-                    label=d.label,
-                    ref=d.ref,
-                )
-            )
+        out += scaled_deflection_checks(deflections, factor, member)
         return out
 
     return lightest_sections(

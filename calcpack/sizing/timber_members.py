@@ -22,14 +22,18 @@ from typing import Any, Literal
 
 from calcpack.checks.base import MemberChecks
 from calcpack.checks.demand import as_combinations
-from calcpack.checks.elastic import check_deflection
 from calcpack.checks.nds.factors import DURATION_FACTORS, size_factor
 from calcpack.checks.nds.glulam import check_nds_glulam_beam
 from calcpack.checks.nds.members import TimberForces, TimberMember, check_nds_member
 from calcpack.checks.nds.values import nds_glulam_values, nds_sawn_values
 from calcpack.errors import InputError
 from calcpack.sizing.search import Candidate, Order, SizingResult, lightest_sections
-from calcpack.sizing.steel import DeflectionLimit, prismatic_stiffness
+from calcpack.sizing.steel import (
+    DeflectionLimit,
+    check_service_results,
+    prismatic_stiffness,
+    scaled_deflection_checks,
+)
 from calcpack.sizing.timber import DEFAULT_DENSITY
 from calcpack.units import Q_, Quantity, require
 from calcpack.validate import one_of
@@ -117,7 +121,7 @@ def lightest_glulam_beam(
             )
     combos = as_combinations(demand)
     EI_ref = prismatic_stiffness(combos)
-    service = [(d, as_combinations(d.demand)) for d in deflections]
+    check_service_results(deflections, EI_ref)
     cands = []
     for b_in in widths:
         for d_in in depths:
@@ -131,17 +135,7 @@ def lightest_glulam_beam(
     def trial(m: TimberMember) -> list[MemberChecks]:
         out = [check_nds_glulam_beam(m, demand=demand, durations=durations, mark=member)]
         factor = float((EI_ref / (values.E * m.b * m.d**3 / 12)).to("").magnitude)
-        for dl, res in service:
-            out.append(
-                check_deflection(
-                    member=member,
-                    demand={n: r.scaled(factor) for n, r in res.items()},
-                    span=dl.span,
-                    limit=dl.limit,
-                    label=dl.label,
-                    ref=dl.ref,
-                )
-            )
+        out += scaled_deflection_checks(deflections, factor, member)
         return out
 
     return lightest_sections(cands, trial, count=count, order=order, max_depth=max_depth)

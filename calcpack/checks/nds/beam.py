@@ -42,6 +42,27 @@ def _duration_of(case: str, durations: Mapping[str, str]) -> str:
     )
 
 
+def combination_demands(demand: Any, durations: Mapping[str, str]) -> list[dict[str, Any]]:
+    """For each allowable-stress combination of ``demand``: its name, C_D of its shortest-
+    duration load (NDS 2018 §2.3.2) with that case and duration name, the largest |M| [lbf·ft]
+    and |V| [lbf] with their positions, and the beam length ``L``."""
+    combos = as_combinations(
+        demand, kinds=("allowable stress", "user"), method=f"{NDS_EDITION} (ASD)"
+    )
+    items: list[dict[str, Any]] = []
+    for name, r in combos.items():
+        cases = [c for c, f in getattr(r, "cases", ((name, 1.0),)) if f != 0.0]
+        ds = [(DURATION_FACTORS[_duration_of(c, durations)], c) for c in cases]
+        CD, governing_case = max(ds)
+        M, xM = max_abs(r, "moment")
+        V, xV = max_abs(r, "shear")
+        items.append({"combination": name, "CD": CD, "CD_case": governing_case,
+                      "CD_name": _duration_of(governing_case, durations), "M": M.to("lbf*ft"),
+                      "V": V.to("lbf"), "xM": xM, "xV": xV, "result": r,
+                      "L": r.beam.length})  # fmt: skip
+    return items
+
+
 def check_nds_beam(
     member_size: SawnMember,
     reference: ReferenceDesignValues,
@@ -70,20 +91,7 @@ def check_nds_beam(
     """
     cond = conditions or ServiceConditions()
     durs = {**DEFAULT_DURATIONS, **dict(durations or {})}
-    combos = as_combinations(
-        demand, kinds=("allowable stress", "user"), method=f"{NDS_EDITION} (ASD)"
-    )
-    items: list[dict[str, Any]] = []
-    for name, r in combos.items():
-        cases = [c for c, f in getattr(r, "cases", ((name, 1.0),)) if f != 0.0]
-        ds = [(DURATION_FACTORS[_duration_of(c, durs)], c) for c in cases]
-        CD, governing_case = max(ds)
-        M, xM = max_abs(r, "moment")
-        V, xV = max_abs(r, "shear")
-        items.append({"combination": name, "CD": CD, "CD_case": governing_case,
-                      "CD_name": _duration_of(governing_case, durs), "M": M.to("lbf*ft"),
-                      "V": V.to("lbf"),
-                      "xM": xM, "xV": xV})  # fmt: skip
+    items = combination_demands(demand, durs)
     if cond.CF is None:
         _size_factor(reference, member_size)
     logic = _NDSLogic(member_size, reference, cond, items)

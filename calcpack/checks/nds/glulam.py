@@ -21,9 +21,8 @@ from dataclasses import replace
 from typing import Any
 
 from calcpack.checks.base import MemberChecks, Recorder, Standard, run_checks
-from calcpack.checks.demand import as_combinations, max_abs
-from calcpack.checks.nds.beam import _duration_of
-from calcpack.checks.nds.factors import _TITLE, DEFAULT_DURATIONS, DURATION_FACTORS, NDS_EDITION
+from calcpack.checks.nds.beam import combination_demands
+from calcpack.checks.nds.factors import _TITLE, DEFAULT_DURATIONS, NDS_EDITION
 from calcpack.checks.nds.members import TimberMember, _bending
 from calcpack.errors import OutOfScopeError
 from calcpack.units import Q_
@@ -32,27 +31,18 @@ __all__ = ["check_nds_glulam_beam"]
 
 
 def _items(member: TimberMember, demand: Any, durations: Mapping[str, str]) -> list[dict[str, Any]]:
-    combos = as_combinations(
-        demand, kinds=("allowable stress", "user"), method=f"{NDS_EDITION} (ASD)"
-    )
-    items = []
-    for name, r in combos.items():
-        cases = [c for c, f in getattr(r, "cases", ((name, 1.0),)) if f != 0.0]
-        ds = [(DURATION_FACTORS[_duration_of(c, durations)], c) for c in cases]
-        CD, case = max(ds)
-        M, xM = max_abs(r, "moment")
-        V, _xV = max_abs(r, "shear")
-        if float(r.moment(xM).to("lbf*ft").magnitude) < -1e-9 * max(
-            1.0, float(M.to("lbf*ft").magnitude)
+    items = combination_demands(demand, durations)
+    for it in items:
+        M, xM = it["M"], it["xM"]
+        if float(it["result"].moment(xM).to("lbf*ft").magnitude) < -1e-9 * max(
+            1.0, float(M.magnitude)
         ):
             raise OutOfScopeError(
-                f"Glulam beam {member.values.name}: the largest moment of combination {name!r} "
-                f"is negative (hogging, {M.to('lbf*ft'):~.4g} at x = {xM.to('ft'):~.4g}); it "
-                "needs F_bx- of NDS Supplement 2018 Table 5A, which is not covered"
+                f"Glulam beam {member.values.name}: the largest moment of combination "
+                f"{it['combination']!r} is negative (hogging, {M:~.4g} at x = "
+                f"{xM.to('ft'):~.4g}); it needs F_bx- of NDS Supplement 2018 Table 5A, which is "
+                "not covered"
             )
-        items.append({"combination": name, "CD": CD, "CD_case": case,
-                      "CD_name": _duration_of(case, durations), "M": M.to("lbf*ft"),
-                      "V": V.to("lbf"), "L": r.beam.length})  # fmt: skip
     return items
 
 
