@@ -181,3 +181,17 @@ def test_timber_post_search_on_table_4d() -> None:
     assert found.best is not None
     assert found.best.name == "6x6"
     assert found.best.utilisation == pytest.approx(0.9, rel=2e-3)
+
+
+def test_glulam_search_refuses_service_results_of_another_beam() -> None:
+    """Deflections are scaled by E·I alone, so service results must come from the same beam."""
+    L, _, asd = _beam(16.0, 150, 400)
+    stiffer = Beam(
+        length=L,
+        supports=[Pin(Q_(0, "ft"), name="A"), Roller(L, name="B")],
+        loads=[UniformLoad(w=Q_(400, "lbf/ft"), case="L")],
+        EI=Q_(1.8e6, "psi") * Q_(2000, "in**4"),
+        name="GB9",
+    )
+    with pytest.raises(InputError, match="different EI"):
+        lightest_glulam_beam(asd, deflections=[DeflectionLimit(solve_cases(stiffer)["L"], L, 360)])
