@@ -15,7 +15,6 @@ from pypdf import PdfReader
 
 from calcpack.cli import main
 
-
 SHARED_BUILDS = frozenset(
     {"demo_dir", "demo_pdf", "demo_manifest", "demo_reader", "demo_texts", "packages"}
 )
