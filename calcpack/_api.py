@@ -179,6 +179,9 @@ from calcpack.checks.ibc2018 import (
     EmbeddedPost as EmbeddedPost,
     check_embedment as check_embedment,
 )
+from calcpack.checks.nds.posts import (
+    check_nds_post as check_nds_post,
+)
 from calcpack.checks.nds.connection import (
     ConnectionService as ConnectionService,
     FastenerLayout as FastenerLayout,

@@ -190,6 +190,7 @@ PUBLIC: dict[str, str] = {
     "check_embedment": "calcpack.checks.ibc2018",
     "ConnectorListing": "calcpack.checks.connector",
     "check_connector": "calcpack.checks.connector",
+    "check_nds_post": "calcpack.checks.nds.posts",
     "check_nds_notched_shear": "calcpack.checks.nds.bearing",
     "long_term_deflection": "calcpack.checks.nds.bearing",
     "TimberValues": "calcpack.checks.nds.values",
