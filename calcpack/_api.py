@@ -302,6 +302,10 @@ from calcpack.loads.wind_asce7_directional import (
     DirectionalWindASCE7 as DirectionalWindASCE7,
     directional_wind_asce7 as directional_wind_asce7,
 )
+from calcpack.loads.wind_asce7_cc import (
+    cc_coefficient_asce7 as cc_coefficient_asce7,
+    cc_roof_zones as cc_roof_zones,
+)
 from calcpack.loads.wind_asce7_lowrise import (
     LowRiseBuildingASCE7 as LowRiseBuildingASCE7,
     components_wind_asce7 as components_wind_asce7,
