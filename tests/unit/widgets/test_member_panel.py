@@ -98,13 +98,17 @@ def test_member_search_ranks_by_depth_under_a_limit_and_refuses_one_no_shape_mee
     ctl.order.value = "depth"
     ctl.max_depth.value = "6 in"
     found = panel.search(count=3)
-    assert found is not None and found.order == "depth"
+    assert found is not None
+    assert found.order == "depth"
     depths = [t.depth.to("inch").magnitude for t in found.passing]
-    assert depths == sorted(depths) and all(d <= 6.0 for d in depths)
+    assert depths == sorted(depths)
+    assert all(d <= 6.0 for d in depths)
     ctl.max_depth.value = "1 in"  # no HSS is that shallow
     assert panel.search() is None
-    assert "max_depth" in ctl.ranking.value and "the shallowest is" in ctl.ranking.value
-    assert list(ctl.pick.options) == [] and ctl.use_button.disabled
+    assert "max_depth" in ctl.ranking.value
+    assert "the shallowest is" in ctl.ranking.value
+    assert list(ctl.pick.options) == []
+    assert ctl.use_button.disabled
     ctl.max_depth.value = "6 kip"  # not a length: refused naming the field
     assert panel.search() is None
     assert "deepest" in ctl.ranking.value
