@@ -171,6 +171,14 @@ from calcpack.checks.nds.bearing import (
     check_nds_notched_shear as check_nds_notched_shear,
     long_term_deflection as long_term_deflection,
 )
+from calcpack.checks.connector import (
+    ConnectorListing as ConnectorListing,
+    check_connector as check_connector,
+)
+from calcpack.checks.ibc2018 import (
+    EmbeddedPost as EmbeddedPost,
+    check_embedment as check_embedment,
+)
 from calcpack.checks.nds.connection import (
     ConnectionService as ConnectionService,
     FastenerLayout as FastenerLayout,
