@@ -1,6 +1,6 @@
 """Invariants of the ASCE 7-16 wind formulas: q_z scales with V² (Eq. 26.10-1); C&C
-coefficients are monotonic in effective area between the figures' limits (Figures 30.3-1,
-30.3-2A)."""
+coefficients are monotonic in effective area between the figures' limits and constant outside
+them (Figures 30.3-1, 30.3-2A to 30.3-2I, 30.3-5A/B)."""
 
 from __future__ import annotations
 
@@ -10,7 +10,7 @@ from hypothesis import given
 from hypothesis import strategies as st
 
 from calcpack.loads.wind_asce7 import WindSiteASCE7, velocity_pressure_asce7
-from calcpack.loads.wind_asce7_lowrise import cc_coefficient_asce7
+from calcpack.loads.wind_asce7_cc import cc_coefficient_asce7, cc_roof_curves, cc_roof_zones
 from calcpack.units import Q_
 
 
@@ -40,3 +40,49 @@ def test_cc_coefficients_fall_with_area(
     p_hi, n_hi = cc_coefficient_asce7(zone[0], zone[1], Q_(hi, "ft^2"), Q_(th, "deg"))
     assert p_hi <= p_lo + 1e-12
     assert abs(n_hi) <= abs(n_lo) + 1e-12
+
+
+# one representative angle inside each slope band of each roof form's figures
+_BANDS = [
+    ("gable", 5.0), ("gable", 15.0), ("gable", 24.0), ("gable", 40.0),
+    ("hip", 15.0), ("hip", 24.0), ("hip", 40.0),
+    ("monoslope", 8.0), ("monoslope", 20.0),
+]  # fmt: skip
+_ROOF_ZONES = [(r, t, z) for r, t in _BANDS for z in cc_roof_zones(r, Q_(t, "deg"))]
+
+
+@given(
+    st.sampled_from(_ROOF_ZONES),
+    st.floats(0.5, 5000.0),
+    st.floats(0.5, 5000.0),
+    st.floats(0.2, 1.2),
+)
+def test_sloped_roof_coefficients_fall_with_area(
+    rz: tuple[str, float, str], a: float, b: float, h_over_B: float
+) -> None:
+    roof, th, zone = rz
+    lo, hi = sorted((a, b))
+    kw = {"roof": roof, "h_over_B": h_over_B}
+    p_lo, n_lo = cc_coefficient_asce7("roof", zone, Q_(lo, "ft^2"), Q_(th, "deg"), **kw)  # type: ignore[arg-type]
+    p_hi, n_hi = cc_coefficient_asce7("roof", zone, Q_(hi, "ft^2"), Q_(th, "deg"), **kw)  # type: ignore[arg-type]
+    assert 0.0 < p_hi <= p_lo + 1e-12
+    assert 0.0 < abs(n_hi) <= abs(n_lo) + 1e-12
+
+
+@given(st.sampled_from(_ROOF_ZONES), st.floats(0.01, 1.0), st.floats(1.0, 100.0))
+def test_sloped_roof_coefficients_constant_outside_the_figure(
+    rz: tuple[str, float, str], below: float, beyond: float
+) -> None:
+    roof, th, zone = rz
+    theta = Q_(th, "deg")
+    pos, neg = cc_roof_curves(roof, zone, theta, 0.3)
+    for curve, k in ((pos[0], 0), (neg[0], 1)):
+        first, last = curve.points[0], curve.points[-1]
+        small = cc_coefficient_asce7(
+            "roof", zone, Q_(first[0] * below, "ft^2"), theta, roof=roof, h_over_B=0.3
+        )
+        large = cc_coefficient_asce7(
+            "roof", zone, Q_(last[0] * beyond, "ft^2"), theta, roof=roof, h_over_B=0.3
+        )
+        assert small[k] == first[1]
+        assert large[k] == last[1]
