@@ -71,6 +71,12 @@ from calcpack.checks.aci318 import (
     ACIFootingDesign as ACIFootingDesign,
     check_aci_footing as check_aci_footing,
 )
+from calcpack.checks.aci318.anchor_data import (
+    AnchorGroup as AnchorGroup,
+    AnchorLoads as AnchorLoads,
+    anchor_steel as anchor_steel,
+)
+from calcpack.checks.aci318.anchors import check_aci_anchors as check_aci_anchors
 from calcpack.checks.aisc360.bearing import (
     BasePlate as BasePlate,
     ConcentratedForce as ConcentratedForce,
