@@ -300,6 +300,10 @@ PUBLIC: dict[str, str] = {
     "directional_wind_asce7": "calcpack.loads.wind_asce7_directional",
     "angle_h2_case": "calcpack.checks.aisc360.combined_h2",
     "wind_profiles_asce7_directional": "calcpack.loads.roof_profiles",
+    "BuildingVibration": "calcpack.loads.wind_asce7_gust",
+    "gust_effect_factor_asce7": "calcpack.loads.wind_asce7_gust",
+    "wall_profiles_asce7_directional": "calcpack.loads.wall_cases",
+    "wall_line_loads": "calcpack.loads.wall_cases",
     "double_angle": "calcpack.sections.double_angle",
 }
 """Public name -> the module it is imported from."""
