@@ -62,8 +62,10 @@ def test_cited_values_are_searchable(packages: dict[str, Any]) -> None:
     exports = {(e["name"], e["case"]): e for e in sheets["sheets/01_joists.ipynb"]["exports"]}
     R_D, s_J = exports[("R_J", "D")], exports[("s_J", None)]
     w = _q(R_D) / _q(s_J)
-    (l_B,) = [v for v in sheets["sheets/02_bearer.ipynb"]["values"] if v["name"] == "l_B"]
-    span = _q(l_B)
-    R_B = format_number((1.25 * w * span).to("lbf").magnitude)
-    M_B = format_number((w * span**2 / 8).to("lbf*ft").magnitude)
-    assert f"The analysis gives RB = {R_B} lbf and MB = {M_B} lbf·ft" in deck
+    bearer = {v["name"]: v for v in sheets["sheets/02_bearer.ipynb"]["values"]}
+    span = _q(bearer["l_B"])
+    # shown in the units the bearer sheet settled for a force (its R_B) and a moment (M_BD)
+    fu, mu = bearer["R_B"]["unit"], bearer["M_BD"]["unit"]
+    R_B = format_number((1.25 * w * span).to(fu.replace("·", "*")).magnitude)
+    M_B = format_number((w * span**2 / 8).to(mu.replace("·", "*")).magnitude)
+    assert f"The analysis gives RB = {R_B} {fu} and MB = {M_B} {mu}" in deck
