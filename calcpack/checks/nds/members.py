@@ -257,19 +257,15 @@ def _compression(
     cc = c.given(
         "c", 0.8 if kind == "sawn" else 0.9, f"column parameter, {kind}", source="NDS 2018 §3.7.1.5"
     )
-    FcE1 = c.derive(
-        "F_cE1",
-        0.822 * Eminp / sd**2,
-        "critical buckling, across d",
-        unit="psi",
-        ref="NDS 2018 §3.9.2",
-    )
-    FcE2 = c.derive(
-        "F_cE2",
-        0.822 * Eminp / sb**2,
-        "critical buckling, across b",
-        unit="psi",
-        ref="NDS 2018 §3.9.2",
+    FcE1, FcE2 = (
+        c.derive(
+            f"F_cE{i}",
+            0.822 * Eminp / ratio**2,
+            f"critical buckling, across {across}",
+            unit="psi",
+            ref="NDS 2018 §3.9.2",
+        )
+        for i, ratio, across in ((1, sd, "d"), (2, sb, "b"))
     )
     weak_b = c.f(sb) >= c.f(sd)
     FcE = FcE2 if weak_b else FcE1
