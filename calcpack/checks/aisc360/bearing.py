@@ -25,7 +25,7 @@ from calcpack.checks.scope import material_in_scope
 from calcpack.errors import OutOfScopeError
 from calcpack.sections.aisc_database import SteelShape
 from calcpack.units import Q_, Quantity, require
-from calcpack.validate import within
+from calcpack.validate import positive_fields, within
 
 __all__ = ["BasePlate", "ConcentratedForce", "check_aisc_base_plate", "check_aisc_web_bearing"]
 
@@ -227,8 +227,7 @@ class BasePlate:
     A2: Quantity | None = None
 
     def __post_init__(self) -> None:
-        for nm in ("B", "N"):
-            require(getattr(self, nm), "[length]", nm, positive=True)
+        positive_fields(self, "[length]", ("B", "N"))
         require(self.Fy, "[pressure]", "Fy", positive=True)
         require(self.fc, "[pressure]", "fc", positive=True)
         if self.t is not None:

@@ -26,7 +26,7 @@ from calcpack.checks.scope import material_in_scope
 from calcpack.errors import OutOfScopeError
 from calcpack.sections.aisc_database import SteelShape
 from calcpack.units import Quantity
-from calcpack.validate import dimension, one_of, positive, required, whole, within
+from calcpack.validate import dimension, one_of, positive, positive_fields, required, whole, within
 
 __all__ = ["TorsionalBraceCase", "check_aisc_torsional_bracing"]
 
@@ -88,9 +88,7 @@ class TorsionalBraceCase:
                     expected=f"a length, or {other} = None too",
                     when=f"with {other} (a stiffener has both)",
                 )
-            for nm in ("ts", "bs"):
-                if getattr(self, nm) is not None:
-                    positive(nm, dimension(nm, getattr(self, nm), "[length]"))
+            positive_fields(self, "[length]", ("ts", "bs"), optional=True)
         if self.brace_strength is not None:
             positive(
                 "brace_strength",
