@@ -71,6 +71,12 @@ from calcpack.checks.aci318 import (
     ACIFootingDesign as ACIFootingDesign,
     check_aci_footing as check_aci_footing,
 )
+from calcpack.checks.aci318.anchor_data import (
+    AnchorGroup as AnchorGroup,
+    AnchorLoads as AnchorLoads,
+    anchor_steel as anchor_steel,
+)
+from calcpack.checks.aci318.anchors import check_aci_anchors as check_aci_anchors
 from calcpack.checks.aisc360.bearing import (
     BasePlate as BasePlate,
     ConcentratedForce as ConcentratedForce,
@@ -170,6 +176,14 @@ from calcpack.checks.nds.bearing import (
     check_nds_bearing as check_nds_bearing,
     check_nds_notched_shear as check_nds_notched_shear,
     long_term_deflection as long_term_deflection,
+)
+from calcpack.checks.connector import (
+    ConnectorListing as ConnectorListing,
+    check_connector as check_connector,
+)
+from calcpack.checks.ibc2018 import (
+    EmbeddedPost as EmbeddedPost,
+    check_embedment as check_embedment,
 )
 from calcpack.checks.nds.connection import (
     ConnectionService as ConnectionService,
