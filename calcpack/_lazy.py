@@ -190,6 +190,7 @@ PUBLIC: dict[str, str] = {
     "check_embedment": "calcpack.checks.ibc2018",
     "ConnectorListing": "calcpack.checks.connector",
     "check_connector": "calcpack.checks.connector",
+    "check_nds_post": "calcpack.checks.nds.posts",
     "check_nds_notched_shear": "calcpack.checks.nds.bearing",
     "long_term_deflection": "calcpack.checks.nds.bearing",
     "TimberValues": "calcpack.checks.nds.values",
@@ -309,6 +310,14 @@ PUBLIC: dict[str, str] = {
     "directional_wind_asce7": "calcpack.loads.wind_asce7_directional",
     "angle_h2_case": "calcpack.checks.aisc360.combined_h2",
     "wind_profiles_asce7_directional": "calcpack.loads.roof_profiles",
+    "BuildingVibration": "calcpack.loads.wind_asce7_gust",
+    "gust_effect_factor_asce7": "calcpack.loads.wind_asce7_gust",
+    "wall_profiles_asce7_directional": "calcpack.loads.wall_cases",
+    "wall_line_loads": "calcpack.loads.wall_cases",
+    "AnchorGroup": "calcpack.checks.aci318.anchor_data",
+    "AnchorLoads": "calcpack.checks.aci318.anchor_data",
+    "anchor_steel": "calcpack.checks.aci318.anchor_data",
+    "check_aci_anchors": "calcpack.checks.aci318.anchors",
     "double_angle": "calcpack.sections.double_angle",
 }
 """Public name -> the module it is imported from."""

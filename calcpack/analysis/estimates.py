@@ -25,7 +25,7 @@ import numpy as np
 import pint
 
 from calcpack.errors import InputError, OutOfScopeError
-from calcpack.validate import dimension, one_of, positive
+from calcpack.validate import dimension, find, one_of, positive
 
 __all__ = [
     "BEAM_CASES",
@@ -83,15 +83,7 @@ class Estimate:
     inputs: dict[str, pint.Quantity] = field(default_factory=dict)
 
     def __getitem__(self, name: str) -> pint.Quantity:
-        if name not in self.results:
-            raise InputError(
-                f"The estimate '{self.method}' gives no {name!r} (it gives "
-                f"{', '.join(self.results)})",
-                name="name",
-                value=name,
-                expected="one of " + ", ".join(self.results),
-            )
-        return self.results[name]
+        return find("name", name, self.results, what="result", where=f"of {self.method!r}")
 
     def working(self, settings: Any = None) -> Any:
         """The estimate as sheet steps: a heading, the inputs, each result with its formula,

@@ -34,6 +34,7 @@ if TYPE_CHECKING:
     from calcpack.analysis.freebody_plan import EquilibriumEquation
 from calcpack.errors import InputError, OutOfScopeError, UnstableStructureError
 from calcpack.units import require, si, ureg
+from calcpack.validate import find
 
 __all__ = [
     "BodySupport",
@@ -358,15 +359,7 @@ class FreeBodyResult:
 
     def reaction(self, name: str) -> Qty:
         """The reaction called ``name``."""
-        if name not in self.reactions:
-            raise InputError(
-                f"There is no reaction {name!r} on {self.body.name} (reactions: "
-                f"{', '.join(self.reactions)})",
-                name="reaction",
-                value=name,
-                expected="one of the reaction names",
-            )
-        return self.reactions[name]
+        return find("reaction", name, self.reactions, what="reaction", where=f"on {self.body.name}")
 
     def working(self) -> Any:
         """The free-body working (a :class:`calcpack.working.Block`): loads and resultants,

@@ -33,6 +33,7 @@ import numpy.typing as npt
 from calcpack import views
 from calcpack.errors import InputError
 from calcpack.units import Quantity, is_quantity, require, si, ureg
+from calcpack.validate import find
 
 __all__ = ["JointLoad", "Member", "Node", "Support", "Truss"]
 
@@ -279,29 +280,16 @@ class Truss:
 
     def node(self, name: str) -> Node:
         """The node called ``name``."""
-        try:
-            return self.nodes[self.node_index[name]]
-        except KeyError:
-            raise InputError(
-                f"There is no node {name!r} in truss {self.name} (nodes: "
-                f"{', '.join(self.node_index)})",
-                name="node",
-                value=name,
-                expected="one of the truss's node names",
-            ) from None
+        return self.nodes[find("node", name, self.node_index, what="node", where=self._where)]
 
     def member(self, name: str) -> Member:
         """The member called ``name``."""
-        try:
-            return self.members[self.member_index[name]]
-        except KeyError:
-            raise InputError(
-                f"There is no member {name!r} in truss {self.name} (members: "
-                f"{', '.join(self.member_index)})",
-                name="member",
-                value=name,
-                expected="one of the truss's member names",
-            ) from None
+        index = find("member", name, self.member_index, what="member", where=self._where)
+        return self.members[index]
+
+    @property
+    def _where(self) -> str:
+        return f"in truss {self.name}"
 
     def support_at(self, node: str) -> Support | None:
         """The support at ``node``, or None."""

@@ -24,6 +24,7 @@ from calcpack.loads._si import check as require
 from calcpack.loads._si import fast_si as si
 from calcpack.loads.types import FunctionLoad, Load, PointMoment, as_loads
 from calcpack.units import Quantity
+from calcpack.validate import find
 
 __all__ = [
     "Beam",
@@ -393,16 +394,8 @@ class Beam:
 
     def support(self, name: str) -> Support:
         """The support called ``name``."""
-        for s in self.supports:
-            if s.name == name:
-                return s
-        raise InputError(
-            f"No support named {name!r} on beam {self.name} (supports are "
-            f"{[s.name for s in self.supports]})",
-            name="name",
-            value=name,
-            expected="a support name",
-        )
+        by_name = {s.name: s for s in self.supports}
+        return find("name", name, by_name, what="support", where=f"on beam {self.name}")
 
     def EI_segments_si(self) -> tuple[tuple[float, float, float], ...] | None:
         """(start m, end m, EI N·m²) for each stiffness segment, or None if EI is not given."""
