@@ -185,6 +185,9 @@ from calcpack.checks.ibc2018 import (
     EmbeddedPost as EmbeddedPost,
     check_embedment as check_embedment,
 )
+from calcpack.checks.nds.posts import (
+    check_nds_post as check_nds_post,
+)
 from calcpack.checks.nds.connection import (
     ConnectionService as ConnectionService,
     FastenerLayout as FastenerLayout,
@@ -409,13 +412,18 @@ from calcpack.signing import (
 from calcpack.sizing import (
     Candidate as Candidate,
     DeflectionLimit as DeflectionLimit,
+    SearchSpace as SearchSpace,
     SizingResult as SizingResult,
+    aisc_beam_space as aisc_beam_space,
     aisc_candidates as aisc_candidates,
+    glulam_beam_space as glulam_beam_space,
     lightest_aisc_beam as lightest_aisc_beam,
     lightest_glulam_beam as lightest_glulam_beam,
     lightest_nds_beam as lightest_nds_beam,
     lightest_nds_post as lightest_nds_post,
     lightest_sections as lightest_sections,
+    nds_beam_space as nds_beam_space,
+    nds_post_space as nds_post_space,
     sawn_candidates as sawn_candidates,
 )
 from calcpack.units import (
