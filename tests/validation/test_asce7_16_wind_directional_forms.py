@@ -193,3 +193,20 @@ def test_working_ends_with_the_elevation_sketch():
     svg = steps[-1].svg()
     assert "<svg" in svg
     assert f"{r.windward_profile[0].p_pos_gcpi.magnitude:+.3g}" in svg
+
+
+def test_monoslope_and_hip_frames_take_their_roof_pressures():
+    """Frame cases: a monoslope roof wholly windward carries one value across its span; a hip
+    roof's frames carry the main slopes (the hip ends are not on the frame)."""
+    from calcpack.loads.roof_profiles import wind_profiles_asce7_directional
+
+    mono = directional_wind_asce7(SITE, _b(roof="monoslope", windward_eave="low"))
+    cases = wind_profiles_asce7_directional(mono)
+    roof = mono.surface("windward roof")
+    assert [c.values for c in cases] == [(p,) for p in roof.p]
+    assert all(c.breaks[-1] == mono.building.L for c in cases)
+    assert cases[0].case.endswith("low eave")
+    hip = directional_wind_asce7(SITE, _b(roof="hip"))
+    hcases = wind_profiles_asce7_directional(hip)
+    ww, lw = hip.surface("windward roof"), hip.surface("leeward roof")
+    assert hcases[0].values == (ww.p[0], lw.p[0])
