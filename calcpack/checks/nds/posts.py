@@ -20,7 +20,7 @@ from calcpack.checks.nds.members import TimberForces, TimberMember, check_nds_me
 from calcpack.combinations.model import CombinationSet
 from calcpack.errors import InputError
 from calcpack.units import Q_, Quantity, require
-from calcpack.validate import one_of
+from calcpack.validate import at_least, one_of
 
 __all__ = ["check_nds_post"]
 
@@ -63,8 +63,7 @@ def check_nds_post(
             a case no combination uses, or every combination with no force.
         OutOfScopeError: as :func:`check_nds_member`.
     """
-    if not axial:
-        raise InputError(name="axial", value=dict(axial), expected="axial loads by load case")
+    at_least("axial", axial, what="axial load by load case")
     for case, P in axial.items():
         require(P, "[force]", f"axial[{case!r}]")
     moments = dict(moments or {})
