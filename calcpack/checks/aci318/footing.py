@@ -29,6 +29,7 @@ import math
 from collections.abc import Mapping
 from typing import Any
 
+from calcpack.checks.aci318.bearing import bearing_on_footing
 from calcpack.checks.aci318.footing_data import (
     ACI318_EDITION,
     ACIFootingDesign,
@@ -553,33 +554,13 @@ class _ACILogic:
 
     def _bearing(self, c: Recorder, fc) -> None:  # type: ignore[no-untyped-def]
         a = self.a
-        f = a.footing
-        col = f.column
         c.heading("Bearing of the column on the footing", 3)
-        Pu = c.given("P_u_b", a.Pu, f"factored column load, {a.Pu_combination}", unit="kip")
-        if col.shape == "round" and col.support != "base plate":
-            A1 = c.given("A_1", math.pi * col.c1**2 / 4, "loaded area", unit="inch**2")
-            k = float(min(f.B / col.c1, (col.c1 + 4 * f.h) / col.c1))
-        else:
-            A1 = c.given("A_1", col.loaded1 * col.loaded2, "loaded area", unit="inch**2")
-            k = float(
-                min(
-                    f.B / col.loaded1,
-                    f.length / col.loaded2,
-                    (min(col.loaded1, col.loaded2) + 4 * f.h) / min(col.loaded1, col.loaded2),
-                )
-            )
-        r = c.given(
-            "r_A",
-            min(k, 2.0),
-            "√(A2/A1): concentric similar area on the footing, at most 2",
-            source="ACI 318-19 §22.8.3.2",
+        bearing_on_footing(
+            c,
+            a,
+            fc,
+            phi=PHI_BEARING,
+            rule="ACI 318-19 §22.8.3.2",
+            strength_ref="ACI 318-19 §22.8.3.2, Table 21.2.1(d)",
+            check_ref="ACI 318-19 §22.8",
         )
-        pB = c.derive(
-            "phi_B_n",
-            PHI_BEARING * 0.85 * fc * A1 * r,
-            "design bearing strength, φ = 0.65",
-            unit="kip",
-            ref="ACI 318-19 §22.8.3.2, Table 21.2.1(d)",
-        )
-        c.check("Bearing", Pu, pB, ref="ACI 318-19 §22.8", combination=a.Pu_combination)

@@ -20,6 +20,7 @@ from __future__ import annotations
 from collections.abc import Mapping
 from typing import Any
 
+from calcpack.checks.aci318.bearing import bearing_on_footing
 from calcpack.checks.aci318.footing_data import (
     ACI318_EDITION,
     ACIFootingDesign,
@@ -200,33 +201,16 @@ class _PlainLogic:
         self._bearing(c, fc)
 
     def _bearing(self, c: Recorder, fc: Any) -> None:
-        f, a = self.f, self.a
-        col = f.column
+        a = self.a
         if a.Pu.magnitude <= 0:
             return
         c.heading("Bearing of the column or post", 3)
-        Pu = c.given("P_u_b", a.Pu, f"factored column load, {a.Pu_combination}", unit="kip")
-        A1 = c.given(
-            "A_1",
-            col.loaded1 * col.loaded2
-            if col.shape != "round" or col.support == "base plate"
-            else 3.141592653589793 * col.c1**2 / 4,
-            "loaded area",
-            unit="inch**2",
+        bearing_on_footing(
+            c,
+            a,
+            fc,
+            phi=PHI_PLAIN,
+            rule="ACI 318-19 §14.5.6.1, §22.8.3.2",
+            strength_ref="ACI 318-19 §14.5.6.1",
+            check_ref="ACI 318-19 §14.5.6",
         )
-        small = min(col.loaded1, col.loaded2)
-        k = float(min(f.B / max(col.loaded1, col.loaded2), (small + 4 * f.h) / small))
-        r = c.given(
-            "r_A",
-            max(1.0, min(k, 2.0)),
-            "√(A2/A1), at most 2",
-            source="ACI 318-19 §14.5.6.1, §22.8.3.2",
-        )
-        pB = c.derive(
-            "phi_B_n",
-            PHI_PLAIN * 0.85 * fc * A1 * r,
-            "design bearing strength, φ = 0.60",
-            unit="kip",
-            ref="ACI 318-19 §14.5.6.1",
-        )
-        c.check("Bearing", Pu, pB, ref="ACI 318-19 §14.5.6", combination=a.Pu_combination)
