@@ -24,7 +24,7 @@ from typing import Literal
 from calcpack.units import Quantity, si
 from calcpack.validate import one_of, positive
 
-__all__ = ["SPREAD", "loaded_area", "similar_area_ratio"]
+__all__ = ["SPREAD", "Rule", "loaded_area", "similar_area_ratio"]
 
 Rule = Literal["ACI 318-19", "EN 1992-1-1"]
 
