@@ -25,7 +25,10 @@ from calcpack.checks.aci318.footing_data import (
     ACI318_EDITION,
     ACIFootingDesign,
     FootingActions,
+    column_aspect,
     factored_actions,
+    two_way_perimeter,
+    uplift_not_covered,
 )
 from calcpack.checks.base import MemberChecks, Recorder, Standard, run_checks
 from calcpack.combinations.model import CombinationSet
@@ -82,15 +85,13 @@ class _PlainLogic:
             ref="ACI 318-19 §22.5.3.1 (at most 100 psi)",
         )
         h = c.given("h", f.h, "thickness (length of a pier)", unit="inch")
-        if a.uplift_combinations:
-            c.not_covered(
-                "Uplift on plain concrete",
-                "combinations with net uplift ("
-                + ", ".join(a.uplift_combinations)
-                + "): tension in plain concrete "
-                "from uplift is not checked",
-                ref="ACI 318-19 §14.1.3",
-            )
+        uplift_not_covered(
+            c,
+            a,
+            "Uplift on plain concrete",
+            "tension in plain concrete from uplift is not checked",
+            "ACI 318-19 §14.1.3",
+        )
         if f.kind == "pier":
             c.assume(
                 "The pier is embedded in and laterally supported by the soil over its "
@@ -169,12 +170,9 @@ class _PlainLogic:
                 combination=dirn.Vu_combination,
             )
         c.heading("Two-way shear, perimeter at h_s/2", 3)
-        if a.b1 >= f.B or a.b2 >= f.length:
-            c.text("The perimeter falls outside the footing: two-way shear does not arise.")
-        else:
-            b1 = c.given("b_1", a.b1, "perimeter side along x", unit="inch")
-            b2 = c.given("b_2", a.b2, "perimeter side along y", unit="inch")
-            b0 = c.derive("b_0", 2 * (b1 + b2), "critical perimeter", unit="inch")
+        perimeter = two_way_perimeter(c, a, "h_s/2")
+        if perimeter is not None:
+            b0 = perimeter[2]
             Vu = c.given(
                 "V_u2",
                 a.Vu2,
@@ -182,12 +180,7 @@ class _PlainLogic:
                 source="column load less the net pressure inside the perimeter",
                 unit="kip",
             )
-            col = f.column
-            beta = c.given(
-                "beta_c",
-                float(max(col.loaded1, col.loaded2) / min(col.loaded1, col.loaded2)),
-                "column long side / short side",
-            )
+            beta = column_aspect(c, f.column)
             pVn = c.derive(
                 "phi_V_n2",
                 PHI_PLAIN * c.min(4 / 3 + 8 / (3 * beta), 2.66) * lam * sq * b0 * he,
