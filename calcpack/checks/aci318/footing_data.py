@@ -276,38 +276,23 @@ def factored_actions(
     qu = (Pu[0] / f.area).to("kPa") if Pu[0].magnitude > 0 else Q_(0.0, "kPa")
 
     def direction(axis: str) -> Direction:
-        if axis == "x":
-            M, V = best["Mx"], best["Vx"]
-            return Direction(
-                "x",
-                bx,
-                dx.to("inch"),
-                f.length,
-                f.B,
-                am_x,
-                x_bottom,
-                M[0],
-                M[1],
-                V[0],
-                V[1],
-                M[2] and V[2],
-                qu,
-            )
-        M, V = best["My"], best["Vy"]
+        # bars along x: the section across them is L wide and the footing B long their way
+        x = axis == "x"
+        M, V = best[f"M{axis}"], best[f"V{axis}"]
         return Direction(
-            "y",
-            by,
-            dy.to("inch"),
-            f.B,
-            f.length,
-            am_y,
-            not x_bottom,
-            M[0],
-            M[1],
-            V[0],
-            V[1],
-            M[2] and V[2],
-            qu,
+            axis=axis,
+            bar=bx if x else by,
+            d=(dx if x else dy).to("inch"),
+            width=f.length if x else f.B,
+            size=f.B if x else f.length,
+            a_m=am_x if x else am_y,
+            bottom=x_bottom if x else not x_bottom,
+            Mu=M[0],
+            Mu_combination=M[1],
+            Vu=V[0],
+            Vu_combination=V[1],
+            concentric=M[2] and V[2],
+            qu=qu,
         )
 
     return FootingActions(
