@@ -44,3 +44,12 @@ def test_relation_and_words_follow_the_pass_rule(u: float) -> None:
     assert ("≤" in statement) == passes(u)
     assert statement.endswith("satisfies §G2.1") == passes(u)
     assert statement.endswith("DOES NOT SATISFY §G2.1") == (not passes(u))
+
+
+def test_the_smallest_numbers_are_written_not_divided_by_zero() -> None:
+    """A subnormal float (a utilisation of a vanishing demand) is written in engineering
+    notation like any other; the exponent's power of ten is not formed (it underflows)."""
+    from calcpack.contract.numbers import format_number
+
+    assert format_number(5e-324, 3) == "4.94×10⁻³²⁴"
+    assert ratio_text(5e-324) == "4.94×10⁻³²⁴ ≤ 1.00"
