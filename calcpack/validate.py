@@ -33,6 +33,7 @@ __all__ = [
     "lookup",
     "one_of",
     "positive",
+    "positive_fields",
     "suggest",
     "unknown_key",
     "within",
@@ -252,3 +253,90 @@ def lookup(name: str, key: str, table: Mapping[str, T], *, what: str = "entry") 
         value=key,
         expected=f"a known {what}",
     )
+
+
+def positive_fields(owner: Any, dim: str, names: Iterable[str], *, optional: bool = False) -> None:
+    """Require each field ``names`` of ``owner`` (a dataclass at construction) to be a positive
+    quantity of dimension ``dim``; ``optional``: a field left as None is skipped. The error
+    names the field."""
+    for name in names:
+        value = getattr(owner, name)
+        if value is None and optional:
+            continue
+        require(value, dim, name, positive=True)
+
+
+# -- Names, collections and distinct values (the models of analysis, combinations, loads) -----
+
+
+def _listed(keys: Iterable[Any]) -> str:
+    return ", ".join(str(k) for k in keys) or "none"
+
+
+def find(name: str, key: K, table: Mapping[K, T], *, what: str, where: str = "") -> T:
+    """The entry of ``table`` called exactly ``key`` (a node, a member, a support, a load case,
+    a combination), or an :class:`InputError` listing the names there are.
+
+    Unlike :func:`lookup` (designations in a reference table, read case- and space-blind),
+    names given by the engineer are matched exactly: node "a" is not node "A".
+
+    Args:
+        name: the input's name (``"member"``, ``"support"``, ``"factors"``).
+        what: what the table holds, singular (``"member"``, ``"load case with results"``).
+        where: where the names live, as it follows the noun (``"in truss T1"``, ``"on beam B1"``).
+    """
+    try:
+        return table[key]
+    except KeyError:
+        pass
+    place = f" {where}" if where else ""
+    known = _listed(table)
+    close = suggest(key, [str(k) for k in table]) if isinstance(key, str) else []
+    hint = f"; did you mean {close[0]!r}?" if close else ""
+    raise InputError(
+        name=name,
+        value=key,
+        rule=f"must name a {what}{place} ({what}s: {known})",
+        expected=f"one of {known}",
+        note=f"there is no {what} {key!r}{place}{hint}",
+    ) from None
+
+
+def at_least(name: str, items: Any, count: int = 1, *, what: str) -> Any:
+    """Require a collection holding ``count`` or more items (``what``: what one item is, e.g.
+    ``"load factor"``, ``"node"``). Returns the collection."""
+    if len(items) < count:
+        many = "one" if count == 1 else str(count)
+        plural = "" if count == 1 else "s"
+        raise InputError(
+            name=name,
+            value=items,
+            rule=f"needs at least {many} {what}{plural}",
+            expected=f"{many} or more {what}{plural}",
+        )
+    return items
+
+
+def each_instance(
+    name: str, items: Iterable[Any], kinds: type | tuple[type, ...], *, expected: str
+) -> None:
+    """:func:`instance` for every item of a collection; the error names the item by its index
+    (``"supports[2]"``)."""
+    for i, item in enumerate(items):
+        instance(f"{name}[{i}]", item, kinds, expected=expected)
+
+
+def distinct(name: str, values: Iterable[Any], *, what: str) -> None:
+    """Require no value to stand twice (``what``: what the values are, e.g. ``"support
+    name"``); the error names the first repeated one."""
+    seen: set[Any] = set()
+    for value in values:
+        if value in seen:
+            raise InputError(
+                name=name,
+                value=value,
+                rule=f"must not repeat a {what}",
+                expected=f"a different {what} for each",
+                note=f"{what} {show_value(value)} is used twice",
+            )
+        seen.add(value)

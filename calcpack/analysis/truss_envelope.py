@@ -17,6 +17,7 @@ from typing import Any
 
 from calcpack.errors import InputError
 from calcpack.units import Quantity, si
+from calcpack.validate import at_least, find
 
 __all__ = ["MemberEnvelope", "SignedForce", "member_envelopes"]
 
@@ -74,13 +75,7 @@ def member_envelopes(
     Raises:
         InputError: no results; a factor missing, zero or negative; an unknown member.
     """
-    if not results:
-        raise InputError(
-            "member_envelopes needs at least one combination's result (got none)",
-            name="results",
-            value={},
-            expected="combination name -> TrussResult",
-        )
+    at_least("results", results, what="combination's result")
     weights = dict.fromkeys(results, 1.0) if factors is None else dict(factors)
     for name in results:
         w = weights.get(name)
@@ -94,13 +89,7 @@ def member_envelopes(
     first = next(iter(results.values()))
     names = list(first.forces) if members is None else list(members)
     for m in names:
-        if m not in first.forces:
-            raise InputError(
-                f"Member {m!r} is not in the truss (its members: {', '.join(first.forces)})",
-                name="members",
-                value=m,
-                expected="a member name of the truss",
-            )
+        find("members", m, first.forces, what="member", where="in the truss")
     out: dict[str, MemberEnvelope] = {}
     for m in names:
         best: dict[int, tuple[float, SignedForce]] = {}

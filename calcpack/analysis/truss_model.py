@@ -33,6 +33,7 @@ import numpy.typing as npt
 from calcpack import views
 from calcpack.errors import InputError
 from calcpack.units import Quantity, is_quantity, require, si, ureg
+from calcpack.validate import at_least, each_instance, find
 
 __all__ = ["JointLoad", "Member", "Node", "Support", "Truss"]
 
@@ -279,29 +280,16 @@ class Truss:
 
     def node(self, name: str) -> Node:
         """The node called ``name``."""
-        try:
-            return self.nodes[self.node_index[name]]
-        except KeyError:
-            raise InputError(
-                f"There is no node {name!r} in truss {self.name} (nodes: "
-                f"{', '.join(self.node_index)})",
-                name="node",
-                value=name,
-                expected="one of the truss's node names",
-            ) from None
+        return self.nodes[find("node", name, self.node_index, what="node", where=self._where)]
 
     def member(self, name: str) -> Member:
         """The member called ``name``."""
-        try:
-            return self.members[self.member_index[name]]
-        except KeyError:
-            raise InputError(
-                f"There is no member {name!r} in truss {self.name} (members: "
-                f"{', '.join(self.member_index)})",
-                name="member",
-                value=name,
-                expected="one of the truss's member names",
-            ) from None
+        index = find("member", name, self.member_index, what="member", where=self._where)
+        return self.members[index]
+
+    @property
+    def _where(self) -> str:
+        return f"in truss {self.name}"
 
     def support_at(self, node: str) -> Support | None:
         """The support at ``node``, or None."""
@@ -387,13 +375,7 @@ class Truss:
 
     def _validate(self) -> None:
         _check_name(self.name, "Truss")
-        if not self.nodes:
-            raise InputError(
-                "A truss needs at least two nodes (got none)",
-                name="nodes",
-                value=(),
-                expected="two or more nodes",
-            )
+        at_least("nodes", self.nodes, what="node")
         _require_unique_names(self.nodes, Node, "node", "Node(name, x, y)")
         xy = self.xy_m
         tol = _COINCIDENT_REL * self.size_m
@@ -448,14 +430,8 @@ class Truss:
 
     def _validate_supports_and_loads(self) -> None:
         supported: set[str] = set()
+        each_instance("supports", self.supports, Support, expected="a Support(node, kind)")
         for s in self.supports:
-            if not isinstance(s, Support):
-                raise InputError(
-                    f"Truss supports must be Support objects (got {s!r})",
-                    name="supports",
-                    value=s,
-                    expected="Support(node, kind)",
-                )
             if s.node not in self.node_index:
                 raise InputError(
                     f"A support is placed on node {s.node!r}, which is not in the truss "
@@ -472,14 +448,8 @@ class Truss:
                     expected="one support per node",
                 )
             supported.add(s.node)
+        each_instance("loads", self.loads, JointLoad, expected="a JointLoad(node, Fx, Fy)")
         for ld in self.loads:
-            if not isinstance(ld, JointLoad):
-                raise InputError(
-                    f"Truss loads must be JointLoad objects (got {ld!r})",
-                    name="loads",
-                    value=ld,
-                    expected="JointLoad(node, Fx, Fy)",
-                )
             if ld.node not in self.node_index:
                 raise InputError(
                     f"A load (case {ld.case}) is applied at node {ld.node!r}, which is not in "
@@ -525,15 +495,9 @@ def _require_unique_names(
     items: Sequence[Node] | Sequence[Member], kind: type, what: str, form: str
 ) -> None:
     """Refuse an item of the wrong type or a name used twice (``what``: "node" or "member")."""
+    each_instance(f"{what}s", items, kind, expected=f"a {form}")
     seen: set[str] = set()
     for item in items:
-        if not isinstance(item, kind):
-            raise InputError(
-                f"Truss {what}s must be {kind.__name__} objects (got {item!r})",
-                name=f"{what}s",
-                value=item,
-                expected=form,
-            )
         name: str = item.name
         if name in seen:
             raise InputError(

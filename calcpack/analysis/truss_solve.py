@@ -30,7 +30,7 @@ from calcpack.analysis.truss_stiffness import stiffness_solve
 from calcpack.analysis.truss_zero import zero_force_by_inspection
 from calcpack.errors import InputError, UnstableStructureError
 from calcpack.units import ureg
-from calcpack.validate import finite
+from calcpack.validate import at_least, find, finite, one_of
 
 __all__ = [
     "Determinacy",
@@ -245,14 +245,7 @@ class TrussResult:
 
     def reaction(self, name: str) -> Qty:
         """The reaction called ``name`` (``"R_Ay"``), positive along its direction."""
-        if name not in self.reactions:
-            raise InputError(
-                f"There is no reaction {name!r} (reactions: {', '.join(self.reactions)})",
-                name="reaction",
-                value=name,
-                expected="one of the reaction names",
-            )
-        return self.reactions[name].value
+        return find("reaction", name, self.reactions, what="reaction").value
 
     def reaction_at(self, node: str) -> tuple[Qty, Qty]:
         """The total reaction at ``node`` as global (x, y) components (zero if unsupported)."""
@@ -448,13 +441,7 @@ def solve_truss(
             value=case,
             expected="a load case present in the truss's loads",
         )
-    if method not in ("auto", "equilibrium", "stiffness"):
-        raise InputError(
-            f"method must be 'auto', 'equilibrium' or 'stiffness' (got {method!r})",
-            name="method",
-            value=method,
-            expected="'auto', 'equilibrium' or 'stiffness'",
-        )
+    one_of("method", method, ("auto", "equilibrium", "stiffness"))
     det = determinacy(truss)
     if not det.stable:
         raise _mechanism_error(truss, det)
@@ -553,13 +540,7 @@ def combine_results(
     Raises:
         InputError: a factor names a case with no result, or no factors are given.
     """
-    if not factors:
-        raise InputError(
-            "A combination needs at least one factor (got none)",
-            name="factors",
-            value=dict(factors),
-            expected="case name -> factor",
-        )
+    at_least("factors", dict(factors), what="load factor")
     total: TrussResult | None = None
     for case, f in factors.items():
         if case not in results:

@@ -19,8 +19,10 @@ functions that take a Recorder, call :func:`run_checks`, and return its MemberCh
 
 from __future__ import annotations
 
+import math
 from collections.abc import Callable, Mapping, Sequence
 from dataclasses import dataclass, field
+from numbers import Real
 from typing import Any
 
 from calcpack.contract.verdict import Verdict, passes
@@ -128,6 +130,9 @@ def _q(x: Any) -> Quantity:
 class Recorder:
     """Runs check logic on numbers. See the module notes; :class:`SheetRecorder` shows it.
 
+    Every method is written once here: it computes on quantities and hands what a sheet would
+    show to :meth:`_show`, which a plain Recorder ignores and a SheetRecorder turns into a step.
+
     Args:
         member: the member mark used in every result.
     """
@@ -138,6 +143,11 @@ class Recorder:
         self.member = member
         self.results: list[CheckResult] = []
         self.values: dict[str, Quantity] = {}
+
+    def _show(self, kind: str, *args: Any, **kwargs: Any) -> Any:
+        """The step ``kind`` of :mod:`calcpack.working` made from these arguments, added to the
+        sheet (a SheetRecorder), or None: numbers only, nothing shown."""
+        return None
 
     # -- values ----------------------------------------------------------------------------
     def given(
@@ -154,7 +164,10 @@ class Recorder:
         from a load combination), recorded as a result rather than an input."""
         q = value if is_quantity(value) else Q_(float(value), "")
         self.values[name] = q
-        return q
+        step = self._show(
+            "Given", name, value, description, source=source, unit=unit, result=result
+        )
+        return q if step is None else step
 
     def derive(
         self,
@@ -167,6 +180,16 @@ class Recorder:
         note: str | None = None,
         latex: str | None = None,
     ) -> Any:
+        """A value worked out by ``formula`` (a quantity on numbers, a formula on a sheet),
+        in ``unit`` (else reduced), with the clause ``ref``."""
+        if isinstance(formula, Real):
+            formula = Q_(float(formula), "")
+        step = self._show(
+            "Derived", name, formula, description, unit=unit, ref=ref, note=note, latex=latex
+        )
+        if step is not None:
+            self.values[name] = step.quantity
+            return step
         q = _q(formula)
         q = q.to(unit) if unit is not None else q.to_reduced_units()
         self.values[name] = q
@@ -184,8 +207,6 @@ class Recorder:
     @property
     def pi(self) -> Any:
         """π as a number (shown as π by SheetRecorder)."""
-        import math
-
         return math.pi
 
     def sqrt(self, x: Any) -> Any:
@@ -208,114 +229,74 @@ class Recorder:
         combination: str | None = None,
         description: str = "",
     ) -> CheckResult:
+        """Demand against capacity (one dimension), the verdict by the contract's pass rule."""
         d, c, u = utilisation(_q(demand), _q(capacity), name=name)
-        res = CheckResult(
-            name,
-            self.member,
-            d,
-            c,
-            u,
-            OK if passes(u) else NOT_OK,
-            ref,
-            combination,
-            description,
-        )
+        verdict = OK if passes(u) else NOT_OK
+        res = CheckResult(name, self.member, d, c, u, verdict, ref, combination, description)
         self.results.append(res)
+        self._show(
+            "Check",
+            name,
+            demand,
+            capacity,
+            ref=ref,
+            member=self.member,
+            combination=combination,
+            description=description,
+        )
         return res
 
     def not_covered(self, name: str, reason: str, *, ref: str | None = None) -> CheckResult:
+        """A check this method does not cover, with the reason (a verdict, never a number)."""
         res = CheckResult(name, self.member, None, None, None, NOT_COVERED, ref or "", None, reason)
         self.results.append(res)
+        self._show("NotCovered", name, reason, ref=ref, member=self.member)
         return res
 
     # -- text (shown only by SheetRecorder) -------------------------------------------------
     def heading(self, text: str, level: int = 3) -> None:
-        return None
+        self._show("Heading", text, level)
 
     def text(self, body: str) -> None:
-        return None
+        self._show("Text", body)
 
     def assume(self, body: str) -> None:
-        return None
+        self._show("Assume", body)
 
     def caution(self, body: str) -> None:
-        return None
+        self._show("Caution", body)
 
     def table(self, columns: Sequence[str], rows: Sequence[Sequence[Any]], caption: str) -> None:
-        return None
+        self._show("Table", list(columns), [list(r) for r in rows], caption=caption)
 
 
 class SheetRecorder(Recorder):
     """Runs the same check logic building :mod:`calcpack.working` steps (in ``steps``)."""
 
     shows = True
+    # the steps that format values take the sheet's display settings
+    _WITH_SETTINGS = frozenset({"Given", "Derived", "Check", "NotCovered", "Table"})
 
     def __init__(self, member: str, settings: Any = None) -> None:
         super().__init__(member)
         self.steps: list[Any] = []
         self.settings = settings
 
-    def given(
-        self,
-        name: str,
-        value: Any,
-        description: str = "",
-        *,
-        source: str | None = None,
-        unit: str | None = None,
-        result: bool = False,
-    ) -> Any:
-        from calcpack.working import Given
+    def _show(self, kind: str, *args: Any, **kwargs: Any) -> Any:
+        # imported here so that checks run on numbers never load sympy and the renderers
+        from calcpack import working
 
-        super().given(name, value, description)
-        step = Given(
-            name,
-            value,
-            description,
-            source=source,
-            unit=unit,
-            settings=self.settings,
-            result=result,
-        )
-        self.steps.append(step)
-        return step
-
-    def derive(
-        self,
-        name: str,
-        formula: Any,
-        description: str = "",
-        *,
-        unit: str | None = None,
-        ref: str | None = None,
-        note: str | None = None,
-        latex: str | None = None,
-    ) -> Any:
-        from calcpack.working import Derived, Term
-
-        if not isinstance(formula, Term) and not is_quantity(formula):
-            formula = Q_(float(formula), "")
-        step = Derived(
-            name,
-            formula,
-            description,
-            unit=unit,
-            ref=ref,
-            note=note,
-            latex=latex,
-            settings=self.settings,
-        )
-        self.values[name] = step.quantity
+        if kind in self._WITH_SETTINGS:
+            kwargs["settings"] = self.settings
+        step = getattr(working, kind)(*args, **kwargs)
         self.steps.append(step)
         return step
 
     @property
     def pi(self) -> Any:
-        import sympy
+        from calcpack.working import pi
 
-        from calcpack.working import Term
-
-        return Term(sympy.pi, {})
+        return pi
 
     def sqrt(self, x: Any) -> Any:
         from calcpack.working import Term, sqrt
@@ -331,71 +312,6 @@ class SheetRecorder(Recorder):
         from calcpack.working import Max
 
         return Max(*xs)
-
-    def check(
-        self,
-        name: str,
-        demand: Any,
-        capacity: Any,
-        *,
-        ref: str,
-        combination: str | None = None,
-        description: str = "",
-    ) -> CheckResult:
-        from calcpack.working import Check
-
-        res = super().check(
-            name, demand, capacity, ref=ref, combination=combination, description=description
-        )
-        self.steps.append(
-            Check(
-                name,
-                demand,
-                capacity,
-                ref=ref,
-                member=self.member,
-                combination=combination,
-                description=description,
-                settings=self.settings,
-            )
-        )
-        return res
-
-    def not_covered(self, name: str, reason: str, *, ref: str | None = None) -> CheckResult:
-        from calcpack.working import NotCovered
-
-        res = super().not_covered(name, reason, ref=ref)
-        self.steps.append(
-            NotCovered(name, reason, ref=ref, member=self.member, settings=self.settings)
-        )
-        return res
-
-    def heading(self, text: str, level: int = 3) -> None:
-        from calcpack.working import Heading
-
-        self.steps.append(Heading(text, level))
-
-    def text(self, body: str) -> None:
-        from calcpack.working import Text
-
-        self.steps.append(Text(body))
-
-    def assume(self, body: str) -> None:
-        from calcpack.working import Assume
-
-        self.steps.append(Assume(body))
-
-    def caution(self, body: str) -> None:
-        from calcpack.working import Caution
-
-        self.steps.append(Caution(body))
-
-    def table(self, columns: Sequence[str], rows: Sequence[Sequence[Any]], caption: str) -> None:
-        from calcpack.working import Table
-
-        self.steps.append(
-            Table(list(columns), [list(r) for r in rows], caption=caption, settings=self.settings)
-        )
 
 
 Logic = Callable[[Recorder], None]

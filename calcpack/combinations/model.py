@@ -20,6 +20,7 @@ from collections.abc import Iterable, Iterator, Mapping, Sequence
 from dataclasses import dataclass, field
 
 from calcpack.errors import InputError
+from calcpack.validate import at_least, each_instance, find, one_of
 
 __all__ = [
     "AppliedCombination",
@@ -49,13 +50,7 @@ def format_factors(factors: Iterable[tuple[str, float]]) -> str:
 
 def _check_factors(factors: Mapping[str, float], where: str) -> dict[str, float]:
     out: dict[str, float] = {}
-    if not factors:
-        raise InputError(
-            f"Combination {where} needs at least one load factor (got factors = {{}})",
-            name="factors",
-            value={},
-            expected="e.g. {'D': 1.2, 'L': 1.6}",
-        )
+    at_least(f"factors of combination {where}", factors, what="load factor")
     for case, f in factors.items():
         if not isinstance(case, str) or not case.strip():
             raise InputError(
@@ -180,30 +175,10 @@ class CombinationSet:
     strict: bool = False
 
     def __post_init__(self) -> None:
-        if self.kind not in KINDS:
-            raise InputError(
-                f"Combination set kind must be one of {list(KINDS)} (got kind = {self.kind!r})",
-                name="kind",
-                value=self.kind,
-                expected=" / ".join(KINDS),
-            )
+        one_of("kind", self.kind, KINDS)
         combos = tuple(self.combinations)
-        if not combos:
-            raise InputError(
-                f"Combination set {self.name!r} has no combinations",
-                name="combinations",
-                value=combos,
-                expected="at least one LoadCombination",
-            )
-        for i, c in enumerate(combos):
-            if not isinstance(c, LoadCombination):
-                raise InputError(
-                    f"Combination set {self.name!r}: combinations[{i}] must be a "
-                    f"LoadCombination (got {c!r})",
-                    name=f"combinations[{i}]",
-                    value=c,
-                    expected="a LoadCombination",
-                )
+        at_least(f"combinations of set {self.name!r}", combos, what="LoadCombination")
+        each_instance("combinations", combos, LoadCombination, expected="a LoadCombination")
         object.__setattr__(self, "combinations", combos)
         if not self.symbols:
             syms: dict[str, str] = {}
@@ -213,16 +188,8 @@ class CombinationSet:
             object.__setattr__(self, "symbols", syms)
 
     def __getitem__(self, name: str) -> LoadCombination:
-        for c in self.combinations:
-            if c.name == name:
-                return c
-        raise InputError(
-            f"Combination set {self.name!r} has no combination {name!r} (it has "
-            f"{[c.name for c in self.combinations]})",
-            name="name",
-            value=name,
-            expected="a combination name of the set",
-        )
+        by_name = {c.name: c for c in self.combinations}
+        return find("name", name, by_name, what="combination", where=f"in set {self.name!r}")
 
     def __iter__(self) -> Iterator[LoadCombination]:
         return iter(self.combinations)

@@ -29,6 +29,7 @@ from calcpack.loads.types import (
     UniformLoad,
 )
 from calcpack.units import Q_, si, ureg
+from calcpack.validate import one_of
 
 __all__ = ["pattern_cases", "span_limits"]
 
@@ -116,13 +117,7 @@ def pattern_cases(
             value=case,
             expected=" / ".join(beam.cases),
         )
-    if patterns not in ("auto", "all", "usual"):
-        raise InputError(
-            f"patterns must be 'auto', 'all' or 'usual' (got patterns = {patterns!r})",
-            name="patterns",
-            value=patterns,
-            expected="auto / all / usual",
-        )
+    one_of("patterns", patterns, ("auto", "all", "usual"))
     spans = span_limits(beam)
     kept: list[Load] = [ld for ld in beam.loads if ld.case != case]
     loaded: list[str] = []

@@ -23,7 +23,7 @@ import numpy as np
 from calcpack.combinations.model import AppliedCombination, CombinationSet
 from calcpack.errors import InputError
 from calcpack.units import Quantity, is_quantity
-from calcpack.validate import finite
+from calcpack.validate import at_least, find, finite, instance, one_of
 
 __all__ = [
     "CombinedResults",
@@ -59,13 +59,7 @@ def superpose(results: Mapping[str, Any], factors: Mapping[str, float]) -> Any:
     Raises:
         InputError: a factor names a case with no result; no factors.
     """
-    if not factors:
-        raise InputError(
-            "superpose needs at least one load factor (got factors = {})",
-            name="factors",
-            value={},
-            expected="e.g. {'D': 1.2, 'L': 1.6}",
-        )
+    at_least("factors", factors, what="load factor")
     total: Any = None
     for case, f in factors.items():
         if case not in results:
@@ -165,16 +159,8 @@ class Envelope:
     results: Mapping[str, Any] = field(repr=False)
 
     def __getitem__(self, quantity: str) -> Governing:
-        for e in self.entries:
-            if e.quantity == quantity:
-                return e
-        raise InputError(
-            f"The envelope has no quantity {quantity!r} (it has "
-            f"{[e.quantity for e in self.entries]})",
-            name="quantity",
-            value=quantity,
-            expected="a quantity of the envelope",
-        )
+        by_quantity = {e.quantity: e for e in self.entries}
+        return find("quantity", quantity, by_quantity, what="quantity", where="in the envelope")
 
     def table(self, caption: str = "Envelope over all combinations", settings: Any = None) -> Any:
         """The envelope as a working table (quantity, extreme, where, governing combination)."""
@@ -197,13 +183,7 @@ class Envelope:
             "shear": lambda r: r.shear,
             "deflection": lambda r: r.deflection,
         }
-        if what not in fns:
-            raise InputError(
-                f"Envelope curve must be of 'moment', 'shear' or 'deflection' (got {what!r})",
-                name="what",
-                value=what,
-                expected="moment / shear / deflection",
-            )
+        one_of("what", what, tuple(fns))
         names = list(self.results)
         vals = [fns[what](self.results[n])(x) for n in names]
         unit = vals[0].units
@@ -262,15 +242,8 @@ class CombinedResults:
     results: Mapping[str, Any] = field(repr=False)
 
     def __getitem__(self, name: str) -> Any:
-        if name not in self.results:
-            raise InputError(
-                f"No combination {name!r} in {self.combination_set.name!r} (combinations are "
-                f"{list(self.results)})",
-                name="combination",
-                value=name,
-                expected="a combination name",
-            )
-        return self.results[name]
+        where = f"in {self.combination_set.name!r}"
+        return find("combination", name, self.results, what="combination", where=where)
 
     def __iter__(self) -> Iterator[str]:
         return iter(self.results)
@@ -332,21 +305,13 @@ def analyse_combinations(
     Raises:
         InputError: no results; a case used by no combination; unknown cases in a strict set.
     """
-    if not isinstance(combination_set, CombinationSet):
-        raise InputError(
-            f"combination_set must be a CombinationSet (got {combination_set!r}); use "
-            "get_combination_set(name) for a built-in set",
-            name="combination_set",
-            value=combination_set,
-            expected="a CombinationSet",
-        )
-    if not case_results:
-        raise InputError(
-            "analyse_combinations needs the results of at least one load case (got none)",
-            name="case_results",
-            value={},
-            expected="load case -> result",
-        )
+    instance(
+        "combination_set",
+        combination_set,
+        CombinationSet,
+        expected="a CombinationSet (get_combination_set(name) gives a built-in set)",
+    )
+    at_least("case_results", case_results, what="load case's result")
     applied = combination_set.apply(case_results.keys(), groups=groups)
     results = {c.name: superpose(case_results, c.factors) for c in applied}
     return CombinedResults(combination_set, applied, dict(case_results), results)

@@ -2,8 +2,9 @@
 
 Quantities are written as strings with their unit, e.g. ``span = "3.2 m"`` or
 ``w = "8.5 kN/m"``; bare numbers are dimensionless (load factors, ratios); other strings
-(``"pin"``, ``"B1"``) stay text. A string that starts with a number must carry a unit that pint
-knows, so ``"3.2"`` (a number written as text, unit forgotten) is refused rather than guessed.
+(``"pin"``, ``"B1"``) stay text, and so do nominal lumber sizes (``"2x10"``, ``"6x6"``). Any
+other string that starts with a number must carry a unit that pint knows, so ``"3.2"`` (a
+number written as text, unit forgotten) is refused rather than guessed.
 
 :func:`load_inputs` reads a file and returns plain dicts and lists with quantities in place of the
 unit strings; :func:`update_inputs` changes some values in place, keeping the file's comments and
@@ -47,6 +48,8 @@ __all__ = [
 ]
 
 _NUMBER_START = re.compile(r"^\s*[-+]?(\d|\.\d)")
+# a nominal lumber size ("2x10", "6x6", "4 x 12"): the trade's name of a size, never a quantity
+_NOMINAL_SIZE = re.compile(r"^\s*\d+\s*[x×]\s*\d+\s*$")
 
 
 class InputsFileError(InputError):
@@ -121,7 +124,9 @@ def parse_quantity(text: str, key: str, *, path: Path | str | None = None) -> Qu
 
 def _convert(value: Any, key: str, path: Path | str | None) -> Any:
     if isinstance(value, str):
-        return parse_quantity(value, key, path=path) if _NUMBER_START.match(value) else value
+        if _NUMBER_START.match(value) and not _NOMINAL_SIZE.match(value):
+            return parse_quantity(value, key, path=path)
+        return value
     if isinstance(value, Mapping):
         return {
             str(k): _convert(v, f"{key}.{k}" if key else str(k), path) for k, v in value.items()
@@ -138,9 +143,22 @@ def _convert(value: Any, key: str, path: Path | str | None) -> Any:
     return value
 
 
-def read_inputs_text(text: str, *, path: Path | str | None = None) -> dict[str, Any]:
+def read_inputs_text(
+    text: str, *, path: Path | str | None = None, tables: Sequence[str] | None = None
+) -> dict[str, Any]:
     """Parse the TOML ``text`` of an inputs file (see :func:`load_inputs`)."""
-    out: dict[str, Any] = _convert(_toml(text, path), "", path)
+    raw = _toml(text, path)
+    if tables is not None:
+        missing = [t for t in tables if t not in raw]
+        if missing:
+            raise InputsFileError(
+                f"{_where(path)}table [{missing[0]}] is missing (tables: {sorted(raw)})",
+                name=missing[0],
+                value=None,
+                expected=f"a [{missing[0]}] table",
+            )
+        raw = {t: raw[t] for t in tables}
+    out: dict[str, Any] = _convert(raw, "", path)
     return out
 
 
@@ -156,11 +174,13 @@ def _toml(text: str, path: Path | str | None) -> dict[str, Any]:
         ) from None
 
 
-def load_inputs(path: Path | str) -> dict[str, Any]:
+def load_inputs(path: Path | str, *, tables: Sequence[str] | None = None) -> dict[str, Any]:
     """Read an inputs file.
 
     Args:
         path: the TOML file (usually ``<sheet>.inputs.toml`` beside the notebook).
+        tables: read only these top-level tables (a file several sheets share, of which a
+            panel edits one or two tables); None reads everything.
 
     Returns:
         Tables as dicts, arrays as lists, unit strings as pint quantities, other values as
@@ -171,7 +191,7 @@ def load_inputs(path: Path | str) -> dict[str, Any]:
             no unit or an unknown one; the message names the file and the key.
     """
     p = Path(path)
-    return read_inputs_text(_read_text(p), path=p)
+    return read_inputs_text(_read_text(p), path=p, tables=tables)
 
 
 def _read_text(p: Path) -> str:
@@ -384,7 +404,9 @@ def _walk_set(doc: Any, parts: Sequence[str | int], value: Any, key: str) -> Non
     node[last] = value
 
 
-def update_inputs(path: Path | str, changes: Mapping[str, Any]) -> dict[str, Any]:
+def update_inputs(
+    path: Path | str, changes: Mapping[str, Any], *, tables: Sequence[str] | None = None
+) -> dict[str, Any]:
     """Change values in an inputs file, keeping its comments, order and layout.
 
     Args:
@@ -392,6 +414,7 @@ def update_inputs(path: Path | str, changes: Mapping[str, Any]) -> dict[str, Any
         changes: dotted key (``"beam.spans[2]"``, list indices 1-based) to new value; a value
             may be a whole table or list (``"loads"`` -> list of dicts) to replace it, or None
             to remove the key; a list index one past the end appends.
+        tables: as for :func:`load_inputs` (the changes must lie in these tables).
 
     Returns:
         The file as :func:`load_inputs` reads it after the change.
@@ -406,9 +429,16 @@ def update_inputs(path: Path | str, changes: Mapping[str, Any]) -> dict[str, Any
     _toml(text, p)  # refuse a file that is not TOML (with the message load_inputs gives)
     doc = tomlkit.parse(text)
     for key, value in changes.items():
+        if tables is not None and split_key(key)[0] not in tables:
+            raise InputsFileError(
+                f"Cannot set {key}: only the tables {list(tables)} are edited here",
+                name=key,
+                value=value,
+                expected=f"a key in {list(tables)}",
+            )
         _walk_set(doc, split_key(key), _to_toml(value), key)
     text = tomlkit.dumps(doc)
-    result = read_inputs_text(text, path=p)  # never write a file we could not read back
+    result = read_inputs_text(text, path=p, tables=tables)  # never write what we cannot read
     _atomic_write(p, text)
     return result
 

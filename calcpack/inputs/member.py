@@ -40,7 +40,8 @@ from calcpack.inputs.file import InputsFileError, Spec, require_input
 from calcpack.inputs.layout import Table, Tables, refuse_unknown_keys
 from calcpack.sections.aisc_database import SteelShape, aisc_shape
 from calcpack.sizing import SizingResult, aisc_candidates, lightest_sections
-from calcpack.units import Q_
+from calcpack.sizing.search import Order
+from calcpack.units import Q_, Quantity
 
 __all__ = ["MemberCase", "MemberOutcome", "evaluate_member", "lightest_member", "member_inputs"]
 
@@ -164,7 +165,14 @@ def evaluate_member(case: MemberCase) -> MemberOutcome:
     return MemberOutcome(case, checks)
 
 
-def lightest_member(case: MemberCase, *, count: int = 5, family: str | None = None) -> SizingResult:
+def lightest_member(
+    case: MemberCase,
+    *,
+    count: int = 5,
+    family: str | None = None,
+    order: Order = "weight",
+    max_depth: Quantity | None = None,
+) -> SizingResult:
     """The lightest shapes of the member's family (or ``family``) passing every check of every
     combination, with the same grade, lengths and forces (see
     :func:`calcpack.sizing.lightest_sections`)."""
@@ -182,4 +190,6 @@ def lightest_member(case: MemberCase, *, count: int = 5, family: str | None = No
             for f in case.forces
         ]
 
-    return lightest_sections(aisc_candidates(fam), trial, count=count)
+    return lightest_sections(
+        aisc_candidates(fam), trial, count=count, order=order, max_depth=max_depth
+    )

@@ -17,8 +17,8 @@ from dataclasses import dataclass, field
 from typing import Any
 
 from calcpack.checks.base import Recorder, SheetRecorder
-from calcpack.errors import InputError
 from calcpack.units import Quantity
+from calcpack.validate import find
 
 __all__ = [
     "LOAD_CAUTIONS",
@@ -104,14 +104,7 @@ class Derivation:
     logic: Logic = field(repr=False, compare=False)
 
     def __getitem__(self, name: str) -> Quantity:
-        if name not in self.values:
-            raise InputError(
-                f"Derivation {self.title!r} has no value {name!r} (values are {list(self.values)})",
-                name="name",
-                value=name,
-                expected="a symbol of the derivation",
-            )
-        return self.values[name]
+        return find("name", name, self.values, what="value", where=f"of {self.title!r}")
 
     def working(self, *, settings: Any = None) -> list[Any]:
         """The derivation as working steps: heading, caution, then each step with its clause."""

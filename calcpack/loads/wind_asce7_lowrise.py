@@ -7,11 +7,12 @@ roof angle, Figure 28.3-1, straight-line interpolation) and 1–6, 1E–6E (load
 than 4 % of the least horizontal dimension nor 3 ft; minimum loads of §28.3.4.
 
 Components and cladding: p = q_h [(GCp) − (GCpi)] (Eq. 30.3-1), GCp from Figure 30.3-1 (walls,
-reduced 10 % when θ <= 10°) and Figure 30.3-2A (gable and hip roofs θ <= 7°) as a function of the
-effective wind area A: constant below A1, straight on log10 A to A2, constant beyond; net
-pressure at least 16 psf (0.77 kN/m²) either way (§30.2.2). Other roof slopes and shapes are
-refused (not yet covered). The effective area of a member is its span times the larger of its
-tributary width and a third of its span (§26.2).
+reduced 10 % when θ <= 10°) and Figures 30.3-2A to 30.3-2I and 30.3-5A/B (gable, hip and
+monoslope roofs, see :mod:`calcpack.loads.wind_asce7_cc`) as a function of the effective wind
+area A, log-linear between the figure's points and constant outside them; net pressure at least
+16 psf (0.77 kN/m²) either way (§30.2.2). The zone dimension a = max(min(0.1 B, 0.4 h), 0.04 B,
+3 ft), B the least horizontal dimension. The effective area of a member is its span times the
+larger of its tributary width and a third of its span (§26.2).
 
 Sign convention: pressure positive toward the surface (on a roof: downward), suction negative.
 Provisions must be confirmed against the edition adopted locally; the derivation must be
@@ -21,7 +22,6 @@ reviewed and sealed under licensed practice.
 from __future__ import annotations
 
 import itertools
-import math
 from dataclasses import dataclass
 from typing import Any, Literal
 
@@ -35,6 +35,7 @@ from calcpack.loads.wind_asce7 import (
     internal_pressure_coefficient,
     record_velocity_pressure,
 )
+from calcpack.loads.wind_asce7_cc import cc_coefficient_asce7, cc_figures
 from calcpack.refdata import read_table
 from calcpack.units import Q_, Quantity
 from calcpack.validate import dimension, one_of, positive, within
@@ -247,49 +248,6 @@ def envelope_wind_asce7(site: WindSiteASCE7, b: LowRiseBuildingASCE7) -> Envelop
     return EnvelopeWindASCE7(out["qh"], gcpi, out["a"], out["g"], out["p"], out["mw"], out["mr"], d)
 
 
-def cc_coefficient_asce7(
-    surface: str, zone: str, area: Quantity, theta: Quantity
-) -> tuple[float, float]:
-    """(positive, negative) GCp for components and cladding (ASCE 7-16 Figures 30.3-1, 30.3-2A).
-
-    Args:
-        surface: ``"wall"`` or ``"roof"``. zone: ``"4"``/``"5"`` (walls), ``"1'"``, ``"1"``,
-            ``"2"``, ``"3"`` (roofs). area: effective wind area. theta: roof angle.
-
-    Raises:
-        OutOfScopeError: a roof steeper than 7° (Figures 30.3-2B to 2I are not yet covered).
-    """
-    one_of("surface", surface, ("wall", "roof"))
-    dimension("area", area, "[area]")
-    positive("area", area)
-    th = float(theta.to("deg").magnitude)
-    key_surface = "wall"
-    if surface == "roof":
-        if th > 7.0:
-            raise OutOfScopeError(
-                f"Input roof_slope = {th:.3g}°: components and cladding on roofs steeper than 7° "
-                "(ASCE 7-16 Figures 30.3-2B to 30.3-2I) are not covered yet; the limit is 7°"
-            )
-        key_surface = "roof7"
-    one_of("zone", zone, ("4", "5") if surface == "wall" else ("1'", "1", "2", "3"))
-    table = read_table("asce7_16_wind_cc.csv", key="key")
-    A = float(area.to("ft^2").magnitude)
-    out = []
-    for sign in ("+", "-"):
-        row = table.row(f"{key_surface} {zone} {sign}")
-        A1, g1, A2, g2 = (float(row[k]) for k in ("A1_ft2", "GCp1", "A2_ft2", "GCp2"))
-        if A <= A1:
-            g = g1
-        elif A >= A2:
-            g = g2
-        else:
-            g = g1 + (g2 - g1) * math.log10(A / A1) / math.log10(A2 / A1)
-        if surface == "wall" and th <= 10.0:
-            g *= 0.9  # Figure 30.3-1 note 5: walls of buildings with θ <= 10°
-        out.append(g)
-    return out[0], out[1]
-
-
 def effective_wind_area(span: Quantity, spacing: Quantity) -> Quantity:
     """Effective wind area of a member: span × max(spacing, span/3) (ASCE 7-16 §26.2)."""
     dimension("span", span, "[length]")
@@ -307,6 +265,8 @@ class CCWindASCE7:
         area: effective wind area. GCp_pos, GCp_neg: external coefficients. GCpi: internal (±).
         p_pos: the largest inward (downward on a roof) pressure, q_h (GCp+ + GCpi).
         p_neg: the largest outward (uplift) pressure, q_h (GCp− − GCpi), negative.
+        a: the zone dimension of the figure (edge and corner zones are set out in multiples of
+            a). figure: the figure(s) the coefficients come from.
     """
 
     surface: str
@@ -319,6 +279,8 @@ class CCWindASCE7:
     p_pos: Quantity
     p_neg: Quantity
     derivation: Derivation
+    a: Quantity | None = None
+    figure: str = ""
 
     def working(self, *, settings: Any = None) -> list[Any]:
         return self.derivation.working(settings=settings)
@@ -330,26 +292,42 @@ class CCWindASCE7:
 def components_wind_asce7(
     site: WindSiteASCE7, b: LowRiseBuildingASCE7, *, surface: str, zone: str, area: Quantity
 ) -> CCWindASCE7:
-    """Net C&C pressures on an element of effective wind area ``area`` (ASCE 7-16 §30.3)."""
-    gp, gn = cc_coefficient_asce7(surface, zone, area, b.roof_slope)
-    if surface == "roof" and b.roof == "monoslope":
-        raise OutOfScopeError(
-            "Input roof = 'monoslope': ASCE 7-16 Figures 30.3-5A/B are not covered yet"
-        )
+    """Net C&C pressures on an element of effective wind area ``area`` (ASCE 7-16 §30.3).
+
+    Args:
+        site: the wind site. b: the building (its roof form and angle choose the figure).
+        surface: ``"wall"`` or ``"roof"``. zone: a zone of the figure
+            (:func:`~calcpack.loads.wind_asce7_cc.cc_roof_zones`). area: effective wind area.
+
+    Raises:
+        OutOfScopeError: a roof form or angle outside Chapter 30 Part 1 as covered here.
+    """
+    hB = float((b.h / b.least_dimension).to("").magnitude)
+    gp, gn = cc_coefficient_asce7(surface, zone, area, b.roof_slope, roof=b.roof, h_over_B=hB)
+    fig = cc_figures(surface, b.roof, b.roof_slope, zone, hB)
     gcpi = internal_pressure_coefficient(b.enclosure)
     us = is_us_customary(site.V)
-    unit = "psf" if us else "kN/m^2"
-    fig = "ASCE 7-16 Figure 30.3-1" if surface == "wall" else "ASCE 7-16 Figure 30.3-2A"
+    unit, lu = ("psf", "ft") if us else ("kN/m^2", "m")
     out: dict[str, Any] = {}
+    hip_between = (
+        surface == "roof" and b.roof == "hip" and 7.0 < b.theta_deg <= 27.0 and 0.5 < hB < 0.8
+    )
 
     def logic(r: Recorder) -> None:
         qh = record_velocity_pressure(r, site, b.h, "q_h")
+        a = _record_a(r, b, lu)
         A = r.given("A", area, "effective wind area")
         r.text(
-            f"GCp for {surface} zone {zone} at A = {r.q(A):.4g~P}: constant up to A1, "
-            "straight on log10 A to A2, constant beyond"
+            f"GCp for {surface} zone {zone} ({b.roof} roof, θ = {b.theta_deg:.3g}°) at "
+            f"A = {r.q(A):.4g~P}: constant up to the figure's first area, straight on log10 A "
+            "between its points, constant beyond the last"
             + (" (walls reduced 10 % for θ <= 10°)." if surface == "wall" else ".")
         )
+        if hip_between:
+            r.text(
+                f"h/B = {hB:.3g} lies between the hip figures' 0.5 and 0.8: the more severe of "
+                "the two is taken (conservative, not interpolated)."
+            )
         gpos = r.given("GC_p_pos", gp, f"{surface} zone {zone}, positive", source=fig)
         gneg = r.given("GC_p_neg", gn, f"{surface} zone {zone}, negative", source=fig)
         gi = r.given("GCpi", gcpi, f"{b.enclosure}, applied ±", source="ASCE 7-16 Table 26.13-1")
@@ -368,9 +346,11 @@ def components_wind_asce7(
             unit=unit,
             ref="ASCE 7-16 Eq. 30.3-1, §30.2.2",
         )
-        out.update(qh=r.q(qh), pp=r.q(pp), pn=r.q(pn))
+        out.update(qh=r.q(qh), pp=r.q(pp), pn=r.q(pn), a=r.q(a))
 
     d = run_derivation(
         f"Wind on components and cladding ({surface} zone {zone})", ASCE7_WIND, logic
     )
-    return CCWindASCE7(surface, zone, area, out["qh"], gp, gn, gcpi, out["pp"], out["pn"], d)
+    return CCWindASCE7(
+        surface, zone, area, out["qh"], gp, gn, gcpi, out["pp"], out["pn"], d, out["a"], fig
+    )

@@ -86,7 +86,7 @@ def convert_sheet(
     index: int,
     bodies: Path,
     count: PageCounting | None,
-    math: MathCache | None = None,
+    math: MathCache,
 ) -> ConvertedSheet:
     """Convert a sheet (:func:`calcpack.package.sheetdoc.prepare_sheet`, formulas in
     ``math``), count its pages on its own when ``count`` is given
@@ -94,7 +94,7 @@ def convert_sheet(
     from calcpack.package.sheetdoc import count_sheet_pages, prepare_sheet
 
     doc = prepare_sheet(item.entry, item, source=source, math=math)
-    pages = count_sheet_pages(doc, *count) if count else None
+    pages = count_sheet_pages(doc, *count, math) if count else None
     return ConvertedSheet(spill_body(doc, index, bodies), pages)
 
 

@@ -9,14 +9,15 @@ section's following pages.
 from __future__ import annotations
 
 import datetime as _dt
-import math
 from collections.abc import Sequence
 from dataclasses import dataclass, field
 from html import escape
+from math import isfinite
 from typing import Any
 
 from calcpack.contract.compare import Change
 from calcpack.contract.records import SheetRecords
+from calcpack.package.mathcache import MathCache
 from calcpack.package.project import Person, Project, SheetEntry
 from calcpack.working.format import format_number
 from calcpack.working.render import symbols_html
@@ -110,7 +111,7 @@ class DocumentOptions:
 def format_sig(value: float | None, sig_figs: int = 3) -> str:
     """A number to ``sig_figs`` significant figures by the working's formatter (the one number
     formatter of a package), or a dash when there is none."""
-    if value is None or not math.isfinite(value):
+    if value is None or not isfinite(value):
         return "—"
     return format_number(value, sig_figs)
 
@@ -133,15 +134,15 @@ def _person_date(person: Person, fallback: _dt.date | None) -> str:
     return _date(person.date or fallback)
 
 
-def _markdown(text: str) -> str:
+def _markdown(text: str, math: MathCache) -> str:
     from calcpack.package.convert import _cp_markdown
     from calcpack.package.mathsvg import math_spans_to_images
 
-    return math_spans_to_images(_cp_markdown(text))
+    return math_spans_to_images(_cp_markdown(text), math)
 
 
-def _inline_markdown(text: str) -> str:
-    html = _markdown(text).strip()
+def _inline_markdown(text: str, math: MathCache) -> str:
+    html = _markdown(text, math).strip()
     if html.startswith("<p>") and html.endswith("</p>") and html.count("<p>") == 1:
         html = html[3:-4]
     return html
@@ -312,7 +313,7 @@ def _list(items: Sequence[str], ordered: bool = False) -> str:
     return f'<{tag} class="cp-list">' + "".join(f"<li>{i}</li>" for i in items) + f"</{tag}>"
 
 
-def _design_basis(project: Project, sheets: Sequence[SheetDoc]) -> str:
+def _design_basis(project: Project, sheets: Sequence[SheetDoc], math: MathCache) -> str:
     d = project.design
     parts = [
         _titleblock(project, sheet_no="—", title="Design basis", pages=None),
@@ -333,16 +334,21 @@ def _design_basis(project: Project, sheets: Sequence[SheetDoc]) -> str:
     )
     if d.materials:
         parts.append(
-            '<h2 class="cp-h">Materials</h2>' + _list([_inline_markdown(m) for m in d.materials])
+            '<h2 class="cp-h">Materials</h2>'
+            + _list([_inline_markdown(m, math) for m in d.materials])
         )
     if d.loads:
-        parts.append('<h2 class="cp-h">Loads</h2>' + _list([_inline_markdown(m) for m in d.loads]))
+        parts.append(
+            '<h2 class="cp-h">Loads</h2>' + _list([_inline_markdown(m, math) for m in d.loads])
+        )
     if d.basis:
-        parts.append('<h2 class="cp-h">Basis of design</h2>' + _markdown(d.basis))
+        parts.append('<h2 class="cp-h">Basis of design</h2>' + _markdown(d.basis, math))
     return "".join(parts)
 
 
-def _gathered(general: Sequence[str], sheets: Sequence[SheetDoc], field_name: str) -> list[str]:
+def _gathered(
+    general: Sequence[str], sheets: Sequence[SheetDoc], field_name: str, math: MathCache
+) -> list[str]:
     """Each text once, in first-seen order, with the sheets that declare it: a caution every
     sheet of one standard carries is said once, "(sheets 1, 2, 4)"."""
     seen: dict[str, list[str]] = {}
@@ -359,14 +365,14 @@ def _gathered(general: Sequence[str], sheets: Sequence[SheetDoc], field_name: st
         if where:
             label = "sheet" if len(where) == 1 else "sheets"
             tag = f' <span class="cpd-src">({label} {_e(", ".join(where))})</span>'
-        out.append(_inline_markdown(text) + tag)
+        out.append(_inline_markdown(text, math) + tag)
     return out
 
 
-def _assumptions(project: Project, sheets: Sequence[SheetDoc]) -> str:
-    assumptions = _gathered(project.design.assumptions, sheets, "assumptions")
+def _assumptions(project: Project, sheets: Sequence[SheetDoc], math: MathCache) -> str:
+    assumptions = _gathered(project.design.assumptions, sheets, "assumptions", math)
     standard = [_e(c) for c in STANDARD_CAUTIONS]
-    cautions = standard + _gathered(project.design.cautions, sheets, "cautions")
+    cautions = standard + _gathered(project.design.cautions, sheets, "cautions", math)
     body = (
         _list(assumptions, ordered=True)
         if assumptions
@@ -500,9 +506,15 @@ def page_name(index: int) -> str:
 
 
 def document_html(
-    project: Project, sheets: Sequence[SheetDoc], options: DocumentOptions, *, created: _dt.datetime
+    project: Project,
+    sheets: Sequence[SheetDoc],
+    options: DocumentOptions,
+    *,
+    created: _dt.datetime,
+    math: MathCache,
 ) -> str:
-    """The whole package as one HTML document for WeasyPrint."""
+    """The whole package as one HTML document for WeasyPrint; formulas of the front matter
+    (materials, loads, basis, assumptions) are typeset into ``math``, the run's own cache."""
     from calcpack.package.convert import package_css
     from calcpack.package.verification_html import verification_html
 
@@ -548,10 +560,10 @@ def document_html(
             _toc(project, sheets, back, front, options.revisions.changed),
             "</section>",
             '<section class="cp-section cp-front" id="design-basis">',
-            _design_basis(project, sheets),
+            _design_basis(project, sheets, math),
             "</section>",
             '<section class="cp-section cp-front" id="assumptions">',
-            _assumptions(project, sheets),
+            _assumptions(project, sheets, math),
             "</section>",
         ]
     for i, sheet in enumerate(sheets, start=1):

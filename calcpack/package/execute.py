@@ -223,9 +223,8 @@ def _execute(path: str, sheet: str, timeout: float, exports: str | None = None) 
             log=_QUIET_LOG,
             kernel_name="python3",
             kernel_spec_manager=SamePython(),
-            transport="ipc",
-            ip=os.path.join(sockets, "k"),
             connection_file=os.path.join(sockets, "kernel.json"),
+            **_kernel_transport(sockets),
         )
         client = NotebookClient(
             nb,
@@ -251,6 +250,21 @@ def _execute(path: str, sheet: str, timeout: float, exports: str | None = None) 
             except Exception:
                 pass
     return str(nbformat.writes(nb))
+
+
+_SOCKET_PATH_MAX = 100
+"""Longest socket path used for a kernel's channels: a Unix socket address holds 107 bytes on
+Linux (104 on BSD and macOS); the channel names add ``-`` and a number."""
+
+
+def _kernel_transport(sockets: str) -> dict[str, str]:
+    """The kernel's channels: Unix sockets in the build's own folder (nothing listens on a
+    network port), or the loopback interface when that folder's path is too long for a socket
+    address (a deep TMPDIR), which would otherwise fail with "File name too long"."""
+    ip = os.path.join(sockets, "k")
+    if len(os.fsencode(ip)) + 8 <= _SOCKET_PATH_MAX:
+        return {"transport": "ipc", "ip": ip}
+    return {"transport": "tcp", "ip": "127.0.0.1"}
 
 
 _QUIET_LOG = logging.getLogger("calcpack.kernel")

@@ -46,7 +46,6 @@ __all__ = [
     "fix_tex",
     "markdown_math_to_spans",
     "math_spans_to_images",
-    "process_cache",
     "tex_to_svg",
 ]
 
@@ -116,23 +115,13 @@ def _clear_radical_rule() -> None:
     _patched = True
 
 
-_PROCESS_CACHE = MathCache()
-"""Formulas typeset outside a build (a sheet exported on its own, the design basis text): a
-build passes its own :class:`MathCache` to every function here."""
-
-
-def process_cache() -> MathCache:
-    """The cache the functions here use when none is passed."""
-    return _PROCESS_CACHE
-
-
 def tex_to_svg(
     tex: str,
     *,
     display: bool = False,
     size_px: float = MATH_PX_PER_EM,
     track: bool = True,
-    cache: MathCache | None = None,
+    cache: MathCache,
 ) -> MathImage:
     """Typeset one TeX formula as SVG (cached by TeX source, style and size).
 
@@ -141,12 +130,12 @@ def tex_to_svg(
         display: display style (limits above/below, full-size fractions) rather than inline.
         size_px: math font size in CSS px.
         track: count the formula as used, so the build keeps it in the disk cache.
-        cache: where typeset formulas are kept (default: :func:`process_cache`).
+        cache: where typeset formulas are kept: the run's own cache (a build's, or one made
+            for a single sheet's export); no cache outlives its run.
 
     Raises:
         BuildError: ziamath cannot typeset the formula (the message quotes the TeX).
     """
-    cache = cache or _PROCESS_CACHE
     key = (tex, display, float(size_px))
     if track:
         cache.used.add(key)
@@ -249,14 +238,13 @@ def fitted_image(
     display: bool,
     width_px: float = MATH_MAX_WIDTH_PX,
     *,
-    cache: MathCache | None = None,
+    cache: MathCache,
 ) -> MathImage:
     """The formula's image, broken over lines if display math is wider than ``width_px``.
 
     What still does not fit (one very long term, wide inline math) is left to :func:`_img`,
     which scales the image down to the column. ``cache`` as :func:`tex_to_svg`.
     """
-    cache = cache or _PROCESS_CACHE
     key = (tex, float(width_px))
     broken = cache.breaks.get(key) if display else None
     if broken is None and display and len(tex) > _SURELY_WIDE_TEX:
@@ -271,7 +259,7 @@ def fitted_image(
     return image
 
 
-def _img(tex: str, display: bool, cache: MathCache | None) -> str:
+def _img(tex: str, display: bool, cache: MathCache) -> str:
     image = fitted_image(tex, display, cache=cache)
     # Never past the margin: an image still too wide is scaled, baseline and all.
     scale = min(1.0, MATH_MAX_WIDTH_PX / image.width_px) if image.width_px else 1.0
@@ -287,10 +275,10 @@ def _img(tex: str, display: bool, cache: MathCache | None) -> str:
     )
 
 
-def math_spans_to_images(markup: str, cache: MathCache | None = None) -> str:
+def math_spans_to_images(markup: str, cache: MathCache) -> str:
     """Replace every calcpack math span in HTML by its SVG image and invisible plain text.
 
-    ``cache`` keeps the typeset formulas (default: :func:`process_cache`).
+    ``cache`` keeps the typeset formulas (the run's own, as :func:`tex_to_svg`).
 
     Raises:
         BuildError: a formula cannot be typeset.

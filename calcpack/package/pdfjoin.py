@@ -45,11 +45,13 @@ def join_chunks(first: bytes, rest: Sequence[bytes], links: Sequence[Link]) -> b
     from pypdf import PdfReader, PdfWriter
 
     base = PdfReader(io.BytesIO(first))
+    _share_streams_in_arrays(base)
     writer = PdfWriter(clone_from=base)
     writer.pdf_header = base.pdf_header
     tagged = "/StructTreeRoot" in writer.root_object
     for n, data in enumerate(rest, start=1):
         reader = PdfReader(io.BytesIO(data))
+        _share_streams_in_arrays(reader)
         start = len(writer.pages)
         writer.append(reader, import_outline=True)
         if tagged:
@@ -60,6 +62,38 @@ def join_chunks(first: bytes, rest: Sequence[bytes], links: Sequence[Link]) -> b
     out = io.BytesIO()
     writer.write(out)
     return out.getvalue()
+
+
+def _share_streams_in_arrays(reader: Any) -> None:
+    """Point every direct array's reference to a stream at the stream object itself, so that
+    cloning or appending the document copies each stream once.
+
+    pypdf clones a referenced stream inside a direct array as a new object each time it meets
+    the array (``ArrayObject.clone`` forces the duplicate): WeasyPrint's transparency groups
+    each carry ``/CS [/ICCBased n 0 R]``, so the sRGB profile was copied once per group, the
+    clone held more objects than the chunk's trailer ``/Size`` and pypdf warned "Object count
+    N exceeds defined trailer size". Given the stream object (which keeps its own reference),
+    the clone finds the copy it already made. Only this reader's objects in memory change.
+    """
+    from pypdf.generic import ArrayObject, DictionaryObject, IndirectObject, StreamObject
+
+    def visit(obj: Any) -> None:
+        if isinstance(obj, ArrayObject):
+            for i, item in enumerate(obj):
+                if isinstance(item, IndirectObject):
+                    target = item.get_object()
+                    if isinstance(target, StreamObject):
+                        obj[i] = target
+                else:
+                    visit(item)
+        elif isinstance(obj, DictionaryObject):
+            for value in obj.values():
+                if not isinstance(value, IndirectObject):
+                    visit(value)
+
+    numbers = {n for table in reader.xref.values() for n in table} | set(reader.xref_objStm)
+    for number in sorted(numbers - {0}):
+        visit(reader.get_object(number))
 
 
 def _add_link(writer: Any, link: Link) -> Any:

@@ -334,11 +334,13 @@ def lay_out(
     pool: concurrent.futures.Executor | None,
     bodies: Path,
     store: ChunkStore | None,
+    math: MathCache,
 ) -> Layout:
     """Paginate the package (see :func:`calcpack.package.paginate.paginate`).
 
     The sheets carry placeholders for their bodies, which wait in files in ``bodies`` (see
-    :mod:`calcpack.package.bodies`) and are filled in chunk by chunk.
+    :mod:`calcpack.package.bodies`) and are filled in chunk by chunk. Formulas of the
+    front matter are typeset into the build's ``math``.
     """
     docs = list(sheets.docs)
     sheet_ids = _sheet_ids(docs)
@@ -359,7 +361,7 @@ def lay_out(
     project, created = ctx.project, ctx.created
     return paginate(
         lambda counts: document_html(
-            project, docs, replace(options, sheet_pages=counts), created=created
+            project, docs, replace(options, sheet_pages=counts), created=created, math=math
         ),
         sheet_ids=sheet_ids,
         section_ids=section_ids,
@@ -538,7 +540,7 @@ def build(
             review=review,
             verifications=compared,
         )
-        layout = lay_out(ctx, sheets, options, pool, bodies, store)
+        layout = lay_out(ctx, sheets, options, pool, bodies, store, math)
     if use_cache:
         math.save(math_file)
     manifest = make_manifest(ctx, sheets, layout, compared, review_file).to_json()

@@ -93,12 +93,12 @@ def prepare_sheet(
     executed: ExecutedSheet | Any,
     *,
     source: bool = False,
-    math: MathCache | None = None,
+    math: MathCache,
 ) -> SheetDoc:
     """Convert one executed sheet to HTML with its math as SVG images, and read its records.
 
-    ``source`` keeps the code cells (for the reviewer's copy); ``math`` is the build's
-    formula cache (default: the process's own, :func:`calcpack.package.mathsvg.process_cache`).
+    ``source`` keeps the code cells (for the reviewer's copy); ``math`` is the run's formula
+    cache (the build's, or the one a single sheet's export makes for itself).
 
     Raises:
         BuildError: a formula cannot be typeset (the message names the sheet).
@@ -159,7 +159,11 @@ def anchor_checks(body: str, path: str, count: int) -> tuple[str, tuple[str, ...
 
 
 def count_sheet_pages(
-    doc: SheetDoc, project: Project, options: DocumentOptions, created: _dt.datetime
+    doc: SheetDoc,
+    project: Project,
+    options: DocumentOptions,
+    created: _dt.datetime,
+    math: MathCache,
 ) -> int:
     """The pages a sheet takes, laid out on its own.
 
@@ -169,7 +173,11 @@ def count_sheet_pages(
     from calcpack.package.paginate import count_pages
 
     html = document_html(
-        project, [doc], replace(options, sheets_only=True, sheet_pages={}), created=created
+        project,
+        [doc],
+        replace(options, sheets_only=True, sheet_pages={}),
+        created=created,
+        math=math,
     )
     return count_pages(html, ["sheet-1"], base_url=str(project.root))["sheet-1"]
 
@@ -182,6 +190,8 @@ def single_sheet_pdf(
     Job fields come from ``project`` (the project file found above the notebook) when given,
     the sheet's number and title from its entry there (``path``: the notebook's path relative
     to the project); otherwise from the notebook's ``metadata.calcpack`` when present.
+    The formulas are typeset into a cache of this export's own (as a build has its own), so
+    nothing typeset here is kept in the process after it.
     """
     meta = dict(nb.metadata.get("calcpack", {}) or {})
     today = _dt.date.today()
@@ -217,12 +227,13 @@ def _project_from_metadata(meta: dict[str, Any], name: str, today: _dt.date) -> 
 def _sheet_pdf(project: Project, nb: Any, name: str, today: _dt.date) -> bytes:
     from calcpack import __version__
 
-    doc = prepare_sheet(project.sheets[0], nb)
+    math = MathCache()
+    doc = prepare_sheet(project.sheets[0], nb, math=math)
     created = _dt.datetime(today.year, today.month, today.day, tzinfo=_dt.UTC)
     options = DocumentOptions(paper=project.paper, calcpack_version=__version__, sheets_only=True)
     layout = paginate(
         lambda counts: document_html(
-            project, [doc], replace(options, sheet_pages=counts), created=created
+            project, [doc], replace(options, sheet_pages=counts), created=created, math=math
         ),
         sheet_ids={doc.entry.path: "sheet-1"},
         section_ids=["sheet-1"],

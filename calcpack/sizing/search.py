@@ -28,7 +28,7 @@ from calcpack.errors import InputError, OutOfScopeError
 from calcpack.units import Quantity, require
 from calcpack.validate import one_of
 
-__all__ = ["Candidate", "SizingResult", "Trial", "lightest_sections"]
+__all__ = ["Candidate", "SearchSpace", "SizingResult", "Trial", "lightest_sections"]
 
 C = TypeVar("C")
 
@@ -247,3 +247,37 @@ def lightest_sections(
         closest = min(scored, key=lambda t: t.utilisation or 0.0) if scored else None
         next_lighter = None
     return SizingResult(tuple(passing), next_lighter, closest, tuple(tried), order)
+
+
+@dataclass(frozen=True)
+class SearchSpace(Generic[C]):
+    """What a member search tries: the candidates, the trial that checks one, and an optional
+    screen. The member panels check the section on screen with the same ``trial`` the search
+    uses, so a pick shows exactly the utilisations the ranking gave it.
+
+    Attributes:
+        candidates: the sections offered (any order). trial: checks one candidate's ``item``
+            (as for :func:`lightest_sections`). screen: optional necessary condition.
+    """
+
+    candidates: tuple[Candidate[C], ...]
+    trial: Callable[[C], Any]
+    screen: Callable[[C], str | None] | None = None
+
+    def check(self, item: C) -> list[Any]:
+        """Every check of one section (a list of :class:`calcpack.checks.MemberChecks`)."""
+        out = self.trial(item)
+        return list(out) if isinstance(out, list | tuple) else [out]
+
+    def search(
+        self, *, count: int = 5, order: Order = "weight", max_depth: Quantity | None = None
+    ) -> SizingResult:
+        """:func:`lightest_sections` over this space."""
+        return lightest_sections(
+            self.candidates,
+            self.trial,
+            count=count,
+            order=order,
+            max_depth=max_depth,
+            screen=self.screen,
+        )

@@ -31,11 +31,17 @@ from calcpack.sections.aisc_database import (
     aisc_shape,
     aisc_shape_names,
 )
-from calcpack.sizing.search import Candidate, Order, SizingResult, lightest_sections
+from calcpack.sizing.search import Candidate, Order, SearchSpace, SizingResult
 from calcpack.units import Quantity, require
 from calcpack.validate import one_of
 
-__all__ = ["DeflectionLimit", "aisc_candidates", "lightest_aisc_beam"]
+__all__ = [
+    "DeflectionLimit",
+    "aisc_beam_space",
+    "aisc_candidates",
+    "flag_heavier",
+    "lightest_aisc_beam",
+]
 
 #: resistance factor and safety factor of AISC 360-16 §F1 used by the plastic-moment screen
 PHI_B = 0.90
@@ -163,6 +169,64 @@ def prismatic_stiffness(results: Mapping[str, Any]) -> Quantity:
     return beam.EI
 
 
+def aisc_beam_space(
+    demand: Any,
+    *,
+    Fy: Quantity,
+    method: Literal["LRFD", "ASD"] = "LRFD",
+    braces: Sequence[Quantity] | None = None,
+    continuous_bracing: bool = False,
+    deflections: Sequence[DeflectionLimit] = (),
+    family: IFamily = "W",
+    nominal_depth: int | Sequence[int] | None = None,
+    E: Quantity = E_STEEL,
+    member: str = "B1",
+) -> SearchSpace[SteelShape]:
+    """The search space of :func:`lightest_aisc_beam` (same arguments): the shapes of
+    ``family``, the plastic-moment screen and the trial (check_aisc_beam and the deflection
+    limits scaled to the shape's I_x). ``space.check(aisc_shape("W10X12"))`` checks one shape
+    exactly as the search does."""
+    one_of("method", method, ("LRFD", "ASD"))
+    one_of("family", family, I_FAMILIES)
+    require(Fy, "[pressure]", "Fy", positive=True)
+    require(E, "[pressure]", "E", positive=True)
+    combos = as_combinations(demand)
+    EI_ref = prismatic_stiffness(combos)
+    check_service_results(deflections, EI_ref)
+    M_max = max(max_abs(r, "moment")[0] for r in combos.values())
+
+    def screen(shape: SteelShape) -> str | None:
+        Mp = (Fy * shape["Zx"]).to("kip*ft")
+        cap = PHI_B * Mp if method == "LRFD" else Mp / OMEGA_B
+        if cap < M_max:
+            what = "φ_b·M_p" if method == "LRFD" else "M_p/Ω_b"
+            return (
+                f"{what} = {cap:.4g~P} < {M_max.to('kip*ft'):.4g~P} (plastic-moment bound, "
+                "AISC 360-16 §F2.1)"
+            )
+        return None
+
+    def trial(shape: SteelShape) -> list[MemberChecks]:
+        out = [
+            check_aisc_beam(
+                shape.ishape(),
+                Fy=Fy,
+                E=E,
+                method=method,
+                member=member,
+                demand=demand,
+                braces=braces,
+                continuous_bracing=continuous_bracing,
+            )
+        ]
+        factor = float((EI_ref / (E * shape["Ix"])).to("").magnitude)
+        out += scaled_deflection_checks(deflections, factor, member)
+        return out
+
+    cands = tuple(aisc_candidates(family, nominal_depth=nominal_depth))
+    return SearchSpace(cands, trial, screen)
+
+
 def lightest_aisc_beam(
     demand: Any,
     *,
@@ -204,59 +268,21 @@ def lightest_aisc_beam(
         OutOfScopeError: a beam with springs or stiffness segments.
         InputError: bad method, family, depth limit or units.
     """
-    one_of("method", method, ("LRFD", "ASD"))
-    one_of("family", family, I_FAMILIES)
-    require(Fy, "[pressure]", "Fy", positive=True)
-    require(E, "[pressure]", "E", positive=True)
     if self_weight_assumed is not None:
         require(self_weight_assumed, "[force] / [length]", "self_weight_assumed")
-    combos = as_combinations(demand)
-    EI_ref = prismatic_stiffness(combos)
-    check_service_results(deflections, EI_ref)
-    M_max = max(max_abs(r, "moment")[0] for r in combos.values())
-
-    def screen(shape: SteelShape) -> str | None:
-        Mp = (Fy * shape["Zx"]).to("kip*ft")
-        cap = PHI_B * Mp if method == "LRFD" else Mp / OMEGA_B
-        if cap < M_max:
-            what = "φ_b·M_p" if method == "LRFD" else "M_p/Ω_b"
-            return (
-                f"{what} = {cap:.4g~P} < {M_max.to('kip*ft'):.4g~P} (plastic-moment bound, "
-                "AISC 360-16 §F2.1)"
-            )
-        return None
-
-    def trial(shape: SteelShape) -> list[MemberChecks]:
-        out = [
-            check_aisc_beam(
-                shape.ishape(),
-                Fy=Fy,
-                E=E,
-                method=method,
-                member=member,
-                demand=demand,
-                braces=braces,
-                continuous_bracing=continuous_bracing,
-            )
-        ]
-        factor = float((EI_ref / (E * shape["Ix"])).to("").magnitude)
-        out += scaled_deflection_checks(deflections, factor, member)
-        return out
-
-    result = lightest_sections(
-        aisc_candidates(family, nominal_depth=nominal_depth),
-        trial,
-        count=count,
-        order=order,
-        max_depth=max_depth,
-        screen=screen,
-    )
+    space = aisc_beam_space(
+        demand, Fy=Fy, method=method, braces=braces, continuous_bracing=continuous_bracing,
+        deflections=deflections, family=family, nominal_depth=nominal_depth, E=E, member=member,
+    )  # fmt: skip
+    result = space.search(count=count, order=order, max_depth=max_depth)
     if self_weight_assumed is None:
         return result
-    return _flag_heavier(result, self_weight_assumed)
+    return flag_heavier(result, self_weight_assumed)
 
 
-def _flag_heavier(result: SizingResult, assumed: Quantity) -> SizingResult:
+def flag_heavier(result: SizingResult, assumed: Quantity) -> SizingResult:
+    """Flag the candidates heavier than the self-weight the analysis assumed (re-analyse)."""
+
     def flag(t: Any) -> Any:
         if t is None or t.weight <= assumed:
             return t

@@ -19,7 +19,7 @@ from calcpack.checks.nds.beam import check_nds_beam
 from calcpack.checks.nds.factors import ReferenceDesignValues, SawnMember, ServiceConditions
 from calcpack.checks.nds.values import nds_sawn_values
 from calcpack.errors import InputError, OutOfScopeError
-from calcpack.sizing.search import Candidate, Order, SizingResult, lightest_sections
+from calcpack.sizing.search import Candidate, Order, SearchSpace, SizingResult
 from calcpack.sizing.steel import (
     DeflectionLimit,
     check_service_results,
@@ -28,7 +28,7 @@ from calcpack.sizing.steel import (
 )
 from calcpack.units import Q_, Quantity, require
 
-__all__ = ["DIMENSION_SIZES", "lightest_nds_beam", "sawn_candidates"]
+__all__ = ["DIMENSION_SIZES", "lightest_nds_beam", "nds_beam_space", "sawn_candidates"]
 
 #: the dimension-lumber sizes offered by default (nominal thickness 2 to 4 in, width 4 to 12 in)
 DIMENSION_SIZES: tuple[str, ...] = tuple(f"{t}x{w}" for t in (2, 3, 4) for w in (4, 6, 8, 10, 12))
@@ -50,7 +50,7 @@ def sawn_candidates(
     return out
 
 
-def lightest_nds_beam(
+def nds_beam_space(
     demand: Any,
     *,
     species: str,
@@ -60,23 +60,11 @@ def lightest_nds_beam(
     durations: Mapping[str, str] | None = None,
     deflections: Sequence[DeflectionLimit] = (),
     plies: int = 1,
-    max_depth: Quantity | None = None,
     member: str = "J1",
-    count: int = 5,
-    order: Order = "weight",
-) -> SizingResult:
-    """The lightest sawn sizes of ``species``/``grade`` passing :func:`calcpack.check_nds_beam`
-    (NDS 2018 ASD bending with C_D, C_F, C_L..., and shear) for every allowable-stress
-    combination of ``demand``, and every deflection limit (scaled by E·I of each size).
-
-    Args:
-        demand: ASD combined results of a prismatic beam on rigid supports.
-        species, grade: as in NDS Supplement 2018 Table 4A (e.g. "Douglas Fir-Larch", "No.2").
-        sizes: nominal sizes to try. plies: members side by side sharing the load equally (the
-            demand is divided by ``plies``; 1 for a single member).
-        conditions, durations: as for check_nds_beam. max_depth, count, order: as for
-            :func:`calcpack.sizing.lightest_sections`.
-    """
+) -> SearchSpace[SawnMember]:
+    """The search space of :func:`lightest_nds_beam` (same arguments): the sawn sizes and the
+    trial (check_nds_beam on each ply's share, deflection limits scaled by E'·I of the plies).
+    ``space.check(SawnMember.dimension("2x10"))`` checks one size exactly as the search does."""
     if isinstance(plies, bool) or not isinstance(plies, int) or plies < 1:
         raise InputError(
             f"Input plies must be a whole number of members, 1 or more (got plies = {plies!r})",
@@ -115,6 +103,38 @@ def lightest_nds_beam(
         out += scaled_deflection_checks(deflections, factor, member)
         return out
 
-    return lightest_sections(
-        sawn_candidates(sizes), trial, count=count, order=order, max_depth=max_depth
-    )
+    return SearchSpace(tuple(sawn_candidates(sizes)), trial)
+
+
+def lightest_nds_beam(
+    demand: Any,
+    *,
+    species: str,
+    grade: str,
+    sizes: Sequence[str] = DIMENSION_SIZES,
+    conditions: ServiceConditions | None = None,
+    durations: Mapping[str, str] | None = None,
+    deflections: Sequence[DeflectionLimit] = (),
+    plies: int = 1,
+    max_depth: Quantity | None = None,
+    member: str = "J1",
+    count: int = 5,
+    order: Order = "weight",
+) -> SizingResult:
+    """The lightest sawn sizes of ``species``/``grade`` passing :func:`calcpack.check_nds_beam`
+    (NDS 2018 ASD bending with C_D, C_F, C_L..., and shear) for every allowable-stress
+    combination of ``demand``, and every deflection limit (scaled by E·I of each size).
+
+    Args:
+        demand: ASD combined results of a prismatic beam on rigid supports.
+        species, grade: as in NDS Supplement 2018 Table 4A (e.g. "Douglas Fir-Larch", "No.2").
+        sizes: nominal sizes to try. plies: members side by side sharing the load equally (the
+            demand is divided by ``plies``; 1 for a single member).
+        conditions, durations: as for check_nds_beam. max_depth, count, order: as for
+            :func:`calcpack.sizing.lightest_sections`.
+    """
+    space = nds_beam_space(
+        demand, species=species, grade=grade, sizes=sizes, conditions=conditions,
+        durations=durations, deflections=deflections, plies=plies, member=member,
+    )  # fmt: skip
+    return space.search(count=count, order=order, max_depth=max_depth)

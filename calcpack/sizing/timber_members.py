@@ -27,7 +27,7 @@ from calcpack.checks.nds.glulam import check_nds_glulam_beam
 from calcpack.checks.nds.members import TimberForces, TimberMember, check_nds_member
 from calcpack.checks.nds.values import nds_glulam_values, nds_sawn_values
 from calcpack.errors import InputError
-from calcpack.sizing.search import Candidate, Order, SizingResult, lightest_sections
+from calcpack.sizing.search import Candidate, Order, SearchSpace, SizingResult
 from calcpack.sizing.steel import (
     DeflectionLimit,
     check_service_results,
@@ -44,8 +44,12 @@ __all__ = [
     "POST_SIZES_4A",
     "POST_SIZES_4D",
     "compression_size_factor",
+    "glulam_beam_space",
     "lightest_glulam_beam",
     "lightest_nds_post",
+    "nds_post_member",
+    "nds_post_space",
+    "nominal_size",
 ]
 
 #: stock western-species glulam widths [in] (common practice, from memory)
@@ -68,7 +72,8 @@ def compression_size_factor(grade: str, nominal_width: int) -> float:
     return _CF_FC.get(nominal_width, _CF_FC_WIDE)
 
 
-def _nominal(name: str) -> tuple[int, int]:
+def nominal_size(name: str) -> tuple[int, int]:
+    """(thickness, width) in nominal inches of a size like "6x6"."""
     try:
         t_s, w_s = name.lower().replace("×", "x").split("x")
         return int(t_s), int(w_s)
@@ -79,6 +84,63 @@ def _nominal(name: str) -> tuple[int, int]:
             value=name,
             expected="'<thickness>x<width>' in inches",
         ) from exc
+
+
+def glulam_beam_space(
+    demand: Any,
+    *,
+    stress_class: str = "24F-1.8E",
+    widths: Sequence[float] = GLULAM_WIDTHS,
+    depths: Sequence[float] = GLULAM_DEPTHS,
+    lu: Quantity | None = None,
+    loading: Literal["uniform", "center point", "cantilever uniform", "any"] = "uniform",
+    L_beam: Quantity | None = None,
+    durations: Mapping[str, str] | None = None,
+    deflections: Sequence[DeflectionLimit] = (),
+    density: Quantity = DEFAULT_DENSITY,
+    member: str = "GL1",
+) -> SearchSpace[TimberMember]:
+    """The search space of :func:`lightest_glulam_beam` (same arguments): every width × depth
+    (depth ≥ width) and the trial. ``glulam_beam_space(..., widths=[5.125], depths=[12])``
+    checks one size exactly as the search does."""
+    require(density, "[force] / [length]**3", "density", positive=True)
+    values = nds_glulam_values(stress_class)
+    for nm, seq in (("widths", widths), ("depths", depths)):
+        if not seq or any(not float(x) > 0 for x in seq):
+            raise InputError(
+                f"Glulam {nm} must be positive sizes in inches (got {nm} = {list(seq)!r})",
+                name=nm,
+                value=list(seq),
+                expected="e.g. (3.125, 5.125, 6.75)",
+            )
+    combos = as_combinations(demand)
+    EI_ref = prismatic_stiffness(combos)
+    check_service_results(deflections, EI_ref)
+    cands = []
+    for b_in in widths:
+        for d_in in depths:
+            if d_in < b_in:
+                continue
+            b, d = Q_(float(b_in), "inch"), Q_(float(d_in), "inch")
+            m = TimberMember(values, b, d, lu=lu, loading=loading, L_beam=L_beam)
+            name = f"{b_in:g} x {d_in:g} in {stress_class}"
+            cands.append(Candidate(name, (b * d * density).to("lbf/ft"), m, d))
+    if not cands:
+        raise InputError(
+            f"No glulam size has its depth at least its width (got widths = {list(widths)!r}, "
+            f"depths = {list(depths)!r})",
+            name="depths",
+            value=list(depths),
+            expected="depths >= widths",
+        )
+
+    def trial(m: TimberMember) -> list[MemberChecks]:
+        out = [check_nds_glulam_beam(m, demand=demand, durations=durations, mark=member)]
+        factor = float((EI_ref / (values.E * m.b * m.d**3 / 12)).to("").magnitude)
+        out += scaled_deflection_checks(deflections, factor, member)
+        return out
+
+    return SearchSpace(tuple(cands), trial)
 
 
 def lightest_glulam_beam(
@@ -109,36 +171,116 @@ def lightest_glulam_beam(
         durations: as for check_nds_glulam_beam. max_depth, count, order: as for
             :func:`calcpack.sizing.lightest_sections`. density: for ranking by weight only.
     """
-    require(density, "[force] / [length]**3", "density", positive=True)
-    values = nds_glulam_values(stress_class)
-    for nm, seq in (("widths", widths), ("depths", depths)):
-        if not seq or any(not float(x) > 0 for x in seq):
+    space = glulam_beam_space(
+        demand, stress_class=stress_class, widths=widths, depths=depths, lu=lu, loading=loading,
+        L_beam=L_beam, durations=durations, deflections=deflections, density=density,
+        member=member,
+    )  # fmt: skip
+    return space.search(count=count, order=order, max_depth=max_depth)
+
+
+def nds_post_member(
+    values: Any, name: str, *, grade: str, table: Literal["4A", "4D"], le: Quantity,
+    le_b: Quantity | None = None,
+) -> TimberMember:  # fmt: skip
+    """A sawn post of nominal size ``name`` ("4x6", "6x6") with its dressed sizes and size
+    factors: Table 4A dimension lumber (dressed 1/2 in under nominal up to 6 in, 3/4 in above;
+    C_F of Table 4A) or Table 4D timbers (dressed 1/2 in under nominal; C_F = (12/d)^(1/9) for
+    F_b when d > 12 in, §4.3.6.2), buckling lengths ``le`` (and ``le_b`` across the narrow
+    side, default ``le``).
+
+    Raises:
+        InputError: a size that does not read like "6x6", or not a timber with table "4D".
+    """
+    t, w = nominal_size(name)
+    if table == "4A":
+        b, d = Q_(t - 0.5, "inch"), Q_(w - (0.5 if w <= 6 else 0.75), "inch")
+        CF_b, CF_c, CF_t = size_factor(grade, t, w), compression_size_factor(grade, w), 1.0
+        cf_src = "NDS Supplement 2018 Table 4A size factors (from memory)"
+    else:
+        if t < 5:
             raise InputError(
-                f"Glulam {nm} must be positive sizes in inches (got {nm} = {list(seq)!r})",
-                name=nm,
-                value=list(seq),
-                expected="e.g. (3.125, 5.125, 6.75)",
+                f"Size {name!r} is not a timber (5 in and thicker) of Table 4D",
+                name="sizes",
+                value=name,
+                expected="e.g. '6x6', '8x8'",
             )
-    combos = as_combinations(demand)
-    EI_ref = prismatic_stiffness(combos)
-    check_service_results(deflections, EI_ref)
+        b, d = Q_(t - 0.5, "inch"), Q_(w - 0.5, "inch")
+        d_in = float(d.to("inch").magnitude)
+        CF_b = (12 / d_in) ** (1 / 9) if d_in > 12 else 1.0
+        CF_c = CF_t = 1.0
+        cf_src = "NDS 2018 §4.3.6.2: C_F = (12/d)^(1/9) for F_b when d > 12 in"
+    return TimberMember(values, b, d, le_d=le, le_b=le_b or le, CF_b=CF_b, CF_c=CF_c,
+                        CF_t=CF_t, CF_source=cf_src)  # fmt: skip
+
+
+def nds_post_space(
+    forces: Sequence[TimberForces],
+    *,
+    species: str,
+    grade: str,
+    le: Quantity,
+    le_b: Quantity | None = None,
+    table: Literal["4A", "4D"] = "4A",
+    sizes: Sequence[str] | None = None,
+    durations: Mapping[str, str] | str = "ten years",
+    density: Quantity = DEFAULT_DENSITY,
+    member: str = "P1",
+    marks: Sequence[str] | None = None,
+) -> SearchSpace[TimberMember]:
+    """The search space of :func:`lightest_nds_post` (same arguments): the posts and the trial
+    (check_nds_member for every force set, with C_D of its duration). ``marks`` names the post
+    each force set is on (default ``member`` for all), for posts of one size under different
+    loads."""
+    one_of("table", table, ("4A", "4D"))
+    require(le, "[length]", "le", positive=True)
+    if le_b is not None:
+        require(le_b, "[length]", "le_b", positive=True)
+    if not forces:
+        raise InputError(
+            "forces is empty: give one TimberForces per ASD combination",
+            name="forces",
+            value=list(forces),
+            expected="a non-empty sequence of TimberForces",
+        )
+    if marks is not None and len(marks) != len(forces):
+        raise InputError(
+            f"marks must name one post per force set ({len(forces)}; got {len(marks)})",
+            name="marks",
+            value=list(marks),
+            expected=f"{len(forces)} marks",
+        )
+    durs: dict[str, str] = {}
+    for i, f in enumerate(forces):
+        key = f.combination or f"forces[{i}]"
+        if isinstance(durations, str):
+            durs[key] = durations
+        elif key in durations:
+            durs[key] = durations[key]
+        else:
+            raise InputError(
+                f"Combination {key!r} has no load duration: give durations[{key!r}] = one of "
+                f"{list(DURATION_FACTORS)} (NDS 2018 Table 2.3.2)",
+                name="durations",
+                value=dict(durations),
+                expected=f"a duration for {key!r}",
+            )
+        one_of(f"durations[{key!r}]", durs[key], list(DURATION_FACTORS))
+    values = nds_sawn_values(species, grade, table=table)
     cands = []
-    for b_in in widths:
-        for d_in in depths:
-            if d_in < b_in:
-                continue
-            b, d = Q_(float(b_in), "inch"), Q_(float(d_in), "inch")
-            m = TimberMember(values, b, d, lu=lu, loading=loading, L_beam=L_beam)
-            name = f"{b_in:g} x {d_in:g} in {stress_class}"
-            cands.append(Candidate(name, (b * d * density).to("lbf/ft"), m, d))
+    for name in sizes or (POST_SIZES_4A if table == "4A" else POST_SIZES_4D):
+        m = nds_post_member(values, name, grade=grade, table=table, le=le, le_b=le_b)
+        cands.append(Candidate(name, (m.b * m.d * density).to("lbf/ft"), m, m.d))
+    on = list(marks) if marks is not None else [member] * len(forces)
 
     def trial(m: TimberMember) -> list[MemberChecks]:
-        out = [check_nds_glulam_beam(m, demand=demand, durations=durations, mark=member)]
-        factor = float((EI_ref / (values.E * m.b * m.d**3 / 12)).to("").magnitude)
-        out += scaled_deflection_checks(deflections, factor, member)
+        out = []
+        for i, f in enumerate(forces):
+            key = f.combination or f"forces[{i}]"
+            out.append(check_nds_member(replace(m, duration=durs[key]), f, mark=on[i]))
         return out
 
-    return lightest_sections(cands, trial, count=count, order=order, max_depth=max_depth)
+    return SearchSpace(tuple(cands), trial)
 
 
 def lightest_nds_post(
@@ -169,64 +311,8 @@ def lightest_nds_post(
         durations: the Table 2.3.2 duration of every combination, or a mapping of combination
             name -> duration (C_D of the shortest-duration load in it, §2.3.2).
     """
-    one_of("table", table, ("4A", "4D"))
-    require(le, "[length]", "le", positive=True)
-    if le_b is not None:
-        require(le_b, "[length]", "le_b", positive=True)
-    if not forces:
-        raise InputError(
-            "forces is empty: give one TimberForces per ASD combination",
-            name="forces",
-            value=list(forces),
-            expected="a non-empty sequence of TimberForces",
-        )
-    durs: dict[str, str] = {}
-    for i, f in enumerate(forces):
-        key = f.combination or f"forces[{i}]"
-        if isinstance(durations, str):
-            durs[key] = durations
-        elif key in durations:
-            durs[key] = durations[key]
-        else:
-            raise InputError(
-                f"Combination {key!r} has no load duration: give durations[{key!r}] = one of "
-                f"{list(DURATION_FACTORS)} (NDS 2018 Table 2.3.2)",
-                name="durations",
-                value=dict(durations),
-                expected=f"a duration for {key!r}",
-            )
-        one_of(f"durations[{key!r}]", durs[key], list(DURATION_FACTORS))
-    values = nds_sawn_values(species, grade, table=table)
-    src = "NDS Supplement 2018 Table 4A size factors (from memory)"
-    cands = []
-    for name in sizes or (POST_SIZES_4A if table == "4A" else POST_SIZES_4D):
-        t, w = _nominal(name)
-        if table == "4A":
-            b, d = Q_(t - 0.5, "inch"), Q_(w - (0.5 if w <= 6 else 0.75), "inch")
-            CF_b, CF_c, CF_t = size_factor(grade, t, w), compression_size_factor(grade, w), 1.0
-            cf_src = src
-        else:
-            if t < 5:
-                raise InputError(
-                    f"Size {name!r} is not a timber (5 in and thicker) of Table 4D",
-                    name="sizes",
-                    value=name,
-                    expected="e.g. '6x6', '8x8'",
-                )
-            b, d = Q_(t - 0.5, "inch"), Q_(w - 0.5, "inch")
-            d_in = float(d.to("inch").magnitude)
-            CF_b = (12 / d_in) ** (1 / 9) if d_in > 12 else 1.0
-            CF_c = CF_t = 1.0
-            cf_src = "NDS 2018 §4.3.6.2: C_F = (12/d)^(1/9) for F_b when d > 12 in"
-        m = TimberMember(values, b, d, le_d=le, le_b=le_b or le, CF_b=CF_b, CF_c=CF_c,
-                         CF_t=CF_t, CF_source=cf_src)  # fmt: skip
-        cands.append(Candidate(name, (b * d * density).to("lbf/ft"), m, d))
-
-    def trial(m: TimberMember) -> list[MemberChecks]:
-        out = []
-        for i, f in enumerate(forces):
-            key = f.combination or f"forces[{i}]"
-            out.append(check_nds_member(replace(m, duration=durs[key]), f, mark=member))
-        return out
-
-    return lightest_sections(cands, trial, count=count)
+    space = nds_post_space(
+        forces, species=species, grade=grade, le=le, le_b=le_b, table=table, sizes=sizes,
+        durations=durations, density=density, member=member,
+    )  # fmt: skip
+    return space.search(count=count)

@@ -13,7 +13,6 @@ from typing import Any, ClassVar
 
 import ipywidgets as ipw
 
-from calcpack.errors import CalcpackError
 from calcpack.inputs.member import (
     METHODS,
     MemberOutcome,
@@ -22,37 +21,12 @@ from calcpack.inputs.member import (
     member_inputs,
 )
 from calcpack.sizing import SizingResult
+from calcpack.sizing.search import Order
+from calcpack.units import Quantity
 from calcpack.widgets.panel import InputsPanel, checks_outputs, utilisation_bars_svg
+from calcpack.widgets.search import SearchControl, sizing_table_html
 
 __all__ = ["MemberPanel", "member_panel", "sizing_table_html", "utilisation_bars_svg"]
-
-
-def sizing_table_html(found: SizingResult) -> str:
-    """The search's ranking: passing shapes, the next lighter one and why it fails."""
-    rows = []
-    for t in found.passing:
-        rows.append(
-            f'<tr class="cp-candidate" data-name="{escape(t.name)}"><td>{escape(t.name)}</td>'
-            f"<td>{t.weight:.3g~P}</td><td>{t.utilisation:.3f}</td>"
-            f"<td>{escape(t.governing)}</td></tr>"
-        )
-    out = (
-        '<table class="cp-panel-results" style="font-size:12px"><tr><th>Shape</th>'
-        "<th>Weight</th><th>Governing utilisation</th><th>Governing check</th></tr>"
-        + "".join(rows)
-        + "</table>"
-    )
-    if found.next_lighter is not None:
-        t = found.next_lighter
-        out += f"<p>Next lighter: {escape(t.name)} {escape(t.verdict)} ({escape(t.governing)}).</p>"
-    if not found.passing:
-        near = found.closest
-        out += (
-            "<p class='cp-error'>No shape of the family passes every check"
-            + (f"; the closest is {escape(near.name)} ({escape(near.governing)})." if near else ".")
-            + "</p>"
-        )
-    return out
 
 
 class MemberPanel(InputsPanel):
@@ -93,39 +67,24 @@ class MemberPanel(InputsPanel):
 
     # -- the search --------------------------------------------------------------------------
     def extra(self) -> list[ipw.Widget]:
-        self.search_button = ipw.Button(
-            description="Lightest that passes", layout=ipw.Layout(width="170px")
-        )
-        self.search_button.add_class("cp-search")
-        self.search_button.on_click(lambda _b: self.search())
-        self.pick = ipw.Dropdown(options=[], layout=ipw.Layout(width="170px"))
-        self.pick.add_class("cp-search-pick")
-        self.use_button = ipw.Button(description="Use this shape", disabled=True)
-        self.use_button.add_class("cp-search-use")
-        self.use_button.on_click(lambda _b: self.use(self.pick.value))
-        self.ranking = ipw.HTML()
-        self.ranking.add_class("cp-search-results")
-        self.found: SizingResult | None = None
-        return [
-            ipw.HBox([self.search_button, self.pick, self.use_button]),
-            self.ranking,
-        ]
+        self.searcher = SearchControl(self._search, self.use, what="shape")
+        return [self.searcher.widget]
+
+    def _search(self, count: int, order: Order, max_depth: Quantity | None) -> SizingResult:
+        case = member_inputs(self.data, path=self.path)
+        return lightest_member(case, count=count, order=order, max_depth=max_depth)
 
     def search(self, count: int = 5) -> SizingResult | None:
         """Rank the lightest shapes of the member's family that pass every combination."""
-        try:
-            case = member_inputs(self.data, path=self.path)
-            found = lightest_member(case, count=count)
-        except CalcpackError as exc:
-            self.ranking.value = f'<span class="cp-error">{escape(str(exc))}</span>'
-            return None
-        self.found = found
-        self.ranking.value = sizing_table_html(found)
-        names = [t.name for t in found.passing]
-        self.pick.options = names
-        self.pick.value = names[0] if names else None  # the lightest, ready to use
-        self.use_button.disabled = not names
-        return found
+        return self.searcher.run(count)
+
+    @property
+    def pick(self) -> ipw.Dropdown:
+        return self.searcher.pick
+
+    @property
+    def ranking(self) -> ipw.HTML:
+        return self.searcher.ranking
 
     def use(self, shape: str | None) -> None:
         """Put ``shape`` in the inputs file (as if typed in the shape field)."""

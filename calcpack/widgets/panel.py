@@ -176,6 +176,8 @@ class InputsPanel(PanelDisplay):
 
     Args:
         path: the inputs file, relative to the notebook's folder or absolute.
+        tables: edit only these top-level tables of the file (one several sheets share);
+            None: the whole file.
 
     Attributes:
         widget: the ipywidgets box. data: the file's values as last saved. outcome: the last
@@ -189,9 +191,10 @@ class InputsPanel(PanelDisplay):
     output_names: ClassVar[tuple[str, ...]] = ("results",)
     hint: ClassVar[str] = "the sheet's cells below read that file."
 
-    def __init__(self, path: str | Path) -> None:
+    def __init__(self, path: str | Path, *, tables: Sequence[str] | None = None) -> None:
         self.path = Path(path)
-        self.data = load_inputs(self.path)
+        self.tables = tuple(tables) if tables is not None else None
+        self.data = load_inputs(self.path, tables=self.tables)
         self.outcome: Any = None
         self.last_update_s = 0.0
         self.edit_times: deque[tuple[float, float, float]] = deque(maxlen=100)
@@ -329,7 +332,7 @@ class InputsPanel(PanelDisplay):
         self.last_update_s = time.perf_counter() - t0
         wait_for_output_sent()  # the display is on its way: let it go, then write the file
         try:
-            self.data = update_inputs(self.path, changes)
+            self.data = update_inputs(self.path, changes, tables=self.tables)
         except CalcpackError as exc:  # e.g. the file was edited by hand into an invalid state
             self._error(f"Not saved: {exc}; the display shows unsaved values, press 'Reload file'")
             return False
@@ -340,7 +343,7 @@ class InputsPanel(PanelDisplay):
 
     def reload(self) -> None:
         """Read the inputs file again (after editing it by hand) and redraw."""
-        self.data = load_inputs(self.path)
+        self.data = load_inputs(self.path, tables=self.tables)
         self._build_form()
         self._refresh()
 

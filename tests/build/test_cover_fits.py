@@ -11,6 +11,7 @@ import pytest
 from pypdf import PdfReader
 
 from calcpack.package.document import DocumentOptions, document_html
+from calcpack.package.mathcache import MathCache
 from calcpack.package.project import load_project
 
 pytestmark = pytest.mark.build
@@ -25,7 +26,11 @@ def test_cover_is_one_page(name: str) -> None:
 
     project = load_project(ROOT / name)
     html = document_html(
-        project, [], DocumentOptions(paper=project.paper), created=dt.datetime(2026, 1, 1)
+        project,
+        [],
+        DocumentOptions(paper=project.paper),
+        created=dt.datetime(2026, 1, 1),
+        math=MathCache(),
     )
     pages = [p.extract_text() for p in PdfReader(io.BytesIO(HTML(string=html).write_pdf())).pages]
     cover = pages[0]

@@ -73,12 +73,14 @@ def test_wide_formulas_stay_inside_the_text_column(wide_package: Path) -> None:
 def test_wide_formulas_are_broken_not_squeezed(wide_package: Path) -> None:
     """The long lines were broken at operators: their alternative text is the whole formula,
     and the image is set at (nearly) full size, several lines tall."""
+    from calcpack.package.mathcache import MathCache
     from calcpack.package.mathsvg import MATH_MAX_WIDTH_PX, fitted_image, tex_to_svg
 
     tex = r"M_{A} = " + " + ".join(f"P_{{{i}}} a_{{{i}}}" for i in range(1, 30))
-    whole = tex_to_svg(tex, display=True)
+    math = MathCache()
+    whole = tex_to_svg(tex, display=True, cache=math)
     assert whole.width_px > 2 * MATH_MAX_WIDTH_PX
-    fitted = fitted_image(tex, True)
+    fitted = fitted_image(tex, True, cache=math)
     assert fitted.width_px <= MATH_MAX_WIDTH_PX
     assert fitted.width_px > 0.6 * MATH_MAX_WIDTH_PX  # lines are filled, not one term each
     assert fitted.height_px > 2.5 * whole.height_px  # three or more lines

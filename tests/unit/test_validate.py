@@ -9,7 +9,7 @@ import pytest
 from calcpack.errors import DimensionError, InputError
 from calcpack.refdata import read_table
 from calcpack.units import ureg
-from calcpack.validate import dimension, finite, lookup, one_of, positive, within
+from calcpack.validate import dimension, finite, lookup, one_of, positive, positive_fields, within
 
 
 def test_positive_names_input_and_value() -> None:
@@ -106,3 +106,67 @@ def test_instance_and_whole_name_the_input() -> None:
             whole("n", bad, lo=1)
     with pytest.raises(InputError, match=r"Input n must be at least 1 \(got n = 0\)"):
         whole("n", 0, lo=1)
+
+
+def test_positive_fields_names_the_field_and_skips_optional_none() -> None:
+    from dataclasses import dataclass
+
+    @dataclass
+    class Plate:
+        t: object
+        gap: object = None
+
+    ok = Plate(ureg.Quantity(10, "mm"))
+    positive_fields(ok, "[length]", ("t", "gap"), optional=True)  # None skipped
+    with pytest.raises(InputError, match="gap"):
+        positive_fields(ok, "[length]", ("t", "gap"))  # None refused when required
+    with pytest.raises(InputError, match=r"\bt\b.*-2"):
+        positive_fields(Plate(ureg.Quantity(-2, "mm")), "[length]", ("t",))
+    with pytest.raises(DimensionError, match=r"\bt\b"):
+        positive_fields(Plate(ureg.Quantity(2, "kN")), "[length]", ("t",))
+
+
+def test_find_matches_exactly_and_lists_the_names_there_are() -> None:
+    from calcpack.validate import find
+
+    table = {"AB": 1, "BC": 2}
+    assert find("member", "BC", table, what="member", where="in truss T1") == 2
+    with pytest.raises(InputError) as err:
+        find("member", "ab", table, what="member", where="in truss T1")
+    text = str(err.value)
+    assert "there is no member 'ab' in truss T1" in text  # exact: "ab" is not "AB"
+    assert "(members: AB, BC)" in text
+    assert "did you mean 'AB'?" in text
+    assert (err.value.name, err.value.value) == ("member", "ab")
+    with pytest.raises(InputError, match=r"\(supports: none\)"):
+        find("support", "A", {}, what="support")
+
+
+def test_at_least_names_the_collection_and_what_it_lacks() -> None:
+    from calcpack.validate import at_least
+
+    assert at_least("factors", {"D": 1.2}, what="load factor") == {"D": 1.2}
+    with pytest.raises(InputError, match=r"Input factors needs at least one load factor"):
+        at_least("factors", {}, what="load factor")
+    with pytest.raises(
+        InputError, match=r"Input nodes needs at least 2 nodes \(got nodes = \[1\]\)"
+    ):
+        at_least("nodes", [1], 2, what="node")
+
+
+def test_each_instance_names_the_item_by_its_index() -> None:
+    from calcpack.validate import each_instance
+
+    each_instance("hinges", [1, 2], int, expected="a whole number")
+    with pytest.raises(InputError, match=r"Input hinges\[1\] must be a whole number") as err:
+        each_instance("hinges", [1, "2"], int, expected="a whole number")
+    assert err.value.name == "hinges[1]"
+
+
+def test_distinct_names_the_repeated_value() -> None:
+    from calcpack.validate import distinct
+
+    distinct("supports", ["A", "B"], what="support name")
+    with pytest.raises(InputError, match="support name 'A' is used twice") as err:
+        distinct("supports", ["A", "B", "A"], what="support name")
+    assert err.value.value == "A"

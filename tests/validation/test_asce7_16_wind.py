@@ -146,8 +146,8 @@ def test_refusals_name_the_limit() -> None:
         WindSiteASCE7(Q_(115, "psf"), "map", "C")
     with pytest.raises(InputError, match="V"):
         WindSiteASCE7(Q_(-5, "mph"), "map", "C")
-    with pytest.raises(OutOfScopeError, match="7°"):
-        cc_coefficient_asce7("roof", "2", Q_(10, "ft^2"), Q_(20, "deg"))
+    with pytest.raises(OutOfScopeError, match="45°"):
+        cc_coefficient_asce7("roof", "2r", Q_(10, "ft^2"), Q_(50, "deg"))
     b = LowRiseBuildingASCE7(Q_(50, "ft"), Q_(40, "ft"), Q_(80, "ft"), Q_(5, "deg"))
     with pytest.raises(OutOfScopeError, match="low-rise"):
         envelope_wind_asce7(_site(), b)

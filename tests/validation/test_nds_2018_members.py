@@ -196,3 +196,65 @@ def test_refusals_and_bad_input():
     assert e.value.name == "angle"
     with pytest.raises(OutOfScopeError, match="Wet service"):
         TimberMember(nds_glulam_values("24F-1.8E"), b=Q_(5, "inch"), d=Q_(12, "inch"), wet=True)
+
+
+def _wet_6x6(**kw):
+    return TimberMember(
+        nds_sawn_values("Douglas Fir-Larch", "P&T No.1", table="4D"),
+        b=Q_(5.5, "inch"),
+        d=Q_(5.5, "inch"),
+        le_d=Q_(8, "ft"),
+        le_b=Q_(8, "ft"),
+        wet=True,
+        **kw,
+    )
+
+
+def test_wet_6x6_post_by_hand_with_table_4d_factors():
+    # NDS Supplement 2018 Table 4D wet service factors (from memory): F_c 0.91, E_min 1.0.
+    # DF-L P&T No.1 (Table 4D, from memory): F_c = 1000 psi, E_min = 580 000 psi.
+    # Eq. (3.7-1) by hand: F*_c = 1000·0.91, F_cE = 0.822·580 000/(96/5.5)², c = 0.8.
+    Fcs = 1000 * 0.91
+    FcE = 0.822 * 580_000 / (96 / 5.5) ** 2
+    a = FcE / Fcs
+    h = (1 + a) / 1.6
+    CP = h - math.sqrt(h * h - a / 0.8)
+    r = check_nds_member(_wet_6x6(), TimberForces(P=Q_(3000, "lbf")))
+    assert r.values["C_M_c"] == pytest.approx(0.91)
+    assert r.values["C_M_E"] == pytest.approx(1.0)
+    assert r["Compression"].capacity.to("psi").magnitude == pytest.approx(Fcs * CP, rel=1e-9)
+    assert r["Compression"].demand.to("psi").magnitude == pytest.approx(3000 / 5.5**2, rel=1e-9)
+
+
+def test_wet_timber_bending_keeps_fb_and_the_working_cites_table_4d():
+    # Table 4D (from memory): C_M = 1.0 on F_b and E_min of timbers
+    r = check_nds_member(_wet_6x6(), TimberForces(M_d=Q_(500, "lbf*ft")))
+    assert r.values["C_M_b1"] == pytest.approx(1.0)
+    sources = [getattr(step, "source", "") for step in r.working()]
+    assert any("Table 4D" in str(src) and "C_M" not in str(src) for src in sources)
+    assert "NDS Supplement 2018 Table 4D, wet service factors (from memory)" in sources
+
+
+def test_wet_dimension_lumber_compression_keeps_the_750_psi_rule():
+    # Table 4A footnote (from memory): C_M = 1.0 for F_c where F_c·C_F ≤ 750 psi, else 0.8
+    low = TimberValues(
+        "low F_c stud", "sawn", "invented for the threshold", Fb=Q_(700, "psi"),
+        Ft=Q_(400, "psi"), Fv=Q_(135, "psi"), Fc_perp=Q_(425, "psi"), Fc=Q_(700, "psi"),
+        E=Q_(1_200_000, "psi"), Emin=Q_(440_000, "psi"),
+    )  # fmt: skip
+    P = TimberForces(P=Q_(1000, "lbf"))
+    kw = {"b": Q_(3.5, "inch"), "d": Q_(3.5, "inch"), "le_d": Q_(4, "ft"), "le_b": Q_(4, "ft")}
+    assert check_nds_member(TimberMember(low, wet=True, **kw), P).values["C_M_c"] == 1.0
+    assert check_nds_member(TimberMember(DFL2, wet=True, **kw), P).values["C_M_c"] == 0.8
+
+
+def test_wet_timber_bearing_uses_table_4d():
+    # F_c⊥ 0.67 in both tables; F_c on end grain 0.91 for timbers (Table 4D, from memory)
+    v = nds_sawn_values("Douglas Fir-Larch", "P&T No.1", table="4D")
+    kw = {"R": Q_(2000, "lbf"), "b": Q_(5.5, "inch"), "lb": Q_(5.5, "inch"), "wet": True}
+    end = check_nds_bearing(TimberBearing(v, direction="parallel", **kw))
+    assert end.values["C_M_c"] == pytest.approx(0.91)
+    side = check_nds_bearing(TimberBearing(v, **kw))
+    assert side.values["C_M_perp"] == pytest.approx(0.67)
+    with pytest.raises(OutOfScopeError, match="Table 4D"):
+        TimberBearing(nds_glulam_values("24F-1.8E"), **kw)

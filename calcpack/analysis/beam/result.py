@@ -37,7 +37,7 @@ from calcpack.analysis.beam.extremes import (
 from calcpack.analysis.beam.quantities import out_q
 from calcpack.errors import InputError, OutOfScopeError
 from calcpack.units import Quantity, require
-from calcpack.validate import finite
+from calcpack.validate import at_least, find, finite
 
 if TYPE_CHECKING:
     from calcpack.analysis.beam.model import Beam, BeamClassification
@@ -133,15 +133,9 @@ class BeamResult:
 
     def reaction(self, support: str) -> Reaction:
         """The reaction at the support named ``support`` (e.g. ``"A"``)."""
-        for r in self.reactions:
-            if r.support == support:
-                return r
-        raise InputError(
-            f"No support named {support!r} on beam {self.beam.name} (supports are "
-            f"{[s.name for s in self.beam.supports]})",
-            name="support",
-            value=support,
-            expected="a support name",
+        by_support = {r.support: r for r in self.reactions}
+        return find(
+            "support", support, by_support, what="support", where=f"on beam {self.beam.name}"
         )
 
     # -- values at points ----------------------------------------------------------------------
@@ -347,13 +341,7 @@ def combine(results: Mapping[str, BeamResult], factors: Mapping[str, float]) -> 
     Raises:
         InputError: a factor names a case that has no result, or no factors are given.
     """
-    if not factors:
-        raise InputError(
-            "combine needs at least one load factor (got factors = {})",
-            name="factors",
-            value=dict(factors),
-            expected="e.g. {'D': 1.2, 'L': 1.6}",
-        )
+    at_least("factors", dict(factors), what="load factor")
     total: BeamResult | None = None
     for name, f in factors.items():
         if name not in results:

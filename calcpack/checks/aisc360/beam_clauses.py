@@ -10,7 +10,7 @@ from __future__ import annotations
 from dataclasses import dataclass
 from typing import TYPE_CHECKING, Any
 
-from calcpack.checks.aisc360.ltb_f2 import ltb_strength_f2
+from calcpack.checks.aisc360.ltb_f2 import limiting_lengths_f2, ltb_strength_f2
 from calcpack.checks.aisc360.member_data import FACTORS, Factor
 from calcpack.checks.aisc360.shape import E_SOURCE, IShape
 from calcpack.checks.base import Recorder
@@ -183,13 +183,6 @@ class BeamClauses:
             return
         c.heading("Flexure, §F2 (doubly symmetric compact I-shape, major axis)", 3)
         Mp = c.derive("M_p", Fy * Zx, "plastic moment", unit="kip*ft", ref="AISC 360-16 Eq. (F2-1)")
-        Lp = c.derive(
-            "L_p",
-            1.76 * ry * c.sqrt(E / Fy),
-            "limiting unbraced length, yielding",
-            unit="ft",
-            ref="AISC 360-16 Eq. (F2-5)",
-        )
         rts = c.derive(
             "r_ts",
             c.sqrt(c.sqrt(Iy * Cw) / Sx),
@@ -201,13 +194,7 @@ class BeamClauses:
         jt = c.derive(
             "j_t", J * cc / (Sx * h0), "torsion term J·c/(S_x·h_0)", ref="AISC 360-16 Eq. (F2-6)"
         )
-        Lr = c.derive(
-            "L_r",
-            1.95 * rts * E / (0.7 * Fy) * c.sqrt(jt + c.sqrt(jt**2 + 6.76 * (0.7 * Fy / E) ** 2)),
-            "limiting unbraced length, inelastic LTB",
-            unit="ft",
-            ref="AISC 360-16 Eq. (F2-6)",
-        )
+        Lp, Lr = limiting_lengths_f2(c, ry=ry, rts=rts, E=E, Fy=Fy, jc=jt)
         f = FACTORS["flexure"]
         factor = _factor(c, f, lrfd, "b", "flexure")
 

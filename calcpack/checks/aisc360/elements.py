@@ -21,7 +21,7 @@ from calcpack.checks.aisc360.member_data import check_method, member_standard
 from calcpack.checks.base import MemberChecks, Recorder, run_checks
 from calcpack.errors import InputError, OutOfScopeError
 from calcpack.units import Q_, Quantity, require
-from calcpack.validate import one_of, required
+from calcpack.validate import one_of, positive_fields, required
 
 __all__ = [
     "BlockShear",
@@ -55,8 +55,7 @@ class ConnectingPlate:
     splice: bool = True
 
     def __post_init__(self) -> None:
-        for nm in ("t", "width"):
-            require(getattr(self, nm), "[length]", nm, positive=True)
+        positive_fields(self, "[length]", ("t", "width"))
         require(self.Fy, "[pressure]", "Fy", positive=True)
         require(self.Fu, "[pressure]", "Fu", positive=True)
         if self.holes:
@@ -180,8 +179,7 @@ class BlockShear:
     Ubs: float = 1.0
 
     def __post_init__(self) -> None:
-        for nm in ("t", "d_hole", "le"):
-            require(getattr(self, nm), "[length]", nm, positive=True)
+        positive_fields(self, "[length]", ("t", "d_hole", "le"))
         require(self.Fy, "[pressure]", "Fy", positive=True)
         require(self.Fu, "[pressure]", "Fu", positive=True)
         one_of("planes", self.planes, (1, 2))

@@ -23,9 +23,16 @@ from __future__ import annotations
 import math
 from typing import Any, Literal
 
+from calcpack.checks.aisc360.flexure_clauses import (
+    angle_ltb_f10,
+    flange_limits,
+    least_of,
+    leg_local_f10,
+    transition,
+)
 from calcpack.checks.aisc360.flexure_double_angle import double_angle_f9
 from calcpack.checks.aisc360.flexure_tee_bar import BARS, TEES, bar_f11, tee_f9
-from calcpack.checks.aisc360.ltb_f2 import ltb_strength_f2
+from calcpack.checks.aisc360.ltb_f2 import limiting_lengths_f2, ltb_strength_f2
 from calcpack.checks.aisc360.member_data import SteelMember
 from calcpack.checks.base import Recorder
 from calcpack.errors import OutOfScopeError
@@ -110,12 +117,11 @@ def _i_major(c: Recorder, m: SteelMember, Fy: Any, E: Any, root: float) -> Any:
         "flange slenderness b_f/2t_f",
         ref="AISC 360-16 Table B4.1b case 10",
     )
-    lpf = c.derive("lambda_pf", 0.38 * c.sqrt(E / Fy), "compact limit", ref="Table B4.1b")
-    lrf = c.derive("lambda_rf", 1.0 * c.sqrt(E / Fy), "noncompact limit", ref="Table B4.1b")
+    lpf, lrf = flange_limits(c, E, Fy)
     if c.f(lam) <= c.f(lrf):
         Mflb = c.derive(
             "M_n_FLB",
-            Mp - (Mp - 0.7 * Fy * Sx) * (lam - lpf) / (lrf - lpf),
+            transition(Mp, 0.7 * Fy * Sx, lam, lpf, lrf),
             "flange local buckling, noncompact flange",
             unit="kip*ft",
             ref="AISC 360-16 Eq. (F3-1)",
@@ -158,21 +164,8 @@ def _ltb_f2(c: Recorder, m: SteelMember, Fy: Any, E: Any, Mp: Any, Sx: Any, chan
         cc = c.derive("c", ho / 2 * c.sqrt(Iy / Cw), "for channels", ref="AISC 360-16 Eq. (F2-8b)")
     else:
         cc = c.given("c", 1.0, "doubly symmetric I-shape", source="AISC 360-16 Eq. (F2-8a)")
-    Lp = c.derive(
-        "L_p",
-        1.76 * ry * c.sqrt(E / Fy),
-        "limiting length, yielding",
-        unit="ft",
-        ref="AISC 360-16 Eq. (F2-5)",
-    )
     jc = J * cc / (Sx * ho)
-    Lr = c.derive(
-        "L_r",
-        1.95 * rts * E / (0.7 * Fy) * c.sqrt(jc + c.sqrt(jc**2 + 6.76 * (0.7 * Fy / E) ** 2)),
-        "limiting length, inelastic LTB",
-        unit="ft",
-        ref="AISC 360-16 Eq. (F2-6)",
-    )
+    Lp, Lr = limiting_lengths_f2(c, ry=ry, rts=rts, E=E, Fy=Fy, jc=jc)
     Mltb = ltb_strength_f2(c, Lb=Lb, Lp=Lp, Lr=Lr, Cb=Cb, Mp=Mp, Fy=Fy, E=E, Sx=Sx, rts=rts, jc=jc)
     return Mp if Mltb is None else Mltb
 
@@ -197,13 +190,11 @@ def _minor_f6(c: Recorder, m: SteelMember, Fy: Any, E: Any, root: float) -> Any:
         return c.derive(
             "M_n", Mp, "nominal flexural strength", unit="kip*ft", ref="AISC 360-16 §F6"
         )
-    lpf = c.derive("lambda_pf", 0.38 * c.sqrt(E / Fy), "compact limit", ref="Table B4.1b")
-    lrf = c.derive("lambda_rf", 1.0 * c.sqrt(E / Fy), "noncompact limit", ref="Table B4.1b")
+    lpf, lrf = flange_limits(c, E, Fy)
     if c.f(lam) <= c.f(lrf):
-        Mn = Mp - (Mp - 0.7 * Fy * Sy) * (lam - lpf) / (lrf - lpf)
         return c.derive(
             "M_n",
-            Mn,
+            transition(Mp, 0.7 * Fy * Sy, lam, lpf, lrf),
             "flange local buckling, noncompact",
             unit="kip*ft",
             ref="AISC 360-16 Eq. (F6-2)",
@@ -238,32 +229,31 @@ def _hss_f7(c: Recorder, m: SteelMember, Fy: Any, E: Any, root: float, axis: Axi
     Mp = c.derive("M_p", Fy * Z, "plastic moment", unit="kip*ft", ref="AISC 360-16 Eq. (F7-1)")
     limits = [Mp]
     t = c.given("t", s["tdes"], "design wall thickness", source=s.source)
-    if lam_f > 1.12 * root:
-        lam = c.derive("lambda_f", s[fl] / t, "flange slenderness b/t", ref="AISC 360-16 §B4.1b")
+    for part, sym, lam_x, width, case, (lim, k1, k0, eq) in (
+        ("flange", "f", lam_f, fl, 17, (1.12, 3.57, 4.0, "F7-2")),
+        ("web", "w", lam_w, wb, 19, (2.42, 0.305, 0.738, "F7-6")),
+    ):
+        if lam_x <= lim * root:
+            c.text(
+                f"Compact {part}s (Table B4.1b case {case}): {part} local buckling does not apply."
+            )
+            continue
+        w_sym = "b" if part == "flange" else "h"
+        lam = c.derive(
+            f"lambda_{sym}",
+            s[width] / t,
+            f"{part} slenderness {w_sym}/t",
+            ref="AISC 360-16 §B4.1b",
+        )
         limits.append(
             c.derive(
-                "M_n_FLB",
-                c.min(Mp - (Mp - Fy * S) * (3.57 * lam * c.sqrt(Fy / E) - 4.0), Mp),
-                "flange local buckling, noncompact",
+                f"M_n_{sym.upper()}LB",
+                c.min(Mp - (Mp - Fy * S) * (k1 * lam * c.sqrt(Fy / E) - k0), Mp),
+                f"{part} local buckling, noncompact",
                 unit="kip*ft",
-                ref="AISC 360-16 Eq. (F7-2)",
+                ref=f"AISC 360-16 Eq. ({eq})",
             )
         )
-    else:
-        c.text("Compact flanges (Table B4.1b case 17): flange local buckling does not apply.")
-    if lam_w > 2.42 * root:
-        lw = c.derive("lambda_w", s[wb] / t, "web slenderness h/t", ref="AISC 360-16 §B4.1b")
-        limits.append(
-            c.derive(
-                "M_n_WLB",
-                c.min(Mp - (Mp - Fy * S) * (0.305 * lw * c.sqrt(Fy / E) - 0.738), Mp),
-                "web local buckling, noncompact",
-                unit="kip*ft",
-                ref="AISC 360-16 Eq. (F7-6)",
-            )
-        )
-    else:
-        c.text("Compact webs (Table B4.1b case 19): web local buckling does not apply.")
     if m.Lb is not None:
         Lb = c.given("L_b", m.Lb, "unbraced length", unit="ft")
         Cb = c.given("C_b", float(m.Cb), "LTB modification factor", source="given")
@@ -298,7 +288,7 @@ def _hss_f7(c: Recorder, m: SteelMember, Fy: Any, E: Any, root: float, axis: Axi
             limits.append(
                 c.derive(
                     "M_n_LTB",
-                    Cb * (Mp - (Mp - 0.7 * Fy * S) * (Lb - Lp) / (Lr - Lp)),
+                    Cb * transition(Mp, 0.7 * Fy * S, Lb, Lp, Lr),
                     "inelastic LTB",
                     unit="kip*ft",
                     ref="AISC 360-16 Eq. (F7-10)",
@@ -306,13 +296,7 @@ def _hss_f7(c: Recorder, m: SteelMember, Fy: Any, E: Any, root: float, axis: Axi
             )
         else:
             c.text("$L_b \\le L_p$: lateral-torsional buckling does not apply (§F7.4).")
-    return c.derive(
-        "M_n",
-        c.min(*limits) if len(limits) > 1 else Mp,
-        "nominal flexural strength, least",
-        unit="kip*ft",
-        ref="AISC 360-16 §F7",
-    )
+    return least_of(c, limits, "AISC 360-16 §F7")
 
 
 def _round_f8(c: Recorder, m: SteelMember, Fy: Any, E: Any) -> Any:
@@ -400,62 +384,8 @@ def _angle_f10(c: Recorder, m: SteelMember, Fy: Any, E: Any, root: float) -> Any
             unit="kip*ft",
             ref="AISC 360-16 Eq. (F10-5a)",
         )
-        if c.q(My) <= c.q(Mcr):
-            limits.append(
-                c.derive(
-                    "M_n_LTB",
-                    c.min((1.92 - 1.17 * c.sqrt(My / Mcr)) * My, 1.5 * My),
-                    "lateral-torsional buckling",
-                    unit="kip*ft",
-                    ref="AISC 360-16 Eq. (F10-2)",
-                )
-            )
-        else:
-            limits.append(
-                c.derive(
-                    "M_n_LTB",
-                    (0.92 - 0.17 * Mcr / My) * Mcr,
-                    "lateral-torsional buckling",
-                    unit="kip*ft",
-                    ref="AISC 360-16 Eq. (F10-3)",
-                )
-            )
-    lam_v = _ratio(s["d"] / s["t"])
-    if lam_v > 0.54 * root:
-        lam = c.derive("lambda", d / t, "leg slenderness b/t", ref="AISC 360-16 §F10.3")
-        if lam_v <= 0.91 * root:
-            limits.append(
-                c.derive(
-                    "M_n_LLB",
-                    Fy * Sx * (2.43 - 1.72 * lam * c.sqrt(Fy / E)),
-                    "leg local buckling, noncompact",
-                    unit="kip*ft",
-                    ref="AISC 360-16 Eq. (F10-6)",
-                )
-            )
-        else:
-            Fcr = c.derive(
-                "F_cr",
-                0.71 * E / lam**2,
-                "critical stress",
-                unit="ksi",
-                ref="AISC 360-16 Eq. (F10-8)",
-            )
-            limits.append(
-                c.derive(
-                    "M_n_LLB",
-                    Fcr * Sx,
-                    "leg local buckling, slender",
-                    unit="kip*ft",
-                    ref="AISC 360-16 Eq. (F10-7)",
-                )
-            )
-    else:
-        c.text("Compact leg (b/t ≤ 0.54√(E/F_y)): leg local buckling does not apply (§F10.3).")
-    return c.derive(
-        "M_n",
-        c.min(*limits) if len(limits) > 1 else limits[0],
-        "nominal flexural strength, least",
-        unit="kip*ft",
-        ref="AISC 360-16 §F10",
-    )
+        limits.append(angle_ltb_f10(c, My, Mcr, "lateral-torsional buckling", "AISC 360-16"))
+    local = leg_local_f10(c, Fy, E, Sx, d, t, root, name="lambda", what="leg")
+    if local is not None:
+        limits.append(local)
+    return least_of(c, limits, "AISC 360-16 §F10")

@@ -16,10 +16,11 @@ from __future__ import annotations
 
 from typing import Any
 
+from calcpack.checks.aisc360.flexure_clauses import f9_mcr, flange_limits, least_of, transition
 from calcpack.checks.aisc360.member_data import SteelMember
 from calcpack.checks.base import Recorder
 
-__all__ = ["BARS", "TEES", "bar_f11", "tee_f9", "tee_ltb"]
+__all__ = ["BARS", "TEES", "bar_f11", "f9_yield_tension", "tee_f9", "tee_ltb"]
 
 TEES = ("WT", "MT", "ST")
 BARS = ("BAR", "ROUND BAR")
@@ -44,14 +45,7 @@ def tee_f9(c: Recorder, m: SteelMember, Fy: Any, E: Any, root: float) -> Any:
             "M_p", My, "yielding, stem in compression", unit="kip*ft", ref="AISC 360-16 Eq. (F9-4)"
         )
     else:
-        Zx = c.given("Z_x", s["Zx"], "plastic section modulus", source=s.source)
-        Mp = c.derive(
-            "M_p",
-            c.min(Fy * Zx, 1.6 * My),
-            "yielding, stem in tension",
-            unit="kip*ft",
-            ref="AISC 360-16 Eq. (F9-2)",
-        )
+        Mp = f9_yield_tension(c, m, Fy, My, "stem")
     limits = [Mp]
     if m.Lb is None:
         c.text("Continuous lateral-torsional restraint: lateral-torsional buckling does not apply.")
@@ -63,38 +57,39 @@ def tee_f9(c: Recorder, m: SteelMember, Fy: Any, E: Any, root: float) -> Any:
         flb = _flange_local(c, m, Fy, E, Mp, My, root)
         if flb is not None:
             limits.append(flb)
+    return least_of(c, limits, "AISC 360-16 §F9")
+
+
+def f9_yield_tension(c: Recorder, m: SteelMember, Fy: Any, My: Any, part: str) -> Any:
+    """M_p = min(F_y Z_x, 1.6 M_y) of a tee or double angle with its ``part`` (``"stem"``,
+    ``"web legs"``) in tension, Eq. (F9-2)."""
+    s = m.shape
+    Zx = c.given("Z_x", s["Zx"], "plastic section modulus", source=s.source)
     return c.derive(
-        "M_n",
-        c.min(*limits) if len(limits) > 1 else Mp,
-        "nominal flexural strength, least",
+        "M_p",
+        c.min(Fy * Zx, 1.6 * My),
+        f"yielding, {part} in tension",
         unit="kip*ft",
-        ref="AISC 360-16 §F9",
+        ref="AISC 360-16 Eq. (F9-2)",
     )
 
 
 def tee_ltb(
-    c: Recorder, m: SteelMember, Fy: Any, E: Any, Mp: Any, My: Any, Sx: Any, stem_c: bool
+    c: Recorder,
+    m: SteelMember,
+    Fy: Any,
+    E: Any,
+    Mp: Any,
+    My: Any,
+    Sx: Any,
+    stem_c: bool,
+    *,
+    part: str = "stem",
 ) -> Any:
+    """M_n by lateral-torsional buckling of a tee (or a double angle with its web legs in
+    tension, ``part="web legs"``) by §F9.2."""
     s = m.shape
-    Lb = c.given("L_b", m.Lb, "unbraced length", source="given", unit="ft")
-    d = c.given("d", s["d"], "depth of the tee", source=s.source)
-    Iy = c.given("I_y", s["Iy"], "moment of inertia about y", source=s.source)
-    J = c.given("J", s["J"], "torsional constant", source=s.source)
-    if stem_c:
-        B = c.derive(
-            "B", -2.3 * (d / Lb) * c.sqrt(Iy / J), "stem in compression", ref="AISC 360-16 §F9.2(b)"
-        )
-    else:
-        B = c.derive(
-            "B", 2.3 * (d / Lb) * c.sqrt(Iy / J), "stem in tension", ref="AISC 360-16 Eq. (F9-11)"
-        )
-    Mcr = c.derive(
-        "M_cr",
-        1.95 * E / Lb * c.sqrt(Iy * J) * (B + c.sqrt(1 + B**2)),
-        "elastic lateral-torsional buckling moment",
-        unit="kip*ft",
-        ref="AISC 360-16 Eq. (F9-10)",
-    )
+    Lb, d, Iy, J, Mcr = f9_mcr(c, m, E, compressed=stem_c, part=part)
     if stem_c:
         return c.derive(
             "M_n_LTB",
@@ -124,7 +119,7 @@ def tee_ltb(
     if c.q(Lb) <= c.q(Lr):
         return c.derive(
             "M_n_LTB",
-            Mp - (Mp - My) * (Lb - Lp) / (Lr - Lp),
+            transition(Mp, My, Lb, Lp, Lr),
             "inelastic lateral-torsional buckling",
             unit="kip*ft",
             ref="AISC 360-16 Eq. (F9-6)",
@@ -161,12 +156,11 @@ def _flange_local(
         "flange slenderness b_f/2t_f",
         ref="AISC 360-16 Table B4.1b case 10",
     )
-    lpf = c.derive("lambda_pf", 0.38 * c.sqrt(E / Fy), "compact limit", ref="Table B4.1b")
-    lrf = c.derive("lambda_rf", 1.0 * c.sqrt(E / Fy), "noncompact limit", ref="Table B4.1b")
+    lpf, lrf = flange_limits(c, E, Fy)
     if c.f(lam) <= c.f(lrf):
         return c.derive(
             "M_n_FLB",
-            c.min(Mp - (Mp - 0.7 * Fy * Sxc) * (lam - lpf) / (lrf - lpf), 1.6 * My),
+            c.min(transition(Mp, 0.7 * Fy * Sxc, lam, lpf, lrf), 1.6 * My),
             "flange local buckling, noncompact flange",
             unit="kip*ft",
             ref="AISC 360-16 Eq. (F9-14)",

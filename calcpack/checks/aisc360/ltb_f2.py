@@ -8,9 +8,36 @@ from __future__ import annotations
 
 from typing import Any
 
+from calcpack.checks.aisc360.flexure_clauses import transition
 from calcpack.checks.base import Recorder
 
-__all__ = ["ltb_strength_f2"]
+__all__ = ["limiting_lengths_f2", "ltb_strength_f2"]
+
+
+def limiting_lengths_f2(
+    c: Recorder, *, ry: Any, rts: Any, E: Any, Fy: Any, jc: Any
+) -> tuple[Any, Any]:
+    """L_p by Eq. (F2-5) and L_r by Eq. (F2-6) (ft).
+
+    Args:
+        ry: the radius of gyration about y. rts: the effective radius of gyration. E, Fy: the
+            steel. jc: J·c/(S_x·h_o).
+    """
+    Lp = c.derive(
+        "L_p",
+        1.76 * ry * c.sqrt(E / Fy),
+        "limiting unbraced length, yielding",
+        unit="ft",
+        ref="AISC 360-16 Eq. (F2-5)",
+    )
+    Lr = c.derive(
+        "L_r",
+        1.95 * rts * E / (0.7 * Fy) * c.sqrt(jc + c.sqrt(jc**2 + 6.76 * (0.7 * Fy / E) ** 2)),
+        "limiting unbraced length, inelastic LTB",
+        unit="ft",
+        ref="AISC 360-16 Eq. (F2-6)",
+    )
+    return Lp, Lr
 
 
 def ltb_strength_f2(
@@ -41,7 +68,7 @@ def ltb_strength_f2(
     if c.q(Lb) <= c.q(Lr):
         return c.derive(
             "M_n_LTB",
-            Cb * (Mp - (Mp - 0.7 * Fy * Sx) * ((Lb - Lp) / (Lr - Lp))),
+            Cb * transition(Mp, 0.7 * Fy * Sx, Lb, Lp, Lr),
             "inelastic lateral-torsional buckling",
             unit="kip*ft",
             ref="AISC 360-16 Eq. (F2-2)",

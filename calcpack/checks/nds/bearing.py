@@ -18,7 +18,14 @@ from dataclasses import dataclass
 from typing import Literal
 
 from calcpack.checks.base import MemberChecks, Recorder, Standard, run_checks
-from calcpack.checks.nds.factors import _TITLE, DURATION_FACTORS, NDS_EDITION
+from calcpack.checks.nds.factors import (
+    _TITLE,
+    DURATION_FACTORS,
+    NDS_EDITION,
+    wet_service_factor,
+    wet_service_source,
+    wet_table,
+)
 from calcpack.checks.nds.values import TimberValues
 from calcpack.errors import OutOfScopeError
 from calcpack.units import Q_, Quantity, require
@@ -34,6 +41,20 @@ __all__ = [
 Direction = Literal["perpendicular", "parallel", "angle"]
 
 
+def _wet(g: TimberBearing, prop: str) -> float:
+    # C_M of Table 4A (dimension lumber) or 4D (timbers); F_c's threshold reads F_c·C_F
+    if not g.wet:
+        return 1.0
+    Fc_CF = g.values.Fc * g.CF_c
+    return wet_service_factor(prop, wet=True, Fc_CF=Fc_CF, table=wet_table(g.values.product))
+
+
+def _wet_source(g: TimberBearing) -> str:
+    if not g.wet:
+        return "dry service, MC ≤ 19 % (C_M = 1.0)"
+    return wet_service_source(wet_table(g.values.product))
+
+
 @dataclass(frozen=True)
 class TimberBearing:
     """A bearing on a wood member.
@@ -44,7 +65,8 @@ class TimberBearing:
             perpendicular bearing) or the second side of the end-grain area (parallel).
         direction: "perpendicular", "parallel" (end grain) or "angle" with ``angle`` θ to
             the grain. from_end: distance of the bearing from the member end (for C_b).
-        wet: moisture content above 19 % in service (C_M = 0.67 for F_c⊥, 0.8 for F_c).
+        wet: moisture content above 19 % in service (C_M of NDS Supplement Table 4A for
+            dimension lumber, 4D for timbers; glulam and SCL refused).
         CF_c: size factor for F_c (end grain). duration: load duration (parallel to grain).
     """
 
@@ -78,6 +100,8 @@ class TimberBearing:
             )
         if self.from_end is not None:
             require(self.from_end, "[length]", "from_end", nonnegative=True)
+        if self.wet:
+            wet_table(self.values.product)  # refuses glulam and SCL in wet service
 
 
 def check_nds_bearing(bearing: TimberBearing, *, mark: str = "BRG1") -> MemberChecks:
@@ -99,9 +123,9 @@ def check_nds_bearing(bearing: TimberBearing, *, mark: str = "BRG1") -> MemberCh
             F = c.given("F_c_perp", v.Fc_perp, "reference F_c⊥", source=v.source)
             CM = c.given(
                 "C_M_perp",
-                0.67 if g.wet else 1.0,
+                _wet(g, "Fc_perp"),
                 "wet service factor",
-                source="NDS Supplement Table 4A",
+                source=_wet_source(g),
             )
             lb_in = float(g.lb.to("inch").magnitude)
             far = g.from_end is not None and float(g.from_end.to("inch").magnitude) >= 3.0
@@ -135,9 +159,7 @@ def check_nds_bearing(bearing: TimberBearing, *, mark: str = "BRG1") -> MemberCh
         c.heading("Bearing parallel to grain, §3.10.1", 3)
         Fc = c.given("F_c", v.Fc, "reference F_c", source=v.source)
         CD = c.given("C_D", DURATION_FACTORS[g.duration], g.duration, source="NDS 2018 Table 2.3.2")
-        CM = c.given(
-            "C_M_c", 0.8 if g.wet else 1.0, "wet service factor", source="NDS Supplement Table 4A"
-        )
+        CM = c.given("C_M_c", _wet(g, "Fc"), "wet service factor", source=_wet_source(g))
         CF = c.given("C_F_c", float(g.CF_c), "size factor", source="given")
         Fcs = c.derive(
             "F_c_star",

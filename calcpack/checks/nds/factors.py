@@ -9,6 +9,7 @@ from typing import Literal
 
 from calcpack.checks.scope import material_in_scope
 from calcpack.errors import InputError, OutOfScopeError
+from calcpack.refdata import read_table
 from calcpack.units import Q_, Quantity, require, si
 from calcpack.validate import non_empty, one_of, required, whole
 
@@ -25,6 +26,8 @@ __all__ = [
     "size_factor",
     "temperature_factor",
     "wet_service_factor",
+    "wet_service_source",
+    "wet_table",
 ]
 
 NDS_EDITION = "ANSI/AWC NDS-2018"
@@ -115,16 +118,63 @@ def flat_use_factor(nominal_thickness: int, nominal_width: int) -> float:
     )
 
 
-def wet_service_factor(prop: str, *, wet: bool, Fb_CF: Quantity | None = None) -> float:
-    """C_M for dimension lumber (NDS Supplement Table 4A): 1.0 dry (MC <= 19 %); wet:
-    F_b 0.85 (1.0 where F_b·C_F <= 1150 psi), F_v 0.97, E and E_min 0.9, F_c⊥ 0.67."""
+WetTable = Literal["4A", "4D"]
+_WET_TABLES: dict[str, WetTable] = {"sawn": "4A", "timber": "4D"}
+
+
+def wet_table(product: str) -> WetTable:
+    """The NDS Supplement table whose wet service factors apply to ``product``: "4A" for
+    dimension lumber ("sawn"), "4D" for timbers 5 in. x 5 in. and larger ("timber").
+
+    Raises:
+        OutOfScopeError: glulam or SCL (their wet service factors are not shipped here).
+    """
+    if product not in _WET_TABLES:
+        raise OutOfScopeError(
+            f"Wet service of {product} is not covered: only the wet service factors of NDS "
+            "Supplement 2018 Table 4A (dimension lumber) and Table 4D (timbers) are shipped"
+        )
+    return _WET_TABLES[product]
+
+
+def wet_service_source(table: WetTable = "4A") -> str:
+    """The citation of the wet service factors of ``table``, with the row's basis."""
+    row = read_table("nds_2018_wet_service.csv", key="key").row(f"{table}|E")
+    return f"NDS Supplement 2018 Table {table}, wet service factors ({row['basis']})"
+
+
+def wet_service_factor(
+    prop: str,
+    *,
+    wet: bool,
+    Fb_CF: Quantity | None = None,
+    Fc_CF: Quantity | None = None,
+    table: WetTable = "4A",
+) -> float:
+    """C_M of NDS Supplement 2018 Table 4A (dimension lumber) or 4D (timbers) for ``prop``
+    ("Fb", "Ft", "Fv", "Fc_perp", "Fc", "E" or "Emin"): 1.0 dry (MC <= 19 %). Wet, Table 4A:
+    F_b 0.85 (1.0 where F_b·C_F <= 1150 psi, so ``Fb_CF`` is required), F_c 0.8 (1.0 where
+    F_c·C_F <= 750 psi, ``Fc_CF`` required), F_v 0.97, F_c⊥ 0.67, E and E_min 0.9; Table 4D:
+    F_c 0.91, F_c⊥ 0.67, the others 1.0 (``refdata/nds_2018_wet_service.csv``).
+
+    Raises:
+        InputError: an unknown table or property, or the F·C_F a threshold needs not given.
+    """
+    one_of("table", table, ("4A", "4D"))
+    one_of("prop", prop, ("Fb", "Ft", "Fv", "Fc_perp", "Fc", "E", "Emin"))
     if not wet:
         return 1.0
-    if prop == "Fb":
-        Fb_CF = required("Fb_CF", Fb_CF, expected="a stress", when="for C_M of F_b")
-        return 1.0 if float(Fb_CF.to("psi").magnitude) <= 1150.0 else 0.85
-    table = {"Fv": 0.97, "E": 0.9, "Emin": 0.9, "Fc_perp": 0.67}
-    return table[prop]
+    row = read_table("nds_2018_wet_service.csv", key="key").row(
+        f"{table}|{'E' if prop == 'Emin' else prop}"
+    )
+    limit = row["limit_psi"]
+    if limit is not None:
+        given = Fb_CF if prop == "Fb" else Fc_CF
+        name = "Fb_CF" if prop == "Fb" else "Fc_CF"
+        given = required(name, given, expected="a stress", when=f"for C_M of {prop}")
+        if float(given.to("psi").magnitude) <= float(limit):
+            return 1.0
+    return float(row["factor"])
 
 
 def temperature_factor(prop: str, temperature: Quantity | None, *, wet: bool) -> float:

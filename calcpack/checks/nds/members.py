@@ -11,8 +11,9 @@ hangers and beam-columns of sawn lumber, timbers, glulam and structural composit
   (Eq. 3.9-3, biaxial) with an eccentric load on the strong axis by Eq. (15.4-1) (e₂ = 0).
 
 Assumed and stated on the sheet: sustained temperature ≤ 100 °F (C_t = 1.0), not incised
-(C_i = 1.0). Wet service factors are those of Table 4A for dimension lumber; other products in
-wet service are refused. Provisions should be confirmed against the edition adopted locally.
+(C_i = 1.0). Wet service factors are those of Table 4A for dimension lumber and Table 4D for
+timbers (``refdata/nds_2018_wet_service.csv``); glulam and SCL in wet service are refused.
+Provisions should be confirmed against the edition adopted locally.
 """
 
 from __future__ import annotations
@@ -27,11 +28,14 @@ from calcpack.checks.nds.factors import (
     NDS_EDITION,
     beam_stability_factor,
     effective_length,
+    wet_service_factor,
+    wet_service_source,
+    wet_table,
 )
 from calcpack.checks.nds.values import TimberValues
 from calcpack.errors import InputError, OutOfScopeError
 from calcpack.units import Q_, Quantity, require
-from calcpack.validate import one_of, within
+from calcpack.validate import one_of, positive_fields, within
 
 __all__ = ["TimberForces", "TimberMember", "check_nds_member", "column_stability_factor"]
 
@@ -59,7 +63,8 @@ class TimberMember:
             "cantilever uniform", "any").
         duration: load duration of Table 2.3.2 ("permanent", "ten years", "two months",
             "seven days", "ten minutes", "impact").
-        wet: moisture content in service above 19 % (sawn dimension lumber only).
+        wet: moisture content in service above 19 % (dimension lumber, Table 4A, or timbers,
+            Table 4D; glulam and SCL refused).
         CF_b, CF_t, CF_c: size factors for F_b, F_t, F_c (1.0 default) and CF_source.
         built_up: "nailed" or "bolted" for a column of laminations (§15.3); None: solid.
         L_beam: glulam only, length between points of zero moment for C_V.
@@ -85,20 +90,15 @@ class TimberMember:
         require(self.b, "[length]", "b", positive=True)
         require(self.d, "[length]", "d", positive=True)
         within("b", self.b, hi=self.d, rule="b is the smaller side; d the depth (d ≥ b)")
-        for nm in ("le_d", "le_b", "lu", "L_beam"):
-            if getattr(self, nm) is not None:
-                require(getattr(self, nm), "[length]", nm, positive=True)
+        positive_fields(self, "[length]", ("le_d", "le_b", "lu", "L_beam"), optional=True)
         one_of("duration", self.duration, list(DURATION_FACTORS))
         one_of("loading", self.loading, ("uniform", "center point", "cantilever uniform", "any"))
         if self.built_up is not None:
             one_of("built_up", self.built_up, ("nailed", "bolted"))
         for nm in ("CF_b", "CF_t", "CF_c"):
             within(nm, float(getattr(self, nm)), 0.5, 1.6, rule="NDS Supplement size factors")
-        if self.wet and self.values.product != "sawn":
-            raise OutOfScopeError(
-                f"Wet service of {self.values.product} ({self.values.name}) is not covered: "
-                "only the Table 4A wet service factors of dimension lumber are implemented"
-            )
+        if self.wet:
+            wet_table(self.values.product)  # refuses glulam and SCL
 
 
 @dataclass(frozen=True)
@@ -124,14 +124,17 @@ class TimberForces:
 
 
 def _wet(prop: str, product: str, wet: bool, ref_cf: float) -> float:
-    # NDS Supplement 2018 Table 4A, wet service factors (F_c 0.8 unless F_c C_F ≤ 750 psi)
+    # NDS Supplement 2018 Table 4A (dimension lumber) or 4D (timbers), wet service factors
     if not wet:
         return 1.0
-    if prop == "Fc":
-        return 1.0 if ref_cf <= 750.0 else 0.8
-    if prop == "Fb":
-        return 1.0 if ref_cf <= 1150.0 else 0.85
-    return {"Ft": 1.0, "Fv": 0.97, "Fc_perp": 0.67, "E": 0.9, "Emin": 0.9}[prop]
+    F_CF = Q_(ref_cf, "psi")
+    return wet_service_factor(prop, wet=True, Fb_CF=F_CF, Fc_CF=F_CF, table=wet_table(product))
+
+
+def _wet_source(member: TimberMember) -> str:
+    if not member.wet:
+        return "dry service, MC ≤ 19 % (C_M = 1.0)"
+    return wet_service_source(wet_table(member.values.product))
 
 
 def check_nds_member(
@@ -140,7 +143,8 @@ def check_nds_member(
     """Check a wood member for axial force and bending to NDS 2018 (ASD).
 
     Raises:
-        OutOfScopeError: ℓ_e/d > 50 (§3.7.1.4), e_d with weak-axis moment, wet SCL or glulam.
+        OutOfScopeError: ℓ_e/d > 50 (§3.7.1.4), e_d with weak-axis moment; at construction,
+            wet SCL or glulam.
         InputError: bad units or values; no force.
     """
     m, f = member, forces
@@ -226,7 +230,7 @@ def _compression(
         "C_M_c",
         _wet("Fc", v.product, m.wet, float((v.Fc * m.CF_c).to("psi").magnitude)),
         "wet service factor",
-        source="NDS Supplement Table 4A",
+        source=_wet_source(m),
     )
     CF = c.given("C_F_c", float(m.CF_c), "size factor", source=m.CF_source)
     Fcs = c.derive(
@@ -241,7 +245,7 @@ def _compression(
         "C_M_E",
         _wet("Emin", v.product, m.wet, 0.0),
         "wet service factor",
-        source="NDS Supplement Table 4A",
+        source=_wet_source(m),
     )
     Eminp = c.derive("E_min_adj", Emin * CMe, "E'_min", unit="psi", ref="NDS 2018 Table 4.3.1")
     led = c.given("l_e_d", m.le_d, "effective length, buckling across d", unit="ft")
@@ -251,19 +255,15 @@ def _compression(
     cc = c.given(
         "c", 0.8 if kind == "sawn" else 0.9, f"column parameter, {kind}", source="NDS 2018 §3.7.1.5"
     )
-    FcE1 = c.derive(
-        "F_cE1",
-        0.822 * Eminp / sd**2,
-        "critical buckling, across d",
-        unit="psi",
-        ref="NDS 2018 §3.9.2",
-    )
-    FcE2 = c.derive(
-        "F_cE2",
-        0.822 * Eminp / sb**2,
-        "critical buckling, across b",
-        unit="psi",
-        ref="NDS 2018 §3.9.2",
+    FcE1, FcE2 = (
+        c.derive(
+            f"F_cE{i}",
+            0.822 * Eminp / ratio**2,
+            f"critical buckling, across {across}",
+            unit="psi",
+            ref="NDS 2018 §3.9.2",
+        )
+        for i, ratio, across in ((1, sd, "d"), (2, sb, "b"))
     )
     weak_b = c.f(sb) >= c.f(sd)
     FcE = FcE2 if weak_b else FcE1
@@ -319,7 +319,7 @@ def _bending(
         f"C_M_b{k}",
         _wet("Fb", v.product, m.wet, float((v.Fb * m.CF_b).to("psi").magnitude)),
         "wet service factor",
-        source="NDS Supplement Table 4A",
+        source=_wet_source(m),
     )
     CF = c.given(f"C_F_b{k}", float(m.CF_b), "size factor", source=m.CF_source)
     Fbs = c.derive(

@@ -22,8 +22,8 @@ from typing import Literal
 from calcpack.checks.scope import material_in_scope
 from calcpack.errors import InputError
 from calcpack.refdata import read_table
-from calcpack.units import Q_, Quantity, require
-from calcpack.validate import non_empty, one_of
+from calcpack.units import Q_, Quantity
+from calcpack.validate import non_empty, one_of, positive_fields
 
 __all__ = [
     "SOUTHERN_PINE",
@@ -68,8 +68,7 @@ class TimberValues:
             expected=f"the source of timber values {self.name} (for SCL, the manufacturer's "
             "evaluation report), e.g. 'ICC-ES ESR-xxxx, Table 2'",
         )
-        for nm in ("Fb", "Ft", "Fv", "Fc_perp", "Fc", "E", "Emin"):
-            require(getattr(self, nm), "[pressure]", nm, positive=True)
+        positive_fields(self, "[pressure]", ("Fb", "Ft", "Fv", "Fc_perp", "Fc", "E", "Emin"))
         material_in_scope("NDS 2018|wood|E", "E", self.E)
         material_in_scope("NDS 2018|wood|Emin", "Emin", self.Emin)
 

@@ -158,3 +158,30 @@ def test_update_removes_with_none_and_appends_past_the_end(tmp_path: Path) -> No
     after = update_inputs(p, {"beam.spans[1]": None})
     assert after["beam"]["spans"] == [Q_(3000, "mm"), Q_(1.5, "m")]
     assert "# clear opening plus bearings" in p.read_text(encoding="utf-8")
+
+
+SHARED = """\
+# a file several sheets share: one table a panel edits, others it must not read
+[post]
+size = "6x6"        # nominal
+b = "5.5 in"
+[brace]
+bolt = "1/2 in. bolt"   # text starting with a number: not an inputs-file value
+"""
+
+
+def test_tables_reads_and_edits_only_the_tables_named(tmp_path: Path) -> None:
+    p = tmp_path / "design.toml"
+    p.write_text(SHARED, encoding="utf-8")
+    with pytest.raises(InputsFileError, match=r"brace\.bolt"):
+        load_inputs(p)  # the whole file does not read as inputs
+    assert load_inputs(p, tables=("post",)) == {"post": {"size": "6x6", "b": Q_(5.5, "inch")}}
+    after = update_inputs(p, {"post.size": "4x6", "post.b": Q_(3.5, "inch")}, tables=("post",))
+    assert after["post"] == {"size": "4x6", "b": Q_(3.5, "inch")}
+    text = p.read_text(encoding="utf-8")
+    assert "# nominal" in text
+    assert 'bolt = "1/2 in. bolt"' in text
+    with pytest.raises(InputsFileError, match=r"brace\.bolt.*only the tables \['post'\]"):
+        update_inputs(p, {"brace.bolt": "x"}, tables=("post",))
+    with pytest.raises(InputsFileError, match=r"table \[beam\] is missing"):
+        load_inputs(p, tables=("beam",))

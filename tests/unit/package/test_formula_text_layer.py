@@ -15,6 +15,7 @@ from pathlib import Path
 import pytest
 
 from calcpack.package.convert import package_css
+from calcpack.package.mathcache import MathCache
 from calcpack.package.mathsvg import math_spans_to_images
 
 pytestmark = pytest.mark.skipif(
@@ -77,7 +78,7 @@ def test_formula_words_are_found_over_the_image(tmp_path: Path) -> None:
     import html as _html
 
     path = tmp_path / "formula.pdf"
-    left, right = render(math_spans_to_images(page("<p>After.</p>")), path)
+    left, right = render(math_spans_to_images(page("<p>After.</p>"), MathCache()), path)
     text = subprocess.run(
         ["pdftotext", str(path), "-"], capture_output=True, text=True, check=True
     ).stdout
@@ -94,9 +95,11 @@ def test_formula_words_are_found_over_the_image(tmp_path: Path) -> None:
 
 def test_the_words_are_never_seen(tmp_path: Path) -> None:
     with_words = tmp_path / "with.pdf"
-    render(math_spans_to_images(page("")), with_words)
+    render(math_spans_to_images(page(""), MathCache()), with_words)
     html = re.sub(
-        r'<span class="cp-math-text"[^>]*>[^<]*</span>', "", math_spans_to_images(page(""))
+        r'<span class="cp-math-text"[^>]*>[^<]*</span>',
+        "",
+        math_spans_to_images(page(""), MathCache()),
     )
     without = tmp_path / "without.pdf"
     render(html, without)

@@ -11,6 +11,7 @@ import re
 import pytest
 
 from calcpack.package.mathbreak import break_display, flatten_delimiters, top_level_atoms
+from calcpack.package.mathcache import MathCache
 from calcpack.package.mathsvg import MATH_MAX_WIDTH_PX, fitted_image, tex_to_svg
 
 
@@ -86,9 +87,10 @@ def test_typeset_result_fits_the_column(count: int) -> None:
         rf"\left({i}.00\ \mathrm{{kN}}\right) \left({i}.50\ \mathrm{{m}}\right)"
         for i in range(1, count)
     )
-    whole = tex_to_svg(tex, display=True)
+    math = MathCache()
+    whole = tex_to_svg(tex, display=True, cache=math)
     assert whole.width_px > MATH_MAX_WIDTH_PX
-    image = fitted_image(tex, True)
+    image = fitted_image(tex, True, cache=math)
     assert 0.6 * MATH_MAX_WIDTH_PX < image.width_px <= MATH_MAX_WIDTH_PX
     assert image.height_px > 2 * whole.height_px
 

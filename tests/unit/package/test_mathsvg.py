@@ -14,7 +14,6 @@ from calcpack.package.mathsvg import (
     fix_tex,
     markdown_math_to_spans,
     math_spans_to_images,
-    process_cache,
     tex_to_svg,
 )
 
@@ -37,7 +36,7 @@ FORMULAS = [
 
 @pytest.mark.parametrize("tex", FORMULAS)
 def test_formula_is_vector_svg_with_size(tex: str) -> None:
-    image = tex_to_svg(tex, display=True)
+    image = tex_to_svg(tex, display=True, cache=MathCache())
     root = ET.fromstring(image.svg)
     assert root.tag.endswith("svg")
     tags = {el.tag.rsplit("}", 1)[-1] for el in root.iter()}
@@ -50,19 +49,23 @@ def test_formula_is_vector_svg_with_size(tex: str) -> None:
 
 
 def test_cache_returns_the_same_image() -> None:
-    assert tex_to_svg(r"M_{max}") is tex_to_svg(r"M_{max}")
-    assert tex_to_svg(r"M_{max}", display=True) is not tex_to_svg(r"M_{max}")
+    math = MathCache()
+    assert tex_to_svg(r"M_{max}", cache=math) is tex_to_svg(r"M_{max}", cache=math)
+    assert tex_to_svg(r"M_{max}", display=True, cache=math) is not tex_to_svg(
+        r"M_{max}", cache=math
+    )
 
 
 def test_a_cache_passed_in_keeps_its_own_formulas_and_the_keys_used() -> None:
     """A build's formula cache is its own object: it starts empty, counts what it typesets as
-    used, and the process's cache is left alone."""
+    used, and another run's cache is left alone."""
+    other = MathCache()
     math = MathCache()
     tex = r"M_{own} = \frac{w L^{2}}{8}"
     image = tex_to_svg(tex, display=True, cache=math)
     assert math.images == {(tex, True, 13.5): image}
     assert math.used == {(tex, True, 13.5)}
-    assert (tex, True, 13.5) not in process_cache().images
+    assert (tex, True, 13.5) not in other.images
     assert tex_to_svg(tex, display=True, cache=math) is image
     again = MathCache()
     again.add_images(math.image_entries())
@@ -106,20 +109,22 @@ def test_fix_tex_groups_a_sign_minus_and_leaves_binary_minus() -> None:
 def test_sign_minus_after_a_stretchy_bracket_is_set_tight() -> None:
     # TeX sets a minus after an opening bracket as a sign: "(−0.08 kip)" has the width of
     # "(0.08 kip)" plus the sign, with no operator spaces (TeXbook, Appendix G, rule 5).
-    tight = tex_to_svg(r"\left( {-}0.08 \right)", track=False).width_px
-    assert tex_to_svg(r"\left( -0.08 \right)", track=False).width_px == pytest.approx(tight)
+    math = MathCache()
+    tight = tex_to_svg(r"\left( {-}0.08 \right)", track=False, cache=math).width_px
+    sign = tex_to_svg(r"\left( -0.08 \right)", track=False, cache=math)
+    assert sign.width_px == pytest.approx(tight)
 
 
 def test_script_on_accent_sits_at_normal_height() -> None:
     # TeX attaches the script to the nucleus, so x̄² is no taller than x² plus the accent.
-    plain = tex_to_svg(r"x^{2}")
-    accented = tex_to_svg(r"\bar{x}^{2}")
+    plain = tex_to_svg(r"x^{2}", cache=MathCache())
+    accented = tex_to_svg(r"\bar{x}^{2}", cache=MathCache())
     assert accented.height_px <= plain.height_px * 1.25
 
 
 def test_unknown_command_names_the_formula() -> None:
     with pytest.raises(BuildError, match=r"\\notacommand"):
-        tex_to_svg(r"\notacommand{x}")
+        tex_to_svg(r"\notacommand{x}", cache=MathCache())
 
 
 def test_spans_become_images_with_plain_text_alt_text() -> None:
@@ -127,7 +132,7 @@ def test_spans_become_images_with_plain_text_alt_text() -> None:
         '<div class="cp-step"><span class="cp-math cp-math-display">\\[a &lt; \\frac{b}{c}\\]'
         '</span> and <span class="cp-math cp-math-inline">\\(x_{1}\\)</span></div>'
     )
-    out = math_spans_to_images(html)
+    out = math_spans_to_images(html, MathCache())
     assert "\\frac" not in re.sub(r'alt="[^"]*"', "", out)
     alts = re.findall(r'alt="([^"]*)"', out)
     assert alts == ["a &lt; b/c", "x1"]  # the formula's words (package/mathtext.py)
@@ -145,3 +150,14 @@ def test_markdown_dollars_become_spans_but_prices_and_code_do_not() -> None:
     assert '<span class="cp-math cp-math-display">\\[M = \\frac{wL^2}{8}\\]</span>' in out
     assert "cost $5 and $6" in out
     assert "<code>$x$</code>" in out
+
+
+def test_no_formula_cache_outlives_its_run() -> None:
+    """Every typesetting path takes the run's own cache (a build's, or a single sheet's
+    export's): no module of the build keeps one of its own between runs."""
+    import importlib
+
+    for name in ("mathsvg", "mathcache", "document", "sheetdoc", "bodies", "pipeline", "convert"):
+        module = importlib.import_module(f"calcpack.package.{name}")
+        kept = [k for k, v in vars(module).items() if isinstance(v, MathCache)]
+        assert kept == [], f"calcpack.package.{name} keeps a formula cache: {kept}"

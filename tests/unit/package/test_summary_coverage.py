@@ -10,6 +10,7 @@ from pathlib import Path
 import nbformat
 
 from calcpack.package.document import DocumentOptions, SheetDoc, document_html
+from calcpack.package.mathcache import MathCache
 from calcpack.package.project import load_project
 from calcpack.package.records import collect_records
 from calcpack.package.summary import check_counts, counts_line
@@ -46,7 +47,13 @@ def test_checklist_items_not_met_are_not_covered_in_the_summary_and_counted_on_t
     counts = check_counts(docs)
     # 3 checks, all OK; steel beam items: 11 - flexure - shear - 2 declared n/a - supports (P1)
     assert counts == {"OK": 3, "NOT OK": 0, "NOT COVERED": 6, "checks": 9, "checklist": 6}
-    html = document_html(project, docs, DocumentOptions(), created=dt.datetime(2026, 1, 15))  # type: ignore[arg-type]
+    html = document_html(
+        project,
+        docs,  # type: ignore[arg-type]
+        DocumentOptions(),
+        created=dt.datetime(2026, 1, 15),
+        math=MathCache(),
+    )
     cover = html[: html.index('id="contents"')]
     assert counts_line(counts) in cover
     assert "6 checklist items not met" in cover

@@ -20,6 +20,7 @@ from calcpack.contract.compare import diff_manifests
 from calcpack.errors import BuildError, InputError, NotebookExecutionError, SigningError
 from calcpack.package import execute, reproduce_manifest
 from calcpack.package.document import DocumentOptions, SheetDoc, document_html
+from calcpack.package.mathcache import MathCache
 from calcpack.package.project import load_project
 from calcpack.package.records import collect_records
 from calcpack.package.verification import (
@@ -108,7 +109,7 @@ def test_the_package_shows_the_verification_section_and_the_count_on_the_cover(
     project, docs = _docs(_project(tmp_path, M_kNm=47.0))
     compared = compare_verifications(project, docs)  # type: ignore[arg-type]
     options = DocumentOptions(verifications=compared)
-    html = document_html(project, docs, options, created=dt.datetime(2026, 1, 15))  # type: ignore[arg-type]
+    html = document_html(project, docs, options, created=dt.datetime(2026, 1, 15), math=MathCache())  # type: ignore[arg-type]
     cover = html[: html.index('id="contents"')]
     # key results of the beam sheet: its export M_max and its governing check Flexure (B1)
     assert "2 of 2 key results independently verified by the checker; 1 disagree" in cover

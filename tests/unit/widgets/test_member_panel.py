@@ -88,3 +88,27 @@ def test_utilisation_bars_write_the_verdict_and_cap_long_bars() -> None:
     assert "2.00 NOT OK" in svg
     widths = [float(p.split('width="')[1].split('"')[0]) for p in svg.split("<rect")[1:]]
     assert widths[1] == pytest.approx(widths[0] * 3, abs=0.2)  # 1.5 cap vs 0.5, drawn to 0.1 px
+
+
+def test_member_search_ranks_by_depth_under_a_limit_and_refuses_one_no_shape_meets(
+    column_file: Path,
+) -> None:
+    panel = member_panel(column_file)
+    ctl = panel.searcher
+    ctl.order.value = "depth"
+    ctl.max_depth.value = "6 in"
+    found = panel.search(count=3)
+    assert found is not None
+    assert found.order == "depth"
+    depths = [t.depth.to("inch").magnitude for t in found.passing]
+    assert depths == sorted(depths)
+    assert all(d <= 6.0 for d in depths)
+    ctl.max_depth.value = "1 in"  # no HSS is that shallow
+    assert panel.search() is None
+    assert "max_depth" in ctl.ranking.value
+    assert "the shallowest is" in ctl.ranking.value
+    assert list(ctl.pick.options) == []
+    assert ctl.use_button.disabled
+    ctl.max_depth.value = "6 kip"  # not a length: refused naming the field
+    assert panel.search() is None
+    assert "deepest" in ctl.ranking.value
