@@ -27,6 +27,7 @@ __all__ = [
     "count_sheet_pages",
     "nest_headings",
     "prepare_sheet",
+    "project_from_metadata",
     "sheet_title",
     "single_sheet_pdf",
 ]
@@ -200,11 +201,13 @@ def single_sheet_pdf(
         entry = listed[0] if listed else SheetEntry("—", path or f"{name}.ipynb", None)
         project = replace(project, sheets=(entry,))
     else:
-        project = _project_from_metadata(meta, name, today)
+        project = project_from_metadata(meta, name, today)
     return _sheet_pdf(project, nb, name, today)
 
 
-def _project_from_metadata(meta: dict[str, Any], name: str, today: _dt.date) -> Project:
+def project_from_metadata(meta: dict[str, Any], name: str, today: _dt.date) -> Project:
+    """A stand-in project for a sheet outside any project: job fields from the notebook's
+    ``metadata.calcpack`` ("—" where absent), one sheet named ``name``."""
     return Project(
         path=Path(name).resolve(),
         job_number=str(meta.get("job_number", "—")),
