@@ -277,3 +277,11 @@ def test_not_covered_is_what_the_job_declares_each_with_its_reason(built: dict[s
     assert "2 NOT COVERED" in cover
     assert "Engineer of record" in cover
     assert "G. Llewellyn-Shaw" in cover
+
+
+def test_pagination_and_outline_rules(built: dict[str, Any]) -> None:
+    """The pagination and outline rules of every package (tests/build/pagerules.py)."""
+    from pagerules import package_problems, titleblock_names
+
+    names = titleblock_names(built["project"])
+    assert package_problems(built["pdf"], built["manifest"], names) == []
