@@ -331,6 +331,9 @@ from calcpack.loads.wind_asce7_cc import (
     cc_coefficient_asce7 as cc_coefficient_asce7,
     cc_roof_zones as cc_roof_zones,
 )
+from calcpack.loads.wind_asce7_cc_plan import (
+    cc_roof_plan_asce7 as cc_roof_plan_asce7,
+)
 from calcpack.loads.wind_asce7_lowrise import (
     LowRiseBuildingASCE7 as LowRiseBuildingASCE7,
     components_wind_asce7 as components_wind_asce7,

@@ -163,6 +163,7 @@ PUBLIC: dict[str, str] = {
     "effective_wind_area": "calcpack.loads.wind_asce7_lowrise",
     "cc_roof_zones": "calcpack.loads.wind_asce7_cc",
     "cc_coefficient_asce7": "calcpack.loads.wind_asce7_cc",
+    "cc_roof_plan_asce7": "calcpack.loads.wind_asce7_cc_plan",
     # US steel shapes and grades, AISC 360-16 members, NDS 2018 members
     "aisc_shape": "calcpack.sections.aisc_database",
     "aisc_shape_names": "calcpack.sections.aisc_database",
