@@ -28,6 +28,7 @@ from typing import Any
 from calcpack.contract.verdict import Verdict, passes
 from calcpack.errors import InputError
 from calcpack.units import Q_, Quantity, is_quantity, utilisation
+from calcpack.validate import find
 
 __all__ = [
     "NOT_COVERED",
@@ -335,16 +336,8 @@ class MemberChecks:
     logic: Logic = field(repr=False, compare=False)
 
     def __getitem__(self, name: str) -> CheckResult:
-        for r in self.results:
-            if r.name == name:
-                return r
-        raise InputError(
-            f"Member {self.member} has no check {name!r} (checks are "
-            f"{[r.name for r in self.results]})",
-            name="name",
-            value=name,
-            expected="a check name",
-        )
+        checks = {r.name: r for r in self.results}
+        return find("name", name, checks, what="check", where=f"of member {self.member}")
 
     @property
     def governing(self) -> CheckResult:

@@ -7,7 +7,9 @@ every combination of an allowable stress set (ASCE/SEI 7-16 §2.4.1 by default),
 
 * uplift: the largest net upward pull, e.g. under 0.6D + 0.6W (combination 7), against the
   listed allowable uplift;
-* download: the largest net push, against the listed allowable download (when listed).
+* download: the largest net push, against the listed allowable download (when listed);
+* moment: for a base listed as moment-resisting, the largest net moment |Σ γ M| against the
+  listed allowable moment (when the moments by case are given).
 
 Sign convention: a reaction is positive when the support pushes the member up (gravity), so a
 negative net reaction is uplift. The listed values must be for the load duration of the
@@ -25,7 +27,7 @@ from calcpack.checks.base import MemberChecks, Recorder, Standard, run_checks
 from calcpack.combinations.model import CombinationSet
 from calcpack.errors import InputError
 from calcpack.units import Q_, Quantity, require
-from calcpack.validate import non_empty
+from calcpack.validate import at_least, non_empty
 
 __all__ = ["ConnectorListing", "check_connector"]
 
@@ -50,6 +52,7 @@ class ConnectorListing:
         uplift: listed allowable uplift (tension), for the load duration ``duration``.
         source: the evaluation report and table the values come from.
         download: listed allowable download (None: not listed, not checked).
+        moment: listed allowable moment of a moment-resisting base (None: not listed).
         duration: the load duration the listed values are for (e.g. "C_D = 1.6, wind").
     """
 
@@ -57,6 +60,7 @@ class ConnectorListing:
     uplift: Quantity
     source: str
     download: Quantity | None = None
+    moment: Quantity | None = None
     duration: str = "C_D = 1.6 (wind or earthquake)"
 
     def __post_init__(self) -> None:
@@ -70,6 +74,8 @@ class ConnectorListing:
         )
         if self.download is not None:
             require(self.download, "[force]", "download", positive=True)
+        if self.moment is not None:
+            require(self.moment, "[force]*[length]", "moment", positive=True)
         non_empty("duration", self.duration, expected="the load duration of the listed values")
 
 
@@ -79,6 +85,7 @@ def check_connector(
     combinations: CombinationSet,
     *,
     mark: str,
+    moments: Mapping[str, Quantity] | None = None,
 ) -> MemberChecks:
     """Check one connector for the net uplift (and download) of its member's reactions.
 
@@ -88,21 +95,31 @@ def check_connector(
             member up, i.e. gravity), e.g. ``{"D": ..., "L": ..., "W": ...}``.
         combinations: the allowable stress combinations (e.g. ``asce7_allowable_stress()``).
         mark: the connection's mark (e.g. "J1 to BR1").
+        moments: load case -> unfactored moment on a moment-resisting base (any sign); needs
+            the listed ``moment``.
 
     Returns the checks "Uplift" (demand 0 when no combination lifts the member) and, when the
-    download is listed, "Download", each with its governing combination.
+    download is listed, "Download", and when moments are given, "Moment", each with its
+    governing combination.
 
     Raises:
-        InputError: no reactions, a reaction that is not a force, or a case no combination
-            uses (named by the combination set).
+        InputError: no reactions, a reaction that is not a force, a moment that is not a
+            moment, moments without a listed moment, or a case no combination uses (named by
+            the combination set).
     """
-    if not reactions:
-        raise InputError(
-            name="reactions", value=dict(reactions), expected="the reactions by load case"
-        )
+    at_least("reactions", reactions, what="reaction by load case")
     for case, R in reactions.items():
         require(R, "[force]", f"reactions[{case!r}]")
-    applied = combinations.apply(reactions.keys())
+    moments = dict(moments or {})
+    for case, M in moments.items():
+        require(M, "[force]*[length]", f"moments[{case!r}]")
+    if moments and listing.moment is None:
+        raise InputError(
+            name="moments",
+            value=moments,
+            expected=f"no moments: {listing.name} has no listed allowable moment",
+        )
+    applied = combinations.apply(dict.fromkeys([*reactions, *moments]))
     if not applied:
         raise InputError(
             name="reactions",
@@ -111,7 +128,16 @@ def check_connector(
         )
     unit = next(iter(reactions.values())).units
     net = {
-        ac.name: sum((f * reactions[c] for c, f in ac.factors.items()), Q_(0.0, unit))
+        ac.name: sum(
+            (f * reactions[c] for c, f in ac.factors.items() if c in reactions), Q_(0.0, unit)
+        )
+        for ac in applied
+    }
+    m_unit = next(iter(moments.values())).units if moments else None
+    net_m = {
+        ac.name: abs(
+            sum((f * moments[c] for c, f in ac.factors.items() if c in moments), Q_(0.0, m_unit))
+        )
         for ac in applied
     }
     low = min(net, key=lambda n: net[n].to(unit).magnitude)
@@ -149,5 +175,16 @@ def check_connector(
                           f"listed allowable download, {listing.name}", source=listing.source,
                           unit=str(unit))  # fmt: skip
             c.check("Download", C, C_a, ref=listing.source, combination=high)
+        if moments:
+            assert listing.moment is not None
+            big = max(net_m, key=lambda n: net_m[n].magnitude)
+            for case, M in moments.items():
+                c.given(f"M_{case}", M, f"moment, {case} (unfactored)",
+                        source="the member's analysis", unit=str(m_unit))  # fmt: skip
+            M_d = c.given("M_base", net_m[big], "net moment on the base", source=big,
+                          unit=str(m_unit), result=True)  # fmt: skip
+            M_a = c.given("M_allow", listing.moment, f"listed allowable moment, {listing.name}",
+                          source=listing.source, unit=str(m_unit))  # fmt: skip
+            c.check("Moment", M_d, M_a, ref=listing.source, combination=big)
 
     return run_checks(mark, f"Connector {listing.name} at {mark}", _STANDARD, logic)

@@ -29,7 +29,9 @@ __all__ = [
     "VelocityPressureASCE7",
     "WindSiteASCE7",
     "internal_pressure_coefficient",
+    "profile_heights",
     "velocity_pressure_asce7",
+    "velocity_pressure_at",
 ]
 
 ASCE7_WIND = LoadStandard("ASCE/SEI 7-16", "Chapters 26 to 30, Wind Loads")
@@ -235,3 +237,46 @@ def internal_pressure_coefficient(enclosure: str) -> float:
     """GCpi magnitude for an enclosure classification (ASCE 7-16 Table 26.13-1), applied ±."""
     one_of("enclosure", enclosure, ENCLOSURES)
     return float(read_table("asce7_16_wind_gcpi.csv", key="enclosure").row(enclosure)["GCpi"])
+
+
+# Heights of Table 26.10-1 (ft): the stations of a windward wall's q_z profile
+_TABLE_HEIGHTS_FT = (15, 20, 25, 30, 40, 50, 60, 70, 80, 90, 100, 120, 140, 160, 180, 200, 250,
+                     300, 350, 400, 450, 500)  # fmt: skip
+# metric stations near those heights (m); the first (5 m) lies above 15 ft, so the bottom band
+# takes a q_z at least that of Table 26.10-1's first row (conservative)
+_METRIC_HEIGHTS_M = (5, 6, 7.5, 9, 12, 15, 18, 21, 24, 27, 30, 36, 42, 48, 54, 60, 75, 90, 105,
+                     120, 135, 150)  # fmt: skip
+
+
+def profile_heights(
+    h: Quantity, levels: tuple[Quantity, ...] | None = None
+) -> tuple[Quantity, ...]:
+    """The tops of the bands of a windward wall's q_z profile, increasing, ending at ``h``.
+
+    Args:
+        h: mean roof height [length]. levels: heights to use instead of the heights of
+            Table 26.10-1 (15, 20, 25, 30, 40 ... ft) below h (in metres for an SI h: 5, 6,
+            7.5, 9, 12 ... m).
+    """
+    dimension("h", h, "[length]")
+    positive("h", h)
+    if levels is None:
+        us = is_us_customary(h)
+        table, unit = (_TABLE_HEIGHTS_FT, "ft") if us else (_METRIC_HEIGHTS_M, "m")
+        tops = [Q_(float(z), unit).to(h.units) for z in table if Q_(z, unit) < h]
+    else:
+        tops = []
+        for i, z in enumerate(levels):
+            dimension(f"levels[{i}]", z, "[length]")
+            within(f"levels[{i}]", z, lo=Q_(0.0, "ft"), hi=h, inclusive=False,
+                   rule="a level between the ground and the mean roof height h")  # fmt: skip
+            tops.append(z.to(h.units))
+        tops = sorted(set(tops), key=lambda q: float(q.magnitude))
+    return (*tops, h)
+
+
+def velocity_pressure_at(site: WindSiteASCE7, z: Quantity) -> tuple[float, float, Quantity]:
+    """(K_z, K_zt, q_z) at height z by the same formulas as the working, without the working."""
+    r = Recorder("q_z")
+    q = record_velocity_pressure(r, site, z, "q_z")
+    return r.f(r.values["K_z"]), r.f(r.values["K_zt"]), r.q(q)

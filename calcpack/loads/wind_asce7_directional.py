@@ -1,20 +1,28 @@
-"""Wind on the main frame of a rigid building by the directional procedure, ASCE/SEI 7-16
-Chapter 27 Part 1 (enclosed and partially enclosed buildings of all heights): walls and gable
-or flat roofs, one wind direction at a time.
+"""Wind on the main frame of a building by the directional procedure, ASCE/SEI 7-16 Chapter 27
+Part 1 (enclosed and partially enclosed buildings of all heights): walls and gable, hip,
+monoslope or flat roofs, one wind direction at a time.
 
     p = q G C_p − q_i (GC_pi)        (Eq. 27.3-1)
 
-q = q_h for every surface here (the windward wall too: q_z ≤ q_h below the mean roof height, so
-this is conservative), q_i = q_h (§27.3.1, enclosed buildings); G = 0.85 for a rigid building
-(§26.11.1) unless given; C_p from Figure 27.3-1: walls (windward 0.8, leeward by L/B, side
-walls −0.7) and roofs (wind normal to the ridge with θ ≥ 10°: windward and leeward by θ and h/L;
-wind parallel to the ridge, or θ < 10°: by distance from the windward edge and h/L), with the
-figure's linear interpolation between values of the same sign. Where the figure gives two roof
-values, both are reported (C_p1, C_p2) and the roof is to be designed for each.
+q = q_z on the windward wall, evaluated at the top of each band of height (the heights of Table
+26.10-1 below h, or the levels given; K_z with z at least 15 ft), so each band carries the
+largest q_z within it; q = q_h on the leeward and side walls and the roof; q_i = q_h (§27.3.1,
+enclosed buildings). G = 0.85 for a rigid building (§26.11.1) unless given; for a flexible
+building (n_1 < 1 Hz) G_f of §26.11.5 (:mod:`calcpack.loads.wind_asce7_gust`). C_p from Figure
+27.3-1: walls (windward 0.8, leeward by L/B, side walls −0.7) and roofs (wind normal to the
+ridge with θ ≥ 10°: windward and leeward by θ and h/L; wind parallel to the ridge, or θ < 10°: by
+distance from the windward edge and h/L), with the figure's linear interpolation between values
+of the same sign. Where the figure gives two roof values, both are reported (C_p1, C_p2) and the
+roof is to be designed for each.
 
-Refused (OutOfScopeError naming the limit): flexible buildings (natural frequency below 1 Hz:
-G_f of §26.11.5); hip, monoslope and mansard roofs (the figure's notes for them are not
-implemented); open or partially open buildings.
+Monoslope roofs: the whole roof is either a windward or a leeward surface (Figure 27.3-1 note),
+as the wind meets the low or the high eave. Hip roofs: each slope takes the figure's value by
+its orientation to the wind -- the slopes the wind meets or leaves by θ and h/L as windward and
+leeward roofs, the slopes parallel to the wind by distance from the windward edge (common
+practice; the figure's table is written for gable and hip roofs alike).
+
+Refused (OutOfScopeError naming the limit): mansard roofs; open or partially open buildings;
+``rigid=False`` without the natural frequency and damping of the building.
 
 Sign convention: pressure positive toward the surface, suction negative.
 """
@@ -33,8 +41,11 @@ from calcpack.loads.wind_asce7 import (
     ENCLOSURES,
     WindSiteASCE7,
     internal_pressure_coefficient,
+    profile_heights,
     record_velocity_pressure,
+    velocity_pressure_at,
 )
+from calcpack.loads.wind_asce7_gust import BuildingVibration, record_gust_effect
 from calcpack.refdata import read_table
 from calcpack.units import Quantity
 from calcpack.validate import dimension, one_of, positive, within
@@ -43,12 +54,15 @@ __all__ = [
     "DirectionalBuildingASCE7",
     "DirectionalWindASCE7",
     "SurfaceWind",
+    "WindwardBand",
     "directional_cp_roof",
     "directional_wind_asce7",
 ]
 
 Direction = Literal["normal to ridge", "parallel to ridge"]
-RoofForm = Literal["gable", "flat"]
+RoofForm = Literal["gable", "hip", "monoslope", "flat"]
+Eave = Literal["low", "high"]
+ROOF_FORMS: tuple[RoofForm, ...] = ("gable", "hip", "monoslope", "flat")
 _FIG = "ASCE 7-16 Figure 27.3-1"
 _TABLE = "asce7_16_wind_cp_ch27.csv"
 
@@ -60,9 +74,18 @@ class DirectionalBuildingASCE7:
     Attributes:
         h: mean roof height (eave height for θ ≤ 10°). B: horizontal dimension normal to the
             wind. L: horizontal dimension parallel to the wind. roof_slope: roof angle θ.
-        direction: "normal to ridge" or "parallel to ridge". roof: "gable" or "flat".
-        enclosure: §26.12 classification. G: gust-effect factor (0.85, rigid, §26.11.1).
+        direction: "normal to ridge" or "parallel to ridge" (for a monoslope roof: normal to
+            or along its eaves). roof: "gable", "hip", "monoslope" or "flat".
+        enclosure: §26.12 classification. G: gust-effect factor of a rigid building (0.85,
+            §26.11.1, or as calculated by §26.11.4).
         rigid: the engineer confirms the building is rigid (natural frequency ≥ 1 Hz, §26.11.2).
+        vibration: natural frequency n_1 and damping β; with n_1 < 1 Hz the building is
+            flexible and G_f of §26.11.5 replaces G.
+        windward_eave: monoslope roofs with wind normal to the eaves: the wind meets the
+            ``"low"`` eave (the roof is a windward surface) or the ``"high"`` one (leeward).
+        hip_slope: slope of a hip roof's end slopes (default: roof_slope).
+        wall_levels: heights at which the windward wall's q_z steps (default: those of Table
+            26.10-1 below h).
     """
 
     h: Quantity
@@ -74,6 +97,10 @@ class DirectionalBuildingASCE7:
     enclosure: str = "enclosed"
     G: float = 0.85
     rigid: bool = True
+    vibration: BuildingVibration | None = None
+    windward_eave: Eave = "low"
+    hip_slope: Quantity | None = None
+    wall_levels: tuple[Quantity, ...] | None = None
 
     def __post_init__(self) -> None:
         for name in ("h", "B", "L"):
@@ -87,13 +114,20 @@ class DirectionalBuildingASCE7:
             rule="roof angle in degrees",
         )
         one_of("direction", self.direction, ("normal to ridge", "parallel to ridge"))
-        if self.roof in ("hip", "monoslope", "mansard"):
+        if str(self.roof) == "mansard":
             raise OutOfScopeError(
-                f"Input roof = {self.roof!r}: the directional procedure is implemented here for "
-                "gable and flat roofs only (ASCE 7-16 Figure 27.3-1 notes for other roof forms "
-                "are not implemented)"
+                "Input roof = 'mansard': the directional procedure is implemented here for "
+                "gable, hip, monoslope and flat roofs (the mansard note of ASCE 7-16 Figure "
+                "27.3-1 is not implemented)"
             )
-        one_of("roof", self.roof, ("gable", "flat"))
+        one_of("roof", self.roof, ROOF_FORMS)
+        one_of("windward_eave", self.windward_eave, ("low", "high"))
+        if self.hip_slope is not None:
+            dimension("hip_slope", self.hip_slope, "[]")
+            within("hip_slope", float(self.hip_slope.to("deg").magnitude), 0.0, 80.0,
+                   rule="roof angle in degrees")  # fmt: skip
+        if self.wall_levels is not None:
+            profile_heights(self.h, self.wall_levels)  # validates each level
         if self.roof == "flat":
             within(
                 "roof_slope",
@@ -109,10 +143,11 @@ class DirectionalBuildingASCE7:
                 "is implemented here for enclosed and partially enclosed buildings only "
                 "(input enclosure)"
             )
-        if not self.rigid:
+        if not self.rigid and (self.vibration is None or not self.vibration.flexible):
             raise OutOfScopeError(
-                "Input rigid = False: a flexible building needs the gust-effect factor G_f of "
-                "ASCE 7-16 §26.11.5, which is not implemented (limit: natural frequency ≥ 1 Hz)"
+                "Input rigid = False: a flexible building needs its natural frequency n1 < 1 Hz "
+                "and damping ratio (input vibration) for the gust-effect factor G_f of ASCE 7-16 "
+                "§26.11.5; with n1 >= 1 Hz the building is rigid"
             )
         within(
             "G",
@@ -131,6 +166,10 @@ class DirectionalBuildingASCE7:
     def h_over_L(self) -> float:
         return float((self.h / self.L).to("").magnitude)
 
+    @property
+    def flexible(self) -> bool:
+        return self.vibration is not None and self.vibration.flexible
+
 
 def _lerp(x0: float, y0: float, x1: float, y1: float, x: float) -> float:
     if x1 == x0:
@@ -147,6 +186,9 @@ def _by(xs: list[float], ys: list[float], x: float) -> float:
         if x <= xs[i]:
             return _lerp(xs[i - 1], ys[i - 1], xs[i], ys[i], x)
     return ys[-1]
+
+
+Zone = tuple[str, float, float, float, float]
 
 
 def _rows(surface: str) -> list[Any]:
@@ -170,22 +212,15 @@ def _roof_normal(surface: str, hl: float, theta: float) -> tuple[float, float]:
     return out[0], out[1]
 
 
-def directional_cp_roof(
-    b: DirectionalBuildingASCE7,
-) -> list[tuple[str, float, float, float, float]]:
-    """The roof's C_p by Figure 27.3-1: (surface, from, to (multiples of h from the windward
-    edge, or 0, 0 for whole slopes), C_p1, C_p2)."""
-    theta, hl = b.theta_deg, b.h_over_L
-    if b.direction == "normal to ridge" and theta >= 10.0:
-        w1, w2 = _roof_normal("windward roof", hl, theta)
-        l1, _ = _roof_normal("leeward roof", hl, theta)
-        return [("windward roof", 0.0, 0.0, w1, w2), ("leeward roof", 0.0, 0.0, l1, l1)]
+def _distance_zones(b: DirectionalBuildingASCE7, prefix: str) -> list[Zone]:
+    """Roof zones by distance from the windward edge (wind parallel to the ridge, or θ < 10°)."""
     rows = _rows("parallel")
     tables = {}
     for ratio in (0.5, 1.0):
         tables[ratio] = sorted(
             (float(r["at"]), float(r["cp1"]), float(r["cp2"])) for r in rows if r["ratio"] == ratio
         )
+    hl = b.h_over_L
     L_h = float((b.L / b.h).to("").magnitude)
     cuts = [x for x in (0.0, 0.5, 1.0, 2.0) if x < L_h] + [L_h]
     out = []
@@ -197,8 +232,44 @@ def directional_cp_roof(
             vals.append(cp)
         c1 = _by([0.5, 1.0], [vals[0][1], vals[1][1]], hl)
         c2 = _by([0.5, 1.0], [vals[0][2], vals[1][2]], hl)
-        out.append((f"roof {a:g}h to {e:.3g}h", a, e, c1, c2))
+        out.append((f"{prefix} {a:g}h to {e:.3g}h", a, e, c1, c2))
     return out
+
+
+def _facing(b: DirectionalBuildingASCE7, theta: float, windward: str, leeward: str) -> list[Zone]:
+    hl = b.h_over_L
+    w1, w2 = _roof_normal("windward roof", hl, theta)
+    l1, _ = _roof_normal("leeward roof", hl, theta)
+    return [(windward, 0.0, 0.0, w1, w2), (leeward, 0.0, 0.0, l1, l1)]
+
+
+def directional_cp_roof(b: DirectionalBuildingASCE7) -> list[Zone]:
+    """The roof's C_p by Figure 27.3-1: (surface, from, to (multiples of h from the windward
+    edge, or 0, 0 for whole slopes), C_p1, C_p2).
+
+    Gable and flat roofs: windward and leeward slopes, or zones by distance. Monoslope roofs
+    normal to the eaves with θ >= 10°: the whole roof windward or leeward. Hip roofs: the main
+    slopes as a gable roof's, and the hip ends ("windward hip end", "leeward hip end" by the
+    hip slope, or "hip ends ..." zones by distance when parallel to the wind).
+    """
+    theta = b.theta_deg
+    normal = b.direction == "normal to ridge"
+    if b.roof == "monoslope" and normal and theta >= 10.0:
+        both = _facing(b, theta, "windward roof", "leeward roof")
+        return [both[0] if b.windward_eave == "low" else both[1]]
+    main = (
+        _facing(b, theta, "windward roof", "leeward roof")
+        if normal and theta >= 10.0
+        else _distance_zones(b, "roof")
+    )
+    if b.roof != "hip":
+        return main
+    end = theta if b.hip_slope is None else float(b.hip_slope.to("deg").magnitude)
+    if normal:
+        return main + _distance_zones(b, "hip ends")
+    if end >= 10.0:
+        return main + _facing(b, end, "windward hip end", "leeward hip end")
+    return main
 
 
 def _leeward_wall(b: DirectionalBuildingASCE7) -> float:
@@ -234,9 +305,29 @@ class SurfaceWind:
 
 
 @dataclass(frozen=True)
+class WindwardBand:
+    """The windward wall from ``bottom`` to ``top`` (heights above ground), at the q_z of its top.
+
+    Attributes:
+        Kz, Kzt: the factors at ``top``. qz: velocity pressure at ``top``.
+        p_pos_gcpi, p_neg_gcpi: q_z G C_p − q_h (GC_pi) with +GC_pi and with −GC_pi
+            (toward the wall +).
+    """
+
+    bottom: Quantity
+    top: Quantity
+    Kz: float
+    Kzt: float
+    qz: Quantity
+    p_pos_gcpi: Quantity
+    p_neg_gcpi: Quantity
+
+
+@dataclass(frozen=True)
 class DirectionalWindASCE7:
-    """The result of :func:`directional_wind_asce7`: q_h, G, GC_pi and each surface's
-    pressures, with the derivation (``working()``)."""
+    """The result of :func:`directional_wind_asce7`: q_h, G (or G_f), GC_pi, each surface's
+    pressures and the windward wall's profile by height, with the derivation (``working()``,
+    which ends with the elevation sketch)."""
 
     building: DirectionalBuildingASCE7
     qh: Quantity
@@ -244,6 +335,7 @@ class DirectionalWindASCE7:
     GCpi: float
     surfaces: tuple[SurfaceWind, ...]
     derivation: Derivation
+    windward_profile: tuple[WindwardBand, ...] = ()
 
     def surface(self, name: str) -> SurfaceWind:
         names = [s.surface for s in self.surfaces]
@@ -251,49 +343,89 @@ class DirectionalWindASCE7:
         return self.surfaces[names.index(found)]
 
     def working(self, *, settings: Any = None) -> list[Any]:
-        return self.derivation.working(settings=settings)
+        """The derivation's steps, then the elevation sketch of the pressures."""
+        from calcpack.working.figure import Figure
+
+        unit = f"{self.qh.units:~P}"
+        sketch = Figure(
+            "wind-elevation",
+            self,
+            caption=f"Wind {self.building.direction}: windward wall q_z profile by height, "
+            f"leeward wall, side walls and roof at q_h, pressures with +GCpi in {unit} "
+            "(+ toward the surface)",
+            alt="Elevation of the building with the windward wall pressure stepping up with "
+            "height to its value at the mean roof height, and the leeward wall suction",
+            settings=settings,
+        )
+        return [*self.derivation.working(settings=settings), sketch]
 
     def _repr_mimebundle_(self, include: Any = None, exclude: Any = None) -> dict[str, Any]:
-        return self.derivation._repr_mimebundle_(include, exclude)
+        from calcpack.working import Block
+
+        return Block(self.working(), title=self.derivation.title)._repr_mimebundle_()
 
 
 def directional_wind_asce7(
     site: WindSiteASCE7, building: DirectionalBuildingASCE7
 ) -> DirectionalWindASCE7:
-    """Wall and roof pressures by the directional procedure (ASCE 7-16 Chapter 27 Part 1)."""
+    """Wall and roof pressures by the directional procedure (ASCE 7-16 Chapter 27 Part 1).
+
+    Returns the surfaces' pressures (the windward wall's at z = h) and the windward wall's
+    profile by bands of height (``windward_profile``), with the working and its sketch.
+    """
     b = building
     gcpi = internal_pressure_coefficient(b.enclosure)
     us = is_us_customary(site.V)
     unit, lu = ("psf", "ft") if us else ("kN/m^2", "m")
     walls = [("windward wall", 0.8), ("leeward wall", _leeward_wall(b)), ("side walls", -0.7)]
     roof = directional_cp_roof(b)
+    tops = profile_heights(b.h.to(lu), b.wall_levels)
+    levels = [velocity_pressure_at(site, z) for z in tops]
     out: list[SurfaceWind] = []
     keep: dict[str, Any] = {}
 
     def logic(r: Recorder) -> None:
-        r.assume(
-            "Rigid building (natural frequency ≥ 1 Hz, §26.11.2); q_h is used on every surface, "
-            "the windward wall included (conservative below the mean roof height)."
-        )
+        if b.flexible:
+            r.assume("Flexible building (n_1 < 1 Hz, §26.11.2): G_f of §26.11.5.")
+        else:
+            r.assume("Rigid building (natural frequency ≥ 1 Hz, §26.11.2).")
         qh = record_velocity_pressure(r, site, b.h, "q_h")
-        G = r.given(
-            "G", float(b.G), "gust-effect factor, rigid building", source="ASCE 7-16 §26.11.1"
-        )
+        if b.flexible:
+            G = record_gust_effect(r, site, h=b.h, B=b.B, L=b.L, vibration=b.vibration)
+        else:
+            G = r.given(
+                "G", float(b.G), "gust-effect factor, rigid building", source="ASCE 7-16 §26.11.1"
+            )
         gi = r.given("GCpi", gcpi, f"{b.enclosure}, applied ±", source="ASCE 7-16 Table 26.13-1")
         r.given("h_L", b.h_over_L, "h/L (L parallel to the wind)", source="geometry")
         r.given("L_B", float((b.L / b.B).to("").magnitude), "L/B", source="geometry")
         r.text(
-            f"Wind {b.direction}, roof angle θ = {b.theta_deg:.3g}°: C_p from {_FIG}, "
-            "interpolated linearly between values of the same sign."
+            f"Wind {b.direction}, {b.roof} roof, roof angle θ = {b.theta_deg:.3g}°: C_p from "
+            f"{_FIG}, interpolated linearly between values of the same sign. Leeward and side "
+            "walls and the roof take q_h; the windward wall takes q_z (below)."
         )
+        if b.roof == "hip":
+            r.assume(
+                "Hip roof: each slope takes the figure's value by its orientation to the wind "
+                "(slopes facing or leaving the wind by their angle and h/L, slopes parallel to "
+                "the wind by distance from the windward edge) -- common practice."
+            )
+        if b.roof == "monoslope" and b.direction == "normal to ridge" and b.theta_deg >= 10.0:
+            r.text(
+                f"Monoslope roof, wind meeting the {b.windward_eave} eave: the whole roof is a "
+                + ("windward" if b.windward_eave == "low" else "leeward")
+                + " surface (Figure 27.3-1 note)."
+            )
         rows: list[tuple[str, float, float, float | None, float | None]]
         rows = [(n, cp, cp, None, None) for n, cp in walls]
         rows += [(n, c1, c2, a, e) for n, a, e, c1, c2 in roof]
         short = {"windward wall": "ww", "leeward wall": "lw", "side walls": "sw",
-                 "windward roof": "wr", "leeward roof": "lr"}  # fmt: skip
+                 "windward roof": "wr", "leeward roof": "lr", "windward hip end": "wh",
+                 "leeward hip end": "lh"}  # fmt: skip
         for idx, (n, c1, c2, a, e) in enumerate(rows):
             tag = short.get(n, f"r{idx - len(walls) + 1}")
             cps = [c1] if c1 == c2 else [c1, c2]
+            what = "windward wall at z = h" if n == "windward wall" else n
             ps = []
             for k, cp in enumerate(cps, start=1):
                 sub = f"{tag}{k}" if len(cps) > 1 else tag
@@ -301,14 +433,14 @@ def directional_wind_asce7(
                 p1 = r.derive(
                     f"p_{sub}_ip",
                     qh * G * C - qh * gi,
-                    f"{n}, with +GCpi",
+                    f"{what}, with +GCpi",
                     unit=unit,
                     ref="ASCE 7-16 Eq. 27.3-1",
                 )
                 p2 = r.derive(
                     f"p_{sub}_in",
                     qh * G * C + qh * gi,
-                    f"{n}, with −GCpi",
+                    f"{what}, with −GCpi",
                     unit=unit,
                     ref="ASCE 7-16 Eq. 27.3-1",
                 )
@@ -318,8 +450,54 @@ def directional_wind_asce7(
             if not r.shows:
                 out.append(SurfaceWind(n, start, end, c1, c2, tuple(ps)))
         keep["qh"] = r.q(qh)
+        keep["G"] = r.f(G)
+        keep["bands"] = _windward_bands(r, tops, levels, r.q(qh), r.f(G), gcpi, unit)
 
     d = run_derivation(
         f"Wind on the main frame, directional procedure ({b.direction})", ASCE7_WIND, logic
     )
-    return DirectionalWindASCE7(b, keep["qh"], float(b.G), gcpi, tuple(out), d)
+    return DirectionalWindASCE7(b, keep["qh"], keep["G"], gcpi, tuple(out), d, tuple(keep["bands"]))
+
+
+def _windward_bands(
+    r: Recorder,
+    tops: tuple[Quantity, ...],
+    levels: list[tuple[float, float, Quantity]],
+    qh: Quantity,
+    G: float,
+    gcpi: float,
+    unit: str,
+) -> list[WindwardBand]:
+    """The windward wall's pressure by bands of height, each at the q_z of its top."""
+    r.heading("Windward wall: q_z with height", 4)
+    r.text(
+        "q_z = 0.00256 K_z K_zt K_d K_e V² (Eq. 26.10-1) with K_z = 2.01 (z/z_g)^(2/α), z at "
+        "least 15 ft (Table 26.10-1 note 1), at the top of each band, so each band carries the "
+        "largest q_z within it; p = q_z G C_p − q_h (±GC_pi) with C_p = 0.8 (Eq. 27.3-1)."
+    )
+    bands = []
+    rows = []
+    bottom = tops[0] * 0
+    for z, (kz, kzt, qz) in zip(tops, levels, strict=True):
+        q = qz.to(unit)
+        p_in = q * G * 0.8 - qh * gcpi
+        p_out = q * G * 0.8 + qh * gcpi
+        bands.append(WindwardBand(bottom, z, kz, kzt, q, p_in, p_out))
+        rows.append(
+            [
+                f"{bottom.magnitude:.4g} to {z.magnitude:.4g}",
+                f"{kz:.3f}",
+                f"{kzt:.3f}",
+                f"{q.magnitude:.3g}",
+                f"{p_in.magnitude:+.3g}",
+                f"{p_out.magnitude:+.3g}",
+            ]
+        )
+        bottom = z
+    lu = f"{tops[0].units:~P}"
+    r.table(
+        [f"z ({lu})", "K_z", "K_zt", f"q_z ({unit})", f"p, +GCpi ({unit})", f"p, −GCpi ({unit})"],
+        rows,
+        "Windward wall pressure by height, ASCE 7-16 Eqs. 26.10-1 and 27.3-1 (+ toward the wall)",
+    )
+    return bands

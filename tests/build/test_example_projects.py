@@ -948,6 +948,17 @@ def test_pdf_structure(packages: dict[str, Built], name: str) -> None:
 
 
 @pytest.mark.parametrize("name", PROJECTS)
+def test_pagination_and_outline_rules(packages: dict[str, Built], name: str) -> None:
+    """No heading last on a page, no blank over a third of a page but before a new section,
+    names wrapped at word boundaries, headings nested without a skipped level in the tag tree
+    and every link a Link element (measured on the signed PDF: tests/build/pagerules.py)."""
+    from pagerules import package_problems, titleblock_names
+
+    b = packages[name]
+    assert package_problems(b.pdf, b.manifest, titleblock_names(b.project)) == []
+
+
+@pytest.mark.parametrize("name", PROJECTS)
 def test_nothing_is_drawn_past_the_margins(packages: dict[str, Built], name: str) -> None:
     """Long working (truss joints, column stability lines) stays inside the text column."""
     from pdfgeometry import painted_extent

@@ -78,3 +78,18 @@ def test_uplift_is_the_worst_net_pull_of_06d_06w(D, W):
                         mark="x")  # fmt: skip
     expect = max(0.6 * W - 0.6 * D, 0.0)
     assert r["Uplift"].demand.to("lbf").magnitude == pytest.approx(expect, abs=1e-9)
+
+
+def test_moment_resisting_base_by_hand():
+    # moments by case: D 0, W 150 lbf·ft; the largest |net| is D + 0.6W or 0.6D + 0.6W = 90
+    base = ConnectorListing("base B1 (generic)", Q_(1000, "lbf"), "ER-0001, Table 1",
+                            moment=Q_(200, "lbf*ft"))  # fmt: skip
+    r = check_connector(base, {"D": Q_(500, "lbf"), "W": Q_(-100, "lbf")},
+                        asce7_allowable_stress(), mark="post A",
+                        moments={"W": Q_(150, "lbf*ft")})  # fmt: skip
+    assert r["Moment"].demand.to("lbf*ft").magnitude == pytest.approx(90.0, rel=1e-12)
+    assert r["Moment"].capacity.to("lbf*ft").magnitude == 200.0
+    with pytest.raises(InputError) as e:
+        check_connector(TIE, {"D": Q_(1, "lbf")}, asce7_allowable_stress(), mark="x",
+                        moments={"W": Q_(1, "lbf*ft")})  # fmt: skip
+    assert e.value.name == "moments"
