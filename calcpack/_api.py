@@ -331,6 +331,9 @@ from calcpack.loads.wind_asce7_cc import (
     cc_coefficient_asce7 as cc_coefficient_asce7,
     cc_roof_zones as cc_roof_zones,
 )
+from calcpack.loads.wind_asce7_cc_plan import (
+    cc_roof_plan_asce7 as cc_roof_plan_asce7,
+)
 from calcpack.loads.wind_asce7_lowrise import (
     LowRiseBuildingASCE7 as LowRiseBuildingASCE7,
     components_wind_asce7 as components_wind_asce7,
@@ -409,13 +412,18 @@ from calcpack.signing import (
 from calcpack.sizing import (
     Candidate as Candidate,
     DeflectionLimit as DeflectionLimit,
+    SearchSpace as SearchSpace,
     SizingResult as SizingResult,
+    aisc_beam_space as aisc_beam_space,
     aisc_candidates as aisc_candidates,
+    glulam_beam_space as glulam_beam_space,
     lightest_aisc_beam as lightest_aisc_beam,
     lightest_glulam_beam as lightest_glulam_beam,
     lightest_nds_beam as lightest_nds_beam,
     lightest_nds_post as lightest_nds_post,
     lightest_sections as lightest_sections,
+    nds_beam_space as nds_beam_space,
+    nds_post_space as nds_post_space,
     sawn_candidates as sawn_candidates,
 )
 from calcpack.units import (

@@ -33,6 +33,7 @@ __all__ = [
     "lookup",
     "one_of",
     "positive",
+    "positive_fields",
     "suggest",
     "unknown_key",
     "within",
@@ -252,6 +253,17 @@ def lookup(name: str, key: str, table: Mapping[str, T], *, what: str = "entry") 
         value=key,
         expected=f"a known {what}",
     )
+
+
+def positive_fields(owner: Any, dim: str, names: Iterable[str], *, optional: bool = False) -> None:
+    """Require each field ``names`` of ``owner`` (a dataclass at construction) to be a positive
+    quantity of dimension ``dim``; ``optional``: a field left as None is skipped. The error
+    names the field."""
+    for name in names:
+        value = getattr(owner, name)
+        if value is None and optional:
+            continue
+        require(value, dim, name, positive=True)
 
 
 # -- Names, collections and distinct values (the models of analysis, combinations, loads) -----

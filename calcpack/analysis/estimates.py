@@ -25,7 +25,7 @@ import numpy as np
 import pint
 
 from calcpack.errors import InputError, OutOfScopeError
-from calcpack.validate import dimension, find, one_of, positive
+from calcpack.validate import at_least, dimension, find, one_of, positive, whole
 
 __all__ = [
     "BEAM_CASES",
@@ -240,13 +240,7 @@ def continuous_equal_spans(*, n: int, L: pint.Quantity, w: pint.Quantity) -> Est
     Raises:
         InputError: n not an integer from 1 to 20, or a non-positive load or span.
     """
-    if isinstance(n, bool) or not isinstance(n, int) or not 1 <= n <= 20:
-        raise InputError(
-            f"Number of spans n must be a whole number from 1 to 20 (got n = {n!r})",
-            name="n",
-            value=n,
-            expected="1 to 20",
-        )
+    whole("n", n, 1, 20)
     L = _len("L", L)
     W = _w(w)
     m = _three_moment(n)
@@ -309,13 +303,7 @@ def tributary_reactions(
     the tributary value and the end reactions 25 % below (0.375·w·L against 0.5·w·L).
     """
     W = _w(w)
-    if not spans:
-        raise InputError(
-            "Tributary reactions need at least one span (got none)",
-            name="spans",
-            value=spans,
-            expected="a list of span lengths",
-        )
+    at_least("spans", spans, what="span length")
     lengths = [_len(f"spans[{i}]", s) for i, s in enumerate(spans)]
     r: dict[str, pint.Quantity] = {}
     f: dict[str, str] = {}

@@ -34,7 +34,7 @@ if TYPE_CHECKING:
     from calcpack.analysis.freebody_plan import EquilibriumEquation
 from calcpack.errors import InputError, OutOfScopeError, UnstableStructureError
 from calcpack.units import require, si, ureg
-from calcpack.validate import find
+from calcpack.validate import distinct, each_instance, find
 
 __all__ = [
     "BodySupport",
@@ -265,24 +265,13 @@ class FreeBody:
         object.__setattr__(self, "loads", tuple(self.loads))
         object.__setattr__(self, "supports", tuple(self.supports))
         object.__setattr__(self, "points", tuple(self.points))
-        names = [s.name for s in self.supports]
-        for s in self.supports:
-            if names.count(s.name) > 1:
-                raise InputError(
-                    f"Support name {s.name!r} is used twice on {self.name}",
-                    name=f"support {s.name}",
-                    value=s.name,
-                    expected="unique support names",
-                )
-        for ld in self.loads:
-            if not isinstance(ld, PointForce | Couple | DistributedLoad):
-                raise InputError(
-                    f"Loads on {self.name} must be PointForce, Couple or DistributedLoad "
-                    f"(got {ld!r})",
-                    name="loads",
-                    value=ld,
-                    expected="a load object",
-                )
+        distinct("supports", [s.name for s in self.supports], what=f"support name on {self.name}")
+        each_instance(
+            "loads",
+            self.loads,
+            (PointForce, Couple, DistributedLoad),
+            expected="a PointForce, Couple or DistributedLoad",
+        )
 
     def unknowns(self) -> list[UnknownAction]:
         """Every unknown reaction, support by support."""

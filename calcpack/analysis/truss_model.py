@@ -33,7 +33,7 @@ import numpy.typing as npt
 from calcpack import views
 from calcpack.errors import InputError
 from calcpack.units import Quantity, is_quantity, require, si, ureg
-from calcpack.validate import find
+from calcpack.validate import at_least, each_instance, find
 
 __all__ = ["JointLoad", "Member", "Node", "Support", "Truss"]
 
@@ -375,13 +375,7 @@ class Truss:
 
     def _validate(self) -> None:
         _check_name(self.name, "Truss")
-        if not self.nodes:
-            raise InputError(
-                "A truss needs at least two nodes (got none)",
-                name="nodes",
-                value=(),
-                expected="two or more nodes",
-            )
+        at_least("nodes", self.nodes, what="node")
         _require_unique_names(self.nodes, Node, "node", "Node(name, x, y)")
         xy = self.xy_m
         tol = _COINCIDENT_REL * self.size_m
@@ -406,14 +400,7 @@ class Truss:
         pairs: dict[frozenset[str], str] = {}
         for m in self.members:
             for end in (m.start, m.end):
-                if end not in self.node_index:
-                    raise InputError(
-                        f"Member {m.name} refers to node {end!r}, which is not in the truss "
-                        f"(nodes: {', '.join(self.node_index)})",
-                        name=f"member {m.name}",
-                        value=end,
-                        expected="an existing node name",
-                    )
+                self._require_node(end, f"member {m.name}", f"Member {m.name} refers to node")
             key = frozenset((m.start, m.end))
             if key in pairs:
                 raise InputError(
@@ -436,22 +423,9 @@ class Truss:
 
     def _validate_supports_and_loads(self) -> None:
         supported: set[str] = set()
+        each_instance("supports", self.supports, Support, expected="a Support(node, kind)")
         for s in self.supports:
-            if not isinstance(s, Support):
-                raise InputError(
-                    f"Truss supports must be Support objects (got {s!r})",
-                    name="supports",
-                    value=s,
-                    expected="Support(node, kind)",
-                )
-            if s.node not in self.node_index:
-                raise InputError(
-                    f"A support is placed on node {s.node!r}, which is not in the truss "
-                    f"(nodes: {', '.join(self.node_index)})",
-                    name=f"support {s.node}",
-                    value=s.node,
-                    expected="an existing node name",
-                )
+            self._require_node(s.node, f"support {s.node}", "A support is placed on node")
             if s.node in supported:
                 raise InputError(
                     f"Node {s.node} has two supports; give one (a pin restrains both directions)",
@@ -460,22 +434,21 @@ class Truss:
                     expected="one support per node",
                 )
             supported.add(s.node)
+        each_instance("loads", self.loads, JointLoad, expected="a JointLoad(node, Fx, Fy)")
         for ld in self.loads:
-            if not isinstance(ld, JointLoad):
-                raise InputError(
-                    f"Truss loads must be JointLoad objects (got {ld!r})",
-                    name="loads",
-                    value=ld,
-                    expected="JointLoad(node, Fx, Fy)",
-                )
-            if ld.node not in self.node_index:
-                raise InputError(
-                    f"A load (case {ld.case}) is applied at node {ld.node!r}, which is not in "
-                    f"the truss (nodes: {', '.join(self.node_index)})",
-                    name=f"load at {ld.node}",
-                    value=ld.node,
-                    expected="an existing node name",
-                )
+            said = f"A load (case {ld.case}) is applied at node"
+            self._require_node(ld.node, f"load at {ld.node}", said)
+
+    def _require_node(self, node: str, name: str, said: str) -> None:
+        """Refuse a reference to a node the truss does not have, in the words of the input that
+        refers to it (``said``: "Member M1 refers to node")."""
+        if node not in self.node_index:
+            raise InputError(
+                f"{said} {node!r}, which is not in the truss (nodes: {', '.join(self.node_index)})",
+                name=name,
+                value=node,
+                expected="an existing node name",
+            )
 
     def _validate_connected(self) -> None:
         adjacency: dict[int, set[int]] = {i: set() for i in range(len(self.nodes))}
@@ -513,15 +486,9 @@ def _require_unique_names(
     items: Sequence[Node] | Sequence[Member], kind: type, what: str, form: str
 ) -> None:
     """Refuse an item of the wrong type or a name used twice (``what``: "node" or "member")."""
+    each_instance(f"{what}s", items, kind, expected=f"a {form}")
     seen: set[str] = set()
     for item in items:
-        if not isinstance(item, kind):
-            raise InputError(
-                f"Truss {what}s must be {kind.__name__} objects (got {item!r})",
-                name=f"{what}s",
-                value=item,
-                expected=form,
-            )
         name: str = item.name
         if name in seen:
             raise InputError(

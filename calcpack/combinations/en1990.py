@@ -16,6 +16,7 @@ from dataclasses import dataclass
 
 from calcpack.combinations.model import CombinationSet, LoadCombination
 from calcpack.errors import InputError
+from calcpack.validate import one_of
 
 __all__ = [
     "EN1990_EDITION",
@@ -111,13 +112,7 @@ def en1990_combinations(
             favourable (γ_G,inf, other variable actions omitted) is added; default the actions
             of category ``"wind"`` (uplift).
     """
-    if equation not in ("6.10", "6.10a/b"):
-        raise InputError(
-            f"EN 1990 equation must be '6.10' or '6.10a/b' (got equation = {equation!r})",
-            name="equation",
-            value=equation,
-            expected="'6.10' or '6.10a/b'",
-        )
+    one_of("equation", equation, ("6.10", "6.10a/b"))
     psi = _psi(variable)
     if favourable_permanent is None:
         favourable_permanent = [q for q, p in psi.items() if p is PSI_BUILDINGS["wind"]]
@@ -208,13 +203,7 @@ def en1990_serviceability(
     ed = EN1990_EDITION
     known = ("characteristic", "frequent", "quasi-permanent")
     for w in which:
-        if w not in known:
-            raise InputError(
-                f"Serviceability combination {w!r} is not one of {list(known)}",
-                name="which",
-                value=w,
-                expected=" / ".join(known),
-            )
+        one_of("which", w, known)
     combos: list[LoadCombination] = []
     g = dict.fromkeys(permanent, 1.0)
     if "characteristic" in which:

@@ -23,7 +23,7 @@ import numpy as np
 from calcpack.combinations.model import AppliedCombination, CombinationSet
 from calcpack.errors import InputError
 from calcpack.units import Quantity, is_quantity
-from calcpack.validate import at_least, find, finite, instance
+from calcpack.validate import at_least, find, finite, instance, one_of
 
 __all__ = [
     "CombinedResults",
@@ -183,13 +183,7 @@ class Envelope:
             "shear": lambda r: r.shear,
             "deflection": lambda r: r.deflection,
         }
-        if what not in fns:
-            raise InputError(
-                f"Envelope curve must be of 'moment', 'shear' or 'deflection' (got {what!r})",
-                name="what",
-                value=what,
-                expected="moment / shear / deflection",
-            )
+        one_of("what", what, tuple(fns))
         names = list(self.results)
         vals = [fns[what](self.results[n])(x) for n in names]
         unit = vals[0].units

@@ -29,7 +29,7 @@ from typing import Literal
 from calcpack.combinations.model import AppliedCombination, CombinationSet
 from calcpack.errors import InputError, OutOfScopeError
 from calcpack.units import Q_, Quantity
-from calcpack.validate import dimension, instance, one_of, positive, required
+from calcpack.validate import at_least, dimension, instance, one_of, positive, required
 
 __all__ = [
     "GEOTECHNICAL_CAUTION",
@@ -402,13 +402,7 @@ def combine_footing_loads(
     Raises:
         InputError: no loads, a value that is not a FootingLoad, a case no combination uses.
     """
-    if not loads:
-        raise InputError(
-            "Input loads needs at least one load case (got loads = {})",
-            name="loads",
-            value=loads,
-            expected="e.g. {'D': FootingLoad(P=...)}",
-        )
+    at_least("loads", loads, what="load case")
     for k, v in loads.items():
         instance(f"loads[{k!r}]", v, FootingLoad, expected="a FootingLoad")
     out: dict[str, tuple[AppliedCombination, FootingLoad]] = {}

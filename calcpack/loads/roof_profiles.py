@@ -195,10 +195,12 @@ def wind_profiles_asce7_directional(
     """Roof load cases on a frame from the directional procedure (ASCE 7-16 Chapter 27).
 
     Wind normal to the ridge: the frame spans the building's L (parallel to the wind), wind
-    from the left and from the right, for each roof C_p value the figure gives and each sign of
-    GC_pi (windward and leeward slopes, or the roof zones by distance from the windward edge
-    for θ < 10°). Wind parallel to the ridge: the frame at ``frame_at`` (distance from the
-    windward end) takes the pressure of the zone it stands in, uniform across its span L.
+    from the left and from the right (a monoslope roof with θ >= 10°: one case per value, the
+    wind meeting the eave given by ``windward_eave``), for each roof C_p value the figure gives
+    and each sign of GC_pi (windward and leeward slopes, or the roof zones by distance from the
+    windward edge for θ < 10°). Wind parallel to the ridge: the frame at ``frame_at``
+    (distance from the windward end) takes the pressure of the zone it stands in, uniform
+    across its span L.
 
     Raises:
         InputError: ``frame_at`` missing (wind parallel to the ridge) or off the building.
@@ -232,19 +234,23 @@ def wind_profiles_asce7_directional(
                 RoofProfile(name, "W", "normal", (Q_(0.0, span.units), span), (zone.p[k],), note)
             )
         return out
+    whole = len(roof) == 1 and roof[0].start is None  # a monoslope roof, wholly one surface
     for k in range(max(len(s.p) for s in roof)):
         parts = []
         for s in roof:
             v = s.p[k] if len(s.p) > k else s.p[k % 2]
             end = (
                 width / 2
-                if s.surface == "windward roof"
+                if s.surface == "windward roof" and not whole
                 else (width if s.end is None else s.end.to(width.units))
             )
             parts.append((end, v))
         cp = "Cp1" if k < 2 else "Cp2"
         br, vals = _pieces(width, parts)
         name = f"W normal {cp} {labels[k % 2]}"
+        if whole:  # the wind meets the eave the building was given (low or high)
+            out.append(RoofProfile(f"{name} {b.windward_eave} eave", "W", "normal", br, vals, note))
+            continue
         out.append(RoofProfile(name + " from L", "W", "normal", br, vals, note))
         b2, v2 = _mirror(br, vals)
         out.append(RoofProfile(name + " from R", "W", "normal", b2, v2, note))

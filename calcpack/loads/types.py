@@ -29,7 +29,7 @@ from calcpack.errors import InputError
 from calcpack.loads._si import check as require
 from calcpack.loads._si import fast_si as si
 from calcpack.units import Q_, Quantity
-from calcpack.validate import instance, non_empty, within
+from calcpack.validate import at_least, instance, non_empty, within
 
 __all__ = [
     "AreaLoad",
@@ -316,13 +316,7 @@ class PolynomialLoad(DistributedLoad):
     def __post_init__(self) -> None:
         super().__post_init__()
         coeffs = tuple(self.coefficients)
-        if not coeffs:
-            raise InputError(
-                "Polynomial load needs at least one coefficient (got coefficients = ())",
-                name="coefficients",
-                value=coeffs,
-                expected="c_0, c_1, ...",
-            )
+        at_least("coefficients", coeffs, what="coefficient")
         for k, c in enumerate(coeffs):
             require(c, f"[force] / [length] ** {k + 1}", f"coefficients[{k}]")
         object.__setattr__(self, "coefficients", coeffs)

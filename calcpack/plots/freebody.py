@@ -8,15 +8,13 @@ distributed loads with their resultants dashed, unknown reactions green in their
 
 from __future__ import annotations
 
-import io
 import math
-from pathlib import Path
 from typing import TYPE_CHECKING, Any
 
+from calcpack.plots.drawing import Drawing, force_arrow
 from calcpack.plots.truss import (
     _LOAD,
     _REACTION,
-    TrussDiagram,
     _draw_support,
     _fmt_force,
 )
@@ -49,7 +47,7 @@ def _hull(points: list[tuple[float, float]]) -> list[tuple[float, float]]:
     return lower[:-1] + upper[:-1]
 
 
-class FreeBodySketch:
+class FreeBodySketch(Drawing):
     """A sketch of a free body: its outline (through its support and load points), known loads
     (dark), distributed loads with their resultants (dashed), couples, and the unknown
     reactions in their positive sense (green), labelled with their values when solved.
@@ -129,7 +127,7 @@ class FreeBodySketch:
                 for k in range(7):
                     t = k / 6
                     tip = (a[0] + t * (b[0] - a[0]), a[1] + t * (b[1] - a[1]))
-                    TrussDiagram._arrow(ax, tip, d, 0.5 * arrow, _LOAD, "")
+                    force_arrow(ax, tip, d, 0.5 * arrow, _LOAD, "")
                 ax.text(
                     a[0] + 0.25 * (b[0] - a[0]) - d[0] * 0.6 * arrow,
                     a[1] + 0.25 * (b[1] - a[1]) - d[1] * 0.6 * arrow,
@@ -146,7 +144,7 @@ class FreeBodySketch:
                 continue
             dashed = f.label.startswith("W_")
             colour = "#7a7f87" if dashed else _LOAD
-            TrussDiagram._arrow(
+            force_arrow(
                 ax,
                 (si(f.x), si(f.y)),
                 (fx / mag, fy / mag),
@@ -183,24 +181,9 @@ class FreeBodySketch:
                 u.point[0] - u.direction[0] * 0.25 * arrow,
                 u.point[1] - u.direction[1] * 0.25 * arrow,
             )
-            TrussDiagram._arrow(ax, tip, u.direction, arrow, _REACTION, text)
+            force_arrow(ax, tip, u.direction, arrow, _REACTION, text)
         ax.margins(0.15)
         ax.autoscale_view()
         ax.set_title(f"Free body: {body.name}", fontsize=10)
         fig.tight_layout()
         return fig
-
-    def svg(self) -> str:
-        """The sketch as an SVG document."""
-        buf = io.StringIO()
-        self.figure().savefig(buf, format="svg", bbox_inches="tight")
-        return buf.getvalue()
-
-    def save(self, path: str | Path) -> Path:
-        """Write the sketch (format by the file's suffix) and return the path."""
-        out = Path(path)
-        self.figure().savefig(out, bbox_inches="tight")
-        return out
-
-    def _repr_svg_(self) -> str:
-        return self.svg()

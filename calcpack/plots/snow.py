@@ -8,9 +8,9 @@ projection. Loads are drawn downward onto a baseline (the roof on plan), values 
 
 from __future__ import annotations
 
-import io
-from pathlib import Path
 from typing import Any
+
+from calcpack.plots.drawing import Drawing
 
 __all__ = ["SnowSketch", "drift_profile", "drift_profile_en", "unbalanced_profile"]
 
@@ -66,7 +66,7 @@ def drift_profile_en(result: Any) -> list[tuple[float, float]]:
     return [(0.0, s2), (ls, s1), (1.5 * ls, s1)]
 
 
-class SnowSketch:
+class SnowSketch(Drawing):
     """Sketch of a roof snow result (unbalanced across a gable) or a drift result."""
 
     def __init__(self, result: Any, *, title: str | None = None, width_in: float = 6.0) -> None:
@@ -117,18 +117,3 @@ class SnowSketch:
             ax.spines[side].set_visible(False)
         fig.tight_layout()
         return fig
-
-    def svg(self) -> str:
-        """The sketch as an SVG document."""
-        buf = io.StringIO()
-        self.figure().savefig(buf, format="svg", bbox_inches="tight")
-        return buf.getvalue()
-
-    def save(self, path: str | Path) -> Path:
-        """Write the sketch (SVG, PNG or PDF by the file's suffix) and return the path."""
-        out = Path(path)
-        self.figure().savefig(out, bbox_inches="tight")
-        return out
-
-    def _repr_svg_(self) -> str:
-        return self.svg()

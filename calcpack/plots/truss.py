@@ -13,11 +13,11 @@ values); the geometry is to scale.
 
 from __future__ import annotations
 
-import io
 import itertools
 import math
-from pathlib import Path
 from typing import TYPE_CHECKING, Any
+
+from calcpack.plots.drawing import Drawing, force_arrow
 
 if TYPE_CHECKING:
     from calcpack.analysis.truss_model import Truss
@@ -84,7 +84,7 @@ def _draw_support(ax: Any, kind: str, theta: float, at: tuple[float, float], siz
     ax.plot([g0[0], g1[0]], [g0[1], g1[1]], color="#333333", lw=1.2, zorder=1)
 
 
-class TrussDiagram:
+class TrussDiagram(Drawing):
     """A to-scale drawing of a truss and, when given a result, its member forces.
 
     Args:
@@ -100,6 +100,8 @@ class TrussDiagram:
         dimensions: draw dimension chains of the joints' positions (in the display length
             unit) below and beside the truss.
     """
+
+    searchable_text = True  # member forces and joint names can be searched in the PDF
 
     def __init__(
         self,
@@ -181,24 +183,6 @@ class TrussDiagram:
             ]
             place_labels(fig, names, gid="cp-joint")
         return fig
-
-    def svg(self) -> str:
-        """The diagram as an SVG document (its text kept as text, so it can be searched)."""
-        import matplotlib
-
-        buf = io.StringIO()
-        with matplotlib.rc_context({"svg.fonttype": "none"}):
-            self.figure().savefig(buf, format="svg", bbox_inches="tight")
-        return buf.getvalue()
-
-    def save(self, path: str | Path) -> Path:
-        """Write the diagram (SVG, or PNG/PDF by the file's suffix) and return the path."""
-        out = Path(path)
-        self.figure().savefig(out, bbox_inches="tight")
-        return out
-
-    def _repr_svg_(self) -> str:
-        return self.svg()
 
     # -- drawing ----------------------------------------------------------------------------
 
@@ -356,37 +340,6 @@ class TrussDiagram:
         theta = float(sup.surface.to("radian").magnitude) if sup.kind == "roller" else 0.0
         _draw_support(ax, sup.kind, theta, (float(at[0]), float(at[1])), size)
 
-    @staticmethod
-    def _arrow(
-        ax: Any,
-        tip: tuple[float, float],
-        d: tuple[float, float],
-        length: float,
-        colour: str,
-        text: str,
-        *,
-        label_at_tip: bool = False,
-    ) -> None:
-        tail = (tip[0] - d[0] * length, tip[1] - d[1] * length)
-        ax.annotate(
-            "",
-            xy=tip,
-            xytext=tail,
-            zorder=4,
-            arrowprops={"arrowstyle": "-|>", "color": colour, "lw": 1.6},
-        )
-        # The label sits beyond the arrow's outer end, on the side away from the joint.
-        out = (-d[0], -d[1]) if not label_at_tip else d
-        end = tail if not label_at_tip else tip
-        ha = "right" if out[0] < -0.5 else "left" if out[0] > 0.5 else "center"
-        va = "top" if out[1] < -0.5 else "bottom" if out[1] > 0.5 else "center"
-        at = (end[0] + out[0] * 0.05 * length, end[1] + out[1] * 0.05 * length)
-        ax.text(at[0], at[1], text, fontsize=7, color=colour, ha=ha, va=va, zorder=6)
-        # Annotations do not widen the axes; the arrow's ends and label must stay in view.
-        ax.update_datalim(
-            [tail, tip, (at[0] + out[0] * 0.3 * length, at[1] + out[1] * 0.3 * length)]
-        )
-
     def _loads(self, ax: Any, arrow: float) -> None:
         truss = self.truss
         xy = truss.xy_m
@@ -411,9 +364,9 @@ class TrussDiagram:
             )
             if pulling:
                 text = _fmt_force(value, self.force_unit, self.sig)
-                self._arrow(ax, pull_tip, d, arrow, _LOAD, text, label_at_tip=True)
+                force_arrow(ax, pull_tip, d, arrow, _LOAD, text, label_at_tip=True)
                 continue
-            self._arrow(ax, node, d, arrow, _LOAD, _fmt_force(value, self.force_unit, self.sig))
+            force_arrow(ax, node, d, arrow, _LOAD, _fmt_force(value, self.force_unit, self.sig))
 
     def _reactions(self, ax: Any, arrow: float) -> None:
         if self.result is None:
@@ -436,7 +389,7 @@ class TrussDiagram:
                 f"reaction at {rec.node}: "
                 f"{_fmt_force(self._kN_to_unit(abs(v)), self.force_unit, self.sig)}"
             )
-            self._arrow(ax, tip, d, arrow, _REACTION, label)
+            force_arrow(ax, tip, d, arrow, _REACTION, label)
 
 
 def truss_svg(subject: TrussResult | Truss, settings: Any = None, **options: Any) -> str:

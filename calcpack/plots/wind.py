@@ -7,14 +7,14 @@ pressure with +GCpi.
 
 from __future__ import annotations
 
-import io
-from pathlib import Path
 from typing import Any
+
+from calcpack.plots.drawing import Drawing
 
 __all__ = ["WindZonePlan"]
 
 
-class WindZonePlan:
+class WindZonePlan(Drawing):
     """Plan of the envelope zones for one load case (``"A"`` or ``"B"``)."""
 
     def __init__(
@@ -88,18 +88,3 @@ class WindZonePlan:
         ax.set_xlim(-0.3 * L, 1.15 * L)
         ax.set_ylim(-0.4 * B, 1.4 * B)
         return fig
-
-    def svg(self) -> str:
-        """The plan as an SVG document."""
-        buf = io.StringIO()
-        self.figure().savefig(buf, format="svg", bbox_inches="tight")
-        return buf.getvalue()
-
-    def save(self, path: str | Path) -> Path:
-        """Write the plan (SVG, PNG or PDF by the file's suffix) and return the path."""
-        out = Path(path)
-        self.figure().savefig(out, bbox_inches="tight")
-        return out
-
-    def _repr_svg_(self) -> str:
-        return self.svg()

@@ -5,9 +5,10 @@ height, the leeward wall's uniform suction, each labelled with its pressure (wit
 
 from __future__ import annotations
 
-import io
 import math
 from typing import Any
+
+from calcpack.plots.labels import svg_text
 
 __all__ = ["elevation_figure", "elevation_svg"]
 
@@ -88,6 +89,4 @@ def elevation_figure(result: Any, width_in: float = 6.0) -> Any:
 def elevation_svg(result: Any, settings: Any = None, **options: Any) -> str:
     """Drawing ``"wind-elevation"``: the elevation of a directional wind result, as SVG."""
     del settings
-    buf = io.StringIO()
-    elevation_figure(result, **options).savefig(buf, format="svg", bbox_inches="tight")
-    return buf.getvalue()
+    return svg_text(elevation_figure(result, **options))

@@ -21,7 +21,7 @@ from calcpack.sections.geometry import Region, overlap_area
 from calcpack.sections.properties import PartRow, WeightedRegion, part_rows
 from calcpack.sections.shapes import Shape
 from calcpack.units import require, si
-from calcpack.validate import instance, one_of
+from calcpack.validate import at_least, instance, one_of
 
 __all__ = ["CompositeSection", "Part", "composite"]
 
@@ -118,13 +118,7 @@ class CompositeSection(Section):
     name: str = "built-up section"
 
     def __post_init__(self) -> None:
-        if not self.parts:
-            raise InputError(
-                "Composite section parts must include at least one solid part (got none)",
-                name="parts",
-                value=self.parts,
-                expected="one or more parts",
-            )
+        at_least("parts", self.parts, what="solid part")
         for i, part in enumerate(self.parts):
             instance(
                 f"parts[{i}]",

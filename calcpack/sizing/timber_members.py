@@ -49,6 +49,7 @@ __all__ = [
     "lightest_nds_post",
     "nds_post_member",
     "nds_post_space",
+    "nominal_size",
 ]
 
 #: stock western-species glulam widths [in] (common practice, from memory)
@@ -71,7 +72,8 @@ def compression_size_factor(grade: str, nominal_width: int) -> float:
     return _CF_FC.get(nominal_width, _CF_FC_WIDE)
 
 
-def _nominal(name: str) -> tuple[int, int]:
+def nominal_size(name: str) -> tuple[int, int]:
+    """(thickness, width) in nominal inches of a size like "6x6"."""
     try:
         t_s, w_s = name.lower().replace("×", "x").split("x")
         return int(t_s), int(w_s)
@@ -190,7 +192,7 @@ def nds_post_member(
     Raises:
         InputError: a size that does not read like "6x6", or not a timber with table "4D".
     """
-    t, w = _nominal(name)
+    t, w = nominal_size(name)
     if table == "4A":
         b, d = Q_(t - 0.5, "inch"), Q_(w - (0.5 if w <= 6 else 0.75), "inch")
         CF_b, CF_c, CF_t = size_factor(grade, t, w), compression_size_factor(grade, w), 1.0

@@ -1,9 +1,10 @@
 """ipywidgets input panels (imported lazily, never by computation).
 
-:func:`beam_panel`, :func:`section_panel` and :func:`member_panel` edit a sheet's inputs
-file (the catalogue panels are built on :class:`InputsPanel`); :func:`preview` shows
-the sheet as the issued PDF lays it out. Names load on first use so that importing
-``calcpack.widgets`` in a sheet costs nothing until a panel is made.
+:func:`beam_panel`, :func:`section_panel`, :func:`member_panel` (steel column),
+:func:`beam_member_panel` (steel, sawn or glulam beam member) and :func:`timber_post_panel`
+edit a sheet's inputs file (the catalogue panels are built on :class:`InputsPanel`);
+:func:`preview` shows the sheet as the issued PDF lays it out. Names load on first use so
+that importing ``calcpack.widgets`` in a sheet costs nothing until a panel is made.
 """
 
 from __future__ import annotations
@@ -11,6 +12,7 @@ from __future__ import annotations
 from calcpack._lazy import lazy_attributes
 
 __all__ = [
+    "BeamMemberPanel",
     "BeamPanel",
     "FootingPanel",
     "InputsPanel",
@@ -18,6 +20,8 @@ __all__ = [
     "MemberPanel",
     "SectionPanel",
     "SiteLoadsPanel",
+    "TimberPostPanel",
+    "beam_member_panel",
     "beam_panel",
     "footing_panel",
     "ledger_panel",
@@ -25,6 +29,7 @@ __all__ = [
     "preview",
     "section_panel",
     "site_loads_panel",
+    "timber_post_panel",
 ]
 
 _WHERE = {
@@ -42,6 +47,10 @@ _WHERE = {
     "site_loads_panel": "calcpack.widgets.site_loads",
     "LedgerPanel": "calcpack.widgets.ledger",
     "ledger_panel": "calcpack.widgets.ledger",
+    "BeamMemberPanel": "calcpack.widgets.sized_member",
+    "beam_member_panel": "calcpack.widgets.sized_member",
+    "TimberPostPanel": "calcpack.widgets.sized_member",
+    "timber_post_panel": "calcpack.widgets.sized_member",
 }
 
 

@@ -1,56 +1,104 @@
-"""Preview a sheet as the issued package lays it out, without leaving JupyterLab.
+"""See a sheet as it will print, without leaving JupyterLab.
 
-``preview()`` in a sheet's cell executes the saved notebook in a fresh kernel, exactly as the
-build does, lays it out with the package's page layout and shows the pages as images inline.
-During a build it shows nothing (the build's kernels set CALCPACK_BUILDING=1), so a preview
-cell left in a sheet never reaches the PDF and never recurses.
-
-Page images come from poppler's ``pdftoppm`` (Debian package poppler-utils).
+``preview()`` in a sheet's cell renders the saved notebook as the package build does (executed
+in a fresh kernel, converted and laid out with the package's page layout; see
+:mod:`calcpack.package.sheetview`, which takes each stage from the build's caches when it can)
+and shows the pages at the notebook's width, drawn at 100 dots per inch so that the text is
+readable; a button under each page shows it larger. While it works, a line says what it is
+doing. During a build it shows nothing (the build's kernels set CALCPACK_BUILDING=1), so a
+preview cell left in a sheet never reaches the PDF and never recurses.
 """
 
 from __future__ import annotations
 
 import base64
+import html
 import os
-import shutil
-import subprocess
-import tempfile
-from collections.abc import Iterator
-from contextlib import contextmanager
+import time
 from dataclasses import dataclass
 from pathlib import Path
 from typing import Any
 
-from calcpack.errors import BuildError, InputError
+from calcpack.errors import InputError
+from calcpack.package.sheetview import (
+    Progress,
+    SheetPages,
+    page_images,
+    render_sheet,
+    sheet_page_images,
+)
 
-__all__ = ["SheetPreview", "current_notebook", "preview", "render_preview"]
+__all__ = [
+    "PAGE_DPI",
+    "ZOOM_DPI",
+    "PreviewPanel",
+    "SheetPreview",
+    "current_notebook",
+    "preview",
+    "render_preview",
+]
+
+PAGE_DPI = 100
+"""Resolution of the page images shown at the notebook's width: an A4 page is 827 pixels
+wide, about the width of a notebook's output area, so the image is not enlarged."""
+
+ZOOM_DPI = 200
+"""Resolution of a page's larger view (drawn when asked for)."""
 
 
 @dataclass(frozen=True)
 class SheetPreview:
-    """A rendered sheet: the PDF bytes and one PNG per page.
+    """A rendered sheet: its layout (:class:`SheetPages`) and one PNG per page.
 
-    Displayed in a notebook as the page images side by side, each captioned with its number.
+    Displayed outside JupyterLab's widgets as the page images one under the other, each
+    captioned with its number.
     """
 
-    notebook: Path
-    pdf: bytes
+    sheet: SheetPages
     pages: tuple[bytes, ...]
+    resolution: int
+    seconds: tuple[tuple[str, float], ...] = ()
+    """Wall time of each stage done (not taken from the cache), in order."""
+
+    @property
+    def notebook(self) -> Path:
+        return self.sheet.notebook
+
+    @property
+    def pdf(self) -> bytes:
+        return self.sheet.pdf
+
+    @property
+    def width_px(self) -> int:
+        """Width at which a page is shown: its image at one image pixel per screen pixel."""
+        import io
+
+        from pypdf import PdfReader
+
+        points = float(PdfReader(io.BytesIO(self.sheet.pdf)).pages[0].mediabox.width)
+        return round(points / 72 * self.resolution)
+
+    def caption(self) -> str:
+        n = len(self.pages)
+        how = ", ".join(f"{name} {seconds:.1f} s" for name, seconds in self.seconds)
+        return (
+            f"Preview of {self.notebook.name} as saved, laid out as in the package "
+            f"({n} page{'s' if n != 1 else ''}; {how or 'everything from the cache'})"
+        )
 
     def _repr_html_(self) -> str:
         imgs = "".join(
-            '<figure style="margin:4px;display:inline-block;text-align:center">'
+            '<figure style="margin:4px 0;text-align:center">'
             f'<img class="cp-preview-page" alt="page {i}" '
             f'src="data:image/png;base64,{base64.b64encode(png).decode()}" '
-            'style="border:1px solid #bbb;box-shadow:1px 1px 4px #ccc;max-width:360px">'
+            f'style="border:1px solid #bbb;width:100%;max-width:{self.width_px}px">'
             f'<figcaption style="font-size:11px;color:#555">page {i} of {len(self.pages)}'
             "</figcaption></figure>"
             for i, png in enumerate(self.pages, start=1)
         )
         return (
-            f'<div class="cp-preview"><div style="font-size:12px;color:#555">Preview of '
-            f"{self.notebook.name} as saved, laid out as in the package ({len(self.pages)} "
-            f"page{'s' if len(self.pages) != 1 else ''})</div>{imgs}</div>"
+            f'<div class="cp-preview"><div style="font-size:12px;color:#555">'
+            f"{self.caption()}</div>{imgs}</div>"
         )
 
     def save_pdf(self, path: str | Path) -> Path:
@@ -80,111 +128,154 @@ def current_notebook() -> Path | None:
     return None
 
 
-@contextmanager
-def _building() -> Iterator[None]:
-    old = os.environ.get("CALCPACK_BUILDING")
-    os.environ["CALCPACK_BUILDING"] = "1"
-    try:
-        yield
-    finally:
-        if old is None:
-            os.environ.pop("CALCPACK_BUILDING", None)
-        else:
-            os.environ["CALCPACK_BUILDING"] = old
-
-
-def _job_metadata(notebook: Path) -> dict[str, Any]:
-    """The job fields of the project the notebook belongs to (for the title block), if any."""
-    from calcpack.errors import CalcpackError
-    from calcpack.package.project import load_project
-
-    for folder in notebook.resolve().parents:
-        if (folder / "calcpack.toml").is_file():
-            try:
-                project = load_project(folder)
-            except CalcpackError:
-                return {}
-            meta: dict[str, Any] = {
-                "job_number": project.job_number,
-                "job_title": project.job_title,
-                "client": project.client,
-                "site": project.site,
-                "units": project.units,
-                "paper": project.paper,
-                "firm": project.firm,
-                "preparer": project.preparer.name,
-                "checker": project.checker.name,
-                "approver": project.approver.name,
-                "revision": project.revisions[-1].rev if project.revisions else "—",
-            }
-            rel = notebook.resolve().relative_to(folder).as_posix()
-            for entry in project.sheets:
-                if entry.path == rel:
-                    meta["sheet_number"] = entry.number
-            return meta
-    return {}
-
-
-def pdf_page_images(pdf: bytes, *, resolution: int = 60) -> tuple[bytes, ...]:
-    """PNG images of every page of ``pdf`` at ``resolution`` dots per inch (pdftoppm).
-
-    Raises:
-        BuildError: pdftoppm is not installed or failed.
-    """
-    exe = shutil.which("pdftoppm")
-    if exe is None:
-        raise BuildError(
-            "The preview needs pdftoppm to draw the pages (Debian package poppler-utils); "
-            "install it, or build the package with `calcpack build`"
-        )
-    with tempfile.TemporaryDirectory(prefix="calcpack-preview-") as tmp:
-        src = Path(tmp) / "sheet.pdf"
-        src.write_bytes(pdf)
-        done = subprocess.run(
-            [exe, "-png", "-r", str(resolution), str(src), str(Path(tmp) / "page")],
-            capture_output=True,
-            check=False,
-            timeout=120,
-        )
-        if done.returncode != 0:
-            raise BuildError(f"pdftoppm failed: {done.stderr.decode(errors='replace')[-500:]}")
-        return tuple(p.read_bytes() for p in sorted(Path(tmp).glob("page-*.png")))
-
-
-def render_preview(notebook: str | Path, *, resolution: int = 60) -> SheetPreview:
-    """Execute the saved ``notebook`` in a fresh kernel and lay it out as the package does.
+def render_preview(
+    notebook: str | Path,
+    *,
+    resolution: int = PAGE_DPI,
+    progress: Progress | None = None,
+    use_cache: bool = True,
+) -> SheetPreview:
+    """Render the saved ``notebook`` as the package lays it out, with its page images.
 
     Args:
         notebook: the sheet notebook (its saved state is what is rendered).
         resolution: page image resolution in dots per inch.
+        progress: told each stage as it starts.
+        use_cache: take and keep each stage in the cache folder.
 
     Raises:
         InputError: the notebook does not exist.
         NotebookExecutionError: a cell failed (names the cell).
         BuildError: the layout or the page images could not be made.
     """
-    import nbformat
+    sheet = render_sheet(notebook, use_cache=use_cache, progress=progress)
+    start = time.perf_counter()
+    drawn: list[str] = []
 
-    from calcpack.package.execute import execute_notebook
-    from calcpack.package.sheetdoc import single_sheet_pdf
+    def told(what: str) -> None:
+        drawn.append(what)
+        if progress is not None:
+            progress(what)
 
-    path = Path(notebook)
-    if not path.is_file():
-        raise InputError(
-            f"Notebook {str(path)!r} does not exist; give the sheet's path, e.g. "
-            'preview("02_beam.ipynb")',
-            name="notebook",
-            value=str(path),
-            expected="an existing .ipynb file",
+    images = sheet_page_images(sheet, resolution=resolution, progress=told)
+    seconds = sheet.seconds
+    if drawn:  # the images were drawn, not taken from the cache
+        seconds += (("drawing the pages", time.perf_counter() - start),)
+    return SheetPreview(sheet, images, resolution, seconds)
+
+
+class PreviewPanel:
+    """The preview in JupyterLab: a line saying what is being done, then the pages at the
+    notebook's width, each with a button that shows it larger (and back)."""
+
+    def __init__(self, notebook: Path | None = None, *, on_request: bool = False) -> None:
+        import ipywidgets as w
+
+        self.notebook = notebook
+        self.status = w.HTML("Preparing the preview…")
+        self.box = w.VBox([self.status])
+        self.box.add_class("cp-preview")
+        self.shown: SheetPreview | None = None
+        self.request: Any = None
+        if on_request:
+            name = notebook.name if notebook else "this sheet"
+            self.status.value = f"Save {name}, then press the button to see it as it will print."
+            self.request = w.Button(
+                description="Show the pages as they will print", layout=w.Layout(width="auto")
+            )
+            self.request.add_class("cp-preview-request")
+            self.request.on_click(self._requested)
+            self.box.children = (self.request, self.status)
+
+    def render(self) -> None:
+        """Render the saved notebook and show its pages (a failure is written in the panel
+        and raised)."""
+        if self.notebook is None:
+            raise InputError(name="notebook", value=None, rule="is not known to this panel")
+        try:
+            self.show(render_preview(self.notebook, progress=self.say))
+        except Exception as exc:
+            self.status.value = f"Preview failed: {html.escape(str(exc))}"
+            raise
+
+    def _requested(self, _: Any) -> None:
+        self.request.disabled = True
+        try:
+            self.render()
+        except Exception:  # written in the panel: a button has nowhere else to say it
+            return
+        finally:
+            self.request.disabled = False
+
+    def say(self, what: str) -> None:
+        self.status.value = f"Preview: {what}…"
+
+    def show(self, shown: SheetPreview) -> None:
+        self.shown = shown
+        self.status.value = shown.caption()
+        self.box.children = (
+            *((self.request,) if self.request is not None else ()),
+            self.status,
+            *(self._page(n, png) for n, png in enumerate(shown.pages, start=1)),
         )
-    with _building():
-        nb = execute_notebook(path, sheet=path.name)
-    meta = _job_metadata(path)
-    if meta:
-        nb.metadata["calcpack"] = {**meta, **dict(nb.metadata.get("calcpack", {}) or {})}
-    nbformat.validate(nb)
-    pdf = single_sheet_pdf(nb, name=path.stem)
-    return SheetPreview(path.resolve(), pdf, pdf_page_images(pdf, resolution=resolution))
+
+    def _page(self, n: int, png: bytes) -> Any:
+        import ipywidgets as w
+
+        assert self.shown is not None
+        shown = self.shown
+        width = f"{shown.width_px}px"
+        image = w.Image(value=png, format="png", layout=w.Layout(width="100%", max_width=width))
+        image.add_class("cp-preview-page")
+        label = f"Page {n} of {len(shown.pages)}: larger view"
+        button = w.Button(description=label, layout=w.Layout(width="auto"))
+        larger: list[bytes] = []
+
+        def toggle(_: Any) -> None:
+            if button.description.startswith("Back"):
+                image.value, image.layout.max_width, image.layout.width = png, width, "100%"
+                button.description = label
+                return
+            if not larger:
+                button.description = f"Drawing page {n} at {ZOOM_DPI} dpi…"
+                larger.extend(page_images(shown.pdf, resolution=ZOOM_DPI, pages=(n, n)))
+            zoom = round(shown.width_px * ZOOM_DPI / shown.resolution)
+            image.value, image.layout.max_width, image.layout.width = larger[0], None, f"{zoom}px"
+            button.description = f"Back to page {n} at the notebook's width"
+
+        button.on_click(toggle)
+        frame = w.VBox([image, button], layout=w.Layout(overflow="auto", margin="6px 0"))
+        return frame
+
+    def _ipython_display_(self) -> None:
+        from IPython.display import display
+
+        display(self.box)
+
+
+class _Shown:
+    """What ``preview()`` returns once its panel is on screen: displays nothing more."""
+
+    def __init__(self, panel: PreviewPanel) -> None:
+        self.panel = panel
+
+    @property
+    def preview(self) -> SheetPreview | None:
+        return self.panel.shown
+
+    def save_pdf(self, path: str | Path) -> Path:
+        """Write the previewed PDF (a single-sheet layout, not an issued package)."""
+        if self.panel.shown is None:
+            raise InputError(
+                name="preview", value=None, expected="a finished preview", rule="has no pages yet"
+            )
+        return self.panel.shown.save_pdf(path)
+
+    def _ipython_display_(self) -> None:
+        return None
+
+    def __repr__(self) -> str:
+        return "preview shown above" if self.panel.shown else "preview not finished"
 
 
 class _Nothing:
@@ -197,22 +288,29 @@ class _Nothing:
         return "preview skipped (not an interactive session)"
 
 
-def preview(notebook: str | Path | None = None, *, resolution: int = 60) -> Any:
+def preview(notebook: str | Path | None = None, *, on_request: bool = False) -> Any:
     """Show this sheet's pages as the package will print them (from the saved notebook).
 
-    Save the notebook first: the saved file is what is executed, as in a build.
+    Save the notebook first: the saved file is what is executed, as in a build. Stages an
+    earlier preview or build did for the same saved sheet are taken from the cache.
 
     Args:
         notebook: the sheet; default the notebook this kernel serves.
-        resolution: page image resolution in dots per inch.
+        on_request: show a button that renders the pages when pressed (and again each time),
+            instead of rendering at once: for the last cell of a sheet, so that running every
+            cell does not execute the sheet a second time.
 
     Returns:
-        A :class:`SheetPreview` (displayed as page images), or, during a build, an object that
-        displays nothing.
+        An object holding the preview (``.preview``, ``.save_pdf(path)``) whose panel is
+        already shown; during a build, an object that displays nothing.
 
     Raises:
         InputError: the notebook could not be found.
+        NotebookExecutionError: a cell of the saved notebook failed (with ``on_request``, the
+            failure is written in the panel instead).
     """
+    from IPython.display import display
+
     from calcpack.widgets.fields import interactive_session
 
     if not interactive_session():
@@ -220,10 +318,13 @@ def preview(notebook: str | Path | None = None, *, resolution: int = 60) -> Any:
     path = Path(notebook) if notebook is not None else current_notebook()
     if path is None:
         raise InputError(
-            "preview() could not tell which notebook this kernel serves; give its path, e.g. "
-            'preview("02_beam.ipynb")',
             name="notebook",
             value=None,
-            expected="a notebook path",
+            rule="could not be told from this kernel",
+            note='give the sheet\'s path to the preview, e.g. preview("02_beam.ipynb")',
         )
-    return render_preview(path, resolution=resolution)
+    panel = PreviewPanel(path, on_request=on_request)
+    display(panel.box)
+    if not on_request:
+        panel.render()
+    return _Shown(panel)

@@ -33,6 +33,7 @@ FIGURE_DRAWINGS: dict[str, str] = {
     "masonry-bearing": "calcpack.plots.masonry:masonry_bearing_drawing",
     "lintel": "calcpack.plots.lintel:lintel_drawing",
     "wind-elevation": "calcpack.plots.wind_elevation:elevation_svg",
+    "wind-cc-plan": "calcpack.plots.wind_cc_plan:cc_plan_svg",
 }
 
 _REGISTERED: dict[str, Callable[..., str]] = {}

@@ -9,7 +9,7 @@ import pytest
 from calcpack.errors import DimensionError, InputError
 from calcpack.refdata import read_table
 from calcpack.units import ureg
-from calcpack.validate import dimension, finite, lookup, one_of, positive, within
+from calcpack.validate import dimension, finite, lookup, one_of, positive, positive_fields, within
 
 
 def test_positive_names_input_and_value() -> None:
@@ -106,6 +106,24 @@ def test_instance_and_whole_name_the_input() -> None:
             whole("n", bad, lo=1)
     with pytest.raises(InputError, match=r"Input n must be at least 1 \(got n = 0\)"):
         whole("n", 0, lo=1)
+
+
+def test_positive_fields_names_the_field_and_skips_optional_none() -> None:
+    from dataclasses import dataclass
+
+    @dataclass
+    class Plate:
+        t: object
+        gap: object = None
+
+    ok = Plate(ureg.Quantity(10, "mm"))
+    positive_fields(ok, "[length]", ("t", "gap"), optional=True)  # None skipped
+    with pytest.raises(InputError, match="gap"):
+        positive_fields(ok, "[length]", ("t", "gap"))  # None refused when required
+    with pytest.raises(InputError, match=r"\bt\b.*-2"):
+        positive_fields(Plate(ureg.Quantity(-2, "mm")), "[length]", ("t",))
+    with pytest.raises(DimensionError, match=r"\bt\b"):
+        positive_fields(Plate(ureg.Quantity(2, "kN")), "[length]", ("t",))
 
 
 def test_find_matches_exactly_and_lists_the_names_there_are() -> None:

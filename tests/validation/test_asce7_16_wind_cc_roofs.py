@@ -131,3 +131,58 @@ def test_refusals_name_the_limit() -> None:
         cc_coefficient_asce7("roof", "1'", at, Q_(15, "deg"))  # 1' is a zone of 30.3-2A only
     with pytest.raises(InputError, match="60 ft"):
         LowRiseBuildingASCE7(Q_(65, "ft"), Q_(100, "ft"), Q_(100, "ft"), Q_(20, "deg"))
+
+
+@pytest.mark.parametrize(
+    ("roof", "theta", "figure"),
+    [("gable", 26.6, "30.3-2C"), ("hip", 33.7, "30.3-2I"), ("monoslope", 8.0, "30.3-5A")],
+)
+def test_zone_plan_covers_the_roof_and_names_each_zone(
+    roof: str, theta: float, figure: str
+) -> None:
+    """Every zone of the figure appears on the plan with the pressure of Eq. 30.3-1 at A;
+    the regions of a gable or monoslope roof tile the plan B × L exactly (areas add up)."""
+    from calcpack.loads.wind_asce7_cc_plan import cc_roof_plan_asce7
+
+    b = LowRiseBuildingASCE7(
+        Q_(18, "ft"),
+        Q_(30, "ft"),
+        Q_(60, "ft"),
+        Q_(theta, "deg"),
+        roof=roof,  # type: ignore[arg-type]
+    )
+    plan = cc_roof_plan_asce7(SITE, b, area=Q_(20, "ft^2"))
+    assert {z for z, _ in plan.regions} == set(cc_roof_zones(roof, Q_(theta, "deg")))
+    assert plan.a.to("ft").magnitude == pytest.approx(3.0)  # max(min(3, 7.2), 1.2, 3) ft
+    for z, c in plan.zones.items():
+        g = cc_coefficient_asce7(
+            "roof", z, Q_(20, "ft^2"), Q_(theta, "deg"), roof=roof, h_over_B=0.6
+        )[1]
+        assert c.p_neg.to("psf").magnitude == pytest.approx(min(_qh(18) * (g - 0.18), -16.0))
+        assert figure in c.figure
+    if roof != "hip":
+
+        def area(poly):
+            pts = [(x.to("ft").magnitude, y.to("ft").magnitude) for x, y in poly]
+            return (
+                abs(
+                    sum(
+                        x0 * y1 - x1 * y0
+                        for (x0, y0), (x1, y1) in zip(pts, pts[1:] + pts[:1], strict=True)
+                    )
+                )
+                / 2
+            )
+
+        assert sum(area(p) for _, p in plan.regions) == pytest.approx(30 * 60)
+    steps = plan.working()
+    assert steps[-1].drawing == "wind-cc-plan"
+    assert "<svg" in steps[-1].svg()
+
+
+def test_zone_plan_refuses_low_slopes() -> None:
+    from calcpack.loads.wind_asce7_cc_plan import cc_roof_plan_asce7
+
+    b = LowRiseBuildingASCE7(Q_(18, "ft"), Q_(30, "ft"), Q_(60, "ft"), Q_(5, "deg"))
+    with pytest.raises(OutOfScopeError, match="7°"):
+        cc_roof_plan_asce7(SITE, b, area=Q_(20, "ft^2"))

@@ -193,3 +193,36 @@ def test_working_ends_with_the_elevation_sketch():
     svg = steps[-1].svg()
     assert "<svg" in svg
     assert f"{r.windward_profile[0].p_pos_gcpi.magnitude:+.3g}" in svg
+
+
+def test_monoslope_and_hip_frames_take_their_roof_pressures():
+    """Frame cases: a monoslope roof wholly windward carries one value across its span; a hip
+    roof's frames carry the main slopes (the hip ends are not on the frame)."""
+    from calcpack.loads.roof_profiles import wind_profiles_asce7_directional
+
+    mono = directional_wind_asce7(SITE, _b(roof="monoslope", windward_eave="low"))
+    cases = wind_profiles_asce7_directional(mono)
+    roof = mono.surface("windward roof")
+    assert [c.values for c in cases] == [(p,) for p in roof.p]
+    assert all(c.breaks[-1] == mono.building.L for c in cases)
+    assert cases[0].case.endswith("low eave")
+    hip = directional_wind_asce7(SITE, _b(roof="hip"))
+    hcases = wind_profiles_asce7_directional(hip)
+    ww, lw = hip.surface("windward roof"), hip.surface("leeward roof")
+    assert hcases[0].values == (ww.p[0], lw.p[0])
+
+
+def test_si_building_steps_at_metric_heights_and_agrees_with_us():
+    """An SI building (h = 13.5 m) steps at 5, 6, 7.5, 9, 12 m and 13.5 m; each band's q_z is
+    Eq. 26.10-1 at its top, the same as the US form at the same height (0.613 vs 0.00256,
+    to 3 figures)."""
+    site = WindSiteASCE7(V=Q_(115, "mph").to("m/s"), V_source="Figure 26.5-1B", exposure="C")
+    b = DirectionalBuildingASCE7(h=Q_(13.5, "m"), B=Q_(18, "m"), L=Q_(12, "m"),
+                                 roof_slope=Q_(20, "deg"))  # fmt: skip
+    r = directional_wind_asce7(site, b)
+    assert [x.top.to("m").magnitude for x in r.windward_profile] == pytest.approx(
+        [5, 6, 7.5, 9, 12, 13.5]
+    )
+    for band in r.windward_profile:
+        z_ft = band.top.to("ft").magnitude
+        assert band.qz.to("psf").magnitude == pytest.approx(_q(z_ft), rel=2e-3)

@@ -30,7 +30,7 @@ from typing import NamedTuple
 
 import numpy as np
 
-from calcpack.errors import InputError
+from calcpack.validate import one_of
 
 __all__ = [
     "SIBeam",
@@ -170,17 +170,8 @@ def evaluate(X: np.ndarray, g: np.ndarray, x: np.ndarray, side: str = "right") -
     left. At the beam ends both give the value inside the beam.
     """
     n = g.shape[0]
-    if side == "right":
-        seg = np.searchsorted(X, x, side="right") - 1
-    elif side == "left":
-        seg = np.searchsorted(X, x, side="left") - 1
-    else:
-        raise InputError(
-            f"side must be 'left' or 'right' (got side = {side!r})",
-            name="side",
-            value=side,
-            expected="'left' or 'right'",
-        )
+    one_of("side", side, ("left", "right"))
+    seg = np.searchsorted(X, x, side="right" if side == "right" else "left") - 1
     seg = np.clip(seg, 0, n - 1)
     xi = x - X[seg]
     coeffs = g[seg]

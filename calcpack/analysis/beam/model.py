@@ -24,7 +24,7 @@ from calcpack.loads._si import check as require
 from calcpack.loads._si import fast_si as si
 from calcpack.loads.types import FunctionLoad, Load, PointMoment, as_loads
 from calcpack.units import Quantity
-from calcpack.validate import find
+from calcpack.validate import distinct, each_instance, find
 
 __all__ = [
     "Beam",
@@ -222,14 +222,8 @@ class Beam:
         L_m = si(L)
         tol = 1e-9 * L_m
         supports = tuple(self.supports)
+        each_instance("supports", supports, Support, expected="a Pin, Roller, Fixed or Spring")
         for i, s in enumerate(supports):
-            if not isinstance(s, Support):
-                raise InputError(
-                    f"supports[{i}] must be a Pin, Roller, Fixed or Spring (got {s!r})",
-                    name=f"supports[{i}]",
-                    value=s,
-                    expected="a Support",
-                )
             if not -tol <= s.x_m <= L_m + tol:
                 raise InputError(
                     f"Support supports[{i}] ({s.kind}) must lie on the beam, 0 <= x <= L (got x = "
@@ -259,37 +253,15 @@ class Beam:
                     value=s1.x,
                     expected="distinct support positions",
                 )
-        names = [s.name for s in named]
-        if len(set(names)) != len(names):
-            raise InputError(
-                f"Support names must be distinct (got {names})",
-                name="supports.name",
-                value=names,
-                expected="distinct names",
-            )
+        distinct("supports.name", [s.name for s in named], what="support name")
         object.__setattr__(self, "supports", tuple(named))
 
-        for i, h in enumerate(self.hinges):
-            if not isinstance(h, Hinge):
-                raise InputError(
-                    f"hinges[{i}] must be a Hinge (got {h!r})",
-                    name=f"hinges[{i}]",
-                    value=h,
-                    expected="a Hinge",
-                )
+        each_instance("hinges", self.hinges, Hinge, expected="a Hinge")
         hinges = tuple(sorted(self.hinges, key=lambda h: h.x_m))
         hinges = tuple(
-            _renamed(h, f"H{i + 1}") if isinstance(h, Hinge) and h.name is None else h
-            for i, h in enumerate(hinges)
+            _renamed(h, f"H{i + 1}") if h.name is None else h for i, h in enumerate(hinges)
         )
         for i, h in enumerate(hinges):
-            if not isinstance(h, Hinge):
-                raise InputError(
-                    f"hinges[{i}] must be a Hinge (got {h!r})",
-                    name=f"hinges[{i}]",
-                    value=h,
-                    expected="a Hinge",
-                )
             if not tol < h.x_m < L_m - tol:
                 raise InputError(
                     f"Hinge must lie strictly inside the beam, 0 < x < L (got x = {h.x:~P}, "
@@ -353,14 +325,7 @@ class Beam:
                     value=ei,
                     expected="a quantity of [force]·[length]²",
                 )
-            for i, seg in enumerate(ei):
-                if not isinstance(seg, EISegment):
-                    raise InputError(
-                        f"EI[{i}] must be an EISegment(start, end, EI) (got {seg!r})",
-                        name=f"EI[{i}]",
-                        value=seg,
-                        expected="an EISegment",
-                    )
+            each_instance("EI", ei, EISegment, expected="an EISegment(start, end, EI)")
             segs = tuple(sorted(ei, key=lambda s: si(s.start)))
             edges = [0.0] + [v for s in segs for v in (si(s.start), si(s.end))] + [L_m]
             for j in range(0, len(edges), 2):

@@ -13,9 +13,9 @@ from calcpack.analysis.beam.working_terms import (
     load_terms,
     pick_settings,
 )
-from calcpack.errors import InputError
 from calcpack.loads._si import check
 from calcpack.units import Q_
+from calcpack.validate import one_of
 from calcpack.working import Block, Heading, Text, Unknown
 
 if TYPE_CHECKING:
@@ -51,13 +51,7 @@ def _cut_working(w: Writer, result: BeamResult, x: Any, side: str) -> Any:
         )
     )
     loads = LoadTerms(w, result, steps, upto=hi)
-    if side not in ("left", "right"):
-        raise InputError(
-            f"side must be 'left' or 'right' (got side = {side!r})",
-            name="side",
-            value=side,
-            expected="'left' or 'right'",
-        )
+    one_of("side", side, ("left", "right"))
     react = {r.support: r for r in result.reactions}
     rterms = []
     for s in beam.supports:

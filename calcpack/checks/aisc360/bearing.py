@@ -25,7 +25,7 @@ from calcpack.checks.scope import material_in_scope
 from calcpack.errors import OutOfScopeError
 from calcpack.sections.aisc_database import SteelShape
 from calcpack.units import Q_, Quantity, require
-from calcpack.validate import within
+from calcpack.validate import positive_fields, within
 
 __all__ = ["BasePlate", "ConcentratedForce", "check_aisc_base_plate", "check_aisc_web_bearing"]
 
@@ -111,22 +111,14 @@ def check_aisc_web_bearing(
             unit="kip",
         )
         c.heading("Web local yielding, §J10.2", 3)
-        if c.q(at) > c.q(d):
-            Rn = c.derive(
-                "R_n_WLY",
-                Fy_ * tw * (5 * k + lb),
-                "force farther than d from the end",
-                unit="kip",
-                ref="AISC 360-16 Eq. (J10-2)",
-            )
-        else:
-            Rn = c.derive(
-                "R_n_WLY",
-                Fy_ * tw * (2.5 * k + lb),
-                "force within d of the end",
-                unit="kip",
-                ref="AISC 360-16 Eq. (J10-3)",
-            )
+        kk, where, eq = (
+            (5, "force farther than d from the end", "J10-2")
+            if c.q(at) > c.q(d)
+            else (2.5, "force within d of the end", "J10-3")
+        )
+        Rn = c.derive(
+            "R_n_WLY", Fy_ * tw * (kk * k + lb), where, unit="kip", ref=f"AISC 360-16 Eq. ({eq})"
+        )
         cap = design_strength(
             c, "web local yielding", Rn, method, name="R_c_WLY", unit="kip", what="strength"
         )
@@ -134,21 +126,19 @@ def check_aisc_web_bearing(
         c.heading("Web local crippling, §J10.3", 3)
         root = c.sqrt(E_ * Fy_ * tf / tw)
         lb_d = float((f.lb / s["d"]).to("").magnitude)
-        if c.q(at) >= c.q(d) / 2:
-            Rn = c.derive(
-                "R_n_WCr",
-                0.80 * tw**2 * (1 + 3 * (lb / d) * (tw / tf) ** 1.5) * root,
-                "force at least d/2 from the end",
-                unit="kip",
-                ref="AISC 360-16 Eq. (J10-4)",
+        far = c.q(at) >= c.q(d) / 2
+        if far or lb_d <= 0.2:
+            coef, where, eq = (
+                (0.80, "force at least d/2 from the end", "J10-4")
+                if far
+                else (0.40, "within d/2 of the end, l_b/d ≤ 0.2", "J10-5a")
             )
-        elif lb_d <= 0.2:
             Rn = c.derive(
                 "R_n_WCr",
-                0.40 * tw**2 * (1 + 3 * (lb / d) * (tw / tf) ** 1.5) * root,
-                "within d/2 of the end, l_b/d ≤ 0.2",
+                coef * tw**2 * (1 + 3 * (lb / d) * (tw / tf) ** 1.5) * root,
+                where,
                 unit="kip",
-                ref="AISC 360-16 Eq. (J10-5a)",
+                ref=f"AISC 360-16 Eq. ({eq})",
             )
         else:
             Rn = c.derive(
@@ -237,8 +227,7 @@ class BasePlate:
     A2: Quantity | None = None
 
     def __post_init__(self) -> None:
-        for nm in ("B", "N"):
-            require(getattr(self, nm), "[length]", nm, positive=True)
+        positive_fields(self, "[length]", ("B", "N"))
         require(self.Fy, "[pressure]", "Fy", positive=True)
         require(self.fc, "[pressure]", "fc", positive=True)
         if self.t is not None:

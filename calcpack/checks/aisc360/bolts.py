@@ -27,7 +27,7 @@ from calcpack.checks.base import MemberChecks, Recorder, run_checks
 from calcpack.errors import InputError, OutOfScopeError
 from calcpack.refdata import read_table
 from calcpack.units import Q_, Quantity, require
-from calcpack.validate import one_of, positive, required, whole
+from calcpack.validate import one_of, positive, positive_fields, required, whole
 
 __all__ = [
     "BOLT_FACTORS",
@@ -151,10 +151,7 @@ class Ply:
     def __post_init__(self) -> None:
         require(self.t, "[length]", "t", positive=True)
         require(self.Fu, "[pressure]", "Fu", positive=True)
-        for nm in ("s", "le", "edge", "gauge"):
-            v = getattr(self, nm)
-            if v is not None:
-                require(v, "[length]", nm, positive=True)
+        positive_fields(self, "[length]", ("s", "le", "edge", "gauge"), optional=True)
         if self.along > 1:
             required(
                 "s",

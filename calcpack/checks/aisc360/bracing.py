@@ -13,14 +13,14 @@ is checked against them. Torsional bracing of beams (§6.3.2) is not implemented
 from __future__ import annotations
 
 from dataclasses import dataclass
-from typing import Literal
+from typing import Any, Literal
 
-from calcpack.checks.aisc360.member_data import FACTORS, check_method, member_standard
+from calcpack.checks.aisc360.member_data import FACTORS, Factor, check_method, member_standard
 from calcpack.checks.base import MemberChecks, Recorder, run_checks
 from calcpack.units import Quantity, require
 from calcpack.validate import one_of
 
-__all__ = ["BraceCase", "check_aisc_bracing"]
+__all__ = ["BraceCase", "check_aisc_bracing", "required_stiffness"]
 
 Braced = Literal["column", "beam"]
 Kind = Literal["point", "panel"]
@@ -66,6 +66,44 @@ class BraceCase:
             require(self.brace_stiffness, "[force]/[length]", "brace_stiffness", positive=True)
 
 
+# (member, kind) -> the required strength's symbol, its coefficient, words and equation; the
+# coefficient of the required stiffness and its equation (AISC 360-16 Appendix 6.2, 6.3.1)
+_RULES: dict[tuple[str, str], tuple[str, float, str, str, int, str]] = {
+    ("column", "panel"): (
+        "V_br",
+        0.005,
+        "required shear strength of the bracing",
+        "A-6-1",
+        2,
+        "A-6-2",
+    ),
+    ("column", "point"): ("P_br", 0.01, "required brace strength", "A-6-3", 8, "A-6-4"),
+    ("beam", "panel"): ("V_br", 0.01, "required shear strength", "A-6-5", 4, "A-6-6"),
+    ("beam", "point"): ("P_br", 0.02, "required brace strength", "A-6-7", 10, "A-6-8"),
+}
+
+
+def required_stiffness(
+    c: Recorder,
+    f: Factor,
+    method: str,
+    base: Any,
+    *,
+    name: str,
+    what: str,
+    unit: str,
+    ref: str,
+    factor_for: str,
+) -> Any:
+    """An Appendix 6 required stiffness: ``base``/φ (LRFD) or Ω·``base`` (ASD), with the
+    factor of ``f`` declared on the sheet."""
+    if method == "LRFD":
+        phi = c.given("phi", f.phi, f"resistance factor, {factor_for}", source=f.clause)
+        return c.derive(name, base / phi, what, unit=unit, ref=ref)
+    om = c.given("Omega", f.omega, f"safety factor, {factor_for}", source=f.clause)
+    return c.derive(name, om * base, what, unit=unit, ref=ref)
+
+
 def check_aisc_bracing(case: BraceCase, *, method: str = "LRFD", mark: str = "BR1") -> MemberChecks:
     """Required brace strength and stiffness to AISC 360-16 Appendix 6 (and the check of the
     brace provided, when its strength and stiffness are given)."""
@@ -76,6 +114,7 @@ def check_aisc_bracing(case: BraceCase, *, method: str = "LRFD", mark: str = "BR
     def logic(c: Recorder) -> None:
         c.heading(f"Stability bracing of a {b.member}, {b.kind} brace (Appendix 6)", 3)
         Lbr = c.given("L_br", b.Lbr, "unbraced length at the brace", source="given", unit="ft")
+        name, k_strength, what, eq_strength, k_stiffness, eq_stiffness = _RULES[b.member, b.kind]
         if b.member == "column":
             Pr = c.given(
                 "P_r",
@@ -84,26 +123,8 @@ def check_aisc_bracing(case: BraceCase, *, method: str = "LRFD", mark: str = "BR
                 source=b.combination or "given",
                 unit="kip",
             )
-            if b.kind == "panel":
-                req = c.derive(
-                    "V_br",
-                    0.005 * Pr,
-                    "required shear strength of the bracing",
-                    unit="kip",
-                    ref="AISC 360-16 Eq. (A-6-1)",
-                )
-                base = 2 * Pr / Lbr
-                ref = "AISC 360-16 Eq. (A-6-2)"
-            else:
-                req = c.derive(
-                    "P_br",
-                    0.01 * Pr,
-                    "required brace strength",
-                    unit="kip",
-                    ref="AISC 360-16 Eq. (A-6-3)",
-                )
-                base = 8 * Pr / Lbr
-                ref = "AISC 360-16 Eq. (A-6-4)"
+            strength = k_strength * Pr
+            base = k_stiffness * Pr / Lbr
         else:
             Mr = c.given(
                 "M_r",
@@ -121,36 +142,21 @@ def check_aisc_bracing(case: BraceCase, *, method: str = "LRFD", mark: str = "BR
                 "double curvature factor",
                 source="AISC 360-16 Appendix 6.3.1",
             )
-            if b.kind == "panel":
-                req = c.derive(
-                    "V_br",
-                    0.01 * Mr * Cd / ho,
-                    "required shear strength",
-                    unit="kip",
-                    ref="AISC 360-16 Eq. (A-6-5)",
-                )
-                base = 4 * Mr * Cd / (Lbr * ho)
-                ref = "AISC 360-16 Eq. (A-6-6)"
-            else:
-                req = c.derive(
-                    "P_br",
-                    0.02 * Mr * Cd / ho,
-                    "required brace strength",
-                    unit="kip",
-                    ref="AISC 360-16 Eq. (A-6-7)",
-                )
-                base = 10 * Mr * Cd / (Lbr * ho)
-                ref = "AISC 360-16 Eq. (A-6-8)"
-        if method == "LRFD":
-            phi = c.given("phi", f.phi, "resistance factor, bracing", source=f.clause)
-            beta = c.derive(
-                "beta_br", base / phi, "required brace stiffness", unit="kip/inch", ref=ref
-            )
-        else:
-            om = c.given("Omega", f.omega, "safety factor, bracing", source=f.clause)
-            beta = c.derive(
-                "beta_br", om * base, "required brace stiffness", unit="kip/inch", ref=ref
-            )
+            strength = k_strength * Mr * Cd / ho
+            base = k_stiffness * Mr * Cd / (Lbr * ho)
+        req = c.derive(name, strength, what, unit="kip", ref=f"AISC 360-16 Eq. ({eq_strength})")
+        ref = f"AISC 360-16 Eq. ({eq_stiffness})"
+        beta = required_stiffness(
+            c,
+            f,
+            method,
+            base,
+            name="beta_br",
+            what="required brace stiffness",
+            unit="kip/inch",
+            ref=ref,
+            factor_for="bracing",
+        )
         if b.brace_strength is None or b.brace_stiffness is None:
             c.not_covered(
                 "Brace",

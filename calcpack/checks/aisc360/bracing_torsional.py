@@ -18,14 +18,15 @@ from __future__ import annotations
 from dataclasses import dataclass
 from typing import Literal
 
+from calcpack.checks.aisc360.bracing import required_stiffness
 from calcpack.checks.aisc360.member_data import FACTORS, Method, check_method, member_standard
 from calcpack.checks.aisc360.shape import E_SOURCE, E_STEEL
 from calcpack.checks.base import MemberChecks, Recorder, run_checks
 from calcpack.checks.scope import material_in_scope
-from calcpack.errors import InputError, OutOfScopeError
+from calcpack.errors import OutOfScopeError
 from calcpack.sections.aisc_database import SteelShape
 from calcpack.units import Quantity
-from calcpack.validate import dimension, one_of, positive, whole, within
+from calcpack.validate import dimension, one_of, positive, positive_fields, required, whole, within
 
 __all__ = ["TorsionalBraceCase", "check_aisc_torsional_bracing"]
 
@@ -81,15 +82,13 @@ class TorsionalBraceCase:
             whole("n", self.n, lo=1)
             if (self.ts is None) != (self.bs is None):
                 name, other = ("bs", "ts") if self.bs is None else ("ts", "bs")
-                raise InputError(
-                    name=name,
-                    value=None,
-                    rule=f"must be given with {other} (a stiffener has both)",
+                required(
+                    name,
+                    None,
                     expected=f"a length, or {other} = None too",
+                    when=f"with {other} (a stiffener has both)",
                 )
-            for nm in ("ts", "bs"):
-                if getattr(self, nm) is not None:
-                    positive(nm, dimension(nm, getattr(self, nm), "[length]"))
+            positive_fields(self, "[length]", ("ts", "bs"), optional=True)
         if self.brace_strength is not None:
             positive(
                 "brace_strength",
@@ -177,24 +176,17 @@ def check_aisc_torsional_bracing(
                 unit=mu,
                 ref="AISC 360-16 Eq. (A-6-14)",
             )
-        if method == "LRFD":
-            phi = c.given("phi", f.phi, "resistance factor, torsional bracing", source=f.clause)
-            bT = c.derive(
-                "beta_T",
-                base / phi,
-                "overall stiffness required",
-                unit=mu,
-                ref="AISC 360-16 Eq. (A-6-11)",
-            )
-        else:
-            om = c.given("Omega", f.omega, "safety factor, torsional bracing", source=f.clause)
-            bT = c.derive(
-                "beta_T",
-                om * base,
-                "overall stiffness required",
-                unit=mu,
-                ref="AISC 360-16 Eq. (A-6-11)",
-            )
+        bT = required_stiffness(
+            c,
+            f,
+            method,
+            base,
+            name="beta_T",
+            what="overall stiffness required",
+            unit=mu,
+            ref="AISC 360-16 Eq. (A-6-11)",
+            factor_for="torsional bracing",
+        )
         web = c.check(
             "Web distortional stiffness",
             bT,

@@ -149,54 +149,38 @@ def check_aisc_h2(case: H2Case, *, method: str = "LRFD", mark: str = "M1") -> Me
             z = c.given(f"z_{tag}", p.z, "coordinate along z", source="given")
             ratio = fa / Fa
             sz, sw = _sense(p.z), _sense(p.w)
-            if sz != 0:
-                cz = c.given(f"c_w_{tag}", abs(p.z), "distance from the w axis", source="given")
-                Sw = c.derive(
-                    f"S_w_{tag}",
-                    Iw / cz,
+            # about w the stress goes with z (its distance from the w axis), about z with w
+            for ax, sense, M, Mc, I, coord, dist in (
+                ("w", sz, Mw, Mcw, Iw, z, p.z),
+                ("z", sw, Mz, Mcz, Iz, w, p.w),
+            ):
+                if sense == 0:
+                    continue
+                cc = c.given(
+                    f"c_{ax}_{tag}", abs(dist), f"distance from the {ax} axis", source="given"
+                )
+                S = c.derive(
+                    f"S_{ax}_{tag}",
+                    I / cc,
                     "section modulus at the point",
                     unit="inch**3",
                     ref="AISC 360-16 §H2",
                 )
-                fbw = c.derive(
-                    f"f_rbw_{tag}",
-                    Mw * z / Iw,
-                    "required flexural stress, w axis",
+                fb = c.derive(
+                    f"f_rb{ax}_{tag}",
+                    M * coord / I,
+                    f"required flexural stress, {ax} axis",
                     unit="ksi",
                     ref="AISC 360-16 §H2",
                 )
-                Fbw = c.derive(
-                    f"F_cbw_{tag}",
-                    Mcw / Sw,
-                    "available flexural stress, w axis",
+                Fb = c.derive(
+                    f"F_cb{ax}_{tag}",
+                    Mc / S,
+                    f"available flexural stress, {ax} axis",
                     unit="ksi",
                     ref="AISC 360-16 §H2",
                 )
-                ratio = ratio + fbw / Fbw
-            if sw != 0:
-                cw = c.given(f"c_z_{tag}", abs(p.w), "distance from the z axis", source="given")
-                Sz = c.derive(
-                    f"S_z_{tag}",
-                    Iz / cw,
-                    "section modulus at the point",
-                    unit="inch**3",
-                    ref="AISC 360-16 §H2",
-                )
-                fbz = c.derive(
-                    f"f_rbz_{tag}",
-                    Mz * w / Iz,
-                    "required flexural stress, z axis",
-                    unit="ksi",
-                    ref="AISC 360-16 §H2",
-                )
-                Fbz = c.derive(
-                    f"F_cbz_{tag}",
-                    Mcz / Sz,
-                    "available flexural stress, z axis",
-                    unit="ksi",
-                    ref="AISC 360-16 §H2",
-                )
-                ratio = ratio + fbz / Fbz
+                ratio = ratio + fb / Fb
             total = c.derive(
                 f"U_H2_{tag}",
                 ratio,

@@ -21,7 +21,7 @@ from calcpack.checks.aisc360.member_data import check_method, member_standard
 from calcpack.checks.base import MemberChecks, Recorder, run_checks
 from calcpack.errors import InputError, OutOfScopeError
 from calcpack.units import Q_, Quantity, require
-from calcpack.validate import one_of, required
+from calcpack.validate import one_of, positive_fields, required
 
 __all__ = [
     "BlockShear",
@@ -55,8 +55,7 @@ class ConnectingPlate:
     splice: bool = True
 
     def __post_init__(self) -> None:
-        for nm in ("t", "width"):
-            require(getattr(self, nm), "[length]", nm, positive=True)
+        positive_fields(self, "[length]", ("t", "width"))
         require(self.Fy, "[pressure]", "Fy", positive=True)
         require(self.Fu, "[pressure]", "Fu", positive=True)
         if self.holes:
@@ -180,8 +179,7 @@ class BlockShear:
     Ubs: float = 1.0
 
     def __post_init__(self) -> None:
-        for nm in ("t", "d_hole", "le"):
-            require(getattr(self, nm), "[length]", nm, positive=True)
+        positive_fields(self, "[length]", ("t", "d_hole", "le"))
         require(self.Fy, "[pressure]", "Fy", positive=True)
         require(self.Fu, "[pressure]", "Fu", positive=True)
         one_of("planes", self.planes, (1, 2))
@@ -257,6 +255,10 @@ def check_aisc_block_shear(
     return run_checks(mark, "Block shear rupture", member_standard(method), logic)
 
 
+# the threaded parts of Table J3.2 used as anchor rods
+ANCHOR_GRADES = ("F1554 Gr. 36", "F1554 Gr. 55", "F1554 Gr. 105", "A307")
+
+
 def check_aisc_anchor_rods(
     rods: BoltGroup,
     *,
@@ -273,13 +275,7 @@ def check_aisc_anchor_rods(
         InputError: a grade that is not an anchor rod or threaded part (A307 or F1554).
     """
     method = check_method(method)
-    if not (rods.grade.startswith("F1554") or rods.grade == "A307"):
-        raise InputError(
-            f"Anchor rods are ASTM F1554 (or A307) threaded parts (got grade = {rods.grade!r})",
-            name="grade",
-            value=rods.grade,
-            expected="'F1554 Gr. 36', 'F1554 Gr. 55', 'F1554 Gr. 105' or 'A307'",
-        )
+    one_of("grade", rods.grade, ANCHOR_GRADES)
     Vq = V if V is not None else Q_(0.0, "kip")
     require(Vq, "[force]", "V", nonnegative=True)
 

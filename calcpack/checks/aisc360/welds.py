@@ -22,7 +22,7 @@ from calcpack.checks.aisc360.member_data import check_method, member_standard
 from calcpack.checks.base import MemberChecks, Recorder, run_checks
 from calcpack.errors import InputError
 from calcpack.units import Q_, Quantity, require
-from calcpack.validate import positive, within
+from calcpack.validate import positive, positive_fields, within
 
 __all__ = ["BaseMetal", "FilletWeld", "check_aisc_fillet_weld", "minimum_fillet_size"]
 
@@ -82,10 +82,7 @@ class FilletWeld:
         require(self.theta, "[]", "theta")
         within("theta", self.theta.to("degree"), Q_(0, "degree"), Q_(90, "degree"),
                rule="θ from the weld axis, 0° to 90°")  # fmt: skip
-        for nm in ("t_thin", "t_edge"):
-            v = getattr(self, nm)
-            if v is not None:
-                require(v, "[length]", nm, positive=True)
+        positive_fields(self, "[length]", ("t_thin", "t_edge"), optional=True)
         if self.end_loaded and float(self.theta.to("degree").magnitude) != 0.0:
             raise InputError(
                 f"End-loaded welds (β, Eq. J2-1) are longitudinal: θ must be 0° (got theta = "

@@ -30,7 +30,12 @@ from collections.abc import Mapping, Sequence
 from dataclasses import dataclass, field
 from typing import Any, Literal
 
-from calcpack.checks.aci318.footing_data import Direction, factored_actions
+from calcpack.checks.aci318.footing_data import (
+    Direction,
+    factored_actions,
+    show_actions,
+    uplift_not_covered,
+)
 from calcpack.checks.base import MemberChecks, Recorder, Standard, run_checks
 from calcpack.combinations.en1990 import Psi, en1990_combinations
 from calcpack.foundations.demands import force_within, net_combinations, rounded_rectangle
@@ -203,20 +208,15 @@ class _ECLogic:
             ref="EN 1992-1-1 §3.2.7, Table 2.1N",
         )
         h = c.given("h", a.footing.h, "footing thickness", unit="mm")
-        if a.table:
-            c.table(
-                ["Combination", "N_Ed", "M_Ed,x", "M_Ed,y", "V_Ed,x", "V_Ed,y", "V_Ed,2"],
-                [list(r) for r in a.table],
-                caption="Design actions from the net soil pressure by combination",
-            )
-        if a.uplift_combinations:
-            c.not_covered(
-                "Top face under uplift",
-                "combinations with net uplift ("
-                + ", ".join(a.uplift_combinations)
-                + ") are not checked",
-                ref="EN 1992-1-1 §9.8.2",
-            )
+        show_actions(
+            c,
+            a,
+            columns=["Combination", "N_Ed", "M_Ed,x", "M_Ed,y", "V_Ed,x", "V_Ed,y", "V_Ed,2"],
+            caption="Design actions from the net soil pressure by combination",
+        )
+        uplift_not_covered(
+            c, a, "Top face under uplift", "the top face is not checked", "EN 1992-1-1 §9.8.2"
+        )
         if a.Pu.magnitude <= 0:
             return
         for dirn in (a.x, a.y):

@@ -10,9 +10,9 @@ from typing import TYPE_CHECKING, Any
 
 from calcpack.checks.base import Recorder
 from calcpack.checks.en1993.classify import Classification
-from calcpack.errors import InputError
 from calcpack.sections.eurocode_tables import EuroSection
 from calcpack.units import Q_
+from calcpack.validate import required
 
 if TYPE_CHECKING:
     from calcpack.checks.en1993.inputs import DesignForces, SteelMemberEC
@@ -57,22 +57,10 @@ def axial_and_bending(
         a = c.derive(
             "a", c.min((A - s.b * s.tf * 2) / A, 0.5), "web ratio", ref="EN 1993-1-1 §6.2.9.1(5)"
         )
-        MNy = c.derive(
-            "M_N_y_Rd",
-            c.min(McV_y * (1 - n) / (1 - 0.5 * a), McV_y),
-            "reduced plastic moment, y-y",
-            unit="kN*m",
-            ref="EN 1993-1-1 Eq. (6.36)",
-        )
+        MNy = _reduced(c, "M_N_y_Rd", McV_y, n, a, "y-y", "EN 1993-1-1 Eq. (6.36)")
         af = c.f(a)
         if Mz is not None:
-            Mpz = c.derive(
-                "M_pl_z_Rd",
-                fy * s.Wpl_z / gM0,
-                "plastic moment, z-z",
-                unit="kN*m",
-                ref="EN 1993-1-1 Eq. (6.13)",
-            )
+            Mpz = _plastic_z(c, fy, s, gM0)
             MNz = c.derive(
                 "M_N_z_Rd",
                 Mpz * (1 - ((n - a) / (1 - a)) ** 2) if nf > af else Mpz,
@@ -86,29 +74,11 @@ def axial_and_bending(
         aw = c.derive(
             "a_w", c.min((A - s.b * t * 2) / A, 0.5), "web ratio", ref="EN 1993-1-1 §6.2.9.1(6)"
         )
-        MNy = c.derive(
-            "M_N_y_Rd",
-            c.min(McV_y * (1 - n) / (1 - 0.5 * aw), McV_y),
-            "reduced plastic moment, y-y",
-            unit="kN*m",
-            ref="EN 1993-1-1 Eq. (6.39)",
-        )
+        MNy = _reduced(c, "M_N_y_Rd", McV_y, n, aw, "y-y", "EN 1993-1-1 Eq. (6.39)")
         if Mz is not None:
             af = c.derive("a_f", c.min((A - s.h * t * 2) / A, 0.5), "flange ratio")
-            Mpz = c.derive(
-                "M_pl_z_Rd",
-                fy * s.Wpl_z / gM0,
-                "plastic moment, z-z",
-                unit="kN*m",
-                ref="EN 1993-1-1 Eq. (6.13)",
-            )
-            MNz = c.derive(
-                "M_N_z_Rd",
-                c.min(Mpz * (1 - n) / (1 - 0.5 * af), Mpz),
-                "reduced plastic moment, z-z",
-                unit="kN*m",
-                ref="EN 1993-1-1 Eq. (6.40)",
-            )
+            Mpz = _plastic_z(c, fy, s, gM0)
+            MNz = _reduced(c, "M_N_z_Rd", Mpz, n, af, "z-z", "EN 1993-1-1 Eq. (6.40)")
         alpha = beta = min(1.66 / (1 - 1.13 * nf**2), 6.0)
     else:  # CHS (and PFC: the same reduction is not given by §6.2.9 -- linear, safe side)
         k = 1.7 if s.family == "CHS" else 1.0
@@ -172,14 +142,15 @@ def annex_b(
     NEd = c.given("N_Ed_b", c.q(f.N_Ed).to("kN"), "axial compression")
     My = c.given("M_y_Ed_b", c.q(f.My_Ed).to("kN*m"), "moment y-y")
     Mz = c.given("M_z_Ed_b", c.q(f.Mz_Ed).to("kN*m"), "moment z-z")
-    if chi["y"] is None or chi["z"] is None:
-        raise InputError(
-            "Annex B interaction needs both buckling lengths Lcr_y and Lcr_z of the member",
-            name="Lcr_y" if chi["y"] is None else "Lcr_z",
-            value=None,
+    (chy, lay), (chz, laz) = (
+        required(
+            f"Lcr_{ax}",
+            chi[ax],
             expected="a length",
+            when="for the Annex B interaction (both buckling lengths of the member)",
         )
-    (chy, lay), (chz, laz) = chi["y"], chi["z"]
+        for ax in ("y", "z")
+    )
     if chiLT is None:
         chiLT = c.given(
             "chi_LT",
@@ -194,40 +165,15 @@ def annex_b(
     nz = c.derive("n_z", NEd / (chz * NRk / gM1), "N_Ed/(χ_z N_Rk/γ_M1)", ref=ref)
     class3 = cl.cls == 3
     if class3:
-        kyy = c.derive(
-            "k_yy",
-            c.min(Cmy * (1 + 0.6 * lay * ny), Cmy * (1 + 0.6 * ny)),
-            "",
-            ref="Annex B Table B.1",
-        )
-        kzz = c.derive(
-            "k_zz",
-            c.min(Cmz * (1 + 0.6 * laz * nz), Cmz * (1 + 0.6 * nz)),
-            "",
-            ref="Annex B Table B.1",
-        )
+        kyy = _k_b1(c, "k_yy", Cmy, 0.6 * lay * ny, 0.6 * ny)
+        kzz = _k_b1(c, "k_zz", Cmz, 0.6 * laz * nz, 0.6 * nz)
         kyz = c.derive("k_yz", kzz, "", ref="Annex B Table B.1")
     else:
-        kyy = c.derive(
-            "k_yy",
-            c.min(Cmy * (1 + (lay - 0.2) * ny), Cmy * (1 + 0.8 * ny)),
-            "",
-            ref="Annex B Table B.1",
-        )
+        kyy = _k_b1(c, "k_yy", Cmy, (lay - 0.2) * ny, 0.8 * ny)
         if s.is_i_section:
-            kzz = c.derive(
-                "k_zz",
-                c.min(Cmz * (1 + (2 * laz - 0.6) * nz), Cmz * (1 + 1.4 * nz)),
-                "",
-                ref="Annex B Table B.1",
-            )
+            kzz = _k_b1(c, "k_zz", Cmz, (2 * laz - 0.6) * nz, 1.4 * nz)
         else:
-            kzz = c.derive(
-                "k_zz",
-                c.min(Cmz * (1 + (laz - 0.2) * nz), Cmz * (1 + 0.8 * nz)),
-                "",
-                ref="Annex B Table B.1",
-            )
+            kzz = _k_b1(c, "k_zz", Cmz, (laz - 0.2) * nz, 0.8 * nz)
         kyz = c.derive("k_yz", 0.6 * kzz, "", ref="Annex B Table B.1")
     torsional = s.is_i_section and f.L_LT is not None
     if torsional:
@@ -266,3 +212,31 @@ def annex_b(
     )
     c.check("Bending and compression (6.61)", u1, Q_(1.0, ""), ref=ref, combination=comb)
     c.check("Bending and compression (6.62)", u2, Q_(1.0, ""), ref=ref, combination=comb)
+
+
+def _plastic_z(c: Recorder, fy: Any, s: Any, gM0: Any) -> Any:
+    """M_pl,z,Rd = W_pl,z f_y / γ_M0 (kN·m), EN 1993-1-1 Eq. (6.13)."""
+    return c.derive(
+        "M_pl_z_Rd",
+        fy * s.Wpl_z / gM0,
+        "plastic moment, z-z",
+        unit="kN*m",
+        ref="EN 1993-1-1 Eq. (6.13)",
+    )
+
+
+def _reduced(c: Recorder, name: str, Mpl: Any, n: Any, a: Any, axis: str, ref: str) -> Any:
+    """M_N,Rd = M_pl,Rd (1 − n)/(1 − 0.5a) ≤ M_pl,Rd (kN·m), EN 1993-1-1 Eqs. (6.36), (6.39),
+    (6.40): ``a`` the web (or flange) ratio."""
+    return c.derive(
+        name,
+        c.min(Mpl * (1 - n) / (1 - 0.5 * a), Mpl),
+        f"reduced plastic moment, {axis}",
+        unit="kN*m",
+        ref=ref,
+    )
+
+
+def _k_b1(c: Recorder, name: str, Cm: Any, first: Any, cap: Any) -> Any:
+    """An interaction factor of Annex B Table B.1: C_m(1 + first) ≤ C_m(1 + cap)."""
+    return c.derive(name, c.min(Cm * (1 + first), Cm * (1 + cap)), "", ref="Annex B Table B.1")

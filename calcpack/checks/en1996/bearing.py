@@ -11,10 +11,12 @@ not exceed t/4 (§6.1.3(4)), else the check refuses.
 A padstone spreads the beam reaction at 45° through its depth (common practice) onto the
 loaded area A_b, at most its own plan; the concrete under the beam is checked for a partially
 loaded area, EN 1992-1-1 §6.7 Eq. (6.63), with α_cc = 0.85 and γ_c = 1.5 (UK NA to BS EN
-1992-1-1). f_d = f_k/γ_M with γ_M of the UK NA Table NA.1 (from memory: category I units 2.3
-and 2.7, category II 2.6 and 3.0, for execution classes 1 and 2); f_k = K f_b^0.7 f_m^0.3
-(Eq. 3.1, general purpose mortar, K from UK NA Table NA.4: Group 1 0.50, Group 2 0.40, from
-memory) unless the engineer gives f_k. The wall at mid-height under the spread load (§6.1.2)
+1992-1-1), A_c1 similar in shape to A_c0 and centred on it, within the padstone's plan and the
+conditions of Figure 6.29 on its depth (:mod:`calcpack.checks.bearing_area`). f_d = f_k/γ_M
+with γ_M of the UK NA Table NA.1 (from memory: category I units 2.3 and 2.7, category II 2.6
+and 3.0, for execution classes 1 and 2); f_k = K f_b^0.7 f_m^0.3 (Eq. 3.1, general purpose
+mortar, K from UK NA Table NA.4: Group 1 0.50, Group 2 0.40, from memory) unless the engineer
+gives f_k. The wall at mid-height under the spread load (§6.1.2)
 is checked separately.
 """
 
@@ -26,6 +28,7 @@ from typing import Any, Literal
 
 from calcpack import views
 from calcpack.checks.base import MemberChecks, Recorder, Standard, run_checks
+from calcpack.checks.bearing_area import similar_area_ratio
 from calcpack.errors import InputError, OutOfScopeError
 from calcpack.units import Q_, Quantity, require, si
 from calcpack.validate import one_of
@@ -327,13 +330,13 @@ def _padstone(
         "loaded area",
         unit="mm**2",
     )
-    l1 = min(p.length, 3 * lb).to("mm")
-    w1 = min(p.width, 3 * wb).to("mm")
+    k = similar_area_ratio((lb, wb), (p.length, p.width), p.depth, "EN 1992-1-1")
     a1 = c.given(
         "A_c1",
-        (l1 * w1).to("mm**2"),
-        "largest similar distribution area in the padstone (≤ 3 × each side)",
-        source="EN 1992-1-1 Figure 6.29",
+        (k**2 * lb * wb).to("mm**2"),
+        "largest distribution area similar to A_c0, centred, within the padstone and its depth "
+        "(each side ≤ 3 × and grown by ≤ the depth)",
+        source="EN 1992-1-1 §6.7(2), Figure 6.29",
     )
     F = c.derive(
         "F_Rdu",

@@ -15,6 +15,7 @@ from calcpack.checks.nds.factors import (
     ReferenceDesignValues,
     SawnMember,
     ServiceConditions,
+    duration_of,
     effective_length,
     flat_use_factor,
     size_factor,
@@ -22,24 +23,9 @@ from calcpack.checks.nds.factors import (
     wet_service_factor,
 )
 from calcpack.checks.nds.values import southern_pine_size_factor
-from calcpack.errors import InputError, OutOfScopeError
-from calcpack.validate import one_of
+from calcpack.errors import OutOfScopeError
 
 __all__ = ["check_nds_beam"]
-
-
-def _duration_of(case: str, durations: Mapping[str, str]) -> str:
-    base = case.split("#")[0]
-    for key in (case, base):
-        if key in durations:
-            return one_of(f"durations[{key!r}]", durations[key], DURATION_FACTORS)
-    raise InputError(
-        f"Load case {case!r} has no load duration: give durations={{{base!r}: 'ten years'}} "
-        f"or another of {list(DURATION_FACTORS)} (NDS 2018 Table 2.3.2)",
-        name="durations",
-        value=case,
-        expected=f"a duration for {base!r}",
-    )
 
 
 def combination_demands(demand: Any, durations: Mapping[str, str]) -> list[dict[str, Any]]:
@@ -52,12 +38,12 @@ def combination_demands(demand: Any, durations: Mapping[str, str]) -> list[dict[
     items: list[dict[str, Any]] = []
     for name, r in combos.items():
         cases = [c for c, f in getattr(r, "cases", ((name, 1.0),)) if f != 0.0]
-        ds = [(DURATION_FACTORS[_duration_of(c, durations)], c) for c in cases]
+        ds = [(DURATION_FACTORS[duration_of(c, durations)], c) for c in cases]
         CD, governing_case = max(ds)
         M, xM = max_abs(r, "moment")
         V, xV = max_abs(r, "shear")
         items.append({"combination": name, "CD": CD, "CD_case": governing_case,
-                      "CD_name": _duration_of(governing_case, durations), "M": M.to("lbf*ft"),
+                      "CD_name": duration_of(governing_case, durations), "M": M.to("lbf*ft"),
                       "V": V.to("lbf"), "xM": xM, "xV": xV, "result": r,
                       "L": r.beam.length})  # fmt: skip
     return items

@@ -30,7 +30,7 @@ from calcpack.checks.nds.factors import _TITLE, DURATION_FACTORS, NDS_EDITION
 from calcpack.errors import InputError, OutOfScopeError
 from calcpack.refdata import read_table
 from calcpack.units import Q_, Quantity, require
-from calcpack.validate import one_of, positive, required, whole
+from calcpack.validate import one_of, positive, positive_fields, required, whole
 
 __all__ = [
     "ConnectionService",
@@ -125,10 +125,12 @@ class FastenerLayout:
     def __post_init__(self) -> None:
         for nm in ("rows", "per_row"):
             whole(nm, getattr(self, nm), lo=1)
-        for nm in ("spacing", "row_spacing", "end", "edge", "loaded_edge"):
-            v = getattr(self, nm)
-            if v is not None:
-                require(v, "[length]", nm, positive=True)
+        positive_fields(
+            self,
+            "[length]",
+            ("spacing", "row_spacing", "end", "edge", "loaded_edge"),
+            optional=True,
+        )
         if self.per_row > 1:
             required(
                 "spacing",
@@ -166,10 +168,8 @@ class GroupStiffness:
     Es: Quantity
 
     def __post_init__(self) -> None:
-        for nm in ("Am", "As"):
-            require(getattr(self, nm), "[area]", nm, positive=True)
-        for nm in ("Em", "Es"):
-            require(getattr(self, nm), "[pressure]", nm, positive=True)
+        positive_fields(self, "[area]", ("Am", "As"))
+        positive_fields(self, "[pressure]", ("Em", "Es"))
 
 
 def group_action_factor(

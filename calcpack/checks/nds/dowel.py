@@ -30,7 +30,7 @@ from calcpack.checks.base import Recorder
 from calcpack.errors import InputError, OutOfScopeError
 from calcpack.refdata import read_table
 from calcpack.units import Q_, Quantity, require
-from calcpack.validate import lookup, one_of, required, within
+from calcpack.validate import lookup, one_of, positive_fields, required, within
 
 __all__ = [
     "DowelJoint",
@@ -95,10 +95,7 @@ class Fastener:
         one_of("kind", self.kind, KINDS)
         require(self.D, "[length]", "D", positive=True)
         require(self.Fyb, "[pressure]", "Fyb", positive=True)
-        for nm in ("Dr", "tip", "length"):
-            v = getattr(self, nm)
-            if v is not None:
-                require(v, "[length]", nm, positive=True)
+        positive_fields(self, "[length]", ("Dr", "tip", "length"), optional=True)
         if self.Dr is not None:
             within("Dr", self.Dr, hi=self.D, rule="the root diameter is not more than D")
         if self.D > _DOWEL_MAX:

@@ -29,7 +29,7 @@ from calcpack.checks.nds.dowel import DowelJoint, Embedment, Fastener, WoodMembe
 from calcpack.checks.nds.factors import _TITLE, DURATION_FACTORS, NDS_EDITION
 from calcpack.errors import InputError, OutOfScopeError
 from calcpack.units import Q_, Quantity, require
-from calcpack.validate import non_empty, one_of, required
+from calcpack.validate import non_empty, one_of, positive_fields, required
 
 __all__ = ["DeckLedger", "PrescriptiveSpacing", "check_deck_ledger"]
 
@@ -94,8 +94,7 @@ class DeckLedger:
     def __post_init__(self) -> None:
         one_of("fastener.kind", self.fastener.kind, ("lag screw", "bolt"))
         one_of("rows", self.rows, (1, 2))
-        for nm in ("ledger_depth", "spacing", "top", "bottom", "end"):
-            require(getattr(self, nm), "[length]", nm, positive=True)
+        positive_fields(self, "[length]", ("ledger_depth", "spacing", "top", "bottom", "end"))
         require(self.drop, "[length]", "drop", nonnegative=True)
         require(self.gap, "[length]", "gap", nonnegative=True)
         if self.gap.magnitude > 0:

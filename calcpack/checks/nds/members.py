@@ -35,7 +35,7 @@ from calcpack.checks.nds.factors import (
 from calcpack.checks.nds.values import TimberValues
 from calcpack.errors import InputError, OutOfScopeError
 from calcpack.units import Q_, Quantity, require
-from calcpack.validate import one_of, within
+from calcpack.validate import one_of, positive_fields, within
 
 __all__ = ["TimberForces", "TimberMember", "check_nds_member", "column_stability_factor"]
 
@@ -90,9 +90,7 @@ class TimberMember:
         require(self.b, "[length]", "b", positive=True)
         require(self.d, "[length]", "d", positive=True)
         within("b", self.b, hi=self.d, rule="b is the smaller side; d the depth (d ≥ b)")
-        for nm in ("le_d", "le_b", "lu", "L_beam"):
-            if getattr(self, nm) is not None:
-                require(getattr(self, nm), "[length]", nm, positive=True)
+        positive_fields(self, "[length]", ("le_d", "le_b", "lu", "L_beam"), optional=True)
         one_of("duration", self.duration, list(DURATION_FACTORS))
         one_of("loading", self.loading, ("uniform", "center point", "cantilever uniform", "any"))
         if self.built_up is not None:
@@ -257,19 +255,15 @@ def _compression(
     cc = c.given(
         "c", 0.8 if kind == "sawn" else 0.9, f"column parameter, {kind}", source="NDS 2018 §3.7.1.5"
     )
-    FcE1 = c.derive(
-        "F_cE1",
-        0.822 * Eminp / sd**2,
-        "critical buckling, across d",
-        unit="psi",
-        ref="NDS 2018 §3.9.2",
-    )
-    FcE2 = c.derive(
-        "F_cE2",
-        0.822 * Eminp / sb**2,
-        "critical buckling, across b",
-        unit="psi",
-        ref="NDS 2018 §3.9.2",
+    FcE1, FcE2 = (
+        c.derive(
+            f"F_cE{i}",
+            0.822 * Eminp / ratio**2,
+            f"critical buckling, across {across}",
+            unit="psi",
+            ref="NDS 2018 §3.9.2",
+        )
+        for i, ratio, across in ((1, sd, "d"), (2, sb, "b"))
     )
     weak_b = c.f(sb) >= c.f(sd)
     FcE = FcE2 if weak_b else FcE1

@@ -16,28 +16,14 @@ from dataclasses import replace
 from typing import Any, cast
 
 from calcpack.checks.base import MemberChecks, Recorder, run_checks
-from calcpack.checks.nds.factors import DEFAULT_DURATIONS, DURATION_FACTORS
+from calcpack.checks.nds.factors import DEFAULT_DURATIONS, DURATION_FACTORS, duration_of
 from calcpack.checks.nds.members import TimberForces, TimberMember, check_nds_member
 from calcpack.combinations.model import CombinationSet
 from calcpack.errors import InputError
 from calcpack.units import Q_, Quantity, require
-from calcpack.validate import one_of
+from calcpack.validate import at_least
 
 __all__ = ["check_nds_post"]
-
-
-def _duration(case: str, durations: Mapping[str, str]) -> str:
-    base = case.split("#")[0]
-    for key in (case, base):
-        if key in durations:
-            return one_of(f"durations[{key!r}]", durations[key], list(DURATION_FACTORS))
-    raise InputError(
-        f"Load case {case!r} has no load duration: give durations={{{base!r}: 'ten years'}} "
-        f"or another of {list(DURATION_FACTORS)} (NDS 2018 Table 2.3.2)",
-        name="durations",
-        value=case,
-        expected=f"a duration for {base!r}",
-    )
 
 
 def check_nds_post(
@@ -64,8 +50,7 @@ def check_nds_post(
             a case no combination uses, or every combination with no force.
         OutOfScopeError: as :func:`check_nds_member`.
     """
-    if not axial:
-        raise InputError(name="axial", value=dict(axial), expected="axial loads by load case")
+    at_least("axial", axial, what="axial load by load case")
     for case, P in axial.items():
         require(P, "[force]", f"axial[{case!r}]")
     moments = dict(moments or {})
@@ -78,7 +63,7 @@ def check_nds_post(
         used = [c for c, f in ac.factors.items() if f != 0.0]
         if not used:
             continue
-        dur = max((_duration(c, durs) for c in used), key=lambda d: DURATION_FACTORS[d])
+        dur = max((duration_of(c, durs) for c in used), key=lambda d: DURATION_FACTORS[d])
         P = sum((f * axial[c] for c, f in ac.factors.items() if c in axial), Q_(0.0, "lbf"))
         M = sum((f * moments[c] for c, f in ac.factors.items() if c in moments),
                 Q_(0.0, "lbf*ft"))  # fmt: skip

@@ -16,14 +16,15 @@ recalled ("from memory"); the source string carries that basis onto the sheet.
 
 from __future__ import annotations
 
+from collections.abc import Mapping
 from dataclasses import dataclass
 from typing import Literal
 
 from calcpack.checks.scope import material_in_scope
 from calcpack.errors import InputError
 from calcpack.refdata import read_table
-from calcpack.units import Q_, Quantity, require
-from calcpack.validate import non_empty, one_of
+from calcpack.units import Q_, Quantity
+from calcpack.validate import non_empty, one_of, positive_fields
 
 __all__ = [
     "SOUTHERN_PINE",
@@ -68,8 +69,7 @@ class TimberValues:
             expected=f"the source of timber values {self.name} (for SCL, the manufacturer's "
             "evaluation report), e.g. 'ICC-ES ESR-xxxx, Table 2'",
         )
-        for nm in ("Fb", "Ft", "Fv", "Fc_perp", "Fc", "E", "Emin"):
-            require(getattr(self, nm), "[pressure]", nm, positive=True)
+        positive_fields(self, "[pressure]", ("Fb", "Ft", "Fv", "Fc_perp", "Fc", "E", "Emin"))
         material_in_scope("NDS 2018|wood|E", "E", self.E)
         material_in_scope("NDS 2018|wood|Emin", "Emin", self.Emin)
 
@@ -108,17 +108,11 @@ def nds_sawn_values(
     t = read_table("nds_2018_sawn_values.csv", key="key")
     row = t.row(f"{table}|{species}|{grade}", what=f"species|grade of Table {table}")
     basis = str(row["basis"])
-    return TimberValues(
+    return _from_row(
+        row,
         f"{row['species']} {row['grade']}",
         "sawn" if table == "4A" else "timber",
         f"NDS Supplement 2018 Table {table} ({basis})",
-        Fb=_psi(row["Fb"]),
-        Ft=_psi(row["Ft"]),
-        Fv=_psi(row["Fv"]),
-        Fc_perp=_psi(row["Fc_perp"]),
-        Fc=_psi(row["Fc"]),
-        E=_psi(row["E"]),
-        Emin=_psi(row["Emin"]),
     )
 
 
@@ -130,11 +124,21 @@ def _southern_pine(species: str, grade: str, width: int | None) -> TimberValues:
     cls = one_of("width", w, tuple(_SP_WIDTHS))
     t = read_table("nds_2018_southern_pine_4b.csv", key="key")
     row = t.row(f"{grade}|{_SP_WIDTHS[cls]}", what="grade|width class of Table 4B")
-    return TimberValues(
+    return _from_row(
+        row,
         f"{SOUTHERN_PINE} {row['grade']} ({w} in. nominal width)",
         "sawn",
         f"NDS Supplement 2018 Table 4B, {_SP_WIDTHS[cls]} in. wide ({row['basis']}; size "
         "effect included)",
+    )
+
+
+def _from_row(row: Mapping[str, object], name: str, product: Product, source: str) -> TimberValues:
+    """The reference design values of a table row (psi), with what they are and their source."""
+    return TimberValues(
+        name,
+        product,
+        source,
         Fb=_psi(row["Fb"]),
         Ft=_psi(row["Ft"]),
         Fv=_psi(row["Fv"]),
