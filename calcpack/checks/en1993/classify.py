@@ -108,6 +108,41 @@ def classify(
         alpha, psi = 1.0, 1.0
     wt = tw_mm / 2 if sec.family in ("SHS", "RHS") else tw_mm
     out.append(_web(c_web / wt, eps, alpha, psi, "web"))
+    # a hollow section's flange is internal (Table 5.2 sheet 1), an I-section's an outstand
+    internal = sec.family in ("SHS", "RHS")
+    k = (33, 38, 42) if internal else (9, 10, 14)
+    lim = (k[0] * eps, k[1] * eps, k[2] * eps)
+    kind = "internal" if internal else "outstand"
+    out.append(
+        Element(
+            "flange",
+            c_fl / tf_mm,
+            lim,
+            _cls(c_fl / tf_mm, lim),
+            f"{kind} flange in compression: {k[0]}ε, {k[1]}ε, {k[2]}ε",
+        )
+    )
+    return Classification(eps, tuple(out))
+    if sec.family in ("SHS", "RHS"):
+        assert sec.t is not None
+        t = float(sec.t.to("mm").magnitude)
+        c_web, c_fl = (h - 3 * t), (b - 3 * t)
+        tw_mm = 2 * t
+        tf_mm = t
+    else:
+        assert sec.tw is not None
+        assert sec.tf is not None
+        assert sec.r is not None
+        tw_mm, tf_mm, r = (float(q.to("mm").magnitude) for q in (sec.tw, sec.tf, sec.r))
+        c_web = h - 2 * tf_mm - 2 * r
+        c_fl = (b - tw_mm - 2 * r) / 2 if sec.family != "PFC" else b - tw_mm - r
+    if bending:
+        alpha = min(1.0, 0.5 * (1 + N / (fy_mpa * tw_mm * c_web)))
+        psi = 2 * n_ratio - 1
+    else:
+        alpha, psi = 1.0, 1.0
+    wt = tw_mm / 2 if sec.family in ("SHS", "RHS") else tw_mm
+    out.append(_web(c_web / wt, eps, alpha, psi, "web"))
     if sec.family in ("SHS", "RHS"):
         lim = (33 * eps, 38 * eps, 42 * eps)
         out.append(
