@@ -181,11 +181,12 @@ def aisc_beam_space(
     nominal_depth: int | Sequence[int] | None = None,
     E: Quantity = E_STEEL,
     member: str = "B1",
+    material: str = "",
 ) -> SearchSpace[SteelShape]:
     """The search space of :func:`lightest_aisc_beam` (same arguments): the shapes of
     ``family``, the plastic-moment screen and the trial (check_aisc_beam and the deflection
     limits scaled to the shape's I_x). ``space.check(aisc_shape("W10X12"))`` checks one shape
-    exactly as the search does."""
+    exactly as the search does. ``material`` names the steel on the sheet ("ASTM A992")."""
     one_of("method", method, ("LRFD", "ASD"))
     one_of("family", family, I_FAMILIES)
     require(Fy, "[pressure]", "Fy", positive=True)
@@ -217,6 +218,7 @@ def aisc_beam_space(
                 demand=demand,
                 braces=braces,
                 continuous_bracing=continuous_bracing,
+                material=material,
             )
         ]
         factor = float((EI_ref / (E * shape["Ix"])).to("").magnitude)
