@@ -145,7 +145,8 @@ def check_embedment(post: EmbeddedPost, *, mark: str = "post") -> MemberChecks:
         if g.restraint == "non-constrained":
             S1 = c.derive("S_1", k * s * d_p / 3, "lateral bearing at one-third of the depth",
                           unit="psf", ref="IBC 2018 §1807.3.2.1, §1806.3.3")  # fmt: skip
-            A = c.derive("A", EQ18_1_A * P / (S1 * b), "", unit="ft", ref="IBC 2018 Eq. (18-1)")
+            A = c.derive("A", EQ18_1_A * P / (S1 * b), "length parameter of the equation",
+                         unit="ft", ref="IBC 2018 Eq. (18-1)")  # fmt: skip
             d_req = c.derive(
                 "d_req",
                 0.5 * A * (1 + c.sqrt(1 + EQ18_1_H * h / A)),
