@@ -47,7 +47,7 @@ from calcpack.working.steps import (
 __all__ = ["STYLE", "mimebundle", "step_html", "step_latex", "step_text"]
 
 STYLE = """<style class="cp-style">
-.cp-row{display:grid;gap:0 .8em;
+.cp-step.cp-row{display:grid;gap:0 .8em;
 grid-template-columns:minmax(6em,13%) minmax(8em,19%) minmax(0,1fr) minmax(8em,17%);
 align-items:baseline;font-size:0.95em}
 .cp-row>div{padding:.15em 0}
