@@ -412,9 +412,10 @@ def _figure_html(step: Figure) -> str:
         images = f'<img class="cp-figure-img" alt="{alt}" src="{_svg_uri(svg)}"/>'
     else:
         # the first panel carries the figure's words; the others say what they continue
-        more = html.escape(f"{step.alt.rstrip('.')}, continued", quote=True)
+        first = html.escape(step.alt.rstrip(". "), quote=True)
+        more = f"{first}, continued"
         images = "".join(
-            f'<img class="cp-figure-img cp-band" alt="{alt if k == 1 else more}: panel {k} of '
+            f'<img class="cp-figure-img cp-band" alt="{first if k == 1 else more}: panel {k} of '
             f'{len(bands)}" src="{_svg_uri(band.svg)}"/>'
             for k, band in enumerate(bands, start=1)
         )

@@ -39,12 +39,10 @@ def _view(svg: str) -> tuple[float, float]:
     return float(m.group(1)), float(m.group(2))
 
 
-def test_the_beam_figure_is_cut_between_its_four_panels() -> None:
-    """The loading, shear, moment and deflection panels of calcpack's beam figure."""
+def _beam_result() -> object:
     from calcpack.analysis.beam import Beam, Pin, Roller, solve_beam
     from calcpack.loads import UniformLoad
     from calcpack.units import ureg
-    from calcpack.working.figure import draw_figure
 
     beam = Beam(
         4 * ureg.m,
@@ -52,7 +50,14 @@ def test_the_beam_figure_is_cut_between_its_four_panels() -> None:
         [UniformLoad(5 * ureg.kN / ureg.m)],
         EI=2000 * ureg.kN * ureg.m**2,
     )
-    svg = draw_figure("beam", solve_beam(beam), None)
+    return solve_beam(beam)
+
+
+def test_the_beam_figure_is_cut_between_its_four_panels() -> None:
+    """The loading, shear, moment and deflection panels of calcpack's beam figure."""
+    from calcpack.working.figure import draw_figure
+
+    svg = draw_figure("beam", _beam_result(), None)
     bands = panel_bands(svg)
     assert len(bands) == 4
     assert sum(b.share for b in bands) == pytest.approx(1.0)
@@ -62,6 +67,20 @@ def test_the_beam_figure_is_cut_between_its_four_panels() -> None:
         used = set(re.findall(r'xlink:href="#([^"]+)"', band.svg))
         defined = set(re.findall(r'id="([^"]+)"', band.svg))
         assert used <= defined
+
+
+def test_a_figure_step_shows_one_image_per_panel_with_its_words() -> None:
+    from calcpack.working.figure import Figure as FigureStep
+
+    step = FigureStep("beam", _beam_result(), caption="Beam B1", alt="Diagrams of beam B1.")
+    html = step._repr_html_()
+    alts = re.findall(r'<img class="cp-figure-img cp-band" alt="([^"]*)"', html)
+    assert alts == [
+        "Diagrams of beam B1: panel 1 of 4",
+        *[f"Diagrams of beam B1, continued: panel {k} of 4" for k in (2, 3, 4)],
+    ]
+    assert 'class="cp-step cp-figure cp-split"' in html
+    assert html.index("<figcaption>") > html.rindex("cp-band")  # the caption after the last
 
 
 def test_panels_side_by_side_or_one_panel_stay_one_image() -> None:
