@@ -368,6 +368,32 @@ class MemberChecks:
             sheet.add(step)
         return self
 
+    def add_results_to(self, sheet: Any) -> MemberChecks:
+        """Add only the checks to ``sheet``, one line each (demand, capacity, verdict, clause,
+        combination), without the working: for a member whose working of the same clauses is
+        shown elsewhere on the sheet. The checks are recorded as with :meth:`add_to`."""
+        from calcpack.working import Check, NotCovered
+
+        settings = getattr(sheet, "settings", None)
+        for r in self.results:
+            if r.demand is None or r.capacity is None:
+                step: Any = NotCovered(
+                    r.name, r.description, ref=r.clause or None, member=r.member, settings=settings
+                )
+            else:
+                step = Check(
+                    r.name,
+                    r.demand,
+                    r.capacity,
+                    ref=r.clause,
+                    member=r.member,
+                    combination=r.combination,
+                    description=r.description,
+                    settings=settings,
+                )
+            sheet.add(step)
+        return self
+
     def records(self) -> list[Any]:
         """The checks as :class:`calcpack.working.CheckRecord` for the summary of checks."""
         return [r.record() for r in self.results]
