@@ -72,7 +72,7 @@ def test_sketch_shows_the_spread_length():
 
 def test_bearing_off_the_padstone_is_refused_naming_the_values():
     pad = Padstone(Q_(440, "mm"), Q_(100, "mm"), Q_(150, "mm"), end_to_bearing=Q_(350, "mm"))
-    with pytest.raises(InputError, match=r"end_to_bearing.*at most 340 mm.*got end_to_bearing = 350 mm"):
+    with pytest.raises(InputError, match=r"end_to_bearing.*at most 340 mm.*got .* = 350 mm"):
         check_en1996_bearing(
             _wall(),
             N_Ed=Q_(10, "kN"),
