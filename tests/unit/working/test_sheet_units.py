@@ -194,3 +194,46 @@ def test_an_si_value_on_a_us_sheet_is_the_same_quantity_in_us_units(
     assert step.display_unit.dimensionality == q.dimensionality
     assert step.quantity.to(step.display_unit).to(q.units).magnitude == pytest.approx(magnitude)
     assert not s.settings.kinds
+
+
+def test_a_footing_checked_on_a_us_sheet_reads_in_us_units_throughout() -> None:
+    """The soil checks work in SI inside; on a US sheet every value, table cell and check reads
+    in US units (the deck's pier sheet printed "0 kN·m" in its loads table and B in m)."""
+    import re
+
+    from calcpack.combinations import asce7_allowable_stress
+    from calcpack.foundations import (
+        AllowableBearing,
+        Column,
+        Footing,
+        FootingLoad,
+        SiteConditions,
+        check_footing_soil,
+    )
+    from calcpack.units import Q_
+
+    # Invented pier: 30 in round, 24 in deep, 150 pcf concrete, on 1500 psf soil.
+    pier = Footing(
+        "round",
+        Q_(30, "inch"),
+        Q_(24, "inch"),
+        Column(Q_(5.5, "inch"), support="base plate", plate1=Q_(6, "inch")),
+        kind="pier",
+        gamma_concrete=Q_(150, "pcf"),
+        gamma_soil=Q_(110, "pcf"),
+        mark="PR-1",
+    )
+    loads = {"D": FootingLoad(P=Q_(0.18, "kip")), "L": FootingLoad(P=Q_(1.05, "kip"))}
+    soil = check_footing_soil(
+        pier,
+        loads,
+        asce7_allowable_stress(),
+        AllowableBearing(Q_(1500, "psf"), "invented presumptive value"),
+        site=SiteConditions(frost_depth=Q_(18, "inch")),
+    )
+    s = _sheet(system="US")
+    soil.add_to(s)
+    text = "\n".join(str(step) for step in s.steps)  # each step's plain-text working
+    assert re.findall(r"\d (?:kN|kPa|MPa|m\b|mm\b|kN·m|kN/m)", text) == []
+    assert "0 kip·ft" in text
+    assert "B = 2.50 ft" in text
