@@ -240,8 +240,11 @@ class DisplaySettings:
     def keep_unit(self, unit: pint.Unit) -> None:
         """Settle ``unit`` as the sheet's unit for its kind, unless one is settled already."""
         kind = quantity_kind(unit)
-        if kind:
-            self.kinds.setdefault(kind, str(unit))
+        if kind and kind not in self.kinds:
+            # pint's pretty form of a fractional power (in⁰⋅⁵) does not parse back: keep the
+            # long form then, so kind_unit can read it
+            text = str(unit)
+            self.kinds[kind] = text if "⋅" not in text else f"{unit:D}"
 
     def default_unit(self, quantity: pint.Quantity | pint.Unit) -> pint.Unit | None:
         """The unit a value that asks for none is shown in: the sheet's unit for its kind,

@@ -65,6 +65,41 @@ def write_linked_project(root: Path, sheets: Mapping[str, str], order: Sequence[
     return root
 
 
+PLACEHOLDER_SHEET = {
+    "cells": [{"cell_type": "code", "source": "x = 1", "metadata": {}, "outputs": []}],
+    "metadata": {},
+    "nbformat": 4,
+    "nbformat_minor": 5,
+}
+
+
+def sheets_folder_project(
+    root: Path,
+    names: Sequence[str],
+    monkeypatch: Any,
+    *,
+    inputs: Mapping[str, str] | None = None,
+) -> Path:
+    """A bare project of placeholder sheets ``sheets/<name>.ipynb`` (with an inputs file
+    ``sheets/<name>.inputs.toml`` for each of ``inputs``: name -> its TOML text), entered as a
+    kernel enters it: the working folder is the sheets folder, and no build, exports folder,
+    session or sheet is set in the environment (``monkeypatch`` undoes it all)."""
+    (root / "sheets").mkdir()
+    entries = []
+    for name in names:
+        (root / "sheets" / f"{name}.ipynb").write_text(json.dumps(PLACEHOLDER_SHEET))
+        entry = f'[[sheets]]\npath = "sheets/{name}.ipynb"\n'
+        if inputs and name in inputs:
+            (root / "sheets" / f"{name}.inputs.toml").write_text(inputs[name])
+            entry += f'inputs = ["sheets/{name}.inputs.toml"]\n'
+        entries.append(entry)
+    (root / "calcpack.toml").write_text("\n".join(entries))
+    monkeypatch.chdir(root / "sheets")
+    for name in ("CALCPACK_BUILDING", EXPORTS_DIR_ENV, "JPY_SESSION_NAME", SHEET_ENV):
+        monkeypatch.delenv(name, raising=False)
+    return root
+
+
 @contextlib.contextmanager
 def _kernel_like(folder: Path, env: dict[str, str]) -> Iterator[None]:
     old_env = {k: os.environ.get(k) for k in env}

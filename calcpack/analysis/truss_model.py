@@ -33,7 +33,7 @@ import numpy.typing as npt
 from calcpack import views
 from calcpack.errors import InputError
 from calcpack.units import Quantity, is_quantity, require, si, ureg
-from calcpack.validate import at_least, each_instance, find
+from calcpack.validate import at_least, each_instance, find, non_empty
 
 __all__ = ["JointLoad", "Member", "Node", "Support", "Truss"]
 
@@ -48,13 +48,8 @@ _COINCIDENT_REL = 1e-9
 
 
 def _check_name(name: object, what: str) -> str:
-    if not isinstance(name, str) or not name.strip():
-        raise InputError(
-            f"{what} name must be a non-empty string (got {name!r})",
-            name=f"{what.lower()} name",
-            value=name,
-            expected="a non-empty string such as 'A'",
-        )
+    non_empty(f"{what.lower()} name", name, expected="a name such as 'A'")
+    assert isinstance(name, str)
     return name
 
 
@@ -400,14 +395,7 @@ class Truss:
         pairs: dict[frozenset[str], str] = {}
         for m in self.members:
             for end in (m.start, m.end):
-                if end not in self.node_index:
-                    raise InputError(
-                        f"Member {m.name} refers to node {end!r}, which is not in the truss "
-                        f"(nodes: {', '.join(self.node_index)})",
-                        name=f"member {m.name}",
-                        value=end,
-                        expected="an existing node name",
-                    )
+                self._require_node(end, f"member {m.name}", f"Member {m.name} refers to node")
             key = frozenset((m.start, m.end))
             if key in pairs:
                 raise InputError(
@@ -432,14 +420,7 @@ class Truss:
         supported: set[str] = set()
         each_instance("supports", self.supports, Support, expected="a Support(node, kind)")
         for s in self.supports:
-            if s.node not in self.node_index:
-                raise InputError(
-                    f"A support is placed on node {s.node!r}, which is not in the truss "
-                    f"(nodes: {', '.join(self.node_index)})",
-                    name=f"support {s.node}",
-                    value=s.node,
-                    expected="an existing node name",
-                )
+            self._require_node(s.node, f"support {s.node}", "A support is placed on node")
             if s.node in supported:
                 raise InputError(
                     f"Node {s.node} has two supports; give one (a pin restrains both directions)",
@@ -450,14 +431,19 @@ class Truss:
             supported.add(s.node)
         each_instance("loads", self.loads, JointLoad, expected="a JointLoad(node, Fx, Fy)")
         for ld in self.loads:
-            if ld.node not in self.node_index:
-                raise InputError(
-                    f"A load (case {ld.case}) is applied at node {ld.node!r}, which is not in "
-                    f"the truss (nodes: {', '.join(self.node_index)})",
-                    name=f"load at {ld.node}",
-                    value=ld.node,
-                    expected="an existing node name",
-                )
+            said = f"A load (case {ld.case}) is applied at node"
+            self._require_node(ld.node, f"load at {ld.node}", said)
+
+    def _require_node(self, node: str, name: str, said: str) -> None:
+        """Refuse a reference to a node the truss does not have, in the words of the input that
+        refers to it (``said``: "Member M1 refers to node")."""
+        if node not in self.node_index:
+            raise InputError(
+                f"{said} {node!r}, which is not in the truss (nodes: {', '.join(self.node_index)})",
+                name=name,
+                value=node,
+                expected="an existing node name",
+            )
 
     def _validate_connected(self) -> None:
         adjacency: dict[int, set[int]] = {i: set() for i in range(len(self.nodes))}

@@ -28,6 +28,7 @@ from typing import Any
 from calcpack.contract.verdict import Verdict, passes
 from calcpack.errors import InputError
 from calcpack.units import Q_, Quantity, is_quantity, utilisation
+from calcpack.validate import find
 
 __all__ = [
     "NOT_COVERED",
@@ -335,16 +336,8 @@ class MemberChecks:
     logic: Logic = field(repr=False, compare=False)
 
     def __getitem__(self, name: str) -> CheckResult:
-        for r in self.results:
-            if r.name == name:
-                return r
-        raise InputError(
-            f"Member {self.member} has no check {name!r} (checks are "
-            f"{[r.name for r in self.results]})",
-            name="name",
-            value=name,
-            expected="a check name",
-        )
+        checks = {r.name: r for r in self.results}
+        return find("name", name, checks, what="check", where=f"of member {self.member}")
 
     @property
     def governing(self) -> CheckResult:
@@ -372,6 +365,32 @@ class MemberChecks:
     def add_to(self, sheet: Any) -> MemberChecks:
         """Add the working to ``sheet`` step by step (so the sheet's summary sees each check)."""
         for step in self.working(settings=getattr(sheet, "settings", None)):
+            sheet.add(step)
+        return self
+
+    def add_results_to(self, sheet: Any) -> MemberChecks:
+        """Add only the checks to ``sheet``, one line each (demand, capacity, verdict, clause,
+        combination), without the working: for a member whose working of the same clauses is
+        shown elsewhere on the sheet. The checks are recorded as with :meth:`add_to`."""
+        from calcpack.working import Check, NotCovered
+
+        settings = getattr(sheet, "settings", None)
+        for r in self.results:
+            if r.demand is None or r.capacity is None:
+                step: Any = NotCovered(
+                    r.name, r.description, ref=r.clause or None, member=r.member, settings=settings
+                )
+            else:
+                step = Check(
+                    r.name,
+                    r.demand,
+                    r.capacity,
+                    ref=r.clause,
+                    member=r.member,
+                    combination=r.combination,
+                    description=r.description,
+                    settings=settings,
+                )
             sheet.add(step)
         return self
 

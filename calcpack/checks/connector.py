@@ -27,7 +27,7 @@ from calcpack.checks.base import MemberChecks, Recorder, Standard, run_checks
 from calcpack.combinations.model import CombinationSet
 from calcpack.errors import InputError
 from calcpack.units import Q_, Quantity, require
-from calcpack.validate import non_empty
+from calcpack.validate import at_least, non_empty
 
 __all__ = ["ConnectorListing", "check_connector"]
 
@@ -107,10 +107,7 @@ def check_connector(
             moment, moments without a listed moment, or a case no combination uses (named by
             the combination set).
     """
-    if not reactions:
-        raise InputError(
-            name="reactions", value=dict(reactions), expected="the reactions by load case"
-        )
+    at_least("reactions", reactions, what="reaction by load case")
     for case, R in reactions.items():
         require(R, "[force]", f"reactions[{case!r}]")
     moments = dict(moments or {})

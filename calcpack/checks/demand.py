@@ -13,7 +13,7 @@ from typing import Any
 
 from calcpack.errors import InputError
 from calcpack.units import Q_, Quantity
-from calcpack.validate import one_of
+from calcpack.validate import at_least, one_of
 
 __all__ = ["SegmentMoments", "as_combinations", "max_abs", "segment_moments"]
 
@@ -39,14 +39,7 @@ def as_combinations(
             )
         return dict(demand.results)
     if isinstance(demand, Mapping):
-        if not demand:
-            raise InputError(
-                f"{name} has no combinations (got an empty mapping)",
-                name=name,
-                value={},
-                expected="combination name -> result",
-            )
-        return dict(demand)
+        return dict(at_least(name, demand, what="combination (name -> result)"))
     if hasattr(demand, "moment") and hasattr(demand, "shear"):
         return {getattr(demand, "label", "result"): demand}
     if hasattr(demand, "truss") and hasattr(demand, "displacements"):

@@ -51,7 +51,8 @@ def split_number(value: float, sig: int = 3) -> NumberText:
         text = f"{rounded:.{decimals}f}"
         return NumberText(text, 0)
     eng = 3 * math.floor(exp / 3)
-    mant = rounded / 10.0**eng
+    # from the digits, not rounded / 10**eng: that power underflows to 0 below 1e-308
+    mant = float(f"{digits}e{exp - eng}")
     decimals = max(sig - 1 - (exp - eng), 0)
     text = f"{mant:.{decimals}f}"
     if float(text) >= 1000:  # rounding carried into the next group

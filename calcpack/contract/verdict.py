@@ -13,7 +13,18 @@ from collections.abc import Mapping
 from enum import StrEnum
 from typing import Any
 
-__all__ = ["PASS_TOLERANCE", "Verdict", "check_sort_key", "is_classification", "passes"]
+from calcpack.contract.numbers import format_number
+
+__all__ = [
+    "PASS_TOLERANCE",
+    "Verdict",
+    "check_sort_key",
+    "is_classification",
+    "passes",
+    "ratio_text",
+    "verdict_statement",
+    "verdict_words",
+]
 
 #: Utilisations up to ``1 + PASS_TOLERANCE`` pass: a capacity computed to equal the demand
 #: (u = 1 in exact arithmetic) must not fail on the last bit of a float (common practice).
@@ -46,6 +57,38 @@ class Verdict(StrEnum):
             return cls(word)
         except ValueError:
             return None
+
+
+def ratio_text(utilisation: float | None, sig: int = 3) -> str:
+    """The utilisation against the limit in words a checker reads: ``"0.64 ≤ 1.00"``,
+    ``"1.12 > 1.00"`` (the relation by :func:`passes`); ``""`` when there is no number."""
+    if utilisation is None or not math.isfinite(utilisation):
+        return ""
+    relation = "≤" if passes(utilisation) else ">"
+    return f"{format_number(utilisation, sig)} {relation} {format_number(1.0, sig)}"
+
+
+def verdict_words(verdict: Any, ref: str | None = None) -> str:
+    """A verdict written as words with the clause it answers to: ``"satisfies §F2"``, ``"DOES
+    NOT SATISFY §F2"``, ``"NOT COVERED"``; without a clause ``"satisfied"`` / ``"NOT
+    SATISFIED"``. A failure is written in capitals, so it reads without colour."""
+    clause = (ref or "").strip()
+    word = Verdict.parse(verdict)
+    if word == Verdict.OK:
+        return f"satisfies {clause}" if clause else "satisfied"
+    if word == Verdict.NOT_OK:
+        return f"DOES NOT SATISFY {clause}" if clause else "NOT SATISFIED"
+    return "NOT COVERED"
+
+
+def verdict_statement(
+    utilisation: float | None, verdict: Any, ref: str | None = None, sig: int = 3
+) -> str:
+    """The verdict as one line: ``"0.64 ≤ 1.00, satisfies §F2"``, ``"1.12 > 1.00, DOES NOT
+    SATISFY §F2"``; a check with no number says ``"NOT COVERED"`` only."""
+    ratio = ratio_text(utilisation, sig) if Verdict.parse(verdict) != Verdict.NOT_COVERED else ""
+    words = verdict_words(verdict, ref)
+    return f"{ratio}, {words}" if ratio else words
 
 
 def check_sort_key(check: Mapping[str, Any]) -> tuple[int, float]:

@@ -148,6 +148,7 @@ class BeamMemberCase:
                     dm.strength, Fy=v["Fy"], method=dm.method, braces=dm.braces,
                     continuous_bracing=dm.continuous_bracing, deflections=dm.deflections,
                     family=shape.type, E=v["E"], member=self.mark,  # type: ignore[arg-type]
+                    material=v["grade"], shapes=[shape.designation] if single else None,
                 )  # fmt: skip
         if self.material == "sawn":
             size = self.section
@@ -201,7 +202,8 @@ def _steel(t: Mapping[str, Any], name: str, path: Path | str | None) -> dict[str
                 value=got,
                 expected=f"{want:~P}",
             )
-    return {"shape": shape, "Fy": Fy, "E": E, "section": shape.designation}
+    grade = require_input(t.get("grade", ""), "text", f"{name}.grade", path=path)
+    return {"shape": shape, "Fy": Fy, "E": E, "section": shape.designation, "grade": grade}
 
 
 def beam_member_inputs(

@@ -190,6 +190,20 @@ class SiteLoads:
         return self
 
 
+def _roof(
+    roof: Mapping[str, Any], shapes: tuple[str, ...], path: Any
+) -> tuple[Any, Quantity, Quantity, Quantity, Quantity]:
+    """The ``[roof]`` table's shape (one of ``shapes``, the standard's roof forms), slope,
+    width, length and height (lengths positive)."""
+    shape = _get(roof, "roof", "shape", Spec("text", choices=shapes), path)
+    slope = _get(roof, "roof", "slope", "[]", path)
+    width, length, height = (
+        _get(roof, "roof", key, Spec("[length]", positive=True), path)
+        for key in ("width", "length", "height")
+    )
+    return shape, slope, width, length, height
+
+
 def _asce(
     data: Mapping[str, Any], roof: Mapping[str, Any], path: Any
 ) -> tuple[list[Derivation], list[RoofProfile]]:
@@ -197,11 +211,7 @@ def _asce(
     from calcpack.loads.wind_asce7 import WindSiteASCE7
     from calcpack.loads.wind_asce7_lowrise import LowRiseBuildingASCE7, envelope_wind_asce7
 
-    shape = _get(roof, "roof", "shape", Spec("text", choices=("gable", "hip", "monoslope")), path)
-    slope = _get(roof, "roof", "slope", "[]", path)
-    width = _get(roof, "roof", "width", Spec("[length]", positive=True), path)
-    length = _get(roof, "roof", "length", Spec("[length]", positive=True), path)
-    height = _get(roof, "roof", "height", Spec("[length]", positive=True), path)
+    shape, slope, width, length, height = _roof(roof, ("gable", "hip", "monoslope"), path)
     sn, wi = data.get("snow", {}), data.get("wind", {})
     derivs: list[Derivation] = []
     profiles: list[RoofProfile] = []
@@ -250,11 +260,7 @@ def _en(
     from calcpack.loads.wind_en1991 import WindSiteEN
     from calcpack.loads.wind_en1991_cpe import BuildingEN, wind_pressures_en
 
-    shape = _get(roof, "roof", "shape", Spec("text", choices=("duopitch", "monopitch")), path)
-    slope = _get(roof, "roof", "slope", "[]", path)
-    width = _get(roof, "roof", "width", Spec("[length]", positive=True), path)
-    length = _get(roof, "roof", "length", Spec("[length]", positive=True), path)
-    height = _get(roof, "roof", "height", Spec("[length]", positive=True), path)
+    shape, slope, width, length, height = _roof(roof, ("duopitch", "monopitch"), path)
     sn, wi = data.get("snow", {}), data.get("wind", {})
     derivs: list[Derivation] = []
     profiles: list[RoofProfile] = []

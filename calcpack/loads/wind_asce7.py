@@ -242,6 +242,10 @@ def internal_pressure_coefficient(enclosure: str) -> float:
 # Heights of Table 26.10-1 (ft): the stations of a windward wall's q_z profile
 _TABLE_HEIGHTS_FT = (15, 20, 25, 30, 40, 50, 60, 70, 80, 90, 100, 120, 140, 160, 180, 200, 250,
                      300, 350, 400, 450, 500)  # fmt: skip
+# metric stations near those heights (m); the first (5 m) lies above 15 ft, so the bottom band
+# takes a q_z at least that of Table 26.10-1's first row (conservative)
+_METRIC_HEIGHTS_M = (5, 6, 7.5, 9, 12, 15, 18, 21, 24, 27, 30, 36, 42, 48, 54, 60, 75, 90, 105,
+                     120, 135, 150)  # fmt: skip
 
 
 def profile_heights(
@@ -251,12 +255,15 @@ def profile_heights(
 
     Args:
         h: mean roof height [length]. levels: heights to use instead of the heights of
-            Table 26.10-1 (15, 20, 25, 30, 40 ... ft) below h.
+            Table 26.10-1 (15, 20, 25, 30, 40 ... ft) below h (in metres for an SI h: 5, 6,
+            7.5, 9, 12 ... m).
     """
     dimension("h", h, "[length]")
     positive("h", h)
     if levels is None:
-        tops = [Q_(float(z), "ft").to(h.units) for z in _TABLE_HEIGHTS_FT if Q_(z, "ft") < h]
+        us = is_us_customary(h)
+        table, unit = (_TABLE_HEIGHTS_FT, "ft") if us else (_METRIC_HEIGHTS_M, "m")
+        tops = [Q_(float(z), unit).to(h.units) for z in table if Q_(z, unit) < h]
     else:
         tops = []
         for i, z in enumerate(levels):

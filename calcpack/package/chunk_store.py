@@ -58,8 +58,13 @@ class ChunkStore:
             meta = json.loads(raw)
             sections = {k: (int(a), int(b)) for k, (a, b) in meta["sections"].items()}
             links = tuple(
-                Link(int(page), (float(x1), float(y1), float(x2), float(y2)), str(target))
-                for page, (x1, y1, x2, y2), target in meta["links"]
+                Link(
+                    int(page),
+                    (float(x1), float(y1), float(x2), float(y2)),
+                    str(target),
+                    int(element[0]) if element else -1,
+                )
+                for page, (x1, y1, x2, y2), target, *element in meta["links"]
             )
             anchors = {str(k): int(v) for k, v in meta["anchors"].items()}
             chunk = Chunk(sections, int(meta["page_count"]), links, pdf, True, anchors)
@@ -78,7 +83,9 @@ class ChunkStore:
         meta = {
             "sections": {k: list(v) for k, v in chunk.sections.items()},
             "page_count": chunk.page_count,
-            "links": [[link.page, list(link.rect), link.target] for link in chunk.links],
+            "links": [
+                [link.page, list(link.rect), link.target, link.element] for link in chunk.links
+            ],
             "anchors": chunk.anchors,
         }
         write_entry(self.folder / f"{key}.pdf", f"{key}.pdf", chunk.pdf)

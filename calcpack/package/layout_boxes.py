@@ -44,6 +44,9 @@ class Link:
     rect: tuple[float, float, float, float]
     """x1, y1, x2, y2 in PDF points, origin bottom left."""
     target: str
+    element: int = -1
+    """The link's HTML element among this page's links to other chunks, in order (the boxes
+    of one ``<a>`` -- its words, a leader, a page number -- are one element); -1 unknown."""
 
 
 @dataclass(frozen=True)
@@ -144,10 +147,12 @@ def foreign_links(document: Any) -> list[Link]:
     here = {name for page in document.pages for name in page.anchors}
     links = []
     for index, page in enumerate(document.pages):
-        for kind, target, rect, _box in page.links:
+        elements: dict[int, int] = {}
+        for kind, target, rect, box in page.links:
             if kind == "internal" and target not in here:
                 x1, y1, x2, y2 = rect
-                links.append(Link(index, _pt_box(page, x1, y1, x2, y2), target))
+                element = elements.setdefault(id(box.element), len(elements))
+                links.append(Link(index, _pt_box(page, x1, y1, x2, y2), target, element))
     return links
 
 

@@ -56,11 +56,12 @@ MATH_SPAN_RE = re.compile(
 )
 """A math span as emitted by calcpack.working (TeX HTML-escaped, inside \\[..\\] or \\(..\\))."""
 
-MATH_MAX_WIDTH_PX = 412.0
+MATH_MAX_WIDTH_PX = 372.0
 """Widest a formula may be, in CSS px: the working column of a step on A4, the narrower paper
-(210 mm less 33 mm of margins, the 31 mm description and 29 mm reference columns and two 3 mm
-gaps: 111 mm = 419.5 px), less a little for rounding. Wider display math is broken over lines,
-and what still does not fit is scaled down."""
+(210 mm less 33 mm of page margins, the calc pad's 19 mm reference margin, 25 mm description
+and 26 mm output margin, and three 2.2 mm gaps: 100.4 mm = 379 px; assets/calcpack.css), less
+a little for rounding. Wider display math is broken over lines, and what still does not fit
+is scaled down."""
 
 
 _ACCENT_SCRIPT_RE = re.compile(

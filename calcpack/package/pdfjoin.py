@@ -56,8 +56,9 @@ def join_chunks(first: bytes, rest: Sequence[bytes], links: Sequence[Link]) -> b
         writer.append(reader, import_outline=True)
         if tagged:
             _graft_structure(writer, reader, start, prefix=f"c{n}-")
-    for link in links:
-        _add_link(writer, link)
+    added = [(link, _add_link(writer, link)) for link in links]
+    if tagged and added:
+        _tag_links(writer, added)
     out = io.BytesIO()
     writer.write(out)
     return out.getvalue()
@@ -95,7 +96,8 @@ def _share_streams_in_arrays(reader: Any) -> None:
         visit(reader.get_object(number))
 
 
-def _add_link(writer: Any, link: Link) -> None:
+def _add_link(writer: Any, link: Link) -> Any:
+    """Add a link annotation to a named destination; returns its reference."""
     from pypdf.generic import (
         ArrayObject,
         DictionaryObject,
@@ -119,7 +121,104 @@ def _add_link(writer: Any, link: Link) -> None:
     page = writer.pages[link.page]
     if "/Annots" not in page:
         page[NameObject("/Annots")] = ArrayObject()
-    page["/Annots"].get_object().append(writer._add_object(annotation))
+    reference = writer._add_object(annotation)
+    page["/Annots"].get_object().append(reference)
+    return reference
+
+
+def _untagged_links(tree: Any, page_numbers: dict[int, int]) -> dict[int, list[Any]]:
+    """The tree's ``Link`` elements that no annotation belongs to yet (WeasyPrint tags the
+    words of a link whose target was in another chunk, without its annotation), by page, in
+    reading order."""
+    from pypdf.generic import ArrayObject, DictionaryObject, IndirectObject
+
+    found: dict[int, list[Any]] = {}
+    seen: set[int] = set()
+    stack = [tree["/K"]]
+    while stack:
+        node = stack.pop()
+        if isinstance(node, IndirectObject):
+            if node.idnum in seen:
+                continue
+            seen.add(node.idnum)
+        obj = node.get_object()
+        if isinstance(obj, ArrayObject):
+            stack.extend(reversed(list(obj)))
+            continue
+        if not isinstance(obj, DictionaryObject) or "/S" not in obj:
+            continue
+        kids = obj.get("/K")
+        kid_list = list(kids) if isinstance(kids, ArrayObject) else [kids] if kids else []
+        if obj["/S"] == "/Link":
+            has_annotation = any(
+                isinstance(k.get_object(), DictionaryObject)
+                and k.get_object().get("/Type") == "/OBJR"
+                for k in kid_list
+                if isinstance(k, IndirectObject | DictionaryObject)
+            )
+            page = obj.get("/Pg")
+            if not has_annotation and isinstance(page, IndirectObject):
+                number = page_numbers.get(page.idnum)
+                if number is not None:
+                    found.setdefault(number, []).append(obj)
+            continue
+        stack.extend(reversed(kid_list))
+    return found
+
+
+def _tag_links(writer: Any, added: Sequence[tuple[Link, Any]]) -> None:
+    """Give each link added after the join its place in the structure tree: the ``Link``
+    element holding its words (the page's untagged ``Link`` elements in reading order, one per
+    ``<a>``: ``Link.element``), with an object reference to each of its annotations and a
+    parent-tree entry; a link whose words cannot be matched gets a ``Link`` element of its own
+    under the ``Document`` element."""
+    from pypdf.generic import ArrayObject, DictionaryObject, NameObject, NumberObject
+
+    tree = writer.root_object["/StructTreeRoot"].get_object()
+    document = _document(tree)
+    page_numbers = {p.indirect_reference.idnum: i for i, p in enumerate(writer.pages)}
+    waiting = _untagged_links(tree, page_numbers)
+    nums = _flat_parent_tree(tree)
+    next_key = max(
+        [
+            int(tree.get("/ParentTreeNextKey", 0)),
+            *(k + 1 for k, _ in _number_tree(tree["/ParentTree"])),
+        ]
+    )
+    taken: dict[tuple[int, int], Any] = {}
+    for link, annotation in added:
+        page = writer.pages[link.page].indirect_reference
+        candidates = waiting.get(link.page, [])
+        key = (link.page, link.element)
+        if link.element >= 0 and key in taken:  # another box of the same <a>
+            element = taken[key]
+        elif link.element >= 0 and link.element < len(candidates):
+            element = taken[key] = candidates[link.element]
+        else:
+            element = DictionaryObject(
+                {
+                    NameObject("/Type"): NameObject("/StructElem"),
+                    NameObject("/S"): NameObject("/Link"),
+                    NameObject("/P"): document,
+                    NameObject("/Pg"): page,
+                    NameObject("/K"): ArrayObject(),
+                }
+            )
+            document.get_object()["/K"].append(writer._add_object(element))
+        if not isinstance(element.get("/K"), ArrayObject):
+            element[NameObject("/K")] = ArrayObject([element["/K"]] if "/K" in element else [])
+        objr = DictionaryObject(
+            {
+                NameObject("/Type"): NameObject("/OBJR"),
+                NameObject("/Obj"): annotation,
+                NameObject("/Pg"): page,
+            }
+        )
+        element["/K"].append(writer._add_object(objr))
+        annotation.get_object()[NameObject("/StructParent")] = NumberObject(next_key)
+        nums.extend([NumberObject(next_key), element.indirect_reference])
+        next_key += 1
+    tree[NameObject("/ParentTreeNextKey")] = NumberObject(next_key)
 
 
 # --------------------------------------------------------------------------- structure
@@ -228,6 +327,29 @@ class _Copier:
         return obj.clone(self.writer)
 
 
+def _document(tree: Any) -> Any:
+    """The one ``Document`` element under a structure tree root (its reference)."""
+    from pypdf.generic import ArrayObject
+
+    kids = tree["/K"]
+    (document,) = list(kids) if isinstance(kids, ArrayObject) else [kids]
+    return document
+
+
+def _flat_parent_tree(tree: Any) -> Any:
+    """The parent tree's ``/Nums`` array, a tree with ``/Kids`` first flattened into one leaf."""
+    from pypdf.generic import ArrayObject, NameObject, NumberObject
+
+    leaf = tree["/ParentTree"].get_object()
+    if "/Nums" not in leaf:
+        entries = list(_number_tree(leaf))
+        leaf[NameObject("/Nums")] = ArrayObject()
+        for key, value in entries:
+            leaf["/Nums"].extend([NumberObject(key), value])
+        del leaf["/Kids"]
+    return leaf["/Nums"].get_object()
+
+
 def _graft_structure(writer: Any, reader: Any, start: int, *, prefix: str) -> None:
     """Copy ``reader``'s structure tree under the writer's ``Document`` element; its pages
     were appended to the writer from page ``start`` on."""
@@ -241,7 +363,7 @@ def _graft_structure(writer: Any, reader: Any, start: int, *, prefix: str) -> No
             "delete PROJECT/.calcpack-cache/layout and build again"
         )
     theirs = theirs.get_object()
-    (document,) = list(tree["/K"]) if isinstance(tree["/K"], ArrayObject) else [tree["/K"]]
+    document = _document(tree)
     their_kids = theirs["/K"]
     (their_document,) = list(their_kids) if isinstance(their_kids, ArrayObject) else [their_kids]
 
@@ -253,12 +375,15 @@ def _graft_structure(writer: Any, reader: Any, start: int, *, prefix: str) -> No
         page = writer.pages[start + i]
         copier.done[their_page.indirect_reference.idnum] = page.indirect_reference
         pairs.append((their_page, page))
-        ours = {_annotation_key(a.get_object()): a for a in page.get("/Annots", ()) or ()}
+        # Matched in order: two boxes of one link may share a rectangle.
+        ours: dict[tuple[str, tuple[float, ...]], list[Any]] = {}
+        for a in page.get("/Annots", ()) or ():
+            ours.setdefault(_annotation_key(a.get_object()), []).append(a)
         for annotation in their_page.get("/Annots", ()) or ():
             copier.annotations.add(annotation.idnum)
-            match = ours.get(_annotation_key(annotation.get_object()))
-            if match is not None:
-                copier.done[annotation.idnum] = match
+            same = ours.get(_annotation_key(annotation.get_object()))
+            if same:
+                copier.done[annotation.idnum] = same.pop(0)
 
     nums = tree["/ParentTree"].get_object()
     entries = list(_number_tree(nums))
@@ -287,14 +412,7 @@ def _graft_structure(writer: Any, reader: Any, start: int, *, prefix: str) -> No
             if copied is not None and old is not None:
                 copied.get_object()[NameObject("/StructParent")] = NumberObject(keys[int(old)])
 
-    leaf = nums if "/Nums" in nums else None
-    if leaf is None:  # a tree with /Kids: flatten it into one leaf
-        leaf = nums
-        leaf[NameObject("/Nums")] = ArrayObject()
-        for key, value in entries:
-            leaf["/Nums"].extend([NumberObject(key), value])
-        del leaf["/Kids"]
-    array = leaf["/Nums"].get_object()
+    array = _flat_parent_tree(tree)
     for key, value in _number_tree(theirs["/ParentTree"]):
         if isinstance(value, ArrayObject) or not copier.dropped(value):
             array.extend([NumberObject(keys[key]), copier.value(value)])
@@ -306,11 +424,13 @@ def _graft_structure(writer: Any, reader: Any, start: int, *, prefix: str) -> No
 
 def structure_summary(pdf: bytes) -> dict[str, Any]:
     """What a tagged PDF's structure tree holds, for tests and checks: the count of each
-    structure type, the alternative texts of figures, and whether every marked-content id on
-    every page is reachable from the parent tree.
+    structure type, the alternative texts of figures, the heading levels in reading order,
+    whether every marked-content id on every page is reachable from the parent tree, and the
+    link annotations that no ``Link`` element of the tree holds.
 
     Returns:
-        ``{"types": {"/H1": n, ...}, "figures": [alt or None, ...], "pages_mapped": bool}``.
+        ``{"types": {"/H1": n, ...}, "figures": [alt or None, ...], "headings": [1, 2, ...],
+        "pages_mapped": bool, "untagged_links": n}``.
     """
     from pypdf import PdfReader
     from pypdf.generic import ArrayObject, DictionaryObject, IndirectObject
@@ -318,35 +438,64 @@ def structure_summary(pdf: bytes) -> dict[str, Any]:
     reader = PdfReader(io.BytesIO(pdf))
     root = reader.root_object.get("/StructTreeRoot")
     if root is None:
-        return {"types": {}, "figures": [], "pages_mapped": False}
+        return {
+            "types": {},
+            "figures": [],
+            "headings": [],
+            "pages_mapped": False,
+            "untagged_links": sum(1 for _ in _link_annotations(reader)),
+        }
     types: dict[str, int] = {}
     figures: list[str | None] = []
+    headings: list[int] = []
+    held: set[int] = set()
     seen: set[int] = set()
-
-    def walk(node: Any) -> None:
+    stack: list[Any] = [root["/K"]]
+    while stack:
+        node = stack.pop()
         if isinstance(node, IndirectObject):
             if node.idnum in seen:
-                return
+                continue
             seen.add(node.idnum)
         obj = node.get_object()
         if isinstance(obj, ArrayObject):
-            for kid in obj:
-                walk(kid)
-            return
-        if not isinstance(obj, DictionaryObject) or "/S" not in obj:
-            return
+            stack.extend(reversed(list(obj)))
+            continue
+        if not isinstance(obj, DictionaryObject):
+            continue
+        target = obj.get("/Obj")  # .get keeps the reference ([] would resolve it)
+        if obj.get("/Type") == "/OBJR" and isinstance(target, IndirectObject):
+            held.add(target.idnum)
+            continue
+        if "/S" not in obj:
+            continue
         kind = str(obj["/S"])
         types[kind] = types.get(kind, 0) + 1
+        if kind in ("/H1", "/H2", "/H3", "/H4", "/H5", "/H6"):
+            headings.append(int(kind[2]))
         if kind == "/Figure":
             alt = obj.get("/Alt")
             figures.append(str(alt) if alt is not None else None)
         kids = obj.get("/K")
         if kids is not None:
-            walk(kids)
-
-    walk(root["/K"])
+            stack.append(kids)
     parents = dict(_number_tree(root["/ParentTree"]))
     mapped = all(
         "/StructParents" in page and int(page["/StructParents"]) in parents for page in reader.pages
     )
-    return {"types": types, "figures": figures, "pages_mapped": mapped}
+    untagged = sum(1 for a in _link_annotations(reader) if a.idnum not in held)
+    return {
+        "types": types,
+        "figures": figures,
+        "headings": headings,
+        "pages_mapped": mapped,
+        "untagged_links": untagged,
+    }
+
+
+def _link_annotations(reader: Any) -> Iterator[Any]:
+    """The references of every link annotation of every page."""
+    for page in reader.pages:
+        for annotation in page.get("/Annots", ()) or ():
+            if annotation.get_object().get("/Subtype") == "/Link":
+                yield annotation

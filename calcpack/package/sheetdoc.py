@@ -25,6 +25,7 @@ from calcpack.package.records import collect_records
 __all__ = [
     "anchor_checks",
     "count_sheet_pages",
+    "nest_headings",
     "prepare_sheet",
     "project_from_metadata",
     "sheet_title",
@@ -64,6 +65,31 @@ def _drop_title_heading(body: str, title: str) -> str:
     return body
 
 
+_HEADING_TAG_RE = re.compile(r"<(/?)h([1-6])\b")
+
+
+def nest_headings(body: str) -> str:
+    """Number a sheet body's headings so that they nest under the sheet's own H1 without
+    skipping a level: the first is an H2, and each is at most one level below the one before
+    (a markdown ``#`` in a sheet, a ``Heading`` step, a block's title all take their place in
+    one outline). The tag tree and the bookmarks read the same levels."""
+    out: list[str] = []
+    last = 1
+    pos = 0
+    open_level = 0
+    for m in _HEADING_TAG_RE.finditer(body):
+        out.append(body[pos : m.start()])
+        pos = m.end()
+        if m.group(1):  # a closing tag closes the heading last opened
+            out.append(f"</h{open_level or m.group(2)}")
+            continue
+        open_level = max(2, min(int(m.group(2)), last + 1))
+        last = open_level
+        out.append(f"<h{open_level}")
+    out.append(body[pos:])
+    return "".join(out)
+
+
 def prepare_sheet(
     entry: SheetEntry,
     executed: ExecutedSheet | Any,
@@ -92,6 +118,7 @@ def prepare_sheet(
     title = sheet_title(entry, nb)
     try:
         body = _drop_title_heading(_JUPYTER_STYLE_RE.sub("", sheet_fragment(nb)), title)
+        body = nest_headings(body)
         body = math_spans_to_images(body, math)
     except BuildError as exc:
         raise BuildError(f"Sheet {entry.path!r}: {exc}") from exc
@@ -109,7 +136,7 @@ def prepare_sheet(
     return SheetDoc(entry, title, body, records, cells, anchors)
 
 
-_CHECK_DIV_RE = re.compile(r'<div class="cp-step cp-check"')
+_CHECK_DIV_RE = re.compile(r'<div class="cp-step cp-check(?: [^"]*)?"')
 
 
 def anchor_checks(body: str, path: str, count: int) -> tuple[str, tuple[str, ...]]:

@@ -12,7 +12,7 @@ from html import escape
 from typing import TYPE_CHECKING, Any
 
 from calcpack.checks.checklists import ItemStatus, resolve_checklists
-from calcpack.contract.verdict import Verdict, check_sort_key, is_classification
+from calcpack.contract.verdict import Verdict, check_sort_key, is_classification, verdict_words
 
 if TYPE_CHECKING:
     from calcpack.package.document import SheetDoc
@@ -94,8 +94,10 @@ def counts_line(counts: dict[str, int]) -> str:
 
 
 def _verdict(verdict: str) -> str:
+    """The verdict in words (the clause is in its own column): "satisfied", "NOT SATISFIED",
+    "NOT COVERED" -- written, not coloured."""
     cls = {"OK": "ok", "NOT OK": "notok"}.get(str(Verdict.parse(verdict)), "nc")
-    return f'<span class="cpd-verdict {cls}">{_e(verdict)}</span>'
+    return f'<span class="cpd-verdict {cls}">{_e(verdict_words(verdict))}</span>'
 
 
 def _checklists_html(statuses: Sequence[ItemStatus]) -> str:

@@ -10,7 +10,7 @@ from __future__ import annotations
 from typing import Any
 
 from calcpack.plots.drawing import Drawing
-from calcpack.plots.labels import quantity_label
+from calcpack.plots.labels import number_label, quantity_label
 
 __all__ = ["WindZonePlan"]
 
@@ -32,7 +32,7 @@ class WindZonePlan(Drawing):
 
     def _label(self, zone: str) -> str:
         p = self.result.pressures.get((self.case, zone, "+GCpi"))
-        return zone if p is None else f"{zone}\n{p.magnitude:+.3g}"
+        return zone if p is None else f"{zone}\n{number_label(p.magnitude, signed=True)}"
 
     def figure(self) -> Any:
         """The plan as a matplotlib Figure (Agg canvas)."""

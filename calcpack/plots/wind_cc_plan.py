@@ -5,10 +5,9 @@ with the zone and its net suction at the effective wind area.
 
 from __future__ import annotations
 
-import io
 from typing import Any
 
-from calcpack.plots.labels import number_label, quantity_label
+from calcpack.plots.labels import number_label, quantity_label, svg_text
 
 __all__ = ["cc_plan_figure", "cc_plan_svg"]
 
@@ -75,6 +74,4 @@ def cc_plan_figure(result: Any, width_in: float = 6.0) -> Any:
 def cc_plan_svg(result: Any, settings: Any = None, **options: Any) -> str:
     """Drawing ``"wind-cc-plan"``: the C&C zone plan of a sloped roof, as SVG."""
     del settings
-    buf = io.StringIO()
-    cc_plan_figure(result, **options).savefig(buf, format="svg", bbox_inches="tight")
-    return buf.getvalue()
+    return svg_text(cc_plan_figure(result, **options))

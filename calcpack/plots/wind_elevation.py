@@ -5,11 +5,10 @@ height, the leeward wall's uniform suction, each labelled with its pressure (wit
 
 from __future__ import annotations
 
-import io
 import math
 from typing import Any
 
-from calcpack.plots.labels import number_label, quantity_label
+from calcpack.plots.labels import number_label, quantity_label, svg_text
 
 __all__ = ["elevation_figure", "elevation_svg"]
 
@@ -63,7 +62,14 @@ def elevation_figure(result: Any, width_in: float = 6.0) -> Any:
         ax.add_patch(
             Rectangle((-w, z0), w, z1 - z0, facecolor="#fdae6b", edgecolor="#a63603", lw=0.6)
         )
-        ax.text(-w - 0.02 * span, (z0 + z1) / 2, f"{p:+.3g}", ha="right", va="center", fontsize=6)
+        ax.text(
+            -w - 0.02 * span,
+            (z0 + z1) / 2,
+            number_label(p, signed=True),
+            ha="right",
+            va="center",
+            fontsize=6,
+        )
     pl = float(leeward.to(unit).magnitude)
     wl = abs(pl) * k
     ax.add_patch(
@@ -96,6 +102,4 @@ def elevation_figure(result: Any, width_in: float = 6.0) -> Any:
 def elevation_svg(result: Any, settings: Any = None, **options: Any) -> str:
     """Drawing ``"wind-elevation"``: the elevation of a directional wind result, as SVG."""
     del settings
-    buf = io.StringIO()
-    elevation_figure(result, **options).savefig(buf, format="svg", bbox_inches="tight")
-    return buf.getvalue()
+    return svg_text(elevation_figure(result, **options))

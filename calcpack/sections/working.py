@@ -361,28 +361,32 @@ def _other_steps(props: SectionProperties, keys: frozenset[str], sysname: str) -
                 "(one yield stress needed)."
             )
         )
-    if "Z_x" in keys and props.Zx_value is not None and props.y_pna_value is not None:
+    plastic = (
+        ("Z_x", props.Zx_value, "x", "y", props.y_pna_value, "above and below"),
+        ("Z_y", props.Zy_value, "y", "x", props.x_pna_value, "left and right"),
+    )
+    for key, Z, axis, across, pna, halves in plastic:
+        if key not in keys or Z is None or pna is None:
+            continue
+        first, second = halves.split(" and ")
         steps.append(
             Derived(
-                "y_p", props.y_pna_value, "plastic neutral axis: equal area above and below",
-                unit=u1, ref="A_above = A_below = A/2",
+                f"{across}_p",
+                pna,
+                f"plastic neutral axis: equal area {halves}",
+                unit=u1,
+                ref=f"A_{first} = A_{second} = A/2",
             )
-        )  # fmt: skip
-        steps.append(
-            Derived("Z_x", props.Zx_value, "plastic modulus about x", unit=u3,
-                    ref="Z = ∫|y − y_p| dA")
-        )  # fmt: skip
-    if "Z_y" in keys and props.Zy_value is not None and props.x_pna_value is not None:
+        )
         steps.append(
             Derived(
-                "x_p", props.x_pna_value, "plastic neutral axis: equal area left and right",
-                unit=u1, ref="A_left = A_right = A/2",
+                key,
+                Z,
+                f"plastic modulus about {axis}",
+                unit=u3,
+                ref=f"Z = ∫|{across} − {across}_p| dA",
             )
-        )  # fmt: skip
-        steps.append(
-            Derived("Z_y", props.Zy_value, "plastic modulus about y", unit=u3,
-                    ref="Z = ∫|x − x_p| dA")
-        )  # fmt: skip
+        )
     if "J" in keys and props.J_value is not None:
         steps.append(Derived("J", props.J_value, "torsion constant", unit=u4, ref=_j_ref(props)))
     if "C_w" in keys and props.Cw_value is not None:

@@ -181,11 +181,14 @@ def aisc_beam_space(
     nominal_depth: int | Sequence[int] | None = None,
     E: Quantity = E_STEEL,
     member: str = "B1",
+    material: str = "",
+    shapes: Sequence[str] | None = None,
 ) -> SearchSpace[SteelShape]:
     """The search space of :func:`lightest_aisc_beam` (same arguments): the shapes of
     ``family``, the plastic-moment screen and the trial (check_aisc_beam and the deflection
     limits scaled to the shape's I_x). ``space.check(aisc_shape("W10X12"))`` checks one shape
-    exactly as the search does."""
+    exactly as the search does. ``material`` names the steel on the sheet ("ASTM A992");
+    ``shapes`` limits the candidates to these designations (e.g. the one on a sheet)."""
     one_of("method", method, ("LRFD", "ASD"))
     one_of("family", family, I_FAMILIES)
     require(Fy, "[pressure]", "Fy", positive=True)
@@ -217,13 +220,18 @@ def aisc_beam_space(
                 demand=demand,
                 braces=braces,
                 continuous_bracing=continuous_bracing,
+                material=material,
             )
         ]
         factor = float((EI_ref / (E * shape["Ix"])).to("").magnitude)
         out += scaled_deflection_checks(deflections, factor, member)
         return out
 
-    cands = tuple(aisc_candidates(family, nominal_depth=nominal_depth))
+    if shapes is not None:
+        picked = [aisc_shape(n) for n in shapes]
+        cands = tuple(Candidate(s.designation, s["W"], s, _depth(s)) for s in picked)
+    else:
+        cands = tuple(aisc_candidates(family, nominal_depth=nominal_depth))
     return SearchSpace(cands, trial, screen)
 
 

@@ -24,7 +24,6 @@ from calcpack.inputs.file import Spec, require_input
 from calcpack.sizing import SizingResult
 from calcpack.sizing.search import Order, Trial
 from calcpack.units import Quantity
-from calcpack.widgets.fields import label
 
 __all__ = ["SearchControl", "sizing_table_html"]
 
@@ -119,6 +118,7 @@ class SearchControl:
             value="", placeholder="e.g. 12 in", layout=ipw.Layout(width="90px")
         )
         self.max_depth.add_class("cp-search-max-depth")
+        deepest = ipw.HTML("deepest", layout=ipw.Layout(margin="0 4px 0 8px"))
         self.pick = ipw.Dropdown(options=[], layout=ipw.Layout(width="190px"))
         self.pick.add_class("cp-search-pick")
         self.use_button = ipw.Button(description=f"Use this {what}", disabled=True)
@@ -129,7 +129,7 @@ class SearchControl:
         self.widget = ipw.VBox(
             [
                 ipw.HBox(
-                    [self.button, self.order, label("deepest"), self.max_depth],
+                    [self.button, self.order, deepest, self.max_depth],
                     layout=ipw.Layout(flex_flow="row wrap"),
                 ),
                 ipw.HBox([self.pick, self.use_button]),

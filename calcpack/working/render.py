@@ -15,6 +15,8 @@ import html
 import re
 from typing import Any
 
+from calcpack.contract.verdict import ratio_text, verdict_words
+from calcpack.units import ureg
 from calcpack.working.expr import Term
 from calcpack.working.expr_print import _GREEK_TEXT, symbol_latex, to_latex, to_text
 from calcpack.working.figure import Figure
@@ -44,13 +46,17 @@ from calcpack.working.steps import (
 __all__ = ["STYLE", "mimebundle", "step_html", "step_latex", "step_text"]
 
 STYLE = """<style class="cp-style">
-.cp-step{display:grid;grid-template-columns:minmax(8em,22%) 1fr minmax(6em,18%);gap:0 1em;
-align-items:baseline;padding:.15em 0;border-bottom:1px dotted #c8ccd2;font-size:0.95em}
+.cp-row{display:grid;gap:0 .8em;
+grid-template-columns:minmax(6em,13%) minmax(8em,19%) minmax(0,1fr) minmax(8em,17%);
+align-items:baseline;font-size:0.95em}
+.cp-row>div{padding:.15em 0}
+.cp-row>.cp-ref{border-right:1px solid #b9c0c8;padding-right:.6em;align-self:stretch}
+.cp-row>.cp-out{border-left:1px solid #b9c0c8;padding-left:.6em;align-self:stretch}
+.cp-row>.cp-wide{grid-column:2/4}
 .cp-body mjx-container[display="true"]{text-align:left!important;margin:.2em 0!important}
-.cp-desc{color:#333}.cp-ref{color:#555;font-size:.85em;text-align:right}
-.cp-src{color:#666;font-size:.85em}.cp-note{color:#555;font-size:.85em;font-style:italic}
-.cp-verdict{font-weight:bold;padding:0 .4em;border:1.5px solid;border-radius:2px}
-.cp-ok{color:#1d5e2a}.cp-notok{color:#a01010}.cp-nc{color:#7a5a00}
+.cp-desc{color:#333}.cp-ref,.cp-src{color:#555;font-size:.85em}
+.cp-note{color:#555;font-size:.85em;font-style:italic}
+.cp-out{font-size:.9em}.cp-verdict{display:block}.cp-notok{font-weight:bold}
 .cp-heading{display:block;border-bottom:1.5px solid #333;margin-top:.6em}
 .cp-heading h2,.cp-heading h3,.cp-heading h4{margin:.2em 0}
 .cp-text,.cp-assume,.cp-caution,.cp-table,.cp-block,.cp-figure{display:block}
@@ -60,7 +66,7 @@ align-items:baseline;padding:.15em 0;border-bottom:1px dotted #c8ccd2;font-size:
 .cp-assume{border-left:4px solid #4a6a8a;padding-left:.6em}
 .cp-table table{border-collapse:collapse;margin:.3em 0}
 .cp-table th,.cp-table td{border:1px solid #aab;padding:.1em .5em;text-align:right}
-.cp-table th{background:#eef0f3}
+.cp-table th{background:#eef0f3}.cp-table .cp-out p{margin:0}
 </style>"""
 
 _WIDE = 60  # visible characters beyond which a derivation is broken over aligned lines
@@ -190,20 +196,31 @@ def _check_tex(step: Check) -> tuple[str, str]:
     return comparison, ratio
 
 
-def _verdict_html(verdict: str) -> str:
+def _verdict_html(verdict: str, utilisation: float | None, ref: str | None, sig: int) -> str:
+    """The verdict in words beside the utilisation (``0.64 ≤ 1.00, satisfies §F2``), for the
+    output margin: written, not coloured; a failure in capitals."""
     classes: dict[str, str] = {Verdict.OK: "cp-ok", Verdict.NOT_OK: "cp-notok"}
     cls = classes.get(verdict, "cp-nc")
-    return f'<span class="cp-verdict {cls}">{_esc(verdict)}</span>'
+    ratio = ratio_text(utilisation, sig) if verdict != Verdict.NOT_COVERED else ""
+    words = symbols_html(_esc(verdict_words(verdict, ref)))
+    lead = f'<span class="cp-ratio">{_esc(ratio)}</span>, ' if ratio else ""
+    return f'<span class="cp-verdict {cls}">{lead}<span class="cp-words">{words}</span></span>'
 
 
 # -- HTML ------------------------------------------------------------------------------------
+# A step is a row of the calc pad: the reference margin (clause, table, source), the
+# description and the working (the body), and the output margin (what leaves the sheet: a
+# check's verdict, an exported value).
 
 
-def _row(kind: str, desc: str, body: str, ref: str = "", name: str | None = None) -> str:
+def _row(
+    kind: str, desc: str, body: str, ref: str = "", name: str | None = None, out: str = ""
+) -> str:
     attr = f' data-name="{html.escape(name)}"' if name else ""
     return (
-        f'<div class="cp-step cp-{kind}"{attr}><div class="cp-desc">{desc}</div>'
-        f'<div class="cp-body">{body}</div><div class="cp-ref">{ref}</div></div>'
+        f'<div class="cp-step cp-{kind} cp-row"{attr}><div class="cp-ref">{ref}</div>'
+        f'<div class="cp-desc">{desc}</div><div class="cp-body">{body}</div>'
+        f'<div class="cp-out">{out}</div></div>'
     )
 
 
@@ -238,23 +255,22 @@ def _step_html_body(step: Step) -> str:
         return _row("equation", desc, body)
     if isinstance(step, Check):
         comparison, ratio = _check_tex(step)
-        body = (
-            _display_math(comparison)
-            + _display_math(ratio)
-            + f'<div class="cp-vline">{_verdict_html(step.verdict)}</div>'
-        )
+        body = _display_math(comparison) + _display_math(ratio)
         member = f"{_esc(step.member)}: " if step.member else ""
         combo = f'<div class="cp-note">{_esc(step.combination)}</div>' if step.combination else ""
         name = symbols_html(_esc(step.name))
         desc = f"<strong>{member}{name}</strong> {_prose_html(step.description)}"
-        return _row("check", desc, body + combo, symbols_html(_esc(step.ref or "")), step.name)
+        verdict = _verdict_html(step.verdict, step.utilisation, step.ref, step.sig)
+        return _row(
+            "check", desc, body + combo, symbols_html(_esc(step.ref or "")), step.name, verdict
+        )
     if isinstance(step, NotCovered):
-        body = f"{_verdict_html(step.verdict)} {_prose_html(step.reason)}"
         return _row(
             "check",
             f"<strong>{symbols_html(_esc(step.name))}</strong>",
-            body,
+            _prose_html(step.reason),
             symbols_html(_esc(step.ref or "")),
+            out=_verdict_html(step.verdict, None, step.ref, step.sig),
         )
     if isinstance(step, Heading):
         lvl = min(step.level + 1, 4)
@@ -281,10 +297,19 @@ def _step_html_body(step: Step) -> str:
             for r in step.rows
         )
         cap = f"<caption>{_prose_html(step.caption)}</caption>" if step.caption else ""
+        table = f"<table>{cap}<thead><tr>{head}</tr></thead><tbody>{body}</tbody></table>"
+        entries = getattr(step, "entries", None)
+        if entries is not None:
+            # values that leave the sheet: a row of the calc pad, listed in the output margin
+            return (
+                f'<div class="cp-step cp-table cp-row cp-exports"><div class="cp-ref">'
+                f'exported</div><div class="cp-body cp-wide">{table}</div>'
+                f'<div class="cp-out">{_exported_html(entries, step)}</div></div>'
+            )
         return (
-            f'<div class="cp-step cp-table"><table>{cap}<thead><tr>{head}</tr></thead>'
+            f'<div class="cp-step cp-table">{table}'
             # the end of a box that may run over a page (the PDF's "continued" mark stops)
-            f'<tbody>{body}</tbody></table><div class="cp-boxend"></div></div>'
+            '<div class="cp-boxend"></div></div>'
         )
     if isinstance(step, Figure):
         return _figure_html(step)
@@ -357,6 +382,22 @@ def _cite_html(c: Citation) -> str:
     value = f'<span class="cp-val">{nbsp}</span>'
     body = {"full": f"{sym} = {value}", "value": value, "symbol": sym}[c.form]
     return f'<span class="cp-cite">{body}</span>'
+
+
+_MARGIN_VALUES = 6  # exported values listed one a line in the output margin; more are counted
+
+
+def _exported_html(entries: list[dict[str, Any]], step: Table) -> str:
+    """The output margin of an exports table: each value that leaves the sheet, or how many."""
+    if len(entries) > _MARGIN_VALUES:
+        return f"<p>{len(entries)} values to other sheets</p>"
+    lines = []
+    for e in entries:
+        q = ureg.Quantity(e["value"], e["pint_unit"])
+        case = f" ({_esc(str(e['case']))})" if e.get("case") else ""
+        value = _esc(format_cell(q, step.sig, step.settings)).replace(" ", "\u00a0")
+        lines.append(f"<p>{_inline_math(e['symbol'])}{case} = {value}</p>")
+    return "".join(lines)
 
 
 def _figure_html(step: Figure) -> str:

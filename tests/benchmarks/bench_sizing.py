@@ -1,8 +1,8 @@
-"""Benchmark: rank the US W-shapes for a three-span continuous steel beam.
+"""Benchmark: rank the US W-shapes for a three-span continuous steel beam, and the timber sizes.
 
 Run: ``PYTHONPATH=. python tests/benchmarks/bench_sizing.py [--rounds R]``.
 Target: the search returns the five lightest passing W-shapes in under a second, so that it
-feels live in a notebook panel.
+feels live in a notebook panel; the timber searches likewise.
 
 What is timed:
 
@@ -12,9 +12,18 @@ What is timed:
 * reference, measured in the same run: the exhaustive way, every W-shape of the database checked
   in full (the same AISC 360-16 §F2/§G2 check and deflection check, no screen, no early stop).
 
+Then the timber searches, each against its own exhaustive reference in the same run (every
+candidate checked in full with the same trial, :meth:`calcpack.sizing.SearchSpace.check`):
+
+* sawn joist: :func:`calcpack.lightest_nds_beam`, Douglas Fir-Larch No.2, 14 ft simple span,
+  ASCE 7-16 allowable-stress combinations, live deflection span/360 (15 sizes 2x4 to 4x12);
+* glulam: :func:`calcpack.lightest_glulam_beam`, 24F-1.8E, 24 ft simple span (the stock widths
+  and depths);
+* post: :func:`calcpack.lightest_nds_post`, Table 4D P&T No.1 timbers, two force sets.
+
 Printed: the median over the rounds of each, the search's time per candidate tried, and the ratio
 reference / search (how much the ordering, screen and early stop save). The exit status is 1 if
-the search's best shape is not the lightest passing shape of the exhaustive run.
+a search's best is not the lightest passing candidate of its exhaustive run.
 """
 
 from __future__ import annotations
@@ -26,11 +35,21 @@ import time
 
 from calcpack.analysis.beam import Beam, Pin, Roller, solve_cases
 from calcpack.checks import check_aisc_beam, check_deflection
-from calcpack.combinations import analyse_combinations, asce7_strength
+from calcpack.checks.nds.members import TimberForces
+from calcpack.combinations import analyse_combinations, asce7_allowable_stress, asce7_strength
 from calcpack.errors import OutOfScopeError
 from calcpack.loads.types import UniformLoad
 from calcpack.sections.aisc_database import aisc_shape, aisc_shape_names
-from calcpack.sizing import DeflectionLimit, lightest_aisc_beam
+from calcpack.sizing import (
+    DeflectionLimit,
+    glulam_beam_space,
+    lightest_aisc_beam,
+    lightest_glulam_beam,
+    lightest_nds_beam,
+    lightest_nds_post,
+    nds_beam_space,
+    nds_post_space,
+)
 from calcpack.units import Q_
 
 FY = Q_(50, "ksi")
@@ -103,7 +122,77 @@ def main() -> int:
         f"ratio reference/search: {mr / ms:.1f}x; target: search under 1000 ms "
         f"({'met' if ms < 1.0 else 'NOT met'})"
     )
-    return 0 if best == lightest else 1
+    ok = best == lightest
+    for label, search, space in _timber_jobs():
+        ok = _timber(label, search, space, args.rounds) and ok
+    return 0 if ok else 1
+
+
+def _simple_asd(span_ft: float, wd: str, wl: str, EI):  # type: ignore[no-untyped-def]
+    L = Q_(span_ft, "ft")
+    beam = Beam(
+        length=L,
+        supports=[Pin(Q_(0, "ft"), name="A"), Roller(L, name="B")],
+        loads=[UniformLoad(w=Q_(wd), case="D"), UniformLoad(w=Q_(wl), case="L")],
+        EI=EI,
+        name="J1",
+    )
+    cases = solve_cases(beam)
+    asd = analyse_combinations(cases, asce7_allowable_stress())
+    return asd, [DeflectionLimit(cases["L"], L, 360)]
+
+
+def _timber_jobs():  # type: ignore[no-untyped-def]
+    """(label, search(), search space) of each timber search."""
+    joist, j_defl = _simple_asd(14, "40 lbf/ft", "120 lbf/ft", Q_(1.6e6, "psi") * Q_(100, "in**4"))
+    sawn = {"species": "Douglas Fir-Larch", "grade": "No.2", "deflections": j_defl}
+    girder, g_defl = _simple_asd(
+        24, "200 lbf/ft", "500 lbf/ft", Q_(1.8e6, "psi") * Q_(1e3, "in**4")
+    )
+    forces = [
+        TimberForces(P=Q_(14, "kip"), combination="D + L"),
+        TimberForces(P=Q_(16, "kip"), combination="D + 0.75L + 0.75S"),
+    ]
+    post = {
+        "species": "Douglas Fir-Larch", "grade": "P&T No.1", "table": "4D", "le": Q_(10, "ft"),
+        "durations": {"D + L": "ten years", "D + 0.75L + 0.75S": "two months"},
+    }  # fmt: skip
+    return [
+        ("sawn joist", lambda: lightest_nds_beam(joist, **sawn), nds_beam_space(joist, **sawn)),
+        (
+            "glulam beam",
+            lambda: lightest_glulam_beam(girder, deflections=g_defl),
+            glulam_beam_space(girder, deflections=g_defl),
+        ),
+        ("timber post", lambda: lightest_nds_post(forces, **post), nds_post_space(forces, **post)),
+    ]
+
+
+def _timber(label: str, search, space, rounds: int) -> bool:  # type: ignore[no-untyped-def]
+    search_t, ref_t = [], []
+    best, tried, lightest = "", 0, ""
+    for _ in range(rounds):
+        t0 = time.perf_counter()
+        found = search()
+        search_t.append(time.perf_counter() - t0)
+        best, tried = found.best.name, len(found.tried)
+        t0 = time.perf_counter()
+        passing = []
+        for c in space.candidates:
+            if all(mc.passed for mc in space.check(c.item)):
+                w = c.weight.to("lbf/ft").magnitude
+                passing.append((w, c.depth.to("inch").magnitude, c.name))
+        ref_t.append(time.perf_counter() - t0)
+        lightest = min(passing)[2]
+    ms, mr = statistics.median(search_t), statistics.median(ref_t)
+    n = len(space.candidates)
+    print(
+        f"{label:12s} search {ms * 1e3:7.1f} ms median, {tried} of {n} tried, "
+        f"{ms / tried * 1e3:.2f} ms per candidate, best {best}; reference (all {n} checked) "
+        f"{mr * 1e3:7.1f} ms, {mr / n * 1e3:.2f} ms per candidate, lightest {lightest}; "
+        f"ratio reference/search {mr / ms:.1f}x"
+    )
+    return best == lightest
 
 
 if __name__ == "__main__":

@@ -10,11 +10,20 @@ XObjects, so math and figures count). Two rules are measured:
   below it;
 - no blank more than a third of the body at the foot of a page, except on the last page of a
   section (a new sheet starts on a new page).
+
+:func:`package_problems` adds the names in the title block wrapped at word boundaries and the
+tag tree's outline (no skipped heading level, every link a Link element); every example
+package's build test asks it.
 """
 
 from __future__ import annotations
 
+import io
+import itertools
+import re
+import tomllib
 from dataclasses import dataclass
+from pathlib import Path
 from typing import Any
 
 from pdfgeometry import painted_boxes
@@ -112,3 +121,54 @@ def violations(reader: PdfReader, section_pages: dict[str, list[int]]) -> list[s
             share = body.blank_at_foot / body.height
             found.append(f"page {number}: {share:.0%} of the body blank at its foot")
     return found
+
+
+def names_split(reader: PdfReader, names: list[str], first: int = 2) -> list[str]:
+    """Names in the running title block wrap at word boundaries (spaces, hyphens): every word
+    of each name is found whole in the text of every page from ``first`` on (1-based)."""
+    words = {w for name in names for w in re.split(r"[\s-]+", name) if len(w) > 1}
+    found = []
+    for number in range(first, len(reader.pages) + 1):
+        text = reader.pages[number - 1].extract_text() or ""
+        text = re.sub(r"-\s*\n\s*", "-", text)  # a wrap after a hyphen keeps both halves
+        whole = set(re.findall(r"[^\s-]+", text))
+        found += [f"page {number}: name word {w!r} split" for w in sorted(words - whole)]
+    return found
+
+
+def outline_problems(pdf: bytes) -> list[str]:
+    """The tag tree's headings skip no level, and every link is held by a Link element."""
+    from calcpack.package.pdfjoin import structure_summary
+
+    summary = structure_summary(pdf)
+    levels = summary["headings"]
+    found = [
+        f"heading {i + 1}: H{b} after H{a}"
+        for i, (a, b) in enumerate(itertools.pairwise(levels), start=1)
+        if b > a + 1
+    ]
+    if not levels or levels[0] != 1:
+        found.append(f"the first heading is not an H1 ({levels[:1]})")
+    if summary["untagged_links"]:
+        found.append(f"{summary['untagged_links']} link(s) with no Link structure element")
+    return found
+
+
+def package_problems(pdf: Path, manifest: dict[str, Any], names: list[str]) -> list[str]:
+    """Every pagination and outline rule on a built package: no heading last on a page, no
+    blank over a third of a page but before a new section, names wrapped at word boundaries,
+    headings nested without a skipped level and every link tagged."""
+    data = pdf.read_bytes()
+    reader = PdfReader(io.BytesIO(data))
+    return (
+        violations(reader, manifest["sections"])
+        + names_split(reader, names)
+        + outline_problems(data)
+    )
+
+
+def titleblock_names(project: Path) -> list[str]:
+    """The names the running title block prints on every page: the project's preparer (BY)
+    and checker (CHECKED), from its calcpack.toml."""
+    data = tomllib.loads((project / "calcpack.toml").read_text("utf-8"))
+    return [data["people"][role]["name"] for role in ("preparer", "checker")]

@@ -192,7 +192,10 @@ def test_summary_lists_checks_worst_first(
     demo_texts: list[str], demo_manifest: dict[str, Any]
 ) -> None:
     text = demo_texts[demo_manifest["sections"]["summary"][0] - 1]
-    found = [float(u) for u in re.findall(r"(\d\.\d\d) (?:OK|NOT OK|NOT COVERED)\b", text)]
+    # each check's utilisation against 1.00 and its verdict in words
+    found = [
+        float(u) for u in re.findall(r"(\d\.\d+) [≤>] 1\.00 (?:satisfied|NOT SATISFIED)\b", text)
+    ]
     checks = [c for s in demo_manifest["sheets"] for c in s["checks"]]
     assert len(found) == len(checks)
     assert found == sorted(found, reverse=True)
@@ -260,12 +263,31 @@ def test_summary_page_numbers_are_the_checks_own_pages(
     assert len(seen) == checks  # every check of every sheet has its link
 
 
-def test_pagination_rules(demo_reader: PdfReader, demo_manifest: dict[str, Any]) -> None:
-    """No heading ends a page, and no page leaves more than a third of its body blank except
-    the last page of a section (measured on the PDF: tests/build/pagerules.py)."""
-    from pagerules import violations
+def test_tag_tree_outline_and_links(demo_pdf: Path, demo_manifest: dict[str, Any]) -> None:
+    """The structure tree reads as one outline -- an H1 per part and per sheet, its sections
+    H2, their sub-steps H3, never a level skipped -- and every link (contents, summary to a
+    check's page, an imported value to its sheet) is a Link element of the tree, including
+    those added when the chunks were joined (read with pypdf: pdfjoin.structure_summary)."""
+    from calcpack.package.pdfjoin import structure_summary
 
-    assert violations(demo_reader, demo_manifest["sections"]) == []
+    summary = structure_summary(demo_pdf.read_bytes())
+    levels = summary["headings"]
+    assert levels.count(1) >= len(demo_manifest["sheets"]) + 4  # sheets, front and back parts
+    assert {2, 3} <= set(levels)
+    assert levels[0] == 1
+    assert all(b <= a + 1 for a, b in itertools.pairwise(levels)), levels
+    assert summary["types"]["/Link"] >= sum(len(s["checks"]) for s in demo_manifest["sheets"])
+    assert summary["untagged_links"] == 0
+
+
+def test_pagination_rules(demo_pdf: Path, demo_dir: Path, demo_manifest: dict[str, Any]) -> None:
+    """No heading ends a page, no page leaves more than a third of its body blank except the
+    last page of a section, names wrap at word boundaries, the outline skips no level
+    (measured on the PDF: tests/build/pagerules.py)."""
+    from pagerules import package_problems, titleblock_names
+
+    names = titleblock_names(demo_dir / "project")
+    assert package_problems(demo_pdf, demo_manifest, names) == []
 
 
 def test_pagination_rules_catch_a_heading_at_the_foot(tmp_path: Path) -> None:

@@ -273,3 +273,11 @@ def test_package_verifies_on_the_eurocode_basis(built: dict[str, Any]) -> None:
     assert "[Q on spans 1, 2]" in text
     for us_word in (" kip", "1.2D", "1.6L"):
         assert us_word not in text
+
+
+def test_pagination_and_outline_rules(built: dict[str, Any]) -> None:
+    """The pagination and outline rules of every package (tests/build/pagerules.py)."""
+    from pagerules import package_problems, titleblock_names
+
+    names = titleblock_names(built["project"])
+    assert package_problems(built["pdf"], built["manifest"], names) == []

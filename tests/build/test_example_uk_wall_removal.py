@@ -176,7 +176,10 @@ def _expected() -> dict[tuple[str, str, str | None], tuple[Any, Any]]:
     # -- padstones and brickwork (EN 1992-1-1 §6.7, EN 1996-1-1 §6.1.3)
     pl, pw, pd = mm(mas["padstone_length"]), mm(mas["padstone_width"]), mm(mas["padstone_depth"])
     a0 = ss * mm(sec.b)
-    a1 = min(pl, 3 * ss) * min(pw, 3 * mm(sec.b))
+    # A_c1 similar to A_c0 and centred (§6.7(2)), within the padstone's plan, each side at most
+    # 3 x and grown by at most the depth (Figure 6.29)
+    k = min(pl / ss, pw / mm(sec.b), 1 + pd / max(ss, mm(sec.b)), 3.0)
+    a1 = k**2 * a0
     exp[("P1, P2", "Padstone bearing (EN 1992-1-1 6.7)", gov)] = (
         Vu,
         Q_(a0 * 0.85 * 30 / 1.5 * min(math.sqrt(a1 / a0), 3.0) / 1e3, "kN"),
@@ -274,3 +277,11 @@ def test_not_covered_is_what_the_job_declares_each_with_its_reason(built: dict[s
     assert "2 NOT COVERED" in cover
     assert "Engineer of record" in cover
     assert "G. Llewellyn-Shaw" in cover
+
+
+def test_pagination_and_outline_rules(built: dict[str, Any]) -> None:
+    """The pagination and outline rules of every package (tests/build/pagerules.py)."""
+    from pagerules import package_problems, titleblock_names
+
+    names = titleblock_names(built["project"])
+    assert package_problems(built["pdf"], built["manifest"], names) == []

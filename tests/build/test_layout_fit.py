@@ -128,8 +128,9 @@ def test_a_heading_is_never_alone_at_a_page_foot(markdown: bool) -> None:
     from calcpack.package.convert import package_css
 
     steps = "".join(
-        f'<div class="cp-step"><div class="cp-desc">step {i:02d}</div>'
-        f'<div class="cp-body">value {i}</div><div class="cp-ref">ref</div></div>'
+        f'<div class="cp-step cp-given cp-row"><div class="cp-ref">ref</div>'
+        f'<div class="cp-desc">step {i:02d}</div><div class="cp-body">value {i}</div>'
+        '<div class="cp-out"></div></div>'
         for i in range(1, 41)
     )
     css = package_css()

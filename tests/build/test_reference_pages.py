@@ -110,9 +110,10 @@ def test_math_specimen_page(tmp_path: Path) -> None:
     from calcpack.package.mathsvg import math_spans_to_images
 
     rows = "".join(
-        f'<div class="cp-step"><div class="cp-desc">{i}</div><div class="cp-body">'
+        f'<div class="cp-step cp-derived cp-row"><div class="cp-ref">display</div>'
+        f'<div class="cp-desc">{i}</div><div class="cp-body">'
         f'<span class="cp-math cp-math-display">\\[{tex}\\]</span></div>'
-        '<div class="cp-ref">display</div></div>'
+        '<div class="cp-out"></div></div>'
         f'<p>Inline: the value <span class="cp-math cp-math-inline">\\({tex}\\)</span> '
         "sits on the text baseline.</p>"
         for i, tex in enumerate(SPECIMEN, start=1)

@@ -25,8 +25,12 @@ from calcpack.errors import SigningError
 from calcpack.signing.authority import issue_crl, issue_key, new_authority
 from calcpack.signing.sign import sign_package
 from calcpack.signing.verify import verify_package
-from tests.faults.archivekit import make_timestamp_authority
-from tests.unit.signing.signing_helpers import attach_manifest, cover_pdf, make_manifest
+from tests.unit.signing.signing_helpers import (
+    attach_manifest,
+    cover_pdf,
+    make_manifest,
+    make_timestamp_authority,
+)
 
 NOW = dt.datetime.now(dt.UTC)
 TEN_YEARS = NOW + dt.timedelta(days=3653)

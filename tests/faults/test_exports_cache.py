@@ -20,34 +20,19 @@ from calcpack.errors import InputError
 from calcpack.fileio import CacheWarning, unseal
 from calcpack.working import Sheet
 from calcpack.working.links import (
-    EXPORTS_DIR_ENV,
     SHEET_ENV,
     exports_key,
     exports_path,
     read_exports,
     resolve_sheet,
 )
-
-_NB = {
-    "cells": [{"cell_type": "code", "source": "x = 1", "metadata": {}, "outputs": []}],
-    "metadata": {},
-    "nbformat": 4,
-    "nbformat_minor": 5,
-}
+from tests.linkkit import sheets_folder_project
 
 
 @pytest.fixture
 def project(tmp_path: Path, monkeypatch: pytest.MonkeyPatch) -> Path:
     """Two sheets that each export a value, run as in JupyterLab (exports in the cache)."""
-    (tmp_path / "sheets").mkdir()
-    lines = []
-    for name in ("01_loads", "02_beam"):
-        (tmp_path / "sheets" / f"{name}.ipynb").write_text(json.dumps(_NB))
-        lines.append(f'[[sheets]]\npath = "sheets/{name}.ipynb"\n')
-    (tmp_path / "calcpack.toml").write_text("\n".join(lines))
-    monkeypatch.chdir(tmp_path / "sheets")
-    for name in ("CALCPACK_BUILDING", EXPORTS_DIR_ENV, "JPY_SESSION_NAME"):
-        monkeypatch.delenv(name, raising=False)
+    sheets_folder_project(tmp_path, ("01_loads", "02_beam"), monkeypatch)
     for sheet, value in (("01_loads", 5.4), ("02_beam", 12.5)):
         monkeypatch.setenv(SHEET_ENV, f"sheets/{sheet}.ipynb")
         s = Sheet(sheet, auto_display=False)

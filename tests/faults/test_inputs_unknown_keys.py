@@ -21,6 +21,7 @@ from calcpack.inputs.layout import Table, Tables, refuse_unknown_keys
 from calcpack.inputs.ledger import ledger_inputs
 from calcpack.inputs.member import member_inputs
 from calcpack.inputs.site_loads import site_loads_inputs
+from calcpack.inputs.timber_post import timber_post_inputs
 
 TEMPLATES = Path(__file__).resolve().parents[2] / "templates" / "sheets"
 
@@ -31,6 +32,7 @@ READERS: dict[str, Callable[..., Any]] = {
     "steel_column": member_inputs,
     "deck_ledger": ledger_inputs,
     "site_loads": site_loads_inputs,
+    "timber_post": timber_post_inputs,
 }
 
 EN_SITE = """

@@ -32,11 +32,12 @@ def test_simple_span_moment(sheet):
     html = M.html()
     assert html.startswith('<style class="cp-style">')
     assert html.split("</style>", 1)[1] == (
-        '<div class="cp-step cp-derived" data-name="M_max"><div class="cp-desc">moment</div>'
+        '<div class="cp-step cp-derived cp-row" data-name="M_max"><div class="cp-ref"></div>'
+        '<div class="cp-desc">moment</div>'
         '<div class="cp-body"><span class="cp-math cp-math-display">'
         r"\[M_{\mathrm{max}} = \frac{w L^{2}}{8} = \frac{\left(8.50\ \mathrm{kN/m}\right) "
         r"\left(3.20\ \mathrm{m}\right)^{2}}{8} = 10.9\ \mathrm{kN{\cdot}m}\]"
-        '</span></div><div class="cp-ref"></div></div>'
+        '</span></div><div class="cp-out"></div></div>'
     )
 
 
@@ -90,11 +91,18 @@ def test_check_rendering(sheet):
     c = sheet.check("Bending", sig, f, ref="cl. 5.1", member="L1")
     assert c.text() == "L1: Bending: 90.7 MPa ≤ 165 MPa, utilisation 0.550  OK  [cl. 5.1]"
     assert r"\eta = \frac{90.7}{165} = 0.550" in c.latex()
-    assert 'class="cp-verdict cp-ok">OK<' in c.html()
-    over = sheet.check("Shear", 200 * ureg.MPa, f)
+    # calc pad: the clause in the reference margin, the verdict in words in the output margin
+    body = c.html().split("</style>", 1)[1]
+    assert '<div class="cp-ref">cl. 5.1</div>' in body
+    assert body.endswith(
+        '<div class="cp-out"><span class="cp-verdict cp-ok"><span class="cp-ratio">'
+        '0.550 ≤ 1.00</span>, <span class="cp-words">satisfies cl. 5.1</span></span></div></div>'
+    )
+    over = sheet.check("Shear", 200 * ureg.MPa, f, ref="cl. 5.2")
     assert over.verdict == "NOT OK"
     assert "NOT OK" in over.text()
     assert ">" in over.text()
+    assert '1.21 &gt; 1.00</span>, <span class="cp-words">DOES NOT SATISFY cl. 5.2<' in over.html()
 
 
 def test_long_derivation_breaks_into_aligned_lines(sheet):

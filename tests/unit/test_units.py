@@ -68,3 +68,13 @@ def test_set_display_validates_and_restores():
             set_display(system="metric")
     finally:
         set_display(sig_figs=before)
+
+
+def test_a_fractional_power_unit_settled_by_a_sheet_reads_back() -> None:
+    """pint prints in**0.5 as in⁰⋅⁵, which it cannot parse: the settled unit must still be
+    readable (an empirical constant such as ACI 318's k_c carries such a unit)."""
+    from calcpack.units import DisplaySettings, ureg
+
+    settings = DisplaySettings(system="US")
+    settings.keep_unit(ureg.Unit("inch**0.5"))
+    assert settings.kind_unit(ureg.Unit("inch**0.5")) == ureg.Unit("inch**0.5")

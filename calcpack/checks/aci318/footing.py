@@ -29,12 +29,19 @@ import math
 from collections.abc import Mapping
 from typing import Any
 
+from calcpack.checks.aci318.bearing import bearing_on_footing
 from calcpack.checks.aci318.footing_data import (
     ACI318_EDITION,
     ACIFootingDesign,
     Direction,
     FootingActions,
+    bar_count,
+    column_aspect,
     factored_actions,
+    punching_shear,
+    show_actions,
+    two_way_perimeter,
+    uplift_not_covered,
 )
 from calcpack.checks.base import MemberChecks, Recorder, Standard, run_checks
 from calcpack.combinations.model import CombinationSet
@@ -129,21 +136,19 @@ class _ACILogic:
             unit="psi",
             ref="ACI 318-19 §22.5.3.1",
         )
-        if a.table:
-            c.table(
-                ["Combination", "P_u", "M_u,x", "M_u,y", "V_u,x", "V_u,y", "V_u,2"],
-                [list(r) for r in a.table],
-                caption="Factored actions from the net soil pressure by combination",
-            )
-        if a.uplift_combinations:
-            c.not_covered(
-                "Top face under uplift",
-                "combinations with net uplift on the soil ("
-                + ", ".join(a.uplift_combinations)
-                + "): the top reinforcement for "
-                "the soil weight is not checked",
-                ref="ACI 318-19 §13.2.6.1",
-            )
+        show_actions(
+            c,
+            a,
+            columns=["Combination", "P_u", "M_u,x", "M_u,y", "V_u,x", "V_u,y", "V_u,2"],
+            caption="Factored actions from the net soil pressure by combination",
+        )
+        uplift_not_covered(
+            c,
+            a,
+            "Top face under uplift",
+            "the top reinforcement for the soil weight is not checked",
+            "ACI 318-19 §13.2.6.1",
+        )
         if a.Pu.magnitude <= 0:
             return
         for dirn in (a.x, a.y):
@@ -279,10 +284,7 @@ class _ACILogic:
             ref="ACI 318-19 §8.7.2.2",
         )
         need = max(c.q(As_req), c.q(As_min))
-        span = c.q(b) - 2 * c.q(cov) - c.q(db)
-        n_val = max(
-            2, math.ceil(float(need / c.q(Ab))), math.ceil(float(span / c.q(smax)) - 1e-9) + 1
-        )
+        n_val = bar_count(need, c.q(Ab), c.q(b) - 2 * c.q(cov) - c.q(db), c.q(smax))
         n = c.given(f"n_{ax}", n_val, "number of bars (enough steel, spacing within s_max)")
         As = c.derive(f"A_s_{ax}", n * Ab, "steel provided", unit="inch**2")
         self.As[ax] = c.q(As)
@@ -416,18 +418,11 @@ class _ACILogic:
         a = self.a
         f = a.footing
         c.heading("Two-way (punching) shear, perimeter at d/2", 3)
-        if a.b1 >= f.B or a.b2 >= f.length:
-            c.text(
-                "The critical perimeter at d/2 falls outside the footing: two-way shear does "
-                "not arise; one-way shear governs."
-            )
+        perimeter = two_way_perimeter(c, a, "d/2")
+        if perimeter is None:
             return
+        b1, b2, b0 = perimeter
         d = c.given("d_avg", (a.x.d + a.y.d) / 2, "average effective depth", unit="inch")
-        b1 = c.given("b_1", a.b1, "perimeter side along x (section for moment + d)", unit="inch")
-        b2 = c.given("b_2", a.b2, "perimeter side along y", unit="inch")
-        b0 = c.derive(
-            "b_0", 2 * (b1 + b2), "critical perimeter", unit="inch", ref="ACI 318-19 §22.6.4.1"
-        )
         if a.punch_concentric and a.Vu2_combination == a.Pu_combination:
             Pu = c.given("P_u", a.Pu, f"factored column load, {a.Pu_combination}", unit="kip")
             A = c.given("A_f", f.area, "footing area", unit="ft**2")
@@ -438,16 +433,8 @@ class _ACILogic:
                 unit="kip",
             )
         else:
-            Vu = c.given(
-                "V_u2",
-                a.Vu2,
-                f"punching shear, {a.Vu2_combination}",
-                source="column load less the net pressure inside the perimeter",
-                unit="kip",
-            )
-        col = f.column
-        c1, c2 = col.loaded1, col.loaded2
-        beta = c.given("beta_c", float(max(c1, c2) / min(c1, c2)), "column long side / short side")
+            Vu = punching_shear(c, a)
+        beta = column_aspect(c, f.column)
         ls = self._lambda_s(c, d, "lambda_s")
         als = c.given("alpha_s", 40, "interior column", source="ACI 318-19 §22.6.5.3")
         vc = c.derive(
@@ -553,33 +540,13 @@ class _ACILogic:
 
     def _bearing(self, c: Recorder, fc) -> None:  # type: ignore[no-untyped-def]
         a = self.a
-        f = a.footing
-        col = f.column
         c.heading("Bearing of the column on the footing", 3)
-        Pu = c.given("P_u_b", a.Pu, f"factored column load, {a.Pu_combination}", unit="kip")
-        if col.shape == "round" and col.support != "base plate":
-            A1 = c.given("A_1", math.pi * col.c1**2 / 4, "loaded area", unit="inch**2")
-            k = float(min(f.B / col.c1, (col.c1 + 4 * f.h) / col.c1))
-        else:
-            A1 = c.given("A_1", col.loaded1 * col.loaded2, "loaded area", unit="inch**2")
-            k = float(
-                min(
-                    f.B / col.loaded1,
-                    f.length / col.loaded2,
-                    (min(col.loaded1, col.loaded2) + 4 * f.h) / min(col.loaded1, col.loaded2),
-                )
-            )
-        r = c.given(
-            "r_A",
-            min(k, 2.0),
-            "√(A2/A1): concentric similar area on the footing, at most 2",
-            source="ACI 318-19 §22.8.3.2",
+        bearing_on_footing(
+            c,
+            a,
+            fc,
+            phi=PHI_BEARING,
+            rule="ACI 318-19 §22.8.3.2",
+            strength_ref="ACI 318-19 §22.8.3.2, Table 21.2.1(d)",
+            check_ref="ACI 318-19 §22.8",
         )
-        pB = c.derive(
-            "phi_B_n",
-            PHI_BEARING * 0.85 * fc * A1 * r,
-            "design bearing strength, φ = 0.65",
-            unit="kip",
-            ref="ACI 318-19 §22.8.3.2, Table 21.2.1(d)",
-        )
-        c.check("Bearing", Pu, pB, ref="ACI 318-19 §22.8", combination=a.Pu_combination)

@@ -12,10 +12,11 @@ working).
 from __future__ import annotations
 
 import math
-from collections.abc import Mapping
+from collections.abc import Mapping, Sequence
 from dataclasses import dataclass, field, replace
-from typing import Literal, Protocol
+from typing import Any, Literal, Protocol
 
+from calcpack.checks.base import Recorder
 from calcpack.combinations.model import CombinationSet
 from calcpack.foundations.demands import cantilever_actions, force_within, net_combinations
 from calcpack.foundations.geometry import Column, Footing, FootingLoad
@@ -137,6 +138,67 @@ class FootingActions:
     table: tuple[tuple[object, ...], ...]
 
 
+def show_actions(c: Recorder, a: FootingActions, *, columns: Sequence[str], caption: str) -> None:
+    """The table of actions by combination (when there is more than one to show)."""
+    if a.table:
+        c.table(list(columns), [list(r) for r in a.table], caption=caption)
+
+
+def uplift_not_covered(c: Recorder, a: FootingActions, name: str, unchecked: str, ref: str) -> None:
+    """When a combination lifts the footing off the soil: a NOT COVERED check ``name`` listing
+    those combinations and saying what is not checked, with its clause. Shared by the ACI 318
+    and EN 1992 footings."""
+    if a.uplift_combinations:
+        listed = ", ".join(a.uplift_combinations)
+        c.not_covered(name, f"combinations with net uplift ({listed}): {unchecked}", ref=ref)
+
+
+def two_way_perimeter(c: Recorder, a: FootingActions, at: str) -> tuple[Any, Any, Any] | None:
+    """b_1, b_2 and b_0 = 2(b_1 + b_2) of the critical perimeter for two-way shear at ``at``
+    from the loaded area (``"d/2"``; ``"h_s/2"`` for plain concrete), ACI 318-19 §22.6.4.1,
+    in inches; None, said on the sheet, when it falls outside the footing."""
+    f = a.footing
+    if a.b1 >= f.B or a.b2 >= f.length:
+        c.text(
+            f"The critical perimeter at {at} falls outside the footing: two-way shear does not "
+            "arise; one-way shear governs."
+        )
+        return None
+    b1 = c.given("b_1", a.b1, "perimeter side along x", unit="inch")
+    b2 = c.given("b_2", a.b2, "perimeter side along y", unit="inch")
+    b0 = c.derive(
+        "b_0", 2 * (b1 + b2), "critical perimeter", unit="inch", ref="ACI 318-19 §22.6.4.1"
+    )
+    return b1, b2, b0
+
+
+def column_aspect(c: Recorder, column: Column) -> Any:
+    """β_c, the loaded area's long side over its short side (ACI 318-19 Table 22.6.5.2)."""
+    l1, l2 = column.loaded1, column.loaded2
+    return c.given("beta_c", float(max(l1, l2) / min(l1, l2)), "column long side / short side")
+
+
+def bar_count(need: Quantity, bar_area: Quantity, span: Quantity, s_max: Quantity) -> int:
+    """The fewest bars, at least two, that give the area ``need`` with a spacing no more than
+    ``s_max`` over ``span`` (between the outer bars' centres). Shared by the ACI 318 and
+    EN 1992 footings."""
+    by_area = math.ceil(float((need / bar_area).to("").magnitude))
+    # the round-off allowance keeps a span of exactly k·s_max at k spaces
+    by_spacing = math.ceil(float((span / s_max).to("").magnitude) - 1e-9) + 1
+    return max(2, by_area, by_spacing)
+
+
+def punching_shear(c: Recorder, a: FootingActions) -> Any:
+    """V_u2 of the governing combination, as the actions give it (kip)."""
+    return c.given(
+        "V_u2",
+        a.Vu2,
+        f"punching shear, {a.Vu2_combination}",
+        source="column load less the net pressure inside the perimeter",
+        unit="kip",
+    )
+
+
 def moment_section(column: Column) -> tuple[Quantity, Quantity]:
     """Distances from the centre to the critical sections for moment along x and y (§13.2.7.1)."""
     c1 = column.c1
@@ -235,38 +297,23 @@ def factored_actions(
     qu = (Pu[0] / f.area).to("kPa") if Pu[0].magnitude > 0 else Q_(0.0, "kPa")
 
     def direction(axis: str) -> Direction:
-        if axis == "x":
-            M, V = best["Mx"], best["Vx"]
-            return Direction(
-                "x",
-                bx,
-                dx.to("inch"),
-                f.length,
-                f.B,
-                am_x,
-                x_bottom,
-                M[0],
-                M[1],
-                V[0],
-                V[1],
-                M[2] and V[2],
-                qu,
-            )
-        M, V = best["My"], best["Vy"]
+        # bars along x: the section across them is L wide and the footing B long their way
+        x = axis == "x"
+        M, V = best[f"M{axis}"], best[f"V{axis}"]
         return Direction(
-            "y",
-            by,
-            dy.to("inch"),
-            f.B,
-            f.length,
-            am_y,
-            not x_bottom,
-            M[0],
-            M[1],
-            V[0],
-            V[1],
-            M[2] and V[2],
-            qu,
+            axis=axis,
+            bar=bx if x else by,
+            d=(dx if x else dy).to("inch"),
+            width=f.length if x else f.B,
+            size=f.B if x else f.length,
+            a_m=am_x if x else am_y,
+            bottom=x_bottom if x else not x_bottom,
+            Mu=M[0],
+            Mu_combination=M[1],
+            Vu=V[0],
+            Vu_combination=V[1],
+            concentric=M[2] and V[2],
+            qu=qu,
         )
 
     return FootingActions(

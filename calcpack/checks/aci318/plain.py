@@ -20,11 +20,16 @@ from __future__ import annotations
 from collections.abc import Mapping
 from typing import Any
 
+from calcpack.checks.aci318.bearing import bearing_on_footing
 from calcpack.checks.aci318.footing_data import (
     ACI318_EDITION,
     ACIFootingDesign,
     FootingActions,
+    column_aspect,
     factored_actions,
+    punching_shear,
+    two_way_perimeter,
+    uplift_not_covered,
 )
 from calcpack.checks.base import MemberChecks, Recorder, Standard, run_checks
 from calcpack.combinations.model import CombinationSet
@@ -81,15 +86,13 @@ class _PlainLogic:
             ref="ACI 318-19 §22.5.3.1 (at most 100 psi)",
         )
         h = c.given("h", f.h, "thickness (length of a pier)", unit="inch")
-        if a.uplift_combinations:
-            c.not_covered(
-                "Uplift on plain concrete",
-                "combinations with net uplift ("
-                + ", ".join(a.uplift_combinations)
-                + "): tension in plain concrete "
-                "from uplift is not checked",
-                ref="ACI 318-19 §14.1.3",
-            )
+        uplift_not_covered(
+            c,
+            a,
+            "Uplift on plain concrete",
+            "tension in plain concrete from uplift is not checked",
+            "ACI 318-19 §14.1.3",
+        )
         if f.kind == "pier":
             c.assume(
                 "The pier is embedded in and laterally supported by the soil over its "
@@ -168,25 +171,11 @@ class _PlainLogic:
                 combination=dirn.Vu_combination,
             )
         c.heading("Two-way shear, perimeter at h_s/2", 3)
-        if a.b1 >= f.B or a.b2 >= f.length:
-            c.text("The perimeter falls outside the footing: two-way shear does not arise.")
-        else:
-            b1 = c.given("b_1", a.b1, "perimeter side along x", unit="inch")
-            b2 = c.given("b_2", a.b2, "perimeter side along y", unit="inch")
-            b0 = c.derive("b_0", 2 * (b1 + b2), "critical perimeter", unit="inch")
-            Vu = c.given(
-                "V_u2",
-                a.Vu2,
-                f"punching shear, {a.Vu2_combination}",
-                source="column load less the net pressure inside the perimeter",
-                unit="kip",
-            )
-            col = f.column
-            beta = c.given(
-                "beta_c",
-                float(max(col.loaded1, col.loaded2) / min(col.loaded1, col.loaded2)),
-                "column long side / short side",
-            )
+        perimeter = two_way_perimeter(c, a, "h_s/2")
+        if perimeter is not None:
+            b0 = perimeter[2]
+            Vu = punching_shear(c, a)
+            beta = column_aspect(c, f.column)
             pVn = c.derive(
                 "phi_V_n2",
                 PHI_PLAIN * c.min(4 / 3 + 8 / (3 * beta), 2.66) * lam * sq * b0 * he,
@@ -200,33 +189,16 @@ class _PlainLogic:
         self._bearing(c, fc)
 
     def _bearing(self, c: Recorder, fc: Any) -> None:
-        f, a = self.f, self.a
-        col = f.column
+        a = self.a
         if a.Pu.magnitude <= 0:
             return
         c.heading("Bearing of the column or post", 3)
-        Pu = c.given("P_u_b", a.Pu, f"factored column load, {a.Pu_combination}", unit="kip")
-        A1 = c.given(
-            "A_1",
-            col.loaded1 * col.loaded2
-            if col.shape != "round" or col.support == "base plate"
-            else 3.141592653589793 * col.c1**2 / 4,
-            "loaded area",
-            unit="inch**2",
+        bearing_on_footing(
+            c,
+            a,
+            fc,
+            phi=PHI_PLAIN,
+            rule="ACI 318-19 §14.5.6.1, §22.8.3.2",
+            strength_ref="ACI 318-19 §14.5.6.1",
+            check_ref="ACI 318-19 §14.5.6",
         )
-        small = min(col.loaded1, col.loaded2)
-        k = float(min(f.B / max(col.loaded1, col.loaded2), (small + 4 * f.h) / small))
-        r = c.given(
-            "r_A",
-            max(1.0, min(k, 2.0)),
-            "√(A2/A1), at most 2",
-            source="ACI 318-19 §14.5.6.1, §22.8.3.2",
-        )
-        pB = c.derive(
-            "phi_B_n",
-            PHI_PLAIN * 0.85 * fc * A1 * r,
-            "design bearing strength, φ = 0.60",
-            unit="kip",
-            ref="ACI 318-19 §14.5.6.1",
-        )
-        c.check("Bearing", Pu, pB, ref="ACI 318-19 §14.5.6", combination=a.Pu_combination)

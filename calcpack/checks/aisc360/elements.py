@@ -255,6 +255,10 @@ def check_aisc_block_shear(
     return run_checks(mark, "Block shear rupture", member_standard(method), logic)
 
 
+# the threaded parts of Table J3.2 used as anchor rods
+ANCHOR_GRADES = ("F1554 Gr. 36", "F1554 Gr. 55", "F1554 Gr. 105", "A307")
+
+
 def check_aisc_anchor_rods(
     rods: BoltGroup,
     *,
@@ -271,13 +275,7 @@ def check_aisc_anchor_rods(
         InputError: a grade that is not an anchor rod or threaded part (A307 or F1554).
     """
     method = check_method(method)
-    if not (rods.grade.startswith("F1554") or rods.grade == "A307"):
-        raise InputError(
-            f"Anchor rods are ASTM F1554 (or A307) threaded parts (got grade = {rods.grade!r})",
-            name="grade",
-            value=rods.grade,
-            expected="'F1554 Gr. 36', 'F1554 Gr. 55', 'F1554 Gr. 105' or 'A307'",
-        )
+    one_of("grade", rods.grade, ANCHOR_GRADES)
     Vq = V if V is not None else Q_(0.0, "kip")
     require(Vq, "[force]", "V", nonnegative=True)
 

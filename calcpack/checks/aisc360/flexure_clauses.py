@@ -26,6 +26,7 @@ __all__ = [
     "angle_ltb_f10",
     "f9_mcr",
     "flange_limits",
+    "flange_slenderness",
     "least_of",
     "leg_local_f10",
     "transition",
@@ -44,6 +45,19 @@ def flange_limits(c: Recorder, E: Any, Fy: Any) -> tuple[Any, Any]:
     lpf = c.derive("lambda_pf", 0.38 * c.sqrt(E / Fy), "compact limit", ref="Table B4.1b")
     lrf = c.derive("lambda_rf", 1.0 * c.sqrt(E / Fy), "noncompact limit", ref="Table B4.1b")
     return lpf, lrf
+
+
+def flange_slenderness(c: Recorder, s: Any, E: Any, Fy: Any) -> tuple[Any, Any, Any]:
+    """λ = b_f/2t_f of an I-shape's or tee's flange (Table B4.1b case 10) with its limits
+    λ_pf, λ_rf (:func:`flange_limits`); ``s`` the shape's tabulated properties."""
+    lam = c.derive(
+        "lambda_f",
+        s["bf"] / (2 * s["tf"]),
+        "flange slenderness b_f/2t_f",
+        ref="AISC 360-16 Table B4.1b case 10",
+    )
+    lpf, lrf = flange_limits(c, E, Fy)
+    return lam, lpf, lrf
 
 
 def least_of(c: Recorder, limits: list[Any], ref: str) -> Any:

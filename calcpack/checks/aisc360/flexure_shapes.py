@@ -26,6 +26,7 @@ from typing import Any, Literal
 from calcpack.checks.aisc360.flexure_clauses import (
     angle_ltb_f10,
     flange_limits,
+    flange_slenderness,
     least_of,
     leg_local_f10,
     transition,
@@ -111,13 +112,7 @@ def _i_major(c: Recorder, m: SteelMember, Fy: Any, E: Any, root: float) -> Any:
             unit="kip*ft",
             ref="AISC 360-16 §F2",
         )
-    lam = c.derive(
-        "lambda_f",
-        s["bf"] / (2 * s["tf"]),
-        "flange slenderness b_f/2t_f",
-        ref="AISC 360-16 Table B4.1b case 10",
-    )
-    lpf, lrf = flange_limits(c, E, Fy)
+    lam, lpf, lrf = flange_slenderness(c, s, E, Fy)
     if c.f(lam) <= c.f(lrf):
         Mflb = c.derive(
             "M_n_FLB",

@@ -16,7 +16,12 @@ from __future__ import annotations
 
 from typing import Any
 
-from calcpack.checks.aisc360.flexure_clauses import f9_mcr, flange_limits, least_of, transition
+from calcpack.checks.aisc360.flexure_clauses import (
+    f9_mcr,
+    flange_slenderness,
+    least_of,
+    transition,
+)
 from calcpack.checks.aisc360.member_data import SteelMember
 from calcpack.checks.base import Recorder
 
@@ -150,13 +155,7 @@ def _flange_local(
         unit="inch**3",
         ref="AISC 360-16 §F9.3",
     )
-    lam = c.derive(
-        "lambda_f",
-        s["bf"] / (2 * s["tf"]),
-        "flange slenderness b_f/2t_f",
-        ref="AISC 360-16 Table B4.1b case 10",
-    )
-    lpf, lrf = flange_limits(c, E, Fy)
+    lam, lpf, lrf = flange_slenderness(c, s, E, Fy)
     if c.f(lam) <= c.f(lrf):
         return c.derive(
             "M_n_FLB",

@@ -30,7 +30,13 @@ from collections.abc import Mapping, Sequence
 from dataclasses import dataclass, field
 from typing import Any, Literal
 
-from calcpack.checks.aci318.footing_data import Direction, factored_actions
+from calcpack.checks.aci318.footing_data import (
+    Direction,
+    bar_count,
+    factored_actions,
+    show_actions,
+    uplift_not_covered,
+)
 from calcpack.checks.base import MemberChecks, Recorder, Standard, run_checks
 from calcpack.combinations.en1990 import Psi, en1990_combinations
 from calcpack.foundations.demands import force_within, net_combinations, rounded_rectangle
@@ -203,20 +209,15 @@ class _ECLogic:
             ref="EN 1992-1-1 §3.2.7, Table 2.1N",
         )
         h = c.given("h", a.footing.h, "footing thickness", unit="mm")
-        if a.table:
-            c.table(
-                ["Combination", "N_Ed", "M_Ed,x", "M_Ed,y", "V_Ed,x", "V_Ed,y", "V_Ed,2"],
-                [list(r) for r in a.table],
-                caption="Design actions from the net soil pressure by combination",
-            )
-        if a.uplift_combinations:
-            c.not_covered(
-                "Top face under uplift",
-                "combinations with net uplift ("
-                + ", ".join(a.uplift_combinations)
-                + ") are not checked",
-                ref="EN 1992-1-1 §9.8.2",
-            )
+        show_actions(
+            c,
+            a,
+            columns=["Combination", "N_Ed", "M_Ed,x", "M_Ed,y", "V_Ed,x", "V_Ed,y", "V_Ed,2"],
+            caption="Design actions from the net soil pressure by combination",
+        )
+        uplift_not_covered(
+            c, a, "Top face under uplift", "the top face is not checked", "EN 1992-1-1 §9.8.2"
+        )
         if a.Pu.magnitude <= 0:
             return
         for dirn in (a.x, a.y):
@@ -286,10 +287,7 @@ class _ECLogic:
         )
         cov = self.dz.cover
         need = max(c.q(As_req), c.q(As_min))
-        span = c.q(b) - 2 * cov - c.q(phi)
-        n_val = max(
-            2, math.ceil(float(need / c.q(Ab))), math.ceil(float(span / c.q(smax)) - 1e-9) + 1
-        )
+        n_val = bar_count(need, c.q(Ab), c.q(b) - 2 * cov - c.q(phi), c.q(smax))
         n = c.given(f"n_{ax}", n_val, "number of bars")
         As = c.derive(f"A_s_{ax}", n * Ab, "steel provided", unit="mm**2")
         self.As[ax] = c.q(As)

@@ -10,9 +10,9 @@ from typing import TYPE_CHECKING, Any
 
 from calcpack.checks.base import Recorder
 from calcpack.checks.en1993.classify import Classification
-from calcpack.errors import InputError
 from calcpack.sections.eurocode_tables import EuroSection
 from calcpack.units import Q_
+from calcpack.validate import required
 
 if TYPE_CHECKING:
     from calcpack.checks.en1993.inputs import DesignForces, SteelMemberEC
@@ -142,14 +142,15 @@ def annex_b(
     NEd = c.given("N_Ed_b", c.q(f.N_Ed).to("kN"), "axial compression")
     My = c.given("M_y_Ed_b", c.q(f.My_Ed).to("kN*m"), "moment y-y")
     Mz = c.given("M_z_Ed_b", c.q(f.Mz_Ed).to("kN*m"), "moment z-z")
-    if chi["y"] is None or chi["z"] is None:
-        raise InputError(
-            "Annex B interaction needs both buckling lengths Lcr_y and Lcr_z of the member",
-            name="Lcr_y" if chi["y"] is None else "Lcr_z",
-            value=None,
+    (chy, lay), (chz, laz) = (
+        required(
+            f"Lcr_{ax}",
+            chi[ax],
             expected="a length",
+            when="for the Annex B interaction (both buckling lengths of the member)",
         )
-    (chy, lay), (chz, laz) = chi["y"], chi["z"]
+        for ax in ("y", "z")
+    )
     if chiLT is None:
         chiLT = c.given(
             "chi_LT",

@@ -34,9 +34,10 @@ from calcpack.checks.en1993.data import (
 from calcpack.checks.en1993.inputs import DesignForces, SteelMemberEC, cm_linear
 from calcpack.checks.en1993.interaction import annex_b, axial_and_bending
 from calcpack.checks.en1993.ltb import chi_flexural, chi_lt, f_modification, mcr_uniform
-from calcpack.errors import InputError, OutOfScopeError
+from calcpack.errors import OutOfScopeError
 from calcpack.sections.eurocode_tables import EuroSection
 from calcpack.units import Q_, Quantity, si
+from calcpack.validate import at_least, each_instance
 
 __all__ = ["DesignForces", "SteelMemberEC", "check_en1993_member", "cm_linear"]
 
@@ -489,13 +490,8 @@ def check_en1993_member(
         InputError: inputs (each message names the input).
     """
     items = [forces] if isinstance(forces, DesignForces) else list(forces)
-    if not items or not all(isinstance(f, DesignForces) for f in items):
-        raise InputError(
-            f"Input forces must be DesignForces or a list of them (got {forces!r})",
-            name="forces",
-            value=forces,
-            expected="DesignForces",
-        )
+    at_least("forces", items, what="DesignForces")
+    each_instance("forces", items, DesignForces, expected="DesignForces")
     logic = _Logic(member, items)
     s = member.section
     title = f"{s.designation} {member.grade} to {EN1993.code}"

@@ -25,9 +25,8 @@ from calcpack.checks.en1995.values import (
     k_mod,
     strength_class,
 )
-from calcpack.errors import InputError
 from calcpack.units import Q_, Quantity, require, si
-from calcpack.validate import one_of, required, within
+from calcpack.validate import at_least, each_instance, one_of, required, within
 
 __all__ = ["EN1995", "TimberForcesEC", "TimberMemberEC", "check_en1995_member"]
 
@@ -503,13 +502,8 @@ def check_en1995_member(
             k_mod table does not cover for the product.
     """
     items = [forces] if isinstance(forces, TimberForcesEC) else list(forces)
-    if not items or not all(isinstance(f, TimberForcesEC) for f in items):
-        raise InputError(
-            f"Input forces must be TimberForcesEC or a list of them (got {forces!r})",
-            name="forces",
-            value=forces,
-            expected="TimberForcesEC",
-        )
+    at_least("forces", items, what="TimberForcesEC")
+    each_instance("forces", items, TimberForcesEC, expected="TimberForcesEC")
     for f in items:
         k_mod(member.grade.product, member.service_class, f.duration)
     title = (

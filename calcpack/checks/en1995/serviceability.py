@@ -21,9 +21,9 @@ from collections.abc import Mapping
 from calcpack.checks.base import MemberChecks, Recorder, run_checks
 from calcpack.checks.en1995.members import EN1995, TimberMemberEC
 from calcpack.checks.en1995.values import k_def
-from calcpack.errors import InputError, OutOfScopeError
+from calcpack.errors import OutOfScopeError
 from calcpack.units import Q_, Quantity, require, si
-from calcpack.validate import one_of, positive, within
+from calcpack.validate import at_least, one_of, positive, within
 
 __all__ = ["check_en1995_deflection", "check_en1995_floor_vibration"]
 
@@ -50,13 +50,7 @@ def check_en1995_deflection(
     require(span, "[length]", "span", positive=True)
     require(w_G, "[length]", "w_G", nonnegative=True)
     positive("limit", limit)
-    if not w_Q:
-        raise InputError(
-            "w_Q needs at least one variable action",
-            name="w_Q",
-            value={},
-            expected="case -> (w_inst, psi0, psi2)",
-        )
+    at_least("w_Q", w_Q, what="variable action (case -> (w_inst, psi0, psi2))")
     for k, (w, p0, p2) in w_Q.items():
         require(w, "[length]", f"w_Q[{k!r}]", nonnegative=True)
         within(f"psi0 of {k!r}", p0, 0.0, 1.0)

@@ -22,7 +22,7 @@ from typing import Literal
 from calcpack.errors import InputError
 from calcpack.refdata import read_table
 from calcpack.units import Q_, Quantity
-from calcpack.validate import lookup, one_of, required
+from calcpack.validate import at_least, lookup, one_of, required
 
 __all__ = [
     "DURATIONS",
@@ -144,13 +144,7 @@ def gamma_M(product: str) -> float:
 def shortest_duration(durations: Iterable[str]) -> Duration:
     """The shortest of ``durations`` (it sets k_mod in a combination, §3.1.3(2))."""
     ds = list(durations)
-    if not ds:
-        raise InputError(
-            "No load duration given (a combination needs at least one action)",
-            name="durations",
-            value=ds,
-            expected="one or more of " + ", ".join(DURATIONS),
-        )
+    at_least("durations", ds, what="load duration")
     for d in ds:
         lookup("duration", d, {x: x for x in DURATIONS}, what="load-duration class")
     order: list[str] = list(DURATIONS)

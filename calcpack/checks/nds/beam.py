@@ -15,6 +15,7 @@ from calcpack.checks.nds.factors import (
     ReferenceDesignValues,
     SawnMember,
     ServiceConditions,
+    duration_of,
     effective_length,
     flat_use_factor,
     size_factor,
@@ -22,24 +23,9 @@ from calcpack.checks.nds.factors import (
     wet_service_factor,
 )
 from calcpack.checks.nds.values import southern_pine_size_factor
-from calcpack.errors import InputError, OutOfScopeError
-from calcpack.validate import one_of
+from calcpack.errors import OutOfScopeError
 
 __all__ = ["check_nds_beam"]
-
-
-def _duration_of(case: str, durations: Mapping[str, str]) -> str:
-    base = case.split("#")[0]
-    for key in (case, base):
-        if key in durations:
-            return one_of(f"durations[{key!r}]", durations[key], DURATION_FACTORS)
-    raise InputError(
-        f"Load case {case!r} has no load duration: give durations={{{base!r}: 'ten years'}} "
-        f"or another of {list(DURATION_FACTORS)} (NDS 2018 Table 2.3.2)",
-        name="durations",
-        value=case,
-        expected=f"a duration for {base!r}",
-    )
 
 
 def combination_demands(demand: Any, durations: Mapping[str, str]) -> list[dict[str, Any]]:
@@ -52,12 +38,12 @@ def combination_demands(demand: Any, durations: Mapping[str, str]) -> list[dict[
     items: list[dict[str, Any]] = []
     for name, r in combos.items():
         cases = [c for c, f in getattr(r, "cases", ((name, 1.0),)) if f != 0.0]
-        ds = [(DURATION_FACTORS[_duration_of(c, durations)], c) for c in cases]
+        ds = [(DURATION_FACTORS[duration_of(c, durations)], c) for c in cases]
         CD, governing_case = max(ds)
         M, xM = max_abs(r, "moment")
         V, xV = max_abs(r, "shear")
         items.append({"combination": name, "CD": CD, "CD_case": governing_case,
-                      "CD_name": _duration_of(governing_case, durations), "M": M.to("lbf*ft"),
+                      "CD_name": duration_of(governing_case, durations), "M": M.to("lbf*ft"),
                       "V": V.to("lbf"), "xM": xM, "xV": xV, "result": r,
                       "L": r.beam.length})  # fmt: skip
     return items
@@ -226,10 +212,10 @@ class _NDSLogic:
         del Ep
 
         # screen every combination with numbers, then work the governing one in full
-        best_b: tuple[float, int] | None = None
-        best_v: tuple[float, int] | None = None
+        u_b: list[float] = []
+        u_v: list[float] = []
         rows = []
-        for i, it in enumerate(self.items):
+        for it in self.items:
             n = Recorder(c.member)
             Fbp = self._Fbp(
                 n,
@@ -258,12 +244,11 @@ class _NDSLogic:
                     round(uv, 3),
                 ]
             )
-            if best_b is None or ub > best_b[0]:
-                best_b = (ub, i)
-            if best_v is None or uv > best_v[0]:
-                best_v = (uv, i)
-        assert best_b is not None
-        assert best_v is not None
+            u_b.append(ub)
+            u_v.append(uv)
+        # the first of the largest governs
+        i_b = max(range(len(u_b)), key=u_b.__getitem__)
+        i_v = max(range(len(u_v)), key=u_v.__getitem__)
         if len(self.items) > 1:
             c.table(
                 ["Combination", "C_D", "M", "Bending utilisation", "V", "Shear utilisation"],
@@ -273,7 +258,7 @@ class _NDSLogic:
                 "below",
             )
 
-        it = self.items[best_b[1]]
+        it = self.items[i_b]
         c.heading(f"Bending, NDS 2018 §3.3 (governing: {it['combination']})", 3)
         Fbp = self._Fbp(c, Fb, CMb, Ctb, CF, Cfu, Cib, Cr, Eminp, b, d, it)
         M = c.given(
@@ -282,7 +267,7 @@ class _NDSLogic:
         fb = c.derive("f_b", M / S, "bending stress", unit="psi", ref="NDS 2018 §3.3.2, M/S")
         c.check("Bending", fb, Fbp, ref="NDS 2018 §3.3", combination=it["combination"])
 
-        it = self.items[best_v[1]]
+        it = self.items[i_v]
         c.heading(f"Shear, NDS 2018 §3.4 (governing: {it['combination']})", 3)
         CD = c.given(
             "C_D",

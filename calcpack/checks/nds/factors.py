@@ -4,6 +4,7 @@ conditions."""
 
 from __future__ import annotations
 
+from collections.abc import Mapping
 from dataclasses import dataclass
 from typing import Literal
 
@@ -21,6 +22,7 @@ __all__ = [
     "SawnMember",
     "ServiceConditions",
     "beam_stability_factor",
+    "duration_of",
     "effective_length",
     "flat_use_factor",
     "size_factor",
@@ -370,3 +372,19 @@ class ServiceConditions:
                 self.CF_source,
                 expected=f"the source of CF = {self.CF}, e.g. 'NDS Supplement Table 4D'",
             )
+
+
+def duration_of(case: str, durations: Mapping[str, str]) -> str:
+    """The load duration of load case ``case`` (NDS 2018 Table 2.3.2): its own entry in
+    ``durations`` or that of the case it repeats (``"W#2"`` takes ``"W"``'s)."""
+    base = case.split("#")[0]
+    for key in (case, base):
+        if key in durations:
+            return one_of(f"durations[{key!r}]", durations[key], DURATION_FACTORS)
+    raise InputError(
+        f"Load case {case!r} has no load duration: give durations={{{base!r}: 'ten years'}} "
+        f"or another of {list(DURATION_FACTORS)} (NDS 2018 Table 2.3.2)",
+        name="durations",
+        value=case,
+        expected=f"a duration for {base!r}",
+    )

@@ -16,6 +16,7 @@ recalled ("from memory"); the source string carries that basis onto the sheet.
 
 from __future__ import annotations
 
+from collections.abc import Mapping
 from dataclasses import dataclass
 from typing import Literal
 
@@ -107,17 +108,11 @@ def nds_sawn_values(
     t = read_table("nds_2018_sawn_values.csv", key="key")
     row = t.row(f"{table}|{species}|{grade}", what=f"species|grade of Table {table}")
     basis = str(row["basis"])
-    return TimberValues(
+    return _from_row(
+        row,
         f"{row['species']} {row['grade']}",
         "sawn" if table == "4A" else "timber",
         f"NDS Supplement 2018 Table {table} ({basis})",
-        Fb=_psi(row["Fb"]),
-        Ft=_psi(row["Ft"]),
-        Fv=_psi(row["Fv"]),
-        Fc_perp=_psi(row["Fc_perp"]),
-        Fc=_psi(row["Fc"]),
-        E=_psi(row["E"]),
-        Emin=_psi(row["Emin"]),
     )
 
 
@@ -129,11 +124,21 @@ def _southern_pine(species: str, grade: str, width: int | None) -> TimberValues:
     cls = one_of("width", w, tuple(_SP_WIDTHS))
     t = read_table("nds_2018_southern_pine_4b.csv", key="key")
     row = t.row(f"{grade}|{_SP_WIDTHS[cls]}", what="grade|width class of Table 4B")
-    return TimberValues(
+    return _from_row(
+        row,
         f"{SOUTHERN_PINE} {row['grade']} ({w} in. nominal width)",
         "sawn",
         f"NDS Supplement 2018 Table 4B, {_SP_WIDTHS[cls]} in. wide ({row['basis']}; size "
         "effect included)",
+    )
+
+
+def _from_row(row: Mapping[str, object], name: str, product: Product, source: str) -> TimberValues:
+    """The reference design values of a table row (psi), with what they are and their source."""
+    return TimberValues(
+        name,
+        product,
+        source,
         Fb=_psi(row["Fb"]),
         Ft=_psi(row["Ft"]),
         Fv=_psi(row["Fv"]),

@@ -365,3 +365,18 @@ def test_every_step_renders_in_html_latex_and_text(steel_cases):
     html = "".join(s.html() for s in steps)
     assert "Eq. (F2-4)" in html
     assert "Eq. (3.3-6)" in html
+
+
+def test_results_alone_record_the_same_checks_as_the_working(steel_cases):
+    """add_results_to puts one line per check on the sheet (no working) and records each
+    check as add_to does."""
+    from calcpack.working import Check, Sheet
+
+    cr = analyse_combinations(steel_cases, asce7_strength())
+    mc = check_aisc_beam(W18X50, Fy=50 * ksi, demand=cr, continuous_bracing=True, member="B1")
+    full, brief = Sheet("full", system="US"), Sheet("brief", system="US")
+    mc.add_to(full)
+    mc.add_results_to(brief)
+    assert all(isinstance(step, Check) for step in brief.steps)
+    assert len(brief.steps) == len(mc.results) < len(full.steps)
+    assert [r.to_json() for r in brief.checks()] == [r.to_json() for r in full.checks()]

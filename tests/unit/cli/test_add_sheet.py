@@ -30,6 +30,7 @@ def test_templates_are_the_starting_points() -> None:
         "section",
         "site_loads",
         "steel_column",
+        "timber_post",
         "truss",
     ]
 
@@ -40,6 +41,7 @@ def test_templates_are_the_starting_points() -> None:
         ("steel_column", "Compression"),
         ("footing", "Bearing pressure"),
         ("deck_ledger", "Fastener lateral capacity"),
+        ("timber_post", "Compression"),
     ],
 )
 def test_catalogue_sheets_run_as_made(

@@ -9,6 +9,7 @@ from typing import Any
 
 from calcpack.contract import SheetRecords
 from calcpack.package.document import SheetDoc, _assumptions, _summary
+from calcpack.package.mathcache import MathCache
 from calcpack.package.project import SheetEntry, load_project
 
 LINTEL_DEMO = Path(__file__).resolve().parents[3] / "example_projects" / "lintel_demo"
@@ -85,7 +86,8 @@ def test_a_caution_is_said_once_with_the_sheets_it_applies_to(tmp_path: Path) ->
     two = SheetRecords(
         cautions=(same, "Site caution of the project."), assumptions=("Dry service.",)
     )
-    text = _text(_assumptions(project, [_doc("1", "a", one), _doc("2", "b", two)]))
+    sheets = [_doc("1", "a", one), _doc("2", "b", two)]
+    text = _text(_assumptions(project, sheets, MathCache()))
     assert text.count("These checks implement NDS 2018") == 1
     assert "Confirm them. (sheets 1, 2)" in text
     assert "Only on sheet one. (sheet 1)" in text

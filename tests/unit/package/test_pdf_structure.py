@@ -271,3 +271,32 @@ def test_bookmarks_nest_sections_under_their_sheet_across_chunks(package: bytes)
             sheet = reader.get_destination_page_number(outline[i - 1])
             pages = [reader.get_destination_page_number(item) for item in outline[i]]
             assert all(sheet <= p < sheet + 3 for p in pages)  # within its sheet
+
+
+def test_every_link_is_a_link_element_holding_its_words(package: bytes) -> None:
+    """Links between chunks (the contents to each section) are added after the join: each
+    annotation gets its place in the tree, in the ``Link`` element that holds the link's words
+    (ISO 32000-1 §14.8.4.4.2: a Link element's kids are its content and an object reference)."""
+    reader = PdfReader(io.BytesIO(package))
+    root = reader.root_object["/StructTreeRoot"]
+    values = dict(
+        zip(
+            [int(k) for k in root["/ParentTree"]["/Nums"][0::2]],
+            root["/ParentTree"]["/Nums"][1::2],
+            strict=True,
+        )
+    )
+    annotations = [
+        a
+        for p in reader.pages
+        for a in p.get("/Annots", ())
+        if a.get_object()["/Subtype"] == "/Link"
+    ]
+    assert len(annotations) >= len(SECTION_IDS) - 1  # the contents links at least
+    for annotation in annotations:
+        element = values[int(annotation.get_object()["/StructParent"])].get_object()
+        assert element["/S"] == "/Link"
+        kids = list(element["/K"])
+        refs = [k.get_object() for k in kids if not isinstance(k.get_object(), int)]
+        assert any(r.get("/Obj") == annotation for r in refs if r.get("/Type") == "/OBJR")
+        assert any(isinstance(k.get_object(), int) for k in kids)  # its words' marked content

@@ -200,11 +200,16 @@ def _asn1(cert: Any, key: Any) -> tuple[Any, Any]:
     )
 
 
-def make_tsa(directory: Path) -> tuple[Any, Path]:
-    """A test TSA root (written to ``directory``) and a pyHanko DummyTimeStamper it issued.
+def make_timestamp_authority(
+    directory: Path, *, days: int, name: str = "Test TSA", fixed_dt: Any = None
+) -> tuple[Any, Path]:
+    """A local RFC 3161 timestamp authority: pyHanko's DummyTimeStamper with a certificate valid
+    for ``days`` from now, issued by a root (valid a day longer) written to ``directory``;
+    returns (timestamper, root certificate file).
 
     RSA keys: the dummy timestamper signs with RSA only. The TSA certificate carries the
-    critical timeStamping extended key usage (RFC 3161 §2.3).
+    critical timeStamping extended key usage (RFC 3161 §2.3). ``fixed_dt`` makes it state that
+    time in its tokens (a renewal in the future).
     """
     from cryptography import x509
     from cryptography.hazmat.primitives import hashes
@@ -213,17 +218,17 @@ def make_tsa(directory: Path) -> tuple[Any, Path]:
     from cryptography.x509.oid import ExtendedKeyUsageOID, NameOID
     from pyhanko.sign.timestamps.dummy_client import DummyTimeStamper
 
-    now = dt.datetime.now(dt.UTC) - dt.timedelta(minutes=5)
+    start = dt.datetime.now(dt.UTC) - dt.timedelta(minutes=5)
     root_key = rsa.generate_private_key(public_exponent=65537, key_size=2048)
-    root_name = x509.Name([x509.NameAttribute(NameOID.COMMON_NAME, "Test Time Root")])
+    root_name = x509.Name([x509.NameAttribute(NameOID.COMMON_NAME, f"{name} Root")])
     root = (
         x509.CertificateBuilder()
         .subject_name(root_name)
         .issuer_name(root_name)
         .public_key(root_key.public_key())
         .serial_number(x509.random_serial_number())
-        .not_valid_before(now)
-        .not_valid_after(now + dt.timedelta(days=2))
+        .not_valid_before(start)
+        .not_valid_after(start + dt.timedelta(days=days + 1))
         .add_extension(x509.BasicConstraints(ca=True, path_length=None), critical=True)
         .add_extension(
             x509.KeyUsage(False, False, False, False, False, True, True, False, False),
@@ -234,12 +239,12 @@ def make_tsa(directory: Path) -> tuple[Any, Path]:
     tsa_key = rsa.generate_private_key(public_exponent=65537, key_size=2048)
     tsa = (
         x509.CertificateBuilder()
-        .subject_name(x509.Name([x509.NameAttribute(NameOID.COMMON_NAME, "Test TSA")]))
+        .subject_name(x509.Name([x509.NameAttribute(NameOID.COMMON_NAME, name)]))
         .issuer_name(root_name)
         .public_key(tsa_key.public_key())
         .serial_number(x509.random_serial_number())
-        .not_valid_before(now)
-        .not_valid_after(now + dt.timedelta(days=1))
+        .not_valid_before(start)
+        .not_valid_after(start + dt.timedelta(days=days))
         .add_extension(x509.BasicConstraints(ca=False, path_length=None), critical=True)
         .add_extension(x509.ExtendedKeyUsage([ExtendedKeyUsageOID.TIME_STAMPING]), critical=True)
         .add_extension(
@@ -248,10 +253,17 @@ def make_tsa(directory: Path) -> tuple[Any, Path]:
         )
         .sign(root_key, hashes.SHA256())
     )
-    root_path = directory / "tsa-root.crt"
+    directory.mkdir(parents=True, exist_ok=True)
+    root_path = directory / f"{name.lower().replace(' ', '-')}-root.crt"
     root_path.write_bytes(root.public_bytes(Encoding.PEM))
     tsa_cert, tsa_priv = _asn1(tsa, tsa_key)
     root_cert, _ = _asn1(root, root_key)
-    return DummyTimeStamper(
-        tsa_cert=tsa_cert, tsa_key=tsa_priv, certs_to_embed=[root_cert]
-    ), root_path
+    stamper = DummyTimeStamper(
+        tsa_cert=tsa_cert, tsa_key=tsa_priv, certs_to_embed=[root_cert], fixed_dt=fixed_dt
+    )
+    return stamper, root_path
+
+
+def make_tsa(directory: Path) -> tuple[Any, Path]:
+    """A test timestamp authority valid for a day (see :func:`make_timestamp_authority`)."""
+    return make_timestamp_authority(directory, days=1)

@@ -18,31 +18,15 @@ from calcpack.working.links import (
     read_exports,
     resolve_sheet,
 )
-
-_NB = {
-    "cells": [{"cell_type": "code", "source": "x = 1", "metadata": {}, "outputs": []}],
-    "metadata": {},
-    "nbformat": 4,
-    "nbformat_minor": 5,
-}
+from tests.linkkit import PLACEHOLDER_SHEET, sheets_folder_project
 
 
 @pytest.fixture
 def project(tmp_path: Path, monkeypatch: pytest.MonkeyPatch) -> Path:
     """A project of three sheets; the working folder is its sheets folder, as in a kernel."""
-    (tmp_path / "sheets").mkdir()
-    lines = []
-    for name in ("01_loads", "02_beam", "03_post"):
-        (tmp_path / "sheets" / f"{name}.ipynb").write_text(json.dumps(_NB))
-        lines.append(f'[[sheets]]\npath = "sheets/{name}.ipynb"\n')
-    (tmp_path / "sheets" / "02_beam.inputs.toml").write_text('L = "3 m"\n')
-    lines[1] += 'inputs = ["sheets/02_beam.inputs.toml"]\n'
-    (tmp_path / "calcpack.toml").write_text("\n".join(lines))
-    monkeypatch.chdir(tmp_path / "sheets")
-    monkeypatch.delenv("CALCPACK_BUILDING", raising=False)
-    monkeypatch.delenv(EXPORTS_DIR_ENV, raising=False)
-    monkeypatch.delenv("JPY_SESSION_NAME", raising=False)
-    return tmp_path
+    names = ("01_loads", "02_beam", "03_post")
+    inputs = {"02_beam": 'L = "3 m"\n'}
+    return sheets_folder_project(tmp_path, names, monkeypatch, inputs=inputs)
 
 
 def _loads_sheet(monkeypatch: pytest.MonkeyPatch, w_kN_per_m: float = 5.4) -> Sheet:
@@ -145,7 +129,7 @@ def test_outside_a_project_import_is_refused(tmp_path, monkeypatch):
 
 def test_stale_exports_are_flagged_when_the_notebook_changed(project, monkeypatch):
     _loads_sheet(monkeypatch)
-    nb = dict(_NB, cells=[dict(_NB["cells"][0], source="x = 2")])
+    nb = dict(PLACEHOLDER_SHEET, cells=[dict(PLACEHOLDER_SHEET["cells"][0], source="x = 2")])
     (project / "sheets" / "01_loads.ipynb").write_text(json.dumps(nb))
     s = Sheet("Beam", auto_display=False)
     with pytest.warns(UserWarning, match="may be out of date: the notebook sheets/01_loads"):

@@ -24,33 +24,17 @@ from calcpack import ureg
 from calcpack.errors import DimensionError, InputError
 from calcpack.working import Sheet, recorded
 from calcpack.working.agreement import agreement
-from calcpack.working.links import EXPORTS_DIR_ENV, SHEET_ENV, resolve_sheet
+from calcpack.working.links import SHEET_ENV, resolve_sheet
 from calcpack.working.recorded import read_results, results_path
-
-_NB = {
-    "cells": [{"cell_type": "code", "source": "x = 1", "metadata": {}, "outputs": []}],
-    "metadata": {},
-    "nbformat": 4,
-    "nbformat_minor": 5,
-}
+from tests.linkkit import PLACEHOLDER_SHEET, sheets_folder_project
 
 
 @pytest.fixture
 def project(tmp_path: Path, monkeypatch: pytest.MonkeyPatch) -> Path:
     """A preparer's beam sheet (with an inputs file) and a checker's sheet; the working folder
     is the sheets folder, as in a kernel."""
-    (tmp_path / "sheets").mkdir()
-    for name in ("01_beam", "02_check"):
-        (tmp_path / "sheets" / f"{name}.ipynb").write_text(json.dumps(_NB))
-    (tmp_path / "sheets" / "01_beam.inputs.toml").write_text('w = "10 kN/m"\n')
-    (tmp_path / "calcpack.toml").write_text(
-        '[[sheets]]\npath = "sheets/01_beam.ipynb"\ninputs = ["sheets/01_beam.inputs.toml"]\n\n'
-        '[[sheets]]\npath = "sheets/02_check.ipynb"\n'
-    )
-    monkeypatch.chdir(tmp_path / "sheets")
-    for name in ("CALCPACK_BUILDING", EXPORTS_DIR_ENV, "JPY_SESSION_NAME", SHEET_ENV):
-        monkeypatch.delenv(name, raising=False)
-    return tmp_path
+    inputs = {"01_beam": 'w = "10 kN/m"\n'}
+    return sheets_folder_project(tmp_path, ("01_beam", "02_check"), monkeypatch, inputs=inputs)
 
 
 def _run_beam(monkeypatch: pytest.MonkeyPatch, w_kN_per_m: float = 10.0) -> Sheet:
@@ -146,7 +130,10 @@ def test_a_checks_utilisation_and_a_value_per_case_are_compared(project, monkeyp
 
 def test_a_record_older_than_the_preparers_notebook_says_run_it_first(project, monkeypatch):
     _run_beam(monkeypatch)
-    nb = dict(_NB, cells=[{"cell_type": "code", "source": "x = 2", "metadata": {}, "outputs": []}])
+    nb = dict(
+        PLACEHOLDER_SHEET,
+        cells=[{"cell_type": "code", "source": "x = 2", "metadata": {}, "outputs": []}],
+    )
     (project / "sheets" / "01_beam.ipynb").write_text(json.dumps(nb))
     shown = _check(45 * ureg.kN * ureg.m)
     assert shown.comparison.agreement.agreed  # still compared, with the caution beside it
