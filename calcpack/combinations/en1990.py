@@ -130,18 +130,22 @@ def en1990_combinations(
     def gfac(f: float) -> dict[str, float]:
         return dict.fromkeys(permanent, f)
 
+    def leading(lead: str, gamma_G: float) -> dict[str, float]:
+        """γ_G on the permanent actions, γ_Q on the leading action, γ_Q ψ0 on the others."""
+        fac = gfac(gamma_G)
+        fac[lead] = gamma_Q
+        for q, p in psi.items():
+            if q != lead and p.psi0 > 0:
+                fac[q] = gamma_Q * p.psi0
+        return fac
+
     if equation == "6.10":
         combos.append(LoadCombination("6.10 (G)", gfac(gamma_G_sup), f"{ed} Eq. (6.10)"))
         for lead in psi:
-            fac = gfac(gamma_G_sup)
-            fac[lead] = gamma_Q
-            for q, p in psi.items():
-                if q != lead and p.psi0 > 0:
-                    fac[q] = gamma_Q * p.psi0
             combos.append(
                 LoadCombination(
                     f"6.10 ({lead} leading)",
-                    fac,
+                    leading(lead, gamma_G_sup),
                     f"{ed} Eq. (6.10), Table A1.2(B)",
                     (lead,),
                     note="ψ0 from Table A1.1",
@@ -156,15 +160,10 @@ def en1990_combinations(
             LoadCombination("6.10a", fac, f"{ed} Eq. (6.10a), Table A1.2(B)", note="ψ0 on all")
         )
         for lead in psi:
-            fac = gfac(xi * gamma_G_sup)
-            fac[lead] = gamma_Q
-            for q, p in psi.items():
-                if q != lead and p.psi0 > 0:
-                    fac[q] = gamma_Q * p.psi0
             combos.append(
                 LoadCombination(
                     f"6.10b ({lead} leading)",
-                    fac,
+                    leading(lead, xi * gamma_G_sup),
                     f"{ed} Eq. (6.10b), Table A1.2(B)",
                     (lead,),
                     note=f"ξ = {xi:g}",

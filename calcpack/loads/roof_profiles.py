@@ -239,11 +239,10 @@ def wind_profiles_asce7_directional(
         parts = []
         for s in roof:
             v = s.p[k] if len(s.p) > k else s.p[k % 2]
-            end = (
-                width / 2
-                if s.surface == "windward roof" and not whole
-                else (width if s.end is None else s.end.to(width.units))
-            )
+            if s.end is not None:
+                end = s.end.to(width.units)
+            else:
+                end = width / 2 if s.surface == "windward roof" and not whole else width
             parts.append((end, v))
         cp = "Cp1" if k < 2 else "Cp2"
         br, vals = _pieces(width, parts)

@@ -425,18 +425,22 @@ def snow_drift_en(site: SnowSiteEN, inputs: SnowDriftEN) -> DriftEN:
             "mu_1", 0.8, "shape coefficient away from the drift (lower roof flat)", source=ref
         )
         cap = r.derive("mu_gamma", gam * h / sk, "γ·h/s_k", unit="", ref=ref)
+
+        def drift_length(eq: str) -> Any:
+            return r.derive(
+                "l_s",
+                r.min(r.max(2 * h, Q_(5.0, "m")), Q_(15.0, "m")),
+                "drift length 2h, 5 m ≤ l_s ≤ 15 m",
+                unit="m",
+                ref=f"EN 1991-1-3 Eq. {eq}",
+            )
+
         if step:
             assert inputs.b1 is not None
             assert inputs.b2 is not None
             b1 = r.given("b_1", inputs.b1.to("m"), "plan width of the upper roof")
             b2 = r.given("b_2", inputs.b2.to("m"), "plan width of the lower roof")
-            ls = r.derive(
-                "l_s",
-                r.min(r.max(2 * h, Q_(5.0, "m")), Q_(15.0, "m")),
-                "drift length 2h, 5 m ≤ l_s ≤ 15 m",
-                unit="m",
-                ref="EN 1991-1-3 Eq. 5.9",
-            )
+            ls = drift_length("5.9")
             muw = r.derive(
                 "mu_w",
                 r.min(r.max(r.min((b1 + b2) / (2 * h), cap), 0.8), 4.0),
@@ -464,13 +468,7 @@ def snow_drift_en(site: SnowSiteEN, inputs: SnowDriftEN) -> DriftEN:
                 ref="EN 1991-1-3 Eq. 5.7",
             )
         else:
-            ls = r.derive(
-                "l_s",
-                r.min(r.max(2 * h, Q_(5.0, "m")), Q_(15.0, "m")),
-                "drift length 2h, 5 m ≤ l_s ≤ 15 m",
-                unit="m",
-                ref="EN 1991-1-3 Eq. 6.1",
-            )
+            ls = drift_length("6.1")
             mu2 = r.derive(
                 "mu_2",
                 r.min(r.max(cap, 0.8), 2.0),

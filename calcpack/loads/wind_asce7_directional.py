@@ -21,7 +21,11 @@ its orientation to the wind -- the slopes the wind meets or leaves by θ and h/L
 leeward roofs, the slopes parallel to the wind by distance from the windward edge (common
 practice; the figure's table is written for gable and hip roofs alike).
 
-Refused (OutOfScopeError naming the limit): mansard roofs; open or partially open buildings;
+Mansard roofs (wind normal to the ridge): the windward inclined surface by θ and h/L as a
+windward roof; the top surface and the leeward inclined surface as leeward surfaces of the
+table (Figure 27.3-1 note, from memory), at θ; wind parallel: zones by distance.
+
+Refused (OutOfScopeError naming the limit): open or partially open buildings;
 ``rigid=False`` without the natural frequency and damping of the building.
 
 Sign convention: pressure positive toward the surface, suction negative.
@@ -34,8 +38,8 @@ from dataclasses import dataclass
 from typing import Any, Literal
 
 from calcpack.checks.base import Recorder
-from calcpack.errors import OutOfScopeError
-from calcpack.loads.derive import Derivation, is_us_customary, run_derivation
+from calcpack.errors import InputError, OutOfScopeError
+from calcpack.loads.derive import Derivation, is_us_customary, run_derivation, steps_bundle
 from calcpack.loads.wind_asce7 import (
     ASCE7_WIND,
     ENCLOSURES,
@@ -47,7 +51,7 @@ from calcpack.loads.wind_asce7 import (
 )
 from calcpack.loads.wind_asce7_gust import BuildingVibration, record_gust_effect
 from calcpack.refdata import read_table
-from calcpack.units import Quantity
+from calcpack.units import Q_, Quantity
 from calcpack.validate import dimension, one_of, positive, within
 
 __all__ = [
@@ -60,9 +64,9 @@ __all__ = [
 ]
 
 Direction = Literal["normal to ridge", "parallel to ridge"]
-RoofForm = Literal["gable", "hip", "monoslope", "flat"]
+RoofForm = Literal["gable", "hip", "monoslope", "mansard", "flat"]
 Eave = Literal["low", "high"]
-ROOF_FORMS: tuple[RoofForm, ...] = ("gable", "hip", "monoslope", "flat")
+ROOF_FORMS: tuple[RoofForm, ...] = ("gable", "hip", "monoslope", "mansard", "flat")
 _FIG = "ASCE 7-16 Figure 27.3-1"
 _TABLE = "asce7_16_wind_cp_ch27.csv"
 
@@ -84,6 +88,8 @@ class DirectionalBuildingASCE7:
         windward_eave: monoslope roofs with wind normal to the eaves: the wind meets the
             ``"low"`` eave (the roof is a windward surface) or the ``"high"`` one (leeward).
         hip_slope: slope of a hip roof's end slopes (default: roof_slope).
+        mansard_top: a mansard roof's top surface, its plan width along the wind (the
+            inclined surfaces at roof_slope take the rest of L equally).
         wall_levels: heights at which the windward wall's q_z steps (default: those of Table
             26.10-1 below h).
     """
@@ -100,6 +106,7 @@ class DirectionalBuildingASCE7:
     vibration: BuildingVibration | None = None
     windward_eave: Eave = "low"
     hip_slope: Quantity | None = None
+    mansard_top: Quantity | None = None
     wall_levels: tuple[Quantity, ...] | None = None
 
     def __post_init__(self) -> None:
@@ -114,13 +121,20 @@ class DirectionalBuildingASCE7:
             rule="roof angle in degrees",
         )
         one_of("direction", self.direction, ("normal to ridge", "parallel to ridge"))
-        if str(self.roof) == "mansard":
-            raise OutOfScopeError(
-                "Input roof = 'mansard': the directional procedure is implemented here for "
-                "gable, hip, monoslope and flat roofs (the mansard note of ASCE 7-16 Figure "
-                "27.3-1 is not implemented)"
-            )
         one_of("roof", self.roof, ROOF_FORMS)
+        if self.roof == "mansard":
+            if self.mansard_top is None:
+                raise InputError(
+                    name="mansard_top",
+                    value=None,
+                    rule="is needed for a mansard roof",
+                    expected="the plan width of the top surface along the wind, less than L",
+                )
+            dimension("mansard_top", self.mansard_top, "[length]")
+            within("mansard_top", self.mansard_top, lo=Q_(0.0, "m"), hi=self.L,
+                   inclusive=False, rule="the top lies inside the plan (0 < top < L)")  # fmt: skip
+            within("roof_slope", float(self.roof_slope.to("deg").magnitude), lo=10.0,
+                   rule="a mansard's inclined surfaces are steeper than 10°")  # fmt: skip
         one_of("windward_eave", self.windward_eave, ("low", "high"))
         if self.hip_slope is not None:
             dimension("hip_slope", self.hip_slope, "[]")
@@ -254,6 +268,16 @@ def directional_cp_roof(b: DirectionalBuildingASCE7) -> list[Zone]:
     """
     theta = b.theta_deg
     normal = b.direction == "normal to ridge"
+    if b.roof == "mansard" and normal and b.mansard_top is not None:
+        w, lee = _facing(b, theta, "windward roof", "leeward roof")
+        L_h = float((b.L / b.h).to("").magnitude)
+        t_h = float((b.mansard_top / b.h).to("").magnitude)
+        x1, x2 = (L_h - t_h) / 2, (L_h + t_h) / 2
+        return [
+            ("windward roof", 0.0, x1, w[3], w[4]),
+            ("roof top", x1, x2, lee[3], lee[4]),
+            ("leeward roof", x2, L_h, lee[3], lee[4]),
+        ]
     if b.roof == "monoslope" and normal and theta >= 10.0:
         both = _facing(b, theta, "windward roof", "leeward roof")
         return [both[0] if b.windward_eave == "low" else both[1]]
@@ -265,8 +289,8 @@ def directional_cp_roof(b: DirectionalBuildingASCE7) -> list[Zone]:
     if b.roof != "hip":
         return main
     end = theta if b.hip_slope is None else float(b.hip_slope.to("deg").magnitude)
-    if normal:
-        return main + _distance_zones(b, "hip ends")
+    if normal:  # below 10° the zones by distance already cover the whole roof
+        return main + _distance_zones(b, "hip ends") if theta >= 10.0 else main
     if end >= 10.0:
         return main + _facing(b, end, "windward hip end", "leeward hip end")
     return main
@@ -360,9 +384,7 @@ class DirectionalWindASCE7:
         return [*self.derivation.working(settings=settings), sketch]
 
     def _repr_mimebundle_(self, include: Any = None, exclude: Any = None) -> dict[str, Any]:
-        from calcpack.working import Block
-
-        return Block(self.working(), title=self.derivation.title)._repr_mimebundle_()
+        return steps_bundle(self.working(), self.derivation.title)
 
 
 def directional_wind_asce7(
@@ -404,6 +426,11 @@ def directional_wind_asce7(
             f"{_FIG}, interpolated linearly between values of the same sign. Leeward and side "
             "walls and the roof take q_h; the windward wall takes q_z (below)."
         )
+        if b.roof == "mansard" and b.direction == "normal to ridge":
+            r.text(
+                "Mansard roof: the top surface and the leeward inclined surface are leeward "
+                "surfaces of the table (Figure 27.3-1 note), at the roof angle θ."
+            )
         if b.roof == "hip":
             r.assume(
                 "Hip roof: each slope takes the figure's value by its orientation to the wind "
@@ -421,7 +448,7 @@ def directional_wind_asce7(
         rows += [(n, c1, c2, a, e) for n, a, e, c1, c2 in roof]
         short = {"windward wall": "ww", "leeward wall": "lw", "side walls": "sw",
                  "windward roof": "wr", "leeward roof": "lr", "windward hip end": "wh",
-                 "leeward hip end": "lh"}  # fmt: skip
+                 "leeward hip end": "lh", "roof top": "rt"}  # fmt: skip
         for idx, (n, c1, c2, a, e) in enumerate(rows):
             tag = short.get(n, f"r{idx - len(walls) + 1}")
             cps = [c1] if c1 == c2 else [c1, c2]

@@ -70,6 +70,11 @@ class ExecutedSheet:
     from_cache: bool
     seconds: float
     """Wall time spent executing (0 when read from the cache)."""
+    started_at: float = 0.0
+    finished_at: float = 0.0
+    """When its execution started and finished (seconds since the epoch, comparable between the
+    build's worker processes on one machine): the build's timeline. A cached sheet has both at
+    the moment it was read."""
 
 
 @dataclass(frozen=True)
@@ -184,9 +189,11 @@ def execute_sheet(
         NotebookExecutionError: a cell raised, timed out or the kernel died (it unpickles as
             raised, so a worker's failure reaches the build as it is).
     """
-    start = time.perf_counter()
+    start, started_at = time.perf_counter(), time.time()
     text = _execute(str(project.sheet_path(sheet)), sheet.path, timeout, exports)
-    return ExecutedSheet(sheet, text, key, False, time.perf_counter() - start)
+    return ExecutedSheet(
+        sheet, text, key, False, time.perf_counter() - start, started_at, time.time()
+    )
 
 
 def _execute(path: str, sheet: str, timeout: float, exports: str | None = None) -> str:
@@ -469,7 +476,8 @@ def execute_sheets(
                     key = key_of(sheet)
                     text = _cached(cache, sheet, key) if use_cache else None
                     if text is not None:
-                        available(ExecutedSheet(sheet, text, key, True, 0.0))
+                        now = time.time()
+                        available(ExecutedSheet(sheet, text, key, True, 0.0, now, now))
                         changed = True
                     else:
                         out.append((sheet, key))

@@ -139,6 +139,19 @@ class _Reader:
         table: Mapping[str, Any] = value
         return table
 
+    def tables(self, data: Mapping[str, Any], key: str, expected: str) -> list[Mapping[str, Any]]:
+        """An array of tables (``[[key]]``) holding at least one table; ``expected`` says what
+        a table of it holds (``"a [[sheets]] table with a path"``)."""
+        items = data.get(key)
+        if not isinstance(items, list) or not items:
+            problem = "is missing" if items is None else None
+            self.fail(key, items, f"at least one [[{key}]] table{expected}", problem)
+        assert isinstance(items, list)
+        for i, item in enumerate(items, start=1):
+            if not isinstance(item, Mapping):
+                self.fail(f"{key}[{i}]", item, f"a [[{key}]] table{expected}")
+        return items
+
     def text(
         self,
         data: Mapping[str, Any],
@@ -268,20 +281,9 @@ def load_project(location: str | Path) -> Project:
     checker = r.person(people, "checker", "people.checker")
     approver = r.person(people, "approver", "people.approver")
 
-    raw_revisions = data.get("revisions")
-    if not isinstance(raw_revisions, list) or not raw_revisions:
-        r.fail(
-            "revisions",
-            raw_revisions,
-            "at least one [[revisions]] table with rev, date and description",
-            "is missing" if raw_revisions is None else None,
-        )
     revisions = []
-    assert isinstance(raw_revisions, list)
-    for i, item in enumerate(raw_revisions, start=1):
+    for i, item in enumerate(r.tables(data, "revisions", " with rev, date and description"), 1):
         where = f"revisions[{i}]"
-        if not isinstance(item, Mapping):
-            r.fail(where, item, "a [[revisions]] table")
         r.known(item, where, ("rev", "date", "description", "status", "issued"))
         rev_value = item.get("rev")
         if isinstance(rev_value, int) and not isinstance(rev_value, bool):
@@ -316,21 +318,10 @@ def load_project(location: str | Path) -> Project:
                 "is earlier than the revision before it",
             )
 
-    raw_sheets = data.get("sheets")
-    if not isinstance(raw_sheets, list) or not raw_sheets:
-        r.fail(
-            "sheets",
-            raw_sheets,
-            "at least one [[sheets]] table with a path",
-            "is missing" if raw_sheets is None else None,
-        )
-    assert isinstance(raw_sheets, list)
     sheets = []
     paths: set[str] = set()
-    for i, item in enumerate(raw_sheets, start=1):
+    for i, item in enumerate(r.tables(data, "sheets", " with a path"), start=1):
         where = f"sheets[{i}]"
-        if not isinstance(item, Mapping):
-            r.fail(where, item, "a [[sheets]] table with a path")
         r.known(item, where, ("path", "title", "number", "inputs"))
         path = r.text(item, "path", f"{where}.path", "a notebook path relative to the project")
         path = path.replace("\\", "/")

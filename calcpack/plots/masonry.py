@@ -24,7 +24,8 @@ def masonry_bearing_figure(b: Any) -> Any:
     lb = mm(b.loaded_length)
     left, lef = mm(b.left_spread), mm(b.l_efm)
     right = lef - lb - left
-    near_end = b.wall.a_1 is not None and mm(b.wall.a_1) <= left + 1e-9
+    a_1 = getattr(b, "a_1", None)
+    near_end = a_1 is not None and mm(a_1) <= left + 1e-9
     x0 = -left - (0 if near_end else 0.25 * lef)
     x1 = lb + right + 0.25 * lef
     fig = Figure(figsize=(6, 3.6))
@@ -34,13 +35,14 @@ def masonry_bearing_figure(b: Any) -> Any:
     pad_h = 0.0
     if b.padstone is not None:
         pl, pad_h = mm(b.padstone.length), mm(b.padstone.depth)
-        px = lb / 2 - pl / 2
+        px = lb / 2 - pl / 2 if b.padstone_start is None else mm(b.padstone_start)
         ax.add_patch(
             Rectangle((px, 0), pl, pad_h, facecolor="#d9d9d9", edgecolor="#525252", hatch="..")
         )
         ax.text(px + pl / 2, pad_h / 2, "padstone", ha="center", va="center", fontsize=7)
     bl = mm(b.bearing_length)
-    bx = lb / 2 - bl / 2
+    bx = lb / 2 - bl / 2 if b.bearing_start is None else mm(b.bearing_start)
+    load_x = bx + bl / 2
     ax.add_patch(
         Rectangle(
             (bx, pad_h), bl, 0.35 * max(pad_h, 100.0), facecolor="#6baed6", edgecolor="#08519c"
@@ -48,11 +50,11 @@ def masonry_bearing_figure(b: Any) -> Any:
     )
     ax.annotate(
         "",
-        xy=(lb / 2, pad_h),
-        xytext=(lb / 2, pad_h + 0.6 * max(pad_h, 150.0)),
+        xy=(load_x, pad_h),
+        xytext=(load_x, pad_h + 0.6 * max(pad_h, 150.0)),
         arrowprops={"arrowstyle": "->", "color": "#08519c", "linewidth": 1.5},
     )
-    ax.text(lb / 2, pad_h + 0.65 * max(pad_h, 150.0), "N_Edc", ha="center", fontsize=8)
+    ax.text(load_x, pad_h + 0.65 * max(pad_h, 150.0), "N_Edc", ha="center", fontsize=8)
     mid = -hc / 2
     ax.add_patch(
         Polygon(

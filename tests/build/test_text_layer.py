@@ -5,12 +5,14 @@ lintel demo by the build conftest.)"""
 
 from __future__ import annotations
 
-import re
 from typing import Any
 
 import pytest
 from examplekit import PROJECTS
 from textlayer import raw_identifiers, repeated_headings
+
+from calcpack.contract.numbers import format_number
+from calcpack.units import Q_
 
 pytestmark = pytest.mark.build
 
@@ -43,11 +45,27 @@ def test_example_packages_text_layer(packages: dict[str, Any], name: str) -> Non
         assert "Eurocode" not in text, name
 
 
+def _q(record: dict[str, Any]) -> Any:
+    return Q_(record["value"], record["unit"].replace("·", "*"))
+
+
 def test_cited_values_are_searchable(packages: dict[str, Any]) -> None:
     """Values cited in prose are text: the beam sheet's sentence can be found and copied."""
     text = " ".join(" ".join(packages["alteration_ashgrove_lane"].pages).split())
     assert "The beam analysis gives RA = 2.58 kip and RB = 2.07 kip" in text
-    deck = " ".join(" ".join(packages["deck_larkspur_court"].pages).split())
-    # the deck's loads now come from its joist sheet by case: the sentence, not its old numbers
-    cited = r"The analysis gives RB = [\d.,]+ (lbf|kip) and MB = [\d.,]+ (lbf|kip)·ft"
-    assert re.search(cited, deck)
+    built = packages["deck_larkspur_court"]
+    deck = " ".join(" ".join(built.pages).split())
+    # the bearer's dead load comes from the joist sheet's record (the joists' dead reaction by
+    # case over their spacing); two equal spans under it (beam tables): R_B = 1.25 w l,
+    # |M_B| = w l²/8, in the sheet's units at three significant figures
+    sheets = {s["path"]: s for s in built.manifest["sheets"]}
+    exports = {(e["name"], e["case"]): e for e in sheets["sheets/01_joists.ipynb"]["exports"]}
+    R_D, s_J = exports[("R_J", "D")], exports[("s_J", None)]
+    w = _q(R_D) / _q(s_J)
+    bearer = {v["name"]: v for v in sheets["sheets/02_bearer.ipynb"]["values"]}
+    span = _q(bearer["l_B"])
+    # shown in the units the bearer sheet settled for a force (its R_B) and a moment (M_BD)
+    fu, mu = bearer["R_B"]["unit"], bearer["M_BD"]["unit"]
+    R_B = format_number((1.25 * w * span).to(fu.replace("·", "*")).magnitude)
+    M_B = format_number((w * span**2 / 8).to(mu.replace("·", "*")).magnitude)
+    assert f"The analysis gives RB = {R_B} {fu} and MB = {M_B} {mu}" in deck

@@ -111,7 +111,7 @@ def test_refusals_name_the_limit():
         _b(rigid=False)
     with pytest.raises(OutOfScopeError, match="enclosure"):
         _b(enclosure="open")
-    with pytest.raises(OutOfScopeError, match="mansard"):
+    with pytest.raises(InputError, match="mansard_top"):
         _b(roof="mansard")
     with pytest.raises(InputError, match="roof"):
         _b(roof="dome")

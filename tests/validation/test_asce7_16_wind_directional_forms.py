@@ -80,6 +80,8 @@ def test_hip_roof_slopes_by_their_orientation():
     assert w.Cp == pytest.approx(-0.2)
     assert w.Cp2 == pytest.approx(0.3 + (0.2 - 0.3) * (20 / 60 - 0.25) / 0.25)
     assert p.surface("leeward hip end").Cp < 0
+    flat = directional_wind_asce7(SITE, _b(roof="hip", roof_slope=Q_(6, "deg")))
+    assert all(s.surface.startswith("roof") for s in flat.surfaces[3:])  # θ < 10°: by distance
 
 
 def test_windward_wall_takes_q_z_at_each_height():
@@ -193,6 +195,9 @@ def test_working_ends_with_the_elevation_sketch():
     svg = steps[-1].svg()
     assert "<svg" in svg
     assert f"{r.windward_profile[0].p_pos_gcpi.magnitude:+.3g}" in svg
+    bundle = r._repr_mimebundle_()
+    assert "Windward wall: q_z with height" in bundle["text/plain"]
+    assert "<svg" in bundle["text/html"] or "<img" in bundle["text/html"]
 
 
 def test_monoslope_and_hip_frames_take_their_roof_pressures():
@@ -226,3 +231,47 @@ def test_si_building_steps_at_metric_heights_and_agrees_with_us():
     for band in r.windward_profile:
         z_ft = band.top.to("ft").magnitude
         assert band.qz.to("psf").magnitude == pytest.approx(_q(z_ft), rel=2e-3)
+
+
+def test_mansard_top_and_leeward_slope_are_leeward_surfaces():
+    """Figure 27.3-1 note on mansard roofs (from memory): the top and the leeward inclined
+    surface take the table's leeward value. θ = 70°, h = 20 ft, L = 40 ft (h/L = 0.5), top
+    16 ft: windward 0.01θ = 0.7 (θ >= 60°), leeward −0.6 (h/L = 0.5, θ >= 20°); the
+    inclined surfaces 12 ft each on plan."""
+    from calcpack.loads.roof_profiles import wind_profiles_asce7_directional
+
+    r = directional_wind_asce7(
+        SITE, _b(roof="mansard", roof_slope=Q_(70, "deg"), mansard_top=Q_(16, "ft"))
+    )
+    assert [s.surface for s in r.surfaces[3:]] == ["windward roof", "roof top", "leeward roof"]
+    assert r.surface("windward roof").Cp == pytest.approx(0.7)
+    assert r.surface("roof top").Cp == pytest.approx(-0.6)
+    assert r.surface("leeward roof").Cp == pytest.approx(-0.6)
+    assert r.surface("roof top").start.to("ft").magnitude == pytest.approx(12.0)
+    assert r.surface("roof top").end.to("ft").magnitude == pytest.approx(28.0)
+    frame = wind_profiles_asce7_directional(r)[0]
+    assert [x.to("ft").magnitude for x in frame.breaks] == pytest.approx([0, 12, 28, 40])
+    with pytest.raises(InputError, match="mansard_top"):
+        _b(roof="mansard", roof_slope=Q_(70, "deg"), mansard_top=Q_(50, "ft"))
+
+
+def test_approximate_natural_frequency_section_26_11_3():
+    """§26.11.3 (from memory): n_a = 22.2/h^0.8 (steel moment frame), 43.5/h^0.9 (concrete
+    moment frame), 75/h (other); h = 150 ft: 0.4185, 0.4722 (by hand), 0.5 Hz: all flexible."""
+    from calcpack.loads.wind_asce7_gust import approximate_vibration_asce7
+
+    h = Q_(150, "ft")
+    steel = approximate_vibration_asce7(h, "steel moment frame", damping=0.01)
+    assert steel.n1.to("Hz").magnitude == pytest.approx(22.2 / 150**0.8, rel=1e-12)
+    assert steel.flexible
+    assert "Eq. 26.11-2" in steel.n1_source
+    conc = approximate_vibration_asce7(h, "concrete moment frame")
+    assert conc.n1.to("Hz").magnitude == pytest.approx(43.5 / 150**0.9, rel=1e-12)
+    other = approximate_vibration_asce7(Q_(45.72, "m"), "other steel or concrete")
+    assert other.n1.to("Hz").magnitude == pytest.approx(0.5, rel=1e-9)
+    with pytest.raises(OutOfScopeError, match="300 ft"):
+        approximate_vibration_asce7(Q_(320, "ft"), "steel moment frame")
+    with pytest.raises(OutOfScopeError, match="C_w"):
+        approximate_vibration_asce7(h, "shear wall")
+    with pytest.raises(InputError, match="system"):
+        approximate_vibration_asce7(h, "braced frame")  # type: ignore[arg-type]

@@ -26,8 +26,14 @@ CLASS5 = Q_(100, "psf/ft")  # IBC 2018 Table 1806.2, class 5 soils (from memory)
 
 
 def _post(**kw):
-    args = {"P": Q_(300, "lbf"), "h": Q_(3, "ft"), "b": Q_(2, "ft"), "d": Q_(4, "ft"),
-            "lateral_bearing": CLASS5, "lateral_source": "IBC 2018 Table 1806.2, class 5"}
+    args = {
+        "P": Q_(300, "lbf"),
+        "h": Q_(3, "ft"),
+        "b": Q_(2, "ft"),
+        "d": Q_(4, "ft"),
+        "lateral_bearing": CLASS5,
+        "lateral_source": "IBC 2018 Table 1806.2, class 5",
+    }
     args.update(kw)
     return EmbeddedPost(**args)  # fmt: skip
 

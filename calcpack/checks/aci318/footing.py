@@ -35,8 +35,10 @@ from calcpack.checks.aci318.footing_data import (
     ACIFootingDesign,
     Direction,
     FootingActions,
+    bar_count,
     column_aspect,
     factored_actions,
+    punching_shear,
     show_actions,
     two_way_perimeter,
     uplift_not_covered,
@@ -282,10 +284,7 @@ class _ACILogic:
             ref="ACI 318-19 §8.7.2.2",
         )
         need = max(c.q(As_req), c.q(As_min))
-        span = c.q(b) - 2 * c.q(cov) - c.q(db)
-        n_val = max(
-            2, math.ceil(float(need / c.q(Ab))), math.ceil(float(span / c.q(smax)) - 1e-9) + 1
-        )
+        n_val = bar_count(need, c.q(Ab), c.q(b) - 2 * c.q(cov) - c.q(db), c.q(smax))
         n = c.given(f"n_{ax}", n_val, "number of bars (enough steel, spacing within s_max)")
         As = c.derive(f"A_s_{ax}", n * Ab, "steel provided", unit="inch**2")
         self.As[ax] = c.q(As)
@@ -434,13 +433,7 @@ class _ACILogic:
                 unit="kip",
             )
         else:
-            Vu = c.given(
-                "V_u2",
-                a.Vu2,
-                f"punching shear, {a.Vu2_combination}",
-                source="column load less the net pressure inside the perimeter",
-                unit="kip",
-            )
+            Vu = punching_shear(c, a)
         beta = column_aspect(c, f.column)
         ls = self._lambda_s(c, d, "lambda_s")
         als = c.given("alpha_s", 40, "interior column", source="ACI 318-19 §22.6.5.3")

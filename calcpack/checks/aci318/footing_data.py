@@ -178,6 +178,27 @@ def column_aspect(c: Recorder, column: Column) -> Any:
     return c.given("beta_c", float(max(l1, l2) / min(l1, l2)), "column long side / short side")
 
 
+def bar_count(need: Quantity, bar_area: Quantity, span: Quantity, s_max: Quantity) -> int:
+    """The fewest bars, at least two, that give the area ``need`` with a spacing no more than
+    ``s_max`` over ``span`` (between the outer bars' centres). Shared by the ACI 318 and
+    EN 1992 footings."""
+    by_area = math.ceil(float((need / bar_area).to("").magnitude))
+    # the round-off allowance keeps a span of exactly k·s_max at k spaces
+    by_spacing = math.ceil(float((span / s_max).to("").magnitude) - 1e-9) + 1
+    return max(2, by_area, by_spacing)
+
+
+def punching_shear(c: Recorder, a: FootingActions) -> Any:
+    """V_u2 of the governing combination, as the actions give it (kip)."""
+    return c.given(
+        "V_u2",
+        a.Vu2,
+        f"punching shear, {a.Vu2_combination}",
+        source="column load less the net pressure inside the perimeter",
+        unit="kip",
+    )
+
+
 def moment_section(column: Column) -> tuple[Quantity, Quantity]:
     """Distances from the centre to the critical sections for moment along x and y (§13.2.7.1)."""
     c1 = column.c1

@@ -27,6 +27,7 @@ from calcpack.checks.aci318.footing_data import (
     FootingActions,
     column_aspect,
     factored_actions,
+    punching_shear,
     two_way_perimeter,
     uplift_not_covered,
 )
@@ -173,13 +174,7 @@ class _PlainLogic:
         perimeter = two_way_perimeter(c, a, "h_s/2")
         if perimeter is not None:
             b0 = perimeter[2]
-            Vu = c.given(
-                "V_u2",
-                a.Vu2,
-                f"punching shear, {a.Vu2_combination}",
-                source="column load less the net pressure inside the perimeter",
-                unit="kip",
-            )
+            Vu = punching_shear(c, a)
             beta = column_aspect(c, f.column)
             pVn = c.derive(
                 "phi_V_n2",

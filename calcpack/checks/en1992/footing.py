@@ -32,6 +32,7 @@ from typing import Any, Literal
 
 from calcpack.checks.aci318.footing_data import (
     Direction,
+    bar_count,
     factored_actions,
     show_actions,
     uplift_not_covered,
@@ -286,10 +287,7 @@ class _ECLogic:
         )
         cov = self.dz.cover
         need = max(c.q(As_req), c.q(As_min))
-        span = c.q(b) - 2 * cov - c.q(phi)
-        n_val = max(
-            2, math.ceil(float(need / c.q(Ab))), math.ceil(float(span / c.q(smax)) - 1e-9) + 1
-        )
+        n_val = bar_count(need, c.q(Ab), c.q(b) - 2 * cov - c.q(phi), c.q(smax))
         n = c.given(f"n_{ax}", n_val, "number of bars")
         As = c.derive(f"A_s_{ax}", n * Ab, "steel provided", unit="mm**2")
         self.As[ax] = c.q(As)

@@ -108,26 +108,18 @@ def classify(
         alpha, psi = 1.0, 1.0
     wt = tw_mm / 2 if sec.family in ("SHS", "RHS") else tw_mm
     out.append(_web(c_web / wt, eps, alpha, psi, "web"))
-    if sec.family in ("SHS", "RHS"):
-        lim = (33 * eps, 38 * eps, 42 * eps)
-        out.append(
-            Element(
-                "flange",
-                c_fl / tf_mm,
-                lim,
-                _cls(c_fl / tf_mm, lim),
-                "internal flange in compression: 33ε, 38ε, 42ε",
-            )
+    # a hollow section's flange is internal (Table 5.2 sheet 1), an I-section's an outstand
+    internal = sec.family in ("SHS", "RHS")
+    k = (33, 38, 42) if internal else (9, 10, 14)
+    lim = (k[0] * eps, k[1] * eps, k[2] * eps)
+    kind = "internal" if internal else "outstand"
+    out.append(
+        Element(
+            "flange",
+            c_fl / tf_mm,
+            lim,
+            _cls(c_fl / tf_mm, lim),
+            f"{kind} flange in compression: {k[0]}ε, {k[1]}ε, {k[2]}ε",
         )
-    else:
-        lim = (9 * eps, 10 * eps, 14 * eps)
-        out.append(
-            Element(
-                "flange",
-                c_fl / tf_mm,
-                lim,
-                _cls(c_fl / tf_mm, lim),
-                "outstand flange in compression: 9ε, 10ε, 14ε",
-            )
-        )
+    )
     return Classification(eps, tuple(out))

@@ -212,10 +212,10 @@ class _NDSLogic:
         del Ep
 
         # screen every combination with numbers, then work the governing one in full
-        best_b: tuple[float, int] | None = None
-        best_v: tuple[float, int] | None = None
+        u_b: list[float] = []
+        u_v: list[float] = []
         rows = []
-        for i, it in enumerate(self.items):
+        for it in self.items:
             n = Recorder(c.member)
             Fbp = self._Fbp(
                 n,
@@ -244,12 +244,11 @@ class _NDSLogic:
                     round(uv, 3),
                 ]
             )
-            if best_b is None or ub > best_b[0]:
-                best_b = (ub, i)
-            if best_v is None or uv > best_v[0]:
-                best_v = (uv, i)
-        assert best_b is not None
-        assert best_v is not None
+            u_b.append(ub)
+            u_v.append(uv)
+        # the first of the largest governs
+        i_b = max(range(len(u_b)), key=u_b.__getitem__)
+        i_v = max(range(len(u_v)), key=u_v.__getitem__)
         if len(self.items) > 1:
             c.table(
                 ["Combination", "C_D", "M", "Bending utilisation", "V", "Shear utilisation"],
@@ -259,7 +258,7 @@ class _NDSLogic:
                 "below",
             )
 
-        it = self.items[best_b[1]]
+        it = self.items[i_b]
         c.heading(f"Bending, NDS 2018 §3.3 (governing: {it['combination']})", 3)
         Fbp = self._Fbp(c, Fb, CMb, Ctb, CF, Cfu, Cib, Cr, Eminp, b, d, it)
         M = c.given(
@@ -268,7 +267,7 @@ class _NDSLogic:
         fb = c.derive("f_b", M / S, "bending stress", unit="psi", ref="NDS 2018 §3.3.2, M/S")
         c.check("Bending", fb, Fbp, ref="NDS 2018 §3.3", combination=it["combination"])
 
-        it = self.items[best_v[1]]
+        it = self.items[i_v]
         c.heading(f"Shear, NDS 2018 §3.4 (governing: {it['combination']})", 3)
         CD = c.given(
             "C_D",

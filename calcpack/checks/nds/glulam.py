@@ -88,20 +88,19 @@ def check_nds_glulam_beam(
                 "C_V uses the whole beam length for L (the distance between points of zero "
                 "moment is not longer): conservative."
             )
-        best_b: tuple[float, int] | None = None
-        best_v: tuple[float, int] | None = None
+        u_b: list[float] = []
+        u_v: list[float] = []
         A = m.b * m.d
-        for i, it in enumerate(items):
+        for it in items:
             n = Recorder(c.member)
             r = _bending(n, m, it["M"], Q_(it["CD"], ""), m.b, m.d, "d", "glulam", None)
             ub = float((r["fb"] / r["Fbp"]).to("").magnitude)
             uv = float((1.5 * it["V"] / A / (v.Fv * it["CD"])).to("").magnitude)
-            if best_b is None or ub > best_b[0]:
-                best_b = (ub, i)
-            if best_v is None or uv > best_v[0]:
-                best_v = (uv, i)
-        assert best_b is not None
-        assert best_v is not None
+            u_b.append(ub)
+            u_v.append(uv)
+        # the first of the largest governs
+        i_b = max(range(len(u_b)), key=u_b.__getitem__)
+        i_v = max(range(len(u_v)), key=u_v.__getitem__)
         if len(items) > 1:
             c.table(
                 ["Combination", "C_D", "M", "V"],
@@ -117,7 +116,7 @@ def check_nds_glulam_beam(
                 caption="Every ASD combination (C_D from the shortest-duration load, NDS 2018 "
                 "§2.3.2); the governing ones are worked below",
             )
-        it = items[best_b[1]]
+        it = items[i_b]
         c.heading(f"Bending, NDS 2018 §3.3 and §5.3.6 (governing: {it['combination']})", 3)
         CD = c.given(
             "C_D",
@@ -131,7 +130,7 @@ def check_nds_glulam_beam(
         d = c.given("d", m.d, "depth", source="given", unit="inch")
         _bending(c, m, it["M"], CD, b, d, "d", "glulam", it["combination"])
 
-        it = items[best_v[1]]
+        it = items[i_v]
         c.heading(f"Shear, NDS 2018 §3.4 (governing: {it['combination']})", 3)
         CDv = c.given(
             "C_D_v",

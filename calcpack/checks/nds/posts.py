@@ -3,18 +3,19 @@
 :func:`check_nds_post` takes the post's axial loads by load case (unfactored, as a takedown
 gives them: positive in compression) and, optionally, its moments by case, forms every
 combination of an allowable stress set, runs :func:`check_nds_member` for each with C_D of the
-shortest-duration load in it (NDS 2018 §2.3.2, Table 2.3.2) and returns the checks of the
-governing combination (the largest utilisation), with a table of every combination in its
-working. The checks themselves are those of :mod:`calcpack.checks.nds.members`.
+shortest-duration load in it (NDS 2018 §2.3.2, Table 2.3.2) and returns each check (compression,
+bending, their interaction) under the combination that governs it, with a table of every
+combination in its working and the governing combinations worked out. The checks themselves
+are those of :mod:`calcpack.checks.nds.members`.
 """
 
 from __future__ import annotations
 
 from collections.abc import Mapping
 from dataclasses import replace
-from typing import Any
+from typing import Any, cast
 
-from calcpack.checks.base import MemberChecks, run_checks
+from calcpack.checks.base import MemberChecks, Recorder, run_checks
 from calcpack.checks.nds.factors import DEFAULT_DURATIONS, DURATION_FACTORS, duration_of
 from calcpack.checks.nds.members import TimberForces, TimberMember, check_nds_member
 from calcpack.combinations.model import CombinationSet
@@ -34,7 +35,7 @@ def check_nds_post(
     durations: Mapping[str, str] | None = None,
     mark: str = "P1",
 ) -> MemberChecks:
-    """Check a post for every combination of its loads; return the governing one's checks.
+    """Check a post for every combination of its loads; each check under its governing one.
 
     Args:
         member: the post (its ``duration`` is replaced per combination).
@@ -79,18 +80,50 @@ def check_nds_post(
             value=dict(axial),
             expected="a load that some combination does not cancel",
         )
-    u, name, governing = max(runs, key=lambda t: t[0])
+    # the worst combination of each check (compression, bending, their interaction...)
+    worst: dict[str, tuple[float, str]] = {}
+    for _, cname, checks in runs:
+        for r in checks.results:
+            u = r.utilisation or 0.0
+            if r.name not in worst or u > worst[r.name][0]:
+                worst[r.name] = (u, cname)
+    shown = [t for t in runs if any(w[1] == t[1] for w in worst.values())]
+    shown.sort(key=lambda t: -t[0])
+    first = shown[0][2]
 
     def logic(c: Any) -> None:
         c.text(
             f"Every {combinations.name} combination is checked with C_D of its shortest-"
-            "duration load (NDS 2018 §2.3.2); the governing one is worked below."
+            "duration load (NDS 2018 §2.3.2); the combination that governs each check is "
+            "worked below."
         )
         c.table(
             ["Combination", "P (+ compression)", "M", "Load duration", "Largest utilisation"],
             rows,
-            caption=f"Post {mark}: every combination (governing: {name})",
+            caption=f"Post {mark}: every combination",
         )
-        governing.logic(c)
+        for _, cname, checks in shown:
+            if len(shown) > 1:
+                c.heading(f"Combination {cname}", 4)
+            checks.logic(cast(Recorder, _Governed(c, cname, worst)))
 
-    return run_checks(mark, governing.title, governing.standard, logic)
+    return run_checks(mark, first.title, first.standard, logic)
+
+
+class _Governed:
+    """A recorder that records only the checks ``combination`` governs; the others are
+    mentioned in words (their governing combination is worked elsewhere)."""
+
+    def __init__(self, inner: Any, combination: str, worst: dict[str, tuple[float, str]]):
+        self._inner = inner
+        self._combination = combination
+        self._worst = worst
+
+    def __getattr__(self, name: str) -> Any:
+        return getattr(self._inner, name)
+
+    def check(self, name: str, demand: Any, capacity: Any, **kw: Any) -> Any:
+        if self._worst[name][1] == self._combination:
+            return self._inner.check(name, demand, capacity, **kw)
+        self._inner.text(f"{name}: governed by combination {self._worst[name][1]}.")
+        return None
