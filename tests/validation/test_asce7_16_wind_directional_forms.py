@@ -195,6 +195,9 @@ def test_working_ends_with_the_elevation_sketch():
     svg = steps[-1].svg()
     assert "<svg" in svg
     assert f"{r.windward_profile[0].p_pos_gcpi.magnitude:+.3g}" in svg
+    bundle = r._repr_mimebundle_()
+    assert "Windward wall: q_z with height" in bundle["text/plain"]
+    assert "<svg" in bundle["text/html"] or "<img" in bundle["text/html"]
 
 
 def test_monoslope_and_hip_frames_take_their_roof_pressures():
