@@ -8,6 +8,8 @@ from __future__ import annotations
 import io
 from typing import Any
 
+from calcpack.plots.labels import number_label, quantity_label
+
 __all__ = ["masonry_bearing_drawing", "masonry_bearing_figure", "masonry_bearing_svg"]
 
 
@@ -73,9 +75,13 @@ def masonry_bearing_figure(b: Any) -> Any:
         xytext=(lb + right, mid - 0.06 * hc),
         arrowprops={"arrowstyle": "<->", "linewidth": 0.8},
     )
-    ax.text(lb / 2, mid - 0.12 * hc, f"l_efm = {lef:.0f} mm", ha="center", fontsize=8)
+    ax.text(
+        lb / 2, mid - 0.12 * hc, f"l_efm = {quantity_label(lef, 'mm')}", ha="center", fontsize=8
+    )
     ax.text(lb + 0.45 * right, -0.1 * hc, "60°", fontsize=8)
-    ax.text(lb / 2, -0.05 * hc, f"loaded length {lb:.0f} mm", ha="center", fontsize=7)
+    ax.text(
+        lb / 2, -0.05 * hc, f"loaded length {quantity_label(lb, 'mm')}", ha="center", fontsize=7
+    )
     ax.annotate(
         "",
         xy=(x1 - 0.05 * lef, 0),
@@ -86,7 +92,9 @@ def masonry_bearing_figure(b: Any) -> Any:
     if near_end:
         ax.plot([x0, x0], [-hc, 0], color="black", linewidth=2)
         ax.text(x0 - 0.03 * lef, -0.3 * hc, "wall end", fontsize=7, rotation=90, ha="right")
-    ax.set_title(f"Concentrated load on masonry: β = {b.beta:.2f} (EN 1996-1-1 §6.1.3)", fontsize=9)
+    ax.set_title(
+        f"Concentrated load on masonry: β = {number_label(b.beta)} (EN 1996-1-1 §6.1.3)", fontsize=9
+    )
     ax.set_aspect("equal")
     ax.axis("off")
     ax.set_xlim(x0 - 0.05 * lef, x1 + 0.3 * lef)

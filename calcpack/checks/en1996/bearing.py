@@ -429,7 +429,7 @@ def _padstone(
     lc = c.derive(
         "l_c",
         2 * c.min(xb + b1 / 2, lp - xb - b1 / 2),
-        "length of padstone centred on the bearing (each side up to the nearer padstone end)",
+        "length of padstone centred on the bearing, each side up to the nearer padstone end",
         unit="mm",
     )
     k = similar_area_ratio((lb, wb), (c.q(lc), p.width), p.depth, "EN 1992-1-1")
