@@ -325,6 +325,7 @@ from calcpack.loads.wind_asce7_directional import (
 )
 from calcpack.loads.wind_asce7_gust import (
     BuildingVibration as BuildingVibration,
+    approximate_vibration_asce7 as approximate_vibration_asce7,
     gust_effect_factor_asce7 as gust_effect_factor_asce7,
 )
 from calcpack.loads.wind_asce7_cc import (

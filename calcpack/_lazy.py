@@ -313,6 +313,7 @@ PUBLIC: dict[str, str] = {
     "wind_profiles_asce7_directional": "calcpack.loads.roof_profiles",
     "BuildingVibration": "calcpack.loads.wind_asce7_gust",
     "gust_effect_factor_asce7": "calcpack.loads.wind_asce7_gust",
+    "approximate_vibration_asce7": "calcpack.loads.wind_asce7_gust",
     "wall_profiles_asce7_directional": "calcpack.loads.wall_cases",
     "wall_line_loads": "calcpack.loads.wall_cases",
     "AnchorGroup": "calcpack.checks.aci318.anchor_data",

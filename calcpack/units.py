@@ -246,6 +246,45 @@ class DisplaySettings:
             text = str(unit)
             self.kinds[kind] = text if "⋅" not in text else f"{unit:D}"
 
+    def default_unit(self, quantity: pint.Quantity | pint.Unit) -> pint.Unit | None:
+        """The unit a value that asks for none is shown in: the sheet's unit for its kind,
+        else, when its own unit belongs to the other unit system (kN·m on a US sheet), this
+        system's unit for the kind (:func:`system_unit`); None keeps its own unit."""
+        settled = self.kind_unit(quantity)
+        if settled is not None:
+            return settled
+        own = unit_system(quantity.units if isinstance(quantity, pint.Quantity) else quantity)
+        if own is not None and own != self.system:
+            return system_unit(quantity, self.system)
+        return None
+
+    def in_system(self, unit: pint.Unit) -> pint.Unit:
+        """``unit``, or when it belongs to the other unit system, this system's unit for its
+        kind (the sheet's unit for that kind once settled)."""
+        own = unit_system(unit)
+        if own is None or own == self.system:
+            return unit
+        return (
+            self.kind_unit(system_unit(unit, self.system) or unit)
+            or system_unit(unit, self.system)
+            or unit
+        )
+
+    def settle(self, quantity: pint.Quantity, unit: pint.Unit, *, asked: bool = False) -> None:
+        """Let a value shown in ``unit`` settle the sheet's unit for its kind -- unless it
+        cannot speak for the kind: a zero (a moment of 0 kN·m an analysis wrote in its own
+        units), a number, or a value in the other unit system's units (which would turn every
+        later value of the kind away from the sheet's preset), unless its step ``asked`` for
+        a unit of this system."""
+        magnitude = quantity.magnitude
+        values = magnitude.ravel() if hasattr(magnitude, "ravel") else (magnitude,)
+        if not any(float(v) != 0.0 for v in values):
+            return
+        for own in (unit_system(unit), None if asked else unit_system(quantity.units)):
+            if own is not None and own != self.system:
+                return
+        self.keep_unit(unit)
+
 
 _FAMILIES: dict[str, tuple[tuple[float, str], ...]] = {
     # SI factor of the unit from which the family starts, and its name, largest first
@@ -287,6 +326,89 @@ def quantity_kind(reference: pint.Quantity | pint.Unit) -> str:
     factor = abs(float(ureg.Quantity(1.0, unit).to_base_units().magnitude))
     family = next(name for start, name in families if factor >= start)
     return f"{dim} ({family})"
+
+
+_SYSTEM_UNITS: dict[str, dict[str, str]] = {
+    "SI": {
+        "span": "m",
+        "dimension": "mm",
+        "plan area": "m**2",
+        "section area": "mm**2",
+        "volume": "m**3",
+        "section modulus": "mm**3",
+        "area load": "kPa",
+        "stress": "MPa",
+        "modulus": "GPa",
+    },
+    "US": {
+        "span": "ft",
+        "dimension": "inch",
+        "plan area": "ft**2",
+        "section area": "inch**2",
+        "volume": "ft**3",
+        "section modulus": "inch**3",
+        "area load": "psf",
+        "stress": "ksi",
+        "modulus": "ksi",
+    },
+}
+"""Each system's unit for the families of :data:`_FAMILIES` (common practice); the other
+dimensions take the system's preset (:data:`PRESETS`)."""
+
+_US_UNITS = frozenset(
+    {
+        "foot",
+        "inch",
+        "yard",
+        "mile",
+        "pound",
+        "force_pound",
+        "kip",
+        "psi",
+        "ksi",
+        "pound_force_per_square_inch",
+        "kip_per_square_inch",
+        "ksf",
+        "psf",
+        "plf",
+        "klf",
+        "pcf",
+        "force_ounce",
+        "ounce",
+        "ton",
+        "short_ton",
+        "force_ton",
+        "gallon",
+        "acre",
+        "degree_Fahrenheit",
+        "kilopound_force",
+    }
+)
+_SI_UNITS = frozenset(
+    {"meter", "newton", "pascal", "gram", "liter", "metric_ton", "bar", "degree_Celsius", "kelvin"}
+)
+
+
+def unit_system(unit: pint.Unit) -> str | None:
+    """ "US" for US customary units (ft, lbf, kip, psf...), "SI" for metric ones (m, kN,
+    MPa...), None for a unit of neither or of both (s, rad, a number, lbf/m²)."""
+    found: set[str] = set()
+    for name in unit._units:  # the unit's named parts, prefixes included (kilonewton...)
+        for _, base, _ in ureg.parse_unit_name(name):
+            if base in _US_UNITS:
+                found.add("US")
+            elif base in _SI_UNITS:
+                found.add("SI")
+    return found.pop() if len(found) == 1 else None
+
+
+def system_unit(quantity: pint.Quantity | pint.Unit, system: str) -> pint.Unit | None:
+    """The unit ``system`` shows values of ``quantity``'s kind in, or None if it has none."""
+    kind = quantity_kind(quantity)
+    family = kind.rsplit(" (", 1)[1].rstrip(")") if kind.endswith(")") else ""
+    if family:
+        return ureg.Unit(_SYSTEM_UNITS[system][family])
+    return PRESETS[system].unit_for(quantity)
 
 
 def _kind_key(reference: pint.Quantity | pint.Unit) -> str:

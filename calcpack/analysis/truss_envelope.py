@@ -15,9 +15,8 @@ from collections.abc import Iterable, Mapping
 from dataclasses import dataclass
 from typing import Any
 
-from calcpack.errors import InputError
 from calcpack.units import Quantity, si
-from calcpack.validate import at_least, find
+from calcpack.validate import at_least, find, positive, required
 
 __all__ = ["MemberEnvelope", "SignedForce", "member_envelopes"]
 
@@ -78,14 +77,9 @@ def member_envelopes(
     at_least("results", results, what="combination's result")
     weights = dict.fromkeys(results, 1.0) if factors is None else dict(factors)
     for name in results:
-        w = weights.get(name)
-        if w is None or not w > 0:
-            raise InputError(
-                f"Combination {name!r} needs a positive resistance factor (got {w!r})",
-                name=f"factors[{name!r}]",
-                value=w,
-                expected="a number > 0, e.g. the load duration factor C_D",
-            )
+        factor = f"factors[{name!r}]"
+        what = "the resistance factor of the combination, e.g. the load duration factor C_D"
+        positive(factor, required(factor, weights.get(name), expected=what), note=what)
     first = next(iter(results.values()))
     names = list(first.forces) if members is None else list(members)
     for m in names:

@@ -33,7 +33,7 @@ import numpy.typing as npt
 from calcpack import views
 from calcpack.errors import InputError
 from calcpack.units import Quantity, is_quantity, require, si, ureg
-from calcpack.validate import at_least, each_instance, find
+from calcpack.validate import at_least, each_instance, find, non_empty
 
 __all__ = ["JointLoad", "Member", "Node", "Support", "Truss"]
 
@@ -48,13 +48,8 @@ _COINCIDENT_REL = 1e-9
 
 
 def _check_name(name: object, what: str) -> str:
-    if not isinstance(name, str) or not name.strip():
-        raise InputError(
-            f"{what} name must be a non-empty string (got {name!r})",
-            name=f"{what.lower()} name",
-            value=name,
-            expected="a non-empty string such as 'A'",
-        )
+    non_empty(f"{what.lower()} name", name, expected="a name such as 'A'")
+    assert isinstance(name, str)
     return name
 
 

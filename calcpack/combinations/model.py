@@ -20,7 +20,7 @@ from collections.abc import Iterable, Iterator, Mapping, Sequence
 from dataclasses import dataclass, field
 
 from calcpack.errors import InputError
-from calcpack.validate import at_least, each_instance, find, one_of
+from calcpack.validate import at_least, each_instance, find, finite, instance, non_empty, one_of
 
 __all__ = [
     "AppliedCombination",
@@ -52,26 +52,9 @@ def _check_factors(factors: Mapping[str, float], where: str) -> dict[str, float]
     out: dict[str, float] = {}
     at_least(f"factors of combination {where}", factors, what="load factor")
     for case, f in factors.items():
-        if not isinstance(case, str) or not case.strip():
-            raise InputError(
-                f"Combination {where}: load case names must be non-empty strings (got {case!r})",
-                name="factors",
-                value=case,
-                expected="a case name such as 'D'",
-            )
-        if (
-            isinstance(f, bool)
-            or not isinstance(f, int | float)
-            or f != f
-            or abs(f) == float("inf")
-        ):
-            raise InputError(
-                f"Combination {where}: load factor for {case!r} must be a finite number (got "
-                f"{f!r})",
-                name=f"factors[{case!r}]",
-                value=f,
-                expected="a finite number",
-            )
+        non_empty(f"load case of combination {where}", case, expected="a case name such as 'D'")
+        factor = f"factors[{case!r}] of combination {where}"
+        finite(factor, instance(factor, f, (int, float), expected="a finite number"))
         out[case] = float(f)
     return out
 

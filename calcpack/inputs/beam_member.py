@@ -148,7 +148,7 @@ class BeamMemberCase:
                     dm.strength, Fy=v["Fy"], method=dm.method, braces=dm.braces,
                     continuous_bracing=dm.continuous_bracing, deflections=dm.deflections,
                     family=shape.type, E=v["E"], member=self.mark,  # type: ignore[arg-type]
-                    material=v["grade"],
+                    material=v["grade"], shapes=[shape.designation] if single else None,
                 )  # fmt: skip
         if self.material == "sawn":
             size = self.section

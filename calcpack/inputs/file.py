@@ -2,9 +2,10 @@
 
 Quantities are written as strings with their unit, e.g. ``span = "3.2 m"`` or
 ``w = "8.5 kN/m"``; bare numbers are dimensionless (load factors, ratios); other strings
-(``"pin"``, ``"B1"``) stay text, and so do nominal lumber sizes (``"2x10"``, ``"6x6"``). Any
-other string that starts with a number must carry a unit that pint knows, so ``"3.2"`` (a
-number written as text, unit forgotten) is refused rather than guessed.
+(``"pin"``, ``"B1"``) stay text, and so do nominal lumber sizes (``"2x10"``, ``"6x6"``) and
+glulam stress classes (``"24F-1.8E"``). Any other string that starts with a number must carry
+a unit that pint knows, so ``"3.2"`` (a number written as text, unit forgotten) is refused
+rather than guessed.
 
 :func:`load_inputs` reads a file and returns plain dicts and lists with quantities in place of the
 unit strings; :func:`update_inputs` changes some values in place, keeping the file's comments and
@@ -48,8 +49,9 @@ __all__ = [
 ]
 
 _NUMBER_START = re.compile(r"^\s*[-+]?(\d|\.\d)")
-# a nominal lumber size ("2x10", "6x6", "4 x 12"): the trade's name of a size, never a quantity
-_NOMINAL_SIZE = re.compile(r"^\s*\d+\s*[x×]\s*\d+\s*$")
+# the trade's designations that start with a number, never quantities: a nominal lumber size
+# ("2x10", "6x6", "4 x 12") and a glulam stress class ("24F-1.8E", "20F-1.5E", "24F-V4")
+_DESIGNATION = re.compile(r"^\s*(\d+\s*[x×]\s*\d+|\d+F-[0-9.]+E|\d+F-V\d+)\s*$")
 
 
 class InputsFileError(InputError):
@@ -124,7 +126,7 @@ def parse_quantity(text: str, key: str, *, path: Path | str | None = None) -> Qu
 
 def _convert(value: Any, key: str, path: Path | str | None) -> Any:
     if isinstance(value, str):
-        if _NUMBER_START.match(value) and not _NOMINAL_SIZE.match(value):
+        if _NUMBER_START.match(value) and not _DESIGNATION.match(value):
             return parse_quantity(value, key, path=path)
         return value
     if isinstance(value, Mapping):

@@ -38,6 +38,7 @@ from calcpack.checks.base import MemberChecks
 from calcpack.errors import CalcpackError, InputError
 from calcpack.inputs.file import InputsFileError, Spec, require_input
 from calcpack.inputs.layout import Table, Tables, refuse_unknown_keys
+from calcpack.inputs.sized import governing_check
 from calcpack.sections.aisc_database import SteelShape, aisc_shape
 from calcpack.sizing import SizingResult, aisc_candidates, lightest_sections
 from calcpack.sizing.search import Order
@@ -82,12 +83,7 @@ class MemberOutcome:
 
     @property
     def governing(self) -> tuple[float, str, str, str]:
-        best = (-1.0, "", "", "")
-        for mc in self.checks:
-            for r in mc.results:
-                if r.utilisation is not None and r.utilisation > best[0]:
-                    best = (float(r.utilisation), r.name, r.clause, r.combination or "")
-        return best
+        return governing_check(self.checks)
 
     @property
     def passed(self) -> bool:

@@ -3,7 +3,7 @@ section's checks, and errors of the checks turned into errors at an inputs-file 
 
 from __future__ import annotations
 
-from collections.abc import Iterator
+from collections.abc import Iterator, Sequence
 from contextlib import contextmanager
 from dataclasses import dataclass
 from typing import Any
@@ -12,7 +12,18 @@ from calcpack.errors import InputError, OutOfScopeError
 from calcpack.inputs.file import InputsFileError
 from calcpack.units import Quantity
 
-__all__ = ["SizedOutcome", "as_inputs_error"]
+__all__ = ["SizedOutcome", "as_inputs_error", "governing_check"]
+
+
+def governing_check(checks: Sequence[Any]) -> tuple[float, str, str, str]:
+    """(utilisation, check, clause, combination) of the largest utilisation of ``checks``
+    (:class:`calcpack.checks.MemberChecks`); (-1.0, "", "", "") when none has one."""
+    best = (-1.0, "", "", "")
+    for mc in checks:
+        for r in mc.results:
+            if r.utilisation is not None and r.utilisation > best[0]:
+                best = (float(r.utilisation), r.name, r.clause, r.combination or "")
+    return best
 
 
 @dataclass(frozen=True)
@@ -35,12 +46,7 @@ class SizedOutcome:
     @property
     def governing(self) -> tuple[float, str, str, str]:
         """(utilisation, check, clause, combination) of the largest utilisation."""
-        best = (-1.0, "", "", "")
-        for mc in self.checks:
-            for r in mc.results:
-                if r.utilisation is not None and r.utilisation > best[0]:
-                    best = (float(r.utilisation), r.name, r.clause, r.combination or "")
-        return best
+        return governing_check(self.checks)
 
 
 @contextmanager

@@ -216,13 +216,13 @@ def lightest_timber_post(
     return case.space(sizes).search(count=count, order=order, max_depth=max_depth)
 
 
-def post_pick_changes(case: TimberPostCase, size: str) -> dict[str, Any]:
-    """The inputs-file edits that make ``size`` the post's size (and its dressed b, d where
-    the table states them)."""
+def post_pick_changes(case: TimberPostCase, name: str) -> dict[str, Any]:
+    """The inputs-file edits that make the size ``name`` the post's size (and its dressed b, d
+    where the table states them)."""
     t = case.table_name
-    changes: dict[str, Any] = {f"{t}.size": size}
+    changes: dict[str, Any] = {f"{t}.size": name}
     if "b" in case.keys or "d" in case.keys:
-        m = case.space(sizes=[size]).candidates[0].item
+        m = case.space(sizes=[name]).candidates[0].item
         for k in ("b", "d"):
             if k in case.keys:
                 changes[f"{t}.{k}"] = getattr(m, k).to("inch")

@@ -26,6 +26,7 @@ __all__ = [
     "LoadStandard",
     "is_us_customary",
     "run_derivation",
+    "steps_bundle",
 ]
 
 LOAD_CAUTIONS = (
@@ -131,3 +132,10 @@ def run_derivation(title: str, standard: LoadStandard, logic: Logic) -> Derivati
     rec = Recorder(title)
     logic(rec)
     return Derivation(title, standard, dict(rec.values), logic)
+
+
+def steps_bundle(steps: list[Any], title: str) -> dict[str, Any]:
+    """The display bundle of a result's working steps (a derivation and its figures)."""
+    from calcpack.working import Block
+
+    return Block(steps, title=title)._repr_mimebundle_()

@@ -25,7 +25,7 @@ from typing import Any
 
 from calcpack.checks.base import Recorder
 from calcpack.errors import OutOfScopeError
-from calcpack.loads.derive import Derivation, is_us_customary, run_derivation
+from calcpack.loads.derive import Derivation, is_us_customary, run_derivation, steps_bundle
 from calcpack.loads.wind_asce7 import ASCE7_WIND, WindSiteASCE7, internal_pressure_coefficient
 from calcpack.loads.wind_asce7_cc import cc_roof_zones
 from calcpack.loads.wind_asce7_lowrise import (
@@ -78,9 +78,7 @@ class CCRoofPlanASCE7:
         return [*self.derivation.working(settings=settings), plan]
 
     def _repr_mimebundle_(self, include: Any = None, exclude: Any = None) -> dict[str, Any]:
-        from calcpack.working import Block
-
-        return Block(self.working(), title=self.derivation.title)._repr_mimebundle_()
+        return steps_bundle(self.working(), self.derivation.title)
 
 
 def _rect(x0: float, y0: float, x1: float, y1: float) -> Poly:

@@ -39,7 +39,7 @@ from typing import Any, Literal
 
 from calcpack.checks.base import Recorder
 from calcpack.errors import InputError, OutOfScopeError
-from calcpack.loads.derive import Derivation, is_us_customary, run_derivation
+from calcpack.loads.derive import Derivation, is_us_customary, run_derivation, steps_bundle
 from calcpack.loads.wind_asce7 import (
     ASCE7_WIND,
     ENCLOSURES,
@@ -384,9 +384,7 @@ class DirectionalWindASCE7:
         return [*self.derivation.working(settings=settings), sketch]
 
     def _repr_mimebundle_(self, include: Any = None, exclude: Any = None) -> dict[str, Any]:
-        from calcpack.working import Block
-
-        return Block(self.working(), title=self.derivation.title)._repr_mimebundle_()
+        return steps_bundle(self.working(), self.derivation.title)
 
 
 def directional_wind_asce7(

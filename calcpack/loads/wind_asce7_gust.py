@@ -24,16 +24,23 @@ from __future__ import annotations
 
 import math
 from dataclasses import dataclass
-from typing import Any
+from typing import Any, Literal
 
 from calcpack.checks.base import Recorder
+from calcpack.errors import OutOfScopeError
 from calcpack.loads.derive import Derivation, is_us_customary, run_derivation
 from calcpack.loads.wind_asce7 import ASCE7_WIND, WindSiteASCE7
 from calcpack.refdata import read_table
 from calcpack.units import Q_, Quantity
-from calcpack.validate import dimension, non_empty, positive, within
+from calcpack.validate import dimension, non_empty, one_of, positive, within
 
-__all__ = ["BuildingVibration", "GustEffectASCE7", "gust_effect_factor_asce7", "record_gust_effect"]
+__all__ = [
+    "BuildingVibration",
+    "GustEffectASCE7",
+    "approximate_vibration_asce7",
+    "gust_effect_factor_asce7",
+    "record_gust_effect",
+]
 
 G_PEAK = 3.4  # g_Q = g_v, ASCE 7-16 §26.11.4 (from memory)
 _TABLE = "ASCE 7-16 Table 26.11-1"
@@ -246,3 +253,54 @@ def gust_effect_factor_asce7(
         R=float(v["R"].to("").magnitude) if "R" in v else 0.0,
         derivation=d,
     )
+
+
+LateralSystem = Literal[
+    "steel moment frame", "concrete moment frame", "other steel or concrete", "shear wall"
+]
+# §26.11.3 approximate lower-bound natural frequencies, h in ft (from memory): coefficient,
+# exponent and equation
+_NA = {
+    "steel moment frame": (22.2, 0.8, "Eq. 26.11-2"),
+    "concrete moment frame": (43.5, 0.9, "Eq. 26.11-3"),
+    "other steel or concrete": (75.0, 1.0, "Eq. 26.11-4"),
+}
+
+
+def approximate_vibration_asce7(
+    h: Quantity, system: LateralSystem, *, damping: float | None = None
+) -> BuildingVibration:
+    """The approximate natural frequency n_a of §26.11.3 as a :class:`BuildingVibration`.
+
+    n_a = 22.2/h^0.8 (steel moment frames), 43.5/h^0.9 (concrete moment frames), 75/h (other
+    steel or concrete systems), h the mean roof height in ft, n_a in Hz.
+
+    Raises:
+        OutOfScopeError: h over 300 ft (the limit of §26.11.2.1), or a shear wall building
+            (Eq. 26.11-5 needs C_w, not implemented).
+    """
+    dimension("h", h, "[length]")
+    positive("h", h)
+    one_of(
+        "system",
+        system,
+        ("steel moment frame", "concrete moment frame", "other steel or concrete", "shear wall"),
+    )
+    h_ft = float(h.to("ft").magnitude)
+    if h_ft > 300.0:
+        raise OutOfScopeError(
+            f"Input h = {h:~P}: the approximate natural frequencies of ASCE 7-16 §26.11.3 hold "
+            "for buildings up to 300 ft (§26.11.2.1); give n1 from an analysis"
+        )
+    if system == "shear wall":
+        raise OutOfScopeError(
+            "Input system = 'shear wall': Eq. 26.11-5 needs the shear walls' C_w, not "
+            "implemented here; give n1 from an analysis"
+        )
+    coef, exp, eq = _NA[system]
+    n_a = coef / h_ft**exp
+    source = (
+        f"ASCE 7-16 {eq}, {system}: n_a = {coef:g}/h^{exp:g} with h = {h_ft:.4g} ft "
+        "(valid where the building height is also under 4 L_eff, §26.11.2.1: confirm)"
+    )
+    return BuildingVibration(Q_(n_a, "Hz"), source, damping)

@@ -25,7 +25,7 @@ named destinations (WeasyPrint could not resolve them within the chunk).
 from __future__ import annotations
 
 import io
-from collections.abc import Iterator, Sequence
+from collections.abc import Callable, Iterator, Sequence
 from typing import Any
 
 from calcpack.errors import BuildError
@@ -126,15 +126,13 @@ def _add_link(writer: Any, link: Link) -> Any:
     return reference
 
 
-def _untagged_links(tree: Any, page_numbers: dict[int, int]) -> dict[int, list[Any]]:
-    """The tree's ``Link`` elements that no annotation belongs to yet (WeasyPrint tags the
-    words of a link whose target was in another chunk, without its annotation), by page, in
-    reading order."""
+def _tree_nodes(start: Any, into: Callable[[Any], bool] = lambda obj: True) -> Iterator[Any]:
+    """The dictionaries of a structure tree from ``start`` on (elements, object references),
+    in reading order, each once; an element's kids are visited when ``into(element)``."""
     from pypdf.generic import ArrayObject, DictionaryObject, IndirectObject
 
-    found: dict[int, list[Any]] = {}
     seen: set[int] = set()
-    stack = [tree["/K"]]
+    stack = [start]
     while stack:
         node = stack.pop()
         if isinstance(node, IndirectObject):
@@ -144,25 +142,34 @@ def _untagged_links(tree: Any, page_numbers: dict[int, int]) -> dict[int, list[A
         obj = node.get_object()
         if isinstance(obj, ArrayObject):
             stack.extend(reversed(list(obj)))
-            continue
-        if not isinstance(obj, DictionaryObject) or "/S" not in obj:
+        elif isinstance(obj, DictionaryObject):
+            yield obj
+            if "/S" in obj and obj.get("/K") is not None and into(obj):
+                stack.append(obj["/K"])
+
+
+def _untagged_links(tree: Any, page_numbers: dict[int, int]) -> dict[int, list[Any]]:
+    """The tree's ``Link`` elements that no annotation belongs to yet (WeasyPrint tags the
+    words of a link whose target was in another chunk, without its annotation), by page, in
+    reading order."""
+    from pypdf.generic import ArrayObject, DictionaryObject, IndirectObject
+
+    found: dict[int, list[Any]] = {}
+    for obj in _tree_nodes(tree["/K"], into=lambda element: element["/S"] != "/Link"):
+        if obj.get("/S") != "/Link":
             continue
         kids = obj.get("/K")
         kid_list = list(kids) if isinstance(kids, ArrayObject) else [kids] if kids else []
-        if obj["/S"] == "/Link":
-            has_annotation = any(
-                isinstance(k.get_object(), DictionaryObject)
-                and k.get_object().get("/Type") == "/OBJR"
-                for k in kid_list
-                if isinstance(k, IndirectObject | DictionaryObject)
-            )
-            page = obj.get("/Pg")
-            if not has_annotation and isinstance(page, IndirectObject):
-                number = page_numbers.get(page.idnum)
-                if number is not None:
-                    found.setdefault(number, []).append(obj)
-            continue
-        stack.extend(reversed(kid_list))
+        has_annotation = any(
+            isinstance(k.get_object(), DictionaryObject) and k.get_object().get("/Type") == "/OBJR"
+            for k in kid_list
+            if isinstance(k, IndirectObject | DictionaryObject)
+        )
+        page = obj.get("/Pg")
+        if not has_annotation and isinstance(page, IndirectObject):
+            number = page_numbers.get(page.idnum)
+            if number is not None:
+                found.setdefault(number, []).append(obj)
     return found
 
 
@@ -433,7 +440,7 @@ def structure_summary(pdf: bytes) -> dict[str, Any]:
         "pages_mapped": bool, "untagged_links": n}``.
     """
     from pypdf import PdfReader
-    from pypdf.generic import ArrayObject, DictionaryObject, IndirectObject
+    from pypdf.generic import IndirectObject
 
     reader = PdfReader(io.BytesIO(pdf))
     root = reader.root_object.get("/StructTreeRoot")
@@ -449,20 +456,7 @@ def structure_summary(pdf: bytes) -> dict[str, Any]:
     figures: list[str | None] = []
     headings: list[int] = []
     held: set[int] = set()
-    seen: set[int] = set()
-    stack: list[Any] = [root["/K"]]
-    while stack:
-        node = stack.pop()
-        if isinstance(node, IndirectObject):
-            if node.idnum in seen:
-                continue
-            seen.add(node.idnum)
-        obj = node.get_object()
-        if isinstance(obj, ArrayObject):
-            stack.extend(reversed(list(obj)))
-            continue
-        if not isinstance(obj, DictionaryObject):
-            continue
+    for obj in _tree_nodes(root["/K"]):
         target = obj.get("/Obj")  # .get keeps the reference ([] would resolve it)
         if obj.get("/Type") == "/OBJR" and isinstance(target, IndirectObject):
             held.add(target.idnum)
@@ -476,9 +470,6 @@ def structure_summary(pdf: bytes) -> dict[str, Any]:
         if kind == "/Figure":
             alt = obj.get("/Alt")
             figures.append(str(alt) if alt is not None else None)
-        kids = obj.get("/K")
-        if kids is not None:
-            stack.append(kids)
     parents = dict(_number_tree(root["/ParentTree"]))
     mapped = all(
         "/StructParents" in page and int(page["/StructParents"]) in parents for page in reader.pages

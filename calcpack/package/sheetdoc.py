@@ -30,6 +30,7 @@ __all__ = [
     "project_from_metadata",
     "sheet_title",
     "single_sheet_pdf",
+    "unlink_absent",
 ]
 
 
@@ -235,14 +236,27 @@ def _sheet_pdf(project: Project, nb: Any, name: str, today: _dt.date) -> bytes:
     created = _dt.datetime(today.year, today.month, today.day, tzinfo=_dt.UTC)
     options = DocumentOptions(paper=project.paper, calcpack_version=__version__, sheets_only=True)
     layout = paginate(
-        lambda counts: document_html(
-            project, [doc], replace(options, sheet_pages=counts), created=created, math=math
+        lambda counts: unlink_absent(
+            document_html(
+                project, [doc], replace(options, sheet_pages=counts), created=created, math=math
+            )
         ),
         sheet_ids={doc.entry.path: "sheet-1"},
         section_ids=["sheet-1"],
         roles=(),
     )
     return write_pdf(layout, created=created, identifier_seed=name.encode())
+
+
+_LINK_RE = re.compile(r'<a class="cp-link" href="#([^"]+)">(.*?)</a>', re.DOTALL)
+
+
+def unlink_absent(html: str) -> str:
+    """A sheet laid out on its own: links to another sheet (an imported value's source) become
+    plain text, since the page they would name is not in this document (it would print
+    "(page )")."""
+    ids = set(re.findall(r'\bid="([^"]+)"', html))
+    return _LINK_RE.sub(lambda m: m.group(0) if m.group(1) in ids else m.group(2), html)
 
 
 def _single_design() -> Any:

@@ -238,7 +238,7 @@ def _html_maker(
     from calcpack import __version__
     from calcpack.package.document import DocumentOptions, document_html
     from calcpack.package.mathcache import MathCache
-    from calcpack.package.sheetdoc import prepare_sheet
+    from calcpack.package.sheetdoc import prepare_sheet, unlink_absent
 
     math = MathCache()
     math_file = target.cache_dir / "formulas.entry"
@@ -257,8 +257,10 @@ def _html_maker(
     options = DocumentOptions(paper=project.paper, calcpack_version=__version__, sheets_only=True)
 
     def make_html(counts: dict[str, int]) -> str:
-        return document_html(
-            project, [doc], replace(options, sheet_pages=counts), created=created, math=math
+        return unlink_absent(
+            document_html(
+                project, [doc], replace(options, sheet_pages=counts), created=created, math=math
+            )
         )
 
     return make_html

@@ -21,6 +21,7 @@ from pathlib import Path
 from typing import Any
 
 from calcpack.checks.aci318.footing_data import moment_section
+from calcpack.plots.labels import quantity_label
 from calcpack.units import Q_
 
 __all__ = ["FootingSketch", "FootingSketchData", "footing_figure", "footing_svg"]
@@ -165,15 +166,34 @@ def _section(ax: Any, data: FootingSketchData) -> None:
     cv = _m(cover) if cover is not None else None
     if cv is not None:
         ax.plot([-B / 2 + cv, B / 2 - cv], [-h + cv] * 2, color="#2171b5", lw=1.8, zorder=4)
-        ax.text(B / 2, -h + cv, f" bars, cover {cover:~.3g}", fontsize=7, va="center")
+        ax.text(
+            B / 2,
+            -h + cv,
+            f" bars, cover {quantity_label(cover.magnitude, cover.units)}",
+            fontsize=7,
+            va="center",
+        )
     ax.annotate(
         "",
         (B / 2 + 0.04 * B, 0),
         (B / 2 + 0.04 * B, -h),
         arrowprops={"arrowstyle": "<->", "lw": 0.8},
     )
-    ax.text(B / 2 + 0.06 * B, -h / 2, f"h = {f.h:~.3g}", fontsize=7, va="center")
-    ax.text(0, -h - 0.03 * B, f"B = {f.B:~.3g}", fontsize=7, ha="center", va="top")
+    ax.text(
+        B / 2 + 0.06 * B,
+        -h / 2,
+        f"h = {quantity_label(f.h.magnitude, f.h.units)}",
+        fontsize=7,
+        va="center",
+    )
+    ax.text(
+        0,
+        -h - 0.03 * B,
+        f"B = {quantity_label(f.B.magnitude, f.B.units)}",
+        fontsize=7,
+        ha="center",
+        va="top",
+    )
     ax.set_title("Section along x", fontsize=9)
 
 
@@ -190,7 +210,7 @@ def _pressure(ax: Any, data: FootingSketchData) -> None:
     ax.plot(xs, [-q for q in qs], color="#d94801", lw=1)
     ax.axhline(0.0, color="black", lw=1)
     for x, q in ((xs[0], qs[0]), (xs[-1], qs[-1])):
-        ax.text(x, -q, f"{q:.3g} {unit:~P}", fontsize=7, ha="center", va="top")
+        ax.text(x, -q, quantity_label(q, unit), fontsize=7, ha="center", va="top")
     kind = "full contact" if p.full_contact else "partial contact (no tension)"
     ax.set_title(f"Soil pressure along x at y = 0, {kind}", fontsize=9)
     ax.set_yticks([])

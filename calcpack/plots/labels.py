@@ -18,7 +18,7 @@ from typing import Any
 import numpy as np
 from matplotlib.ticker import MaxNLocator
 
-__all__ = ["Label", "place_labels", "round_ticks", "svg_text"]
+__all__ = ["Label", "number_label", "place_labels", "quantity_label", "round_ticks", "svg_text"]
 
 # Offsets (points) tried around an anchor, in order: (dx, dy, ha, va).
 _CANDIDATES: tuple[tuple[float, float, str, str], ...] = (
@@ -48,6 +48,29 @@ def round_ticks(lo: float, hi: float, *, n: int = 8) -> np.ndarray:
     eps = 1e-9 * (abs(span) or 1.0)
     ticks = ticks[(ticks >= lo - eps) & (ticks <= hi + eps)]
     return np.round(ticks, 12)
+
+
+def number_label(value: float, sig: int | None = None, *, signed: bool = False) -> str:
+    """A value on a figure, written by the one number formatter of the tables, prose and working
+    (:func:`calcpack.working.format.format_number`) to ``sig`` significant figures (default:
+    the display setting); ``signed`` writes "+" before a positive value (pressures toward a
+    surface)."""
+    from calcpack.units import get_display
+    from calcpack.working.format import format_number
+
+    text = format_number(float(value), sig or get_display().sig_figs)
+    return "+" + text if signed and float(value) > 0 else text
+
+
+def quantity_label(value: float, unit: Any, sig: int | None = None, *, signed: bool = False) -> str:
+    """A value and its unit on a figure: the number as :func:`number_label` writes it, the unit
+    as the working writes units (``kN·m``, ``kN/m²``); ``unit`` a pint unit or its text."""
+    from calcpack.units import ureg
+    from calcpack.working.format import format_unit_text
+
+    text = format_unit_text(ureg.Unit(unit) if isinstance(unit, str) else unit)
+    number = number_label(value, sig, signed=signed)
+    return f"{number} {text}" if text else number
 
 
 def tick_text(value: float) -> str:

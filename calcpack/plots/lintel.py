@@ -9,6 +9,8 @@ import io
 import math
 from typing import Any
 
+from calcpack.plots.labels import quantity_label
+
 __all__ = ["lintel_drawing", "lintel_figure", "lintel_svg"]
 
 
@@ -47,7 +49,7 @@ def lintel_figure(loads: Any, unit: str = "ft") -> Any:
         ax.text(
             1.28 * L,
             H - 0.08 * L,
-            f"wall continues to {H_wall:.3g} {u}",
+            f"wall continues to {quantity_label(H_wall, u)}",
             ha="right",
             va="top",
             fontsize=7,
@@ -68,7 +70,7 @@ def lintel_figure(loads: Any, unit: str = "ft") -> Any:
         ax.text(0.8 * L, L / 8, "45° triangle", ha="center", fontsize=7)
     else:
         ax.add_patch(Rectangle((0, 0), L, H, facecolor="#fdd0a2", edgecolor="#d94801", hatch="//"))
-        ax.text(L / 2, H / 2, f"full height, {H_wall:.3g} {u}", ha="center", fontsize=8)
+        ax.text(L / 2, H / 2, f"full height, {quantity_label(H_wall, u)}", ha="center", fontsize=8)
     cot = 1 / math.tan(math.radians(60))
     for a, b, _w, _case, p in loads.patches:
         x, h = q(p.x), q(p.height)

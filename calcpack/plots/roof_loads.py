@@ -13,6 +13,8 @@ import itertools
 from collections.abc import Sequence
 from typing import Any
 
+from calcpack.plots.labels import number_label
+
 __all__ = ["roof_loads_svg", "wind_envelope"]
 
 
@@ -72,7 +74,7 @@ def roof_loads_svg(profiles: Sequence[Any], settings: Any = None, **options: Any
         ax.fill_between(xs, [-y for y in ys], 0.0, color="#9ecae1", alpha=0.8, lw=0)
         ax.plot(xs, [-y for y in ys], color="#08519c", lw=1)
         for x0, y in zip(xs[::2], ys[::2], strict=True):
-            ax.text(x0, -y, f" {y:.3g}", fontsize=7, va="top")
+            ax.text(x0, -y, f" {number_label(y)}", fontsize=7, va="top")
         ax.set_title(f"{p.case} ({unit} on plan, downward)", fontsize=8, loc="left")
     if wind:
         ax = axes[len(snow)]
@@ -81,9 +83,16 @@ def roof_loads_svg(profiles: Sequence[Any], settings: Any = None, **options: Any
         ax.fill_between(xs, lo, 0.0, color="#a1d99b", alpha=0.7, lw=0, label="suction")
         ax.plot(xs, hi, color="#cb181d", lw=0.8)
         ax.plot(xs, lo, color="#238b45", lw=0.8)
-        ax.text(xs[0], min(lo), f" {min(lo):.3g}", fontsize=7, va="bottom")
+        ax.text(xs[0], min(lo), f" {number_label(min(lo), signed=True)}", fontsize=7, va="bottom")
         if max(hi) > 0:
-            ax.text(xs[-1], max(hi), f"{max(hi):+.3g} ", fontsize=7, va="bottom", ha="right")
+            ax.text(
+                xs[-1],
+                max(hi),
+                f"{number_label(max(hi), signed=True)} ",
+                fontsize=7,
+                va="bottom",
+                ha="right",
+            )
         ax.set_title(
             f"Wind, envelope of {len(wind)} cases ({unit} normal to the roof; + toward it)",
             fontsize=8,

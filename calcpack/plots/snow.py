@@ -11,6 +11,7 @@ from __future__ import annotations
 from typing import Any
 
 from calcpack.plots.drawing import Drawing
+from calcpack.plots.labels import quantity_label
 
 __all__ = ["SnowSketch", "drift_profile", "drift_profile_en", "unbalanced_profile"]
 
@@ -108,7 +109,11 @@ class SnowSketch(Drawing):
         ax.axhline(0.0, color="black", linewidth=1.5)
         for x, y in pts:
             ax.annotate(
-                f"{-y:.3g} {punit}", (x, y), textcoords="offset points", xytext=(2, -10), fontsize=7
+                quantity_label(-y, punit),
+                (x, y),
+                textcoords="offset points",
+                xytext=(2, -10),
+                fontsize=7,
             )
         ax.set_xlabel(f"distance ({xunit})" if xunit else "")
         ax.set_yticks([])

@@ -10,6 +10,7 @@ from __future__ import annotations
 from typing import Any
 
 from calcpack.plots.drawing import Drawing
+from calcpack.plots.labels import number_label, quantity_label
 
 __all__ = ["WindZonePlan"]
 
@@ -31,7 +32,7 @@ class WindZonePlan(Drawing):
 
     def _label(self, zone: str) -> str:
         p = self.result.pressures.get((self.case, zone, "+GCpi"))
-        return zone if p is None else f"{zone}\n{p.magnitude:+.3g}"
+        return zone if p is None else f"{zone}\n{number_label(p.magnitude, signed=True)}"
 
     def figure(self) -> Any:
         """The plan as a matplotlib Figure (Agg canvas)."""
@@ -79,7 +80,7 @@ class WindZonePlan(Drawing):
             walls = [("5E", -0.06 * L, 0.2 * B), ("6E", L + 0.06 * L, 0.2 * B)]
         for zone, x, y in cells + walls:
             ax.text(x, y, self._label(zone), ha="center", va="center", fontsize=7)
-        ax.text(a2 / 2, -0.3 * B, f"2a = {a2:.3g} {self.unit}", ha="center", fontsize=7)
+        ax.text(a2 / 2, -0.3 * B, f"2a = {quantity_label(a2, self.unit)}", ha="center", fontsize=7)
         ax.set_title(
             f"Envelope zones, load case {self.case} (pressures with +GCpi, "
             f"{self.result.qh.units:~P})",

@@ -7,7 +7,7 @@ from __future__ import annotations
 
 from typing import Any
 
-from calcpack.plots.labels import svg_text
+from calcpack.plots.labels import number_label, quantity_label, svg_text
 
 __all__ = ["cc_plan_figure", "cc_plan_svg"]
 
@@ -41,7 +41,14 @@ def cc_plan_figure(result: Any, width_in: float = 6.0) -> Any:
         cx, cy = sum(xs) / len(xs), sum(ys) / len(ys)
         p = result.zones[zone].p_neg
         p = p if unit is None else p.to(unit)
-        ax.text(cx, cy, f"{zone}\n{p.magnitude:+.3g}", ha="center", va="center", fontsize=5.5)
+        ax.text(
+            cx,
+            cy,
+            f"{zone}\n{number_label(p.magnitude, signed=True)}",
+            ha="center",
+            va="center",
+            fontsize=5.5,
+        )
     ax.plot([0, L, L, 0, 0], [0, 0, B, B, 0], color="black", linewidth=1.2)
     if b.roof != "monoslope":
         ax.plot([0, L], [B / 2, B / 2], color="grey", linewidth=0.6, linestyle="--")
@@ -49,14 +56,14 @@ def cc_plan_figure(result: Any, width_in: float = 6.0) -> Any:
         ax.text(L + 0.02 * L, B, "high eave", fontsize=6, va="center")
         ax.text(L + 0.02 * L, 0.0, "low eave", fontsize=6, va="center")
     a = float(result.a.magnitude)
-    ax.text(L / 2, -0.08 * B, f"L = {L:.4g} {lu:~P}, a = {a:.3g} {lu:~P}", ha="center",
-            va="top", fontsize=7)  # fmt: skip
-    ax.text(-0.03 * L, B / 2, f"B = {B:.4g} {lu:~P}", ha="right", va="center", fontsize=7,
+    sizes = f"L = {quantity_label(L, lu)}, a = {quantity_label(a, lu)}"
+    ax.text(L / 2, -0.08 * B, sizes, ha="center", va="top", fontsize=7)
+    ax.text(-0.03 * L, B / 2, f"B = {quantity_label(B, lu)}", ha="right", va="center", fontsize=7,
             rotation=90)  # fmt: skip
     pu = f"{result.zones[next(iter(result.zones))].p_neg.units:~P}"
     ax.set_title(
-        f"C&C roof zones, {b.roof} roof θ = {b.theta_deg:.3g}°: net suction at "
-        f"A = {result.area:~.4gP} ({pu})",
+        f"C&C roof zones, {b.roof} roof θ = {number_label(b.theta_deg)}°: net suction at "
+        f"A = {quantity_label(result.area.magnitude, result.area.units)} ({pu})",
         fontsize=8,
     )
     ax.set_xlim(-0.1 * L, 1.15 * L)

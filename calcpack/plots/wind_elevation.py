@@ -8,7 +8,7 @@ from __future__ import annotations
 import math
 from typing import Any
 
-from calcpack.plots.labels import svg_text
+from calcpack.plots.labels import number_label, quantity_label, svg_text
 
 __all__ = ["elevation_figure", "elevation_svg"]
 
@@ -62,21 +62,34 @@ def elevation_figure(result: Any, width_in: float = 6.0) -> Any:
         ax.add_patch(
             Rectangle((-w, z0), w, z1 - z0, facecolor="#fdae6b", edgecolor="#a63603", lw=0.6)
         )
-        ax.text(-w - 0.02 * span, (z0 + z1) / 2, f"{p:+.3g}", ha="right", va="center", fontsize=6)
+        ax.text(
+            -w - 0.02 * span,
+            (z0 + z1) / 2,
+            number_label(p, signed=True),
+            ha="right",
+            va="center",
+            fontsize=6,
+        )
     pl = float(leeward.to(unit).magnitude)
     wl = abs(pl) * k
     ax.add_patch(
         Rectangle((L, 0.0), wl, roof[-1][1], facecolor="#9ecae1", edgecolor="#08519c", lw=0.6)
     )
-    ax.text(L + wl + 0.02 * span, roof[-1][1] / 2, f"{pl:+.3g}", va="center", fontsize=6)
+    ax.text(
+        L + wl + 0.02 * span,
+        roof[-1][1] / 2,
+        number_label(pl, signed=True),
+        va="center",
+        fontsize=6,
+    )
     ax.annotate(
         "", xy=(-0.1 * span, top * 1.12), xytext=(-1.0 * span, top * 1.12),
         arrowprops={"arrowstyle": "->"},
     )  # fmt: skip
     ax.text(-1.0 * span, top * 1.16, "wind", fontsize=8)
-    ax.text(L / 2, -0.08 * top, f"L = {L:.4g} {lu:~P}", ha="center", va="top", fontsize=7)
+    ax.text(L / 2, -0.08 * top, f"L = {quantity_label(L, lu)}", ha="center", va="top", fontsize=7)
     ax.plot([-0.05 * span, -0.05 * span], [0, h], color="grey", lw=0.5, ls=":")
-    ax.text(L / 2, h, f"h = {h:.4g} {lu:~P}", ha="center", va="bottom", fontsize=7)
+    ax.text(L / 2, h, f"h = {quantity_label(h, lu)}", ha="center", va="bottom", fontsize=7)
     ax.set_title(
         f"Windward wall q_z profile and leeward wall ({unit:~P}, with +GCpi, + toward the wall)",
         fontsize=8,

@@ -182,11 +182,13 @@ def aisc_beam_space(
     E: Quantity = E_STEEL,
     member: str = "B1",
     material: str = "",
+    shapes: Sequence[str] | None = None,
 ) -> SearchSpace[SteelShape]:
     """The search space of :func:`lightest_aisc_beam` (same arguments): the shapes of
     ``family``, the plastic-moment screen and the trial (check_aisc_beam and the deflection
     limits scaled to the shape's I_x). ``space.check(aisc_shape("W10X12"))`` checks one shape
-    exactly as the search does. ``material`` names the steel on the sheet ("ASTM A992")."""
+    exactly as the search does. ``material`` names the steel on the sheet ("ASTM A992");
+    ``shapes`` limits the candidates to these designations (e.g. the one on a sheet)."""
     one_of("method", method, ("LRFD", "ASD"))
     one_of("family", family, I_FAMILIES)
     require(Fy, "[pressure]", "Fy", positive=True)
@@ -225,7 +227,11 @@ def aisc_beam_space(
         out += scaled_deflection_checks(deflections, factor, member)
         return out
 
-    cands = tuple(aisc_candidates(family, nominal_depth=nominal_depth))
+    if shapes is not None:
+        picked = [aisc_shape(n) for n in shapes]
+        cands = tuple(Candidate(s.designation, s["W"], s, _depth(s)) for s in picked)
+    else:
+        cands = tuple(aisc_candidates(family, nominal_depth=nominal_depth))
     return SearchSpace(cands, trial, screen)
 
 

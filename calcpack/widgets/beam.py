@@ -29,7 +29,7 @@ from typing import Any, ClassVar
 
 import ipywidgets as ipw
 
-from calcpack.contract.verdict import passes
+from calcpack.contract.verdict import Verdict, passes, verdict_words
 from calcpack.inputs import SHAPES, SUPPORT_KINDS, BeamOutcome, beam_inputs, evaluate_beam
 from calcpack.inputs.file import cached_unit
 from calcpack.units import Q_, Quantity
@@ -52,11 +52,12 @@ def _mag(q: Quantity, unit: str) -> float:
 
 
 def _verdict(u: float) -> str:
+    """The verdict in words, as the sheet writes it (a failure in capitals and bold)."""
     ok = passes(u)
-    colour = "#1d6b2f" if ok else "#a31515"
+    weight = "normal" if ok else "bold"
     return (
-        f'<span class="cp-verdict {"cp-ok" if ok else "cp-notok"}" style="color:{colour};'
-        f'font-weight:bold">{"OK" if ok else "NOT OK"}</span>'
+        f'<span class="cp-verdict {"cp-ok" if ok else "cp-notok"}" style="font-weight:{weight}">'
+        f"{escape(verdict_words(Verdict.of(u)))}</span>"
     )
 
 

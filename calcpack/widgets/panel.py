@@ -31,6 +31,7 @@ from calcpack.checks.base import MemberChecks
 from calcpack.errors import CalcpackError
 from calcpack.inputs import load_inputs, update_inputs
 from calcpack.inputs.file import get_path, split_key
+from calcpack.inputs.sized import governing_check
 from calcpack.units import Quantity
 from calcpack.widgets.fields import (
     PANEL_CSS,
@@ -136,12 +137,7 @@ def checks_table_html(checks: Sequence[MemberChecks]) -> str:
 
 def governing(checks: Sequence[MemberChecks]) -> tuple[float, str, str, str]:
     """(utilisation, check, clause, combination) of the largest utilisation of ``checks``."""
-    best = (-1.0, "", "", "")
-    for mc in checks:
-        for r in mc.results:
-            if r.utilisation is not None and r.utilisation > best[0]:
-                best = (float(r.utilisation), r.name, r.clause, r.combination or "")
-    return best
+    return governing_check(checks)
 
 
 def checks_outputs(checks: Sequence[MemberChecks]) -> dict[str, str]:

@@ -56,7 +56,7 @@ def sizing_table_html(found: SizingResult, *, what: str = "section") -> str:
         rows.append(_row(found.closest, "cp-closest"))
     ranked = "lightest" if found.order == "weight" else "shallowest"
     out = (
-        f"<p>{len(found.tried)} tried, {ranked} first; the section on each row passes every "
+        f"<p>{len(found.tried)} tried, {ranked} first; a section marked passes passes every "
         "check of every combination.</p>"
         if found.passing
         else ""

@@ -49,14 +49,30 @@ class _SizingPanel(InputsPanel):
     output_names: ClassVar[tuple[str, ...]] = ("bars", "results")
     what: ClassVar[str] = "section"
 
+    # the member's own functions (of calcpack.inputs), set by each panel as static methods
+    @staticmethod
+    def check_case(case: Any) -> SizedOutcome:
+        """Check the table's section (as the sheet's cells do)."""
+        raise NotImplementedError
+
+    @staticmethod
+    def rank_case(
+        case: Any, *, count: int, order: Order, max_depth: Quantity | None
+    ) -> SizingResult:
+        """The sections that pass, lightest (or shallowest) first."""
+        raise NotImplementedError
+
+    @staticmethod
+    def changes_for(case: Any, name: str) -> dict[str, Any]:
+        """The inputs-file edits that make ``name`` the member."""
+        raise NotImplementedError
+
     def case(self, data: Any) -> Any:
+        """The validated table (raises naming the key)."""
         raise NotImplementedError
 
-    def pick_changes(self, case: Any, name: str) -> dict[str, Any]:
-        raise NotImplementedError
-
-    def rank(self, case: Any, count: int, order: Order, limit: Quantity | None) -> SizingResult:
-        raise NotImplementedError
+    def evaluate(self, data: dict[str, Any]) -> SizedOutcome:
+        return type(self).check_case(self.case(data))
 
     def render(self, outcome: SizedOutcome) -> dict[str, str]:
         out = checks_outputs(outcome.checks)
@@ -71,7 +87,8 @@ class _SizingPanel(InputsPanel):
         return [self.searcher.widget]
 
     def _search(self, count: int, order: Order, limit: Quantity | None) -> SizingResult:
-        return self.rank(self.case(self.data), count, order, limit)
+        rank = type(self).rank_case
+        return rank(self.case(self.data), count=count, order=order, max_depth=limit)
 
     def search(self, count: int = 5) -> SizingResult | None:
         """Rank the lightest (or shallowest) sections that pass (see SearchControl.run)."""
@@ -82,7 +99,7 @@ class _SizingPanel(InputsPanel):
         typed, and redraw the form; False if refused."""
         if not name:
             return False
-        ok = self.edit(self.pick_changes(self.case(self.data), name))
+        ok = self.edit(type(self).changes_for(self.case(self.data), name))
         self._build_form()
         return ok
 
@@ -98,6 +115,9 @@ class BeamMemberPanel(_SizingPanel):
 
     kind: ClassVar[str] = "Beam member panel"
     css_class: ClassVar[str] = "cp-beam-member-panel"
+    check_case = staticmethod(evaluate_beam_member)
+    rank_case = staticmethod(lightest_beam_member)
+    changes_for = staticmethod(beam_pick_changes)
 
     def __init__(self, path: str | Path, demand: BeamDemand, *, table: str = "member") -> None:
         self.demand = demand
@@ -106,15 +126,6 @@ class BeamMemberPanel(_SizingPanel):
 
     def case(self, data: Any) -> BeamMemberCase:
         return beam_member_inputs(data, self.demand, table=self.table, path=self.path)
-
-    def evaluate(self, data: dict[str, Any]) -> SizedOutcome:
-        return evaluate_beam_member(self.case(data))
-
-    def rank(self, case: Any, count: int, order: Order, limit: Quantity | None) -> SizingResult:
-        return lightest_beam_member(case, count=count, order=order, max_depth=limit)
-
-    def pick_changes(self, case: Any, name: str) -> dict[str, Any]:
-        return beam_pick_changes(case, name)
 
     def form(self) -> list[ipw.Widget]:
         t = self.table
@@ -149,6 +160,9 @@ class TimberPostPanel(_SizingPanel):
     kind: ClassVar[str] = "Timber post panel"
     css_class: ClassVar[str] = "cp-timber-post-panel"
     what: ClassVar[str] = "size"
+    check_case = staticmethod(evaluate_timber_post)
+    rank_case = staticmethod(lightest_timber_post)
+    changes_for = staticmethod(post_pick_changes)
 
     def __init__(
         self,
@@ -168,15 +182,6 @@ class TimberPostPanel(_SizingPanel):
     def case(self, data: Any) -> TimberPostCase:
         return timber_post_inputs(data, table=self.table, loads=self.loads, le=self.le,
                                   path=self.path, extra_keys=self.extra_keys)  # fmt: skip
-
-    def evaluate(self, data: dict[str, Any]) -> SizedOutcome:
-        return evaluate_timber_post(self.case(data))
-
-    def rank(self, case: Any, count: int, order: Order, limit: Quantity | None) -> SizingResult:
-        return lightest_timber_post(case, count=count, order=order, max_depth=limit)
-
-    def pick_changes(self, case: Any, name: str) -> dict[str, Any]:
-        return post_pick_changes(case, name)
 
     def form(self) -> list[ipw.Widget]:
         t = self.table

@@ -123,13 +123,15 @@ def format_quantity_text(quantity: pint.Quantity, sig: int = 3) -> str:
 def format_cell(value: object, sig: int = 3, settings: object = None) -> str:
     """Any value a table, a caption or a sentence shows, as plain text, the one way.
 
-    A quantity in the sheet's unit for its kind (``settings``: the sheet's
-    :class:`~calcpack.units.DisplaySettings`) to ``sig`` significant figures; a whole number
-    (a load's number, a count) as written; a float to ``sig`` figures; anything else as text.
+    A quantity in the sheet's unit for its kind, or its unit system's when the quantity is in
+    the other system's units (``settings``: the sheet's
+    :class:`~calcpack.units.DisplaySettings`, see its ``default_unit``) to ``sig`` significant
+    figures; a whole number (a load's number, a count) as written; a float to ``sig`` figures;
+    anything else as text.
     """
     if isinstance(value, pint.Quantity):
-        kind_unit = getattr(settings, "kind_unit", None)
-        unit = kind_unit(value) if kind_unit is not None else None
+        default_unit = getattr(settings, "default_unit", None)
+        unit = default_unit(value) if default_unit is not None else None
         return format_quantity_text(value.to(unit) if unit is not None else value, sig)
     if value is None:
         return ""

@@ -20,6 +20,7 @@ from calcpack.units import ureg
 from calcpack.working.expr import Term
 from calcpack.working.expr_print import _GREEK_TEXT, symbol_latex, to_latex, to_text
 from calcpack.working.figure import Figure
+from calcpack.working.figure_bands import panel_bands
 from calcpack.working.format import (
     format_cell,
     format_number,
@@ -46,7 +47,7 @@ from calcpack.working.steps import (
 __all__ = ["STYLE", "mimebundle", "step_html", "step_latex", "step_text"]
 
 STYLE = """<style class="cp-style">
-.cp-row{display:grid;gap:0 .8em;
+.cp-step.cp-row{display:grid;gap:0 .8em;
 grid-template-columns:minmax(6em,13%) minmax(8em,19%) minmax(0,1fr) minmax(8em,17%);
 align-items:baseline;font-size:0.95em}
 .cp-row>div{padding:.15em 0}
@@ -60,7 +61,7 @@ align-items:baseline;font-size:0.95em}
 .cp-heading{display:block;border-bottom:1.5px solid #333;margin-top:.6em}
 .cp-heading h2,.cp-heading h3,.cp-heading h4{margin:.2em 0}
 .cp-text,.cp-assume,.cp-caution,.cp-table,.cp-block,.cp-figure{display:block}
-.cp-figure img{max-width:100%;height:auto}.cp-figure figure{margin:.4em 0}
+.cp-figure img{display:block;max-width:100%;height:auto}.cp-figure figure{margin:.4em 0}
 .cp-figure figcaption{font-size:.85em;color:#333}.cp-cite{white-space:nowrap}
 .cp-caution{border-left:4px solid #a06000;padding-left:.6em}
 .cp-assume{border-left:4px solid #4a6a8a;padding-left:.6em}
@@ -401,14 +402,32 @@ def _exported_html(entries: list[dict[str, Any]], step: Table) -> str:
 
 
 def _figure_html(step: Figure) -> str:
-    """The figure as an SVG image (a ``data:`` URI) with its alternative text and caption."""
-    data = base64.b64encode(step.svg().encode("utf-8")).decode("ascii")
+    """The figure as an SVG image (a ``data:`` URI) with its alternative text and caption; a
+    figure of stacked panels as one image per panel, so a page may break between panels
+    (:mod:`calcpack.working.figure_bands`)."""
+    svg = step.svg()
+    bands = panel_bands(svg)
     alt = html.escape(step.alt, quote=True)
+    if not bands:
+        images = f'<img class="cp-figure-img" alt="{alt}" src="{_svg_uri(svg)}"/>'
+    else:
+        # the first panel carries the figure's words; the others say what they continue
+        first = html.escape(step.alt.rstrip(". "), quote=True)
+        more = f"{first}, continued"
+        images = "".join(
+            f'<img class="cp-figure-img cp-band" alt="{first if k == 1 else more}: panel {k} of '
+            f'{len(bands)}" src="{_svg_uri(band.svg)}"/>'
+            for k, band in enumerate(bands, start=1)
+        )
+    split = " cp-split" if bands else ""
     return (
-        f'<div class="cp-step cp-figure"><figure><img class="cp-figure-img" alt="{alt}" '
-        f'src="data:image/svg+xml;base64,{data}"/>'
+        f'<div class="cp-step cp-figure{split}"><figure>{images}'
         f"<figcaption>{_prose_html(step.caption)}</figcaption></figure></div>"
     )
+
+
+def _svg_uri(svg: str) -> str:
+    return "data:image/svg+xml;base64," + base64.b64encode(svg.encode("utf-8")).decode("ascii")
 
 
 def _cell_html(cell: Any, sig: int, settings: Any = None) -> str:

@@ -129,7 +129,7 @@ class Sheet(SheetLinks):
         self.steps.append(step)
         if isinstance(step, Value):
             self._names[step.name] = step
-            self.settings.keep_unit(step.display_unit)
+            self.settings.settle(step.quantity, step.display_unit, asked=step.unit_asked)
         self._results_changed = True
         if _in_kernel():
             # JupyterLab: the checker's sheets compare with this sheet's latest results
@@ -146,12 +146,13 @@ class Sheet(SheetLinks):
             step.settings = self.settings
         if isinstance(step, Value) and not step.unit_asked and not isinstance(step, Imported):
             # one unit per kind on a sheet: a value that did not ask for its unit follows the
-            # unit the sheet settled on (the first force, moment or line load it showed)
-            unit = self.settings.kind_unit(step.display_unit)
+            # unit the sheet settled on (the first force, moment or line load it showed), and
+            # one in the other unit system's units is shown in this system's
+            unit = self.settings.default_unit(step.display_unit)
             if unit is not None:
                 step.display_unit = unit
         if isinstance(step, Check):
-            unit = self.settings.kind_unit(step.unit)
+            unit = self.settings.default_unit(step.unit)
             if unit is not None and unit != step.unit:
                 step.unit = unit
                 step.demand_q = step.demand_q.to(unit)
@@ -172,7 +173,7 @@ class Sheet(SheetLinks):
         for inner in getattr(step, "steps", ()):
             self._adopt(inner)
             if isinstance(inner, Value):
-                self.settings.keep_unit(inner.display_unit)
+                self.settings.settle(inner.quantity, inner.display_unit, asked=inner.unit_asked)
 
     def given(
         self,

@@ -139,6 +139,22 @@ class Value(Step, Term):
         return format(self.display_quantity, spec) if spec else self.result_text()
 
 
+def _asks_for(unit: str | pint.Unit | None, settings: DisplaySettings | None) -> bool:
+    """Whether a step's ``unit`` is its own choice for the sheet to keep: a unit of the sheet's
+    system (one of the other system is shown in this system's, as a value naming none is)."""
+    if unit is None:
+        return False
+    if settings is None:
+        return True
+    from calcpack.units import unit_system
+
+    try:
+        own = unit_system(ureg.Unit(unit) if isinstance(unit, str) else unit)
+    except (pint.UndefinedUnitError, ValueError, AttributeError):
+        return True  # refused with its message when the display unit is made
+    return own is None or own == settings.system
+
+
 def _display_unit(
     quantity: pint.Quantity,
     unit: str | pint.Unit | None,
@@ -163,7 +179,9 @@ def _display_unit(
                 value=quantity,
                 expected=f"a unit of {quantity.dimensionality}",
             )
-        return target
+        # a unit of the other system (an analysis written in kN·m, on a US sheet) is shown
+        # in this sheet's system: one system per sheet
+        return settings.in_system(target) if settings is not None else target
     return quantity.units
 
 
@@ -224,9 +242,9 @@ class Given(Value):
             )
         q = value if isinstance(value, pint.Quantity) else ureg.Quantity(value, "dimensionless")
         _check_finite(f"Given {name}", q)
-        self.unit_asked = unit is not None
+        self.unit_asked = _asks_for(unit, settings)
         if unit is None and settings is not None:
-            unit = settings.kind_unit(q)
+            unit = settings.default_unit(q)
         super().__init__(name, q, description, unit=unit, latex=latex, settings=settings)
         self.source = source
 
@@ -285,7 +303,7 @@ class Derived(Value):
         if unit is None:
             q = q.to_reduced_units()
         _check_finite(f"{name} = {self._formula_text() if self.formula else 'value'}", q)
-        self.unit_asked = unit is not None
+        self.unit_asked = _asks_for(unit, settings)
         if unit is None:
             unit = _settings_or_global(settings).unit_for(q)
         super().__init__(name, q, description, unit=unit, latex=latex, settings=settings)

@@ -176,20 +176,27 @@ def _expected() -> dict[tuple[str, str, str | None], tuple[Any, Any]]:
     # -- padstones and brickwork (EN 1992-1-1 §6.7, EN 1996-1-1 §6.1.3)
     pl, pw, pd = mm(mas["padstone_length"]), mm(mas["padstone_width"]), mm(mas["padstone_depth"])
     a0 = ss * mm(sec.b)
-    # A_c1 similar to A_c0 and centred (§6.7(2)), within the padstone's plan, each side at most
-    # 3 x and grown by at most the depth (Figure 6.29)
-    k = min(pl / ss, pw / mm(sec.b), 1 + pd / max(ss, mm(sec.b)), 3.0)
+    # B1's end bears at the padstone's end by the jamb: its load line is x_c from that end and
+    # only l_c = 2 min(x_c, l_p - x_c) of padstone is centred on it
+    xc = mm(geo["padstone_to_bearing"]) + ss / 2
+    lc = 2 * min(xc, pl - xc)
+    # A_c1 similar to and concentric with A_c0 (§6.7(2), (3)), within l_c and the padstone's
+    # width, each side at most 3 x and grown by at most the depth (Figure 6.29)
+    k = max(min(lc / ss, pw / mm(sec.b), 1 + pd / max(ss, mm(sec.b)), 3.0), 1.0)
     a1 = k**2 * a0
     exp[("P1, P2", "Padstone bearing (EN 1992-1-1 6.7)", gov)] = (
         Vu,
         Q_(a0 * 0.85 * 30 / 1.5 * min(math.sqrt(a1 / a0), 3.0) / 1e3, "kN"),
     )
     t, hc = mm(mas["t"]), mm(geo["pier_height"])
-    lb_m = min(pl, ss + 2 * pd)
+    # 45° spread through the padstone, concentric with the load (common practice)
+    lb_m = min(lc, ss + 2 * pd)
     wb = min(pw, mm(sec.b) + 2 * pd, t)
-    lefm = lb_m + 0.0 + hc / 2 * math.tan(math.radians(30))  # a_1 = 0: no spread past the jamb
+    a_1 = mm(geo["padstone_to_jamb"]) + xc - lb_m / 2  # wall end (jamb) to the loaded area
+    spread = hc / 2 * math.tan(math.radians(30))
+    lefm = lb_m + min(a_1, spread) + spread  # Figure 6.2, stopped by the jamb
     ratio = min(lb_m * wb / (lefm * t), 0.45)
-    beta = max(min((1 + 0) * (1.5 - 1.1 * ratio), 1.25), 1.0)
+    beta = max(min((1 + 0.3 * a_1 / hc) * (1.5 - 1.1 * ratio), 1.25 + a_1 / (2 * hc), 1.5), 1.0)
     fk = 0.5 * 20**0.7 * 4**0.3
     exp[("P1, P2", "Masonry bearing (6.1.3)", gov)] = (
         Vu,

@@ -195,6 +195,9 @@ def test_working_ends_with_the_elevation_sketch():
     svg = steps[-1].svg()
     assert "<svg" in svg
     assert f"{r.windward_profile[0].p_pos_gcpi.magnitude:+.3g}" in svg
+    bundle = r._repr_mimebundle_()
+    assert "Windward wall: q_z with height" in bundle["text/plain"]
+    assert "<svg" in bundle["text/html"] or "<img" in bundle["text/html"]
 
 
 def test_monoslope_and_hip_frames_take_their_roof_pressures():
@@ -250,3 +253,25 @@ def test_mansard_top_and_leeward_slope_are_leeward_surfaces():
     assert [x.to("ft").magnitude for x in frame.breaks] == pytest.approx([0, 12, 28, 40])
     with pytest.raises(InputError, match="mansard_top"):
         _b(roof="mansard", roof_slope=Q_(70, "deg"), mansard_top=Q_(50, "ft"))
+
+
+def test_approximate_natural_frequency_section_26_11_3():
+    """§26.11.3 (from memory): n_a = 22.2/h^0.8 (steel moment frame), 43.5/h^0.9 (concrete
+    moment frame), 75/h (other); h = 150 ft: 0.4185, 0.4722 (by hand), 0.5 Hz: all flexible."""
+    from calcpack.loads.wind_asce7_gust import approximate_vibration_asce7
+
+    h = Q_(150, "ft")
+    steel = approximate_vibration_asce7(h, "steel moment frame", damping=0.01)
+    assert steel.n1.to("Hz").magnitude == pytest.approx(22.2 / 150**0.8, rel=1e-12)
+    assert steel.flexible
+    assert "Eq. 26.11-2" in steel.n1_source
+    conc = approximate_vibration_asce7(h, "concrete moment frame")
+    assert conc.n1.to("Hz").magnitude == pytest.approx(43.5 / 150**0.9, rel=1e-12)
+    other = approximate_vibration_asce7(Q_(45.72, "m"), "other steel or concrete")
+    assert other.n1.to("Hz").magnitude == pytest.approx(0.5, rel=1e-9)
+    with pytest.raises(OutOfScopeError, match="300 ft"):
+        approximate_vibration_asce7(Q_(320, "ft"), "steel moment frame")
+    with pytest.raises(OutOfScopeError, match="C_w"):
+        approximate_vibration_asce7(h, "shear wall")
+    with pytest.raises(InputError, match="system"):
+        approximate_vibration_asce7(h, "braced frame")  # type: ignore[arg-type]

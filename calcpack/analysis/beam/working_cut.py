@@ -58,26 +58,21 @@ def _cut_working(w: Writer, result: BeamResult, x: Any, side: str) -> Any:
         if s.x_m > hi:
             continue
         r = react[s.label]
-        if s.restrains_v:
-            R = w.given(
-                f"R_{s.label}",
-                r.Fy,
-                f"reaction at {s.label} (from the analysis)",
-                unit=w.u("force"),
-                result=True,
-            )
-            steps.append(R)
-            rterms.append(("F", s.x_m, R))
-        if s.restrains_rotation:
-            Mr = w.given(
-                f"M_{s.label}",
-                r.C,
-                f"moment reaction at {s.label}, clockwise +",
-                unit=w.u("moment"),
-                result=True,
-            )
-            steps.append(Mr)
-            rterms.append(("C", s.x_m, Mr))
+        acting = (
+            (s.restrains_v, "F", "R", r.Fy, "reaction at {} (from the analysis)", "force"),
+            (s.restrains_rotation, "C", "M", r.C, "moment reaction at {}, clockwise +", "moment"),
+        )
+        for restrained, kind, symbol, value, said, dimension in acting:
+            if restrained:
+                given = w.given(
+                    f"{symbol}_{s.label}",
+                    value,
+                    said.format(s.label),
+                    unit=w.u(dimension),
+                    result=True,
+                )
+                steps.append(given)
+                rterms.append((kind, s.x_m, given))
     cut: CutSide = "left" if side == "left" else ""
     termsV = load_terms(loads, beam, Region(0.0, x_m, None, "c", cut))
     termsM = load_terms(loads, beam, Region(0.0, x_m, x_m, "c", cut))

@@ -98,6 +98,20 @@ def check_aci_anchors(group: AnchorGroup, loads: AnchorLoads, *, mark: str = "A1
         f = ANCHOR_FACTORS[key]
         return c.given(name, f.phi, f"strength reduction factor, {key}", source=f.clause)
 
+    def demand(
+        c: Recorder, sym: str, total: Quantity, most: Quantity | None, what: str
+    ) -> tuple[Any, Any]:
+        """The factored force on the group and on its most loaded anchor (N/n when shared)."""
+        on_group = c.given(f"{sym}_ua", total, f"factored {what} on the anchors",
+                           source=ld.combination or "given", unit=F, result=True)  # fmt: skip
+        if n == 1:
+            return on_group, on_group
+        on_one = c.given(f"{sym}_ua_i", most if most is not None else total / n,
+                         f"{what.split(',')[0]} on the most loaded anchor",
+                         source="given" if most is not None else f"{sym}_ua / n", unit=F,
+                         result=True)  # fmt: skip
+        return on_group, on_one
+
     def logic(c: Recorder) -> None:
         c.assume(
             "Cast-in anchors; the concrete is "
@@ -211,14 +225,7 @@ def check_aci_anchors(group: AnchorGroup, loads: AnchorLoads, *, mark: str = "A1
         # -- tension ---------------------------------------------------------------------
         if tension:
             c.heading("Tension: steel strength, §17.6.1", 3)
-            N_ua = c.given("N_ua", ld.N, "factored tension on the anchors",
-                           source=ld.combination or "given", unit=F, result=True)  # fmt: skip
-            N_i = N_ua
-            if n > 1:
-                Ni_q = ld.N_max if ld.N_max is not None else ld.N / n
-                N_i = c.given("N_ua_i", Ni_q, "tension on the most loaded anchor",
-                              source="given" if ld.N_max is not None else "N_ua / n",
-                              unit=F, result=True)  # fmt: skip
+            N_ua, N_i = demand(c, "N", ld.N, ld.N_max, "tension")
             Nsa = c.derive("N_sa", A_se * f_uta, "steel strength of one anchor", unit=F,
                            ref="ACI 318-19 Eq. (17.6.1.2)")  # fmt: skip
             p = phi(c, f"steel tension, {ductile}", "phi_st")
@@ -274,14 +281,7 @@ def check_aci_anchors(group: AnchorGroup, loads: AnchorLoads, *, mark: str = "A1
         if shear:
             assert ld.toward is not None
             c.heading("Shear: steel strength, §17.7.1", 3)
-            V_ua = c.given("V_ua", ld.V, f"factored shear on the anchors, towards {ld.toward}",
-                           source=ld.combination or "given", unit=F, result=True)  # fmt: skip
-            V_i = V_ua
-            if n > 1:
-                Vi_q = ld.V_max if ld.V_max is not None else ld.V / n
-                V_i = c.given("V_ua_i", Vi_q, "shear on the most loaded anchor",
-                              source="given" if ld.V_max is not None else "V_ua / n",
-                              unit=F, result=True)  # fmt: skip
+            V_ua, V_i = demand(c, "V", ld.V, ld.V_max, f"shear, towards {ld.toward}")
             if g.kind == "headed stud":
                 Vsa_f: Any = A_se * f_uta
                 eq = "ACI 318-19 Eq. (17.7.1.2a)"

@@ -185,3 +185,14 @@ def test_tables_reads_and_edits_only_the_tables_named(tmp_path: Path) -> None:
         update_inputs(p, {"brace.bolt": "x"}, tables=("post",))
     with pytest.raises(InputsFileError, match=r"table \[beam\] is missing"):
         load_inputs(p, tables=("beam",))
+
+
+@pytest.mark.parametrize("text", ["2x10", "6x6", "4 x 12", "24F-1.8E", "20F-1.5E", "24F-V4"])
+def test_the_trades_designations_starting_with_a_number_stay_text(text: str) -> None:
+    assert read_inputs_text(f'size = "{text}"') == {"size": text}
+
+
+@pytest.mark.parametrize("text", ["3.2", "2x", "24F-", "6x6 in"])
+def test_other_numbers_without_a_known_unit_are_still_refused(text: str) -> None:
+    with pytest.raises(InputsFileError, match="size"):
+        read_inputs_text(f'size = "{text}"')

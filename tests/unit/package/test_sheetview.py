@@ -142,3 +142,18 @@ def test_a_notebook_outside_any_project_keeps_its_cache_beside_it(tmp_path: Path
         "laid out",
         None,
     )
+
+
+def test_a_sheet_laid_out_alone_shows_links_to_other_sheets_as_text() -> None:
+    """An imported value's source names the exporting sheet; on its own the sheet has no page to
+    give for it, so the link becomes its words (never "(page )")."""
+    from calcpack.package.sheetdoc import unlink_absent
+
+    html = (
+        '<section id="sheet-1"><a class="cp-link" href="#sheet-2">sheet 2, <i>R</i><sub>A</sub>'
+        '</a> <a class="cp-link" href="#sheet-1">this sheet</a></section>'
+    )
+    assert unlink_absent(html) == (
+        '<section id="sheet-1">sheet 2, <i>R</i><sub>A</sub> '
+        '<a class="cp-link" href="#sheet-1">this sheet</a></section>'
+    )

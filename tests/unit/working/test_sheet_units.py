@@ -122,12 +122,118 @@ def test_a_value_shown_in_the_sheet_unit_is_the_value_entered(
     first: str, later: str, value: float
 ) -> None:
     # Property: settling a unit changes only how a value is shown, never the value itself;
-    # and a value of the first value's kind is shown in that value's unit.
+    # a value of the first value's kind is shown in that value's unit when that unit is of the
+    # sheet's system (a US unit on an SI sheet settles nothing), and never in a US unit.
+    from calcpack.units import unit_system
+
     s = _sheet(system="SI")
     s.given("a", 1.0 * ureg(first))
     entered = value * ureg(later)
     shown = s.given("b", entered)
     assert shown.display_quantity.to(entered.units).magnitude == pytest.approx(value, rel=1e-12)
-    if quantity_kind(ureg.Unit(first)) == quantity_kind(ureg.Unit(later)):
+    same_kind = quantity_kind(ureg.Unit(first)) == quantity_kind(ureg.Unit(later))
+    if same_kind and unit_system(ureg.Unit(first)) != "US":
         assert shown.display_unit == ureg.Unit(first)
+    assert unit_system(shown.display_unit) != "US"
     assert isinstance(s.derive("c", shown * 2), Derived)
+
+
+def test_a_zero_or_a_number_does_not_settle_a_kind() -> None:
+    """A moment of 0 kN·m an analysis wrote in its own units does not make kN·m the US
+    sheet's moment unit; the next moment is shown in the preset's kip·ft (pint converts)."""
+    s = _sheet(system="US")
+    s.given("M_0", 0 * ureg.kN * ureg.m, "moment at the base of a pin-based post")
+    s.given("n", 3 * ureg.dimensionless, "bolts")
+    assert not s.settings.kinds
+    M = s.given("M_u", 12 * ureg.kip * ureg.ft)
+    assert M.result_text() == "12.0 kip·ft"
+    assert s.given("M_1", 13.56 * ureg.kN * ureg.m).result_text() == "10.0 kip·ft"
+
+
+def test_a_value_in_the_other_systems_units_is_shown_in_the_sheets_and_settles_nothing() -> None:
+    """What an analysis computed in SI reads in US units on a US sheet (and the other way
+    round), whether or not its step named the unit; values the engineer wrote in the sheet's
+    own system then settle their kinds as before. Conversions are pint's."""
+    us = _sheet(system="US")
+    B = us.given("B", 0.762 * ureg.m, "width", unit="m")  # a step naming an SI unit
+    assert B.result_text() == "2.50 ft"
+    assert us.given("gamma", 23.6 * ureg.kN / ureg.m**3).result_text() == "150 pcf"
+    assert us.given("q", 71.8 * ureg.kPa).result_text() == "1500 psf"
+    assert us.given("t", 152.4 * ureg.mm).result_text() == "6.00 in"
+    assert not us.settings.kinds  # none of them spoke for its kind
+    assert us.given("P", 850 * ureg.lbf).result_text() == "850 lbf"
+    assert us.given("P_2", 1.2 * ureg.kip).result_text() == "1200 lbf"  # lbf settled
+    si = _sheet(system="SI")
+    assert si.given("w", 1 * ureg.klf).result_text() == "14.6 kN/m"
+    assert si.given("d", 12 * ureg.inch).result_text() == "305 mm"
+    assert si.derive("d_2", si["d"] * 2, unit="inch").result_text() == "610 mm"
+
+
+def test_table_cells_in_the_other_systems_units_read_in_the_sheets() -> None:
+    s = _sheet(system="US")
+    assert format_cell(0 * ureg.kN * ureg.m, 3, s.settings) == "0 kip·ft"
+    assert format_cell(26.6 * ureg.kPa, 3, s.settings) == "556 psf"
+    assert format_cell(2.5 * ureg.kip, 3, s.settings) == "2.50 kip"  # its own system: kept
+
+
+@given(
+    magnitude=st.floats(min_value=1e-3, max_value=1e6),
+    unit=st.sampled_from(["kN", "kN*m", "kN/m", "kPa", "MPa", "m", "mm", "mm**2", "kN/m**3"]),
+)
+def test_an_si_value_on_a_us_sheet_is_the_same_quantity_in_us_units(
+    magnitude: float, unit: str
+) -> None:
+    """Whatever SI value a US sheet is given, it shows it in a US unit of the same dimension
+    and the quantity is unchanged (the display converts; the record keeps full precision)."""
+    from calcpack.units import unit_system
+
+    s = _sheet(system="US")
+    q = magnitude * ureg.Unit(unit)
+    step = s.given("x", q)
+    assert unit_system(step.display_unit) == "US"
+    assert step.display_unit.dimensionality == q.dimensionality
+    assert step.quantity.to(step.display_unit).to(q.units).magnitude == pytest.approx(magnitude)
+    assert not s.settings.kinds
+
+
+def test_a_footing_checked_on_a_us_sheet_reads_in_us_units_throughout() -> None:
+    """The soil checks work in SI inside; on a US sheet every value, table cell and check reads
+    in US units (the deck's pier sheet printed "0 kN·m" in its loads table and B in m)."""
+    import re
+
+    from calcpack.combinations import asce7_allowable_stress
+    from calcpack.foundations import (
+        AllowableBearing,
+        Column,
+        Footing,
+        FootingLoad,
+        SiteConditions,
+        check_footing_soil,
+    )
+    from calcpack.units import Q_
+
+    # Invented pier: 30 in round, 24 in deep, 150 pcf concrete, on 1500 psf soil.
+    pier = Footing(
+        "round",
+        Q_(30, "inch"),
+        Q_(24, "inch"),
+        Column(Q_(5.5, "inch"), support="base plate", plate1=Q_(6, "inch")),
+        kind="pier",
+        gamma_concrete=Q_(150, "pcf"),
+        gamma_soil=Q_(110, "pcf"),
+        mark="PR-1",
+    )
+    loads = {"D": FootingLoad(P=Q_(0.18, "kip")), "L": FootingLoad(P=Q_(1.05, "kip"))}
+    soil = check_footing_soil(
+        pier,
+        loads,
+        asce7_allowable_stress(),
+        AllowableBearing(Q_(1500, "psf"), "invented presumptive value"),
+        site=SiteConditions(frost_depth=Q_(18, "inch")),
+    )
+    s = _sheet(system="US")
+    soil.add_to(s)
+    text = "\n".join(str(step) for step in s.steps)  # each step's plain-text working
+    assert re.findall(r"\d (?:kN|kPa|MPa|m\b|mm\b|kN·m|kN/m)", text) == []
+    assert "0 kip·ft" in text
+    assert "B = 2.50 ft" in text
