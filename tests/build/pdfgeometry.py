@@ -3,8 +3,11 @@
 ``painted_extent`` follows a page's content stream with pypdf: the current transformation
 matrix through ``q``/``Q``/``cm``, the points of every path that is painted (filled or stroked;
 a path used only as a clip is not), and the box of every XObject drawn with ``Do`` (a form's
-``/BBox`` through its ``/Matrix``, an image's unit square). Typeset math is drawn as filled glyph
-outlines, so a formula past the margin shows as ink past the margin.
+``/BBox`` through its ``/Matrix``, an image's unit square), each cut by the clipping path in
+force (``W``/``W*``, kept with the graphics state; its bounding box), so a fill clipped to a box —
+a repeated background painted over the whole page and shown only inside its element — counts
+for what shows. Typeset math is drawn as filled glyph outlines, so a formula past the margin
+shows as ink past the margin.
 """
 
 from __future__ import annotations
@@ -72,13 +75,23 @@ def painted_boxes(reader: PdfReader, index: int) -> list[Extent]:
     xobjects: Any = (page.get("/Resources") or {}).get("/XObject") or {}
     boxes: list[Extent] = []
     ctm = IDENTITY
-    stack: list[Matrix] = []
+    clip: Extent | None = None  # None: nothing clips yet
+    stack: list[tuple[Matrix, Extent | None]] = []
     path: list[tuple[float, float]] = []
+    clipping = False
+
+    def shown(box: Extent) -> None:
+        cut = box if clip is None else _intersect(box, clip)
+        if cut is not None:
+            boxes.append(cut)
+
     for operands, op in ContentStream(page.get_contents(), reader).operations:
         if op == b"q":
-            stack.append(ctm)
+            stack.append((ctm, clip))
         elif op == b"Q":
-            ctm = stack.pop() if stack else IDENTITY
+            ctm, clip = stack.pop() if stack else (IDENTITY, None)
+        elif op in (b"W", b"W*"):
+            clipping = True  # the path, once ended, clips what follows
         elif op == b"cm":
             ctm = _multiply(tuple(float(v) for v in operands), ctm)  # type: ignore[arg-type]
         elif op in (b"m", b"l"):
@@ -90,15 +103,17 @@ def painted_boxes(reader: PdfReader, index: int) -> list[Extent]:
             x, y, w, h = (float(v) for v in operands)
             path += [_apply(ctm, x, y), _apply(ctm, x + w, y + h)]
             path += [_apply(ctm, x + w, y), _apply(ctm, x, y + h)]
-        elif op in _PAINT:
+        elif op in _PAINT or op == b"n":
             if path:
                 box = Extent()
                 for point in path:
                     box.add(*point)
-                boxes.append(box)
+                if op in _PAINT:
+                    shown(box)
+                if clipping:
+                    clip = box if clip is None else (_intersect(box, clip) or _EMPTY)
             path = []
-        elif op == b"n":
-            path = []  # a clipping path, not ink
+            clipping = False
         elif op == b"Do":
             xobject = xobjects[operands[0]].get_object()
             if xobject.get("/Subtype") == "/Form":
@@ -111,8 +126,20 @@ def painted_boxes(reader: PdfReader, index: int) -> list[Extent]:
             box = Extent()
             for x, y in ((x0, y0), (x1, y0), (x0, y1), (x1, y1)):
                 box.add(*_apply(m, x, y))
-            boxes.append(box)
+            shown(box)
     return boxes
+
+
+_EMPTY = Extent(0.0, 0.0, -1.0, -1.0)
+"""A clip that shows nothing (two clips that do not meet)."""
+
+
+def _intersect(a: Extent, b: Extent) -> Extent | None:
+    """The overlap of two boxes, or None when they do not meet."""
+    x0, y0, x1, y1 = max(a.x0, b.x0), max(a.y0, b.y0), min(a.x1, b.x1), min(a.y1, b.y1)
+    if x0 > x1 or y0 > y1:
+        return None
+    return Extent(x0, y0, x1, y1)
 
 
 @dataclass(frozen=True)
