@@ -15,19 +15,6 @@ from pypdf import PdfReader
 
 from calcpack.cli import main
 
-SHARED_BUILDS = frozenset(
-    {"demo_dir", "demo_pdf", "demo_manifest", "demo_reader", "demo_texts", "packages"}
-)
-"""Session fixtures that build a whole example package once."""
-
-
-def pytest_collection_modifyitems(items: list[pytest.Item]) -> None:
-    """Tests reading the shared example builds go to one worker under ``--dist loadgroup``:
-    each worker process would otherwise build every example again for itself."""
-    for item in items:
-        if SHARED_BUILDS & set(getattr(item, "fixturenames", ())):
-            item.add_marker(pytest.mark.xdist_group("example-builds"))
-
 
 @pytest.fixture
 def new_project() -> Any:
