@@ -225,8 +225,14 @@ def _line_breaks(key: tuple[str, float], cache: MathCache, *, known_wide: bool) 
     broken = cache.breaks.get(key)
     if broken is None:
         tex, width_px = key
+        measure = _measurer(cache)
         margin = width_px * _BREAK_MARGIN
-        broken = break_display(tex, margin, _measurer(cache), known_wide=known_wide)
+        broken = break_display(tex, margin, measure, known_wide=known_wide)
+        for _ in range(3):  # the parts' widths under-estimate the whole: fill less and try again
+            if broken == tex or tex_to_svg(broken, display=True, cache=cache).width_px <= width_px:
+                break
+            margin *= _BREAK_MARGIN
+            broken = break_display(tex, margin, measure, known_wide=True)
         cache.breaks[key] = broken
         if cache.shared is not None:
             cache.shared.put_break(key, broken)
