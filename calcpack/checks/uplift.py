@@ -52,8 +52,7 @@ FS_DEFAULT = 1.0
 """Extra factor of safety on the uplift: none beyond the combination's reduced dead-load
 factor (0.6D in ASCE/SEI 7-16 §2.4.1 (7), 0.9D in §2.3.1 (6); common practice)."""
 FS_DEFAULT_SOURCE = (
-    "common practice: the reduced dead-load factor of the combination is the margin against "
-    "uplift, no further factor"
+    "no further factor of safety: the reduced dead-load factor is the margin (common practice)"
 )
 
 
@@ -261,16 +260,21 @@ def check_uplift_by_weight(
                           source=gov.name)  # fmt: skip
         R = c.derive("R_up", g_D * W, "uplift resistance: the weight as dead load", unit="lbf",
                      ref=gov.clause)  # fmt: skip
-        FS = c.given("FS_up", body.safety, "factor of safety on the uplift",
-                     source=body.safety_source)  # fmt: skip
-        Ud = c.derive("U_FS", FS * U, "uplift times the factor of safety", unit="lbf")
+        rule = f"{gov.clause}: FS·U ≤ γ_D·W"
+        if body.safety != 1.0:
+            FS = c.given("FS_up", body.safety, "factor of safety on the uplift",
+                         source=body.safety_source)  # fmt: skip
+            U = c.derive("U_FS", FS * U, "uplift times the factor of safety", unit="lbf")
+        else:
+            rule = f"{gov.clause}: U ≤ γ_D·W"
         c.check(
             "Uplift",
-            Ud,
+            U,
             R,
-            ref=f"{gov.clause}: FS·U ≤ γ_D·W",
+            ref=rule,
             combination=gov.name if lifted else None,
-            description="net uplift held down by the weight counted",
+            description="net uplift held down by the weight counted"
+            + ("" if body.safety != 1.0 else f" ({body.safety_source})"),
         )
 
     return run_checks(

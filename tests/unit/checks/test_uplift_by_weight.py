@@ -84,6 +84,15 @@ def test_working_shows_the_terms_of_the_governing_combination():
     assert "W_c = γ_c·V_c" in text
     assert "R_up = γ_D·W_c" in text
     assert "Not counted in the resistance: skin friction on the sides" in text
+    assert "FS_up" not in text  # no further factor by default: the check is U against γ_D·W_c
+    stated = check_uplift_by_weight(
+        UpliftByWeight(body.loads, body.weights, safety=1.5, safety_source="the firm's practice"),
+        asce7_allowable_stress(),
+        mark="PR-B",
+    )
+    text = "\n".join(s.text() for s in stated.working())
+    assert "U_FS = FS_up·U" in text
+    assert "the firm's practice" in text
 
 
 def test_nonsense_inputs_are_refused_naming_the_input():
