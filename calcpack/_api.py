@@ -181,6 +181,11 @@ from calcpack.checks.connector import (
     ConnectorListing as ConnectorListing,
     check_connector as check_connector,
 )
+from calcpack.checks.uplift import (
+    ResistingWeight as ResistingWeight,
+    UpliftByWeight as UpliftByWeight,
+    check_uplift_by_weight as check_uplift_by_weight,
+)
 from calcpack.checks.ibc2018 import (
     EmbeddedPost as EmbeddedPost,
     check_embedment as check_embedment,

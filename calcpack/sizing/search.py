@@ -207,9 +207,11 @@ def lightest_sections(
             )
         pool = within
 
+    in_si = _Converter()
+
     def key(c: Candidate[C]) -> tuple[float, float, str]:
-        w = float(c.weight.to("N/m").magnitude)
-        d = float(c.depth.to("m").magnitude) if c.depth is not None else 0.0
+        w = in_si(c.weight, "N/m")
+        d = in_si(c.depth, "m") if c.depth is not None else 0.0
         return (w, d, c.name) if order == "weight" else (d, w, c.name)
 
     pool.sort(key=key)
@@ -247,6 +249,23 @@ def lightest_sections(
         closest = min(scored, key=lambda t: t.utilisation or 0.0) if scored else None
         next_lighter = None
     return SizingResult(tuple(passing), next_lighter, closest, tuple(tried), order)
+
+
+class _Converter:
+    """Magnitudes of weights and depths in one unit, converting each unit found once (a
+    catalogue tabulates every row in the same unit, and sorting hundreds of rows by pint
+    conversions is most of a search's overhead). Weight and depth units are multiplicative,
+    so one factor per unit converts exactly as pint does."""
+
+    def __init__(self) -> None:
+        self._factors: dict[tuple[Any, str], float] = {}
+
+    def __call__(self, q: Quantity, unit: str) -> float:
+        k = (q.units, unit)
+        f = self._factors.get(k)
+        if f is None:
+            f = self._factors[k] = float((1.0 * q.units).to(unit).magnitude)
+        return float(q.magnitude) * f
 
 
 @dataclass(frozen=True)
