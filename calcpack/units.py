@@ -229,13 +229,47 @@ class DisplaySettings:
         unit = self.kinds.get(kind) if kind else None
         return ureg.Unit(unit) if unit else None
 
-    def unit_for(self, quantity: pint.Quantity) -> pint.Unit | None:
+    def unit_for(self, quantity: pint.Quantity, *, family: str | None = None) -> pint.Unit | None:
         """The unit for a value that names none: the preset's unit for its dimension, or the
-        unit the sheet settled for that unit's kind."""
+        unit the sheet settled for that unit's kind.
+
+        A pressure is shown in the unit of its family (area load, stress, modulus: psf beside
+        ksi, kPa beside MPa), not the preset's one unit for the dimension: the family the
+        caller declares (``family="area load"`` for a load per area), else the one its own
+        unit names (12 psf is an area load); a value in the coherent SI unit (Pa, as an
+        analysis writes it) names none and takes the preset's.
+
+        Raises:
+            InputError: ``family`` is not a family of the quantity's dimension."""
+        family = family or _named_family(quantity.units)
+        if family is not None:
+            return self.family_unit(quantity, family)
         preset = self.preset.unit_for(quantity)
         if preset is None:
             return self.kind_unit(quantity)
         return self.kind_unit(preset) or preset
+
+    def family_unit(self, quantity: pint.Quantity | pint.Unit, family: str) -> pint.Unit:
+        """The unit this sheet shows ``family`` of ``quantity``'s dimension in: the unit it
+        settled for that kind, else the system's (:data:`_SYSTEM_UNITS`).
+
+        Raises:
+            InputError: ``family`` is not a family of the quantity's dimension."""
+        dim = _kind_key(quantity)
+        families = [name for _, name in _FAMILIES.get(dim, ())]
+        if family not in families:
+            raise InputError(
+                name="family",
+                value=family,
+                rule=(
+                    f"must be one of {', '.join(map(repr, families))} for a quantity of {dim}"
+                    if families
+                    else f"must be left out: a quantity of {dim or 'no dimension'} has no families"
+                ),
+                expected=" or ".join(families) if families else "None",
+            )
+        settled = self.kinds.get(f"{dim} ({family})")
+        return ureg.Unit(settled or _SYSTEM_UNITS[self.system][family])
 
     def keep_unit(self, unit: pint.Unit) -> None:
         """Settle ``unit`` as the sheet's unit for its kind, unless one is settled already."""
@@ -286,12 +320,16 @@ class DisplaySettings:
         self.keep_unit(unit)
 
 
+_PRESSURE = "[length]**-1 * [mass]**1 * [time]**-2"
+"""The dimension of pressure: area loads, stresses and moduli (see :data:`_FAMILIES`)."""
+
+
 _FAMILIES: dict[str, tuple[tuple[float, str], ...]] = {
     # SI factor of the unit from which the family starts, and its name, largest first
     "[length]**1": ((0.25, "span"), (0.0, "dimension")),
     "[length]**2": ((1e-2, "plan area"), (0.0, "section area")),
     "[length]**3": ((1e-3, "volume"), (0.0, "section modulus")),
-    "[length]**-1 * [mass]**1 * [time]**-2": (
+    _PRESSURE: (
         (1e8, "modulus"),
         (5e3, "stress"),
         (0.0, "area load"),
@@ -409,6 +447,15 @@ def system_unit(quantity: pint.Quantity | pint.Unit, system: str) -> pint.Unit |
     if family:
         return ureg.Unit(_SYSTEM_UNITS[system][family])
     return PRESETS[system].unit_for(quantity)
+
+
+def _named_family(unit: pint.Unit) -> str | None:
+    """The family a pressure's own unit names (psf and kPa: area load; psi, ksi and MPa:
+    stress; GPa: modulus), or None: not a pressure, or in the coherent SI unit (Pa, N/m²),
+    which a computation writes whatever the quantity is."""
+    if _kind_key(unit) != _PRESSURE or ureg.Quantity(1.0, unit).to_base_units().magnitude == 1.0:
+        return None
+    return quantity_kind(unit).rsplit(" (", 1)[1].rstrip(")")
 
 
 def _kind_key(reference: pint.Quantity | pint.Unit) -> str:

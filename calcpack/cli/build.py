@@ -3,12 +3,18 @@
 from __future__ import annotations
 
 import argparse
-from collections.abc import Iterator
+from collections.abc import Iterator, Sequence
 from contextlib import contextmanager
 from pathlib import Path
-from typing import Any
+from typing import TYPE_CHECKING, Any
 
-__all__ = ["add_build_options", "progress_reporter", "register"]
+if TYPE_CHECKING:
+    from calcpack.package.pipeline import SheetTime
+
+__all__ = ["add_build_options", "progress_reporter", "register", "timeline_lines"]
+
+_BAR = 24
+"""Width of the timeline's bars, in characters."""
 
 
 def _seconds(text: str) -> float:
@@ -121,6 +127,31 @@ def progress_reporter(quiet: bool) -> Iterator[Any]:
         yield report
 
 
+def timeline_lines(timeline: Sequence[SheetTime]) -> list[str]:
+    """The build's timeline as text, one line per sheet in the order they started: a bar over
+    the build's span (sheets run side by side overlap), start and finish in seconds from the
+    first start, and the time it took; a sheet read from the cache says so. Empty when no
+    sheet ran.
+    """
+    ran = [t for t in timeline if not t.from_cache]
+    if not timeline:
+        return []
+    width = max(len(t.path) for t in timeline)
+    lines = ["Sheet times (seconds from the first sheet's start):"]
+    t0 = min((t.started_at for t in ran), default=0.0)
+    span = max((t.finished_at for t in ran), default=t0) - t0
+    for t in sorted(timeline, key=lambda t: (t.from_cache, t.started_at, t.path)):
+        if t.from_cache:
+            lines.append(f"  {t.path:<{width}}  {'':{_BAR}}  from cache")
+            continue
+        a, b = t.started_at - t0, t.finished_at - t0
+        lo = int(_BAR * a / span) if span > 0 else 0
+        hi = max(lo + 1, round(_BAR * b / span)) if span > 0 else _BAR
+        bar = " " * lo + "#" * (min(hi, _BAR) - lo)
+        lines.append(f"  {t.path:<{width}}  {bar:<{_BAR}}  {a:6.1f} to {b:6.1f}  ({b - a:.1f} s)")
+    return lines
+
+
 def handler(args: argparse.Namespace) -> int:
     """Run ``calcpack build``."""
     from calcpack.package.pipeline import build
@@ -151,6 +182,9 @@ def handler(args: argparse.Namespace) -> int:
             f"{result.seconds:.1f} s)"
         )
     print(f"Manifest {result.manifest_path}")
+    if not args.quiet:
+        for line in timeline_lines(result.timeline):
+            print(line)
     if result.superseded is not None:
         print(f"The signed package it replaces was moved to {result.superseded}")
     return 0

@@ -53,10 +53,11 @@ from calcpack.sizing import (
     aisc_beam_space,
     glulam_beam_space,
     nds_beam_space,
+    nds_graded_beam_space,
 )
 from calcpack.sizing.search import Order
 from calcpack.sizing.steel import flag_heavier
-from calcpack.sizing.timber import DIMENSION_SIZES
+from calcpack.sizing.timber import DIMENSION_SIZES, split_graded_name
 from calcpack.sizing.timber_members import GLULAM_DEPTHS, GLULAM_WIDTHS
 from calcpack.units import Q_, Quantity
 
@@ -137,10 +138,25 @@ class BeamMemberCase:
     table_name: str
     keys: tuple[str, ...] = field(default=())
 
-    def space(self, *, single: bool = False) -> SearchSpace[Any]:
+    def space(
+        self, *, single: bool = False, grades: Sequence[str] | None = None
+    ) -> SearchSpace[Any]:
         """The search space: the family's sections (or, with ``single``, the table's own) and
-        the trial the panel, the search and the sheet share."""
+        the trial the panel, the search and the sheet share. ``grades`` (sawn only): search
+        every size in each of these grades of the table's species (candidates "2x10 No.1").
+
+        Raises:
+            InputsFileError: grades given for a steel or glulam member.
+        """
         v, dm, key = self.values, self.demand, f"{self.table_name}.section"
+        if grades is not None and self.material != "sawn":
+            raise InputsFileError(
+                f"A search across grades is for sawn members; {self.table_name} is "
+                f"{self.material} (got grades = {list(grades)!r})",
+                name="grades",
+                value=list(grades),
+                expected="None for a steel or glulam member",
+            )
         if self.material == "steel":
             shape: SteelShape = v["shape"]
             with as_inputs_error(key):
@@ -154,6 +170,14 @@ class BeamMemberCase:
             size = self.section
             sizes = [size] if single else [*DIMENSION_SIZES, *([] if size in DIMENSION_SIZES
                                                               else [size])]  # fmt: skip
+            if grades is not None:
+                with as_inputs_error(f"{self.table_name}.grade"):
+                    return nds_graded_beam_space(
+                        dm.strength, species=v["species"], grades=grades, sizes=sizes,
+                        conditions=ServiceConditions(repetitive=v["repetitive"], wet=v["wet"]),
+                        durations=dm.durations, deflections=dm.deflections, plies=v["plies"],
+                        member=self.mark,
+                    )  # fmt: skip
             with as_inputs_error(f"{self.table_name}.size"):
                 return nds_beam_space(
                     dm.strength, species=v["species"], grade=v["grade"], sizes=sizes,
@@ -290,18 +314,20 @@ def lightest_beam_member(
     count: int = 5,
     order: Order = "weight",
     max_depth: Quantity | None = None,
+    grades: Sequence[str] | None = None,
 ) -> SizingResult:
     """The lightest (or shallowest) sections of the member's family passing every check, the
-    heavier than the analysed self-weight flagged."""
-    found = case.space().search(count=count, order=order, max_depth=max_depth)
+    heavier than the analysed self-weight flagged. ``grades`` (sawn only): rank (size, grade)
+    pairs over these grades of the table's species (see :meth:`BeamMemberCase.space`)."""
+    found = case.space(grades=grades).search(count=count, order=order, max_depth=max_depth)
     sw = case.demand.self_weight
     return found if sw is None else flag_heavier(found, sw)
 
 
 def beam_pick_changes(case: BeamMemberCase, name: str) -> dict[str, Any]:
     """The inputs-file edits that make ``name`` (a candidate of the search) the member: the
-    designation and the tabulated properties the table holds (steel), the size (sawn), or the
-    width and depth (glulam)."""
+    designation and the tabulated properties the table holds (steel), the size (sawn; and the
+    grade, from a search across grades), or the width and depth (glulam)."""
     t = case.table_name
     if case.material == "steel":
         shape = aisc_shape(name)
@@ -315,7 +341,8 @@ def beam_pick_changes(case: BeamMemberCase, name: str) -> dict[str, Any]:
             changes[f"{t}.source"] = shape.source
         return changes
     if case.material == "sawn":
-        return {f"{t}.size": name}
+        size, grade = split_graded_name(name)  # "2x10 No.1" from a search across grades
+        return {f"{t}.size": size} | ({} if grade is None else {f"{t}.grade": grade})
     by_name = {c.name: c.item for c in case.space().candidates}
     m = by_name[name]
     return {f"{t}.width": Q_(m.b.to("inch").magnitude, "inch"), f"{t}.depth": m.d.to("inch")}

@@ -11,7 +11,6 @@ from __future__ import annotations
 import datetime as _dt
 from collections.abc import Sequence
 from dataclasses import dataclass, field
-from html import escape
 from math import isfinite
 from typing import Any
 
@@ -19,6 +18,7 @@ from calcpack.contract.compare import Change
 from calcpack.contract.records import SheetRecords
 from calcpack.package.mathcache import MathCache
 from calcpack.package.project import Person, Project, SheetEntry
+from calcpack.package.titleblock import date_text, esc, person_date, revision_flag, titleblock
 from calcpack.working.format import format_number
 from calcpack.working.render import symbols_html
 
@@ -116,22 +116,10 @@ def format_sig(value: float | None, sig_figs: int = 3) -> str:
     return format_number(value, sig_figs)
 
 
-def _e(text: Any) -> str:
-    return escape(str(text), quote=True)
-
-
 def _css_string(text: str) -> str:
     """A CSS string literal, HTML-escaped for use inside a style attribute."""
     quoted = '"' + text.replace("\\", "\\\\").replace('"', '\\"').replace("\n", " ") + '"'
-    return _e(quoted)
-
-
-def _date(value: _dt.date | None) -> str:
-    return value.isoformat() if value else ""
-
-
-def _person_date(person: Person, fallback: _dt.date | None) -> str:
-    return _date(person.date or fallback)
+    return esc(quoted)
 
 
 def _markdown(text: str, math: MathCache) -> str:
@@ -148,58 +136,6 @@ def _inline_markdown(text: str, math: MathCache) -> str:
     return html
 
 
-LONG_NAME = 16
-"""Names longer than this (characters) are set smaller in the title block's narrow cells."""
-
-
-def _name(name: str) -> str:
-    """A person's name for a narrow title block cell: wraps, and long names are set smaller."""
-    size = " long" if len(name) > LONG_NAME else ""
-    return f'<span class="val name{size}">{_e(name)}</span>'
-
-
-def _revflag(rev: str) -> str:
-    """The mark of a sheet changed in revision ``rev``: a triangle and the words (searchable)."""
-    return f'<span class="cp-revflag">changed at {_e(rev)}</span>'
-
-
-def _titleblock(
-    project: Project, *, sheet_no: str, title: str, pages: int | None, changed: bool = False
-) -> str:
-    rev = project.revision
-    flag = _revflag(rev.rev) if changed else ""
-    firm = project.firm or "Structural calculations"
-    sheet_page = (
-        f'sheet <span class="cp-sheetpage" data-pages="{pages}"></span>' if pages else "&#8212;"
-    )
-    if pages == 0:
-        sheet_page = 'sheet <span class="cp-sheetpage" data-pages="00"></span>'
-    return f"""
-<div class="cp-titleblock"><table>
-<colgroup><col style="width:21%"><col style="width:9%"><col style="width:34%">
-<col style="width:12%"><col style="width:12%"><col style="width:12%"></colgroup>
-<tr>
-<td class="firm" rowspan="2"><div class="firmname">{_e(firm)}</div>
-<div class="firmsub">{_e(project.firm_address)}</div></td>
-<td><span class="lbl">Job no.</span><span class="val">{_e(project.job_number)}</span></td>
-<td colspan="3"><span class="lbl">Job title</span>
-<span class="val wrap">{_e(project.job_title)}</span></td>
-<td><span class="lbl">Revision</span>
-<span class="val">{_e(rev.rev)}</span><span class="sub">{_e(_date(rev.date))}</span>{flag}</td>
-</tr>
-<tr>
-<td><span class="lbl">Sheet no.</span><span class="val">{_e(sheet_no)}</span></td>
-<td><span class="lbl">Sheet title</span><span class="val wrap">{_e(title)}</span></td>
-<td><span class="lbl">By &#183; date</span>{_name(project.preparer.name)}
-<span class="lbl">{_e(_person_date(project.preparer, rev.date))}</span></td>
-<td><span class="lbl">Checked &#183; date</span>{_name(project.checker.name)}
-<span class="lbl">{_e(_person_date(project.checker, None))}</span></td>
-<td class="pg"><span class="lbl">Page</span><span class="val">{sheet_page}</span>
-<span class="sub">package <span class="cp-pkgpage"></span></span></td>
-</tr>
-</table></div>"""
-
-
 def _engineer_row(project: Project) -> str:
     """The engineer of record in the cover's facts: name, licence number and jurisdiction from
     the project file, or room to write them in."""
@@ -208,8 +144,8 @@ def _engineer_row(project: Project) -> str:
         blank = '<span class="hint">name, licence number, jurisdiction</span>'
         return f"<tr><th>Engineer of record</th><td>{blank}</td></tr>"
     return (
-        f"<tr><th>Engineer of record</th><td>{_e(eor.name)} &#183; licence number "
-        f"{_e(eor.licence)} &#183; {_e(eor.jurisdiction)}</td></tr>"
+        f"<tr><th>Engineer of record</th><td>{esc(eor.name)} &#183; licence number "
+        f"{esc(eor.licence)} &#183; {esc(eor.jurisdiction)}</td></tr>"
     )
 
 
@@ -225,7 +161,7 @@ def _seal_box(project: Project) -> str:
     if eor is not None and eor.seal is not None:
         data = base64.b64encode(eor.seal.read_bytes()).decode("ascii")
         kind = SEAL_TYPES[eor.seal.suffix.lower()]
-        alt = _e(f"Seal of {eor.name}, licence number {eor.licence}, {eor.jurisdiction}")
+        alt = esc(f"Seal of {eor.name}, licence number {eor.licence}, {eor.jurisdiction}")
         seal = f'<img alt="{alt}" src="data:{kind};base64,{data}"/>'
     return (
         '<td class="cp-seal"><div class="role">Engineer of record</div>'
@@ -238,37 +174,37 @@ def _cover(project: Project, sheets: Sequence[SheetDoc], compared: Sequence[Any]
     from calcpack.package.verification_html import verified_line
 
     rev = project.revision
-    standards = "<br>".join(_e(s) for s in project.design.standards)
+    standards = "<br>".join(esc(s) for s in project.design.standards)
     boxes = []
     for role in ROLES:
         person: Person = getattr(project, role)
         # The preparer's date defaults to the revision's; the others only show a date given.
-        when = _person_date(person, rev.date if role == "preparer" else None)
+        when = person_date(person, rev.date if role == "preparer" else None)
         boxes.append(f"""
 <td><div class="role">{ROLE_TITLES[role]}</div>
-<div class="who"><span class="lbl">Name</span>{_e(person.name)}</div>
-<div class="who"><span class="lbl">Date</span>{_e(when) or "&#160;"}</div>
+<div class="who"><span class="lbl">Name</span>{esc(person.name)}</div>
+<div class="who"><span class="lbl">Date</span>{esc(when) or "&#160;"}</div>
 <div class="sig" id="cp-sign-{role}"><div class="hint">Signature</div></div></td>""")
-    status = f" &#183; {_e(rev.status)}" if rev.status else ""
+    status = f" &#183; {esc(rev.status)}" if rev.status else ""
     return f"""
 <section class="cp-cover" id="cover"><!--strings-->
-<div class="band"><div><div class="firmname">{_e(project.firm or "")}</div>
-<div class="firmaddr">{_e(project.firm_address)}</div></div>
-<div class="doctype">Structural calculations<br>Job {_e(project.job_number)}</div></div>
+<div class="band"><div><div class="firmname">{esc(project.firm or "")}</div>
+<div class="firmaddr">{esc(project.firm_address)}</div></div>
+<div class="doctype">Structural calculations<br>Job {esc(project.job_number)}</div></div>
 <div class="kind cp-bm1" style="bookmark-label: 'Cover'">Calculation package</div>
-<h1 class="title">{_e(project.job_title)}</h1>
-<div class="jobno">Job {_e(project.job_number)} &#183; Revision {_e(rev.rev)}{status}</div>
+<h1 class="title">{esc(project.job_title)}</h1>
+<div class="jobno">Job {esc(project.job_number)} &#183; Revision {esc(rev.rev)}{status}</div>
 <table class="facts">
-<tr><th>Client</th><td>{_e(project.client)}</td></tr>
-<tr><th>Site</th><td>{_e(project.site)}</td></tr>
+<tr><th>Client</th><td>{esc(project.client)}</td></tr>
+<tr><th>Site</th><td>{esc(project.site)}</td></tr>
 <tr><th>Revision</th>
-<td>{_e(rev.rev)} &#8212; {_e(_date(rev.date))} &#8212; {_e(rev.description)}</td></tr>
+<td>{esc(rev.rev)} &#8212; {esc(date_text(rev.date))} &#8212; {esc(rev.description)}</td></tr>
 <tr><th>Design standards</th><td>{standards}</td></tr>
 {_engineer_row(project)}
-<tr><th>Unit system</th><td>{_e(project.units)}</td></tr>
+<tr><th>Unit system</th><td>{esc(project.units)}</td></tr>
 <tr><th>Extent</th><td>{len(sheets)} sheets, <span class="totalpages"></span> pages</td></tr>
-<tr><th>Checks</th><td>{_e(counts_line(check_counts(sheets)))}</td></tr>
-<tr><th>Independent checks</th><td>{_e(verified_line(sheets, compared))}</td></tr>
+<tr><th>Checks</th><td>{esc(counts_line(check_counts(sheets)))}</td></tr>
+<tr><th>Independent checks</th><td>{esc(verified_line(sheets, compared))}</td></tr>
 </table>
 <div class="cp-signoff"><div class="heading">Sign-off</div>
 <table><tr>{"".join(boxes)}{_seal_box(project)}</tr></table>
@@ -287,21 +223,21 @@ def _toc(
 ) -> str:
     items = ['<li class="group">Front matter</li>']
     items += [
-        f'<li><span class="no"></span><a href="#{ident}">{_e(t)}</a></li>' for ident, t in front
+        f'<li><span class="no"></span><a href="#{ident}">{esc(t)}</a></li>' for ident, t in front
     ]
     items.append('<li class="group">Calculation sheets</li>')
     for i, sheet in enumerate(sheets, start=1):
-        flag = " " + _revflag(project.revision.rev) if sheet.entry.path in changed else ""
+        flag = " " + revision_flag(project.revision.rev) if sheet.entry.path in changed else ""
         items.append(
-            f'<li><span class="no">{_e(sheet.entry.number)}</span>'
-            f'<a href="#sheet-{i}">{_e(sheet.title)}{flag}</a></li>'
+            f'<li><span class="no">{esc(sheet.entry.number)}</span>'
+            f'<a href="#sheet-{i}">{esc(sheet.title)}{flag}</a></li>'
         )
     items.append('<li class="group">Back matter</li>')
     items += [
-        f'<li><span class="no"></span><a href="#{ident}">{_e(t)}</a></li>' for ident, t in back
+        f'<li><span class="no"></span><a href="#{ident}">{esc(t)}</a></li>' for ident, t in back
     ]
     return (
-        _titleblock(project, sheet_no="—", title="Contents", pages=None)
+        titleblock(project, sheet_no="—", title="Contents", pages=None)
         + '<h1 class="cp-h cp-bm1">Contents</h1><ol class="cp-toc">'
         + "".join(items)
         + "</ol>"
@@ -316,7 +252,7 @@ def _list(items: Sequence[str], ordered: bool = False) -> str:
 def _design_basis(project: Project, sheets: Sequence[SheetDoc], math: MathCache) -> str:
     d = project.design
     parts = [
-        _titleblock(project, sheet_no="—", title="Design basis", pages=None),
+        titleblock(project, sheet_no="—", title="Design basis", pages=None),
         '<h1 class="cp-h cp-bm1">Design basis</h1>',
     ]
     sheet_standards = [
@@ -325,9 +261,9 @@ def _design_basis(project: Project, sheets: Sequence[SheetDoc], math: MathCache)
     parts.append('<h2 class="cp-h">Design standards</h2>')
     parts.append(
         _list(
-            [_e(s) for s in d.standards]
+            [esc(s) for s in d.standards]
             + [
-                f'{_e(s)} <span class="cpd-src">(sheet {_e(sheet.entry.number)})</span>'
+                f'{esc(s)} <span class="cpd-src">(sheet {esc(sheet.entry.number)})</span>'
                 for s, sheet in sheet_standards
             ]
         )
@@ -364,14 +300,14 @@ def _gathered(
         tag = ""
         if where:
             label = "sheet" if len(where) == 1 else "sheets"
-            tag = f' <span class="cpd-src">({label} {_e(", ".join(where))})</span>'
+            tag = f' <span class="cpd-src">({label} {esc(", ".join(where))})</span>'
         out.append(_inline_markdown(text, math) + tag)
     return out
 
 
 def _assumptions(project: Project, sheets: Sequence[SheetDoc], math: MathCache) -> str:
     assumptions = _gathered(project.design.assumptions, sheets, "assumptions", math)
-    standard = [_e(c) for c in STANDARD_CAUTIONS]
+    standard = [esc(c) for c in STANDARD_CAUTIONS]
     cautions = standard + _gathered(project.design.cautions, sheets, "cautions", math)
     body = (
         _list(assumptions, ordered=True)
@@ -379,7 +315,7 @@ def _assumptions(project: Project, sheets: Sequence[SheetDoc], math: MathCache) 
         else ('<p class="cp-empty">No assumptions were declared.</p>')
     )
     return (
-        _titleblock(project, sheet_no="—", title="Assumptions and cautions", pages=None)
+        titleblock(project, sheet_no="—", title="Assumptions and cautions", pages=None)
         + '<h1 class="cp-h cp-bm1">Assumptions and cautions</h1>'
         + '<h2 class="cp-h">Assumptions</h2>'
         + body
@@ -393,7 +329,7 @@ def _summary(project: Project, sheets: Sequence[SheetDoc]) -> str:
     from calcpack.package.summary import summary_html
 
     return (
-        _titleblock(project, sheet_no="—", title="Summary of checks", pages=None)
+        titleblock(project, sheet_no="—", title="Summary of checks", pages=None)
         + '<h1 class="cp-h cp-bm1">Summary of checks</h1>'
         + summary_html(sheets)
     )
@@ -405,19 +341,19 @@ MAX_CHANGES_PER_SHEET = 8
 
 def _change_text(change: Change) -> str:
     if change.kind == "sheet":
-        return _e(change.name)
+        return esc(change.name)
     what = {"input": "input", "result": "result", "check": "check"}.get(change.kind, change.kind)
-    old = _e(change.old) if change.old is not None else "(none)"
-    new = _e(change.new) if change.new is not None else "(removed)"
+    old = esc(change.old) if change.old is not None else "(none)"
+    new = esc(change.new) if change.new is not None else "(removed)"
     verdict = " <b>verdict changed</b>" if change.verdict_changed else ""
-    note = f" <i>({_e(change.note())})</i>" if change.note() else ""
-    return f"{what} {_e(change.name)}: {old} &#8594; {new}{verdict}{note}"
+    note = f" <i>({esc(change.note())})</i>" if change.note() else ""
+    return f"{what} {esc(change.name)}: {old} &#8594; {new}{verdict}{note}"
 
 
 def _revision_changes(since: str, changes: Sequence[Change]) -> str:
     """Under a revision: the sheets changed since the issued revision before it, and how."""
     if not changes:
-        nothing = f"No input, result or check changed since revision {_e(since)}."
+        nothing = f"No input, result or check changed since revision {esc(since)}."
         return f'<p class="cp-empty">{nothing}</p>'
     by_sheet: dict[str, list[Change]] = {}
     for change in changes:
@@ -429,9 +365,9 @@ def _revision_changes(since: str, changes: Sequence[Change]) -> str:
         more = len(found) - MAX_CHANGES_PER_SHEET
         if more > 0:
             shown += f"; and {more} more"
-        items.append(f"<li><b>Sheet {_e(sheet)}</b> &#8212; {shown}</li>")
+        items.append(f"<li><b>Sheet {esc(sheet)}</b> &#8212; {shown}</li>")
     return (
-        f'<div class="cp-revsince">Sheets changed since revision {_e(since)}:</div>'
+        f'<div class="cp-revsince">Sheets changed since revision {esc(since)}:</div>'
         f'<ul class="cp-revchanges">{"".join(items)}</ul>'
     )
 
@@ -443,8 +379,8 @@ def _revisions(project: Project, marks: RevisionMarks) -> str:
         # The revision being built is issued by its signatures; its flag changes no page.
         issued = " (issued)" if rev.issued and rev is not project.revision else ""
         rows.append(
-            f"<tr{cls}><td>{_e(rev.rev)}</td><td>{_e(_date(rev.date))}</td>"
-            f"<td>{_e(rev.description)}</td><td>{_e(rev.status)}{issued}</td></tr>"
+            f"<tr{cls}><td>{esc(rev.rev)}</td><td>{esc(date_text(rev.date))}</td>"
+            f"<td>{esc(rev.description)}</td><td>{esc(rev.status)}{issued}</td></tr>"
         )
         if rev.rev in marks.history:
             since, changes = marks.history[rev.rev]
@@ -453,7 +389,7 @@ def _revisions(project: Project, marks: RevisionMarks) -> str:
                 f"{_revision_changes(since, changes)}</td></tr>"
             )
     return (
-        _titleblock(project, sheet_no="—", title="Revision history", pages=None)
+        titleblock(project, sheet_no="—", title="Revision history", pages=None)
         + '<h1 class="cp-h cp-bm1">Revision history</h1>'
         + '<table class="cpd-table"><thead><tr><th>Rev</th><th>Date</th><th>Description</th>'
         + "<th>Status</th></tr></thead><tbody>"
@@ -464,7 +400,7 @@ def _revisions(project: Project, marks: RevisionMarks) -> str:
 
 def _review(project: Project, review: tuple[ReviewRow, ...] | None) -> str:
     head = (
-        _titleblock(project, sheet_no="—", title="Review log", pages=None)
+        titleblock(project, sheet_no="—", title="Review log", pages=None)
         + '<h1 class="cp-h cp-bm1">Review log</h1>'
     )
     if review is None:
@@ -472,8 +408,8 @@ def _review(project: Project, review: tuple[ReviewRow, ...] | None) -> str:
     if not review:
         return head + '<p class="cp-empty">The review record holds no comments.</p>'
     rows = "".join(
-        f"<tr><td>{_e(r.ident)}</td><td>{_e(r.sheet)}</td><td>{symbols_html(_e(r.quantity))}</td>"
-        f"<td>{symbols_html(_e(r.text))}</td><td>{_e(r.by)}</td><td>{_e(r.date)}</td><td>{_e(r.status)}</td></tr>"
+        f"<tr><td>{esc(r.ident)}</td><td>{esc(r.sheet)}</td><td>{symbols_html(esc(r.quantity))}</td>"
+        f"<td>{symbols_html(esc(r.text))}</td><td>{esc(r.by)}</td><td>{esc(r.date)}</td><td>{esc(r.status)}</td></tr>"
         for r in review
     )
     return (
@@ -485,17 +421,17 @@ def _review(project: Project, review: tuple[ReviewRow, ...] | None) -> str:
 
 def _appendix(project: Project, sheets: Sequence[SheetDoc]) -> str:
     parts = [
-        _titleblock(project, sheet_no="—", title="Appendix: sheet source", pages=None),
+        titleblock(project, sheet_no="—", title="Appendix: sheet source", pages=None),
         '<h1 class="cp-h cp-bm1">Appendix: sheet source</h1>',
     ]
     for sheet in sheets:
         parts.append(
-            f'<h2 class="cp-h">Sheet {_e(sheet.entry.number)}: {_e(sheet.title)} '
-            f'<span class="cpd-src">({_e(sheet.entry.path)})</span></h2>'
+            f'<h2 class="cp-h">Sheet {esc(sheet.entry.number)}: {esc(sheet.title)} '
+            f'<span class="cpd-src">({esc(sheet.entry.path)})</span></h2>'
             '<div class="cp-source">'
         )
         for number, source in sheet.source_cells:
-            parts.append(f'<div class="cell-no">Cell {number}</div><pre>{_e(source)}</pre>')
+            parts.append(f'<div class="cell-no">Cell {number}</div><pre>{esc(source)}</pre>')
         parts.append("</div>")
     return "".join(parts)
 
@@ -537,13 +473,13 @@ def document_html(
     firmline = " · ".join(p for p in (project.firm, project.firm_address) if p)
     out = [
         '<!DOCTYPE html><html lang="en"><head><meta charset="utf-8">',
-        f"<title>{_e(project.job_number)} {_e(project.job_title)} — calculations, revision "
-        f"{_e(rev.rev)}</title>",
-        f'<meta name="author" content="{_e(project.firm or project.preparer.name)}">',
-        f'<meta name="description" content="Structural calculations, job {_e(project.job_number)}'
-        f', revision {_e(rev.rev)}">',
-        f'<meta name="keywords" content="calculation package, {_e(project.job_number)}">',
-        f'<meta name="generator" content="calcpack {_e(options.calcpack_version)}">',
+        f"<title>{esc(project.job_number)} {esc(project.job_title)} — calculations, revision "
+        f"{esc(rev.rev)}</title>",
+        f'<meta name="author" content="{esc(project.firm or project.preparer.name)}">',
+        f'<meta name="description" content="Structural calculations, job {esc(project.job_number)}'
+        f', revision {esc(rev.rev)}">',
+        f'<meta name="keywords" content="calculation package, {esc(project.job_number)}">',
+        f'<meta name="generator" content="calcpack {esc(options.calcpack_version)}">',
         f'<meta name="dcterms.created" content="{stamp}">',
         f'<meta name="dcterms.modified" content="{stamp}">',
         "<style>",
@@ -551,7 +487,9 @@ def document_html(
         "\n".join(rules),
         "</style></head><body>",
     ]
-    strings = f'<div class="cp-strings" data-firm="{_e(firmline)}" data-issue="{_e(issue)}"></div>'
+    strings = (
+        f'<div class="cp-strings" data-firm="{esc(firmline)}" data-issue="{esc(issue)}"></div>'
+    )
 
     if not options.sheets_only:
         out += [
@@ -571,17 +509,17 @@ def document_html(
         out.append(
             f'<section class="cp-sheet" id="sheet-{i}" style="page: {page_name(i)}">'
             + (strings if options.sheets_only and i == 1 else "")
-            + _titleblock(
+            + titleblock(
                 project,
                 sheet_no=sheet.entry.number,
                 title=sheet.title,
                 pages=pages,
                 changed=sheet.entry.path in options.revisions.changed,
             )
-            + f'<div class="cp-sheet-head"><span class="no">Sheet {_e(sheet.entry.number)}</span>'
+            + f'<div class="cp-sheet-head"><span class="no">Sheet {esc(sheet.entry.number)}</span>'
             f'<h1 class="cp-bm1" style="bookmark-label: '
             f'{_css_string(f"Sheet {sheet.entry.number} — {sheet.title}")}">'
-            f"{_e(sheet.title)}</h1></div>"
+            f"{esc(sheet.title)}</h1></div>"
             f'<div class="cp-sheet-body">{sheet.body_html}</div></section>'
         )
     if options.sheets_only:
@@ -592,7 +530,7 @@ def document_html(
         _summary(project, sheets),
         "</section>",
         '<section class="cp-section cp-back" id="verification">',
-        _titleblock(project, sheet_no="—", title="Verification by the checker", pages=None),
+        titleblock(project, sheet_no="—", title="Verification by the checker", pages=None),
         verification_html(sheets, options.verifications),
         "</section>",
         '<section class="cp-section cp-back" id="revisions">',

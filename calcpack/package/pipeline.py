@@ -61,6 +61,7 @@ __all__ = [
     "BuildContext",
     "BuildResult",
     "ConvertedSheets",
+    "SheetTime",
     "build",
     "build_created",
     "prepare_sheet",
@@ -70,6 +71,18 @@ __all__ = [
 
 Reporter = Callable[[str, str], None]
 """Progress hook: (stage, detail), stage in executing/cached/executed/rendering/layout/writing."""
+
+
+@dataclass(frozen=True)
+class SheetTime:
+    """When one sheet's execution started and finished (seconds since the epoch, comparable
+    between the build's workers; a sheet read from the cache has both at the moment it was
+    read)."""
+
+    path: str
+    started_at: float
+    finished_at: float
+    from_cache: bool
 
 
 @dataclass(frozen=True)
@@ -91,6 +104,8 @@ class BuildResult:
     """Where the signed package this build replaced was moved (``superseded/``), if any."""
     warnings: tuple[str, ...] = ()
     """What the engineer should fix before signing (template placeholders left)."""
+    timeline: tuple[SheetTime, ...] = ()
+    """Each sheet's execution, in the order the build ran them (empty when up to date)."""
 
 
 def build_created(project: Project) -> _dt.datetime:
@@ -571,4 +586,8 @@ def build(
         time.perf_counter() - start,
         moved,
         ctx.warnings,
+        tuple(
+            SheetTime(i.entry.path, i.started_at, i.finished_at, i.from_cache)
+            for i in sorted(sheets.executed, key=lambda i: i.started_at)
+        ),
     )

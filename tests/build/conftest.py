@@ -12,6 +12,7 @@ import pytest
 from examplekit import Built, build_examples
 from projectkit import make_project
 from pypdf import PdfReader
+from sharedbuild import built_once, shared_base
 
 from calcpack.cli import main
 
@@ -27,16 +28,20 @@ LINTEL_DEMO = Path(__file__).resolve().parents[2] / "example_projects" / "lintel
 
 @pytest.fixture(scope="session")
 def demo_dir(tmp_path_factory: pytest.TempPathFactory) -> Path:
-    """The lintel demo job (example_projects/lintel_demo) built once with `calcpack build`.
+    """The lintel demo job (example_projects/lintel_demo) built once per run with `calcpack build`.
 
     Returns the output folder; the copied project is its ``project`` subfolder.
     """
-    folder = tmp_path_factory.mktemp("demo") / "lintel"
-    shutil.copytree(
-        LINTEL_DEMO, folder / "project", ignore=shutil.ignore_patterns(".calcpack-cache", "build")
-    )
-    assert main(["build", str(folder / "project"), "--out", str(folder), "--quiet"]) == 0
-    return folder
+
+    def make(folder: Path) -> None:
+        shutil.copytree(
+            LINTEL_DEMO,
+            folder / "project",
+            ignore=shutil.ignore_patterns(".calcpack-cache", "build"),
+        )
+        assert main(["build", str(folder / "project"), "--out", str(folder), "--quiet"]) == 0
+
+    return built_once(shared_base(tmp_path_factory) / "lintel", make)
 
 
 @pytest.fixture(scope="session")
@@ -65,5 +70,5 @@ def demo_texts(demo_reader: PdfReader) -> list[str]:
 
 @pytest.fixture(scope="session")
 def packages(tmp_path_factory: pytest.TempPathFactory) -> dict[str, Built]:
-    """The three example jobs (examplekit.PROJECTS), built, signed and read once."""
-    return build_examples(tmp_path_factory.mktemp("examples"))
+    """The example jobs (examplekit.ALL_PROJECTS), built and signed once per run on first use."""
+    return build_examples(shared_base(tmp_path_factory))

@@ -981,13 +981,13 @@ def test_every_check_matches_an_independent_recomputation(
 
 @pytest.mark.parametrize("name", PROJECTS)
 def test_package_verifies_against_the_demo_root(packages: dict[str, Built], name: str) -> None:
-    from calcpack.cli import main
     from calcpack.signing.verify import verify_package
 
     b = packages[name]
-    assert main(["verify", str(b.pdf), "--trust", str(b.root), "--project", str(b.project)]) == 0
-    report = verify_package(b.pdf, [b.root])
-    assert report.ok
+    # One verification per package (each reads every revision of the signed file; the command
+    # line's reading of the same report is tested on small packages in tests/unit/signing).
+    report = verify_package(b.pdf, [b.root], project=b.project)
+    assert report.ok, report.text()
     assert [s.role for s in report.signatures] == ["preparer", "checker"]
 
 

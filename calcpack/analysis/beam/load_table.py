@@ -12,10 +12,11 @@ import dataclasses
 from collections.abc import Iterable
 from typing import Any
 
-from calcpack.units import DisplaySettings, Quantity, get_display, is_quantity
+from calcpack.units import DisplaySettings, Quantity, get_display, is_quantity, ureg
 
 __all__ = ["load_records", "load_table"]
 
+_PRESSURE = ureg.Unit("Pa").dimensionality
 _POSITIONS = ("x", "start", "end")
 """Fields of a load that say where it acts; the others say how much."""
 _NOT_RECORDED = ("case", "label", "rtol", "description", "func", "node")
@@ -36,7 +37,10 @@ def _fields(load: Any) -> list[tuple[str, Quantity]]:
 
 
 def _shown(q: Quantity, settings: DisplaySettings) -> Quantity:
-    unit = settings.unit_for(q)
+    """``q`` in the sheet's unit; a pressure on a beam or truss is a load per area, shown as an
+    area load (psf, kPa), never in the stress unit of its dimension."""
+    family = "area load" if q.dimensionality == _PRESSURE else None
+    unit = settings.unit_for(q, family=family)
     return q.to(unit) if unit is not None else q
 
 

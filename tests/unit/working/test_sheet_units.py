@@ -58,6 +58,59 @@ def test_area_loads_keep_apart_from_stresses() -> None:
     assert s.given("q_S", 1.2 * ureg.kPa).result_text() == "25.1 psf"
 
 
+@pytest.mark.parametrize(
+    ("system", "q", "q_text", "F_b", "f_text"),
+    [
+        ("US", 12 * ureg.psf, "12.0 psf", 900 * ureg.psi, "900 psi"),
+        ("SI", 0.6 * ureg.kPa, "0.600 kPa", 24 * ureg.MPa, "24.0 MPa"),
+    ],
+)
+def test_a_sheet_with_a_stress_shows_its_area_loads_as_area_loads(
+    system: str, q: object, q_text: str, F_b: object, f_text: str
+) -> None:
+    """The loads-by-case table of a beam on a sheet that also shows a stress: the load per area
+    of a tributary load is in psf (kPa), never the sheet's stress unit (12 psf is 83.3×10⁻⁶
+    ksi)."""
+    from calcpack.analysis.beam.load_table import load_records
+    from calcpack.loads.self_weight import tributary_line_load
+
+    s = _sheet(system=system)
+    assert s.given("F_b", F_b, "reference bending value").result_text() == f_text
+    load = tributary_line_load(q=q, width=16 * ureg.inch, case="D", label="deck dead")
+    rows, records = load_records([load], member="J1", length=10 * ureg.ft, settings=s.settings)
+    assert rows[0][3].startswith(f"q = {q_text},")
+    recorded = {r.symbol: r for r in records}
+    assert (recorded["q"].value, recorded["q"].unit) == (
+        float(q_text.split()[0]),
+        q_text.split()[1],
+    )
+    # the stress kind is untouched: a stress that names no unit is still in the stress unit
+    assert s.settings.unit_for(2 * ureg.N / ureg.mm**2) == F_b.units  # type: ignore[attr-defined]
+
+
+def test_a_pressure_is_shown_in_its_own_family_or_the_one_declared() -> None:
+    from calcpack.errors import InputError
+    from calcpack.working.format import format_unit_text
+
+    us = _sheet(system="US").settings
+    si = _sheet(system="SI").settings
+
+    def shown(settings: object, q: object, **kw: str) -> str:
+        return format_unit_text(settings.unit_for(q, **kw))  # type: ignore[attr-defined]
+
+    assert shown(us, 12 * ureg.psf) == "psf"
+    assert shown(us, 2 * ureg.ksf) == "psf"  # a bearing pressure is an area load
+    assert shown(us, 900 * ureg.psi) == "ksi"
+    assert shown(si, 2.4 * ureg.kN / ureg.m**2) == "kPa"
+    assert shown(si, 11 * ureg.GPa) == "GPa"
+    # the coherent SI unit, as an analysis writes any pressure, names no family
+    assert shown(si, 3e6 * ureg.Pa) == "MPa"
+    assert shown(si, 3e3 * ureg.Pa, family="area load") == "kPa"
+    assert shown(us, 3e3 * ureg.Pa, family="area load") == "psf"
+    with pytest.raises(InputError, match=r"family.*'span', 'dimension'.*area load"):
+        us.unit_for(3 * ureg.m, family="area load")
+
+
 def test_areas_and_moduli_of_sections_in_one_unit() -> None:
     s = _sheet(system="US")
     s.given("A", 13.875 * ureg.inch**2)
