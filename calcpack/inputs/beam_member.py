@@ -350,8 +350,7 @@ def evaluate_beam_member(case: BeamMemberCase) -> SizedOutcome:
     if case.material == "steel":
         shape = case.values["shape"]
         return SizedOutcome(case.section, tuple(space.check(shape)), shape["W"])
-    cand = space.candidates[0]
-    return SizedOutcome(cand.name, tuple(space.check(cand.item)), cand.weight)
+    return SizedOutcome.of(space)
 
 
 def lightest_beam_member(
