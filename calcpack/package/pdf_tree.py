@@ -35,6 +35,7 @@ are not written.
 
 from __future__ import annotations
 
+import re
 from collections.abc import Iterator
 from dataclasses import dataclass
 from typing import Any
@@ -58,11 +59,14 @@ class FlattenResult:
         elements_before: structure elements reachable from the tree root before.
         elements_after: the same, after.
         moved_ids: marked-content ids that moved to another element.
+        artifacts: marked-content sequences of copied page-margin boxes, which no element of
+            the tree held, marked as pagination artifacts.
     """
 
     elements_before: int
     elements_after: int
     moved_ids: int
+    artifacts: int = 0
 
 
 def _kids(value: Any) -> list[Any]:
@@ -148,12 +152,18 @@ def flatten_structure(writer: Any) -> FlattenResult:
         dropped = flattener.lift(element.get("/K"), page, ref, element.get("/Pg"), out, queue)
         if dropped:
             element[NameObject("/K")] = ArrayObject(out)
-    _renumber_owners(tree.get("/ParentTree"), flattener.owner_of, seen)
+    outside = _renumber_owners(tree.get("/ParentTree"), flattener.owner_of, seen)
+    artifacts = _mark_artifacts(writer, outside)
+    for entries in outside.values():
+        for _, _, ref, _ in entries:
+            if ref is not None:  # not made an artifact
+                _reattach(ref, flattener.owner_of, seen)
     drop_unreachable(writer)
     return FlattenResult(
         elements_before=flattener.before,
         elements_after=flattener.before - len(flattener.owner_of),
         moved_ids=flattener.moved,
+        artifacts=artifacts,
     )
 
 
@@ -226,41 +236,25 @@ class _Flattener:
         return dropped
 
 
-def _renumber_owners(parent_tree: Any, owner_of: dict[int, Any], kept: set[int]) -> None:
-    """Point every entry of the parent tree that names a dropped element at its new owner.
+_Outside = dict[int, list[tuple[Any, int, Any, bool]]]
+"""Parent-tree entries naming an element the tree does not hold: by parent-tree key, the
+array holding the entry, its index there, the element's reference, and whether the entry is
+one of a page's marked-content ids (else the key is an annotation's)."""
 
-    An entry may name an element that the tree does not hold (WeasyPrint writes one for each
-    copy of a page-margin box -- the running title block -- with ``/P`` naming the element the
-    box was copied from, which does not list it): it is left as it is, but its ``/P`` is pointed
-    at the nearest ancestor still in the tree, so that it does not keep dropped elements (and
-    their stale kids) alive."""
-    from pypdf.generic import ArrayObject, IndirectObject, NameObject
 
-    def owner(value: Any) -> Any:
-        if not isinstance(value, IndirectObject):
-            return value
-        if value.idnum in owner_of:
-            return owner_of[value.idnum]
-        if value.idnum not in kept:
-            _reattach(value)
-        return value
+def _renumber_owners(parent_tree: Any, owner_of: dict[int, Any], kept: set[int]) -> _Outside:
+    """Point every entry of the parent tree that names a dropped element at its new owner, and
+    return the entries that name an element the tree does not hold.
 
-    def _reattach(orphan: Any) -> None:
-        element = orphan.get_object()
-        parent = element.get("/P") if _is_element(element) else None
-        for _ in range(10_000):  # a /P chain is finite; the bound guards against a loop
-            if not isinstance(parent, IndirectObject):
-                return
-            if parent.idnum in owner_of:
-                element[NameObject("/P")] = owner_of[parent.idnum]
-                return
-            if parent.idnum in kept:
-                element[NameObject("/P")] = parent
-                return
-            parent = parent.get_object().get("/P")
+    WeasyPrint writes such entries for the content of page-margin boxes (the running title block
+    copied onto every page): their elements name as ``/P`` the element the box was copied from,
+    which does not list them, so no reader of the tree meets them (see :func:`_mark_artifacts`).
+    """
+    from pypdf.generic import ArrayObject, IndirectObject
 
+    outside: _Outside = {}
     if parent_tree is None:
-        return
+        return outside
     nodes = [parent_tree.get_object()]
     while nodes:
         node = nodes.pop()
@@ -268,14 +262,110 @@ def _renumber_owners(parent_tree: Any, owner_of: dict[int, Any], kept: set[int])
         if nums is not None:
             nums = nums.get_object()
             for i in range(1, len(nums), 2):
-                value = nums[i]
+                key, value = int(nums[i - 1]), nums[i]
                 target = value.get_object()
-                if isinstance(target, ArrayObject):
-                    for j, entry in enumerate(target):
-                        target[j] = owner(entry)
-                else:
-                    nums[i] = owner(value)
+                rows = [(target, j) for j in range(len(target))]
+                if not isinstance(target, ArrayObject):
+                    rows = [(nums, i)]
+                for row, j in rows:
+                    entry = row[j]
+                    if not isinstance(entry, IndirectObject):
+                        continue
+                    if entry.idnum in owner_of:
+                        row[j] = owner_of[entry.idnum]
+                    elif entry.idnum not in kept:
+                        in_page = row is not nums
+                        outside.setdefault(key, []).append((row, j, entry, in_page))
         nodes.extend(kid.get_object() for kid in node.get("/Kids", ()) or ())
+    return outside
+
+
+def _reattach(orphan: Any, owner_of: dict[int, Any], kept: set[int]) -> None:
+    """Point an element the tree does not hold at its nearest ancestor the tree still holds,
+    so that it does not keep dropped elements (and their stale kids) alive."""
+    from pypdf.generic import IndirectObject, NameObject
+
+    element = orphan.get_object()
+    parent = element.get("/P") if _is_element(element) else None
+    for _ in range(10_000):  # a /P chain is finite; the bound guards against a loop
+        if not isinstance(parent, IndirectObject):
+            return
+        if parent.idnum in owner_of:
+            element[NameObject("/P")] = owner_of[parent.idnum]
+            return
+        if parent.idnum in kept:
+            element[NameObject("/P")] = parent
+            return
+        parent = parent.get_object().get("/P")
+
+
+_MARKED = re.compile(rb"/[^\s/<>\[\]()%]+\s*<<\s*/MCID\s+(\d+)\s*>>\s*BDC")
+"""A marked-content sequence with an id and nothing else in its properties (as WeasyPrint
+writes them: ``/Span <</MCID 12>> BDC``)."""
+
+
+def _mark_artifacts(writer: Any, outside: _Outside) -> int:
+    """Mark as pagination artifacts (ISO 32000-1 §14.8.2.2) the page content whose parent-tree
+    entry names an element the tree does not hold, and empty those entries; returns how many.
+
+    That content is the running title block of each page: no reader of the structure tree
+    meets it (its elements are not in the tree), and a running header is an artifact, so its
+    marked-content sequences become ``/Artifact BMC`` (its text is still text: search and
+    copying are unchanged). A page whose content streams are filtered other than by Flate
+    keeps its entries (they are re-attached instead)."""
+    from pypdf.generic import NullObject
+
+    pages = {int(p["/StructParents"]): p for p in writer.pages if "/StructParents" in p}
+    done = 0
+    for key, entries in outside.items():
+        page = pages.get(key)
+        ids = {j for _, j, _, in_page in entries if in_page}
+        if page is None or not ids:
+            continue
+        streams = _content_streams(page)
+        if streams is None:
+            continue
+        found: set[int] = set()
+
+        def artifact(match: re.Match[bytes], ids: set[int] = ids, found: set[int] = found) -> bytes:
+            mcid = int(match[1])
+            if mcid not in ids:
+                return match[0]
+            found.add(mcid)
+            return b"/Artifact BMC"
+
+        for stream in streams:
+            data = stream.get_data()
+            changed = _MARKED.sub(artifact, data)
+            if changed != data:
+                stream.set_data(changed)
+        for index, (row, j, _ref, in_page) in enumerate(entries):
+            if in_page and j in found:
+                row[j] = NullObject()
+                entries[index] = (row, j, None, in_page)
+                done += 1
+    return done
+
+
+def _content_streams(page: Any) -> list[Any] | None:
+    """The content streams of a page, if each is unfiltered or Flate-encoded (pypdf can write
+    those back); else None."""
+    from pypdf.generic import ArrayObject, StreamObject
+
+    contents = page.get("/Contents")
+    if contents is None:
+        return []
+    target = contents.get_object()
+    streams = list(target) if isinstance(target, ArrayObject) else [contents]
+    out = []
+    for stream in streams:
+        obj = stream.get_object()
+        if not isinstance(obj, StreamObject) or obj.get("/Filter") not in (None, "/FlateDecode"):
+            return None
+        if obj.get("/DecodeParms") is not None:
+            return None
+        out.append(obj)
+    return out
 
 
 def drop_unreachable(writer: Any) -> int:

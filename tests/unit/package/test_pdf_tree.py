@@ -1,8 +1,9 @@
 """Flattening the structure tree (calcpack.package.pdf_tree) keeps what the tags mean.
 
-The document is a small HTML page laid out by WeasyPrint as a tagged PDF over two pages:
-paragraphs with spans, nested divisions, a table with header cells,
-a figure with alternative text and a link. The marked content of each page is read from its
+The document is a small HTML page laid out by WeasyPrint as a tagged PDF over four pages:
+paragraphs with spans, nested divisions, a table with header cells, a figure with
+alternative text, a link, and a title block repeated in each page's top margin (a running
+element, as the package's title block). The marked content of each page is read from its
 content stream (the ``/MCID`` of each ``BDC`` operator, ISO 32000-1 §14.6) and followed back
 through the parent tree (§14.7.4.4) to its structure element; the element must hold that id in
 its ``/K`` (as an integer on its ``/Pg`` page, or as a marked-content reference), be the only
@@ -34,7 +35,12 @@ _SVG = (
     "data:image/svg+xml;utf8,<svg xmlns='http://www.w3.org/2000/svg' width='40' height='20'>"
     "<rect width='40' height='20'/></svg>"
 )
-HTML = f"""<html lang="en"><head><style>@page {{ size: A7 }}</style></head><body>
+_PAGE = (
+    "@page { size: A7; margin-top: 15mm; @top-center { content: element(block) } }"
+    " .block { position: running(block) }"
+)
+HTML = f"""<html lang="en"><head><style>{_PAGE}</style></head><body>
+<div class="block"><table><tr><td><span>Job</span> 2417</td><td>Fernbrook</td></tr></table></div>
 <h1>Lintel <span>L1</span></h1>
 <div><div><p>The lintel carries <span>the wall</span> over a <span><span>1.2 m</span></span>
 opening; see <a href="#loads">the loads</a>.</p>
@@ -159,6 +165,21 @@ def test_every_marked_content_id_has_one_owner_that_reaches_the_root(flat: bytes
             element = element["/P"]
         assert element.get("/Type") == "/StructTreeRoot"
     assert set(owners) == set(ids)  # nothing in the tree that is not on a page
+
+
+def test_the_repeated_title_block_becomes_a_pagination_artifact(tagged: bytes, flat: bytes) -> None:
+    """WeasyPrint tags each page's copy of the title block with elements the tree does not hold
+    (their parent does not list them): no reader of the tree meets that content. Flattened, it
+    is marked as a pagination artifact and leaves the parent tree; its text stays text."""
+    before = PdfReader(io.BytesIO(tagged))
+    _, owners = owned_ids(before)
+    outside = [key for key in page_ids(before) if key not in owners]
+    assert len(outside) >= len(before.pages)  # some in every page's margin
+    reader = PdfReader(io.BytesIO(flat))
+    artifacts = [page.get_contents().get_data().count(b"/Artifact BMC") for page in reader.pages]
+    originally = [page.get_contents().get_data().count(b"/Artifact BMC") for page in before.pages]
+    assert sum(artifacts) - sum(originally) == len(outside)
+    assert all(page.extract_text().count("Fernbrook") == 1 for page in reader.pages)
 
 
 def test_reading_order_is_unchanged(tagged: bytes, flat: bytes) -> None:
