@@ -224,6 +224,7 @@ from calcpack.checks.nds.members import (
 from calcpack.checks.nds.values import (
     TimberValues as TimberValues,
     nds_glulam_values as nds_glulam_values,
+    nds_sawn_grades as nds_sawn_grades,
     nds_sawn_values as nds_sawn_values,
     southern_pine_size_factor as southern_pine_size_factor,
 )
@@ -418,6 +419,7 @@ from calcpack.signing import (
 from calcpack.sizing import (
     Candidate as Candidate,
     DeflectionLimit as DeflectionLimit,
+    GradedSize as GradedSize,
     SearchSpace as SearchSpace,
     SizingResult as SizingResult,
     aisc_beam_space as aisc_beam_space,
@@ -429,6 +431,7 @@ from calcpack.sizing import (
     lightest_nds_post as lightest_nds_post,
     lightest_sections as lightest_sections,
     nds_beam_space as nds_beam_space,
+    nds_graded_beam_space as nds_graded_beam_space,
     nds_post_space as nds_post_space,
     sawn_candidates as sawn_candidates,
 )

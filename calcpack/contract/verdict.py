@@ -9,6 +9,7 @@ check steps, the design-check results, the panels, the manifest reader and the s
 from __future__ import annotations
 
 import math
+import re
 from collections.abc import Mapping
 from enum import StrEnum
 from typing import Any
@@ -19,6 +20,7 @@ __all__ = [
     "PASS_TOLERANCE",
     "Verdict",
     "check_sort_key",
+    "clause_cited",
     "is_classification",
     "passes",
     "ratio_text",
@@ -68,11 +70,59 @@ def ratio_text(utilisation: float | None, sig: int = 3) -> str:
     return f"{format_number(utilisation, sig)} {relation} {format_number(1.0, sig)}"
 
 
+_MARKS = re.compile(r"[,;]?\s*(from memory|common practice)", re.IGNORECASE)
+"""The marks of a source's standing (recalled, or a fact of the trade) written outside
+parentheses."""
+_RATIO = re.compile(r"^[A-Za-z_]\w*\s*/\s*[\w.]+$")
+"""A limit written as a ratio ("span/360", "L/240"): the limit, not the clause that sets it."""
+
+
+def _without_notes(text: str) -> str:
+    """``text`` without its notes in parentheses: groups (nested ones included) holding words,
+    a space or a comma, unlike the parentheses of a clause's own number, "Eq. (6.33)",
+    "§J3.6(b)"."""
+    out: list[str] = []
+    depth, group = 0, ""
+    for ch in text:
+        if depth:
+            group += ch
+            depth += {"(": 1, ")": -1}.get(ch, 0)
+            if depth == 0 and not any(c in group for c in " ,;"):
+                out.append(group)  # a clause's own number: kept
+            continue
+        if ch == "(":
+            depth, group = 1, ch
+        else:
+            out.append(ch)
+    if depth:  # unbalanced: keep what was read
+        out.append(group)
+    return re.sub(r"\s+", " ", "".join(out)).strip()
+
+
+def clause_cited(ref: str | None) -> str:
+    """The clause a verdict cites, from a check's reference: the reference without its notes in
+    parentheses ("(from memory)", "(span/360, common practice)") or after a comma ("…, from
+    memory"), or ``""`` when what is left names no numbered provision (no digit, or only a limit
+    ratio such as "span/360"). The reference margin keeps the whole reference; the verdict cites
+    the clause only.
+
+    ``"UK NA to BS EN 1993-1-1 NA.2.23 (span/360, from memory)"`` gives ``"UK NA to BS EN
+    1993-1-1 NA.2.23"``; ``"EN 1995-1-1 Eq. (6.33)"`` is kept whole."""
+    text, before = (ref or "").strip(), None
+    while text != before:  # until no note is left (removing one may close up another)
+        before = text
+        text = _MARKS.sub("", _without_notes(text)).strip(" ,;:")
+    if not any(ch.isdigit() for ch in text) or _RATIO.match(text):
+        return ""
+    return text
+
+
 def verdict_words(verdict: Any, ref: str | None = None) -> str:
     """A verdict written as words with the clause it answers to: ``"satisfies §F2"``, ``"DOES
     NOT SATISFY §F2"``, ``"NOT COVERED"``; without a clause ``"satisfied"`` / ``"NOT
-    SATISFIED"``. A failure is written in capitals, so it reads without colour."""
-    clause = (ref or "").strip()
+    SATISFIED"``. A failure is written in capitals, so it reads without colour. Only the
+    clause of ``ref`` is cited (:func:`clause_cited`), never its notes."""
+    clause = clause_cited(ref)
     word = Verdict.parse(verdict)
     if word == Verdict.OK:
         return f"satisfies {clause}" if clause else "satisfied"

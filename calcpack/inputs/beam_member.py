@@ -53,10 +53,11 @@ from calcpack.sizing import (
     aisc_beam_space,
     glulam_beam_space,
     nds_beam_space,
+    nds_graded_beam_space,
 )
 from calcpack.sizing.search import Order
 from calcpack.sizing.steel import flag_heavier
-from calcpack.sizing.timber import DIMENSION_SIZES
+from calcpack.sizing.timber import DIMENSION_SIZES, split_graded_name
 from calcpack.sizing.timber_members import GLULAM_DEPTHS, GLULAM_WIDTHS
 from calcpack.units import Q_, Quantity
 
@@ -68,6 +69,7 @@ __all__ = [
     "beam_pick_changes",
     "evaluate_beam_member",
     "lightest_beam_member",
+    "member_stiffness",
 ]
 
 Material = Literal["steel", "sawn", "glulam"]
@@ -137,10 +139,25 @@ class BeamMemberCase:
     table_name: str
     keys: tuple[str, ...] = field(default=())
 
-    def space(self, *, single: bool = False) -> SearchSpace[Any]:
+    def space(
+        self, *, single: bool = False, grades: Sequence[str] | None = None
+    ) -> SearchSpace[Any]:
         """The search space: the family's sections (or, with ``single``, the table's own) and
-        the trial the panel, the search and the sheet share."""
+        the trial the panel, the search and the sheet share. ``grades`` (sawn only): search
+        every size in each of these grades of the table's species (candidates "2x10 No.1").
+
+        Raises:
+            InputsFileError: grades given for a steel or glulam member.
+        """
         v, dm, key = self.values, self.demand, f"{self.table_name}.section"
+        if grades is not None and self.material != "sawn":
+            raise InputsFileError(
+                f"A search across grades is for sawn members; {self.table_name} is "
+                f"{self.material} (got grades = {list(grades)!r})",
+                name="grades",
+                value=list(grades),
+                expected="None for a steel or glulam member",
+            )
         if self.material == "steel":
             shape: SteelShape = v["shape"]
             with as_inputs_error(key):
@@ -154,6 +171,14 @@ class BeamMemberCase:
             size = self.section
             sizes = [size] if single else [*DIMENSION_SIZES, *([] if size in DIMENSION_SIZES
                                                               else [size])]  # fmt: skip
+            if grades is not None:
+                with as_inputs_error(f"{self.table_name}.grade"):
+                    return nds_graded_beam_space(
+                        dm.strength, species=v["species"], grades=grades, sizes=sizes,
+                        conditions=ServiceConditions(repetitive=v["repetitive"], wet=v["wet"]),
+                        durations=dm.durations, deflections=dm.deflections, plies=v["plies"],
+                        member=self.mark,
+                    )  # fmt: skip
             with as_inputs_error(f"{self.table_name}.size"):
                 return nds_beam_space(
                     dm.strength, species=v["species"], grade=v["grade"], sizes=sizes,
@@ -273,6 +298,51 @@ def beam_member_inputs(
     return BeamMemberCase(material, mark, section, values, demand, table, tuple(t))
 
 
+def member_stiffness(
+    data: Mapping[str, Any], *, table: str = "member", path: Path | str | None = None
+) -> Quantity:
+    """E·I of the table's section about its strong axis, to analyse the beam with the member
+    the table holds: steel E·I_x (I_x from the AISC Shapes Database); sawn E·b·d³/12 times the
+    plies, E the reference value of NDS Supplement 2018 Table 4A and b, d the dressed size;
+    glulam E_x·b·d³/12 (Table 5A). The member checks scale the analysis's deflections to each
+    section's own E'·I (a prismatic beam on rigid supports), so this E·I sets only what the
+    analysis itself shows.
+
+    Raises:
+        InputsFileError / DimensionError: naming the bad key, as :func:`beam_member_inputs`.
+    """
+    t = data.get(table)
+    if not isinstance(t, Mapping):
+        raise InputsFileError(
+            f"{path or 'inputs'}: no [{table}] table", name=table, value=t, expected="a table"
+        )
+    material = require_input(
+        t.get("material"), Spec("text", choices=MATERIALS), f"{table}.material", path=path
+    )
+    if material == "steel":
+        v = _steel(t, table, path)
+        EI: Quantity = v["E"] * v["shape"]["Ix"]
+        return EI.to("kip*inch**2")
+    if material == "sawn":
+        size = require_input(t.get("size"), "text", f"{table}.size", path=path)
+        species = require_input(t.get("species"), "text", f"{table}.species", path=path)
+        grade = require_input(t.get("grade"), "text", f"{table}.grade", path=path)
+        with as_inputs_error(f"{table}.grade", grade):
+            E = nds_sawn_values(species, grade).E
+        with as_inputs_error(f"{table}.size", size):
+            m = SawnMember.dimension(size)
+        plies = require_input(t.get("plies", 1), Spec("number", positive=True),
+                              f"{table}.plies", path=path)  # fmt: skip
+        return (E * m.b * m.d**3 / 12 * plies).to("kip*inch**2")
+    length = Spec("[length]", positive=True)
+    cls = require_input(t.get("stress_class"), "text", f"{table}.stress_class", path=path)
+    b = require_input(t.get("width"), length, f"{table}.width", path=path)
+    d = require_input(t.get("depth"), length, f"{table}.depth", path=path)
+    with as_inputs_error(f"{table}.stress_class", cls):
+        E = nds_glulam_values(cls).E
+    return (E * b * d**3 / 12).to("kip*inch**2")
+
+
 def evaluate_beam_member(case: BeamMemberCase) -> SizedOutcome:
     """Check the table's section with the search's own trial (every check of every
     combination, and the deflection limits)."""
@@ -280,8 +350,7 @@ def evaluate_beam_member(case: BeamMemberCase) -> SizedOutcome:
     if case.material == "steel":
         shape = case.values["shape"]
         return SizedOutcome(case.section, tuple(space.check(shape)), shape["W"])
-    cand = space.candidates[0]
-    return SizedOutcome(cand.name, tuple(space.check(cand.item)), cand.weight)
+    return SizedOutcome.of(space)
 
 
 def lightest_beam_member(
@@ -290,18 +359,20 @@ def lightest_beam_member(
     count: int = 5,
     order: Order = "weight",
     max_depth: Quantity | None = None,
+    grades: Sequence[str] | None = None,
 ) -> SizingResult:
     """The lightest (or shallowest) sections of the member's family passing every check, the
-    heavier than the analysed self-weight flagged."""
-    found = case.space().search(count=count, order=order, max_depth=max_depth)
+    heavier than the analysed self-weight flagged. ``grades`` (sawn only): rank (size, grade)
+    pairs over these grades of the table's species (see :meth:`BeamMemberCase.space`)."""
+    found = case.space(grades=grades).search(count=count, order=order, max_depth=max_depth)
     sw = case.demand.self_weight
     return found if sw is None else flag_heavier(found, sw)
 
 
 def beam_pick_changes(case: BeamMemberCase, name: str) -> dict[str, Any]:
     """The inputs-file edits that make ``name`` (a candidate of the search) the member: the
-    designation and the tabulated properties the table holds (steel), the size (sawn), or the
-    width and depth (glulam)."""
+    designation and the tabulated properties the table holds (steel), the size (sawn; and the
+    grade, from a search across grades), or the width and depth (glulam)."""
     t = case.table_name
     if case.material == "steel":
         shape = aisc_shape(name)
@@ -315,7 +386,8 @@ def beam_pick_changes(case: BeamMemberCase, name: str) -> dict[str, Any]:
             changes[f"{t}.source"] = shape.source
         return changes
     if case.material == "sawn":
-        return {f"{t}.size": name}
+        size, grade = split_graded_name(name)  # "2x10 No.1" from a search across grades
+        return {f"{t}.size": size} | ({} if grade is None else {f"{t}.grade": grade})
     by_name = {c.name: c.item for c in case.space().candidates}
     m = by_name[name]
     return {f"{t}.width": Q_(m.b.to("inch").magnitude, "inch"), f"{t}.depth": m.d.to("inch")}

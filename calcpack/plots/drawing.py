@@ -1,6 +1,7 @@
 """What the drawings made by a ``figure()`` method share: their SVG, saving to a file and the
 notebook display (:class:`Drawing`), and the labelled force arrow of the truss and free-body
-sketches (:func:`force_arrow`)."""
+sketches (:func:`force_arrow`), and the bare axes of a to-scale sketch (:func:`sketch_axes`,
+:func:`frame`)."""
 
 from __future__ import annotations
 
@@ -8,7 +9,7 @@ import io
 from pathlib import Path
 from typing import Any, ClassVar
 
-__all__ = ["Drawing", "force_arrow"]
+__all__ = ["Drawing", "force_arrow", "frame", "sketch_axes"]
 
 
 class Drawing:
@@ -74,3 +75,32 @@ def force_arrow(
     ax.text(at[0], at[1], text, fontsize=7, color=colour, ha=ha, va=va, zorder=6)
     # Annotations do not widen the axes; the arrow's ends and label must stay in view.
     ax.update_datalim([tail, tip, (at[0] + out[0] * 0.3 * length, at[1] + out[1] * 0.3 * length)])
+
+
+def sketch_axes(width_in: float, height_in: float) -> tuple[Any, Any]:
+    """(figure, axes) of a to-scale sketch ``width_in`` × ``height_in`` inches: one axes with
+    equal scales in x and y and no axis lines or ticks (a plan or elevation, not a graph), on
+    an Agg canvas."""
+    from matplotlib.backends.backend_agg import FigureCanvasAgg
+    from matplotlib.figure import Figure
+
+    fig = Figure(figsize=(width_in, height_in))
+    FigureCanvasAgg(fig)
+    ax = fig.add_subplot(1, 1, 1)
+    ax.set_aspect("equal")
+    ax.axis("off")
+    return fig, ax
+
+
+def frame(
+    ax: Any,
+    title: str,
+    *,
+    x: tuple[float, float],
+    y: tuple[float, float],
+    fontsize: float = 8,
+) -> None:
+    """Title a sketch and show the region ``x`` × ``y`` (data units) of it."""
+    ax.set_title(title, fontsize=fontsize)
+    ax.set_xlim(*x)
+    ax.set_ylim(*y)

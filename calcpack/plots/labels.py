@@ -18,7 +18,15 @@ from typing import Any
 import numpy as np
 from matplotlib.ticker import MaxNLocator
 
-__all__ = ["Label", "number_label", "place_labels", "quantity_label", "round_ticks", "svg_text"]
+__all__ = [
+    "Label",
+    "number_label",
+    "place_labels",
+    "quantity_label",
+    "round_ticks",
+    "svg_text",
+    "unit_label",
+]
 
 # Offsets (points) tried around an anchor, in order: (dx, dy, ha, va).
 _CANDIDATES: tuple[tuple[float, float, str, str], ...] = (
@@ -62,13 +70,19 @@ def number_label(value: float, sig: int | None = None, *, signed: bool = False) 
     return "+" + text if signed and float(value) > 0 else text
 
 
-def quantity_label(value: float, unit: Any, sig: int | None = None, *, signed: bool = False) -> str:
-    """A value and its unit on a figure: the number as :func:`number_label` writes it, the unit
-    as the working writes units (``kN·m``, ``kN/m²``); ``unit`` a pint unit or its text."""
+def unit_label(unit: Any) -> str:
+    """A unit on a figure as the working writes units (``kN·m``, ``kN/m²``, ``psf``): the one
+    unit formatter of the tables, prose and working; ``unit`` a pint unit or its text."""
     from calcpack.units import ureg
     from calcpack.working.format import format_unit_text
 
-    text = format_unit_text(ureg.Unit(unit) if isinstance(unit, str) else unit)
+    return format_unit_text(ureg.Unit(unit) if isinstance(unit, str) else unit)
+
+
+def quantity_label(value: float, unit: Any, sig: int | None = None, *, signed: bool = False) -> str:
+    """A value and its unit on a figure: the number as :func:`number_label` writes it, the unit
+    as :func:`unit_label` writes it; ``unit`` a pint unit or its text."""
+    text = unit_label(unit)
     number = number_label(value, sig, signed=signed)
     return f"{number} {text}" if text else number
 

@@ -11,7 +11,7 @@ from __future__ import annotations
 from typing import Any
 
 from calcpack.plots.drawing import Drawing
-from calcpack.plots.labels import quantity_label
+from calcpack.plots.labels import quantity_label, unit_label
 
 __all__ = ["SnowSketch", "drift_profile", "drift_profile_en", "unbalanced_profile"]
 
@@ -98,7 +98,7 @@ class SnowSketch(Drawing):
 
         pts, xunit, label = self._points()
         ref = self.result.s_peak if hasattr(self.result, "s_peak") else self.result.ps
-        punit = "kN/m²" if hasattr(self.result, "s_peak") else f"{ref.units:~P}"
+        punit = "kN/m**2" if hasattr(self.result, "s_peak") else ref.units
         fig = Figure(figsize=(self.width_in, self.width_in * 0.4))
         FigureCanvasAgg(fig)
         ax = fig.add_subplot(1, 1, 1)
@@ -115,7 +115,7 @@ class SnowSketch(Drawing):
                 xytext=(2, -10),
                 fontsize=7,
             )
-        ax.set_xlabel(f"distance ({xunit})" if xunit else "")
+        ax.set_xlabel(f"distance ({unit_label(xunit)})" if xunit else "")
         ax.set_yticks([])
         ax.set_title(self.title or label, fontsize=10)
         for side in ("top", "right", "left"):

@@ -9,8 +9,8 @@ from __future__ import annotations
 
 from typing import Any
 
-from calcpack.plots.drawing import Drawing
-from calcpack.plots.labels import number_label, quantity_label
+from calcpack.plots.drawing import Drawing, frame, sketch_axes
+from calcpack.plots.labels import number_label, quantity_label, unit_label
 
 __all__ = ["WindZonePlan"]
 
@@ -27,7 +27,7 @@ class WindZonePlan(Drawing):
         self.B = float(B.to(unit).magnitude)
         self.L = float(L.to(unit).magnitude)
         self.a = float(result.a.magnitude)
-        self.unit = f"{unit:~P}"
+        self.unit = unit
         self.width_in = width_in
 
     def _label(self, zone: str) -> str:
@@ -36,26 +36,21 @@ class WindZonePlan(Drawing):
 
     def figure(self) -> Any:
         """The plan as a matplotlib Figure (Agg canvas)."""
-        from matplotlib.backends.backend_agg import FigureCanvasAgg
-        from matplotlib.figure import Figure
         from matplotlib.patches import Rectangle
 
         B, L, a2 = self.B, self.L, 2 * self.a
-        fig = Figure(figsize=(self.width_in, self.width_in * max(B / L, 0.35) + 0.8))
-        FigureCanvasAgg(fig)
-        ax = fig.add_subplot(1, 1, 1)
-        ax.set_aspect("equal")
-        ax.axis("off")
+        fig, ax = sketch_axes(self.width_in, self.width_in * max(B / L, 0.35) + 0.8)
         ax.add_patch(Rectangle((0, 0), L, B, fill=False, linewidth=1.5))
         ax.add_patch(Rectangle((0, 0), a2, B, color="#fdd0a2", alpha=0.8))
         ax.plot([0, L], [B / 2, B / 2], color="grey", linewidth=0.8, linestyle="-")
+        # the roof zones are the same cells in both load cases; the wall zones differ
+        cells = [
+            ("2E", a2 / 2, 0.75 * B),
+            ("3E", a2 / 2, 0.25 * B),
+            ("2", (a2 + L) / 2, 0.75 * B),
+            ("3", (a2 + L) / 2, 0.25 * B),
+        ]
         if self.case == "A":
-            cells = [
-                ("2E", a2 / 2, 0.75 * B),
-                ("3E", a2 / 2, 0.25 * B),
-                ("2", (a2 + L) / 2, 0.75 * B),
-                ("3", (a2 + L) / 2, 0.25 * B),
-            ]
             ax.annotate(
                 "", xy=(L / 2, B), xytext=(L / 2, B + 0.25 * B), arrowprops={"arrowstyle": "->"}
             )
@@ -67,12 +62,6 @@ class WindZonePlan(Drawing):
                 ("4", (a2 + L) / 2, -0.12 * B),
             ]
         else:
-            cells = [
-                ("2E", a2 / 2, 0.75 * B),
-                ("3E", a2 / 2, 0.25 * B),
-                ("2", (a2 + L) / 2, 0.75 * B),
-                ("3", (a2 + L) / 2, 0.25 * B),
-            ]
             ax.annotate(
                 "", xy=(0, B / 2), xytext=(-0.2 * L, B / 2), arrowprops={"arrowstyle": "->"}
             )
@@ -81,11 +70,9 @@ class WindZonePlan(Drawing):
         for zone, x, y in cells + walls:
             ax.text(x, y, self._label(zone), ha="center", va="center", fontsize=7)
         ax.text(a2 / 2, -0.3 * B, f"2a = {quantity_label(a2, self.unit)}", ha="center", fontsize=7)
-        ax.set_title(
+        title = (
             f"Envelope zones, load case {self.case} (pressures with +GCpi, "
-            f"{self.result.qh.units:~P})",
-            fontsize=9,
+            f"{unit_label(self.result.qh.units)})"
         )
-        ax.set_xlim(-0.3 * L, 1.15 * L)
-        ax.set_ylim(-0.4 * B, 1.4 * B)
+        frame(ax, title, x=(-0.3 * L, 1.15 * L), y=(-0.4 * B, 1.4 * B), fontsize=9)
         return fig

@@ -7,7 +7,8 @@ from __future__ import annotations
 
 from typing import Any
 
-from calcpack.plots.labels import number_label, quantity_label, svg_text
+from calcpack.plots.drawing import frame, sketch_axes
+from calcpack.plots.labels import number_label, quantity_label, svg_text, unit_label
 
 __all__ = ["cc_plan_figure", "cc_plan_svg"]
 
@@ -17,20 +18,16 @@ _SHADE = {"1": "#f7f7f7", "2": "#fdd0a2", "3": "#f16913"}
 
 def cc_plan_figure(result: Any, width_in: float = 6.0) -> Any:
     """The zone plan as a matplotlib Figure (Agg canvas)."""
-    from matplotlib.backends.backend_agg import FigureCanvasAgg
-    from matplotlib.figure import Figure
     from matplotlib.patches import Polygon
 
     b = result.building
     lu = result.a.units
     L = float(b.L.to(lu).magnitude)
     B = float(b.B.to(lu).magnitude)
-    unit = "psf" if f"{result.zones[next(iter(result.zones))].p_neg.units:~}" == "psf" else None
-    fig = Figure(figsize=(width_in, width_in * B / L + 1.0))
-    FigureCanvasAgg(fig)
-    ax = fig.add_subplot(1, 1, 1)
-    ax.set_aspect("equal")
-    ax.axis("off")
+    unit = (
+        "psf" if unit_label(result.zones[next(iter(result.zones))].p_neg.units) == "psf" else None
+    )
+    fig, ax = sketch_axes(width_in, width_in * B / L + 1.0)
     for zone, poly in result.regions:
         pts = [(float(x.to(lu).magnitude), float(y.to(lu).magnitude)) for x, y in poly]
         ax.add_patch(
@@ -60,14 +57,12 @@ def cc_plan_figure(result: Any, width_in: float = 6.0) -> Any:
     ax.text(L / 2, -0.08 * B, sizes, ha="center", va="top", fontsize=7)
     ax.text(-0.03 * L, B / 2, f"B = {quantity_label(B, lu)}", ha="right", va="center", fontsize=7,
             rotation=90)  # fmt: skip
-    pu = f"{result.zones[next(iter(result.zones))].p_neg.units:~P}"
-    ax.set_title(
+    pu = unit_label(unit or result.zones[next(iter(result.zones))].p_neg.units)
+    title = (
         f"C&C roof zones, {b.roof} roof θ = {number_label(b.theta_deg)}°: net suction at "
-        f"A = {quantity_label(result.area.magnitude, result.area.units)} ({pu})",
-        fontsize=8,
+        f"A = {quantity_label(result.area.magnitude, result.area.units)} ({pu})"
     )
-    ax.set_xlim(-0.1 * L, 1.15 * L)
-    ax.set_ylim(-0.2 * B, 1.05 * B)
+    frame(ax, title, x=(-0.1 * L, 1.15 * L), y=(-0.2 * B, 1.05 * B))
     return fig
 
 

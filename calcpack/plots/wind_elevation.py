@@ -8,15 +8,14 @@ from __future__ import annotations
 import math
 from typing import Any
 
-from calcpack.plots.labels import number_label, quantity_label, svg_text
+from calcpack.plots.drawing import frame, sketch_axes
+from calcpack.plots.labels import number_label, quantity_label, svg_text, unit_label
 
 __all__ = ["elevation_figure", "elevation_svg"]
 
 
 def elevation_figure(result: Any, width_in: float = 6.0) -> Any:
     """The elevation as a matplotlib Figure (Agg canvas)."""
-    from matplotlib.backends.backend_agg import FigureCanvasAgg
-    from matplotlib.figure import Figure
     from matplotlib.patches import Polygon, Rectangle
 
     b = result.building
@@ -46,11 +45,7 @@ def elevation_figure(result: Any, width_in: float = 6.0) -> Any:
     k = span / scale_p
 
     top = max(y for _, y in roof)
-    fig = Figure(figsize=(width_in, width_in * (top + 0.2 * top) / (L + 2.6 * span) + 0.9))
-    FigureCanvasAgg(fig)
-    ax = fig.add_subplot(1, 1, 1)
-    ax.set_aspect("equal")
-    ax.axis("off")
+    fig, ax = sketch_axes(width_in, width_in * (top + 0.2 * top) / (L + 2.6 * span) + 0.9)
     outline = [(0.0, 0.0), *roof, (L, 0.0)]
     ax.add_patch(Polygon(outline, closed=True, fill=False, linewidth=1.5))
     ax.plot([-1.3 * span, L + 1.3 * span], [0, 0], color="grey", linewidth=0.8)
@@ -90,12 +85,11 @@ def elevation_figure(result: Any, width_in: float = 6.0) -> Any:
     ax.text(L / 2, -0.08 * top, f"L = {quantity_label(L, lu)}", ha="center", va="top", fontsize=7)
     ax.plot([-0.05 * span, -0.05 * span], [0, h], color="grey", lw=0.5, ls=":")
     ax.text(L / 2, h, f"h = {quantity_label(h, lu)}", ha="center", va="bottom", fontsize=7)
-    ax.set_title(
-        f"Windward wall q_z profile and leeward wall ({unit:~P}, with +GCpi, + toward the wall)",
-        fontsize=8,
+    title = (
+        f"Windward wall q_z profile and leeward wall ({unit_label(unit)}, with +GCpi, "
+        "+ toward the wall)"
     )
-    ax.set_xlim(-1.4 * span, L + 1.4 * span)
-    ax.set_ylim(-0.2 * top, 1.25 * top)
+    frame(ax, title, x=(-1.4 * span, L + 1.4 * span), y=(-0.2 * top, 1.25 * top))
     return fig
 
 

@@ -144,6 +144,14 @@ def aisc_shape(designation: str) -> SteelShape:
     if key.upper().replace(" ", "") not in _normalised_keys():
         _refuse_unknown(key, table)
     row = table.row(key, what="AISC shape")
+    return _shape(str(row["designation"]))
+
+
+@cache
+def _shape(designation: str) -> SteelShape:
+    """The shape of a designation as tabulated, built once (a shape is frozen data; a section
+    search reads every shape of a family, and a panel reads them again on each search)."""
+    row = _shapes().row(designation, what="AISC shape")
     props = {
         k: Q_(float(v), _UNITS[k])
         for k, v in row.items()

@@ -39,12 +39,15 @@ TrialVerdict = Literal["passes", "fails", "out of scope", "not covered"]
 @dataclass(frozen=True)
 class Candidate(Generic[C]):
     """One section offered to the search: its name, weight per length [force/length], depth
-    [length] (optional), and the object the trial checks (a shape, a sawn size, a layup...)."""
+    [length] (optional), and the object the trial checks (a shape, a sawn size, a layup...).
+    ``preference`` orders candidates of equal weight and depth (lower first; e.g. the commoner
+    grade of a size searched in several grades)."""
 
     name: str
     weight: Quantity
     item: C
     depth: Quantity | None = None
+    preference: int = 0
 
     def __post_init__(self) -> None:
         require(self.weight, "[force] / [length]", f"weight of {self.name}", positive=True)
@@ -164,8 +167,8 @@ def lightest_sections(
         trial: checks one candidate's ``item``; returns a :class:`calcpack.checks.MemberChecks`
             or a list of them (every check of every combination the member must satisfy).
         count: how many passing candidates to return (≥ 1); the search stops there.
-        order: "weight" (lightest first, ties by depth) or "depth" (shallowest first, ties
-            by weight).
+        order: "weight" (lightest first, ties by depth, then by preference) or "depth"
+            (shallowest first, ties by weight, then by preference).
         max_depth: candidates deeper than this are left out.
         screen: optional necessary condition: returns a reason to reject the candidate
             without the full checks, or None to go on.
@@ -207,10 +210,12 @@ def lightest_sections(
             )
         pool = within
 
-    def key(c: Candidate[C]) -> tuple[float, float, str]:
-        w = float(c.weight.to("N/m").magnitude)
-        d = float(c.depth.to("m").magnitude) if c.depth is not None else 0.0
-        return (w, d, c.name) if order == "weight" else (d, w, c.name)
+    in_si = _Converter()
+
+    def key(c: Candidate[C]) -> tuple[float, float, int, str]:
+        w = in_si(c.weight, "N/m")
+        d = in_si(c.depth, "m") if c.depth is not None else 0.0
+        return (w, d, c.preference, c.name) if order == "weight" else (d, w, c.preference, c.name)
 
     pool.sort(key=key)
     tried: list[Trial] = []
@@ -247,6 +252,23 @@ def lightest_sections(
         closest = min(scored, key=lambda t: t.utilisation or 0.0) if scored else None
         next_lighter = None
     return SizingResult(tuple(passing), next_lighter, closest, tuple(tried), order)
+
+
+class _Converter:
+    """Magnitudes of weights and depths in one unit, converting each unit found once (a
+    catalogue tabulates every row in the same unit, and sorting hundreds of rows by pint
+    conversions is most of a search's overhead). Weight and depth units are multiplicative,
+    so one factor per unit converts exactly as pint does."""
+
+    def __init__(self) -> None:
+        self._factors: dict[tuple[Any, str], float] = {}
+
+    def __call__(self, q: Quantity, unit: str) -> float:
+        k = (q.units, unit)
+        f = self._factors.get(k)
+        if f is None:
+            f = self._factors[k] = float((1.0 * q.units).to(unit).magnitude)
+        return float(q.magnitude) * f
 
 
 @dataclass(frozen=True)

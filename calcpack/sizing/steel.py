@@ -19,7 +19,12 @@ from collections.abc import Mapping, Sequence
 from dataclasses import dataclass, replace
 from typing import Any, Literal
 
-from calcpack.checks.aisc360.beam import check_aisc_beam
+from calcpack.checks.aisc360.beam import (
+    BeamCase,
+    CombinedDemand,
+    check_beam_case,
+    prepare_demand,
+)
 from calcpack.checks.aisc360.shape import E_STEEL
 from calcpack.checks.base import MemberChecks
 from calcpack.checks.demand import as_combinations, max_abs
@@ -186,9 +191,12 @@ def aisc_beam_space(
 ) -> SearchSpace[SteelShape]:
     """The search space of :func:`lightest_aisc_beam` (same arguments): the shapes of
     ``family``, the plastic-moment screen and the trial (check_aisc_beam and the deflection
-    limits scaled to the shape's I_x). ``space.check(aisc_shape("W10X12"))`` checks one shape
-    exactly as the search does. ``material`` names the steel on the sheet ("ASTM A992");
-    ``shapes`` limits the candidates to these designations (e.g. the one on a sheet)."""
+    limits scaled to the shape's I_x), which checks every shape against the demand read once
+    (:func:`calcpack.checks.aisc360.prepare_demand`: the same results as
+    :func:`calcpack.check_aisc_beam` with ``demand=``). ``space.check(aisc_shape("W10X12"))``
+    checks one shape exactly as the search does. ``material`` names the steel on the sheet
+    ("ASTM A992"); ``shapes`` limits the candidates to these designations (e.g. the one on a
+    sheet)."""
     one_of("method", method, ("LRFD", "ASD"))
     one_of("family", family, I_FAMILIES)
     require(Fy, "[pressure]", "Fy", positive=True)
@@ -209,20 +217,26 @@ def aisc_beam_space(
             )
         return None
 
+    # the moments on every unbraced segment and the largest shear are the section's whatever
+    # the section (prismatic beam on rigid supports): read them once, not once per candidate
+    prepared = prepare_demand(
+        CombinedDemand(demand, tuple(braces or ())),
+        method=method,
+        continuous_bracing=continuous_bracing,
+    )
+
     def trial(shape: SteelShape) -> list[MemberChecks]:
-        out = [
-            check_aisc_beam(
-                shape.ishape(),
-                Fy=Fy,
-                E=E,
-                method=method,
-                member=member,
-                demand=demand,
-                braces=braces,
-                continuous_bracing=continuous_bracing,
-                material=material,
-            )
-        ]
+        case = BeamCase(
+            shape.ishape(),
+            Fy,
+            prepared,
+            E,
+            method,
+            member,
+            continuous_bracing,
+            material,
+        )
+        out = [check_beam_case(case)]
         factor = float((EI_ref / (E * shape["Ix"])).to("").magnitude)
         out += scaled_deflection_checks(deflections, factor, member)
         return out

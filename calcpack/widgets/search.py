@@ -12,7 +12,7 @@ and shows the closest. A depth limit that no section meets is reported at the de
 
 from __future__ import annotations
 
-from collections.abc import Callable
+from collections.abc import Callable, Sequence
 from html import escape
 from typing import Any
 
@@ -88,6 +88,8 @@ class SearchControl:
         search: ``(count, order, max_depth) -> SizingResult``; may raise a CalcpackError.
         use: writes the picked section's name into the inputs file.
         what: the word for a candidate in messages ("shape", "size").
+        more: widgets shown as a row under the search row (e.g. the grades a timber search
+            covers).
 
     Attributes:
         widget: the box to show under the panel. found: the last ranking (None before a search
@@ -100,6 +102,7 @@ class SearchControl:
         use: Callable[[str], Any],
         *,
         what: str = "section",
+        more: Sequence[ipw.Widget] = (),
     ) -> None:
         self._search = search
         self._use = use
@@ -132,6 +135,7 @@ class SearchControl:
                     [self.button, self.order, deepest, self.max_depth],
                     layout=ipw.Layout(flex_flow="row wrap"),
                 ),
+                *([ipw.HBox(list(more))] if more else []),
                 ipw.HBox([self.pick, self.use_button]),
                 self.ranking,
             ]

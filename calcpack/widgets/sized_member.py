@@ -15,6 +15,8 @@ from typing import Any, ClassVar
 
 import ipywidgets as ipw
 
+from calcpack.checks.nds.values import nds_sawn_grades
+from calcpack.errors import CalcpackError
 from calcpack.inputs.beam_member import (
     BeamDemand,
     BeamMemberCase,
@@ -82,8 +84,13 @@ class _SizingPanel(InputsPanel):
         )
         return out
 
+    def search_options(self) -> list[ipw.Widget]:
+        """Widgets of the panel's own shown under the search row (none by default)."""
+        return []
+
     def extra(self) -> list[ipw.Widget]:
-        self.searcher = SearchControl(self._search, self.use, what=self.what)
+        more = self.search_options()
+        self.searcher = SearchControl(self._search, self.use, what=self.what, more=more)
         return [self.searcher.widget]
 
     def _search(self, count: int, order: Order, limit: Quantity | None) -> SizingResult:
@@ -127,11 +134,52 @@ class BeamMemberPanel(_SizingPanel):
     def case(self, data: Any) -> BeamMemberCase:
         return beam_member_inputs(data, self.demand, table=self.table, path=self.path)
 
+    def search_options(self) -> list[ipw.Widget]:
+        """The grades a sawn member's search covers: the species' Table 4A grades, lower grades
+        listed first (at equal size the one listed first is offered first); the table's own
+        grade alone by default."""
+        self.grades = ipw.SelectMultiple(options=[], rows=4, layout=ipw.Layout(width="190px"))
+        self.grades.add_class("cp-search-grades")
+        self.grades_box = ipw.HBox(
+            [ipw.HTML("grades searched", layout=ipw.Layout(margin="0 6px 0 0")), self.grades]
+        )
+        self.grades_box.add_class("cp-search-grades-box")
+        self.grades_box.layout.display = "none"
+        return [self.grades_box]
+
+    def _grade_options(self, species: Any, grade: Any) -> None:
+        try:
+            names = list(reversed(nds_sawn_grades(str(species))))
+        except CalcpackError:  # an unknown species is marked at its field; offer the grade alone
+            names = [str(grade)]
+        if str(grade) not in names:
+            names.append(str(grade))
+        kept = [g for g in self.grades.value if g in names] or [str(grade)]
+        self.grades.options = names
+        self.grades.value = tuple(kept)
+        self.grades_box.layout.display = ""
+
+    def searched_grades(self) -> list[str] | None:
+        """The grades picked for the search, in the list's order; None when the search covers
+        the table's grade only (or the member is not sawn)."""
+        t = self.data[self.table]
+        if t.get("material") != "sawn" or not self.grades.value:
+            return None
+        picked = [g for g in self.grades.options if g in self.grades.value]
+        return None if picked == [t.get("grade")] else picked
+
+    def _search(self, count: int, order: Order, limit: Quantity | None) -> SizingResult:
+        return lightest_beam_member(
+            self.case(self.data), count=count, order=order, max_depth=limit,
+            grades=self.searched_grades(),
+        )  # fmt: skip
+
     def form(self) -> list[ipw.Widget]:
         t = self.table
         m = self.data[t]
         material = m.get("material")
         parts: list[ipw.Widget] = [ipw.HTML(f"<b>Member</b> ({material})")]
+        self.grades_box.layout.display = "none"  # shown for a sawn member only
         if material == "steel":
             parts += [self.text(f"{t}.section", "Shape (AISC designation)"),
                       self.quantity(f"{t}.Fy", "F_y (yield stress)")]  # fmt: skip
@@ -141,6 +189,7 @@ class BeamMemberPanel(_SizingPanel):
                       self.text(f"{t}.grade", "Grade")]  # fmt: skip
             if "plies" in m:
                 parts.append(self.number(f"{t}.plies", "Plies"))
+            self._grade_options(m.get("species"), m.get("grade"))
         else:
             parts += [self.text(f"{t}.stress_class", "Stress class"),
                       self.quantity(f"{t}.width", "b (width)"),

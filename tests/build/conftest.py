@@ -70,5 +70,5 @@ def demo_texts(demo_reader: PdfReader) -> list[str]:
 
 @pytest.fixture(scope="session")
 def packages(tmp_path_factory: pytest.TempPathFactory) -> dict[str, Built]:
-    """The three example jobs (examplekit.PROJECTS), built, signed and read once per run."""
+    """The example jobs (examplekit.ALL_PROJECTS), built and signed once per run on first use."""
     return build_examples(shared_base(tmp_path_factory))

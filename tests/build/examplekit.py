@@ -1,5 +1,6 @@
-"""The three example jobs built and signed once per test run, and read once per worker (the
-``packages`` fixture of the build conftest): shared by the checks of their numbers and text."""
+"""The example jobs built and signed once per test run, and read once per worker (the
+``packages`` fixture of the build conftest): shared by the checks of their numbers, of their text
+and of their pages."""
 
 from __future__ import annotations
 
@@ -12,7 +13,12 @@ from typing import Any
 from sharedbuild import build_if_free, built_once, is_busy
 
 ROOT = Path(__file__).resolve().parents[2] / "example_projects"
+#: the US jobs (ASCE/SEI 7, AISC 360, NDS), checked alike by the tests parametrised over them
 PROJECTS = ("alteration_ashgrove_lane", "deck_larkspur_court", "workshop_truss_fernhill")
+#: the SI jobs (the Eurocodes with the UK annexes), each with its own test module
+SI_PROJECTS = ("garden_studio", "wall_removal_hollins_road")
+#: every job the ``packages`` fixture builds on first use
+ALL_PROJECTS = PROJECTS + SI_PROJECTS
 
 
 @dataclass(frozen=True)
@@ -59,11 +65,11 @@ class _OnFirstUse(dict[str, Built]):
         self.base = base
 
     def __missing__(self, name: str) -> Built:
-        if name not in PROJECTS:
+        if name not in ALL_PROJECTS:
             raise KeyError(name)
         if is_busy(self.base / name):
             # Another worker is building it: build the jobs nobody has started meanwhile.
-            for other in PROJECTS:
+            for other in ALL_PROJECTS:
                 if other != name:
                     build_if_free(self.base / other, functools.partial(_make, other))
         self[name] = _build(name, self.base)

@@ -13,12 +13,12 @@ from __future__ import annotations
 
 import math
 import re
-import shutil
 import tomllib
 from pathlib import Path
 from typing import Any
 
 import pytest
+from examplekit import Built
 
 from calcpack.units import Q_, ureg
 
@@ -34,24 +34,15 @@ K_MOD = {"permanent": 0.6, "medium": 0.8}  # EN 1995-1-1 Table 3.1, service clas
 
 
 @pytest.fixture(scope="module")
-def built(tmp_path_factory: pytest.TempPathFactory) -> dict[str, Any]:
-    from pypdf import PdfReader
-
-    from calcpack.package.pipeline import build
-    from calcpack.signing.demo import sign_demo_package
-    from calcpack.signing.manifest import load_manifest
-
-    folder = tmp_path_factory.mktemp("garden")
-    project = folder / "project"
-    shutil.copytree(PROJECT, project, ignore=shutil.ignore_patterns(".calcpack-cache", "build"))
-    result = build(project, out_dir=folder, workers=2, timeout=300.0, use_cache=True)
-    signoff = sign_demo_package(result.pdf_path, folder, project=project)
-    pages = [p.extract_text() or "" for p in PdfReader(str(signoff.pdf)).pages]
+def built(packages: dict[str, Built]) -> dict[str, Any]:
+    """The job as built, signed and read once per session by the shared ``packages`` fixture."""
+    b = packages["garden_studio"]
     return {
-        "pdf": Path(signoff.pdf),
-        "root": signoff.root,
-        "manifest": load_manifest(signoff.pdf),
-        "pages": pages,
+        "project": b.project,
+        "pdf": b.pdf,
+        "root": b.root,
+        "manifest": b.manifest,
+        "pages": b.pages,
     }
 
 

@@ -1,11 +1,14 @@
 """Rendered pages keep the layout of the reference images (structure, not pixels).
 
-One reference page per layout (cover, contents, sheet, summary of checks) lives in
-``tests/build/reference/``. Each page is rendered with poppler's pdftoppm and reduced to a coarse
-grid of "ink"/"paper" cells; the grid must agree with the reference's on most cells, so a moved
-title block, a lost sign-off box or a blank page fails while font hinting and anti-aliasing do
-not. Set CALCPACK_UPDATE_REFERENCE=1 to rewrite the references after a deliberate layout change
-(and look at them).
+For the lintel demo, one reference page per layout (cover, contents, sheet, summary of checks)
+lives in ``tests/build/reference/``; for every example job built by the shared ``packages``
+fixture, the first page of each section of its package (cover, contents, design basis, each
+calculation sheet, summary of checks and the back matter) lives in
+``tests/build/reference/<job>/``, the pages found from the package's manifest. Each page is
+rendered with poppler's pdftoppm and reduced to a coarse grid of "ink"/"paper" cells; the grid
+must agree with the reference's on most cells, so a moved title block, a lost sign-off box or a
+blank page fails while font hinting and anti-aliasing do not. Set CALCPACK_UPDATE_REFERENCE=1
+to rewrite the references after a deliberate layout or content change (and look at them).
 """
 
 from __future__ import annotations
@@ -17,6 +20,7 @@ from pathlib import Path
 from typing import Any
 
 import pytest
+from examplekit import SI_PROJECTS, Built
 
 pytestmark = pytest.mark.build
 
@@ -25,6 +29,7 @@ Image = pytest.importorskip("PIL.Image")
 REFERENCE = Path(__file__).parent / "reference"
 GRID = (24, 34)  # columns, rows: about 9 mm cells on A4
 AGREEMENT = 0.88
+UPDATE = "CALCPACK_UPDATE_REFERENCE"
 
 
 def _render(pdf: Path, page: int, out: Path) -> Any:
@@ -56,6 +61,18 @@ def _grid(image: Any) -> list[bool]:
     return [value < 247 for value in small.tobytes()]  # any ink in the cell (8-bit grey)
 
 
+def _agreement(reference: Any, image: Any) -> float:
+    """The share of the layout grid's cells on which ``image`` and ``reference`` agree."""
+    expected, got = _grid(reference), _grid(image)
+    return sum(a == b for a, b in zip(expected, got, strict=True)) / len(got)
+
+
+def _inked(image: Any) -> float:
+    """The share of the layout grid's cells with ink."""
+    got = _grid(image)
+    return sum(got) / len(got)
+
+
 def _pages(manifest: dict[str, Any]) -> dict[str, int]:
     sections = manifest["sections"]
     return {
@@ -73,16 +90,66 @@ def test_page_structure_matches_reference(
     page = _pages(demo_manifest)[layout]
     image = _render(demo_pdf, page, tmp_path)
     reference = REFERENCE / f"{layout}.png"
-    if os.environ.get("CALCPACK_UPDATE_REFERENCE") == "1":
+    if os.environ.get(UPDATE) == "1":
         REFERENCE.mkdir(exist_ok=True)
         image.save(reference, optimize=True)
         pytest.skip(f"reference {reference.name} rewritten")
-    expected = _grid(Image.open(reference).convert("L"))
-    got = _grid(image)
-    assert image.size == Image.open(reference).size  # same paper
-    agree = sum(a == b for a, b in zip(expected, got, strict=True)) / len(got)
+    expected = Image.open(reference).convert("L")
+    assert image.size == expected.size  # same paper
+    agree = _agreement(expected, image)
     assert agree >= AGREEMENT, f"{layout}: only {agree:.0%} of the layout grid agrees"
-    assert sum(got) > len(got) * 0.05  # not a blank page
+    assert _inked(image) > 0.05  # not a blank page
+
+
+def _first_pages(manifest: dict[str, Any]) -> dict[str, int]:
+    """Reference name -> the page it shows: the first page of every section of the package,
+    a calculation sheet named by its notebook (``sheet-01_roof_loads``) so that a sheet added
+    or removed elsewhere does not rename the others."""
+    sheet_ids = {f"sheet-{i}" for i in range(1, len(manifest["sheets"]) + 1)}
+    pages = {
+        ident: int(span[0])
+        for ident, span in manifest["sections"].items()
+        if ident not in sheet_ids
+    }
+    for sheet in manifest["sheets"]:
+        pages[f"sheet-{Path(sheet['path']).stem}"] = int(sheet["pages"][0])
+    return dict(sorted(pages.items(), key=lambda item: item[1]))
+
+
+@pytest.mark.parametrize("job", SI_PROJECTS)
+def test_example_pages_match_their_references(
+    job: str, packages: dict[str, Built], tmp_path: Path
+) -> None:
+    """The first page of every section of each example package against its reference image."""
+    built = packages[job]
+    pages = _first_pages(built.manifest)
+    folder = REFERENCE / job
+    if os.environ.get(UPDATE) == "1":
+        folder.mkdir(parents=True, exist_ok=True)
+        for stale in set(folder.glob("*.png")) - {folder / f"{n}.png" for n in pages}:
+            stale.unlink()
+        for name, page in pages.items():
+            _render(built.pdf, page, tmp_path).save(folder / f"{name}.png", optimize=True)
+        pytest.skip(f"references of {job} rewritten ({len(pages)} pages)")
+    kept = {p.stem for p in folder.glob("*.png")}
+    assert kept == set(pages), (
+        f"{job}: reference images {sorted(kept - set(pages))} have no section and sections "
+        f"{sorted(set(pages) - kept)} have no reference image; after a deliberate change run "
+        f"{UPDATE}=1 pytest tests/build/test_reference_pages.py -k {job}"
+    )
+    failed = []
+    for name, page in pages.items():
+        image = _render(built.pdf, page, tmp_path)
+        reference = Image.open(folder / f"{name}.png").convert("L")
+        assert image.size == reference.size, f"{job} {name}: paper size changed"
+        agree = _agreement(reference, image)
+        inked = _inked(image)
+        if agree < AGREEMENT or inked <= 0.05:
+            kept_as = tmp_path / f"{job}-{name}.png"
+            image.save(kept_as)
+            failed.append(f"{name} (page {page}): {agree:.0%} of the grid agrees, "
+                          f"{inked:.0%} inked; rendered page kept as {kept_as}")  # fmt: skip
+    assert not failed, f"{job}: pages unlike their references: " + "; ".join(failed)
 
 
 SPECIMEN = [
@@ -131,7 +198,7 @@ def test_math_specimen_page(tmp_path: Path) -> None:
     assert "\\frac" not in text
     image = _render(pdf, 1, tmp_path)
     reference = REFERENCE / "math.png"
-    if os.environ.get("CALCPACK_UPDATE_REFERENCE") == "1":
+    if os.environ.get(UPDATE) == "1":
         REFERENCE.mkdir(exist_ok=True)
         image.save(reference, optimize=True)
         pytest.skip("reference math.png rewritten")

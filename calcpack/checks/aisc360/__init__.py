@@ -20,8 +20,10 @@ from calcpack.checks.aisc360.beam import (
     BeamCase,
     CombinedDemand,
     DirectDemand,
+    PreparedDemand,
     check_aisc_beam,
     check_beam_case,
+    prepare_demand,
 )
 from calcpack.checks.aisc360.shape import AISC360_EDITION, E_STEEL, IShape
 
@@ -32,6 +34,8 @@ __all__ = [
     "CombinedDemand",
     "DirectDemand",
     "IShape",
+    "PreparedDemand",
     "check_aisc_beam",
     "check_beam_case",
+    "prepare_demand",
 ]

@@ -3,8 +3,10 @@ docstring for scope and refusals).
 
 The check's inputs are a :class:`BeamCase`: the section, the steel, the method and the demand
 -- either :class:`CombinedDemand` (combined beam results with the brace positions; every
-combination and unbraced segment is checked, C_b from the moment diagram) or
-:class:`DirectDemand` (required strengths given, with L_b and C_b). The clauses are in
+combination and unbraced segment is checked, C_b from the moment diagram),
+:class:`PreparedDemand` (the same, read from the results once by :func:`prepare_demand` for
+checking many sections against one beam, as a section search does) or :class:`DirectDemand`
+(required strengths given, with L_b and C_b). The clauses are in
 :mod:`calcpack.checks.aisc360.beam_clauses`.
 """
 
@@ -30,9 +32,11 @@ __all__ = [
     "CombinedDemand",
     "DirectDemand",
     "OutOfScope",
+    "PreparedDemand",
     "cb_formula",
     "check_aisc_beam",
     "check_beam_case",
+    "prepare_demand",
 ]
 
 OutOfScope = Literal["refuse", "not covered"]
@@ -74,13 +78,48 @@ class CombinedDemand:
 
 
 @dataclass(frozen=True)
+class PreparedDemand:
+    """The demand of combined results read once: what :func:`check_beam_case` reads from a
+    :class:`CombinedDemand` for any section (every combination's moments on every unbraced
+    segment with C_b, and the largest |V|), kept to check many sections against one beam.
+    Made by :func:`prepare_demand`; a check with it gives the same results as with the
+    :class:`CombinedDemand` it came from.
+
+    Attributes:
+        flexure: one item per (combination, unbraced segment), M in kip·ft, L_b in ft.
+        shear: (largest |V| [force], its combination).
+        method: the method the combinations were accepted for ("LRFD": strength, "ASD":
+            allowable stress). continuous_bracing: whether the segments are the whole length.
+    """
+
+    flexure: tuple[FlexureItem, ...]
+    shear: tuple[Quantity, str | None]
+    method: Method
+    continuous_bracing: bool
+
+
+def prepare_demand(
+    demand: CombinedDemand, *, method: Method = "LRFD", continuous_bracing: bool = False
+) -> PreparedDemand:
+    """Read the flexure and shear demands of ``demand`` once (see :class:`PreparedDemand`).
+
+    Raises:
+        InputError: bad method, combinations of the wrong kind for the method, a brace off
+            the member.
+    """
+    m = check_method(method)
+    flexure, shear = _combined_items(demand, m, continuous_bracing)
+    return PreparedDemand(tuple(flexure), shear, method, continuous_bracing)
+
+
+@dataclass(frozen=True)
 class BeamCase:
     """The inputs of the AISC 360-16 §F2/§G2.1 beam check.
 
     Attributes:
         section: the :class:`IShape`. Fy: specified minimum yield stress. E: modulus of
             elasticity (29 000 ksi, §B2). method: "LRFD" or "ASD".
-        demand: :class:`CombinedDemand` or :class:`DirectDemand`.
+        demand: :class:`CombinedDemand`, :class:`PreparedDemand` or :class:`DirectDemand`.
         member: member mark. material: e.g. "ASTM A992" (shown with F_y).
         continuous_bracing: the compression flange is braced along its whole length.
         on_out_of_scope: "refuse" (raise) or "not covered" (a NOT COVERED result).
@@ -88,7 +127,7 @@ class BeamCase:
 
     section: IShape
     Fy: Quantity
-    demand: CombinedDemand | DirectDemand
+    demand: CombinedDemand | PreparedDemand | DirectDemand
     E: Quantity = E_STEEL
     method: Method = "LRFD"
     member: str = "B1"
@@ -156,7 +195,10 @@ def check_beam_case(case: BeamCase) -> MemberChecks:
     flexure: list[FlexureItem]
     shear: tuple[Quantity, str | None] | None
     if isinstance(demand, CombinedDemand):
-        flexure, shear = _combined_items(case, demand, method)
+        flexure, shear = _combined_items(demand, method, case.continuous_bracing)
+    elif isinstance(demand, PreparedDemand):
+        _prepared_matches(case, demand)
+        flexure, shear = list(demand.flexure), demand.shear
     else:
         flexure, shear = _direct_items(case, demand)
     clauses = BeamClauses(
@@ -169,7 +211,7 @@ def check_beam_case(case: BeamCase) -> MemberChecks:
         shear,
         given_cb=isinstance(demand, DirectDemand) and not case.continuous_bracing,
         on_out_of_scope=case.on_out_of_scope,
-        from_analysis=isinstance(demand, CombinedDemand),
+        from_analysis=not isinstance(demand, DirectDemand),
     )
     title = f"{case.section.name} beam to {AISC360_EDITION} §F2 and §G2 ({method})"
     return run_checks(case.member, title, Standard(AISC360_EDITION, _TITLE, method), clauses)
@@ -195,18 +237,34 @@ def _segments(
     return [(a, c) for a, c in itertools.pairwise(pts) if c - a > 1e-9 * L_m]
 
 
+def _prepared_matches(case: BeamCase, demand: PreparedDemand) -> None:
+    """Refuse a prepared demand read for another method or bracing than the case's."""
+    for name, got, want in (
+        ("method", case.method, demand.method),
+        ("continuous_bracing", case.continuous_bracing, demand.continuous_bracing),
+    ):
+        if got != want:
+            raise InputError(
+                f"The prepared demand was read with {name} = {want!r} but the check has "
+                f"{name} = {got!r}; prepare it with the check's {name}",
+                name=name,
+                value=got,
+                expected=repr(want),
+            )
+
+
 def _combined_items(
-    case: BeamCase, demand: CombinedDemand, method: str
+    demand: CombinedDemand, method: str, continuous_bracing: bool
 ) -> tuple[list[FlexureItem], tuple[Quantity, str | None]]:
     """Every (combination, unbraced segment) for flexure; the largest |V| for shear."""
     kinds = ("strength", "user") if method == "LRFD" else ("allowable stress", "user")
     combos = as_combinations(demand.results, kinds=kinds, method=f"{AISC360_EDITION} {method}")
     L_m = si(next(iter(combos.values())).beam.length)
-    segments = _segments(L_m, demand.braces, case.continuous_bracing)
+    segments = _segments(L_m, demand.braces, continuous_bracing)
     items: list[FlexureItem] = []
     for name, r in combos.items():
         for a, b in segments:
-            if case.continuous_bracing:
+            if continuous_bracing:
                 Mmax, _ = max_abs(r, "moment")
                 items.append(
                     FlexureItem(name, "continuously braced", Mmax.to("kip*ft"), Q_(0.0, "ft"), 1.0)

@@ -62,7 +62,9 @@ _MAIN_GRADES = ("Select Structural", "No.1 & Btr", "No.1", "No.2", "No.3")
 _CF_FB = {2: (1.5, 1.5), 3: (1.5, 1.5), 4: (1.5, 1.5), 5: (1.4, 1.4), 6: (1.3, 1.3),
           8: (1.2, 1.3), 10: (1.1, 1.2), 12: (1.0, 1.1)}  # fmt: skip
 _CF_FB_WIDE = (0.9, 1.0)  # 14" and wider
-# NDS Supplement Table 4A flat use factors C_fu: nominal width -> (thickness 2"&3", 4")
+# NDS Supplement Table 4A flat use factors C_fu: nominal width -> (thickness 2"&3", 4"); the
+# 2"&3" column is in the project's published-values reference (confirmed), the 4" column is
+# from memory
 _CFU = {2: (1.0, 1.0), 3: (1.0, 1.0), 4: (1.1, 1.0), 5: (1.1, 1.05), 6: (1.15, 1.05),
         8: (1.15, 1.05)}  # fmt: skip
 _CFU_WIDE = (1.2, 1.1)  # 10" and wider

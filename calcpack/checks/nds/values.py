@@ -24,12 +24,13 @@ from calcpack.checks.scope import material_in_scope
 from calcpack.errors import InputError
 from calcpack.refdata import read_table
 from calcpack.units import Q_, Quantity
-from calcpack.validate import non_empty, one_of, positive_fields
+from calcpack.validate import lookup, non_empty, one_of, positive_fields
 
 __all__ = [
     "SOUTHERN_PINE",
     "TimberValues",
     "nds_glulam_values",
+    "nds_sawn_grades",
     "nds_sawn_values",
     "southern_pine_size_factor",
 ]
@@ -114,6 +115,21 @@ def nds_sawn_values(
         "sawn" if table == "4A" else "timber",
         f"NDS Supplement 2018 Table {table} ({basis})",
     )
+
+
+def nds_sawn_grades(species: str, *, table: Literal["4A", "4D"] = "4A") -> tuple[str, ...]:
+    """The grades of ``species`` in NDS Supplement 2018 Table 4A (or 4D) that calcpack ships,
+    in the table's order (best grade first), e.g. for a search across grades.
+
+    Raises:
+        InputError: unknown table, or a species with no grade in it ("did you mean").
+    """
+    one_of("table", table, ("4A", "4D"))
+    t = read_table("nds_2018_sawn_values.csv", key="key")
+    rows = [r for r in t.rows.values() if r["table"] == table]
+    species_names = {str(r["species"]): str(r["species"]) for r in rows}
+    name = lookup("species", species, species_names, what=f"species of Table {table}")
+    return tuple(str(r["grade"]) for r in rows if r["species"] == name)
 
 
 def _southern_pine(species: str, grade: str, width: int | None) -> TimberValues:

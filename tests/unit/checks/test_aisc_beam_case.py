@@ -64,3 +64,45 @@ def test_cb_outside_its_range_is_refused_naming_it(Cb: object) -> None:
     with pytest.raises(InputError) as info:
         check_aisc_beam(W18X50, Fy=50 * ksi, Mu=100 * kip * ft, Lb=10 * ft, Cb=Cb)  # type: ignore[arg-type]
     assert info.value.name == "Cb"
+
+
+def _two_span_strength():  # type: ignore[no-untyped-def]
+    from calcpack.analysis.beam import Beam, Pin, Roller, solve_cases
+    from calcpack.combinations import analyse_combinations, asce7_strength
+    from calcpack.loads.types import UniformLoad
+
+    beam = Beam(
+        length=40 * ft,
+        supports=[Pin(0 * ft, name="A"), Roller(20 * ft, name="B"), Roller(40 * ft, name="C")],
+        loads=[UniformLoad(w=0.6 * kip / ft, case="D"), UniformLoad(w=0.9 * kip / ft, case="L")],
+        EI=29000 * ksi * 800 * ureg.inch**4,
+        name="B4",
+    )
+    return analyse_combinations(solve_cases(beam), asce7_strength())
+
+
+@pytest.mark.parametrize("continuous", [False, True])
+def test_a_prepared_demand_checks_as_the_results_it_was_read_from(continuous: bool) -> None:
+    from calcpack.checks.aisc360 import CombinedDemand, prepare_demand
+
+    demand = CombinedDemand(_two_span_strength(), (7 * ft, 14 * ft, 27 * ft))
+    prepared = prepare_demand(demand, continuous_bracing=continuous)
+    direct = check_beam_case(BeamCase(W18X50, 50 * ksi, demand, continuous_bracing=continuous))
+    via = check_beam_case(BeamCase(W18X50, 50 * ksi, prepared, continuous_bracing=continuous))
+    assert [(r.name, r.combination, r.utilisation, r.verdict) for r in via.results] == [
+        (r.name, r.combination, r.utilisation, r.verdict) for r in direct.results
+    ]
+    # the working shows the same lines (the demands are results of the analysis in both)
+    assert [s.text() for s in via.working()] == [s.text() for s in direct.working()]
+
+
+def test_a_prepared_demand_read_for_another_method_or_bracing_is_refused() -> None:
+    from calcpack.checks.aisc360 import CombinedDemand, prepare_demand
+
+    prepared = prepare_demand(CombinedDemand(_two_span_strength(), (10 * ft,)))
+    with pytest.raises(InputError, match=r"method = 'LRFD'.*method = 'ASD'"):
+        check_beam_case(BeamCase(W18X50, 50 * ksi, prepared, method="ASD"))
+    with pytest.raises(InputError, match="continuous_bracing"):
+        check_beam_case(BeamCase(W18X50, 50 * ksi, prepared, continuous_bracing=True))
+    with pytest.raises(InputError, match=r"braces\[0\]"):
+        prepare_demand(CombinedDemand(_two_span_strength(), (50 * ft,)))

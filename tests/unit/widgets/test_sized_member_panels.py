@@ -136,3 +136,33 @@ def test_beam_member_panel_refuses_a_bad_size_at_its_field_and_picks(tmp_path: P
     sheet = evaluate_beam_member(beam_member_inputs(saved, demand, table="joist", path=p))
     assert sheet.passed
     assert _governing(panel.outputs["results"].value) == pytest.approx(sheet.governing[0])
+
+
+def test_beam_member_panel_searches_the_grades_picked_and_writes_size_and_grade(
+    tmp_path: Path,
+) -> None:
+    p = tmp_path / "joist.inputs.toml"
+    p.write_text(JOIST, encoding="utf-8")
+    demand = _demand()
+    panel = beam_member_panel(p, demand, table="joist")
+    assert panel.grades_box.layout.display != "none"  # a sawn member: the grades are offered
+    assert {"No.1", "No.2", "Select Structural"} <= set(panel.grades.options)
+    assert panel.grades.value == ("No.2",)  # the table's grade alone by default
+    assert panel.searched_grades() is None
+    alone = panel.search()
+    assert alone is not None
+    assert " " not in alone.best.name  # one grade: the sizes by name, as before
+    panel.grades.value = ("No.2", "Select Structural")
+    found = panel.search()
+    assert found is not None
+    assert {t.name.split(" ", 1)[1] for t in found.tried} == {"No.2", "Select Structural"}
+    assert found.best.weight <= alone.best.weight  # a better grade can only help
+    assert panel.use(found.best.name)
+    saved = load_inputs(p, tables=("joist",))["joist"]
+    size, grade = found.best.name.split(" ", 1)
+    assert (saved["size"], saved["grade"]) == (size, grade)
+    sheet = evaluate_beam_member(beam_member_inputs({"joist": saved}, demand, table="joist"))
+    assert sheet.passed
+    # after the pick the grade field shows the grade written, and the picker keeps the choice
+    assert panel.fields["joist.grade"].box.value == grade
+    assert set(panel.grades.value) == {"No.2", "Select Structural"}
