@@ -25,12 +25,13 @@ from typing import Any, Literal
 import numpy as np
 
 from calcpack import views
+from calcpack.analysis.superposition import superpose
 from calcpack.analysis.truss_model import FloatArray, Member, Qty, Truss
 from calcpack.analysis.truss_stiffness import stiffness_solve
 from calcpack.analysis.truss_zero import zero_force_by_inspection
 from calcpack.errors import InputError, UnstableStructureError
 from calcpack.units import ureg
-from calcpack.validate import at_least, find, finite, one_of
+from calcpack.validate import find, finite, one_of
 
 __all__ = [
     "Determinacy",
@@ -530,7 +531,8 @@ def solve_truss_cases(truss: Truss, *, method: Method = "auto") -> dict[str, Tru
 def combine_results(
     results: Mapping[str, TrussResult], factors: Mapping[str, float], label: str | None = None
 ) -> TrussResult:
-    """Superpose per-case results: Σ factor × result.
+    """Superpose per-case results: Σ factor × result
+    (:func:`calcpack.analysis.superposition.superpose`), named for the combination.
 
     Args:
         results: load-case name -> result (as from :func:`solve_truss_cases`).
@@ -540,20 +542,7 @@ def combine_results(
     Raises:
         InputError: a factor names a case with no result, or no factors are given.
     """
-    at_least("factors", dict(factors), what="load factor")
-    total: TrussResult | None = None
-    for case, f in factors.items():
-        if case not in results:
-            raise InputError(
-                f"Combination factor names load case {case!r}, which has no result (cases: "
-                f"{', '.join(results)})",
-                name="factors",
-                value=case,
-                expected="a case among the results",
-            )
-        part = results[case].scaled(finite(f"factors[{case!r}]", f))
-        total = part if total is None else total + part
-    assert total is not None
+    total: TrussResult = superpose(results, factors)
     name = label or " + ".join(f"{f:g} {c}" for c, f in factors.items())
     return TrussResult(
         total.truss,

@@ -1,7 +1,8 @@
 """Superposition of per-case results and envelopes naming the governing combination.
 
 Each load case is analysed once; a combination's result is Σ factor × case result (linear
-analysis). Results may be anything that can be scaled and added: beam results
+analysis), summed by :func:`calcpack.analysis.superposition.superpose` (re-exported here).
+Results may be anything that can be scaled and added: beam results
 (:class:`calcpack.analysis.beam.BeamResult`, which offers ``scaled`` and ``+``), truss results
 (member forces, tension +, and reactions), quantities, or mappings of named quantities
 (``{"N_AB": -12 kN, ...}``).
@@ -20,10 +21,11 @@ from typing import Any
 
 import numpy as np
 
+from calcpack.analysis.superposition import superpose
 from calcpack.combinations.model import AppliedCombination, CombinationSet
 from calcpack.errors import InputError
 from calcpack.units import Quantity, is_quantity
-from calcpack.validate import at_least, find, finite, instance, one_of
+from calcpack.validate import at_least, find, instance, one_of
 
 __all__ = [
     "CombinedResults",
@@ -32,46 +34,6 @@ __all__ = [
     "analyse_combinations",
     "superpose",
 ]
-
-
-def _scale(r: Any, f: float) -> Any:
-    if hasattr(r, "scaled"):
-        return r.scaled(f)
-    if isinstance(r, Mapping):
-        return {k: _scale(v, f) for k, v in r.items()}
-    return r * f
-
-
-def _add(a: Any, b: Any) -> Any:
-    if isinstance(a, Mapping) and isinstance(b, Mapping):
-        keys = list(dict.fromkeys([*a, *b]))
-        return {k: a[k] if k not in b else b[k] if k not in a else _add(a[k], b[k]) for k in keys}
-    return a + b
-
-
-def superpose(results: Mapping[str, Any], factors: Mapping[str, float]) -> Any:
-    """Σ factor × result over the load cases named in ``factors``.
-
-    Args:
-        results: load-case name -> its result (scalable and addable, see the module notes).
-        factors: load-case name -> load factor.
-
-    Raises:
-        InputError: a factor names a case with no result; no factors.
-    """
-    at_least("factors", factors, what="load factor")
-    total: Any = None
-    for case, f in factors.items():
-        if case not in results:
-            raise InputError(
-                f"Load case {case!r} has no result (cases with results: {sorted(results)})",
-                name="case",
-                value=case,
-                expected=f"one of {sorted(results)}",
-            )
-        term = _scale(results[case], float(finite(f"factors[{case!r}]", f)))
-        total = term if total is None else _add(total, term)
-    return total
 
 
 @dataclass(frozen=True)

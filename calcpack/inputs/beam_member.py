@@ -69,6 +69,7 @@ __all__ = [
     "beam_pick_changes",
     "evaluate_beam_member",
     "lightest_beam_member",
+    "member_stiffness",
 ]
 
 Material = Literal["steel", "sawn", "glulam"]
@@ -297,6 +298,51 @@ def beam_member_inputs(
     return BeamMemberCase(material, mark, section, values, demand, table, tuple(t))
 
 
+def member_stiffness(
+    data: Mapping[str, Any], *, table: str = "member", path: Path | str | None = None
+) -> Quantity:
+    """E·I of the table's section about its strong axis, to analyse the beam with the member
+    the table holds: steel E·I_x (I_x from the AISC Shapes Database); sawn E·b·d³/12 times the
+    plies, E the reference value of NDS Supplement 2018 Table 4A and b, d the dressed size;
+    glulam E_x·b·d³/12 (Table 5A). The member checks scale the analysis's deflections to each
+    section's own E'·I (a prismatic beam on rigid supports), so this E·I sets only what the
+    analysis itself shows.
+
+    Raises:
+        InputsFileError / DimensionError: naming the bad key, as :func:`beam_member_inputs`.
+    """
+    t = data.get(table)
+    if not isinstance(t, Mapping):
+        raise InputsFileError(
+            f"{path or 'inputs'}: no [{table}] table", name=table, value=t, expected="a table"
+        )
+    material = require_input(
+        t.get("material"), Spec("text", choices=MATERIALS), f"{table}.material", path=path
+    )
+    if material == "steel":
+        v = _steel(t, table, path)
+        EI: Quantity = v["E"] * v["shape"]["Ix"]
+        return EI.to("kip*inch**2")
+    if material == "sawn":
+        size = require_input(t.get("size"), "text", f"{table}.size", path=path)
+        species = require_input(t.get("species"), "text", f"{table}.species", path=path)
+        grade = require_input(t.get("grade"), "text", f"{table}.grade", path=path)
+        with as_inputs_error(f"{table}.grade", grade):
+            E = nds_sawn_values(species, grade).E
+        with as_inputs_error(f"{table}.size", size):
+            m = SawnMember.dimension(size)
+        plies = require_input(t.get("plies", 1), Spec("number", positive=True),
+                              f"{table}.plies", path=path)  # fmt: skip
+        return (E * m.b * m.d**3 / 12 * plies).to("kip*inch**2")
+    length = Spec("[length]", positive=True)
+    cls = require_input(t.get("stress_class"), "text", f"{table}.stress_class", path=path)
+    b = require_input(t.get("width"), length, f"{table}.width", path=path)
+    d = require_input(t.get("depth"), length, f"{table}.depth", path=path)
+    with as_inputs_error(f"{table}.stress_class", cls):
+        E = nds_glulam_values(cls).E
+    return (E * b * d**3 / 12).to("kip*inch**2")
+
+
 def evaluate_beam_member(case: BeamMemberCase) -> SizedOutcome:
     """Check the table's section with the search's own trial (every check of every
     combination, and the deflection limits)."""
@@ -304,8 +350,7 @@ def evaluate_beam_member(case: BeamMemberCase) -> SizedOutcome:
     if case.material == "steel":
         shape = case.values["shape"]
         return SizedOutcome(case.section, tuple(space.check(shape)), shape["W"])
-    cand = space.candidates[0]
-    return SizedOutcome(cand.name, tuple(space.check(cand.item)), cand.weight)
+    return SizedOutcome.of(space)
 
 
 def lightest_beam_member(

@@ -38,7 +38,7 @@ from calcpack.checks.base import MemberChecks
 from calcpack.errors import CalcpackError, InputError
 from calcpack.inputs.file import InputsFileError, Spec, require_input
 from calcpack.inputs.layout import Table, Tables, refuse_unknown_keys
-from calcpack.inputs.sized import governing_check
+from calcpack.inputs.sized import force_tables, governing_check
 from calcpack.sections.aisc_database import SteelShape, aisc_shape
 from calcpack.sizing import SizingResult, aisc_candidates, lightest_sections
 from calcpack.sizing.search import Order
@@ -132,17 +132,14 @@ def member_inputs(data: Mapping[str, Any], *, path: Path | str | None = None) ->
             value=exc.value,
             expected=exc.expected,
         ) from None
-    rows = data.get("forces")
-    if not isinstance(rows, list) or not rows:
-        raise InputsFileError(
-            f"{path or 'inputs'}: no [[forces]] tables (one per combination)",
-            name="forces",
-            value=rows,
-            expected="at least one [[forces]] table",
-        )
+    tables = force_tables(
+        data.get("forces"),
+        path=path,
+        missing=" (one per combination)",
+        expected="at least one [[forces]] table",
+    )
     forces = []
-    for i, row in enumerate(rows, start=1):
-        key = f"forces[{i}]"
+    for i, (key, row) in enumerate(tables, start=1):
         vals = {}
         for k, dim in (("P", "[force]"), ("Mx", "[force]*[length]"), ("My", "[force]*[length]"),
                        ("Vx", "[force]"), ("Vy", "[force]")):  # fmt: skip

@@ -3,16 +3,17 @@ section's checks, and errors of the checks turned into errors at an inputs-file 
 
 from __future__ import annotations
 
-from collections.abc import Iterator, Sequence
+from collections.abc import Iterator, Mapping, Sequence
 from contextlib import contextmanager
 from dataclasses import dataclass
 from typing import Any
 
 from calcpack.errors import InputError, OutOfScopeError
 from calcpack.inputs.file import InputsFileError
+from calcpack.sizing.search import Candidate, SearchSpace
 from calcpack.units import Quantity
 
-__all__ = ["SizedOutcome", "as_inputs_error", "governing_check"]
+__all__ = ["SizedOutcome", "as_inputs_error", "force_tables", "governing_check"]
 
 
 def governing_check(checks: Sequence[Any]) -> tuple[float, str, str, str]:
@@ -47,6 +48,39 @@ class SizedOutcome:
     def governing(self) -> tuple[float, str, str, str]:
         """(utilisation, check, clause, combination) of the largest utilisation."""
         return governing_check(self.checks)
+
+    @classmethod
+    def of(cls, space: SearchSpace[Any], candidate: Candidate[Any] | None = None) -> SizedOutcome:
+        """The checks of ``candidate`` (default: the space's first, the section of a space of
+        one) by the space's own trial, so the panel shows what the ranking gave it."""
+        cand = candidate if candidate is not None else space.candidates[0]
+        return cls(cand.name, tuple(space.check(cand.item)), cand.weight)
+
+
+def force_tables(
+    rows: Any, *, path: Any, missing: str, expected: str
+) -> list[tuple[str, Mapping[str, Any]]]:
+    """(key, table) of each ``[[forces]]`` table of an inputs file, keyed ``forces[i]`` from 1.
+
+    Raises:
+        InputsFileError: no tables (``missing`` says what else could have given the forces,
+            ``expected`` how many), or an entry that is not a table."""
+    if not isinstance(rows, list) or not rows:
+        raise InputsFileError(
+            f"{path or 'inputs'}: no [[forces]] tables{missing}",
+            name="forces",
+            value=rows,
+            expected=expected,
+        )
+    out = []
+    for i, row in enumerate(rows, start=1):
+        key = f"forces[{i}]"
+        if not isinstance(row, Mapping):
+            raise InputsFileError(
+                f"{key} must be a table", name=key, value=row, expected="a [[forces]] table"
+            )
+        out.append((key, row))
+    return out
 
 
 @contextmanager

@@ -35,7 +35,7 @@ from calcpack.checks.nds.members import TimberForces
 from calcpack.checks.nds.values import nds_sawn_values
 from calcpack.inputs.file import InputsFileError, Spec, require_input
 from calcpack.inputs.layout import Table, Tables, refuse_unknown_keys
-from calcpack.inputs.sized import SizedOutcome, as_inputs_error
+from calcpack.inputs.sized import SizedOutcome, as_inputs_error, force_tables
 from calcpack.sizing import SearchSpace, SizingResult, nds_post_member, nds_post_space
 from calcpack.sizing.search import Order
 from calcpack.sizing.timber_members import POST_SIZES_4A, POST_SIZES_4D, nominal_size
@@ -110,20 +110,14 @@ class TimberPostCase:
 
 
 def _loads(rows: Any, table: str, path: Path | str | None, mark: str) -> tuple[PostLoad, ...]:
-    if not isinstance(rows, list) or not rows:
-        raise InputsFileError(
-            f"{path or 'inputs'}: no [[forces]] tables and no forces given by the sheet",
-            name="forces",
-            value=rows,
-            expected="one [[forces]] table per ASD combination",
-        )
+    tables = force_tables(
+        rows,
+        path=path,
+        missing=" and no forces given by the sheet",
+        expected="one [[forces]] table per ASD combination",
+    )
     out = []
-    for i, row in enumerate(rows, start=1):
-        key = f"forces[{i}]"
-        if not isinstance(row, Mapping):
-            raise InputsFileError(
-                f"{key} must be a table", name=key, value=row, expected="a [[forces]] table"
-            )
+    for i, (key, row) in enumerate(tables, start=1):
         P = require_input(row.get("P"), "[force]", f"{key}.P", path=path)
         M = require_input(row.get("M_d", Q_(0.0, "lbf*ft")), "[force]*[length]", f"{key}.M_d",
                           path=path)  # fmt: skip
@@ -198,9 +192,7 @@ def timber_post_inputs(
 def evaluate_timber_post(case: TimberPostCase) -> SizedOutcome:
     """Check the post's size for every force set (NDS 2018 §3.6-§3.9 through
     :func:`calcpack.check_nds_member`), with the search's own trial."""
-    space = case.space(sizes=[case.size])
-    cand = space.candidates[0]
-    return SizedOutcome(case.size, tuple(space.check(cand.item)), cand.weight)
+    return SizedOutcome.of(case.space(sizes=[case.size]))
 
 
 def lightest_timber_post(

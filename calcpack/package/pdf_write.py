@@ -61,8 +61,8 @@ def write_pdf(
         first: bytes = layout.first.write_pdf(
             attachments=items, pdf_identifier=identifier, pdf_variant=PDF_VARIANT, pdf_tags=True
         )
-    if not layout.rest and not layout.links:
-        return first
     from calcpack.package.pdfjoin import join_chunks
+
+    # Even one chunk goes through the join: its structure tree is flattened there.
 
     return join_chunks(first, layout.rest, layout.links)

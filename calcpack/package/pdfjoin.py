@@ -19,7 +19,9 @@ one tree in reading order:
   to stay unique.
 
 Links to a section laid out in another chunk are added after the join, as link annotations to
-named destinations (WeasyPrint could not resolve them within the chunk).
+named destinations (WeasyPrint could not resolve them within the chunk). Last, the joined tree
+is flattened (:mod:`calcpack.package.pdf_tree`: the bare ``Span``, ``Div`` and ``NonStruct``
+wrappers WeasyPrint writes for every box are dropped), for a single chunk too.
 """
 
 from __future__ import annotations
@@ -30,6 +32,7 @@ from typing import Any
 
 from calcpack.errors import BuildError
 from calcpack.package.layout_boxes import Link
+from calcpack.package.pdf_tree import flatten_structure
 
 __all__ = ["join_chunks", "structure_summary"]
 
@@ -37,7 +40,9 @@ __all__ = ["join_chunks", "structure_summary"]
 def join_chunks(first: bytes, rest: Sequence[bytes], links: Sequence[Link]) -> bytes:
     """Append the other chunks' pages to the first chunk's PDF (its catalog, metadata and
     attachments are the package's), with their outline, named destinations and structure
-    tree, then add the links between chunks.
+    tree, then add the links between chunks and flatten the structure tree
+    (:func:`calcpack.package.pdf_tree.flatten_structure`). Given one chunk (``rest`` and
+    ``links`` empty), only its structure tree is flattened.
 
     Raises:
         BuildError: the first chunk is tagged and another is not (their trees cannot join).
@@ -59,6 +64,8 @@ def join_chunks(first: bytes, rest: Sequence[bytes], links: Sequence[Link]) -> b
     added = [(link, _add_link(writer, link)) for link in links]
     if tagged and added:
         _tag_links(writer, added)
+    if tagged:
+        flatten_structure(writer)
     out = io.BytesIO()
     writer.write(out)
     return out.getvalue()

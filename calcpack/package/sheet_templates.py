@@ -1,4 +1,4 @@
-"""Sheet templates (beam, section, truss, free body) and adding a sheet to a project.
+"""Sheet templates (beam, section, truss, member sheets...) and adding a sheet to a project.
 
 A template is a notebook ``templates/sheets/<name>.ipynb`` with, optionally, an inputs file
 ``<name>.inputs.toml`` beside it. The notebook's text may hold two placeholders, replaced when

@@ -316,12 +316,13 @@ def _signature_report(
         key_usage={"digital_signature", "non_repudiation"}, match_all_key_usages=False
     )
 
-    def validate(signer_moment: dt.datetime) -> Any:
+    def validate(signer_moment: dt.datetime, *, skip_diff: bool = False) -> Any:
         return validate_pdf_signature(
             sig,
             signer_validation_context=stored.context(roots, signer_moment, sig.signer_cert),
             ts_validation_context=stored.context(roots, clock.proof),
             key_usage_settings=usage,
+            skip_diff=skip_diff,
         )
 
     try:
@@ -330,7 +331,10 @@ def _signature_report(
         ts_proof = ts.timestamp if ts and ts.valid and ts.intact and ts.trusted else None
         moment, basis = clock.signing_moment(ts_proof, signed_at)
         if moment != clock.proof:
-            status = validate(moment)
+            # Only the certificate checks depend on the moment. pyHanko keeps the first call's
+            # difference analysis on ``sig`` (compute_integrity_info leaves diff_result as it
+            # was when skip_diff is set), and that analysis walks the whole object graph.
+            status = validate(moment, skip_diff=True)
     except Exception as exc:
         return SignatureReport(
             field=str(sig.field_name),

@@ -17,7 +17,7 @@ from typing import Any
 
 from calcpack.checks.base import MemberChecks
 from calcpack.checks.demand import as_combinations
-from calcpack.checks.nds.beam import check_nds_beam
+from calcpack.checks.nds.beam import check_nds_beam, prepare_timber_demand
 from calcpack.checks.nds.factors import ReferenceDesignValues, SawnMember, ServiceConditions
 from calcpack.checks.nds.values import nds_sawn_values
 from calcpack.errors import InputError, OutOfScopeError
@@ -102,10 +102,13 @@ def nds_beam_space(
     share = {name: r.scaled(1.0 / plies) for name, r in combos.items()} if plies > 1 else demand
     check_service_results(deflections, EI_ref)
 
+    # the combinations' C_D, |M| and |V| do not depend on the size: read them once
+    prepared = prepare_timber_demand(share, durations)
+
     def trial(size: SawnMember) -> list[MemberChecks]:
         out = [
             check_nds_beam(
-                size, ref, demand=share, conditions=cond, durations=durations, member=member
+                size, ref, demand=prepared, conditions=cond, durations=durations, member=member
             )
         ]
         I_size = size.b * size.d**3 / 12 * plies

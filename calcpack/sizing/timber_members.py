@@ -22,6 +22,7 @@ from typing import Any, Literal
 
 from calcpack.checks.base import MemberChecks
 from calcpack.checks.demand import as_combinations
+from calcpack.checks.nds.beam import prepare_timber_demand
 from calcpack.checks.nds.factors import DURATION_FACTORS, size_factor
 from calcpack.checks.nds.glulam import check_nds_glulam_beam
 from calcpack.checks.nds.members import TimberForces, TimberMember, check_nds_member
@@ -134,8 +135,10 @@ def glulam_beam_space(
             expected="depths >= widths",
         )
 
+    prepared = prepare_timber_demand(demand, durations)  # read once for every section
+
     def trial(m: TimberMember) -> list[MemberChecks]:
-        out = [check_nds_glulam_beam(m, demand=demand, durations=durations, mark=member)]
+        out = [check_nds_glulam_beam(m, demand=prepared, durations=durations, mark=member)]
         factor = float((EI_ref / (values.E * m.b * m.d**3 / 12)).to("").magnitude)
         out += scaled_deflection_checks(deflections, factor, member)
         return out

@@ -43,7 +43,7 @@ from calcpack.widgets.fields import (
     label,
     wait_for_output_sent,
 )
-from calcpack.widgets.rerun import RerunControl
+from calcpack.widgets.rerun import RerunControl, sheets_reading
 
 __all__ = [
     "InputsPanel",
@@ -201,7 +201,7 @@ class InputsPanel(PanelDisplay):
         for name, w in self.outputs.items():
             w.add_class(f"cp-panel-output-{name}")
         self.form_box = ipw.VBox()
-        self.rerun = RerunControl()
+        self.rerun = RerunControl(others=sheets_reading(self.path))
         reload = ipw.Button(description="Reload file", tooltip=f"Read {self.path.name} again")
         reload.on_click(lambda _b: self.reload())
         title = ipw.HTML(

@@ -10,18 +10,27 @@ exposes JupyterLab's commands to Python. Without it (another front end) the cont
 do the same by hand.
 
 Until the cells are re-run, the control names what is stale: the inputs edited since the working
-below was computed, with their new values.
+below was computed, with their new values -- and the other sheets of the job that read the same
+inputs file (from the project file's ``inputs`` lists), those before this one first: a sheet
+whose results this one imports (the loads sheet that takes a beam's self-weight from its
+section, say) must be re-run before the cells below show the edit's whole effect.
 """
 
 from __future__ import annotations
 
 from collections.abc import Callable
+from dataclasses import dataclass
 from html import escape
+from pathlib import Path
 from typing import Any
 
 import ipywidgets as ipw
 
-__all__ = ["RUN_BELOW", "RerunControl"]
+from calcpack.errors import CalcpackError
+from calcpack.working.links import PROJECT_FILE, project_sheets, this_sheet
+
+__all__ = ["RUN_BELOW", "OtherSheets", "RerunControl", "sheets_reading"]
+
 
 #: JupyterLab's command: run the selected (the panel's) cell and every cell below it
 RUN_BELOW = "notebook:run-all-below"
@@ -49,6 +58,69 @@ def _text(value: Any) -> str:
         return str(value)
 
 
+@dataclass(frozen=True)
+class OtherSheets:
+    """The other sheets of the job that read an inputs file, as listed in the project file.
+
+    Attributes:
+        file: the inputs file's name. before: the sheets listed before the panel's notebook
+            (their results may feed it: re-run them first). after: those listed after it (or
+            every other sheet, when the panel's notebook is not known).
+    """
+
+    file: str
+    before: tuple[str, ...] = ()
+    after: tuple[str, ...] = ()
+
+    def notice(self) -> str:
+        """The sentence naming them, or "" when no other sheet reads the file."""
+        if not (self.before or self.after):
+            return ""
+        f = escape(self.file)
+        out = ""
+        if self.before:
+            out += (
+                f" Sheets before this one read {f} too: re-run "
+                f"{_names(self.before)} first, then the cells below (this sheet may import "
+                "their results)."
+            )
+        if self.after:
+            word = "after this one" if self.before else "of this job"
+            out += f" Other sheets {word} read {f} as well: re-run {_names(self.after)}."
+        return out
+
+
+def _names(sheets: tuple[str, ...]) -> str:
+    return ", ".join(escape(p) for p in sheets)
+
+
+def sheets_reading(inputs: str | Path, notebook: str | Path | None = None) -> OtherSheets | None:
+    """The sheets of the job (the nearest project file above ``inputs``) whose ``inputs`` list
+    names the file ``inputs``, split around ``notebook`` (default: the sheet this kernel runs,
+    :func:`calcpack.working.links.this_sheet`). None when there is no readable project file (a
+    sheet on its own): the notice then names no other sheet."""
+    path = Path(inputs).expanduser().resolve()
+    root = next((f for f in path.parents if (f / PROJECT_FILE).is_file()), None)
+    if root is None:
+        return None
+    try:
+        sheets = project_sheets(root)
+    except CalcpackError:
+        return None
+    if notebook is None:
+        ref = this_sheet()
+        current = ref.notebook.resolve() if ref is not None else None
+    else:
+        current = Path(notebook).expanduser().resolve()
+    listed = [r for r in sheets if any((root / i).resolve() == path for i in r.inputs)]
+    names = [f"sheet {r.number} ({r.path})" for r in listed]
+    mine = [i for i, r in enumerate(listed) if r.notebook.resolve() == current]
+    if not mine:
+        return OtherSheets(path.name, (), tuple(names))
+    i = mine[0]
+    return OtherSheets(path.name, tuple(names[:i]), tuple(names[i + 1 :]))
+
+
 class RerunControl:
     """A "Re-run the cells below" button, an "after each edit" switch and the stale notice.
 
@@ -62,8 +134,11 @@ class RerunControl:
             asked for.
     """
 
-    def __init__(self, execute: Callable[[str], None] | None = None) -> None:
+    def __init__(
+        self, execute: Callable[[str], None] | None = None, *, others: OtherSheets | None = None
+    ) -> None:
         self._execute = execute
+        self.others = others
         self.stale: dict[str, str] = {}
         self.runs = 0
         self.button = ipw.Button(
@@ -112,7 +187,8 @@ class RerunControl:
             self.notice.value = ""
             return
         listed = ", ".join(f"{escape(k)} = {escape(v)}" for k, v in self.stale.items())
+        more = self.others.notice() if self.others is not None else ""
         self.notice.value = (
             '<span style="color:#8a5a00">The working below was computed before these edits '
-            f"and is stale: {listed}</span>"
+            f"and is stale: {listed}.{more}</span>"
         )

@@ -25,7 +25,7 @@ from calcpack.widgets.fields import (
     field_for_error,
     label,
 )
-from calcpack.widgets.rerun import RerunControl
+from calcpack.widgets.rerun import RerunControl, sheets_reading
 from calcpack.widgets.svg import section_sketch_svg
 
 __all__ = ["SectionPanel", "properties_table_html", "section_panel"]
@@ -91,7 +91,7 @@ class SectionPanel(PanelDisplay):
         self.status.add_class("cp-panel-status")
         body = ipw.HBox([self.form, self.sketch, self.table])
         body.add_class("cp-panel-body")
-        self.rerun = RerunControl()
+        self.rerun = RerunControl(others=sheets_reading(self.path))
         self.widget = ipw.VBox(
             [
                 ipw.HTML(

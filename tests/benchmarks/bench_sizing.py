@@ -17,6 +17,8 @@ candidate checked in full with the same trial, :meth:`calcpack.sizing.SearchSpac
 
 * sawn joist: :func:`calcpack.lightest_nds_beam`, Douglas Fir-Larch No.2, 14 ft simple span,
   ASCE 7-16 allowable-stress combinations, live deflection span/360 (15 sizes 2x4 to 4x12);
+* sawn joist across grades: the same joist, every size in No.2, No.1 and Select Structural
+  (:func:`calcpack.sizing.nds_graded_beam_space`, 45 candidates);
 * glulam: :func:`calcpack.lightest_glulam_beam`, 24F-1.8E, 24 ft simple span (the stock widths
   and depths);
 * post: :func:`calcpack.lightest_nds_post`, Table 4D P&T No.1 timbers, two force sets.
@@ -48,6 +50,7 @@ from calcpack.sizing import (
     lightest_nds_beam,
     lightest_nds_post,
     nds_beam_space,
+    nds_graded_beam_space,
     nds_post_space,
 )
 from calcpack.units import Q_
@@ -157,8 +160,15 @@ def _timber_jobs():  # type: ignore[no-untyped-def]
         "species": "Douglas Fir-Larch", "grade": "P&T No.1", "table": "4D", "le": Q_(10, "ft"),
         "durations": {"D + L": "ten years", "D + 0.75L + 0.75S": "two months"},
     }  # fmt: skip
+    graded = {**sawn, "grade": ["No.2", "No.1", "Select Structural"]}
+    graded_space = {k: v for k, v in graded.items() if k != "grade"}
     return [
         ("sawn joist", lambda: lightest_nds_beam(joist, **sawn), nds_beam_space(joist, **sawn)),
+        (
+            "sawn, grades",
+            lambda: lightest_nds_beam(joist, **graded),
+            nds_graded_beam_space(joist, grades=graded["grade"], **graded_space),
+        ),
         (
             "glulam beam",
             lambda: lightest_glulam_beam(girder, deflections=g_defl),

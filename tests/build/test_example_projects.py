@@ -674,6 +674,19 @@ def _job2_piers(b: Built, bc: Any) -> dict[tuple[str, str], tuple[Any, Any]]:
             Q_(0.5 * A * (1 + math.sqrt(1 + 4.36 * h / A)), "ft"),
             Q_(d_ft, "ft"),
         )
+        # net uplift on the pier (common practice): the wind uplift on the deck reaches BR1 as
+        # a line load p·l_J/2, as the dead load does; two equal spans under uniform load give
+        # 0.375 w l at the ends and 1.25 w l in the middle (beam tables); the pier's concrete
+        # at 150 pcf holds it, factored as dead load in the combination that lifts it most
+        lJ = Q_(deck["geometry"]["joist_span"])
+        k = (1.25 if sup == "B" else 0.375) * Q_(deck["geometry"]["bearer_span"]) * lJ / 2
+        P_D, P_W = Q_(deck["loads"]["dead"]) * k, -Q_(deck["wind"]["uplift"]) * k
+        W_c = (Q_(150, "pcf") * math.pi / 4 * Q_(pd["diameter"]) ** 2 * Q_(pd["depth"])).to("lbf")
+        lifts = [(f_D, -(f_D * P_D + f_W * P_W)) for f_D, f_W in ((1.0, 0.6), (0.6, 0.6))]
+        f_D, U = max(lifts, key=lambda fu: (fu[1] / fu[0]).to("lbf").magnitude)
+        exp[(f"PR-{sup}", "Uplift")] = (
+            (U, f_D * W_c) if U.magnitude > 0 else (0 * ureg.lbf, 0.6 * W_c)
+        )
         # the base below the frost depth: 24 in against 18 in (inputs file), by hand
         assert Q_(pd["depth"]) >= site.frost_depth
         for r in (*soil.results, *conc.results):
@@ -730,7 +743,14 @@ def _ledger_expected(data: dict[str, Any], q: Any) -> dict[tuple[str, str], tupl
     top, bottom = Q_(led["top"]), Q_(led["bottom"])
     d_l, d_b = Q_(led["ledger_depth"]), Q_(led["band_depth"])
     ratio = min(ls, lm) / D  # Table 12.5.1D, perpendicular: (5 l/D + 10)/8 D for 2 < l/D < 6
+    # the wind on the deck's edge not taken by the post line, along the ledger (2 bearer bays
+    # long) at 0.6W (ASCE 7-16 §2.4.1 (5)), added to each bolt's gravity load as a resultant
+    wind = data["wind"]
+    lB = Q_(geo["bearer_span"])
+    H_W = Q_(wind["lateral"]) * Q_(wind["edge_height"]) * max(2 * lB, Q_(geo["joist_span"]))
+    V_b = 0.6 * (1 - wind["post_line_share"]) * H_W * s / (2 * lB)
     return {
+        ("L1", "Bolt under gravity and wind"): (((w * s) ** 2 + V_b**2) ** 0.5, Zp),
         ("L1", "Fastener lateral capacity"): (w * s, Zp),
         ("L1", "Ledger loaded edge (top)"): (4 * D * inch, top),
         ("L1", "Ledger unloaded edge (bottom)"): (1.5 * D * inch, bottom),
@@ -1150,15 +1170,15 @@ def test_the_alteration_carries_its_values_down_the_chain_and_the_checker_verifi
 # What each job declares it leaves unchecked, and why (in the package beside each entry): the
 # alteration now checks everything its checklists ask for (the anchor rod's concrete anchorage
 # on sheet 5, the beam's end restraint against twist on sheet 4). The deck leaves nothing: its
-# hardware, posts and lateral stability are checked, and the wall under its ledger is declared
-# by others in the ledger's checklist.
+# hardware, posts, piers (bearing, uplift, embedment) and lateral stability are checked, and the
+# wall under its ledger is declared by others in the ledger's checklist.
 DECLARED_NOT_COVERED: dict[str, set[tuple[str, str]]] = {
     "alteration_ashgrove_lane": set(),
     "deck_larkspur_court": set(),
 }
 DESIGNED_MEMBERS = {
     "alteration_ashgrove_lane": {"B1", "P1", "P2", "F-P1", "F-P2"},
-    "deck_larkspur_court": {"J1", "BR1", "posts A, C", "post B", "L1"},
+    "deck_larkspur_court": {"J1", "BR1", "posts A, C", "post B", "L1", "PR-A", "PR-B", "PR-C"},
 }
 
 

@@ -35,9 +35,10 @@ from calcpack.analysis.beam.extremes import (
     range_extremes,
 )
 from calcpack.analysis.beam.quantities import out_q
+from calcpack.analysis.superposition import superpose
 from calcpack.errors import InputError, OutOfScopeError
 from calcpack.units import Quantity, require
-from calcpack.validate import at_least, find, finite
+from calcpack.validate import find, finite
 
 if TYPE_CHECKING:
     from calcpack.analysis.beam.model import Beam, BeamClassification
@@ -330,7 +331,8 @@ class BeamResult:
 
 
 def combine(results: Mapping[str, BeamResult], factors: Mapping[str, float]) -> BeamResult:
-    """Σ factor × result over load cases: the result of a load combination by superposition.
+    """Σ factor × result over load cases: the result of a load combination by superposition
+    (:func:`calcpack.analysis.superposition.superpose`).
 
     Args:
         results: load-case name -> result of that case alone (e.g. from
@@ -341,18 +343,5 @@ def combine(results: Mapping[str, BeamResult], factors: Mapping[str, float]) -> 
     Raises:
         InputError: a factor names a case that has no result, or no factors are given.
     """
-    at_least("factors", dict(factors), what="load factor")
-    total: BeamResult | None = None
-    for name, f in factors.items():
-        if name not in results:
-            raise InputError(
-                f"Load case {name!r} in the factors has no result (cases with results: "
-                f"{sorted(results)})",
-                name=f"factors[{name!r}]",
-                value=f,
-                expected="a case that was solved",
-            )
-        term = results[name].scaled(float(finite(f"factors[{name!r}]", f)))
-        total = term if total is None else total + term
-    assert total is not None
+    total: BeamResult = superpose(results, factors)
     return total

@@ -3,6 +3,8 @@
 from __future__ import annotations
 
 from collections.abc import Mapping
+from dataclasses import dataclass
+from types import MappingProxyType
 from typing import Any
 
 from calcpack.checks.base import MemberChecks, Recorder, Standard, run_checks
@@ -23,9 +25,9 @@ from calcpack.checks.nds.factors import (
     wet_service_factor,
 )
 from calcpack.checks.nds.values import southern_pine_size_factor
-from calcpack.errors import OutOfScopeError
+from calcpack.errors import InputError, OutOfScopeError
 
-__all__ = ["check_nds_beam"]
+__all__ = ["PreparedTimberDemand", "check_nds_beam", "prepare_timber_demand"]
 
 
 def combination_demands(demand: Any, durations: Mapping[str, str]) -> list[dict[str, Any]]:
@@ -49,6 +51,57 @@ def combination_demands(demand: Any, durations: Mapping[str, str]) -> list[dict[
     return items
 
 
+@dataclass(frozen=True)
+class PreparedTimberDemand:
+    """The demands of allowable-stress results read once (:func:`combination_demands` for each
+    combination: C_D, the largest |M| and |V|), kept to check many sections of one beam (a
+    size search). Made by :func:`prepare_timber_demand`; :func:`check_nds_beam` and
+    :func:`calcpack.checks.nds.glulam.check_nds_glulam_beam` take it as ``demand`` and give the
+    same results as with the results it was read from.
+
+    Attributes:
+        items: one read-only mapping per combination. durations: the load-case durations the
+            C_D were found with (a check given other durations refuses it).
+    """
+
+    items: tuple[Mapping[str, Any], ...]
+    durations: Mapping[str, str]
+
+
+def prepare_timber_demand(
+    demand: Any, durations: Mapping[str, str] | None = None
+) -> PreparedTimberDemand:
+    """Read ``demand`` (as :func:`check_nds_beam` takes it) once, with ``durations`` (defaults
+    for D, L, Lr, S, R, W, Eh, Ev as in the checks).
+
+    Raises:
+        InputError: combinations of another kind, a load case without a duration.
+    """
+    durs = {**DEFAULT_DURATIONS, **dict(durations or {})}
+    items = tuple(MappingProxyType(it) for it in combination_demands(demand, durs))
+    return PreparedTimberDemand(items, MappingProxyType(durs))
+
+
+def demand_items(demand: Any, durations: Mapping[str, str]) -> list[dict[str, Any]]:
+    """The per-combination demands of ``demand``: read now, or taken from a
+    :class:`PreparedTimberDemand` read with the same durations.
+
+    Raises:
+        InputError: a prepared demand read with other durations.
+    """
+    if not isinstance(demand, PreparedTimberDemand):
+        return combination_demands(demand, durations)
+    if dict(demand.durations) != dict(durations):
+        raise InputError(
+            "The prepared demand was read with other load durations than the check's "
+            f"(got durations = {dict(durations)!r}); prepare it with the check's durations",
+            name="durations",
+            value=dict(durations),
+            expected=repr(dict(demand.durations)),
+        )
+    return [dict(it) for it in demand.items]
+
+
 def check_nds_beam(
     member_size: SawnMember,
     reference: ReferenceDesignValues,
@@ -67,7 +120,7 @@ def check_nds_beam(
         demand: ASD combined results (e.g. ASCE/SEI 7 §2.4 through analyse_combinations), a
             mapping of combination -> beam result, or one result. Each result must carry its
             load-case factors (``cases``) so C_D can be found; a plain result is taken as one
-            case named by its label.
+            case named by its label. Or a :class:`PreparedTimberDemand` read from them.
         durations: load case -> duration name of Table 2.3.2 (defaults for D, L, Lr, S, R, W,
             Eh, Ev; pattern cases "L#2" use their base case).
 
@@ -77,7 +130,7 @@ def check_nds_beam(
     """
     cond = conditions or ServiceConditions()
     durs = {**DEFAULT_DURATIONS, **dict(durations or {})}
-    items = combination_demands(demand, durs)
+    items = demand_items(demand, durs)
     if cond.CF is None:
         _size_factor(reference, member_size)
     logic = _NDSLogic(member_size, reference, cond, items)

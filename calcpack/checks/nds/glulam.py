@@ -21,7 +21,7 @@ from dataclasses import replace
 from typing import Any
 
 from calcpack.checks.base import MemberChecks, Recorder, Standard, run_checks
-from calcpack.checks.nds.beam import combination_demands
+from calcpack.checks.nds.beam import demand_items
 from calcpack.checks.nds.factors import _TITLE, DEFAULT_DURATIONS, NDS_EDITION
 from calcpack.checks.nds.members import TimberMember, _bending
 from calcpack.errors import OutOfScopeError
@@ -31,7 +31,7 @@ __all__ = ["check_nds_glulam_beam"]
 
 
 def _items(member: TimberMember, demand: Any, durations: Mapping[str, str]) -> list[dict[str, Any]]:
-    items = combination_demands(demand, durations)
+    items = demand_items(demand, durations)
     for it in items:
         M, xM = it["M"], it["xM"]
         if float(it["result"].moment(xM).to("lbf*ft").magnitude) < -1e-9 * max(
@@ -61,7 +61,8 @@ def check_nds_glulam_beam(
             compression edge braced); ``L_beam`` the length between points of zero moment for
             C_V (None: the beam's whole length, which gives the smaller C_V — conservative).
         demand: ASD combined results (``analyse_combinations``), a mapping of combination ->
-            beam result, or one result; each result's load-case factors (``cases``) set C_D.
+            beam result, or one result; each result's load-case factors (``cases``) set C_D;
+            or a :class:`calcpack.checks.nds.beam.PreparedTimberDemand` read from them.
         durations: load case -> Table 2.3.2 duration (defaults for D, L, Lr, S, R, W, Eh, Ev).
 
     Raises:

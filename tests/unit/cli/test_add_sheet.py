@@ -30,6 +30,7 @@ def test_templates_are_the_starting_points() -> None:
         "section",
         "site_loads",
         "steel_column",
+        "timber_beam",
         "timber_post",
         "truss",
     ]
@@ -42,6 +43,7 @@ def test_templates_are_the_starting_points() -> None:
         ("footing", "Bearing pressure"),
         ("deck_ledger", "Fastener lateral capacity"),
         ("timber_post", "Compression"),
+        ("timber_beam", "Bending"),
     ],
 )
 def test_catalogue_sheets_run_as_made(
@@ -60,6 +62,54 @@ def test_catalogue_sheets_run_as_made(
     sheet = scope["s"]
     names = {r.name for r in sheet.checks()}  # type: ignore[attr-defined]
     assert check in names
+
+
+def test_timber_beam_sheet_runs_for_glulam_and_its_search_picks_a_passing_section(
+    project: Path, monkeypatch: pytest.MonkeyPatch
+) -> None:
+    """The timber beam template with its member made glulam: the cells run as written, every
+    check of the member is recorded, and the search the sheet's panel runs picks a section
+    that passes when written into the file and checked as the sheet checks it."""
+    from calcpack.inputs import load_inputs, update_inputs
+    from calcpack.inputs.beam_member import (
+        beam_member_inputs,
+        beam_pick_changes,
+        evaluate_beam_member,
+        lightest_beam_member,
+    )
+
+    added = add_sheet(project, "timber_beam", title="Girder G1")
+    inputs = project / str(added.inputs)
+    text = inputs.read_text(encoding="utf-8")
+    for old, new in (
+        ('spans = ["14 ft"]', 'spans = ["18 ft"]'),
+        ('material = "sawn"', 'material = "glulam"'),
+        ('species = "Douglas Fir-Larch"\n', 'stress_class = "24F-1.8E"\n'),
+        ('grade = "No.2"', 'width = "5.125 in"'),
+        ('size = "3x12"', 'depth = "12 in"'),
+        ('L = "120 lbf/ft"', 'L = "400 lbf/ft"'),
+    ):
+        assert old in text
+        text = text.replace(old, new, 1)
+    inputs.write_text(text, encoding="utf-8")
+    nb = json.loads((project / added.notebook).read_text(encoding="utf-8"))
+    monkeypatch.chdir((project / added.notebook).parent)
+    monkeypatch.setenv("CALCPACK_BUILDING", "1")
+    scope: dict[str, object] = {}
+    for cell in nb["cells"]:
+        if cell["cell_type"] == "code":
+            exec("".join(cell["source"]), scope)
+    names = {r.name for r in scope["s"].checks()}  # type: ignore[attr-defined]
+    assert {"Shear", "Deflection (live)", "Deflection (total)"} <= names
+    assert any(n.startswith("Bending") for n in names)
+    member = scope["member"]
+    best = lightest_beam_member(member, count=1).best  # type: ignore[arg-type]
+    assert "24F-1.8E" in best.name
+    update_inputs(inputs, beam_pick_changes(member, best.name), tables=("member",))  # type: ignore[arg-type]
+    table = load_inputs(inputs, tables=("member",))
+    picked = beam_member_inputs(table, scope["demand"], table="member")  # type: ignore[arg-type]
+    assert picked.section == best.name
+    assert evaluate_beam_member(picked).passed
 
 
 def test_add_beam_sheet_with_inputs(project: Path, capsys: pytest.CaptureFixture[str]) -> None:

@@ -105,3 +105,21 @@ def test_lightest_member_passes_in_full_and_the_next_lighter_fails() -> None:
             fails.append(True)
     assert any(fails)
     _ = MemberForces  # the forces type the inputs file maps to
+
+
+def test_forces_that_are_missing_or_not_tables_are_named() -> None:
+    """The [[forces]] tables are read by one helper for every member table: none at all, or an
+    entry that is not a table, is refused at its key."""
+    from calcpack.inputs.file import InputsFileError
+    from calcpack.inputs.sized import force_tables
+
+    data = read_inputs_text(E1A.format(method="LRFD", P=100.0))
+    del data["forces"]
+    with pytest.raises(InputsFileError, match=r"no \[\[forces\]\] tables \(one per combination\)"):
+        member_inputs(data)
+    data["forces"] = [{"P": Q_(10.0, "kip")}, 5]
+    with pytest.raises(InputsFileError, match=r"forces\[2\] must be a table") as err:
+        member_inputs(data)
+    assert err.value.name == "forces[2]"
+    rows = force_tables([{"P": 1}], path="x.toml", missing="", expected="one")
+    assert rows == [("forces[1]", {"P": 1})]

@@ -144,3 +144,26 @@ def test_grades_of_a_species_come_from_the_table_and_bad_lists_name_the_input() 
     )
     with pytest.raises(InputError, match="grades"):
         lightest_beam_member(steel, grades=["No.2"])
+
+
+def test_member_stiffness_is_e_times_i_of_the_table_section() -> None:
+    from calcpack.inputs.beam_member import member_stiffness
+
+    # AISC Shapes Database v15.0 (published-values reference): W8x18 I_x = 61.9 in⁴
+    steel = {"m": {"material": "steel", "section": "W8X18", "Fy": Q_(50, "ksi")}}
+    assert member_stiffness(steel, table="m").to("kip*inch**2").magnitude == pytest.approx(
+        29000 * 61.9, rel=1e-3
+    )
+    # DF-L No.2, E = 1,600,000 psi (Table 4A); a 2x10 dressed 1.5 x 9.25 in; two plies
+    sawn = {"m": {**TABLE, "size": "2x10", "plies": 2}}
+    ei = member_stiffness(sawn, table="m").to("lbf*inch**2").magnitude
+    assert ei == pytest.approx(1.6e6 * 1.5 * 9.25**3 / 12 * 2, rel=1e-9)
+    # 24F-1.8E: E_x = 1,800,000 psi (the class name gives it; NDS Supplement Table 5A)
+    glulam = {"m": {"material": "glulam", "stress_class": "24F-1.8E",
+                    "width": Q_(5.125, "inch"), "depth": Q_(12, "inch")}}  # fmt: skip
+    ei = member_stiffness(glulam, table="m").to("lbf*inch**2").magnitude
+    assert ei == pytest.approx(1.8e6 * 5.125 * 12**3 / 12, rel=1e-9)
+    with pytest.raises(InputError, match=r"m\.size"):
+        member_stiffness({"m": {**TABLE, "size": "large"}}, table="m")
+    with pytest.raises(InputError, match="no \\[beam\\] table"):
+        member_stiffness({}, table="beam")

@@ -356,3 +356,47 @@ def test_rerun_control_without_jupyterlab_commands_says_what_to_do(
     panel.rerun.button.click()
     assert "by hand" in panel.rerun.notice.value
     assert panel.rerun.runs == 0
+
+
+def test_stale_notice_names_the_other_sheets_that_read_the_file(tmp_path: Path) -> None:
+    """After an edit the notice names the job's other sheets reading the same inputs file
+    (from the project file), those before the panel's notebook to be re-run first."""
+    from calcpack.widgets.rerun import RerunControl, sheets_reading
+
+    (tmp_path / "inputs").mkdir()
+    (tmp_path / "sheets").mkdir()
+    inputs = tmp_path / "inputs" / "design.toml"
+    inputs.write_text("[beam]\nsection = 'W8X18'\n", encoding="utf-8")
+    (tmp_path / "calcpack.toml").write_text(
+        "\n".join(
+            f'[[sheets]]\npath = "sheets/{name}.ipynb"\ninputs = [{reads}]\n'
+            for name, reads in (
+                ("01_loads", '"inputs/design.toml"'),
+                ("02_beam", '"inputs/design.toml"'),
+                ("03_footing", '"inputs/footing.toml"'),
+                ("04_posts", '"inputs/design.toml"'),
+            )
+        ),
+        encoding="utf-8",
+    )
+    found = sheets_reading(inputs, tmp_path / "sheets" / "02_beam.ipynb")
+    assert found is not None
+    assert (found.before, found.after) == (
+        ("sheet 1 (sheets/01_loads.ipynb)",),
+        ("sheet 4 (sheets/04_posts.ipynb)",),
+    )
+    unknown = sheets_reading(inputs, tmp_path / "elsewhere.ipynb")
+    assert unknown is not None
+    assert unknown.before == ()
+    assert [n.split(" (")[0] for n in unknown.after] == ["sheet 1", "sheet 2", "sheet 4"]
+    control = RerunControl(lambda _c: None, others=found)
+    control.edited({"beam.section": "W10X12"})
+    notice = control.notice.value
+    assert "beam.section = W10X12" in notice
+    assert "re-run sheet 1 (sheets/01_loads.ipynb) first" in notice
+    assert "03_footing" not in notice  # it reads another file
+    assert "re-run sheet 4 (sheets/04_posts.ipynb)." in notice
+    # a file no sheet of the job reads names no other sheet
+    other = sheets_reading(tmp_path / "inputs" / "spare.toml")
+    assert other is not None
+    assert other.notice() == ""
