@@ -267,9 +267,12 @@ def footing_figure(
         f"Footing {footing.mark}: plan with the column, bars and critical sections (M moment, "
         "V one-way shear, punching perimeter), section, and soil pressure along x"
     )
+    B, h, c1 = (
+        quantity_label(q.magnitude, q.units) for q in (footing.B, footing.h, footing.column.c1)
+    )
     alt = (
-        f"Footing {footing.mark}, {footing.shape} {footing.B:~P} wide and {footing.h:~P} thick, "
-        f"column {footing.column.c1:~P}; sections for moment, shear and punching drawn on plan"
+        f"Footing {footing.mark}, {footing.shape} {B} wide and {h} thick, column {c1}; "
+        "sections for moment, shear and punching drawn on plan"
     )
     return Figure("footing", data, caption=words, alt=alt)
 

@@ -20,7 +20,7 @@ from pathlib import Path
 from typing import Any
 
 import pytest
-from examplekit import SI_PROJECTS, Built
+from examplekit import ALL_PROJECTS, Built
 
 pytestmark = pytest.mark.build
 
@@ -116,7 +116,22 @@ def _first_pages(manifest: dict[str, Any]) -> dict[str, int]:
     return dict(sorted(pages.items(), key=lambda item: item[1]))
 
 
-@pytest.mark.parametrize("job", SI_PROJECTS)
+# A job whose references are not written yet: strict, so the mark goes once they are.
+_PENDING = {
+    "deck_larkspur_court": "no references yet: the package did not build when they were made "
+    "(sheet 04_piers could not import the cases of H_A from 02_bearer)",
+}
+
+
+@pytest.mark.parametrize(
+    "job",
+    [
+        pytest.param(j, marks=pytest.mark.xfail(strict=True, reason=_PENDING[j]))
+        if j in _PENDING
+        else j
+        for j in ALL_PROJECTS
+    ],
+)
 def test_example_pages_match_their_references(
     job: str, packages: dict[str, Built], tmp_path: Path
 ) -> None:

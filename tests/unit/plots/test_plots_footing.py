@@ -51,6 +51,8 @@ def test_round_pier_without_checks_and_as_a_figure_step() -> None:
     assert fig.drawing == "footing"
     assert "<svg" in fig.svg()
     assert "P1" in fig.alt
+    # sizes in the alternative text are written by the one formatter, as on the sheet
+    assert "round 0.600 m wide and 1.20 m thick, column 0.150 m;" in fig.alt
 
 
 @pytest.mark.parametrize("support", ["masonry", "base plate"])
