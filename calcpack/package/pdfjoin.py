@@ -21,7 +21,8 @@ one tree in reading order:
 Links to a section laid out in another chunk are added after the join, as link annotations to
 named destinations (WeasyPrint could not resolve them within the chunk). Last, the joined tree
 is flattened (:mod:`calcpack.package.pdf_tree`: the bare ``Span``, ``Div`` and ``NonStruct``
-wrappers WeasyPrint writes for every box are dropped), for a single chunk too.
+wrappers WeasyPrint writes for every box are dropped), for a single chunk too, and each page
+is given only the resources it names (:mod:`calcpack.package.pdf_resources`).
 """
 
 from __future__ import annotations
@@ -32,7 +33,8 @@ from typing import Any
 
 from calcpack.errors import BuildError
 from calcpack.package.layout_boxes import Link
-from calcpack.package.pdf_tree import flatten_structure
+from calcpack.package.pdf_resources import prune_resources
+from calcpack.package.pdf_tree import drop_unreachable, flatten_structure
 
 __all__ = ["join_chunks", "structure_summary"]
 
@@ -64,8 +66,11 @@ def join_chunks(first: bytes, rest: Sequence[bytes], links: Sequence[Link]) -> b
     added = [(link, _add_link(writer, link)) for link in links]
     if tagged and added:
         _tag_links(writer, added)
+    prune_resources(writer)
     if tagged:
-        flatten_structure(writer)
+        flatten_structure(writer)  # frees what is no longer reachable, resources too
+    else:
+        drop_unreachable(writer)
     out = io.BytesIO()
     writer.write(out)
     return out.getvalue()
