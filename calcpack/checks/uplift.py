@@ -260,13 +260,13 @@ def check_uplift_by_weight(
                           source=gov.name)  # fmt: skip
         R = c.derive("R_up", g_D * W, "uplift resistance: the weight as dead load", unit="lbf",
                      ref=gov.clause)  # fmt: skip
-        rule = f"{gov.clause}: FS·U ≤ γ_D·W"
+        rule = f"{gov.clause}: FS·U ≤ γD·W"
         if body.safety != 1.0:
             FS = c.given("FS_up", body.safety, "factor of safety on the uplift",
                          source=body.safety_source)  # fmt: skip
             U = c.derive("U_FS", FS * U, "uplift times the factor of safety", unit="lbf")
         else:
-            rule = f"{gov.clause}: U ≤ γ_D·W"
+            rule = f"{gov.clause}: U ≤ γD·W"
         c.check(
             "Uplift",
             U,
